@@ -1,0 +1,1 @@
+//! Tangent lines between circles (and points) in 3-D.

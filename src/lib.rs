@@ -1,0 +1,13 @@
+//! `reeve`: a rigging and pulley-train friction analyzer.
+//!
+//! The data flows one way:
+//! rig file → [`rig::Rig`] (resolved, SI) → [`network`] (graph, components) and
+//! [`geometry`] (spans, wraps, fleet angles) → [`solve`] (kinematics, statics, three
+//! cases, energy audit) → [`report`] (one report, many writers).
+#![warn(missing_docs)]
+
+pub mod friction;
+pub mod geometry;
+pub mod math;
+pub mod rig;
+pub mod units;

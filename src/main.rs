@@ -1,0 +1,2 @@
+//! The `reeve` command line (thin: the work is in the library).
+fn main() {}

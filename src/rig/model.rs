@@ -1,0 +1,387 @@
+//! The rig as resolved: names checked, references turned into indices, every quantity in
+//! SI and radians. Geometry and the solver read only this; they never see YAML.
+
+use crate::math::{Direction, Point, Real};
+use crate::units::UnitSystem;
+
+/// Where something was written in the rig file (1-based line and column).
+#[derive(Debug, Clone, Copy, PartialEq, Eq, Default)]
+pub struct Location {
+    /// 1-based line.
+    pub line: usize,
+    /// 1-based column.
+    pub column: usize,
+}
+
+/// Index of a part in [`Rig::parts`] (file order).
+pub type PartId = usize;
+/// Index of a rope in [`Rig::ropes`].
+pub type RopeId = usize;
+/// Index of a line in [`Rig::lines`].
+pub type LineId = usize;
+
+/// A whole rig, ready for geometry and solving.
+#[derive(Debug, Clone)]
+pub struct Rig {
+    /// The rig's title (file name when the file has none).
+    pub title: String,
+    /// The units the file used for bare numbers; reports show these.
+    pub units: UnitSystem,
+    /// Direction in which gravity acts.
+    pub gravity: Direction,
+    /// Good-practice limits for the checks.
+    pub limits: Limits,
+    /// Rope kinds, file order.
+    pub ropes: Vec<Rope>,
+    /// Parts, file order.
+    pub parts: Vec<Part>,
+    /// Lines, file order.
+    pub lines: Vec<Line>,
+    /// The part whose forward motion drives the rig.
+    pub drive: PartId,
+    /// The part whose natural quantity is the unknown.
+    pub solve_for: PartId,
+}
+
+/// Good-practice limits.
+#[derive(Debug, Clone, Copy, PartialEq)]
+pub struct Limits {
+    /// Largest fleet angle, radians (default 1.5°, common practice for grooved sheaves).
+    pub fleet_angle: Real,
+    /// Least ratio of breaking strength to span tension (default 5, common practice).
+    pub design_factor: Real,
+}
+
+impl Default for Limits {
+    fn default() -> Self {
+        Limits { fleet_angle: 1.5_f64.to_radians(), design_factor: 5.0 }
+    }
+}
+
+/// What a rope is made of; sets the default least bend ratio.
+#[derive(Debug, Clone, Copy, PartialEq, Eq)]
+pub enum RopeKind {
+    /// Stranded steel wire rope.
+    Wire,
+    /// Fibre rope or braid (the default).
+    Fibre,
+    /// Kernmantle life-safety rope.
+    Kernmantle,
+    /// Small cord, fishing line, instrument cable.
+    Cord,
+}
+
+/// A rope or cord kind that lines are made of.
+#[derive(Debug, Clone, PartialEq)]
+pub struct Rope {
+    /// Name as written.
+    pub name: String,
+    /// What it is made of.
+    pub kind: RopeKind,
+    /// Nominal diameter, m.
+    pub diameter: Real,
+    /// Minimum breaking strength, N, when known.
+    pub breaking_strength: Option<Real>,
+    /// Coefficient of friction of rope on a non-turning surface (capstan, groove).
+    pub mu: Real,
+    /// Least tread-diameter / rope-diameter ratio.
+    pub min_bend_ratio: Real,
+    /// Where the rope is defined in the file.
+    pub location: Location,
+}
+
+/// A part of the rig.
+#[derive(Debug, Clone, PartialEq)]
+pub struct Part {
+    /// Name as written (unique).
+    pub name: String,
+    /// Centre (round parts) or point (ends), m.
+    pub at: Point,
+    /// What it is.
+    pub kind: PartKind,
+    /// Where the part is defined in the file.
+    pub location: Location,
+}
+
+/// The kinds of part, with their own data.
+#[derive(Debug, Clone, PartialEq)]
+pub enum PartKind {
+    /// A fixed tie point.
+    Anchor,
+    /// A turning sheave, fixed or carried by a block.
+    Sheave(Sheave),
+    /// A fixed round surface the rope slides over.
+    Guide(Guide),
+    /// A moving frame that carries sheaves and a load.
+    Block(Block),
+    /// A hanging mass at a line end.
+    Weight(Weight),
+    /// A drum on a shaft.
+    Drum(Drum),
+    /// A free line end where effort is applied.
+    Haul(Haul),
+}
+
+impl PartKind {
+    /// The kind's name as written in rig files.
+    pub fn name(&self) -> &'static str {
+        match self {
+            PartKind::Anchor => "anchor",
+            PartKind::Sheave(_) => "sheave",
+            PartKind::Guide(_) => "guide",
+            PartKind::Block(_) => "block",
+            PartKind::Weight(_) => "weight",
+            PartKind::Drum(_) => "drum",
+            PartKind::Haul(_) => "haul",
+        }
+    }
+
+    /// The round part's axle, tread diameter and groove data, if it is round.
+    pub fn round(&self) -> Option<Round> {
+        match self {
+            PartKind::Sheave(s) => Some(Round {
+                axle: s.axle,
+                tread_diameter: s.tread_diameter,
+                groove_angle: s.groove_angle,
+                mu: s.mu,
+            }),
+            PartKind::Guide(g) => Some(Round {
+                axle: g.axle,
+                tread_diameter: g.diameter,
+                groove_angle: g.groove_angle,
+                mu: g.mu,
+            }),
+            PartKind::Drum(d) => Some(Round {
+                axle: d.axle,
+                tread_diameter: d.diameter,
+                groove_angle: None,
+                mu: d.mu,
+            }),
+            _ => None,
+        }
+    }
+}
+
+/// What every round part (sheave, guide, drum) has in common.
+#[derive(Debug, Clone, Copy, PartialEq)]
+pub struct Round {
+    /// Axle direction; the part's plane is normal to it.
+    pub axle: Direction,
+    /// Tread (groove-bottom) diameter, m.
+    pub tread_diameter: Real,
+    /// V-groove included angle, radians (None = round groove).
+    pub groove_angle: Option<Real>,
+    /// Rope-on-surface friction coefficient, when the part overrides the rope's.
+    pub mu: Option<Real>,
+}
+
+/// A turning sheave.
+#[derive(Debug, Clone, PartialEq)]
+pub struct Sheave {
+    /// Axle direction.
+    pub axle: Direction,
+    /// Tread diameter, m.
+    pub tread_diameter: Real,
+    /// The bearing it turns on.
+    pub bearing: Bearing,
+    /// Own mass, kg (adds its weight to the pin load).
+    pub mass: Option<Real>,
+    /// V-groove included angle, radians.
+    pub groove_angle: Option<Real>,
+    /// Rope-on-groove friction (default: the rope's), for the stalled-sheave check.
+    pub mu: Option<Real>,
+    /// The block that carries it, if any.
+    pub block: Option<PartId>,
+}
+
+/// A fixed round surface.
+#[derive(Debug, Clone, PartialEq)]
+pub struct Guide {
+    /// Axle direction.
+    pub axle: Direction,
+    /// Surface diameter, m.
+    pub diameter: Real,
+    /// Rope-on-guide friction (default: the rope's).
+    pub mu: Option<Real>,
+    /// V-groove included angle, radians.
+    pub groove_angle: Option<Real>,
+}
+
+/// The load a block carries.
+#[derive(Debug, Clone, Copy, PartialEq)]
+pub enum BlockLoad {
+    /// A hanging mass, kg, acting along gravity.
+    Mass(Real),
+    /// A force, N, acting against the block's forward travel.
+    Force(Real),
+}
+
+/// A moving frame.
+#[derive(Debug, Clone, PartialEq)]
+pub struct Block {
+    /// Direction of forward travel.
+    pub moves: Direction,
+    /// The load; None when it is the unknown.
+    pub load: Option<BlockLoad>,
+    /// Whether the load is given as a force (true) or a mass (false); decides the
+    /// unknown's quantity when the block is `solve_for`.
+    pub load_is_force: bool,
+    /// The frame's own mass, kg.
+    pub mass: Option<Real>,
+}
+
+/// A hanging mass at a line end.
+#[derive(Debug, Clone, PartialEq)]
+pub struct Weight {
+    /// Mass, kg; None when it is the unknown.
+    pub mass: Option<Real>,
+}
+
+/// Journal bearing and thrust of a drum shaft.
+#[derive(Debug, Clone, PartialEq)]
+pub struct Shaft {
+    /// Radial bearing.
+    pub bearing: Bearing,
+    /// Axial (thrust) bearing.
+    pub thrust: Option<Thrust>,
+}
+
+/// A drum on a shaft.
+#[derive(Debug, Clone, PartialEq)]
+pub struct Drum {
+    /// Axle direction; forward turning of a driving drum is right-handed about it.
+    pub axle: Direction,
+    /// Barrel (tread) diameter, m.
+    pub diameter: Real,
+    /// Shaft bearings.
+    pub shaft: Option<Shaft>,
+    /// Steady load torque opposing forward turning, N·m; None when it is the unknown.
+    pub torque: Option<Real>,
+    /// Torque that always opposes motion, N·m.
+    pub drag: Real,
+    /// Rope-on-drum friction for the slip check (default: the rope's).
+    pub mu: Option<Real>,
+    /// Own mass, kg (adds to the journal load).
+    pub mass: Option<Real>,
+}
+
+/// A free line end where effort is applied.
+#[derive(Debug, Clone, PartialEq)]
+pub struct Haul {
+    /// Direction of pull; None = along the span away from the previous part.
+    pub pull: Option<Direction>,
+    /// Available force, N, when known.
+    pub force: Option<Real>,
+}
+
+/// How a sheave or shaft turns on its pin.
+#[derive(Debug, Clone, Copy, PartialEq)]
+pub enum Bearing {
+    /// Frictionless.
+    None,
+    /// Plain journal bearing (bushing): friction circle.
+    Plain {
+        /// Pin diameter, m.
+        pin_diameter: Real,
+        /// Kinetic coefficient.
+        mu: Real,
+        /// Static coefficient for breakaway, when known.
+        mu_static: Option<Real>,
+    },
+    /// Rolling-element bearing, constant-coefficient catalogue model.
+    Rolling {
+        /// Bore diameter, m.
+        bore: Real,
+        /// Catalogue friction coefficient.
+        mu: Real,
+    },
+    /// A sheave rated by its maker: bearing factor K = 1/efficiency at 180° wrap.
+    Rated {
+        /// K ≥ 1.
+        factor: Real,
+    },
+}
+
+/// Pressure distribution on a thrust face.
+#[derive(Debug, Clone, Copy, PartialEq, Eq)]
+pub enum Contact {
+    /// Uniform pressure (new surfaces).
+    New,
+    /// Uniform wear (run-in surfaces).
+    Worn,
+}
+
+/// A thrust (pivot or collar) bearing.
+#[derive(Debug, Clone, Copy, PartialEq)]
+pub struct Thrust {
+    /// Axial load, N.
+    pub load: Real,
+    /// Outer contact diameter, m.
+    pub diameter: Real,
+    /// Inner contact diameter, m (0 for a solid pivot).
+    pub inner_diameter: Real,
+    /// Coefficient of friction.
+    pub mu: Real,
+    /// New or worn.
+    pub contact: Contact,
+    /// Half-angle of a conical pivot, radians (None = flat).
+    pub cone_angle: Option<Real>,
+}
+
+/// Which side of the rope a round part lies on, looking along the path from the tip of
+/// the axle vector. Left means the rope turns anticlockwise about the axle.
+#[derive(Debug, Clone, Copy, PartialEq, Eq)]
+pub enum Side {
+    /// Part on the rope's left: anticlockwise about the axle.
+    Left,
+    /// Part on the rope's right: clockwise about the axle.
+    Right,
+}
+
+impl Side {
+    /// +1 for left (anticlockwise about the axle), −1 for right.
+    pub fn sense(self) -> Real {
+        match self {
+            Side::Left => 1.0,
+            Side::Right => -1.0,
+        }
+    }
+}
+
+/// One entry of a line's path.
+#[derive(Debug, Clone, PartialEq)]
+pub struct PathEntry {
+    /// The part.
+    pub part: PartId,
+    /// Extra full turns (guides and drums).
+    pub turns: u32,
+    /// Explicit side, where the path alone does not tell.
+    pub side: Option<Side>,
+    /// Where the entry is written.
+    pub location: Location,
+}
+
+/// A line: one length of rope reeved along a path.
+#[derive(Debug, Clone, PartialEq)]
+pub struct Line {
+    /// Name as written.
+    pub name: String,
+    /// Its rope.
+    pub rope: RopeId,
+    /// From one end to the other.
+    pub path: Vec<PathEntry>,
+    /// Where the line is defined.
+    pub location: Location,
+}
+
+impl Rig {
+    /// The part with this name.
+    pub fn part_named(&self, name: &str) -> Option<PartId> {
+        self.parts.iter().position(|p| p.name == name)
+    }
+
+    /// The rope a line is made of.
+    pub fn rope_of(&self, line: LineId) -> &Rope {
+        &self.ropes[self.lines[line].rope]
+    }
+}
