@@ -6,8 +6,13 @@
 //! cases, energy audit) → [`report`] (one report, many writers).
 #![warn(missing_docs)]
 
+pub mod checks;
+pub mod cli;
 pub mod friction;
 pub mod geometry;
+pub mod network;
+pub mod report;
 pub mod math;
 pub mod rig;
+pub mod solve;
 pub mod units;

@@ -41,6 +41,9 @@ pub struct Rig {
     pub drive: PartId,
     /// The part whose natural quantity is the unknown.
     pub solve_for: PartId,
+    /// Whether the rig is meant to run back by itself (a lid that closes under its own
+    /// weight); a self-locking result is then warned about. Key `runs_back`, default false.
+    pub runs_back: bool,
 }
 
 /// Good-practice limits.

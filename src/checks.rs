@@ -1,0 +1,227 @@
+//! Good-practice and safety checks over a solved rig: fleet angles, bend ratios,
+//! wraps, safety factors, drum slip, stalled sheaves, whether the drive can move the
+//! load, and the solver's own health. Each warning has a stable `code`.
+
+use crate::math::Real;
+use crate::rig::model::{PartKind, Rig};
+use crate::solve::{Solution, Status, SubRigSolution};
+
+/// Wraps below this are reported as the rope not touching the part (0.1°).
+pub const NO_WRAP: Real = 0.1 * std::f64::consts::PI / 180.0;
+
+/// One finding.
+#[derive(Debug, Clone, PartialEq, serde::Serialize)]
+pub struct Warning {
+    /// Stable identifier (`fleet-angle`, `bend-ratio`, `safety-factor`, ...).
+    pub code: &'static str,
+    /// The part (or line) concerned, when there is one.
+    pub part: Option<String>,
+    /// What was found and what the limit is.
+    pub message: String,
+    /// Whether this fails the check (exit code 1) rather than only warning.
+    pub fails: bool,
+}
+
+fn warn(code: &'static str, part: Option<&str>, fails: bool, message: String) -> Warning {
+    Warning { code, part: part.map(str::to_string), message, fails }
+}
+
+/// Geometry checks: fleet angle, D/d, wrap. Needs no statics.
+pub fn geometry_checks(rig: &Rig, geometry: &crate::geometry::Geometry) -> Vec<Warning> {
+    let mut out = Vec::new();
+    let limit = rig.limits.fleet_angle;
+    for (l, line) in rig.lines.iter().enumerate() {
+        let rope = rig.rope_of(l);
+        let n = line.path.len();
+        for (e, entry) in geometry.lines[l].entries.iter().enumerate() {
+            let part = &rig.parts[entry.part];
+            if part.kind.round().is_none() {
+                continue;
+            }
+            let fleet = entry.fleet_in.unwrap_or(0.0).max(entry.fleet_out.unwrap_or(0.0));
+            if fleet > limit + 1e-12 {
+                out.push(warn(
+                    "fleet-angle",
+                    Some(&part.name),
+                    false,
+                    format!(
+                        "line `{}`: fleet angle {:.2}° at `{}` exceeds the limit {:.2}°; the rope rubs the groove flank (align the part with the span)",
+                        line.name,
+                        fleet.to_degrees(),
+                        part.name,
+                        limit.to_degrees()
+                    ),
+                ));
+            }
+            if let Some(ratio) = entry.bend_ratio {
+                if ratio < rope.min_bend_ratio - 1e-9 {
+                    out.push(warn(
+                        "bend-ratio",
+                        Some(&part.name),
+                        false,
+                        format!(
+                            "line `{}`: D/d {:.1} at `{}` is below {:.1} for rope `{}`; a larger diameter lengthens rope life",
+                            line.name, ratio, part.name, rope.min_bend_ratio, rope.name
+                        ),
+                    ));
+                }
+            }
+            if e > 0 && e + 1 < n && entry.wrap < NO_WRAP && !matches!(part.kind, PartKind::Drum(_)) {
+                out.push(warn(
+                    "no-wrap",
+                    Some(&part.name),
+                    false,
+                    format!(
+                        "line `{}`: the rope does not wrap `{}` (wrap {:.3}°); it barely touches or misses the part",
+                        line.name,
+                        part.name,
+                        entry.wrap.to_degrees()
+                    ),
+                ));
+            }
+        }
+    }
+    out
+}
+
+/// All checks over a solution.
+pub fn run(rig: &Rig, solution: &Solution) -> Vec<Warning> {
+    let mut out = geometry_checks(rig, &solution.geometry);
+    for sub in &solution.subrigs {
+        out.extend(subrig_checks(rig, sub));
+    }
+    out
+}
+
+fn subrig_checks(rig: &Rig, sub: &SubRigSolution) -> Vec<Warning> {
+    let mut out = Vec::new();
+    let drive = &rig.parts[sub.drive].name;
+    let unit = sub.quantity.si_unit();
+    // Can the drive move the load?
+    if let Some(available) = crate::solve::given_quantity(rig, sub.solve_for) {
+        if sub.drive_unknown() {
+            if available < sub.forward.value {
+                out.push(warn(
+                    "cannot-move",
+                    Some(drive),
+                    true,
+                    format!(
+                        "`{drive}` cannot move the rig: {available:.4} {unit} available, {:.4} {unit} needed to start it forward",
+                        sub.forward.value
+                    ),
+                ));
+            }
+        } else {
+            let part = &rig.parts[sub.solve_for].name;
+            if available > sub.forward.value {
+                out.push(warn(
+                    "cannot-move",
+                    Some(part),
+                    true,
+                    format!(
+                        "the drive cannot move `{part}`: its stated {} {available:.4} {unit} exceeds the most the drive moves, {:.4} {unit}",
+                        sub.quantity.name(),
+                        sub.forward.value
+                    ),
+                ));
+            }
+        }
+    }
+    // Safety factor of every span, worst case of forward and back.
+    for (l, line) in rig.lines.iter().enumerate() {
+        let rope = rig.rope_of(l);
+        let Some(strength) = rope.breaking_strength else { continue };
+        let worst = [&sub.forward, &sub.back, &sub.ideal]
+            .iter()
+            .flat_map(|c| c.tension.get(l).into_iter().flatten().copied())
+            .fold(0.0, Real::max);
+        if worst > 0.0 && strength / worst < rig.limits.design_factor {
+            out.push(warn(
+                "safety-factor",
+                Some(&line.name),
+                true,
+                format!(
+                    "line `{}`: safety factor {:.2} (breaking strength {:.0} N over largest tension {:.1} N) is below the design factor {}",
+                    line.name,
+                    strength / worst,
+                    strength,
+                    worst,
+                    rig.limits.design_factor
+                ),
+            ));
+        }
+    }
+    for case in [&sub.forward, &sub.back] {
+        let name = case.case.name();
+        for slip in &case.slipping {
+            let part = &rig.parts[rig.lines[slip.line].path[slip.entry].part].name;
+            out.push(warn(
+                "drum-slip",
+                Some(part),
+                true,
+                format!(
+                    "{name}: the rope slips on `{part}`: it needs a tension ratio of {:.3} but the wrap holds only {:.3}; add turns or tie the line",
+                    slip.ratio, slip.limit
+                ),
+            ));
+        }
+        for &(l, e) in &case.stalled {
+            let part = &rig.parts[rig.lines[l].path[e].part].name;
+            out.push(warn(
+                "stalled-sheave",
+                Some(part),
+                false,
+                format!(
+                    "{name}: `{part}` does not turn; its bearing needs more than the groove can transmit, so the rope slides over it (capstan friction)"
+                ),
+            ));
+        }
+        for &(l, j) in &case.slack {
+            let line = &rig.lines[l];
+            out.push(warn(
+                "slack-span",
+                Some(&line.name),
+                true,
+                format!(
+                    "{name}: span {j} of line `{}` would need a negative tension ({:.3} N); the rope goes slack there and the figures do not hold",
+                    line.name, case.tension[l][j]
+                ),
+            ));
+        }
+        if let Status::OutOfIterations { iterations, change } = case.status {
+            out.push(warn(
+                "not-converged",
+                Some(drive),
+                true,
+                format!("{name}: pin-load friction did not settle in {iterations} iterations (last change {change:.2e}); the figures are not reliable"),
+            ));
+        }
+        if case.indeterminate {
+            out.push(warn(
+                "indeterminate",
+                Some(drive),
+                false,
+                format!("{name}: statics alone does not fix how parallel lines share the load; the even (least-squares) split is shown, but the real split depends on rope stretch and where the load sits"),
+            ));
+        }
+        if case.audit_residual > 1e-6 {
+            out.push(warn(
+                "energy-audit",
+                Some(drive),
+                true,
+                format!("{name}: the energy audit misses by {:.2e} of the drive power; please report this rig", case.audit_residual),
+            ));
+        }
+    }
+    if sub.self_locking() && rig.runs_back {
+        out.push(warn(
+            "self-locking",
+            Some(drive),
+            false,
+            format!("the rig is self-locking (it will not run back by itself), but the rig file says it must run back (`runs_back: true`)"),
+        ));
+    }
+    // Remove duplicate messages from ideal/back repeats.
+    out.dedup();
+    out
+}

@@ -1,0 +1,377 @@
+//! One [`Report`] built from a solved rig, then one writer per format. The report's
+//! fields are the `check --json` contract of DESIGN.md §5: SI numbers, keys carrying
+//! their units, angles in degrees; `None` becomes JSON `null`, never NaN.
+
+pub mod text;
+
+use serde::Serialize;
+
+use crate::checks::Warning;
+use crate::math::{Real, Vector};
+use crate::rig::model::{PartKind, Rig};
+use crate::solve::{given_quantity, Case, Solution, SubRigSolution};
+
+/// The caution every human-readable report ends with (DESIGN.md §6).
+pub const CAUTION: &str = "Caution: these figures are estimates from the stated friction models and inputs. \
+Rigging that holds loads over people or is used for life safety must follow local codes and \
+standards and be checked by a competent, licensed person.";
+
+/// Finite or nothing: keeps NaN and infinities out of every output.
+pub fn finite(x: Real) -> Option<Real> {
+    x.is_finite().then_some(x)
+}
+
+/// The asked quantity.
+#[derive(Debug, Clone, Serialize, PartialEq)]
+pub struct Asked {
+    /// Part name.
+    pub part: String,
+    /// `force`, `mass` or `torque`.
+    pub quantity: &'static str,
+    /// SI unit of the values.
+    pub unit: &'static str,
+}
+
+/// One case's headline.
+#[derive(Debug, Clone, Serialize, PartialEq)]
+pub struct CaseHeadline {
+    /// The asked quantity in this case, SI.
+    pub value: Option<Real>,
+    /// Efficiency (DESIGN.md §3), absent for the ideal case.
+    #[serde(skip_serializing_if = "Option::is_none")]
+    pub efficiency: Option<Real>,
+}
+
+/// Three numbers, one per case.
+#[derive(Debug, Clone, Serialize, PartialEq)]
+pub struct PerCase {
+    /// No friction.
+    pub ideal: Option<Real>,
+    /// Driving forward.
+    pub forward: Option<Real>,
+    /// Running back.
+    pub back: Option<Real>,
+}
+
+/// Forward and back only.
+#[derive(Debug, Clone, Serialize, PartialEq)]
+pub struct ForwardBack<T> {
+    /// Driving forward.
+    pub forward: T,
+    /// Running back.
+    pub back: T,
+}
+
+/// A span row.
+#[derive(Debug, Clone, Serialize, PartialEq)]
+pub struct SpanReport {
+    /// Line name.
+    pub line: String,
+    /// Span index along the line, from 0.
+    pub index: usize,
+    /// Part it leaves.
+    pub from: String,
+    /// Part it reaches.
+    pub to: String,
+    /// Length, m.
+    pub length_m: Option<Real>,
+    /// Tension per case, N.
+    pub tension_n: PerCase,
+    /// Breaking strength over the larger of the forward and back tensions.
+    pub safety_factor: Option<Real>,
+    /// Unit direction from `from` to `to`.
+    pub direction: [Real; 3],
+}
+
+/// A passage of a line over a round part.
+#[derive(Debug, Clone, Serialize, PartialEq)]
+pub struct PassageReport {
+    /// Line name.
+    pub line: String,
+    /// Path entry index.
+    pub entry: usize,
+    /// Wrap, degrees (extra turns included).
+    pub wrap_deg: Option<Real>,
+    /// Fleet angle of the arriving span, degrees.
+    pub fleet_in_deg: Option<Real>,
+    /// Fleet angle of the leaving span, degrees.
+    pub fleet_out_deg: Option<Real>,
+    /// Tread diameter over rope diameter.
+    pub bend_ratio: Option<Real>,
+    /// Tight over slack tension.
+    pub tension_ratio: ForwardBack<Option<Real>>,
+}
+
+/// A part row.
+#[derive(Debug, Clone, Serialize, PartialEq)]
+pub struct PartReport {
+    /// Name.
+    pub name: String,
+    /// Kind as written.
+    pub kind: &'static str,
+    /// Largest wrap over its passages, degrees.
+    pub wrap_deg: Option<Real>,
+    /// Largest fleet angle over its passages, degrees.
+    pub fleet_deg: Option<Real>,
+    /// Tread diameter over rope diameter (smallest over its passages).
+    pub bend_ratio: Option<Real>,
+    /// Magnitude of the resultant load on the part, N (own weight included).
+    pub pin_load_n: ForwardBack<Option<Real>>,
+    /// Unit direction of that load.
+    pub pin_load_direction: ForwardBack<Option<[Real; 3]>>,
+    /// Share of all losses lost at this part, forward case (0 to 1).
+    pub loss_share: Option<Real>,
+    /// Power lost here over drive power, forward case (0 to 1).
+    pub loss_of_input: Option<Real>,
+    /// The part's passages.
+    pub passages: Vec<PassageReport>,
+}
+
+/// Torques at a drum.
+#[derive(Debug, Clone, Serialize, PartialEq)]
+pub struct DrumReport {
+    /// Drum name.
+    pub name: String,
+    /// Net rope torque along the motion, N·m.
+    pub rope_torque_nm: ForwardBack<Option<Real>>,
+    /// Steady load torque, N·m.
+    pub load_torque_nm: Option<Real>,
+    /// Drag torque, N·m.
+    pub drag_nm: Option<Real>,
+    /// Journal friction torque, N·m.
+    pub journal_nm: ForwardBack<Option<Real>>,
+    /// Thrust friction torque, N·m.
+    pub thrust_nm: Option<Real>,
+    /// Forward rope torque minus (load + drag), N·m: what journal and thrust take.
+    pub margin_nm: Option<Real>,
+}
+
+/// The headline of one sub-rig.
+#[derive(Debug, Clone, Serialize, PartialEq)]
+pub struct Headline {
+    /// What is solved for.
+    pub solve_for: Asked,
+    /// The drive part.
+    pub drive: String,
+    /// Ideal case.
+    pub ideal: CaseHeadline,
+    /// Forward case.
+    pub forward: CaseHeadline,
+    /// Back case.
+    pub back: CaseHeadline,
+    /// Whether the rig will not run back by itself.
+    pub self_locking: bool,
+    /// Drive speed over load speed.
+    pub velocity_ratio: Option<Real>,
+    /// The load part for the velocity ratio.
+    pub load_part: Option<String>,
+    /// Velocity ratio × forward efficiency.
+    pub mechanical_advantage: Option<Real>,
+    /// Values between which friction holds the rig still: [low, high].
+    pub holding_band: [Option<Real>; 2],
+    /// Given value of the asked quantity (available drive or stated load), SI.
+    pub available: Option<Real>,
+    /// Relative margin: available/forward − 1 (drive unknown) or forward/stated − 1.
+    pub margin: Option<Real>,
+    /// Whether the drive moves the rig (None when nothing is given to compare).
+    pub moves: Option<bool>,
+    /// Energy audit misfit per case (fraction of drive power).
+    pub energy_audit: PerCase,
+}
+
+/// The whole report.
+#[derive(Debug, Clone, Serialize, PartialEq)]
+pub struct Report {
+    /// Format version of the rig file.
+    pub format: u32,
+    /// Rig title.
+    pub title: String,
+    /// Main sub-rig headline, flattened so the top level carries the contract keys.
+    #[serde(flatten)]
+    pub headline: Headline,
+    /// Every span of every line.
+    pub spans: Vec<SpanReport>,
+    /// Every part.
+    pub parts: Vec<PartReport>,
+    /// Every drum.
+    pub drums: Vec<DrumReport>,
+    /// Findings.
+    pub warnings: Vec<Warning>,
+    /// Headlines of independent sub-rigs other than the main one.
+    pub subrigs: Vec<Headline>,
+    /// The cautionary note.
+    pub caution: &'static str,
+}
+
+fn dir(v: &Vector) -> Option<[Real; 3]> {
+    let n = v.norm();
+    (n > 0.0 && n.is_finite()).then(|| [v.x / n, v.y / n, v.z / n])
+}
+
+fn headline(rig: &Rig, sub: &SubRigSolution) -> Headline {
+    let available = given_quantity(rig, sub.solve_for);
+    let (f, b) = (sub.forward.value, sub.back.value);
+    let margin = available.and_then(|a| {
+        finite(if sub.drive_unknown() { a / f - 1.0 } else { f / a - 1.0 })
+    });
+    let moves = available.map(|a| if sub.drive_unknown() { a >= f } else { a <= f });
+    Headline {
+        solve_for: Asked {
+            part: rig.parts[sub.solve_for].name.clone(),
+            quantity: sub.quantity.name(),
+            unit: sub.quantity.si_unit(),
+        },
+        drive: rig.parts[sub.drive].name.clone(),
+        ideal: CaseHeadline { value: finite(sub.ideal.value), efficiency: None },
+        forward: CaseHeadline { value: finite(f), efficiency: sub.forward_efficiency() },
+        back: CaseHeadline { value: finite(b), efficiency: sub.back_efficiency() },
+        self_locking: sub.self_locking(),
+        velocity_ratio: sub.velocity_ratio,
+        load_part: sub.load_part.map(|p| rig.parts[p].name.clone()),
+        mechanical_advantage: sub.mechanical_advantage(),
+        holding_band: [finite(f.min(b)), finite(f.max(b))],
+        available,
+        margin,
+        moves,
+        energy_audit: PerCase {
+            ideal: finite(sub.ideal.audit_residual),
+            forward: finite(sub.forward.audit_residual),
+            back: finite(sub.back.audit_residual),
+        },
+    }
+}
+
+/// The sub-rig solution that owns `line`.
+fn owner<'a>(rig: &Rig, solution: &'a Solution, line: usize) -> Option<&'a SubRigSolution> {
+    let comp = crate::solve::kinematics::line_component(rig, &solution.network, line)?;
+    solution.subrigs.iter().find(|s| s.component == comp)
+}
+
+impl Report {
+    /// Builds the report of a solved rig.
+    pub fn build(rig: &Rig, solution: &Solution, warnings: Vec<Warning>) -> Report {
+        let main = solution.main();
+        let mut spans = Vec::new();
+        for (l, line) in rig.lines.iter().enumerate() {
+            let sub = owner(rig, solution, l);
+            let rope = rig.rope_of(l);
+            for (j, span) in solution.geometry.lines[l].spans.iter().enumerate() {
+                let t = |c: Case| sub.and_then(|s| s.case(c).tension[l].get(j).copied()).and_then(finite);
+                let (ti, tf, tb) = (t(Case::Ideal), t(Case::Forward), t(Case::Back));
+                let worst = [ti, tf, tb].into_iter().flatten().fold(0.0, Real::max);
+                spans.push(SpanReport {
+                    line: line.name.clone(),
+                    index: j,
+                    from: rig.parts[line.path[j].part].name.clone(),
+                    to: rig.parts[line.path[j + 1].part].name.clone(),
+                    length_m: finite(span.length),
+                    tension_n: PerCase { ideal: ti, forward: tf, back: tb },
+                    safety_factor: rope.breaking_strength.and_then(|s| finite(s / worst)),
+                    direction: [span.direction.x, span.direction.y, span.direction.z],
+                });
+            }
+        }
+        let mut parts = Vec::new();
+        let mut drums = Vec::new();
+        for (id, part) in rig.parts.iter().enumerate() {
+            let sub = solution
+                .subrigs
+                .iter()
+                .find(|s| s.component == solution.network.component_of[id]);
+            let mut passages = Vec::new();
+            for (l, line) in rig.lines.iter().enumerate() {
+                for (e, entry) in line.path.iter().enumerate() {
+                    if entry.part != id || part.kind.round().is_none() {
+                        continue;
+                    }
+                    let g = &solution.geometry.lines[l].entries[e];
+                    let lsub = owner(rig, solution, l);
+                    let ratio = |c: Case| lsub.and_then(|s| s.case(c).ratio[l][e]).and_then(finite);
+                    passages.push(PassageReport {
+                        line: line.name.clone(),
+                        entry: e,
+                        wrap_deg: finite(g.wrap.to_degrees()),
+                        fleet_in_deg: g.fleet_in.map(Real::to_degrees),
+                        fleet_out_deg: g.fleet_out.map(Real::to_degrees),
+                        bend_ratio: g.bend_ratio,
+                        tension_ratio: ForwardBack { forward: ratio(Case::Forward), back: ratio(Case::Back) },
+                    });
+                }
+            }
+            let max = |f: &dyn Fn(&PassageReport) -> Option<Real>| {
+                passages.iter().filter_map(f).fold(None, |a: Option<Real>, x| Some(a.map_or(x, |a| a.max(x))))
+            };
+            let wrap_deg = max(&|p| p.wrap_deg);
+            let fleet_deg = max(&|p| p.fleet_in_deg.into_iter().chain(p.fleet_out_deg).reduce(Real::max));
+            let bend_ratio = passages
+                .iter()
+                .filter_map(|p| p.bend_ratio)
+                .fold(None, |a: Option<Real>, x| Some(a.map_or(x, |a| a.min(x))));
+            let pin = |c: Case| sub.and_then(|s| s.case(c).pin_load[id]);
+            let (loss_share, loss_of_input) = match sub {
+                Some(s) => {
+                    let total = s.forward.total_loss();
+                    let here = s.forward.loss[id];
+                    (
+                        if total > 0.0 { finite(here / total) } else { Some(0.0) },
+                        finite(here / s.forward.drive_power),
+                    )
+                }
+                None => (None, None),
+            };
+            parts.push(PartReport {
+                name: part.name.clone(),
+                kind: part.kind.name(),
+                wrap_deg,
+                fleet_deg,
+                bend_ratio,
+                pin_load_n: ForwardBack {
+                    forward: pin(Case::Forward).and_then(|v| finite(v.norm())),
+                    back: pin(Case::Back).and_then(|v| finite(v.norm())),
+                },
+                pin_load_direction: ForwardBack {
+                    forward: pin(Case::Forward).and_then(|v| dir(&v)),
+                    back: pin(Case::Back).and_then(|v| dir(&v)),
+                },
+                loss_share,
+                loss_of_input,
+                passages,
+            });
+            if let (PartKind::Drum(d), Some(s)) = (&part.kind, sub) {
+                let fw = s.forward.drums[id];
+                let bk = s.back.drums[id];
+                drums.push(DrumReport {
+                    name: part.name.clone(),
+                    rope_torque_nm: ForwardBack {
+                        forward: fw.and_then(|t| finite(t.rope)),
+                        back: bk.and_then(|t| finite(t.rope)),
+                    },
+                    load_torque_nm: fw.map(|t| t.load),
+                    drag_nm: Some(d.drag),
+                    journal_nm: ForwardBack {
+                        forward: fw.map(|t| t.journal),
+                        back: bk.map(|t| t.journal),
+                    },
+                    thrust_nm: fw.map(|t| t.thrust),
+                    margin_nm: fw.and_then(|t| finite(t.rope - t.load - t.drag)),
+                });
+            }
+        }
+        Report {
+            format: 1,
+            title: rig.title.clone(),
+            headline: headline(rig, main),
+            spans,
+            parts,
+            drums,
+            warnings,
+            subrigs: solution.subrigs.iter().skip(1).map(|s| headline(rig, s)).collect(),
+            caution: CAUTION,
+        }
+    }
+
+    /// Whether any warning fails the check (exit code 1).
+    pub fn fails(&self) -> bool {
+        self.warnings.iter().any(|w| w.fails)
+    }
+}

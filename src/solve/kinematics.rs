@@ -1,0 +1,322 @@
+//! Kinematics: the rig's degrees of freedom, the line-length constraints of each line
+//! segment (a line split at drum passages, where the rope cannot slip), their null space
+//! (the rig's motions), and the forward motion with the drive at unit speed.
+//!
+//! # The constraint
+//! For a segment from entry `a` to entry `b`, with span unit directions `u_j`:
+//! `Σ_j u_j · (V_end(j) − V_start(j)) = 0`, where `V` is the velocity of the part's
+//! centre (points, sheaves) or, at a drum, of the drum's surface at the tangent point,
+//! so that the rope a drum winds in or pays out is counted. For translating circles
+//! this is exact: the tangent points' sliding cancels against the change of wrap
+//! (DESIGN.md §2). Each span's contribution per unit velocity of each degree of freedom
+//! is one row of [`Kinematics::span_rows`]; the same numbers, with the sign reversed,
+//! are the span's generalized forces per unit tension in the statics.
+
+use nalgebra::{DMatrix, DVector};
+
+use crate::geometry::Geometry;
+use crate::math::{Direction, Real, Vector};
+use crate::network::Network;
+use crate::rig::model::{LineId, PartId, PartKind, Rig};
+
+use super::SolveError;
+
+/// How a degree of freedom moves its part.
+#[derive(Debug, Clone, Copy, PartialEq)]
+pub enum Motion {
+    /// Translation along a direction (blocks, weights, haul ends), m/s per unit speed.
+    Translate(Direction),
+    /// Rotation about a fixed axle through the part's centre (drums), rad/s.
+    Rotate(Direction),
+}
+
+/// One degree of freedom: a moving or turning part.
+#[derive(Debug, Clone, Copy, PartialEq)]
+pub struct Dof {
+    /// The part.
+    pub part: PartId,
+    /// How it moves.
+    pub motion: Motion,
+}
+
+/// A run of a line between two ends or drum passages, with one unknown tension.
+#[derive(Debug, Clone, Copy, PartialEq, Eq)]
+pub struct Segment {
+    /// The line.
+    pub line: LineId,
+    /// First path entry (an end or a drum).
+    pub first: usize,
+    /// Last path entry (an end or a drum).
+    pub last: usize,
+}
+
+/// The rig's kinematics.
+#[derive(Debug, Clone)]
+pub struct Kinematics {
+    /// Degrees of freedom, in part order.
+    pub dofs: Vec<Dof>,
+    /// For each part, its degree of freedom, if it moves.
+    pub dof_of_part: Vec<Option<usize>>,
+    /// Segments, line by line.
+    pub segments: Vec<Segment>,
+    /// `span_rows[line][span]`: the span's rate of lengthening per unit speed of each
+    /// degree of freedom (length `dofs.len()`).
+    pub span_rows: Vec<Vec<DVector<Real>>>,
+    /// Forward speed of every degree of freedom, drive at +1 (0 outside moving sub-rigs).
+    pub forward: DVector<Real>,
+    /// The rope's speed over each path entry, relative to that part and along the path
+    /// direction, in the forward motion (`rope_speed[line][entry]`).
+    pub rope_speed: Vec<Vec<Real>>,
+}
+
+/// The direction a haul end is pulled: given, or along its span away from the line.
+pub fn haul_direction(rig: &Rig, geometry: &Geometry, part: PartId) -> Option<Direction> {
+    if let PartKind::Haul(h) = &rig.parts[part].kind {
+        if let Some(p) = h.pull {
+            return Some(p);
+        }
+        for (l, line) in rig.lines.iter().enumerate() {
+            let g = &geometry.lines[l];
+            let n = line.path.len();
+            if line.path[n - 1].part == part {
+                return g.spans.last().map(|s| s.direction);
+            }
+            if line.path[0].part == part {
+                return g.spans.first().map(|s| -s.direction);
+            }
+        }
+    }
+    None
+}
+
+impl Kinematics {
+    /// Builds degrees of freedom and constraints, finds each sub-rig's motion and
+    /// scales it so that the sub-rig's drive moves forward at unit speed.
+    ///
+    /// `drives[c]` is the drive of sub-rig `c` (None for a sub-rig with no moving part).
+    ///
+    /// # Errors
+    /// [`SolveError`] when a sub-rig cannot move, has more motions than drives, or its
+    /// drive is held still by the others.
+    pub fn build(
+        rig: &Rig,
+        network: &Network,
+        geometry: &Geometry,
+        drives: &[Option<PartId>],
+        rank_tolerance: Real,
+    ) -> Result<Kinematics, SolveError> {
+        let mut dofs = Vec::new();
+        let mut dof_of_part = vec![None; rig.parts.len()];
+        let in_line: Vec<bool> = (0..rig.parts.len())
+            .map(|p| rig.lines.iter().any(|l| l.path.iter().any(|e| e.part == p)))
+            .collect();
+        let carries: Vec<bool> = (0..rig.parts.len())
+            .map(|p| {
+                rig.parts.iter().enumerate().any(|(s, part)| {
+                    matches!(&part.kind, PartKind::Sheave(sh) if sh.block == Some(p)) && in_line[s]
+                })
+            })
+            .collect();
+        for (id, part) in rig.parts.iter().enumerate() {
+            let motion = match &part.kind {
+                PartKind::Block(b) => Some(Motion::Translate(b.moves)),
+                PartKind::Weight(_) => Some(Motion::Translate(rig.gravity)),
+                PartKind::Haul(_) => haul_direction(rig, geometry, id).map(Motion::Translate),
+                PartKind::Drum(d) => Some(Motion::Rotate(d.axle)),
+                _ => None,
+            };
+            if let Some(motion) = motion {
+                if in_line[id] || carries[id] {
+                    dof_of_part[id] = Some(dofs.len());
+                    dofs.push(Dof { part: id, motion });
+                }
+            }
+        }
+        let n = dofs.len();
+
+        let mut span_rows = Vec::with_capacity(rig.lines.len());
+        for (l, line) in rig.lines.iter().enumerate() {
+            let g = &geometry.lines[l];
+            let mut rows = Vec::with_capacity(g.spans.len());
+            for (j, span) in g.spans.iter().enumerate() {
+                let u = span.direction.into_inner();
+                let end = point_velocity_along(rig, &dofs, &dof_of_part, line.path[j + 1].part, &span.end, &u);
+                let start = point_velocity_along(rig, &dofs, &dof_of_part, line.path[j].part, &span.start, &u);
+                rows.push(end - start);
+            }
+            span_rows.push(rows);
+        }
+
+        // Segments: split each line at drum passages.
+        let mut segments = Vec::new();
+        for (l, line) in rig.lines.iter().enumerate() {
+            let mut first = 0;
+            for (e, entry) in line.path.iter().enumerate().skip(1) {
+                let is_drum = matches!(rig.parts[entry.part].kind, PartKind::Drum(_));
+                if e == line.path.len() - 1 || is_drum {
+                    segments.push(Segment { line: l, first, last: e });
+                    first = e;
+                }
+            }
+        }
+
+        // Constraint matrix, one row per segment.
+        let mut a = DMatrix::zeros(segments.len(), n);
+        for (g, seg) in segments.iter().enumerate() {
+            for j in seg.first..seg.last {
+                let row = &span_rows[seg.line][j];
+                for i in 0..n {
+                    a[(g, i)] += row[i];
+                }
+            }
+        }
+
+        // Each sub-rig on its own.
+        let mut forward = DVector::zeros(n);
+        for (c, members) in network.components.iter().enumerate() {
+            let cols: Vec<usize> = members.iter().filter_map(|&p| dof_of_part[p]).collect();
+            if cols.is_empty() {
+                continue;
+            }
+            let rows: Vec<usize> = segments
+                .iter()
+                .enumerate()
+                .filter(|(_, s)| line_component(rig, network, s.line) == Some(c))
+                .map(|(g, _)| g)
+                .collect();
+            let names = |ids: &[usize]| -> Vec<String> {
+                ids.iter().map(|&i| rig.parts[dofs[i].part].name.clone()).collect()
+            };
+            let null = null_space(&a, &rows, &cols, rank_tolerance);
+            let drive = drives.get(c).copied().flatten();
+            match (null.ncols(), drive) {
+                (0, _) => {
+                    return Err(SolveError::CannotMove { parts: names(&cols) });
+                }
+                (_, None) => {
+                    return Err(SolveError::NoDrive { parts: names(&cols) });
+                }
+                (k, Some(drive)) => {
+                    let Some(d) = dof_of_part[drive] else {
+                        return Err(SolveError::DriveCannotMove {
+                            drive: rig.parts[drive].name.clone(),
+                        });
+                    };
+                    let dpos = cols.iter().position(|&i| i == d).unwrap_or(usize::MAX);
+                    if dpos == usize::MAX {
+                        return Err(SolveError::DriveCannotMove {
+                            drive: rig.parts[drive].name.clone(),
+                        });
+                    }
+                    // Rotate the null basis so that one vector carries the drive.
+                    let drive_row: DVector<Real> = null.row(dpos).transpose();
+                    let norm = drive_row.norm();
+                    if norm < rank_tolerance {
+                        return Err(SolveError::DriveCannotMove {
+                            drive: rig.parts[drive].name.clone(),
+                        });
+                    }
+                    if k > 1 {
+                        // Motions that leave the drive still: the parts they move are free.
+                        let w = &drive_row / norm;
+                        let mut free = Vec::new();
+                        for (r, &col) in cols.iter().enumerate() {
+                            let row: DVector<Real> = null.row(r).transpose();
+                            let orth = &row - &w * w.dot(&row);
+                            if orth.norm() > 1e-6 {
+                                free.push(col);
+                            }
+                        }
+                        return Err(SolveError::FreeParts {
+                            drive: rig.parts[drive].name.clone(),
+                            parts: names(&free),
+                        });
+                    }
+                    let scale = 1.0 / null[(dpos, 0)];
+                    for (r, &col) in cols.iter().enumerate() {
+                        let v = null[(r, 0)] * scale;
+                        forward[col] = if v.abs() < 1e-12 { 0.0 } else { v };
+                    }
+                }
+            }
+        }
+
+        // Rope speed over each entry: s_e = −Σ_{i<e in its segment} row_i · q̇.
+        let mut rope_speed: Vec<Vec<Real>> =
+            rig.lines.iter().map(|l| vec![0.0; l.path.len()]).collect();
+        for seg in &segments {
+            let mut s = 0.0;
+            for e in seg.first + 1..seg.last {
+                s -= span_rows[seg.line][e - 1].dot(&forward);
+                rope_speed[seg.line][e] = s;
+            }
+        }
+
+        Ok(Kinematics { dofs, dof_of_part, segments, span_rows, forward, rope_speed })
+    }
+}
+
+/// The sub-rig a line belongs to (None for a line between anchors only).
+pub fn line_component(rig: &Rig, network: &Network, line: LineId) -> Option<usize> {
+    rig.lines[line]
+        .path
+        .iter()
+        .find(|e| !matches!(rig.parts[e.part].kind, PartKind::Anchor))
+        .map(|e| network.component_of[e.part])
+}
+
+/// `u · V` for the contact point of `part` at `at`, per unit speed of each dof.
+fn point_velocity_along(
+    rig: &Rig,
+    dofs: &[Dof],
+    dof_of_part: &[Option<usize>],
+    part: PartId,
+    at: &crate::math::Point,
+    u: &Vector,
+) -> DVector<Real> {
+    let mut v = DVector::zeros(dofs.len());
+    let mover = match &rig.parts[part].kind {
+        PartKind::Sheave(s) => s.block,
+        _ => Some(part),
+    };
+    if let Some(m) = mover {
+        if let Some(i) = dof_of_part[m] {
+            v[i] = match dofs[i].motion {
+                Motion::Translate(d) => d.dot(u),
+                Motion::Rotate(axle) => {
+                    let r = at - rig.parts[m].at;
+                    axle.cross(&r).dot(u)
+                }
+            };
+        }
+    }
+    v
+}
+
+/// Orthonormal basis of the null space of `a` restricted to `rows` × `cols`.
+fn null_space(a: &DMatrix<Real>, rows: &[usize], cols: &[usize], tolerance: Real) -> DMatrix<Real> {
+    let n = cols.len();
+    let m = rows.len().max(n);
+    // Pad with zero rows so the SVD returns a full V.
+    let mut sub = DMatrix::zeros(m, n);
+    for (r, &row) in rows.iter().enumerate() {
+        for (c, &col) in cols.iter().enumerate() {
+            sub[(r, c)] = a[(row, col)];
+        }
+    }
+    let scale = sub.amax().max(1.0);
+    let svd = sub.svd(false, true);
+    let Some(v_t) = svd.v_t else {
+        return DMatrix::zeros(n, 0);
+    };
+    let null: Vec<usize> = (0..n)
+        .filter(|&k| svd.singular_values[k] <= tolerance * scale)
+        .collect();
+    let mut basis = DMatrix::zeros(n, null.len());
+    for (j, &k) in null.iter().enumerate() {
+        for i in 0..n {
+            basis[(i, j)] = v_t[(k, i)];
+        }
+    }
+    basis
+}

@@ -1,0 +1,378 @@
+//! The quasi-static solver: kinematics, then statics for three cases (ideal, forward,
+//! back), with the energy audit that doubles as the per-part loss breakdown.
+//!
+//! Each sub-rig (graph component) is solved on its own, with its own drive. The main
+//! sub-rig is the one holding the rig's `drive`; its unknown is `solve_for`. Every other
+//! moving sub-rig needs exactly one haul end, which is then its drive and its unknown.
+
+pub mod kinematics;
+pub mod statics;
+
+use crate::geometry::{self, Geometry, GeometryError, GeometryOptions};
+use crate::math::{Real, Vector};
+use crate::network::Network;
+use crate::rig::model::{PartId, PartKind, Rig};
+
+pub use kinematics::Kinematics;
+pub use statics::{CaseResult, DrumTorques, Status};
+
+/// Settings of the solve, with documented defaults.
+#[derive(Debug, Clone, Copy, PartialEq)]
+pub struct SolveOptions {
+    /// Relative change of every tension below which the fixed-point iteration for
+    /// load-dependent pin friction stops (default 1e-12).
+    pub tolerance: Real,
+    /// Iteration cap of that fixed point (default 200).
+    pub max_iterations: usize,
+    /// Relative singular-value threshold for rank decisions (default 1e-9).
+    pub rank_tolerance: Real,
+    /// Geometry settings.
+    pub geometry: GeometryOptions,
+}
+
+impl Default for SolveOptions {
+    fn default() -> Self {
+        SolveOptions {
+            tolerance: 1e-12,
+            max_iterations: 200,
+            rank_tolerance: 1e-9,
+            geometry: GeometryOptions::default(),
+        }
+    }
+}
+
+/// Why a rig cannot be solved (exit 2). Names are the rig file's.
+#[derive(Debug, Clone, PartialEq, thiserror::Error)]
+pub enum SolveError {
+    /// The rope geometry could not be built.
+    #[error(transparent)]
+    Geometry(#[from] GeometryError),
+    /// The lines hold every part of a sub-rig still.
+    #[error("the rig cannot move: the lines hold {} still; check the reeving (a line tied at both ends with no moving block between cannot run)", list(parts))]
+    CannotMove {
+        /// The parts that were expected to move.
+        parts: Vec<String>,
+    },
+    /// A sub-rig can move but nothing drives it.
+    #[error("{} can move but nothing drives them; add a haul end to that line or name it in `drive`", list(parts))]
+    NoDrive {
+        /// The free parts.
+        parts: Vec<String>,
+    },
+    /// The drive cannot move while the rest can.
+    #[error("the drive `{drive}` cannot move: its line holds it still")]
+    DriveCannotMove {
+        /// The drive.
+        drive: String,
+    },
+    /// More motions than drives.
+    #[error("{} can move while the drive `{drive}` stands still; the rig has more motions than drives (tie them to a line, or add a drive)", list(parts))]
+    FreeParts {
+        /// The drive.
+        drive: String,
+        /// The parts free to move without it.
+        parts: Vec<String>,
+    },
+    /// A part's natural quantity is needed but not given.
+    #[error("part `{part}`: its {quantity} is needed (only `solve_for` may leave it out)")]
+    MissingQuantity {
+        /// The part.
+        part: String,
+        /// What is missing.
+        quantity: &'static str,
+    },
+    /// A sub-rig other than the main one has no single haul to drive it.
+    #[error("the sub-rig of {} is not connected to the drive and has no single haul end to drive it", list(parts))]
+    SubRigWithoutHaul {
+        /// Its parts.
+        parts: Vec<String>,
+    },
+    /// The equilibrium equations have no solution.
+    #[error("no equilibrium exists for {case}: the equations are inconsistent (residual {residual:.3e}); {hint}")]
+    NoEquilibrium {
+        /// Which case.
+        case: &'static str,
+        /// Size of the misfit.
+        residual: Real,
+        /// What to look at.
+        hint: &'static str,
+    },
+}
+
+fn list(parts: &[String]) -> String {
+    let quoted: Vec<String> = parts.iter().map(|p| format!("`{p}`")).collect();
+    quoted.join(", ")
+}
+
+/// Which of the three cases.
+#[derive(Debug, Clone, Copy, PartialEq, Eq)]
+pub enum Case {
+    /// No friction anywhere.
+    Ideal,
+    /// The drive moves the load.
+    Forward,
+    /// The load moves the drive back.
+    Back,
+}
+
+impl Case {
+    /// Lowercase name, as in the JSON.
+    pub fn name(self) -> &'static str {
+        match self {
+            Case::Ideal => "ideal",
+            Case::Forward => "forward",
+            Case::Back => "back",
+        }
+    }
+    /// Direction of motion: +1 forward (and ideal), −1 back.
+    pub fn sign(self) -> Real {
+        match self {
+            Case::Back => -1.0,
+            _ => 1.0,
+        }
+    }
+}
+
+/// The natural quantity of the unknown part.
+#[derive(Debug, Clone, Copy, PartialEq, Eq)]
+pub enum Quantity {
+    /// Force, N.
+    Force,
+    /// Mass, kg.
+    Mass,
+    /// Torque, N·m.
+    Torque,
+}
+
+impl Quantity {
+    /// Lowercase name.
+    pub fn name(self) -> &'static str {
+        match self {
+            Quantity::Force => "force",
+            Quantity::Mass => "mass",
+            Quantity::Torque => "torque",
+        }
+    }
+    /// SI unit symbol.
+    pub fn si_unit(self) -> &'static str {
+        match self {
+            Quantity::Force => "N",
+            Quantity::Mass => "kg",
+            Quantity::Torque => "N*m",
+        }
+    }
+    /// The matching report dimension.
+    pub fn dimension(self) -> crate::units::Dimension {
+        match self {
+            Quantity::Force => crate::units::Dimension::Force,
+            Quantity::Mass => crate::units::Dimension::Mass,
+            Quantity::Torque => crate::units::Dimension::Torque,
+        }
+    }
+}
+
+/// The natural quantity of a part (what `solve_for` asks for).
+pub fn natural_quantity(rig: &Rig, part: PartId) -> Option<Quantity> {
+    match &rig.parts[part].kind {
+        PartKind::Haul(_) => Some(Quantity::Force),
+        PartKind::Weight(_) => Some(Quantity::Mass),
+        PartKind::Drum(_) => Some(Quantity::Torque),
+        PartKind::Block(b) => Some(if b.load_is_force { Quantity::Force } else { Quantity::Mass }),
+        _ => None,
+    }
+}
+
+/// The given value of a part's natural quantity (available drive or stated load), SI.
+pub fn given_quantity(rig: &Rig, part: PartId) -> Option<Real> {
+    match &rig.parts[part].kind {
+        PartKind::Haul(h) => h.force,
+        PartKind::Weight(w) => w.mass,
+        PartKind::Drum(d) => d.torque,
+        PartKind::Block(b) => b.load.map(|l| match l {
+            crate::rig::model::BlockLoad::Mass(m) | crate::rig::model::BlockLoad::Force(m) => m,
+        }),
+        _ => None,
+    }
+}
+
+/// One sub-rig's answer.
+#[derive(Debug, Clone)]
+pub struct SubRigSolution {
+    /// Index of the sub-rig in [`Network::components`].
+    pub component: usize,
+    /// Its drive.
+    pub drive: PartId,
+    /// Its unknown.
+    pub solve_for: PartId,
+    /// The unknown's quantity.
+    pub quantity: Quantity,
+    /// The ideal, forward and back cases.
+    pub ideal: CaseResult,
+    /// Forward.
+    pub forward: CaseResult,
+    /// Back.
+    pub back: CaseResult,
+    /// Drive speed over load speed (natural units), when a load moves.
+    pub velocity_ratio: Option<Real>,
+    /// The load part used for the velocity ratio.
+    pub load_part: Option<PartId>,
+}
+
+impl SubRigSolution {
+    /// The case result by name.
+    pub fn case(&self, case: Case) -> &CaseResult {
+        match case {
+            Case::Ideal => &self.ideal,
+            Case::Forward => &self.forward,
+            Case::Back => &self.back,
+        }
+    }
+
+    /// Whether the unknown is the drive's own quantity.
+    pub fn drive_unknown(&self) -> bool {
+        self.drive == self.solve_for
+    }
+
+    /// Forward efficiency (DESIGN.md §3): ideal/forward for a drive unknown,
+    /// forward/ideal for a load unknown.
+    pub fn forward_efficiency(&self) -> Option<Real> {
+        let (i, f) = (self.ideal.value, self.forward.value);
+        let e = if self.drive_unknown() { i / f } else { f / i };
+        e.is_finite().then_some(e)
+    }
+
+    /// Back efficiency: back/ideal for a drive unknown, ideal/back for a load unknown.
+    pub fn back_efficiency(&self) -> Option<Real> {
+        let (i, b) = (self.ideal.value, self.back.value);
+        let e = if self.drive_unknown() { b / i } else { i / b };
+        e.is_finite().then_some(e)
+    }
+
+    /// Self-locking: `back` has the opposite sign to `ideal` (it will not run back).
+    pub fn self_locking(&self) -> bool {
+        self.back.value * self.ideal.value < 0.0
+    }
+
+    /// Mechanical advantage: velocity ratio × forward efficiency.
+    pub fn mechanical_advantage(&self) -> Option<Real> {
+        Some(self.velocity_ratio? * self.forward_efficiency()?)
+    }
+}
+
+/// The whole answer for a rig.
+#[derive(Debug, Clone)]
+pub struct Solution {
+    /// Geometry the solve used.
+    pub geometry: Geometry,
+    /// The graph and its sub-rigs.
+    pub network: Network,
+    /// Kinematics.
+    pub kinematics: Kinematics,
+    /// The main sub-rig (holding the drive) first, then the others.
+    pub subrigs: Vec<SubRigSolution>,
+}
+
+impl Solution {
+    /// The main sub-rig's solution.
+    pub fn main(&self) -> &SubRigSolution {
+        &self.subrigs[0]
+    }
+}
+
+/// Solves a rig: geometry, kinematics, statics for ideal / forward / back.
+///
+/// # Errors
+/// [`SolveError`] for rigs that cannot be built, moved, or balanced.
+pub fn solve(rig: &Rig, options: &SolveOptions) -> Result<Solution, SolveError> {
+    let geometry = geometry::compute(rig, &options.geometry)?;
+    let network = Network::build(rig);
+
+    // Pick each sub-rig's drive and unknown.
+    let main_component = network.component_of[rig.drive];
+    let mut drives = vec![None; network.components.len()];
+    let mut unknowns = vec![None; network.components.len()];
+    for (c, members) in network.components.iter().enumerate() {
+        let movers: Vec<PartId> = members
+            .iter()
+            .copied()
+            .filter(|&p| {
+                matches!(
+                    rig.parts[p].kind,
+                    PartKind::Block(_) | PartKind::Weight(_) | PartKind::Haul(_) | PartKind::Drum(_)
+                ) && rig.lines.iter().any(|l| l.path.iter().any(|e| e.part == p))
+            })
+            .collect();
+        if movers.is_empty() {
+            continue;
+        }
+        if c == main_component {
+            drives[c] = Some(rig.drive);
+            unknowns[c] = Some(rig.solve_for);
+        } else {
+            let hauls: Vec<PartId> = members
+                .iter()
+                .copied()
+                .filter(|&p| matches!(rig.parts[p].kind, PartKind::Haul(_)))
+                .collect();
+            if hauls.len() != 1 {
+                return Err(SolveError::SubRigWithoutHaul {
+                    parts: movers.iter().map(|&p| rig.parts[p].name.clone()).collect(),
+                });
+            }
+            drives[c] = Some(hauls[0]);
+            unknowns[c] = Some(hauls[0]);
+        }
+    }
+
+    let kinematics = Kinematics::build(rig, &network, &geometry, &drives, options.rank_tolerance)?;
+
+    let mut order: Vec<usize> = (0..network.components.len()).filter(|&c| drives[c].is_some()).collect();
+    order.sort_by_key(|&c| (c != main_component, c));
+    let mut subrigs = Vec::new();
+    for c in order {
+        let (Some(drive), Some(solve_for)) = (drives[c], unknowns[c]) else { continue };
+        let quantity = natural_quantity(rig, solve_for).ok_or(SolveError::MissingQuantity {
+            part: rig.parts[solve_for].name.clone(),
+            quantity: "natural quantity (solve_for must be a haul, weight, block or drum)",
+        })?;
+        let problem = statics::Problem::new(rig, &network, &geometry, &kinematics, c, drive, solve_for)?;
+        let ideal = problem.solve(Case::Ideal, options)?;
+        let forward = problem.solve(Case::Forward, options)?;
+        let back = problem.solve(Case::Back, options)?;
+        let load_part = if solve_for != drive {
+            Some(solve_for)
+        } else {
+            // The part that takes the most power in the ideal case.
+            ideal
+                .load_power
+                .iter()
+                .enumerate()
+                .filter(|(p, _)| *p != drive && network.component_of[*p] == c)
+                .filter(|(_, w)| w.abs() > 0.0)
+                .max_by(|a, b| a.1.abs().total_cmp(&b.1.abs()))
+                .map(|(p, _)| p)
+        };
+        let velocity_ratio = load_part.and_then(|p| {
+            let v = kinematics.dof_of_part[p].map(|i| kinematics.forward[i])?;
+            let r = 1.0 / v.abs();
+            r.is_finite().then_some(r)
+        });
+        subrigs.push(SubRigSolution {
+            component: c,
+            drive,
+            solve_for,
+            quantity,
+            ideal,
+            forward,
+            back,
+            velocity_ratio,
+            load_part,
+        });
+    }
+    Ok(Solution { geometry, network, kinematics, subrigs })
+}
+
+/// Resultant of a list of forces.
+pub fn resultant(forces: &[Vector]) -> Vector {
+    forces.iter().fold(Vector::zeros(), |a, f| a + f)
+}

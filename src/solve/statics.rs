@@ -1,0 +1,623 @@
+//! Statics: one unknown tension per line segment plus the asked quantity, from the
+//! equilibrium of every moving part along its motion (blocks, weights, haul ends) and
+//! the moment balance of every drum.
+//!
+//! Walking a segment from its first span, each passage multiplies the tension by its
+//! ratio `k` (or `1/k`, by the rope's direction over the part) and may add a constant
+//! (the part of a sheave's friction that comes from its own weight), so every span's
+//! tension is affine in the segment's first tension. For degree of freedom `i`:
+//! `Σ_j T_j B_ji − X x_i = Q_i`, with `B_ji` the span's rate of lengthening per unit
+//! speed of `i` (see [`super::kinematics`]), `x_i` the unknown's generalized force per
+//! unit and `Q_i` the known loads and drum friction. Load-dependent friction (sheave
+//! weight in the pin load, drum journals) is settled by fixed-point iteration.
+
+use nalgebra::{DMatrix, DVector};
+
+use crate::friction::{self, BearingResistance};
+use crate::geometry::Geometry;
+use crate::math::{Real, Vector, STANDARD_GRAVITY};
+use crate::network::Network;
+use crate::rig::model::{BlockLoad, LineId, PartId, PartKind, Rig};
+
+use super::kinematics::{line_component, Kinematics};
+use super::{Case, SolveError, SolveOptions};
+
+/// How the fixed-point iteration ended.
+#[derive(Debug, Clone, Copy, PartialEq)]
+pub enum Status {
+    /// Settled within the tolerance.
+    Converged {
+        /// Iterations used.
+        iterations: usize,
+    },
+    /// Stopped at the cap without settling; the figures are not to be trusted.
+    OutOfIterations {
+        /// Iterations used.
+        iterations: usize,
+        /// Last relative change of the tensions.
+        change: Real,
+    },
+}
+
+/// Torques on a drum, N·m, about its axle; `rope` is what the lines apply in the
+/// direction of the case's motion, the others oppose it.
+#[derive(Debug, Clone, Copy, PartialEq)]
+pub struct DrumTorques {
+    /// Net torque of the rope tensions, signed along the drum's motion in this case.
+    pub rope: Real,
+    /// Steady load torque (positive when it opposes this case's motion).
+    pub load: Real,
+    /// Drag torque (always opposes).
+    pub drag: Real,
+    /// Journal friction torque.
+    pub journal: Real,
+    /// Thrust friction torque.
+    pub thrust: Real,
+    /// Angular speed in this case per unit drive speed, rad/s (signed about the axle).
+    pub speed: Real,
+}
+
+/// A passage where the rope slips on an untied drum.
+#[derive(Debug, Clone, Copy, PartialEq)]
+pub struct Slip {
+    /// The line.
+    pub line: LineId,
+    /// The path entry.
+    pub entry: usize,
+    /// Tension ratio needed.
+    pub ratio: Real,
+    /// Capstan ratio available.
+    pub limit: Real,
+}
+
+/// The answer for one case of one sub-rig.
+#[derive(Debug, Clone)]
+pub struct CaseResult {
+    /// Which case.
+    pub case: Case,
+    /// The asked quantity, SI.
+    pub value: Real,
+    /// `tension[line][span]`, N (empty for lines of other sub-rigs).
+    pub tension: Vec<Vec<Real>>,
+    /// `ratio[line][entry]`: tight over slack tension at a middle passage.
+    pub ratio: Vec<Vec<Option<Real>>>,
+    /// Power lost at each part per unit drive speed, W (per m/s or rad/s of the drive).
+    pub loss: Vec<Real>,
+    /// Power taken by each part's load per unit drive speed, W (negative where a load
+    /// gives power, and at the drive).
+    pub load_power: Vec<Real>,
+    /// Power the drive puts in per unit drive speed.
+    pub drive_power: Real,
+    /// Resultant force the lines (and own weight) put on each part, N.
+    pub pin_load: Vec<Option<Vector>>,
+    /// Drum torques, per part.
+    pub drums: Vec<Option<DrumTorques>>,
+    /// Sheaves that do not turn: (line, entry).
+    pub stalled: Vec<(LineId, usize)>,
+    /// Untied drum passages where the rope slips.
+    pub slipping: Vec<Slip>,
+    /// Spans with negative tension (slack): (line, span).
+    pub slack: Vec<(LineId, usize)>,
+    /// Whether statics alone could not fix every tension (the split among parallel
+    /// lines is then the least-squares one).
+    pub indeterminate: bool,
+    /// Fixed-point status.
+    pub status: Status,
+    /// Energy audit misfit: |drive − loads − losses| over the drive power.
+    pub audit_residual: Real,
+}
+
+impl CaseResult {
+    /// Total losses per unit drive speed, W.
+    pub fn total_loss(&self) -> Real {
+        self.loss.iter().sum()
+    }
+}
+
+/// The statics problem of one sub-rig.
+pub struct Problem<'a> {
+    rig: &'a Rig,
+    geometry: &'a Geometry,
+    kin: &'a Kinematics,
+    solve_for: PartId,
+    drive: PartId,
+    /// Global dof indices of the sub-rig.
+    dofs: Vec<usize>,
+    /// Global segment indices of the sub-rig.
+    segs: Vec<usize>,
+    /// Lines of the sub-rig.
+    lines: Vec<LineId>,
+    /// Known generalized load forces (global dof index order of `dofs`).
+    q_load: DVector<Real>,
+    /// Unknown's generalized force per unit.
+    x_coef: DVector<Real>,
+}
+
+fn gravity_force(rig: &Rig, mass: Real) -> Vector {
+    rig.gravity.into_inner() * (mass * STANDARD_GRAVITY)
+}
+
+impl<'a> Problem<'a> {
+    /// Sets up the statics of sub-rig `component` driven by `drive`, with unknown `solve_for`.
+    ///
+    /// # Errors
+    /// [`SolveError::MissingQuantity`] when a load that is not the unknown is not given.
+    pub fn new(
+        rig: &'a Rig,
+        network: &'a Network,
+        geometry: &'a Geometry,
+        kin: &'a Kinematics,
+        component: usize,
+        drive: PartId,
+        solve_for: PartId,
+    ) -> Result<Problem<'a>, SolveError> {
+        let dofs: Vec<usize> = (0..kin.dofs.len())
+            .filter(|&i| network.component_of[kin.dofs[i].part] == component)
+            .collect();
+        let lines: Vec<LineId> = (0..rig.lines.len())
+            .filter(|&l| line_component(rig, network, l) == Some(component))
+            .collect();
+        let segs: Vec<usize> = (0..kin.segments.len())
+            .filter(|&g| lines.contains(&kin.segments[g].line))
+            .collect();
+        let mut q_load = DVector::zeros(dofs.len());
+        let mut x_coef = DVector::zeros(dofs.len());
+        for (k, &i) in dofs.iter().enumerate() {
+            let part = kin.dofs[i].part;
+            let unknown = part == solve_for;
+            let fwd = kin.forward[i];
+            let missing = |quantity| SolveError::MissingQuantity {
+                part: rig.parts[part].name.clone(),
+                quantity,
+            };
+            match &rig.parts[part].kind {
+                PartKind::Block(b) => {
+                    let moves = b.moves.into_inner();
+                    let mut mass = b.mass.unwrap_or(0.0);
+                    for p in &rig.parts {
+                        if let PartKind::Sheave(s) = &p.kind {
+                            if s.block == Some(part) {
+                                mass += s.mass.unwrap_or(0.0);
+                            }
+                        }
+                    }
+                    let mut q = gravity_force(rig, mass).dot(&moves);
+                    if unknown {
+                        x_coef[k] = if b.load_is_force {
+                            -1.0
+                        } else {
+                            gravity_force(rig, 1.0).dot(&moves)
+                        };
+                    } else {
+                        match b.load {
+                            Some(BlockLoad::Mass(m)) => q += gravity_force(rig, m).dot(&moves),
+                            Some(BlockLoad::Force(f)) => q -= f,
+                            None => {}
+                        }
+                    }
+                    q_load[k] = q;
+                }
+                PartKind::Weight(w) => {
+                    if unknown {
+                        x_coef[k] = STANDARD_GRAVITY;
+                    } else {
+                        q_load[k] = STANDARD_GRAVITY * w.mass.ok_or_else(|| missing("mass"))?;
+                    }
+                }
+                PartKind::Haul(h) => {
+                    if unknown {
+                        x_coef[k] = 1.0;
+                    } else {
+                        q_load[k] = h.force.ok_or_else(|| missing("force"))?;
+                    }
+                }
+                PartKind::Drum(d) => {
+                    let forward_sign = if fwd > 0.0 { 1.0 } else if fwd < 0.0 { -1.0 } else { 0.0 };
+                    if part == drive {
+                        // A driving drum's torque turns it forward (right-handed about its axle).
+                        if unknown {
+                            x_coef[k] = 1.0;
+                        } else {
+                            q_load[k] = d.torque.ok_or_else(|| missing("torque"))?;
+                        }
+                    } else if unknown {
+                        x_coef[k] = -forward_sign;
+                    } else {
+                        q_load[k] = -forward_sign * d.torque.unwrap_or(0.0);
+                    }
+                }
+                _ => {}
+            }
+        }
+        Ok(Problem { rig, geometry, kin, solve_for, drive, dofs, segs, lines, q_load, x_coef })
+    }
+
+    /// Rope-on-surface friction for a part on a line.
+    fn surface_mu(&self, line: LineId, part: PartId) -> Real {
+        let own = self.rig.parts[part].kind.round().and_then(|r| r.mu);
+        own.unwrap_or(self.rig.rope_of(line).mu)
+    }
+
+    /// `T_after = k T_before + delta` for middle entry `e` of `line`; also whether the
+    /// sheave stalls there.
+    fn passage(
+        &self,
+        case: Case,
+        line: LineId,
+        e: usize,
+        previous: Option<&Vec<Vec<Real>>>,
+    ) -> (Real, Real, bool) {
+        if case == Case::Ideal {
+            return (1.0, 0.0, false);
+        }
+        let s = case.sign() * self.kin.rope_speed[line][e];
+        if s.abs() < 1e-12 {
+            return (1.0, 0.0, false);
+        }
+        let entry = &self.geometry.lines[line].entries[e];
+        let part = &self.rig.parts[entry.part];
+        let wrap = entry.wrap;
+        let Some(round) = part.kind.round() else { return (1.0, 0.0, false) };
+        let capstan = friction::capstan::capstan_ratio(
+            self.surface_mu(line, entry.part),
+            round.groove_angle,
+            wrap,
+        );
+        let orient = |k: Real| if s > 0.0 { k } else { 1.0 / k };
+        match &part.kind {
+            PartKind::Guide(_) => (orient(capstan), 0.0, false),
+            PartKind::Sheave(sheave) => {
+                let r = entry.pitch_radius;
+                match friction::bearing_resistance(&sheave.bearing, false) {
+                    BearingResistance::Free => (1.0, 0.0, false),
+                    BearingResistance::Rated { rho } => {
+                        let k = friction::sheave_ratio(rho, wrap);
+                        if k > capstan {
+                            (orient(capstan), 0.0, true)
+                        } else {
+                            (orient(k), 0.0, false)
+                        }
+                    }
+                    BearingResistance::FrictionCircle { radius } => {
+                        let k0 = friction::sheave_ratio(radius / r, wrap);
+                        let weight = gravity_force(self.rig, sheave.mass.unwrap_or(0.0));
+                        if k0 > capstan {
+                            return (orient(capstan), 0.0, true);
+                        }
+                        if weight.norm() == 0.0 {
+                            return (orient(k0), 0.0, false);
+                        }
+                        let Some(prev) = previous else { return (orient(k0), 0.0, false) };
+                        let spans = &self.geometry.lines[line].spans;
+                        let u_in = spans[e - 1].direction.into_inner();
+                        let u_out = spans[e].direction.into_inner();
+                        let before = prev[line][e - 1].max(0.0);
+                        let after = if s > 0.0 {
+                            friction::tight_tension(before, &u_out, &(-u_in), &weight, radius, r)
+                        } else {
+                            friction::slack_tension(before, &(-u_in), &u_out, &weight, radius, r)
+                        };
+                        match after {
+                            Some(t) => {
+                                let (tight, slack) = if s > 0.0 { (t, before) } else { (before, t) };
+                                if slack > 0.0 && tight / slack > capstan {
+                                    (orient(capstan), 0.0, true)
+                                } else {
+                                    let k = orient(k0);
+                                    (k, t - k * before, false)
+                                }
+                            }
+                            None => (orient(capstan), 0.0, true),
+                        }
+                    }
+                }
+            }
+            _ => (1.0, 0.0, false),
+        }
+    }
+
+    /// Force each span puts on each part it touches, for the pin loads and drums.
+    fn contact_forces(&self, tension: &[Vec<Real>]) -> Vec<Vec<(Vector, crate::math::Point)>> {
+        let mut forces = vec![Vec::new(); self.rig.parts.len()];
+        for &l in &self.lines {
+            let path = &self.rig.lines[l].path;
+            for (j, span) in self.geometry.lines[l].spans.iter().enumerate() {
+                let f = span.direction.into_inner() * tension[l][j];
+                forces[path[j].part].push((f, span.start));
+                forces[path[j + 1].part].push((-f, span.end));
+            }
+        }
+        forces
+    }
+
+    /// Friction torques of a drum for given tensions: (drag, journal, thrust).
+    fn drum_friction(&self, part: PartId, forces: &[(Vector, crate::math::Point)]) -> (Real, Real, Real) {
+        let PartKind::Drum(d) = &self.rig.parts[part].kind else { return (0.0, 0.0, 0.0) };
+        let mut journal = 0.0;
+        let mut thrust = 0.0;
+        if let Some(shaft) = &d.shaft {
+            let axle = d.axle.into_inner();
+            let total = forces.iter().fold(gravity_force(self.rig, d.mass.unwrap_or(0.0)), |a, (f, _)| a + f);
+            let radial = (total - axle * total.dot(&axle)).norm();
+            journal = match friction::bearing_resistance(&shaft.bearing, false) {
+                BearingResistance::Free => 0.0,
+                BearingResistance::FrictionCircle { radius } => radius * radial,
+                BearingResistance::Rated { rho } => rho * 0.5 * d.diameter * radial,
+            };
+            if let Some(t) = &shaft.thrust {
+                thrust = friction::thrust::moment(t);
+            }
+        }
+        (d.drag, journal, thrust)
+    }
+
+    /// Solves one case.
+    ///
+    /// # Errors
+    /// [`SolveError::NoEquilibrium`] when the equations have no solution.
+    pub fn solve(&self, case: Case, options: &SolveOptions) -> Result<CaseResult, SolveError> {
+        let rig = self.rig;
+        let sign = case.sign();
+        let n = self.dofs.len();
+        let m = self.segs.len() + 1;
+        let velocity: DVector<Real> = self.kin.forward.clone() * sign;
+        let mut previous: Option<Vec<Vec<Real>>> = None;
+        let mut status = Status::Converged { iterations: 1 };
+        let mut outcome = None;
+        let needs_iteration = case != Case::Ideal && self.load_dependent();
+        for iteration in 1..=options.max_iterations.max(1) {
+            // Walk every segment: T_span = c τ + e.
+            let mut coef: Vec<Vec<(Real, Real)>> = rig
+                .lines
+                .iter()
+                .map(|l| vec![(0.0, 0.0); l.path.len().saturating_sub(1)])
+                .collect();
+            let mut stalled = Vec::new();
+            for &g in &self.segs {
+                let seg = self.kin.segments[g];
+                coef[seg.line][seg.first] = (1.0, 0.0);
+                for e in seg.first + 1..seg.last {
+                    let (k, delta, stall) = self.passage(case, seg.line, e, previous.as_ref());
+                    if stall {
+                        stalled.push((seg.line, e));
+                    }
+                    let (c, c0) = coef[seg.line][e - 1];
+                    coef[seg.line][e] = (k * c, k * c0 + delta);
+                }
+            }
+            // Drum friction from the previous tensions.
+            let forces = previous.as_ref().map(|t| self.contact_forces(t));
+            let mut q = self.q_load.clone();
+            let mut drum_friction = vec![(0.0, 0.0, 0.0); n];
+            if case != Case::Ideal {
+                for (k, &i) in self.dofs.iter().enumerate() {
+                    let part = self.kin.dofs[i].part;
+                    if matches!(rig.parts[part].kind, PartKind::Drum(_)) {
+                        let empty = Vec::new();
+                        let f = forces.as_ref().map(|f| &f[part]).unwrap_or(&empty);
+                        let (drag, journal, thrust) = self.drum_friction(part, f);
+                        drum_friction[k] = (drag, journal, thrust);
+                        let v = velocity[i];
+                        let s = if v > 1e-15 { 1.0 } else if v < -1e-15 { -1.0 } else { 0.0 };
+                        q[k] -= s * (drag + journal + thrust);
+                    }
+                }
+            }
+            // Assemble.
+            let mut mat = DMatrix::zeros(n, m);
+            let mut rhs = q.clone();
+            for (col, &g) in self.segs.iter().enumerate() {
+                let seg = self.kin.segments[g];
+                for j in seg.first..seg.last {
+                    let (c, c0) = coef[seg.line][j];
+                    let row = &self.kin.span_rows[seg.line][j];
+                    for (k, &i) in self.dofs.iter().enumerate() {
+                        mat[(k, col)] += c * row[i];
+                        rhs[k] -= c0 * row[i];
+                    }
+                }
+            }
+            for k in 0..n {
+                mat[(k, m - 1)] = -self.x_coef[k];
+            }
+            let scale = mat.amax().max(1e-300);
+            let svd = mat.clone().svd(true, true);
+            let rank = svd.rank(options.rank_tolerance * scale);
+            let solution = svd
+                .solve(&rhs, options.rank_tolerance * scale)
+                .unwrap_or_else(|_| DVector::zeros(m));
+            let residual = (&mat * &solution - &rhs).norm();
+            let rhs_scale = rhs.norm().max(scale);
+            if !solution.iter().all(|v| v.is_finite()) || residual > 1e-7 * rhs_scale {
+                return Err(SolveError::NoEquilibrium {
+                    case: case.name(),
+                    residual,
+                    hint: "a part may be held by lines pulling only sideways to its motion, or a load cannot be reached by the drive",
+                });
+            }
+            let mut tension: Vec<Vec<Real>> = rig
+                .lines
+                .iter()
+                .map(|l| vec![0.0; l.path.len().saturating_sub(1)])
+                .collect();
+            for (col, &g) in self.segs.iter().enumerate() {
+                let seg = self.kin.segments[g];
+                for j in seg.first..seg.last {
+                    let (c, c0) = coef[seg.line][j];
+                    tension[seg.line][j] = c * solution[col] + c0;
+                }
+            }
+            let change = previous.as_ref().map(|p| relative_change(p, &tension, &self.lines));
+            let converged = !needs_iteration || change.is_some_and(|c| c <= options.tolerance);
+            outcome = Some((tension.clone(), solution[m - 1], stalled, drum_friction, rank < m));
+            if converged {
+                status = Status::Converged { iterations: iteration };
+                break;
+            }
+            status = Status::OutOfIterations { iterations: iteration, change: change.unwrap_or(Real::INFINITY) };
+            previous = Some(tension);
+        }
+        let Some((tension, value, stalled, drum_friction, indeterminate)) = outcome else {
+            return Err(SolveError::NoEquilibrium { case: case.name(), residual: Real::NAN, hint: "no iteration ran" });
+        };
+        Ok(self.finish(case, value, tension, stalled, drum_friction, indeterminate, status, &velocity))
+    }
+
+    /// Whether any friction depends on the tensions themselves.
+    fn load_dependent(&self) -> bool {
+        self.rig.parts.iter().any(|p| match &p.kind {
+            PartKind::Sheave(s) => {
+                s.mass.unwrap_or(0.0) > 0.0
+                    && matches!(friction::bearing_resistance(&s.bearing, false), BearingResistance::FrictionCircle { .. })
+            }
+            PartKind::Drum(d) => d.shaft.as_ref().is_some_and(|s| {
+                !matches!(friction::bearing_resistance(&s.bearing, false), BearingResistance::Free)
+            }),
+            _ => false,
+        })
+    }
+
+    #[allow(clippy::too_many_arguments)]
+    fn finish(
+        &self,
+        case: Case,
+        value: Real,
+        tension: Vec<Vec<Real>>,
+        stalled: Vec<(LineId, usize)>,
+        drum_friction: Vec<(Real, Real, Real)>,
+        indeterminate: bool,
+        status: Status,
+        velocity: &DVector<Real>,
+    ) -> CaseResult {
+        let rig = self.rig;
+        let nparts = rig.parts.len();
+        let mut loss = vec![0.0; nparts];
+        let mut ratio: Vec<Vec<Option<Real>>> = rig.lines.iter().map(|l| vec![None; l.path.len()]).collect();
+        let mut slack = Vec::new();
+        let mut slipping = Vec::new();
+        for &l in &self.lines {
+            let path = &rig.lines[l].path;
+            for (j, &t) in tension[l].iter().enumerate() {
+                if t < -1e-9 * (1.0 + value.abs()) {
+                    slack.push((l, j));
+                }
+            }
+            for e in 1..path.len() - 1 {
+                let (a, b) = (tension[l][e - 1], tension[l][e]);
+                let (hi, lo) = if a.abs() >= b.abs() { (a, b) } else { (b, a) };
+                if lo.abs() > 0.0 {
+                    ratio[l][e] = Some(hi / lo);
+                }
+                let part = path[e].part;
+                if matches!(rig.parts[part].kind, PartKind::Drum(_)) {
+                    // Untied drum passage: the rope must not slip.
+                    let entry = &self.geometry.lines[l].entries[e];
+                    let round = rig.parts[part].kind.round();
+                    let limit = friction::capstan::capstan_ratio(
+                        self.surface_mu(l, part),
+                        round.and_then(|r| r.groove_angle),
+                        entry.wrap,
+                    );
+                    if lo > 0.0 && hi / lo > limit * (1.0 + 1e-9) {
+                        slipping.push(Slip { line: l, entry: e, ratio: hi / lo, limit });
+                    }
+                } else {
+                    let s = case.sign() * self.kin.rope_speed[l][e];
+                    loss[part] += (b - a) * s;
+                }
+            }
+        }
+        // Drum friction losses, per-dof powers.
+        let mut load_power = vec![0.0; nparts];
+        let mut drive_power = 0.0;
+        for (k, &i) in self.dofs.iter().enumerate() {
+            let part = self.kin.dofs[i].part;
+            let v = velocity[i];
+            let (drag, journal, thrust) = drum_friction[k];
+            loss[part] += (drag + journal + thrust) * v.abs();
+            let p = (self.q_load[k] + value * self.x_coef[k]) * v;
+            if part == self.drive {
+                drive_power += p;
+            } else {
+                load_power[part] -= p;
+            }
+        }
+        let total_loss: Real = loss.iter().sum();
+        let total_load: Real = load_power.iter().sum();
+        let scale = drive_power.abs().max(total_load.abs()).max(total_loss.abs()).max(1e-300);
+        let audit_residual = (drive_power - total_load - total_loss).abs() / scale;
+
+        // Pin loads and drum torques.
+        let forces = self.contact_forces(&tension);
+        let mut pin_load = vec![None; nparts];
+        let mut drums = vec![None; nparts];
+        for (id, part) in rig.parts.iter().enumerate() {
+            if forces[id].is_empty() {
+                continue;
+            }
+            let own = match &part.kind {
+                PartKind::Sheave(s) => s.mass.unwrap_or(0.0),
+                PartKind::Drum(d) => d.mass.unwrap_or(0.0),
+                _ => 0.0,
+            };
+            let total = forces[id].iter().fold(gravity_force(rig, own), |a, (f, _)| a + f);
+            pin_load[id] = Some(total);
+            if let PartKind::Drum(d) = &part.kind {
+                let axle = d.axle.into_inner();
+                let torque: Real = forces[id]
+                    .iter()
+                    .map(|(f, at)| (at - part.at).cross(f).dot(&axle))
+                    .sum();
+                let k = self.dofs.iter().position(|&i| self.kin.dofs[i].part == id);
+                let speed = self.kin.dof_of_part[id].map(|i| velocity[i]).unwrap_or(0.0);
+                let dir = if speed < 0.0 { -1.0 } else { 1.0 };
+                let (drag, journal, thrust) = k.map(|k| drum_friction[k]).unwrap_or((0.0, 0.0, 0.0));
+                let load = if id == self.solve_for && id != self.drive {
+                    value
+                } else if id == self.drive {
+                    0.0
+                } else {
+                    d.torque.unwrap_or(0.0)
+                };
+                let fwd = self.kin.dof_of_part[id].map(|i| self.kin.forward[i]).unwrap_or(0.0);
+                drums[id] = Some(DrumTorques {
+                    rope: torque * dir,
+                    load: load * if fwd * speed >= 0.0 { 1.0 } else { -1.0 },
+                    drag,
+                    journal,
+                    thrust,
+                    speed,
+                });
+            }
+        }
+        CaseResult {
+            case,
+            value,
+            tension,
+            ratio,
+            loss,
+            load_power,
+            drive_power,
+            pin_load,
+            drums,
+            stalled,
+            slipping,
+            slack,
+            indeterminate,
+            status,
+            audit_residual,
+        }
+    }
+}
+
+fn relative_change(a: &[Vec<Real>], b: &[Vec<Real>], lines: &[LineId]) -> Real {
+    let mut worst: Real = 0.0;
+    let mut scale: Real = 0.0;
+    for &l in lines {
+        for (x, y) in a[l].iter().zip(&b[l]) {
+            worst = worst.max((x - y).abs());
+            scale = scale.max(y.abs());
+        }
+    }
+    worst / scale.max(1e-300)
+}
