@@ -23,7 +23,12 @@ pub struct Warning {
 }
 
 fn warn(code: &'static str, part: Option<&str>, fails: bool, message: String) -> Warning {
-    Warning { code, part: part.map(str::to_string), message, fails }
+    Warning {
+        code,
+        part: part.map(str::to_string),
+        message,
+        fails,
+    }
 }
 
 /// Geometry checks: fleet angle, D/d, wrap. Needs no statics.
@@ -38,7 +43,10 @@ pub fn geometry_checks(rig: &Rig, geometry: &crate::geometry::Geometry) -> Vec<W
             if part.kind.round().is_none() {
                 continue;
             }
-            let fleet = entry.fleet_in.unwrap_or(0.0).max(entry.fleet_out.unwrap_or(0.0));
+            let fleet = entry
+                .fleet_in
+                .unwrap_or(0.0)
+                .max(entry.fleet_out.unwrap_or(0.0));
             if fleet > limit + 1e-12 {
                 out.push(warn(
                     "fleet-angle",
@@ -66,7 +74,8 @@ pub fn geometry_checks(rig: &Rig, geometry: &crate::geometry::Geometry) -> Vec<W
                     ));
                 }
             }
-            if e > 0 && e + 1 < n && entry.wrap < NO_WRAP && !matches!(part.kind, PartKind::Drum(_)) {
+            if e > 0 && e + 1 < n && entry.wrap < NO_WRAP && !matches!(part.kind, PartKind::Drum(_))
+            {
                 out.push(warn(
                     "no-wrap",
                     Some(&part.name),
@@ -130,7 +139,9 @@ fn subrig_checks(rig: &Rig, sub: &SubRigSolution) -> Vec<Warning> {
     // Safety factor of every span, worst case of forward and back.
     for (l, line) in rig.lines.iter().enumerate() {
         let rope = rig.rope_of(l);
-        let Some(strength) = rope.breaking_strength else { continue };
+        let Some(strength) = rope.breaking_strength else {
+            continue;
+        };
         let worst = [&sub.forward, &sub.back, &sub.ideal]
             .iter()
             .flat_map(|c| c.tension.get(l).into_iter().flatten().copied())

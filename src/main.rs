@@ -6,7 +6,11 @@ fn main() {
     let cli = match reeve::cli::Cli::try_parse() {
         Ok(cli) => cli,
         Err(e) => {
-            let code = if e.use_stderr() { reeve::cli::EXIT_BAD_INPUT } else { 0 };
+            let code = if e.use_stderr() {
+                reeve::cli::EXIT_BAD_INPUT
+            } else {
+                0
+            };
             let _ = e.print();
             std::process::exit(code);
         }

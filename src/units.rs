@@ -74,21 +74,81 @@ impl fmt::Display for Unit {
 }
 
 const UNITS: &[Unit] = &[
-    Unit { dimension: Dimension::Length, symbol: "mm", si: 1e-3 },
-    Unit { dimension: Dimension::Length, symbol: "cm", si: 1e-2 },
-    Unit { dimension: Dimension::Length, symbol: "m", si: 1.0 },
-    Unit { dimension: Dimension::Length, symbol: "in", si: INCH },
-    Unit { dimension: Dimension::Length, symbol: "ft", si: FOOT },
-    Unit { dimension: Dimension::Force, symbol: "N", si: 1.0 },
-    Unit { dimension: Dimension::Force, symbol: "kN", si: 1e3 },
-    Unit { dimension: Dimension::Force, symbol: "lbf", si: POUND_FORCE },
-    Unit { dimension: Dimension::Mass, symbol: "kg", si: 1.0 },
-    Unit { dimension: Dimension::Mass, symbol: "g", si: 1e-3 },
-    Unit { dimension: Dimension::Mass, symbol: "lb", si: POUND },
-    Unit { dimension: Dimension::Torque, symbol: "N*m", si: 1.0 },
-    Unit { dimension: Dimension::Torque, symbol: "N*mm", si: 1e-3 },
-    Unit { dimension: Dimension::Torque, symbol: "lbf*in", si: POUND_FORCE * INCH },
-    Unit { dimension: Dimension::Torque, symbol: "lbf*ft", si: POUND_FORCE * FOOT },
+    Unit {
+        dimension: Dimension::Length,
+        symbol: "mm",
+        si: 1e-3,
+    },
+    Unit {
+        dimension: Dimension::Length,
+        symbol: "cm",
+        si: 1e-2,
+    },
+    Unit {
+        dimension: Dimension::Length,
+        symbol: "m",
+        si: 1.0,
+    },
+    Unit {
+        dimension: Dimension::Length,
+        symbol: "in",
+        si: INCH,
+    },
+    Unit {
+        dimension: Dimension::Length,
+        symbol: "ft",
+        si: FOOT,
+    },
+    Unit {
+        dimension: Dimension::Force,
+        symbol: "N",
+        si: 1.0,
+    },
+    Unit {
+        dimension: Dimension::Force,
+        symbol: "kN",
+        si: 1e3,
+    },
+    Unit {
+        dimension: Dimension::Force,
+        symbol: "lbf",
+        si: POUND_FORCE,
+    },
+    Unit {
+        dimension: Dimension::Mass,
+        symbol: "kg",
+        si: 1.0,
+    },
+    Unit {
+        dimension: Dimension::Mass,
+        symbol: "g",
+        si: 1e-3,
+    },
+    Unit {
+        dimension: Dimension::Mass,
+        symbol: "lb",
+        si: POUND,
+    },
+    Unit {
+        dimension: Dimension::Torque,
+        symbol: "N*m",
+        si: 1.0,
+    },
+    Unit {
+        dimension: Dimension::Torque,
+        symbol: "N*mm",
+        si: 1e-3,
+    },
+    Unit {
+        dimension: Dimension::Torque,
+        symbol: "lbf*in",
+        si: POUND_FORCE * INCH,
+    },
+    Unit {
+        dimension: Dimension::Torque,
+        symbol: "lbf*ft",
+        si: POUND_FORCE * FOOT,
+    },
 ];
 
 /// Looks a unit up by spelling. Accepts the canonical spellings plus the usual
@@ -178,7 +238,8 @@ pub fn parse_quantity(text: &str, dimension: Dimension, default: Unit) -> Result
                 || c == '+'
                 || c == '-'
                 || ((c == 'e' || c == 'E')
-                    && t[i + 1..].starts_with(|n: char| n.is_ascii_digit() || n == '-' || n == '+')
+                    && t[i + 1..]
+                        .starts_with(|n: char| n.is_ascii_digit() || n == '-' || n == '+')
                     && i > 0))
         })
         .map(|(i, _)| i)
@@ -195,7 +256,9 @@ pub fn parse_quantity(text: &str, dimension: Dimension, default: Unit) -> Result
         example,
     })?;
     if !value.is_finite() {
-        return Err(UnitError::NotFinite { text: t.to_string() });
+        return Err(UnitError::NotFinite {
+            text: t.to_string(),
+        });
     }
     let unit = if unit.trim().is_empty() {
         default
@@ -298,6 +361,9 @@ mod tests {
         let e = parse_quantity("heavy", Dimension::Mass, d.mass).unwrap_err();
         assert!(matches!(e, UnitError::NotAQuantity { .. }));
         let e = parse_quantity("inf N", Dimension::Force, d.force).unwrap_err();
-        assert!(matches!(e, UnitError::NotAQuantity { .. } | UnitError::NotFinite { .. }));
+        assert!(matches!(
+            e,
+            UnitError::NotAQuantity { .. } | UnitError::NotFinite { .. }
+        ));
     }
 }

@@ -63,7 +63,10 @@ pub struct Failure {
 
 impl Failure {
     fn input(message: impl Into<String>) -> Failure {
-        Failure { message: message.into(), code: EXIT_BAD_INPUT }
+        Failure {
+            message: message.into(),
+            code: EXIT_BAD_INPUT,
+        }
     }
 }
 
@@ -72,7 +75,11 @@ fn parse_sets(sets: &[String]) -> Result<Vec<(String, String)>, Failure> {
         .map(|s| {
             s.split_once('=')
                 .map(|(k, v)| (k.trim().to_string(), v.trim().to_string()))
-                .ok_or_else(|| Failure::input(format!("--set `{s}`: expected KEY=VALUE, e.g. parts.head.bearing.mu=0.08")))
+                .ok_or_else(|| {
+                    Failure::input(format!(
+                        "--set `{s}`: expected KEY=VALUE, e.g. parts.head.bearing.mu=0.08"
+                    ))
+                })
         })
         .collect()
 }
@@ -103,7 +110,10 @@ fn write_out(f: impl FnOnce(&mut dyn Write) -> io::Result<()>) -> Result<(), Fai
         Ok(()) => Ok(()),
         // A closed pipe (`reeve check x | head`) is not an error.
         Err(e) if e.kind() == io::ErrorKind::BrokenPipe => Ok(()),
-        Err(e) => Err(Failure { message: format!("cannot write output: {e}"), code: EXIT_BAD_INPUT }),
+        Err(e) => Err(Failure {
+            message: format!("cannot write output: {e}"),
+            code: EXIT_BAD_INPUT,
+        }),
     }
 }
 
@@ -126,7 +136,11 @@ pub fn run(cli: Cli) -> Result<i32, Failure> {
             } else {
                 write_out(|w| text::write_check(w, &rig, &report, &display(&args.rig)))?;
             }
-            Ok(if report.fails() { EXIT_CHECK_FAILED } else { EXIT_OK })
+            Ok(if report.fails() {
+                EXIT_CHECK_FAILED
+            } else {
+                EXIT_OK
+            })
         }
     }
 }

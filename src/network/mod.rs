@@ -43,7 +43,14 @@ impl Network {
         for (line_id, line) in rig.lines.iter().enumerate() {
             for (index, pair) in line.path.windows(2).enumerate() {
                 let (a, b) = (pair[0].part, pair[1].part);
-                graph.add_edge(nodes[a], nodes[b], Link::Span { line: line_id, index });
+                graph.add_edge(
+                    nodes[a],
+                    nodes[b],
+                    Link::Span {
+                        line: line_id,
+                        index,
+                    },
+                );
             }
             // Every moving or turning part of one line moves with the line.
             let mut members = line
@@ -77,7 +84,11 @@ impl Network {
             component_of[id] = c;
             components[c].push(id);
         }
-        Network { graph, component_of, components }
+        Network {
+            graph,
+            component_of,
+            components,
+        }
     }
 
     /// The lines whose parts belong to sub-rig `component`.

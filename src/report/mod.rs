@@ -12,7 +12,8 @@ use crate::rig::model::{PartKind, Rig};
 use crate::solve::{given_quantity, Case, Solution, SubRigSolution};
 
 /// The caution every human-readable report ends with (DESIGN.md §6).
-pub const CAUTION: &str = "Caution: these figures are estimates from the stated friction models and inputs. \
+pub const CAUTION: &str =
+    "Caution: these figures are estimates from the stated friction models and inputs. \
 Rigging that holds loads over people or is used for life safety must follow local codes and \
 standards and be checked by a competent, licensed person.";
 
@@ -212,7 +213,11 @@ fn headline(rig: &Rig, sub: &SubRigSolution) -> Headline {
     let available = given_quantity(rig, sub.solve_for);
     let (f, b) = (sub.forward.value, sub.back.value);
     let margin = available.and_then(|a| {
-        finite(if sub.drive_unknown() { a / f - 1.0 } else { f / a - 1.0 })
+        finite(if sub.drive_unknown() {
+            a / f - 1.0
+        } else {
+            f / a - 1.0
+        })
     });
     let moves = available.map(|a| if sub.drive_unknown() { a >= f } else { a <= f });
     Headline {
@@ -222,9 +227,18 @@ fn headline(rig: &Rig, sub: &SubRigSolution) -> Headline {
             unit: sub.quantity.si_unit(),
         },
         drive: rig.parts[sub.drive].name.clone(),
-        ideal: CaseHeadline { value: finite(sub.ideal.value), efficiency: None },
-        forward: CaseHeadline { value: finite(f), efficiency: sub.forward_efficiency() },
-        back: CaseHeadline { value: finite(b), efficiency: sub.back_efficiency() },
+        ideal: CaseHeadline {
+            value: finite(sub.ideal.value),
+            efficiency: None,
+        },
+        forward: CaseHeadline {
+            value: finite(f),
+            efficiency: sub.forward_efficiency(),
+        },
+        back: CaseHeadline {
+            value: finite(b),
+            efficiency: sub.back_efficiency(),
+        },
         self_locking: sub.self_locking(),
         velocity_ratio: sub.velocity_ratio,
         load_part: sub.load_part.map(|p| rig.parts[p].name.clone()),
@@ -256,7 +270,10 @@ impl Report {
             let sub = owner(rig, solution, l);
             let rope = rig.rope_of(l);
             for (j, span) in solution.geometry.lines[l].spans.iter().enumerate() {
-                let t = |c: Case| sub.and_then(|s| s.case(c).tension[l].get(j).copied()).and_then(finite);
+                let t = |c: Case| {
+                    sub.and_then(|s| s.case(c).tension[l].get(j).copied())
+                        .and_then(finite)
+                };
                 let (ti, tf, tb) = (t(Case::Ideal), t(Case::Forward), t(Case::Back));
                 let worst = [ti, tf, tb].into_iter().flatten().fold(0.0, Real::max);
                 spans.push(SpanReport {
@@ -265,7 +282,11 @@ impl Report {
                     from: rig.parts[line.path[j].part].name.clone(),
                     to: rig.parts[line.path[j + 1].part].name.clone(),
                     length_m: finite(span.length),
-                    tension_n: PerCase { ideal: ti, forward: tf, back: tb },
+                    tension_n: PerCase {
+                        ideal: ti,
+                        forward: tf,
+                        back: tb,
+                    },
                     safety_factor: rope.breaking_strength.and_then(|s| finite(s / worst)),
                     direction: [span.direction.x, span.direction.y, span.direction.z],
                 });
@@ -294,15 +315,26 @@ impl Report {
                         fleet_in_deg: g.fleet_in.map(Real::to_degrees),
                         fleet_out_deg: g.fleet_out.map(Real::to_degrees),
                         bend_ratio: g.bend_ratio,
-                        tension_ratio: ForwardBack { forward: ratio(Case::Forward), back: ratio(Case::Back) },
+                        tension_ratio: ForwardBack {
+                            forward: ratio(Case::Forward),
+                            back: ratio(Case::Back),
+                        },
                     });
                 }
             }
             let max = |f: &dyn Fn(&PassageReport) -> Option<Real>| {
-                passages.iter().filter_map(f).fold(None, |a: Option<Real>, x| Some(a.map_or(x, |a| a.max(x))))
+                passages
+                    .iter()
+                    .filter_map(f)
+                    .fold(None, |a: Option<Real>, x| Some(a.map_or(x, |a| a.max(x))))
             };
             let wrap_deg = max(&|p| p.wrap_deg);
-            let fleet_deg = max(&|p| p.fleet_in_deg.into_iter().chain(p.fleet_out_deg).reduce(Real::max));
+            let fleet_deg = max(&|p| {
+                p.fleet_in_deg
+                    .into_iter()
+                    .chain(p.fleet_out_deg)
+                    .reduce(Real::max)
+            });
             let bend_ratio = passages
                 .iter()
                 .filter_map(|p| p.bend_ratio)
@@ -313,7 +345,11 @@ impl Report {
                     let total = s.forward.total_loss();
                     let here = s.forward.loss[id];
                     (
-                        if total > 0.0 { finite(here / total) } else { Some(0.0) },
+                        if total > 0.0 {
+                            finite(here / total)
+                        } else {
+                            Some(0.0)
+                        },
                         finite(here / s.forward.drive_power),
                     )
                 }
@@ -365,7 +401,12 @@ impl Report {
             parts,
             drums,
             warnings,
-            subrigs: solution.subrigs.iter().skip(1).map(|s| headline(rig, s)).collect(),
+            subrigs: solution
+                .subrigs
+                .iter()
+                .skip(1)
+                .map(|s| headline(rig, s))
+                .collect(),
             caution: CAUTION,
         }
     }

@@ -13,7 +13,9 @@ use super::{Headline, Report, CAUTION};
 /// Formats a number with about `sig` significant figures, without exponent for the
 /// everyday range, and `—` for a missing value.
 pub fn number(x: Option<Real>, sig: usize) -> String {
-    let Some(x) = x.filter(|x| x.is_finite()) else { return "—".to_string() };
+    let Some(x) = x.filter(|x| x.is_finite()) else {
+        return "—".to_string();
+    };
     if x == 0.0 {
         return "0".to_string();
     }
@@ -57,7 +59,11 @@ fn write_headline(w: &mut dyn Write, h: &Headline, units: &UnitSystem) -> io::Re
         "Asked: the {} at `{}` (drive: `{}`)",
         h.solve_for.quantity, h.solve_for.part, h.drive
     )?;
-    writeln!(w, "  {:<12} {:>14} {:>14} {:>14}", "", "ideal", "forward", "back")?;
+    writeln!(
+        w,
+        "  {:<12} {:>14} {:>14} {:>14}",
+        "", "ideal", "forward", "back"
+    )?;
     writeln!(
         w,
         "  {:<12} {:>14} {:>14} {:>14}",
@@ -85,20 +91,40 @@ fn write_headline(w: &mut dyn Write, h: &Headline, units: &UnitSystem) -> io::Re
         }
     }
     let [lo, hi] = h.holding_band;
-    writeln!(w, "Holding band: friction alone holds the rig still between {} and {}.", q(lo), q(hi))?;
+    writeln!(
+        w,
+        "Holding band: friction alone holds the rig still between {} and {}.",
+        q(lo),
+        q(hi)
+    )?;
     if h.self_locking {
         writeln!(w, "Self-locking: yes; it will not run back by itself.")?;
     } else {
-        writeln!(w, "Self-locking: no; it runs back by itself below the back value.")?;
+        writeln!(
+            w,
+            "Self-locking: no; it runs back by itself below the back value."
+        )?;
     }
     if let Some(a) = h.available {
-        let what = if h.solve_for.part == h.drive { "available" } else { "stated" };
+        let what = if h.solve_for.part == h.drive {
+            "available"
+        } else {
+            "stated"
+        };
         let verdict = match h.moves {
             Some(true) => "the drive moves the rig",
             Some(false) => "THE DRIVE CANNOT MOVE THE RIG",
             None => "",
         };
-        writeln!(w, "{} {}: {}; {} (margin {})", capitalise(what), h.solve_for.quantity, q(Some(a)), verdict, percent(h.margin))?;
+        writeln!(
+            w,
+            "{} {}: {}; {} (margin {})",
+            capitalise(what),
+            h.solve_for.quantity,
+            q(Some(a)),
+            verdict,
+            percent(h.margin)
+        )?;
     }
     Ok(())
 }
@@ -121,14 +147,33 @@ pub fn write_check(w: &mut dyn Write, rig: &Rig, report: &Report, source: &str) 
     write_headline(w, &report.headline, units)?;
 
     // Largest losses, forward.
-    let mut losses: Vec<_> = report.parts.iter().filter(|p| p.loss_share.unwrap_or(0.0) > 0.0).collect();
-    losses.sort_by(|a, b| b.loss_share.unwrap_or(0.0).total_cmp(&a.loss_share.unwrap_or(0.0)));
+    let mut losses: Vec<_> = report
+        .parts
+        .iter()
+        .filter(|p| p.loss_share.unwrap_or(0.0) > 0.0)
+        .collect();
+    losses.sort_by(|a, b| {
+        b.loss_share
+            .unwrap_or(0.0)
+            .total_cmp(&a.loss_share.unwrap_or(0.0))
+    });
     if !losses.is_empty() {
         writeln!(w)?;
         writeln!(w, "Largest losses (forward):")?;
-        writeln!(w, "  {:<16} {:<8} {:>12} {:>12}", "part", "kind", "of losses", "of input")?;
+        writeln!(
+            w,
+            "  {:<16} {:<8} {:>12} {:>12}",
+            "part", "kind", "of losses", "of input"
+        )?;
         for p in losses.iter().take(8) {
-            writeln!(w, "  {:<16} {:<8} {:>12} {:>12}", p.name, p.kind, percent(p.loss_share), percent(p.loss_of_input))?;
+            writeln!(
+                w,
+                "  {:<16} {:<8} {:>12} {:>12}",
+                p.name,
+                p.kind,
+                percent(p.loss_share),
+                percent(p.loss_of_input)
+            )?;
         }
         if losses.len() > 8 {
             writeln!(w, "  ... and {} more (see `reeve table`)", losses.len() - 8)?;
@@ -138,7 +183,11 @@ pub fn write_check(w: &mut dyn Write, rig: &Rig, report: &Report, source: &str) 
         let t = |x| quantity(x, Dimension::Torque, units);
         writeln!(w)?;
         writeln!(w, "Drum torques (forward):")?;
-        writeln!(w, "  {:<16} {:>13} {:>13} {:>13} {:>13} {:>13}", "drum", "rope", "load", "drag", "journal", "thrust")?;
+        writeln!(
+            w,
+            "  {:<16} {:>13} {:>13} {:>13} {:>13} {:>13}",
+            "drum", "rope", "load", "drag", "journal", "thrust"
+        )?;
         for d in &report.drums {
             writeln!(
                 w,
@@ -160,7 +209,11 @@ pub fn write_check(w: &mut dyn Write, rig: &Rig, report: &Report, source: &str) 
 
     writeln!(w)?;
     writeln!(w, "Spans:")?;
-    writeln!(w, "  {:<10} {:>3}  {:<26} {:>12} {:>12} {:>12} {:>8}", "line", "#", "from → to", "length", "forward", "back", "safety")?;
+    writeln!(
+        w,
+        "  {:<10} {:>3}  {:<26} {:>12} {:>12} {:>12} {:>8}",
+        "line", "#", "from → to", "length", "forward", "back", "safety"
+    )?;
     for s in &report.spans {
         writeln!(
             w,
@@ -176,7 +229,11 @@ pub fn write_check(w: &mut dyn Write, rig: &Rig, report: &Report, source: &str) 
     }
     writeln!(w)?;
     writeln!(w, "Passages:")?;
-    writeln!(w, "  {:<16} {:<10} {:>9} {:>9} {:>9} {:>7} {:>9} {:>12}", "part", "line", "wrap °", "fleet in", "fleet out", "D/d", "ratio fwd", "pin load fwd")?;
+    writeln!(
+        w,
+        "  {:<16} {:<10} {:>9} {:>9} {:>9} {:>7} {:>9} {:>12}",
+        "part", "line", "wrap °", "fleet in", "fleet out", "D/d", "ratio fwd", "pin load fwd"
+    )?;
     for p in &report.parts {
         for pass in &p.passages {
             writeln!(

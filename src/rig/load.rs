@@ -117,6 +117,15 @@ pub fn load_str(text: &str, source: &str) -> Result<Rig, LoadError> {
     load_str_with(text, source, &[])
 }
 
+/// Reads a rig file and applies `KEY=VALUE` overrides (see [`load_str_with`]).
+///
+/// # Errors
+/// A [`LoadError`] naming every problem found, or an unknown override key.
+pub fn load_file_with(path: &Path, overrides: &[(String, String)]) -> Result<Rig, LoadError> {
+    let text = read_text(path)?;
+    load_str_with(&text, &path.display().to_string(), overrides)
+}
+
 /// Parses rig text, applies `KEY=VALUE` overrides addressed by the file's own keys
 /// (`parts.head.bearing.mu`, `parts.hook.load.mass` = `"60 kg"`, `ropes.braid6.mu`,
 /// `limits.fleet_angle`; a list item by its index, `gravity.2`), then resolves.
@@ -214,6 +223,7 @@ const TOP_KEYS: &[&str] = &[
     "lines",
     "drive",
     "solve_for",
+    "runs_back",
 ];
 const UNIT_KEYS: &[&str] = &["length", "force", "mass", "torque"];
 const LIMIT_KEYS: &[&str] = &["fleet_angle", "design_factor"];
@@ -1095,6 +1105,10 @@ fn resolve(root: &Node, source: &str) -> Result<Rig, Vec<Problem>> {
             }
         }
     };
+    let runs_back = match get(top, "runs_back") {
+        Some(n) => r.choice(n, "runs_back", &["false", "true"], "`runs_back`") == Some(1),
+        None => false,
+    };
     let solve_for = match get(top, "solve_for") {
         Some(n) => role(&mut r, n, "solve_for", &names),
         None => drive,
@@ -1146,6 +1160,7 @@ fn resolve(root: &Node, source: &str) -> Result<Rig, Vec<Problem>> {
             lines: lines.into_iter().collect::<Option<Vec<_>>>()?,
             drive: drive?,
             solve_for: solve_for?,
+            runs_back,
         })
     })();
     assembled.ok_or_else(|| {
@@ -1857,13 +1872,4 @@ solve_for: b
         assert_eq!((rig.drive, rig.solve_for), (3, 1));
         assert_eq!(rig.ropes[0].min_bend_ratio, 4.0);
     }
-}
-
-/// Reads a rig file and applies `KEY=VALUE` overrides before resolving.
-///
-/// # Errors
-/// A [`LoadError`] naming every problem found, or an unknown override key.
-pub fn load_file_with(path: &Path, overrides: &[(String, String)]) -> Result<Rig, LoadError> {
-    let _ = (path, overrides);
-    unimplemented!("overrides are being written")
 }

@@ -57,7 +57,10 @@ pub struct Limits {
 
 impl Default for Limits {
     fn default() -> Self {
-        Limits { fleet_angle: 1.5_f64.to_radians(), design_factor: 5.0 }
+        Limits {
+            fleet_angle: 1.5_f64.to_radians(),
+            design_factor: 5.0,
+        }
     }
 }
 

@@ -140,8 +140,22 @@ impl Kinematics {
             let mut rows = Vec::with_capacity(g.spans.len());
             for (j, span) in g.spans.iter().enumerate() {
                 let u = span.direction.into_inner();
-                let end = point_velocity_along(rig, &dofs, &dof_of_part, line.path[j + 1].part, &span.end, &u);
-                let start = point_velocity_along(rig, &dofs, &dof_of_part, line.path[j].part, &span.start, &u);
+                let end = point_velocity_along(
+                    rig,
+                    &dofs,
+                    &dof_of_part,
+                    line.path[j + 1].part,
+                    &span.end,
+                    &u,
+                );
+                let start = point_velocity_along(
+                    rig,
+                    &dofs,
+                    &dof_of_part,
+                    line.path[j].part,
+                    &span.start,
+                    &u,
+                );
                 rows.push(end - start);
             }
             span_rows.push(rows);
@@ -154,7 +168,11 @@ impl Kinematics {
             for (e, entry) in line.path.iter().enumerate().skip(1) {
                 let is_drum = matches!(rig.parts[entry.part].kind, PartKind::Drum(_));
                 if e == line.path.len() - 1 || is_drum {
-                    segments.push(Segment { line: l, first, last: e });
+                    segments.push(Segment {
+                        line: l,
+                        first,
+                        last: e,
+                    });
                     first = e;
                 }
             }
@@ -185,16 +203,22 @@ impl Kinematics {
                 .map(|(g, _)| g)
                 .collect();
             let names = |ids: &[usize]| -> Vec<String> {
-                ids.iter().map(|&i| rig.parts[dofs[i].part].name.clone()).collect()
+                ids.iter()
+                    .map(|&i| rig.parts[dofs[i].part].name.clone())
+                    .collect()
             };
             let null = null_space(&a, &rows, &cols, rank_tolerance);
             let drive = drives.get(c).copied().flatten();
             match (null.ncols(), drive) {
                 (0, _) => {
-                    return Err(SolveError::CannotMove { parts: names(&cols) });
+                    return Err(SolveError::CannotMove {
+                        parts: names(&cols),
+                    });
                 }
                 (_, None) => {
-                    return Err(SolveError::NoDrive { parts: names(&cols) });
+                    return Err(SolveError::NoDrive {
+                        parts: names(&cols),
+                    });
                 }
                 (k, Some(drive)) => {
                     let Some(d) = dof_of_part[drive] else {
@@ -252,7 +276,14 @@ impl Kinematics {
             }
         }
 
-        Ok(Kinematics { dofs, dof_of_part, segments, span_rows, forward, rope_speed })
+        Ok(Kinematics {
+            dofs,
+            dof_of_part,
+            segments,
+            span_rows,
+            forward,
+            rope_speed,
+        })
     }
 }
 

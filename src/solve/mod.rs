@@ -54,7 +54,10 @@ pub enum SolveError {
         parts: Vec<String>,
     },
     /// A sub-rig can move but nothing drives it.
-    #[error("{} can move but nothing drives them; add a haul end to that line or name it in `drive`", list(parts))]
+    #[error(
+        "{} can move but nothing drives them; add a haul end to that line or name it in `drive`",
+        list(parts)
+    )]
     NoDrive {
         /// The free parts.
         parts: Vec<String>,
@@ -82,7 +85,10 @@ pub enum SolveError {
         quantity: &'static str,
     },
     /// A sub-rig other than the main one has no single haul to drive it.
-    #[error("the sub-rig of {} is not connected to the drive and has no single haul end to drive it", list(parts))]
+    #[error(
+        "the sub-rig of {} is not connected to the drive and has no single haul end to drive it",
+        list(parts)
+    )]
     SubRigWithoutHaul {
         /// Its parts.
         parts: Vec<String>,
@@ -177,7 +183,11 @@ pub fn natural_quantity(rig: &Rig, part: PartId) -> Option<Quantity> {
         PartKind::Haul(_) => Some(Quantity::Force),
         PartKind::Weight(_) => Some(Quantity::Mass),
         PartKind::Drum(_) => Some(Quantity::Torque),
-        PartKind::Block(b) => Some(if b.load_is_force { Quantity::Force } else { Quantity::Mass }),
+        PartKind::Block(b) => Some(if b.load_is_force {
+            Quantity::Force
+        } else {
+            Quantity::Mass
+        }),
         _ => None,
     }
 }
@@ -298,7 +308,10 @@ pub fn solve(rig: &Rig, options: &SolveOptions) -> Result<Solution, SolveError> 
             .filter(|&p| {
                 matches!(
                     rig.parts[p].kind,
-                    PartKind::Block(_) | PartKind::Weight(_) | PartKind::Haul(_) | PartKind::Drum(_)
+                    PartKind::Block(_)
+                        | PartKind::Weight(_)
+                        | PartKind::Haul(_)
+                        | PartKind::Drum(_)
                 ) && rig.lines.iter().any(|l| l.path.iter().any(|e| e.part == p))
             })
             .collect();
@@ -326,16 +339,21 @@ pub fn solve(rig: &Rig, options: &SolveOptions) -> Result<Solution, SolveError> 
 
     let kinematics = Kinematics::build(rig, &network, &geometry, &drives, options.rank_tolerance)?;
 
-    let mut order: Vec<usize> = (0..network.components.len()).filter(|&c| drives[c].is_some()).collect();
+    let mut order: Vec<usize> = (0..network.components.len())
+        .filter(|&c| drives[c].is_some())
+        .collect();
     order.sort_by_key(|&c| (c != main_component, c));
     let mut subrigs = Vec::new();
     for c in order {
-        let (Some(drive), Some(solve_for)) = (drives[c], unknowns[c]) else { continue };
+        let (Some(drive), Some(solve_for)) = (drives[c], unknowns[c]) else {
+            continue;
+        };
         let quantity = natural_quantity(rig, solve_for).ok_or(SolveError::MissingQuantity {
             part: rig.parts[solve_for].name.clone(),
             quantity: "natural quantity (solve_for must be a haul, weight, block or drum)",
         })?;
-        let problem = statics::Problem::new(rig, &network, &geometry, &kinematics, c, drive, solve_for)?;
+        let problem =
+            statics::Problem::new(rig, &network, &geometry, &kinematics, c, drive, solve_for)?;
         let ideal = problem.solve(Case::Ideal, options)?;
         let forward = problem.solve(Case::Forward, options)?;
         let back = problem.solve(Case::Back, options)?;
@@ -369,7 +387,12 @@ pub fn solve(rig: &Rig, options: &SolveOptions) -> Result<Solution, SolveError> 
             load_part,
         });
     }
-    Ok(Solution { geometry, network, kinematics, subrigs })
+    Ok(Solution {
+        geometry,
+        network,
+        kinematics,
+        subrigs,
+    })
 }
 
 /// Resultant of a list of forces.

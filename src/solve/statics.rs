@@ -212,7 +212,13 @@ impl<'a> Problem<'a> {
                     }
                 }
                 PartKind::Drum(d) => {
-                    let forward_sign = if fwd > 0.0 { 1.0 } else if fwd < 0.0 { -1.0 } else { 0.0 };
+                    let forward_sign = if fwd > 0.0 {
+                        1.0
+                    } else if fwd < 0.0 {
+                        -1.0
+                    } else {
+                        0.0
+                    };
                     if part == drive {
                         // A driving drum's torque turns it forward (right-handed about its axle).
                         if unknown {
@@ -229,7 +235,18 @@ impl<'a> Problem<'a> {
                 _ => {}
             }
         }
-        Ok(Problem { rig, geometry, kin, solve_for, drive, dofs, segs, lines, q_load, x_coef })
+        Ok(Problem {
+            rig,
+            geometry,
+            kin,
+            solve_for,
+            drive,
+            dofs,
+            segs,
+            lines,
+            q_load,
+            x_coef,
+        })
     }
 
     /// Rope-on-surface friction for a part on a line.
@@ -257,7 +274,9 @@ impl<'a> Problem<'a> {
         let entry = &self.geometry.lines[line].entries[e];
         let part = &self.rig.parts[entry.part];
         let wrap = entry.wrap;
-        let Some(round) = part.kind.round() else { return (1.0, 0.0, false) };
+        let Some(round) = part.kind.round() else {
+            return (1.0, 0.0, false);
+        };
         let capstan = friction::capstan::capstan_ratio(
             self.surface_mu(line, entry.part),
             round.groove_angle,
@@ -287,7 +306,9 @@ impl<'a> Problem<'a> {
                         if weight.norm() == 0.0 {
                             return (orient(k0), 0.0, false);
                         }
-                        let Some(prev) = previous else { return (orient(k0), 0.0, false) };
+                        let Some(prev) = previous else {
+                            return (orient(k0), 0.0, false);
+                        };
                         let spans = &self.geometry.lines[line].spans;
                         let u_in = spans[e - 1].direction.into_inner();
                         let u_out = spans[e].direction.into_inner();
@@ -299,7 +320,8 @@ impl<'a> Problem<'a> {
                         };
                         match after {
                             Some(t) => {
-                                let (tight, slack) = if s > 0.0 { (t, before) } else { (before, t) };
+                                let (tight, slack) =
+                                    if s > 0.0 { (t, before) } else { (before, t) };
                                 if slack > 0.0 && tight / slack > capstan {
                                     (orient(capstan), 0.0, true)
                                 } else {
@@ -331,13 +353,22 @@ impl<'a> Problem<'a> {
     }
 
     /// Friction torques of a drum for given tensions: (drag, journal, thrust).
-    fn drum_friction(&self, part: PartId, forces: &[(Vector, crate::math::Point)]) -> (Real, Real, Real) {
-        let PartKind::Drum(d) = &self.rig.parts[part].kind else { return (0.0, 0.0, 0.0) };
+    fn drum_friction(
+        &self,
+        part: PartId,
+        forces: &[(Vector, crate::math::Point)],
+    ) -> (Real, Real, Real) {
+        let PartKind::Drum(d) = &self.rig.parts[part].kind else {
+            return (0.0, 0.0, 0.0);
+        };
         let mut journal = 0.0;
         let mut thrust = 0.0;
         if let Some(shaft) = &d.shaft {
             let axle = d.axle.into_inner();
-            let total = forces.iter().fold(gravity_force(self.rig, d.mass.unwrap_or(0.0)), |a, (f, _)| a + f);
+            let total = forces.iter().fold(
+                gravity_force(self.rig, d.mass.unwrap_or(0.0)),
+                |a, (f, _)| a + f,
+            );
             let radial = (total - axle * total.dot(&axle)).norm();
             journal = match friction::bearing_resistance(&shaft.bearing, false) {
                 BearingResistance::Free => 0.0,
@@ -398,7 +429,13 @@ impl<'a> Problem<'a> {
                         let (drag, journal, thrust) = self.drum_friction(part, f);
                         drum_friction[k] = (drag, journal, thrust);
                         let v = velocity[i];
-                        let s = if v > 1e-15 { 1.0 } else if v < -1e-15 { -1.0 } else { 0.0 };
+                        let s = if v > 1e-15 {
+                            1.0
+                        } else if v < -1e-15 {
+                            -1.0
+                        } else {
+                            0.0
+                        };
                         q[k] -= s * (drag + journal + thrust);
                     }
                 }
@@ -447,20 +484,46 @@ impl<'a> Problem<'a> {
                     tension[seg.line][j] = c * solution[col] + c0;
                 }
             }
-            let change = previous.as_ref().map(|p| relative_change(p, &tension, &self.lines));
+            let change = previous
+                .as_ref()
+                .map(|p| relative_change(p, &tension, &self.lines));
             let converged = !needs_iteration || change.is_some_and(|c| c <= options.tolerance);
-            outcome = Some((tension.clone(), solution[m - 1], stalled, drum_friction, rank < m));
+            outcome = Some((
+                tension.clone(),
+                solution[m - 1],
+                stalled,
+                drum_friction,
+                rank < m,
+            ));
             if converged {
-                status = Status::Converged { iterations: iteration };
+                status = Status::Converged {
+                    iterations: iteration,
+                };
                 break;
             }
-            status = Status::OutOfIterations { iterations: iteration, change: change.unwrap_or(Real::INFINITY) };
+            status = Status::OutOfIterations {
+                iterations: iteration,
+                change: change.unwrap_or(Real::INFINITY),
+            };
             previous = Some(tension);
         }
         let Some((tension, value, stalled, drum_friction, indeterminate)) = outcome else {
-            return Err(SolveError::NoEquilibrium { case: case.name(), residual: Real::NAN, hint: "no iteration ran" });
+            return Err(SolveError::NoEquilibrium {
+                case: case.name(),
+                residual: Real::NAN,
+                hint: "no iteration ran",
+            });
         };
-        Ok(self.finish(case, value, tension, stalled, drum_friction, indeterminate, status, &velocity))
+        Ok(self.finish(
+            case,
+            value,
+            tension,
+            stalled,
+            drum_friction,
+            indeterminate,
+            status,
+            &velocity,
+        ))
     }
 
     /// Whether any friction depends on the tensions themselves.
@@ -468,10 +531,16 @@ impl<'a> Problem<'a> {
         self.rig.parts.iter().any(|p| match &p.kind {
             PartKind::Sheave(s) => {
                 s.mass.unwrap_or(0.0) > 0.0
-                    && matches!(friction::bearing_resistance(&s.bearing, false), BearingResistance::FrictionCircle { .. })
+                    && matches!(
+                        friction::bearing_resistance(&s.bearing, false),
+                        BearingResistance::FrictionCircle { .. }
+                    )
             }
             PartKind::Drum(d) => d.shaft.as_ref().is_some_and(|s| {
-                !matches!(friction::bearing_resistance(&s.bearing, false), BearingResistance::Free)
+                !matches!(
+                    friction::bearing_resistance(&s.bearing, false),
+                    BearingResistance::Free
+                )
             }),
             _ => false,
         })
@@ -492,7 +561,8 @@ impl<'a> Problem<'a> {
         let rig = self.rig;
         let nparts = rig.parts.len();
         let mut loss = vec![0.0; nparts];
-        let mut ratio: Vec<Vec<Option<Real>>> = rig.lines.iter().map(|l| vec![None; l.path.len()]).collect();
+        let mut ratio: Vec<Vec<Option<Real>>> =
+            rig.lines.iter().map(|l| vec![None; l.path.len()]).collect();
         let mut slack = Vec::new();
         let mut slipping = Vec::new();
         for &l in &self.lines {
@@ -519,7 +589,12 @@ impl<'a> Problem<'a> {
                         entry.wrap,
                     );
                     if lo > 0.0 && hi / lo > limit * (1.0 + 1e-9) {
-                        slipping.push(Slip { line: l, entry: e, ratio: hi / lo, limit });
+                        slipping.push(Slip {
+                            line: l,
+                            entry: e,
+                            ratio: hi / lo,
+                            limit,
+                        });
                     }
                 } else {
                     let s = case.sign() * self.kin.rope_speed[l][e];
@@ -544,7 +619,11 @@ impl<'a> Problem<'a> {
         }
         let total_loss: Real = loss.iter().sum();
         let total_load: Real = load_power.iter().sum();
-        let scale = drive_power.abs().max(total_load.abs()).max(total_loss.abs()).max(1e-300);
+        let scale = drive_power
+            .abs()
+            .max(total_load.abs())
+            .max(total_loss.abs())
+            .max(1e-300);
         let audit_residual = (drive_power - total_load - total_loss).abs() / scale;
 
         // Pin loads and drum torques.
@@ -560,7 +639,9 @@ impl<'a> Problem<'a> {
                 PartKind::Drum(d) => d.mass.unwrap_or(0.0),
                 _ => 0.0,
             };
-            let total = forces[id].iter().fold(gravity_force(rig, own), |a, (f, _)| a + f);
+            let total = forces[id]
+                .iter()
+                .fold(gravity_force(rig, own), |a, (f, _)| a + f);
             pin_load[id] = Some(total);
             if let PartKind::Drum(d) = &part.kind {
                 let axle = d.axle.into_inner();
@@ -571,7 +652,8 @@ impl<'a> Problem<'a> {
                 let k = self.dofs.iter().position(|&i| self.kin.dofs[i].part == id);
                 let speed = self.kin.dof_of_part[id].map(|i| velocity[i]).unwrap_or(0.0);
                 let dir = if speed < 0.0 { -1.0 } else { 1.0 };
-                let (drag, journal, thrust) = k.map(|k| drum_friction[k]).unwrap_or((0.0, 0.0, 0.0));
+                let (drag, journal, thrust) =
+                    k.map(|k| drum_friction[k]).unwrap_or((0.0, 0.0, 0.0));
                 let load = if id == self.solve_for && id != self.drive {
                     value
                 } else if id == self.drive {
@@ -579,7 +661,9 @@ impl<'a> Problem<'a> {
                 } else {
                     d.torque.unwrap_or(0.0)
                 };
-                let fwd = self.kin.dof_of_part[id].map(|i| self.kin.forward[i]).unwrap_or(0.0);
+                let fwd = self.kin.dof_of_part[id]
+                    .map(|i| self.kin.forward[i])
+                    .unwrap_or(0.0);
                 drums[id] = Some(DrumTorques {
                     rope: torque * dir,
                     load: load * if fwd * speed >= 0.0 { 1.0 } else { -1.0 },
