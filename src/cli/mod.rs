@@ -129,10 +129,9 @@ pub fn run(cli: Cli) -> Result<i32, Failure> {
             let warnings = checks::run(&rig, &solution);
             let report = Report::build(&rig, &solution, warnings);
             if json {
-                write_out(|w| {
-                    serde_json::to_writer_pretty(&mut *w, &report).map_err(io::Error::other)?;
-                    writeln!(w)
-                })?;
+                let json = serde_json::to_string_pretty(&report)
+                    .map_err(|e| Failure::input(format!("cannot encode the report: {e}")))?;
+                write_out(|w| writeln!(w, "{json}"))?;
             } else {
                 write_out(|w| text::write_check(w, &rig, &report, &display(&args.rig)))?;
             }
