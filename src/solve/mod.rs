@@ -24,8 +24,14 @@ pub struct SolveOptions {
     pub tolerance: Real,
     /// Iteration cap of that fixed point (default 200).
     pub max_iterations: usize,
-    /// Relative singular-value threshold for rank decisions (default 1e-9).
+    /// Relative singular-value threshold for rank decisions in the statics (default 1e-9).
     pub rank_tolerance: Real,
+    /// Relative singular-value threshold below which a combination of line-length
+    /// constraints counts as a motion (default 1e-4). Nearly parallel lines that share
+    /// one block (the lift lines of a batten, a few milliradians apart) would lock the
+    /// rig if the rope were perfectly rigid; real rope takes up the misfit (here at most
+    /// 1e-4 of the travel) by stretch, so the rig moves.
+    pub motion_tolerance: Real,
     /// Geometry settings.
     pub geometry: GeometryOptions,
 }
@@ -36,6 +42,7 @@ impl Default for SolveOptions {
             tolerance: 1e-12,
             max_iterations: 200,
             rank_tolerance: 1e-9,
+            motion_tolerance: 1e-4,
             geometry: GeometryOptions::default(),
         }
     }
@@ -337,7 +344,7 @@ pub fn solve(rig: &Rig, options: &SolveOptions) -> Result<Solution, SolveError> 
         }
     }
 
-    let kinematics = Kinematics::build(rig, &network, &geometry, &drives, options.rank_tolerance)?;
+    let kinematics = Kinematics::build(rig, &network, &geometry, &drives, options.motion_tolerance)?;
 
     let mut order: Vec<usize> = (0..network.components.len())
         .filter(|&c| drives[c].is_some())
