@@ -39,7 +39,10 @@ use crate::math::Real;
 /// axle friction"; Meriam & Kraige, *Engineering Mechanics: Statics*, §6/7 "Journal
 /// bearings".
 pub fn friction_circle_radius(pin_radius: Real, mu: Real) -> Real {
-    debug_assert!(pin_radius >= 0.0, "pin radius must be ≥ 0, got {pin_radius}");
+    debug_assert!(
+        pin_radius >= 0.0,
+        "pin radius must be ≥ 0, got {pin_radius}"
+    );
     debug_assert!(mu >= 0.0, "coefficient of friction must be ≥ 0, got {mu}");
     // `max` maps NaN to 0 as well as clamping negatives.
     let pin_radius = pin_radius.max(0.0);
@@ -58,10 +61,18 @@ mod tests {
 
     #[test]
     fn matches_trigonometric_form() {
-        for &(r, mu) in &[(0.005_f64, 0.12_f64), (0.0127, 0.2), (1.0, 1.0), (0.3, 0.05)] {
+        for &(r, mu) in &[
+            (0.005_f64, 0.12_f64),
+            (0.0127, 0.2),
+            (1.0, 1.0),
+            (0.3, 0.05),
+        ] {
             let expected = r * mu.atan().sin();
             let r_f = friction_circle_radius(r, mu);
-            assert!((r_f - expected).abs() < 1e-15, "r = {r}, mu = {mu}: {r_f} vs {expected}");
+            assert!(
+                (r_f - expected).abs() < 1e-15,
+                "r = {r}, mu = {mu}: {r_f} vs {expected}"
+            );
         }
     }
 

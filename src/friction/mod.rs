@@ -157,7 +157,11 @@ impl BearingResistance {
 pub fn bearing_resistance(bearing: &Bearing, use_static: bool) -> BearingResistance {
     match *bearing {
         Bearing::None => BearingResistance::Free,
-        Bearing::Plain { pin_diameter, mu, mu_static } => {
+        Bearing::Plain {
+            pin_diameter,
+            mu,
+            mu_static,
+        } => {
             let mu = match (use_static, mu_static) {
                 (true, Some(mu_static)) => mu_static,
                 _ => mu,
@@ -200,13 +204,13 @@ pub fn bearing_resistance(bearing: &Bearing, use_static: bool) -> BearingResista
 ///
 /// # Example
 /// Rated sheave `K = 1.09` (`ρ = 0.09/2.09`): `k(180°) = 1.09`, and at 90°
-/// `k = 1.062 805`.
+/// `k = 1.062 842`.
 /// ```
 /// use reeve::friction::sheave_ratio;
 /// use std::f64::consts::PI;
 /// let rho = 0.09 / 2.09;
 /// assert!((sheave_ratio(rho, PI) - 1.09).abs() < 1e-12);
-/// assert!((sheave_ratio(rho, PI / 2.0) - 1.062_805).abs() < 1e-6);
+/// assert!((sheave_ratio(rho, PI / 2.0) - 1.062_842).abs() < 1e-6);
 /// ```
 ///
 /// # Source
@@ -296,7 +300,11 @@ pub fn tight_tension(
         let norm = pin.norm();
         // Where the pin load passes through zero the derivative jumps; any value in
         // [R − r_f, R + r_f] is a valid slope for the safeguarded step.
-        let slope = if norm > 0.0 { r - r_f * u.dot(&pin) / norm } else { r };
+        let slope = if norm > 0.0 {
+            r - r_f * u.dot(&pin) / norm
+        } else {
+            r
+        };
         ((t - slack) * r - r_f * norm, slope)
     };
     let upper = (slack * r + r_f * c.norm()) / (r - r_f);
@@ -361,7 +369,11 @@ pub fn slack_tension(
     let minus_q = |s: Real| -> (Real, Real) {
         let pin = s * u + c;
         let norm = pin.norm();
-        let slope = if norm > 0.0 { r + r_f * u.dot(&pin) / norm } else { r };
+        let slope = if norm > 0.0 {
+            r + r_f * u.dot(&pin) / norm
+        } else {
+            r
+        };
         (r_f * norm - (tight - s) * r, slope)
     };
     if minus_q(0.0).0 > 0.0 {
@@ -399,7 +411,10 @@ pub fn slack_tension(
 /// Work–energy balance of the part: the rope does `T_t s − T_s s` of work on it, and a
 /// part in steady motion stores none.
 pub fn passage_dissipation(tight: Real, slack: Real, rope_speed: Real) -> Real {
-    debug_assert!(tight >= slack - 1e-9 * tight.abs().max(1.0), "tight {tight} < slack {slack}");
+    debug_assert!(
+        tight >= slack - 1e-9 * tight.abs().max(1.0),
+        "tight {tight} < slack {slack}"
+    );
     (tight - slack) * rope_speed.abs()
 }
 
@@ -455,7 +470,13 @@ impl Balance {
         }
         let u_tight = u_tight.try_normalize(0.0)?;
         let u_slack = u_slack.try_normalize(0.0)?;
-        Some(Balance { u_tight, u_slack, weight: *weight, r_f: friction_radius, r: pitch_radius })
+        Some(Balance {
+            u_tight,
+            u_slack,
+            weight: *weight,
+            r_f: friction_radius,
+            r: pitch_radius,
+        })
     }
 }
 
@@ -538,7 +559,10 @@ mod tests {
         for &rho in &[1e-6, 0.01, 0.1, 0.5, 0.9, 0.999] {
             let k = sheave_ratio(rho, PI);
             let closed = (1.0 + rho) / (1.0 - rho);
-            assert!((k - closed).abs() < 1e-12 * closed, "rho {rho}: {k} vs {closed}");
+            assert!(
+                (k - closed).abs() < 1e-12 * closed,
+                "rho {rho}: {k} vs {closed}"
+            );
         }
     }
 
@@ -549,7 +573,10 @@ mod tests {
                 let k = sheave_ratio(rho, phi);
                 let b = (1.0 - rho * rho * phi.cos()) / (1.0 - rho * rho);
                 // Roots of k² − 2bk + 1 = 0: k and 1/k.
-                assert!((k * k - 2.0 * b * k + 1.0).abs() < 1e-12 * k * k, "{rho} {phi}");
+                assert!(
+                    (k * k - 2.0 * b * k + 1.0).abs() < 1e-12 * k * k,
+                    "{rho} {phi}"
+                );
                 let other = b - (b * b - 1.0).max(0.0).sqrt();
                 assert!((k * other - 1.0).abs() < 1e-9, "{rho} {phi}: {k} × {other}");
             }
@@ -564,9 +591,15 @@ mod tests {
                 let r = 0.05;
                 let k = sheave_ratio(rho, phi);
                 let t = tight_tension(100.0, &u_t, &u_s, &Vector::zeros(), rho * r, r).unwrap();
-                assert!((t / 100.0 - k).abs() < 1e-12 * k, "rho {rho} phi {phi}: {t} vs {k}");
+                assert!(
+                    (t / 100.0 - k).abs() < 1e-12 * k,
+                    "rho {rho} phi {phi}: {t} vs {k}"
+                );
                 let s = slack_tension(100.0, &u_t, &u_s, &Vector::zeros(), rho * r, r).unwrap();
-                assert!((100.0 / s - k).abs() < 1e-12 * k, "rho {rho} phi {phi}: {s}");
+                assert!(
+                    (100.0 / s - k).abs() < 1e-12 * k,
+                    "rho {rho} phi {phi}: {s}"
+                );
             }
         }
     }
@@ -586,7 +619,10 @@ mod tests {
                 let pin = (t * u_t + slack * u_s + w).norm();
                 assert!(((t - slack) * 0.03 - 0.004 * pin).abs() < 1e-12 * (1.0 + t));
                 let back = slack_tension(t, &u_t, &u_s, &w, 0.004, 0.03).unwrap();
-                assert!((back - slack).abs() < 1e-9 * (1.0 + slack), "{w:?} {slack}: {back}");
+                assert!(
+                    (back - slack).abs() < 1e-9 * (1.0 + slack),
+                    "{w:?} {slack}: {back}"
+                );
             }
         }
     }
@@ -604,14 +640,25 @@ mod tests {
         assert!((t - 2.5).abs() < 1e-12, "{t}");
         // A tight side too small to overcome the weight's friction has no slack answer.
         assert_eq!(slack_tension(2.0, &u_t, &u_s, &w, 0.01, 0.05), None);
-        assert!(slack_tension(2.5, &u_t, &u_s, &w, 0.01, 0.05).unwrap().abs() < 1e-9);
+        assert!(
+            slack_tension(2.5, &u_t, &u_s, &w, 0.01, 0.05)
+                .unwrap()
+                .abs()
+                < 1e-9
+        );
         // Cannot turn, bad numbers.
         assert_eq!(tight_tension(1.0, &u_t, &u_s, &zero, 0.05, 0.05), None);
-        assert_eq!(tight_tension(Real::NAN, &u_t, &u_s, &zero, 0.01, 0.05), None);
+        assert_eq!(
+            tight_tension(Real::NAN, &u_t, &u_s, &zero, 0.01, 0.05),
+            None
+        );
         assert_eq!(tight_tension(-1.0, &u_t, &u_s, &zero, 0.01, 0.05), None);
         assert_eq!(tight_tension(1.0, &zero, &u_s, &zero, 0.01, 0.05), None);
         assert_eq!(tight_tension(1.0, &u_t, &u_s, &zero, 0.01, 0.0), None);
-        assert_eq!(slack_tension(Real::INFINITY, &u_t, &u_s, &zero, 0.01, 0.05), None);
+        assert_eq!(
+            slack_tension(Real::INFINITY, &u_t, &u_s, &zero, 0.01, 0.05),
+            None
+        );
         // Frictionless: unchanged.
         assert_eq!(tight_tension(7.0, &u_t, &u_s, &w, 0.0, 0.05), Some(7.0));
     }
@@ -623,7 +670,10 @@ mod tests {
         for &rho in &[0.99, 0.999_999] {
             let t = tight_tension(1.0, &u_t, &u_s, &Vector::zeros(), rho * r, r).unwrap();
             let k = sheave_ratio(rho, PI);
-            assert!(t.is_finite() && (t - k).abs() < 1e-6 * k, "rho {rho}: {t} vs {k}");
+            assert!(
+                t.is_finite() && (t - k).abs() < 1e-6 * k,
+                "rho {rho}: {t} vs {k}"
+            );
         }
     }
 
@@ -640,21 +690,39 @@ mod tests {
 
     #[test]
     fn bearing_reductions() {
-        assert_eq!(bearing_resistance(&Bearing::None, false), BearingResistance::Free);
-        let rolling = Bearing::Rolling { bore: 0.01, mu: 0.0015 };
+        assert_eq!(
+            bearing_resistance(&Bearing::None, false),
+            BearingResistance::Free
+        );
+        let rolling = Bearing::Rolling {
+            bore: 0.01,
+            mu: 0.0015,
+        };
         assert_eq!(
             bearing_resistance(&rolling, true),
-            BearingResistance::FrictionCircle { radius: 0.0015 * 0.01 / 2.0 }
+            BearingResistance::FrictionCircle {
+                radius: 0.0015 * 0.01 / 2.0
+            }
         );
         match bearing_resistance(&Bearing::Rated { factor: 1.09 }, false) {
             BearingResistance::Rated { rho } => assert!((rho - 0.09 / 2.09).abs() < 1e-15),
             other => panic!("{other:?}"),
         }
         // No static coefficient: breakaway uses the kinetic one.
-        let plain = Bearing::Plain { pin_diameter: 0.01, mu: 0.1, mu_static: None };
-        assert_eq!(bearing_resistance(&plain, true), bearing_resistance(&plain, false));
+        let plain = Bearing::Plain {
+            pin_diameter: 0.01,
+            mu: 0.1,
+            mu_static: None,
+        };
+        assert_eq!(
+            bearing_resistance(&plain, true),
+            bearing_resistance(&plain, false)
+        );
         assert_eq!(BearingResistance::Free.rho(0.05), 0.0);
-        assert_eq!(BearingResistance::FrictionCircle { radius: 0.001 }.rho(0.0), Real::INFINITY);
+        assert_eq!(
+            BearingResistance::FrictionCircle { radius: 0.001 }.rho(0.0),
+            Real::INFINITY
+        );
     }
 
     #[test]

@@ -95,8 +95,16 @@ pub fn effective_radius(thrust: &Thrust) -> Real {
 /// 8.96 (conical bearing, uniform pressure: `M = (2/3) μ P (R₂³ − R₁³)/((R₂² − R₁²)
 /// sin θ)`).
 pub fn moment(thrust: &Thrust) -> Real {
-    debug_assert!(thrust.load >= 0.0, "thrust load must be ≥ 0, got {}", thrust.load);
-    debug_assert!(thrust.mu >= 0.0, "coefficient of friction must be ≥ 0, got {}", thrust.mu);
+    debug_assert!(
+        thrust.load >= 0.0,
+        "thrust load must be ≥ 0, got {}",
+        thrust.load
+    );
+    debug_assert!(
+        thrust.mu >= 0.0,
+        "coefficient of friction must be ≥ 0, got {}",
+        thrust.mu
+    );
     let load = thrust.load.max(0.0);
     let mu = thrust.mu.max(0.0);
     let sin_alpha = match thrust.cone_angle {
@@ -140,7 +148,14 @@ mod tests {
     use super::*;
 
     fn face(diameter: Real, inner_diameter: Real, contact: Contact) -> Thrust {
-        Thrust { load: 100.0, diameter, inner_diameter, mu: 0.1, contact, cone_angle: None }
+        Thrust {
+            load: 100.0,
+            diameter,
+            inner_diameter,
+            mu: 0.1,
+            contact,
+            cone_angle: None,
+        }
     }
 
     #[test]
