@@ -344,7 +344,8 @@ pub fn solve(rig: &Rig, options: &SolveOptions) -> Result<Solution, SolveError> 
         }
     }
 
-    let kinematics = Kinematics::build(rig, &network, &geometry, &drives, options.motion_tolerance)?;
+    let kinematics =
+        Kinematics::build(rig, &network, &geometry, &drives, options.motion_tolerance)?;
 
     let mut order: Vec<usize> = (0..network.components.len())
         .filter(|&c| drives[c].is_some())
