@@ -7,8 +7,8 @@ use proptest::prelude::*;
 use reeve::geometry::{compute, Geometry, GeometryError, GeometryOptions, LineGeometry};
 use reeve::math::{Direction, Point, Real, Vector};
 use reeve::rig::model::{
-    Bearing, Block, Drum, Guide, Haul, Limits, Line, Location, Part, PartId, PartKind,
-    PathEntry, Rig, Rope, RopeKind, Sheave, Side, Weight,
+    Bearing, Block, Drum, Guide, Haul, Limits, Line, Location, Part, PartId, PartKind, PathEntry,
+    Rig, Rope, RopeKind, Sheave, Side, Weight,
 };
 use reeve::units::UnitSystem;
 
@@ -33,7 +33,14 @@ fn anchor(name: &str, at: [Real; 3]) -> Part {
 }
 
 fn haul(name: &str, at: [Real; 3]) -> Part {
-    part(name, at, PartKind::Haul(Haul { pull: None, force: None }))
+    part(
+        name,
+        at,
+        PartKind::Haul(Haul {
+            pull: None,
+            force: None,
+        }),
+    )
 }
 
 fn weight(name: &str, at: [Real; 3]) -> Part {
@@ -80,7 +87,16 @@ fn carried_sheave(
 }
 
 fn guide(name: &str, at: [Real; 3], axle: Direction, diameter: Real) -> Part {
-    part(name, at, PartKind::Guide(Guide { axle, diameter, mu: None, groove_angle: None }))
+    part(
+        name,
+        at,
+        PartKind::Guide(Guide {
+            axle,
+            diameter,
+            mu: None,
+            groove_angle: None,
+        }),
+    )
 }
 
 fn drum(name: &str, at: [Real; 3], axle: Direction, diameter: Real) -> Part {
@@ -101,15 +117,26 @@ fn drum(name: &str, at: [Real; 3], axle: Direction, diameter: Real) -> Part {
 
 /// One path entry: part index, extra turns, explicit side.
 fn entry(part: PartId) -> PathEntry {
-    PathEntry { part, turns: 0, side: None, location: Location::default() }
+    PathEntry {
+        part,
+        turns: 0,
+        side: None,
+        location: Location::default(),
+    }
 }
 
 fn sided(part: PartId, side: Side) -> PathEntry {
-    PathEntry { side: Some(side), ..entry(part) }
+    PathEntry {
+        side: Some(side),
+        ..entry(part)
+    }
 }
 
 fn turned(part: PartId, turns: u32) -> PathEntry {
-    PathEntry { turns, ..entry(part) }
+    PathEntry {
+        turns,
+        ..entry(part)
+    }
 }
 
 /// A rig with one rope of diameter `rope_diameter` and the given parts and line paths.
@@ -157,17 +184,24 @@ fn assert_consistent(rig: &Rig, line: &LineGeometry) {
     for (i, span) in line.spans.iter().enumerate() {
         assert!(span.length > 0.0 && span.length.is_finite());
         assert!(((span.end - span.start).norm() - span.length).abs() < 1e-12);
-        for (entry, point, arriving) in
-            [(&line.entries[i], span.start, false), (&line.entries[i + 1], span.end, true)]
-        {
+        for (entry, point, arriving) in [
+            (&line.entries[i], span.start, false),
+            (&line.entries[i + 1], span.end, true),
+        ] {
             let Some(round) = rig.parts[entry.part].kind.round() else {
                 assert!((point - entry.centre).norm() < 1e-12);
                 continue;
             };
             let radial = point - entry.centre;
             let r = entry.pitch_radius;
-            assert!((radial.norm() - r).abs() < 1e-9 * r, "tangent point off the circle");
-            assert!(radial.dot(&round.axle).abs() < 1e-9 * r, "tangent point off the plane");
+            assert!(
+                (radial.norm() - r).abs() < 1e-9 * r,
+                "tangent point off the circle"
+            );
+            assert!(
+                radial.dot(&round.axle).abs() < 1e-9 * r,
+                "tangent point off the plane"
+            );
             assert!(
                 span.direction.dot(&radial).abs() < 1e-9 * r,
                 "span not perpendicular to the radius at `{}` ({})",
@@ -176,7 +210,10 @@ fn assert_consistent(rig: &Rig, line: &LineGeometry) {
             );
             let sense = entry.sense.expect("round parts have a sense");
             let rope = round.axle.cross(&radial) * sense / r;
-            assert!(span.direction.dot(&rope) > 0.0, "rope runs against its sense");
+            assert!(
+                span.direction.dot(&rope) > 0.0,
+                "rope runs against its sense"
+            );
         }
     }
     for e in &line.entries {
@@ -223,7 +260,10 @@ fn half_wrap_over_a_sheave_with_parallel_spans() {
     assert!((line.spans[0].end - Point::new(-0.03, 0.0, 1.0)).norm() < 1e-12);
     // Point ends: no sense, no wrap, no fleet angle, no bend ratio.
     for end in [&line.entries[0], &line.entries[2]] {
-        assert_eq!((end.sense, end.wrap, end.fleet_in, end.bend_ratio), (None, 0.0, None, None));
+        assert_eq!(
+            (end.sense, end.wrap, end.fleet_in, end.bend_ratio),
+            (None, 0.0, None, None)
+        );
     }
 }
 
@@ -286,16 +326,37 @@ fn external_and_crossed_spans_between_two_sheaves() {
             weight("w", [1.03, 0.0, far_end_z]),
         ]
     };
-    let over = rig(0.006, parts(-2.0), vec![vec![entry(0), entry(1), entry(2), entry(3)]]);
+    let over = rig(
+        0.006,
+        parts(-2.0),
+        vec![vec![entry(0), entry(1), entry(2), entry(3)]],
+    );
     let g = geometry(&over);
-    close(g.lines[0].spans[1].length, (1.0 - 0.02f64.powi(2)).sqrt(), 1e-12, "external");
+    close(
+        g.lines[0].spans[1].length,
+        (1.0 - 0.02f64.powi(2)).sqrt(),
+        1e-12,
+        "external",
+    );
     assert_eq!(g.lines[0].entries[1].sense, g.lines[0].entries[2].sense);
     // Over `a`, then under `b` and up: opposite senses, crossed tangent
     // √(D² − (R₁ + R₂)²) = √(1 − 0.08²) (hand calculation).
-    let crossed = rig(0.006, parts(2.0), vec![vec![entry(0), entry(1), entry(2), entry(3)]]);
+    let crossed = rig(
+        0.006,
+        parts(2.0),
+        vec![vec![entry(0), entry(1), entry(2), entry(3)]],
+    );
     let g = geometry(&crossed);
-    close(g.lines[0].spans[1].length, (1.0 - 0.08f64.powi(2)).sqrt(), 1e-12, "crossed");
-    assert_eq!(g.lines[0].entries[1].sense, Some(-g.lines[0].entries[2].sense.unwrap()));
+    close(
+        g.lines[0].spans[1].length,
+        (1.0 - 0.08f64.powi(2)).sqrt(),
+        1e-12,
+        "crossed",
+    );
+    assert_eq!(
+        g.lines[0].entries[1].sense,
+        Some(-g.lines[0].entries[2].sense.unwrap())
+    );
 }
 
 #[test]
@@ -329,9 +390,16 @@ fn drum_at_a_line_end_and_turns_on_a_guide() {
         guide("bar", [1.0, 0.0, 1.0], dir(0.0, 1.0, 0.0), 0.054),
         weight("w", [1.03, 0.0, -1.0]),
     ];
-    let left = rig(0.006, parts.clone(), vec![vec![turned(0, 3), turned(1, 2), entry(2)]]);
-    let right =
-        rig(0.006, parts, vec![vec![sided(0, Side::Right), turned(1, 2), entry(2)]]);
+    let left = rig(
+        0.006,
+        parts.clone(),
+        vec![vec![turned(0, 3), turned(1, 2), entry(2)]],
+    );
+    let right = rig(
+        0.006,
+        parts,
+        vec![vec![sided(0, Side::Right), turned(1, 2), entry(2)]],
+    );
     let gl = geometry(&left);
     let gr = geometry(&right);
     let (winch_l, winch_r) = (&gl.lines[0].entries[0], &gr.lines[0].entries[0]);
@@ -340,11 +408,26 @@ fn drum_at_a_line_end_and_turns_on_a_guide() {
     assert_eq!(winch_l.wrap, 0.0);
     assert_eq!(winch_l.turns, 3);
     assert!(winch_l.fleet_in.is_none() && winch_l.fleet_out.is_some());
-    close(winch_l.bend_ratio.unwrap(), 94.0 / 6.0, 1e-12, "drum bend ratio");
+    close(
+        winch_l.bend_ratio.unwrap(),
+        94.0 / 6.0,
+        1e-12,
+        "drum bend ratio",
+    );
     // Left and right leave from opposite sides of the drum: external vs crossed tangent
     // to the guide (R₁ = 0.05, R₂ = 0.03, D = √2; hand calculation).
-    close(gl.lines[0].spans[0].length, (2.0 - 0.02f64.powi(2)).sqrt(), 1e-12, "left lead");
-    close(gr.lines[0].spans[0].length, (2.0 - 0.08f64.powi(2)).sqrt(), 1e-12, "right lead");
+    close(
+        gl.lines[0].spans[0].length,
+        (2.0 - 0.02f64.powi(2)).sqrt(),
+        1e-12,
+        "left lead",
+    );
+    close(
+        gr.lines[0].spans[0].length,
+        (2.0 - 0.08f64.powi(2)).sqrt(),
+        1e-12,
+        "right lead",
+    );
     // Two extra turns on the guide add 4π to the wrap measured between tangent points.
     let bar = &gl.lines[0].entries[1];
     assert_eq!(bar.turns, 2);
@@ -362,15 +445,31 @@ fn block_end_is_its_point_and_carried_sheave_its_own_centre() {
         vec![
             anchor("eye", [-0.03, 0.0, 2.0]),
             block("hook", [0.0, 0.0, 1.0]),
-            carried_sheave("hook.a", [0.0, 0.0, 0.9], dir(0.0, 1.0, 0.0), 0.054, Some(1)),
+            carried_sheave(
+                "hook.a",
+                [0.0, 0.0, 0.9],
+                dir(0.0, 1.0, 0.0),
+                0.054,
+                Some(1),
+            ),
             anchor("top", [0.03, 0.0, 2.0]),
             anchor("stay", [0.0, 0.0, 3.0]),
         ],
         vec![vec![entry(0), entry(2), entry(3)], vec![entry(1), entry(4)]],
     );
     let g = geometry(&r);
-    close(g.lines[0].entries[1].wrap, PI, 1e-12, "wrap under the carried sheave");
-    close(g.lines[0].spans[0].length, 1.1, 1e-12, "to the carried sheave");
+    close(
+        g.lines[0].entries[1].wrap,
+        PI,
+        1e-12,
+        "wrap under the carried sheave",
+    );
+    close(
+        g.lines[0].spans[0].length,
+        1.1,
+        1e-12,
+        "to the carried sheave",
+    );
     assert!((g.lines[1].spans[0].start - Point::new(0.0, 0.0, 1.0)).norm() < 1e-15);
     close(g.lines[1].spans[0].length, 2.0, 1e-15, "block to stay");
 }
@@ -394,7 +493,12 @@ fn explicit_side_settles_a_straight_path() {
     assert_eq!(entry.sense, Some(-1.0));
     close(entry.wrap, 2.0 * 0.03f64.asin(), 1e-12, "wrap");
     // Tangent length from a point 1 m off: √(1 − R²) (hand calculation).
-    close(g.lines[0].spans[0].length, (1.0 - 0.03f64.powi(2)).sqrt(), 1e-12, "lead");
+    close(
+        g.lines[0].spans[0].length,
+        (1.0 - 0.03f64.powi(2)).sqrt(),
+        1e-12,
+        "lead",
+    );
 }
 
 // ---------------------------------------------------------------------------------------
@@ -408,18 +512,17 @@ fn on_circle(c: &Point, e1: &Vector, e2: &Vector, r: Real, theta: Real) -> Point
 /// Independent solve: grid search over both angles for the two perpendicularity
 /// conditions with the rope running each circle's way, then Newton with a
 /// finite-difference Jacobian. Written without the library's tangent code.
+/// Each circle is (centre, axle, pitch radius, sense).
 fn skew_tangent_by_newton(
-    c1: Point,
-    a1: Vector,
-    r1: Real,
-    s1: Real,
-    c2: Point,
-    a2: Vector,
-    r2: Real,
-    s2: Real,
+    (c1, a1, r1, s1): (Point, Vector, Real, Real),
+    (c2, a2, r2, s2): (Point, Vector, Real, Real),
 ) -> (Point, Point) {
     let frame = |a: &Vector| {
-        let seed = if a.x.abs() < 0.9 { Vector::x() } else { Vector::y() };
+        let seed = if a.x.abs() < 0.9 {
+            Vector::x()
+        } else {
+            Vector::y()
+        };
         let e1 = (seed - a * a.dot(&seed)).normalize();
         (e1, a.cross(&e1))
     };
@@ -440,7 +543,10 @@ fn skew_tangent_by_newton(
     let mut best = (Real::INFINITY, 0.0, 0.0);
     for i in 0..steps {
         for j in 0..steps {
-            let (x, y) = (TAU * i as Real / steps as Real, TAU * j as Real / steps as Real);
+            let (x, y) = (
+                TAU * i as Real / steps as Real,
+                TAU * j as Real / steps as Real,
+            );
             let (p, q, _, _) = residual(x, y);
             let size = p.abs() + q.abs();
             if size < best.0 && running_right(x, y) {
@@ -483,19 +589,21 @@ fn skew_pair_matches_an_independent_newton_solve() {
     );
     let g = geometry(&r);
     let line = &g.lines[0];
-    let (sa, sb) = (line.entries[1].sense.unwrap(), line.entries[2].sense.unwrap());
+    let (sa, sb) = (
+        line.entries[1].sense.unwrap(),
+        line.entries[2].sense.unwrap(),
+    );
     let (t1, t2) = skew_tangent_by_newton(
-        Point::origin(),
-        axle_a.into_inner(),
-        0.05,
-        sa,
-        Point::new(1.2, 0.4, 1.0),
-        axle_b.into_inner(),
-        0.03,
-        sb,
+        (Point::origin(), axle_a.into_inner(), 0.05, sa),
+        (Point::new(1.2, 0.4, 1.0), axle_b.into_inner(), 0.03, sb),
     );
     let span = &line.spans[1];
-    assert!((span.start - t1).norm() < 1e-9, "start {} vs {}", span.start, t1);
+    assert!(
+        (span.start - t1).norm() < 1e-9,
+        "start {} vs {}",
+        span.start,
+        t1
+    );
     assert!((span.end - t2).norm() < 1e-9, "end {} vs {}", span.end, t2);
     // Non-coplanar for real: the span leaves the guide's plane at an angle.
     assert!(line.entries[2].fleet_in.unwrap() > 0.05);
@@ -524,18 +632,39 @@ fn error_of(rig: &Rig) -> GeometryError {
 fn point_inside_the_pitch_circle() {
     // The anchor sits 0.01 m from the centre in the sheave's plane projection (it is
     // 0.5 m along the axle, which does not help): inside R = 0.03.
-    let r = straight([[0.01, 0.5, 0.0], [0.0, 0.0, 0.0], [1.0, 0.0, 1.0]], 0.054, None);
+    let r = straight(
+        [[0.01, 0.5, 0.0], [0.0, 0.0, 0.0], [1.0, 0.0, 1.0]],
+        0.054,
+        None,
+    );
     let e = error_of(&r);
     assert_eq!(
         e,
-        GeometryError::InsideCircle { line: "line0".into(), part: "s".into(), point: "a".into() }
+        GeometryError::InsideCircle {
+            line: "line0".into(),
+            part: "s".into(),
+            point: "a".into()
+        }
     );
-    assert!(e.to_string().contains("inside the pitch circle of `s`"), "{e}");
+    assert!(
+        e.to_string().contains("inside the pitch circle of `s`"),
+        "{e}"
+    );
     // Exactly on the circle has no tangent either.
-    let r = straight([[-1.0, 0.0, 0.0], [0.0, 0.0, 0.0], [0.03, 0.0, 0.0]], 0.054, None);
-    let r = rig(0.006, r.parts, vec![vec![entry(0), sided(1, Side::Left), entry(2)]]);
-    assert!(matches!(error_of(&r), GeometryError::InsideCircle { part, point, .. }
-        if part == "s" && point == "b"));
+    let r = straight(
+        [[-1.0, 0.0, 0.0], [0.0, 0.0, 0.0], [0.03, 0.0, 0.0]],
+        0.054,
+        None,
+    );
+    let r = rig(
+        0.006,
+        r.parts,
+        vec![vec![entry(0), sided(1, Side::Left), entry(2)]],
+    );
+    assert!(
+        matches!(error_of(&r), GeometryError::InsideCircle { part, point, .. }
+        if part == "s" && point == "b")
+    );
 }
 
 #[test]
@@ -550,17 +679,30 @@ fn overlapping_sheaves_have_no_crossed_tangent() {
             sheave("b", [0.06, 0.0, 0.0], dir(0.0, 1.0, 0.0), 0.054),
             weight("w", [0.09, 0.0, 2.0]),
         ],
-        vec![vec![entry(0), sided(1, Side::Right), sided(2, Side::Left), entry(3)]],
+        vec![vec![
+            entry(0),
+            sided(1, Side::Right),
+            sided(2, Side::Left),
+            entry(3),
+        ]],
     );
     assert!(matches!(error_of(&r), GeometryError::InsideCircle { .. }));
 }
 
 #[test]
 fn coincident_entries() {
-    let r = straight([[0.0, 0.0, 0.0], [0.0, 0.0, 1.0], [0.0, 0.0, 1.0]], 0.054, None);
+    let r = straight(
+        [[0.0, 0.0, 0.0], [0.0, 0.0, 1.0], [0.0, 0.0, 1.0]],
+        0.054,
+        None,
+    );
     assert_eq!(
         error_of(&r),
-        GeometryError::Coincident { line: "line0".into(), a: "s".into(), b: "b".into() }
+        GeometryError::Coincident {
+            line: "line0".into(),
+            a: "s".into(),
+            b: "b".into()
+        }
     );
     // Two point ends at one place.
     let r = rig(
@@ -573,14 +715,35 @@ fn coincident_entries() {
 
 #[test]
 fn straight_path_without_side_is_ambiguous() {
-    let r = straight([[-1.0, 0.0, 0.0], [0.0, 0.0, 0.0], [1.0, 0.0, 0.0]], 0.054, None);
+    let r = straight(
+        [[-1.0, 0.0, 0.0], [0.0, 0.0, 0.0], [1.0, 0.0, 0.0]],
+        0.054,
+        None,
+    );
     let e = error_of(&r);
-    assert_eq!(e, GeometryError::AmbiguousSide { line: "line0".into(), part: "s".into() });
-    assert!(e.to_string().contains("add `side: left` or `side: right`"), "{e}");
+    assert_eq!(
+        e,
+        GeometryError::AmbiguousSide {
+            line: "line0".into(),
+            part: "s".into()
+        }
+    );
+    assert!(
+        e.to_string().contains("add `side: left` or `side: right`"),
+        "{e}"
+    );
     // A turn in a plane that contains the axle does not tell the side either.
-    let r = straight([[-1.0, 0.0, 0.0], [0.0, 0.0, 0.0], [0.0, 1.0, 0.0]], 0.054, None);
+    let r = straight(
+        [[-1.0, 0.0, 0.0], [0.0, 0.0, 0.0], [0.0, 1.0, 0.0]],
+        0.054,
+        None,
+    );
     assert!(matches!(error_of(&r), GeometryError::AmbiguousSide { .. }));
-    let r = straight([[-1.0, 0.0, 0.0], [0.0, 0.0, 0.0], [1.0, 0.0, 0.0]], 0.054, Some(Side::Left));
+    let r = straight(
+        [[-1.0, 0.0, 0.0], [0.0, 0.0, 0.0], [1.0, 0.0, 0.0]],
+        0.054,
+        Some(Side::Left),
+    );
     assert!(compute(&r, &GeometryOptions::default()).is_ok());
 }
 
@@ -596,10 +759,19 @@ fn skew_iteration_out_of_iterations() {
         ],
         vec![vec![entry(0), entry(1), entry(2), entry(3)]],
     );
-    let options = GeometryOptions { tolerance: 0.0, max_iterations: 2 };
+    let options = GeometryOptions {
+        tolerance: 0.0,
+        max_iterations: 2,
+    };
     let e = compute(&r, &options).expect_err("two iterations cannot reach zero");
     match &e {
-        GeometryError::NotConverged { a, b, iterations, residual, .. } => {
+        GeometryError::NotConverged {
+            a,
+            b,
+            iterations,
+            residual,
+            ..
+        } => {
             assert_eq!((a.as_str(), b.as_str(), *iterations), ("a", "b", 2));
             assert!(residual.is_finite() && *residual > 0.0);
         }
@@ -610,7 +782,11 @@ fn skew_iteration_out_of_iterations() {
 
 #[test]
 fn nan_input_is_an_error_not_a_nan() {
-    let r = straight([[Real::NAN, 0.0, 0.0], [0.0, 0.0, 0.0], [1.0, 0.0, 1.0]], 0.054, None);
+    let r = straight(
+        [[Real::NAN, 0.0, 0.0], [0.0, 0.0, 0.0], [1.0, 0.0, 1.0]],
+        0.054,
+        None,
+    );
     assert!(compute(&r, &GeometryOptions::default()).is_err());
 }
 
@@ -627,7 +803,13 @@ fn showcase() -> Rig {
             guide("lead", [0.4, 0.1, 2.0], dir(0.3, 1.0, 0.1), 0.04),
             sheave("head", [0.0, 0.0, 2.2], dir(0.0, 1.0, 0.0), 0.08),
             block("hook", [0.05, 0.0, 1.0]),
-            carried_sheave("hook.a", [0.05, 0.0, 0.95], dir(0.0, 1.0, 0.0), 0.08, Some(3)),
+            carried_sheave(
+                "hook.a",
+                [0.05, 0.0, 0.95],
+                dir(0.0, 1.0, 0.0),
+                0.08,
+                Some(3),
+            ),
             anchor("eye", [0.12, 0.02, 2.2]),
             haul("hand", [1.2, 0.3, 0.8]),
             sheave("top", [1.2, 0.0, 2.0], dir(1.0, 0.1, 0.0), 0.06),
@@ -660,15 +842,24 @@ fn moved(rig: &Rig, rotation: &nalgebra::Rotation3<Real>, shift: &Vector) -> Rig
 
 fn same(a: Real, b: Real, what: &str) {
     // 1e-9 relative; angles near zero (fleet in a plane) are compared against 1 rad.
-    assert!((a - b).abs() <= 1e-9 * a.abs().max(b.abs()).max(1.0), "{what}: {a} vs {b}");
+    assert!(
+        (a - b).abs() <= 1e-9 * a.abs().max(b.abs()).max(1.0),
+        "{what}: {a} vs {b}"
+    );
 }
 
 #[test]
 fn showcase_rig_is_well_formed() {
     let g = geometry(&showcase());
     let first = &g.lines[0];
-    assert!(first.entries[1].fleet_in.unwrap() > 0.01, "the skew guide is really skew");
-    assert!(first.entries[1].wrap > TAU, "one extra turn on the lead guide");
+    assert!(
+        first.entries[1].fleet_in.unwrap() > 0.01,
+        "the skew guide is really skew"
+    );
+    assert!(
+        first.entries[1].wrap > TAU,
+        "one extra turn on the lead guide"
+    );
     assert_eq!(first.entries[0].wrap, 0.0);
 }
 

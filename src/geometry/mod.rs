@@ -28,7 +28,7 @@ use std::f64::consts::TAU;
 
 use crate::math::{Direction, Point, Real};
 use crate::rig::model::{LineId, PartId, Rig};
-use tangent::{common_tangent, Circle, End, TangentError, TangentOptions, DEGENERATE};
+use tangent::{common_tangent, exceeds, Circle, End, TangentError, TangentOptions, DEGENERATE};
 
 /// A straight length of rope between two parts of a line.
 #[derive(Debug, Clone, PartialEq)]
@@ -97,7 +97,10 @@ pub struct GeometryOptions {
 
 impl Default for GeometryOptions {
     fn default() -> Self {
-        GeometryOptions { tolerance: 1e-12, max_iterations: 200 }
+        GeometryOptions {
+            tolerance: 1e-12,
+            max_iterations: 200,
+        }
     }
 }
 
@@ -115,7 +118,9 @@ pub enum GeometryError {
         point: String,
     },
     /// Two consecutive path entries sit at the same place.
-    #[error("line `{line}`: `{a}` and `{b}` are at the same place; a span needs two distinct ends")]
+    #[error(
+        "line `{line}`: `{a}` and `{b}` are at the same place; a span needs two distinct ends"
+    )]
     Coincident {
         /// Line name.
         line: String,
@@ -201,8 +206,13 @@ pub fn rig_size(rig: &Rig) -> Real {
         .filter(|p| p.coords.iter().all(|x| x.is_finite()))
         .collect();
     let count = finite.len().max(1) as Real;
-    let centroid = finite.iter().fold(Point::origin(), |acc, p| acc + p.coords / count);
-    let reach = finite.iter().map(|p| (p - centroid).norm()).fold(0.0, Real::max);
+    let centroid = finite
+        .iter()
+        .fold(Point::origin(), |acc, p| acc + p.coords / count);
+    let reach = finite
+        .iter()
+        .map(|p| (p - centroid).norm())
+        .fold(0.0, Real::max);
     let tread = rig
         .parts
         .iter()
@@ -210,7 +220,12 @@ pub fn rig_size(rig: &Rig) -> Real {
         .map(|r| r.tread_diameter)
         .filter(|d| d.is_finite())
         .fold(0.0, Real::max);
-    let rope = rig.ropes.iter().map(|r| r.diameter).filter(|d| d.is_finite()).fold(0.0, Real::max);
+    let rope = rig
+        .ropes
+        .iter()
+        .map(|r| r.diameter)
+        .filter(|d| d.is_finite())
+        .fold(0.0, Real::max);
     2.0 * reach + tread + rope
 }
 
@@ -325,8 +340,8 @@ pub fn wrap_angle(
     let turn = sense * axle.dot(&arrive_radius.cross(&leave_radius));
     let angle = turn.atan2(arrive_radius.dot(&leave_radius));
     let angle = if angle < 0.0 { angle + TAU } else { angle };
-    // `!(a < b)` also catches NaN.
-    if !(angle < TAU - WRAP_ROUND_OFF) {
+    // Negated `exceeds` also catches NaN.
+    if !exceeds(TAU - WRAP_ROUND_OFF, angle) {
         0.0
     } else {
         angle
@@ -384,7 +399,7 @@ fn line_geometry(
 
     // Two entries at one place leave no span between them.
     for i in 1..count {
-        if !((part(i).at - part(i - 1).at).norm() > DEGENERATE * size) {
+        if !exceeds((part(i).at - part(i - 1).at).norm(), DEGENERATE * size) {
             return Err(GeometryError::Coincident {
                 line: line.name.clone(),
                 a: name(i - 1),
@@ -433,7 +448,7 @@ fn line_geometry(
             .map_err(|error| span_error(error, &line.name, name(i - 1), name(i)))?;
         let offset = tangent.end - tangent.start;
         let length = offset.norm();
-        if !(length > DEGENERATE * size) {
+        if !exceeds(length, DEGENERATE * size) {
             return Err(GeometryError::Coincident {
                 line: line.name.clone(),
                 a: name(i - 1),
@@ -497,14 +512,25 @@ fn line_geometry(
 /// Names a tangent failure with the rig's names.
 fn span_error(error: TangentError, line: &str, a: String, b: String) -> GeometryError {
     match error {
-        TangentError::Coincident => GeometryError::Coincident { line: line.to_string(), a, b },
-        TangentError::Inside(End::Start) => {
-            GeometryError::InsideCircle { line: line.to_string(), part: a, point: b }
-        }
-        TangentError::Inside(End::End) => {
-            GeometryError::InsideCircle { line: line.to_string(), part: b, point: a }
-        }
-        TangentError::NotConverged { iterations, residual } => GeometryError::NotConverged {
+        TangentError::Coincident => GeometryError::Coincident {
+            line: line.to_string(),
+            a,
+            b,
+        },
+        TangentError::Inside(End::Start) => GeometryError::InsideCircle {
+            line: line.to_string(),
+            part: a,
+            point: b,
+        },
+        TangentError::Inside(End::End) => GeometryError::InsideCircle {
+            line: line.to_string(),
+            part: b,
+            point: a,
+        },
+        TangentError::NotConverged {
+            iterations,
+            residual,
+        } => GeometryError::NotConverged {
             line: line.to_string(),
             a,
             b,

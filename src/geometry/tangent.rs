@@ -21,6 +21,15 @@ use crate::math::{Direction, Point, Real, Vector};
 /// Relative size below which a geometric quantity counts as zero (round-off).
 pub const DEGENERATE: Real = 1e-12;
 
+/// `value > threshold`, and false when either is NaN: guards written as
+/// `if !exceeds(..) { error }` send NaN input to the error.
+pub fn exceeds(value: Real, threshold: Real) -> bool {
+    matches!(
+        value.partial_cmp(&threshold),
+        Some(std::cmp::Ordering::Greater)
+    )
+}
+
 /// A round part's pitch circle as a span sees it, or a point (radius zero).
 #[derive(Debug, Clone, Copy, PartialEq)]
 pub struct Circle {
@@ -48,7 +57,7 @@ impl Circle {
 
     /// Whether this is a point (radius zero).
     pub fn is_point(&self) -> bool {
-        !(self.radius > 0.0)
+        !exceeds(self.radius, 0.0)
     }
 
     /// The radius with the sign of the rope's side, measured against the reference axle
@@ -111,7 +120,10 @@ pub struct TangentOptions {
 
 impl Default for TangentOptions {
     fn default() -> Self {
-        TangentOptions { tolerance: 1e-12, max_iterations: 200 }
+        TangentOptions {
+            tolerance: 1e-12,
+            max_iterations: 200,
+        }
     }
 }
 
@@ -152,11 +164,14 @@ pub fn common_tangent(
 ) -> Result<Tangent, TangentError> {
     let offset = to.centre - from.centre;
     let scale = offset.norm() + from.radius.abs() + to.radius.abs();
-    if !(offset.norm() > DEGENERATE * scale) {
+    if !exceeds(offset.norm(), DEGENERATE * scale) {
         return Err(TangentError::Coincident);
     }
     match (from.is_point(), to.is_point()) {
-        (true, true) => Ok(Tangent { start: from.centre, end: to.centre }),
+        (true, true) => Ok(Tangent {
+            start: from.centre,
+            end: to.centre,
+        }),
         (true, false) => tangent_closed_form(from, to, &to.axle),
         (false, true) => tangent_closed_form(from, to, &from.axle),
         (false, false) => {
@@ -209,9 +224,13 @@ pub fn tangent_closed_form(
     let distance = in_plane.norm();
     let delta = rho_from - rho_to;
     let scale = offset.norm() + from.radius.abs() + to.radius.abs();
-    // `!(a > b)` so that NaN lands in the error too.
-    if !(distance - delta.abs() > DEGENERATE * scale) {
-        let larger = if from.radius > to.radius { End::Start } else { End::End };
+    // Negated `exceeds` so that NaN lands in the error too.
+    if !exceeds(distance - delta.abs(), DEGENERATE * scale) {
+        let larger = if from.radius > to.radius {
+            End::Start
+        } else {
+            End::End
+        };
         return Err(TangentError::Inside(larger));
     }
     let e1 = in_plane / distance;
@@ -253,8 +272,14 @@ pub fn tangent_iterative(
     options: &TangentOptions,
 ) -> Result<(Tangent, usize), TangentError> {
     let origin = from.centre;
-    let local_from = Circle { centre: Point::origin(), ..*from };
-    let local_to = Circle { centre: to.centre - origin.coords, ..*to };
+    let local_from = Circle {
+        centre: Point::origin(),
+        ..*from
+    };
+    let local_to = Circle {
+        centre: to.centre - origin.coords,
+        ..*to
+    };
     let scale = local_to.centre.coords.norm() + from.radius.abs() + to.radius.abs();
     let tolerance = options.tolerance.max(16.0 * Real::EPSILON * scale);
     let mut start = local_from.centre;
@@ -272,14 +297,21 @@ pub fn tangent_iterative(
         end = new_end;
         if residual <= tolerance {
             return Ok((
-                Tangent { start: start + origin.coords, end: end + origin.coords },
+                Tangent {
+                    start: start + origin.coords,
+                    end: end + origin.coords,
+                },
                 iteration,
             ));
         }
     }
     Err(TangentError::NotConverged {
         iterations: options.max_iterations,
-        residual: if residual.is_finite() { residual } else { Real::MAX },
+        residual: if residual.is_finite() {
+            residual
+        } else {
+            Real::MAX
+        },
     })
 }
 
@@ -292,7 +324,12 @@ mod tests {
     }
 
     fn circle(x: Real, y: Real, radius: Real, sense: Real) -> Circle {
-        Circle { centre: Point::new(x, y, 0.0), axle: z(), radius, sense }
+        Circle {
+            centre: Point::new(x, y, 0.0),
+            axle: z(),
+            radius,
+            sense,
+        }
     }
 
     fn options() -> TangentOptions {
@@ -311,7 +348,10 @@ mod tests {
             let radial = p - c.centre;
             assert!((radial.norm() - c.radius).abs() < 1e-12 * c.radius.max(1.0));
             assert!(radial.dot(&c.axle).abs() < 1e-12);
-            assert!(u.dot(&radial).abs() < 1e-12, "span not perpendicular to radius");
+            assert!(
+                u.dot(&radial).abs() < 1e-12,
+                "span not perpendicular to radius"
+            );
             let rope = c.axle.cross(&radial) * c.sense / c.radius;
             assert!(u.dot(&rope) > 0.0, "rope runs against the sense");
         }
@@ -347,8 +387,16 @@ mod tests {
     fn crossed_tangent_of_equal_and_unequal_circles() {
         // Hand calculation: √(D² − (r₁ + r₂)²): √(4² − 2²) = √12 and √(10² − 4²) = √84.
         let cases = [
-            (circle(0.0, 0.0, 1.0, 1.0), circle(4.0, 0.0, 1.0, -1.0), 12f64.sqrt()),
-            (circle(0.0, 0.0, 3.0, -1.0), circle(6.0, 8.0, 1.0, 1.0), 84f64.sqrt()),
+            (
+                circle(0.0, 0.0, 1.0, 1.0),
+                circle(4.0, 0.0, 1.0, -1.0),
+                12f64.sqrt(),
+            ),
+            (
+                circle(0.0, 0.0, 3.0, -1.0),
+                circle(6.0, 8.0, 1.0, 1.0),
+                84f64.sqrt(),
+            ),
         ];
         for (a, b, length) in cases {
             let t = common_tangent(&a, &b, &options()).unwrap();
@@ -392,7 +440,11 @@ mod tests {
     fn antiparallel_axle_with_flipped_sense_is_the_same_circle() {
         let a = circle(0.0, 0.0, 1.0, 1.0);
         let b = circle(5.0, 2.0, 0.5, 1.0);
-        let flipped = Circle { axle: -b.axle, sense: -b.sense, ..b };
+        let flipped = Circle {
+            axle: -b.axle,
+            sense: -b.sense,
+            ..b
+        };
         let t1 = common_tangent(&a, &b, &options()).unwrap();
         let t2 = common_tangent(&a, &flipped, &options()).unwrap();
         assert!((t1.start - t2.start).norm() < 1e-12);
@@ -403,7 +455,10 @@ mod tests {
     fn iteration_agrees_with_closed_form_for_parallel_axles() {
         for (sa, sb) in [(1.0, 1.0), (1.0, -1.0), (-1.0, 1.0), (-1.0, -1.0)] {
             let a = circle(0.0, 0.0, 0.3, sa);
-            let b = Circle { centre: Point::new(2.0, 1.0, 0.4), ..circle(0.0, 0.0, 0.2, sb) };
+            let b = Circle {
+                centre: Point::new(2.0, 1.0, 0.4),
+                ..circle(0.0, 0.0, 0.2, sb)
+            };
             let closed = tangent_closed_form(&a, &b, &a.axle).unwrap();
             let (iterated, iterations) = tangent_iterative(&a, &b, &options()).unwrap();
             assert!(iterations < 100);
@@ -429,18 +484,30 @@ mod tests {
     fn errors() {
         let c = circle(0.0, 0.0, 1.0, 1.0);
         let inside = Circle::point(Point::new(0.5, 0.0, 2.0));
-        assert_eq!(common_tangent(&inside, &c, &options()), Err(TangentError::Inside(End::End)));
+        assert_eq!(
+            common_tangent(&inside, &c, &options()),
+            Err(TangentError::Inside(End::End))
+        );
         let on = Circle::point(Point::new(1.0, 0.0, 0.0));
-        assert_eq!(common_tangent(&c, &on, &options()), Err(TangentError::Inside(End::Start)));
+        assert_eq!(
+            common_tangent(&c, &on, &options()),
+            Err(TangentError::Inside(End::Start))
+        );
         // Nested circles have no external tangent; overlapping ones no crossed one.
         let nested = circle(0.2, 0.0, 0.5, 1.0);
-        assert!(matches!(common_tangent(&c, &nested, &options()), Err(TangentError::Inside(_))));
+        assert!(matches!(
+            common_tangent(&c, &nested, &options()),
+            Err(TangentError::Inside(_))
+        ));
         let overlapping = circle(1.5, 0.0, 1.0, -1.0);
         assert!(matches!(
             common_tangent(&c, &overlapping, &options()),
             Err(TangentError::Inside(_))
         ));
-        assert_eq!(common_tangent(&c, &c, &options()), Err(TangentError::Coincident));
+        assert_eq!(
+            common_tangent(&c, &c, &options()),
+            Err(TangentError::Coincident)
+        );
         let nan = Circle::point(Point::new(Real::NAN, 0.0, 0.0));
         assert!(common_tangent(&nan, &c, &options()).is_err());
         let skew = Circle {
@@ -448,7 +515,10 @@ mod tests {
             centre: Point::new(5.0, 0.0, 1.0),
             ..circle(0.0, 0.0, 0.5, 1.0)
         };
-        let tight = TangentOptions { tolerance: 0.0, max_iterations: 1 };
+        let tight = TangentOptions {
+            tolerance: 0.0,
+            max_iterations: 1,
+        };
         assert!(matches!(
             common_tangent(&c, &skew, &tight),
             Err(TangentError::NotConverged { iterations: 1, .. })
