@@ -89,7 +89,8 @@ pub struct Geometry {
 #[derive(Debug, Clone, Copy, PartialEq)]
 pub struct GeometryOptions {
     /// Convergence tolerance of the non-coplanar tangent iteration, m (default 1e-12 m
-    /// relative to the rig's size, i.e. round-off).
+    /// relative to the rig's size, i.e. round-off). [`compute`] multiplies it by
+    /// [`rig_size`]; the iteration never asks for less than its round-off floor.
     pub tolerance: Real,
     /// Iteration cap (default 200).
     pub max_iterations: usize,

@@ -264,6 +264,11 @@ pub fn tangent_closed_form(
 /// # Errors
 /// [`TangentError::Inside`] when an intermediate point falls inside a circle (the
 /// circles are too close for a tangent), [`TangentError::NotConverged`] at the cap.
+/// When the centre line runs nearly along an axle (span leaving a groove at close to
+/// 90°), a point of one circle can project inside the other and the iteration reports
+/// `Inside` even where a tangent might exist; with the centre line more than about 32°
+/// off both axles and the centres three summed radii apart this cannot happen (see the
+/// property test).
 ///
 /// Source: hand derivation (block Gauss–Seidel on the two tangency conditions).
 pub fn tangent_iterative(
