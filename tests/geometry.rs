@@ -23,6 +23,10 @@ fn part(name: &str, at: [Real; 3], kind: PartKind) -> Part {
     Part {
         name: name.to_string(),
         at: Point::new(at[0], at[1], at[2]),
+        block: match &kind {
+            PartKind::Sheave(s) => s.block,
+            _ => None,
+        },
         kind,
         location: Location::default(),
     }
@@ -168,6 +172,7 @@ fn rig(rope_diameter: Real, parts: Vec<Part>, paths: Vec<Vec<PathEntry>>) -> Rig
             .collect(),
         drive: 0,
         solve_for: 0,
+        runs_back: false,
     }
 }
 

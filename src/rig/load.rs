@@ -287,7 +287,7 @@ impl Kind {
     /// Keys besides `kind` and `at`.
     fn keys(self) -> &'static [&'static str] {
         match self {
-            Kind::Anchor => &[],
+            Kind::Anchor => &["block"],
             Kind::Sheave => &[
                 "axle", "diameter", "bearing", "mass", "groove", "mu", "block",
             ],
@@ -1291,6 +1291,27 @@ fn part(
             .and_then(|n| r.direction(n, &join(&path, "axle")))
     };
     let own_mass = |r: &mut Resolver| r.opt_non_negative(entries, "mass", &path, Dimension::Mass);
+    // Sheaves and anchors (pick points) may be carried by a moving block.
+    let block = match get(entries, "block") {
+        Some(n) => {
+            let p = join(&path, "block");
+            let b = r.part_ref(n, &p, names, "the block that carries this part")?;
+            if let Some(k) = names.kinds[b].filter(|k| *k != Kind::Block) {
+                r.report(
+                    n.location,
+                    p,
+                    format!(
+                        "`{}` is a {}; `block` must name a block",
+                        names.names[b],
+                        k.name()
+                    ),
+                );
+                return None;
+            }
+            Some(b)
+        }
+        None => None,
+    };
     let part_kind = match kind {
         Kind::Anchor => Some(PartKind::Anchor),
         Kind::Sheave => {
@@ -1302,26 +1323,6 @@ fn part(
             let mass = own_mass(r);
             let groove_angle = r.groove(entries, &path);
             let mu = r.opt_mu(entries, "mu", &path);
-            let block = match get(entries, "block") {
-                Some(n) => {
-                    let p = join(&path, "block");
-                    let b = r.part_ref(n, &p, names, "the block that carries this sheave")?;
-                    if let Some(k) = names.kinds[b].filter(|k| *k != Kind::Block) {
-                        r.report(
-                            n.location,
-                            p,
-                            format!(
-                                "`{}` is a {}; `block` must name a block",
-                                names.names[b],
-                                k.name()
-                            ),
-                        );
-                        return None;
-                    }
-                    Some(b)
-                }
-                None => None,
-            };
             Some(PartKind::Sheave(Sheave {
                 axle: axle?,
                 tread_diameter: tread_diameter?,
@@ -1444,6 +1445,7 @@ fn part(
         name: e.key.clone(),
         at: point?,
         kind: part_kind?,
+        block,
         location: e.key_location,
     })
 }
