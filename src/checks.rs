@@ -268,7 +268,7 @@ fn subrig_checks(rig: &Rig, sub: &SubRigSolution) -> Vec<Warning> {
             "self-locking",
             Some(drive),
             false,
-            format!("the rig is self-locking (it will not run back by itself), but the rig file says it must run back (`runs_back: true`)"),
+            "the rig is self-locking (it will not run back by itself), but the rig file says it must run back (`runs_back: true`)".to_string(),
         ));
     }
     // Remove duplicate messages from ideal/back repeats.

@@ -1659,7 +1659,7 @@ fn path_entry(
                 v,
                 t,
                 &tp,
-                |v| v >= 0.0 && v <= MOST_TURNS && v.fract() == 0.0,
+                |v| (0.0..=MOST_TURNS).contains(&v) && v.fract() == 0.0,
                 "a whole number of extra turns from 0 to 1000",
             ) {
                 Some(v) if matches!(kind, Kind::Guide | Kind::Drum) => turns = v as u32,

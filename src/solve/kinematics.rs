@@ -182,8 +182,7 @@ impl Kinematics {
         // Constraint matrix, one row per segment.
         let mut a = DMatrix::zeros(segments.len(), n);
         for (g, seg) in segments.iter().enumerate() {
-            for j in seg.first..seg.last {
-                let row = &span_rows[seg.line][j];
+            for row in &span_rows[seg.line][seg.first..seg.last] {
                 for i in 0..n {
                     a[(g, i)] += row[i];
                 }

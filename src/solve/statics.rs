@@ -445,9 +445,8 @@ impl<'a> Problem<'a> {
             let mut rhs = q.clone();
             for (col, &g) in self.segs.iter().enumerate() {
                 let seg = self.kin.segments[g];
-                for j in seg.first..seg.last {
-                    let (c, c0) = coef[seg.line][j];
-                    let row = &self.kin.span_rows[seg.line][j];
+                let rows = &self.kin.span_rows[seg.line][seg.first..seg.last];
+                for (&(c, c0), row) in coef[seg.line][seg.first..seg.last].iter().zip(rows) {
                     for (k, &i) in self.dofs.iter().enumerate() {
                         mat[(k, col)] += c * row[i];
                         rhs[k] -= c0 * row[i];
