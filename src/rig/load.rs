@@ -284,6 +284,14 @@ impl Kind {
             .map_or("part", |(n, _)| n)
     }
 
+    /// The name with its article: "an anchor", "a sheave".
+    fn a(self) -> String {
+        match self {
+            Kind::Anchor => "an anchor".to_string(),
+            other => format!("a {}", other.name()),
+        }
+    }
+
     /// Keys besides `kind` and `at`.
     fn keys(self) -> &'static [&'static str] {
         match self {
@@ -490,6 +498,14 @@ impl Resolver {
         });
         match value {
             Some(v) if v.is_finite() && v.abs() <= LARGEST => Some(v),
+            Some(v) if v.is_finite() => {
+                self.report(
+                    node.location,
+                    path,
+                    format!("{} is too large; expected {expected}", node.describe()),
+                );
+                None
+            }
             Some(_) => {
                 self.report(
                     node.location,
@@ -889,7 +905,7 @@ impl Resolver {
         match names.index.get(name) {
             Some(&i) => Some(i),
             None => {
-                let hint = did_you_mean(name, names.names.iter().map(String::as_str));
+                let hint = hint_or_list(name, &names.names);
                 self.report(
                     node.location,
                     path,
@@ -909,6 +925,17 @@ impl Node {
             _ => self.describe(),
         }
     }
+}
+
+/// A "did you mean" for `name`, or the list of names when there are few and none is
+/// close.
+fn hint_or_list(name: &str, names: &[String]) -> String {
+    let hint = did_you_mean(name, names.iter().map(String::as_str));
+    if !hint.is_empty() || names.is_empty() || names.len() > 8 {
+        return hint;
+    }
+    let list: Vec<String> = names.iter().map(|n| format!("`{n}`")).collect();
+    format!("; defined: {}", list.join(", "))
 }
 
 fn example(dimension: Dimension) -> &'static str {
@@ -1182,9 +1209,9 @@ fn role(r: &mut Resolver, node: &Node, key: &str, names: &Names) -> Option<usize
                 node.location,
                 key,
                 format!(
-                    "`{}` is a {}; `{key}` must name a haul, weight, block or drum",
+                    "`{}` is {}; `{key}` must name a haul, weight, block or drum",
                     names.names[i],
-                    k.name()
+                    k.a()
                 ),
             );
             None
@@ -1254,7 +1281,7 @@ fn part(
     let kind = kind?;
     let mut allowed = vec!["kind", "at"];
     allowed.extend_from_slice(kind.keys());
-    let context = format!("a {} part", kind.name());
+    let context = format!("{} part", kind.a());
     for entry in entries
         .iter()
         .filter(|x| !allowed.contains(&x.key.as_str()))
@@ -1266,10 +1293,10 @@ fn part(
         let hint = did_you_mean(&entry.key, allowed.iter().copied());
         let message = match (owner, hint.is_empty()) {
             (Some((owner, _)), true) => format!(
-                "`{}` is not a key of a {} part (it belongs to a {owner}); a {} takes: {}",
+                "`{}` is not a key of {} part (it belongs to a {owner}); {} takes: {}",
                 entry.key,
-                kind.name(),
-                kind.name(),
+                kind.a(),
+                kind.a(),
                 allowed.join(", ")
             ),
             (_, false) => format!("unknown key `{}` in {context}{hint}", entry.key),
@@ -1301,9 +1328,9 @@ fn part(
                     n.location,
                     p,
                     format!(
-                        "`{}` is a {}; `block` must name a block",
+                        "`{}` is {}; `block` must name a block",
                         names.names[b],
-                        k.name()
+                        k.a()
                     ),
                 );
                 return None;
@@ -1562,7 +1589,7 @@ fn line(r: &mut Resolver, e: &Entry, rope_names: &[String], names: &Names) -> Op
             match rope_names.iter().position(|x| x == name) {
                 Some(i) => Some(i),
                 None => {
-                    let hint = did_you_mean(name, rope_names.iter().map(String::as_str));
+                    let hint = hint_or_list(name, rope_names);
                     r.report(
                         n.location,
                         p,
@@ -1642,11 +1669,11 @@ fn path_entry(
     let kind = names.kinds[part]?;
     let mut ok = true;
     if is_end && !kind.can_end() {
-        r.report(name_node.location, path, format!("`{name}` is a {}, which cannot end a line; a line ends at an anchor, block, weight, drum or haul", kind.name()));
+        r.report(name_node.location, path, format!("`{name}` is {}, which cannot end a line; a line ends at an anchor, block, weight, drum or haul", kind.a()));
         ok = false;
     }
     if !is_end && !kind.can_pass() {
-        r.report(name_node.location, path, format!("`{name}` is a {}, which a line cannot pass through; between its ends a line passes sheaves, guides and drums", kind.name()));
+        r.report(name_node.location, path, format!("`{name}` is {}, which a line cannot pass through; between its ends a line passes sheaves, guides and drums", kind.a()));
         ok = false;
     }
     let mut turns = 0;
@@ -1668,8 +1695,8 @@ fn path_entry(
                         t.location,
                         tp,
                         format!(
-                            "`turns` applies only to a guide or drum; `{name}` is a {}",
-                            kind.name()
+                            "`turns` applies only to a guide or drum; `{name}` is {}",
+                            kind.a()
                         ),
                     );
                     ok = false;
