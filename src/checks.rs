@@ -172,6 +172,28 @@ fn subrig_checks(rig: &Rig, sub: &SubRigSolution) -> Vec<Warning> {
             }
         }
     }
+    // Static friction: it may run once started but not start from rest.
+    if let (Some(available), Some(breakaway)) = (
+        crate::solve::given_quantity(rig, sub.solve_for),
+        sub.breakaway.as_ref(),
+    ) {
+        let short = if sub.drive_unknown() {
+            available >= sub.forward.value && available < breakaway.value
+        } else {
+            available <= sub.forward.value && available > breakaway.value
+        };
+        if short {
+            out.push(warn(
+                "may-not-start",
+                Some(drive),
+                false,
+                format!(
+                    "the drive keeps the rig moving once started ({:.4} {unit} forward) but may not start it from rest: breakaway needs {:.4} {unit} with the static coefficients",
+                    sub.forward.value, breakaway.value
+                ),
+            ));
+        }
+    }
     // Safety factor of every span, worst case of forward and back.
     for (l, line) in rig.lines.iter().enumerate() {
         let rope = rig.rope_of(l);

@@ -160,6 +160,9 @@ pub struct Headline {
     pub forward: CaseHeadline,
     /// Back case.
     pub back: CaseHeadline,
+    /// Forward from rest with static coefficients, where any bearing gives `mu_static`.
+    #[serde(skip_serializing_if = "Option::is_none")]
+    pub breakaway: Option<CaseHeadline>,
     /// Whether the rig will not run back by itself.
     pub self_locking: bool,
     /// Drive speed over load speed.
@@ -239,6 +242,14 @@ fn headline(rig: &Rig, sub: &SubRigSolution) -> Headline {
             value: finite(b),
             efficiency: sub.back_efficiency(),
         },
+        breakaway: sub.breakaway.as_ref().map(|c| CaseHeadline {
+            value: finite(c.value),
+            efficiency: finite(if sub.drive_unknown() {
+                sub.ideal.value / c.value
+            } else {
+                c.value / sub.ideal.value
+            }),
+        }),
         self_locking: sub.self_locking(),
         velocity_ratio: sub.velocity_ratio,
         load_part: sub.load_part.map(|p| rig.parts[p].name.clone()),

@@ -80,6 +80,16 @@ fn write_headline(w: &mut dyn Write, h: &Headline, units: &UnitSystem) -> io::Re
         percent(h.forward.efficiency),
         percent(h.back.efficiency)
     )?;
+    if let Some(b) = &h.breakaway {
+        writeln!(
+            w,
+            "  {:<12} {:>14} {:>14}   (forward from rest, static coefficients; efficiency {})",
+            "breakaway",
+            "",
+            q(b.value),
+            percent(b.efficiency)
+        )?;
+    }
     if let Some(vr) = h.velocity_ratio {
         write!(w, "Velocity ratio {}", number(Some(vr), 4))?;
         if let Some(p) = &h.load_part {

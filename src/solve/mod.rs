@@ -229,6 +229,8 @@ pub struct SubRigSolution {
     pub forward: CaseResult,
     /// Back.
     pub back: CaseResult,
+    /// Forward from rest with static coefficients, when any bearing gives `mu_static`.
+    pub breakaway: Option<CaseResult>,
     /// Drive speed over load speed (natural units), when a load moves.
     pub velocity_ratio: Option<Real>,
     /// The load part used for the velocity ratio.
@@ -365,6 +367,11 @@ pub fn solve(rig: &Rig, options: &SolveOptions) -> Result<Solution, SolveError> 
         let ideal = problem.solve(Case::Ideal, options)?;
         let forward = problem.solve(Case::Forward, options)?;
         let back = problem.solve(Case::Back, options)?;
+        let breakaway = if has_static_friction(rig) {
+            Some(problem.solve_breakaway(options)?)
+        } else {
+            None
+        };
         let load_part = if solve_for != drive {
             Some(solve_for)
         } else {
@@ -391,6 +398,7 @@ pub fn solve(rig: &Rig, options: &SolveOptions) -> Result<Solution, SolveError> 
             ideal,
             forward,
             back,
+            breakaway,
             velocity_ratio,
             load_part,
         });
@@ -400,6 +408,25 @@ pub fn solve(rig: &Rig, options: &SolveOptions) -> Result<Solution, SolveError> 
         network,
         kinematics,
         subrigs,
+    })
+}
+
+/// Whether any bearing gives a static coefficient (then a breakaway case is solved).
+pub fn has_static_friction(rig: &Rig) -> bool {
+    use crate::rig::model::Bearing;
+    let is_static = |b: &Bearing| {
+        matches!(
+            b,
+            Bearing::Plain {
+                mu_static: Some(_),
+                ..
+            }
+        )
+    };
+    rig.parts.iter().any(|p| match &p.kind {
+        PartKind::Sheave(s) => is_static(&s.bearing),
+        PartKind::Drum(d) => d.shaft.as_ref().is_some_and(|s| is_static(&s.bearing)),
+        _ => false,
     })
 }
 
