@@ -99,8 +99,23 @@ pub fn load(args: &RigArgs) -> Result<Rig, Failure> {
 pub fn load_and_solve(args: &RigArgs) -> Result<(Rig, solve::Solution), Failure> {
     let rig = load(args)?;
     let solution = solve::solve(&rig, &SolveOptions::default())
-        .map_err(|e| Failure::input(format!("{}: {e}", args.rig.display())))?;
+        .map_err(|e| Failure::input(locate(&args.rig, &rig, &e)))?;
     Ok((rig, solution))
+}
+
+/// `file:line:column: key: message` for a solve error, as far as it can be located.
+pub fn locate(path: &Path, rig: &Rig, error: &solve::SolveError) -> String {
+    match error.location(rig) {
+        Some((l, subject)) if l.line > 0 => {
+            format!(
+                "{}:{}:{}: {subject}: {error}",
+                path.display(),
+                l.line,
+                l.column
+            )
+        }
+        _ => format!("{}: {error}", path.display()),
+    }
 }
 
 fn write_out(f: impl FnOnce(&mut dyn Write) -> io::Result<()>) -> Result<(), Failure> {

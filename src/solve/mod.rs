@@ -112,6 +112,48 @@ pub enum SolveError {
     },
 }
 
+impl SolveError {
+    /// The line and part the error is about, where there is one, for locating it in
+    /// the rig file.
+    pub fn subject(&self) -> (Option<&str>, Option<&str>) {
+        match self {
+            SolveError::Geometry(g) => match g {
+                GeometryError::InsideCircle { line, point, .. } => (Some(line), Some(point)),
+                GeometryError::Coincident { line, b, .. } => (Some(line), Some(b)),
+                GeometryError::AmbiguousSide { line, part } => (Some(line), Some(part)),
+                GeometryError::NotConverged { line, a, .. } => (Some(line), Some(a)),
+            },
+            SolveError::CannotMove { parts }
+            | SolveError::NoDrive { parts }
+            | SolveError::SubRigWithoutHaul { parts } => (None, parts.first().map(String::as_str)),
+            SolveError::FreeParts { parts, .. } => (None, parts.first().map(String::as_str)),
+            SolveError::DriveCannotMove { drive } => (None, Some(drive)),
+            SolveError::MissingQuantity { part, .. } => (None, Some(part)),
+            SolveError::NoEquilibrium { .. } => (None, None),
+        }
+    }
+
+    /// Where in the rig file the error points: the path entry of the line, else the
+    /// part's definition.
+    pub fn location(&self, rig: &Rig) -> Option<(crate::rig::model::Location, String)> {
+        let (line, part) = self.subject();
+        let part_id = part.and_then(|p| rig.part_named(p));
+        if let (Some(line), Some(pid)) = (line, part_id) {
+            if let Some(l) = rig.lines.iter().find(|l| l.name == line) {
+                if let Some(entry) = l.path.iter().find(|e| e.part == pid) {
+                    return Some((entry.location, format!("lines.{line}")));
+                }
+            }
+        }
+        part_id.map(|p| {
+            (
+                rig.parts[p].location,
+                format!("parts.{}", rig.parts[p].name),
+            )
+        })
+    }
+}
+
 fn list(parts: &[String]) -> String {
     let quoted: Vec<String> = parts.iter().map(|p| format!("`{p}`")).collect();
     quoted.join(", ")
