@@ -121,7 +121,11 @@ pub fn write_human(
         table.write_markdown(w)?;
         writeln!(w)?;
         for n in notes {
-            writeln!(w, "- {n}")?;
+            if n.is_empty() || n.starts_with('|') || n.contains('\n') {
+                writeln!(w, "{n}")?;
+            } else {
+                writeln!(w, "- {n}")?;
+            }
         }
         if !notes.is_empty() {
             writeln!(w)?;
