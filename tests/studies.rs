@@ -52,13 +52,20 @@ fn check_forward(file: &str, sets: &[&str]) -> f64 {
         args.push(s);
     }
     let out = run(&args);
-    assert_ne!(out.status.code(), Some(2), "{}", String::from_utf8_lossy(&out.stderr));
+    assert_ne!(
+        out.status.code(),
+        Some(2),
+        "{}",
+        String::from_utf8_lossy(&out.stderr)
+    );
     let v: Value = serde_json::from_slice(&out.stdout).expect("json");
     num(&v["forward"]["value"])
 }
 
 fn golden(name: &str, actual: &str) {
-    let path = Path::new(env!("CARGO_MANIFEST_DIR")).join("tests/golden").join(name);
+    let path = Path::new(env!("CARGO_MANIFEST_DIR"))
+        .join("tests/golden")
+        .join(name);
     if std::env::var_os("REEVE_BLESS").is_some() {
         std::fs::write(&path, actual).expect("write golden");
         return;
@@ -101,10 +108,7 @@ fn overrides_of_every_kind_of_key() {
     let kn = check_forward("tackle-rated.yaml", &["parts.hook.load.force=1 kN"]);
     assert!(close(kn, base, 1e-12), "{kn} vs {base}");
     // A mapping (a whole bearing) and a list (a point).
-    let none = check_forward(
-        "tackle-rated.yaml",
-        &["parts.upper.d.bearing={kind: none}"],
-    );
+    let none = check_forward("tackle-rated.yaml", &["parts.upper.d.bearing={kind: none}"]);
     assert!(none < base);
     let moved = check_forward("tackle-rated.yaml", &["parts.hand.at=[400, 0, 400]"]);
     assert!(close(moved, base, 1e-9), "{moved} vs {base}");
@@ -116,7 +120,11 @@ fn overrides_of_every_kind_of_key() {
     let rope = check_forward("tackle-rated.yaml", &["ropes.r10.mu=0.3"]);
     assert!(close(rope, base, 1e-12));
     let sheave_mu = check_forward("chain-plain.yaml", &["parts.top.1.bearing.mu_static=~"]);
-    assert!(close(sheave_mu, check_forward("chain-plain.yaml", &[]), 1e-12));
+    assert!(close(
+        sheave_mu,
+        check_forward("chain-plain.yaml", &[]),
+        1e-12
+    ));
 }
 
 #[test]
@@ -128,7 +136,14 @@ fn unknown_override_keys_are_errors_with_a_suggestion() {
         let err = String::from_utf8_lossy(&out.stderr);
         assert!(err.contains("did you mean `hand`"), "{cmd}: {err}");
     }
-    let out = run(&["sweep", &path, "--set", "parts.upper.d.bearing.facor=1.1", "--vary", "parts.hook.load.force=900..1000"]);
+    let out = run(&[
+        "sweep",
+        &path,
+        "--set",
+        "parts.upper.d.bearing.facor=1.1",
+        "--vary",
+        "parts.hook.load.force=900..1000",
+    ]);
     assert_eq!(out.status.code(), Some(2));
     assert!(String::from_utf8_lossy(&out.stderr).contains("factor"));
     let out = run(&["compare", &path, "--set", "ropes.r11.mu=0.1"]);
@@ -152,12 +167,18 @@ fn a_variant_equals_the_same_set_list() {
         .map(|p| format!("parts.{p}.bearing.factor=1.02"))
         .collect();
     let refs: Vec<&str> = sets_102.iter().map(String::as_str).collect();
-    assert_eq!(num(&by("K1.02")["forward"]), check_forward("tackle-rated.yaml", &refs));
+    assert_eq!(
+        num(&by("K1.02")["forward"]),
+        check_forward("tackle-rated.yaml", &refs)
+    );
     assert_eq!(
         num(&by("heavy")["forward"]),
         check_forward("tackle-rated.yaml", &["parts.hook.load={mass: 150 kg}"])
     );
-    assert_eq!(num(&by("base")["forward"]), check_forward("tackle-rated.yaml", &[]));
+    assert_eq!(
+        num(&by("base")["forward"]),
+        check_forward("tackle-rated.yaml", &[])
+    );
 }
 
 // ------------------------------------------------------------ compare and sweep
@@ -166,8 +187,19 @@ fn a_variant_equals_the_same_set_list() {
 fn compare_of_rated_tackles_reproduces_the_handbook_formula() {
     // Wire-rope handbook reeving efficiency formula, DESIGN.md §1, with N = S = 4
     // (hauling part leaves the fixed block), W = 1000 N, at each K of the variants.
-    let c = json(&["compare", &rig("tackle-rated.yaml"), "--variants", "--format", "json"]);
-    for (label, k) in [("base", 1.04), ("K1.02", 1.02), ("K1.06", 1.06), ("K1.10", 1.10)] {
+    let c = json(&[
+        "compare",
+        &rig("tackle-rated.yaml"),
+        "--variants",
+        "--format",
+        "json",
+    ]);
+    for (label, k) in [
+        ("base", 1.04),
+        ("K1.02", 1.02),
+        ("K1.06", 1.06),
+        ("K1.10", 1.10),
+    ] {
         let col = c["columns"]
             .as_array()
             .and_then(|a| a.iter().find(|x| x["label"] == label))
@@ -181,7 +213,8 @@ fn compare_of_rated_tackles_reproduces_the_handbook_formula() {
     }
     // The change column is relative to the first.
     let ch = num(&c["change_pct"][1]["forward"]);
-    let expected = (handbook_pull(1000.0, 1.02, 4, 4) / handbook_pull(1000.0, 1.04, 4, 4) - 1.0) * 100.0;
+    let expected =
+        (handbook_pull(1000.0, 1.02, 4, 4) / handbook_pull(1000.0, 1.04, 4, 4) - 1.0) * 100.0;
     assert!(close(ch, expected, 1e-9), "{ch} vs {expected}");
 }
 
@@ -218,8 +251,18 @@ fn sweep_over_a_bearing_mu_is_monotonic() {
         "9",
         "--json",
     ]);
-    let f: Vec<f64> = s["steps"].as_array().unwrap().iter().map(|x| num(&x["forward"])).collect();
-    let b: Vec<f64> = s["steps"].as_array().unwrap().iter().map(|x| num(&x["back"])).collect();
+    let f: Vec<f64> = s["steps"]
+        .as_array()
+        .unwrap()
+        .iter()
+        .map(|x| num(&x["forward"]))
+        .collect();
+    let b: Vec<f64> = s["steps"]
+        .as_array()
+        .unwrap()
+        .iter()
+        .map(|x| num(&x["back"]))
+        .collect();
     assert!(f.windows(2).all(|w| w[1] > w[0]), "forward {f:?}");
     assert!(b.windows(2).all(|w| w[1] < w[0]), "back {b:?}");
 }
@@ -247,7 +290,11 @@ fn a_stroke_of_a_tackle_keeps_the_velocity_ratio() {
         assert!(close(num(&st["velocity_ratio"]), 4.0, 1e-9), "{st}");
         // Hand calculation: the travel does not change vertical spans, so the pull stays
         // at the handbook value (DESIGN.md §1).
-        assert!(close(num(&st["forward"]), handbook_pull(1000.0, 1.04, 4, 4), 1e-9));
+        assert!(close(
+            num(&st["forward"]),
+            handbook_pull(1000.0, 1.04, 4, 4),
+            1e-9
+        ));
     }
     assert!(close(num(&steps[4]["travel"]), 0.8, 1e-12));
     let chart = std::fs::read_to_string(&svg).unwrap();
@@ -329,7 +376,12 @@ fn along_a_chain_of_identical_sheaves_every_sheave_saves_the_same() {
     // no sheave weight; DESIGN.md §1) the pull is W·k³ and any one frictionless sheave
     // gives W·k², whichever it is, although the last sheave dissipates the most power.
     let r = json(&["rank", &rig("chain-plain.yaml"), "--json"]);
-    let saved: Vec<f64> = r["parts"].as_array().unwrap().iter().map(|p| num(&p["frictionless_saved"])).collect();
+    let saved: Vec<f64> = r["parts"]
+        .as_array()
+        .unwrap()
+        .iter()
+        .map(|p| num(&p["frictionless_saved"]))
+        .collect();
     assert_eq!(saved.len(), 3);
     for s in &saved {
         assert!(close(*s, saved[0], 1e-9), "{saved:?}");
@@ -346,14 +398,30 @@ fn along_a_chain_of_identical_sheaves_every_sheave_saves_the_same() {
 
 #[test]
 fn ranking_with_an_alternative_bearing() {
-    let r = json(&["rank", &rig("chain-plain.yaml"), "--to", "rolling", "--json"]);
+    let r = json(&[
+        "rank",
+        &rig("chain-plain.yaml"),
+        "--to",
+        "rolling",
+        "--json",
+    ]);
     for p in r["parts"].as_array().unwrap() {
         let name = p["part"].as_str().unwrap();
         // Catalogue default: rolling bore = the plain pin diameter, mu 0.0015.
         let set = format!("parts.{name}.bearing={{kind: rolling, bore: 10 mm, mu: 0.0015}}");
-        assert!(close(num(&p["alternative"]), check_forward("chain-plain.yaml", &[&set]), 1e-12));
+        assert!(close(
+            num(&p["alternative"]),
+            check_forward("chain-plain.yaml", &[&set]),
+            1e-12
+        ));
     }
-    let yaml = json(&["rank", &rig("chain-plain.yaml"), "--to", "{kind: plain, pin_diameter: 8, mu: 0.08}", "--json"]);
+    let yaml = json(&[
+        "rank",
+        &rig("chain-plain.yaml"),
+        "--to",
+        "{kind: plain, pin_diameter: 8, mu: 0.08}",
+        "--json",
+    ]);
     assert!(num(&yaml["parts"][0]["alternative_saved"]) > 0.0);
     let out = run(&["rank", &rig("chain-plain.yaml"), "--to", "{kind: plane}"]);
     assert_eq!(out.status.code(), Some(2));
@@ -373,9 +441,17 @@ fn sensitivity_matches_the_capstan_derivative() {
         .find(|s| s["key"] == "parts.bar.mu")
         .expect("guide mu");
     let expected = w * phi * (0.25 * phi).exp();
-    assert!(close(num(&s["derivative"]), expected, 1e-6), "{s} vs {expected}");
+    assert!(
+        close(num(&s["derivative"]), expected, 1e-6),
+        "{s} vs {expected}"
+    );
     // The rope's own mu does not act where the guide gives its own.
-    let rope = r["sensitivities"].as_array().unwrap().iter().find(|s| s["key"] == "ropes.cord4.mu").unwrap();
+    let rope = r["sensitivities"]
+        .as_array()
+        .unwrap()
+        .iter()
+        .find(|s| s["key"] == "ropes.cord4.mu")
+        .unwrap();
     assert!(num(&rope["derivative"]).abs() < 1e-6);
     // Frictionless guide: the ideal W.
     assert!(close(num(&r["parts"][0]["frictionless"]), w, 1e-9));
@@ -386,19 +462,25 @@ fn sensitivity_matches_the_capstan_derivative() {
 #[test]
 fn zero_width_ranges_reproduce_the_deterministic_values() {
     let sets = [
-        "--set", "ropes.braid6.mu={min: 0.2, max: 0.2}",
-        "--set", "parts.hook.load.mass={mean: 40, sd: 0}",
-        "--set", "parts.hook.a.bearing.mu={min: 0.12, max: 0.12}",
+        "--set",
+        "ropes.braid6.mu={min: 0.2, max: 0.2}",
+        "--set",
+        "parts.hook.load.mass={mean: 40, sd: 0}",
+        "--set",
+        "parts.hook.a.bearing.mu={min: 0.12, max: 0.12}",
     ];
     let path = rig("spread-hoist.yaml");
     let mut args = vec!["spread", path.as_str(), "--samples", "20", "--json"];
     args.extend_from_slice(&sets);
     let s = json(&args);
-    let f = check_forward("spread-hoist.yaml", &[
-        "ropes.braid6.mu=0.2",
-        "parts.hook.load.mass=40",
-        "parts.hook.a.bearing.mu=0.12",
-    ]);
+    let f = check_forward(
+        "spread-hoist.yaml",
+        &[
+            "ropes.braid6.mu=0.2",
+            "parts.hook.load.mass=40",
+            "parts.hook.a.bearing.mu=0.12",
+        ],
+    );
     for p in ["p5", "p50", "p95"] {
         assert_eq!(num(&s["forward"][p]), f, "{p}");
     }
@@ -410,11 +492,14 @@ fn zero_width_ranges_reproduce_the_deterministic_values() {
 fn deterministic_commands_use_the_middle_of_a_range() {
     // Uniform 0.15..0.25 → 0.2; uniform 0.10..0.14 → 0.12; normal mean 40.
     let a = check_forward("spread-hoist.yaml", &[]);
-    let b = check_forward("spread-hoist.yaml", &[
-        "ropes.braid6.mu=0.2",
-        "parts.hook.load.mass=40",
-        "parts.hook.a.bearing.mu=0.12",
-    ]);
+    let b = check_forward(
+        "spread-hoist.yaml",
+        &[
+            "ropes.braid6.mu=0.2",
+            "parts.hook.load.mass=40",
+            "parts.hook.a.bearing.mu=0.12",
+        ],
+    );
     assert!(close(a, b, 1e-12), "{a} vs {b}");
 }
 
@@ -422,10 +507,19 @@ fn deterministic_commands_use_the_middle_of_a_range() {
 fn median_of_a_narrow_symmetric_range_is_the_deterministic_value() {
     let path = rig("spread-hoist.yaml");
     let s = json(&[
-        "spread", &path, "--samples", "400", "--seed", "11", "--json",
-        "--set", "parts.hook.load.mass=40",
-        "--set", "ropes.braid6.mu=0.2",
-        "--set", "parts.hook.a.bearing.mu={min: 0.11, max: 0.13}",
+        "spread",
+        &path,
+        "--samples",
+        "400",
+        "--seed",
+        "11",
+        "--json",
+        "--set",
+        "parts.hook.load.mass=40",
+        "--set",
+        "ropes.braid6.mu=0.2",
+        "--set",
+        "parts.hook.a.bearing.mu={min: 0.11, max: 0.13}",
     ]);
     let f = num(&s["nominal_forward"]);
     let p50 = num(&s["forward"]["p50"]);
@@ -434,7 +528,10 @@ fn median_of_a_narrow_symmetric_range_is_the_deterministic_value() {
     // the nominal value; sampling error of a median of 400 draws is about
     // 1.25·sigma/sqrt(400) with sigma ≈ (p95 − p5)/3.3 (uniform): well under 10 % of the
     // P5–P95 width.
-    assert!((p50 - f).abs() < 0.1 * (p95 - p5), "{p50} vs {f} ({p5}..{p95})");
+    assert!(
+        (p50 - f).abs() < 0.1 * (p95 - p5),
+        "{p50} vs {f} ({p5}..{p95})"
+    );
     assert!(p5 < f && f < p95);
 }
 
@@ -442,8 +539,26 @@ fn median_of_a_narrow_symmetric_range_is_the_deterministic_value() {
 fn same_seed_same_numbers_and_threads_do_not_matter() {
     let path = rig("spread-hoist.yaml");
     let a = ok(&["spread", &path, "--samples", "60", "--seed", "5"]);
-    let b = ok(&["spread", &path, "--samples", "60", "--seed", "5", "--threads", "1"]);
-    let c = ok(&["spread", &path, "--samples", "60", "--seed", "5", "--threads", "2"]);
+    let b = ok(&[
+        "spread",
+        &path,
+        "--samples",
+        "60",
+        "--seed",
+        "5",
+        "--threads",
+        "1",
+    ]);
+    let c = ok(&[
+        "spread",
+        &path,
+        "--samples",
+        "60",
+        "--seed",
+        "5",
+        "--threads",
+        "2",
+    ]);
     assert_eq!(a, b);
     assert_eq!(b, c);
     assert!(a.trim_end().ends_with("licensed person."));
@@ -454,12 +569,36 @@ fn same_seed_same_numbers_and_threads_do_not_matter() {
 #[test]
 fn share_not_moving_is_zero_or_one_when_the_range_sits_on_one_side() {
     let path = rig("spread-hoist.yaml");
-    let strong = json(&["spread", &path, "--samples", "50", "--json", "--set", "parts.hand.force=400 N"]);
+    let strong = json(&[
+        "spread",
+        &path,
+        "--samples",
+        "50",
+        "--json",
+        "--set",
+        "parts.hand.force=400 N",
+    ]);
     assert_eq!(num(&strong["share_not_moving"]), 0.0);
-    let weak = json(&["spread", &path, "--samples", "50", "--json", "--set", "parts.hand.force=100 N"]);
+    let weak = json(&[
+        "spread",
+        &path,
+        "--samples",
+        "50",
+        "--json",
+        "--set",
+        "parts.hand.force=100 N",
+    ]);
     assert_eq!(num(&weak["share_not_moving"]), 1.0);
     // In between, some samples move and some do not.
-    let mid = json(&["spread", &path, "--samples", "200", "--json", "--set", "parts.hand.force=207 N"]);
+    let mid = json(&[
+        "spread",
+        &path,
+        "--samples",
+        "200",
+        "--json",
+        "--set",
+        "parts.hand.force=207 N",
+    ]);
     let share = num(&mid["share_not_moving"]);
     assert!(share > 0.0 && share < 1.0, "{share}");
 }
@@ -467,10 +606,20 @@ fn share_not_moving_is_zero_or_one_when_the_range_sits_on_one_side() {
 #[test]
 fn malformed_ranges_and_variants_are_reported() {
     let path = rig("spread-hoist.yaml");
-    let out = run(&["check", &path, "--set", "ropes.braid6.mu={min: 0.3, max: 0.2}"]);
+    let out = run(&[
+        "check",
+        &path,
+        "--set",
+        "ropes.braid6.mu={min: 0.3, max: 0.2}",
+    ]);
     assert_eq!(out.status.code(), Some(2));
     assert!(String::from_utf8_lossy(&out.stderr).contains("larger than `max`"));
-    let out = run(&["check", &path, "--set", "ropes.braid6.mu={min: 0.3, mx: 0.2}"]);
+    let out = run(&[
+        "check",
+        &path,
+        "--set",
+        "ropes.braid6.mu={min: 0.3, mx: 0.2}",
+    ]);
     assert_eq!(out.status.code(), Some(2));
     let out = run(&["compare", &path, "--variants"]);
     assert_eq!(out.status.code(), Some(2));

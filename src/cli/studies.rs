@@ -58,7 +58,12 @@ pub struct SweepArgs {
     #[command(flatten)]
     pub rig: RigArgs,
     /// The value to vary: `KEY=FROM..TO` (e.g. `parts.head.bearing.mu=0.05..0.2`).
-    #[arg(long, value_name = "KEY=FROM..TO", conflicts_with = "stroke", required_unless_present = "stroke")]
+    #[arg(
+        long,
+        value_name = "KEY=FROM..TO",
+        conflicts_with = "stroke",
+        required_unless_present = "stroke"
+    )]
     pub vary: Option<String>,
     /// Move the drive forward through this travel instead (a length such as `500 mm`,
     /// or an angle such as `90 deg` for a drum drive).
@@ -158,26 +163,28 @@ pub fn run_compare(args: CompareArgs) -> Result<i32, Failure> {
     Ok(EXIT_OK)
 }
 
+/// Writes a study's result to an output.
+type Writer = Box<dyn Fn(&mut dyn Write) -> io::Result<()>>;
+
 /// `reeve sweep`.
 pub fn run_sweep(args: SweepArgs) -> Result<i32, Failure> {
     let format = args.format.format()?;
     let s = source(&args.rig)?;
-    let (chart, write): (String, Box<dyn Fn(&mut dyn Write) -> io::Result<()>>) =
-        if let Some(distance) = &args.stroke {
-            let st = sweep::stroke(&s, distance, args.steps.unwrap_or(10), 8).map_err(fail)?;
-            (
-                sweep::stroke_chart(&st),
-                Box::new(move |w| sweep::write_stroke(w, &st, format)),
-            )
-        } else {
-            let text = args.vary.as_deref().unwrap_or_default();
-            let vary = sweep::parse_vary(text).map_err(fail)?;
-            let sw = sweep::sweep(&s, &vary, args.steps.unwrap_or(11)).map_err(fail)?;
-            (
-                sweep::sweep_chart(&sw),
-                Box::new(move |w| sweep::write_sweep(w, &sw, format)),
-            )
-        };
+    let (chart, write): (String, Writer) = if let Some(distance) = &args.stroke {
+        let st = sweep::stroke(&s, distance, args.steps.unwrap_or(10), 8).map_err(fail)?;
+        (
+            sweep::stroke_chart(&st),
+            Box::new(move |w| sweep::write_stroke(w, &st, format)),
+        )
+    } else {
+        let text = args.vary.as_deref().unwrap_or_default();
+        let vary = sweep::parse_vary(text).map_err(fail)?;
+        let sw = sweep::sweep(&s, &vary, args.steps.unwrap_or(11)).map_err(fail)?;
+        (
+            sweep::sweep_chart(&sw),
+            Box::new(move |w| sweep::write_sweep(w, &sw, format)),
+        )
+    };
     if let Some(path) = &args.plot {
         write_file(path, &chart)?;
     }

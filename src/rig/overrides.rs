@@ -366,8 +366,7 @@ fn walk_ranges(
                                 found.push(Uncertain { key: p, ..u });
                             }
                             Err(message) => problems.push(Problem {
-                                location: (e.value.location.line > 0)
-                                    .then_some(e.value.location),
+                                location: (e.value.location.line > 0).then_some(e.value.location),
                                 subject: p,
                                 message,
                             }),

@@ -55,6 +55,8 @@ pub struct Changes {
 pub fn change_pct(x: Option<Real>, reference: Option<Real>) -> Option<Real> {
     let (x, r) = (x?, reference?);
     let c = (x - r) / r.abs() * 100.0;
+    // Round-off differences show as no change rather than "-0.0 %".
+    let c = if c.abs() < 1e-9 { 0.0 } else { c };
     (r != 0.0 && c.is_finite()).then_some(c)
 }
 
@@ -117,9 +119,9 @@ pub fn compare_variants(source: &RigSource) -> Result<Comparison, StudyError> {
     let units = rig.units;
     let mut columns = vec![figures("base", &rig, &solution)];
     for v in &variants {
-        let (rig, solution) = source.solve(&v.settings).map_err(|e| {
-            StudyError::Input(format!("variant `{}`: {e}", v.name))
-        })?;
+        let (rig, solution) = source
+            .solve(&v.settings)
+            .map_err(|e| StudyError::Input(format!("variant `{}`: {e}", v.name)))?;
         columns.push(figures(&v.name, &rig, &solution));
     }
     Ok(compare(columns, units))
@@ -155,9 +157,8 @@ fn rows(c: &Comparison, _rig_units: &UnitSystem) -> Vec<Row> {
     let asked = move |i: usize, x: Option<Real>| {
         crate::report::text::quantity(x, dimension_of(quantities[i]), &units)
     };
-    let force = move |_: usize, x: Option<Real>| {
-        crate::report::text::quantity(x, Dimension::Force, &units)
-    };
+    let force =
+        move |_: usize, x: Option<Real>| crate::report::text::quantity(x, Dimension::Force, &units);
     let pct = |_: usize, x: Option<Real>| match x {
         Some(v) => format!("{:.1} %", v * 100.0),
         None => "—".to_string(),
@@ -171,23 +172,98 @@ fn rows(c: &Comparison, _rig_units: &UnitSystem) -> Vec<Row> {
     let chg = |f: &dyn Fn(&super::compare::Changes) -> Option<Real>| {
         c.change_pct.iter().map(f).collect::<Vec<_>>()
     };
-    let unit = c
-        .columns
-        .first()
-        .map_or("N", |f| f.solve_for.unit);
+    let unit = c.columns.first().map_or("N", |f| f.solve_for.unit);
     vec![
-        Row { label: "ideal", unit, values: col(&|f| f.ideal), changes: chg(&|x| x.ideal), show: Box::new(asked.clone()) },
-        Row { label: "forward", unit, values: col(&|f| f.forward), changes: chg(&|x| x.forward), show: Box::new(asked.clone()) },
-        Row { label: "back", unit, values: col(&|f| f.back), changes: chg(&|x| x.back), show: Box::new(asked.clone()) },
-        Row { label: "efficiency", unit: "1", values: col(&|f| f.efficiency), changes: chg(&|x| x.efficiency), show: Box::new(pct) },
-        Row { label: "holding band low", unit, values: col(&|f| f.holding_band[0]), changes: vec![None; c.columns.len()], show: Box::new(asked.clone()) },
-        Row { label: "holding band high", unit, values: col(&|f| f.holding_band[1]), changes: vec![None; c.columns.len()], show: Box::new(asked) },
-        Row { label: "self-locking", unit: "", values: col(&|f| Some(if f.self_locking { 1.0 } else { 0.0 })), changes: vec![None; c.columns.len()], show: Box::new(|_, x: Option<Real>| if x == Some(1.0) { "yes".into() } else { "no".into() }) },
-        Row { label: "largest tension", unit: "N", values: col(&|f| f.largest_tension_n), changes: chg(&|x| x.largest_tension_n), show: Box::new(force) },
-        Row { label: "lowest safety factor", unit: "1", values: col(&|f| f.lowest_safety_factor), changes: chg(&|x| x.lowest_safety_factor), show: Box::new(plain) },
-        Row { label: "largest fleet angle", unit: "deg", values: col(&|f| f.largest_fleet_deg), changes: chg(&|x| x.largest_fleet_deg), show: Box::new(deg) },
-        Row { label: "smallest D/d", unit: "1", values: col(&|f| f.smallest_bend_ratio), changes: chg(&|x| x.smallest_bend_ratio), show: Box::new(plain) },
-        Row { label: "warnings", unit: "", values: col(&|f| Some(f.warnings as Real)), changes: vec![None; c.columns.len()], show: Box::new(|_, x: Option<Real>| number(x, 4)) },
+        Row {
+            label: "ideal",
+            unit,
+            values: col(&|f| f.ideal),
+            changes: chg(&|x| x.ideal),
+            show: Box::new(asked.clone()),
+        },
+        Row {
+            label: "forward",
+            unit,
+            values: col(&|f| f.forward),
+            changes: chg(&|x| x.forward),
+            show: Box::new(asked.clone()),
+        },
+        Row {
+            label: "back",
+            unit,
+            values: col(&|f| f.back),
+            changes: chg(&|x| x.back),
+            show: Box::new(asked.clone()),
+        },
+        Row {
+            label: "efficiency",
+            unit: "1",
+            values: col(&|f| f.efficiency),
+            changes: chg(&|x| x.efficiency),
+            show: Box::new(pct),
+        },
+        Row {
+            label: "holding band low",
+            unit,
+            values: col(&|f| f.holding_band[0]),
+            changes: vec![None; c.columns.len()],
+            show: Box::new(asked.clone()),
+        },
+        Row {
+            label: "holding band high",
+            unit,
+            values: col(&|f| f.holding_band[1]),
+            changes: vec![None; c.columns.len()],
+            show: Box::new(asked),
+        },
+        Row {
+            label: "self-locking",
+            unit: "",
+            values: col(&|f| Some(if f.self_locking { 1.0 } else { 0.0 })),
+            changes: vec![None; c.columns.len()],
+            show: Box::new(|_, x: Option<Real>| {
+                if x == Some(1.0) {
+                    "yes".into()
+                } else {
+                    "no".into()
+                }
+            }),
+        },
+        Row {
+            label: "largest tension",
+            unit: "N",
+            values: col(&|f| f.largest_tension_n),
+            changes: chg(&|x| x.largest_tension_n),
+            show: Box::new(force),
+        },
+        Row {
+            label: "lowest safety factor",
+            unit: "1",
+            values: col(&|f| f.lowest_safety_factor),
+            changes: chg(&|x| x.lowest_safety_factor),
+            show: Box::new(plain),
+        },
+        Row {
+            label: "largest fleet angle",
+            unit: "deg",
+            values: col(&|f| f.largest_fleet_deg),
+            changes: chg(&|x| x.largest_fleet_deg),
+            show: Box::new(deg),
+        },
+        Row {
+            label: "smallest D/d",
+            unit: "1",
+            values: col(&|f| f.smallest_bend_ratio),
+            changes: chg(&|x| x.smallest_bend_ratio),
+            show: Box::new(plain),
+        },
+        Row {
+            label: "warnings",
+            unit: "",
+            values: col(&|f| Some(f.warnings as Real)),
+            changes: vec![None; c.columns.len()],
+            show: Box::new(|_, x: Option<Real>| number(x, 4)),
+        },
     ]
 }
 
@@ -219,7 +295,12 @@ pub fn human_table(c: &Comparison) -> Table {
 pub fn csv_table(c: &Comparison) -> Table {
     let mut headers = vec!["figure".to_string(), "unit".to_string()];
     headers.extend(c.columns.iter().map(|f| f.label.clone()));
-    headers.extend(c.columns.iter().skip(1).map(|f| format!("{} change %", f.label)));
+    headers.extend(
+        c.columns
+            .iter()
+            .skip(1)
+            .map(|f| format!("{} change %", f.label)),
+    );
     let rows = rows(c, &c.units)
         .into_iter()
         .map(|r| {

@@ -275,7 +275,8 @@ pub fn number_and_unit(text: &str) -> Option<(Real, String)> {
                 || c == '.'
                 || ((c == '+' || c == '-') && (i == 0 || text[..i].ends_with(['e', 'E'])))
                 || ((c == 'e' || c == 'E')
-                    && text[i + 1..].starts_with(|d: char| d.is_ascii_digit() || d == '-' || d == '+')))
+                    && text[i + 1..]
+                        .starts_with(|d: char| d.is_ascii_digit() || d == '-' || d == '+')))
         })
         .map_or(text.len(), |(i, _)| i);
     let (number, unit) = text.split_at(split);

@@ -34,7 +34,9 @@ const LEFT: Real = 80.0;
 const RIGHT: Real = 170.0;
 const TOP: Real = 40.0;
 const BOTTOM: Real = 60.0;
-const COLOURS: &[&str] = &["#1f77b4", "#d62728", "#2ca02c", "#9467bd", "#ff7f0e", "#8c564b"];
+const COLOURS: &[&str] = &[
+    "#1f77b4", "#d62728", "#2ca02c", "#9467bd", "#ff7f0e", "#8c564b",
+];
 
 fn escape(text: &str) -> String {
     text.replace('&', "&amp;")
@@ -91,7 +93,10 @@ pub fn svg(panels: &[Panel]) -> String {
 fn panel_svg(out: &mut String, panel: &Panel, y0: Real) {
     let (px0, px1) = (LEFT, WIDTH - RIGHT);
     let (py0, py1) = (y0 + TOP, y0 + PANEL_HEIGHT - BOTTOM);
-    let xs = panel.series.iter().flat_map(|s| s.points.iter().map(|p| p.0));
+    let xs = panel
+        .series
+        .iter()
+        .flat_map(|s| s.points.iter().map(|p| p.0));
     let ys = panel
         .series
         .iter()

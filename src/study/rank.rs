@@ -277,7 +277,8 @@ pub fn rank(source: &RigSource, alt: Option<&Alternative>) -> Result<Ranking, St
     }
     let key = |r: &RankRow| {
         if alt.is_some() {
-            r.alternative_saved.or(r.frictionless_saved.map(|_| Real::NEG_INFINITY))
+            r.alternative_saved
+                .or(r.frictionless_saved.map(|_| Real::NEG_INFINITY))
         } else {
             r.frictionless_saved
         }

@@ -267,6 +267,15 @@ fn dimension_of(quantity: &str) -> Dimension {
     }
 }
 
+/// A row of the spread table: name, SI unit, dimension, nominal value, percentiles.
+type Row<'a> = (
+    &'a str,
+    &'a str,
+    Dimension,
+    Option<Real>,
+    Option<Percentiles>,
+);
+
 /// Writes a spread.
 ///
 /// # Errors
@@ -278,10 +287,16 @@ pub fn write(w: &mut dyn Write, s: &Spread, format: Format) -> io::Result<()> {
     }
     let d = dimension_of(s.solve_for.quantity);
     let si = s.solve_for.unit;
-    let rows: [(&str, &str, Dimension, Option<Real>, Option<Percentiles>); 3] = [
+    let rows: [Row; 3] = [
         ("forward", si, d, s.nominal_forward, s.forward),
         ("back", si, d, s.nominal_back, s.back),
-        ("largest tension", "N", Dimension::Force, None, s.largest_tension_n),
+        (
+            "largest tension",
+            "N",
+            Dimension::Force,
+            None,
+            s.largest_tension_n,
+        ),
     ];
     let mut t = Table::default();
     if format == Format::Csv {
@@ -300,7 +315,9 @@ pub fn write(w: &mut dyn Write, s: &Spread, format: Format) -> io::Result<()> {
         }
         return t.write_csv(w);
     }
-    t.headers = ["", "nominal", "P5", "P50", "P95"].map(String::from).to_vec();
+    t.headers = ["", "nominal", "P5", "P50", "P95"]
+        .map(String::from)
+        .to_vec();
     for (name, _, dim, nominal, p) in rows {
         let q = |x| quantity(x, dim, &s.units);
         t.rows.push(vec![
@@ -319,7 +336,11 @@ pub fn write(w: &mut dyn Write, s: &Spread, format: Format) -> io::Result<()> {
         notes.push("The rig gives no value as a range, so every sample is the nominal rig.".into());
     }
     for i in &s.inputs {
-        let u = if i.unit.is_empty() { String::new() } else { format!(" {}", i.unit) };
+        let u = if i.unit.is_empty() {
+            String::new()
+        } else {
+            format!(" {}", i.unit)
+        };
         notes.push(match i.distribution {
             "uniform" => format!(
                 "`{}`: uniform from {}{u} to {}{u}",
@@ -371,10 +392,36 @@ mod tests {
     #[test]
     fn zero_width_draws_are_exact() {
         let mut r = Rng::stream(3, 9);
-        assert_eq!(draw(&Distribution::Uniform { min: 0.15, max: 0.15 }, &mut r), 0.15);
-        assert_eq!(draw(&Distribution::Normal { mean: 0.15, sd: 0.0 }, &mut r), 0.15);
+        assert_eq!(
+            draw(
+                &Distribution::Uniform {
+                    min: 0.15,
+                    max: 0.15
+                },
+                &mut r
+            ),
+            0.15
+        );
+        assert_eq!(
+            draw(
+                &Distribution::Normal {
+                    mean: 0.15,
+                    sd: 0.0
+                },
+                &mut r
+            ),
+            0.15
+        );
         for _ in 0..100 {
-            assert!(draw(&Distribution::Normal { mean: 0.01, sd: 0.1 }, &mut r) >= 0.0);
+            assert!(
+                draw(
+                    &Distribution::Normal {
+                        mean: 0.01,
+                        sd: 0.1
+                    },
+                    &mut r
+                ) >= 0.0
+            );
         }
     }
 }

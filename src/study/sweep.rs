@@ -17,10 +17,10 @@ use serde::Serialize;
 use crate::math::Real;
 use crate::report::text::{number, quantity};
 use crate::report::{finite, CAUTION};
+use crate::rig::model::PartKind;
 use crate::rig::Rig;
 use crate::solve::kinematics::Motion;
 use crate::solve::Solution;
-use crate::rig::model::PartKind;
 use crate::units::{parse_quantity, Dimension, UnitSystem};
 
 use super::plot::{self, Panel, Series};
