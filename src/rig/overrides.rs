@@ -449,3 +449,56 @@ fn range_of(node: &Node) -> Option<Result<Uncertain, String>> {
     })();
     Some(result)
 }
+
+#[cfg(test)]
+mod study_tests {
+    use super::*;
+    use crate::rig::file::parse_tree;
+
+    fn tree(text: &str) -> Node {
+        parse_tree(text).unwrap().0.unwrap()
+    }
+
+    #[test]
+    fn variants_as_lists_and_mappings() {
+        let root = tree(
+            "variants:\n  a: [\"parts.x.mu=0.1\", \"parts.y.load.mass = 60 kg\"]\n  b: {parts.x.bearing: {kind: none}, parts.z.at: [1, 2, 3], title: \"a: b\"}\n",
+        );
+        let (v, p) = read_variants(&root.entries().unwrap()[0].value);
+        assert!(p.is_empty(), "{p:?}");
+        assert_eq!(
+            v[0].settings[1],
+            ("parts.y.load.mass".into(), "60 kg".into())
+        );
+        assert_eq!(v[1].settings[0].1, "{kind: none}");
+        assert_eq!(v[1].settings[1].1, "[1, 2, 3]");
+        assert_eq!(v[1].settings[2].1, "\"a: b\"");
+        let (_, p) = read_variants(&tree("v: [a]\n").entries().unwrap()[0].value);
+        assert_eq!(p.len(), 1);
+    }
+
+    #[test]
+    fn ranges_are_found_and_replaced_by_nominal_values() {
+        let mut root = tree(
+            "ropes:\n  r: {mu: {min: 0.1, max: 0.3}}\nparts:\n  h.a: {load: {mass: {mean: 40 kg, sd: 2 kg}}}\n  g: {diameter: {min: 1, max: 2}}\n",
+        );
+        let (found, problems) = take_ranges(&mut root);
+        assert!(problems.is_empty(), "{problems:?}");
+        assert_eq!(found.len(), 2);
+        assert_eq!(found[0].key, "ropes.r.mu");
+        assert_eq!(found[0].distribution.nominal(), 0.2);
+        assert_eq!(found[1].key, "parts.h.a.load.mass");
+        assert_eq!(found[1].unit, "kg");
+        assert_eq!(
+            found[1].setting(41.5),
+            ("parts.h.a.load.mass".into(), "41.5 kg".into())
+        );
+        let top = root.entries().unwrap();
+        let rope = top[0].value.entries().unwrap()[0].value.entries().unwrap();
+        assert_eq!(rope[0].value.scalar(), Some("0.2"));
+        let mut bad = tree("ropes:\n  r: {mu: {min: 0.3, max: 0.1}}\n");
+        assert_eq!(take_ranges(&mut bad).1.len(), 1);
+        let mut bad = tree("ropes:\n  r: {mu: {min: 1 kg, max: 2 N}}\n");
+        assert_eq!(take_ranges(&mut bad).1.len(), 1);
+    }
+}
