@@ -39,7 +39,7 @@ use crate::rig::model::{
     Bearing, Block, BlockLoad, Contact, Drum, Guide, Haul, Limits, Line, Location, Part, PartKind,
     PathEntry, Rig, Rope, RopeKind, Shaft, Sheave, Side, Thrust, Weight,
 };
-use crate::rig::overrides::apply_overrides;
+use crate::rig::overrides::{apply_overrides, read_variants, take_ranges, Uncertain, Variant};
 use crate::rig::suggest::did_you_mean;
 use crate::units::{parse_quantity, parse_unit_of, Dimension, UnitError, UnitSystem};
 
@@ -156,6 +156,8 @@ pub fn load_str_with(
         }]));
     };
     problems.extend(apply_overrides(&mut root, overrides));
+    // Ranges resolve to their nominal value here (see `overrides::take_ranges`).
+    problems.extend(take_ranges(&mut root).1);
     match resolve(&root, source) {
         Ok(rig) if problems.is_empty() => Ok(rig),
         Ok(_) => Err(fail(sorted(problems))),
@@ -165,6 +167,57 @@ pub fn load_str_with(
             problems.extend(more);
             Err(fail(sorted(problems)))
         }
+    }
+}
+
+/// The named variants of rig text (its `variants:` key), each a list of overrides.
+///
+/// # Errors
+/// A [`LoadError`] when the text cannot be parsed or `variants` is malformed.
+pub fn variants_str(text: &str, source: &str) -> Result<Vec<Variant>, LoadError> {
+    let fail = |problems: Vec<Problem>| LoadError {
+        file: source.to_string(),
+        problems,
+    };
+    let (root, _) = parse_tree(text).map_err(fail)?;
+    let node = root
+        .as_ref()
+        .and_then(Node::entries)
+        .and_then(|top| get(top, "variants"));
+    match node {
+        None => Ok(Vec::new()),
+        Some(n) => match read_variants(n) {
+            (v, p) if p.is_empty() => Ok(v),
+            (_, p) => Err(fail(p)),
+        },
+    }
+}
+
+/// The values written as ranges in rig text, after applying `overrides` (an override
+/// that sets a ranged key to one number removes its range).
+///
+/// # Errors
+/// A [`LoadError`] when the text cannot be parsed or a range is malformed.
+pub fn ranges_str(
+    text: &str,
+    source: &str,
+    overrides: &[(String, String)],
+) -> Result<Vec<Uncertain>, LoadError> {
+    let fail = |problems: Vec<Problem>| LoadError {
+        file: source.to_string(),
+        problems,
+    };
+    let (root, _) = parse_tree(text).map_err(fail)?;
+    let Some(mut root) = root else {
+        return Ok(Vec::new());
+    };
+    let mut problems = apply_overrides(&mut root, overrides);
+    let (found, more) = take_ranges(&mut root);
+    problems.extend(more);
+    if problems.is_empty() {
+        Ok(found)
+    } else {
+        Err(fail(problems))
     }
 }
 
@@ -224,6 +277,7 @@ const TOP_KEYS: &[&str] = &[
     "drive",
     "solve_for",
     "runs_back",
+    "variants",
 ];
 const UNIT_KEYS: &[&str] = &["length", "force", "mass", "torque"];
 const LIMIT_KEYS: &[&str] = &["fleet_angle", "design_factor"];
@@ -963,6 +1017,9 @@ fn resolve(root: &Node, source: &str) -> Result<Rig, Vec<Problem>> {
     };
     r.keys(top, "", TOP_KEYS, "a rig file");
     let here = root.location;
+    if let Some(n) = get(top, "variants") {
+        r.problems.extend(read_variants(n).1);
+    }
 
     // format
     if let Some(n) = r.require(top, "format", "", here, "`format: 1`") {
