@@ -262,7 +262,8 @@ fn rows(c: &Comparison, _rig_units: &UnitSystem) -> Vec<Row> {
             unit: "",
             values: col(&|f| Some(f.warnings as Real)),
             changes: vec![None; c.columns.len()],
-            show: Box::new(|_, x: Option<Real>| number(x, 4)),
+            // A count: no decimals.
+            show: Box::new(|_, x: Option<Real>| x.map_or("—".into(), |v| format!("{v:.0}"))),
         },
     ]
 }
