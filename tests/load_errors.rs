@@ -691,3 +691,22 @@ fn problems_are_capped_with_a_count() {
     assert!(e.problems.len() <= 202, "{}", e.problems.len());
     assert!(e.to_string().contains("more problems not listed"), "{e}");
 }
+
+#[test]
+fn overrides_may_add_a_missing_key_and_remove_an_optional_one() {
+    use reeve::rig::model::PartKind;
+    let rig = load_str_with(
+        EXAMPLE,
+        "rig.yaml",
+        &set(&[
+            ("parts.head.mass", "2 kg"),
+            ("ropes.braid6.breaking_strength", "~"),
+        ]),
+    )
+    .unwrap();
+    let PartKind::Sheave(head) = &rig.parts[1].kind else {
+        panic!()
+    };
+    assert_eq!(head.mass, Some(2.0));
+    assert_eq!(rig.ropes[0].breaking_strength, None);
+}
