@@ -578,8 +578,91 @@ fn mutate(text: &str, edits: &[(usize, u8, u8)]) -> String {
     String::from_utf8_lossy(&bytes).into_owned()
 }
 
+/// The example with some words (runs of letters, digits, dots and signs) replaced by
+/// tokens that exercise the checks rather than the YAML syntax.
+fn substitute(text: &str, edits: &[(usize, u8)]) -> String {
+    const TOKENS: &[&str] = &[
+        ".nan",
+        "-.inf",
+        "-1",
+        "0",
+        "1e400",
+        "[]",
+        "{}",
+        "~",
+        "[0, 0, 0]",
+        "\"6 furlong\"",
+        "hook",
+        "head",
+        "hook.a",
+        "hand",
+        "eye",
+        "guide",
+        "drum",
+        "weight",
+        "none",
+        "rated",
+        "\"12 lbf\"",
+        "\"2.5 in\"",
+        "{kind: none}",
+        "{part: head, turns: 2, side: left}",
+        "[1, 2, 3]",
+        "yes",
+        "on",
+        "&a x",
+        "*a",
+        "!!str 5",
+        "\"40 kg\"",
+        "efficiency",
+    ];
+    let mut words: Vec<(usize, usize)> = Vec::new();
+    let bytes = text.as_bytes();
+    let mut i = 0;
+    while i < bytes.len() {
+        let is_word = |b: u8| b.is_ascii_alphanumeric() || matches!(b, b'.' | b'_' | b'-' | b'*');
+        if is_word(bytes[i]) {
+            let start = i;
+            while i < bytes.len() && is_word(bytes[i]) {
+                i += 1;
+            }
+            words.push((start, i));
+        } else {
+            i += 1;
+        }
+    }
+    let mut chosen: Vec<(usize, usize, &str)> = edits
+        .iter()
+        .map(|&(w, t)| {
+            let (a, b) = words[w % words.len()];
+            (a, b, TOKENS[t as usize % TOKENS.len()])
+        })
+        .collect();
+    chosen.sort_by_key(|c| std::cmp::Reverse(c.0));
+    chosen.dedup_by_key(|c| c.0);
+    let mut out = text.to_string();
+    for (a, b, token) in chosen {
+        out.replace_range(a..b, token);
+    }
+    out
+}
+
 proptest! {
     #![proptest_config(ProptestConfig { cases: 600, ..ProptestConfig::default() })]
+
+    /// Substituted values never panic, and a rig that loads holds only finite numbers.
+    #[test]
+    fn random_substitutions_never_panic(edits in prop::collection::vec((0usize..400, any::<u8>()), 1..6)) {
+        let text = substitute(EXAMPLE, &edits);
+        match load_str(&text, "rig.yaml") {
+            Ok(rig) => {
+                for p in &rig.parts {
+                    prop_assert!(p.at.coords.iter().all(|c| c.is_finite()), "{text}");
+                }
+                prop_assert!(rig.ropes.iter().all(|r| r.diameter > 0.0 && r.mu.is_finite()));
+            }
+            Err(e) => prop_assert!(!e.problems.is_empty()),
+        }
+    }
 
     /// Loading never panics and never returns an error without a problem.
     #[test]
@@ -599,4 +682,31 @@ proptest! {
             }
         }
     }
+}
+
+#[test]
+fn problems_are_capped_with_a_count() {
+    let text: String = (0..5000).map(|i| format!("k{i}: {i}\n")).collect();
+    let e = fails(&text);
+    assert!(e.problems.len() <= 202, "{}", e.problems.len());
+    assert!(e.to_string().contains("more problems not listed"), "{e}");
+}
+
+#[test]
+fn overrides_may_add_a_missing_key_and_remove_an_optional_one() {
+    use reeve::rig::model::PartKind;
+    let rig = load_str_with(
+        EXAMPLE,
+        "rig.yaml",
+        &set(&[
+            ("parts.head.mass", "2 kg"),
+            ("ropes.braid6.breaking_strength", "~"),
+        ]),
+    )
+    .unwrap();
+    let PartKind::Sheave(head) = &rig.parts[1].kind else {
+        panic!()
+    };
+    assert_eq!(head.mass, Some(2.0));
+    assert_eq!(rig.ropes[0].breaking_strength, None);
 }

@@ -31,6 +31,17 @@ pub const MAX_DEPTH: usize = 64;
 pub const MAX_NODES: usize = 200_000;
 /// Most bytes of scalar text copied by alias expansion.
 pub const MAX_EXPANDED_BYTES: usize = 4 << 20;
+/// Most problems listed from one stage; the rest are counted in a closing note.
+pub const MAX_PROBLEMS: usize = 100;
+
+/// The closing note for problems not listed.
+pub fn more_problems(dropped: usize) -> Problem {
+    Problem {
+        location: None,
+        subject: "document".to_string(),
+        message: format!("{dropped} more problems not listed; fix the ones above first"),
+    }
+}
 
 /// A value with the place it was written. Nodes made by an override have line 0.
 #[derive(Debug, Clone, PartialEq)]
@@ -116,6 +127,14 @@ impl Node {
         }
     }
 
+    /// Like [`Node::describe`], naming a list's length.
+    pub fn describe_list(&self) -> String {
+        match &self.value {
+            Value::Seq(items) => format!("a list of {}", items.len()),
+            _ => self.describe(),
+        }
+    }
+
     fn count(&self) -> (usize, usize) {
         match &self.value {
             Value::Scalar { text, .. } => (1, text.len()),
@@ -184,6 +203,16 @@ struct Builder {
     root: Option<Node>,
     documents: usize,
     problems: Vec<Problem>,
+    dropped: usize,
+}
+
+/// Records a problem that does not stop reading, up to [`MAX_PROBLEMS`].
+fn note(problems: &mut Vec<Problem>, dropped: &mut usize, problem: Problem) {
+    if problems.len() < MAX_PROBLEMS {
+        problems.push(problem);
+    } else {
+        *dropped += 1;
+    }
 }
 
 /// Why reading stopped.
@@ -205,6 +234,7 @@ impl Builder {
             root: None,
             documents: 0,
             problems: Vec::new(),
+            dropped: 0,
         }
     }
 
@@ -247,8 +277,15 @@ impl Builder {
             self.anchors.insert(anchor, (node.clone(), n, b));
         }
         let path = self.path();
-        match self.stack.last_mut() {
-            None => self.root = Some(node),
+        let Builder {
+            stack,
+            root,
+            problems,
+            dropped,
+            ..
+        } = self;
+        match stack.last_mut() {
+            None => *root = Some(node),
             Some(Frame::Seq { items, .. }) => items.push(node),
             Some(Frame::Map {
                 entries, seen, key, ..
@@ -256,11 +293,15 @@ impl Builder {
                 None => match node.value {
                     Value::Scalar { text, .. } => *key = Some((Some(text), node.location)),
                     _ => {
-                        self.problems.push(fatal(
-                            node.location,
-                            &path,
-                            "a mapping key must be a plain name, not a list or mapping",
-                        ));
+                        note(
+                            problems,
+                            dropped,
+                            fatal(
+                                node.location,
+                                &path,
+                                "a mapping key must be a plain name, not a list or mapping",
+                            ),
+                        );
                         *key = Some((None, node.location));
                     }
                 },
@@ -268,7 +309,7 @@ impl Builder {
                 Some((Some(k), key_location)) => {
                     if let Some(first) = seen.get(&k) {
                         // `path` already ends with this key.
-                        self.problems.push(fatal(
+                        note(problems, dropped, fatal(
                             key_location,
                             &path,
                             format!(
@@ -454,7 +495,11 @@ pub fn parse_tree(text: &str) -> Result<(Option<Node>, Vec<Problem>), Vec<Proble
             }
         }
         let root = builder.root.take().filter(|r| !r.is_null());
-        Ok((root, builder.problems))
+        let mut problems = builder.problems;
+        if builder.dropped > 0 {
+            problems.push(more_problems(builder.dropped));
+        }
+        Ok((root, problems))
     });
     match outcome {
         Ok(result) => result,

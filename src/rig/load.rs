@@ -34,7 +34,9 @@ use std::path::Path;
 
 use crate::math::{Direction, Point, Real, Vector};
 use crate::rig::error::{LoadError, Problem};
-use crate::rig::file::{parse_tree, Entry, Node, Value, MAX_INPUT_BYTES};
+use crate::rig::file::{
+    more_problems, parse_tree, Entry, Node, Value, MAX_INPUT_BYTES, MAX_PROBLEMS,
+};
 use crate::rig::model::{
     Bearing, Block, BlockLoad, Contact, Drum, Guide, Haul, Limits, Line, Location, Part, PartKind,
     PathEntry, Rig, Rope, RopeKind, Shaft, Sheave, Side, Thrust, Weight,
@@ -408,10 +410,21 @@ struct Resolver {
     units: UnitSystem,
     gravity: Direction,
     problems: Vec<Problem>,
+    dropped: usize,
 }
 
 impl Resolver {
+    /// Whether enough problems are listed; later ones are only counted, and costly
+    /// suggestions are skipped.
+    fn is_full(&self) -> bool {
+        self.problems.len() >= MAX_PROBLEMS
+    }
+
     fn report(&mut self, at: Location, subject: impl Into<String>, message: impl Into<String>) {
+        if self.is_full() {
+            self.dropped += 1;
+            return;
+        }
         self.problems.push(Problem {
             location: (at.line > 0).then_some(at),
             subject: subject.into(),
@@ -437,7 +450,11 @@ impl Resolver {
     /// Reports keys not in `allowed`.
     fn keys(&mut self, entries: &[Entry], path: &str, allowed: &[&str], context: &str) {
         for e in entries {
-            if !allowed.contains(&e.key.as_str()) {
+            if self.is_full() {
+                if !allowed.contains(&e.key.as_str()) {
+                    self.dropped += 1;
+                }
+            } else if !allowed.contains(&e.key.as_str()) {
                 let hint = did_you_mean(&e.key, allowed.iter().copied());
                 let tail = if hint.is_empty() {
                     if allowed.is_empty() {
@@ -959,7 +976,11 @@ impl Resolver {
         match names.index.get(name) {
             Some(&i) => Some(i),
             None => {
-                let hint = hint_or_list(name, &names.names);
+                let hint = if self.is_full() {
+                    String::new()
+                } else {
+                    hint_or_list(name, &names.names)
+                };
                 self.report(
                     node.location,
                     path,
@@ -967,16 +988,6 @@ impl Resolver {
                 );
                 None
             }
-        }
-    }
-}
-
-impl Node {
-    /// Like [`Node::describe`], naming a list's length.
-    fn describe_list(&self) -> String {
-        match &self.value {
-            Value::Seq(items) => format!("a list of {}", items.len()),
-            _ => self.describe(),
         }
     }
 }
@@ -1007,6 +1018,7 @@ fn resolve(root: &Node, source: &str) -> Result<Rig, Vec<Problem>> {
         units: UnitSystem::default(),
         gravity: -Vector::z_axis(),
         problems: Vec::new(),
+        dropped: 0,
     };
     let Some(top) = r.mapping(
         root,
@@ -1230,6 +1242,9 @@ fn resolve(root: &Node, source: &str) -> Result<Rig, Vec<Problem>> {
         }
     }
 
+    if r.dropped > 0 {
+        r.problems.push(more_problems(r.dropped));
+    }
     if !r.problems.is_empty() {
         return Err(r.problems);
     }
@@ -1444,85 +1459,92 @@ fn part(
             }))
         }
         Kind::Weight => {
-            let mass = if is_unknown {
-                r.opt_non_negative(entries, "mass", &path, Dimension::Mass)
-            } else {
-                r.require(
-                    entries,
-                    "mass",
-                    &path,
-                    at,
-                    "the hanging mass, such as `40 kg`",
-                )
-                .and_then(|_| r.opt_non_negative(entries, "mass", &path, Dimension::Mass))
+            let mass = match get(entries, "mass") {
+                Some(n) => {
+                    let p = join(&path, "mass");
+                    let v = r.quantity(n, &p, Dimension::Mass);
+                    r.check(v, n, &p, |v| v > 0.0, "a positive mass").map(Some)
+                }
+                None if is_unknown => Some(None),
+                None => {
+                    r.require(
+                        entries,
+                        "mass",
+                        &path,
+                        at,
+                        "the hanging mass, such as `40 kg`",
+                    );
+                    None
+                }
             };
-            let mass = match (mass, get(entries, "mass")) {
-                (Some(m), Some(n)) => Some(r.check(
-                    Some(m),
-                    n,
-                    &join(&path, "mass"),
-                    |v| v > 0.0,
-                    "a positive mass",
-                )?),
-                (m, _) => m,
-            };
-            if mass.is_none() && !is_unknown {
-                return None;
-            }
-            Some(PartKind::Weight(Weight { mass }))
+            Some(PartKind::Weight(Weight { mass: mass? }))
         }
         Kind::Drum => {
             let axle = axle(r);
             let diameter = r.size(entries, "diameter", &path, at);
-            let shaft = match get(entries, "shaft") {
-                Some(n) => Some(shaft(r, n, &join(&path, "shaft"))?),
-                None => None,
-            };
+            // Each field is checked before any failure is acted on, so that every
+            // problem in the part is reported.
+            let shaft = get(entries, "shaft").map(|n| shaft(r, n, &join(&path, "shaft")));
             let torque = match get(entries, "torque") {
-                Some(n) => Some(r.quantity(n, &join(&path, "torque"), Dimension::Torque)?),
-                None if is_unknown => None,
+                Some(n) => r
+                    .quantity(n, &join(&path, "torque"), Dimension::Torque)
+                    .map(Some),
+                None if is_unknown => Some(None),
+                None => Some(Some(0.0)),
+            };
+            let drag = match get(entries, "drag") {
+                Some(_) => r.opt_non_negative(entries, "drag", &path, Dimension::Torque),
                 None => Some(0.0),
             };
-            let drag = r.opt_non_negative(entries, "drag", &path, Dimension::Torque);
-            if drag.is_none() && get(entries, "drag").is_some() {
-                return None;
-            }
             let mu = r.opt_mu(entries, "mu", &path);
             let mass = own_mass(r);
+            let shaft = match shaft {
+                Some(s) => Some(s?),
+                None => None,
+            };
             Some(PartKind::Drum(Drum {
                 axle: axle?,
                 diameter: diameter?,
                 shaft,
-                torque,
-                drag: drag.unwrap_or(0.0),
+                torque: torque?,
+                drag: drag?,
                 mu,
                 mass,
             }))
         }
         Kind::Haul => {
-            let pull = match get(entries, "pull") {
-                Some(n) => Some(r.direction(n, &join(&path, "pull"))?),
-                None => None,
-            };
+            let pull = get(entries, "pull").map(|n| r.direction(n, &join(&path, "pull")));
             let force = match get(entries, "force") {
                 Some(n) => {
                     let p = join(&path, "force");
                     let v = r.quantity(n, &p, Dimension::Force);
-                    Some(r.check(
+                    r.check(
                         v,
                         n,
                         &p,
                         |v| v > 0.0,
                         "a positive force (a rope can only pull)",
-                    )?)
+                    )
+                    .map(Some)
                 }
-                None if !is_unknown => {
-                    r.report(at, join(&path, "force"), "missing `force`; a haul that is not `solve_for` needs the force applied to it, such as `200 N`");
-                    return None;
+                None if is_unknown => Some(None),
+                None => {
+                    r.report(
+                        at,
+                        join(&path, "force"),
+                        "missing `force`; a haul that is not `solve_for` needs the force applied to it, such as `200 N`",
+                    );
+                    None
                 }
+            };
+            let pull = match pull {
+                Some(d) => Some(d?),
                 None => None,
             };
-            Some(PartKind::Haul(Haul { pull, force }))
+            Some(PartKind::Haul(Haul {
+                pull,
+                force: force?,
+            }))
         }
     };
     Some(Part {
@@ -1646,7 +1668,11 @@ fn line(r: &mut Resolver, e: &Entry, rope_names: &[String], names: &Names) -> Op
             match rope_names.iter().position(|x| x == name) {
                 Some(i) => Some(i),
                 None => {
-                    let hint = hint_or_list(name, rope_names);
+                    let hint = if r.is_full() {
+                        String::new()
+                    } else {
+                        hint_or_list(name, rope_names)
+                    };
                     r.report(
                         n.location,
                         p,

@@ -44,9 +44,10 @@ where
         4..=6 => 2,
         _ => 3,
     };
+    let length = lower.chars().count();
     candidates
         .into_iter()
-        .filter(|c| c.len() <= 200)
+        .filter(|c| c.len() <= 200 && c.chars().count().abs_diff(length) <= limit)
         .map(|c| (edit_distance(&lower, &c.to_lowercase()), c))
         .filter(|&(d, _)| d <= limit)
         .min_by_key(|&(d, _)| d)
