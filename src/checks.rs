@@ -93,9 +93,45 @@ pub fn geometry_checks(rig: &Rig, geometry: &crate::geometry::Geometry) -> Vec<W
     out
 }
 
+/// A hanging weight whose line leaves it more than this off plumb would swing (2°).
+pub const OFF_PLUMB: Real = 2.0 * std::f64::consts::PI / 180.0;
+
+/// Weights hang plumb: the lines' resultant pull on a hanging weight must run against
+/// gravity (ideal case), or the weight would swing until it does and the figures would
+/// not hold.
+pub fn plumb_checks(rig: &Rig, solution: &Solution) -> Vec<Warning> {
+    let mut out = Vec::new();
+    let up = -rig.gravity.into_inner();
+    for sub in &solution.subrigs {
+        for (id, part) in rig.parts.iter().enumerate() {
+            let (PartKind::Weight(_), Some(pull)) = (&part.kind, sub.ideal.pin_load[id]) else {
+                continue;
+            };
+            if solution.network.component_of[id] != sub.component || pull.norm() == 0.0 {
+                continue;
+            }
+            let angle = (pull.dot(&up) / pull.norm()).clamp(-1.0, 1.0).acos();
+            if angle > OFF_PLUMB {
+                out.push(warn(
+                    "off-plumb",
+                    Some(&part.name),
+                    false,
+                    format!(
+                        "`{}` hangs {:.1}° off plumb; a hanging weight swings until its lines pull straight up, so move it under the part it hangs from",
+                        part.name,
+                        angle.to_degrees()
+                    ),
+                ));
+            }
+        }
+    }
+    out
+}
+
 /// All checks over a solution.
 pub fn run(rig: &Rig, solution: &Solution) -> Vec<Warning> {
     let mut out = geometry_checks(rig, &solution.geometry);
+    out.extend(plumb_checks(rig, solution));
     for sub in &solution.subrigs {
         out.extend(subrig_checks(rig, sub));
     }
@@ -134,6 +170,28 @@ fn subrig_checks(rig: &Rig, sub: &SubRigSolution) -> Vec<Warning> {
                     ),
                 ));
             }
+        }
+    }
+    // Static friction: it may run once started but not start from rest.
+    if let (Some(available), Some(breakaway)) = (
+        crate::solve::given_quantity(rig, sub.solve_for),
+        sub.breakaway.as_ref(),
+    ) {
+        let short = if sub.drive_unknown() {
+            available >= sub.forward.value && available < breakaway.value
+        } else {
+            available <= sub.forward.value && available > breakaway.value
+        };
+        if short {
+            out.push(warn(
+                "may-not-start",
+                Some(drive),
+                false,
+                format!(
+                    "the drive keeps the rig moving once started ({:.4} {unit} forward) but may not start it from rest: breakaway needs {:.4} {unit} with the static coefficients",
+                    sub.forward.value, breakaway.value
+                ),
+            ));
         }
     }
     // Safety factor of every span, worst case of forward and back.
@@ -207,14 +265,6 @@ fn subrig_checks(rig: &Rig, sub: &SubRigSolution) -> Vec<Warning> {
                 format!("{name}: pin-load friction did not settle in {iterations} iterations (last change {change:.2e}); the figures are not reliable"),
             ));
         }
-        if case.indeterminate {
-            out.push(warn(
-                "indeterminate",
-                Some(drive),
-                false,
-                format!("{name}: statics alone does not fix how parallel lines share the load; the even (least-squares) split is shown, but the real split depends on rope stretch and where the load sits"),
-            ));
-        }
         if case.audit_residual > 1e-6 {
             out.push(warn(
                 "energy-audit",
@@ -224,12 +274,23 @@ fn subrig_checks(rig: &Rig, sub: &SubRigSolution) -> Vec<Warning> {
             ));
         }
     }
+    if [&sub.ideal, &sub.forward, &sub.back]
+        .iter()
+        .any(|c| c.indeterminate)
+    {
+        out.push(warn(
+            "indeterminate",
+            Some(drive),
+            false,
+            "statics alone does not fix how lines that share one block split its load; the least-squares split is shown, but the real split depends on rope stretch and where the load sits".to_string(),
+        ));
+    }
     if sub.self_locking() && rig.runs_back {
         out.push(warn(
             "self-locking",
             Some(drive),
             false,
-            format!("the rig is self-locking (it will not run back by itself), but the rig file says it must run back (`runs_back: true`)"),
+            "the rig is self-locking (it will not run back by itself), but the rig file says it must run back (`runs_back: true`)".to_string(),
         ));
     }
     // Remove duplicate messages from ideal/back repeats.

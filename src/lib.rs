@@ -15,4 +15,5 @@ pub mod network;
 pub mod report;
 pub mod rig;
 pub mod solve;
+pub mod study;
 pub mod units;

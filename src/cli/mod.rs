@@ -6,6 +6,8 @@ use std::path::{Path, PathBuf};
 
 use clap::{Parser, Subcommand};
 
+pub mod studies;
+
 use crate::checks;
 use crate::report::{text, Report};
 use crate::rig::{self, Rig};
@@ -50,6 +52,14 @@ pub enum Command {
         #[arg(long)]
         json: bool,
     },
+    /// Compare rigs, or one rig's named variants, side by side.
+    Compare(studies::CompareArgs),
+    /// Sweep one value over a range, or move the drive through its stroke.
+    Sweep(studies::SweepArgs),
+    /// Rank parts by the effort their friction costs, and friction sensitivities.
+    Rank(studies::RankArgs),
+    /// Monte Carlo spread over the values the rig gives as ranges.
+    Spread(studies::SpreadArgs),
 }
 
 /// What went wrong, already worded for the user.
@@ -62,7 +72,7 @@ pub struct Failure {
 }
 
 impl Failure {
-    fn input(message: impl Into<String>) -> Failure {
+    pub(crate) fn input(message: impl Into<String>) -> Failure {
         Failure {
             message: message.into(),
             code: EXIT_BAD_INPUT,
@@ -70,7 +80,7 @@ impl Failure {
     }
 }
 
-fn parse_sets(sets: &[String]) -> Result<Vec<(String, String)>, Failure> {
+pub(crate) fn parse_sets(sets: &[String]) -> Result<Vec<(String, String)>, Failure> {
     sets.iter()
         .map(|s| {
             s.split_once('=')
@@ -99,11 +109,26 @@ pub fn load(args: &RigArgs) -> Result<Rig, Failure> {
 pub fn load_and_solve(args: &RigArgs) -> Result<(Rig, solve::Solution), Failure> {
     let rig = load(args)?;
     let solution = solve::solve(&rig, &SolveOptions::default())
-        .map_err(|e| Failure::input(format!("{}: {e}", args.rig.display())))?;
+        .map_err(|e| Failure::input(locate(&args.rig, &rig, &e)))?;
     Ok((rig, solution))
 }
 
-fn write_out(f: impl FnOnce(&mut dyn Write) -> io::Result<()>) -> Result<(), Failure> {
+/// `file:line:column: key: message` for a solve error, as far as it can be located.
+pub fn locate(path: &Path, rig: &Rig, error: &solve::SolveError) -> String {
+    match error.location(rig) {
+        Some((l, subject)) if l.line > 0 => {
+            format!(
+                "{}:{}:{}: {subject}: {error}",
+                path.display(),
+                l.line,
+                l.column
+            )
+        }
+        _ => format!("{}: {error}", path.display()),
+    }
+}
+
+pub(crate) fn write_out(f: impl FnOnce(&mut dyn Write) -> io::Result<()>) -> Result<(), Failure> {
     let stdout = io::stdout();
     let mut lock = stdout.lock();
     match f(&mut lock).and_then(|_| lock.flush()) {
@@ -141,5 +166,9 @@ pub fn run(cli: Cli) -> Result<i32, Failure> {
                 EXIT_OK
             })
         }
+        Command::Compare(args) => studies::run_compare(args),
+        Command::Sweep(args) => studies::run_sweep(args),
+        Command::Rank(args) => studies::run_rank(args),
+        Command::Spread(args) => studies::run_spread(args),
     }
 }

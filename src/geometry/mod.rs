@@ -28,7 +28,7 @@ use std::f64::consts::TAU;
 
 use crate::math::{Direction, Point, Real};
 use crate::rig::model::{LineId, PartId, Rig};
-use tangent::{common_tangent, Circle, End, TangentError, TangentOptions, DEGENERATE};
+use tangent::{common_tangent, exceeds, Circle, End, TangentError, TangentOptions, DEGENERATE};
 
 /// A straight length of rope between two parts of a line.
 #[derive(Debug, Clone, PartialEq)]
@@ -89,7 +89,8 @@ pub struct Geometry {
 #[derive(Debug, Clone, Copy, PartialEq)]
 pub struct GeometryOptions {
     /// Convergence tolerance of the non-coplanar tangent iteration, m (default 1e-12 m
-    /// relative to the rig's size, i.e. round-off).
+    /// relative to the rig's size, i.e. round-off). [`compute`] multiplies it by
+    /// [`rig_size`]; the iteration never asks for less than its round-off floor.
     pub tolerance: Real,
     /// Iteration cap (default 200).
     pub max_iterations: usize,
@@ -340,8 +341,8 @@ pub fn wrap_angle(
     let turn = sense * axle.dot(&arrive_radius.cross(&leave_radius));
     let angle = turn.atan2(arrive_radius.dot(&leave_radius));
     let angle = if angle < 0.0 { angle + TAU } else { angle };
-    // `!(a < b)` also catches NaN.
-    if !(angle < TAU - WRAP_ROUND_OFF) {
+    // Negated `exceeds` also catches NaN.
+    if !exceeds(TAU - WRAP_ROUND_OFF, angle) {
         0.0
     } else {
         angle
@@ -399,7 +400,7 @@ fn line_geometry(
 
     // Two entries at one place leave no span between them.
     for i in 1..count {
-        if !((part(i).at - part(i - 1).at).norm() > DEGENERATE * size) {
+        if !exceeds((part(i).at - part(i - 1).at).norm(), DEGENERATE * size) {
             return Err(GeometryError::Coincident {
                 line: line.name.clone(),
                 a: name(i - 1),
@@ -448,7 +449,7 @@ fn line_geometry(
             .map_err(|error| span_error(error, &line.name, name(i - 1), name(i)))?;
         let offset = tangent.end - tangent.start;
         let length = offset.norm();
-        if !(length > DEGENERATE * size) {
+        if !exceeds(length, DEGENERATE * size) {
             return Err(GeometryError::Coincident {
                 line: line.name.clone(),
                 a: name(i - 1),

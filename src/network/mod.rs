@@ -6,7 +6,7 @@
 use petgraph::graph::{NodeIndex, UnGraph};
 use petgraph::unionfind::UnionFind;
 
-use crate::rig::model::{LineId, PartId, PartKind, Rig};
+use crate::rig::model::{LineId, PartId, Rig};
 
 /// What a graph edge stands for.
 #[derive(Debug, Clone, Copy, PartialEq, Eq)]
@@ -18,7 +18,7 @@ pub enum Link {
         /// The span's index along the line.
         index: usize,
     },
-    /// A sheave carried by a moving block.
+    /// A sheave or pick point carried by a moving block.
     Carried,
 }
 
@@ -35,7 +35,8 @@ pub struct Network {
 
 impl Network {
     /// Builds the graph and finds the sub-rigs. Fixed tie points (anchors) do not join
-    /// sub-rigs: two lines tied to one anchor are mechanically independent.
+    /// sub-rigs: two lines tied to one anchor are mechanically independent
+    /// (a pick point carried by a block moves with it, and does join).
     pub fn build(rig: &Rig) -> Network {
         let mut graph = UnGraph::with_capacity(rig.parts.len(), 0);
         let nodes: Vec<NodeIndex> = (0..rig.parts.len()).map(|p| graph.add_node(p)).collect();
@@ -57,7 +58,7 @@ impl Network {
                 .path
                 .iter()
                 .map(|e| e.part)
-                .filter(|&p| !matches!(rig.parts[p].kind, PartKind::Anchor));
+                .filter(|&p| !rig.parts[p].is_fixed_anchor());
             if let Some(first) = members.next() {
                 for other in members {
                     joined.union(first, other);
@@ -65,11 +66,9 @@ impl Network {
             }
         }
         for (id, part) in rig.parts.iter().enumerate() {
-            if let PartKind::Sheave(s) = &part.kind {
-                if let Some(block) = s.block {
-                    graph.add_edge(nodes[id], nodes[block], Link::Carried);
-                    joined.union(id, block);
-                }
+            if let Some(block) = part.block {
+                graph.add_edge(nodes[id], nodes[block], Link::Carried);
+                joined.union(id, block);
             }
         }
         let labels = joined.into_labeling();
@@ -98,8 +97,7 @@ impl Network {
             .enumerate()
             .filter(|(_, l)| {
                 l.path.iter().any(|e| {
-                    !matches!(rig.parts[e.part].kind, PartKind::Anchor)
-                        && self.component_of[e.part] == component
+                    !rig.parts[e.part].is_fixed_anchor() && self.component_of[e.part] == component
                 })
             })
             .map(|(i, _)| i)

@@ -160,10 +160,16 @@ pub struct Headline {
     pub forward: CaseHeadline,
     /// Back case.
     pub back: CaseHeadline,
+    /// Forward from rest with static coefficients, where any bearing gives `mu_static`.
+    #[serde(skip_serializing_if = "Option::is_none")]
+    pub breakaway: Option<CaseHeadline>,
     /// Whether the rig will not run back by itself.
     pub self_locking: bool,
     /// Drive speed over load speed.
     pub velocity_ratio: Option<Real>,
+    /// Unit of the velocity ratio: `1`, or `rad/m` / `m/rad` where a drum drives a
+    /// linear load or the reverse.
+    pub velocity_ratio_unit: &'static str,
     /// The load part for the velocity ratio.
     pub load_part: Option<String>,
     /// Velocity ratio × forward efficiency.
@@ -239,8 +245,24 @@ fn headline(rig: &Rig, sub: &SubRigSolution) -> Headline {
             value: finite(b),
             efficiency: sub.back_efficiency(),
         },
+        breakaway: sub.breakaway.as_ref().map(|c| CaseHeadline {
+            value: finite(c.value),
+            efficiency: finite(if sub.drive_unknown() {
+                sub.ideal.value / c.value
+            } else {
+                c.value / sub.ideal.value
+            }),
+        }),
         self_locking: sub.self_locking(),
         velocity_ratio: sub.velocity_ratio,
+        velocity_ratio_unit: {
+            let turns = |p: usize| matches!(rig.parts[p].kind, PartKind::Drum(_));
+            match (turns(sub.drive), sub.load_part.map(turns)) {
+                (true, Some(false)) => "rad/m",
+                (false, Some(true)) => "m/rad",
+                _ => "1",
+            }
+        },
         load_part: sub.load_part.map(|p| rig.parts[p].name.clone()),
         mechanical_advantage: sub.mechanical_advantage(),
         holding_band: [finite(f.min(b)), finite(f.max(b))],
@@ -382,7 +404,8 @@ impl Report {
                         forward: fw.and_then(|t| finite(t.rope)),
                         back: bk.and_then(|t| finite(t.rope)),
                     },
-                    load_torque_nm: fw.map(|t| t.load),
+                    // A driving drum has no load torque: its torque is the asked one.
+                    load_torque_nm: fw.map(|t| t.load).filter(|_| id != s.drive),
                     drag_nm: Some(d.drag),
                     journal_nm: ForwardBack {
                         forward: fw.map(|t| t.journal),

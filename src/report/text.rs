@@ -80,13 +80,34 @@ fn write_headline(w: &mut dyn Write, h: &Headline, units: &UnitSystem) -> io::Re
         percent(h.forward.efficiency),
         percent(h.back.efficiency)
     )?;
+    if let Some(b) = &h.breakaway {
+        writeln!(
+            w,
+            "  {:<12} {:>14} {:>14}   (forward from rest, static coefficients; efficiency {})",
+            "breakaway",
+            "",
+            q(b.value),
+            percent(b.efficiency)
+        )?;
+    }
     if let Some(vr) = h.velocity_ratio {
         write!(w, "Velocity ratio {}", number(Some(vr), 4))?;
+        if h.velocity_ratio_unit != "1" {
+            write!(w, " {}", h.velocity_ratio_unit)?;
+        }
         if let Some(p) = &h.load_part {
             write!(w, " (drive speed over `{p}` speed)")?;
         }
         match h.mechanical_advantage {
-            Some(ma) => writeln!(w, ", mechanical advantage {}", number(Some(ma), 4))?,
+            Some(ma) => {
+                // Load force per drive torque is per metre; the reverse is metres.
+                let unit = match h.velocity_ratio_unit {
+                    "rad/m" => " per m",
+                    "m/rad" => " m",
+                    _ => "",
+                };
+                writeln!(w, ", mechanical advantage {}{unit}", number(Some(ma), 4))?
+            }
             None => writeln!(w)?,
         }
     }
@@ -182,7 +203,10 @@ pub fn write_check(w: &mut dyn Write, rig: &Rig, report: &Report, source: &str) 
     if !report.drums.is_empty() {
         let t = |x| quantity(x, Dimension::Torque, units);
         writeln!(w)?;
-        writeln!(w, "Drum torques (forward):")?;
+        writeln!(
+            w,
+            "Drum torques (forward; rope torque is signed along the drum's motion):"
+        )?;
         writeln!(
             w,
             "  {:<16} {:>13} {:>13} {:>13} {:>13} {:>13}",

@@ -35,7 +35,11 @@ impl fmt::Display for LoadError {
                 Some(l) => write!(f, "{}:{}:{}: ", self.file, l.line, l.column)?,
                 None => write!(f, "{}: ", self.file)?,
             }
-            write!(f, "{}: {}", p.subject, p.message)?;
+            if p.subject.is_empty() || p.subject == self.file {
+                write!(f, "{}", p.message)?;
+            } else {
+                write!(f, "{}: {}", p.subject, p.message)?;
+            }
         }
         Ok(())
     }

@@ -39,7 +39,7 @@ use crate::rig::model::{
     Bearing, Block, BlockLoad, Contact, Drum, Guide, Haul, Limits, Line, Location, Part, PartKind,
     PathEntry, Rig, Rope, RopeKind, Shaft, Sheave, Side, Thrust, Weight,
 };
-use crate::rig::overrides::apply_overrides;
+use crate::rig::overrides::{apply_overrides, read_variants, take_ranges, Uncertain, Variant};
 use crate::rig::suggest::did_you_mean;
 use crate::units::{parse_quantity, parse_unit_of, Dimension, UnitError, UnitSystem};
 
@@ -156,6 +156,8 @@ pub fn load_str_with(
         }]));
     };
     problems.extend(apply_overrides(&mut root, overrides));
+    // Ranges resolve to their nominal value here (see `overrides::take_ranges`).
+    problems.extend(take_ranges(&mut root).1);
     match resolve(&root, source) {
         Ok(rig) if problems.is_empty() => Ok(rig),
         Ok(_) => Err(fail(sorted(problems))),
@@ -165,6 +167,57 @@ pub fn load_str_with(
             problems.extend(more);
             Err(fail(sorted(problems)))
         }
+    }
+}
+
+/// The named variants of rig text (its `variants:` key), each a list of overrides.
+///
+/// # Errors
+/// A [`LoadError`] when the text cannot be parsed or `variants` is malformed.
+pub fn variants_str(text: &str, source: &str) -> Result<Vec<Variant>, LoadError> {
+    let fail = |problems: Vec<Problem>| LoadError {
+        file: source.to_string(),
+        problems,
+    };
+    let (root, _) = parse_tree(text).map_err(fail)?;
+    let node = root
+        .as_ref()
+        .and_then(Node::entries)
+        .and_then(|top| get(top, "variants"));
+    match node {
+        None => Ok(Vec::new()),
+        Some(n) => match read_variants(n) {
+            (v, p) if p.is_empty() => Ok(v),
+            (_, p) => Err(fail(p)),
+        },
+    }
+}
+
+/// The values written as ranges in rig text, after applying `overrides` (an override
+/// that sets a ranged key to one number removes its range).
+///
+/// # Errors
+/// A [`LoadError`] when the text cannot be parsed or a range is malformed.
+pub fn ranges_str(
+    text: &str,
+    source: &str,
+    overrides: &[(String, String)],
+) -> Result<Vec<Uncertain>, LoadError> {
+    let fail = |problems: Vec<Problem>| LoadError {
+        file: source.to_string(),
+        problems,
+    };
+    let (root, _) = parse_tree(text).map_err(fail)?;
+    let Some(mut root) = root else {
+        return Ok(Vec::new());
+    };
+    let mut problems = apply_overrides(&mut root, overrides);
+    let (found, more) = take_ranges(&mut root);
+    problems.extend(more);
+    if problems.is_empty() {
+        Ok(found)
+    } else {
+        Err(fail(problems))
     }
 }
 
@@ -224,6 +277,7 @@ const TOP_KEYS: &[&str] = &[
     "drive",
     "solve_for",
     "runs_back",
+    "variants",
 ];
 const UNIT_KEYS: &[&str] = &["length", "force", "mass", "torque"];
 const LIMIT_KEYS: &[&str] = &["fleet_angle", "design_factor"];
@@ -284,10 +338,18 @@ impl Kind {
             .map_or("part", |(n, _)| n)
     }
 
+    /// The name with its article: "an anchor", "a sheave".
+    fn a(self) -> String {
+        match self {
+            Kind::Anchor => "an anchor".to_string(),
+            other => format!("a {}", other.name()),
+        }
+    }
+
     /// Keys besides `kind` and `at`.
     fn keys(self) -> &'static [&'static str] {
         match self {
-            Kind::Anchor => &[],
+            Kind::Anchor => &["block"],
             Kind::Sheave => &[
                 "axle", "diameter", "bearing", "mass", "groove", "mu", "block",
             ],
@@ -490,6 +552,14 @@ impl Resolver {
         });
         match value {
             Some(v) if v.is_finite() && v.abs() <= LARGEST => Some(v),
+            Some(v) if v.is_finite() => {
+                self.report(
+                    node.location,
+                    path,
+                    format!("{} is too large; expected {expected}", node.describe()),
+                );
+                None
+            }
             Some(_) => {
                 self.report(
                     node.location,
@@ -889,7 +959,7 @@ impl Resolver {
         match names.index.get(name) {
             Some(&i) => Some(i),
             None => {
-                let hint = did_you_mean(name, names.names.iter().map(String::as_str));
+                let hint = hint_or_list(name, &names.names);
                 self.report(
                     node.location,
                     path,
@@ -909,6 +979,17 @@ impl Node {
             _ => self.describe(),
         }
     }
+}
+
+/// A "did you mean" for `name`, or the list of names when there are few and none is
+/// close.
+fn hint_or_list(name: &str, names: &[String]) -> String {
+    let hint = did_you_mean(name, names.iter().map(String::as_str));
+    if !hint.is_empty() || names.is_empty() || names.len() > 8 {
+        return hint;
+    }
+    let list: Vec<String> = names.iter().map(|n| format!("`{n}`")).collect();
+    format!("; defined: {}", list.join(", "))
 }
 
 fn example(dimension: Dimension) -> &'static str {
@@ -936,6 +1017,9 @@ fn resolve(root: &Node, source: &str) -> Result<Rig, Vec<Problem>> {
     };
     r.keys(top, "", TOP_KEYS, "a rig file");
     let here = root.location;
+    if let Some(n) = get(top, "variants") {
+        r.problems.extend(read_variants(n).1);
+    }
 
     // format
     if let Some(n) = r.require(top, "format", "", here, "`format: 1`") {
@@ -1182,9 +1266,9 @@ fn role(r: &mut Resolver, node: &Node, key: &str, names: &Names) -> Option<usize
                 node.location,
                 key,
                 format!(
-                    "`{}` is a {}; `{key}` must name a haul, weight, block or drum",
+                    "`{}` is {}; `{key}` must name a haul, weight, block or drum",
                     names.names[i],
-                    k.name()
+                    k.a()
                 ),
             );
             None
@@ -1254,7 +1338,7 @@ fn part(
     let kind = kind?;
     let mut allowed = vec!["kind", "at"];
     allowed.extend_from_slice(kind.keys());
-    let context = format!("a {} part", kind.name());
+    let context = format!("{} part", kind.a());
     for entry in entries
         .iter()
         .filter(|x| !allowed.contains(&x.key.as_str()))
@@ -1266,10 +1350,10 @@ fn part(
         let hint = did_you_mean(&entry.key, allowed.iter().copied());
         let message = match (owner, hint.is_empty()) {
             (Some((owner, _)), true) => format!(
-                "`{}` is not a key of a {} part (it belongs to a {owner}); a {} takes: {}",
+                "`{}` is not a key of {} part (it belongs to a {owner}); {} takes: {}",
                 entry.key,
-                kind.name(),
-                kind.name(),
+                kind.a(),
+                kind.a(),
                 allowed.join(", ")
             ),
             (_, false) => format!("unknown key `{}` in {context}{hint}", entry.key),
@@ -1291,6 +1375,27 @@ fn part(
             .and_then(|n| r.direction(n, &join(&path, "axle")))
     };
     let own_mass = |r: &mut Resolver| r.opt_non_negative(entries, "mass", &path, Dimension::Mass);
+    // Sheaves and anchors (pick points) may be carried by a moving block.
+    let block = match get(entries, "block") {
+        Some(n) => {
+            let p = join(&path, "block");
+            let b = r.part_ref(n, &p, names, "the block that carries this part")?;
+            if let Some(k) = names.kinds[b].filter(|k| *k != Kind::Block) {
+                r.report(
+                    n.location,
+                    p,
+                    format!(
+                        "`{}` is {}; `block` must name a block",
+                        names.names[b],
+                        k.a()
+                    ),
+                );
+                return None;
+            }
+            Some(b)
+        }
+        None => None,
+    };
     let part_kind = match kind {
         Kind::Anchor => Some(PartKind::Anchor),
         Kind::Sheave => {
@@ -1302,26 +1407,6 @@ fn part(
             let mass = own_mass(r);
             let groove_angle = r.groove(entries, &path);
             let mu = r.opt_mu(entries, "mu", &path);
-            let block = match get(entries, "block") {
-                Some(n) => {
-                    let p = join(&path, "block");
-                    let b = r.part_ref(n, &p, names, "the block that carries this sheave")?;
-                    if let Some(k) = names.kinds[b].filter(|k| *k != Kind::Block) {
-                        r.report(
-                            n.location,
-                            p,
-                            format!(
-                                "`{}` is a {}; `block` must name a block",
-                                names.names[b],
-                                k.name()
-                            ),
-                        );
-                        return None;
-                    }
-                    Some(b)
-                }
-                None => None,
-            };
             Some(PartKind::Sheave(Sheave {
                 axle: axle?,
                 tread_diameter: tread_diameter?,
@@ -1444,6 +1529,7 @@ fn part(
         name: e.key.clone(),
         at: point?,
         kind: part_kind?,
+        block,
         location: e.key_location,
     })
 }
@@ -1560,7 +1646,7 @@ fn line(r: &mut Resolver, e: &Entry, rope_names: &[String], names: &Names) -> Op
             match rope_names.iter().position(|x| x == name) {
                 Some(i) => Some(i),
                 None => {
-                    let hint = did_you_mean(name, rope_names.iter().map(String::as_str));
+                    let hint = hint_or_list(name, rope_names);
                     r.report(
                         n.location,
                         p,
@@ -1640,11 +1726,11 @@ fn path_entry(
     let kind = names.kinds[part]?;
     let mut ok = true;
     if is_end && !kind.can_end() {
-        r.report(name_node.location, path, format!("`{name}` is a {}, which cannot end a line; a line ends at an anchor, block, weight, drum or haul", kind.name()));
+        r.report(name_node.location, path, format!("`{name}` is {}, which cannot end a line; a line ends at an anchor, block, weight, drum or haul", kind.a()));
         ok = false;
     }
     if !is_end && !kind.can_pass() {
-        r.report(name_node.location, path, format!("`{name}` is a {}, which a line cannot pass through; between its ends a line passes sheaves, guides and drums", kind.name()));
+        r.report(name_node.location, path, format!("`{name}` is {}, which a line cannot pass through; between its ends a line passes sheaves, guides and drums", kind.a()));
         ok = false;
     }
     let mut turns = 0;
@@ -1657,7 +1743,7 @@ fn path_entry(
                 v,
                 t,
                 &tp,
-                |v| v >= 0.0 && v <= MOST_TURNS && v.fract() == 0.0,
+                |v| (0.0..=MOST_TURNS).contains(&v) && v.fract() == 0.0,
                 "a whole number of extra turns from 0 to 1000",
             ) {
                 Some(v) if matches!(kind, Kind::Guide | Kind::Drum) => turns = v as u32,
@@ -1666,8 +1752,8 @@ fn path_entry(
                         t.location,
                         tp,
                         format!(
-                            "`turns` applies only to a guide or drum; `{name}` is a {}",
-                            kind.name()
+                            "`turns` applies only to a guide or drum; `{name}` is {}",
+                            kind.a()
                         ),
                     );
                     ok = false;

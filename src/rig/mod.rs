@@ -1,4 +1,4 @@
-//! Rig files: the located YAML tree as written ([`file`]), overrides ([`overrides`]),
+//! Rig files: the located YAML tree as written ([`mod@file`]), overrides ([`overrides`]),
 //! loading and validation ([`load`]) into the resolved, SI [`model`], with problems
 //! reported as [`LoadError`] ([`error`]).
 

@@ -105,6 +105,9 @@ pub struct Part {
     pub at: Point,
     /// What it is.
     pub kind: PartKind,
+    /// The moving block that carries it: a sheave in a moving block, or an anchor that is
+    /// a pick point on a block (key `block`). None for fixed parts and for movers.
+    pub block: Option<PartId>,
     /// Where the part is defined in the file.
     pub location: Location,
 }
@@ -112,7 +115,7 @@ pub struct Part {
 /// The kinds of part, with their own data.
 #[derive(Debug, Clone, PartialEq)]
 pub enum PartKind {
-    /// A fixed tie point.
+    /// A tie point: fixed, or a pick point on a moving block (`Part::block`).
     Anchor,
     /// A turning sheave, fixed or carried by a block.
     Sheave(Sheave),
@@ -378,6 +381,13 @@ pub struct Line {
     pub path: Vec<PathEntry>,
     /// Where the line is defined.
     pub location: Location,
+}
+
+impl Part {
+    /// A tie point that does not move (an anchor not carried by a block).
+    pub fn is_fixed_anchor(&self) -> bool {
+        matches!(self.kind, PartKind::Anchor) && self.block.is_none()
+    }
 }
 
 impl Rig {

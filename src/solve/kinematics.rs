@@ -112,9 +112,10 @@ impl Kinematics {
             .collect();
         let carries: Vec<bool> = (0..rig.parts.len())
             .map(|p| {
-                rig.parts.iter().enumerate().any(|(s, part)| {
-                    matches!(&part.kind, PartKind::Sheave(sh) if sh.block == Some(p)) && in_line[s]
-                })
+                rig.parts
+                    .iter()
+                    .enumerate()
+                    .any(|(s, part)| part.block == Some(p) && in_line[s])
             })
             .collect();
         for (id, part) in rig.parts.iter().enumerate() {
@@ -181,8 +182,7 @@ impl Kinematics {
         // Constraint matrix, one row per segment.
         let mut a = DMatrix::zeros(segments.len(), n);
         for (g, seg) in segments.iter().enumerate() {
-            for j in seg.first..seg.last {
-                let row = &span_rows[seg.line][j];
+            for row in &span_rows[seg.line][seg.first..seg.last] {
                 for i in 0..n {
                     a[(g, i)] += row[i];
                 }
@@ -292,7 +292,7 @@ pub fn line_component(rig: &Rig, network: &Network, line: LineId) -> Option<usiz
     rig.lines[line]
         .path
         .iter()
-        .find(|e| !matches!(rig.parts[e.part].kind, PartKind::Anchor))
+        .find(|e| !rig.parts[e.part].is_fixed_anchor())
         .map(|e| network.component_of[e.part])
 }
 
@@ -306,8 +306,9 @@ fn point_velocity_along(
     u: &Vector,
 ) -> DVector<Real> {
     let mut v = DVector::zeros(dofs.len());
+    // Carried parts (sheaves, pick points) move with their block.
     let mover = match &rig.parts[part].kind {
-        PartKind::Sheave(s) => s.block,
+        PartKind::Sheave(_) | PartKind::Anchor => rig.parts[part].block,
         _ => Some(part),
     };
     if let Some(m) = mover {

@@ -24,8 +24,14 @@ pub struct SolveOptions {
     pub tolerance: Real,
     /// Iteration cap of that fixed point (default 200).
     pub max_iterations: usize,
-    /// Relative singular-value threshold for rank decisions (default 1e-9).
+    /// Relative singular-value threshold for rank decisions in the statics (default 1e-9).
     pub rank_tolerance: Real,
+    /// Relative singular-value threshold below which a combination of line-length
+    /// constraints counts as a motion (default 1e-4). Nearly parallel lines that share
+    /// one block (the lift lines of a batten, a few milliradians apart) would lock the
+    /// rig if the rope were perfectly rigid; real rope takes up the misfit (here at most
+    /// 1e-4 of the travel) by stretch, so the rig moves.
+    pub motion_tolerance: Real,
     /// Geometry settings.
     pub geometry: GeometryOptions,
 }
@@ -36,6 +42,7 @@ impl Default for SolveOptions {
             tolerance: 1e-12,
             max_iterations: 200,
             rank_tolerance: 1e-9,
+            motion_tolerance: 1e-4,
             geometry: GeometryOptions::default(),
         }
     }
@@ -103,6 +110,48 @@ pub enum SolveError {
         /// What to look at.
         hint: &'static str,
     },
+}
+
+impl SolveError {
+    /// The line and part the error is about, where there is one, for locating it in
+    /// the rig file.
+    pub fn subject(&self) -> (Option<&str>, Option<&str>) {
+        match self {
+            SolveError::Geometry(g) => match g {
+                GeometryError::InsideCircle { line, point, .. } => (Some(line), Some(point)),
+                GeometryError::Coincident { line, b, .. } => (Some(line), Some(b)),
+                GeometryError::AmbiguousSide { line, part } => (Some(line), Some(part)),
+                GeometryError::NotConverged { line, a, .. } => (Some(line), Some(a)),
+            },
+            SolveError::CannotMove { parts }
+            | SolveError::NoDrive { parts }
+            | SolveError::SubRigWithoutHaul { parts } => (None, parts.first().map(String::as_str)),
+            SolveError::FreeParts { parts, .. } => (None, parts.first().map(String::as_str)),
+            SolveError::DriveCannotMove { drive } => (None, Some(drive)),
+            SolveError::MissingQuantity { part, .. } => (None, Some(part)),
+            SolveError::NoEquilibrium { .. } => (None, None),
+        }
+    }
+
+    /// Where in the rig file the error points: the path entry of the line, else the
+    /// part's definition.
+    pub fn location(&self, rig: &Rig) -> Option<(crate::rig::model::Location, String)> {
+        let (line, part) = self.subject();
+        let part_id = part.and_then(|p| rig.part_named(p));
+        if let (Some(line), Some(pid)) = (line, part_id) {
+            if let Some(l) = rig.lines.iter().find(|l| l.name == line) {
+                if let Some(entry) = l.path.iter().find(|e| e.part == pid) {
+                    return Some((entry.location, format!("lines.{line}")));
+                }
+            }
+        }
+        part_id.map(|p| {
+            (
+                rig.parts[p].location,
+                format!("parts.{}", rig.parts[p].name),
+            )
+        })
+    }
 }
 
 fn list(parts: &[String]) -> String {
@@ -222,6 +271,8 @@ pub struct SubRigSolution {
     pub forward: CaseResult,
     /// Back.
     pub back: CaseResult,
+    /// Forward from rest with static coefficients, when any bearing gives `mu_static`.
+    pub breakaway: Option<CaseResult>,
     /// Drive speed over load speed (natural units), when a load moves.
     pub velocity_ratio: Option<Real>,
     /// The load part used for the velocity ratio.
@@ -337,7 +388,8 @@ pub fn solve(rig: &Rig, options: &SolveOptions) -> Result<Solution, SolveError> 
         }
     }
 
-    let kinematics = Kinematics::build(rig, &network, &geometry, &drives, options.rank_tolerance)?;
+    let kinematics =
+        Kinematics::build(rig, &network, &geometry, &drives, options.motion_tolerance)?;
 
     let mut order: Vec<usize> = (0..network.components.len())
         .filter(|&c| drives[c].is_some())
@@ -357,6 +409,11 @@ pub fn solve(rig: &Rig, options: &SolveOptions) -> Result<Solution, SolveError> 
         let ideal = problem.solve(Case::Ideal, options)?;
         let forward = problem.solve(Case::Forward, options)?;
         let back = problem.solve(Case::Back, options)?;
+        let breakaway = if has_static_friction(rig) {
+            Some(problem.solve_breakaway(options)?)
+        } else {
+            None
+        };
         let load_part = if solve_for != drive {
             Some(solve_for)
         } else {
@@ -383,6 +440,7 @@ pub fn solve(rig: &Rig, options: &SolveOptions) -> Result<Solution, SolveError> 
             ideal,
             forward,
             back,
+            breakaway,
             velocity_ratio,
             load_part,
         });
@@ -392,6 +450,25 @@ pub fn solve(rig: &Rig, options: &SolveOptions) -> Result<Solution, SolveError> 
         network,
         kinematics,
         subrigs,
+    })
+}
+
+/// Whether any bearing gives a static coefficient (then a breakaway case is solved).
+pub fn has_static_friction(rig: &Rig) -> bool {
+    use crate::rig::model::Bearing;
+    let is_static = |b: &Bearing| {
+        matches!(
+            b,
+            Bearing::Plain {
+                mu_static: Some(_),
+                ..
+            }
+        )
+    };
+    rig.parts.iter().any(|p| match &p.kind {
+        PartKind::Sheave(s) => is_static(&s.bearing),
+        PartKind::Drum(d) => d.shaft.as_ref().is_some_and(|s| is_static(&s.bearing)),
+        _ => false,
     })
 }
 

@@ -263,6 +263,7 @@ impl<'a> Problem<'a> {
         line: LineId,
         e: usize,
         previous: Option<&Vec<Vec<Real>>>,
+        breakaway: bool,
     ) -> (Real, Real, bool) {
         if case == Case::Ideal {
             return (1.0, 0.0, false);
@@ -287,7 +288,7 @@ impl<'a> Problem<'a> {
             PartKind::Guide(_) => (orient(capstan), 0.0, false),
             PartKind::Sheave(sheave) => {
                 let r = entry.pitch_radius;
-                match friction::bearing_resistance(&sheave.bearing, false) {
+                match friction::bearing_resistance(&sheave.bearing, breakaway) {
                     BearingResistance::Free => (1.0, 0.0, false),
                     BearingResistance::Rated { rho } => {
                         let k = friction::sheave_ratio(rho, wrap);
@@ -357,6 +358,7 @@ impl<'a> Problem<'a> {
         &self,
         part: PartId,
         forces: &[(Vector, crate::math::Point)],
+        breakaway: bool,
     ) -> (Real, Real, Real) {
         let PartKind::Drum(d) = &self.rig.parts[part].kind else {
             return (0.0, 0.0, 0.0);
@@ -370,7 +372,7 @@ impl<'a> Problem<'a> {
                 |a, (f, _)| a + f,
             );
             let radial = (total - axle * total.dot(&axle)).norm();
-            journal = match friction::bearing_resistance(&shaft.bearing, false) {
+            journal = match friction::bearing_resistance(&shaft.bearing, breakaway) {
                 BearingResistance::Free => 0.0,
                 BearingResistance::FrictionCircle { radius } => radius * radial,
                 BearingResistance::Rated { rho } => rho * 0.5 * d.diameter * radial,
@@ -387,6 +389,24 @@ impl<'a> Problem<'a> {
     /// # Errors
     /// [`SolveError::NoEquilibrium`] when the equations have no solution.
     pub fn solve(&self, case: Case, options: &SolveOptions) -> Result<CaseResult, SolveError> {
+        self.solve_with(case, options, false)
+    }
+
+    /// Solves the forward case with static coefficients (`mu_static`) where given: the
+    /// effort that starts the rig from rest (breakaway).
+    ///
+    /// # Errors
+    /// As [`Problem::solve`].
+    pub fn solve_breakaway(&self, options: &SolveOptions) -> Result<CaseResult, SolveError> {
+        self.solve_with(Case::Forward, options, true)
+    }
+
+    fn solve_with(
+        &self,
+        case: Case,
+        options: &SolveOptions,
+        breakaway: bool,
+    ) -> Result<CaseResult, SolveError> {
         let rig = self.rig;
         let sign = case.sign();
         let n = self.dofs.len();
@@ -408,7 +428,8 @@ impl<'a> Problem<'a> {
                 let seg = self.kin.segments[g];
                 coef[seg.line][seg.first] = (1.0, 0.0);
                 for e in seg.first + 1..seg.last {
-                    let (k, delta, stall) = self.passage(case, seg.line, e, previous.as_ref());
+                    let (k, delta, stall) =
+                        self.passage(case, seg.line, e, previous.as_ref(), breakaway);
                     if stall {
                         stalled.push((seg.line, e));
                     }
@@ -426,7 +447,7 @@ impl<'a> Problem<'a> {
                     if matches!(rig.parts[part].kind, PartKind::Drum(_)) {
                         let empty = Vec::new();
                         let f = forces.as_ref().map(|f| &f[part]).unwrap_or(&empty);
-                        let (drag, journal, thrust) = self.drum_friction(part, f);
+                        let (drag, journal, thrust) = self.drum_friction(part, f, breakaway);
                         drum_friction[k] = (drag, journal, thrust);
                         let v = velocity[i];
                         let s = if v > 1e-15 {
@@ -445,9 +466,8 @@ impl<'a> Problem<'a> {
             let mut rhs = q.clone();
             for (col, &g) in self.segs.iter().enumerate() {
                 let seg = self.kin.segments[g];
-                for j in seg.first..seg.last {
-                    let (c, c0) = coef[seg.line][j];
-                    let row = &self.kin.span_rows[seg.line][j];
+                let rows = &self.kin.span_rows[seg.line][seg.first..seg.last];
+                for (&(c, c0), row) in coef[seg.line][seg.first..seg.last].iter().zip(rows) {
                     for (k, &i) in self.dofs.iter().enumerate() {
                         mat[(k, col)] += c * row[i];
                         rhs[k] -= c0 * row[i];

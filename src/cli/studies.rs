@@ -1,0 +1,229 @@
+//! Command glue for the design studies (`compare`, `sweep`, `rank`, `spread`): parse
+//! the study's settings, run it from [`crate::study`], write the chosen format.
+
+use std::io::{self, Write};
+use std::path::PathBuf;
+
+use crate::study::table::Format;
+use crate::study::{compare, rank, spread, sweep, RigSource, StudyError};
+
+use super::{parse_sets, write_out, Failure, RigArgs, EXIT_OK};
+
+/// Output format options shared by the studies.
+#[derive(Debug, Clone, clap::Args)]
+pub struct FormatArgs {
+    /// Output format: text, md, csv or json.
+    #[arg(long, value_name = "FORMAT", default_value = "text")]
+    pub format: String,
+    /// Same as `--format json`.
+    #[arg(long)]
+    pub json: bool,
+}
+
+impl FormatArgs {
+    fn format(&self) -> Result<Format, Failure> {
+        if self.json {
+            return Ok(Format::Json);
+        }
+        Format::parse(&self.format).ok_or_else(|| {
+            Failure::input(format!(
+                "--format `{}`: expected one of text, md, csv, json",
+                self.format
+            ))
+        })
+    }
+}
+
+/// Arguments of `compare`.
+#[derive(Debug, clap::Args)]
+pub struct CompareArgs {
+    /// The rig files; the first is the reference column.
+    #[arg(required = true)]
+    pub rigs: Vec<PathBuf>,
+    /// Compare the rig as written with each of its named `variants:` instead.
+    #[arg(long)]
+    pub variants: bool,
+    /// Change one value of every rig before solving (`KEY=VALUE`); may be repeated.
+    #[arg(long = "set", value_name = "KEY=VALUE")]
+    pub set: Vec<String>,
+    /// Output format.
+    #[command(flatten)]
+    pub format: FormatArgs,
+}
+
+/// Arguments of `sweep`.
+#[derive(Debug, clap::Args)]
+pub struct SweepArgs {
+    /// The rig.
+    #[command(flatten)]
+    pub rig: RigArgs,
+    /// The value to vary: `KEY=FROM..TO` (e.g. `parts.head.bearing.mu=0.05..0.2`).
+    #[arg(
+        long,
+        value_name = "KEY=FROM..TO",
+        conflicts_with = "stroke",
+        required_unless_present = "stroke"
+    )]
+    pub vary: Option<String>,
+    /// Move the drive forward through this travel instead (a length such as `500 mm`,
+    /// or an angle such as `90 deg` for a drum drive).
+    #[arg(long, value_name = "DISTANCE")]
+    pub stroke: Option<String>,
+    /// Number of steps, both ends included for `--vary` (default 11; 10 for `--stroke`).
+    #[arg(long)]
+    pub steps: Option<usize>,
+    /// Also write a line chart to this SVG file.
+    #[arg(long, value_name = "FILE")]
+    pub plot: Option<PathBuf>,
+    /// Output format.
+    #[command(flatten)]
+    pub format: FormatArgs,
+}
+
+/// Arguments of `rank`.
+#[derive(Debug, clap::Args)]
+pub struct RankArgs {
+    /// The rig.
+    #[command(flatten)]
+    pub rig: RigArgs,
+    /// Alternative bearing: `rolling` (bore = plain pin diameter, mu 0.0015) or a
+    /// bearing in YAML, e.g. `{kind: plain, pin_diameter: 8, mu: 0.08}`.
+    #[arg(long, value_name = "BEARING")]
+    pub to: Option<String>,
+    /// Output format.
+    #[command(flatten)]
+    pub format: FormatArgs,
+}
+
+/// Arguments of `spread`.
+#[derive(Debug, clap::Args)]
+pub struct SpreadArgs {
+    /// The rig.
+    #[command(flatten)]
+    pub rig: RigArgs,
+    /// Number of Monte Carlo samples.
+    #[arg(long, default_value_t = 1000)]
+    pub samples: usize,
+    /// Seed of the random streams (same seed, same numbers).
+    #[arg(long, default_value_t = 1)]
+    pub seed: u64,
+    /// Worker threads (0: one per core).
+    #[arg(long, default_value_t = 0)]
+    pub threads: usize,
+    /// Output format.
+    #[command(flatten)]
+    pub format: FormatArgs,
+}
+
+fn fail(e: StudyError) -> Failure {
+    Failure::input(e.to_string())
+}
+
+fn source(args: &RigArgs) -> Result<RigSource, Failure> {
+    let sets = parse_sets(&args.set)?;
+    let s = RigSource::read(&args.rig, &sets).map_err(fail)?;
+    // Load once so that a bad file or override is reported before any study runs.
+    s.load(&[]).map_err(fail)?;
+    Ok(s)
+}
+
+/// Writes `text` to `path` through a temporary file renamed into place, so an
+/// interrupted run leaves no partial file.
+fn write_file(path: &PathBuf, text: &str) -> Result<(), Failure> {
+    let tmp = path.with_extension("svg.part");
+    let result = std::fs::write(&tmp, text).and_then(|_| std::fs::rename(&tmp, path));
+    result.map_err(|e| {
+        let _ = std::fs::remove_file(&tmp);
+        Failure::input(format!("cannot write `{}`: {e}", path.display()))
+    })
+}
+
+/// `reeve compare`.
+pub fn run_compare(args: CompareArgs) -> Result<i32, Failure> {
+    let format = args.format.format()?;
+    let sets = parse_sets(&args.set)?;
+    let c = if args.variants {
+        if args.rigs.len() != 1 {
+            return Err(Failure::input(
+                "--variants compares the variants of one rig; give exactly one rig file",
+            ));
+        }
+        let s = RigSource::read(&args.rigs[0], &sets).map_err(fail)?;
+        compare::compare_variants(&s).map_err(fail)?
+    } else {
+        let sources = args
+            .rigs
+            .iter()
+            .map(|p| RigSource::read(p, &sets))
+            .collect::<Result<Vec<_>, _>>()
+            .map_err(fail)?;
+        compare::compare_rigs(&sources).map_err(fail)?
+    };
+    write_out(|w| compare::write(w, &c, format))?;
+    Ok(EXIT_OK)
+}
+
+/// Writes a study's result to an output.
+type Writer = Box<dyn Fn(&mut dyn Write) -> io::Result<()>>;
+
+/// `reeve sweep`.
+pub fn run_sweep(args: SweepArgs) -> Result<i32, Failure> {
+    let format = args.format.format()?;
+    let s = source(&args.rig)?;
+    let (chart, write): (String, Writer) = if let Some(distance) = &args.stroke {
+        let st = sweep::stroke(&s, distance, args.steps.unwrap_or(10), 8).map_err(fail)?;
+        (
+            sweep::stroke_chart(&st),
+            Box::new(move |w| sweep::write_stroke(w, &st, format)),
+        )
+    } else {
+        let text = args.vary.as_deref().unwrap_or_default();
+        let vary = sweep::parse_vary(text).map_err(fail)?;
+        let sw = sweep::sweep(&s, &vary, args.steps.unwrap_or(11)).map_err(fail)?;
+        (
+            sweep::sweep_chart(&sw),
+            Box::new(move |w| sweep::write_sweep(w, &sw, format)),
+        )
+    };
+    if let Some(path) = &args.plot {
+        write_file(path, &chart)?;
+    }
+    write_out(|w| write(w))?;
+    Ok(EXIT_OK)
+}
+
+/// `reeve rank`.
+pub fn run_rank(args: RankArgs) -> Result<i32, Failure> {
+    let format = args.format.format()?;
+    let s = source(&args.rig)?;
+    let alt = args.to.as_deref().map(rank::Alternative::parse);
+    if let Some(rank::Alternative::Bearing(text)) = &alt {
+        // Check the bearing once on the first part that takes it, so that a typo is
+        // reported rather than shown as "—" on every row.
+        let rig = s.load(&[]).map_err(fail)?;
+        if let Some(id) = rig
+            .parts
+            .iter()
+            .position(|p| matches!(p.kind, crate::rig::model::PartKind::Sheave(_)))
+        {
+            let key = format!("parts.{}.bearing", rig.parts[id].name);
+            s.load(&[(key, text.clone())])
+                .map_err(|e| Failure::input(format!("--to `{text}`: {e}")))?;
+        }
+    }
+    let r = rank::rank(&s, alt.as_ref()).map_err(fail)?;
+    write_out(|w| rank::write(w, &r, format))?;
+    Ok(EXIT_OK)
+}
+
+/// `reeve spread`.
+pub fn run_spread(args: SpreadArgs) -> Result<i32, Failure> {
+    let format = args.format.format()?;
+    if args.samples == 0 {
+        return Err(Failure::input("--samples: expected at least 1"));
+    }
+    let s = source(&args.rig)?;
+    let r = spread::spread(&s, args.samples, args.seed, args.threads, true).map_err(fail)?;
+    write_out(|w| spread::write(w, &r, format))?;
+    Ok(EXIT_OK)
+}

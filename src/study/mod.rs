@@ -1,0 +1,309 @@
+//! Design studies over the solver as it is: compare rigs or named variants side by side
+//! ([`compare`]), sweep one value or move the drive through its stroke ([`sweep`]), rank
+//! bearing upgrades and friction sensitivities ([`rank`]), and spread uncertain inputs
+//! by Monte Carlo ([`spread`]).
+//!
+//! Every study works on a [`RigSource`]: the rig file's text and the `--set` overrides
+//! every run applies. A study changes a rig only through more overrides on the parsed
+//! tree (so a changed value gets the loader's checks) or, for the stroke, by moving the
+//! resolved parts; none has physics of its own. Results are plain structs that
+//! serialize to JSON with units in the keys; [`table`] and [`plot`] write them out.
+
+pub mod compare;
+pub mod plot;
+pub mod rank;
+pub mod rng;
+pub mod spread;
+pub mod sweep;
+pub mod table;
+
+use std::path::Path;
+
+use serde::Serialize;
+
+use crate::checks;
+use crate::math::Real;
+use crate::report::{finite, Report};
+use crate::rig::file::{strip_bom, MAX_INPUT_BYTES};
+use crate::rig::load::{load_str_with, ranges_str, variants_str};
+use crate::rig::overrides::{Uncertain, Variant};
+use crate::rig::{LoadError, Rig};
+use crate::solve::{self, Solution, SolveError, SolveOptions, SubRigSolution};
+
+/// Why a study cannot run (exit 2).
+#[derive(Debug, Clone, thiserror::Error)]
+pub enum StudyError {
+    /// The rig file (with its overrides) does not load.
+    #[error(transparent)]
+    Load(#[from] LoadError),
+    /// The rig loads but cannot be solved.
+    #[error("{source_name}: {error}")]
+    Solve {
+        /// The rig file.
+        source_name: String,
+        /// Why.
+        error: SolveError,
+    },
+    /// A study setting is wrong (message says what was expected).
+    #[error("{0}")]
+    Input(String),
+}
+
+/// A rig's text with the overrides every run of a study applies.
+#[derive(Debug, Clone)]
+pub struct RigSource {
+    /// The rig file's text.
+    pub text: String,
+    /// Its name in messages (the path as given).
+    pub source: String,
+    /// `KEY=VALUE` overrides applied before a study's own.
+    pub overrides: Vec<(String, String)>,
+}
+
+impl RigSource {
+    /// Reads a rig file.
+    ///
+    /// # Errors
+    /// [`StudyError::Input`] when the file cannot be read or is too large.
+    pub fn read(path: &Path, overrides: &[(String, String)]) -> Result<RigSource, StudyError> {
+        let source = path.display().to_string();
+        let meta = std::fs::metadata(path)
+            .map_err(|e| StudyError::Input(format!("cannot read the rig file `{source}`: {e}")))?;
+        if meta.len() > MAX_INPUT_BYTES as u64 + 3 {
+            return Err(StudyError::Input(format!(
+                "{source}: the file is larger than the {MAX_INPUT_BYTES} bytes a rig file may have"
+            )));
+        }
+        let text = std::fs::read_to_string(path)
+            .map_err(|e| StudyError::Input(format!("cannot read the rig file `{source}`: {e}")))?;
+        Ok(RigSource {
+            text: strip_bom(&text).to_string(),
+            source,
+            overrides: overrides.to_vec(),
+        })
+    }
+
+    /// Rig text held in memory (tests, generated rigs).
+    pub fn from_text(text: &str, source: &str, overrides: &[(String, String)]) -> RigSource {
+        RigSource {
+            text: text.to_string(),
+            source: source.to_string(),
+            overrides: overrides.to_vec(),
+        }
+    }
+
+    /// Loads the rig with the base overrides and then `extra`.
+    ///
+    /// # Errors
+    /// [`StudyError::Load`] naming every problem.
+    pub fn load(&self, extra: &[(String, String)]) -> Result<Rig, StudyError> {
+        let mut all = self.overrides.clone();
+        all.extend_from_slice(extra);
+        Ok(load_str_with(&self.text, &self.source, &all)?)
+    }
+
+    /// Loads and solves with `extra` overrides.
+    ///
+    /// # Errors
+    /// [`StudyError`] when the rig does not load or solve.
+    pub fn solve(&self, extra: &[(String, String)]) -> Result<(Rig, Solution), StudyError> {
+        let rig = self.load(extra)?;
+        let solution = self.solve_rig(&rig)?;
+        Ok((rig, solution))
+    }
+
+    /// Solves an already loaded (possibly moved) rig, naming this source in errors.
+    ///
+    /// # Errors
+    /// [`StudyError::Solve`].
+    pub fn solve_rig(&self, rig: &Rig) -> Result<Solution, StudyError> {
+        solve::solve(rig, &SolveOptions::default()).map_err(|error| StudyError::Solve {
+            source_name: self.source.clone(),
+            error,
+        })
+    }
+
+    /// The file's named variants.
+    ///
+    /// # Errors
+    /// [`StudyError::Load`] when `variants` is malformed.
+    pub fn variants(&self) -> Result<Vec<Variant>, StudyError> {
+        Ok(variants_str(&self.text, &self.source)?)
+    }
+
+    /// The file's ranged values (after the base overrides).
+    ///
+    /// # Errors
+    /// [`StudyError::Load`] when a range is malformed.
+    pub fn ranges(&self) -> Result<Vec<Uncertain>, StudyError> {
+        Ok(ranges_str(&self.text, &self.source, &self.overrides)?)
+    }
+}
+
+/// The asked quantity of a study, with the unit its values are given in.
+#[derive(Debug, Clone, Serialize, PartialEq)]
+pub struct AskedQuantity {
+    /// The part solved for.
+    pub part: String,
+    /// `force`, `mass` or `torque`.
+    pub quantity: &'static str,
+    /// SI unit of the values.
+    pub unit: &'static str,
+}
+
+impl AskedQuantity {
+    /// The asked quantity of a sub-rig.
+    pub fn of(rig: &Rig, sub: &SubRigSolution) -> AskedQuantity {
+        AskedQuantity {
+            part: rig.parts[sub.solve_for].name.clone(),
+            quantity: sub.quantity.name(),
+            unit: sub.quantity.si_unit(),
+        }
+    }
+}
+
+/// The headline figures of one solved rig, as compared and swept. SI units.
+#[derive(Debug, Clone, Serialize, PartialEq)]
+pub struct Figures {
+    /// Column label (file name or variant name).
+    pub label: String,
+    /// The asked quantity.
+    pub solve_for: AskedQuantity,
+    /// Ideal value.
+    pub ideal: Option<Real>,
+    /// Forward value.
+    pub forward: Option<Real>,
+    /// Back value.
+    pub back: Option<Real>,
+    /// Forward efficiency (0 to 1).
+    pub efficiency: Option<Real>,
+    /// Back efficiency.
+    pub back_efficiency: Option<Real>,
+    /// Holding band [low, high].
+    pub holding_band: [Option<Real>; 2],
+    /// Whether the rig will not run back by itself.
+    pub self_locking: bool,
+    /// Largest span tension over the forward and back cases, N.
+    pub largest_tension_n: Option<Real>,
+    /// Lowest span safety factor.
+    pub lowest_safety_factor: Option<Real>,
+    /// Largest fleet angle, degrees.
+    pub largest_fleet_deg: Option<Real>,
+    /// Smallest tread-to-rope diameter ratio.
+    pub smallest_bend_ratio: Option<Real>,
+    /// Number of warnings from the checks.
+    pub warnings: usize,
+}
+
+fn fold_max(values: impl Iterator<Item = Real>) -> Option<Real> {
+    values
+        .filter(|v| v.is_finite())
+        .fold(None, |a: Option<Real>, x| Some(a.map_or(x, |a| a.max(x))))
+}
+
+fn fold_min(values: impl Iterator<Item = Real>) -> Option<Real> {
+    values
+        .filter(|v| v.is_finite())
+        .fold(None, |a: Option<Real>, x| Some(a.map_or(x, |a| a.min(x))))
+}
+
+/// Largest tension of any span of the rig over the forward and back cases, N.
+pub fn largest_tension(solution: &Solution) -> Option<Real> {
+    fold_max(solution.subrigs.iter().flat_map(|s| {
+        [&s.forward, &s.back]
+            .into_iter()
+            .flat_map(|c| c.tension.iter().flatten().copied())
+    }))
+}
+
+/// Largest fleet angle at any passage, degrees.
+pub fn largest_fleet_deg(solution: &Solution) -> Option<Real> {
+    fold_max(
+        solution
+            .geometry
+            .lines
+            .iter()
+            .flat_map(|l| l.entries.iter())
+            .flat_map(|e| e.fleet_in.into_iter().chain(e.fleet_out))
+            .map(Real::to_degrees),
+    )
+}
+
+/// The figures of a solved rig (runs the checks for the warning count).
+pub fn figures(label: &str, rig: &Rig, solution: &Solution) -> Figures {
+    let warnings = checks::run(rig, solution);
+    let report = Report::build(rig, solution, warnings);
+    let main = solution.main();
+    let h = &report.headline;
+    Figures {
+        label: label.to_string(),
+        solve_for: AskedQuantity::of(rig, main),
+        ideal: h.ideal.value,
+        forward: h.forward.value,
+        back: h.back.value,
+        efficiency: h.forward.efficiency,
+        back_efficiency: h.back.efficiency,
+        holding_band: h.holding_band,
+        self_locking: h.self_locking,
+        largest_tension_n: largest_tension(solution),
+        lowest_safety_factor: fold_min(report.spans.iter().filter_map(|s| s.safety_factor)),
+        largest_fleet_deg: fold_max(report.parts.iter().filter_map(|p| p.fleet_deg)),
+        smallest_bend_ratio: fold_min(report.parts.iter().filter_map(|p| p.bend_ratio)),
+        warnings: report.warnings.len(),
+    }
+}
+
+/// Whether the main drive moves the rig, where the asked part's quantity is given.
+pub fn moves(rig: &Rig, solution: &Solution) -> Option<bool> {
+    let main = solution.main();
+    let available = solve::given_quantity(rig, main.solve_for)?;
+    let f = finite(main.forward.value)?;
+    Some(if main.drive_unknown() {
+        available >= f
+    } else {
+        available <= f
+    })
+}
+
+/// Splits `"60 kg"` into 60 and `kg`, `"0.2"` into 0.2 and an empty unit.
+pub fn number_and_unit(text: &str) -> Option<(Real, String)> {
+    let text = text.trim();
+    let split = text
+        .char_indices()
+        .find(|&(i, c)| {
+            !(c.is_ascii_digit()
+                || c == '.'
+                || ((c == '+' || c == '-') && (i == 0 || text[..i].ends_with(['e', 'E'])))
+                || ((c == 'e' || c == 'E')
+                    && text[i + 1..]
+                        .starts_with(|d: char| d.is_ascii_digit() || d == '-' || d == '+')))
+        })
+        .map_or(text.len(), |(i, _)| i);
+    let (number, unit) = text.split_at(split);
+    let v: Real = number.trim().parse().ok()?;
+    v.is_finite().then(|| (v, unit.trim().to_string()))
+}
+
+/// An override value: the number with its unit, if any.
+pub fn with_unit(value: Real, unit: &str) -> String {
+    if unit.is_empty() {
+        format!("{value}")
+    } else {
+        format!("{value} {unit}")
+    }
+}
+
+#[cfg(test)]
+mod tests {
+    use super::*;
+
+    #[test]
+    fn numbers_and_units_split() {
+        assert_eq!(number_and_unit("60 kg"), Some((60.0, "kg".to_string())));
+        assert_eq!(number_and_unit("0.2"), Some((0.2, String::new())));
+        assert_eq!(number_and_unit("1e-3"), Some((1e-3, String::new())));
+        assert_eq!(number_and_unit("-2.5in"), Some((-2.5, "in".to_string())));
+        assert_eq!(number_and_unit("2.5 N*m"), Some((2.5, "N*m".to_string())));
+        assert_eq!(number_and_unit("kg"), None);
+    }
+}

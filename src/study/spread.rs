@@ -1,0 +1,427 @@
+//! `spread`: Monte Carlo over every value the rig file gives as a range
+//! (`{min, max}` uniform, `{mean, sd}` normal truncated at zero). Each sample draws all
+//! of them together, applies them as overrides on the parsed tree and solves; the
+//! solver is untouched. Sample `i` always uses random stream `i` of the seed
+//! ([`Rng::stream`]), so the numbers do not depend on the number of threads.
+
+use std::io::{self, IsTerminal, Write};
+use std::sync::atomic::{AtomicBool, AtomicUsize, Ordering};
+
+use serde::Serialize;
+
+use crate::math::Real;
+use crate::report::text::{number, quantity};
+use crate::report::{finite, CAUTION};
+use crate::rig::overrides::{Distribution, Uncertain};
+use crate::units::{Dimension, UnitSystem};
+
+use super::rng::Rng;
+use super::table::{csv_number, write_human, Format, Table};
+use super::{largest_tension, moves, AskedQuantity, RigSource, StudyError};
+
+/// Draws one value of a distribution.
+pub fn draw(d: &Distribution, rng: &mut Rng) -> Real {
+    match *d {
+        Distribution::Uniform { min, max } => min + (max - min) * rng.uniform(),
+        Distribution::Normal { mean, sd } => {
+            if sd == 0.0 {
+                return mean.max(0.0);
+            }
+            // Truncated at zero by rejection; a mean far below zero falls back to 0.
+            for _ in 0..1000 {
+                let v = mean + sd * rng.normal();
+                if v >= 0.0 {
+                    return v;
+                }
+            }
+            0.0
+        }
+    }
+}
+
+/// The outcome of one sample.
+#[derive(Debug, Clone, Copy, PartialEq)]
+pub struct Sample {
+    /// Forward value.
+    pub forward: Real,
+    /// Back value.
+    pub back: Real,
+    /// Largest span tension, N.
+    pub largest_tension: Real,
+    /// Whether the drive moves the rig (None when nothing is given to compare).
+    pub moves: Option<bool>,
+}
+
+/// The draws of sample `i`: one override per uncertain value.
+pub fn settings_of(ranges: &[Uncertain], seed: u64, i: u64) -> Vec<(String, String)> {
+    let mut rng = Rng::stream(seed, i);
+    ranges
+        .iter()
+        .map(|u| u.setting(draw(&u.distribution, &mut rng)))
+        .collect()
+}
+
+/// Solves sample `i`; None when that rig cannot be solved.
+pub fn run_sample(source: &RigSource, ranges: &[Uncertain], seed: u64, i: u64) -> Option<Sample> {
+    let (rig, s) = source.solve(&settings_of(ranges, seed, i)).ok()?;
+    let main = s.main();
+    Some(Sample {
+        forward: finite(main.forward.value)?,
+        back: finite(main.back.value)?,
+        largest_tension: largest_tension(&s)?,
+        moves: moves(&rig, &s),
+    })
+}
+
+/// P5, P50 and P95 of a set of values.
+#[derive(Debug, Clone, Copy, Serialize, PartialEq)]
+pub struct Percentiles {
+    /// 5th percentile.
+    pub p5: Real,
+    /// Median.
+    pub p50: Real,
+    /// 95th percentile.
+    pub p95: Real,
+}
+
+/// Percentile `p` (0 to 100) of sorted values by linear interpolation between order
+/// statistics (Hyndman and Fan 1996, definition 7, the spreadsheet default).
+pub fn percentile(sorted: &[Real], p: Real) -> Option<Real> {
+    let n = sorted.len();
+    if n == 0 {
+        return None;
+    }
+    let h = (n - 1) as Real * p / 100.0;
+    let lo = h.floor() as usize;
+    let hi = (lo + 1).min(n - 1);
+    Some(sorted[lo] + (h - lo as Real) * (sorted[hi] - sorted[lo]))
+}
+
+fn percentiles(mut values: Vec<Real>) -> Option<Percentiles> {
+    values.sort_by(Real::total_cmp);
+    Some(Percentiles {
+        p5: percentile(&values, 5.0)?,
+        p50: percentile(&values, 50.0)?,
+        p95: percentile(&values, 95.0)?,
+    })
+}
+
+/// One uncertain input, as reported.
+#[derive(Debug, Clone, Serialize, PartialEq)]
+pub struct Input {
+    /// Key path.
+    pub key: String,
+    /// `uniform` or `normal`.
+    pub distribution: &'static str,
+    /// min and max, or mean and sd, in the written unit.
+    pub parameters: [Real; 2],
+    /// The written unit (empty: the file's unit or a ratio).
+    pub unit: String,
+}
+
+/// The Monte Carlo result.
+#[derive(Debug, Clone, Serialize, PartialEq)]
+pub struct Spread {
+    /// The asked quantity.
+    pub solve_for: AskedQuantity,
+    /// Samples asked for.
+    pub samples: usize,
+    /// Seed.
+    pub seed: u64,
+    /// Samples that could not be solved.
+    pub failed: usize,
+    /// The uncertain inputs.
+    pub inputs: Vec<Input>,
+    /// Deterministic (nominal) forward value.
+    pub nominal_forward: Option<Real>,
+    /// Deterministic back value.
+    pub nominal_back: Option<Real>,
+    /// Forward value percentiles.
+    pub forward: Option<Percentiles>,
+    /// Back value percentiles.
+    pub back: Option<Percentiles>,
+    /// Largest span tension percentiles, N.
+    pub largest_tension_n: Option<Percentiles>,
+    /// Share of solved samples in which the drive does not move the rig (where the
+    /// asked part's quantity is given).
+    pub share_not_moving: Option<Real>,
+    /// The caution.
+    pub caution: &'static str,
+    /// Units of the rig, for text output.
+    #[serde(skip)]
+    pub units: UnitSystem,
+}
+
+/// Runs `samples` samples on `threads` threads (0: as many as the machine has),
+/// showing a progress bar on stderr when `progress` and stderr is a terminal.
+///
+/// # Errors
+/// When the rig as written does not load or solve.
+pub fn spread(
+    source: &RigSource,
+    samples: usize,
+    seed: u64,
+    threads: usize,
+    progress: bool,
+) -> Result<Spread, StudyError> {
+    let ranges = source.ranges()?;
+    let (rig, nominal) = source.solve(&[])?;
+    let main = nominal.main();
+    let threads = if threads == 0 {
+        std::thread::available_parallelism().map_or(1, |n| n.get())
+    } else {
+        threads
+    }
+    .clamp(1, samples.max(1));
+    let done = AtomicUsize::new(0);
+    let finished = AtomicBool::new(false);
+    let show = progress && io::stderr().is_terminal() && samples >= 50;
+    let mut results: Vec<Option<Sample>> = vec![None; samples];
+    std::thread::scope(|scope| {
+        let bar = show.then(|| {
+            scope.spawn(|| {
+                while !finished.load(Ordering::Relaxed) {
+                    draw_bar(done.load(Ordering::Relaxed), samples);
+                    std::thread::sleep(std::time::Duration::from_millis(100));
+                }
+                draw_bar(samples, samples);
+                eprintln!();
+            })
+        });
+        // Thread t takes samples t, t + threads, ...; each sample uses its own stream.
+        let chunks: Vec<Vec<(usize, Option<Sample>)>> = (0..threads)
+            .map(|t| {
+                let (ranges, done) = (&ranges, &done);
+                scope.spawn(move || {
+                    (t..samples)
+                        .step_by(threads)
+                        .map(|i| {
+                            let r = run_sample(source, ranges, seed, i as u64);
+                            done.fetch_add(1, Ordering::Relaxed);
+                            (i, r)
+                        })
+                        .collect::<Vec<_>>()
+                })
+            })
+            .collect::<Vec<_>>()
+            .into_iter()
+            .map(|h| h.join().unwrap_or_default())
+            .collect();
+        finished.store(true, Ordering::Relaxed);
+        if let Some(b) = bar {
+            let _ = b.join();
+        }
+        for (i, r) in chunks.into_iter().flatten() {
+            results[i] = r;
+        }
+    });
+    let ok: Vec<Sample> = results.iter().flatten().copied().collect();
+    let judged: Vec<bool> = ok.iter().filter_map(|s| s.moves).collect();
+    Ok(Spread {
+        solve_for: AskedQuantity::of(&rig, main),
+        samples,
+        seed,
+        failed: samples - ok.len(),
+        inputs: ranges
+            .iter()
+            .map(|u| {
+                let (distribution, parameters) = match u.distribution {
+                    Distribution::Uniform { min, max } => ("uniform", [min, max]),
+                    Distribution::Normal { mean, sd } => ("normal", [mean, sd]),
+                };
+                Input {
+                    key: u.key.clone(),
+                    distribution,
+                    parameters,
+                    unit: u.unit.clone(),
+                }
+            })
+            .collect(),
+        nominal_forward: finite(main.forward.value),
+        nominal_back: finite(main.back.value),
+        forward: percentiles(ok.iter().map(|s| s.forward).collect()),
+        back: percentiles(ok.iter().map(|s| s.back).collect()),
+        largest_tension_n: percentiles(ok.iter().map(|s| s.largest_tension).collect()),
+        share_not_moving: (!judged.is_empty())
+            .then(|| judged.iter().filter(|m| !**m).count() as Real / judged.len() as Real),
+        caution: CAUTION,
+        units: rig.units,
+    })
+}
+
+fn draw_bar(done: usize, total: usize) {
+    let width = 40;
+    let filled = (done * width).checked_div(total).unwrap_or(width);
+    eprint!(
+        "\r[{}{}] {done}/{total}",
+        "#".repeat(filled),
+        " ".repeat(width - filled.min(width))
+    );
+}
+
+fn dimension_of(quantity: &str) -> Dimension {
+    match quantity {
+        "mass" => Dimension::Mass,
+        "torque" => Dimension::Torque,
+        _ => Dimension::Force,
+    }
+}
+
+/// A row of the spread table: name, SI unit, dimension, nominal value, percentiles.
+type Row<'a> = (
+    &'a str,
+    &'a str,
+    Dimension,
+    Option<Real>,
+    Option<Percentiles>,
+);
+
+/// Writes a spread.
+///
+/// # Errors
+/// I/O errors of the writer.
+pub fn write(w: &mut dyn Write, s: &Spread, format: Format) -> io::Result<()> {
+    if format == Format::Json {
+        let json = serde_json::to_string_pretty(s).map_err(io::Error::other)?;
+        return writeln!(w, "{json}");
+    }
+    let d = dimension_of(s.solve_for.quantity);
+    let si = s.solve_for.unit;
+    let rows: [Row; 3] = [
+        ("forward", si, d, s.nominal_forward, s.forward),
+        ("back", si, d, s.nominal_back, s.back),
+        (
+            "largest tension",
+            "N",
+            Dimension::Force,
+            None,
+            s.largest_tension_n,
+        ),
+    ];
+    let mut t = Table::default();
+    if format == Format::Csv {
+        t.headers = ["figure", "unit", "nominal", "p5", "p50", "p95"]
+            .map(String::from)
+            .to_vec();
+        for (name, unit, _, nominal, p) in rows {
+            t.rows.push(vec![
+                name.into(),
+                unit.into(),
+                csv_number(nominal),
+                csv_number(p.map(|p| p.p5)),
+                csv_number(p.map(|p| p.p50)),
+                csv_number(p.map(|p| p.p95)),
+            ]);
+        }
+        return t.write_csv(w);
+    }
+    t.headers = ["", "nominal", "P5", "P50", "P95"]
+        .map(String::from)
+        .to_vec();
+    for (name, _, dim, nominal, p) in rows {
+        let q = |x| quantity(x, dim, &s.units);
+        t.rows.push(vec![
+            name.into(),
+            q(nominal),
+            q(p.map(|p| p.p5)),
+            q(p.map(|p| p.p50)),
+            q(p.map(|p| p.p95)),
+        ]);
+    }
+    let mut notes = vec![format!(
+        "{} samples, seed {}; {} could not be solved.",
+        s.samples, s.seed, s.failed
+    )];
+    if s.inputs.is_empty() {
+        notes.push("The rig gives no value as a range, so every sample is the nominal rig.".into());
+    }
+    for i in &s.inputs {
+        let u = if i.unit.is_empty() {
+            String::new()
+        } else {
+            format!(" {}", i.unit)
+        };
+        notes.push(match i.distribution {
+            "uniform" => format!(
+                "`{}`: uniform from {}{u} to {}{u}",
+                i.key,
+                number(Some(i.parameters[0]), 4),
+                number(Some(i.parameters[1]), 4)
+            ),
+            _ => format!(
+                "`{}`: normal, mean {}{u}, sd {}{u}, truncated at zero",
+                i.key,
+                number(Some(i.parameters[0]), 4),
+                number(Some(i.parameters[1]), 4)
+            ),
+        });
+    }
+    if let Some(share) = s.share_not_moving {
+        notes.push(format!(
+            "The drive does not move the rig in {:.1} % of the samples.",
+            share * 100.0
+        ));
+    }
+    write_human(
+        w,
+        format,
+        &format!(
+            "Spread of the {} at `{}` over the ranged inputs",
+            s.solve_for.quantity, s.solve_for.part
+        ),
+        &t,
+        &notes,
+    )
+}
+
+#[cfg(test)]
+mod tests {
+    use super::*;
+
+    #[test]
+    fn percentile_interpolates() {
+        let v = [1.0, 2.0, 3.0, 4.0, 5.0];
+        assert_eq!(percentile(&v, 50.0), Some(3.0));
+        assert_eq!(percentile(&v, 0.0), Some(1.0));
+        assert_eq!(percentile(&v, 100.0), Some(5.0));
+        // Hand calculation: h = 4 × 0.05 = 0.2 → 1 + 0.2 × (2 − 1) = 1.2.
+        assert!((percentile(&v, 5.0).unwrap() - 1.2).abs() < 1e-12);
+        assert_eq!(percentile(&[], 50.0), None);
+    }
+
+    #[test]
+    fn zero_width_draws_are_exact() {
+        let mut r = Rng::stream(3, 9);
+        assert_eq!(
+            draw(
+                &Distribution::Uniform {
+                    min: 0.15,
+                    max: 0.15
+                },
+                &mut r
+            ),
+            0.15
+        );
+        assert_eq!(
+            draw(
+                &Distribution::Normal {
+                    mean: 0.15,
+                    sd: 0.0
+                },
+                &mut r
+            ),
+            0.15
+        );
+        for _ in 0..100 {
+            assert!(
+                draw(
+                    &Distribution::Normal {
+                        mean: 0.01,
+                        sd: 0.1
+                    },
+                    &mut r
+                ) >= 0.0
+            );
+        }
+    }
+}

@@ -1,0 +1,154 @@
+//! A plain table of text cells and its writers: aligned text, Markdown and CSV. JSON
+//! comes from each study's own serializable result.
+
+use std::io::{self, Write};
+
+use crate::report::CAUTION;
+
+/// Output formats of the studies.
+#[derive(Debug, Clone, Copy, PartialEq, Eq)]
+pub enum Format {
+    /// Aligned text for a terminal.
+    Text,
+    /// A Markdown table.
+    Markdown,
+    /// Comma-separated values (numbers in SI, units in the headers).
+    Csv,
+    /// One JSON document.
+    Json,
+}
+
+impl Format {
+    /// Reads `text`, `md`, `csv` or `json`.
+    pub fn parse(word: &str) -> Option<Format> {
+        match word {
+            "text" | "txt" => Some(Format::Text),
+            "md" | "markdown" => Some(Format::Markdown),
+            "csv" => Some(Format::Csv),
+            "json" => Some(Format::Json),
+            _ => None,
+        }
+    }
+}
+
+/// A table: a header row and body rows of cells; the first column is left-aligned,
+/// the others right-aligned in text.
+#[derive(Debug, Clone, Default, PartialEq)]
+pub struct Table {
+    /// Column headings.
+    pub headers: Vec<String>,
+    /// Body rows.
+    pub rows: Vec<Vec<String>>,
+}
+
+impl Table {
+    /// Writes aligned text.
+    pub fn write_text(&self, w: &mut dyn Write) -> io::Result<()> {
+        let n = self.headers.len();
+        let mut widths: Vec<usize> = self.headers.iter().map(|h| h.chars().count()).collect();
+        for row in &self.rows {
+            for (i, c) in row.iter().enumerate().take(n) {
+                widths[i] = widths[i].max(c.chars().count());
+            }
+        }
+        let line = |w: &mut dyn Write, cells: &[String]| -> io::Result<()> {
+            let mut out = String::new();
+            for (i, width) in widths.iter().enumerate() {
+                let c = cells.get(i).map_or("", String::as_str);
+                let pad = width.saturating_sub(c.chars().count());
+                if i == 0 {
+                    out.push_str(c);
+                    out.push_str(&" ".repeat(pad));
+                } else {
+                    out.push_str("  ");
+                    out.push_str(&" ".repeat(pad));
+                    out.push_str(c);
+                }
+            }
+            writeln!(w, "{}", out.trim_end())
+        };
+        line(w, &self.headers)?;
+        for row in &self.rows {
+            line(w, row)?;
+        }
+        Ok(())
+    }
+
+    /// Writes a Markdown table.
+    pub fn write_markdown(&self, w: &mut dyn Write) -> io::Result<()> {
+        let esc = |c: &str| c.replace('|', "\\|");
+        let head: Vec<String> = self.headers.iter().map(|h| esc(h)).collect();
+        writeln!(w, "| {} |", head.join(" | "))?;
+        let rule: Vec<&str> = (0..self.headers.len())
+            .map(|i| if i == 0 { "---" } else { "---:" })
+            .collect();
+        writeln!(w, "| {} |", rule.join(" | "))?;
+        for row in &self.rows {
+            let cells: Vec<String> = row.iter().map(|c| esc(c)).collect();
+            writeln!(w, "| {} |", cells.join(" | "))?;
+        }
+        Ok(())
+    }
+
+    /// Writes CSV (RFC 4180 quoting).
+    pub fn write_csv(&self, w: &mut dyn Write) -> io::Result<()> {
+        let quote = |c: &str| {
+            if c.contains([',', '"', '\n', '\r']) {
+                format!("\"{}\"", c.replace('"', "\"\""))
+            } else {
+                c.to_string()
+            }
+        };
+        for row in std::iter::once(&self.headers).chain(&self.rows) {
+            let cells: Vec<String> = row.iter().map(|c| quote(c)).collect();
+            writeln!(w, "{}", cells.join(","))?;
+        }
+        Ok(())
+    }
+}
+
+/// Writes a titled study table in a human-readable format (text or Markdown), with
+/// notes, ending with the caution.
+pub fn write_human(
+    w: &mut dyn Write,
+    format: Format,
+    title: &str,
+    table: &Table,
+    notes: &[String],
+) -> io::Result<()> {
+    if format == Format::Markdown {
+        writeln!(w, "## {title}\n")?;
+        table.write_markdown(w)?;
+        writeln!(w)?;
+        for n in notes {
+            if n.is_empty() || n.starts_with('|') || n.contains('\n') {
+                writeln!(w, "{n}")?;
+            } else {
+                writeln!(w, "- {n}")?;
+            }
+        }
+        if !notes.is_empty() {
+            writeln!(w)?;
+        }
+        writeln!(w, "*{CAUTION}*")
+    } else {
+        writeln!(w, "{title}\n")?;
+        table.write_text(w)?;
+        writeln!(w)?;
+        for n in notes {
+            writeln!(w, "{n}")?;
+        }
+        if !notes.is_empty() {
+            writeln!(w)?;
+        }
+        writeln!(w, "{CAUTION}")
+    }
+}
+
+/// A CSV number: full precision, empty when missing.
+pub fn csv_number(x: Option<f64>) -> String {
+    match x {
+        Some(v) if v.is_finite() => format!("{v}"),
+        _ => String::new(),
+    }
+}

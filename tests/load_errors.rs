@@ -1,0 +1,602 @@
+//! Every class of rig-file error names the file, line and the part or key, says what was
+//! expected, and never panics. The base rig is the example of DESIGN.md section 4.
+
+use std::time::{Duration, Instant};
+
+use proptest::prelude::*;
+use reeve::rig::{load_file, load_str, load_str_with, LoadError};
+
+const EXAMPLE: &str = "\
+format: 1
+title: Two-part hoist for a workshop hatch
+units: {length: mm, force: N, mass: kg, torque: N*m}  # defaults for bare numbers
+gravity: [0, 0, -1]            # direction only (default -Z); g = 9.80665 m/s^2
+limits: {fleet_angle: 1.5, design_factor: 5}          # degrees; ratio
+ropes:
+  braid6: {diameter: 6, breaking_strength: 7.5 kN, mu: 0.2, min_bend_ratio: 8}
+parts:
+  eye:    {kind: anchor, at: [0, 0, 2400]}
+  head:   {kind: sheave, at: [120, 0, 2400], axle: [0, 1, 0], diameter: 60,
+           bearing: {kind: plain, pin_diameter: 10, mu: 0.12}}
+  hook:   {kind: block, at: [60, 0, 900], moves: [0, 0, 1], load: {mass: 40}}
+  hook.a: {kind: sheave, block: hook, at: [60, 0, 900], axle: [0, 1, 0], diameter: 60,
+           bearing: {kind: rolling, bore: 10, mu: 0.0015}}
+  hand:   {kind: haul, at: [400, 0, 1000]}
+lines:
+  fall: {rope: braid6, path: [eye, hook.a, head, hand]}
+drive: hand          # the part whose forward motion drives the rig (default: the only haul)
+solve_for: hand      # the part whose natural quantity is unknown (default: the drive)
+";
+
+/// The example with one piece of text replaced (which must occur).
+fn with(from: &str, to: &str) -> String {
+    assert!(EXAMPLE.contains(from), "`{from}` not in the example");
+    EXAMPLE.replacen(from, to, 1)
+}
+
+fn fails(text: &str) -> LoadError {
+    match load_str(text, "rig.yaml") {
+        Ok(_) => panic!("expected an error for:\n{text}"),
+        Err(e) => e,
+    }
+}
+
+/// Asserts that one problem is on `line` and its text contains every needle.
+#[track_caller]
+fn assert_problem(e: &LoadError, line: usize, needles: &[&str]) {
+    let shown = e.to_string();
+    let prefix = format!("rig.yaml:{line}:");
+    let found = shown
+        .lines()
+        .any(|l| l.starts_with(&prefix) && needles.iter().all(|n| l.contains(n)));
+    assert!(
+        found,
+        "no problem at {prefix} containing {needles:?} in:\n{shown}"
+    );
+}
+
+#[test]
+fn the_example_loads() {
+    let rig = load_str(EXAMPLE, "rig.yaml").unwrap();
+    assert_eq!(rig.parts.len(), 5);
+}
+
+#[test]
+fn yaml_syntax() {
+    let e = fails(&with("fall: {rope: braid6,", "fall: {rope: braid6,,"));
+    assert_problem(&e, 17, &["invalid YAML"]);
+    let e = fails("format: 1\nparts:\n  a: [1, 2\n");
+    assert!(e.to_string().starts_with("rig.yaml:"), "{e}");
+}
+
+#[test]
+fn misspelt_top_level_key() {
+    let e = fails(&with("limits:", "limit:"));
+    assert_problem(&e, 5, &["limit", "did you mean `limits`?"]);
+}
+
+#[test]
+fn misspelt_part_key() {
+    let e = fails(&with(
+        "diameter: 60,\n           bearing: {kind: plain",
+        "diamter: 60,\n           bearing: {kind: plain",
+    ));
+    assert_problem(&e, 10, &["parts.head.diamter", "did you mean `diameter`?"]);
+    // The missing diameter is reported too.
+    assert_problem(&e, 10, &["parts.head.diameter", "missing `diameter`"]);
+}
+
+#[test]
+fn key_of_another_kind() {
+    let e = fails(&with(
+        "{kind: anchor, at: [0, 0, 2400]}",
+        "{kind: anchor, at: [0, 0, 2400], bearing: {kind: none}}",
+    ));
+    assert_problem(&e, 9, &["parts.eye.bearing", "not a key of an anchor part"]);
+}
+
+#[test]
+fn unknown_part_kind() {
+    let e = fails(&with("{kind: anchor,", "{kind: ancor,"));
+    assert_problem(&e, 9, &["parts.eye.kind", "did you mean `anchor`?"]);
+}
+
+#[test]
+fn wrong_type() {
+    let e = fails(&with(
+        "axle: [0, 1, 0], diameter: 60,\n           bearing: {kind: plain",
+        "axle: [0, 1, 0], diameter: [60],\n           bearing: {kind: plain",
+    ));
+    assert_problem(
+        &e,
+        10,
+        &["parts.head.diameter", "expected a length", "found a list"],
+    );
+    let e = fails(&with("at: [0, 0, 2400]", "at: [0, 0]"));
+    assert_problem(&e, 9, &["parts.eye.at", "three numbers", "a list of 2"]);
+    let e = fails(&with(
+        "bearing: {kind: rolling, bore: 10, mu: 0.0015}",
+        "bearing: rolling",
+    ));
+    assert_problem(&e, 14, &["parts.hook.a.bearing", "expected a bearing"]);
+}
+
+#[test]
+fn text_where_a_number_belongs() {
+    let e = fails(&with("mu: 0.12", "mu: high"));
+    assert_problem(
+        &e,
+        11,
+        &["parts.head.bearing.mu", "friction coefficient", "`high`"],
+    );
+    let e = fails(&with("load: {mass: 40}", "load: {mass: heavy}"));
+    assert_problem(
+        &e,
+        12,
+        &[
+            "parts.hook.load.mass",
+            "expected a mass such as `40 kg`",
+            "`heavy`",
+        ],
+    );
+}
+
+#[test]
+fn unknown_unit() {
+    let e = fails(&with(
+        "breaking_strength: 7.5 kN",
+        "breaking_strength: 7.5 kips",
+    ));
+    assert_problem(
+        &e,
+        7,
+        &[
+            "ropes.braid6.breaking_strength",
+            "unknown unit `kips`",
+            "kN",
+        ],
+    );
+    let e = fails(&with(
+        "breaking_strength: 7.5 kN",
+        "breaking_strength: 7.5 kg",
+    ));
+    assert_problem(
+        &e,
+        7,
+        &["ropes.braid6.breaking_strength", "mass unit", "force"],
+    );
+    let e = fails(&with("length: mm", "length: furlong"));
+    assert_problem(&e, 3, &["units.length", "unknown unit `furlong`"]);
+}
+
+#[test]
+fn non_finite_numbers() {
+    let e = fails(&with("diameter: 6,", "diameter: .nan,"));
+    assert_problem(&e, 7, &["ropes.braid6.diameter", "not a finite number"]);
+    let e = fails(&with("mu: 0.2", "mu: .inf"));
+    assert_problem(&e, 7, &["ropes.braid6.mu", "not a finite number"]);
+    let e = fails(&with("at: [400, 0, 1000]", "at: [400, -.inf, 1000]"));
+    assert_problem(&e, 15, &["parts.hand.at.1", "not a finite number"]);
+    let e = fails(&with("diameter: 6,", "diameter: 1e400,"));
+    assert_problem(&e, 7, &["ropes.braid6.diameter"]);
+}
+
+#[test]
+fn negative_or_zero_sizes() {
+    let e = fails(&with("diameter: 6,", "diameter: -6,"));
+    assert_problem(
+        &e,
+        7,
+        &[
+            "ropes.braid6.diameter",
+            "expected a positive length",
+            "`-6`",
+        ],
+    );
+    let e = fails(&with("pin_diameter: 10", "pin_diameter: 0"));
+    assert_problem(
+        &e,
+        11,
+        &["parts.head.bearing.pin_diameter", "positive length"],
+    );
+    let e = fails(&with(
+        "breaking_strength: 7.5 kN",
+        "breaking_strength: -7.5 kN",
+    ));
+    assert_problem(&e, 7, &["ropes.braid6.breaking_strength", "positive force"]);
+    let e = fails(&with("load: {mass: 40}", "load: {mass: -40 kg}"));
+    assert_problem(&e, 12, &["parts.hook.load.mass", "0 or more"]);
+}
+
+#[test]
+fn out_of_range_coefficients() {
+    let e = fails(&with("mu: 0.12", "mu: -0.12"));
+    assert_problem(&e, 11, &["parts.head.bearing.mu", "0 or more"]);
+    let e = fails(&with(
+        "{kind: rolling, bore: 10, mu: 0.0015}",
+        "{kind: rated, efficiency: 1.2}",
+    ));
+    assert_problem(&e, 14, &["parts.hook.a.bearing.efficiency", "at most 1"]);
+    let e = fails(&with(
+        "{kind: rolling, bore: 10, mu: 0.0015}",
+        "{kind: rated, factor: 0.9}",
+    ));
+    assert_problem(&e, 14, &["parts.hook.a.bearing.factor", "1 or more"]);
+    let e = fails(&with("fleet_angle: 1.5", "fleet_angle: 0"));
+    assert_problem(&e, 5, &["limits.fleet_angle", "greater than 0"]);
+}
+
+#[test]
+fn zero_vectors() {
+    let e = fails(&with(
+        "axle: [0, 1, 0], diameter: 60,\n           bearing: {kind: plain",
+        "axle: [0, 0, 0], diameter: 60,\n           bearing: {kind: plain",
+    ));
+    assert_problem(&e, 10, &["parts.head.axle", "zero vector"]);
+    let e = fails(&with("moves: [0, 0, 1]", "moves: [0, 0, 0]"));
+    assert_problem(&e, 12, &["parts.hook.moves", "zero vector"]);
+    let e = fails(&with("gravity: [0, 0, -1]", "gravity: [0, 0, 0]"));
+    assert_problem(&e, 4, &["gravity", "zero vector"]);
+    let e = fails(&with(
+        "{kind: haul, at: [400, 0, 1000]}",
+        "{kind: haul, at: [400, 0, 1000], pull: [0, 0, 0]}",
+    ));
+    assert_problem(&e, 15, &["parts.hand.pull", "zero vector"]);
+    // Huge components are scaled, not overflowed.
+    let ok = with("gravity: [0, 0, -1]", "gravity: [1e11, 1e11, -1e11]");
+    assert!(load_str(&ok, "rig.yaml").is_ok());
+}
+
+#[test]
+fn path_names_an_unknown_part() {
+    let e = fails(&with(
+        "path: [eye, hook.a, head, hand]",
+        "path: [eye, hook.a, hed, hand]",
+    ));
+    assert_problem(
+        &e,
+        17,
+        &[
+            "lines.fall.path.2",
+            "no part named `hed`",
+            "did you mean `head`?",
+        ],
+    );
+    let e = fails(&with("rope: braid6,", "rope: braid7,"));
+    assert_problem(
+        &e,
+        17,
+        &[
+            "lines.fall.rope",
+            "no rope named `braid7`",
+            "did you mean `braid6`?",
+        ],
+    );
+}
+
+#[test]
+fn line_ends_and_middles_of_the_wrong_kind() {
+    let e = fails(&with(
+        "path: [eye, hook.a, head, hand]",
+        "path: [head, hook.a, eye, hand]",
+    ));
+    assert_problem(
+        &e,
+        17,
+        &[
+            "lines.fall.path.0",
+            "`head` is a sheave",
+            "cannot end a line",
+        ],
+    );
+    assert_problem(
+        &e,
+        17,
+        &["lines.fall.path.2", "`eye` is an anchor", "cannot pass"],
+    );
+    let e = fails(&with("path: [eye, hook.a, head, hand]", "path: [hand]"));
+    assert_problem(&e, 17, &["lines.fall.path", "at least two"]);
+    let e = fails(&with(
+        "path: [eye, hook.a, head, hand]",
+        "path: [eye, {part: hook.a, turns: 1}, head, hand]",
+    ));
+    assert_problem(
+        &e,
+        17,
+        &["lines.fall.path.1.turns", "only to a guide or drum"],
+    );
+    let e = fails(&with(
+        "path: [eye, hook.a, head, hand]",
+        "path: [eye, {part: hook.a, side: up}, head, hand]",
+    ));
+    assert_problem(&e, 17, &["lines.fall.path.1.side", "left, right"]);
+}
+
+#[test]
+fn duplicate_part_names() {
+    let e = fails(&with(
+        "  hand:   {kind: haul",
+        "  head:   {kind: anchor, at: [0, 0, 0]}\n  hand:   {kind: haul",
+    ));
+    assert_problem(&e, 15, &["parts.head", "duplicate key `head`", "line 10"]);
+}
+
+#[test]
+fn drive_or_solve_for_missing_or_wrong() {
+    let e = fails(&with("drive: hand", "drive: hnd"));
+    assert_problem(
+        &e,
+        18,
+        &["drive", "no part named `hnd`", "did you mean `hand`?"],
+    );
+    let e = fails(&with("solve_for: hand", "solve_for: head"));
+    assert_problem(&e, 19, &["solve_for", "`head` is a sheave"]);
+    // Two hauls and no drive.
+    let two = with("drive: hand", "")
+        .replace("solve_for: hand ", "")
+        .replace(
+            "  hand:   {kind: haul",
+            "  other: {kind: haul, at: [0, 0, 0], force: 5}\n  hand:   {kind: haul",
+        );
+    let e = load_str(&two, "rig.yaml").unwrap_err();
+    assert!(
+        e.to_string()
+            .contains("missing `drive`; the rig has 2 hauls"),
+        "{e}"
+    );
+    assert!(e.to_string().starts_with("rig.yaml:1:"), "{e}");
+}
+
+#[test]
+fn natural_quantity_must_be_given() {
+    let e = fails(&with("load: {mass: 40}", "mass: 3"));
+    assert_problem(&e, 12, &["parts.hook.load", "missing `load`"]);
+}
+
+#[test]
+fn empty_file() {
+    for text in ["", "\n\n# only a comment\n", "~\n", "\u{feff}"] {
+        let e = fails(text);
+        assert!(e.to_string().contains("the file is empty"), "{e}");
+    }
+    let e = fails("- a\n- b\n");
+    assert_problem(&e, 1, &["expected a mapping of rig keys"]);
+}
+
+#[test]
+fn missing_file_names_the_path() {
+    let path = std::path::Path::new("no/such/rig-file.yaml");
+    let e = load_file(path).unwrap_err();
+    let shown = e.to_string();
+    assert!(
+        shown.contains("no/such/rig-file.yaml") && shown.contains("no such file"),
+        "{shown}"
+    );
+}
+
+#[test]
+fn leading_bom_is_stripped() {
+    let rig = load_str(&format!("\u{feff}{EXAMPLE}"), "rig.yaml").unwrap();
+    assert_eq!(rig.parts.len(), 5);
+    // And a file on disk with a BOM loads too.
+    let dir = std::env::temp_dir().join(format!("reeve-load-{}", std::process::id()));
+    std::fs::create_dir_all(&dir).unwrap();
+    let path = dir.join("bom.yaml");
+    std::fs::write(&path, format!("\u{feff}{EXAMPLE}")).unwrap();
+    assert!(load_file(&path).is_ok());
+    let _ = std::fs::remove_dir_all(&dir);
+}
+
+#[test]
+fn alias_bombs_and_deep_nesting_are_refused_fast() {
+    let mut bomb = String::from("format: 1\na0: &a0 [x, x, x, x, x, x, x, x, x, x]\n");
+    for i in 1..20 {
+        let p = i - 1;
+        bomb.push_str(&format!(
+            "a{i}: &a{i} [*a{p}, *a{p}, *a{p}, *a{p}, *a{p}, *a{p}, *a{p}, *a{p}, *a{p}, *a{p}]\n"
+        ));
+    }
+    let start = Instant::now();
+    let e = fails(&bomb);
+    assert!(e.to_string().contains("aliases expand"), "{e}");
+    for deep in [
+        "[".repeat(900_000),
+        "{a: ".repeat(200_000),
+        "- ".repeat(100_000),
+    ] {
+        let e = fails(&deep);
+        assert!(e.to_string().contains("nesting deeper"), "{e}");
+    }
+    let big = "#".repeat(2 << 20);
+    assert!(fails(&big).to_string().contains("bytes"));
+    assert!(
+        start.elapsed() < Duration::from_secs(20),
+        "took {:?}",
+        start.elapsed()
+    );
+}
+
+#[test]
+fn two_documents() {
+    let e = fails(&format!("{EXAMPLE}---\nformat: 1\n"));
+    assert_problem(&e, 20, &["second YAML document"]);
+}
+
+#[test]
+fn all_problems_are_collected() {
+    let text = with("diameter: 6,", "diameter: -6,")
+        .replace("mu: 0.12", "mu: -1")
+        .replace("load: {mass: 40}", "load: {mass: 40 N}")
+        .replace("hook.a, head, hand]", "hook.a, hed, hand]");
+    let e = fails(&text);
+    assert!(e.problems.len() >= 4, "{e}");
+    assert_problem(&e, 7, &["ropes.braid6.diameter"]);
+    assert_problem(&e, 11, &["parts.head.bearing.mu"]);
+    assert_problem(&e, 12, &["parts.hook.load.mass", "force unit"]);
+    assert_problem(&e, 17, &["hed"]);
+    // In file order.
+    let lines: Vec<usize> = e
+        .problems
+        .iter()
+        .filter_map(|p| p.location.map(|l| l.line))
+        .collect();
+    assert!(lines.windows(2).all(|w| w[0] <= w[1]), "{lines:?}");
+}
+
+#[test]
+fn missing_format_and_wrong_format() {
+    let e = fails(&with("format: 1\n", ""));
+    assert!(e.to_string().contains("missing `format`"), "{e}");
+    let e = fails(&with("format: 1", "format: 2"));
+    assert_problem(&e, 1, &["format", "unsupported format `2`"]);
+}
+
+fn set(pairs: &[(&str, &str)]) -> Vec<(String, String)> {
+    pairs
+        .iter()
+        .map(|(k, v)| (k.to_string(), v.to_string()))
+        .collect()
+}
+
+#[test]
+fn overrides_apply_by_the_files_own_keys() {
+    use reeve::rig::model::{Bearing, BlockLoad, PartKind};
+    let rig = load_str_with(
+        EXAMPLE,
+        "rig.yaml",
+        &set(&[
+            ("parts.head.bearing.mu", "0.08"),
+            ("parts.hook.load.mass", "60 kg"),
+            ("ropes.braid6.mu", "0.1"),
+            ("limits.fleet_angle", "2"),
+            ("parts.hook.a.diameter", "80"),
+            ("parts.hand.force", "300 N"),
+            ("gravity.2", "-2"),
+        ]),
+    )
+    .unwrap();
+    let PartKind::Sheave(head) = &rig.parts[1].kind else {
+        panic!()
+    };
+    assert!(matches!(head.bearing, Bearing::Plain { mu, .. } if mu == 0.08));
+    let PartKind::Block(hook) = &rig.parts[2].kind else {
+        panic!()
+    };
+    assert_eq!(hook.load, Some(BlockLoad::Mass(60.0)));
+    assert_eq!(rig.ropes[0].mu, 0.1);
+    assert!((rig.limits.fleet_angle - 2f64.to_radians()).abs() < 1e-15);
+    let PartKind::Sheave(a) = &rig.parts[3].kind else {
+        panic!()
+    };
+    assert!((a.tread_diameter - 0.08).abs() < 1e-15);
+    let PartKind::Haul(h) = &rig.parts[4].kind else {
+        panic!()
+    };
+    assert_eq!(h.force, Some(300.0));
+    // Setting a force load replaces the mass.
+    let rig = load_str_with(
+        EXAMPLE,
+        "rig.yaml",
+        &set(&[("parts.hook.load.force", "0.5 kN")]),
+    )
+    .unwrap();
+    let PartKind::Block(hook) = &rig.parts[2].kind else {
+        panic!()
+    };
+    assert_eq!(
+        (hook.load, hook.load_is_force),
+        (Some(BlockLoad::Force(500.0)), true)
+    );
+}
+
+#[test]
+fn override_errors_name_the_closest_key() {
+    let e = load_str_with(
+        EXAMPLE,
+        "rig.yaml",
+        &set(&[("parts.head.bearing.mux", "0.1")]),
+    )
+    .unwrap_err();
+    let shown = e.to_string();
+    assert!(
+        shown.contains("parts.head.bearing.mux") && shown.contains("did you mean `mu`?"),
+        "{shown}"
+    );
+    assert!(
+        shown.contains("override `parts.head.bearing.mux=0.1`"),
+        "{shown}"
+    );
+    let e = load_str_with(EXAMPLE, "rig.yaml", &set(&[("parts.hed.diameter", "50")])).unwrap_err();
+    assert!(
+        e.to_string().contains("no part named `hed`")
+            && e.to_string().contains("did you mean `head`?"),
+        "{e}"
+    );
+    let e = load_str_with(EXAMPLE, "rig.yaml", &set(&[("limit.fleet_angle", "2")])).unwrap_err();
+    assert!(e.to_string().contains("did you mean `limits`?"), "{e}");
+    let e = load_str_with(
+        EXAMPLE,
+        "rig.yaml",
+        &set(&[("parts.head.bearing.mu", "-1")]),
+    )
+    .unwrap_err();
+    assert!(
+        e.to_string().contains("0 or more") && e.to_string().contains("override"),
+        "{e}"
+    );
+    let e = load_str_with(EXAMPLE, "rig.yaml", &set(&[("gravity.3", "1")])).unwrap_err();
+    assert!(e.to_string().contains("list of 3"), "{e}");
+    let e =
+        load_str_with(EXAMPLE, "rig.yaml", &set(&[("parts.head.diameter.x", "1")])).unwrap_err();
+    assert!(e.to_string().contains("single value"), "{e}");
+}
+
+/// One random edit of the example text.
+fn mutate(text: &str, edits: &[(usize, u8, u8)]) -> String {
+    let mut bytes = text.as_bytes().to_vec();
+    const ALPHABET: &[u8] = b" \n\t:-,[]{}#&*!|>'\"?%@`0123456789.eE+~abcxyz\xef\xbb\xbf";
+    for &(pos, op, ch) in edits {
+        if bytes.is_empty() {
+            break;
+        }
+        let at = pos % bytes.len();
+        let c = ALPHABET[ch as usize % ALPHABET.len()];
+        match op % 4 {
+            0 => {
+                bytes.remove(at);
+            }
+            1 => bytes.insert(at, c),
+            2 => bytes[at] = c,
+            _ => {
+                // Duplicate a run of text (repeats keys and lines).
+                let end = (at + ch as usize).min(bytes.len());
+                let run = bytes[at..end].to_vec();
+                bytes.splice(at..at, run);
+            }
+        }
+    }
+    String::from_utf8_lossy(&bytes).into_owned()
+}
+
+proptest! {
+    #![proptest_config(ProptestConfig { cases: 600, ..ProptestConfig::default() })]
+
+    /// Loading never panics and never returns an error without a problem.
+    #[test]
+    fn random_mutations_never_panic(edits in prop::collection::vec((0usize..2000, any::<u8>(), any::<u8>()), 1..8)) {
+        let text = mutate(EXAMPLE, &edits);
+        match load_str(&text, "rig.yaml") {
+            Ok(rig) => {
+                for p in &rig.parts {
+                    prop_assert!(p.at.coords.iter().all(|c| c.is_finite()));
+                }
+            }
+            Err(e) => {
+                prop_assert!(!e.problems.is_empty());
+                for p in &e.problems {
+                    prop_assert!(!p.message.is_empty());
+                }
+            }
+        }
+    }
+}

@@ -1,0 +1,627 @@
+//! Design studies through the real binary: overrides and variants, compare, sweep and
+//! stroke, upgrade ranking and sensitivities, Monte Carlo spread. Golden tables live in
+//! `tests/golden/`; rewrite them with `REEVE_BLESS=1 cargo test --test studies`.
+
+use std::path::Path;
+use std::process::{Command, Output};
+
+use serde_json::Value;
+
+const BIN: &str = env!("CARGO_BIN_EXE_reeve");
+
+fn rig(name: &str) -> String {
+    format!("{}/tests/rigs/{name}", env!("CARGO_MANIFEST_DIR"))
+}
+
+fn run(args: &[&str]) -> Output {
+    Command::new(BIN)
+        .args(args)
+        .current_dir(env!("CARGO_MANIFEST_DIR"))
+        .output()
+        .expect("the reeve binary runs")
+}
+
+fn ok(args: &[&str]) -> String {
+    let out = run(args);
+    assert!(
+        out.status.success(),
+        "reeve {args:?} failed: {}",
+        String::from_utf8_lossy(&out.stderr)
+    );
+    String::from_utf8(out.stdout).expect("utf-8 output")
+}
+
+fn json(args: &[&str]) -> Value {
+    let text = ok(args);
+    serde_json::from_str(&text).unwrap_or_else(|e| panic!("{e}: {text}"))
+}
+
+fn num(v: &Value) -> f64 {
+    v.as_f64().unwrap_or_else(|| panic!("not a number: {v}"))
+}
+
+fn close(a: f64, b: f64, rel: f64) -> bool {
+    (a - b).abs() <= rel * b.abs().max(1e-12)
+}
+
+fn check_forward(file: &str, sets: &[&str]) -> f64 {
+    let path = rig(file);
+    let mut args = vec!["check", path.as_str(), "--json"];
+    for s in sets {
+        args.push("--set");
+        args.push(s);
+    }
+    let out = run(&args);
+    assert_ne!(
+        out.status.code(),
+        Some(2),
+        "{}",
+        String::from_utf8_lossy(&out.stderr)
+    );
+    let v: Value = serde_json::from_slice(&out.stdout).expect("json");
+    num(&v["forward"]["value"])
+}
+
+fn golden(name: &str, actual: &str) {
+    let path = Path::new(env!("CARGO_MANIFEST_DIR"))
+        .join("tests/golden")
+        .join(name);
+    if std::env::var_os("REEVE_BLESS").is_some() {
+        std::fs::write(&path, actual).expect("write golden");
+        return;
+    }
+    let expected = std::fs::read_to_string(&path)
+        .unwrap_or_else(|_| panic!("missing golden {name}; run with REEVE_BLESS=1"));
+    if expected != actual {
+        let diff: Vec<String> = expected
+            .lines()
+            .zip(actual.lines())
+            .enumerate()
+            .filter(|(_, (e, a))| e != a)
+            .map(|(i, (e, a))| format!("line {}:\n  expected: {e}\n  actual:   {a}", i + 1))
+            .collect();
+        panic!(
+            "golden {name} differs ({} vs {} lines):\n{}",
+            expected.lines().count(),
+            actual.lines().count(),
+            diff.join("\n")
+        );
+    }
+}
+
+/// Wire-rope handbook reeving efficiency formula, DESIGN.md §1:
+/// E = (K^N − 1)/(K^S·N·(K − 1)), pull = W/(N·E).
+fn handbook_pull(w: f64, k: f64, n: i32, s: i32) -> f64 {
+    let e = (k.powi(n) - 1.0) / (k.powi(s) * n as f64 * (k - 1.0));
+    w / (n as f64 * e)
+}
+
+// ------------------------------------------------------------------ overrides
+
+#[test]
+fn overrides_of_every_kind_of_key() {
+    let base = check_forward("tackle-rated.yaml", &[]);
+    // A plain number (a bearing factor).
+    let k = check_forward("tackle-rated.yaml", &["parts.upper.d.bearing.factor=1.1"]);
+    assert!(k > base, "{k} vs {base}");
+    // A quantity with a unit, in another unit than the file's: 1000 N = 0.1 kN·10.
+    let kn = check_forward("tackle-rated.yaml", &["parts.hook.load.force=1 kN"]);
+    assert!(close(kn, base, 1e-12), "{kn} vs {base}");
+    // A mapping (a whole bearing) and a list (a point).
+    let none = check_forward("tackle-rated.yaml", &["parts.upper.d.bearing={kind: none}"]);
+    assert!(none < base);
+    let moved = check_forward("tackle-rated.yaml", &["parts.hand.at=[400, 0, 400]"]);
+    assert!(close(moved, base, 1e-9), "{moved} vs {base}");
+    // A mass instead of a force removes the force (exclusive pair): hand calculation,
+    // 102 kg × 9.80665 m/s² = 1000.28 N, so the pull scales by 1.00028.
+    let mass = check_forward("tackle-rated.yaml", &["parts.hook.load.mass=102 kg"]);
+    assert!(close(mass, base * 102.0 * 9.80665 / 1000.0, 1e-9), "{mass}");
+    // A rope key and `~` removing an optional key.
+    let rope = check_forward("tackle-rated.yaml", &["ropes.r10.mu=0.3"]);
+    assert!(close(rope, base, 1e-12));
+    let sheave_mu = check_forward("chain-plain.yaml", &["parts.top.1.bearing.mu_static=~"]);
+    assert!(close(
+        sheave_mu,
+        check_forward("chain-plain.yaml", &[]),
+        1e-12
+    ));
+}
+
+#[test]
+fn unknown_override_keys_are_errors_with_a_suggestion() {
+    let path = rig("tackle-rated.yaml");
+    for cmd in ["check", "rank", "spread"] {
+        let out = run(&[cmd, &path, "--set", "parts.hnd.force=100 N"]);
+        assert_eq!(out.status.code(), Some(2), "{cmd}");
+        let err = String::from_utf8_lossy(&out.stderr);
+        assert!(err.contains("did you mean `hand`"), "{cmd}: {err}");
+    }
+    let out = run(&[
+        "sweep",
+        &path,
+        "--set",
+        "parts.upper.d.bearing.facor=1.1",
+        "--vary",
+        "parts.hook.load.force=900..1000",
+    ]);
+    assert_eq!(out.status.code(), Some(2));
+    assert!(String::from_utf8_lossy(&out.stderr).contains("factor"));
+    let out = run(&["compare", &path, "--set", "ropes.r11.mu=0.1"]);
+    assert_eq!(out.status.code(), Some(2));
+    assert!(String::from_utf8_lossy(&out.stderr).contains("did you mean `r10`"));
+}
+
+#[test]
+fn a_variant_equals_the_same_set_list() {
+    let path = rig("tackle-rated.yaml");
+    let c = json(&["compare", &path, "--variants", "--json"]);
+    let cols = c["columns"].as_array().expect("columns");
+    assert_eq!(cols.len(), 5);
+    let by = |label: &str| {
+        cols.iter()
+            .find(|c| c["label"] == label)
+            .unwrap_or_else(|| panic!("column {label}"))
+    };
+    let sets_102: Vec<String> = ["upper.b", "upper.d", "lower.a", "lower.c"]
+        .iter()
+        .map(|p| format!("parts.{p}.bearing.factor=1.02"))
+        .collect();
+    let refs: Vec<&str> = sets_102.iter().map(String::as_str).collect();
+    assert_eq!(
+        num(&by("K1.02")["forward"]),
+        check_forward("tackle-rated.yaml", &refs)
+    );
+    assert_eq!(
+        num(&by("heavy")["forward"]),
+        check_forward("tackle-rated.yaml", &["parts.hook.load={mass: 150 kg}"])
+    );
+    assert_eq!(
+        num(&by("base")["forward"]),
+        check_forward("tackle-rated.yaml", &[])
+    );
+}
+
+// ------------------------------------------------------------ compare and sweep
+
+#[test]
+fn compare_of_rated_tackles_reproduces_the_handbook_formula() {
+    // Wire-rope handbook reeving efficiency formula, DESIGN.md §1, with N = S = 4
+    // (hauling part leaves the fixed block), W = 1000 N, at each K of the variants.
+    let c = json(&[
+        "compare",
+        &rig("tackle-rated.yaml"),
+        "--variants",
+        "--format",
+        "json",
+    ]);
+    for (label, k) in [
+        ("base", 1.04),
+        ("K1.02", 1.02),
+        ("K1.06", 1.06),
+        ("K1.10", 1.10),
+    ] {
+        let col = c["columns"]
+            .as_array()
+            .and_then(|a| a.iter().find(|x| x["label"] == label))
+            .expect("column");
+        let expected = handbook_pull(1000.0, k, 4, 4);
+        let got = num(&col["forward"]);
+        assert!(close(got, expected, 1e-9), "K = {k}: {got} vs {expected}");
+        let e = num(&col["efficiency"]);
+        let e_hb = (k.powi(4) - 1.0) / (k.powi(4) * 4.0 * (k - 1.0));
+        assert!(close(e, e_hb, 1e-9), "K = {k}: efficiency {e} vs {e_hb}");
+    }
+    // The change column is relative to the first.
+    let ch = num(&c["change_pct"][1]["forward"]);
+    let expected =
+        (handbook_pull(1000.0, 1.02, 4, 4) / handbook_pull(1000.0, 1.04, 4, 4) - 1.0) * 100.0;
+    assert!(close(ch, expected, 1e-9), "{ch} vs {expected}");
+}
+
+#[test]
+fn sweep_of_the_load_reproduces_the_handbook_formula_at_every_step() {
+    // Wire-rope handbook reeving efficiency formula, DESIGN.md §1 (K = 1.04, N = S = 4):
+    // the pull is proportional to the load at every step.
+    let s = json(&[
+        "sweep",
+        &rig("tackle-rated.yaml"),
+        "--vary",
+        "parts.hook.load.force=0.5 kN..2 kN",
+        "--steps",
+        "4",
+        "--json",
+    ]);
+    let steps = s["steps"].as_array().expect("steps");
+    assert_eq!(steps.len(), 4);
+    for (st, w) in steps.iter().zip([500.0, 1000.0, 1500.0, 2000.0]) {
+        let expected = handbook_pull(w, 1.04, 4, 4);
+        assert!(close(num(&st["forward"]), expected, 1e-9), "W = {w}: {st}");
+        assert!(close(num(&st["ideal"]), w / 4.0, 1e-9));
+    }
+}
+
+#[test]
+fn sweep_over_a_bearing_mu_is_monotonic() {
+    let s = json(&[
+        "sweep",
+        &rig("chain-plain.yaml"),
+        "--vary",
+        "parts.low.2.bearing.mu=0..0.4",
+        "--steps",
+        "9",
+        "--json",
+    ]);
+    let f: Vec<f64> = s["steps"]
+        .as_array()
+        .unwrap()
+        .iter()
+        .map(|x| num(&x["forward"]))
+        .collect();
+    let b: Vec<f64> = s["steps"]
+        .as_array()
+        .unwrap()
+        .iter()
+        .map(|x| num(&x["back"]))
+        .collect();
+    assert!(f.windows(2).all(|w| w[1] > w[0]), "forward {f:?}");
+    assert!(b.windows(2).all(|w| w[1] < w[0]), "back {b:?}");
+}
+
+#[test]
+fn a_stroke_of_a_tackle_keeps_the_velocity_ratio() {
+    let dir = std::env::temp_dir().join(format!("reeve-stroke-{}", std::process::id()));
+    std::fs::create_dir_all(&dir).unwrap();
+    let svg = dir.join("stroke.svg");
+    let s = json(&[
+        "sweep",
+        &rig("tackle-rated.yaml"),
+        "--stroke",
+        "800 mm",
+        "--steps",
+        "4",
+        "--plot",
+        svg.to_str().unwrap(),
+        "--json",
+    ]);
+    let steps = s["steps"].as_array().unwrap();
+    assert_eq!(steps.len(), 5);
+    for st in steps {
+        assert!(st["error"].is_null(), "{st}");
+        assert!(close(num(&st["velocity_ratio"]), 4.0, 1e-9), "{st}");
+        // Hand calculation: the travel does not change vertical spans, so the pull stays
+        // at the handbook value (DESIGN.md §1).
+        assert!(close(
+            num(&st["forward"]),
+            handbook_pull(1000.0, 1.04, 4, 4),
+            1e-9
+        ));
+    }
+    assert!(close(num(&steps[4]["travel"]), 0.8, 1e-12));
+    let chart = std::fs::read_to_string(&svg).unwrap();
+    assert!(chart.contains("travel of hand (mm)") && chart.contains("force (N)"));
+    assert!(chart.contains("Largest span tension"));
+    let _ = std::fs::remove_dir_all(&dir);
+}
+
+#[test]
+fn a_stroke_that_lifts_the_block_into_the_head_reports_where_it_fails() {
+    // The hook starts 1000 mm below the upper sheaves and rises 1 mm per 4 mm of pull:
+    // 4400 mm of pull would lift it 1100 mm, into the upper block.
+    let s = json(&[
+        "sweep",
+        &rig("tackle-rated.yaml"),
+        "--stroke",
+        "4400 mm",
+        "--steps",
+        "11",
+        "--json",
+    ]);
+    let steps = s["steps"].as_array().unwrap();
+    let last = steps.last().unwrap();
+    assert!(last["error"].is_string(), "{last}");
+    assert!(steps.len() < 12, "the stroke stops at the failure");
+}
+
+#[test]
+fn golden_compare_and_sweep_tables() {
+    let text = ok(&["compare", &rig("tackle-rated.yaml"), "--variants"]);
+    assert!(text.trim_end().ends_with("licensed person."));
+    golden("compare-tackle-variants.txt", &text);
+    let md = ok(&[
+        "sweep",
+        &rig("chain-plain.yaml"),
+        "--vary",
+        "parts.load.mass=10..30 kg",
+        "--steps",
+        "5",
+        "--format",
+        "md",
+    ]);
+    assert!(md.contains("| --- |") || md.contains("| --- | ---:"));
+    golden("sweep-chain-mass.md", &md);
+    let csv = ok(&[
+        "sweep",
+        &rig("chain-plain.yaml"),
+        "--vary",
+        "parts.load.mass=10..30 kg",
+        "--steps",
+        "5",
+        "--format",
+        "csv",
+    ]);
+    assert!(csv.starts_with("parts.load.mass (kg),ideal_N,forward_N,back_N,efficiency,error"));
+    assert_eq!(csv.lines().count(), 6);
+}
+
+// ----------------------------------------------------------------------- rank
+
+#[test]
+fn in_a_tackle_the_sheave_nearest_the_hauling_part_ranks_first() {
+    let r = json(&["rank", &rig("tackle-rated.yaml"), "--json"]);
+    let parts = r["parts"].as_array().unwrap();
+    let order: Vec<&str> = parts.iter().map(|p| p["part"].as_str().unwrap()).collect();
+    // Hauling part ← upper.d ← lower.c ← upper.b ← lower.a ← dead end.
+    assert_eq!(order, ["upper.d", "lower.c", "upper.b", "lower.a"]);
+    // Hand calculation for the first: with upper.d frictionless the tensions from the
+    // dead end are T0·(1, K, K², K³) carrying W, and the pull is T0·K³:
+    // pull = W·K³/(1 + K + K² + K³).
+    let k: f64 = 1.04;
+    let expected = 1000.0 * k.powi(3) / (1.0 + k + k * k + k.powi(3));
+    assert!(close(num(&parts[0]["frictionless"]), expected, 1e-9));
+}
+
+#[test]
+fn along_a_chain_of_identical_sheaves_every_sheave_saves_the_same() {
+    // Multiplicative losses commute: with load-independent ratios k (friction circle,
+    // no sheave weight; DESIGN.md §1) the pull is W·k³ and any one frictionless sheave
+    // gives W·k², whichever it is, although the last sheave dissipates the most power.
+    let r = json(&["rank", &rig("chain-plain.yaml"), "--json"]);
+    let saved: Vec<f64> = r["parts"]
+        .as_array()
+        .unwrap()
+        .iter()
+        .map(|p| num(&p["frictionless_saved"]))
+        .collect();
+    assert_eq!(saved.len(), 3);
+    for s in &saved {
+        assert!(close(*s, saved[0], 1e-9), "{saved:?}");
+        assert!(*s > 0.0);
+    }
+    // ... and the frictionless value is the forward value of the rig written that way.
+    for p in r["parts"].as_array().unwrap() {
+        let name = p["part"].as_str().unwrap();
+        let set = format!("parts.{name}.bearing={{kind: none}}");
+        let f = check_forward("chain-plain.yaml", &[&set]);
+        assert_eq!(num(&p["frictionless"]), f, "{name}");
+    }
+}
+
+#[test]
+fn ranking_with_an_alternative_bearing() {
+    let r = json(&[
+        "rank",
+        &rig("chain-plain.yaml"),
+        "--to",
+        "rolling",
+        "--json",
+    ]);
+    for p in r["parts"].as_array().unwrap() {
+        let name = p["part"].as_str().unwrap();
+        // Catalogue default: rolling bore = the plain pin diameter, mu 0.0015.
+        let set = format!("parts.{name}.bearing={{kind: rolling, bore: 10 mm, mu: 0.0015}}");
+        assert!(close(
+            num(&p["alternative"]),
+            check_forward("chain-plain.yaml", &[&set]),
+            1e-12
+        ));
+    }
+    let yaml = json(&[
+        "rank",
+        &rig("chain-plain.yaml"),
+        "--to",
+        "{kind: plain, pin_diameter: 8, mu: 0.08}",
+        "--json",
+    ]);
+    assert!(num(&yaml["parts"][0]["alternative_saved"]) > 0.0);
+    let out = run(&["rank", &rig("chain-plain.yaml"), "--to", "{kind: plane}"]);
+    assert_eq!(out.status.code(), Some(2));
+}
+
+#[test]
+fn sensitivity_matches_the_capstan_derivative() {
+    // Capstan equation (Euler–Eytelwein), DESIGN.md §1: F = W·exp(mu·phi), phi = pi,
+    // so dF/dmu = W·phi·exp(mu·phi). W = 10 kg × 9.80665 m/s², mu = 0.25.
+    let r = json(&["rank", &rig("capstan-guide.yaml"), "--json"]);
+    let w = 10.0 * 9.80665;
+    let phi = std::f64::consts::PI;
+    let s = r["sensitivities"]
+        .as_array()
+        .unwrap()
+        .iter()
+        .find(|s| s["key"] == "parts.bar.mu")
+        .expect("guide mu");
+    let expected = w * phi * (0.25 * phi).exp();
+    assert!(
+        close(num(&s["derivative"]), expected, 1e-6),
+        "{s} vs {expected}"
+    );
+    // The rope's own mu does not act where the guide gives its own.
+    let rope = r["sensitivities"]
+        .as_array()
+        .unwrap()
+        .iter()
+        .find(|s| s["key"] == "ropes.cord4.mu")
+        .unwrap();
+    assert!(num(&rope["derivative"]).abs() < 1e-6);
+    // Frictionless guide: the ideal W.
+    assert!(close(num(&r["parts"][0]["frictionless"]), w, 1e-9));
+}
+
+// --------------------------------------------------------------------- spread
+
+#[test]
+fn zero_width_ranges_reproduce_the_deterministic_values() {
+    let sets = [
+        "--set",
+        "ropes.braid6.mu={min: 0.2, max: 0.2}",
+        "--set",
+        "parts.hook.load.mass={mean: 40, sd: 0}",
+        "--set",
+        "parts.hook.a.bearing.mu={min: 0.12, max: 0.12}",
+    ];
+    let path = rig("spread-hoist.yaml");
+    let mut args = vec!["spread", path.as_str(), "--samples", "20", "--json"];
+    args.extend_from_slice(&sets);
+    let s = json(&args);
+    let f = check_forward(
+        "spread-hoist.yaml",
+        &[
+            "ropes.braid6.mu=0.2",
+            "parts.hook.load.mass=40",
+            "parts.hook.a.bearing.mu=0.12",
+        ],
+    );
+    for p in ["p5", "p50", "p95"] {
+        assert_eq!(num(&s["forward"][p]), f, "{p}");
+    }
+    assert_eq!(num(&s["nominal_forward"]), f);
+    assert_eq!(s["inputs"].as_array().unwrap().len(), 3);
+}
+
+#[test]
+fn deterministic_commands_use_the_middle_of_a_range() {
+    // Uniform 0.15..0.25 → 0.2; uniform 0.10..0.14 → 0.12; normal mean 40.
+    let a = check_forward("spread-hoist.yaml", &[]);
+    let b = check_forward(
+        "spread-hoist.yaml",
+        &[
+            "ropes.braid6.mu=0.2",
+            "parts.hook.load.mass=40",
+            "parts.hook.a.bearing.mu=0.12",
+        ],
+    );
+    assert!(close(a, b, 1e-12), "{a} vs {b}");
+}
+
+#[test]
+fn median_of_a_narrow_symmetric_range_is_the_deterministic_value() {
+    let path = rig("spread-hoist.yaml");
+    let s = json(&[
+        "spread",
+        &path,
+        "--samples",
+        "400",
+        "--seed",
+        "11",
+        "--json",
+        "--set",
+        "parts.hook.load.mass=40",
+        "--set",
+        "ropes.braid6.mu=0.2",
+        "--set",
+        "parts.hook.a.bearing.mu={min: 0.11, max: 0.13}",
+    ]);
+    let f = num(&s["nominal_forward"]);
+    let p50 = num(&s["forward"]["p50"]);
+    let (p5, p95) = (num(&s["forward"]["p5"]), num(&s["forward"]["p95"]));
+    // The forward value is nearly linear in mu over this range, so its median sits at
+    // the nominal value; sampling error of a median of 400 draws is about
+    // 1.25·sigma/sqrt(400) with sigma ≈ (p95 − p5)/3.3 (uniform): well under 10 % of the
+    // P5–P95 width.
+    assert!(
+        (p50 - f).abs() < 0.1 * (p95 - p5),
+        "{p50} vs {f} ({p5}..{p95})"
+    );
+    assert!(p5 < f && f < p95);
+}
+
+#[test]
+fn same_seed_same_numbers_and_threads_do_not_matter() {
+    let path = rig("spread-hoist.yaml");
+    let a = ok(&["spread", &path, "--samples", "60", "--seed", "5"]);
+    let b = ok(&[
+        "spread",
+        &path,
+        "--samples",
+        "60",
+        "--seed",
+        "5",
+        "--threads",
+        "1",
+    ]);
+    let c = ok(&[
+        "spread",
+        &path,
+        "--samples",
+        "60",
+        "--seed",
+        "5",
+        "--threads",
+        "2",
+    ]);
+    assert_eq!(a, b);
+    assert_eq!(b, c);
+    assert!(a.trim_end().ends_with("licensed person."));
+    let d = ok(&["spread", &path, "--samples", "60", "--seed", "6"]);
+    assert_ne!(a, d);
+}
+
+#[test]
+fn share_not_moving_is_zero_or_one_when_the_range_sits_on_one_side() {
+    let path = rig("spread-hoist.yaml");
+    let strong = json(&[
+        "spread",
+        &path,
+        "--samples",
+        "50",
+        "--json",
+        "--set",
+        "parts.hand.force=400 N",
+    ]);
+    assert_eq!(num(&strong["share_not_moving"]), 0.0);
+    let weak = json(&[
+        "spread",
+        &path,
+        "--samples",
+        "50",
+        "--json",
+        "--set",
+        "parts.hand.force=100 N",
+    ]);
+    assert_eq!(num(&weak["share_not_moving"]), 1.0);
+    // In between, some samples move and some do not.
+    let mid = json(&[
+        "spread",
+        &path,
+        "--samples",
+        "200",
+        "--json",
+        "--set",
+        "parts.hand.force=207 N",
+    ]);
+    let share = num(&mid["share_not_moving"]);
+    assert!(share > 0.0 && share < 1.0, "{share}");
+}
+
+#[test]
+fn malformed_ranges_and_variants_are_reported() {
+    let path = rig("spread-hoist.yaml");
+    let out = run(&[
+        "check",
+        &path,
+        "--set",
+        "ropes.braid6.mu={min: 0.3, max: 0.2}",
+    ]);
+    assert_eq!(out.status.code(), Some(2));
+    assert!(String::from_utf8_lossy(&out.stderr).contains("larger than `max`"));
+    let out = run(&[
+        "check",
+        &path,
+        "--set",
+        "ropes.braid6.mu={min: 0.3, mx: 0.2}",
+    ]);
+    assert_eq!(out.status.code(), Some(2));
+    let out = run(&["compare", &path, "--variants"]);
+    assert_eq!(out.status.code(), Some(2));
+    assert!(String::from_utf8_lossy(&out.stderr).contains("no `variants:`"));
+}
