@@ -817,3 +817,135 @@ fn drum_with_thrust_and_journal() {
     assert_close("journal: journal torque", drum.journal, m_j, 1e-9);
     audit_ok(&s);
 }
+
+#[test]
+fn drum_self_locking_by_thrust_friction() {
+    // DESIGN.md §3: the rig is self-locking when `back` has the opposite sign to
+    // `ideal`. Hand calculation: flat new pivot, r_eff = (2/3)·0.03 = 0.02 m, μ = 0.3,
+    // 20 kN axial: M = 0.3·20000·0.02 = 120 N·m > W R = 49.033 N·m, so the back torque
+    // is 49.033 − 120 = −70.967 N·m: the load cannot turn the drum back by itself.
+    let shaft = ", shaft: {bearing: {kind: none}, thrust: {load: 20000, diameter: 0.06, mu: 0.3, contact: new}}";
+    let (_, s) = solve_text(&winch(shaft, 0.0));
+    let m = s.main();
+    let wr = 50.0 * STANDARD_GRAVITY * 0.1;
+    assert_close("self-locking back torque", m.back.value, wr - 120.0, 1e-12);
+    assert!(
+        m.self_locking(),
+        "back {} vs ideal {}: self-locking",
+        m.back.value,
+        m.ideal.value
+    );
+    audit_ok(&s);
+}
+
+#[test]
+fn stalled_sheave_slides_at_the_capstan_ratio() {
+    // DESIGN.md §1 "Stalled sheave": a sheave turns only while its bearing needs less
+    // tension ratio than the groove can transmit. Hand calculation: pitch R = 0.05 m, pin
+    // 80 mm with μ = 0.5: r_f = 0.04·0.5/√1.25 = 0.017 889 m, ρ = 0.357 77,
+    // k(180°) = 1.357 77/0.642 23 = 2.1141; the rope (μ = 0.1) holds only
+    // e^{0.1π} = 1.3691 on the groove: the sheave stands still and the rope slides,
+    // so the pull is 1000·1.3691 N (capstan, Euler–Eytelwein).
+    let text = r#"
+format: 1
+title: stalled sheave
+units: {length: m, force: N}
+ropes:
+  r: {diameter: 0.01, mu: 0.1}
+parts:
+  load:   {kind: block, at: [-0.05, 0, -2], moves: [0, 0, 1], load: {force: 1000}}
+  sheave: {kind: sheave, at: [0, 0, 0], axle: [0, 1, 0], diameter: 0.09,
+           bearing: {kind: plain, pin_diameter: 0.08, mu: 0.5}}
+  hand:   {kind: haul, at: [0.05, 0, -2]}
+lines:
+  l: {rope: r, path: [load, sheave, hand]}
+"#;
+    let (rig, s) = solve_text(text);
+    let m = s.main();
+    let capstan = (0.1 * PI).exp();
+    assert_close(
+        "stalled: forward pull",
+        m.forward.value,
+        1000.0 * capstan,
+        1e-9,
+    );
+    assert_close("stalled: back pull", m.back.value, 1000.0 / capstan, 1e-9);
+    assert!(!m.forward.stalled.is_empty(), "the stall is reported");
+    let warnings = reeve::checks::run(&rig, &s);
+    assert!(
+        warnings.iter().any(|w| w.code == "stalled-sheave"),
+        "stalled-sheave warning: {warnings:?}"
+    );
+    audit_ok(&s);
+}
+
+#[test]
+fn tackle_with_the_load_unknown() {
+    // DESIGN.md §3: with the load's quantity unknown, `forward` is the greatest load the
+    // drive still moves and `back` the least load that drives it back. Wire-rope
+    // handbook reeving formula (as above): with pull P, forward W = P·N·E(K) and
+    // back W = P·N·E(1/K). Hand calculation, N = 4, K = 1.04, P = 2000 N:
+    // 1.04⁴ = 1.169 859, E = 0.169 859/(1.169 859·0.16) = 0.907 473, W_forward = 7259.8 N.
+    let (text, s_count) = tackle(4, Lead::Fixed { extra: 0 }, 1.04, 1.0);
+    let text = text
+        .replace("kind: haul,", "kind: haul, force: 2000,")
+        .replace("drive: haul\n", "drive: haul\nsolve_for: hook\n");
+    let (_, s) = solve_text(&text);
+    let m = s.main();
+    let e = reeving_efficiency(1.04, 4, s_count);
+    let e_back = reeving_efficiency(1.0 / 1.04, 4, s_count);
+    assert_close(
+        "greatest load moved",
+        m.forward.value,
+        2000.0 * 4.0 * e,
+        1e-9,
+    );
+    assert_close(
+        "least load that runs back",
+        m.back.value,
+        2000.0 * 4.0 * e_back,
+        1e-9,
+    );
+    assert!(
+        (m.forward.value - 7259.8).abs() < 0.1,
+        "hand calculation 7259.8 N: {}",
+        m.forward.value
+    );
+    assert_close(
+        "efficiency forward/ideal",
+        m.forward_efficiency().unwrap(),
+        e,
+        1e-9,
+    );
+}
+
+#[test]
+fn drum_winding_the_hauling_part_of_a_tackle() {
+    // A winch drum (pitch radius 0.1 m) winds the hauling part of the 4-part K = 1.04
+    // tackle: drum torque = hauling-part pull × R (drum moment balance, DESIGN.md §1,
+    // with the wire-rope handbook pull W/(N E)). Hand calculation: W = 10 kN,
+    // E = 0.907 473, pull 10 000/(4·0.907 473) = 2754.9 N, torque 275.49 N·m.
+    let (text, s_count) = tackle(4, Lead::Fixed { extra: 0 }, 1.04, 10_000.0);
+    // The hauling part drops at x = 0.8 m from the top to z = 2; the drum sits beside it
+    // so the rope meets the drum's side at x = 0.8 going down. Seen from the tip of the
+    // axle (−y) the drum lies on the rope's left (`side: left`), and turning about −y its
+    // surface there moves down, along the rope: it winds the rope in.
+    let text = text
+        .replace(
+            "  haul: {kind: haul, at: [0.8, 0, 2]}",
+            "  haul: {kind: drum, at: [0.9, 0, 2], axle: [0, -1, 0], diameter: 0.19}",
+        )
+        .replace(", haul]", ", {part: haul, side: left}]");
+    assert!(text.contains("kind: drum"), "rig text rewritten: {text}");
+    let (_, s) = solve_text(&text);
+    let m = s.main();
+    let pull = 10_000.0 / (4.0 * reeving_efficiency(1.04, 4, s_count));
+    assert_close(
+        "drum ideal torque",
+        m.ideal.value,
+        10_000.0 / 4.0 * 0.1,
+        1e-9,
+    );
+    assert_close("drum forward torque", m.forward.value, pull * 0.1, 1e-9);
+    audit_ok(&s);
+}

@@ -174,6 +174,14 @@ fn check_rig(path: &Path) {
     let value: serde_json::Value = serde_json::from_str(&stdout)
         .unwrap_or_else(|e| panic!("{rel}: output is not JSON ({e}): {stdout}"));
     all_finite(&value, &rel);
+    // The energy audit (an extra key beyond §5) balances to round-off in every case.
+    for case in ["ideal", "forward", "back"] {
+        let misfit = value["energy_audit"][case].as_f64();
+        assert!(
+            misfit.is_some_and(|m| m < 1e-9),
+            "{rel}: energy audit {case} misfit {misfit:?}"
+        );
+    }
     let json: CheckJson = serde_json::from_value(value)
         .unwrap_or_else(|e| panic!("{rel}: JSON misses a DESIGN.md §5 key ({e})"));
     assert_eq!(json.format, 1, "{rel}: format");
