@@ -156,6 +156,8 @@ struct Params {
     compound: bool,
     runner_mass: f64,
     pull_given: bool,
+    /// Wind the hauling part on a drum instead of a haul end: (shaft text, drum mass).
+    drum: Option<(String, f64)>,
     load_unknown: bool,
 }
 
@@ -295,11 +297,11 @@ fn build(p: &Params) -> (RigSpec, Masses) {
         parts.push(haul(x_end + 0.4, -0.5, p));
         lines.push((
             "runner.fall".to_string(),
-            "floor, runner.s, haul".to_string(),
+            format!("floor, runner.s, {}", haul_entry(p)),
         ));
     } else {
         parts.push(haul(x_end, 2.5, p));
-        path.push("haul".into());
+        path.push(haul_entry(p));
         lines.push(("main".to_string(), path.join(", ")));
     }
     let solve_for = if p.load_unknown { "hook" } else { "haul" }.to_string();
@@ -317,7 +319,27 @@ fn build(p: &Params) -> (RigSpec, Masses) {
     )
 }
 
+/// The drive: a haul end at (x, z), or a drum (axle −y, pitch radius 0.1 m) whose
+/// side at x takes the rope coming down.
 fn haul(x: f64, z: f64, p: &Params) -> PartSpec {
+    if let Some((shaft, mass)) = &p.drum {
+        let torque = if p.load_unknown {
+            format!(
+                ", torque: {:?}",
+                0.1 * p.load_mass * STANDARD_GRAVITY / p.n as f64
+            )
+        } else {
+            String::new()
+        };
+        return PartSpec {
+            name: "haul".into(),
+            at: [x + 0.1, 0.0, z],
+            axle: Some([0.0, -1.0, 0.0]),
+            moves: None,
+            pull: None,
+            rest: format!("kind: drum, diameter: 0.19, mass: {mass:?}{torque}{shaft}"),
+        };
+    }
     let force = if p.load_unknown {
         // Roughly what it takes, so the checks have a stated drive.
         format!(", force: {:?}", p.load_mass * STANDARD_GRAVITY / p.n as f64)
@@ -332,6 +354,36 @@ fn haul(x: f64, z: f64, p: &Params) -> PartSpec {
         pull: p.pull_given.then_some([0.0, 0.0, -1.0]),
         rest: format!("kind: haul{force}"),
     }
+}
+
+fn haul_entry(p: &Params) -> String {
+    if p.drum.is_some() {
+        "{part: haul, side: left}".into()
+    } else {
+        "haul".into()
+    }
+}
+
+fn drum_strategy() -> impl Strategy<Value = Option<(String, f64)>> {
+    let shaft = prop_oneof![
+        Just(String::new()),
+        (0.01..0.05f64, 0.05..0.3f64).prop_map(|(pin, mu)| format!(
+            ", shaft: {{bearing: {{kind: plain, pin_diameter: {pin:?}, mu: {mu:?}}}}}"
+        )),
+        (
+            0.01..0.05f64,
+            0.001..0.004f64,
+            0.0..500.0f64,
+            0.02..0.08f64,
+            any::<bool>()
+        )
+            .prop_map(|(bore, mu, load, d, worn)| format!(
+                ", shaft: {{bearing: {{kind: rolling, bore: {bore:?}, mu: {mu:?}}}, \
+                 thrust: {{load: {load:?}, diameter: {d:?}, mu: 0.1, contact: {}}}}}",
+                if worn { "worn" } else { "new" }
+            )),
+    ];
+    prop_oneof![Just(None), (shaft, 0.0..20.0f64).prop_map(Some)]
 }
 
 fn round_strategy(with_mass: bool) -> impl Strategy<Value = Round> {
@@ -366,19 +418,23 @@ fn params_strategy(with_mass: bool) -> impl Strategy<Value = Params> {
                 any::<bool>(),
                 0.0..2.0f64,
                 any::<bool>(),
+                drum_strategy(),
             )
         })
         .prop_map(
-            |(n, rounds, jitter, heights, load_mass, compound, runner_mass, pull_given)| Params {
-                n,
-                rounds,
-                jitter,
-                heights,
-                load_mass,
-                compound,
-                runner_mass,
-                pull_given,
-                load_unknown: false,
+            |(n, rounds, jitter, heights, load_mass, compound, runner_mass, pull_given, drum)| {
+                Params {
+                    n,
+                    rounds,
+                    jitter,
+                    heights,
+                    load_mass,
+                    compound,
+                    runner_mass,
+                    pull_given,
+                    drum,
+                    load_unknown: false,
+                }
             },
         )
 }
@@ -423,6 +479,8 @@ proptest! {
         let c = if p.compound { 2.0 } else { 1.0 };
         let expected = STANDARD_GRAVITY
             * (masses.hook / (c * p.n as f64) - if p.compound { masses.runner / 2.0 } else { 0.0 });
+        // A drum winding the hauling part needs the pull times its pitch radius 0.1 m.
+        let expected = if p.drum.is_some() { 0.1 * expected } else { expected };
         let text = spec.plain();
         let s = solve_text(&text);
         let ideal = s.main().ideal.value;
@@ -430,7 +488,10 @@ proptest! {
         // Strip every friction: forward = back = ideal.
         let mut frictionless = spec.clone();
         for part in &mut frictionless.parts {
-            if part.rest.contains("bearing") {
+            if part.rest.starts_with("kind: drum") {
+                let mass = p.drum.as_ref().map_or(0.0, |d| d.1);
+                part.rest = format!("kind: drum, diameter: 0.19, mass: {mass:?}");
+            } else if part.rest.contains("bearing") {
                 let mass = part.rest.split("mass: ").nth(1).and_then(|r| r.split(',').next()).unwrap_or("0.0").to_string();
                 let block = if part.rest.contains("block: hook") { ", block: hook" } else if part.rest.contains("block: runner") { ", block: runner" } else { "" };
                 part.rest = format!("kind: sheave, diameter: 0.19, mass: {mass}, bearing: {{kind: none}}{block}");
