@@ -949,3 +949,70 @@ fn drum_winding_the_hauling_part_of_a_tackle() {
     assert_close("drum forward torque", m.forward.value, pull * 0.1, 1e-9);
     audit_ok(&s);
 }
+
+#[test]
+fn untied_drum_with_load_torque_and_journal() {
+    // Drum moment balance (DESIGN.md §1) for a line passing round a drum it is not tied
+    // to: a hand pulls down on the left (x = −0.1 m), the cord takes a turn and a half
+    // over the drum and drops on the right to a 5 kg return weight. The drum (pitch
+    // radius 0.1 m, 2 kg) carries a steady load torque of 4 N·m and a plain journal
+    // (20 mm, μ = 0.2). Hand calculation, raising (forward):
+    //   (P − W)·R = τ + r_f (P + W + m g),  r_f = 0.01·0.2/√1.04 = 0.001 961 2 m,
+    //   W = 49.033 N, m g = 19.613 N:
+    //   P = (W R + τ + r_f (W + m g))/(R − r_f) = (4.9033 + 4 + 0.13463)/0.098 039
+    //     = 92.187 N.
+    // Running back (load torque and weight drive the hand up), the journal's moment
+    // changes sign: (P − W)·R = τ − r_f (P + W + m g) → P = (W R + τ − r_f (W + m g))/(R + r_f).
+    // No slip: P/W = 1.88 < e^{0.3·3π} = 16.9 (capstan check, Euler–Eytelwein).
+    let text = r#"
+format: 1
+title: untied drum
+units: {length: m, force: N, mass: kg, torque: N*m}
+ropes:
+  cord: {diameter: 0.01, mu: 0.3}
+parts:
+  hand:   {kind: haul, at: [-0.1, 0, -1]}
+  drum:   {kind: drum, at: [0, 0, 0], axle: [0, 1, 0], diameter: 0.19, mass: 2, torque: 4,
+           shaft: {bearing: {kind: plain, pin_diameter: 0.02, mu: 0.2}}}
+  return: {kind: weight, at: [0.1, 0, -1], mass: 5}
+lines:
+  cord: {rope: cord, path: [hand, {part: drum, turns: 1}, return]}
+"#;
+    let (rig, s) = solve_text(text);
+    let m = s.main();
+    let (w, mg, r, tau) = (5.0 * STANDARD_GRAVITY, 2.0 * STANDARD_GRAVITY, 0.1, 4.0);
+    let r_f = 0.01 * 0.2 / 1.04_f64.sqrt();
+    assert_close("ideal pull", m.ideal.value, w + tau / r, 1e-12);
+    assert_close(
+        "forward pull",
+        m.forward.value,
+        (w * r + tau + r_f * (w + mg)) / (r - r_f),
+        1e-9,
+    );
+    assert_close(
+        "back pull",
+        m.back.value,
+        (w * r + tau - r_f * (w + mg)) / (r + r_f),
+        1e-9,
+    );
+    assert!(
+        (m.forward.value - 92.187).abs() < 1e-3,
+        "forward {} N vs hand 92.187 N",
+        m.forward.value
+    );
+    let drum = m.forward.drums[1].expect("drum torques");
+    assert_close(
+        "rope torque balances load + journal",
+        drum.rope,
+        tau + drum.journal,
+        1e-9,
+    );
+    assert!(
+        m.forward.slipping.is_empty() && m.back.slipping.is_empty(),
+        "no slip"
+    );
+    assert!(reeve::checks::run(&rig, &s)
+        .iter()
+        .all(|w| w.code != "drum-slip"));
+    audit_ok(&s);
+}
