@@ -182,6 +182,21 @@ fn check_rig(path: &Path) {
             "{rel}: energy audit {case} misfit {misfit:?}"
         );
     }
+    // Drum torques: the margin, where given, is "forward rope torque minus (load +
+    // drag): what journal and thrust take" (src/report), which the drum's moment
+    // balance makes equal to journal + thrust.
+    for drum in value["drums"].as_array().into_iter().flatten() {
+        if let Some(margin) = drum["margin_nm"].as_f64() {
+            let journal = drum["journal_nm"]["forward"].as_f64().unwrap_or(0.0);
+            let thrust = drum["thrust_nm"].as_f64().unwrap_or(0.0);
+            assert!(
+                (margin - (journal + thrust)).abs() <= 1e-9 * (1.0 + margin.abs()),
+                "{rel}: drum {}: margin {margin} N·m, journal + thrust {} N·m",
+                drum["name"],
+                journal + thrust
+            );
+        }
+    }
     let json: CheckJson = serde_json::from_value(value)
         .unwrap_or_else(|e| panic!("{rel}: JSON misses a DESIGN.md §5 key ({e})"));
     assert_eq!(json.format, 1, "{rel}: format");
