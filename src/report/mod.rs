@@ -412,7 +412,11 @@ impl Report {
                         back: bk.map(|t| t.journal),
                     },
                     thrust_nm: fw.map(|t| t.thrust),
-                    margin_nm: fw.and_then(|t| finite(t.rope - t.load - t.drag)),
+                    // A driving drum's rope torque resists it, so rope − load − drag
+                    // is not what its bearings take; its margin is the headline's.
+                    margin_nm: fw
+                        .and_then(|t| finite(t.rope - t.load - t.drag))
+                        .filter(|_| id != s.drive),
                 });
             }
         }

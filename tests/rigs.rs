@@ -1,0 +1,334 @@
+//! Every example rig in `rigs/` through the real binary: `reeve check --json RIG` loads
+//! and solves, its JSON parses back into the DESIGN.md §5 contract, every number is
+//! finite, and each rig shows exactly the warnings it was designed to show. Also the
+//! exit codes: 0 clean, 1 when a check fails, 2 on a bad file.
+
+use std::path::{Path, PathBuf};
+use std::process::{Command, Output};
+
+use serde::Deserialize;
+
+/// The warning codes (sorted, with repeats) and exit code each example rig is designed
+/// to give, from its header comment. A rig without an entry fails the test.
+const EXPECTED: &[(&str, &[&str], i32)] = &[
+    // "built to fail that check": the follower's spring cannot lift the bird.
+    ("automaton-cord.yaml", &["cannot-move"], 1),
+    // Must run back by itself (`runs_back: true`) and must not slip on the drums: clean.
+    ("greenhouse-vents.yaml", &[], 0),
+    // "Three lift lines share one batten, which statics alone cannot split (the tool
+    // warns ...)".
+    ("line-set.yaml", &["indeterminate"], 0),
+    // "the cord reaches the drum at a fleet angle above the usual limit (a warning this
+    // scenario is meant to show)": the one span is out of plane at both its ends, the
+    // lead sheave and the drum.
+    ("ramp-winch.yaml", &["fleet-angle", "fleet-angle"], 0),
+    // Not named in the header, but real: a 38 mm pulley (D/d 3.5) and a carabiner redirect
+    // (D/d 0.9) under the kernmantle rope's D/d 4.
+    ("rescue-haul.yaml", &["bend-ratio", "bend-ratio"], 0),
+    // Balanced sash: clean.
+    ("sash-window.yaml", &[], 0),
+    // Four-part hoist with a winch strong enough: clean.
+    ("workshop-hoist.yaml", &[], 0),
+];
+
+/// `check --json` output, as DESIGN.md §5 promises it (more keys may exist).
+#[derive(Debug, Deserialize)]
+#[allow(dead_code)]
+struct Asked {
+    part: String,
+    quantity: String,
+    unit: String,
+}
+
+#[derive(Debug, Deserialize)]
+struct Case {
+    value: f64,
+    #[serde(default)]
+    efficiency: Option<f64>,
+}
+
+#[derive(Debug, Deserialize)]
+struct PerCase {
+    ideal: f64,
+    forward: f64,
+    back: f64,
+}
+
+#[derive(Debug, Deserialize)]
+#[allow(dead_code)]
+struct Span {
+    line: String,
+    index: usize,
+    from: String,
+    to: String,
+    length_m: f64,
+    tension_n: PerCase,
+}
+
+#[derive(Debug, Deserialize)]
+struct ForwardBack {
+    forward: Option<f64>,
+    back: Option<f64>,
+}
+
+#[derive(Debug, Deserialize)]
+#[allow(dead_code)]
+struct Part {
+    name: String,
+    kind: String,
+    wrap_deg: Option<f64>,
+    fleet_deg: Option<f64>,
+    bend_ratio: Option<f64>,
+    pin_load_n: ForwardBack,
+    loss_share: Option<f64>,
+}
+
+#[derive(Debug, Deserialize)]
+#[allow(dead_code)]
+struct Warning {
+    code: String,
+    part: Option<String>,
+    message: String,
+}
+
+#[derive(Debug, Deserialize)]
+struct CheckJson {
+    format: u32,
+    solve_for: Asked,
+    ideal: Case,
+    forward: Case,
+    back: Case,
+    self_locking: bool,
+    velocity_ratio: Option<f64>,
+    spans: Vec<Span>,
+    parts: Vec<Part>,
+    warnings: Vec<Warning>,
+}
+
+fn manifest() -> PathBuf {
+    PathBuf::from(env!("CARGO_MANIFEST_DIR"))
+}
+
+fn reeve(args: &[&str]) -> Output {
+    Command::new(env!("CARGO_BIN_EXE_reeve"))
+        .args(args)
+        .current_dir(manifest())
+        .output()
+        .expect("the reeve binary runs")
+}
+
+fn code(out: &Output) -> i32 {
+    out.status.code().expect("exit code, not a signal")
+}
+
+/// Every number anywhere in the document is finite (JSON cannot hold NaN, but a
+/// writer could print a huge or odd value; serde_json parses those as f64).
+fn all_finite(value: &serde_json::Value, at: &str) {
+    match value {
+        serde_json::Value::Number(n) => {
+            let x = n.as_f64().unwrap_or(f64::NAN);
+            assert!(x.is_finite(), "{at}: number {n} is not finite");
+        }
+        serde_json::Value::Array(items) => {
+            for (i, v) in items.iter().enumerate() {
+                all_finite(v, &format!("{at}[{i}]"));
+            }
+        }
+        serde_json::Value::Object(map) => {
+            for (k, v) in map {
+                all_finite(v, &format!("{at}.{k}"));
+            }
+        }
+        _ => {}
+    }
+}
+
+fn example_rigs() -> Vec<PathBuf> {
+    let mut rigs: Vec<PathBuf> = std::fs::read_dir(manifest().join("rigs"))
+        .expect("rigs/ is readable")
+        .filter_map(|e| e.ok().map(|e| e.path()))
+        .filter(|p| p.extension().is_some_and(|x| x == "yaml" || x == "yml"))
+        .collect();
+    rigs.sort();
+    rigs
+}
+
+fn check_rig(path: &Path) {
+    let file = path.file_name().and_then(|f| f.to_str()).unwrap_or("?");
+    let Some(&(_, codes, exit)) = EXPECTED.iter().find(|(name, _, _)| *name == file) else {
+        panic!(
+            "rigs/{file} has no entry in EXPECTED in tests/rigs.rs: read its header comment \
+             and add the warning codes and exit code it is designed to give"
+        );
+    };
+    let rel = format!("rigs/{file}");
+    let out = reeve(&["check", "--json", &rel]);
+    let stdout = String::from_utf8_lossy(&out.stdout);
+    let stderr = String::from_utf8_lossy(&out.stderr);
+    assert_eq!(
+        code(&out),
+        exit,
+        "{rel}: exit code {} (expected {exit}); stderr: {stderr}",
+        code(&out)
+    );
+    let value: serde_json::Value = serde_json::from_str(&stdout)
+        .unwrap_or_else(|e| panic!("{rel}: output is not JSON ({e}): {stdout}"));
+    all_finite(&value, &rel);
+    // The energy audit (an extra key beyond §5) balances to round-off in every case.
+    for case in ["ideal", "forward", "back"] {
+        let misfit = value["energy_audit"][case].as_f64();
+        assert!(
+            misfit.is_some_and(|m| m < 1e-9),
+            "{rel}: energy audit {case} misfit {misfit:?}"
+        );
+    }
+    // Drum torques: the margin, where given, is "forward rope torque minus (load +
+    // drag): what journal and thrust take" (src/report), which the drum's moment
+    // balance makes equal to journal + thrust.
+    for drum in value["drums"].as_array().into_iter().flatten() {
+        if let Some(margin) = drum["margin_nm"].as_f64() {
+            let journal = drum["journal_nm"]["forward"].as_f64().unwrap_or(0.0);
+            let thrust = drum["thrust_nm"].as_f64().unwrap_or(0.0);
+            assert!(
+                (margin - (journal + thrust)).abs() <= 1e-9 * (1.0 + margin.abs()),
+                "{rel}: drum {}: margin {margin} N·m, journal + thrust {} N·m",
+                drum["name"],
+                journal + thrust
+            );
+        }
+    }
+    let json: CheckJson = serde_json::from_value(value)
+        .unwrap_or_else(|e| panic!("{rel}: JSON misses a DESIGN.md §5 key ({e})"));
+    assert_eq!(json.format, 1, "{rel}: format");
+    assert!(
+        ["force", "mass", "torque"].contains(&json.solve_for.quantity.as_str()),
+        "{rel}: quantity {}",
+        json.solve_for.quantity
+    );
+    for case in [&json.ideal, &json.forward, &json.back] {
+        assert!(case.value.is_finite(), "{rel}: case value {}", case.value);
+    }
+    let e = json.forward.efficiency.expect("forward efficiency");
+    assert!(e > 0.0 && e <= 1.0 + 1e-12, "{rel}: forward efficiency {e}");
+    assert!(json.back.efficiency.is_some(), "{rel}: back efficiency");
+    assert!(
+        json.velocity_ratio.is_some_and(|v| v > 0.0),
+        "{rel}: velocity ratio"
+    );
+    assert!(
+        !json.spans.is_empty() && !json.parts.is_empty(),
+        "{rel}: spans and parts"
+    );
+    for span in &json.spans {
+        assert!(span.length_m > 0.0, "{rel}: span {:?} length", span.line);
+        let t = &span.tension_n;
+        assert!(
+            t.ideal >= 0.0 && t.forward >= 0.0 && t.back >= 0.0,
+            "{rel}: line {} span {} tensions {:?}",
+            span.line,
+            span.index,
+            (t.ideal, t.forward, t.back)
+        );
+    }
+    let shares: f64 = json.parts.iter().filter_map(|p| p.loss_share).sum();
+    let has_loss = json
+        .parts
+        .iter()
+        .any(|p| p.loss_share.is_some_and(|s| s > 0.0));
+    if has_loss {
+        assert!(
+            (shares - 1.0).abs() < 1e-9,
+            "{rel}: loss shares sum to {shares}"
+        );
+    }
+    for part in &json.parts {
+        if let Some(p) = part.pin_load_n.forward.or(part.pin_load_n.back) {
+            assert!(p >= 0.0, "{rel}: pin load of {}", part.name);
+        }
+    }
+    // Self-locking is what the values say (DESIGN.md §3).
+    assert_eq!(
+        json.self_locking,
+        json.back.value * json.ideal.value < 0.0,
+        "{rel}: self_locking vs ideal {} and back {}",
+        json.ideal.value,
+        json.back.value
+    );
+    let mut got: Vec<&str> = json.warnings.iter().map(|w| w.code.as_str()).collect();
+    got.sort_unstable();
+    let mut want = codes.to_vec();
+    want.sort_unstable();
+    assert_eq!(
+        got,
+        want,
+        "{rel}: warning codes {got:?}, designed to show {want:?}; messages: {:#?}",
+        json.warnings.iter().map(|w| &w.message).collect::<Vec<_>>()
+    );
+    // The text summary gives the same exit code.
+    let text = reeve(&["check", &rel]);
+    assert_eq!(code(&text), exit, "{rel}: text mode exit code");
+}
+
+#[test]
+fn every_example_rig_solves_with_its_designed_warnings() {
+    let rigs = example_rigs();
+    assert!(rigs.len() >= 3, "expected the example rigs in rigs/");
+    for path in &rigs {
+        check_rig(path);
+    }
+    // Every table entry names a rig that exists (catches renames).
+    for (name, _, _) in EXPECTED {
+        assert!(
+            rigs.iter()
+                .any(|p| p.file_name().and_then(|f| f.to_str()) == Some(name)),
+            "tests/rigs.rs lists rigs/{name}, which does not exist"
+        );
+    }
+}
+
+#[test]
+fn a_drive_too_weak_exits_1() {
+    let out = reeve(&[
+        "check",
+        "--json",
+        "rigs/workshop-hoist.yaml",
+        "--set",
+        "parts.winch.force=1 kN",
+    ]);
+    assert_eq!(
+        code(&out),
+        1,
+        "stderr: {}",
+        String::from_utf8_lossy(&out.stderr)
+    );
+    let json: CheckJson = serde_json::from_slice(&out.stdout).expect("JSON");
+    assert!(
+        json.warnings.iter().any(|w| w.code == "cannot-move"),
+        "warnings: {:?}",
+        json.warnings
+    );
+}
+
+#[test]
+fn a_bad_file_exits_2() {
+    let dir = std::env::temp_dir().join(format!("reeve-rigs-{}", std::process::id()));
+    std::fs::create_dir_all(&dir).expect("temp dir");
+    let bad = dir.join("bad.yaml");
+    std::fs::write(&bad, "format: 1\nparts: [this is not a rig\n").expect("write");
+    let bad = bad.to_string_lossy().to_string();
+    for args in [
+        vec!["check", bad.as_str()],
+        vec!["check", "--json", bad.as_str()],
+        vec!["check", "rigs/no-such-rig.yaml"],
+    ] {
+        let out = reeve(&args);
+        assert_eq!(
+            code(&out),
+            2,
+            "{args:?}: stderr {}",
+            String::from_utf8_lossy(&out.stderr)
+        );
+        assert!(!out.stderr.is_empty(), "{args:?}: says why on stderr");
+    }
+    let _ = std::fs::remove_dir_all(&dir);
+}
