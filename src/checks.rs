@@ -241,7 +241,7 @@ fn subrig_checks(rig: &Rig, sub: &SubRigSolution) -> Vec<Warning> {
                 Some(part),
                 false,
                 format!(
-                    "{name}: `{part}` does not turn; its bearing needs more than the groove can transmit, so the rope slides over it (capstan friction)"
+                    "{name}: `{part}` does not turn: its bearing (with the sheave's own weight in the pin load) needs more than the groove can transmit, so the rope slides over it at the capstan ratio"
                 ),
             ));
         }
