@@ -6,6 +6,9 @@ use std::path::{Path, PathBuf};
 
 use clap::{Parser, Subcommand};
 
+pub mod output;
+pub mod outputs;
+
 use crate::checks;
 use crate::report::{text, Report};
 use crate::rig::{self, Rig};
@@ -50,6 +53,13 @@ pub enum Command {
         #[arg(long)]
         json: bool,
     },
+    /// Print the drawing-set tables: tension in every span; wrap, fleet, D/d, ratio,
+    /// pin load and loss share at every part.
+    Table(outputs::TableArgs),
+    /// Draw the rig to scale as an SVG, spans coloured by tension.
+    Draw(outputs::DrawArgs),
+    /// Write a self-contained HTML report: summary, drawing, tables, losses, notes.
+    Report(outputs::ReportArgs),
 }
 
 /// What went wrong, already worded for the user.
@@ -141,5 +151,8 @@ pub fn run(cli: Cli) -> Result<i32, Failure> {
                 EXIT_OK
             })
         }
+        Command::Table(args) => outputs::run_table(args),
+        Command::Draw(args) => outputs::run_draw(args),
+        Command::Report(args) => outputs::run_report(args),
     }
 }
