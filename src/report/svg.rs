@@ -237,6 +237,17 @@ fn ramp(t: Real) -> String {
     format!("#{:02x}{:02x}{:02x}", mix(a.0, b.0), mix(a.1, b.1), mix(a.2, b.2))
 }
 
+/// The colour `#rrggbb` mixed 40 % with black, for text that must stay legible.
+fn darken(colour: &str) -> String {
+    let channel = |i: usize| {
+        colour
+            .get(i..i + 2)
+            .and_then(|h| u8::from_str_radix(h, 16).ok())
+            .map_or(0, |c| (c as Real * 0.6).round() as u8)
+    };
+    format!("#{:02x}{:02x}{:02x}", channel(1), channel(3), channel(5))
+}
+
 /// Boxes already taken by labels, so later labels look for a free place.
 #[derive(Default)]
 struct Placer {
@@ -457,7 +468,7 @@ pub fn render(rig: &Rig, solution: &Solution, report: &Report, options: &DrawOpt
             s,
             "<text class=\"dimension-label\" x=\"{:.1}\" y=\"{:.1}\" font-size=\"{FONT}\" text-anchor=\"middle\" fill=\"#333\" stroke=\"#fff\" stroke-width=\"3\" paint-order=\"stroke\">{}</text>",
             (ax + bx) / 2.0,
-            ybase - 4.0,
+            ybase + 15.0,
             esc(&label)
         );
         let xbase = left - 40.0;
@@ -474,6 +485,8 @@ pub fn render(rig: &Rig, solution: &Solution, report: &Report, options: &DrawOpt
             left - 8.0
         );
         let (tx, ty) = (xbase - 6.0, (ay + by) / 2.0);
+        let half = text_width(&len(y1 - y0), FONT) / 2.0 + 4.0;
+        placer.taken.push((tx - FONT - 2.0, ty - half, tx + 6.0, ty + half));
         let _ = writeln!(
             s,
             "<text class=\"dimension-label\" x=\"{tx:.1}\" y=\"{ty:.1}\" font-size=\"{FONT}\" text-anchor=\"middle\" fill=\"#333\" stroke=\"#fff\" stroke-width=\"3\" paint-order=\"stroke\" transform=\"rotate(-90 {tx:.1} {ty:.1})\">{}</text>",
@@ -754,6 +767,7 @@ pub fn render(rig: &Rig, solution: &Solution, report: &Report, options: &DrawOpt
             }
         }
         let (x, y) = placer.place(&candidates, &label);
+        let colour = darken(&colour);
         let _ = writeln!(
             s,
             "<text class=\"span-label\" x=\"{x:.1}\" y=\"{y:.1}\" fill=\"{colour}\" stroke=\"#fff\" stroke-width=\"3\" paint-order=\"stroke\">{}</text>",
@@ -809,7 +823,7 @@ pub fn render(rig: &Rig, solution: &Solution, report: &Report, options: &DrawOpt
     let (bx, bw) = (PAGE_W - 560.0, 544.0);
     let lines = [
         format!(
-            "{} at `{}`: forward {} · back {} · ideal {}",
+            "{} at {}: forward {} · back {} · ideal {}",
             h.solve_for.quantity,
             h.solve_for.part,
             q(h.forward.value),
