@@ -79,12 +79,12 @@ fn diff(expected: &str, actual: &str) -> String {
             ops.push((' ', a[i], i + 1));
             i += 1;
             j += 1;
-        } else if j < m && (i == n || lcs[i][j + 1] >= lcs[i + 1][j]) {
-            ops.push(('+', b[j], j + 1));
-            j += 1;
-        } else {
+        } else if i < n && (j == m || lcs[i + 1][j] >= lcs[i][j + 1]) {
             ops.push(('-', a[i], i + 1));
             i += 1;
+        } else {
+            ops.push(('+', b[j], j + 1));
+            j += 1;
         }
     }
     let changed: Vec<usize> = (0..ops.len()).filter(|&k| ops[k].0 != ' ').collect();
@@ -212,16 +212,24 @@ struct PartIn {
 #[test]
 fn json_tables_parse_back_in_si() {
     let r = rig("workshop-hoist");
-    let all: TablesIn =
-        serde_json::from_str(&stdout_of(&["table", r.to_str().unwrap(), "--format", "json"]))
-            .expect("JSON parses into the reader's structs");
+    let all: TablesIn = serde_json::from_str(&stdout_of(&[
+        "table",
+        r.to_str().unwrap(),
+        "--format",
+        "json",
+    ]))
+    .expect("JSON parses into the reader's structs");
     assert_eq!(all.format, 1);
     assert_eq!(all.cases, "all");
     assert!(all.title.contains("hoist"));
     let spans = all.spans.expect("spans");
     assert_eq!(spans.len(), 5);
     assert_eq!(
-        (spans[0].line.as_str(), spans[0].span, spans[0].from.as_str()),
+        (
+            spans[0].line.as_str(),
+            spans[0].span,
+            spans[0].from.as_str()
+        ),
         ("fall", 0, "becket")
     );
     assert_eq!(spans[4].to, "winch");
@@ -321,15 +329,15 @@ fn csv_parses_back_and_matches_json() {
         ]);
         let mut reader = csv::Reader::from_reader(parts_csv.as_bytes());
         let headers = reader.headers().unwrap().clone();
-        let dir_col = headers
-            .iter()
-            .position(|h| h == "pin dir forward")
-            .unwrap();
+        let dir_col = headers.iter().position(|h| h == "pin dir forward").unwrap();
         for row in reader.records() {
             let row = row.unwrap();
             assert_eq!(row.len(), headers.len());
             let d = &row[dir_col];
-            assert!(d.is_empty() || (d.starts_with('(') && d.matches(',').count() == 2), "{d}");
+            assert!(
+                d.is_empty() || (d.starts_with('(') && d.matches(',').count() == 2),
+                "{d}"
+            );
         }
     }
     // CSV holds one table: asking for both is refused with a hint.
@@ -357,8 +365,7 @@ fn svg_is_xml_with_one_element_per_span_and_part_and_renders() {
     for name in ["workshop-hoist", "sash-window", "rescue-haul"] {
         let r = rig(name);
         let check: serde_json::Value =
-            serde_json::from_str(&stdout_of(&["check", r.to_str().unwrap(), "--json"]))
-                .unwrap();
+            serde_json::from_str(&stdout_of(&["check", r.to_str().unwrap(), "--json"])).unwrap();
         let span_count = check["spans"].as_array().unwrap().len();
         let part_names: BTreeSet<String> = check["parts"]
             .as_array()
@@ -375,7 +382,11 @@ fn svg_is_xml_with_one_element_per_span_and_part_and_renders() {
             assert_eq!(spans.len(), span_count, "{name} {view}");
             for s in &spans {
                 assert!(s.attribute("data-line").is_some() && s.attribute("data-span").is_some());
-                let t: f64 = s.attribute("data-tension-forward-n").unwrap().parse().unwrap();
+                let t: f64 = s
+                    .attribute("data-tension-forward-n")
+                    .unwrap()
+                    .parse()
+                    .unwrap();
                 assert!(t.is_finite());
             }
             let parts: BTreeSet<String> = with_class(&doc, "part")
@@ -386,7 +397,10 @@ fn svg_is_xml_with_one_element_per_span_and_part_and_renders() {
             assert_eq!(with_class(&doc, "part").len(), part_names.len());
             assert!(svg.contains(&reeve::report::CAUTION[..40]));
             assert!(svg.contains("2026-01-01"), "title block date");
-            assert!(!svg.contains("NaN") && !svg.contains("=\"inf") && !svg.contains("=\"-inf"), "{name} {view}");
+            assert!(
+                !svg.contains("NaN") && !svg.contains("=\"inf") && !svg.contains("=\"-inf"),
+                "{name} {view}"
+            );
             if view == "front" {
                 assert_not_blank(&svg, name);
             }
@@ -413,7 +427,10 @@ fn assert_not_blank(svg: &str, name: &str) {
     let differing = pixmap
         .pixels()
         .iter()
-        .filter(|p| (p.red(), p.green(), p.blue()) != (background.red(), background.green(), background.blue()))
+        .filter(|p| {
+            (p.red(), p.green(), p.blue())
+                != (background.red(), background.green(), background.blue())
+        })
         .count();
     let total = pixmap.pixels().len();
     assert!(
@@ -429,12 +446,20 @@ fn assert_not_blank(svg: &str, name: &str) {
             (r - g).abs() > 40 || (g - b).abs() > 40 || (r - b).abs() > 40
         })
         .count();
-    assert!(coloured > 50, "{name}: no coloured spans drawn ({coloured})");
+    assert!(
+        coloured > 50,
+        "{name}: no coloured spans drawn ({coloured})"
+    );
 }
 
 /// The headless browser, if one is installed.
 fn browser() -> Option<PathBuf> {
-    for name in ["chromium", "chromium-browser", "google-chrome", "google-chrome-stable"] {
+    for name in [
+        "chromium",
+        "chromium-browser",
+        "google-chrome",
+        "google-chrome-stable",
+    ] {
         if let Some(path) = std::env::var_os("PATH").and_then(|paths| {
             std::env::split_paths(&paths)
                 .map(|d| d.join(name))
@@ -480,11 +505,19 @@ fn html_report_renders_in_a_headless_browser() {
     let html = dir.join("report.html");
     let r = rig("workshop-hoist");
     let out = reeve(&["report", r.to_str().unwrap(), "-o", html.to_str().unwrap()]);
-    assert!(out.status.success(), "{}", String::from_utf8_lossy(&out.stderr));
+    assert!(
+        out.status.success(),
+        "{}",
+        String::from_utf8_lossy(&out.stderr)
+    );
     let text = fs::read_to_string(&html).unwrap();
     // Self-contained: no scripts, no external resources.
     assert!(!text.contains("<script"), "no scripts");
-    assert!(!text.contains("http://") || text.matches("http://").count() == text.matches("http://www.w3.org/2000/svg").count());
+    assert!(
+        !text.contains("http://")
+            || text.matches("http://").count()
+                == text.matches("http://www.w3.org/2000/svg").count()
+    );
     assert!(!text.contains("https://"), "no network resources");
     assert!(text.contains("name=\"viewport\""));
     assert!(text.contains("@media print"));
@@ -494,7 +527,9 @@ fn html_report_renders_in_a_headless_browser() {
         if std::env::var("REEVE_REQUIRE_BROWSER").as_deref() == Ok("1") {
             panic!("REEVE_REQUIRE_BROWSER=1 but no chromium was found on PATH");
         }
-        eprintln!("skipped: no headless browser (chromium) on PATH; the HTML was checked as text only");
+        eprintln!(
+            "skipped: no headless browser (chromium) on PATH; the HTML was checked as text only"
+        );
         return;
     };
     let profile = dir.join("profile");
@@ -514,7 +549,10 @@ fn html_report_renders_in_a_headless_browser() {
     .arg("--dump-dom")
     .arg(format!("file://{}", html.canonicalize().unwrap().display()));
     let dom = run_with_deadline(cmd, Duration::from_secs(120));
-    assert!(dom.contains("<main>"), "the browser rendered no page:\n{dom:.500}");
+    assert!(
+        dom.contains("<main>"),
+        "the browser rendered no page:\n{dom:.500}"
+    );
     // Summary figures (the headline as `check` prints it).
     let check = stdout_of(&["check", r.to_str().unwrap()]);
     for figure in ["2.023 kN", "2.229 kN", "1.832 kN", "90.7 %"] {
@@ -548,9 +586,24 @@ fn refuses_to_write_over_the_input_rig() {
     let roundabout = sub.join("..").join("rig.yaml");
     for target in [copy.clone(), roundabout] {
         for cmd in [
-            vec!["draw", copy.to_str().unwrap(), "-o", target.to_str().unwrap()],
-            vec!["report", copy.to_str().unwrap(), "-o", target.to_str().unwrap()],
-            vec!["table", copy.to_str().unwrap(), "-o", target.to_str().unwrap()],
+            vec![
+                "draw",
+                copy.to_str().unwrap(),
+                "-o",
+                target.to_str().unwrap(),
+            ],
+            vec![
+                "report",
+                copy.to_str().unwrap(),
+                "-o",
+                target.to_str().unwrap(),
+            ],
+            vec![
+                "table",
+                copy.to_str().unwrap(),
+                "-o",
+                target.to_str().unwrap(),
+            ],
         ] {
             let out = reeve(&cmd);
             assert_eq!(out.status.code(), Some(2), "{cmd:?}");
@@ -577,7 +630,6 @@ fn refuses_to_write_over_the_input_rig() {
 #[test]
 fn a_failed_write_leaves_no_partial_file() {
     use reeve::cli::output::write_atomically;
-    use std::io::Write;
     let dir = scratch("atomic");
     let target = dir.join("drawing.svg");
     // An error half-way: nothing appears.

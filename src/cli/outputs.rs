@@ -178,9 +178,7 @@ pub fn run_table(args: TableArgs) -> Result<i32, Failure> {
             let tables = table::tables(&report, units, cases, choice);
             emit(&destination, &args.rig.rig, |w| match format {
                 TableFormat::Md => table::write_markdown(w, &report, units, &tables),
-                TableFormat::Csv => tables
-                    .iter()
-                    .try_for_each(|t| table::write_csv(w, t)),
+                TableFormat::Csv => tables.iter().try_for_each(|t| table::write_csv(w, t)),
                 _ => table::write_text(w, &report, units, &tables),
             })?;
         }

@@ -46,15 +46,18 @@ th, td { padding: 0.3rem 0.55rem; border-bottom: 1px solid var(--rule); white-sp
 th { background: #f3f4f6; text-align: left; font-weight: 600; }
 td.num, th.num { text-align: right; }
 tbody tr:nth-child(even) { background: #fafafb; }
-table.summary { width: auto; min-width: 50%; }
+table.summary { width: auto; }
 table.summary th[scope=row] { background: none; font-weight: 600; }
 figure { margin: 0; }
-figure svg { display: block; width: 100%; height: auto; max-width: 1000px; border: 1px solid var(--rule); }
+figure svg { display: block; width: 100%; height: auto; max-width: 1000px; }
 figcaption { color: var(--muted); font-size: 0.9rem; margin-top: 0.3rem; }
-.bars { display: grid; grid-template-columns: minmax(6rem, max-content) 1fr; gap: 0.35rem 0.8rem; align-items: center; }
-.bar-track { background: #eef0f3; border-radius: 3px; height: 1.3rem; position: relative; }
+.bars { max-width: 760px; }
+.loss { margin: 0 0 0.55rem; }
+.loss-label { display: flex; flex-wrap: wrap; justify-content: space-between; gap: 0 1rem; font-size: 0.92rem; }
+.loss-value { color: var(--muted); font-variant-numeric: tabular-nums; }
+.bar-track { background: #eef0f3; border-radius: 3px; height: 0.9rem; }
 .bar { background: var(--accent); height: 100%; border-radius: 3px; min-width: 2px; }
-.bar-value { position: absolute; left: 0.4rem; top: 0; line-height: 1.3rem; font-size: 0.85rem; color: #000; text-shadow: 0 0 3px #fff, 0 0 3px #fff; }
+.table-scroll.fit { display: inline-block; max-width: 100%; }
 ul.warnings { padding-left: 1.2rem; }
 .tag { display: inline-block; font-size: 0.75rem; font-weight: 700; padding: 0 0.35rem; border-radius: 3px; color: #fff; margin-right: 0.4rem; }
 .tag.fail { background: var(--bad); }
@@ -67,8 +70,7 @@ dl.methods dd { margin: 0.2rem 0 0 1rem; }
 @media (max-width: 700px) {
   body { padding: 0.6rem; font-size: 14px; }
   h1 { font-size: 1.3rem; }
-  table.summary { min-width: 100%; }
-  .bars { grid-template-columns: minmax(4.5rem, max-content) 1fr; }
+  .table-scroll.fit { display: block; }
 }
 @media print {
   @page { margin: 14mm; }
@@ -76,7 +78,7 @@ dl.methods dd { margin: 0.2rem 0 0 1rem; }
   main { max-width: none; }
   .table-scroll { overflow: visible; border: none; }
   th, td { white-space: normal; padding: 0.15rem 0.35rem; }
-  figure, .bars, table.summary, .caution { break-inside: avoid; }
+  figure, .loss, table.summary, .caution { break-inside: avoid; }
   tr { break-inside: avoid; }
   h2 { break-after: avoid; }
   figure svg { max-width: 100%; border: none; }
@@ -169,12 +171,7 @@ fn percent(x: Option<Real>) -> String {
     }
 }
 
-fn write_summary(
-    w: &mut dyn Write,
-    h: &Headline,
-    units: &UnitSystem,
-    id: &str,
-) -> io::Result<()> {
+fn write_summary(w: &mut dyn Write, h: &Headline, units: &UnitSystem, id: &str) -> io::Result<()> {
     let dim = match h.solve_for.quantity {
         "mass" => Dimension::Mass,
         "torque" => Dimension::Torque,
@@ -190,7 +187,7 @@ fn write_summary(
     )?;
     writeln!(
         w,
-        "<div class=\"table-scroll\"><table id=\"{id}\" class=\"summary\"><thead><tr><th scope=\"col\"></th><th scope=\"col\" class=\"num\">ideal</th><th scope=\"col\" class=\"num\">forward</th><th scope=\"col\" class=\"num\">back</th></tr></thead><tbody>"
+        "<div class=\"table-scroll fit\"><table id=\"{id}\" class=\"summary\"><thead><tr><th scope=\"col\"></th><th scope=\"col\" class=\"num\">ideal</th><th scope=\"col\" class=\"num\">forward</th><th scope=\"col\" class=\"num\">back</th></tr></thead><tbody>"
     )?;
     writeln!(
         w,
@@ -269,12 +266,19 @@ pub fn write_html(
     source: &str,
 ) -> io::Result<()> {
     let units = &rig.units;
-    writeln!(w, "<!DOCTYPE html>\n<html lang=\"en\">\n<head>\n<meta charset=\"utf-8\">")?;
+    writeln!(
+        w,
+        "<!DOCTYPE html>\n<html lang=\"en\">\n<head>\n<meta charset=\"utf-8\">"
+    )?;
     writeln!(
         w,
         "<meta name=\"viewport\" content=\"width=device-width, initial-scale=1\">"
     )?;
-    writeln!(w, "<meta name=\"generator\" content=\"reeve {}\">", env!("CARGO_PKG_VERSION"))?;
+    writeln!(
+        w,
+        "<meta name=\"generator\" content=\"reeve {}\">",
+        env!("CARGO_PKG_VERSION")
+    )?;
     writeln!(w, "<title>{} — reeve report</title>", esc(&report.title))?;
     writeln!(w, "<style>{STYLE}</style>\n</head>\n<body>\n<main>")?;
     writeln!(w, "<h1>{}</h1>", esc(&report.title))?;
@@ -336,7 +340,10 @@ pub fn write_html(
     )?;
 
     // Loss breakdown, forward.
-    writeln!(w, "<section id=\"losses\">\n<h2>Where the losses go (forward)</h2>")?;
+    writeln!(
+        w,
+        "<section id=\"losses\">\n<h2>Where the losses go (forward)</h2>"
+    )?;
     let mut losses: Vec<_> = report
         .parts
         .iter()
@@ -355,12 +362,12 @@ pub fn write_html(
             let share = p.loss_share.unwrap_or(0.0).clamp(0.0, 1.0);
             writeln!(
                 w,
-                "<div role=\"listitem\"><code>{}</code> <small>{}</small></div><div class=\"bar-track\"><div class=\"bar\" style=\"width: {:.1}%\"></div><span class=\"bar-value\">{} of losses · {} of input</span></div>",
+                "<div class=\"loss\" role=\"listitem\"><div class=\"loss-label\"><span><code>{}</code> <small>{}</small></span><span class=\"loss-value\">{} of losses · {} of input</span></div><div class=\"bar-track\"><div class=\"bar\" style=\"width: {:.1}%\"></div></div></div>",
                 esc(&p.name),
                 esc(p.kind),
-                share * 100.0,
                 percent(p.loss_share),
-                percent(p.loss_of_input)
+                percent(p.loss_of_input),
+                share * 100.0
             )?;
         }
         writeln!(w, "</div>")?;

@@ -126,7 +126,12 @@ fn key_points(rig: &Rig, solution: &Solution) -> Vec<Point> {
 /// Width and height of the projected points, m.
 fn extent(points: &[Point], view: View) -> (Real, Real, Real, Real) {
     let (right, up) = view.axes();
-    let mut b = (Real::INFINITY, Real::NEG_INFINITY, Real::INFINITY, Real::NEG_INFINITY);
+    let mut b = (
+        Real::INFINITY,
+        Real::NEG_INFINITY,
+        Real::INFINITY,
+        Real::NEG_INFINITY,
+    );
     for p in points {
         let (x, y) = (p.coords.dot(&right), p.coords.dot(&up));
         b = (b.0.min(x), b.1.max(x), b.2.min(y), b.3.max(y));
@@ -228,13 +233,22 @@ const RAMP: [(u8, u8, u8); 4] = [(31, 78, 156), (42, 157, 143), (233, 162, 59), 
 
 /// The colour of a fraction 0..1 of the tension scale.
 fn ramp(t: Real) -> String {
-    let t = if t.is_finite() { t.clamp(0.0, 1.0) } else { 0.0 };
+    let t = if t.is_finite() {
+        t.clamp(0.0, 1.0)
+    } else {
+        0.0
+    };
     let x = t * (RAMP.len() - 1) as Real;
     let i = (x.floor() as usize).min(RAMP.len() - 2);
     let f = x - i as Real;
     let mix = |a: u8, b: u8| (a as Real + (b as Real - a as Real) * f).round() as u8;
     let (a, b) = (RAMP[i], RAMP[i + 1]);
-    format!("#{:02x}{:02x}{:02x}", mix(a.0, b.0), mix(a.1, b.1), mix(a.2, b.2))
+    format!(
+        "#{:02x}{:02x}{:02x}",
+        mix(a.0, b.0),
+        mix(a.1, b.1),
+        mix(a.2, b.2)
+    )
 }
 
 /// The colour `#rrggbb` mixed 40 % with black, for text that must stay legible.
@@ -426,12 +440,7 @@ pub fn render(rig: &Rig, solution: &Solution, report: &Report, options: &DrawOpt
     ));
     for (k, _) in RAMP.iter().enumerate() {
         let f = k as Real / (RAMP.len() - 1) as Real;
-        let _ = writeln!(
-            s,
-            "<stop offset=\"{:.3}\" stop-color=\"{}\"/>",
-            f,
-            ramp(f)
-        );
+        let _ = writeln!(s, "<stop offset=\"{:.3}\" stop-color=\"{}\"/>", f, ramp(f));
     }
     s.push_str("</linearGradient>\n</defs>\n");
     let _ = writeln!(
@@ -486,7 +495,9 @@ pub fn render(rig: &Rig, solution: &Solution, report: &Report, options: &DrawOpt
         );
         let (tx, ty) = (xbase - 6.0, (ay + by) / 2.0);
         let half = text_width(&len(y1 - y0), FONT) / 2.0 + 4.0;
-        placer.taken.push((tx - FONT - 2.0, ty - half, tx + 6.0, ty + half));
+        placer
+            .taken
+            .push((tx - FONT - 2.0, ty - half, tx + 6.0, ty + half));
         let _ = writeln!(
             s,
             "<text class=\"dimension-label\" x=\"{tx:.1}\" y=\"{ty:.1}\" font-size=\"{FONT}\" text-anchor=\"middle\" fill=\"#333\" stroke=\"#fff\" stroke-width=\"3\" paint-order=\"stroke\" transform=\"rotate(-90 {tx:.1} {ty:.1})\">{}</text>",
@@ -580,8 +591,7 @@ pub fn render(rig: &Rig, solution: &Solution, report: &Report, options: &DrawOpt
                 ""
             }
         );
-        let reach: Real;
-        match &part.kind {
+        let reach: Real = match &part.kind {
             PartKind::Sheave(_) | PartKind::Guide(_) | PartKind::Drum(_) => {
                 // Round parts always have a round shape; an axle along z stands in.
                 let axle = part
@@ -613,14 +623,14 @@ pub fn render(rig: &Rig, solution: &Solution, report: &Report, options: &DrawOpt
                 let (u, v) = plane_basis(&axle);
                 let (a, b) = (sheet.dir(&u), sheet.dir(&v));
                 let px = r * scale * (a.0.hypot(b.0)).max(a.1.hypot(b.1));
-                reach = px.max(4.0) + 2.0;
+                px.max(4.0) + 2.0
             }
             PartKind::Anchor => {
                 let _ = write!(
                     s,
                     "<path d=\"M{cx:.1},{cy:.1} l-8,-12 h16 z\" fill=\"url(#hatch)\" stroke=\"#333\" stroke-width=\"1.2\"/><circle cx=\"{cx:.1}\" cy=\"{cy:.1}\" r=\"2.5\" fill=\"#333\"/>"
                 );
-                reach = 10.0;
+                10.0
             }
             PartKind::Block(block) => {
                 let _ = write!(
@@ -639,7 +649,7 @@ pub fn render(rig: &Rig, solution: &Solution, report: &Report, options: &DrawOpt
                         cy + dy / n * 28.0
                     );
                 }
-                reach = 10.0;
+                10.0
             }
             PartKind::Weight(_) => {
                 let _ = write!(
@@ -648,21 +658,26 @@ pub fn render(rig: &Rig, solution: &Solution, report: &Report, options: &DrawOpt
                     cx - 9.0,
                     cy
                 );
-                reach = 12.0;
+                12.0
             }
             PartKind::Haul(haul) => {
                 let pull = haul.pull.map(|p| p.into_inner()).or_else(|| {
                     // Default pull: along the last span, away from the previous part.
-                    solution.geometry.lines.iter().enumerate().find_map(|(l, g)| {
-                        let path = &rig.lines[l].path;
-                        if path.last().map(|e| e.part) == Some(id) {
-                            g.spans.last().map(|sp| sp.direction.into_inner())
-                        } else if path.first().map(|e| e.part) == Some(id) {
-                            g.spans.first().map(|sp| -sp.direction.into_inner())
-                        } else {
-                            None
-                        }
-                    })
+                    solution
+                        .geometry
+                        .lines
+                        .iter()
+                        .enumerate()
+                        .find_map(|(l, g)| {
+                            let path = &rig.lines[l].path;
+                            if path.last().map(|e| e.part) == Some(id) {
+                                g.spans.last().map(|sp| sp.direction.into_inner())
+                            } else if path.first().map(|e| e.part) == Some(id) {
+                                g.spans.first().map(|sp| -sp.direction.into_inner())
+                            } else {
+                                None
+                            }
+                        })
                 });
                 let _ = write!(
                     s,
@@ -686,9 +701,9 @@ pub fn render(rig: &Rig, solution: &Solution, report: &Report, options: &DrawOpt
                         );
                     }
                 }
-                reach = 10.0;
+                10.0
             }
-        }
+        };
         if is_warned {
             let _ = write!(
                 s,
@@ -831,7 +846,11 @@ pub fn render(rig: &Rig, solution: &Solution, report: &Report, options: &DrawOpt
             q(h.ideal.value)
         ),
         format!("Units: {}", units_line(units)),
-        format!("{} · scale {}", view.description(), scale_note(scale, units)),
+        format!(
+            "{} · scale {}",
+            view.description(),
+            scale_note(scale, units)
+        ),
         format!(
             "Date {} · drawn by reeve {} · warnings: {}",
             options.date,

@@ -675,8 +675,10 @@ mod tests {
         let mut t = Table::new("T");
         t.column("a", Align::Left);
         t.column("n", Align::Right);
-        t.rows.push(vec![Cell::Text("x → y".into()), Cell::Number(Some(1.5), 2)]);
-        t.rows.push(vec![Cell::Text("z".into()), Cell::Number(None, 2)]);
+        t.rows
+            .push(vec![Cell::Text("x → y".into()), Cell::Number(Some(1.5), 2)]);
+        t.rows
+            .push(vec![Cell::Text("z".into()), Cell::Number(None, 2)]);
         let mut out = Vec::new();
         write_text_table(&mut out, &t).unwrap();
         let s = String::from_utf8(out).unwrap();
