@@ -365,11 +365,12 @@ pub fn render(rig: &Rig, solution: &Solution, report: &Report, options: &DrawOpt
     // Sheet layout, px: drawing area on the left, legend on the right, title block and
     // caution below.
     const PAGE_W: Real = 1000.0;
-    const AREA: Real = 740.0;
+    const AREA_W: Real = 700.0;
+    const AREA_H: Real = 740.0;
     const LEFT: Real = 90.0;
     const TOP: Real = 50.0;
     let (span_w, span_h) = ((x1 - x0).max(1e-9), (y1 - y0).max(1e-9));
-    let scale = (AREA / span_w).min(AREA / span_h);
+    let scale = (AREA_W / span_w).min(AREA_H / span_h);
     let scale = if scale.is_finite() && scale > 0.0 {
         scale
     } else {
@@ -377,7 +378,7 @@ pub fn render(rig: &Rig, solution: &Solution, report: &Report, options: &DrawOpt
     };
     let (draw_w, draw_h) = ((x1 - x0) * scale, (y1 - y0) * scale);
     // Centre narrow drawings in the area.
-    let left = LEFT + (AREA - draw_w).max(0.0) / 2.0;
+    let left = LEFT + (AREA_W - draw_w).max(0.0) / 2.0;
     let sheet = Sheet {
         right,
         up,
@@ -388,7 +389,8 @@ pub fn render(rig: &Rig, solution: &Solution, report: &Report, options: &DrawOpt
         top: TOP,
     };
     let caution_lines = wrap_words(CAUTION, 150);
-    let block_top = TOP + draw_h + 80.0;
+    // Below the drawing and its dimensions, and below the legend and key on the right.
+    let block_top = (TOP + draw_h + 80.0).max(TOP + 380.0);
     let page_h = block_top + 120.0 + caution_lines.len() as Real * 12.0 + 16.0;
 
     let mut s = String::new();
@@ -591,7 +593,8 @@ pub fn render(rig: &Rig, solution: &Solution, report: &Report, options: &DrawOpt
                 ""
             }
         );
-        let reach: Real = match &part.kind {
+        // Half-extents of the part's symbol on the sheet, px.
+        let (half_w, half_h): (Real, Real) = match &part.kind {
             PartKind::Sheave(_) | PartKind::Guide(_) | PartKind::Drum(_) => {
                 // Round parts always have a round shape; an axle along z stands in.
                 let axle = part
@@ -622,15 +625,17 @@ pub fn render(rig: &Rig, solution: &Solution, report: &Report, options: &DrawOpt
                 );
                 let (u, v) = plane_basis(&axle);
                 let (a, b) = (sheet.dir(&u), sheet.dir(&v));
-                let px = r * scale * (a.0.hypot(b.0)).max(a.1.hypot(b.1));
-                px.max(4.0) + 2.0
+                (
+                    (r * scale * a.0.hypot(b.0)).max(4.0) + 2.0,
+                    (r * scale * a.1.hypot(b.1)).max(4.0) + 2.0,
+                )
             }
             PartKind::Anchor => {
                 let _ = write!(
                     s,
                     "<path d=\"M{cx:.1},{cy:.1} l-8,-12 h16 z\" fill=\"url(#hatch)\" stroke=\"#333\" stroke-width=\"1.2\"/><circle cx=\"{cx:.1}\" cy=\"{cy:.1}\" r=\"2.5\" fill=\"#333\"/>"
                 );
-                10.0
+                (10.0, 10.0)
             }
             PartKind::Block(block) => {
                 let _ = write!(
@@ -649,7 +654,7 @@ pub fn render(rig: &Rig, solution: &Solution, report: &Report, options: &DrawOpt
                         cy + dy / n * 28.0
                     );
                 }
-                10.0
+                (10.0, 10.0)
             }
             PartKind::Weight(_) => {
                 let _ = write!(
@@ -658,7 +663,7 @@ pub fn render(rig: &Rig, solution: &Solution, report: &Report, options: &DrawOpt
                     cx - 9.0,
                     cy
                 );
-                12.0
+                (12.0, 12.0)
             }
             PartKind::Haul(haul) => {
                 let pull = haul.pull.map(|p| p.into_inner()).or_else(|| {
@@ -701,9 +706,10 @@ pub fn render(rig: &Rig, solution: &Solution, report: &Report, options: &DrawOpt
                         );
                     }
                 }
-                10.0
+                (10.0, 10.0)
             }
         };
+        let reach = half_w.max(half_h);
         if is_warned {
             let _ = write!(
                 s,
@@ -727,12 +733,12 @@ pub fn render(rig: &Rig, solution: &Solution, report: &Report, options: &DrawOpt
         }
         s.push_str("</g>\n");
         placer.reserve(cx, cy, reach.min(30.0));
-        part_label_requests.push((id, cx, cy, reach, is_warned));
+        part_label_requests.push((id, cx, cy, half_w, half_h, is_warned));
     }
 
     // Part labels, then span labels, each in the first free place.
     s.push_str("<g class=\"labels\" font-size=\"11\">\n");
-    for (id, cx, cy, reach, is_warned) in part_label_requests {
+    for (id, cx, cy, half_w, half_h, is_warned) in part_label_requests {
         let name = &rig.parts[id].name;
         let label = if is_warned {
             format!("⚠ {name}")
@@ -740,16 +746,19 @@ pub fn render(rig: &Rig, solution: &Solution, report: &Report, options: &DrawOpt
             name.clone()
         };
         let w = text_width(&label, FONT);
-        let d = reach + 4.0;
+        // Around the symbol's outline: the diagonals first (at 70 % of the half-extents,
+        // which hugs a circle and stays near the middle of an edge-on sheave), then
+        // above, below, right and left.
+        let (dx, dy) = (0.7 * half_w + 4.0, 0.7 * half_h + 4.0);
         let candidates = [
-            (cx + d, cy - d * 0.5),
-            (cx + d, cy + d * 0.5 + FONT),
-            (cx - d - w, cy - d * 0.5),
-            (cx - d - w, cy + d * 0.5 + FONT),
-            (cx - w / 2.0, cy - d - 2.0),
-            (cx - w / 2.0, cy + d + FONT),
-            (cx + d, cy - d - FONT),
-            (cx - d - w, cy + d + 2.0 * FONT),
+            (cx + dx, cy - dy),
+            (cx + dx, cy + dy + FONT),
+            (cx - dx - w, cy - dy),
+            (cx - dx - w, cy + dy + FONT),
+            (cx - w / 2.0, cy - half_h - 4.0),
+            (cx - w / 2.0, cy + half_h + 4.0 + FONT),
+            (cx + half_w + 4.0, cy + FONT / 2.0 - 2.0),
+            (cx - half_w - 4.0 - w, cy + FONT / 2.0 - 2.0),
         ];
         let (x, y) = placer.place(&candidates, &label);
         let _ = writeln!(
