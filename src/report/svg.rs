@@ -390,7 +390,7 @@ pub fn render(rig: &Rig, solution: &Solution, report: &Report, options: &DrawOpt
     };
     let caution_lines = wrap_words(CAUTION, 150);
     // Below the drawing and its dimensions, and below the legend and key on the right.
-    let block_top = (TOP + draw_h + 80.0).max(TOP + 380.0);
+    let block_top = (TOP + draw_h + 80.0).max(TOP + 440.0);
     let page_h = block_top + 120.0 + caution_lines.len() as Real * 12.0 + 16.0;
 
     let mut s = String::new();
@@ -820,21 +820,35 @@ pub fn render(rig: &Rig, solution: &Solution, report: &Report, options: &DrawOpt
         ly + lh,
         esc(&quantity(t_min.is_finite().then_some(t_min), Dimension::Force, units)),
     );
+    // Key to the symbols, one row each: (symbol at (x, y) centre, text).
     let key_y = ly + lh + 30.0;
-    let _ = writeln!(
-        s,
-        "<g class=\"key\" font-size=\"10\" fill=\"#222\">\
-<circle cx=\"{:.1}\" cy=\"{:.1}\" r=\"6\" fill=\"#f4f4f4\" stroke=\"#333\"/><text x=\"{:.1}\" y=\"{:.1}\">sheave (pitch circle)</text>\
-<circle cx=\"{:.1}\" cy=\"{:.1}\" r=\"6\" fill=\"url(#hatch)\" stroke=\"#333\"/><text x=\"{:.1}\" y=\"{:.1}\">fixed guide</text>\
-<rect x=\"{:.1}\" y=\"{:.1}\" width=\"12\" height=\"12\" fill=\"#cfd8e3\" stroke=\"#333\"/><text x=\"{:.1}\" y=\"{:.1}\">block (- - travel)</text>\
-<line x1=\"{:.1}\" y1=\"{:.1}\" x2=\"{:.1}\" y2=\"{:.1}\" stroke=\"#b3261e\" stroke-width=\"2.5\" marker-end=\"url(#arrow)\"/><text x=\"{:.1}\" y=\"{:.1}\">haul, pull</text>\
-<circle cx=\"{:.1}\" cy=\"{:.1}\" r=\"7\" fill=\"none\" stroke=\"#d00000\" stroke-width=\"2\" stroke-dasharray=\"5 3\"/><text x=\"{:.1}\" y=\"{:.1}\">warning</text></g>",
-        lx - 4.0, key_y, lx + 8.0, key_y + 4.0,
-        lx - 4.0, key_y + 20.0, lx + 8.0, key_y + 24.0,
-        lx - 10.0, key_y + 34.0, lx + 8.0, key_y + 44.0,
-        lx - 12.0, key_y + 60.0, lx + 2.0, key_y + 60.0, lx + 8.0, key_y + 64.0,
-        lx - 4.0, key_y + 80.0, lx + 8.0, key_y + 84.0,
-    );
+    let symbols: [(&str, &str); 8] = [
+        ("<circle cx=\"{x}\" cy=\"{y}\" r=\"6\" fill=\"#f4f4f4\" stroke=\"#333\"/>", "sheave"),
+        ("<circle cx=\"{x}\" cy=\"{y}\" r=\"6\" fill=\"url(#hatch)\" stroke=\"#333\"/>", "fixed guide"),
+        ("<circle cx=\"{x}\" cy=\"{y}\" r=\"6\" fill=\"#e8e2d4\" stroke=\"#333\"/><circle cx=\"{x}\" cy=\"{y}\" r=\"3.5\" fill=\"none\" stroke=\"#333\" stroke-width=\"0.8\"/>", "drum"),
+        ("<path d=\"M{x},{y} m0,5 l-6,-9 h12 z\" fill=\"url(#hatch)\" stroke=\"#333\"/>", "anchor"),
+        ("<rect x=\"{x}\" y=\"{y}\" transform=\"translate(-6 -6)\" width=\"12\" height=\"12\" fill=\"#cfd8e3\" stroke=\"#333\"/>", "block (- - travel)"),
+        ("<rect x=\"{x}\" y=\"{y}\" transform=\"translate(-6 -7)\" width=\"12\" height=\"14\" rx=\"2\" fill=\"#555\" stroke=\"#222\"/>", "weight"),
+        ("<path d=\"M{x},{y} m-8,0 h12\" stroke=\"#b3261e\" stroke-width=\"2.5\" marker-end=\"url(#arrow)\"/>", "haul, pull"),
+        ("<circle cx=\"{x}\" cy=\"{y}\" r=\"7\" fill=\"none\" stroke=\"#d00000\" stroke-width=\"2\" stroke-dasharray=\"5 3\"/>", "warning"),
+    ];
+    s.push_str("<g class=\"key\" font-size=\"10\" fill=\"#222\">");
+    for (i, (symbol, text)) in symbols.iter().enumerate() {
+        let (x, y) = (lx + 2.0, key_y + 20.0 * i as Real);
+        s.push_str(
+            &symbol
+                .replace("{x}", &format!("{x:.1}"))
+                .replace("{y}", &format!("{y:.1}")),
+        );
+        let _ = write!(
+            s,
+            "<text x=\"{:.1}\" y=\"{:.1}\">{}</text>",
+            x + 12.0,
+            y + 4.0,
+            esc(text)
+        );
+    }
+    s.push_str("</g>\n");
 
     // Title block.
     let h = &report.headline;
