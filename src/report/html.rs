@@ -94,22 +94,23 @@ const METHODS: &[(&str, &str)] = &[
 included angle β. Used for guides, pins, carabiners, stalled sheaves and the drum slip \
 check. Published by L. Euler (1762) and J. A. Eytelwein (1808); treated as belt friction \
 in statics texts, e.g. F. P. Beer and E. R. Johnston, Vector Mechanics for Engineers: \
-Statics (chapter on friction, belt friction), and J. L. Meriam and L. G. Kraige, \
-Engineering Mechanics: Statics (chapter on friction, flexible belts).",
+Statics, chapter 8 (Friction), section \"Belt Friction\", and J. L. Meriam and \
+L. G. Kraige, Engineering Mechanics: Statics, chapter on friction (flexible belts).",
     ),
     (
         "Sheave on a plain bearing: friction circle",
         "The pin reaction passes tangent to the friction circle of radius r_f = r sin(atan μ); \
 the moment balance (T_tight − T_slack) R = r_f |F_pin| gives the tension ratio \
 k = b + √(b² − 1), b = (1 − ρ² cos φ) / (1 − ρ²), ρ = r_f / R. Axle (journal) friction \
-as in the statics texts above (journal bearings, axle friction).",
+as in Beer and Johnston, chapter 8, section \"Journal Bearings. Axle Friction\".",
     ),
     (
         "Sheave on a rolling bearing: constant-coefficient catalogue model",
         "Friction moment M = μ_b |F_pin| d_bore / 2, i.e. r_f = μ_b d_bore / 2, then as for \
 the friction circle. The simplified friction moment of rolling-bearing makers' general \
-catalogues (e.g. the SKF rolling bearings catalogue, section on friction), with the \
-catalogue's constant coefficient for the bearing type.",
+catalogues (e.g. the SKF rolling bearings catalogue, \"Friction\": estimating the \
+frictional moment with a constant coefficient, M = 0.5 μ P d), with the catalogue's \
+coefficient for the bearing type (0.0015 for an open deep groove ball bearing).",
     ),
     (
         "Rated sheaves and multi-part tackle: wire-rope handbook reeving efficiency",
@@ -123,8 +124,8 @@ handbooks on reeving efficiency.",
         "Drum shafts: thrust (pivot and collar) friction",
         "M_thrust = μ W r_eff with r_eff = (2/3)(Ro³ − Ri³)/(Ro² − Ri²) for uniform pressure \
 (new surfaces) and r_eff = (Ro + Ri)/2 for uniform wear (run-in surfaces); a conical \
-pivot of half-angle α divides by sin α. As in the statics texts above (thrust bearings, \
-disk friction) and in machine-design texts on disc clutches, e.g. Shigley's Mechanical \
+pivot of half-angle α divides by sin α. As in Beer and Johnston, chapter 8, section \"Thrust \
+Bearings. Disk Friction\", and in machine-design texts on disc clutches, e.g. Shigley's Mechanical \
 Engineering Design (clutches and brakes: uniform wear and uniform pressure).",
     ),
     (
