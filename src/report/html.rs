@@ -77,11 +77,13 @@ dl.methods dd { margin: 0.2rem 0 0 1rem; }
   body { padding: 0; font-size: 10pt; }
   main { max-width: none; }
   .table-scroll { overflow: visible; border: none; }
-  th, td { white-space: normal; padding: 0.15rem 0.35rem; }
+  th, td { padding: 0.15rem 0.3rem; }
+  th { white-space: normal; }
+  table.data { font-size: 7.5pt; }
   figure, .loss, table.summary, .caution { break-inside: avoid; }
   tr { break-inside: avoid; }
   h2 { break-after: avoid; }
-  figure svg { max-width: 100%; border: none; }
+  figure svg { max-width: 100%; max-height: 130mm; border: none; }
   .bar, .tag, th { -webkit-print-color-adjust: exact; print-color-adjust: exact; }
 }
 "#;
