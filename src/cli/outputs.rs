@@ -8,7 +8,7 @@ use clap::{Args, ValueEnum};
 
 use crate::checks;
 use crate::report::svg::{self, DrawOptions, View};
-use crate::report::table::{self, CaseFilter, TableChoice};
+use crate::report::table::{self, CaseFilter, Style, TableChoice};
 use crate::report::{html, Report};
 
 use super::output::{emit, Destination};
@@ -175,7 +175,12 @@ pub fn run_table(args: TableArgs) -> Result<i32, Failure> {
             emit(&destination, &args.rig.rig, |w| writeln!(w, "{json}"))?;
         }
         format => {
-            let tables = table::tables(&report, units, cases, choice);
+            let style = if format == TableFormat::Csv {
+                Style::Data
+            } else {
+                Style::Human
+            };
+            let tables = table::tables(&report, units, cases, choice, style);
             emit(&destination, &args.rig.rig, |w| match format {
                 TableFormat::Md => table::write_markdown(w, &report, units, &tables),
                 TableFormat::Csv => tables.iter().try_for_each(|t| table::write_csv(w, t)),

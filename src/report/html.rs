@@ -12,7 +12,7 @@ use crate::solve::Solution;
 use crate::units::{Dimension, UnitSystem};
 
 use super::svg::{self, DrawOptions};
-use super::table::{self, Align, CaseFilter, Table, TableChoice};
+use super::table::{self, Align, CaseFilter, Style, Table, TableChoice};
 use super::text::{number, quantity};
 use super::{Headline, Report, CAUTION};
 
@@ -328,7 +328,13 @@ pub fn write_html(
         "<figcaption>Drawn to scale; spans coloured and labelled by forward tension; parts with warnings ringed in red.</figcaption>\n</figure>\n</section>"
     )?;
 
-    let tables = table::tables(report, units, CaseFilter::All, TableChoice::Both);
+    let tables = table::tables(
+        report,
+        units,
+        CaseFilter::All,
+        TableChoice::Both,
+        Style::Human,
+    );
     writeln!(w, "<section id=\"span-table\">\n<h2>Spans</h2>")?;
     if let Some(t) = tables.first() {
         write_table(w, t, "spans")?;

@@ -65,6 +65,26 @@ pub enum TableChoice {
     Parts,
 }
 
+/// Who reads the table: a person (text, Markdown, HTML) or a program (CSV).
+#[derive(Debug, Clone, Copy, PartialEq, Eq, Default)]
+pub enum Style {
+    /// `from → to` in one column, degrees as `°`.
+    #[default]
+    Human,
+    /// ASCII headers (`deg`), `from` and `to` in columns of their own: what a
+    /// spreadsheet sorts and filters on, read correctly whatever its text encoding.
+    Data,
+}
+
+impl Style {
+    fn degrees(self) -> &'static str {
+        match self {
+            Style::Human => "°",
+            Style::Data => "deg",
+        }
+    }
+}
+
 /// Horizontal alignment of a column.
 #[derive(Debug, Clone, Copy, PartialEq, Eq)]
 pub enum Align {
@@ -119,14 +139,20 @@ fn clean_zero(s: String) -> String {
     }
 }
 
-/// A unit direction as `(x, y, z)` with three decimals, trailing zeros dropped.
+/// A unit vector's component with three decimals, trailing zeros dropped.
+fn component(x: Real) -> String {
+    let s = format!("{x:.3}");
+    clean_zero(s.trim_end_matches('0').trim_end_matches('.').to_string())
+}
+
+/// A unit direction as `(x, y, z)`, components as [`component`].
 fn direction(d: &[Real; 3]) -> String {
-    let c = |x: Real| {
-        let s = format!("{x:.3}");
-        let s = s.trim_end_matches('0').trim_end_matches('.');
-        clean_zero(s.to_string())
-    };
-    format!("({}, {}, {})", c(d[0]), c(d[1]), c(d[2]))
+    format!(
+        "({}, {}, {})",
+        component(d[0]),
+        component(d[1]),
+        component(d[2])
+    )
 }
 
 /// A column: header (with its unit) and alignment.
@@ -173,12 +199,18 @@ fn in_units(x: Option<Real>, dimension: Dimension, units: &UnitSystem) -> Cell {
 }
 
 /// The span table: line, span index, from → to, length, tension per case, safety factor.
-pub fn span_table(report: &Report, units: &UnitSystem, cases: CaseFilter) -> Table {
+pub fn span_table(report: &Report, units: &UnitSystem, cases: CaseFilter, style: Style) -> Table {
     let (len, force) = (units.length.symbol, units.force.symbol);
     let mut t = Table::new("Spans");
     t.column("line", Align::Left);
     t.column("span", Align::Right);
-    t.column("from → to", Align::Left);
+    match style {
+        Style::Human => t.column("from → to", Align::Left),
+        Style::Data => {
+            t.column("from", Align::Left);
+            t.column("to", Align::Left);
+        }
+    }
     t.column(format!("length ({len})"), Align::Right);
     if cases.ideal() {
         t.column(format!("tension ideal ({force})"), Align::Right);
@@ -191,12 +223,15 @@ pub fn span_table(report: &Report, units: &UnitSystem, cases: CaseFilter) -> Tab
     }
     t.column("safety factor", Align::Right);
     for s in &report.spans {
-        let mut row = vec![
-            Cell::Text(s.line.clone()),
-            Cell::Text(s.index.to_string()),
-            Cell::Text(format!("{} → {}", s.from, s.to)),
-            in_units(s.length_m, Dimension::Length, units),
-        ];
+        let mut row = vec![Cell::Text(s.line.clone()), Cell::Text(s.index.to_string())];
+        match style {
+            Style::Human => row.push(Cell::Text(format!("{} → {}", s.from, s.to))),
+            Style::Data => {
+                row.push(Cell::Text(s.from.clone()));
+                row.push(Cell::Text(s.to.clone()));
+            }
+        }
+        row.push(in_units(s.length_m, Dimension::Length, units));
         if cases.ideal() {
             row.push(in_units(s.tension_n.ideal, Dimension::Force, units));
         }
@@ -212,17 +247,46 @@ pub fn span_table(report: &Report, units: &UnitSystem, cases: CaseFilter) -> Tab
     t
 }
 
+/// The pin-load direction: one `(x, y, z)` column for a person, three numeric columns
+/// for a spreadsheet.
+fn direction_columns(t: &mut Table, case: &str, style: Style) {
+    match style {
+        Style::Human => t.column(format!("pin dir {case}"), Align::Left),
+        Style::Data => {
+            for axis in ["x", "y", "z"] {
+                t.column(format!("pin dir {case} {axis}"), Align::Right);
+            }
+        }
+    }
+}
+
+fn direction_cells(row: &mut Vec<Cell>, direction: Option<[Real; 3]>, style: Style) {
+    match style {
+        Style::Human => row.push(Cell::Direction(direction)),
+        Style::Data => {
+            for axis in 0..3 {
+                // Three decimals, as in the text table (a unit vector's components).
+                row.push(match direction {
+                    Some(d) => Cell::Text(component(d[axis])),
+                    None => Cell::Number(None, 3),
+                });
+            }
+        }
+    }
+}
+
 /// The part table: one row per passage of a line over a round part, one row for every
 /// other part; pin load magnitude and direction per case, loss share (forward case).
-pub fn part_table(report: &Report, units: &UnitSystem, cases: CaseFilter) -> Table {
+pub fn part_table(report: &Report, units: &UnitSystem, cases: CaseFilter, style: Style) -> Table {
+    let deg = style.degrees();
     let force = units.force.symbol;
     let mut t = Table::new("Parts");
     t.column("part", Align::Left);
     t.column("kind", Align::Left);
     t.column("line", Align::Left);
-    t.column("wrap (°)", Align::Right);
-    t.column("fleet in (°)", Align::Right);
-    t.column("fleet out (°)", Align::Right);
+    t.column(format!("wrap ({deg})"), Align::Right);
+    t.column(format!("fleet in ({deg})"), Align::Right);
+    t.column(format!("fleet out ({deg})"), Align::Right);
     t.column("D/d", Align::Right);
     if cases.forward() {
         t.column("ratio forward", Align::Right);
@@ -232,15 +296,15 @@ pub fn part_table(report: &Report, units: &UnitSystem, cases: CaseFilter) -> Tab
     }
     if cases.ideal() {
         t.column(format!("pin load ideal ({force})"), Align::Right);
-        t.column("pin dir ideal", Align::Left);
+        direction_columns(&mut t, "ideal", style);
     }
     if cases.forward() {
         t.column(format!("pin load forward ({force})"), Align::Right);
-        t.column("pin dir forward", Align::Left);
+        direction_columns(&mut t, "forward", style);
     }
     if cases.back() {
         t.column(format!("pin load back ({force})"), Align::Right);
-        t.column("pin dir back", Align::Left);
+        direction_columns(&mut t, "back", style);
     }
     if cases.forward() {
         t.column("loss share (%)", Align::Right);
@@ -249,15 +313,15 @@ pub fn part_table(report: &Report, units: &UnitSystem, cases: CaseFilter) -> Tab
         let part_cells = |row: &mut Vec<Cell>| {
             if cases.ideal() {
                 row.push(in_units(p.pin_load_ideal_n, Dimension::Force, units));
-                row.push(Cell::Direction(p.pin_load_direction_ideal));
+                direction_cells(row, p.pin_load_direction_ideal, style);
             }
             if cases.forward() {
                 row.push(in_units(p.pin_load_n.forward, Dimension::Force, units));
-                row.push(Cell::Direction(p.pin_load_direction.forward));
+                direction_cells(row, p.pin_load_direction.forward, style);
             }
             if cases.back() {
                 row.push(in_units(p.pin_load_n.back, Dimension::Force, units));
-                row.push(Cell::Direction(p.pin_load_direction.back));
+                direction_cells(row, p.pin_load_direction.back, style);
             }
             if cases.forward() {
                 row.push(Cell::Number(p.loss_share.map(|s| s * 100.0), 3));
@@ -311,13 +375,14 @@ pub fn tables(
     units: &UnitSystem,
     cases: CaseFilter,
     choice: TableChoice,
+    style: Style,
 ) -> Vec<Table> {
     let mut out = Vec::new();
     if choice != TableChoice::Parts {
-        out.push(span_table(report, units, cases));
+        out.push(span_table(report, units, cases, style));
     }
     if choice != TableChoice::Spans {
-        out.push(part_table(report, units, cases));
+        out.push(part_table(report, units, cases, style));
     }
     out
 }
