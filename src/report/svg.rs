@@ -242,6 +242,7 @@ fn ramp(t: Real) -> String {
     let i = (x.floor() as usize).min(RAMP.len() - 2);
     let f = x - i as Real;
     let mix = |a: u8, b: u8| (a as Real + (b as Real - a as Real) * f).round() as u8;
+    // In range: `i <= RAMP.len() - 2` by the `min` above.
     let (a, b) = (RAMP[i], RAMP[i + 1]);
     format!(
         "#{:02x}{:02x}{:02x}",
@@ -518,6 +519,7 @@ pub fn render(rig: &Rig, solution: &Solution, report: &Report, options: &DrawOpt
             if e == 0 || e + 1 >= line.entries.len() {
                 continue;
             }
+            // In range: 0 < e < entries.len() = spans.len() + 1 (checked above).
             let arrive = line.spans[e - 1].end;
             let turn = entry.wrap.rem_euclid(std::f64::consts::TAU);
             if turn <= 1e-6 {
@@ -556,6 +558,7 @@ pub fn render(rig: &Rig, solution: &Solution, report: &Report, options: &DrawOpt
             let colour = forward.map_or("#999999".to_string(), |t| ramp(fraction(t)));
             let (ax, ay) = sheet.at(&span.start);
             let (bx, by) = sheet.at(&span.end);
+            // In range: span j joins path entries j and j + 1 (geometry's convention).
             let (from, to) = (
                 &rig.parts[rig.lines[l].path[j].part].name,
                 &rig.parts[rig.lines[l].path[j + 1].part].name,
