@@ -6,6 +6,8 @@ use std::path::{Path, PathBuf};
 
 use clap::{Parser, Subcommand};
 
+pub mod output;
+pub mod outputs;
 pub mod studies;
 
 use crate::checks;
@@ -52,6 +54,13 @@ pub enum Command {
         #[arg(long)]
         json: bool,
     },
+    /// Print the drawing-set tables: tension in every span; wrap, fleet, D/d, ratio,
+    /// pin load and loss share at every part.
+    Table(outputs::TableArgs),
+    /// Draw the rig to scale as an SVG, spans coloured by tension.
+    Draw(outputs::DrawArgs),
+    /// Write a self-contained HTML report: summary, drawing, tables, losses, notes.
+    Report(outputs::ReportArgs),
     /// Compare rigs, or one rig's named variants, side by side.
     Compare(studies::CompareArgs),
     /// Sweep one value over a range, or move the drive through its stroke.
@@ -166,6 +175,9 @@ pub fn run(cli: Cli) -> Result<i32, Failure> {
                 EXIT_OK
             })
         }
+        Command::Table(args) => outputs::run_table(args),
+        Command::Draw(args) => outputs::run_draw(args),
+        Command::Report(args) => outputs::run_report(args),
         Command::Compare(args) => studies::run_compare(args),
         Command::Sweep(args) => studies::run_sweep(args),
         Command::Rank(args) => studies::run_rank(args),

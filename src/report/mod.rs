@@ -2,6 +2,9 @@
 //! fields are the `check --json` contract of DESIGN.md §5: SI numbers, keys carrying
 //! their units, angles in degrees; `None` becomes JSON `null`, never NaN.
 
+pub mod html;
+pub mod svg;
+pub mod table;
 pub mod text;
 
 use serde::Serialize;
@@ -120,6 +123,10 @@ pub struct PartReport {
     pub pin_load_n: ForwardBack<Option<Real>>,
     /// Unit direction of that load.
     pub pin_load_direction: ForwardBack<Option<[Real; 3]>>,
+    /// Magnitude of the resultant load without friction (ideal case), N.
+    pub pin_load_ideal_n: Option<Real>,
+    /// Unit direction of the ideal-case load.
+    pub pin_load_direction_ideal: Option<[Real; 3]>,
     /// Share of all losses lost at this part, forward case (0 to 1).
     pub loss_share: Option<Real>,
     /// Power lost here over drive power, forward case (0 to 1).
@@ -391,6 +398,8 @@ impl Report {
                     forward: pin(Case::Forward).and_then(|v| dir(&v)),
                     back: pin(Case::Back).and_then(|v| dir(&v)),
                 },
+                pin_load_ideal_n: pin(Case::Ideal).and_then(|v| finite(v.norm())),
+                pin_load_direction_ideal: pin(Case::Ideal).and_then(|v| dir(&v)),
                 loss_share,
                 loss_of_input,
                 passages,

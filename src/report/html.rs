@@ -1,0 +1,449 @@
+//! The HTML report of `reeve report`: one self-contained file (no scripts, fonts or
+//! network) holding the summary, the drawing inline, the span and part tables, the
+//! loss breakdown as a bar chart, drum torques, warnings, the method notes with their
+//! published sources, and the caution. A print stylesheet lays it out for paper; a
+//! viewport tag and scrolling table boxes make it read on a phone.
+
+use std::io::{self, Write};
+
+use crate::math::Real;
+use crate::rig::model::Rig;
+use crate::solve::Solution;
+use crate::units::{Dimension, UnitSystem};
+
+use super::svg::{self, DrawOptions};
+use super::table::{self, Align, CaseFilter, Style, Table, TableChoice};
+use super::text::{number, quantity};
+use super::{Headline, Report, CAUTION};
+
+/// Escapes text for HTML content and attribute values.
+pub fn esc(s: &str) -> String {
+    let mut out = String::with_capacity(s.len());
+    for c in s.chars() {
+        match c {
+            '&' => out.push_str("&amp;"),
+            '<' => out.push_str("&lt;"),
+            '>' => out.push_str("&gt;"),
+            '"' => out.push_str("&quot;"),
+            '\'' => out.push_str("&#39;"),
+            c => out.push(c),
+        }
+    }
+    out
+}
+
+const STYLE: &str = r#"
+:root { --ink: #1d1d1f; --muted: #5b5b60; --rule: #d6d6da; --accent: #1f4e9c; --bad: #b00000; --warn: #9a5b00; }
+* { box-sizing: border-box; }
+body { margin: 0; padding: 1rem; font: 15px/1.45 system-ui, -apple-system, "Segoe UI", Roboto, "DejaVu Sans", sans-serif; color: var(--ink); background: #fff; }
+main { max-width: 1100px; margin: 0 auto; }
+h1 { font-size: 1.55rem; margin: 0.2rem 0 0.3rem; }
+h2 { font-size: 1.2rem; margin: 1.8rem 0 0.6rem; border-bottom: 1px solid var(--rule); padding-bottom: 0.2rem; }
+.meta { color: var(--muted); margin: 0 0 1rem; }
+.table-scroll { overflow-x: auto; -webkit-overflow-scrolling: touch; border: 1px solid var(--rule); border-radius: 4px; }
+table { border-collapse: collapse; width: 100%; font-variant-numeric: tabular-nums; }
+th, td { padding: 0.3rem 0.55rem; border-bottom: 1px solid var(--rule); white-space: nowrap; }
+th { background: #f3f4f6; text-align: left; font-weight: 600; }
+td.num, th.num { text-align: right; }
+tbody tr:nth-child(even) { background: #fafafb; }
+table.summary { width: auto; }
+table.summary th[scope=row] { background: none; font-weight: 600; }
+figure { margin: 0; }
+figure svg { display: block; width: 100%; height: auto; max-width: 1000px; }
+figcaption { color: var(--muted); font-size: 0.9rem; margin-top: 0.3rem; }
+.bars { max-width: 760px; }
+.loss { margin: 0 0 0.55rem; }
+.loss-label { display: flex; flex-wrap: wrap; justify-content: space-between; gap: 0 1rem; font-size: 0.92rem; }
+.loss-value { color: var(--muted); font-variant-numeric: tabular-nums; }
+.bar-track { background: #eef0f3; border-radius: 3px; height: 0.9rem; }
+.bar { background: var(--accent); height: 100%; border-radius: 3px; min-width: 2px; }
+.table-scroll.fit { display: inline-block; max-width: 100%; }
+ul.warnings { padding-left: 1.2rem; }
+.tag { display: inline-block; font-size: 0.75rem; font-weight: 700; padding: 0 0.35rem; border-radius: 3px; color: #fff; margin-right: 0.4rem; }
+.tag.fail { background: var(--bad); }
+.tag.warn { background: var(--warn); }
+.ok { color: #1f6f3f; font-weight: 600; }
+.bad { color: var(--bad); font-weight: 600; }
+dl.methods dt { font-weight: 600; margin-top: 0.7rem; }
+dl.methods dd { margin: 0.2rem 0 0 1rem; }
+.caution { margin-top: 2rem; padding: 0.8rem 1rem; border-left: 4px solid var(--warn); background: #fff8ec; }
+@media (max-width: 700px) {
+  body { padding: 0.6rem; font-size: 14px; }
+  h1 { font-size: 1.3rem; }
+  .table-scroll.fit { display: block; }
+}
+@media print {
+  @page { margin: 14mm; }
+  body { padding: 0; font-size: 10pt; }
+  main { max-width: none; }
+  .table-scroll { overflow: visible; border: none; }
+  th, td { padding: 0.15rem 0.3rem; }
+  th { white-space: normal; }
+  table.data { font-size: 7.5pt; }
+  figure, .loss, table.summary, .caution { break-inside: avoid; }
+  tr { break-inside: avoid; }
+  h2 { break-after: avoid; }
+  figure svg { max-width: 100%; max-height: 130mm; border: none; }
+  .bar, .tag, th { -webkit-print-color-adjust: exact; print-color-adjust: exact; }
+}
+"#;
+
+/// The method notes: what each friction model is and where it is published.
+const METHODS: &[(&str, &str)] = &[
+    (
+        "Rope on a non-turning surface: capstan equation (Euler–Eytelwein)",
+        "T_tight / T_slack = exp(μ′ (φ + 2πn)), with μ′ = μ / sin(β/2) in a V-groove of \
+included angle β. Used for guides, pins, carabiners, stalled sheaves and the drum slip \
+check. Published by L. Euler (1762) and J. A. Eytelwein (1808); treated as belt friction \
+in statics texts, e.g. F. P. Beer and E. R. Johnston, Vector Mechanics for Engineers: \
+Statics, chapter 8 (Friction), section \"Belt Friction\", and J. L. Meriam and \
+L. G. Kraige, Engineering Mechanics: Statics, chapter on friction (flexible belts).",
+    ),
+    (
+        "Sheave on a plain bearing: friction circle",
+        "The pin reaction passes tangent to the friction circle of radius r_f = r sin(atan μ); \
+the moment balance (T_tight − T_slack) R = r_f |F_pin| gives the tension ratio \
+k = b + √(b² − 1), b = (1 − ρ² cos φ) / (1 − ρ²), ρ = r_f / R. Axle (journal) friction \
+as in Beer and Johnston, chapter 8, section \"Journal Bearings. Axle Friction\".",
+    ),
+    (
+        "Sheave on a rolling bearing: constant-coefficient catalogue model",
+        "Friction moment M = μ_b |F_pin| d_bore / 2, i.e. r_f = μ_b d_bore / 2, then as for \
+the friction circle. The simplified friction moment of rolling-bearing makers' general \
+catalogues (e.g. the SKF rolling bearings catalogue, \"Friction\": estimating the \
+frictional moment with a constant coefficient, M = 0.5 μ P d), with the catalogue's \
+coefficient for the bearing type (0.0015 for an open deep groove ball bearing).",
+    ),
+    (
+        "Rated sheaves and multi-part tackle: wire-rope handbook reeving efficiency",
+        "A sheave rated at efficiency η (bearing factor K = 1/η) at 180° wrap is modelled with \
+ρ = (K − 1)/(K + 1). For N parts and S sheaves the handbook reeving efficiency is \
+E = (K^N − 1) / (K^S N (K − 1)), and the general solver reproduces it for the matching \
+rig. See e.g. the Wire Rope Users Manual (Wire Rope Technical Board) and rope makers' \
+handbooks on reeving efficiency.",
+    ),
+    (
+        "Drum shafts: thrust (pivot and collar) friction",
+        "M_thrust = μ W r_eff with r_eff = (2/3)(Ro³ − Ri³)/(Ro² − Ri²) for uniform pressure \
+(new surfaces) and r_eff = (Ro + Ri)/2 for uniform wear (run-in surfaces); a conical \
+pivot of half-angle α divides by sin α. As in Beer and Johnston, chapter 8, section \"Thrust \
+Bearings. Disk Friction\", and in machine-design texts on disc clutches, e.g. Shigley's Mechanical \
+Engineering Design (clutches and brakes: uniform wear and uniform pressure).",
+    ),
+    (
+        "Solver",
+        "Quasi-static: kinematics from the inextensible lines, then equilibrium of every block, \
+weight and drum for three cases: ideal (no friction), forward (the drive moves the load) \
+and back (the load drives back), with friction reversing between forward and back. An \
+energy audit (drive power = load power + losses) checks every solution and gives the loss \
+breakdown. Gravity is standard gravity, 9.806 65 m/s².",
+    ),
+];
+
+fn write_table(w: &mut dyn Write, table: &Table, id: &str) -> io::Result<()> {
+    writeln!(
+        w,
+        "<div class=\"table-scroll\"><table id=\"{id}\" class=\"data\"><thead><tr>"
+    )?;
+    for c in &table.columns {
+        let class = match c.align {
+            Align::Right => " class=\"num\"",
+            Align::Left => "",
+        };
+        write!(w, "<th scope=\"col\"{class}>{}</th>", esc(&c.header))?;
+    }
+    writeln!(w, "</tr></thead><tbody>")?;
+    for row in &table.rows {
+        write!(w, "<tr>")?;
+        for (cell, c) in row.iter().zip(&table.columns) {
+            let class = match c.align {
+                Align::Right => " class=\"num\"",
+                Align::Left => "",
+            };
+            write!(w, "<td{class}>{}</td>", esc(&cell.text()))?;
+        }
+        writeln!(w, "</tr>")?;
+    }
+    writeln!(w, "</tbody></table></div>")
+}
+
+fn percent(x: Option<Real>) -> String {
+    match x {
+        Some(v) if v.is_finite() => format!("{:.1} %", v * 100.0),
+        _ => "—".to_string(),
+    }
+}
+
+fn write_summary(w: &mut dyn Write, h: &Headline, units: &UnitSystem, id: &str) -> io::Result<()> {
+    let dim = match h.solve_for.quantity {
+        "mass" => Dimension::Mass,
+        "torque" => Dimension::Torque,
+        _ => Dimension::Force,
+    };
+    let q = |x| esc(&quantity(x, dim, units));
+    writeln!(
+        w,
+        "<p>Asked: the <strong>{}</strong> at <code>{}</code>; drive: <code>{}</code>.</p>",
+        esc(h.solve_for.quantity),
+        esc(&h.solve_for.part),
+        esc(&h.drive)
+    )?;
+    writeln!(
+        w,
+        "<div class=\"table-scroll fit\"><table id=\"{id}\" class=\"summary\"><thead><tr><th scope=\"col\"></th><th scope=\"col\" class=\"num\">ideal</th><th scope=\"col\" class=\"num\">forward</th><th scope=\"col\" class=\"num\">back</th></tr></thead><tbody>"
+    )?;
+    writeln!(
+        w,
+        "<tr><th scope=\"row\">{}</th><td class=\"num\">{}</td><td class=\"num\">{}</td><td class=\"num\">{}</td></tr>",
+        esc(h.solve_for.quantity),
+        q(h.ideal.value),
+        q(h.forward.value),
+        q(h.back.value)
+    )?;
+    writeln!(
+        w,
+        "<tr><th scope=\"row\">efficiency</th><td class=\"num\"></td><td class=\"num\">{}</td><td class=\"num\">{}</td></tr>",
+        percent(h.forward.efficiency),
+        percent(h.back.efficiency)
+    )?;
+    writeln!(w, "</tbody></table></div>")?;
+    writeln!(w, "<ul>")?;
+    if let Some(vr) = h.velocity_ratio {
+        write!(w, "<li>Velocity ratio {}", number(Some(vr), 4))?;
+        if let Some(p) = &h.load_part {
+            write!(w, " (drive speed over <code>{}</code> speed)", esc(p))?;
+        }
+        if let Some(ma) = h.mechanical_advantage {
+            write!(w, "; mechanical advantage {}", number(Some(ma), 4))?;
+        }
+        writeln!(w, ".</li>")?;
+    }
+    let [lo, hi] = h.holding_band;
+    writeln!(
+        w,
+        "<li>Holding band: friction alone holds the rig still between {} and {}.</li>",
+        q(lo),
+        q(hi)
+    )?;
+    writeln!(
+        w,
+        "<li>Self-locking: {}.</li>",
+        if h.self_locking {
+            "yes; it will not run back by itself"
+        } else {
+            "no; it runs back by itself below the back value"
+        }
+    )?;
+    if let Some(a) = h.available {
+        let what = if h.solve_for.part == h.drive {
+            "Available"
+        } else {
+            "Stated"
+        };
+        let verdict = match h.moves {
+            Some(true) => "<span class=\"ok\">the drive moves the rig</span>",
+            Some(false) => "<span class=\"bad\">the drive cannot move the rig</span>",
+            None => "",
+        };
+        writeln!(
+            w,
+            "<li>{what} {}: {}; {verdict} (margin {}).</li>",
+            esc(h.solve_for.quantity),
+            q(Some(a)),
+            percent(h.margin)
+        )?;
+    }
+    writeln!(w, "</ul>")
+}
+
+/// Writes the whole HTML report.
+///
+/// # Errors
+/// Only those of `w`.
+pub fn write_html(
+    w: &mut dyn Write,
+    rig: &Rig,
+    solution: &Solution,
+    report: &Report,
+    options: &DrawOptions,
+    source: &str,
+) -> io::Result<()> {
+    let units = &rig.units;
+    writeln!(
+        w,
+        "<!DOCTYPE html>\n<html lang=\"en\">\n<head>\n<meta charset=\"utf-8\">"
+    )?;
+    writeln!(
+        w,
+        "<meta name=\"viewport\" content=\"width=device-width, initial-scale=1\">"
+    )?;
+    writeln!(
+        w,
+        "<meta name=\"generator\" content=\"reeve {}\">",
+        env!("CARGO_PKG_VERSION")
+    )?;
+    writeln!(w, "<title>{} — reeve report</title>", esc(&report.title))?;
+    writeln!(w, "<style>{STYLE}</style>\n</head>\n<body>\n<main>")?;
+    writeln!(w, "<h1>{}</h1>", esc(&report.title))?;
+    writeln!(
+        w,
+        "<p class=\"meta\">Rig file <code>{}</code> · units: {} · {} · reeve {}</p>",
+        esc(source),
+        esc(&table::units_line(units)),
+        esc(&options.date),
+        env!("CARGO_PKG_VERSION")
+    )?;
+
+    writeln!(w, "<section id=\"summary\">\n<h2>Summary</h2>")?;
+    write_summary(w, &report.headline, units, "summary-table")?;
+    for (i, sub) in report.subrigs.iter().enumerate() {
+        writeln!(
+            w,
+            "<h3>Independent sub-rig driven by <code>{}</code></h3>",
+            esc(&sub.drive)
+        )?;
+        write_summary(w, sub, units, &format!("summary-table-{}", i + 1))?;
+    }
+    let fails = report.warnings.iter().filter(|w| w.fails).count();
+    writeln!(
+        w,
+        "<p>Checks: {}.</p>\n</section>",
+        if report.warnings.is_empty() {
+            "<span class=\"ok\">no warnings</span>".to_string()
+        } else if fails > 0 {
+            format!(
+                "<span class=\"bad\">{fails} failing</span>, {} warning(s) in all (see Warnings)",
+                report.warnings.len()
+            )
+        } else {
+            format!("{} warning(s) (see Warnings)", report.warnings.len())
+        }
+    )?;
+
+    writeln!(w, "<section id=\"drawing\">\n<h2>Drawing</h2>\n<figure>")?;
+    let drawing = svg::render(rig, solution, report, options);
+    w.write_all(drawing.as_bytes())?;
+    writeln!(
+        w,
+        "<figcaption>Drawn to scale; spans coloured and labelled by forward tension; parts with warnings ringed in red.</figcaption>\n</figure>\n</section>"
+    )?;
+
+    let tables = table::tables(
+        report,
+        units,
+        CaseFilter::All,
+        TableChoice::Both,
+        Style::Human,
+    );
+    writeln!(w, "<section id=\"span-table\">\n<h2>Spans</h2>")?;
+    if let Some(t) = tables.first() {
+        write_table(w, t, "spans")?;
+    }
+    writeln!(w, "</section>\n<section id=\"part-table\">\n<h2>Parts</h2>")?;
+    if let Some(t) = tables.get(1) {
+        write_table(w, t, "parts")?;
+    }
+    writeln!(
+        w,
+        "<p class=\"meta\">Pin load: the resultant of the rope pulls and the part's own weight; direction as a unit vector (x, y, z) in the rig's frame. Loss share: this part's part of all friction losses, forward case.</p>\n</section>"
+    )?;
+
+    // Loss breakdown, forward.
+    writeln!(
+        w,
+        "<section id=\"losses\">\n<h2>Where the losses go (forward)</h2>"
+    )?;
+    let mut losses: Vec<_> = report
+        .parts
+        .iter()
+        .filter(|p| p.loss_share.unwrap_or(0.0) > 0.0)
+        .collect();
+    losses.sort_by(|a, b| {
+        b.loss_share
+            .unwrap_or(0.0)
+            .total_cmp(&a.loss_share.unwrap_or(0.0))
+    });
+    if losses.is_empty() {
+        writeln!(w, "<p>No friction losses.</p>")?;
+    } else {
+        writeln!(w, "<div class=\"bars\" role=\"list\">")?;
+        for p in &losses {
+            let share = p.loss_share.unwrap_or(0.0).clamp(0.0, 1.0);
+            writeln!(
+                w,
+                "<div class=\"loss\" role=\"listitem\"><div class=\"loss-label\"><span><code>{}</code> <small>{}</small></span><span class=\"loss-value\">{} of losses · {} of input</span></div><div class=\"bar-track\"><div class=\"bar\" style=\"width: {:.1}%\"></div></div></div>",
+                esc(&p.name),
+                esc(p.kind),
+                percent(p.loss_share),
+                percent(p.loss_of_input),
+                share * 100.0
+            )?;
+        }
+        writeln!(w, "</div>")?;
+    }
+    writeln!(w, "</section>")?;
+
+    if !report.drums.is_empty() {
+        let t = |x| esc(&quantity(x, Dimension::Torque, units));
+        writeln!(
+            w,
+            "<section id=\"drums\">\n<h2>Drum torques (forward)</h2>\n<div class=\"table-scroll\"><table class=\"data\"><thead><tr><th scope=\"col\">drum</th><th scope=\"col\" class=\"num\">rope</th><th scope=\"col\" class=\"num\">load</th><th scope=\"col\" class=\"num\">drag</th><th scope=\"col\" class=\"num\">journal</th><th scope=\"col\" class=\"num\">thrust</th><th scope=\"col\" class=\"num\">margin</th></tr></thead><tbody>"
+        )?;
+        for d in &report.drums {
+            writeln!(
+                w,
+                "<tr><td>{}</td><td class=\"num\">{}</td><td class=\"num\">{}</td><td class=\"num\">{}</td><td class=\"num\">{}</td><td class=\"num\">{}</td><td class=\"num\">{}</td></tr>",
+                esc(&d.name),
+                t(d.rope_torque_nm.forward),
+                t(d.load_torque_nm),
+                t(d.drag_nm),
+                t(d.journal_nm.forward),
+                t(d.thrust_nm),
+                t(d.margin_nm)
+            )?;
+        }
+        writeln!(w, "</tbody></table></div>\n</section>")?;
+    }
+
+    writeln!(w, "<section id=\"warnings\">\n<h2>Warnings</h2>")?;
+    if report.warnings.is_empty() {
+        writeln!(w, "<p>No warnings: every check passes.</p>")?;
+    } else {
+        writeln!(w, "<ul class=\"warnings\">")?;
+        for warning in &report.warnings {
+            let (class, tag) = if warning.fails {
+                ("fail", "FAIL")
+            } else {
+                ("warn", "warn")
+            };
+            writeln!(
+                w,
+                "<li><span class=\"tag {class}\">{tag}</span><code>{}</code>{} {}</li>",
+                esc(warning.code),
+                warning
+                    .part
+                    .as_deref()
+                    .map(|p| format!(" at <code>{}</code>:", esc(p)))
+                    .unwrap_or_else(|| ":".to_string()),
+                esc(&warning.message)
+            )?;
+        }
+        writeln!(w, "</ul>")?;
+    }
+    writeln!(w, "</section>")?;
+
+    writeln!(
+        w,
+        "<section id=\"methods\">\n<h2>Methods and sources</h2>\n<dl class=\"methods\">"
+    )?;
+    for (title, text) in METHODS {
+        writeln!(w, "<dt>{}</dt><dd>{}</dd>", esc(title), esc(text))?;
+    }
+    writeln!(w, "</dl>\n</section>")?;
+    writeln!(
+        w,
+        "<p class=\"caution\" id=\"caution\"><strong>{}</strong></p>",
+        esc(CAUTION)
+    )?;
+    writeln!(w, "</main>\n</body>\n</html>")
+}

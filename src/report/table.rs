@@ -1,0 +1,752 @@
+//! The drawing-set tables of `reeve table`: one span table (tension in every span) and
+//! one part table (wrap, fleet, D/d, tension ratio, pin load and loss share at every
+//! part), written as aligned text, Markdown, CSV or JSON.
+//!
+//! Text, Markdown and CSV show the rig file's own units, with the unit in every column
+//! header; JSON is SI with unit-suffixed keys. Rows follow the report's order (lines and
+//! spans in file order, parts in file order, a part's passages in line order), and
+//! numbers are formatted by [`super::text::number`], so the output is stable and can be
+//! compared byte for byte.
+
+use std::io::{self, Write};
+
+use serde::Serialize;
+
+use crate::math::Real;
+use crate::units::{Dimension, UnitSystem};
+
+use super::text::number;
+use super::{Report, CAUTION};
+
+/// Which cases the tables show (`--case`).
+#[derive(Debug, Clone, Copy, PartialEq, Eq, Default)]
+pub enum CaseFilter {
+    /// Ideal, forward and back.
+    #[default]
+    All,
+    /// No friction only.
+    Ideal,
+    /// Driving forward only.
+    Forward,
+    /// Running back only.
+    Back,
+}
+
+impl CaseFilter {
+    /// Lowercase name (`all`, `ideal`, `forward`, `back`).
+    pub fn name(self) -> &'static str {
+        match self {
+            CaseFilter::All => "all",
+            CaseFilter::Ideal => "ideal",
+            CaseFilter::Forward => "forward",
+            CaseFilter::Back => "back",
+        }
+    }
+    fn ideal(self) -> bool {
+        matches!(self, CaseFilter::All | CaseFilter::Ideal)
+    }
+    fn forward(self) -> bool {
+        matches!(self, CaseFilter::All | CaseFilter::Forward)
+    }
+    fn back(self) -> bool {
+        matches!(self, CaseFilter::All | CaseFilter::Back)
+    }
+}
+
+/// Which of the two tables to write (`--table`).
+#[derive(Debug, Clone, Copy, PartialEq, Eq, Default)]
+pub enum TableChoice {
+    /// The span table, then the part table.
+    #[default]
+    Both,
+    /// Spans only.
+    Spans,
+    /// Parts only.
+    Parts,
+}
+
+/// Who reads the table: a person (text, Markdown, HTML) or a program (CSV).
+#[derive(Debug, Clone, Copy, PartialEq, Eq, Default)]
+pub enum Style {
+    /// `from → to` in one column, degrees as `°`.
+    #[default]
+    Human,
+    /// ASCII headers (`deg`), `from` and `to` in columns of their own: what a
+    /// spreadsheet sorts and filters on, read correctly whatever its text encoding.
+    Data,
+}
+
+impl Style {
+    fn degrees(self) -> &'static str {
+        match self {
+            Style::Human => "°",
+            Style::Data => "deg",
+        }
+    }
+}
+
+/// Horizontal alignment of a column.
+#[derive(Debug, Clone, Copy, PartialEq, Eq)]
+pub enum Align {
+    /// Names.
+    Left,
+    /// Numbers.
+    Right,
+}
+
+/// One cell, kept as a value so each format can render it its own way.
+#[derive(Debug, Clone, PartialEq)]
+pub enum Cell {
+    /// Plain text (a name).
+    Text(String),
+    /// A number in display units with its significant figures; `None` is missing.
+    Number(Option<Real>, usize),
+    /// A unit direction; `None` is missing.
+    Direction(Option<[Real; 3]>),
+}
+
+/// Significant figures in CSV beyond those of the text table (a spreadsheet computes
+/// with the numbers, a person only reads them).
+const CSV_EXTRA_FIGURES: usize = 2;
+
+impl Cell {
+    /// The cell as a person reads it: `—` for a missing value.
+    pub fn text(&self) -> String {
+        match self {
+            Cell::Text(s) => s.clone(),
+            Cell::Number(x, sig) => clean_zero(number(*x, *sig)),
+            Cell::Direction(Some(d)) => direction(d),
+            Cell::Direction(None) => "—".to_string(),
+        }
+    }
+
+    /// The cell for a spreadsheet: more figures, empty when missing.
+    pub fn csv(&self) -> String {
+        match self {
+            Cell::Text(s) => s.clone(),
+            Cell::Number(None, _) | Cell::Direction(None) => String::new(),
+            Cell::Number(x, sig) => clean_zero(number(*x, sig + CSV_EXTRA_FIGURES)),
+            Cell::Direction(Some(d)) => direction(d),
+        }
+    }
+}
+
+/// Drops the sign of a number that rounds to zero (`-0.000` → `0.000`).
+fn clean_zero(s: String) -> String {
+    match s.strip_prefix('-') {
+        Some(rest) if rest.chars().all(|c| c == '0' || c == '.') => rest.to_string(),
+        _ => s,
+    }
+}
+
+/// A unit vector's component with three decimals, trailing zeros dropped.
+fn component(x: Real) -> String {
+    let s = format!("{x:.3}");
+    clean_zero(s.trim_end_matches('0').trim_end_matches('.').to_string())
+}
+
+/// A unit direction as `(x, y, z)`, components as [`component`].
+fn direction(d: &[Real; 3]) -> String {
+    format!(
+        "({}, {}, {})",
+        component(d[0]),
+        component(d[1]),
+        component(d[2])
+    )
+}
+
+/// A column: header (with its unit) and alignment.
+#[derive(Debug, Clone, PartialEq)]
+pub struct Column {
+    /// Header, unit included (`length (mm)`).
+    pub header: String,
+    /// Alignment.
+    pub align: Align,
+}
+
+/// A titled table of cells, ready for any writer.
+#[derive(Debug, Clone, PartialEq)]
+pub struct Table {
+    /// Title (`Spans`, `Parts`).
+    pub title: String,
+    /// Columns.
+    pub columns: Vec<Column>,
+    /// Rows, each as long as `columns`.
+    pub rows: Vec<Vec<Cell>>,
+}
+
+impl Table {
+    fn new(title: &str) -> Table {
+        Table {
+            title: title.to_string(),
+            columns: Vec::new(),
+            rows: Vec::new(),
+        }
+    }
+    fn column(&mut self, header: impl Into<String>, align: Align) {
+        self.columns.push(Column {
+            header: header.into(),
+            align,
+        });
+    }
+}
+
+/// Significant figures shown for lengths, forces and ratios.
+const FIGURES: usize = 4;
+
+fn in_units(x: Option<Real>, dimension: Dimension, units: &UnitSystem) -> Cell {
+    Cell::Number(x.map(|v| units.from_si(v, dimension)), FIGURES)
+}
+
+/// The span table: line, span index, from → to, length, tension per case, safety factor.
+pub fn span_table(report: &Report, units: &UnitSystem, cases: CaseFilter, style: Style) -> Table {
+    let (len, force) = (units.length.symbol, units.force.symbol);
+    let mut t = Table::new("Spans");
+    t.column("line", Align::Left);
+    t.column("span", Align::Right);
+    match style {
+        Style::Human => t.column("from → to", Align::Left),
+        Style::Data => {
+            t.column("from", Align::Left);
+            t.column("to", Align::Left);
+        }
+    }
+    t.column(format!("length ({len})"), Align::Right);
+    if cases.ideal() {
+        t.column(format!("tension ideal ({force})"), Align::Right);
+    }
+    if cases.forward() {
+        t.column(format!("tension forward ({force})"), Align::Right);
+    }
+    if cases.back() {
+        t.column(format!("tension back ({force})"), Align::Right);
+    }
+    t.column("safety factor", Align::Right);
+    for s in &report.spans {
+        let mut row = vec![Cell::Text(s.line.clone()), Cell::Text(s.index.to_string())];
+        match style {
+            Style::Human => row.push(Cell::Text(format!("{} → {}", s.from, s.to))),
+            Style::Data => {
+                row.push(Cell::Text(s.from.clone()));
+                row.push(Cell::Text(s.to.clone()));
+            }
+        }
+        row.push(in_units(s.length_m, Dimension::Length, units));
+        if cases.ideal() {
+            row.push(in_units(s.tension_n.ideal, Dimension::Force, units));
+        }
+        if cases.forward() {
+            row.push(in_units(s.tension_n.forward, Dimension::Force, units));
+        }
+        if cases.back() {
+            row.push(in_units(s.tension_n.back, Dimension::Force, units));
+        }
+        row.push(Cell::Number(s.safety_factor, 3));
+        t.rows.push(row);
+    }
+    t
+}
+
+/// The pin-load direction: one `(x, y, z)` column for a person, three numeric columns
+/// for a spreadsheet.
+fn direction_columns(t: &mut Table, case: &str, style: Style) {
+    match style {
+        Style::Human => t.column(format!("pin dir {case}"), Align::Left),
+        Style::Data => {
+            for axis in ["x", "y", "z"] {
+                t.column(format!("pin dir {case} {axis}"), Align::Right);
+            }
+        }
+    }
+}
+
+fn direction_cells(row: &mut Vec<Cell>, direction: Option<[Real; 3]>, style: Style) {
+    match style {
+        Style::Human => row.push(Cell::Direction(direction)),
+        Style::Data => {
+            for axis in 0..3 {
+                // Three decimals, as in the text table (a unit vector's components).
+                row.push(match direction {
+                    Some(d) => Cell::Text(component(d[axis])),
+                    None => Cell::Number(None, 3),
+                });
+            }
+        }
+    }
+}
+
+/// The part table: one row per passage of a line over a round part, one row for every
+/// other part; pin load magnitude and direction per case, loss share (forward case).
+pub fn part_table(report: &Report, units: &UnitSystem, cases: CaseFilter, style: Style) -> Table {
+    let deg = style.degrees();
+    let force = units.force.symbol;
+    let mut t = Table::new("Parts");
+    t.column("part", Align::Left);
+    t.column("kind", Align::Left);
+    t.column("line", Align::Left);
+    t.column(format!("wrap ({deg})"), Align::Right);
+    t.column(format!("fleet in ({deg})"), Align::Right);
+    t.column(format!("fleet out ({deg})"), Align::Right);
+    t.column("D/d", Align::Right);
+    if cases.forward() {
+        t.column("ratio forward", Align::Right);
+    }
+    if cases.back() {
+        t.column("ratio back", Align::Right);
+    }
+    if cases.ideal() {
+        t.column(format!("pin load ideal ({force})"), Align::Right);
+        direction_columns(&mut t, "ideal", style);
+    }
+    if cases.forward() {
+        t.column(format!("pin load forward ({force})"), Align::Right);
+        direction_columns(&mut t, "forward", style);
+    }
+    if cases.back() {
+        t.column(format!("pin load back ({force})"), Align::Right);
+        direction_columns(&mut t, "back", style);
+    }
+    if cases.forward() {
+        t.column("loss share (%)", Align::Right);
+    }
+    for p in &report.parts {
+        let part_cells = |row: &mut Vec<Cell>| {
+            if cases.ideal() {
+                row.push(in_units(p.pin_load_ideal_n, Dimension::Force, units));
+                direction_cells(row, p.pin_load_direction_ideal, style);
+            }
+            if cases.forward() {
+                row.push(in_units(p.pin_load_n.forward, Dimension::Force, units));
+                direction_cells(row, p.pin_load_direction.forward, style);
+            }
+            if cases.back() {
+                row.push(in_units(p.pin_load_n.back, Dimension::Force, units));
+                direction_cells(row, p.pin_load_direction.back, style);
+            }
+            if cases.forward() {
+                row.push(Cell::Number(p.loss_share.map(|s| s * 100.0), 3));
+            }
+        };
+        if p.passages.is_empty() {
+            let mut row = vec![
+                Cell::Text(p.name.clone()),
+                Cell::Text(p.kind.to_string()),
+                Cell::Text(String::new()),
+                Cell::Number(None, FIGURES),
+                Cell::Number(None, FIGURES),
+                Cell::Number(None, FIGURES),
+                Cell::Number(None, FIGURES),
+            ];
+            if cases.forward() {
+                row.push(Cell::Number(None, FIGURES));
+            }
+            if cases.back() {
+                row.push(Cell::Number(None, FIGURES));
+            }
+            part_cells(&mut row);
+            t.rows.push(row);
+        }
+        for pass in &p.passages {
+            let mut row = vec![
+                Cell::Text(p.name.clone()),
+                Cell::Text(p.kind.to_string()),
+                Cell::Text(pass.line.clone()),
+                Cell::Number(pass.wrap_deg, FIGURES),
+                Cell::Number(pass.fleet_in_deg, 3),
+                Cell::Number(pass.fleet_out_deg, 3),
+                Cell::Number(pass.bend_ratio, 3),
+            ];
+            if cases.forward() {
+                row.push(Cell::Number(pass.tension_ratio.forward, 5));
+            }
+            if cases.back() {
+                row.push(Cell::Number(pass.tension_ratio.back, 5));
+            }
+            part_cells(&mut row);
+            t.rows.push(row);
+        }
+    }
+    t
+}
+
+/// The tables asked for, in order.
+pub fn tables(
+    report: &Report,
+    units: &UnitSystem,
+    cases: CaseFilter,
+    choice: TableChoice,
+    style: Style,
+) -> Vec<Table> {
+    let mut out = Vec::new();
+    if choice != TableChoice::Parts {
+        out.push(span_table(report, units, cases, style));
+    }
+    if choice != TableChoice::Spans {
+        out.push(part_table(report, units, cases, style));
+    }
+    out
+}
+
+/// Display width of a cell (characters, not bytes: `→` and `—` are one column).
+fn width(s: &str) -> usize {
+    s.chars().count()
+}
+
+fn pad(s: &str, w: usize, align: Align) -> String {
+    let fill = " ".repeat(w.saturating_sub(width(s)));
+    match align {
+        Align::Left => format!("{s}{fill}"),
+        Align::Right => format!("{fill}{s}"),
+    }
+}
+
+/// Writes one table as aligned plain text: title, header, rule, rows.
+pub fn write_text_table(w: &mut dyn Write, table: &Table) -> io::Result<()> {
+    let cells: Vec<Vec<String>> = table
+        .rows
+        .iter()
+        .map(|r| r.iter().map(Cell::text).collect())
+        .collect();
+    let widths: Vec<usize> = table
+        .columns
+        .iter()
+        .enumerate()
+        .map(|(i, c)| {
+            cells
+                .iter()
+                .filter_map(|r| r.get(i))
+                .map(|s| width(s))
+                .chain([width(&c.header)])
+                .max()
+                .unwrap_or(0)
+        })
+        .collect();
+    let line = |parts: Vec<String>| parts.join("  ").trim_end().to_string();
+    writeln!(w, "{}", table.title)?;
+    writeln!(
+        w,
+        "{}",
+        line(
+            table
+                .columns
+                .iter()
+                .zip(&widths)
+                .map(|(c, &n)| pad(&c.header, n, c.align))
+                .collect()
+        )
+    )?;
+    writeln!(
+        w,
+        "{}",
+        line(widths.iter().map(|&n| "-".repeat(n)).collect())
+    )?;
+    for row in &cells {
+        writeln!(
+            w,
+            "{}",
+            line(
+                row.iter()
+                    .zip(&table.columns)
+                    .zip(&widths)
+                    .map(|((s, c), &n)| pad(s, n, c.align))
+                    .collect()
+            )
+        )?;
+    }
+    Ok(())
+}
+
+/// Writes the tables as plain text, with a heading naming the rig and the units, and
+/// the caution at the end.
+pub fn write_text(
+    w: &mut dyn Write,
+    report: &Report,
+    units: &UnitSystem,
+    tables: &[Table],
+) -> io::Result<()> {
+    writeln!(w, "{}", report.title)?;
+    writeln!(w, "Units: {}", units_line(units))?;
+    for t in tables {
+        writeln!(w)?;
+        write_text_table(w, t)?;
+    }
+    writeln!(w)?;
+    writeln!(w, "{CAUTION}")
+}
+
+/// `length mm, force kN, mass kg, torque N*m`.
+pub fn units_line(units: &UnitSystem) -> String {
+    format!(
+        "length {}, force {}, mass {}, torque {}",
+        units.length, units.force, units.mass, units.torque
+    )
+}
+
+fn markdown_cell(s: &str) -> String {
+    s.replace('\\', "\\\\").replace('|', "\\|")
+}
+
+/// Writes the tables as GitHub-flavoured Markdown, ending with the caution.
+pub fn write_markdown(
+    w: &mut dyn Write,
+    report: &Report,
+    units: &UnitSystem,
+    tables: &[Table],
+) -> io::Result<()> {
+    writeln!(w, "# {}", markdown_cell(&report.title))?;
+    writeln!(w)?;
+    writeln!(w, "Units: {}.", units_line(units))?;
+    for t in tables {
+        writeln!(w)?;
+        writeln!(w, "## {}", t.title)?;
+        writeln!(w)?;
+        let header: Vec<String> = t.columns.iter().map(|c| markdown_cell(&c.header)).collect();
+        writeln!(w, "| {} |", header.join(" | "))?;
+        let rule: Vec<&str> = t
+            .columns
+            .iter()
+            .map(|c| match c.align {
+                Align::Left => ":---",
+                Align::Right => "---:",
+            })
+            .collect();
+        writeln!(w, "| {} |", rule.join(" | "))?;
+        for row in &t.rows {
+            let cells: Vec<String> = row.iter().map(|c| markdown_cell(&c.text())).collect();
+            writeln!(w, "| {} |", cells.join(" | "))?;
+        }
+    }
+    writeln!(w)?;
+    writeln!(w, "_{CAUTION}_")
+}
+
+/// Quotes a CSV field where RFC 4180 needs it (comma, quote, line break, or leading or
+/// trailing space), doubling inner quotes.
+pub fn csv_field(s: &str) -> String {
+    if s.contains([',', '"', '\n', '\r']) || s.starts_with(' ') || s.ends_with(' ') {
+        format!("\"{}\"", s.replace('"', "\"\""))
+    } else {
+        s.to_string()
+    }
+}
+
+/// Writes one table as CSV: one header row, then the rows; CRLF line ends (RFC 4180),
+/// which every spreadsheet reads.
+pub fn write_csv(w: &mut dyn Write, table: &Table) -> io::Result<()> {
+    let header: Vec<String> = table.columns.iter().map(|c| csv_field(&c.header)).collect();
+    write!(w, "{}\r\n", header.join(","))?;
+    for row in &table.rows {
+        let cells: Vec<String> = row.iter().map(|c| csv_field(&c.csv())).collect();
+        write!(w, "{}\r\n", cells.join(","))?;
+    }
+    Ok(())
+}
+
+/// Per-case values, present only for the cases asked for; a present `None` is `null`.
+#[derive(Debug, Clone, Serialize, PartialEq)]
+pub struct CasesJson<T> {
+    /// No friction.
+    #[serde(skip_serializing_if = "Option::is_none")]
+    pub ideal: Option<Option<T>>,
+    /// Driving forward.
+    #[serde(skip_serializing_if = "Option::is_none")]
+    pub forward: Option<Option<T>>,
+    /// Running back.
+    #[serde(skip_serializing_if = "Option::is_none")]
+    pub back: Option<Option<T>>,
+}
+
+impl<T> CasesJson<T> {
+    fn new(cases: CaseFilter, ideal: Option<T>, forward: Option<T>, back: Option<T>) -> Self {
+        CasesJson {
+            ideal: cases.ideal().then_some(ideal),
+            forward: cases.forward().then_some(forward),
+            back: cases.back().then_some(back),
+        }
+    }
+}
+
+/// A span row of the JSON table (SI).
+#[derive(Debug, Clone, Serialize, PartialEq)]
+pub struct SpanJson {
+    /// Line name.
+    pub line: String,
+    /// Span index along the line, from 0.
+    pub span: usize,
+    /// Part it leaves.
+    pub from: String,
+    /// Part it reaches.
+    pub to: String,
+    /// Length, m.
+    pub length_m: Option<Real>,
+    /// Tension per case, N.
+    pub tension_n: CasesJson<Real>,
+    /// Breaking strength over the larger of the forward and back tensions.
+    pub safety_factor: Option<Real>,
+}
+
+/// A part row of the JSON table (SI, angles in degrees).
+#[derive(Debug, Clone, Serialize, PartialEq)]
+pub struct PartJson {
+    /// Part name.
+    pub part: String,
+    /// Kind as written.
+    pub kind: String,
+    /// Line of this passage (absent for a part without passages).
+    pub line: Option<String>,
+    /// Wrap, degrees.
+    pub wrap_deg: Option<Real>,
+    /// Fleet angle of the arriving span, degrees.
+    pub fleet_in_deg: Option<Real>,
+    /// Fleet angle of the leaving span, degrees.
+    pub fleet_out_deg: Option<Real>,
+    /// Tread diameter over rope diameter.
+    pub bend_ratio: Option<Real>,
+    /// Tight over slack tension (forward and back only; 1 without friction).
+    pub tension_ratio: CasesJson<Real>,
+    /// Resultant load magnitude, N.
+    pub pin_load_n: CasesJson<Real>,
+    /// Unit direction of the resultant load.
+    pub pin_load_direction: CasesJson<[Real; 3]>,
+    /// Share of all losses at this part, forward case (0 to 1).
+    #[serde(skip_serializing_if = "Option::is_none")]
+    pub loss_share: Option<Option<Real>>,
+}
+
+/// The JSON document of `reeve table --format json`.
+#[derive(Debug, Clone, Serialize, PartialEq)]
+pub struct TablesJson {
+    /// Format version of the rig file.
+    pub format: u32,
+    /// Rig title.
+    pub title: String,
+    /// Which cases the columns show.
+    pub cases: &'static str,
+    /// The span table (absent when only parts were asked for).
+    #[serde(skip_serializing_if = "Option::is_none")]
+    pub spans: Option<Vec<SpanJson>>,
+    /// The part table (absent when only spans were asked for).
+    #[serde(skip_serializing_if = "Option::is_none")]
+    pub parts: Option<Vec<PartJson>>,
+}
+
+/// Builds the JSON tables (SI) from the report.
+pub fn tables_json(report: &Report, cases: CaseFilter, choice: TableChoice) -> TablesJson {
+    let spans = (choice != TableChoice::Parts).then(|| {
+        report
+            .spans
+            .iter()
+            .map(|s| SpanJson {
+                line: s.line.clone(),
+                span: s.index,
+                from: s.from.clone(),
+                to: s.to.clone(),
+                length_m: s.length_m,
+                tension_n: CasesJson::new(
+                    cases,
+                    s.tension_n.ideal,
+                    s.tension_n.forward,
+                    s.tension_n.back,
+                ),
+                safety_factor: s.safety_factor,
+            })
+            .collect()
+    });
+    let parts = (choice != TableChoice::Spans).then(|| {
+        let mut rows = Vec::new();
+        for p in &report.parts {
+            let pins = CasesJson::new(
+                cases,
+                p.pin_load_ideal_n,
+                p.pin_load_n.forward,
+                p.pin_load_n.back,
+            );
+            let dirs = CasesJson::new(
+                cases,
+                p.pin_load_direction_ideal,
+                p.pin_load_direction.forward,
+                p.pin_load_direction.back,
+            );
+            let loss = cases.forward().then_some(p.loss_share);
+            if p.passages.is_empty() {
+                rows.push(PartJson {
+                    part: p.name.clone(),
+                    kind: p.kind.to_string(),
+                    line: None,
+                    wrap_deg: None,
+                    fleet_in_deg: None,
+                    fleet_out_deg: None,
+                    bend_ratio: None,
+                    tension_ratio: CasesJson::new(cases, None, None, None),
+                    pin_load_n: pins.clone(),
+                    pin_load_direction: dirs.clone(),
+                    loss_share: loss,
+                });
+            }
+            for pass in &p.passages {
+                rows.push(PartJson {
+                    part: p.name.clone(),
+                    kind: p.kind.to_string(),
+                    line: Some(pass.line.clone()),
+                    wrap_deg: pass.wrap_deg,
+                    fleet_in_deg: pass.fleet_in_deg,
+                    fleet_out_deg: pass.fleet_out_deg,
+                    bend_ratio: pass.bend_ratio,
+                    tension_ratio: CasesJson::new(
+                        cases,
+                        Some(1.0),
+                        pass.tension_ratio.forward,
+                        pass.tension_ratio.back,
+                    ),
+                    pin_load_n: pins.clone(),
+                    pin_load_direction: dirs.clone(),
+                    loss_share: loss,
+                });
+            }
+        }
+        rows
+    });
+    TablesJson {
+        format: report.format,
+        title: report.title.clone(),
+        cases: cases.name(),
+        spans,
+        parts,
+    }
+}
+
+#[cfg(test)]
+mod tests {
+    use super::*;
+
+    #[test]
+    fn csv_quotes_only_where_needed() {
+        assert_eq!(csv_field("fall"), "fall");
+        assert_eq!(csv_field("a, b"), "\"a, b\"");
+        assert_eq!(csv_field("say \"hi\""), "\"say \"\"hi\"\"\"");
+        assert_eq!(csv_field(" lead"), "\" lead\"");
+    }
+
+    #[test]
+    fn negative_zero_loses_its_sign() {
+        assert_eq!(direction(&[-0.0, -0.0001, 1.0]), "(0, 0, 1)");
+        assert_eq!(direction(&[0.0104, -0.5, -0.866]), "(0.01, -0.5, -0.866)");
+        assert_eq!(Cell::Number(Some(-1e-12), 3).text(), "-1.00e-12");
+        assert_eq!(Cell::Number(None, 3).csv(), "");
+    }
+
+    #[test]
+    fn text_columns_align_by_characters() {
+        let mut t = Table::new("T");
+        t.column("a", Align::Left);
+        t.column("n", Align::Right);
+        t.rows
+            .push(vec![Cell::Text("x → y".into()), Cell::Number(Some(1.5), 2)]);
+        t.rows
+            .push(vec![Cell::Text("z".into()), Cell::Number(None, 2)]);
+        let mut out = Vec::new();
+        write_text_table(&mut out, &t).unwrap();
+        let s = String::from_utf8(out).unwrap();
+        assert_eq!(s, "T\na        n\n-----  ---\nx → y  1.5\nz        —\n");
+    }
+}

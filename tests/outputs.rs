@@ -1,0 +1,717 @@
+//! The drawing-set outputs, through the real `reeve` binary: golden text, Markdown and
+//! CSV tables; CSV and JSON parsed back; the SVG parsed as XML and rendered to pixels;
+//! the HTML report opened in headless Chromium; atomic writes and the refusal to write
+//! over the input rig.
+//!
+//! Golden files live in `tests/golden/`; `REEVE_BLESS=1 cargo test --test outputs`
+//! rewrites them. These are format tests, not physics tests: the numbers in the golden
+//! files are whatever the solver computes, checked elsewhere against their sources.
+
+use std::collections::BTreeSet;
+use std::fs;
+use std::path::{Path, PathBuf};
+use std::process::{Command, Output, Stdio};
+use std::sync::atomic::{AtomicU32, Ordering};
+use std::time::{Duration, Instant};
+
+use serde::Deserialize;
+
+const BIN: &str = env!("CARGO_BIN_EXE_reeve");
+const ROOT: &str = env!("CARGO_MANIFEST_DIR");
+
+fn rig(name: &str) -> PathBuf {
+    Path::new(ROOT).join("rigs").join(format!("{name}.yaml"))
+}
+
+fn reeve(args: &[&str]) -> Output {
+    Command::new(BIN)
+        .args(args)
+        .current_dir(ROOT)
+        .env("SOURCE_DATE_EPOCH", "1767225600") // 2026-01-01, for stable dates
+        .output()
+        .expect("run reeve")
+}
+
+fn stdout_of(args: &[&str]) -> String {
+    let out = reeve(args);
+    assert!(
+        out.status.success(),
+        "reeve {args:?} failed ({}): {}",
+        out.status,
+        String::from_utf8_lossy(&out.stderr)
+    );
+    String::from_utf8(out.stdout).expect("utf-8 output")
+}
+
+/// A fresh empty folder under the system's temporary folder.
+fn scratch(tag: &str) -> PathBuf {
+    static N: AtomicU32 = AtomicU32::new(0);
+    let dir = std::env::temp_dir().join(format!(
+        "reeve-outputs-{tag}-{}-{}",
+        std::process::id(),
+        N.fetch_add(1, Ordering::Relaxed)
+    ));
+    let _ = fs::remove_dir_all(&dir);
+    fs::create_dir_all(&dir).expect("scratch folder");
+    dir
+}
+
+/// A line diff (longest common subsequence), `-` expected, `+` actual, with a little
+/// context, for readable golden mismatches.
+fn diff(expected: &str, actual: &str) -> String {
+    let a: Vec<&str> = expected.lines().collect();
+    let b: Vec<&str> = actual.lines().collect();
+    let (n, m) = (a.len(), b.len());
+    let mut lcs = vec![vec![0usize; m + 1]; n + 1];
+    for i in (0..n).rev() {
+        for j in (0..m).rev() {
+            lcs[i][j] = if a[i] == b[j] {
+                lcs[i + 1][j + 1] + 1
+            } else {
+                lcs[i + 1][j].max(lcs[i][j + 1])
+            };
+        }
+    }
+    let mut ops = Vec::new();
+    let (mut i, mut j) = (0, 0);
+    while i < n || j < m {
+        if i < n && j < m && a[i] == b[j] {
+            ops.push((' ', a[i], i + 1));
+            i += 1;
+            j += 1;
+        } else if i < n && (j == m || lcs[i + 1][j] >= lcs[i][j + 1]) {
+            ops.push(('-', a[i], i + 1));
+            i += 1;
+        } else {
+            ops.push(('+', b[j], j + 1));
+            j += 1;
+        }
+    }
+    let changed: Vec<usize> = (0..ops.len()).filter(|&k| ops[k].0 != ' ').collect();
+    let mut out = String::new();
+    for (k, (op, text, line)) in ops.iter().enumerate() {
+        if changed.iter().any(|&c| c.abs_diff(k) <= 2) {
+            out.push_str(&format!("{op} {line:>4} | {text}\n"));
+        }
+    }
+    out
+}
+
+/// Compares `actual` with the golden file, or rewrites it when `REEVE_BLESS=1`.
+fn golden(name: &str, actual: &str) {
+    let path = Path::new(ROOT).join("tests/golden").join(name);
+    if std::env::var("REEVE_BLESS").as_deref() == Ok("1") {
+        fs::create_dir_all(path.parent().unwrap()).unwrap();
+        fs::write(&path, actual).unwrap();
+        return;
+    }
+    let expected = fs::read_to_string(&path).unwrap_or_else(|_| {
+        panic!(
+            "golden file {} is missing; run `REEVE_BLESS=1 cargo test --test outputs` to create it",
+            path.display()
+        )
+    });
+    if expected != actual {
+        panic!(
+            "{name} differs from its golden file (- golden, + now); if the change is meant, \
+rerun with REEVE_BLESS=1:\n{}",
+            diff(&expected, actual)
+        );
+    }
+}
+
+const GOLDEN_RIGS: [&str; 2] = ["workshop-hoist", "sash-window"];
+
+#[test]
+fn golden_text_tables() {
+    for name in GOLDEN_RIGS {
+        let r = rig(name);
+        let out = stdout_of(&["table", r.to_str().unwrap()]);
+        assert!(out.trim_end().ends_with(reeve::report::CAUTION));
+        golden(&format!("{name}.table.txt"), &out);
+        let out = stdout_of(&["table", r.to_str().unwrap(), "--case", "forward"]);
+        golden(&format!("{name}.table-forward.txt"), &out);
+    }
+}
+
+#[test]
+fn golden_markdown_tables() {
+    for name in GOLDEN_RIGS {
+        let r = rig(name);
+        let out = stdout_of(&["table", r.to_str().unwrap(), "--format", "md"]);
+        assert!(out.contains(reeve::report::CAUTION));
+        golden(&format!("{name}.table.md"), &out);
+    }
+}
+
+#[test]
+fn golden_csv_tables() {
+    for name in GOLDEN_RIGS {
+        let r = rig(name);
+        for table in ["spans", "parts"] {
+            let out = stdout_of(&[
+                "table",
+                r.to_str().unwrap(),
+                "--format",
+                "csv",
+                "--table",
+                table,
+            ]);
+            golden(&format!("{name}.{table}.csv"), &out);
+        }
+    }
+}
+
+/// The JSON table as a reader outside the project would declare it.
+#[derive(Debug, Deserialize)]
+#[serde(deny_unknown_fields)]
+struct TablesIn {
+    format: u32,
+    title: String,
+    cases: String,
+    spans: Option<Vec<SpanIn>>,
+    parts: Option<Vec<PartIn>>,
+}
+
+#[derive(Debug, Deserialize)]
+#[serde(deny_unknown_fields)]
+struct CasesIn<T> {
+    ideal: Option<Option<T>>,
+    forward: Option<Option<T>>,
+    back: Option<Option<T>>,
+}
+
+#[derive(Debug, Deserialize)]
+#[serde(deny_unknown_fields)]
+struct SpanIn {
+    line: String,
+    span: usize,
+    from: String,
+    to: String,
+    length_m: Option<f64>,
+    tension_n: CasesIn<f64>,
+    safety_factor: Option<f64>,
+}
+
+#[derive(Debug, Deserialize)]
+#[serde(deny_unknown_fields)]
+struct PartIn {
+    part: String,
+    kind: String,
+    line: Option<String>,
+    wrap_deg: Option<f64>,
+    fleet_in_deg: Option<f64>,
+    fleet_out_deg: Option<f64>,
+    bend_ratio: Option<f64>,
+    tension_ratio: CasesIn<f64>,
+    pin_load_n: CasesIn<f64>,
+    pin_load_direction: CasesIn<[f64; 3]>,
+    loss_share: Option<Option<f64>>,
+}
+
+#[test]
+fn json_tables_parse_back_in_si() {
+    let r = rig("workshop-hoist");
+    let all: TablesIn = serde_json::from_str(&stdout_of(&[
+        "table",
+        r.to_str().unwrap(),
+        "--format",
+        "json",
+    ]))
+    .expect("JSON parses into the reader's structs");
+    assert_eq!(all.format, 1);
+    assert_eq!(all.cases, "all");
+    assert!(all.title.contains("hoist"));
+    let spans = all.spans.expect("spans");
+    assert_eq!(spans.len(), 5);
+    assert_eq!(
+        (
+            spans[0].line.as_str(),
+            spans[0].span,
+            spans[0].from.as_str()
+        ),
+        ("fall", 0, "becket")
+    );
+    assert_eq!(spans[4].to, "winch");
+    // SI: lengths in metres, tensions in newtons (the file uses mm and kN).
+    let last = &spans[4];
+    assert!((last.length_m.unwrap() - 2.7).abs() < 1e-9, "{last:?}");
+    let forward = last.tension_n.forward.flatten().unwrap();
+    assert!(forward > 1000.0 && forward < 5000.0, "{forward} N");
+    assert!(last.tension_n.ideal.is_some() && last.tension_n.back.is_some());
+    assert!(last.safety_factor.unwrap() > 1.0);
+    // The same numbers as `check --json` (one report behind both).
+    let check: serde_json::Value =
+        serde_json::from_str(&stdout_of(&["check", r.to_str().unwrap(), "--json"])).unwrap();
+    let check_forward = check["spans"][4]["tension_n"]["forward"].as_f64().unwrap();
+    assert_eq!(forward, check_forward);
+    let parts = all.parts.expect("parts");
+    let sheave = parts.iter().find(|p| p.part == "upper.b").unwrap();
+    assert_eq!(sheave.kind, "sheave");
+    assert_eq!(sheave.line.as_deref(), Some("fall"));
+    assert!((sheave.wrap_deg.unwrap() - 180.0).abs() < 1e-6);
+    assert!(sheave.fleet_in_deg.is_some() && sheave.fleet_out_deg.is_some());
+    assert!(sheave.bend_ratio.unwrap() > 20.0);
+    // Rated sheave, K = 1.04 at 180° (the rig file): forward ratio K.
+    assert!((sheave.tension_ratio.forward.flatten().unwrap() - 1.04).abs() < 1e-9);
+    let dir = sheave.pin_load_direction.forward.flatten().unwrap();
+    let norm = dir.iter().map(|x| x * x).sum::<f64>().sqrt();
+    assert!((norm - 1.0).abs() < 1e-9);
+    assert!(sheave.pin_load_n.back.flatten().unwrap() > 0.0);
+    assert!(sheave.loss_share.flatten().unwrap() > 0.0);
+
+    // --case back narrows every per-case field to `back`.
+    let back: TablesIn = serde_json::from_str(&stdout_of(&[
+        "table",
+        r.to_str().unwrap(),
+        "--format",
+        "json",
+        "--case",
+        "back",
+        "--table",
+        "spans",
+    ]))
+    .unwrap();
+    assert!(back.parts.is_none());
+    let s = &back.spans.unwrap()[0];
+    assert!(s.tension_n.ideal.is_none() && s.tension_n.forward.is_none());
+    assert!(s.tension_n.back.is_some());
+}
+
+#[test]
+fn csv_parses_back_and_matches_json() {
+    for name in GOLDEN_RIGS {
+        let r = rig(name);
+        let csv_text = stdout_of(&["table", r.to_str().unwrap(), "--format", "csv"]);
+        let mut reader = csv::Reader::from_reader(csv_text.as_bytes());
+        let headers = reader.headers().expect("one header row").clone();
+        assert_eq!(&headers[0], "line");
+        let forward_col = headers
+            .iter()
+            .position(|h| h.starts_with("tension forward ("))
+            .expect("forward tension column");
+        // The unit is in the header: convert back to SI and compare with the JSON.
+        let unit = &headers[forward_col]["tension forward (".len()..headers[forward_col].len() - 1];
+        let factor = match unit {
+            "N" => 1.0,
+            "kN" => 1000.0,
+            other => panic!("unexpected unit {other}"),
+        };
+        let json: TablesIn = serde_json::from_str(&stdout_of(&[
+            "table",
+            r.to_str().unwrap(),
+            "--format",
+            "json",
+        ]))
+        .unwrap();
+        let spans = json.spans.unwrap();
+        let rows: Vec<csv::StringRecord> = reader.records().map(|r| r.unwrap()).collect();
+        assert_eq!(rows.len(), spans.len());
+        for (row, span) in rows.iter().zip(&spans) {
+            assert_eq!(row.len(), headers.len());
+            assert_eq!(&row[0], span.line);
+            let csv_value: f64 = row[forward_col].parse().expect("a plain number");
+            let si = span.tension_n.forward.flatten().unwrap();
+            // CSV carries 6 significant figures.
+            assert!(
+                (csv_value * factor - si).abs() <= 1e-5 * si.abs(),
+                "{name}: {csv_value} {unit} vs {si} N"
+            );
+        }
+        // The part table: the pin direction in three numeric columns, a unit vector.
+        let parts_csv = stdout_of(&[
+            "table",
+            r.to_str().unwrap(),
+            "--format",
+            "csv",
+            "--table",
+            "parts",
+        ]);
+        assert!(
+            parts_csv.is_ascii() || name != "workshop-hoist",
+            "ASCII headers"
+        );
+        let mut reader = csv::Reader::from_reader(parts_csv.as_bytes());
+        let headers = reader.headers().unwrap().clone();
+        let col = |h: &str| headers.iter().position(|x| x == h).unwrap();
+        let (x, y, z) = (
+            col("pin dir forward x"),
+            col("pin dir forward y"),
+            col("pin dir forward z"),
+        );
+        let mut directions = 0;
+        for row in reader.records() {
+            let row = row.unwrap();
+            assert_eq!(row.len(), headers.len());
+            if row[x].is_empty() {
+                continue;
+            }
+            let v: Vec<f64> = [x, y, z].iter().map(|&i| row[i].parse().unwrap()).collect();
+            let norm = v.iter().map(|c| c * c).sum::<f64>().sqrt();
+            // Three decimals per component.
+            assert!((norm - 1.0).abs() < 3e-3, "{name}: {v:?}");
+            directions += 1;
+        }
+        assert!(directions > 0);
+    }
+    // CSV holds one table: asking for both is refused with a hint.
+    let out = reeve(&[
+        "table",
+        rig("sash-window").to_str().unwrap(),
+        "--format",
+        "csv",
+        "--table",
+        "both",
+    ]);
+    assert_eq!(out.status.code(), Some(2));
+    assert!(String::from_utf8_lossy(&out.stderr).contains("--table spans"));
+}
+
+/// Elements of a parsed SVG with this exact class.
+fn with_class<'a>(doc: &'a roxmltree::Document, class: &str) -> Vec<roxmltree::Node<'a, 'a>> {
+    doc.descendants()
+        .filter(|n| n.attribute("class") == Some(class))
+        .collect()
+}
+
+#[test]
+fn svg_is_xml_with_one_element_per_span_and_part_and_renders() {
+    for name in ["workshop-hoist", "sash-window", "rescue-haul"] {
+        let r = rig(name);
+        let check: serde_json::Value =
+            serde_json::from_str(&stdout_of(&["check", r.to_str().unwrap(), "--json"])).unwrap();
+        let span_count = check["spans"].as_array().unwrap().len();
+        let part_names: BTreeSet<String> = check["parts"]
+            .as_array()
+            .unwrap()
+            .iter()
+            .map(|p| p["name"].as_str().unwrap().to_string())
+            .collect();
+        for view in ["front", "side", "top", "iso"] {
+            let svg = stdout_of(&["draw", r.to_str().unwrap(), "-o", "-", "--view", view]);
+            let doc = roxmltree::Document::parse(&svg)
+                .unwrap_or_else(|e| panic!("{name} {view}: not XML: {e}"));
+            assert_eq!(doc.root_element().attribute("data-view"), Some(view));
+            let spans = with_class(&doc, "span");
+            assert_eq!(spans.len(), span_count, "{name} {view}");
+            for s in &spans {
+                assert!(s.attribute("data-line").is_some() && s.attribute("data-span").is_some());
+                let t: f64 = s
+                    .attribute("data-tension-forward-n")
+                    .unwrap()
+                    .parse()
+                    .unwrap();
+                assert!(t.is_finite());
+            }
+            let parts: BTreeSet<String> = with_class(&doc, "part")
+                .iter()
+                .map(|p| p.attribute("data-part").unwrap().to_string())
+                .collect();
+            assert_eq!(parts, part_names, "{name} {view}");
+            assert_eq!(with_class(&doc, "part").len(), part_names.len());
+            assert!(svg.contains(&reeve::report::CAUTION[..40]));
+            assert!(svg.contains("2026-01-01"), "title block date");
+            assert!(
+                !svg.contains("NaN") && !svg.contains("=\"inf") && !svg.contains("=\"-inf"),
+                "{name} {view}"
+            );
+            if view == "front" {
+                assert_not_blank(&svg, name);
+            }
+        }
+        // Without --view, the default is one of the orthographic views.
+        let svg = stdout_of(&["draw", r.to_str().unwrap(), "-o", "-"]);
+        let doc = roxmltree::Document::parse(&svg).unwrap();
+        assert!(matches!(
+            doc.root_element().attribute("data-view"),
+            Some("front" | "side" | "top")
+        ));
+    }
+}
+
+/// Renders the SVG with resvg and checks that something other than the white sheet
+/// was drawn inside the frame.
+fn assert_not_blank(svg: &str, name: &str) {
+    use resvg::{tiny_skia, usvg};
+    let tree = usvg::Tree::from_str(svg, &usvg::Options::default()).expect("usvg parses");
+    let size = tree.size().to_int_size();
+    let mut pixmap = tiny_skia::Pixmap::new(size.width(), size.height()).unwrap();
+    resvg::render(&tree, tiny_skia::Transform::default(), &mut pixmap.as_mut());
+    let background = pixmap.pixel(size.width() / 2, 2).unwrap();
+    let differing = pixmap
+        .pixels()
+        .iter()
+        .filter(|p| {
+            (p.red(), p.green(), p.blue())
+                != (background.red(), background.green(), background.blue())
+        })
+        .count();
+    let total = pixmap.pixels().len();
+    assert!(
+        differing > total / 500,
+        "{name}: the drawing looks blank ({differing} of {total} pixels differ)"
+    );
+    // Span colours of the tension scale appear (not only black outlines).
+    let coloured = pixmap
+        .pixels()
+        .iter()
+        .filter(|p| {
+            let (r, g, b) = (p.red() as i32, p.green() as i32, p.blue() as i32);
+            (r - g).abs() > 40 || (g - b).abs() > 40 || (r - b).abs() > 40
+        })
+        .count();
+    assert!(
+        coloured > 50,
+        "{name}: no coloured spans drawn ({coloured})"
+    );
+}
+
+/// The headless browser, if one is installed.
+fn browser() -> Option<PathBuf> {
+    for name in [
+        "chromium",
+        "chromium-browser",
+        "google-chrome",
+        "google-chrome-stable",
+    ] {
+        if let Some(path) = std::env::var_os("PATH").and_then(|paths| {
+            std::env::split_paths(&paths)
+                .map(|d| d.join(name))
+                .find(|p| p.is_file())
+        }) {
+            return Some(path);
+        }
+    }
+    None
+}
+
+/// Runs a command with a deadline; returns its stdout.
+fn run_with_deadline(mut cmd: Command, deadline: Duration) -> String {
+    let mut child = cmd
+        .stdout(Stdio::piped())
+        .stderr(Stdio::null())
+        .spawn()
+        .expect("start the browser");
+    let mut stdout = child.stdout.take().unwrap();
+    let reader = std::thread::spawn(move || {
+        let mut s = String::new();
+        let _ = std::io::Read::read_to_string(&mut stdout, &mut s);
+        s
+    });
+    let start = Instant::now();
+    loop {
+        if child.try_wait().unwrap().is_some() {
+            break;
+        }
+        if start.elapsed() > deadline {
+            let _ = child.kill();
+            let _ = child.wait();
+            panic!("the browser did not finish within {deadline:?}");
+        }
+        std::thread::sleep(Duration::from_millis(100));
+    }
+    reader.join().unwrap()
+}
+
+#[test]
+fn html_report_renders_in_a_headless_browser() {
+    let dir = scratch("html");
+    let html = dir.join("report.html");
+    let r = rig("workshop-hoist");
+    let out = reeve(&["report", r.to_str().unwrap(), "-o", html.to_str().unwrap()]);
+    assert!(
+        out.status.success(),
+        "{}",
+        String::from_utf8_lossy(&out.stderr)
+    );
+    let text = fs::read_to_string(&html).unwrap();
+    // Self-contained: no scripts, no external resources.
+    assert!(!text.contains("<script"), "no scripts");
+    assert!(
+        !text.contains("http://")
+            || text.matches("http://").count()
+                == text.matches("http://www.w3.org/2000/svg").count()
+    );
+    assert!(!text.contains("https://"), "no network resources");
+    assert!(text.contains("name=\"viewport\""));
+    assert!(text.contains("@media print"));
+    assert!(text.contains(reeve::report::CAUTION));
+
+    let Some(browser) = browser() else {
+        if std::env::var("REEVE_REQUIRE_BROWSER").as_deref() == Ok("1") {
+            panic!("REEVE_REQUIRE_BROWSER=1 but no chromium was found on PATH");
+        }
+        eprintln!(
+            "skipped: no headless browser (chromium) on PATH; the HTML was checked as text only"
+        );
+        return;
+    };
+    let profile = dir.join("profile");
+    fs::create_dir_all(&profile).unwrap();
+    let mut cmd = Command::new(browser);
+    cmd.args([
+        "--headless",
+        "--no-sandbox",
+        "--disable-gpu",
+        "--disable-quic",
+        "--no-first-run",
+        "--disable-background-networking",
+        "--disable-component-update",
+        "--disable-sync",
+    ])
+    .arg(format!("--user-data-dir={}", profile.display()))
+    .arg("--dump-dom")
+    .arg(format!("file://{}", html.canonicalize().unwrap().display()));
+    let dom = run_with_deadline(cmd, Duration::from_secs(120));
+    assert!(
+        dom.contains("<main>"),
+        "the browser rendered no page:\n{dom:.500}"
+    );
+    // Summary figures (the headline as `check` prints it).
+    let check = stdout_of(&["check", r.to_str().unwrap()]);
+    for figure in ["2.023 kN", "2.229 kN", "1.832 kN", "90.7 %"] {
+        assert!(check.contains(figure), "check shows {figure}");
+        assert!(dom.contains(figure), "the page shows {figure}");
+    }
+    assert!(dom.contains("id=\"summary-table\""));
+    // Both tables, with their rows.
+    assert!(dom.contains("id=\"spans\"") && dom.contains("id=\"parts\""));
+    assert!(dom.contains("becket → lower.a") || dom.contains("becket &rarr; lower.a"));
+    assert!(dom.contains("upper.b"));
+    // The drawing, inline, with its spans and parts.
+    assert!(dom.contains("<svg"));
+    assert_eq!(dom.matches("class=\"span\"").count(), 5);
+    assert_eq!(dom.matches("class=\"part\"").count(), 7);
+    // Losses, methods with sources, caution.
+    assert!(dom.contains("id=\"losses\"") && dom.contains("class=\"bar\""));
+    assert!(dom.contains("Euler") && dom.contains("Eytelwein") && dom.contains("friction circle"));
+    assert!(dom.contains("Caution:"));
+    let _ = fs::remove_dir_all(&dir);
+}
+
+#[test]
+fn refuses_to_write_over_the_input_rig() {
+    let dir = scratch("refuse");
+    let copy = dir.join("rig.yaml");
+    fs::copy(rig("sash-window"), &copy).unwrap();
+    let before = fs::read(&copy).unwrap();
+    let sub = dir.join("sub");
+    fs::create_dir_all(&sub).unwrap();
+    let roundabout = sub.join("..").join("rig.yaml");
+    for target in [copy.clone(), roundabout] {
+        for cmd in [
+            vec![
+                "draw",
+                copy.to_str().unwrap(),
+                "-o",
+                target.to_str().unwrap(),
+            ],
+            vec![
+                "report",
+                copy.to_str().unwrap(),
+                "-o",
+                target.to_str().unwrap(),
+            ],
+            vec![
+                "table",
+                copy.to_str().unwrap(),
+                "-o",
+                target.to_str().unwrap(),
+            ],
+        ] {
+            let out = reeve(&cmd);
+            assert_eq!(out.status.code(), Some(2), "{cmd:?}");
+            assert!(
+                String::from_utf8_lossy(&out.stderr).contains("refusing to write over the input"),
+                "{}",
+                String::from_utf8_lossy(&out.stderr)
+            );
+            assert_eq!(fs::read(&copy).unwrap(), before, "the rig is untouched");
+        }
+    }
+    // A symlink to the rig is the rig.
+    #[cfg(unix)]
+    {
+        let link = dir.join("link.svg");
+        std::os::unix::fs::symlink(&copy, &link).unwrap();
+        let out = reeve(&["draw", copy.to_str().unwrap(), "-o", link.to_str().unwrap()]);
+        assert_eq!(out.status.code(), Some(2));
+        assert_eq!(fs::read(&copy).unwrap(), before);
+    }
+    let _ = fs::remove_dir_all(&dir);
+}
+
+#[test]
+fn a_failed_write_leaves_no_partial_file() {
+    use reeve::cli::output::write_atomically;
+    let dir = scratch("atomic");
+    let target = dir.join("drawing.svg");
+    // An error half-way: nothing appears.
+    let err = write_atomically(&target, |w| {
+        w.write_all(b"<svg>half")?;
+        Err(std::io::Error::other("disk full (injected)"))
+    })
+    .unwrap_err();
+    assert!(err.to_string().contains("injected"));
+    assert!(!target.exists());
+    // An existing file survives a failed rewrite unchanged.
+    fs::write(&target, "old drawing").unwrap();
+    let _ = write_atomically(&target, |w| {
+        w.write_all(b"new but broken")?;
+        Err(std::io::Error::other("injected"))
+    });
+    assert_eq!(fs::read_to_string(&target).unwrap(), "old drawing");
+    // No temporary files are left behind.
+    let names: Vec<String> = fs::read_dir(&dir)
+        .unwrap()
+        .map(|e| e.unwrap().file_name().to_string_lossy().into_owned())
+        .collect();
+    assert_eq!(names, vec!["drawing.svg".to_string()]);
+    // A success replaces it whole.
+    write_atomically(&target, |w| w.write_all(b"new drawing")).unwrap();
+    assert_eq!(fs::read_to_string(&target).unwrap(), "new drawing");
+
+    // Through the binary: a folder that does not exist fails with exit 2 and no file.
+    let missing = dir.join("no-such-folder").join("rig.svg");
+    let out = reeve(&[
+        "draw",
+        rig("sash-window").to_str().unwrap(),
+        "-o",
+        missing.to_str().unwrap(),
+    ]);
+    assert_eq!(out.status.code(), Some(2));
+    assert!(String::from_utf8_lossy(&out.stderr).contains("cannot write"));
+    assert!(!missing.exists());
+    // `-o -` is stdout, and `-o FILE` writes the same bytes to the file.
+    let file = dir.join("rig.svg");
+    let out = reeve(&[
+        "draw",
+        rig("sash-window").to_str().unwrap(),
+        "-o",
+        file.to_str().unwrap(),
+    ]);
+    assert!(out.status.success());
+    assert!(out.stdout.is_empty());
+    let stdout = stdout_of(&["draw", rig("sash-window").to_str().unwrap(), "-o", "-"]);
+    assert_eq!(fs::read_to_string(&file).unwrap(), stdout);
+    let _ = fs::remove_dir_all(&dir);
+}
+
+#[test]
+fn table_writes_to_a_file_with_o() {
+    let dir = scratch("table");
+    let file = dir.join("spans.csv");
+    let r = rig("workshop-hoist");
+    let out = reeve(&[
+        "table",
+        r.to_str().unwrap(),
+        "--format",
+        "csv",
+        "-o",
+        file.to_str().unwrap(),
+    ]);
+    assert!(out.status.success());
+    let stdout = stdout_of(&["table", r.to_str().unwrap(), "--format", "csv"]);
+    assert_eq!(fs::read_to_string(&file).unwrap(), stdout);
+    let _ = fs::remove_dir_all(&dir);
+}
