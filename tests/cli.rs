@@ -87,3 +87,20 @@ fn check_output_ends_with_the_caution() {
     let text = String::from_utf8_lossy(&out.stdout);
     assert!(text.trim_end().ends_with(reeve::report::CAUTION), "{text}");
 }
+
+#[test]
+fn every_anchor_and_fixed_sheave_reports_its_pin_load() {
+    for rig in ["rigs/workshop-hoist.yaml", "rigs/line-set.yaml"] {
+        let out = Command::new(env!("CARGO_BIN_EXE_reeve"))
+            .args(["check", rig, "--json"])
+            .output()
+            .unwrap();
+        let json: serde_json::Value = serde_json::from_slice(&out.stdout).unwrap();
+        for part in json["parts"].as_array().unwrap() {
+            if matches!(part["kind"].as_str(), Some("anchor" | "sheave")) {
+                let load = part["pin_load_n"]["forward"].as_f64();
+                assert!(load.is_some_and(|l| l > 0.0), "{rig}: {part}");
+            }
+        }
+    }
+}

@@ -368,7 +368,15 @@ impl Report {
                 .iter()
                 .filter_map(|p| p.bend_ratio)
                 .fold(None, |a: Option<Real>, x| Some(a.map_or(x, |a| a.min(x))));
-            let pin = |c: Case| sub.and_then(|s| s.case(c).pin_load[id]);
+            // A fixed anchor belongs to no sub-rig; every sub-rig whose lines pull on it
+            // adds to its load.
+            let pin = |c: Case| {
+                solution
+                    .subrigs
+                    .iter()
+                    .filter_map(|s| s.case(c).pin_load[id])
+                    .reduce(|a, b| a + b)
+            };
             let (loss_share, loss_of_input) = match sub {
                 Some(s) => {
                     let total = s.forward.total_loss();
