@@ -278,9 +278,11 @@ fn subrig_checks(rig: &Rig, sub: &SubRigSolution) -> Vec<Warning> {
         .iter()
         .any(|c| c.indeterminate)
     {
+        // Name the load the lines share, not the drive.
+        let shared = sub.load_part.map_or(drive.as_str(), |p| rig.parts[p].name.as_str());
         out.push(warn(
             "indeterminate",
-            Some(drive),
+            Some(shared),
             false,
             "statics alone does not fix how lines that share one block split its load; the least-squares split is shown, but the real split depends on rope stretch and where the load sits".to_string(),
         ));
