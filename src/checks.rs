@@ -279,7 +279,9 @@ fn subrig_checks(rig: &Rig, sub: &SubRigSolution) -> Vec<Warning> {
         .any(|c| c.indeterminate)
     {
         // Name the load the lines share, not the drive.
-        let shared = sub.load_part.map_or(drive.as_str(), |p| rig.parts[p].name.as_str());
+        let shared = sub
+            .load_part
+            .map_or(drive.as_str(), |p| rig.parts[p].name.as_str());
         out.push(warn(
             "indeterminate",
             Some(shared),

@@ -477,14 +477,46 @@ impl<'a> Problem<'a> {
             for k in 0..n {
                 mat[(k, m - 1)] = -self.x_coef[k];
             }
-            let scale = mat.amax().max(1e-300);
-            let svd = mat.clone().svd(true, true);
+            // Equilibrate the columns first: a long chain of friction passages makes
+            // some tension coefficients many orders of magnitude larger than others,
+            // and a rank decision on the raw matrix would drop the small ones.
+            let column_norms: Vec<Real> = (0..m)
+                .map(|j| {
+                    let n = mat.column(j).norm();
+                    if n > 0.0 && n.is_finite() {
+                        n
+                    } else {
+                        1.0
+                    }
+                })
+                .collect();
+            let mut scaled = mat.clone();
+            for (j, n) in column_norms.iter().enumerate() {
+                scaled.column_mut(j).unscale_mut(*n);
+            }
+            // Then the rows (equations), which leaves the solutions of a consistent
+            // system unchanged.
+            let mut scaled_rhs = rhs.clone();
+            for i in 0..n {
+                let r = scaled.row(i).amax();
+                if r > 0.0 && r.is_finite() {
+                    scaled.row_mut(i).unscale_mut(r);
+                    scaled_rhs[i] /= r;
+                }
+            }
+            let scale = scaled.amax().max(1e-300);
+            let svd = scaled.svd(true, true);
             let rank = svd.rank(options.rank_tolerance * scale);
-            let solution = svd
-                .solve(&rhs, options.rank_tolerance * scale)
+            let mut solution = svd
+                .solve(&scaled_rhs, options.rank_tolerance * scale)
                 .unwrap_or_else(|_| DVector::zeros(m));
+            for (j, n) in column_norms.iter().enumerate() {
+                solution[j] /= n;
+            }
             let residual = (&mat * &solution - &rhs).norm();
-            let rhs_scale = rhs.norm().max(scale);
+            // Compare the misfit with the size of the terms that should cancel.
+            let terms = mat.abs() * solution.abs();
+            let rhs_scale = rhs.norm().max(terms.amax()).max(1e-300);
             if !solution.iter().all(|v| v.is_finite()) || residual > 1e-7 * rhs_scale {
                 return Err(SolveError::NoEquilibrium {
                     case: case.name(),
