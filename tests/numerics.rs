@@ -1,39 +1,11 @@
 //! Numerical robustness of the statics: tension coefficients that span many orders of
 //! magnitude (a long chain of friction passages) must not lose the small equations.
 
-use std::fmt::Write as _;
-
 use reeve::rig::load_str;
 use reeve::solve::{solve, SolveOptions};
 
-/// A weight lifted over a zig-zag of `n` fixed guides (capstan friction at each).
-fn chain(n: usize, mu: f64) -> String {
-    let mut yaml = format!(
-        "format: 1\nropes:\n  c: {{diameter: 2, mu: {mu}}}\nparts:\n  hand: {{kind: haul, at: [0, 0, -200]}}\n"
-    );
-    let mut path = vec!["hand".to_string()];
-    for i in 0..n {
-        let z = if i % 2 == 0 { 0.0 } else { 100.0 };
-        let _ = writeln!(
-            yaml,
-            "  g{i}: {{kind: guide, at: [{}, 0, {z}], axle: [0, 1, 0], diameter: 10}}",
-            i as f64 * 60.0
-        );
-        path.push(format!("g{i}"));
-    }
-    let _ = writeln!(
-        yaml,
-        "  bob: {{kind: weight, at: [{}, 0, -300], mass: 1}}",
-        (n - 1) as f64 * 60.0 + 6.0
-    );
-    path.push("bob".to_string());
-    let _ = writeln!(
-        yaml,
-        "lines:\n  cord: {{rope: c, path: [{}]}}",
-        path.join(", ")
-    );
-    yaml
-}
+mod common;
+use common::chain;
 
 #[test]
 fn a_long_capstan_chain_keeps_the_capstan_product() {
@@ -69,6 +41,28 @@ fn a_long_capstan_chain_keeps_the_capstan_product() {
             main.forward.audit_residual < 1e-9,
             "{n}: audit {}",
             main.forward.audit_residual
+        );
+    }
+}
+
+#[test]
+fn the_benchmark_tackles_match_the_handbook_reeving_formula() {
+    // Wire-rope handbook reeving efficiency (DESIGN.md §1): E = (K^N − 1)/(K^S·N·(K − 1)),
+    // hauling part leaving the fixed block (S = N), pull = W/(N·E); K = 1.04 as the
+    // generator rates every sheave. This keeps the benchmark's rigs honest.
+    let (k, weight) = (1.04_f64, 500.0 * 9.80665);
+    for n in 2..=16 {
+        let rig = load_str(&common::tackle(n), "tackle.yaml").unwrap();
+        let forward = solve(&rig, &SolveOptions::default())
+            .unwrap()
+            .main()
+            .forward
+            .value;
+        let e = (k.powi(n as i32) - 1.0) / (k.powi(n as i32) * n as f64 * (k - 1.0));
+        let expected = weight / (n as f64 * e);
+        assert!(
+            ((forward - expected) / expected).abs() < 1e-9,
+            "{n} parts: {forward} vs {expected}"
         );
     }
 }

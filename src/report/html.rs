@@ -225,21 +225,9 @@ fn write_summary(w: &mut dyn Write, h: &Headline, units: &UnitSystem, id: &str) 
         q(lo),
         q(hi)
     )?;
-    writeln!(
-        w,
-        "<li>Self-locking: {}.</li>",
-        if h.self_locking {
-            "yes; it will not run back by itself"
-        } else {
-            "no; it runs back by itself below the back value"
-        }
-    )?;
+    writeln!(w, "<li>{}.</li>", h.self_locking_words())?;
     if let Some(a) = h.available {
-        let what = if h.solve_for.part == h.drive {
-            "Available"
-        } else {
-            "Stated"
-        };
+        let what = super::text::capitalise(h.given_word());
         let verdict = match h.moves {
             Some(true) => "<span class=\"ok\">the drive moves the rig</span>",
             Some(false) => "<span class=\"bad\">the drive cannot move the rig</span>",

@@ -193,6 +193,27 @@ pub struct Headline {
     pub energy_audit: PerCase,
 }
 
+impl Headline {
+    /// The self-locking sentence, as every human-readable report words it.
+    pub fn self_locking_words(&self) -> &'static str {
+        if self.self_locking {
+            "Self-locking: yes; it will not run back by itself"
+        } else {
+            "Self-locking: no; it runs back by itself below the back value"
+        }
+    }
+
+    /// What the given value of the asked quantity is: the drive's `available` effort,
+    /// or a load's `stated` value.
+    pub fn given_word(&self) -> &'static str {
+        if self.solve_for.part == self.drive {
+            "available"
+        } else {
+            "stated"
+        }
+    }
+}
+
 /// The whole report.
 #[derive(Debug, Clone, Serialize, PartialEq)]
 pub struct Report {

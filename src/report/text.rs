@@ -118,20 +118,9 @@ fn write_headline(w: &mut dyn Write, h: &Headline, units: &UnitSystem) -> io::Re
         q(lo),
         q(hi)
     )?;
-    if h.self_locking {
-        writeln!(w, "Self-locking: yes; it will not run back by itself.")?;
-    } else {
-        writeln!(
-            w,
-            "Self-locking: no; it runs back by itself below the back value."
-        )?;
-    }
+    writeln!(w, "{}.", h.self_locking_words())?;
     if let Some(a) = h.available {
-        let what = if h.solve_for.part == h.drive {
-            "available"
-        } else {
-            "stated"
-        };
+        let what = h.given_word();
         let verdict = match h.moves {
             Some(true) => "the drive moves the rig",
             Some(false) => "THE DRIVE CANNOT MOVE THE RIG",
@@ -150,7 +139,8 @@ fn write_headline(w: &mut dyn Write, h: &Headline, units: &UnitSystem) -> io::Re
     Ok(())
 }
 
-fn capitalise(s: &str) -> String {
+/// The first letter in upper case.
+pub(crate) fn capitalise(s: &str) -> String {
     let mut c = s.chars();
     match c.next() {
         Some(f) => f.to_uppercase().collect::<String>() + c.as_str(),
