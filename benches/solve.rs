@@ -36,7 +36,7 @@ fn time(label: &str, yaml: &str) {
 
 fn main() {
     for n in [2, 4, 8, 16, 32] {
-        time(&format!("tackle, {n} parts"), &tackle(n));
+        time(&format!("tackle, {n} sheaves"), &tackle(n));
     }
     for n in [10, 50, 200] {
         time(&format!("guide chain, {n} guides"), &chain(n, 0.1));

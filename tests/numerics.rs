@@ -48,21 +48,24 @@ fn a_long_capstan_chain_keeps_the_capstan_product() {
 #[test]
 fn the_benchmark_tackles_match_the_handbook_reeving_formula() {
     // Wire-rope handbook reeving efficiency (DESIGN.md §1): E = (K^N − 1)/(K^S·N·(K − 1)),
-    // hauling part leaving the fixed block (S = N), pull = W/(N·E); K = 1.04 as the
-    // generator rates every sheave. This keeps the benchmark's rigs honest.
+    // pull = W/(N·E); K = 1.04 as the generator rates every sheave. With an even number
+    // of sheaves the hauling part leaves the fixed block (S = N), with an odd number the
+    // moving block (N = sheaves + 1, S = N − 1). This keeps the benchmark's rigs honest.
     let (k, weight) = (1.04_f64, 500.0 * 9.80665);
-    for n in 2..=16 {
-        let rig = load_str(&common::tackle(n), "tackle.yaml").unwrap();
-        let forward = solve(&rig, &SolveOptions::default())
-            .unwrap()
-            .main()
-            .forward
-            .value;
-        let e = (k.powi(n as i32) - 1.0) / (k.powi(n as i32) * n as f64 * (k - 1.0));
+    for sheaves in 1..=16 {
+        let rig = load_str(&common::tackle(sheaves), "tackle.yaml").unwrap();
+        let solution = solve(&rig, &SolveOptions::default()).unwrap();
+        let forward = solution.main().forward.value;
+        let (n, s) = if sheaves % 2 == 0 {
+            (sheaves, sheaves)
+        } else {
+            (sheaves + 1, sheaves)
+        };
+        let e = (k.powi(n as i32) - 1.0) / (k.powi(s as i32) * n as f64 * (k - 1.0));
         let expected = weight / (n as f64 * e);
         assert!(
             ((forward - expected) / expected).abs() < 1e-9,
-            "{n} parts: {forward} vs {expected}"
+            "{sheaves} sheaves ({n} parts): {forward} vs {expected}"
         );
     }
 }

@@ -4,9 +4,12 @@
 
 use std::fmt::Write as _;
 
-/// A planar N-part tackle: fixed sheaves above, moving sheaves below, falls vertical.
-/// The forward pull should be W/(N·E) with the handbook reeving efficiency (S = N).
-pub fn tackle(parts: usize) -> String {
+/// A planar tackle of `sheaves` rated sheaves (K = 1.04), alternately moving (on the hook
+/// block, below) and fixed (above), dead end on the fixed block, falls vertical, hook
+/// load 500 kg. With an even count the hauling part leaves the fixed block (N = S =
+/// `sheaves` parts), with an odd count it leaves the moving block upward (N = `sheaves` +
+/// 1 parts, S = `sheaves`).
+pub fn tackle(sheaves: usize) -> String {
     let mut yaml = String::from(
         "format: 1\nropes:\n  w: {diameter: 8, mu: 0.12}\nparts:\n  hook: {kind: block, at: [0, 0, 0], load: {mass: 500}}\n",
     );
@@ -16,7 +19,7 @@ pub fn tackle(parts: usize) -> String {
     let mut x = 0.0;
     let _ = writeln!(yaml, "  dead: {{kind: anchor, at: [{}, 0, 3000]}}", x - r);
     path.push("dead".to_string());
-    for i in 0..parts {
+    for i in 0..sheaves {
         let (name, z, block) = if i % 2 == 0 {
             (format!("low{i}"), 0.0, ", block: hook")
         } else {
@@ -33,7 +36,7 @@ pub fn tackle(parts: usize) -> String {
         x += 2.0 * r;
     }
     // The hauling part leaves the last sheave: down from an upper one, up from a lower.
-    let z_end = if parts % 2 == 0 { -500.0 } else { 3500.0 };
+    let z_end = if sheaves % 2 == 0 { -500.0 } else { 3500.0 };
     let _ = writeln!(
         yaml,
         "  hand: {{kind: haul, at: [{}, 0, {z_end}]}}",
