@@ -625,3 +625,43 @@ fn malformed_ranges_and_variants_are_reported() {
     assert_eq!(out.status.code(), Some(2));
     assert!(String::from_utf8_lossy(&out.stderr).contains("no `variants:`"));
 }
+
+mod common;
+
+#[test]
+fn compare_of_tackles_over_the_number_of_parts_reproduces_the_handbook_formula() {
+    // Wire-rope handbook reeving efficiency (DESIGN.md §1): pull = W/(N·E),
+    // E = (K^N − 1)/(K^S·N·(K − 1)). One column per tackle of 1 to 8 sheaves (the shared
+    // generator: even counts haul from the fixed block, S = N; odd counts from the moving
+    // block, N = sheaves + 1, S = sheaves), compared in one `reeve compare` run.
+    let dir = std::env::temp_dir().join(format!("reeve-compare-n-{}", std::process::id()));
+    std::fs::create_dir_all(&dir).unwrap();
+    let files: Vec<String> = (1..=8)
+        .map(|sheaves| {
+            let path = dir.join(format!("tackle-{sheaves}.yaml"));
+            std::fs::write(&path, common::tackle(sheaves)).unwrap();
+            path.display().to_string()
+        })
+        .collect();
+    let mut args = vec!["compare"];
+    args.extend(files.iter().map(String::as_str));
+    args.push("--json");
+    let out = json(&args);
+    let columns = out["columns"].as_array().unwrap();
+    assert_eq!(columns.len(), 8);
+    for (i, column) in columns.iter().enumerate() {
+        let sheaves = i + 1;
+        let (n, s) = if sheaves % 2 == 0 {
+            (sheaves, sheaves)
+        } else {
+            (sheaves + 1, sheaves)
+        };
+        let expected = handbook_pull(500.0 * 9.80665, 1.04, n as i32, s as i32);
+        let forward = num(&column["forward"]);
+        assert!(
+            close(forward, expected, 1e-9),
+            "{sheaves} sheaves ({n} parts): {forward} vs handbook {expected}"
+        );
+    }
+    let _ = std::fs::remove_dir_all(&dir);
+}
