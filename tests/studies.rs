@@ -665,3 +665,32 @@ fn compare_of_tackles_over_the_number_of_parts_reproduces_the_handbook_formula()
     }
     let _ = std::fs::remove_dir_all(&dir);
 }
+
+#[test]
+fn a_drum_driven_stroke_moves_the_load_until_it_reaches_the_sheave() {
+    // rigs/ramp-winch.yaml: the cord from the cart to the lead sheave is 2.972 m long and
+    // runs along the ramp, so the drum (pitch radius 53 mm) closes it up after about
+    // 2.972 / 0.053 rad ≈ 3213° (hand calculation). 3000° must stop short; 3400° must be
+    // reported as the cart meeting the sheave, not silently carried through it.
+    let short = json(&[
+        "sweep",
+        "rigs/ramp-winch.yaml",
+        "--stroke",
+        "3000 deg",
+        "--steps",
+        "3",
+        "--json",
+    ]);
+    let steps = short["steps"].as_array().unwrap();
+    assert!(steps.iter().all(|s| s["error"].is_null()), "{short}");
+    let long = run(&[
+        "sweep",
+        "rigs/ramp-winch.yaml",
+        "--stroke",
+        "3400 deg",
+        "--steps",
+        "4",
+    ]);
+    let text = String::from_utf8_lossy(&long.stdout);
+    assert!(text.contains("closes up: `cart` and `lead` meet"), "{text}");
+}

@@ -17,7 +17,6 @@ use serde::Serialize;
 use crate::math::Real;
 use crate::report::text::{number, quantity};
 use crate::report::{finite, CAUTION};
-use crate::rig::model::PartKind;
 use crate::rig::Rig;
 use crate::solve::kinematics::Motion;
 use crate::solve::Solution;
@@ -335,14 +334,37 @@ fn velocities(rig: &Rig, solution: &Solution) -> Vec<(usize, crate::math::Vector
         if let Motion::Translate(dir) = dof.motion {
             let v = dir.into_inner() * k.forward[i];
             out.push((dof.part, v));
+            // Sheaves and pick points carried by the block move with it.
             for (s, part) in rig.parts.iter().enumerate() {
-                if matches!(&part.kind, PartKind::Sheave(sh) if sh.block == Some(dof.part)) {
+                if part.block == Some(dof.part) {
                     out.push((s, v));
                 }
             }
         }
     }
     out
+}
+
+/// A span that closed up or turned round between two positions: a moving part has
+/// reached (or passed through) the part at the span's other end.
+fn closed_span(rig: &Rig, before: &Solution, after: &Solution) -> Option<String> {
+    for (l, line) in rig.lines.iter().enumerate() {
+        let (a, b) = (
+            &before.geometry.lines[l].spans,
+            &after.geometry.lines[l].spans,
+        );
+        for (j, (x, y)) in a.iter().zip(b).enumerate() {
+            if x.direction.dot(&y.direction) < 0.0 || y.length <= 1e-9 * x.length.max(1e-9) {
+                let from = &rig.parts[line.path[j].part].name;
+                let to = &rig.parts[line.path[j + 1].part].name;
+                return Some(format!(
+                    "span {j} of line `{}` closes up: `{from}` and `{to}` meet",
+                    line.name
+                ));
+            }
+        }
+    }
+    None
 }
 
 fn moved(rig: &Rig, v: &[(usize, crate::math::Vector)], dt: Real) -> Rig {
@@ -433,28 +455,34 @@ pub fn stroke(
         if out.last().is_some_and(|s: &StrokeStep| s.error.is_some()) {
             break;
         }
-        if !rotates {
-            for _ in 0..substeps {
-                // Midpoint rule: velocities at the half step carry the whole step.
-                let v0 = velocities(&rig, &current);
-                let half = moved(&rig, &v0, 0.5 * dt);
-                let mid = match source.solve_rig(&half) {
-                    Ok(s) => s,
-                    Err(e) => {
-                        out.push(failed(step as Real * total / steps as Real, e));
-                        break 'outer;
-                    }
-                };
-                let v1 = velocities(&half, &mid);
-                rig = moved(&rig, &v1, dt);
-                current = match source.solve_rig(&rig) {
-                    Ok(s) => s,
-                    Err(e) => {
-                        out.push(failed(step as Real * total / steps as Real, e));
-                        break 'outer;
-                    }
-                };
+        // Translating parts move (also when a drum drives: then per radian of the drum).
+        for _ in 0..substeps {
+            // Midpoint rule: velocities at the half step carry the whole step.
+            let v0 = velocities(&rig, &current);
+            let half = moved(&rig, &v0, 0.5 * dt);
+            let mid = match source.solve_rig(&half) {
+                Ok(s) => s,
+                Err(e) => {
+                    out.push(failed(step as Real * total / steps as Real, e));
+                    break 'outer;
+                }
+            };
+            let v1 = velocities(&half, &mid);
+            let next_rig = moved(&rig, &v1, dt);
+            let next = match source.solve_rig(&next_rig) {
+                Ok(s) => s,
+                Err(e) => {
+                    out.push(failed(step as Real * total / steps as Real, e));
+                    break 'outer;
+                }
+            };
+            if let Some(why) = closed_span(&next_rig, &current, &next) {
+                // The figures past that point describe a rope through a part: none.
+                out.push(stopped(step as Real * total / steps as Real, why));
+                break 'outer;
             }
+            rig = next_rig;
+            current = next;
         }
         out.push(record(step as Real * total / steps as Real, &rig, &current));
     }
@@ -469,6 +497,11 @@ pub fn stroke(
 }
 
 fn failed(travel: Real, e: StudyError) -> StrokeStep {
+    stopped(travel, format!("the rig cannot be solved here: {e}"))
+}
+
+/// A step with no figures, only the reason the stroke stops there.
+fn stopped(travel: Real, why: String) -> StrokeStep {
     StrokeStep {
         travel,
         ideal: None,
@@ -477,7 +510,7 @@ fn failed(travel: Real, e: StudyError) -> StrokeStep {
         velocity_ratio: None,
         largest_fleet_deg: None,
         largest_tension_n: None,
-        error: Some(format!("the rig cannot be solved here: {e}")),
+        error: Some(why),
     }
 }
 
