@@ -694,3 +694,18 @@ fn a_drum_driven_stroke_moves_the_load_until_it_reaches_the_sheave() {
     let text = String::from_utf8_lossy(&long.stdout);
     assert!(text.contains("closes up: `cart` and `lead` meet"), "{text}");
 }
+
+#[test]
+fn rank_falls_back_to_the_frictionless_saving_where_the_alternative_does_not_apply() {
+    // rigs/rescue-haul.yaml has only rated pulleys and a carabiner, so `--to rolling`
+    // applies to none of them; the ranking must still be by effort saved, largest first.
+    let out = json(&["rank", "rigs/rescue-haul.yaml", "--to", "rolling", "--json"]);
+    let saved: Vec<f64> = out["parts"]
+        .as_array()
+        .unwrap()
+        .iter()
+        .map(|p| num(&p["frictionless_saved"]))
+        .collect();
+    assert!(saved.windows(2).all(|w| w[0] >= w[1]), "{saved:?}");
+    assert_eq!(out["parts"][0]["part"], "leg.biner");
+}

@@ -275,17 +275,24 @@ pub fn rank(source: &RigSource, alt: Option<&Alternative>) -> Result<Ranking, St
             note: (!notes.is_empty()).then(|| notes.join("; ")),
         });
     }
+    // By the alternative's saving when one is asked for, then by the frictionless
+    // saving (parts the alternative does not apply to still rank among themselves).
     let key = |r: &RankRow| {
-        if alt.is_some() {
-            r.alternative_saved
-                .or(r.frictionless_saved.map(|_| Real::NEG_INFINITY))
+        let alternative = if alt.is_some() {
+            r.alternative_saved.unwrap_or(Real::NEG_INFINITY)
         } else {
-            r.frictionless_saved
-        }
-        .unwrap_or(Real::NEG_INFINITY)
+            0.0
+        };
+        (
+            alternative,
+            r.frictionless_saved.unwrap_or(Real::NEG_INFINITY),
+        )
     };
     // Stable sort: equal savings keep file order.
-    parts.sort_by(|a, b| key(b).total_cmp(&key(a)));
+    parts.sort_by(|a, b| {
+        let (ka, kb) = (key(a), key(b));
+        kb.0.total_cmp(&ka.0).then(kb.1.total_cmp(&ka.1))
+    });
     let mut sensitivities = Vec::new();
     for (k, value, lower) in coefficients(&rig) {
         let d = derivative(source, &k, value, lower).ok().and_then(finite);
