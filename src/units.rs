@@ -283,12 +283,12 @@ pub struct UnitSystem {
 
 impl Default for UnitSystem {
     fn default() -> Self {
-        let find = |s| parse_unit(s).expect("built-in unit spelling");
+        // Indices into the unit table: mm, N, kg, N*m (checked by a unit test).
         UnitSystem {
-            length: find("mm"),
-            force: find("N"),
-            mass: find("kg"),
-            torque: find("N*m"),
+            length: UNITS[0],
+            force: UNITS[5],
+            mass: UNITS[8],
+            torque: UNITS[11],
         }
     }
 }
@@ -338,6 +338,13 @@ mod tests {
         assert_eq!(si("1 N*mm", Dimension::Torque), 1e-3);
         assert!((si("1 lbf*in", Dimension::Torque) - 4.4482216152605 * 0.0254).abs() < 1e-15);
         assert!((si("1 lbf*ft", Dimension::Torque) - 4.4482216152605 * 0.3048).abs() < 1e-15);
+    }
+
+    #[test]
+    fn default_units_are_mm_n_kg_nm() {
+        let d = UnitSystem::default();
+        let symbols = [d.length.symbol, d.force.symbol, d.mass.symbol, d.torque.symbol];
+        assert_eq!(symbols, ["mm", "N", "kg", "N*m"]);
     }
 
     #[test]
