@@ -1,0 +1,267 @@
+//! Adversarial review of the physics and the solver: small rigs in `tests/rigs/review/`
+//! that probe signs, stalls, drums, load unknowns, sub-rigs and degenerate inputs, each
+//! checked against a hand calculation (arithmetic beside the check) or a published
+//! formula named beside it.
+
+use std::f64::consts::PI;
+use std::path::PathBuf;
+
+use reeve::math::STANDARD_GRAVITY as G;
+use reeve::rig::load_str;
+use reeve::rig::model::Rig;
+use reeve::solve::{solve, Solution, SolveError, SolveOptions, SubRigSolution};
+
+fn rig_path(name: &str) -> PathBuf {
+    PathBuf::from(env!("CARGO_MANIFEST_DIR"))
+        .join("tests/rigs/review")
+        .join(name)
+}
+
+fn load(name: &str) -> Rig {
+    let path = rig_path(name);
+    let text = std::fs::read_to_string(&path).unwrap_or_else(|e| panic!("{name}: {e}"));
+    load_str(&text, name).unwrap_or_else(|e| panic!("{name} does not load: {e}"))
+}
+
+fn solve_rig(name: &str) -> (Rig, Solution) {
+    let rig = load(name);
+    let solution = solve(&rig, &SolveOptions::default()).unwrap_or_else(|e| panic!("{name}: {e}"));
+    (rig, solution)
+}
+
+fn assert_close(what: &str, measured: f64, expected: f64, rel_tol: f64) {
+    let err = (measured - expected).abs() / expected.abs().max(1e-300);
+    assert!(
+        err <= rel_tol,
+        "{what}: measured {measured}, expected {expected} (relative error {err:.3e} > {rel_tol:.1e})"
+    );
+}
+
+/// Energy audit of every case of every sub-rig balances (DESIGN.md §3 step 5).
+fn audit_ok(solution: &Solution) {
+    for sub in &solution.subrigs {
+        for case in [&sub.ideal, &sub.forward, &sub.back] {
+            assert!(
+                case.audit_residual < 1e-9,
+                "{}: energy audit residual {}",
+                case.case.name(),
+                case.audit_residual
+            );
+        }
+    }
+}
+
+fn no_stall(sub: &SubRigSolution) {
+    for case in [&sub.forward, &sub.back] {
+        assert!(
+            case.stalled.is_empty(),
+            "{}: stalled {:?}",
+            case.case.name(),
+            case.stalled
+        );
+    }
+}
+
+/// Friction-circle radius `r sin(atan μ)` (Beer & Johnston, *Statics*, §8.7).
+fn friction_circle(r: f64, mu: f64) -> f64 {
+    r * mu / (1.0 + mu * mu).sqrt()
+}
+
+#[test]
+fn moving_sheave_with_own_weight_forward_and_back() {
+    // Hand calculation, falls taken as vertical (the ends are 1e6 mm away, so the
+    // tangent tilt is below 1e-9): the block (40 kg load + 2 kg sheave) hangs on
+    // T1 + P = 42 g = 411.879 N; the pin carries the rope pulls up less the sheave's
+    // own 2 g down, i.e. 40 g = 392.266 N; r_f = 5 mm × 0.2/√1.04 = 0.980 58 mm,
+    // R = 33 mm, so |P − T1| = r_f × 40 g / R = 11.656 N.
+    // Forward P = (411.879 + 11.656)/2 = 211.77 N, back (411.879 − 11.656)/2 = 200.11 N.
+    let text = std::fs::read_to_string(rig_path("moving-sheave-weight.yaml"))
+        .unwrap()
+        .replace("[-33, 0, 2000]", "[-33, 0, 1e6]")
+        .replace("[33, 0, 2000]", "[33, 0, 1e6]");
+    let rig = load_str(&text, "moving-sheave-weight.yaml").unwrap();
+    let s = solve(&rig, &SolveOptions::default()).unwrap();
+    let main = s.main();
+    let rf = friction_circle(0.005, 0.2);
+    let diff = rf * 40.0 * G / 0.033;
+    assert_close("ideal", main.ideal.value, 21.0 * G, 1e-8);
+    assert_close("forward", main.forward.value, (42.0 * G + diff) / 2.0, 1e-8);
+    assert_close("back", main.back.value, (42.0 * G - diff) / 2.0, 1e-8);
+    no_stall(main);
+    audit_ok(&s);
+}
+
+#[test]
+fn sheave_weight_that_unloads_the_pin_does_not_stall_it() {
+    // Hand calculation (rig header): r_f = 32 mm × 5/√26 = 31.379 mm, R = 33 mm. The
+    // ropes carry the 10 kg sheave, the pin only the 0.5 kg load:
+    // (P − T1) R = r_f × 0.5 g, P + T1 = 10.5 g → P = 53.816 N, T1 = 49.154 N,
+    // ratio 1.0949, below the groove's capstan ratio e^{0.2 π} = 1.874 (Euler–Eytelwein,
+    // Hibbeler §8.5), so the sheave turns. The weightless ratio (1 + ρ)/(1 − ρ) = 39.7
+    // alone would say it stalls.
+    let (_, s) = solve_rig("sheave-weight-unloads-pin.yaml");
+    let main = s.main();
+    let rf = friction_circle(0.032, 5.0);
+    let diff = rf * 0.5 * G / 0.033;
+    assert_close("forward", main.forward.value, (10.5 * G + diff) / 2.0, 1e-8);
+    assert_close("back", main.back.value, (10.5 * G - diff) / 2.0, 1e-8);
+    no_stall(main);
+    audit_ok(&s);
+}
+
+#[test]
+fn drum_in_the_middle_of_a_line_with_turns() {
+    // Hand calculation: moment balance of the drum (DESIGN.md §1),
+    // (T_hand − T_load) R = M_load ± M_drag, R = 53 mm:
+    // ideal 5 g + 3/0.053 = 105.637 N, forward 5 g + 4/0.053 = 124.506 N,
+    // back 5 g + 2/0.053 = 86.769 N.
+    let (_, s) = solve_rig("drum-middle.yaml");
+    let main = s.main();
+    assert_close("ideal", main.ideal.value, 5.0 * G + 3.0 / 0.053, 1e-9);
+    assert_close("forward", main.forward.value, 5.0 * G + 4.0 / 0.053, 1e-9);
+    assert_close("back", main.back.value, 5.0 * G + 2.0 / 0.053, 1e-9);
+    assert!(main.forward.slipping.is_empty() && main.back.slipping.is_empty());
+    audit_ok(&s);
+}
+
+#[test]
+fn drive_drum_at_a_line_end_winds_in_or_pays_out_by_side() {
+    // Hand calculation: 10 kg on R = 53 mm needs 10 g × 0.053 = 5.1975 N·m; drag 0.5 N·m.
+    // `side: right` at the start of the path winds the rope in when the drum turns
+    // forward (lifts): forward 5.6975, back 4.6975 N·m.
+    let (_, s) = solve_rig("drum-end-right.yaml");
+    let m = s.main();
+    let lift = 10.0 * G * 0.053;
+    assert_close("right ideal", m.ideal.value, lift, 1e-9);
+    assert_close("right forward", m.forward.value, lift + 0.5, 1e-9);
+    assert_close("right back", m.back.value, lift - 0.5, 1e-9);
+    audit_ok(&s);
+    // `side: left` at the start pays out when turning forward (lowers): the drive
+    // absorbs power, every value is negative.
+    let (_, s) = solve_rig("drum-end-left.yaml");
+    let m = s.main();
+    assert_close("left ideal", m.ideal.value, -lift, 1e-9);
+    assert_close("left forward", m.forward.value, -lift + 0.5, 1e-9);
+    assert_close("left back", m.back.value, -lift - 0.5, 1e-9);
+    audit_ok(&s);
+}
+
+#[test]
+fn efficiency_never_exceeds_one_when_the_load_drives_forward() {
+    // Efficiency is power out over power in (any machine-design text; DESIGN.md §3).
+    // drum-end-left lowers the weight when it runs forward: the weight puts in
+    // 5.1975 W per rad/s and the drum takes 4.6975 of it (0.5 to drag): forward
+    // efficiency 4.6975/5.1975 = 90.38 %; running back the drum lifts the weight,
+    // putting in 5.6975 for 5.1975: 91.22 %.
+    let (_, s) = solve_rig("drum-end-left.yaml");
+    let m = s.main();
+    let lift = 10.0 * G * 0.053;
+    let fwd = m.forward_efficiency().unwrap();
+    let back = m.back_efficiency().unwrap();
+    assert_close("forward efficiency", fwd, (lift - 0.5) / lift, 1e-9);
+    assert_close("back efficiency", back, lift / (lift + 0.5), 1e-9);
+}
+
+#[test]
+fn load_unknown_over_a_capstan_bar() {
+    // Capstan equation (Euler–Eytelwein; Hibbeler, Statics, §8.5): 100 N pull over a
+    // bar with 180° wrap, μ = 0.25 (ends 1e6 mm away, so the wrap is π to 1e-9).
+    // Forward = greatest mass lifted = 100/(g e^{0.25π}) = 4.6493 kg; back = least mass
+    // that runs back = 100 e^{0.25π}/g = 22.365 kg; ideal 100/g = 10.197 kg.
+    let (_, s) = solve_rig("load-unknown-capstan.yaml");
+    let m = s.main();
+    let e = (0.25 * PI).exp();
+    assert_close("ideal", m.ideal.value, 100.0 / G, 1e-9);
+    assert_close("forward", m.forward.value, 100.0 / G / e, 1e-6);
+    assert_close("back", m.back.value, 100.0 / G * e, 1e-6);
+    // Efficiencies (DESIGN.md §3 for a load unknown): forward/ideal and ideal/back.
+    assert_close(
+        "forward eff",
+        m.forward_efficiency().unwrap(),
+        1.0 / e,
+        1e-6,
+    );
+    assert_close("back eff", m.back_efficiency().unwrap(), 1.0 / e, 1e-6);
+    assert!(!m.self_locking());
+    audit_ok(&s);
+}
+
+#[test]
+fn cart_on_a_slope_pulled_horizontally() {
+    // Hand calculation (virtual work): P cos 30° = m g sin 30°, P = 100 g tan 30° =
+    // 566.19 N; the cart moves 1/cos 30° = 1.1547 m per metre of rope.
+    let (_, s) = solve_rig("slope-cart.yaml");
+    let m = s.main();
+    assert_close("ideal", m.ideal.value, 100.0 * G * (PI / 6.0).tan(), 1e-9);
+    assert_close(
+        "velocity ratio",
+        m.velocity_ratio.unwrap(),
+        (PI / 6.0).cos(),
+        1e-9,
+    );
+    audit_ok(&s);
+}
+
+#[test]
+fn two_independent_sub_rigs_both_solved() {
+    // Capstan equation (Hibbeler §8.5), 180° wrap: line b (the drive) forward
+    // 20 g e^{0.1π} = 268.53 N; line a forward 10 g e^{0.25π} = 215.09 N.
+    let (rig, s) = solve_rig("two-subrigs.yaml");
+    assert_eq!(s.subrigs.len(), 2);
+    let b = &s.subrigs[0];
+    assert_eq!(rig.parts[b.drive].name, "hand.b");
+    assert_close(
+        "b forward",
+        b.forward.value,
+        20.0 * G * (0.1 * PI).exp(),
+        1e-6,
+    );
+    let a = &s.subrigs[1];
+    assert_eq!(rig.parts[a.drive].name, "hand.a");
+    assert_close(
+        "a forward",
+        a.forward.value,
+        10.0 * G * (0.25 * PI).exp(),
+        1e-6,
+    );
+    audit_ok(&s);
+}
+
+#[test]
+fn solve_for_in_another_sub_rig_is_a_clear_error() {
+    // The drive `hand.b` cannot move `load.a` (a separate line): the error must say so,
+    // not report an inconsistent equilibrium.
+    let text = std::fs::read_to_string(rig_path("two-subrigs.yaml"))
+        .unwrap()
+        .replace("drive: hand.b", "drive: hand.b\nsolve_for: load.a")
+        .replace(
+            "hand.b: {kind: haul, at: [0, 500, -1e6]}",
+            "hand.b: {kind: haul, at: [0, 500, -1e6], force: 300}",
+        )
+        .replace(", mass: 10}", "}");
+    let rig = load_str(&text, "two-subrigs.yaml").unwrap();
+    match solve(&rig, &SolveOptions::default()) {
+        Err(e) => {
+            let message = e.to_string();
+            assert!(
+                message.contains("`load.a`") && message.contains("`hand.b`"),
+                "{message}"
+            );
+            assert!(!matches!(e, SolveError::NoEquilibrium { .. }), "{message}");
+        }
+        Ok(_) => panic!("a load the drive cannot reach was solved"),
+    }
+}
+
+#[test]
+fn frictionless_equals_ideal_exactly_in_odd_units() {
+    // μ = 0 everywhere: forward and back are the ideal to the last bit (DESIGN.md §3:
+    // friction reverses between forward and back, and there is none). Hand calculation
+    // (virtual work): 2:1 on (40 + 2) kg, falls vertical to 1e-9: 21 g = 205.94 N.
+    let (_, s) = solve_rig("frictionless.yaml");
+    let m = s.main();
+    assert_eq!(m.forward.value, m.ideal.value);
+    assert_eq!(m.back.value, m.ideal.value);
+    assert_close("ideal", m.ideal.value, 21.0 * G, 1e-6);
+    audit_ok(&s);
+}
