@@ -9,7 +9,7 @@ use std::path::PathBuf;
 use reeve::math::STANDARD_GRAVITY as G;
 use reeve::rig::load_str;
 use reeve::rig::model::Rig;
-use reeve::solve::{solve, Solution, SolveError, SolveOptions, SubRigSolution};
+use reeve::solve::{solve, Solution, SolveError, SolveOptions, Status, SubRigSolution};
 
 fn rig_path(name: &str) -> PathBuf {
     PathBuf::from(env!("CARGO_MANIFEST_DIR"))
@@ -53,6 +53,12 @@ fn audit_ok(solution: &Solution) {
 
 fn no_stall(sub: &SubRigSolution) {
     for case in [&sub.forward, &sub.back] {
+        assert!(
+            matches!(case.status, Status::Converged { iterations } if iterations < 100),
+            "{}: {:?}",
+            case.case.name(),
+            case.status
+        );
         assert!(
             case.stalled.is_empty(),
             "{}: stalled {:?}",

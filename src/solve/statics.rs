@@ -301,14 +301,17 @@ impl<'a> Problem<'a> {
                     BearingResistance::FrictionCircle { radius } => {
                         let k0 = friction::sheave_ratio(radius / r, wrap);
                         let weight = gravity_force(self.rig, sheave.mass.unwrap_or(0.0));
-                        if k0 > capstan {
-                            return (orient(capstan), 0.0, true);
-                        }
-                        if weight.norm() == 0.0 {
-                            return (orient(k0), 0.0, false);
-                        }
-                        let Some(prev) = previous else {
-                            return (orient(k0), 0.0, false);
+                        // The weightless ratio decides the stall only while there is no
+                        // weight or no tension estimate yet: the sheave's own weight can
+                        // lower the pin load (a sheave hanging in its falls), and then
+                        // the balance below, not `k0`, says whether it turns.
+                        let prev = previous.filter(|_| weight.norm() > 0.0);
+                        let Some(prev) = prev else {
+                            return if k0 > capstan {
+                                (orient(capstan), 0.0, true)
+                            } else {
+                                (orient(k0), 0.0, false)
+                            };
                         };
                         let spans = &self.geometry.lines[line].spans;
                         let u_in = spans[e - 1].direction.into_inner();
