@@ -100,6 +100,14 @@ pub enum SolveError {
         /// Its parts.
         parts: Vec<String>,
     },
+    /// The asked part is not connected to the drive (it is in another sub-rig).
+    #[error("`solve_for` names `{part}`, which no line connects to the drive `{drive}`; name a part that the drive moves, or drive that sub-rig")]
+    NotDriven {
+        /// The asked part.
+        part: String,
+        /// The drive.
+        drive: String,
+    },
     /// The equilibrium equations have no solution.
     #[error("no equilibrium exists for {case}: the equations are inconsistent (residual {residual:.3e}); {hint}")]
     NoEquilibrium {
@@ -128,6 +136,7 @@ impl SolveError {
             | SolveError::SubRigWithoutHaul { parts } => (None, parts.first().map(String::as_str)),
             SolveError::FreeParts { parts, .. } => (None, parts.first().map(String::as_str)),
             SolveError::DriveCannotMove { drive } => (None, Some(drive)),
+            SolveError::NotDriven { part, .. } => (None, Some(part)),
             SolveError::MissingQuantity { part, .. } => (None, Some(part)),
             SolveError::NoEquilibrium { .. } => (None, None),
         }
@@ -350,6 +359,12 @@ pub fn solve(rig: &Rig, options: &SolveOptions) -> Result<Solution, SolveError> 
 
     // Pick each sub-rig's drive and unknown.
     let main_component = network.component_of[rig.drive];
+    if rig.solve_for != rig.drive && network.component_of[rig.solve_for] != main_component {
+        return Err(SolveError::NotDriven {
+            part: rig.parts[rig.solve_for].name.clone(),
+            drive: rig.parts[rig.drive].name.clone(),
+        });
+    }
     let mut drives = vec![None; network.components.len()];
     let mut unknowns = vec![None; network.components.len()];
     for (c, members) in network.components.iter().enumerate() {
