@@ -303,18 +303,38 @@ impl SubRigSolution {
         self.drive == self.solve_for
     }
 
-    /// Forward efficiency (DESIGN.md §3): ideal/forward for a drive unknown,
-    /// forward/ideal for a load unknown.
+    /// Whether the power flows from the drive to the loads in the forward case: always
+    /// for a load unknown, and for a drive unknown when its ideal value is positive. A
+    /// negative ideal drive value means the loads drive the rig forward by themselves
+    /// (a winch drum paying out under its load) and the drive holds them back.
+    fn drive_gives_power(&self) -> bool {
+        !self.drive_unknown() || self.ideal.value >= 0.0
+    }
+
+    /// Forward efficiency, power out over power in (DESIGN.md §3): ideal/forward for a
+    /// drive unknown, forward/ideal for a load unknown. Where the loads drive the rig
+    /// forward (negative ideal drive value) the drive takes the power out, and the
+    /// efficiency is forward/ideal.
     pub fn forward_efficiency(&self) -> Option<Real> {
         let (i, f) = (self.ideal.value, self.forward.value);
-        let e = if self.drive_unknown() { i / f } else { f / i };
+        let e = if self.drive_unknown() && self.drive_gives_power() {
+            i / f
+        } else {
+            f / i
+        };
         e.is_finite().then_some(e)
     }
 
-    /// Back efficiency: back/ideal for a drive unknown, ideal/back for a load unknown.
+    /// Back efficiency: back/ideal for a drive unknown, ideal/back for a load unknown;
+    /// where the loads drive the rig forward (negative ideal drive value), running back
+    /// is the drive lifting them, and the efficiency is ideal/back.
     pub fn back_efficiency(&self) -> Option<Real> {
         let (i, b) = (self.ideal.value, self.back.value);
-        let e = if self.drive_unknown() { b / i } else { i / b };
+        let e = if self.drive_unknown() && self.drive_gives_power() {
+            b / i
+        } else {
+            i / b
+        };
         e.is_finite().then_some(e)
     }
 
