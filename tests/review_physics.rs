@@ -271,3 +271,26 @@ fn frictionless_equals_ideal_exactly_in_odd_units() {
     assert_close("ideal", m.ideal.value, 21.0 * G, 1e-6);
     audit_ok(&s);
 }
+
+/// `reeve check` text for a rig.
+fn check_text(name: &str) -> String {
+    let out = std::process::Command::new(env!("CARGO_BIN_EXE_reeve"))
+        .arg("check")
+        .arg(rig_path(name))
+        .output()
+        .unwrap();
+    String::from_utf8_lossy(&out.stdout).into_owned()
+}
+
+#[test]
+fn self_locking_words_point_the_right_way_for_a_load_unknown() {
+    // For a load unknown `back` is the least load that drives the rig back (DESIGN.md
+    // §3): the rig runs back above it (22.37 kg here, capstan equation as in
+    // load_unknown_over_a_capstan_bar), not below.
+    let text = check_text("load-unknown-capstan.yaml");
+    assert!(!text.contains("below the back value"), "{text}");
+    assert!(text.contains("above the back value"), "{text}");
+    // For a drive unknown it runs back when the effort falls below `back`.
+    let text = check_text("drum-middle.yaml");
+    assert!(text.contains("below the back value"), "{text}");
+}
