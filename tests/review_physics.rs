@@ -289,7 +289,7 @@ fn self_locking_words_point_the_right_way_for_a_load_unknown() {
     // load_unknown_over_a_capstan_bar), not below.
     let text = check_text("load-unknown-capstan.yaml");
     assert!(!text.contains("below the back value"), "{text}");
-    assert!(text.contains("above the back value"), "{text}");
+    assert!(text.contains("a load above the back value runs it back"), "{text}");
     // For a drive unknown it runs back when the effort falls below `back`.
     let text = check_text("drum-middle.yaml");
     assert!(text.contains("below the back value"), "{text}");

@@ -198,8 +198,11 @@ impl Headline {
     pub fn self_locking_words(&self) -> &'static str {
         if self.self_locking {
             "Self-locking: yes; it will not run back by itself"
-        } else {
+        } else if self.solve_for.part == self.drive {
             "Self-locking: no; it runs back by itself below the back value"
+        } else {
+            // A load unknown: `back` is the least load that drives the rig back.
+            "Self-locking: no; a load above the back value runs it back"
         }
     }
 
