@@ -294,3 +294,24 @@ fn self_locking_words_point_the_right_way_for_a_load_unknown() {
     let text = check_text("drum-middle.yaml");
     assert!(text.contains("below the back value"), "{text}");
 }
+
+#[test]
+fn loss_of_input_is_positive_when_the_load_drives_forward() {
+    // drum-end-left runs forward by lowering the weight: the input is the weight's
+    // 10 g × 0.053 = 5.1975 W per rad/s, of which the 0.5 N·m drag takes 0.5 W:
+    // 9.62 % (hand calculation). The drive's own power (−4.6975 W) is an output here.
+    let out = std::process::Command::new(env!("CARGO_BIN_EXE_reeve"))
+        .args(["check", "--json"])
+        .arg(rig_path("drum-end-left.yaml"))
+        .output()
+        .unwrap();
+    let json: serde_json::Value = serde_json::from_slice(&out.stdout).unwrap();
+    let winch = json["parts"]
+        .as_array()
+        .unwrap()
+        .iter()
+        .find(|p| p["name"] == "winch")
+        .unwrap();
+    let share = winch["loss_of_input"].as_f64().unwrap();
+    assert_close("loss of input", share, 0.5 / (10.0 * G * 0.053), 1e-9);
+}
