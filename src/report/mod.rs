@@ -129,7 +129,8 @@ pub struct PartReport {
     pub pin_load_direction_ideal: Option<[Real; 3]>,
     /// Share of all losses lost at this part, forward case (0 to 1).
     pub loss_share: Option<Real>,
-    /// Power lost here over drive power, forward case (0 to 1).
+    /// Power lost here over the power put in (the drive's, or the loads' where they
+    /// drive the rig), forward case (0 to 1).
     pub loss_of_input: Option<Real>,
     /// The part's passages.
     pub passages: Vec<PassageReport>,
@@ -411,7 +412,7 @@ impl Report {
                         } else {
                             Some(0.0)
                         },
-                        finite(here / s.forward.drive_power),
+                        finite(here / s.forward.input_power()),
                     )
                 }
                 None => (None, None),

@@ -112,6 +112,17 @@ impl CaseResult {
     pub fn total_loss(&self) -> Real {
         self.loss.iter().sum()
     }
+
+    /// Power put into the rig per unit drive speed, W: the drive's power where the
+    /// drive gives power, else (the loads drive the rig, the drive holds them back) the
+    /// power the loads give.
+    pub fn input_power(&self) -> Real {
+        if self.drive_power >= 0.0 {
+            self.drive_power
+        } else {
+            self.load_power.iter().filter(|p| **p < 0.0).map(|p| -p).sum()
+        }
+    }
 }
 
 /// The statics problem of one sub-rig.
