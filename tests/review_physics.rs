@@ -289,7 +289,10 @@ fn self_locking_words_point_the_right_way_for_a_load_unknown() {
     // load_unknown_over_a_capstan_bar), not below.
     let text = check_text("load-unknown-capstan.yaml");
     assert!(!text.contains("below the back value"), "{text}");
-    assert!(text.contains("a load above the back value runs it back"), "{text}");
+    assert!(
+        text.contains("a load above the back value runs it back"),
+        "{text}"
+    );
     // For a drive unknown it runs back when the effort falls below `back`.
     let text = check_text("drum-middle.yaml");
     assert!(text.contains("below the back value"), "{text}");
@@ -314,4 +317,50 @@ fn loss_of_input_is_positive_when_the_load_drives_forward() {
         .unwrap();
     let share = winch["loss_of_input"].as_f64().unwrap();
     assert_close("loss of input", share, 0.5 / (10.0 * G * 0.053), 1e-9);
+}
+
+#[test]
+fn block_load_unknown_under_a_heavy_moving_sheave() {
+    // Hand calculation (rig header): r_f/R = 0.980 58 mm/33 mm = 0.029 715; falls carry
+    // (m + 2) g, the pin m g; with P = 250 N:
+    // forward m = (500 − 2 g)/(g (1 + r_f/R)) = 47.572 kg (greatest load lifted),
+    // back m = (500 − 2 g)/(g (1 − r_f/R)) = 50.486 kg (least load that runs back).
+    let (_, s) = solve_rig("block-unknown.yaml");
+    let m = s.main();
+    let q = friction_circle(0.005, 0.2) / 0.033;
+    assert_close("ideal", m.ideal.value, 500.0 / G - 2.0, 1e-8);
+    assert_close(
+        "forward",
+        m.forward.value,
+        (500.0 - 2.0 * G) / (G * (1.0 + q)),
+        1e-8,
+    );
+    assert_close(
+        "back",
+        m.back.value,
+        (500.0 - 2.0 * G) / (G * (1.0 - q)),
+        1e-8,
+    );
+    assert!(m.forward_efficiency().unwrap() < 1.0 && m.back_efficiency().unwrap() < 1.0);
+    no_stall(m);
+    audit_ok(&s);
+}
+
+#[test]
+fn capstan_head_drive_with_a_tailing_hand() {
+    // Hand calculation: torque (98.0665 − 10) N × 0.053 m = 4.6675 N·m; the passage
+    // holds 9.807 ≤ e^{0.2 × 7π} = 81.3 with 3 turns (capstan equation, Hibbeler §8.5)
+    // and slips with none (limit e^{0.2π} = 1.874).
+    let (_, s) = solve_rig("capstan-winch.yaml");
+    let m = s.main();
+    assert_close("ideal", m.ideal.value, (10.0 * G - 10.0) * 0.053, 1e-8);
+    assert!(m.forward.slipping.is_empty());
+    let text = std::fs::read_to_string(rig_path("capstan-winch.yaml"))
+        .unwrap()
+        .replace("turns: 3", "turns: 0");
+    let rig = load_str(&text, "capstan-winch.yaml").unwrap();
+    let s = solve(&rig, &SolveOptions::default()).unwrap();
+    let slip = s.main().forward.slipping.first().copied().unwrap();
+    assert_close("needed", slip.ratio, G, 1e-8);
+    assert_close("limit", slip.limit, (0.2 * PI).exp(), 1e-8);
 }

@@ -120,7 +120,11 @@ impl CaseResult {
         if self.drive_power >= 0.0 {
             self.drive_power
         } else {
-            self.load_power.iter().filter(|p| **p < 0.0).map(|p| -p).sum()
+            self.load_power
+                .iter()
+                .filter(|p| **p < 0.0)
+                .map(|p| -p)
+                .sum()
         }
     }
 }
