@@ -128,10 +128,63 @@ pub fn plumb_checks(rig: &Rig, solution: &Solution) -> Vec<Warning> {
     out
 }
 
+/// A haul pulled more than this off its rope reports only the effort's component (5°).
+pub const PULL_OFF_ROPE: Real = 5.0 * std::f64::consts::PI / 180.0;
+
+/// Haul ends pulled along a stated `pull` that is not along their rope: the effort shown
+/// is the component along `pull` (right for a slider on a track, misleading for a hand
+/// on a rope), so say so and give the rope's tension.
+pub fn pull_checks(rig: &Rig, solution: &Solution) -> Vec<Warning> {
+    let mut out = Vec::new();
+    for (l, line) in rig.lines.iter().enumerate() {
+        let spans = &solution.geometry.lines[l].spans;
+        let n = line.path.len();
+        let ends = [
+            (
+                line.path[0].part,
+                0,
+                spans.first().map(|s| -s.direction.into_inner()),
+            ),
+            (
+                line.path[n - 1].part,
+                spans.len().saturating_sub(1),
+                spans.last().map(|s| s.direction.into_inner()),
+            ),
+        ];
+        for (part, span, along_rope) in ends {
+            let (PartKind::Haul(h), Some(along_rope)) = (&rig.parts[part].kind, along_rope) else {
+                continue;
+            };
+            let Some(pull) = h.pull else { continue };
+            let angle = pull.dot(&along_rope).clamp(-1.0, 1.0).acos();
+            if angle <= PULL_OFF_ROPE {
+                continue;
+            }
+            let tension = solution
+                .subrigs
+                .iter()
+                .find_map(|s| s.forward.tension.get(l).and_then(|t| t.get(span)).copied());
+            let name = &rig.parts[part].name;
+            out.push(warn(
+                "pull-off-rope",
+                Some(name),
+                false,
+                format!(
+                    "`{name}` is pulled {:.1}° off its rope: the effort shown is the component along `pull`; the rope itself carries {} N forward",
+                    angle.to_degrees(),
+                    tension.map_or("—".to_string(), |t| format!("{t:.4}"))
+                ),
+            ));
+        }
+    }
+    out
+}
+
 /// All checks over a solution.
 pub fn run(rig: &Rig, solution: &Solution) -> Vec<Warning> {
     let mut out = geometry_checks(rig, &solution.geometry);
     out.extend(plumb_checks(rig, solution));
+    out.extend(pull_checks(rig, solution));
     for sub in &solution.subrigs {
         out.extend(subrig_checks(rig, sub));
     }
@@ -171,6 +224,18 @@ fn subrig_checks(rig: &Rig, sub: &SubRigSolution) -> Vec<Warning> {
                 ));
             }
         }
+    }
+    // The load does the work going forward: forward lowers or pays out.
+    if sub.drive_unknown() && sub.ideal.value < 0.0 {
+        out.push(warn(
+            "drive-reversed",
+            Some(drive),
+            false,
+            format!(
+                "with `{drive}` moving forward the load does the work (ideal {:.4} {unit}): forward lowers or pays out, and the values are what the drive must hold back; for a drum check `side` on its path entry if that is not what you meant",
+                sub.ideal.value
+            ),
+        ));
     }
     // Static friction: it may run once started but not start from rest.
     if let (Some(available), Some(breakaway)) = (

@@ -104,3 +104,61 @@ fn every_anchor_and_fixed_sheave_reports_its_pin_load() {
         }
     }
 }
+
+fn check_json(args: &[&str]) -> serde_json::Value {
+    let out = Command::new(env!("CARGO_BIN_EXE_reeve"))
+        .arg("check")
+        .args(args)
+        .arg("--json")
+        .output()
+        .unwrap();
+    serde_json::from_slice(&out.stdout).unwrap()
+}
+
+fn codes(json: &serde_json::Value) -> Vec<String> {
+    json["warnings"]
+        .as_array()
+        .unwrap()
+        .iter()
+        .map(|w| w["code"].as_str().unwrap().to_string())
+        .collect()
+}
+
+#[test]
+fn a_drum_paying_out_is_flagged_and_self_locks_when_drag_holds_it() {
+    // tests/rigs/review/drum-end-left.yaml: 10 kg hangs from a drum (R = 53 mm) that pays
+    // out when it turns forward. Hand calculation: load torque 10·9.80665·0.053 =
+    // 5.1975 N·m. With 0.5 N·m drag the load still runs it (forward −4.6975 N·m): not
+    // self-locking. With 6 N·m drag, zero torque holds it (band −11.1975 … +0.8025 N·m).
+    let rig = "tests/rigs/review/drum-end-left.yaml";
+    let free = check_json(&[rig]);
+    assert!(
+        codes(&free).contains(&"drive-reversed".to_string()),
+        "{free}"
+    );
+    assert_eq!(free["self_locking"], false);
+    let held = check_json(&[rig, "--set", "parts.winch.drag=6"]);
+    let forward = held["forward"]["value"].as_f64().unwrap();
+    let back = held["back"]["value"].as_f64().unwrap();
+    assert!(
+        (forward - 0.8025).abs() < 1e-3 && (back + 11.1975).abs() < 1e-3,
+        "{held}"
+    );
+    assert_eq!(held["self_locking"], true, "{held}");
+}
+
+#[test]
+fn a_haul_pulled_off_its_rope_says_what_the_rope_carries() {
+    // tests/rigs/review/haul-oblique.yaml: 10 kg on one rope, the hand's `pull` 60° off
+    // it, so the effort along `pull` is 98.0665·cos 60° = 49.03 N (hand calculation).
+    let json = check_json(&["tests/rigs/review/haul-oblique.yaml"]);
+    assert!(
+        codes(&json).contains(&"pull-off-rope".to_string()),
+        "{json}"
+    );
+    let plain = check_json(&["rigs/workshop-hoist.yaml"]);
+    assert!(
+        !codes(&plain).contains(&"pull-off-rope".to_string()),
+        "{plain}"
+    );
+}

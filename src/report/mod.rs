@@ -111,6 +111,10 @@ pub struct PassageReport {
 pub struct PartReport {
     /// Name.
     pub name: String,
+    /// Whether the part belongs to the main sub-rig (the one the drive moves); text
+    /// reports list the main sub-rig's losses. Not in the JSON.
+    #[serde(skip_serializing)]
+    pub in_main: bool,
     /// Kind as written.
     pub kind: &'static str,
     /// Largest wrap over its passages, degrees.
@@ -197,9 +201,14 @@ pub struct Headline {
 impl Headline {
     /// The self-locking sentence, as every human-readable report words it.
     pub fn self_locking_words(&self) -> &'static str {
-        if self.self_locking {
+        let drive_unknown = self.solve_for.part == self.drive;
+        if self.self_locking && drive_unknown && self.ideal.value.is_some_and(|v| v < 0.0) {
+            "Self-locking: yes; friction alone stops the load driving it forward"
+        } else if self.self_locking {
             "Self-locking: yes; it will not run back by itself"
-        } else if self.solve_for.part == self.drive {
+        } else if drive_unknown && self.forward.value.is_some_and(|v| v < 0.0) {
+            "Self-locking: no; the load drives it forward by itself unless the drive holds back harder than the forward value"
+        } else if drive_unknown {
             "Self-locking: no; it runs back by itself below the back value"
         } else {
             // A load unknown: `back` is the least load that drives the rig back.
@@ -418,6 +427,7 @@ impl Report {
                 None => (None, None),
             };
             parts.push(PartReport {
+                in_main: sub.is_some_and(|s| s.component == main.component),
                 name: part.name.clone(),
                 kind: part.kind.name(),
                 wrap_deg,

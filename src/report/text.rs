@@ -161,7 +161,7 @@ pub fn write_check(w: &mut dyn Write, rig: &Rig, report: &Report, source: &str) 
     let mut losses: Vec<_> = report
         .parts
         .iter()
-        .filter(|p| p.loss_share.unwrap_or(0.0) > 0.0)
+        .filter(|p| p.in_main && p.loss_share.unwrap_or(0.0) > 0.0)
         .collect();
     losses.sort_by(|a, b| {
         b.loss_share

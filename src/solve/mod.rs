@@ -338,9 +338,20 @@ impl SubRigSolution {
         e.is_finite().then_some(e)
     }
 
-    /// Self-locking: `back` has the opposite sign to `ideal` (it will not run back).
+    /// Self-locking: with no effort from the drive, friction holds the rig where it is.
+    ///
+    /// For a drive unknown that is a holding band `[back, forward]` with zero inside it.
+    /// Where the ideal value is positive this is DESIGN.md's rule, `back` of the opposite
+    /// sign to `ideal` (it will not run back by itself); where the ideal value is negative
+    /// (the load drives the rig forward, e.g. a winch paying out), it means friction
+    /// alone stops the load running it forward. For a load unknown: `back` of the
+    /// opposite sign to `ideal`.
     pub fn self_locking(&self) -> bool {
-        self.back.value * self.ideal.value < 0.0
+        if self.drive_unknown() {
+            self.back.value < 0.0 && self.forward.value > 0.0
+        } else {
+            self.back.value * self.ideal.value < 0.0
+        }
     }
 
     /// Mechanical advantage: velocity ratio × forward efficiency.
