@@ -343,7 +343,12 @@ mod tests {
     #[test]
     fn default_units_are_mm_n_kg_nm() {
         let d = UnitSystem::default();
-        let symbols = [d.length.symbol, d.force.symbol, d.mass.symbol, d.torque.symbol];
+        let symbols = [
+            d.length.symbol,
+            d.force.symbol,
+            d.mass.symbol,
+            d.torque.symbol,
+        ];
         assert_eq!(symbols, ["mm", "N", "kg", "N*m"]);
     }
 

@@ -7,6 +7,7 @@ use std::path::PathBuf;
 use crate::study::table::Format;
 use crate::study::{compare, rank, spread, sweep, RigSource, StudyError};
 
+use super::output::{emit, Destination};
 use super::{parse_sets, write_out, Failure, RigArgs, EXIT_OK};
 
 /// Output format options shared by the studies.
@@ -127,17 +128,6 @@ fn source(args: &RigArgs) -> Result<RigSource, Failure> {
     Ok(s)
 }
 
-/// Writes `text` to `path` through a temporary file renamed into place, so an
-/// interrupted run leaves no partial file.
-fn write_file(path: &PathBuf, text: &str) -> Result<(), Failure> {
-    let tmp = path.with_extension("svg.part");
-    let result = std::fs::write(&tmp, text).and_then(|_| std::fs::rename(&tmp, path));
-    result.map_err(|e| {
-        let _ = std::fs::remove_file(&tmp);
-        Failure::input(format!("cannot write `{}`: {e}", path.display()))
-    })
-}
-
 /// `reeve compare`.
 pub fn run_compare(args: CompareArgs) -> Result<i32, Failure> {
     let format = args.format.format()?;
@@ -186,7 +176,10 @@ pub fn run_sweep(args: SweepArgs) -> Result<i32, Failure> {
         )
     };
     if let Some(path) = &args.plot {
-        write_file(path, &chart)?;
+        // Atomic, and never over the input rig (`--plot rig.yaml` is a slip of the hand).
+        emit(&Destination::File(path.clone()), &args.rig.rig, |w| {
+            w.write_all(chart.as_bytes())
+        })?;
     }
     write_out(|w| write(w))?;
     Ok(EXIT_OK)
