@@ -98,9 +98,9 @@ fn output_to_a_fifo_writes_into_it_and_keeps_it() {
     assert_eq!(out.status.code(), Some(0), "{}", stderr(&out));
     let kind = std::fs::symlink_metadata(&fifo).unwrap().file_type();
     assert!(kind.is_fifo(), "the FIFO was replaced by a regular file");
-    let mut buf = [0u8; 4];
-    end.read_exact(&mut buf).unwrap();
-    assert_eq!(&buf, b"<svg");
+    let mut buf = [0u8; 512];
+    let n = end.read(&mut buf).unwrap();
+    assert!(String::from_utf8_lossy(&buf[..n]).contains("<svg"));
 }
 
 #[test]
