@@ -191,6 +191,15 @@ pub fn run_sweep(args: SweepArgs) -> Result<i32, Failure> {
         let text = args.vary.as_deref().unwrap_or_default();
         let vary = sweep::parse_vary(text).map_err(fail)?;
         let sw = sweep::sweep(&s, &vary, steps).map_err(fail)?;
+        // A key that no step can take (no such part, a value in the wrong unit) is bad
+        // input, not a table of dashes.
+        if sw.steps.iter().all(|st| st.error.is_some()) {
+            let why = sw.steps.iter().find_map(|st| st.error.clone());
+            return Err(Failure::input(format!(
+                "--vary `{text}`: no step could be solved; at the first: {}",
+                why.unwrap_or_default()
+            )));
+        }
         (
             sweep::sweep_chart(&sw),
             Box::new(move |w| sweep::write_sweep(w, &sw, format)),
