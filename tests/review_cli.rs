@@ -181,3 +181,32 @@ fn sweep_of_a_key_that_never_solves_is_bad_input() {
     );
     assert_eq!(out.status.code(), Some(0), "{}", stderr(&out));
 }
+
+#[test]
+fn studies_locate_solve_errors_like_check() {
+    let dir = scratch("study-locate");
+    // A line tied at both ends: it loads, but the solver finds that nothing can move.
+    let rig = "format: 1\nropes:\n  r: {diameter: 6, mu: 0.2}\nparts:\n  a: {kind: anchor, at: [0, 0, 2000]}\n  h: {kind: haul, at: [0, 0, 0]}\nlines:\n  l: {rope: r, path: [a, h]}\n";
+    std::fs::write(dir.join("rig.yaml"), rig).unwrap();
+    let check = reeve(&dir, &["check", "rig.yaml"]);
+    assert_eq!(check.status.code(), Some(2));
+    assert!(
+        stderr(&check).contains("rig.yaml:6:3: parts.h:"),
+        "{}",
+        stderr(&check)
+    );
+    for args in [
+        &["rank", "rig.yaml"][..],
+        &["spread", "rig.yaml", "--samples", "3"],
+        &["compare", "rig.yaml"],
+        &["sweep", "rig.yaml", "--stroke", "10"],
+    ] {
+        let out = reeve(&dir, args);
+        assert_eq!(out.status.code(), Some(2), "{args:?}");
+        assert!(
+            stderr(&out).contains("rig.yaml:6:3: parts.h:"),
+            "{args:?}: {}",
+            stderr(&out)
+        );
+    }
+}
