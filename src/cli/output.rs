@@ -58,7 +58,8 @@ static TEMP_COUNTER: AtomicU64 = AtomicU64::new(0);
 /// Writes `path` atomically: `write` fills a temporary file in the same folder, which
 /// is flushed, synced and renamed over `path` only when `write` succeeded. On any error
 /// the temporary file is removed and `path` is left as it was. An existing file's
-/// permissions are kept.
+/// permissions are kept. An existing special file (FIFO, device) is written into
+/// directly, since it cannot be replaced.
 ///
 /// # Errors
 /// The first I/O error: creating the temporary file, writing, syncing or renaming.
@@ -66,6 +67,14 @@ pub fn write_atomically(
     path: &Path,
     write: impl FnOnce(&mut dyn Write) -> io::Result<()>,
 ) -> io::Result<()> {
+    // A FIFO, a device or a terminal (`-o /dev/stdout`, `-o /dev/null`) cannot be
+    // replaced: renaming over it would swap the special file for a regular one (as root,
+    // `-o /dev/null` would destroy /dev/null). Write into it instead.
+    if fs::metadata(path).is_ok_and(|m| !m.is_file() && !m.is_dir()) {
+        let mut out = BufWriter::new(fs::OpenOptions::new().write(true).open(path)?);
+        write(&mut out)?;
+        return out.flush();
+    }
     let folder = match path.parent() {
         Some(p) if !p.as_os_str().is_empty() => p.to_path_buf(),
         _ => PathBuf::from("."),

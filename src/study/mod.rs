@@ -39,7 +39,8 @@ pub enum StudyError {
     /// The rig loads but cannot be solved.
     #[error("{source_name}: {error}")]
     Solve {
-        /// The rig file.
+        /// The rig file, with the line, column and part or key where the error can be
+        /// located (`rig.yaml:6:3: parts.h`), as `check` words it.
         source_name: String,
         /// Why.
         error: SolveError,
@@ -117,9 +118,14 @@ impl RigSource {
     /// # Errors
     /// [`StudyError::Solve`].
     pub fn solve_rig(&self, rig: &Rig) -> Result<Solution, StudyError> {
-        solve::solve(rig, &SolveOptions::default()).map_err(|error| StudyError::Solve {
-            source_name: self.source.clone(),
-            error,
+        solve::solve(rig, &SolveOptions::default()).map_err(|error| {
+            let source_name = match error.location(rig) {
+                Some((l, subject)) if l.line > 0 => {
+                    format!("{}:{}:{}: {subject}", self.source, l.line, l.column)
+                }
+                _ => self.source.clone(),
+            };
+            StudyError::Solve { source_name, error }
         })
     }
 

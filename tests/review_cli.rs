@@ -1,0 +1,212 @@
+//! Adversarial review of the command line: the real binary used as a careless or
+//! hurried user would use it. Each test pins a problem that was found and fixed: the
+//! tool must not write over its input, must not replace a special file with a regular
+//! one, must bound the work it is asked for instead of aborting, and must give exit 2
+//! with a clear message on bad arguments.
+
+use std::path::{Path, PathBuf};
+use std::process::{Command, Output};
+
+/// A fresh scratch folder for one test.
+fn scratch(name: &str) -> PathBuf {
+    let dir = std::env::temp_dir().join(format!("reeve-review-{}-{name}", std::process::id()));
+    let _ = std::fs::remove_dir_all(&dir);
+    std::fs::create_dir_all(&dir).unwrap();
+    dir
+}
+
+/// A small rig that solves: a weight over one plain-bearing sheave, hauled by hand.
+const RIG: &str = "format: 1
+title: review rig
+units: {length: mm, force: N, mass: kg}
+ropes:
+  r: {diameter: 6, mu: 0.2}
+parts:
+  s: {kind: sheave, at: [0, 0, 2000], axle: [0, 1, 0], diameter: 50,
+      bearing: {kind: plain, pin_diameter: 8, mu: 0.1}}
+  w: {kind: weight, at: [-25, 0, 1000], mass: 5}
+  h: {kind: haul, at: [25, 0, 1000]}
+lines:
+  l: {rope: r, path: [w, s, h]}
+";
+
+fn write_rig(dir: &Path) -> PathBuf {
+    let path = dir.join("rig.yaml");
+    std::fs::write(&path, RIG).unwrap();
+    path
+}
+
+fn reeve(dir: &Path, args: &[&str]) -> Output {
+    Command::new(env!("CARGO_BIN_EXE_reeve"))
+        .current_dir(dir)
+        .args(args)
+        .output()
+        .unwrap()
+}
+
+fn stderr(out: &Output) -> String {
+    String::from_utf8_lossy(&out.stderr).into_owned()
+}
+
+#[test]
+fn sweep_plot_refuses_to_write_over_the_input_rig() {
+    let dir = scratch("plot-input");
+    write_rig(&dir);
+    let out = reeve(
+        &dir,
+        &[
+            "sweep",
+            "rig.yaml",
+            "--vary",
+            "parts.s.bearing.mu=0.05..0.2",
+            "--steps",
+            "3",
+            "--plot",
+            "./rig.yaml",
+        ],
+    );
+    assert_eq!(out.status.code(), Some(2), "{}", stderr(&out));
+    assert!(stderr(&out).contains("refusing to write over the input rig"));
+    assert_eq!(
+        std::fs::read_to_string(dir.join("rig.yaml")).unwrap(),
+        RIG,
+        "the input rig was changed"
+    );
+}
+
+#[cfg(unix)]
+#[test]
+fn output_to_a_fifo_writes_into_it_and_keeps_it() {
+    use std::io::Read;
+    use std::os::unix::fs::FileTypeExt;
+    let dir = scratch("fifo");
+    write_rig(&dir);
+    let fifo = dir.join("out.svg");
+    let made = Command::new("mkfifo").arg(&fifo).status();
+    if !matches!(made, Ok(s) if s.success()) {
+        eprintln!("mkfifo is not available; skipped");
+        return;
+    }
+    // Opened for reading and writing, a FIFO does not block, and it keeps a reader
+    // present while reeve writes (the drawing is far below the pipe's buffer).
+    let mut end = std::fs::OpenOptions::new()
+        .read(true)
+        .write(true)
+        .open(&fifo)
+        .unwrap();
+    let out = reeve(&dir, &["draw", "rig.yaml", "-o", "out.svg"]);
+    assert_eq!(out.status.code(), Some(0), "{}", stderr(&out));
+    let kind = std::fs::symlink_metadata(&fifo).unwrap().file_type();
+    assert!(kind.is_fifo(), "the FIFO was replaced by a regular file");
+    let mut buf = [0u8; 512];
+    let n = end.read(&mut buf).unwrap();
+    assert!(String::from_utf8_lossy(&buf[..n]).contains("<svg"));
+}
+
+#[test]
+fn spread_with_an_absurd_sample_count_is_refused() {
+    let dir = scratch("samples");
+    write_rig(&dir);
+    let out = reeve(
+        &dir,
+        &["spread", "rig.yaml", "--samples", "18446744073709551615"],
+    );
+    assert_eq!(out.status.code(), Some(2), "{}", stderr(&out));
+    assert!(stderr(&out).contains("--samples"), "{}", stderr(&out));
+}
+
+#[test]
+fn sweep_with_an_absurd_step_count_is_refused() {
+    let dir = scratch("steps-huge");
+    write_rig(&dir);
+    for mode in [
+        ["--vary", "parts.s.bearing.mu=0.05..0.2"],
+        ["--stroke", "100"],
+    ] {
+        let out = reeve(
+            &dir,
+            &[
+                "sweep",
+                "rig.yaml",
+                mode[0],
+                mode[1],
+                "--steps",
+                "100000000000",
+            ],
+        );
+        assert_eq!(out.status.code(), Some(2), "{mode:?}: {}", stderr(&out));
+        assert!(stderr(&out).contains("--steps"), "{}", stderr(&out));
+    }
+}
+
+#[test]
+fn sweep_with_zero_steps_is_refused() {
+    let dir = scratch("steps-zero");
+    write_rig(&dir);
+    for mode in [
+        ["--vary", "parts.s.bearing.mu=0.05..0.2"],
+        ["--stroke", "100"],
+    ] {
+        let out = reeve(
+            &dir,
+            &["sweep", "rig.yaml", mode[0], mode[1], "--steps", "0"],
+        );
+        assert_eq!(out.status.code(), Some(2), "{mode:?}: {}", stderr(&out));
+        assert!(stderr(&out).contains("--steps"), "{}", stderr(&out));
+    }
+}
+
+#[test]
+fn sweep_of_a_key_that_never_solves_is_bad_input() {
+    let dir = scratch("vary-bad");
+    write_rig(&dir);
+    // A part that does not exist, and a value with the wrong unit: no step can solve.
+    for vary in ["parts.nope.mu=1..2", "parts.s.diameter=10kg..20kg"] {
+        let out = reeve(&dir, &["sweep", "rig.yaml", "--vary", vary, "--steps", "3"]);
+        assert_eq!(out.status.code(), Some(2), "{vary}: {}", stderr(&out));
+        assert!(stderr(&out).contains("rig.yaml"), "{}", stderr(&out));
+        assert!(out.stdout.is_empty(), "{vary}: a table was printed");
+    }
+    // A range that is valid only in part still sweeps, showing where it fails.
+    let out = reeve(
+        &dir,
+        &[
+            "sweep",
+            "rig.yaml",
+            "--vary",
+            "parts.s.bearing.mu=-0.1..0.2",
+            "--steps",
+            "3",
+        ],
+    );
+    assert_eq!(out.status.code(), Some(0), "{}", stderr(&out));
+}
+
+#[test]
+fn studies_locate_solve_errors_like_check() {
+    let dir = scratch("study-locate");
+    // A line tied at both ends: it loads, but the solver finds that nothing can move.
+    let rig = "format: 1\nropes:\n  r: {diameter: 6, mu: 0.2}\nparts:\n  a: {kind: anchor, at: [0, 0, 2000]}\n  h: {kind: haul, at: [0, 0, 0]}\nlines:\n  l: {rope: r, path: [a, h]}\n";
+    std::fs::write(dir.join("rig.yaml"), rig).unwrap();
+    let check = reeve(&dir, &["check", "rig.yaml"]);
+    assert_eq!(check.status.code(), Some(2));
+    assert!(
+        stderr(&check).contains("rig.yaml:6:3: parts.h:"),
+        "{}",
+        stderr(&check)
+    );
+    for args in [
+        &["rank", "rig.yaml"][..],
+        &["spread", "rig.yaml", "--samples", "3"],
+        &["compare", "rig.yaml"],
+        &["sweep", "rig.yaml", "--stroke", "10"],
+    ] {
+        let out = reeve(&dir, args);
+        assert_eq!(out.status.code(), Some(2), "{args:?}");
+        assert!(
+            stderr(&out).contains("rig.yaml:6:3: parts.h:"),
+            "{args:?}: {}",
+            stderr(&out)
+        );
+    }
+}
