@@ -162,3 +162,18 @@ fn a_haul_pulled_off_its_rope_says_what_the_rope_carries() {
         "{plain}"
     );
 }
+
+#[test]
+fn a_block_cannot_drive_against_its_own_load() {
+    // A block driving upward against its own mass load would do negative work; refuse
+    // it with a located message instead of showing an efficiency above 100 %.
+    let rig = format!(
+        "{HEAD}  top: {{kind: sheave, at: [0, 0, 1000], axle: [0, 1, 0], diameter: 60, bearing: {{kind: none}}}}\n  b: {{kind: block, at: [-33, 0, 0], moves: [0, 0, 1], load: {{mass: 5}}}}\n  w: {{kind: weight, at: [33, 0, 0], mass: 4}}\nlines:\n  l: {{rope: r, path: [b, top, w]}}\ndrive: b\n"
+    );
+    let (code, _, err) = run(&rig);
+    assert_eq!(code, 2, "{err}");
+    assert!(
+        err.contains(":6:") && err.contains("`b`") && err.contains("against its own travel"),
+        "{err}"
+    );
+}

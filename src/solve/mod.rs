@@ -108,6 +108,12 @@ pub enum SolveError {
         /// The drive.
         drive: String,
     },
+    /// A block named as the drive whose own load works against its forward travel.
+    #[error("the drive `{drive}` is a block whose load works against its own travel (a force load always does; a mass load does unless `moves` points down); a block drives a rig only as a falling weight: drive it with a haul, a weight or a drum, or point `moves` along gravity")]
+    DriveAgainstItsLoad {
+        /// The block.
+        drive: String,
+    },
     /// The equilibrium equations have no solution.
     #[error("no equilibrium exists for {case}: the equations are inconsistent (residual {residual:.3e}); {hint}")]
     NoEquilibrium {
@@ -137,6 +143,7 @@ impl SolveError {
             SolveError::FreeParts { parts, .. } => (None, parts.first().map(String::as_str)),
             SolveError::DriveCannotMove { drive } => (None, Some(drive)),
             SolveError::NotDriven { part, .. } => (None, Some(part)),
+            SolveError::DriveAgainstItsLoad { drive } => (None, Some(drive)),
             SolveError::MissingQuantity { part, .. } => (None, Some(part)),
             SolveError::NoEquilibrium { .. } => (None, None),
         }
@@ -395,6 +402,14 @@ pub fn solve(rig: &Rig, options: &SolveOptions) -> Result<Solution, SolveError> 
             part: rig.parts[rig.solve_for].name.clone(),
             drive: rig.parts[rig.drive].name.clone(),
         });
+    }
+    // A block drives only as a falling weight: its load must act along its travel.
+    if let PartKind::Block(b) = &rig.parts[rig.drive].kind {
+        if b.load_is_force || rig.gravity.dot(&b.moves) <= 0.0 {
+            return Err(SolveError::DriveAgainstItsLoad {
+                drive: rig.parts[rig.drive].name.clone(),
+            });
+        }
     }
     let mut drives = vec![None; network.components.len()];
     let mut unknowns = vec![None; network.components.len()];
