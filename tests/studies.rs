@@ -709,3 +709,10 @@ fn rank_falls_back_to_the_frictionless_saving_where_the_alternative_does_not_app
     assert!(saved.windows(2).all(|w| w[0] >= w[1]), "{saved:?}");
     assert_eq!(out["parts"][0]["part"], "leg.biner");
 }
+
+#[test]
+fn a_zero_stroke_is_refused() {
+    let out = run(&["sweep", "rigs/workshop-hoist.yaml", "--stroke", "0"]);
+    assert_eq!(out.status.code(), Some(2));
+    assert!(String::from_utf8_lossy(&out.stderr).contains("other than zero"));
+}

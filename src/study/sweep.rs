@@ -418,6 +418,11 @@ pub fn stroke(
         .flatten()
         .is_some_and(|i| matches!(first.kinematics.dofs[i].motion, Motion::Rotate(_)));
     let total = parse_travel(distance, &rig, rotates)?;
+    if total == 0.0 || !total.is_finite() {
+        return Err(StudyError::Input(format!(
+            "--stroke `{distance}`: expected a travel other than zero (negative moves the drive back)"
+        )));
+    }
     let steps = steps.max(1);
     let substeps = substeps.max(1);
     let dt = total / (steps * substeps) as Real;
