@@ -2,6 +2,8 @@
 //! published worked examples and handbook formulas. Every check names its source beside
 //! it; values known only from memory say so, hand calculations show their arithmetic.
 
+mod common;
+use common::{assert_close, audit_ok};
 use std::f64::consts::PI;
 
 use reeve::math::STANDARD_GRAVITY;
@@ -18,28 +20,6 @@ fn solve_text(text: &str) -> (Rig, Solution) {
     let solution = solve(&rig, &SolveOptions::default())
         .unwrap_or_else(|e| panic!("rig does not solve: {e}\n{text}"));
     (rig, solution)
-}
-
-/// Relative closeness with a message carrying both numbers.
-fn assert_close(what: &str, measured: f64, expected: f64, rel_tol: f64) {
-    let err = (measured - expected).abs() / expected.abs().max(1e-300);
-    assert!(
-        err <= rel_tol,
-        "{what}: measured {measured}, expected {expected} (relative error {err:.3e} > {rel_tol:.1e})"
-    );
-}
-
-fn audit_ok(solution: &Solution) {
-    for sub in &solution.subrigs {
-        for case in [&sub.ideal, &sub.forward, &sub.back] {
-            assert!(
-                case.audit_residual < 1e-9,
-                "{}: energy audit residual {}",
-                case.case.name(),
-                case.audit_residual
-            );
-        }
-    }
 }
 
 // ---------------------------------------------------------------------------------

@@ -3,6 +3,8 @@
 //! checked against a hand calculation (arithmetic beside the check) or a published
 //! formula named beside it.
 
+mod common;
+use common::{assert_close, audit_ok};
 use std::f64::consts::PI;
 use std::path::PathBuf;
 
@@ -27,28 +29,6 @@ fn solve_rig(name: &str) -> (Rig, Solution) {
     let rig = load(name);
     let solution = solve(&rig, &SolveOptions::default()).unwrap_or_else(|e| panic!("{name}: {e}"));
     (rig, solution)
-}
-
-fn assert_close(what: &str, measured: f64, expected: f64, rel_tol: f64) {
-    let err = (measured - expected).abs() / expected.abs().max(1e-300);
-    assert!(
-        err <= rel_tol,
-        "{what}: measured {measured}, expected {expected} (relative error {err:.3e} > {rel_tol:.1e})"
-    );
-}
-
-/// Energy audit of every case of every sub-rig balances (DESIGN.md §3 step 5).
-fn audit_ok(solution: &Solution) {
-    for sub in &solution.subrigs {
-        for case in [&sub.ideal, &sub.forward, &sub.back] {
-            assert!(
-                case.audit_residual < 1e-9,
-                "{}: energy audit residual {}",
-                case.case.name(),
-                case.audit_residual
-            );
-        }
-    }
 }
 
 fn no_stall(sub: &SubRigSolution) {

@@ -10,6 +10,8 @@ use crate::checks;
 use crate::report::svg::{self, DrawOptions, View};
 use crate::report::table::{self, CaseFilter, Style, TableChoice};
 use crate::report::{html, Report};
+use crate::rig::Rig;
+use crate::solve::Solution;
 
 use super::output::{emit, Destination};
 use super::{load_and_solve, Failure, RigArgs, EXIT_BAD_INPUT, EXIT_OK};
@@ -147,8 +149,7 @@ pub fn today() -> String {
 
 /// `reeve table`.
 pub fn run_table(args: TableArgs) -> Result<i32, Failure> {
-    let (rig, solution) = load_and_solve(&args.rig)?;
-    let report = Report::build(&rig, &solution, checks::run(&rig, &solution));
+    let (rig, _, report) = solved_report(&args.rig)?;
     let cases = cases(args.case);
     let choice = match (args.table, args.format) {
         (Some(TableArg::Spans), _) => TableChoice::Spans,
@@ -191,10 +192,16 @@ pub fn run_table(args: TableArgs) -> Result<i32, Failure> {
     Ok(EXIT_OK)
 }
 
+/// Loads, solves and checks a rig, and builds its report.
+fn solved_report(args: &RigArgs) -> Result<(Rig, Solution, Report), Failure> {
+    let (rig, solution) = load_and_solve(args)?;
+    let report = Report::build(&rig, &solution, checks::run(&rig, &solution));
+    Ok((rig, solution, report))
+}
+
 /// `reeve draw`.
 pub fn run_draw(args: DrawArgs) -> Result<i32, Failure> {
-    let (rig, solution) = load_and_solve(&args.rig)?;
-    let report = Report::build(&rig, &solution, checks::run(&rig, &solution));
+    let (rig, solution, report) = solved_report(&args.rig)?;
     let options = DrawOptions {
         view: view(args.view),
         date: today(),
@@ -209,8 +216,7 @@ pub fn run_draw(args: DrawArgs) -> Result<i32, Failure> {
 
 /// `reeve report`.
 pub fn run_report(args: ReportArgs) -> Result<i32, Failure> {
-    let (rig, solution) = load_and_solve(&args.rig)?;
-    let report = Report::build(&rig, &solution, checks::run(&rig, &solution));
+    let (rig, solution, report) = solved_report(&args.rig)?;
     let options = DrawOptions {
         view: view(args.view),
         date: today(),
