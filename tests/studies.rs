@@ -569,37 +569,24 @@ fn same_seed_same_numbers_and_threads_do_not_matter() {
 #[test]
 fn share_not_moving_is_zero_or_one_when_the_range_sits_on_one_side() {
     let path = rig("spread-hoist.yaml");
-    let strong = json(&[
-        "spread",
-        &path,
-        "--samples",
-        "50",
-        "--json",
-        "--set",
-        "parts.hand.force=400 N",
-    ]);
-    assert_eq!(num(&strong["share_not_moving"]), 0.0);
-    let weak = json(&[
-        "spread",
-        &path,
-        "--samples",
-        "50",
-        "--json",
-        "--set",
-        "parts.hand.force=100 N",
-    ]);
-    assert_eq!(num(&weak["share_not_moving"]), 1.0);
+    // The share of samples that do not move, with the hand's available force set.
+    let share_at = |force: &str, samples: &str| {
+        let set = format!("parts.hand.force={force}");
+        let out = json(&[
+            "spread",
+            &path,
+            "--samples",
+            samples,
+            "--json",
+            "--set",
+            &set,
+        ]);
+        num(&out["share_not_moving"])
+    };
+    assert_eq!(share_at("400 N", "50"), 0.0);
+    assert_eq!(share_at("100 N", "50"), 1.0);
     // In between, some samples move and some do not.
-    let mid = json(&[
-        "spread",
-        &path,
-        "--samples",
-        "200",
-        "--json",
-        "--set",
-        "parts.hand.force=207 N",
-    ]);
-    let share = num(&mid["share_not_moving"]);
+    let share = share_at("207 N", "200");
     assert!(share > 0.0 && share < 1.0, "{share}");
 }
 
