@@ -191,6 +191,54 @@ pub fn run(rig: &Rig, solution: &Solution) -> Vec<Warning> {
     out
 }
 
+/// Lines along which friction multiplies the tension beyond any rope's range
+/// ([`crate::friction::PHYSICAL_RATIO_LIMIT`]), passage ratios in series between the
+/// line's ends and drums (a drum's ratio is its load torque's, not friction's). Every
+/// passage may be ordinary and the line still lock: the product is what fails.
+fn friction_lock_checks(rig: &Rig, sub: &SubRigSolution) -> Vec<Warning> {
+    let mut out = Vec::new();
+    for (l, line) in rig.lines.iter().enumerate() {
+        // The largest product of one run: (product, first entry, last entry).
+        let mut worst: Option<(Real, usize, usize)> = None;
+        for case in [&sub.forward, &sub.back] {
+            let Some(ratios) = case.ratio.get(l).filter(|_| !case.tension[l].is_empty()) else {
+                continue;
+            };
+            let (mut product, mut start) = (1.0, 0);
+            for (e, entry) in line.path.iter().enumerate().skip(1) {
+                if matches!(rig.parts[entry.part].kind, PartKind::Drum(_)) {
+                    (product, start) = (1.0, e);
+                    continue;
+                }
+                product *= ratios[e].unwrap_or(1.0);
+                if !worst.is_some_and(|(w, _, _)| product <= w) {
+                    worst = Some((product, start, e));
+                }
+            }
+        }
+        let Some((product, start, end)) = worst else {
+            continue;
+        };
+        if product > crate::friction::PHYSICAL_RATIO_LIMIT {
+            let name = |e: usize| &rig.parts[line.path[e].part].name;
+            out.push(warn(
+                "friction-lock",
+                Some(&line.name),
+                true,
+                format!(
+                    "line `{}`: friction multiplies the tension {}-fold from `{}` to `{}`, beyond what any rope spans (above {:e}): the rig locks there and the figures mean nothing; fewer wraps or less friction along it",
+                    line.name,
+                    crate::units::significant(product, 3),
+                    name(start),
+                    name(end),
+                    crate::friction::PHYSICAL_RATIO_LIMIT
+                ),
+            ));
+        }
+    }
+    out
+}
+
 fn subrig_checks(rig: &Rig, sub: &SubRigSolution) -> Vec<Warning> {
     let mut out = Vec::new();
     let drive = &rig.parts[sub.drive].name;
@@ -285,6 +333,7 @@ fn subrig_checks(rig: &Rig, sub: &SubRigSolution) -> Vec<Warning> {
             ));
         }
     }
+    out.extend(friction_lock_checks(rig, sub));
     for case in [&sub.forward, &sub.back] {
         let name = case.case.name();
         for slip in &case.slipping {

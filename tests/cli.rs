@@ -4,6 +4,8 @@
 use std::io::Write;
 use std::process::Command;
 
+mod common;
+
 fn run(text: &str) -> (i32, String, String) {
     let dir = std::env::temp_dir().join(format!("reeve-cli-{}", std::process::id()));
     std::fs::create_dir_all(&dir).unwrap();
@@ -176,4 +178,128 @@ fn a_block_cannot_drive_against_its_own_load() {
         err.contains(":6:") && err.contains("`b`") && err.contains("against its own travel"),
         "{err}"
     );
+}
+
+/// The real binary on a rig file with any command; (exit code, stdout, stderr).
+fn reeve(args: &[&str]) -> (i32, String, String) {
+    let out = Command::new(env!("CARGO_BIN_EXE_reeve"))
+        .args(args)
+        .current_dir(env!("CARGO_MANIFEST_DIR"))
+        .output()
+        .unwrap();
+    (
+        out.status.code().unwrap_or(-1),
+        String::from_utf8_lossy(&out.stdout).into_owned(),
+        String::from_utf8_lossy(&out.stderr).into_owned(),
+    )
+}
+
+/// The analysis commands that solve a rig, with the arguments each needs.
+fn every_solving_command(rig: &str) -> Vec<Vec<String>> {
+    let own = |args: &[&str]| args.iter().map(|a| a.to_string()).collect::<Vec<_>>();
+    vec![
+        own(&["check", rig]),
+        own(&["check", rig, "--json"]),
+        own(&["table", rig]),
+        own(&["rank", rig]),
+        own(&["spread", rig, "--samples", "3", "--seed", "1"]),
+        own(&["compare", rig]),
+        own(&["sweep", rig, "--stroke", "1"]),
+    ]
+}
+
+#[test]
+fn a_capstan_ratio_that_overflows_is_a_located_error_in_every_command() {
+    // Guards against the SVD panic ("Singular value was NaN", exit 101): 1000 turns at
+    // μ = 0.25 give e^(0.25·(π + 2000π)) = e^1571, beyond f64 (largest e^709).
+    for args in every_solving_command("tests/rigs/guide-turns.yaml") {
+        let args: Vec<&str> = args.iter().map(String::as_str).collect();
+        let (code, _, err) = reeve(&args);
+        assert_eq!(code, 2, "{args:?}: {err}");
+        assert!(!err.contains("panicked"), "{args:?}: {err}");
+        assert!(
+            err.contains("guide-turns.yaml:15:")
+                && err.contains("`bar`")
+                && err.contains("too large to be physical"),
+            "{args:?}: {err}"
+        );
+    }
+}
+
+#[test]
+fn a_rope_mu_of_hundreds_set_from_the_command_line_is_refused_not_a_panic() {
+    // Guards the same overflow reached through `--set` and the studies: the carabiner of
+    // rigs/rescue-haul.yaml at μ = 1000 over its wrap gives e^(1000·φ) = ∞.
+    for mut args in every_solving_command("rigs/rescue-haul.yaml") {
+        args.extend(["--set".to_string(), "parts.leg.biner.mu=1000".to_string()]);
+        let args: Vec<&str> = args.iter().map(String::as_str).collect();
+        let (code, _, err) = reeve(&args);
+        assert_eq!(code, 2, "{args:?}: {err}");
+        assert!(!err.contains("panicked"), "{args:?}: {err}");
+        assert!(
+            err.contains("`leg.biner`") && err.contains("too large to be physical"),
+            "{args:?}: {err}"
+        );
+    }
+    // A rope `mu` of a few hundred on bare pins (rigs/automaton-cord.yaml, no `mu` of
+    // their own): e^(300·φ) overflows too, and the message names the first pin.
+    let (code, _, err) = reeve(&[
+        "rank",
+        "rigs/automaton-cord.yaml",
+        "--set",
+        "ropes.braid1.mu=300",
+    ]);
+    assert_eq!(code, 2, "{err}");
+    assert!(
+        err.contains("`pin.1`") && err.contains("too large to be physical"),
+        "{err}"
+    );
+    // The sweep that reaches it in a step: refused as well, never a panic.
+    let (code, _, err) = reeve(&[
+        "sweep",
+        "rigs/rescue-haul.yaml",
+        "--vary",
+        "parts.leg.biner.mu=0.2..1000",
+        "--steps",
+        "3",
+    ]);
+    assert!(!err.contains("panicked"), "{err}");
+    assert_ne!(code, 101, "{err}");
+}
+
+#[test]
+fn a_finite_but_unphysical_capstan_ratio_has_its_own_message() {
+    // Guards the 1e56 N answers with exit 0: 100 turns at μ = 0.25 give
+    // e^(0.25·(π + 200π)) = e^157.9 ≈ 4e68, finite but far above 1e12; the rope states
+    // no breaking strength, so no safety-factor check caught it.
+    let text = std::fs::read_to_string("tests/rigs/guide-turns.yaml")
+        .unwrap()
+        .replace("turns: 1000", "turns: 100");
+    let (code, out, err) = run(&text);
+    assert_eq!(code, 2, "{out}{err}");
+    assert!(
+        err.contains("`bar`") && err.contains("too large to be physical"),
+        "{err}"
+    );
+    // Five turns (e^(0.25·11π) = 5.7e3) are an ordinary capstan and still solve.
+    let text = text.replace("turns: 100", "turns: 5");
+    let (code, out, err) = run(&text);
+    assert_eq!(code, 0, "{out}{err}");
+}
+
+#[test]
+fn friction_that_compounds_beyond_any_rope_fails_the_check() {
+    // Guards huge figures with exit 0 where every passage is ordinary but they multiply:
+    // 40 zig-zag pins at μ = 0.5, each wrapped about 2 rad (ratio e^1 ≈ 2.8, capstan
+    // equation), multiply the pull about e^40 ≈ 1e17-fold, far above 1e12.
+    let (code, out, err) = run(&common::chain(40, 0.5));
+    assert_eq!(code, 1, "{out}{err}");
+    assert!(
+        out.contains("FAIL [friction-lock]") && out.contains("line `cord`"),
+        "{out}"
+    );
+    // Ten such pins (e^10 ≈ 2e4) are an ordinary, if lossy, rig.
+    let (code, out, err) = run(&common::chain(10, 0.5));
+    assert!(!out.contains("friction-lock"), "{out}{err}");
+    assert_eq!(code, 0, "{out}{err}");
 }

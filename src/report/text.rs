@@ -13,27 +13,12 @@ use super::{Headline, Report, CAUTION};
 /// Formats a number with about `sig` significant figures, without exponent for the
 /// everyday range, and `—` for a missing value.
 pub fn number(x: Option<Real>, sig: usize) -> String {
-    let Some(x) = x.filter(|x| x.is_finite()) else {
-        return "—".to_string();
-    };
-    if x == 0.0 {
-        return "0".to_string();
-    }
-    let mag = x.abs().log10().floor() as i32;
-    if !(-4..=9).contains(&mag) {
-        return format!("{:.*e}", sig.saturating_sub(1), x);
-    }
-    let decimals = (sig as i32 - 1 - mag).max(0) as usize;
-    format!("{:.*}", decimals, x)
+    x.map_or("—".to_string(), |x| crate::units::significant(x, sig))
 }
 
-/// A quantity in the report's units: `12.3 N`.
+/// A quantity in the report's units: `12.3 N` ([`UnitSystem::show`]).
 pub fn quantity(x: Option<Real>, dimension: Dimension, units: &UnitSystem) -> String {
-    let unit = units.unit(dimension);
-    match x {
-        Some(v) if v.is_finite() => format!("{} {}", number(Some(v / unit.si), 4), unit.symbol),
-        _ => "—".to_string(),
-    }
+    x.map_or("—".to_string(), |v| units.show(v, dimension))
 }
 
 fn percent(x: Option<Real>) -> String {

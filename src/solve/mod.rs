@@ -114,6 +114,44 @@ pub enum SolveError {
         /// The block.
         drive: String,
     },
+    /// The rope sliding over a part (a guide, or a sheave that stalls) would need a
+    /// capstan ratio no rope can span.
+    #[error("line `{line}`: the rope sliding over {}`{part}` needs a tension ratio of {} (capstan equation: μ' {} over {}), too large to be physical: no rope spans more than {:e} in tension, it would lock on the part; check the `turns` on that path entry and the `mu` of the part and the rope", if *stalled { "the stalled sheave " } else { "" }, exp_words(mu * wrap), crate::units::significant(*mu, 4), wrap_words(*wrap), crate::friction::PHYSICAL_RATIO_LIMIT)]
+    ImplausibleCapstan {
+        /// The line.
+        line: String,
+        /// The part the rope slides over.
+        part: String,
+        /// Effective coefficient μ' (groove wedge included).
+        mu: Real,
+        /// Total wrap, radians (extra turns included).
+        wrap: Real,
+        /// Whether the part is a sheave that does not turn.
+        stalled: bool,
+    },
+    /// A turning sheave whose bearing needs a tension ratio no rope can span.
+    #[error("line `{line}`: the bearing of `{part}` needs a tension ratio of {ratio:.3e} to turn, too large to be physical (no rope spans more than {:e} in tension); check its `bearing`", crate::friction::PHYSICAL_RATIO_LIMIT)]
+    ImplausibleBearing {
+        /// The line.
+        line: String,
+        /// The sheave.
+        part: String,
+        /// Tight over slack tension.
+        ratio: Real,
+    },
+    /// A number in the solve is not finite (an overflow, or a value beyond what the
+    /// solver can represent).
+    #[error("{stage}: {what} is not a finite number{}; the inputs are beyond what the solver can represent: check `mu`, `turns`, sizes and loads there", at_part(part.as_deref()))]
+    NonFinite {
+        /// Where: `the kinematics`, `the forward case`, ...
+        stage: &'static str,
+        /// What overflowed.
+        what: &'static str,
+        /// The line concerned, if known.
+        line: Option<String>,
+        /// The part concerned, if known.
+        part: Option<String>,
+    },
     /// The equilibrium equations have no solution.
     #[error("no equilibrium exists for {case}: the equations are inconsistent (residual {residual:.3e}); {hint}")]
     NoEquilibrium {
@@ -145,6 +183,9 @@ impl SolveError {
             SolveError::NotDriven { part, .. } => (None, Some(part)),
             SolveError::DriveAgainstItsLoad { drive } => (None, Some(drive)),
             SolveError::MissingQuantity { part, .. } => (None, Some(part)),
+            SolveError::ImplausibleCapstan { line, part, .. }
+            | SolveError::ImplausibleBearing { line, part, .. } => (Some(line), Some(part)),
+            SolveError::NonFinite { line, part, .. } => (line.as_deref(), part.as_deref()),
             SolveError::NoEquilibrium { .. } => (None, None),
         }
     }
@@ -168,6 +209,32 @@ impl SolveError {
             )
         })
     }
+}
+
+/// `e^1571`, or the number itself where it fits an f64.
+fn exp_words(exponent: Real) -> String {
+    let ratio = exponent.exp();
+    if ratio.is_finite() {
+        format!("{ratio:.3e}")
+    } else {
+        format!("e^{exponent:.0}, beyond what a number holds")
+    }
+}
+
+/// A wrap in degrees, with the turns where it passes one.
+fn wrap_words(wrap: Real) -> String {
+    let degrees = crate::units::significant(wrap.to_degrees(), 4);
+    if wrap >= std::f64::consts::TAU {
+        let turns = crate::units::significant(wrap / std::f64::consts::TAU, 4);
+        format!("{degrees}° of wrap, {turns} turns")
+    } else {
+        format!("{degrees}° of wrap")
+    }
+}
+
+/// ` at `part``, or nothing.
+fn at_part(part: Option<&str>) -> String {
+    part.map_or(String::new(), |p| format!(" at `{p}`"))
 }
 
 fn list(parts: &[String]) -> String {

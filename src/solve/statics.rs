@@ -272,7 +272,47 @@ impl<'a> Problem<'a> {
 
     /// `T_after = k T_before + delta` for middle entry `e` of `line`; also whether the
     /// sheave stalls there.
+    ///
+    /// # Errors
+    /// [`SolveError::ImplausibleCapstan`] or [`SolveError::ImplausibleBearing`] when the
+    /// passage's ratio is above [`friction::PHYSICAL_RATIO_LIMIT`] (or overflows).
     fn passage(
+        &self,
+        case: Case,
+        line: LineId,
+        e: usize,
+        previous: Option<&Vec<Vec<Real>>>,
+        breakaway: bool,
+    ) -> Result<(Real, Real, bool), SolveError> {
+        let (k, delta, stall) = self.passage_ratio(case, line, e, previous, breakaway);
+        let ratio = k.max(1.0 / k);
+        if ratio.is_finite() && ratio <= friction::PHYSICAL_RATIO_LIMIT {
+            return Ok((k, delta, stall));
+        }
+        let entry = &self.geometry.lines[line].entries[e];
+        let part = &self.rig.parts[entry.part];
+        let names = (self.rig.lines[line].name.clone(), part.name.clone());
+        let is_sheave = matches!(part.kind, PartKind::Sheave(_));
+        Err(if stall || !is_sheave {
+            let groove = part.kind.round().and_then(|r| r.groove_angle);
+            SolveError::ImplausibleCapstan {
+                line: names.0,
+                part: names.1,
+                mu: friction::capstan::effective_mu(self.surface_mu(line, entry.part), groove),
+                wrap: entry.wrap,
+                stalled: is_sheave,
+            }
+        } else {
+            SolveError::ImplausibleBearing {
+                line: names.0,
+                part: names.1,
+                ratio,
+            }
+        })
+    }
+
+    /// The ratio, constant and stall of a passage, as [`Problem::passage`] checks them.
+    fn passage_ratio(
         &self,
         case: Case,
         line: LineId,
@@ -447,12 +487,22 @@ impl<'a> Problem<'a> {
                 coef[seg.line][seg.first] = (1.0, 0.0);
                 for e in seg.first + 1..seg.last {
                     let (k, delta, stall) =
-                        self.passage(case, seg.line, e, previous.as_ref(), breakaway);
+                        self.passage(case, seg.line, e, previous.as_ref(), breakaway)?;
                     if stall {
                         stalled.push((seg.line, e));
                     }
                     let (c, c0) = coef[seg.line][e - 1];
-                    coef[seg.line][e] = (k * c, k * c0 + delta);
+                    let next = (k * c, k * c0 + delta);
+                    if !(next.0.is_finite() && next.1.is_finite()) {
+                        // Ratios in series that each hold but together overflow.
+                        return Err(self.non_finite(
+                            stage_name(case, breakaway),
+                            "the tension along the line",
+                            seg.line,
+                            e,
+                        ));
+                    }
+                    coef[seg.line][e] = next;
                 }
             }
             // Drum friction from the previous tensions.
@@ -495,6 +545,18 @@ impl<'a> Problem<'a> {
             for k in 0..n {
                 mat[(k, m - 1)] = -self.x_coef[k];
             }
+            // Nothing that is not a finite number may reach the SVD (it panics on NaN).
+            if let Some(k) =
+                (0..n).find(|&k| !rhs[k].is_finite() || mat.row(k).iter().any(|v| !v.is_finite()))
+            {
+                let part = self.kin.dofs[self.dofs[k]].part;
+                return Err(SolveError::NonFinite {
+                    stage: stage_name(case, breakaway),
+                    what: "the balance of forces",
+                    line: None,
+                    part: Some(rig.parts[part].name.clone()),
+                });
+            }
             // Equilibrate the columns first: a long chain of friction passages makes
             // some tension coefficients many orders of magnitude larger than others,
             // and a rank decision on the raw matrix would drop the small ones.
@@ -535,7 +597,15 @@ impl<'a> Problem<'a> {
             // Compare the misfit with the size of the terms that should cancel.
             let terms = mat.abs() * solution.abs();
             let rhs_scale = rhs.norm().max(terms.amax()).max(1e-300);
-            if !solution.iter().all(|v| v.is_finite()) || residual > 1e-7 * rhs_scale {
+            if !solution.iter().all(|v| v.is_finite()) || !residual.is_finite() {
+                return Err(SolveError::NonFinite {
+                    stage: stage_name(case, breakaway),
+                    what: "the solution of the balance of forces",
+                    line: None,
+                    part: None,
+                });
+            }
+            if residual > 1e-7 * rhs_scale {
                 return Err(SolveError::NoEquilibrium {
                     case: case.name(),
                     residual,
@@ -594,6 +664,26 @@ impl<'a> Problem<'a> {
             status,
             &velocity,
         ))
+    }
+
+    /// The error for a tension coefficient that overflowed at entry `e` of `line`.
+    fn non_finite(
+        &self,
+        stage: &'static str,
+        what: &'static str,
+        line: LineId,
+        e: usize,
+    ) -> SolveError {
+        SolveError::NonFinite {
+            stage,
+            what,
+            line: Some(self.rig.lines[line].name.clone()),
+            part: Some(
+                self.rig.parts[self.rig.lines[line].path[e].part]
+                    .name
+                    .clone(),
+            ),
+        }
     }
 
     /// Whether any friction depends on the tensions themselves.
@@ -761,6 +851,16 @@ impl<'a> Problem<'a> {
             status,
             audit_residual,
         }
+    }
+}
+
+/// The case's name in messages.
+fn stage_name(case: Case, breakaway: bool) -> &'static str {
+    match (case, breakaway) {
+        (_, true) => "the breakaway case",
+        (Case::Ideal, _) => "the ideal case",
+        (Case::Forward, _) => "the forward case",
+        (Case::Back, _) => "the back case",
     }
 }
 
