@@ -59,6 +59,7 @@ fn block(name: &str, at: [Real; 3]) -> Part {
             moves: dir(0.0, 0.0, 1.0),
             load: None,
             load_is_force: false,
+            load_stated: true,
             mass: None,
         }),
     )

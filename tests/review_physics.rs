@@ -389,3 +389,64 @@ fn haul_pulled_off_its_rope_reports_the_component_along_pull() {
     assert_close("tension", m.ideal.tension[0][0], 10.0 * G, 1e-9);
     assert_close("MA", m.mechanical_advantage().unwrap(), 2.0, 1e-9);
 }
+
+#[test]
+fn a_block_with_no_load_moving_across_gravity_is_solved_for_a_force() {
+    // Guards "no equilibrium" for an unknown block that states no load on a level
+    // track: a mass there does no work, so the unknown is the force against `moves`.
+    // Hand calculation (rig header, capstan equation, Hibbeler §8.5): ideal 300 N,
+    // forward 300/e^(0.2·π/2) = 219.12 N, back 300·e^(0.2·π/2) = 410.73 N.
+    let (_, s) = solve_rig("level-cart.yaml");
+    let m = s.main();
+    assert_eq!(m.quantity, reeve::solve::Quantity::Force);
+    let k = (0.2 * PI / 2.0).exp();
+    assert_close("ideal", m.ideal.value, 300.0, 1e-9);
+    assert_close("forward", m.forward.value, 300.0 / k, 1e-9);
+    assert_close("back", m.back.value, 300.0 * k, 1e-9);
+    // The output says why the figure is a force.
+    let text = check_text("level-cart.yaml");
+    assert!(
+        text.contains("`cart` states no load") && text.contains("force against its `moves`"),
+        "{text}"
+    );
+}
+
+#[test]
+fn a_block_with_no_load_moving_with_gravity_is_still_solved_for_a_mass() {
+    // Guards the other side of the same choice: under a 2:1 hook the travel is along
+    // gravity, so the unknown stays the mass (block-unknown.yaml without its load:
+    // ideal (500 − 2 g)/g = 48.986 kg, hand calculation in the rig header).
+    let text = std::fs::read_to_string(rig_path("block-unknown.yaml"))
+        .unwrap()
+        .replace(", load: {mass: 45}", "");
+    let rig = load_str(&text, "block-unknown.yaml").unwrap();
+    let s = solve(&rig, &SolveOptions::default()).unwrap();
+    assert_eq!(s.main().quantity, reeve::solve::Quantity::Mass);
+    assert_close("ideal", s.main().ideal.value, 500.0 / G - 2.0, 1e-8);
+    let report = reeve::report::Report::build(&rig, &s, Vec::new());
+    let note = report.headline.solve_for.note.clone().unwrap_or_default();
+    assert!(
+        note.contains("states no load") && note.contains("mass"),
+        "{note}"
+    );
+}
+
+#[test]
+fn no_equilibrium_names_its_real_cause() {
+    // Guards the one hint "lines pulling only sideways" given for every inconsistent
+    // system: a mass asked for on a block whose travel is square to gravity does no
+    // work, and the message must say that, not blame the lines.
+    let text = std::fs::read_to_string(rig_path("level-cart.yaml"))
+        .unwrap()
+        .replace("moves: [1, 0, 0]}", "moves: [1, 0, 0], load: {mass: ~}}");
+    let rig = load_str(&text, "level-cart.yaml").unwrap();
+    let e = solve(&rig, &SolveOptions::default()).unwrap_err();
+    let message = e.to_string();
+    assert!(!matches!(e, SolveError::NoEquilibrium { .. }), "{message}");
+    assert!(
+        message.contains("`cart`") && message.contains("square to gravity"),
+        "{message}"
+    );
+    assert!(!message.contains("sideways"), "{message}");
+    assert_eq!(e.subject().1, Some("cart"));
+}

@@ -188,6 +188,9 @@ fn write_summary(w: &mut dyn Write, h: &Headline, units: &UnitSystem, id: &str) 
         esc(&h.solve_for.part),
         esc(&h.drive)
     )?;
+    if let Some(note) = &h.solve_for.note {
+        writeln!(w, "<p class=\"meta\">{}.</p>", esc(note))?;
+    }
     writeln!(
         w,
         "<div class=\"table-scroll fit\"><table id=\"{id}\" class=\"summary\"><thead><tr><th scope=\"col\"></th><th scope=\"col\" class=\"num\">ideal</th><th scope=\"col\" class=\"num\">forward</th><th scope=\"col\" class=\"num\">back</th></tr></thead><tbody>"

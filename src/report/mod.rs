@@ -34,6 +34,10 @@ pub struct Asked {
     pub quantity: &'static str,
     /// SI unit of the values.
     pub unit: &'static str,
+    /// Why this quantity, where the file did not say (a `solve_for` block without
+    /// `load`). Not in the JSON when absent.
+    #[serde(skip_serializing_if = "Option::is_none")]
+    pub note: Option<String>,
 }
 
 /// One case's headline.
@@ -256,6 +260,28 @@ fn dir(v: &Vector) -> Option<[Real; 3]> {
     (n > 0.0 && n.is_finite()).then(|| [v.x / n, v.y / n, v.z / n])
 }
 
+/// Why the asked block's quantity is what it is, when the file states no `load`.
+fn quantity_note(rig: &Rig, sub: &SubRigSolution) -> Option<String> {
+    let part = &rig.parts[sub.solve_for];
+    let PartKind::Block(b) = &part.kind else {
+        return None;
+    };
+    if b.load_stated {
+        return None;
+    }
+    Some(if b.load_is_force {
+        format!(
+            "`{}` states no load and its travel is square to gravity, so the figure is the force against its `moves`",
+            part.name
+        )
+    } else {
+        format!(
+            "`{}` states no load, so the figure is the mass it carries (acting along gravity); write `load: {{force: ~}}` for a force against its `moves`",
+            part.name
+        )
+    })
+}
+
 fn headline(rig: &Rig, sub: &SubRigSolution) -> Headline {
     let available = given_quantity(rig, sub.solve_for);
     let (f, b) = (sub.forward.value, sub.back.value);
@@ -272,6 +298,7 @@ fn headline(rig: &Rig, sub: &SubRigSolution) -> Headline {
             part: rig.parts[sub.solve_for].name.clone(),
             quantity: sub.quantity.name(),
             unit: sub.quantity.si_unit(),
+            note: quantity_note(rig, sub),
         },
         drive: rig.parts[sub.drive].name.clone(),
         ideal: CaseHeadline {

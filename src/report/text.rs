@@ -44,6 +44,9 @@ fn write_headline(w: &mut dyn Write, h: &Headline, units: &UnitSystem) -> io::Re
         "Asked: the {} at `{}` (drive: `{}`)",
         h.solve_for.quantity, h.solve_for.part, h.drive
     )?;
+    if let Some(note) = &h.solve_for.note {
+        writeln!(w, "  ({note})")?;
+    }
     writeln!(
         w,
         "  {:<12} {:>14} {:>14} {:>14}",

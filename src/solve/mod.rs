@@ -152,14 +152,29 @@ pub enum SolveError {
         /// The part concerned, if known.
         part: Option<String>,
     },
+    /// The asked quantity does no work as the rig moves, so no value of it balances
+    /// the drive.
+    #[error("`{part}` is asked for its {quantity}, which does no work as the rig moves: {reason}, so no {quantity} balances the drive; {fix}")]
+    UnknownDoesNoWork {
+        /// The asked part.
+        part: String,
+        /// Its quantity.
+        quantity: &'static str,
+        /// Why it does no work.
+        reason: String,
+        /// What to change.
+        fix: &'static str,
+    },
     /// The equilibrium equations have no solution.
-    #[error("no equilibrium exists for {case}: the equations are inconsistent (residual {residual:.3e}); {hint}")]
+    #[error("no equilibrium exists for {case}: the equations are inconsistent (residual {residual:.3e}){}; {hint}", at_part(part.as_deref()))]
     NoEquilibrium {
         /// Which case.
         case: &'static str,
         /// Size of the misfit.
         residual: Real,
-        /// What to look at.
+        /// The part whose equation fails, where one can be named.
+        part: Option<String>,
+        /// What to look at, for that cause.
         hint: &'static str,
     },
 }
@@ -186,7 +201,8 @@ impl SolveError {
             SolveError::ImplausibleCapstan { line, part, .. }
             | SolveError::ImplausibleBearing { line, part, .. } => (Some(line), Some(part)),
             SolveError::NonFinite { line, part, .. } => (line.as_deref(), part.as_deref()),
-            SolveError::NoEquilibrium { .. } => (None, None),
+            SolveError::UnknownDoesNoWork { part, .. } => (None, Some(part)),
+            SolveError::NoEquilibrium { part, .. } => (None, part.as_deref()),
         }
     }
 
@@ -209,6 +225,47 @@ impl SolveError {
             )
         })
     }
+}
+
+/// A direction as the file writes one: `[1, 0, 0]`.
+pub(crate) fn vector_words(v: &Vector) -> String {
+    let c: Vec<String> = v
+        .iter()
+        .map(|x| crate::units::significant(if x.abs() < 1e-12 { 0.0 } else { *x }, 4))
+        .collect();
+    format!("[{}]", c.join(", "))
+}
+
+/// Why the asked load quantity does no work as the rig moves, with the fix to suggest;
+/// None when it does work (a drive unknown always does: it moves at unit speed).
+fn unknown_does_no_work(
+    rig: &Rig,
+    kinematics: &Kinematics,
+    drive: PartId,
+    solve_for: PartId,
+) -> Option<(String, &'static str)> {
+    if solve_for == drive {
+        return None;
+    }
+    if let PartKind::Block(b) = &rig.parts[solve_for].kind {
+        if !b.load_is_force && crate::rig::model::square_to_gravity(&b.moves, &rig.gravity) {
+            return Some((
+                format!(
+                    "its `moves` {} is square to gravity {}",
+                    vector_words(&b.moves),
+                    vector_words(&rig.gravity)
+                ),
+                "ask for the force against its travel (`load: {force: ~}`), or, if the rig is drawn with another axis up, set `gravity` to match",
+            ));
+        }
+    }
+    let speed = kinematics.dof_of_part[solve_for].map_or(0.0, |i| kinematics.forward[i]);
+    (speed == 0.0).then(|| {
+        (
+            "the drive's motion does not move it".to_string(),
+            "name in `solve_for` a part that moves with the drive",
+        )
+    })
 }
 
 /// `e^1571`, or the number itself where it fits an f64.
@@ -532,6 +589,14 @@ pub fn solve(rig: &Rig, options: &SolveOptions) -> Result<Solution, SolveError> 
             part: rig.parts[solve_for].name.clone(),
             quantity: "natural quantity (solve_for must be a haul, weight, block or drum)",
         })?;
+        if let Some((reason, fix)) = unknown_does_no_work(rig, &kinematics, drive, solve_for) {
+            return Err(SolveError::UnknownDoesNoWork {
+                part: rig.parts[solve_for].name.clone(),
+                quantity: quantity.name(),
+                reason,
+                fix,
+            });
+        }
         let problem =
             statics::Problem::new(rig, &network, &geometry, &kinematics, c, drive, solve_for)?;
         let ideal = problem.solve(Case::Ideal, options)?;

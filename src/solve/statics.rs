@@ -606,10 +606,28 @@ impl<'a> Problem<'a> {
                 });
             }
             if residual > 1e-7 * rhs_scale {
+                // Name the cause: a moving part whose equation no tension reaches (its
+                // lines pull only sideways to its motion), else friction itself.
+                let tension_scale = mat.amax().max(1e-300);
+                let sideways = (0..n).find(|&k| {
+                    (0..m).all(|j| mat[(k, j)].abs() <= 1e-12 * tension_scale)
+                        && rhs[k].abs() > 1e-7 * rhs_scale
+                });
+                let (part, hint) = match sideways {
+                    Some(k) => (
+                        Some(rig.parts[self.kin.dofs[self.dofs[k]].part].name.clone()),
+                        "that part is loaded along its motion, but its lines pull only sideways to it; check its `moves` and the lines that hold it",
+                    ),
+                    None => (
+                        None,
+                        "friction leaves the asked quantity no way to balance the loads in this case; please report this rig",
+                    ),
+                };
                 return Err(SolveError::NoEquilibrium {
                     case: case.name(),
                     residual,
-                    hint: "a part may be held by lines pulling only sideways to its motion, or a load cannot be reached by the drive",
+                    part,
+                    hint,
                 });
             }
             let mut tension: Vec<Vec<Real>> = rig
@@ -651,6 +669,7 @@ impl<'a> Problem<'a> {
             return Err(SolveError::NoEquilibrium {
                 case: case.name(),
                 residual: Real::NAN,
+                part: None,
                 hint: "no iteration ran",
             });
         };
