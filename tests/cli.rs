@@ -303,3 +303,57 @@ fn friction_that_compounds_beyond_any_rope_fails_the_check() {
     assert!(!out.contains("friction-lock"), "{out}{err}");
     assert_eq!(code, 0, "{out}{err}");
 }
+
+#[test]
+fn loads_square_to_the_motion_are_refused_with_the_likely_fix() {
+    // Guards "0 N in every case, the drive moves the rig, exit 0": the hook rises along
+    // +Y while gravity is the default −Z, so its 40 kg do no work (virtual work:
+    // X = −(v·Q)/(v·x) = 0 for every friction).
+    let (code, out, err) = reeve(&["check", "tests/rigs/y-up-hoist.yaml"]);
+    assert_eq!(code, 2, "{out}{err}");
+    assert!(
+        err.contains("y-up-hoist.yaml:12:")
+            && err.contains("`hook`")
+            && err.contains("do no work")
+            && err.contains("gravity: [0, -1, 0]")
+            && err.contains("`moves`"),
+        "{err}"
+    );
+    // The same rig with gravity along −Y solves: 2:1, ideal 40 g / 2 = 196.13 N.
+    let (code, out, err) = reeve(&[
+        "check",
+        "tests/rigs/y-up-hoist.yaml",
+        "--json",
+        "--set",
+        "gravity=[0, -1, 0]",
+    ]);
+    assert_eq!(code, 0, "{err}");
+    let json: serde_json::Value = serde_json::from_str(&out).unwrap();
+    let ideal = json["ideal"]["value"].as_f64().unwrap();
+    assert!((ideal - 40.0 * 9.80665 / 2.0).abs() < 1e-6, "{ideal}");
+    // A block moving across gravity with a mass load, hauled for a force: refused too.
+    let text = std::fs::read_to_string("tests/rigs/review/level-cart.yaml")
+        .unwrap()
+        .replace("moves: [1, 0, 0]}", "moves: [1, 0, 0], load: {mass: 100}}")
+        .replace(", force: 300}", "}")
+        .replace("solve_for: cart", "");
+    let (code, out, err) = run(&text);
+    assert_eq!(code, 2, "{out}{err}");
+    assert!(
+        err.contains("`cart`") && err.contains("do no work"),
+        "{err}"
+    );
+}
+
+#[test]
+fn a_balanced_rig_whose_ideal_effort_is_zero_still_solves() {
+    // Guards the refusal above from catching balanced rigs: two 5 kg weights over one
+    // sheave do work that cancels (ideal 0 N by virtual work), and only the friction of
+    // the bearing is left to overcome.
+    let rig = format!(
+        "{HEAD}  s: {{kind: sheave, at: [0, 0, 2000], axle: [0, 1, 0], diameter: 60, bearing: {{kind: plain, pin_diameter: 10, mu: 0.1}}}}\n  a: {{kind: weight, at: [-33, 0, 0], mass: 5}}\n  b: {{kind: weight, at: [33, 0, -500], mass: 5}}\n  h: {{kind: haul, at: [100, 0, 1000]}}\nlines:\n  l: {{rope: r, path: [a, s, b]}}\n  m: {{rope: r, path: [b, h]}}\ndrive: h\n"
+    );
+    let (code, out, err) = run(&rig);
+    assert!(!err.contains("do no work"), "{err}");
+    assert_ne!(code, 2, "{out}{err}");
+}

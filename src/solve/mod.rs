@@ -152,6 +152,17 @@ pub enum SolveError {
         /// The part concerned, if known.
         part: Option<String>,
     },
+    /// Every load acts square to the motion (a block travelling across gravity, a rig
+    /// drawn with Y up while `gravity` is left at −Z): every figure would be zero.
+    #[error("the loads do no work as the rig moves, so every figure would be zero: {}; if the rig is drawn with the blocks' `moves` pointing up, set `gravity: {}`; otherwise point `moves` the way the block travels, or give what resists its travel as `load: {{force: ...}}`", square_words(parts, moves, gravity), vector_words(&-moves))]
+    LoadsDoNoWork {
+        /// The blocks whose weight does no work.
+        parts: Vec<String>,
+        /// The first one's direction of travel.
+        moves: Vector,
+        /// The rig's gravity direction.
+        gravity: Vector,
+    },
     /// The asked quantity does no work as the rig moves, so no value of it balances
     /// the drive.
     #[error("`{part}` is asked for its {quantity}, which does no work as the rig moves: {reason}, so no {quantity} balances the drive; {fix}")]
@@ -202,6 +213,7 @@ impl SolveError {
             | SolveError::ImplausibleBearing { line, part, .. } => (Some(line), Some(part)),
             SolveError::NonFinite { line, part, .. } => (line.as_deref(), part.as_deref()),
             SolveError::UnknownDoesNoWork { part, .. } => (None, Some(part)),
+            SolveError::LoadsDoNoWork { parts, .. } => (None, parts.first().map(String::as_str)),
             SolveError::NoEquilibrium { part, .. } => (None, part.as_deref()),
         }
     }
@@ -231,9 +243,30 @@ impl SolveError {
 pub(crate) fn vector_words(v: &Vector) -> String {
     let c: Vec<String> = v
         .iter()
-        .map(|x| crate::units::significant(if x.abs() < 1e-12 { 0.0 } else { *x }, 4))
+        .map(|x| {
+            let text = crate::units::significant(if x.abs() < 1e-12 { 0.0 } else { *x }, 4);
+            if text.contains('.') && !text.contains('e') {
+                text.trim_end_matches('0').trim_end_matches('.').to_string()
+            } else {
+                text
+            }
+        })
         .collect();
     format!("[{}]", c.join(", "))
+}
+
+/// `` `hook` travels along its `moves` [0, 1, 0], square to gravity [0, 0, -1], so its weight does no work``.
+fn square_words(parts: &[String], moves: &Vector, gravity: &Vector) -> String {
+    let (subject, verb, whose) = if parts.len() == 1 {
+        (list(parts), "travels", "its weight does")
+    } else {
+        (list(parts), "travel", "their weights do")
+    };
+    format!(
+        "{subject} {verb} along `moves` {}, square to gravity {}, so {whose} no work",
+        vector_words(moves),
+        vector_words(gravity)
+    )
 }
 
 /// Why the asked load quantity does no work as the rig moves, with the fix to suggest;
@@ -599,6 +632,19 @@ pub fn solve(rig: &Rig, options: &SolveOptions) -> Result<Solution, SolveError> 
         }
         let problem =
             statics::Problem::new(rig, &network, &geometry, &kinematics, c, drive, solve_for)?;
+        if drive == solve_for {
+            let square = problem.square_loads();
+            if let Some(&first) = square.first() {
+                let PartKind::Block(b) = &rig.parts[first].kind else {
+                    unreachable!("square_loads lists blocks only")
+                };
+                return Err(SolveError::LoadsDoNoWork {
+                    parts: square.iter().map(|&p| rig.parts[p].name.clone()).collect(),
+                    moves: b.moves.into_inner(),
+                    gravity: rig.gravity.into_inner(),
+                });
+            }
+        }
         let ideal = problem.solve(Case::Ideal, options)?;
         let forward = problem.solve(Case::Forward, options)?;
         let back = problem.solve(Case::Back, options)?;

@@ -17,7 +17,7 @@ use crate::friction::{self, BearingResistance};
 use crate::geometry::Geometry;
 use crate::math::{Real, Vector, STANDARD_GRAVITY};
 use crate::network::Network;
-use crate::rig::model::{BlockLoad, LineId, PartId, PartKind, Rig};
+use crate::rig::model::{square_to_gravity, BlockLoad, LineId, PartId, PartKind, Rig};
 
 use super::kinematics::{line_component, Kinematics};
 use super::{Case, SolveError, SolveOptions};
@@ -148,6 +148,22 @@ pub struct Problem<'a> {
     x_coef: DVector<Real>,
 }
 
+/// A block's own mass and that of the sheaves it carries, kg.
+fn block_mass(rig: &Rig, block: PartId) -> Real {
+    let own = match &rig.parts[block].kind {
+        PartKind::Block(b) => b.mass.unwrap_or(0.0),
+        _ => 0.0,
+    };
+    own + rig
+        .parts
+        .iter()
+        .filter_map(|p| match &p.kind {
+            PartKind::Sheave(s) if s.block == Some(block) => s.mass,
+            _ => None,
+        })
+        .sum::<Real>()
+}
+
 fn gravity_force(rig: &Rig, mass: Real) -> Vector {
     rig.gravity.into_inner() * (mass * STANDARD_GRAVITY)
 }
@@ -188,14 +204,7 @@ impl<'a> Problem<'a> {
             match &rig.parts[part].kind {
                 PartKind::Block(b) => {
                     let moves = b.moves.into_inner();
-                    let mut mass = b.mass.unwrap_or(0.0);
-                    for p in &rig.parts {
-                        if let PartKind::Sheave(s) = &p.kind {
-                            if s.block == Some(part) {
-                                mass += s.mass.unwrap_or(0.0);
-                            }
-                        }
-                    }
+                    let mass = block_mass(rig, part);
                     let mut q = gravity_force(rig, mass).dot(&moves);
                     if unknown {
                         x_coef[k] = if b.load_is_force {
@@ -262,6 +271,52 @@ impl<'a> Problem<'a> {
             q_load,
             x_coef,
         })
+    }
+
+    /// Blocks of the sub-rig whose weight does no work because they travel square to
+    /// gravity, when every load together does no work along the motion (so every
+    /// figure would be zero); empty otherwise.
+    ///
+    /// The test is per load, not on the sum: a balanced rig (a counterweight equal to
+    /// its batten) has loads that each do work, cancelling, and is a real answer. The
+    /// loads do no work when `Σ |Q_k v_k| ≤ 10⁻⁹ Σ L_k |v_k|`, with `Q_k` a load's
+    /// generalized force along its motion, `L_k` its size, `v_k` its forward speed.
+    pub fn square_loads(&self) -> Vec<PartId> {
+        let mut work = 0.0;
+        let mut scale = 0.0;
+        let mut square = Vec::new();
+        for (k, &i) in self.dofs.iter().enumerate() {
+            let part = self.kin.dofs[i].part;
+            let speed = self.kin.forward[i].abs();
+            if part == self.drive || speed == 0.0 {
+                continue;
+            }
+            let size = match &self.rig.parts[part].kind {
+                PartKind::Block(b) => {
+                    let mass = block_mass(self.rig, part)
+                        + match b.load {
+                            Some(BlockLoad::Mass(m)) => m,
+                            _ => 0.0,
+                        };
+                    let force = match b.load {
+                        Some(BlockLoad::Force(f)) => f.abs(),
+                        _ => 0.0,
+                    };
+                    if mass > 0.0 && square_to_gravity(&b.moves, &self.rig.gravity) {
+                        square.push(part);
+                    }
+                    mass * STANDARD_GRAVITY + force
+                }
+                _ => self.q_load[k].abs(),
+            };
+            work += (self.q_load[k] * speed).abs();
+            scale += size * speed;
+        }
+        if scale > 0.0 && work <= 1e-9 * scale {
+            square
+        } else {
+            Vec::new()
+        }
     }
 
     /// Rope-on-surface friction for a part on a line.
