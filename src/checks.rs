@@ -4,7 +4,8 @@
 
 use crate::math::Real;
 use crate::rig::model::{PartKind, Rig};
-use crate::solve::{Solution, Status, SubRigSolution};
+use crate::solve::{Outcome, Solution, Status, SubRigSolution};
+use crate::units::Dimension;
 
 /// Wraps below this are reported as the rope not touching the part (0.1°).
 pub const NO_WRAP: Real = 0.1 * std::f64::consts::PI / 180.0;
@@ -170,9 +171,9 @@ pub fn pull_checks(rig: &Rig, solution: &Solution) -> Vec<Warning> {
                 Some(name),
                 false,
                 format!(
-                    "`{name}` is pulled {:.1}° off its rope: the effort shown is the component along `pull`; the rope itself carries {} N forward",
+                    "`{name}` is pulled {:.1}° off its rope: the effort shown is the component along `pull`; the rope itself carries {} forward",
                     angle.to_degrees(),
-                    tension.map_or("—".to_string(), |t| format!("{t:.4}"))
+                    tension.map_or("—".to_string(), |t| rig.units.show(t, Dimension::Force))
                 ),
             ));
         }
@@ -242,32 +243,57 @@ fn friction_lock_checks(rig: &Rig, sub: &SubRigSolution) -> Vec<Warning> {
 fn subrig_checks(rig: &Rig, sub: &SubRigSolution) -> Vec<Warning> {
     let mut out = Vec::new();
     let drive = &rig.parts[sub.drive].name;
-    let unit = sub.quantity.si_unit();
-    // Can the drive move the load?
+    let force = |x: Real| rig.units.show(x, Dimension::Force);
+    // Does the drive do what the rig needs: move it, or hold back a load that runs it
+    // forward by itself? One verdict, the one the report and the studies read.
+    let show = |x: Real| rig.units.show(x, sub.quantity.dimension());
     if let Some(available) = crate::solve::given_quantity(rig, sub.solve_for) {
-        if sub.drive_unknown() {
-            if available < sub.forward.value {
-                out.push(warn(
-                    "cannot-move",
-                    Some(drive),
-                    true,
-                    format!(
-                        "`{drive}` cannot move the rig: {available:.4} {unit} available, {:.4} {unit} needed to start it forward",
-                        sub.forward.value
+        let (a, f, b) = (
+            show(available),
+            show(sub.forward.value),
+            show(sub.back.value),
+        );
+        match sub.outcome(available) {
+            Outcome::Moves | Outcome::HoldsBack => {}
+            outcome if sub.drive_unknown() => {
+                let (code, message) = match outcome {
+                    Outcome::RunsAway => (
+                        "runs-away",
+                        format!(
+                            "`{drive}` cannot hold the rig: the load runs it forward by itself (forward {f}) and the available {a} {}, so it runs away; holding it needs {f} or less (if forward should haul in, the drive's `side` or sign is the wrong way round)",
+                            if available >= 0.0 {
+                                "pushes the same way"
+                            } else {
+                                "holds back less than that"
+                            }
+                        ),
                     ),
-                ));
+                    Outcome::RunsBack => (
+                        "cannot-move",
+                        format!(
+                            "`{drive}` cannot move the rig: {a} available, {f} needed to start it forward; below {b} the rig runs back{}",
+                            if available < 0.0 { " (the available value acts backward)" } else { "" }
+                        ),
+                    ),
+                    _ => (
+                        "cannot-move",
+                        format!(
+                            "`{drive}` cannot move the rig: {a} available, {f} needed to start it forward{}",
+                            if available < 0.0 { " (the available value acts backward)" } else { "" }
+                        ),
+                    ),
+                };
+                out.push(warn(code, Some(drive), true, message));
             }
-        } else {
-            let part = &rig.parts[sub.solve_for].name;
-            if available > sub.forward.value {
+            _ => {
+                let part = &rig.parts[sub.solve_for].name;
                 out.push(warn(
                     "cannot-move",
                     Some(part),
                     true,
                     format!(
-                        "the drive cannot move `{part}`: its stated {} {available:.4} {unit} exceeds the most the drive moves, {:.4} {unit}",
+                        "the drive cannot move `{part}`: its stated {} {a} exceeds the most the drive moves, {f}",
                         sub.quantity.name(),
-                        sub.forward.value
                     ),
                 ));
             }
@@ -280,8 +306,8 @@ fn subrig_checks(rig: &Rig, sub: &SubRigSolution) -> Vec<Warning> {
             Some(drive),
             false,
             format!(
-                "with `{drive}` moving forward the load does the work (ideal {:.4} {unit}): forward lowers or pays out, and the values are what the drive must hold back; for a drum check `side` on its path entry if that is not what you meant",
-                sub.ideal.value
+                "with `{drive}` moving forward the load does the work (ideal {}): forward lowers or pays out, and the values are what the drive must hold back; for a drum check `side` on its path entry if that is not what you meant",
+                show(sub.ideal.value)
             ),
         ));
     }
@@ -290,7 +316,10 @@ fn subrig_checks(rig: &Rig, sub: &SubRigSolution) -> Vec<Warning> {
         crate::solve::given_quantity(rig, sub.solve_for),
         sub.breakaway.as_ref(),
     ) {
-        let short = if sub.drive_unknown() {
+        let short = if sub.drive_holds_back() {
+            // Static friction only helps a drive that holds the load back.
+            false
+        } else if sub.drive_unknown() {
             available >= sub.forward.value && available < breakaway.value
         } else {
             available <= sub.forward.value && available > breakaway.value
@@ -301,8 +330,9 @@ fn subrig_checks(rig: &Rig, sub: &SubRigSolution) -> Vec<Warning> {
                 Some(drive),
                 false,
                 format!(
-                    "the drive keeps the rig moving once started ({:.4} {unit} forward) but may not start it from rest: breakaway needs {:.4} {unit} with the static coefficients",
-                    sub.forward.value, breakaway.value
+                    "the drive keeps the rig moving once started ({} forward) but may not start it from rest: breakaway needs {} with the static coefficients",
+                    show(sub.forward.value),
+                    show(breakaway.value)
                 ),
             ));
         }
@@ -323,11 +353,11 @@ fn subrig_checks(rig: &Rig, sub: &SubRigSolution) -> Vec<Warning> {
                 Some(&line.name),
                 true,
                 format!(
-                    "line `{}`: safety factor {:.2} (breaking strength {:.0} N over largest tension {:.1} N) is below the design factor {}",
+                    "line `{}`: safety factor {:.2} (breaking strength {} over largest tension {}) is below the design factor {}",
                     line.name,
                     strength / worst,
-                    strength,
-                    worst,
+                    force(strength),
+                    force(worst),
                     rig.limits.design_factor
                 ),
             ));
@@ -366,8 +396,9 @@ fn subrig_checks(rig: &Rig, sub: &SubRigSolution) -> Vec<Warning> {
                 Some(&line.name),
                 true,
                 format!(
-                    "{name}: span {j} of line `{}` would need a negative tension ({:.3} N); the rope goes slack there and the figures do not hold",
-                    line.name, case.tension[l][j]
+                    "{name}: span {j} of line `{}` would need a negative tension ({}); the rope goes slack there and the figures do not hold",
+                    line.name,
+                    force(case.tension[l][j])
                 ),
             ));
         }

@@ -357,3 +357,131 @@ fn a_balanced_rig_whose_ideal_effort_is_zero_still_solves() {
     assert!(!err.contains("do no work"), "{err}");
     assert_ne!(code, 2, "{out}{err}");
 }
+
+/// `check --json` of a rig with overrides: (exit code, JSON, text of the summary).
+fn verdict(rig: &str, sets: &[&str]) -> (i32, serde_json::Value, String) {
+    let mut args = vec!["check", rig];
+    for s in sets {
+        args.extend(["--set", s]);
+    }
+    let (_, text, _) = reeve(&args);
+    args.push("--json");
+    let (code, json, err) = reeve(&args);
+    let json = serde_json::from_str(&json).unwrap_or_else(|e| panic!("{e}: {err}"));
+    (code, json, text)
+}
+
+#[test]
+fn a_reversed_winch_that_cannot_hold_its_load_fails() {
+    // Guards "the drive moves the rig (margin −248.2 %)" with exit 0: the load runs the
+    // rig forward by itself (forward −20.25 N·m) and the crank's +30 N·m pushes the same
+    // way, so nothing holds the cart: it runs away. Margin (f − A)/|f| =
+    // (−20.25 − 30)/20.25 = −248 % (hand arithmetic on the solved forward value).
+    let rig = "tests/rigs/winch-reversed.yaml";
+    let (code, json, text) = verdict(rig, &[]);
+    assert_eq!(code, 1, "{text}");
+    assert!(!text.contains("the drive moves the rig"), "{text}");
+    assert!(
+        text.contains("CANNOT HOLD THE RIG") && text.contains("runs away"),
+        "{text}"
+    );
+    assert!(codes(&json).contains(&"runs-away".to_string()), "{json}");
+    assert_eq!(json["moves"], false);
+    assert!(json["margin"].as_f64().unwrap() < -2.0, "{json}");
+    // A brake of −15 N·m holds back less than the 20.25 N·m needed: it runs away too,
+    // margin (−20.25 + 15)/20.25 = −25.9 %.
+    let (code, json, text) = verdict(rig, &["parts.winch.torque=-15"]);
+    assert_eq!(code, 1, "{text}");
+    assert!(text.contains("runs away"), "{text}");
+    let f = json["forward"]["value"].as_f64().unwrap();
+    let margin = json["margin"].as_f64().unwrap();
+    assert!((margin - (f + 15.0) / f.abs()).abs() < 1e-12, "{json}");
+    // A brake of −30 N·m holds it: exit 0, margin (−20.25 + 30)/20.25 = +48 %.
+    let (code, json, text) = verdict(rig, &["parts.winch.torque=-30"]);
+    assert_eq!(code, 0, "{text}");
+    assert!(text.contains("the drive holds it back"), "{text}");
+    assert_eq!(json["moves"], true);
+    let f = json["forward"]["value"].as_f64().unwrap();
+    let margin = json["margin"].as_f64().unwrap();
+    assert!(
+        (margin - (f + 30.0) / f.abs()).abs() < 1e-12 && margin > 0.4,
+        "{json}"
+    );
+}
+
+#[test]
+fn a_drive_turning_backward_says_so_and_fails() {
+    // Guards the other sign mistake: on the winch as built (ideal +21.31 N·m) a torque
+    // of −30 N·m turns it backward, below the back value 20.21 N·m: the cart runs back.
+    let (code, json, text) = verdict("rigs/ramp-winch.yaml", &["parts.winch.torque=-30"]);
+    assert_eq!(code, 1, "{text}");
+    assert_eq!(json["moves"], false);
+    assert!(
+        text.contains("THE DRIVE CANNOT MOVE THE RIG") && text.contains("acts backward"),
+        "{text}"
+    );
+    assert!(text.contains("runs back"), "{text}");
+}
+
+#[test]
+fn failure_messages_use_the_rigs_units_and_precision() {
+    // Guards "2600.0000 N available, 2769.3525 N needed" beside a summary in kN: the
+    // warnings use the summary's units and four significant figures.
+    let (code, out, err) = reeve(&[
+        "check",
+        "rigs/workshop-hoist.yaml",
+        "--set",
+        "parts.hook.load.mass=1000 kg",
+        "--set",
+        "ropes.wire8.breaking_strength=10 kN",
+    ]);
+    assert_eq!(code, 1, "{out}{err}");
+    assert!(out.contains("2.600 kN available, 2.769 kN needed"), "{out}");
+    let warnings: Vec<&str> = out.lines().filter(|l| l.contains("FAIL [")).collect();
+    assert!(
+        warnings.iter().any(|l| l.contains("[safety-factor]")),
+        "{out}"
+    );
+    for line in &warnings {
+        assert!(!line.contains(" N ") && !line.contains(".0000"), "{line}");
+    }
+}
+
+#[test]
+fn an_imperial_rig_shows_torque_in_imperial_units() {
+    // Guards `torque N*m` on the unit line of a rig in inches and pounds: with no torque
+    // unit stated it is lbf*in (force × length), for bare numbers and reports alike.
+    // Hand calculation in the rig header: load torque 3 lbf*in = 0.338958 N·m, ideal
+    // pull 3/2.125 = 1.41176 lbf.
+    let rig = "tests/rigs/hinge-imperial.yaml";
+    let (code, text, err) = reeve(&["check", rig]);
+    assert_eq!(code, 0, "{err}");
+    assert!(
+        text.contains("3.000 lbf*in") && !text.contains("N*m"),
+        "{text}"
+    );
+    assert!(text.contains("1.412 lbf"), "{text}");
+    // The velocity ratio of a haul turning a drum is a length per radian: the pitch
+    // radius, 2.125 in/rad, not 0.05397 m/rad.
+    assert!(text.contains("Velocity ratio 2.125 in/rad"), "{text}");
+    assert!(text.contains("mechanical advantage 2.125 in"), "{text}");
+    let (_, table, _) = reeve(&["table", rig, "--format", "md"]);
+    assert!(table.contains("torque lbf*in"), "{table}");
+    let (_, json, _) = reeve(&["check", rig, "--json"]);
+    let json: serde_json::Value = serde_json::from_str(&json).unwrap();
+    let load = json["drums"][0]["load_torque_nm"].as_f64().unwrap();
+    assert!(
+        (load - 3.0 * 4.448_221_615_260_5 * 0.0254).abs() < 1e-9,
+        "{load}"
+    );
+}
+
+#[test]
+fn passage_columns_carry_their_degree_signs() {
+    // Guards fleet columns without `°` beside `wrap °` in the check summary.
+    let (_, text, _) = reeve(&["check", "rigs/ramp-winch.yaml"]);
+    assert!(
+        text.contains("wrap °") && text.contains("fleet in °") && text.contains("fleet out °"),
+        "{text}"
+    );
+}

@@ -450,3 +450,20 @@ fn no_equilibrium_names_its_real_cause() {
     assert!(!message.contains("sideways"), "{message}");
     assert_eq!(e.subject().1, Some("cart"));
 }
+
+#[test]
+fn the_margin_of_a_negative_stated_load_has_the_sign_of_the_verdict() {
+    // Guards margin = forward/stated − 1, which flips sign for a stated load below zero:
+    // the level cart pushed along its travel by 50 N (`load: {force: -50}`) is moved
+    // with room to spare (forward 219.12 N ≥ −50 N), margin (219.12 + 50)/50 = +538 %.
+    let text = std::fs::read_to_string(rig_path("level-cart.yaml"))
+        .unwrap()
+        .replace("moves: [1, 0, 0]}", "moves: [1, 0, 0], load: {force: -50}}");
+    let rig = load_str(&text, "level-cart.yaml").unwrap();
+    let s = solve(&rig, &SolveOptions::default()).unwrap();
+    let report = reeve::report::Report::build(&rig, &s, Vec::new());
+    let h = &report.headline;
+    let forward = 300.0 / (0.2 * PI / 2.0).exp();
+    assert_eq!(h.moves, Some(true));
+    assert_close("margin", h.margin.unwrap(), (forward + 50.0) / 50.0, 1e-9);
+}

@@ -1061,6 +1061,7 @@ fn resolve(root: &Node, source: &str) -> Result<Rig, Vec<Problem>> {
     });
 
     // units
+    let mut torque_stated = false;
     if let Some(n) = get(top, "units") {
         if let Some(entries) = r.mapping(n, "units", "a mapping `{length, force, mass, torque}`") {
             r.keys(entries, "units", UNIT_KEYS, "units");
@@ -1079,6 +1080,7 @@ fn resolve(root: &Node, source: &str) -> Result<Rig, Vec<Problem>> {
                 ) else {
                     continue;
                 };
+                torque_stated |= dim == Dimension::Torque;
                 match parse_unit_of(text, dim) {
                     Ok(unit) => match dim {
                         Dimension::Length => r.units.length = unit,
@@ -1090,6 +1092,9 @@ fn resolve(root: &Node, source: &str) -> Result<Rig, Vec<Problem>> {
                 }
             }
         }
+    }
+    if !torque_stated {
+        r.units.torque = default_torque(&r.units);
     }
 
     // gravity
@@ -1567,6 +1572,18 @@ fn part(
 
 /// A block's load: `(Some(load or None when unknown), load_is_force)`, or `(None, _)`
 /// after a problem.
+/// The torque unit of a file whose `units` state none: `N*m`, except that a file in
+/// pound-force gets `lbf*in` when its lengths are inches and `lbf*ft` otherwise, so that
+/// an imperial rig neither reads its bare torques nor reports them in N·m.
+fn default_torque(units: &UnitSystem) -> crate::units::Unit {
+    let symbol = match (units.force.symbol, units.length.symbol) {
+        ("lbf", "in") => "lbf*in",
+        ("lbf", _) => "lbf*ft",
+        _ => "N*m",
+    };
+    parse_unit_of(symbol, Dimension::Torque).unwrap_or(units.torque)
+}
+
 fn block_load(
     r: &mut Resolver,
     entries: &[Entry],

@@ -427,6 +427,44 @@ pub fn given_quantity(rig: &Rig, part: PartId) -> Option<Real> {
     }
 }
 
+/// What the given value of the asked quantity (the drive's available effort, or a
+/// stated load) does to the rig: the one verdict that the report, the checks and the
+/// studies all read.
+#[derive(Debug, Clone, Copy, PartialEq, Eq)]
+pub enum Outcome {
+    /// The drive moves the rig forward (available ≥ forward, or stated load ≤ forward).
+    Moves,
+    /// The load runs the rig forward by itself (forward value below zero) and the drive
+    /// holds it back (available ≤ forward): it lowers under control, or stands.
+    HoldsBack,
+    /// Friction holds the rig still: the drive cannot move it.
+    HeldStill,
+    /// The rig runs back: the drive cannot move it.
+    RunsBack,
+    /// The load runs the rig forward by itself and the drive does not hold it back
+    /// (available above the forward value, the same way the load drives it or too weak).
+    RunsAway,
+}
+
+impl Outcome {
+    /// Its name in the JSON (`moves`, `holds-back`, `held-still`, `runs-back`,
+    /// `runs-away`).
+    pub fn name(self) -> &'static str {
+        match self {
+            Outcome::Moves => "moves",
+            Outcome::HoldsBack => "holds-back",
+            Outcome::HeldStill => "held-still",
+            Outcome::RunsBack => "runs-back",
+            Outcome::RunsAway => "runs-away",
+        }
+    }
+
+    /// Whether the drive does what the rig needs of it (moves it, or holds it back).
+    pub fn succeeds(self) -> bool {
+        matches!(self, Outcome::Moves | Outcome::HoldsBack)
+    }
+}
+
 /// One sub-rig's answer.
 #[derive(Debug, Clone)]
 pub struct SubRigSolution {
@@ -516,6 +554,61 @@ impl SubRigSolution {
         } else {
             self.back.value * self.ideal.value < 0.0
         }
+    }
+
+    /// Whether the drive's job is to hold the load back: the unknown is the drive's own
+    /// quantity and its forward value is below zero (the load runs the rig forward by
+    /// itself, e.g. a winch paying out; DESIGN.md §3).
+    pub fn drive_holds_back(&self) -> bool {
+        self.drive_unknown() && self.forward.value < 0.0
+    }
+
+    /// What the given value `given` (SI) of the asked quantity does.
+    ///
+    /// Drive unknown, forward value `f ≥ 0`: moves at `given ≥ f`, held still down to the
+    /// back value, runs back below it. `f < 0` (the load runs it forward): the drive
+    /// holds it back at `given ≤ f`, else it runs away. Load unknown (`forward` is the
+    /// greatest load moved, `back` the least that runs it back): moves at `given ≤ f`,
+    /// held still up to `back`, runs back above it.
+    pub fn outcome(&self, given: Real) -> Outcome {
+        let (f, b) = (self.forward.value, self.back.value);
+        if self.drive_holds_back() {
+            if given <= f {
+                Outcome::HoldsBack
+            } else {
+                Outcome::RunsAway
+            }
+        } else if self.drive_unknown() {
+            if given >= f {
+                Outcome::Moves
+            } else if given >= b {
+                Outcome::HeldStill
+            } else {
+                Outcome::RunsBack
+            }
+        } else if given <= f {
+            Outcome::Moves
+        } else if given <= b {
+            Outcome::HeldStill
+        } else {
+            Outcome::RunsBack
+        }
+    }
+
+    /// The relative margin of the given value over what the rig needs, positive exactly
+    /// when [`Outcome::succeeds`]: `(given − f)/|f|` for a drive that moves the rig,
+    /// `(f − given)/|f|` for a drive that holds the load back, `(f − given)/|given|` for a
+    /// stated load. None when it is not finite (a zero divisor).
+    pub fn margin(&self, given: Real) -> Option<Real> {
+        let f = self.forward.value;
+        let m = if self.drive_holds_back() {
+            (f - given) / f.abs()
+        } else if self.drive_unknown() {
+            (given - f) / f.abs()
+        } else {
+            (f - given) / given.abs()
+        };
+        m.is_finite().then_some(m)
     }
 
     /// Mechanical advantage: velocity ratio × forward efficiency.
