@@ -181,9 +181,46 @@ pub fn pull_checks(rig: &Rig, solution: &Solution) -> Vec<Warning> {
     out
 }
 
+/// Plain bearings whose running coefficient `mu` is above their static `mu_static`:
+/// static friction is at least the running friction, so the breakaway figure would come
+/// out below the running one.
+pub fn bearing_checks(rig: &Rig) -> Vec<Warning> {
+    use crate::rig::model::Bearing;
+    let mut out = Vec::new();
+    for part in &rig.parts {
+        let bearing = match &part.kind {
+            PartKind::Sheave(s) => Some(&s.bearing),
+            PartKind::Drum(d) => d.shaft.as_ref().map(|s| &s.bearing),
+            _ => None,
+        };
+        if let Some(&Bearing::Plain {
+            mu,
+            mu_static: Some(mu_static),
+            ..
+        }) = bearing
+        {
+            if mu > mu_static {
+                out.push(warn(
+                    "mu-above-static",
+                    Some(&part.name),
+                    false,
+                    format!(
+                        "`{}`: the bearing's running `mu` {} is above its `mu_static` {}; static friction is at least the running friction, so the breakaway figure comes out below the running one (check the two values)",
+                        part.name,
+                        crate::units::significant(mu, 3),
+                        crate::units::significant(mu_static, 3)
+                    ),
+                ));
+            }
+        }
+    }
+    out
+}
+
 /// All checks over a solution.
 pub fn run(rig: &Rig, solution: &Solution) -> Vec<Warning> {
     let mut out = geometry_checks(rig, &solution.geometry);
+    out.extend(bearing_checks(rig));
     out.extend(plumb_checks(rig, solution));
     out.extend(pull_checks(rig, solution));
     for sub in &solution.subrigs {

@@ -485,3 +485,30 @@ fn passage_columns_carry_their_degree_signs() {
         "{text}"
     );
 }
+
+#[test]
+fn a_running_mu_above_the_static_one_is_warned() {
+    // Guards a breakaway figure below the running one, accepted silently: static
+    // friction is at least the running friction (any statics text, e.g. Hibbeler §8.1),
+    // so μ = 0.12 with μ_static = 0.05 is a slip of the pen.
+    let sheave = "parts.head.bearing";
+    let (code, json, text) = verdict(
+        "tests/rigs/sheave-static.yaml",
+        &[&format!("{sheave}.mu_static=0.05")],
+    );
+    assert_eq!(code, 0, "{text}");
+    assert!(
+        codes(&json).contains(&"mu-above-static".to_string()),
+        "{json}"
+    );
+    assert!(
+        text.contains("`head`") && text.contains("mu_static"),
+        "{text}"
+    );
+    // The usual order (μ_static 0.18 above μ 0.12) is not warned.
+    let (_, json, _) = verdict("tests/rigs/sheave-static.yaml", &[]);
+    assert!(
+        !codes(&json).contains(&"mu-above-static".to_string()),
+        "{json}"
+    );
+}
