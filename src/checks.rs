@@ -94,6 +94,77 @@ pub fn geometry_checks(rig: &Rig, geometry: &crate::geometry::Geometry) -> Vec<W
     out
 }
 
+/// Drums at a line end whose `side` the file leaves to the default (left) where that
+/// side leads the rope across the drum's centre line: the span leaves the drum on one
+/// side of the centre line (along gravity, or square to it, whichever the span runs
+/// nearer) and reaches its next part on the other, so the rope runs over or under the
+/// drum to get there instead of leaving it on the side where it is going, as a rope
+/// drawn hanging from the drum's other edge does. A stated `side` is never questioned.
+pub fn drum_side_checks(rig: &Rig, geometry: &crate::geometry::Geometry) -> Vec<Warning> {
+    let mut out = Vec::new();
+    for (l, line) in rig.lines.iter().enumerate() {
+        let g = &geometry.lines[l];
+        let n = line.path.len();
+        if g.spans.is_empty() {
+            continue;
+        }
+        for (e, neighbour, span, at_start) in [
+            (0, 1, &g.spans[0], true),
+            (n - 1, n - 2, &g.spans[g.spans.len() - 1], false),
+        ] {
+            let entry = &line.path[e];
+            let PartKind::Drum(drum) = &rig.parts[entry.part].kind else {
+                continue;
+            };
+            if entry.side.is_some() {
+                continue;
+            }
+            let (on_drum, off_drum) = if at_start {
+                (span.start, span.end)
+            } else {
+                (span.end, span.start)
+            };
+            let centre = g.entries[e].centre;
+            let radius = g.entries[e].pitch_radius;
+            let axle = drum.axle.into_inner();
+            let down = rig.gravity.into_inner() - axle * axle.dot(&rig.gravity);
+            if down.norm() < 1e-6 {
+                // The drum turns in a level plane: no up and down to cross.
+                continue;
+            }
+            let vertical = down.normalize();
+            let level = axle.cross(&vertical);
+            let u = span.direction.into_inner();
+            // The normal of the centre line the span runs nearer.
+            let normal = if u.dot(&vertical).abs() >= u.dot(&level).abs() {
+                level
+            } else {
+                vertical
+            };
+            let (a, b) = (
+                (on_drum - centre).dot(&normal),
+                (off_drum - centre).dot(&normal),
+            );
+            let crosses = a * b < 0.0 && a.abs().min(b.abs()) > 1e-6 * radius;
+            if crosses {
+                let part = &rig.parts[entry.part].name;
+                let end = if at_start { "start" } else { "end" };
+                out.push(warn(
+                    "drum-side",
+                    Some(part),
+                    false,
+                    format!(
+                        "line `{}`: `{part}` at the {end} of the line has no `side`, and the default (left) leads the rope across the drum's centre line to `{}`; if it should leave the drum on the other side write `{{part: {part}, side: right}}` (a drum winds the rope in as it turns forward with `side: right` at the start of a line, `side: left` at its end)",
+                        line.name,
+                        rig.parts[line.path[neighbour].part].name,
+                    ),
+                ));
+            }
+        }
+    }
+    out
+}
+
 /// A hanging weight whose line leaves it more than this off plumb would swing (2°).
 pub const OFF_PLUMB: Real = 2.0 * std::f64::consts::PI / 180.0;
 
@@ -221,6 +292,7 @@ pub fn bearing_checks(rig: &Rig) -> Vec<Warning> {
 pub fn run(rig: &Rig, solution: &Solution) -> Vec<Warning> {
     let mut out = geometry_checks(rig, &solution.geometry);
     out.extend(bearing_checks(rig));
+    out.extend(drum_side_checks(rig, &solution.geometry));
     out.extend(plumb_checks(rig, solution));
     out.extend(pull_checks(rig, solution));
     for sub in &solution.subrigs {

@@ -512,3 +512,73 @@ fn a_running_mu_above_the_static_one_is_warned() {
         "{json}"
     );
 }
+
+#[test]
+fn a_default_drum_side_that_leads_the_rope_across_the_drum_is_warned() {
+    // Guards the default `side: left` at the start of a path routing the rope round the
+    // wrong side in silence: the ramp winch written from the drum end ([winch, lead,
+    // cart]) leaves the drum left of its vertical centre line and runs up to the right,
+    // over the drum, to the lead sheave; the rig as drawn (rigs/ramp-winch.yaml) leaves
+    // it on the lead sheave's side.
+    let text = std::fs::read_to_string("rigs/ramp-winch.yaml").unwrap();
+    let started = text.replace("path: [cart, lead, winch]", "path: [winch, lead, cart]");
+    let (_, out, err) = run(&started);
+    assert!(
+        out.contains("[drum-side]") && out.contains("`winch`") && out.contains("side: right"),
+        "{out}{err}"
+    );
+    // Stating the side, either way, is the user's word: no warning.
+    for side in ["left", "right"] {
+        let stated = text.replace(
+            "path: [cart, lead, winch]",
+            &format!("path: [{{part: winch, side: {side}}}, lead, cart]"),
+        );
+        let (_, out, _) = run(&stated);
+        assert!(!out.contains("[drum-side]"), "{side}: {out}");
+    }
+    // The rig as drawn, drum at the end with the default side, runs open: no warning.
+    let (_, out, _) = reeve(&["check", "rigs/ramp-winch.yaml"]);
+    assert!(!out.contains("[drum-side]"), "{out}");
+    // A weight hanging under the drum's far edge (tests/rigs/review/drum-end-right.yaml
+    // without its `side: right`): the default side leads the rope across the drum's
+    // vertical centre line to reach it.
+    let hanging = std::fs::read_to_string("tests/rigs/review/drum-end-right.yaml")
+        .unwrap()
+        .replace("{part: winch, side: right}", "winch");
+    let (_, out, _) = run(&hanging);
+    assert!(out.contains("[drum-side]"), "{out}");
+    let (_, out, _) = reeve(&["check", "tests/rigs/review/drum-end-left.yaml"]);
+    assert!(!out.contains("[drum-side]"), "{out}");
+}
+
+#[test]
+fn a_drum_at_a_line_end_shows_the_turns_wound_on_it() {
+    // Guards wrap 0 in the drum row of a drum at a line end that has turns: three dead
+    // turns wound on the ramp winch show as 3 × 360° = 1080°.
+    let text = std::fs::read_to_string("rigs/ramp-winch.yaml")
+        .unwrap()
+        .replace(
+            "path: [cart, lead, winch]",
+            "path: [cart, lead, {part: winch, turns: 3}]",
+        );
+    let dir = std::env::temp_dir().join(format!("reeve-cli-turns-{}", std::process::id()));
+    std::fs::create_dir_all(&dir).unwrap();
+    let path = dir.join("winch.yaml");
+    std::fs::write(&path, text).unwrap();
+    let (_, json, err) = reeve(&["check", path.to_str().unwrap(), "--json"]);
+    let json: serde_json::Value =
+        serde_json::from_str(&json).unwrap_or_else(|e| panic!("{e}{err}"));
+    let winch = json["parts"]
+        .as_array()
+        .unwrap()
+        .iter()
+        .find(|p| p["name"] == "winch")
+        .unwrap();
+    assert_eq!(
+        winch["passages"][0]["wrap_deg"].as_f64(),
+        Some(1080.0),
+        "{winch}"
+    );
+    assert_eq!(winch["wrap_deg"].as_f64(), Some(1080.0), "{winch}");
+    let _ = std::fs::remove_dir_all(&dir);
+}

@@ -458,6 +458,22 @@ fn headline(rig: &Rig, sub: &SubRigSolution) -> Headline {
     }
 }
 
+/// The wrap shown for a passage, radians: the geometry's, and at a line end, where
+/// the rope is tied to a drum, the turns wound on it (`turns` of that path entry).
+fn passage_wrap(
+    rig: &Rig,
+    line: &crate::rig::model::Line,
+    e: usize,
+    g: &crate::geometry::EntryGeometry,
+) -> Real {
+    let end = e == 0 || e + 1 == line.path.len();
+    if end && matches!(rig.parts[g.part].kind, PartKind::Drum(_)) {
+        std::f64::consts::TAU * Real::from(g.turns)
+    } else {
+        g.wrap
+    }
+}
+
 /// The sub-rig solution that owns `line`.
 fn owner<'a>(rig: &Rig, solution: &'a Solution, line: usize) -> Option<&'a SubRigSolution> {
     let comp = crate::solve::kinematics::line_component(rig, &solution.network, line)?;
@@ -514,7 +530,7 @@ impl Report {
                     passages.push(PassageReport {
                         line: line.name.clone(),
                         entry: e,
-                        wrap_deg: finite(g.wrap.to_degrees()),
+                        wrap_deg: finite(passage_wrap(rig, line, e, g).to_degrees()),
                         fleet_in_deg: g.fleet_in.map(Real::to_degrees),
                         fleet_out_deg: g.fleet_out.map(Real::to_degrees),
                         bend_ratio: g.bend_ratio,
