@@ -20,9 +20,14 @@ fn rig_path(name: &str) -> PathBuf {
 }
 
 fn load(name: &str) -> Rig {
+    edited(name, |text| text)
+}
+
+/// A review rig with its text changed by `edit`, loaded.
+fn edited(name: &str, edit: impl FnOnce(String) -> String) -> Rig {
     let path = rig_path(name);
     let text = std::fs::read_to_string(&path).unwrap_or_else(|e| panic!("{name}: {e}"));
-    load_str(&text, name).unwrap_or_else(|e| panic!("{name} does not load: {e}"))
+    load_str(&edit(text), name).unwrap_or_else(|e| panic!("{name} does not load: {e}"))
 }
 
 fn solve_rig(name: &str) -> (Rig, Solution) {
@@ -416,10 +421,9 @@ fn a_block_with_no_load_moving_with_gravity_is_still_solved_for_a_mass() {
     // Guards the other side of the same choice: under a 2:1 hook the travel is along
     // gravity, so the unknown stays the mass (block-unknown.yaml without its load:
     // ideal (500 − 2 g)/g = 48.986 kg, hand calculation in the rig header).
-    let text = std::fs::read_to_string(rig_path("block-unknown.yaml"))
-        .unwrap()
-        .replace(", load: {mass: 45}", "");
-    let rig = load_str(&text, "block-unknown.yaml").unwrap();
+    let rig = edited("block-unknown.yaml", |t| {
+        t.replace(", load: {mass: 45}", "")
+    });
     let s = solve(&rig, &SolveOptions::default()).unwrap();
     assert_eq!(s.main().quantity, reeve::solve::Quantity::Mass);
     assert_close("ideal", s.main().ideal.value, 500.0 / G - 2.0, 1e-8);
@@ -436,10 +440,9 @@ fn no_equilibrium_names_its_real_cause() {
     // Guards the one hint "lines pulling only sideways" given for every inconsistent
     // system: a mass asked for on a block whose travel is square to gravity does no
     // work, and the message must say that, not blame the lines.
-    let text = std::fs::read_to_string(rig_path("level-cart.yaml"))
-        .unwrap()
-        .replace("moves: [1, 0, 0]}", "moves: [1, 0, 0], load: {mass: ~}}");
-    let rig = load_str(&text, "level-cart.yaml").unwrap();
+    let rig = edited("level-cart.yaml", |t| {
+        t.replace("moves: [1, 0, 0]}", "moves: [1, 0, 0], load: {mass: ~}}")
+    });
     let e = solve(&rig, &SolveOptions::default()).unwrap_err();
     let message = e.to_string();
     assert!(!matches!(e, SolveError::NoEquilibrium { .. }), "{message}");
@@ -456,10 +459,9 @@ fn the_margin_of_a_negative_stated_load_has_the_sign_of_the_verdict() {
     // Guards margin = forward/stated − 1, which flips sign for a stated load below zero:
     // the level cart pushed along its travel by 50 N (`load: {force: -50}`) is moved
     // with room to spare (forward 219.12 N ≥ −50 N), margin (219.12 + 50)/50 = +538 %.
-    let text = std::fs::read_to_string(rig_path("level-cart.yaml"))
-        .unwrap()
-        .replace("moves: [1, 0, 0]}", "moves: [1, 0, 0], load: {force: -50}}");
-    let rig = load_str(&text, "level-cart.yaml").unwrap();
+    let rig = edited("level-cart.yaml", |t| {
+        t.replace("moves: [1, 0, 0]}", "moves: [1, 0, 0], load: {force: -50}}")
+    });
     let s = solve(&rig, &SolveOptions::default()).unwrap();
     let report = reeve::report::Report::build(&rig, &s, Vec::new());
     let h = &report.headline;

@@ -205,7 +205,7 @@ pub struct Headline {
     pub moves: Option<bool>,
     /// What the given value does: `moves`, `holds-back`, `held-still`, `runs-back` or
     /// `runs-away` (None when nothing is given).
-    pub outcome: Option<&'static str>,
+    pub outcome: Option<Outcome>,
     /// Energy audit misfit per case (fraction of drive power).
     pub energy_audit: PerCase,
 }
@@ -243,48 +243,48 @@ impl Headline {
         const CANNOT_MOVE: &str = "the drive cannot move the rig";
         const CANNOT_HOLD: &str = "the drive cannot hold the rig";
         Some(match self.outcome? {
-            "moves" => (true, MOVES, String::new()),
-            "holds-back" => (
+            Outcome::Moves => (true, MOVES, String::new()),
+            Outcome::HoldsBack => (
                 true,
                 "the drive holds it back",
                 "the load runs the rig forward by itself".to_string(),
             ),
-            "held-still" if backward => (
+            Outcome::HeldStill if backward => (
                 false,
                 CANNOT_MOVE,
                 "that acts backward, so friction holds it still".to_string(),
             ),
-            "held-still" if drive_unknown => (
+            Outcome::HeldStill if drive_unknown => (
                 false,
                 CANNOT_MOVE,
                 format!("friction holds it still; it needs {forward} to start forward"),
             ),
-            "held-still" => (
+            Outcome::HeldStill => (
                 false,
                 CANNOT_MOVE,
                 format!("that is above the most the drive moves, {forward}"),
             ),
-            "runs-back" if backward => (
+            Outcome::RunsBack if backward => (
                 false,
                 CANNOT_MOVE,
                 "that acts backward, so the rig runs back".to_string(),
             ),
-            "runs-back" if drive_unknown => (
+            Outcome::RunsBack if drive_unknown => (
                 false,
                 CANNOT_MOVE,
                 format!("it runs back below {back}; it needs {forward} to go forward"),
             ),
-            "runs-back" => (
+            Outcome::RunsBack => (
                 false,
                 CANNOT_MOVE,
                 format!("that runs it back (above {back})"),
             ),
-            _ if given >= 0.0 => (
+            Outcome::RunsAway if given >= 0.0 => (
                 false,
                 CANNOT_HOLD,
                 format!("the load runs it forward by itself and that pushes the same way, so it runs away; holding it needs {forward} or less"),
             ),
-            _ => (
+            Outcome::RunsAway => (
                 false,
                 CANNOT_HOLD,
                 format!("the load runs it forward by itself and that holds back less than the {forward} needed, so it runs away"),
@@ -449,7 +449,7 @@ fn headline(rig: &Rig, sub: &SubRigSolution) -> Headline {
         available,
         margin,
         moves,
-        outcome: outcome.map(Outcome::name),
+        outcome,
         energy_audit: PerCase {
             ideal: finite(sub.ideal.audit_residual),
             forward: finite(sub.forward.audit_residual),

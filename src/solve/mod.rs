@@ -430,7 +430,8 @@ pub fn given_quantity(rig: &Rig, part: PartId) -> Option<Real> {
 /// What the given value of the asked quantity (the drive's available effort, or a
 /// stated load) does to the rig: the one verdict that the report, the checks and the
 /// studies all read.
-#[derive(Debug, Clone, Copy, PartialEq, Eq)]
+#[derive(Debug, Clone, Copy, PartialEq, Eq, serde::Serialize)]
+#[serde(rename_all = "kebab-case")]
 pub enum Outcome {
     /// The drive moves the rig forward (available ≥ forward, or stated load ≤ forward).
     Moves,
@@ -447,18 +448,6 @@ pub enum Outcome {
 }
 
 impl Outcome {
-    /// Its name in the JSON (`moves`, `holds-back`, `held-still`, `runs-back`,
-    /// `runs-away`).
-    pub fn name(self) -> &'static str {
-        match self {
-            Outcome::Moves => "moves",
-            Outcome::HoldsBack => "holds-back",
-            Outcome::HeldStill => "held-still",
-            Outcome::RunsBack => "runs-back",
-            Outcome::RunsAway => "runs-away",
-        }
-    }
-
     /// Whether the drive does what the rig needs of it (moves it, or holds it back).
     pub fn succeeds(self) -> bool {
         matches!(self, Outcome::Moves | Outcome::HoldsBack)
