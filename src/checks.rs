@@ -4,7 +4,8 @@
 
 use crate::math::Real;
 use crate::rig::model::{PartKind, Rig};
-use crate::solve::{Solution, Status, SubRigSolution};
+use crate::solve::{Outcome, Solution, Status, SubRigSolution};
+use crate::units::Dimension;
 
 /// Wraps below this are reported as the rope not touching the part (0.1°).
 pub const NO_WRAP: Real = 0.1 * std::f64::consts::PI / 180.0;
@@ -93,6 +94,77 @@ pub fn geometry_checks(rig: &Rig, geometry: &crate::geometry::Geometry) -> Vec<W
     out
 }
 
+/// Drums at a line end whose `side` the file leaves to the default (left) where that
+/// side leads the rope across the drum's centre line: the span leaves the drum on one
+/// side of the centre line (along gravity, or square to it, whichever the span runs
+/// nearer) and reaches its next part on the other, so the rope runs over or under the
+/// drum to get there instead of leaving it on the side where it is going, as a rope
+/// drawn hanging from the drum's other edge does. A stated `side` is never questioned.
+pub fn drum_side_checks(rig: &Rig, geometry: &crate::geometry::Geometry) -> Vec<Warning> {
+    let mut out = Vec::new();
+    for (l, line) in rig.lines.iter().enumerate() {
+        let g = &geometry.lines[l];
+        let n = line.path.len();
+        if g.spans.is_empty() {
+            continue;
+        }
+        for (e, neighbour, span, at_start) in [
+            (0, 1, &g.spans[0], true),
+            (n - 1, n - 2, &g.spans[g.spans.len() - 1], false),
+        ] {
+            let entry = &line.path[e];
+            let PartKind::Drum(drum) = &rig.parts[entry.part].kind else {
+                continue;
+            };
+            if entry.side.is_some() {
+                continue;
+            }
+            let (on_drum, off_drum) = if at_start {
+                (span.start, span.end)
+            } else {
+                (span.end, span.start)
+            };
+            let centre = g.entries[e].centre;
+            let radius = g.entries[e].pitch_radius;
+            let axle = drum.axle.into_inner();
+            let down = rig.gravity.into_inner() - axle * axle.dot(&rig.gravity);
+            if down.norm() < 1e-6 {
+                // The drum turns in a level plane: no up and down to cross.
+                continue;
+            }
+            let vertical = down.normalize();
+            let level = axle.cross(&vertical);
+            let u = span.direction.into_inner();
+            // The normal of the centre line the span runs nearer.
+            let normal = if u.dot(&vertical).abs() >= u.dot(&level).abs() {
+                level
+            } else {
+                vertical
+            };
+            let (a, b) = (
+                (on_drum - centre).dot(&normal),
+                (off_drum - centre).dot(&normal),
+            );
+            let crosses = a * b < 0.0 && a.abs().min(b.abs()) > 1e-6 * radius;
+            if crosses {
+                let part = &rig.parts[entry.part].name;
+                let end = if at_start { "start" } else { "end" };
+                out.push(warn(
+                    "drum-side",
+                    Some(part),
+                    false,
+                    format!(
+                        "line `{}`: `{part}` at the {end} of the line has no `side`, and the default (left) leads the rope across the drum's centre line to `{}`; if it should leave the drum on the other side write `{{part: {part}, side: right}}` (a drum winds the rope in as it turns forward with `side: right` at the start of a line, `side: left` at its end)",
+                        line.name,
+                        rig.parts[line.path[neighbour].part].name,
+                    ),
+                ));
+            }
+        }
+    }
+    out
+}
+
 /// A hanging weight whose line leaves it more than this off plumb would swing (2°).
 pub const OFF_PLUMB: Real = 2.0 * std::f64::consts::PI / 180.0;
 
@@ -170,11 +242,47 @@ pub fn pull_checks(rig: &Rig, solution: &Solution) -> Vec<Warning> {
                 Some(name),
                 false,
                 format!(
-                    "`{name}` is pulled {:.1}° off its rope: the effort shown is the component along `pull`; the rope itself carries {} N forward",
+                    "`{name}` is pulled {:.1}° off its rope: the effort shown is the component along `pull`; the rope itself carries {} forward",
                     angle.to_degrees(),
-                    tension.map_or("—".to_string(), |t| format!("{t:.4}"))
+                    tension.map_or("—".to_string(), |t| rig.units.show(t, Dimension::Force))
                 ),
             ));
+        }
+    }
+    out
+}
+
+/// Plain bearings whose running coefficient `mu` is above their static `mu_static`:
+/// static friction is at least the running friction, so the breakaway figure would come
+/// out below the running one.
+pub fn bearing_checks(rig: &Rig) -> Vec<Warning> {
+    use crate::rig::model::Bearing;
+    let mut out = Vec::new();
+    for part in &rig.parts {
+        let bearing = match &part.kind {
+            PartKind::Sheave(s) => Some(&s.bearing),
+            PartKind::Drum(d) => d.shaft.as_ref().map(|s| &s.bearing),
+            _ => None,
+        };
+        if let Some(&Bearing::Plain {
+            mu,
+            mu_static: Some(mu_static),
+            ..
+        }) = bearing
+        {
+            if mu > mu_static {
+                out.push(warn(
+                    "mu-above-static",
+                    Some(&part.name),
+                    false,
+                    format!(
+                        "`{}`: the bearing's running `mu` {} is above its `mu_static` {}; static friction is at least the running friction, so the breakaway figure comes out below the running one (check the two values)",
+                        part.name,
+                        crate::units::significant(mu, 3),
+                        crate::units::significant(mu_static, 3)
+                    ),
+                ));
+            }
         }
     }
     out
@@ -183,6 +291,8 @@ pub fn pull_checks(rig: &Rig, solution: &Solution) -> Vec<Warning> {
 /// All checks over a solution.
 pub fn run(rig: &Rig, solution: &Solution) -> Vec<Warning> {
     let mut out = geometry_checks(rig, &solution.geometry);
+    out.extend(bearing_checks(rig));
+    out.extend(drum_side_checks(rig, &solution.geometry));
     out.extend(plumb_checks(rig, solution));
     out.extend(pull_checks(rig, solution));
     for sub in &solution.subrigs {
@@ -191,35 +301,108 @@ pub fn run(rig: &Rig, solution: &Solution) -> Vec<Warning> {
     out
 }
 
+/// Lines along which friction multiplies the tension beyond any rope's range
+/// ([`crate::friction::PHYSICAL_RATIO_LIMIT`]), passage ratios in series between the
+/// line's ends and drums (a drum's ratio is its load torque's, not friction's). Every
+/// passage may be ordinary and the line still lock: the product is what fails.
+fn friction_lock_checks(rig: &Rig, sub: &SubRigSolution) -> Vec<Warning> {
+    let mut out = Vec::new();
+    for (l, line) in rig.lines.iter().enumerate() {
+        // The largest product of one run: (product, first entry, last entry).
+        let mut worst: Option<(Real, usize, usize)> = None;
+        for case in [&sub.forward, &sub.back] {
+            let Some(ratios) = case.ratio.get(l).filter(|_| !case.tension[l].is_empty()) else {
+                continue;
+            };
+            let (mut product, mut start) = (1.0, 0);
+            for (e, entry) in line.path.iter().enumerate().skip(1) {
+                if matches!(rig.parts[entry.part].kind, PartKind::Drum(_)) {
+                    (product, start) = (1.0, e);
+                    continue;
+                }
+                product *= ratios[e].unwrap_or(1.0);
+                if !worst.is_some_and(|(w, _, _)| product <= w) {
+                    worst = Some((product, start, e));
+                }
+            }
+        }
+        let Some((product, start, end)) = worst else {
+            continue;
+        };
+        if product > crate::friction::PHYSICAL_RATIO_LIMIT {
+            let name = |e: usize| &rig.parts[line.path[e].part].name;
+            out.push(warn(
+                "friction-lock",
+                Some(&line.name),
+                true,
+                format!(
+                    "line `{}`: friction multiplies the tension {}-fold from `{}` to `{}`, beyond what any rope spans (above {:e}): the rig locks there and the figures mean nothing; fewer wraps or less friction along it",
+                    line.name,
+                    crate::units::significant(product, 3),
+                    name(start),
+                    name(end),
+                    crate::friction::PHYSICAL_RATIO_LIMIT
+                ),
+            ));
+        }
+    }
+    out
+}
+
 fn subrig_checks(rig: &Rig, sub: &SubRigSolution) -> Vec<Warning> {
     let mut out = Vec::new();
     let drive = &rig.parts[sub.drive].name;
-    let unit = sub.quantity.si_unit();
-    // Can the drive move the load?
+    let force = |x: Real| rig.units.show(x, Dimension::Force);
+    // Does the drive do what the rig needs: move it, or hold back a load that runs it
+    // forward by itself? One verdict, the one the report and the studies read.
+    let show = |x: Real| rig.units.show(x, sub.quantity.dimension());
     if let Some(available) = crate::solve::given_quantity(rig, sub.solve_for) {
-        if sub.drive_unknown() {
-            if available < sub.forward.value {
-                out.push(warn(
-                    "cannot-move",
-                    Some(drive),
-                    true,
-                    format!(
-                        "`{drive}` cannot move the rig: {available:.4} {unit} available, {:.4} {unit} needed to start it forward",
-                        sub.forward.value
+        let (a, f, b) = (
+            show(available),
+            show(sub.forward.value),
+            show(sub.back.value),
+        );
+        match sub.outcome(available) {
+            Outcome::Moves | Outcome::HoldsBack => {}
+            outcome if sub.drive_unknown() => {
+                let (code, message) = match outcome {
+                    Outcome::RunsAway => (
+                        "runs-away",
+                        format!(
+                            "`{drive}` cannot hold the rig: the load runs it forward by itself (forward {f}) and the available {a} {}, so it runs away; holding it needs {f} or less (if forward should haul in, the drive's `side` or sign is the wrong way round)",
+                            if available >= 0.0 {
+                                "pushes the same way"
+                            } else {
+                                "holds back less than that"
+                            }
+                        ),
                     ),
-                ));
+                    Outcome::RunsBack => (
+                        "cannot-move",
+                        format!(
+                            "`{drive}` cannot move the rig: {a} available, {f} needed to start it forward; below {b} the rig runs back{}",
+                            if available < 0.0 { " (the available value acts backward)" } else { "" }
+                        ),
+                    ),
+                    _ => (
+                        "cannot-move",
+                        format!(
+                            "`{drive}` cannot move the rig: {a} available, {f} needed to start it forward{}",
+                            if available < 0.0 { " (the available value acts backward)" } else { "" }
+                        ),
+                    ),
+                };
+                out.push(warn(code, Some(drive), true, message));
             }
-        } else {
-            let part = &rig.parts[sub.solve_for].name;
-            if available > sub.forward.value {
+            _ => {
+                let part = &rig.parts[sub.solve_for].name;
                 out.push(warn(
                     "cannot-move",
                     Some(part),
                     true,
                     format!(
-                        "the drive cannot move `{part}`: its stated {} {available:.4} {unit} exceeds the most the drive moves, {:.4} {unit}",
+                        "the drive cannot move `{part}`: its stated {} {a} exceeds the most the drive moves, {f}",
                         sub.quantity.name(),
-                        sub.forward.value
                     ),
                 ));
             }
@@ -232,8 +415,8 @@ fn subrig_checks(rig: &Rig, sub: &SubRigSolution) -> Vec<Warning> {
             Some(drive),
             false,
             format!(
-                "with `{drive}` moving forward the load does the work (ideal {:.4} {unit}): forward lowers or pays out, and the values are what the drive must hold back; for a drum check `side` on its path entry if that is not what you meant",
-                sub.ideal.value
+                "with `{drive}` moving forward the load does the work (ideal {}): forward lowers or pays out, and the values are what the drive must hold back; for a drum check `side` on its path entry if that is not what you meant",
+                show(sub.ideal.value)
             ),
         ));
     }
@@ -242,7 +425,10 @@ fn subrig_checks(rig: &Rig, sub: &SubRigSolution) -> Vec<Warning> {
         crate::solve::given_quantity(rig, sub.solve_for),
         sub.breakaway.as_ref(),
     ) {
-        let short = if sub.drive_unknown() {
+        let short = if sub.drive_holds_back() {
+            // Static friction only helps a drive that holds the load back.
+            false
+        } else if sub.drive_unknown() {
             available >= sub.forward.value && available < breakaway.value
         } else {
             available <= sub.forward.value && available > breakaway.value
@@ -253,8 +439,9 @@ fn subrig_checks(rig: &Rig, sub: &SubRigSolution) -> Vec<Warning> {
                 Some(drive),
                 false,
                 format!(
-                    "the drive keeps the rig moving once started ({:.4} {unit} forward) but may not start it from rest: breakaway needs {:.4} {unit} with the static coefficients",
-                    sub.forward.value, breakaway.value
+                    "the drive keeps the rig moving once started ({} forward) but may not start it from rest: breakaway needs {} with the static coefficients",
+                    show(sub.forward.value),
+                    show(breakaway.value)
                 ),
             ));
         }
@@ -275,16 +462,17 @@ fn subrig_checks(rig: &Rig, sub: &SubRigSolution) -> Vec<Warning> {
                 Some(&line.name),
                 true,
                 format!(
-                    "line `{}`: safety factor {:.2} (breaking strength {:.0} N over largest tension {:.1} N) is below the design factor {}",
+                    "line `{}`: safety factor {:.2} (breaking strength {} over largest tension {}) is below the design factor {}",
                     line.name,
                     strength / worst,
-                    strength,
-                    worst,
+                    force(strength),
+                    force(worst),
                     rig.limits.design_factor
                 ),
             ));
         }
     }
+    out.extend(friction_lock_checks(rig, sub));
     for case in [&sub.forward, &sub.back] {
         let name = case.case.name();
         for slip in &case.slipping {
@@ -317,8 +505,9 @@ fn subrig_checks(rig: &Rig, sub: &SubRigSolution) -> Vec<Warning> {
                 Some(&line.name),
                 true,
                 format!(
-                    "{name}: span {j} of line `{}` would need a negative tension ({:.3} N); the rope goes slack there and the figures do not hold",
-                    line.name, case.tension[l][j]
+                    "{name}: span {j} of line `{}` would need a negative tension ({}); the rope goes slack there and the figures do not hold",
+                    line.name,
+                    force(case.tension[l][j])
                 ),
             ));
         }

@@ -308,6 +308,47 @@ impl UnitSystem {
     pub fn from_si(&self, value: Real, dimension: Dimension) -> Real {
         value / self.unit(dimension).si
     }
+
+    /// An SI value as the reports show it: in this system's unit for `dimension`, to
+    /// four significant figures, with the unit (`2.600 kN`); `—` when not finite.
+    ///
+    /// ```
+    /// use reeve::units::{parse_unit, Dimension, UnitSystem};
+    /// let mut units = UnitSystem::default();
+    /// units.force = parse_unit("kN").unwrap();
+    /// assert_eq!(units.show(2769.3525, Dimension::Force), "2.769 kN");
+    /// ```
+    pub fn show(&self, value: Real, dimension: Dimension) -> String {
+        let unit = self.unit(dimension);
+        if value.is_finite() {
+            format!("{} {}", significant(value / unit.si, 4), unit.symbol)
+        } else {
+            "—".to_string()
+        }
+    }
+}
+
+/// Formats a number with about `sig` significant figures, without exponent for the
+/// everyday range (1e-4 to 1e10), and `—` for a value that is not finite.
+///
+/// ```
+/// use reeve::units::significant;
+/// assert_eq!(significant(196.133, 4), "196.1");
+/// assert_eq!(significant(2.5e12, 3), "2.50e12");
+/// ```
+pub fn significant(x: Real, sig: usize) -> String {
+    if !x.is_finite() {
+        return "—".to_string();
+    }
+    if x == 0.0 {
+        return "0".to_string();
+    }
+    let mag = x.abs().log10().floor() as i32;
+    if !(-4..=9).contains(&mag) {
+        return format!("{:.*e}", sig.saturating_sub(1), x);
+    }
+    let decimals = (sig as i32 - 1 - mag).max(0) as usize;
+    format!("{:.*}", decimals, x)
 }
 
 #[cfg(test)]

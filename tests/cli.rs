@@ -4,6 +4,8 @@
 use std::io::Write;
 use std::process::Command;
 
+mod common;
+
 fn run(text: &str) -> (i32, String, String) {
     let dir = std::env::temp_dir().join(format!("reeve-cli-{}", std::process::id()));
     std::fs::create_dir_all(&dir).unwrap();
@@ -176,4 +178,407 @@ fn a_block_cannot_drive_against_its_own_load() {
         err.contains(":6:") && err.contains("`b`") && err.contains("against its own travel"),
         "{err}"
     );
+}
+
+/// The real binary on a rig file with any command; (exit code, stdout, stderr).
+fn reeve(args: &[&str]) -> (i32, String, String) {
+    let out = Command::new(env!("CARGO_BIN_EXE_reeve"))
+        .args(args)
+        .current_dir(env!("CARGO_MANIFEST_DIR"))
+        .output()
+        .unwrap();
+    (
+        out.status.code().unwrap_or(-1),
+        String::from_utf8_lossy(&out.stdout).into_owned(),
+        String::from_utf8_lossy(&out.stderr).into_owned(),
+    )
+}
+
+/// The analysis commands that solve a rig, with the arguments each needs.
+fn every_solving_command(rig: &str) -> Vec<Vec<String>> {
+    let own = |args: &[&str]| args.iter().map(|a| a.to_string()).collect::<Vec<_>>();
+    vec![
+        own(&["check", rig]),
+        own(&["check", rig, "--json"]),
+        own(&["table", rig]),
+        own(&["rank", rig]),
+        own(&["spread", rig, "--samples", "3", "--seed", "1"]),
+        own(&["compare", rig]),
+        own(&["sweep", rig, "--stroke", "1"]),
+    ]
+}
+
+#[test]
+fn a_capstan_ratio_that_overflows_is_a_located_error_in_every_command() {
+    // Guards against the SVD panic ("Singular value was NaN", exit 101): 1000 turns at
+    // μ = 0.25 give e^(0.25·(π + 2000π)) = e^1571, beyond f64 (largest e^709).
+    for args in every_solving_command("tests/rigs/guide-turns.yaml") {
+        let args: Vec<&str> = args.iter().map(String::as_str).collect();
+        let (code, _, err) = reeve(&args);
+        assert_eq!(code, 2, "{args:?}: {err}");
+        assert!(!err.contains("panicked"), "{args:?}: {err}");
+        assert!(
+            err.contains("guide-turns.yaml:15:")
+                && err.contains("`bar`")
+                && err.contains("too large to be physical"),
+            "{args:?}: {err}"
+        );
+    }
+}
+
+#[test]
+fn a_rope_mu_of_hundreds_set_from_the_command_line_is_refused_not_a_panic() {
+    // Guards the same overflow reached through `--set` and the studies: the carabiner of
+    // rigs/rescue-haul.yaml at μ = 1000 over its wrap gives e^(1000·φ) = ∞.
+    for mut args in every_solving_command("rigs/rescue-haul.yaml") {
+        args.extend(["--set".to_string(), "parts.leg.biner.mu=1000".to_string()]);
+        let args: Vec<&str> = args.iter().map(String::as_str).collect();
+        let (code, _, err) = reeve(&args);
+        assert_eq!(code, 2, "{args:?}: {err}");
+        assert!(!err.contains("panicked"), "{args:?}: {err}");
+        assert!(
+            err.contains("`leg.biner`") && err.contains("too large to be physical"),
+            "{args:?}: {err}"
+        );
+    }
+    // A rope `mu` of a few hundred on bare pins (rigs/automaton-cord.yaml, no `mu` of
+    // their own): e^(300·φ) overflows too, and the message names the first pin.
+    let (code, _, err) = reeve(&[
+        "rank",
+        "rigs/automaton-cord.yaml",
+        "--set",
+        "ropes.braid1.mu=300",
+    ]);
+    assert_eq!(code, 2, "{err}");
+    assert!(
+        err.contains("`pin.1`") && err.contains("too large to be physical"),
+        "{err}"
+    );
+    // The sweep that reaches it in a step: refused as well, never a panic.
+    let (code, _, err) = reeve(&[
+        "sweep",
+        "rigs/rescue-haul.yaml",
+        "--vary",
+        "parts.leg.biner.mu=0.2..1000",
+        "--steps",
+        "3",
+    ]);
+    assert!(!err.contains("panicked"), "{err}");
+    assert_ne!(code, 101, "{err}");
+}
+
+#[test]
+fn a_finite_but_unphysical_capstan_ratio_has_its_own_message() {
+    // Guards the 1e56 N answers with exit 0: 100 turns at μ = 0.25 give
+    // e^(0.25·(π + 200π)) = e^157.9 ≈ 4e68, finite but far above 1e12; the rope states
+    // no breaking strength, so no safety-factor check caught it.
+    let text = std::fs::read_to_string("tests/rigs/guide-turns.yaml")
+        .unwrap()
+        .replace("turns: 1000", "turns: 100");
+    let (code, out, err) = run(&text);
+    assert_eq!(code, 2, "{out}{err}");
+    assert!(
+        err.contains("`bar`") && err.contains("too large to be physical"),
+        "{err}"
+    );
+    // Five turns (e^(0.25·11π) = 5.7e3) are an ordinary capstan and still solve.
+    let text = text.replace("turns: 100", "turns: 5");
+    let (code, out, err) = run(&text);
+    assert_eq!(code, 0, "{out}{err}");
+}
+
+#[test]
+fn friction_that_compounds_beyond_any_rope_fails_the_check() {
+    // Guards huge figures with exit 0 where every passage is ordinary but they multiply:
+    // 40 zig-zag pins at μ = 0.5, each wrapped about 2 rad (ratio e^1 ≈ 2.8, capstan
+    // equation), multiply the pull about e^40 ≈ 1e17-fold, far above 1e12.
+    let (code, out, err) = run(&common::chain(40, 0.5));
+    assert_eq!(code, 1, "{out}{err}");
+    assert!(
+        out.contains("FAIL [friction-lock]") && out.contains("line `cord`"),
+        "{out}"
+    );
+    // Ten such pins (e^10 ≈ 2e4) are an ordinary, if lossy, rig.
+    let (code, out, err) = run(&common::chain(10, 0.5));
+    assert!(!out.contains("friction-lock"), "{out}{err}");
+    assert_eq!(code, 0, "{out}{err}");
+}
+
+#[test]
+fn loads_square_to_the_motion_are_refused_with_the_likely_fix() {
+    // Guards "0 N in every case, the drive moves the rig, exit 0": the hook rises along
+    // +Y while gravity is the default −Z, so its 40 kg do no work (virtual work:
+    // X = −(v·Q)/(v·x) = 0 for every friction).
+    let (code, out, err) = reeve(&["check", "tests/rigs/y-up-hoist.yaml"]);
+    assert_eq!(code, 2, "{out}{err}");
+    assert!(
+        err.contains("y-up-hoist.yaml:12:")
+            && err.contains("`hook`")
+            && err.contains("do no work")
+            && err.contains("gravity: [0, -1, 0]")
+            && err.contains("`moves`"),
+        "{err}"
+    );
+    // The same rig with gravity along −Y solves: 2:1, ideal 40 g / 2 = 196.13 N.
+    let (code, out, err) = reeve(&[
+        "check",
+        "tests/rigs/y-up-hoist.yaml",
+        "--json",
+        "--set",
+        "gravity=[0, -1, 0]",
+    ]);
+    assert_eq!(code, 0, "{err}");
+    let json: serde_json::Value = serde_json::from_str(&out).unwrap();
+    let ideal = json["ideal"]["value"].as_f64().unwrap();
+    assert!((ideal - 40.0 * 9.80665 / 2.0).abs() < 1e-6, "{ideal}");
+    // A block moving across gravity with a mass load, hauled for a force: refused too.
+    let text = std::fs::read_to_string("tests/rigs/review/level-cart.yaml")
+        .unwrap()
+        .replace("moves: [1, 0, 0]}", "moves: [1, 0, 0], load: {mass: 100}}")
+        .replace(", force: 300}", "}")
+        .replace("solve_for: cart", "");
+    let (code, out, err) = run(&text);
+    assert_eq!(code, 2, "{out}{err}");
+    assert!(
+        err.contains("`cart`") && err.contains("do no work"),
+        "{err}"
+    );
+}
+
+#[test]
+fn a_balanced_rig_whose_ideal_effort_is_zero_still_solves() {
+    // Guards the refusal above from catching balanced rigs: two 5 kg weights over one
+    // sheave do work that cancels (ideal 0 N by virtual work), and only the friction of
+    // the bearing is left to overcome.
+    let rig = format!(
+        "{HEAD}  s: {{kind: sheave, at: [0, 0, 2000], axle: [0, 1, 0], diameter: 60, bearing: {{kind: plain, pin_diameter: 10, mu: 0.1}}}}\n  a: {{kind: weight, at: [-33, 0, 0], mass: 5}}\n  b: {{kind: weight, at: [33, 0, -500], mass: 5}}\n  h: {{kind: haul, at: [100, 0, 1000]}}\nlines:\n  l: {{rope: r, path: [a, s, b]}}\n  m: {{rope: r, path: [b, h]}}\ndrive: h\n"
+    );
+    let (code, out, err) = run(&rig);
+    assert!(!err.contains("do no work"), "{err}");
+    assert_ne!(code, 2, "{out}{err}");
+}
+
+/// `check --json` of a rig with overrides: (exit code, JSON, text of the summary).
+fn verdict(rig: &str, sets: &[&str]) -> (i32, serde_json::Value, String) {
+    let mut args = vec!["check", rig];
+    for s in sets {
+        args.extend(["--set", s]);
+    }
+    let (_, text, _) = reeve(&args);
+    args.push("--json");
+    let (code, json, err) = reeve(&args);
+    let json = serde_json::from_str(&json).unwrap_or_else(|e| panic!("{e}: {err}"));
+    (code, json, text)
+}
+
+#[test]
+fn a_reversed_winch_that_cannot_hold_its_load_fails() {
+    // Guards "the drive moves the rig (margin −248.2 %)" with exit 0: the load runs the
+    // rig forward by itself (forward −20.25 N·m) and the crank's +30 N·m pushes the same
+    // way, so nothing holds the cart: it runs away. Margin (f − A)/|f| =
+    // (−20.25 − 30)/20.25 = −248 % (hand arithmetic on the solved forward value).
+    let rig = "tests/rigs/winch-reversed.yaml";
+    let (code, json, text) = verdict(rig, &[]);
+    assert_eq!(code, 1, "{text}");
+    assert!(!text.contains("the drive moves the rig"), "{text}");
+    assert!(
+        text.contains("CANNOT HOLD THE RIG") && text.contains("runs away"),
+        "{text}"
+    );
+    assert!(codes(&json).contains(&"runs-away".to_string()), "{json}");
+    assert_eq!(json["moves"], false);
+    assert!(json["margin"].as_f64().unwrap() < -2.0, "{json}");
+    // A brake of −15 N·m holds back less than the 20.25 N·m needed: it runs away too,
+    // margin (−20.25 + 15)/20.25 = −25.9 %.
+    let (code, json, text) = verdict(rig, &["parts.winch.torque=-15"]);
+    assert_eq!(code, 1, "{text}");
+    assert!(text.contains("runs away"), "{text}");
+    let f = json["forward"]["value"].as_f64().unwrap();
+    let margin = json["margin"].as_f64().unwrap();
+    assert!((margin - (f + 15.0) / f.abs()).abs() < 1e-12, "{json}");
+    // A brake of −30 N·m holds it: exit 0, margin (−20.25 + 30)/20.25 = +48 %.
+    let (code, json, text) = verdict(rig, &["parts.winch.torque=-30"]);
+    assert_eq!(code, 0, "{text}");
+    assert!(text.contains("the drive holds it back"), "{text}");
+    assert_eq!(json["moves"], true);
+    let f = json["forward"]["value"].as_f64().unwrap();
+    let margin = json["margin"].as_f64().unwrap();
+    assert!(
+        (margin - (f + 30.0) / f.abs()).abs() < 1e-12 && margin > 0.4,
+        "{json}"
+    );
+}
+
+#[test]
+fn a_drive_turning_backward_says_so_and_fails() {
+    // Guards the other sign mistake: on the winch as built (ideal +21.31 N·m) a torque
+    // of −30 N·m turns it backward, below the back value 20.21 N·m: the cart runs back.
+    let (code, json, text) = verdict("rigs/ramp-winch.yaml", &["parts.winch.torque=-30"]);
+    assert_eq!(code, 1, "{text}");
+    assert_eq!(json["moves"], false);
+    assert!(
+        text.contains("THE DRIVE CANNOT MOVE THE RIG") && text.contains("acts backward"),
+        "{text}"
+    );
+    assert!(text.contains("runs back"), "{text}");
+}
+
+#[test]
+fn failure_messages_use_the_rigs_units_and_precision() {
+    // Guards "2600.0000 N available, 2769.3525 N needed" beside a summary in kN: the
+    // warnings use the summary's units and four significant figures.
+    let (code, out, err) = reeve(&[
+        "check",
+        "rigs/workshop-hoist.yaml",
+        "--set",
+        "parts.hook.load.mass=1000 kg",
+        "--set",
+        "ropes.wire8.breaking_strength=10 kN",
+    ]);
+    assert_eq!(code, 1, "{out}{err}");
+    assert!(out.contains("2.600 kN available, 2.769 kN needed"), "{out}");
+    let warnings: Vec<&str> = out.lines().filter(|l| l.contains("FAIL [")).collect();
+    assert!(
+        warnings.iter().any(|l| l.contains("[safety-factor]")),
+        "{out}"
+    );
+    for line in &warnings {
+        assert!(!line.contains(" N ") && !line.contains(".0000"), "{line}");
+    }
+}
+
+#[test]
+fn an_imperial_rig_shows_torque_in_imperial_units() {
+    // Guards `torque N*m` on the unit line of a rig in inches and pounds: with no torque
+    // unit stated it is lbf*in (force × length), for bare numbers and reports alike.
+    // Hand calculation in the rig header: load torque 3 lbf*in = 0.338958 N·m, ideal
+    // pull 3/2.125 = 1.41176 lbf.
+    let rig = "tests/rigs/hinge-imperial.yaml";
+    let (code, text, err) = reeve(&["check", rig]);
+    assert_eq!(code, 0, "{err}");
+    assert!(
+        text.contains("3.000 lbf*in") && !text.contains("N*m"),
+        "{text}"
+    );
+    assert!(text.contains("1.412 lbf"), "{text}");
+    // The velocity ratio of a haul turning a drum is a length per radian: the pitch
+    // radius, 2.125 in/rad, not 0.05397 m/rad.
+    assert!(text.contains("Velocity ratio 2.125 in/rad"), "{text}");
+    assert!(text.contains("mechanical advantage 2.125 in"), "{text}");
+    let (_, table, _) = reeve(&["table", rig, "--format", "md"]);
+    assert!(table.contains("torque lbf*in"), "{table}");
+    let (_, json, _) = reeve(&["check", rig, "--json"]);
+    let json: serde_json::Value = serde_json::from_str(&json).unwrap();
+    let load = json["drums"][0]["load_torque_nm"].as_f64().unwrap();
+    assert!(
+        (load - 3.0 * 4.448_221_615_260_5 * 0.0254).abs() < 1e-9,
+        "{load}"
+    );
+}
+
+#[test]
+fn passage_columns_carry_their_degree_signs() {
+    // Guards fleet columns without `°` beside `wrap °` in the check summary.
+    let (_, text, _) = reeve(&["check", "rigs/ramp-winch.yaml"]);
+    assert!(
+        text.contains("wrap °") && text.contains("fleet in °") && text.contains("fleet out °"),
+        "{text}"
+    );
+}
+
+#[test]
+fn a_running_mu_above_the_static_one_is_warned() {
+    // Guards a breakaway figure below the running one, accepted silently: static
+    // friction is at least the running friction (any statics text, e.g. Hibbeler §8.1),
+    // so μ = 0.12 with μ_static = 0.05 is a slip of the pen.
+    let sheave = "parts.head.bearing";
+    let (code, json, text) = verdict(
+        "tests/rigs/sheave-static.yaml",
+        &[&format!("{sheave}.mu_static=0.05")],
+    );
+    assert_eq!(code, 0, "{text}");
+    assert!(
+        codes(&json).contains(&"mu-above-static".to_string()),
+        "{json}"
+    );
+    assert!(
+        text.contains("`head`") && text.contains("mu_static"),
+        "{text}"
+    );
+    // The usual order (μ_static 0.18 above μ 0.12) is not warned.
+    let (_, json, _) = verdict("tests/rigs/sheave-static.yaml", &[]);
+    assert!(
+        !codes(&json).contains(&"mu-above-static".to_string()),
+        "{json}"
+    );
+}
+
+#[test]
+fn a_default_drum_side_that_leads_the_rope_across_the_drum_is_warned() {
+    // Guards the default `side: left` at the start of a path routing the rope round the
+    // wrong side in silence: the ramp winch written from the drum end ([winch, lead,
+    // cart]) leaves the drum left of its vertical centre line and runs up to the right,
+    // over the drum, to the lead sheave; the rig as drawn (rigs/ramp-winch.yaml) leaves
+    // it on the lead sheave's side.
+    let text = std::fs::read_to_string("rigs/ramp-winch.yaml").unwrap();
+    let started = text.replace("path: [cart, lead, winch]", "path: [winch, lead, cart]");
+    let (_, out, err) = run(&started);
+    assert!(
+        out.contains("[drum-side]") && out.contains("`winch`") && out.contains("side: right"),
+        "{out}{err}"
+    );
+    // Stating the side, either way, is the user's word: no warning.
+    for side in ["left", "right"] {
+        let stated = text.replace(
+            "path: [cart, lead, winch]",
+            &format!("path: [{{part: winch, side: {side}}}, lead, cart]"),
+        );
+        let (_, out, _) = run(&stated);
+        assert!(!out.contains("[drum-side]"), "{side}: {out}");
+    }
+    // The rig as drawn, drum at the end with the default side, runs open: no warning.
+    let (_, out, _) = reeve(&["check", "rigs/ramp-winch.yaml"]);
+    assert!(!out.contains("[drum-side]"), "{out}");
+    // A weight hanging under the drum's far edge (tests/rigs/review/drum-end-right.yaml
+    // without its `side: right`): the default side leads the rope across the drum's
+    // vertical centre line to reach it.
+    let hanging = std::fs::read_to_string("tests/rigs/review/drum-end-right.yaml")
+        .unwrap()
+        .replace("{part: winch, side: right}", "winch");
+    let (_, out, _) = run(&hanging);
+    assert!(out.contains("[drum-side]"), "{out}");
+    let (_, out, _) = reeve(&["check", "tests/rigs/review/drum-end-left.yaml"]);
+    assert!(!out.contains("[drum-side]"), "{out}");
+}
+
+#[test]
+fn a_drum_at_a_line_end_shows_the_turns_wound_on_it() {
+    // Guards wrap 0 in the drum row of a drum at a line end that has turns: three dead
+    // turns wound on the ramp winch show as 3 × 360° = 1080°.
+    let text = std::fs::read_to_string("rigs/ramp-winch.yaml")
+        .unwrap()
+        .replace(
+            "path: [cart, lead, winch]",
+            "path: [cart, lead, {part: winch, turns: 3}]",
+        );
+    let dir = std::env::temp_dir().join(format!("reeve-cli-turns-{}", std::process::id()));
+    std::fs::create_dir_all(&dir).unwrap();
+    let path = dir.join("winch.yaml");
+    std::fs::write(&path, text).unwrap();
+    let (_, json, err) = reeve(&["check", path.to_str().unwrap(), "--json"]);
+    let json: serde_json::Value =
+        serde_json::from_str(&json).unwrap_or_else(|e| panic!("{e}{err}"));
+    let winch = json["parts"]
+        .as_array()
+        .unwrap()
+        .iter()
+        .find(|p| p["name"] == "winch")
+        .unwrap();
+    assert_eq!(
+        winch["passages"][0]["wrap_deg"].as_f64(),
+        Some(1080.0),
+        "{winch}"
+    );
+    assert_eq!(winch["wrap_deg"].as_f64(), Some(1080.0), "{winch}");
+    let _ = std::fs::remove_dir_all(&dir);
 }

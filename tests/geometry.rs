@@ -59,6 +59,7 @@ fn block(name: &str, at: [Real; 3]) -> Part {
             moves: dir(0.0, 0.0, 1.0),
             load: None,
             load_is_force: false,
+            load_stated: true,
             mass: None,
         }),
     )
@@ -900,6 +901,42 @@ proptest! {
                     }
                 }
             }
+        }
+    }
+}
+
+/// Every number of a geometry is finite: span ends, lengths, directions, wraps, fleet
+/// angles and bend ratios.
+fn all_finite(g: &Geometry) -> bool {
+    g.lines.iter().all(|line| {
+        line.spans.iter().all(|s| {
+            s.length.is_finite()
+                && s.start.iter().chain(s.end.iter()).all(|x| x.is_finite())
+                && s.direction.iter().all(|x| x.is_finite())
+        }) && line.entries.iter().all(|e| {
+            e.wrap.is_finite()
+                && e.pitch_radius.is_finite()
+                && e.fleet_in.map_or(true, Real::is_finite)
+                && e.fleet_out.map_or(true, Real::is_finite)
+                && e.bend_ratio.map_or(true, Real::is_finite)
+        })
+    })
+}
+
+proptest! {
+    #![proptest_config(ProptestConfig { cases: 300, failure_persistence: None, .. ProptestConfig::default() })]
+
+    /// Extreme inputs (coordinates up to 1e300 m or infinite, treads from 1e-300 m to
+    /// infinite) give an error or a geometry that is finite throughout, never a NaN.
+    #[test]
+    fn extreme_inputs_give_an_error_or_finite_geometry(
+        a in prop_oneof![Just(0.0), Just(1e300), Just(-1e300), Just(Real::INFINITY), -10.0..10.0f64],
+        c in prop_oneof![Just(1e300), Just(Real::INFINITY), Just(1e-300), -10.0..10.0f64],
+        tread in prop_oneof![Just(1e-300), Just(1e300), Just(Real::INFINITY), 0.001..10.0f64],
+    ) {
+        let r = straight([[a, 0.0, 0.0], [0.0, 0.0, 1.0], [c, 0.0, 0.0]], tread, Some(Side::Left));
+        if let Ok(g) = compute(&r, &GeometryOptions::default()) {
+            prop_assert!(all_finite(&g), "{a} {c} {tread}: {g:?}");
         }
     }
 }

@@ -661,3 +661,55 @@ proptest! {
         prop_assert!(close(ideal, expected, 1e-9), "ideal {} vs virtual work {}\n{}", ideal, expected, text);
     }
 }
+
+proptest! {
+    #![proptest_config(ProptestConfig { cases: 200, failure_persistence: None, .. ProptestConfig::default() })]
+
+    /// Friction of any size (μ up to 1000, up to 1000 extra turns, rated factors up to
+    /// 1e12) never panics and never gives a number that is not finite: the solve
+    /// either answers with finite figures or refuses with an error that names a part.
+    #[test]
+    fn huge_friction_never_panics_nor_gives_non_finite_figures(
+        guides in proptest::collection::vec(
+            (prop_oneof![0.0..1.0f64, 0.0..1000.0f64], prop_oneof![0u32..5, 0u32..=1000]),
+            1..4,
+        ),
+        factor_exponent in prop_oneof![0.0..0.1f64, 0.0..12.0f64],
+        rope_mu in prop_oneof![0.0..1.0f64, 0.0..500.0f64],
+    ) {
+        let mut text = format!(
+            "format: 1\nunits: {{length: mm, force: N, mass: kg}}\nropes:\n  c: {{diameter: 4, mu: {rope_mu:?}}}\nparts:\n\
+             \x20 hand: {{kind: haul, at: [0, 0, -500], pull: [0, 0, -1]}}\n\
+             \x20 s: {{kind: sheave, at: [0, 0, 0], axle: [0, 1, 0], diameter: 60, bearing: {{kind: rated, factor: {:?}}}}}\n",
+            10f64.powf(factor_exponent)
+        );
+        let mut path = vec!["hand".to_string(), "{part: s, side: right}".to_string()];
+        for (i, (mu, turns)) in guides.iter().enumerate() {
+            let z = if i % 2 == 0 { 200.0 } else { 0.0 };
+            text.push_str(&format!(
+                "  g{i}: {{kind: guide, at: [{}, 0, {z}], axle: [0, 1, 0], diameter: 20, mu: {mu:?}}}\n",
+                100.0 * (i + 1) as f64
+            ));
+            path.push(format!("{{part: g{i}, turns: {turns}}}"));
+        }
+        text.push_str(&format!(
+            "  bob: {{kind: weight, at: [{}, 0, -800], mass: 2}}\nlines:\n  l: {{rope: c, path: [{}, bob]}}\n",
+            100.0 * (guides.len() + 1) as f64,
+            path.join(", ")
+        ));
+        let rig = load_str(&text, "huge.yaml").unwrap_or_else(|e| panic!("{e}\n{text}"));
+        match solve(&rig, &SolveOptions::default()) {
+            Ok(s) => {
+                for case in [Case::Ideal, Case::Forward, Case::Back] {
+                    let c = s.main().case(case);
+                    prop_assert!(c.value.is_finite(), "{}: {}\n{}", case.name(), c.value, text);
+                    prop_assert!(c.tension.iter().flatten().all(|t| t.is_finite()), "{}\n{}", case.name(), text);
+                }
+            }
+            Err(e) => {
+                let message = e.to_string();
+                prop_assert!(e.subject().1.is_some(), "unlocated: {}\n{}", message, text);
+            }
+        }
+    }
+}

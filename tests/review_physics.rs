@@ -20,9 +20,14 @@ fn rig_path(name: &str) -> PathBuf {
 }
 
 fn load(name: &str) -> Rig {
+    edited(name, |text| text)
+}
+
+/// A review rig with its text changed by `edit`, loaded.
+fn edited(name: &str, edit: impl FnOnce(String) -> String) -> Rig {
     let path = rig_path(name);
     let text = std::fs::read_to_string(&path).unwrap_or_else(|e| panic!("{name}: {e}"));
-    load_str(&text, name).unwrap_or_else(|e| panic!("{name} does not load: {e}"))
+    load_str(&edit(text), name).unwrap_or_else(|e| panic!("{name} does not load: {e}"))
 }
 
 fn solve_rig(name: &str) -> (Rig, Solution) {
@@ -388,4 +393,79 @@ fn haul_pulled_off_its_rope_reports_the_component_along_pull() {
     assert_close("effort", m.ideal.value, 10.0 * G * 0.5, 1e-9);
     assert_close("tension", m.ideal.tension[0][0], 10.0 * G, 1e-9);
     assert_close("MA", m.mechanical_advantage().unwrap(), 2.0, 1e-9);
+}
+
+#[test]
+fn a_block_with_no_load_moving_across_gravity_is_solved_for_a_force() {
+    // Guards "no equilibrium" for an unknown block that states no load on a level
+    // track: a mass there does no work, so the unknown is the force against `moves`.
+    // Hand calculation (rig header, capstan equation, Hibbeler §8.5): ideal 300 N,
+    // forward 300/e^(0.2·π/2) = 219.12 N, back 300·e^(0.2·π/2) = 410.73 N.
+    let (_, s) = solve_rig("level-cart.yaml");
+    let m = s.main();
+    assert_eq!(m.quantity, reeve::solve::Quantity::Force);
+    let k = (0.2 * PI / 2.0).exp();
+    assert_close("ideal", m.ideal.value, 300.0, 1e-9);
+    assert_close("forward", m.forward.value, 300.0 / k, 1e-9);
+    assert_close("back", m.back.value, 300.0 * k, 1e-9);
+    // The output says why the figure is a force.
+    let text = check_text("level-cart.yaml");
+    assert!(
+        text.contains("`cart` states no load") && text.contains("force against its `moves`"),
+        "{text}"
+    );
+}
+
+#[test]
+fn a_block_with_no_load_moving_with_gravity_is_still_solved_for_a_mass() {
+    // Guards the other side of the same choice: under a 2:1 hook the travel is along
+    // gravity, so the unknown stays the mass (block-unknown.yaml without its load:
+    // ideal (500 − 2 g)/g = 48.986 kg, hand calculation in the rig header).
+    let rig = edited("block-unknown.yaml", |t| {
+        t.replace(", load: {mass: 45}", "")
+    });
+    let s = solve(&rig, &SolveOptions::default()).unwrap();
+    assert_eq!(s.main().quantity, reeve::solve::Quantity::Mass);
+    assert_close("ideal", s.main().ideal.value, 500.0 / G - 2.0, 1e-8);
+    let report = reeve::report::Report::build(&rig, &s, Vec::new());
+    let note = report.headline.solve_for.note.clone().unwrap_or_default();
+    assert!(
+        note.contains("states no load") && note.contains("mass"),
+        "{note}"
+    );
+}
+
+#[test]
+fn no_equilibrium_names_its_real_cause() {
+    // Guards the one hint "lines pulling only sideways" given for every inconsistent
+    // system: a mass asked for on a block whose travel is square to gravity does no
+    // work, and the message must say that, not blame the lines.
+    let rig = edited("level-cart.yaml", |t| {
+        t.replace("moves: [1, 0, 0]}", "moves: [1, 0, 0], load: {mass: ~}}")
+    });
+    let e = solve(&rig, &SolveOptions::default()).unwrap_err();
+    let message = e.to_string();
+    assert!(!matches!(e, SolveError::NoEquilibrium { .. }), "{message}");
+    assert!(
+        message.contains("`cart`") && message.contains("square to gravity"),
+        "{message}"
+    );
+    assert!(!message.contains("sideways"), "{message}");
+    assert_eq!(e.subject().1, Some("cart"));
+}
+
+#[test]
+fn the_margin_of_a_negative_stated_load_has_the_sign_of_the_verdict() {
+    // Guards margin = forward/stated − 1, which flips sign for a stated load below zero:
+    // the level cart pushed along its travel by 50 N (`load: {force: -50}`) is moved
+    // with room to spare (forward 219.12 N ≥ −50 N), margin (219.12 + 50)/50 = +538 %.
+    let rig = edited("level-cart.yaml", |t| {
+        t.replace("moves: [1, 0, 0]}", "moves: [1, 0, 0], load: {force: -50}}")
+    });
+    let s = solve(&rig, &SolveOptions::default()).unwrap();
+    let report = reeve::report::Report::build(&rig, &s, Vec::new());
+    let h = &report.headline;
+    let forward = 300.0 / (0.2 * PI / 2.0).exp();
+    assert_eq!(h.moves, Some(true));
+    assert_close("margin", h.margin.unwrap(), (forward + 50.0) / 50.0, 1e-9);
 }

@@ -34,6 +34,16 @@ pub mod thrust;
 use crate::math::{Real, Vector};
 use crate::rig::model::Bearing;
 
+/// The largest tension ratio (tight over slack) that a rope can span: `10¹²`.
+///
+/// A rope's working tensions run from about a newton (a cord just taut) to about
+/// `10⁷ N` (the largest wire ropes), seven orders of magnitude; a ratio beyond `10¹²`
+/// across one passage, or along one line, cannot describe rope sliding or a sheave
+/// turning: the rope would lock on the part, and the figures would mean nothing. The
+/// solver refuses a passage above it and the checks fail a line above it (common
+/// practice reasoning, not a published figure).
+pub const PHYSICAL_RATIO_LIMIT: Real = 1e12;
+
 /// A problem with a friction input that a caller may pass on to the user.
 #[derive(Debug, Clone, Copy, PartialEq, thiserror::Error)]
 pub enum FrictionError {

@@ -13,7 +13,7 @@ use crate::units::{Dimension, UnitSystem};
 
 use super::svg::{self, DrawOptions};
 use super::table::{self, Align, CaseFilter, Style, Table, TableChoice};
-use super::text::{number, quantity};
+use super::text::quantity;
 use super::{Headline, Report, CAUTION};
 
 /// Escapes text for HTML content and attribute values.
@@ -188,6 +188,9 @@ fn write_summary(w: &mut dyn Write, h: &Headline, units: &UnitSystem, id: &str) 
         esc(&h.solve_for.part),
         esc(&h.drive)
     )?;
+    if let Some(note) = &h.solve_for.note {
+        writeln!(w, "<p class=\"meta\">{}.</p>", esc(note))?;
+    }
     writeln!(
         w,
         "<div class=\"table-scroll fit\"><table id=\"{id}\" class=\"summary\"><thead><tr><th scope=\"col\"></th><th scope=\"col\" class=\"num\">ideal</th><th scope=\"col\" class=\"num\">forward</th><th scope=\"col\" class=\"num\">back</th></tr></thead><tbody>"
@@ -208,13 +211,13 @@ fn write_summary(w: &mut dyn Write, h: &Headline, units: &UnitSystem, id: &str) 
     )?;
     writeln!(w, "</tbody></table></div>")?;
     writeln!(w, "<ul>")?;
-    if let Some(vr) = h.velocity_ratio {
-        write!(w, "<li>Velocity ratio {}", number(Some(vr), 4))?;
+    if let (Some(vr), ma) = h.ratio_words(units) {
+        write!(w, "<li>Velocity ratio {}", esc(&vr))?;
         if let Some(p) = &h.load_part {
             write!(w, " (drive speed over <code>{}</code> speed)", esc(p))?;
         }
-        if let Some(ma) = h.mechanical_advantage {
-            write!(w, "; mechanical advantage {}", number(Some(ma), 4))?;
+        if let Some(ma) = ma {
+            write!(w, "; mechanical advantage {}", esc(&ma))?;
         }
         writeln!(w, ".</li>")?;
     }
@@ -226,13 +229,15 @@ fn write_summary(w: &mut dyn Write, h: &Headline, units: &UnitSystem, id: &str) 
         q(hi)
     )?;
     writeln!(w, "<li>{}.</li>", h.self_locking_words())?;
-    if let Some(a) = h.available {
+    if let (Some(a), Some((ok, head, why))) = (h.available, h.verdict(units)) {
         let what = super::text::capitalise(h.given_word());
-        let verdict = match h.moves {
-            Some(true) => "<span class=\"ok\">the drive moves the rig</span>",
-            Some(false) => "<span class=\"bad\">the drive cannot move the rig</span>",
-            None => "",
+        let class = if ok { "ok" } else { "bad" };
+        let why = if why.is_empty() {
+            why
+        } else {
+            format!(": {}", esc(&why))
         };
+        let verdict = format!("<span class=\"{class}\">{head}</span>{why}");
         writeln!(
             w,
             "<li>{what} {}: {}; {verdict} (margin {}).</li>",

@@ -12,7 +12,8 @@ use serde::Serialize;
 use crate::checks::Warning;
 use crate::math::{Real, Vector};
 use crate::rig::model::{PartKind, Rig};
-use crate::solve::{given_quantity, Case, Solution, SubRigSolution};
+use crate::solve::{given_quantity, Case, Outcome, Solution, SubRigSolution};
+use crate::units::UnitSystem;
 
 /// The caution every human-readable report ends with (DESIGN.md §6).
 pub const CAUTION: &str =
@@ -34,6 +35,10 @@ pub struct Asked {
     pub quantity: &'static str,
     /// SI unit of the values.
     pub unit: &'static str,
+    /// Why this quantity, where the file did not say (a `solve_for` block without
+    /// `load`). Not in the JSON when absent.
+    #[serde(skip_serializing_if = "Option::is_none")]
+    pub note: Option<String>,
 }
 
 /// One case's headline.
@@ -190,10 +195,17 @@ pub struct Headline {
     pub holding_band: [Option<Real>; 2],
     /// Given value of the asked quantity (available drive or stated load), SI.
     pub available: Option<Real>,
-    /// Relative margin: available/forward − 1 (drive unknown) or forward/stated − 1.
+    /// Relative margin of the given value over what the rig needs, positive exactly when
+    /// `moves` ([`SubRigSolution::margin`]): (available − forward)/|forward| for a drive
+    /// unknown, the reverse where the drive holds the load back, (forward − stated)/|stated|
+    /// for a load unknown.
     pub margin: Option<Real>,
-    /// Whether the drive moves the rig (None when nothing is given to compare).
+    /// Whether the drive does what the rig needs: moves it forward, or, where the load
+    /// runs the rig forward by itself, holds it back (None when nothing is given).
     pub moves: Option<bool>,
+    /// What the given value does: `moves`, `holds-back`, `held-still`, `runs-back` or
+    /// `runs-away` (None when nothing is given).
+    pub outcome: Option<Outcome>,
     /// Energy audit misfit per case (fraction of drive power).
     pub energy_audit: PerCase,
 }
@@ -213,6 +225,115 @@ impl Headline {
         } else {
             // A load unknown: `back` is the least load that drives the rig back.
             "Self-locking: no; a load above the back value runs it back"
+        }
+    }
+
+    /// What the given value does, in words: whether that is what the rig needs, the
+    /// verdict (`the drive cannot hold the rig`) and why (`the load runs it forward by
+    /// itself and that pushes the same way, so it runs away`); None when nothing is
+    /// given. Quantities in the report's units.
+    pub fn verdict(&self, units: &UnitSystem) -> Option<(bool, &'static str, String)> {
+        let given = self.available?;
+        let q = |x: Option<Real>| x.map_or("—".to_string(), |v| units.show(v, self.dimension()));
+        let forward = q(self.forward.value);
+        let back = q(self.back.value);
+        let drive_unknown = self.solve_for.part == self.drive;
+        let backward = drive_unknown && given < 0.0;
+        const MOVES: &str = "the drive moves the rig";
+        const CANNOT_MOVE: &str = "the drive cannot move the rig";
+        const CANNOT_HOLD: &str = "the drive cannot hold the rig";
+        Some(match self.outcome? {
+            Outcome::Moves => (true, MOVES, String::new()),
+            Outcome::HoldsBack => (
+                true,
+                "the drive holds it back",
+                "the load runs the rig forward by itself".to_string(),
+            ),
+            Outcome::HeldStill if backward => (
+                false,
+                CANNOT_MOVE,
+                "that acts backward, so friction holds it still".to_string(),
+            ),
+            Outcome::HeldStill if drive_unknown => (
+                false,
+                CANNOT_MOVE,
+                format!("friction holds it still; it needs {forward} to start forward"),
+            ),
+            Outcome::HeldStill => (
+                false,
+                CANNOT_MOVE,
+                format!("that is above the most the drive moves, {forward}"),
+            ),
+            Outcome::RunsBack if backward => (
+                false,
+                CANNOT_MOVE,
+                "that acts backward, so the rig runs back".to_string(),
+            ),
+            Outcome::RunsBack if drive_unknown => (
+                false,
+                CANNOT_MOVE,
+                format!("it runs back below {back}; it needs {forward} to go forward"),
+            ),
+            Outcome::RunsBack => (
+                false,
+                CANNOT_MOVE,
+                format!("that runs it back (above {back})"),
+            ),
+            Outcome::RunsAway if given >= 0.0 => (
+                false,
+                CANNOT_HOLD,
+                format!("the load runs it forward by itself and that pushes the same way, so it runs away; holding it needs {forward} or less"),
+            ),
+            Outcome::RunsAway => (
+                false,
+                CANNOT_HOLD,
+                format!("the load runs it forward by itself and that holds back less than the {forward} needed, so it runs away"),
+            ),
+        })
+    }
+
+    /// The velocity ratio and the mechanical advantage as the reports show them. Where a
+    /// drum drives a linear load or the reverse they carry a length: that of the rig's
+    /// torque unit, so that the mechanical advantage is the load over the effort in the
+    /// units shown (`2.125 in/rad` and `2.125 in` for torques in lbf*in; `18.89 rad/m`
+    /// and `17.94 per m` for N*m).
+    pub fn ratio_words(&self, units: &UnitSystem) -> (Option<String>, Option<String>) {
+        let length = units
+            .torque
+            .symbol
+            .split('*')
+            .nth(1)
+            .and_then(crate::units::parse_unit)
+            .unwrap_or(units.length);
+        // The ratio's value per the file's length unit, and the two unit suffixes.
+        let (scale, vr_unit, ma_unit) = match self.velocity_ratio_unit {
+            "rad/m" => (
+                length.si,
+                format!(" rad/{}", length.symbol),
+                format!(" per {}", length.symbol),
+            ),
+            "m/rad" => (
+                1.0 / length.si,
+                format!(" {}/rad", length.symbol),
+                format!(" {}", length.symbol),
+            ),
+            _ => (1.0, String::new(), String::new()),
+        };
+        let show = |x: Option<Real>, unit: &str| {
+            x.map(|x| format!("{}{unit}", crate::units::significant(x * scale, 4)))
+        };
+        (
+            show(self.velocity_ratio, &vr_unit),
+            show(self.mechanical_advantage, &ma_unit),
+        )
+    }
+
+    /// The report dimension of the asked quantity.
+    pub fn dimension(&self) -> crate::units::Dimension {
+        match self.solve_for.quantity {
+            "mass" => crate::units::Dimension::Mass,
+            "torque" => crate::units::Dimension::Torque,
+            _ => crate::units::Dimension::Force,
         }
     }
 
@@ -256,22 +377,40 @@ fn dir(v: &Vector) -> Option<[Real; 3]> {
     (n > 0.0 && n.is_finite()).then(|| [v.x / n, v.y / n, v.z / n])
 }
 
+/// Why the asked block's quantity is what it is, when the file states no `load`.
+fn quantity_note(rig: &Rig, sub: &SubRigSolution) -> Option<String> {
+    let part = &rig.parts[sub.solve_for];
+    let PartKind::Block(b) = &part.kind else {
+        return None;
+    };
+    if b.load_stated {
+        return None;
+    }
+    Some(if b.load_is_force {
+        format!(
+            "`{}` states no load and its travel is square to gravity, so the figure is the force against its `moves`",
+            part.name
+        )
+    } else {
+        format!(
+            "`{}` states no load, so the figure is the mass it carries (acting along gravity); write `load: {{force: ~}}` for a force against its `moves`",
+            part.name
+        )
+    })
+}
+
 fn headline(rig: &Rig, sub: &SubRigSolution) -> Headline {
     let available = given_quantity(rig, sub.solve_for);
     let (f, b) = (sub.forward.value, sub.back.value);
-    let margin = available.and_then(|a| {
-        finite(if sub.drive_unknown() {
-            a / f - 1.0
-        } else {
-            f / a - 1.0
-        })
-    });
-    let moves = available.map(|a| if sub.drive_unknown() { a >= f } else { a <= f });
+    let margin = available.and_then(|a| sub.margin(a));
+    let outcome = available.map(|a| sub.outcome(a));
+    let moves = outcome.map(Outcome::succeeds);
     Headline {
         solve_for: Asked {
             part: rig.parts[sub.solve_for].name.clone(),
             quantity: sub.quantity.name(),
             unit: sub.quantity.si_unit(),
+            note: quantity_note(rig, sub),
         },
         drive: rig.parts[sub.drive].name.clone(),
         ideal: CaseHeadline {
@@ -310,11 +449,28 @@ fn headline(rig: &Rig, sub: &SubRigSolution) -> Headline {
         available,
         margin,
         moves,
+        outcome,
         energy_audit: PerCase {
             ideal: finite(sub.ideal.audit_residual),
             forward: finite(sub.forward.audit_residual),
             back: finite(sub.back.audit_residual),
         },
+    }
+}
+
+/// The wrap shown for a passage, radians: the geometry's, and at a line end, where
+/// the rope is tied to a drum, the turns wound on it (`turns` of that path entry).
+fn passage_wrap(
+    rig: &Rig,
+    line: &crate::rig::model::Line,
+    e: usize,
+    g: &crate::geometry::EntryGeometry,
+) -> Real {
+    let end = e == 0 || e + 1 == line.path.len();
+    if end && matches!(rig.parts[g.part].kind, PartKind::Drum(_)) {
+        std::f64::consts::TAU * Real::from(g.turns)
+    } else {
+        g.wrap
     }
 }
 
@@ -374,7 +530,7 @@ impl Report {
                     passages.push(PassageReport {
                         line: line.name.clone(),
                         entry: e,
-                        wrap_deg: finite(g.wrap.to_degrees()),
+                        wrap_deg: finite(passage_wrap(rig, line, e, g).to_degrees()),
                         fleet_in_deg: g.fleet_in.map(Real::to_degrees),
                         fleet_out_deg: g.fleet_out.map(Real::to_degrees),
                         bend_ratio: g.bend_ratio,

@@ -13,27 +13,12 @@ use super::{Headline, Report, CAUTION};
 /// Formats a number with about `sig` significant figures, without exponent for the
 /// everyday range, and `—` for a missing value.
 pub fn number(x: Option<Real>, sig: usize) -> String {
-    let Some(x) = x.filter(|x| x.is_finite()) else {
-        return "—".to_string();
-    };
-    if x == 0.0 {
-        return "0".to_string();
-    }
-    let mag = x.abs().log10().floor() as i32;
-    if !(-4..=9).contains(&mag) {
-        return format!("{:.*e}", sig.saturating_sub(1), x);
-    }
-    let decimals = (sig as i32 - 1 - mag).max(0) as usize;
-    format!("{:.*}", decimals, x)
+    x.map_or("—".to_string(), |x| crate::units::significant(x, sig))
 }
 
-/// A quantity in the report's units: `12.3 N`.
+/// A quantity in the report's units: `12.3 N` ([`UnitSystem::show`]).
 pub fn quantity(x: Option<Real>, dimension: Dimension, units: &UnitSystem) -> String {
-    let unit = units.unit(dimension);
-    match x {
-        Some(v) if v.is_finite() => format!("{} {}", number(Some(v / unit.si), 4), unit.symbol),
-        _ => "—".to_string(),
-    }
+    x.map_or("—".to_string(), |v| units.show(v, dimension))
 }
 
 fn percent(x: Option<Real>) -> String {
@@ -59,6 +44,9 @@ fn write_headline(w: &mut dyn Write, h: &Headline, units: &UnitSystem) -> io::Re
         "Asked: the {} at `{}` (drive: `{}`)",
         h.solve_for.quantity, h.solve_for.part, h.drive
     )?;
+    if let Some(note) = &h.solve_for.note {
+        writeln!(w, "  ({note})")?;
+    }
     writeln!(
         w,
         "  {:<12} {:>14} {:>14} {:>14}",
@@ -90,24 +78,13 @@ fn write_headline(w: &mut dyn Write, h: &Headline, units: &UnitSystem) -> io::Re
             percent(b.efficiency)
         )?;
     }
-    if let Some(vr) = h.velocity_ratio {
-        write!(w, "Velocity ratio {}", number(Some(vr), 4))?;
-        if h.velocity_ratio_unit != "1" {
-            write!(w, " {}", h.velocity_ratio_unit)?;
-        }
+    if let (Some(vr), ma) = h.ratio_words(units) {
+        write!(w, "Velocity ratio {vr}")?;
         if let Some(p) = &h.load_part {
             write!(w, " (drive speed over `{p}` speed)")?;
         }
-        match h.mechanical_advantage {
-            Some(ma) => {
-                // Load force per drive torque is per metre; the reverse is metres.
-                let unit = match h.velocity_ratio_unit {
-                    "rad/m" => " per m",
-                    "m/rad" => " m",
-                    _ => "",
-                };
-                writeln!(w, ", mechanical advantage {}{unit}", number(Some(ma), 4))?
-            }
+        match ma {
+            Some(ma) => writeln!(w, ", mechanical advantage {ma}")?,
             None => writeln!(w)?,
         }
     }
@@ -119,20 +96,23 @@ fn write_headline(w: &mut dyn Write, h: &Headline, units: &UnitSystem) -> io::Re
         q(hi)
     )?;
     writeln!(w, "{}.", h.self_locking_words())?;
-    if let Some(a) = h.available {
-        let what = h.given_word();
-        let verdict = match h.moves {
-            Some(true) => "the drive moves the rig",
-            Some(false) => "THE DRIVE CANNOT MOVE THE RIG",
-            None => "",
+    if let (Some(a), Some((ok, head, why))) = (h.available, h.verdict(units)) {
+        let head = if ok {
+            head.to_string()
+        } else {
+            head.to_uppercase()
+        };
+        let why = if why.is_empty() {
+            why
+        } else {
+            format!(": {why}")
         };
         writeln!(
             w,
-            "{} {}: {}; {} (margin {})",
-            capitalise(what),
+            "{} {}: {}; {head}{why} (margin {})",
+            capitalise(h.given_word()),
             h.solve_for.quantity,
             q(Some(a)),
-            verdict,
             percent(h.margin)
         )?;
     }
@@ -245,14 +225,14 @@ pub fn write_check(w: &mut dyn Write, rig: &Rig, report: &Report, source: &str) 
     writeln!(w, "Passages:")?;
     writeln!(
         w,
-        "  {:<16} {:<10} {:>9} {:>9} {:>9} {:>7} {:>9} {:>12}",
-        "part", "line", "wrap °", "fleet in", "fleet out", "D/d", "ratio fwd", "pin load fwd"
+        "  {:<16} {:<10} {:>9} {:>10} {:>11} {:>7} {:>9} {:>12}",
+        "part", "line", "wrap °", "fleet in °", "fleet out °", "D/d", "ratio fwd", "pin load fwd"
     )?;
     for p in &report.parts {
         for pass in &p.passages {
             writeln!(
                 w,
-                "  {:<16} {:<10} {:>9} {:>9} {:>9} {:>7} {:>9} {:>12}",
+                "  {:<16} {:<10} {:>9} {:>10} {:>11} {:>7} {:>9} {:>12}",
                 p.name,
                 pass.line,
                 number(pass.wrap_deg, 4),

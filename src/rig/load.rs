@@ -20,7 +20,9 @@
 //!   has no load torque (0 N·m): a drum that only stores or leads rope. For the
 //!   `solve_for` part the quantity may be given (what is available) or left out; a block
 //!   that is the unknown may say which quantity with `load: {force: ~}` or
-//!   `load: {mass: ~}` (mass when `load` is absent).
+//!   `load: {mass: ~}`. Without `load` it is a mass where the block's travel has a
+//!   component along gravity, and otherwise (a cart on a level track) the force against
+//!   its `moves`, since a mass there would do no work; reports say which.
 //! - Ranges: diameters, pin diameters, bores, rope diameter, breaking strength,
 //!   `min_bend_ratio`, weight mass and haul force must be positive; own masses, block
 //!   load masses, drag and thrust loads must not be negative; friction coefficients are
@@ -38,8 +40,8 @@ use crate::rig::file::{
     more_problems, parse_tree, Entry, Node, Value, MAX_INPUT_BYTES, MAX_PROBLEMS,
 };
 use crate::rig::model::{
-    Bearing, Block, BlockLoad, Contact, Drum, Guide, Haul, Limits, Line, Location, Part, PartKind,
-    PathEntry, Rig, Rope, RopeKind, Shaft, Sheave, Side, Thrust, Weight,
+    square_to_gravity, Bearing, Block, BlockLoad, Contact, Drum, Guide, Haul, Limits, Line,
+    Location, Part, PartKind, PathEntry, Rig, Rope, RopeKind, Shaft, Sheave, Side, Thrust, Weight,
 };
 use crate::rig::overrides::{apply_overrides, read_variants, take_ranges, Uncertain, Variant};
 use crate::rig::suggest::did_you_mean;
@@ -1059,6 +1061,7 @@ fn resolve(root: &Node, source: &str) -> Result<Rig, Vec<Problem>> {
     });
 
     // units
+    let mut torque_stated = false;
     if let Some(n) = get(top, "units") {
         if let Some(entries) = r.mapping(n, "units", "a mapping `{length, force, mass, torque}`") {
             r.keys(entries, "units", UNIT_KEYS, "units");
@@ -1077,6 +1080,7 @@ fn resolve(root: &Node, source: &str) -> Result<Rig, Vec<Problem>> {
                 ) else {
                     continue;
                 };
+                torque_stated |= dim == Dimension::Torque;
                 match parse_unit_of(text, dim) {
                     Ok(unit) => match dim {
                         Dimension::Length => r.units.length = unit,
@@ -1088,6 +1092,9 @@ fn resolve(root: &Node, source: &str) -> Result<Rig, Vec<Problem>> {
                 }
             }
         }
+    }
+    if !torque_stated {
+        r.units.torque = default_torque(&r.units);
     }
 
     // gravity
@@ -1451,10 +1458,17 @@ fn part(
             };
             let mass = own_mass(r);
             let (load, load_is_force) = block_load(r, entries, &path, at, is_unknown);
+            let moves = moves?;
+            let load_stated = get(entries, "load").is_some();
+            // An unknown block that states no load: a mass where one would do work
+            // along its travel, else the force against `moves`.
+            let load_is_force =
+                load_is_force || (!load_stated && square_to_gravity(&moves, &r.gravity));
             Some(PartKind::Block(Block {
-                moves: moves?,
+                moves,
                 load: load?,
                 load_is_force,
+                load_stated,
                 mass,
             }))
         }
@@ -1558,6 +1572,18 @@ fn part(
 
 /// A block's load: `(Some(load or None when unknown), load_is_force)`, or `(None, _)`
 /// after a problem.
+/// The torque unit of a file whose `units` state none: `N*m`, except that a file in
+/// pound-force gets `lbf*in` when its lengths are inches and `lbf*ft` otherwise, so that
+/// an imperial rig neither reads its bare torques nor reports them in N·m.
+fn default_torque(units: &UnitSystem) -> crate::units::Unit {
+    let symbol = match (units.force.symbol, units.length.symbol) {
+        ("lbf", "in") => "lbf*in",
+        ("lbf", _) => "lbf*ft",
+        _ => "N*m",
+    };
+    parse_unit_of(symbol, Dimension::Torque).unwrap_or(units.torque)
+}
+
 fn block_load(
     r: &mut Resolver,
     entries: &[Entry],

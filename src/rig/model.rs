@@ -235,8 +235,32 @@ pub struct Block {
     /// Whether the load is given as a force (true) or a mass (false); decides the
     /// unknown's quantity when the block is `solve_for`.
     pub load_is_force: bool,
+    /// Whether the file says which quantity the load is (it has `load`). Only a
+    /// `solve_for` block may leave `load` out; its quantity is then a mass where its
+    /// travel has a component along gravity, else a force against `moves`
+    /// ([`square_to_gravity`]).
+    pub load_stated: bool,
     /// The frame's own mass, kg.
     pub mass: Option<Real>,
+}
+
+/// Directions closer than this to square (cosine of the angle between them) count as
+/// square: a weight moving along one does no work.
+pub const SQUARE: Real = 1e-9;
+
+/// Whether a block travelling along `moves` is square to `gravity`, so that a mass on
+/// it does no work as it moves (a cart on a level track, a rig drawn with Y up while
+/// gravity is left at −Z).
+///
+/// ```
+/// use reeve::math::{Direction, Vector};
+/// use reeve::rig::model::square_to_gravity;
+/// let down = Direction::new_normalize(-Vector::z());
+/// assert!(square_to_gravity(&Direction::new_normalize(Vector::x()), &down));
+/// assert!(!square_to_gravity(&Direction::new_normalize(Vector::new(1.0, 0.0, 0.1)), &down));
+/// ```
+pub fn square_to_gravity(moves: &Direction, gravity: &Direction) -> bool {
+    moves.dot(gravity).abs() <= SQUARE
 }
 
 /// A hanging mass at a line end.

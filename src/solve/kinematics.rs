@@ -180,13 +180,30 @@ impl Kinematics {
         }
 
         // Constraint matrix, one row per segment.
-        let mut a = DMatrix::zeros(segments.len(), n);
+        let mut a: DMatrix<Real> = DMatrix::zeros(segments.len(), n);
         for (g, seg) in segments.iter().enumerate() {
             for row in &span_rows[seg.line][seg.first..seg.last] {
                 for i in 0..n {
                     a[(g, i)] += row[i];
                 }
             }
+        }
+
+        // Nothing that is not a finite number may reach the SVD (it panics on NaN).
+        if let Some(g) =
+            (0..segments.len()).find(|&g| a.row(g).iter().any(|v: &Real| !v.is_finite()))
+        {
+            let seg = segments[g];
+            return Err(SolveError::NonFinite {
+                stage: "the kinematics",
+                what: "the rate of change of the line's length",
+                line: Some(rig.lines[seg.line].name.clone()),
+                part: Some(
+                    rig.parts[rig.lines[seg.line].path[seg.first].part]
+                        .name
+                        .clone(),
+                ),
+            });
         }
 
         // Each sub-rig on its own.

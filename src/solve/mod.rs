@@ -114,14 +114,78 @@ pub enum SolveError {
         /// The block.
         drive: String,
     },
+    /// The rope sliding over a part (a guide, or a sheave that stalls) would need a
+    /// capstan ratio no rope can span.
+    #[error("line `{line}`: the rope sliding over {}`{part}` needs a tension ratio of {} (capstan equation: μ' {} over {}), too large to be physical: no rope spans more than {:e} in tension, it would lock on the part; check the `turns` on that path entry and the `mu` of the part and the rope", if *stalled { "the stalled sheave " } else { "" }, exp_words(mu * wrap), crate::units::significant(*mu, 4), wrap_words(*wrap), crate::friction::PHYSICAL_RATIO_LIMIT)]
+    ImplausibleCapstan {
+        /// The line.
+        line: String,
+        /// The part the rope slides over.
+        part: String,
+        /// Effective coefficient μ' (groove wedge included).
+        mu: Real,
+        /// Total wrap, radians (extra turns included).
+        wrap: Real,
+        /// Whether the part is a sheave that does not turn.
+        stalled: bool,
+    },
+    /// A turning sheave whose bearing needs a tension ratio no rope can span.
+    #[error("line `{line}`: the bearing of `{part}` needs a tension ratio of {ratio:.3e} to turn, too large to be physical (no rope spans more than {:e} in tension); check its `bearing`", crate::friction::PHYSICAL_RATIO_LIMIT)]
+    ImplausibleBearing {
+        /// The line.
+        line: String,
+        /// The sheave.
+        part: String,
+        /// Tight over slack tension.
+        ratio: Real,
+    },
+    /// A number in the solve is not finite (an overflow, or a value beyond what the
+    /// solver can represent).
+    #[error("{stage}: {what} is not a finite number{}; the inputs are beyond what the solver can represent: check `mu`, `turns`, sizes and loads there", at_part(part.as_deref()))]
+    NonFinite {
+        /// Where: `the kinematics`, `the forward case`, ...
+        stage: &'static str,
+        /// What overflowed.
+        what: &'static str,
+        /// The line concerned, if known.
+        line: Option<String>,
+        /// The part concerned, if known.
+        part: Option<String>,
+    },
+    /// Every load acts square to the motion (a block travelling across gravity, a rig
+    /// drawn with Y up while `gravity` is left at −Z): every figure would be zero.
+    #[error("the loads do no work as the rig moves, so every figure would be zero: {}; if the rig is drawn with the blocks' `moves` pointing up, set `gravity: {}`; otherwise point `moves` the way the block travels, or give what resists its travel as `load: {{force: ...}}`", square_words(parts, moves, gravity), vector_words(&-moves))]
+    LoadsDoNoWork {
+        /// The blocks whose weight does no work.
+        parts: Vec<String>,
+        /// The first one's direction of travel.
+        moves: Vector,
+        /// The rig's gravity direction.
+        gravity: Vector,
+    },
+    /// The asked quantity does no work as the rig moves, so no value of it balances
+    /// the drive.
+    #[error("`{part}` is asked for its {quantity}, which does no work as the rig moves: {reason}, so no {quantity} balances the drive; {fix}")]
+    UnknownDoesNoWork {
+        /// The asked part.
+        part: String,
+        /// Its quantity.
+        quantity: &'static str,
+        /// Why it does no work.
+        reason: String,
+        /// What to change.
+        fix: &'static str,
+    },
     /// The equilibrium equations have no solution.
-    #[error("no equilibrium exists for {case}: the equations are inconsistent (residual {residual:.3e}); {hint}")]
+    #[error("no equilibrium exists for {case}: the equations are inconsistent (residual {residual:.3e}){}; {hint}", at_part(part.as_deref()))]
     NoEquilibrium {
         /// Which case.
         case: &'static str,
         /// Size of the misfit.
         residual: Real,
-        /// What to look at.
+        /// The part whose equation fails, where one can be named.
+        part: Option<String>,
+        /// What to look at, for that cause.
         hint: &'static str,
     },
 }
@@ -145,7 +209,12 @@ impl SolveError {
             SolveError::NotDriven { part, .. } => (None, Some(part)),
             SolveError::DriveAgainstItsLoad { drive } => (None, Some(drive)),
             SolveError::MissingQuantity { part, .. } => (None, Some(part)),
-            SolveError::NoEquilibrium { .. } => (None, None),
+            SolveError::ImplausibleCapstan { line, part, .. }
+            | SolveError::ImplausibleBearing { line, part, .. } => (Some(line), Some(part)),
+            SolveError::NonFinite { line, part, .. } => (line.as_deref(), part.as_deref()),
+            SolveError::UnknownDoesNoWork { part, .. } => (None, Some(part)),
+            SolveError::LoadsDoNoWork { parts, .. } => (None, parts.first().map(String::as_str)),
+            SolveError::NoEquilibrium { part, .. } => (None, part.as_deref()),
         }
     }
 
@@ -168,6 +237,94 @@ impl SolveError {
             )
         })
     }
+}
+
+/// A direction as the file writes one: `[1, 0, 0]`.
+pub(crate) fn vector_words(v: &Vector) -> String {
+    let c: Vec<String> = v
+        .iter()
+        .map(|x| {
+            let text = crate::units::significant(if x.abs() < 1e-12 { 0.0 } else { *x }, 4);
+            if text.contains('.') && !text.contains('e') {
+                text.trim_end_matches('0').trim_end_matches('.').to_string()
+            } else {
+                text
+            }
+        })
+        .collect();
+    format!("[{}]", c.join(", "))
+}
+
+/// `` `hook` travels along its `moves` [0, 1, 0], square to gravity [0, 0, -1], so its weight does no work``.
+fn square_words(parts: &[String], moves: &Vector, gravity: &Vector) -> String {
+    let (subject, verb, whose) = if parts.len() == 1 {
+        (list(parts), "travels", "its weight does")
+    } else {
+        (list(parts), "travel", "their weights do")
+    };
+    format!(
+        "{subject} {verb} along `moves` {}, square to gravity {}, so {whose} no work",
+        vector_words(moves),
+        vector_words(gravity)
+    )
+}
+
+/// Why the asked load quantity does no work as the rig moves, with the fix to suggest;
+/// None when it does work (a drive unknown always does: it moves at unit speed).
+fn unknown_does_no_work(
+    rig: &Rig,
+    kinematics: &Kinematics,
+    drive: PartId,
+    solve_for: PartId,
+) -> Option<(String, &'static str)> {
+    if solve_for == drive {
+        return None;
+    }
+    if let PartKind::Block(b) = &rig.parts[solve_for].kind {
+        if !b.load_is_force && crate::rig::model::square_to_gravity(&b.moves, &rig.gravity) {
+            return Some((
+                format!(
+                    "its `moves` {} is square to gravity {}",
+                    vector_words(&b.moves),
+                    vector_words(&rig.gravity)
+                ),
+                "ask for the force against its travel (`load: {force: ~}`), or, if the rig is drawn with another axis up, set `gravity` to match",
+            ));
+        }
+    }
+    let speed = kinematics.dof_of_part[solve_for].map_or(0.0, |i| kinematics.forward[i]);
+    (speed == 0.0).then(|| {
+        (
+            "the drive's motion does not move it".to_string(),
+            "name in `solve_for` a part that moves with the drive",
+        )
+    })
+}
+
+/// `e^1571`, or the number itself where it fits an f64.
+fn exp_words(exponent: Real) -> String {
+    let ratio = exponent.exp();
+    if ratio.is_finite() {
+        format!("{ratio:.3e}")
+    } else {
+        format!("e^{exponent:.0}, beyond what a number holds")
+    }
+}
+
+/// A wrap in degrees, with the turns where it passes one.
+fn wrap_words(wrap: Real) -> String {
+    let degrees = crate::units::significant(wrap.to_degrees(), 4);
+    if wrap >= std::f64::consts::TAU {
+        let turns = crate::units::significant(wrap / std::f64::consts::TAU, 4);
+        format!("{degrees}° of wrap, {turns} turns")
+    } else {
+        format!("{degrees}° of wrap")
+    }
+}
+
+/// ` at `part``, or nothing.
+fn at_part(part: Option<&str>) -> String {
+    part.map_or(String::new(), |p| format!(" at `{p}`"))
 }
 
 fn list(parts: &[String]) -> String {
@@ -270,6 +427,33 @@ pub fn given_quantity(rig: &Rig, part: PartId) -> Option<Real> {
     }
 }
 
+/// What the given value of the asked quantity (the drive's available effort, or a
+/// stated load) does to the rig: the one verdict that the report, the checks and the
+/// studies all read.
+#[derive(Debug, Clone, Copy, PartialEq, Eq, serde::Serialize)]
+#[serde(rename_all = "kebab-case")]
+pub enum Outcome {
+    /// The drive moves the rig forward (available ≥ forward, or stated load ≤ forward).
+    Moves,
+    /// The load runs the rig forward by itself (forward value below zero) and the drive
+    /// holds it back (available ≤ forward): it lowers under control, or stands.
+    HoldsBack,
+    /// Friction holds the rig still: the drive cannot move it.
+    HeldStill,
+    /// The rig runs back: the drive cannot move it.
+    RunsBack,
+    /// The load runs the rig forward by itself and the drive does not hold it back
+    /// (available above the forward value, the same way the load drives it or too weak).
+    RunsAway,
+}
+
+impl Outcome {
+    /// Whether the drive does what the rig needs of it (moves it, or holds it back).
+    pub fn succeeds(self) -> bool {
+        matches!(self, Outcome::Moves | Outcome::HoldsBack)
+    }
+}
+
 /// One sub-rig's answer.
 #[derive(Debug, Clone)]
 pub struct SubRigSolution {
@@ -359,6 +543,61 @@ impl SubRigSolution {
         } else {
             self.back.value * self.ideal.value < 0.0
         }
+    }
+
+    /// Whether the drive's job is to hold the load back: the unknown is the drive's own
+    /// quantity and its forward value is below zero (the load runs the rig forward by
+    /// itself, e.g. a winch paying out; DESIGN.md §3).
+    pub fn drive_holds_back(&self) -> bool {
+        self.drive_unknown() && self.forward.value < 0.0
+    }
+
+    /// What the given value `given` (SI) of the asked quantity does.
+    ///
+    /// Drive unknown, forward value `f ≥ 0`: moves at `given ≥ f`, held still down to the
+    /// back value, runs back below it. `f < 0` (the load runs it forward): the drive
+    /// holds it back at `given ≤ f`, else it runs away. Load unknown (`forward` is the
+    /// greatest load moved, `back` the least that runs it back): moves at `given ≤ f`,
+    /// held still up to `back`, runs back above it.
+    pub fn outcome(&self, given: Real) -> Outcome {
+        let (f, b) = (self.forward.value, self.back.value);
+        if self.drive_holds_back() {
+            if given <= f {
+                Outcome::HoldsBack
+            } else {
+                Outcome::RunsAway
+            }
+        } else if self.drive_unknown() {
+            if given >= f {
+                Outcome::Moves
+            } else if given >= b {
+                Outcome::HeldStill
+            } else {
+                Outcome::RunsBack
+            }
+        } else if given <= f {
+            Outcome::Moves
+        } else if given <= b {
+            Outcome::HeldStill
+        } else {
+            Outcome::RunsBack
+        }
+    }
+
+    /// The relative margin of the given value over what the rig needs, positive exactly
+    /// when [`Outcome::succeeds`]: `(given − f)/|f|` for a drive that moves the rig,
+    /// `(f − given)/|f|` for a drive that holds the load back, `(f − given)/|given|` for a
+    /// stated load. None when it is not finite (a zero divisor).
+    pub fn margin(&self, given: Real) -> Option<Real> {
+        let f = self.forward.value;
+        let m = if self.drive_holds_back() {
+            (f - given) / f.abs()
+        } else if self.drive_unknown() {
+            (given - f) / f.abs()
+        } else {
+            (f - given) / given.abs()
+        };
+        m.is_finite().then_some(m)
     }
 
     /// Mechanical advantage: velocity ratio × forward efficiency.
@@ -465,8 +704,29 @@ pub fn solve(rig: &Rig, options: &SolveOptions) -> Result<Solution, SolveError> 
             part: rig.parts[solve_for].name.clone(),
             quantity: "natural quantity (solve_for must be a haul, weight, block or drum)",
         })?;
+        if let Some((reason, fix)) = unknown_does_no_work(rig, &kinematics, drive, solve_for) {
+            return Err(SolveError::UnknownDoesNoWork {
+                part: rig.parts[solve_for].name.clone(),
+                quantity: quantity.name(),
+                reason,
+                fix,
+            });
+        }
         let problem =
             statics::Problem::new(rig, &network, &geometry, &kinematics, c, drive, solve_for)?;
+        if drive == solve_for {
+            let square = problem.square_loads();
+            if let Some(&first) = square.first() {
+                let PartKind::Block(b) = &rig.parts[first].kind else {
+                    unreachable!("square_loads lists blocks only")
+                };
+                return Err(SolveError::LoadsDoNoWork {
+                    parts: square.iter().map(|&p| rig.parts[p].name.clone()).collect(),
+                    moves: b.moves.into_inner(),
+                    gravity: rig.gravity.into_inner(),
+                });
+            }
+        }
         let ideal = problem.solve(Case::Ideal, options)?;
         let forward = problem.solve(Case::Forward, options)?;
         let back = problem.solve(Case::Back, options)?;

@@ -17,7 +17,7 @@ use crate::friction::{self, BearingResistance};
 use crate::geometry::Geometry;
 use crate::math::{Real, Vector, STANDARD_GRAVITY};
 use crate::network::Network;
-use crate::rig::model::{BlockLoad, LineId, PartId, PartKind, Rig};
+use crate::rig::model::{square_to_gravity, BlockLoad, LineId, PartId, PartKind, Rig};
 
 use super::kinematics::{line_component, Kinematics};
 use super::{Case, SolveError, SolveOptions};
@@ -148,6 +148,22 @@ pub struct Problem<'a> {
     x_coef: DVector<Real>,
 }
 
+/// A block's own mass and that of the sheaves it carries, kg.
+fn block_mass(rig: &Rig, block: PartId) -> Real {
+    let own = match &rig.parts[block].kind {
+        PartKind::Block(b) => b.mass.unwrap_or(0.0),
+        _ => 0.0,
+    };
+    own + rig
+        .parts
+        .iter()
+        .filter_map(|p| match &p.kind {
+            PartKind::Sheave(s) if s.block == Some(block) => s.mass,
+            _ => None,
+        })
+        .sum::<Real>()
+}
+
 fn gravity_force(rig: &Rig, mass: Real) -> Vector {
     rig.gravity.into_inner() * (mass * STANDARD_GRAVITY)
 }
@@ -188,14 +204,7 @@ impl<'a> Problem<'a> {
             match &rig.parts[part].kind {
                 PartKind::Block(b) => {
                     let moves = b.moves.into_inner();
-                    let mut mass = b.mass.unwrap_or(0.0);
-                    for p in &rig.parts {
-                        if let PartKind::Sheave(s) = &p.kind {
-                            if s.block == Some(part) {
-                                mass += s.mass.unwrap_or(0.0);
-                            }
-                        }
-                    }
+                    let mass = block_mass(rig, part);
                     let mut q = gravity_force(rig, mass).dot(&moves);
                     if unknown {
                         x_coef[k] = if b.load_is_force {
@@ -264,6 +273,52 @@ impl<'a> Problem<'a> {
         })
     }
 
+    /// Blocks of the sub-rig whose weight does no work because they travel square to
+    /// gravity, when every load together does no work along the motion (so every
+    /// figure would be zero); empty otherwise.
+    ///
+    /// The test is per load, not on the sum: a balanced rig (a counterweight equal to
+    /// its batten) has loads that each do work, cancelling, and is a real answer. The
+    /// loads do no work when `Σ |Q_k v_k| ≤ 10⁻⁹ Σ L_k |v_k|`, with `Q_k` a load's
+    /// generalized force along its motion, `L_k` its size, `v_k` its forward speed.
+    pub fn square_loads(&self) -> Vec<PartId> {
+        let mut work = 0.0;
+        let mut scale = 0.0;
+        let mut square = Vec::new();
+        for (k, &i) in self.dofs.iter().enumerate() {
+            let part = self.kin.dofs[i].part;
+            let speed = self.kin.forward[i].abs();
+            if part == self.drive || speed == 0.0 {
+                continue;
+            }
+            let size = match &self.rig.parts[part].kind {
+                PartKind::Block(b) => {
+                    let mass = block_mass(self.rig, part)
+                        + match b.load {
+                            Some(BlockLoad::Mass(m)) => m,
+                            _ => 0.0,
+                        };
+                    let force = match b.load {
+                        Some(BlockLoad::Force(f)) => f.abs(),
+                        _ => 0.0,
+                    };
+                    if mass > 0.0 && square_to_gravity(&b.moves, &self.rig.gravity) {
+                        square.push(part);
+                    }
+                    mass * STANDARD_GRAVITY + force
+                }
+                _ => self.q_load[k].abs(),
+            };
+            work += (self.q_load[k] * speed).abs();
+            scale += size * speed;
+        }
+        if scale > 0.0 && work <= 1e-9 * scale {
+            square
+        } else {
+            Vec::new()
+        }
+    }
+
     /// Rope-on-surface friction for a part on a line.
     fn surface_mu(&self, line: LineId, part: PartId) -> Real {
         let own = self.rig.parts[part].kind.round().and_then(|r| r.mu);
@@ -272,7 +327,47 @@ impl<'a> Problem<'a> {
 
     /// `T_after = k T_before + delta` for middle entry `e` of `line`; also whether the
     /// sheave stalls there.
+    ///
+    /// # Errors
+    /// [`SolveError::ImplausibleCapstan`] or [`SolveError::ImplausibleBearing`] when the
+    /// passage's ratio is above [`friction::PHYSICAL_RATIO_LIMIT`] (or overflows).
     fn passage(
+        &self,
+        case: Case,
+        line: LineId,
+        e: usize,
+        previous: Option<&Vec<Vec<Real>>>,
+        breakaway: bool,
+    ) -> Result<(Real, Real, bool), SolveError> {
+        let (k, delta, stall) = self.passage_ratio(case, line, e, previous, breakaway);
+        let ratio = k.max(1.0 / k);
+        if ratio.is_finite() && ratio <= friction::PHYSICAL_RATIO_LIMIT {
+            return Ok((k, delta, stall));
+        }
+        let entry = &self.geometry.lines[line].entries[e];
+        let part = &self.rig.parts[entry.part];
+        let names = (self.rig.lines[line].name.clone(), part.name.clone());
+        let is_sheave = matches!(part.kind, PartKind::Sheave(_));
+        Err(if stall || !is_sheave {
+            let groove = part.kind.round().and_then(|r| r.groove_angle);
+            SolveError::ImplausibleCapstan {
+                line: names.0,
+                part: names.1,
+                mu: friction::capstan::effective_mu(self.surface_mu(line, entry.part), groove),
+                wrap: entry.wrap,
+                stalled: is_sheave,
+            }
+        } else {
+            SolveError::ImplausibleBearing {
+                line: names.0,
+                part: names.1,
+                ratio,
+            }
+        })
+    }
+
+    /// The ratio, constant and stall of a passage, as [`Problem::passage`] checks them.
+    fn passage_ratio(
         &self,
         case: Case,
         line: LineId,
@@ -447,12 +542,22 @@ impl<'a> Problem<'a> {
                 coef[seg.line][seg.first] = (1.0, 0.0);
                 for e in seg.first + 1..seg.last {
                     let (k, delta, stall) =
-                        self.passage(case, seg.line, e, previous.as_ref(), breakaway);
+                        self.passage(case, seg.line, e, previous.as_ref(), breakaway)?;
                     if stall {
                         stalled.push((seg.line, e));
                     }
                     let (c, c0) = coef[seg.line][e - 1];
-                    coef[seg.line][e] = (k * c, k * c0 + delta);
+                    let next = (k * c, k * c0 + delta);
+                    if !(next.0.is_finite() && next.1.is_finite()) {
+                        // Ratios in series that each hold but together overflow.
+                        return Err(self.non_finite(
+                            stage_name(case, breakaway),
+                            "the tension along the line",
+                            seg.line,
+                            e,
+                        ));
+                    }
+                    coef[seg.line][e] = next;
                 }
             }
             // Drum friction from the previous tensions.
@@ -495,6 +600,18 @@ impl<'a> Problem<'a> {
             for k in 0..n {
                 mat[(k, m - 1)] = -self.x_coef[k];
             }
+            // Nothing that is not a finite number may reach the SVD (it panics on NaN).
+            if let Some(k) =
+                (0..n).find(|&k| !rhs[k].is_finite() || mat.row(k).iter().any(|v| !v.is_finite()))
+            {
+                let part = self.kin.dofs[self.dofs[k]].part;
+                return Err(SolveError::NonFinite {
+                    stage: stage_name(case, breakaway),
+                    what: "the balance of forces",
+                    line: None,
+                    part: Some(rig.parts[part].name.clone()),
+                });
+            }
             // Equilibrate the columns first: a long chain of friction passages makes
             // some tension coefficients many orders of magnitude larger than others,
             // and a rank decision on the raw matrix would drop the small ones.
@@ -535,11 +652,37 @@ impl<'a> Problem<'a> {
             // Compare the misfit with the size of the terms that should cancel.
             let terms = mat.abs() * solution.abs();
             let rhs_scale = rhs.norm().max(terms.amax()).max(1e-300);
-            if !solution.iter().all(|v| v.is_finite()) || residual > 1e-7 * rhs_scale {
+            if !solution.iter().all(|v| v.is_finite()) || !residual.is_finite() {
+                return Err(SolveError::NonFinite {
+                    stage: stage_name(case, breakaway),
+                    what: "the solution of the balance of forces",
+                    line: None,
+                    part: None,
+                });
+            }
+            if residual > 1e-7 * rhs_scale {
+                // Name the cause: a moving part whose equation no tension reaches (its
+                // lines pull only sideways to its motion), else friction itself.
+                let tension_scale = mat.amax().max(1e-300);
+                let sideways = (0..n).find(|&k| {
+                    (0..m).all(|j| mat[(k, j)].abs() <= 1e-12 * tension_scale)
+                        && rhs[k].abs() > 1e-7 * rhs_scale
+                });
+                let (part, hint) = match sideways {
+                    Some(k) => (
+                        Some(rig.parts[self.kin.dofs[self.dofs[k]].part].name.clone()),
+                        "that part is loaded along its motion, but its lines pull only sideways to it; check its `moves` and the lines that hold it",
+                    ),
+                    None => (
+                        None,
+                        "friction leaves the asked quantity no way to balance the loads in this case; please report this rig",
+                    ),
+                };
                 return Err(SolveError::NoEquilibrium {
                     case: case.name(),
                     residual,
-                    hint: "a part may be held by lines pulling only sideways to its motion, or a load cannot be reached by the drive",
+                    part,
+                    hint,
                 });
             }
             let mut tension: Vec<Vec<Real>> = rig
@@ -581,6 +724,7 @@ impl<'a> Problem<'a> {
             return Err(SolveError::NoEquilibrium {
                 case: case.name(),
                 residual: Real::NAN,
+                part: None,
                 hint: "no iteration ran",
             });
         };
@@ -594,6 +738,26 @@ impl<'a> Problem<'a> {
             status,
             &velocity,
         ))
+    }
+
+    /// The error for a tension coefficient that overflowed at entry `e` of `line`.
+    fn non_finite(
+        &self,
+        stage: &'static str,
+        what: &'static str,
+        line: LineId,
+        e: usize,
+    ) -> SolveError {
+        SolveError::NonFinite {
+            stage,
+            what,
+            line: Some(self.rig.lines[line].name.clone()),
+            part: Some(
+                self.rig.parts[self.rig.lines[line].path[e].part]
+                    .name
+                    .clone(),
+            ),
+        }
     }
 
     /// Whether any friction depends on the tensions themselves.
@@ -761,6 +925,16 @@ impl<'a> Problem<'a> {
             status,
             audit_residual,
         }
+    }
+}
+
+/// The case's name in messages.
+fn stage_name(case: Case, breakaway: bool) -> &'static str {
+    match (case, breakaway) {
+        (_, true) => "the breakaway case",
+        (Case::Ideal, _) => "the ideal case",
+        (Case::Forward, _) => "the forward case",
+        (Case::Back, _) => "the back case",
     }
 }
 

@@ -259,16 +259,14 @@ pub fn figures(label: &str, rig: &Rig, solution: &Solution) -> Figures {
     }
 }
 
-/// Whether the main drive moves the rig, where the asked part's quantity is given.
+/// Whether the main drive does what the rig needs (moves it, or holds back a load that
+/// runs it forward by itself: [`crate::solve::Outcome`]), where the asked part's
+/// quantity is given.
 pub fn moves(rig: &Rig, solution: &Solution) -> Option<bool> {
     let main = solution.main();
     let available = solve::given_quantity(rig, main.solve_for)?;
-    let f = finite(main.forward.value)?;
-    Some(if main.drive_unknown() {
-        available >= f
-    } else {
-        available <= f
-    })
+    finite(main.forward.value)?;
+    Some(main.outcome(available).succeeds())
 }
 
 /// Splits `"60 kg"` into 60 and `kg`, `"0.2"` into 0.2 and an empty unit.
