@@ -703,3 +703,59 @@ fn a_zero_stroke_is_refused() {
     assert_eq!(out.status.code(), Some(2));
     assert!(String::from_utf8_lossy(&out.stderr).contains("other than zero"));
 }
+
+#[test]
+fn rank_calls_a_worse_alternative_worse_instead_of_a_negative_saving() {
+    // Guards: a `--to` bearing worse than the current one is reported as worse, never
+    // as a negative saving, and it ranks below every real saving.
+    let worse = "{kind: plain, pin_diameter: 10, mu: 0.3}";
+    let r = json(&["rank", &rig("chain-plain.yaml"), "--to", worse, "--json"]);
+    for p in r["parts"].as_array().unwrap() {
+        assert!(p["alternative_saved"].is_null(), "{p}");
+        let name = p["part"].as_str().unwrap();
+        let set = format!("parts.{name}.bearing={worse}");
+        // Hand check: the extra effort is the worse rig's forward value minus the rig's.
+        let extra = check_forward("chain-plain.yaml", &[&set]) - num(&r["forward"]);
+        assert!(extra > 0.0);
+        assert!(close(num(&p["alternative_worse_by"]), extra, 1e-9), "{p}");
+    }
+    let text = ok(&["rank", &rig("chain-plain.yaml"), "--to", worse]);
+    assert!(text.contains("worse by 13.43 N"), "{text}");
+    assert!(!text.contains(" -1"), "{text}");
+}
+
+#[test]
+fn rank_shows_round_off_savings_as_zero() {
+    // Guards: a part that is already frictionless saves exactly zero (no "-0", no tiny
+    // negative from round-off).
+    let path = "tests/rigs/review/frictionless.yaml";
+    let out = ok(&["rank", path, "--to", "rolling", "--json"]);
+    assert!(!out.contains("-0.0") && !out.contains("e-1"), "{out}");
+    let r: Value = serde_json::from_str(&out).unwrap();
+    for p in r["parts"].as_array().unwrap() {
+        assert_eq!(num(&p["frictionless_saved"]), 0.0, "{p}");
+        assert!(p["frictionless_worse_by"].is_null(), "{p}");
+    }
+}
+
+#[test]
+fn rank_to_takes_units_in_the_bearing() {
+    // Guards: `--to` reads bare numbers in the rig's units and accepts written units.
+    let bare = json(&[
+        "rank",
+        &rig("chain-plain.yaml"),
+        "--to",
+        "{kind: plain, pin_diameter: 8, mu: 0.08}",
+        "--json",
+    ]);
+    let inches = json(&[
+        "rank",
+        &rig("chain-plain.yaml"),
+        "--to",
+        "{kind: plain, pin_diameter: 0.31496063 in, mu: 0.08}",
+        "--json",
+    ]);
+    let a = num(&bare["parts"][0]["alternative"]);
+    let b = num(&inches["parts"][0]["alternative"]);
+    assert!(close(a, b, 1e-7), "{a} vs {b}");
+}

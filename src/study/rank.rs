@@ -71,12 +71,22 @@ pub struct RankRow {
     /// Forward value with this part alone frictionless.
     pub frictionless: Option<Real>,
     /// What that saves: forward − that value for a drive unknown (less effort),
-    /// that value − forward for a load unknown (more load moved).
+    /// that value − forward for a load unknown (more load moved). Never negative:
+    /// round-off is zero, and a change for the worse is `frictionless_worse_by`.
     pub frictionless_saved: Option<Real>,
+    /// How much worse the rig is with the part frictionless (more effort, or less load
+    /// moved), where it is worse beyond round-off; absent otherwise. A frictionless
+    /// part should never cost more, so a value here says the rig is not simple (a
+    /// sheave that starts or stops stalling, a pin load that moves).
+    pub frictionless_worse_by: Option<Real>,
     /// Forward value with this part's bearing changed to the alternative.
     pub alternative: Option<Real>,
-    /// What that saves (same sign convention).
+    /// What that saves (same sign convention; never negative, see
+    /// `alternative_worse_by`).
     pub alternative_saved: Option<Real>,
+    /// How much worse the alternative is than the bearing as written (more effort, or
+    /// less load moved), where it is worse beyond round-off.
+    pub alternative_worse_by: Option<Real>,
     /// Why a value is missing.
     pub note: Option<String>,
 }
@@ -201,6 +211,24 @@ pub fn coefficients(rig: &Rig) -> Vec<(String, Real, Real)> {
     out
 }
 
+/// Differences of the forward value within this of zero are round-off: a relative
+/// 1e-9 of the larger of the forward and ideal values (the solver settles its fixed
+/// point to 1e-12).
+fn round_off(forward: Real, ideal: Real) -> Real {
+    1e-9 * forward.abs().max(ideal.abs()).max(Real::MIN_POSITIVE)
+}
+
+/// A signed saving split into what it saves (never negative; round-off is zero) and,
+/// where it is worse beyond round-off, by how much.
+fn split_saving(signed: Option<Real>, noise: Real) -> (Option<Real>, Option<Real>) {
+    match signed {
+        Some(s) if s.abs() <= noise => (Some(0.0), None),
+        Some(s) if s > 0.0 => (Some(s), None),
+        Some(s) => (None, Some(-s)),
+        None => (None, None),
+    }
+}
+
 /// The forward value of the main sub-rig with `settings`.
 fn forward_with(source: &RigSource, settings: &[(String, String)]) -> Result<Real, StudyError> {
     let (_, s) = source.solve(settings)?;
@@ -237,7 +265,9 @@ pub fn rank(source: &RigSource, alt: Option<&Alternative>) -> Result<Ranking, St
     let main = solution.main();
     let f0 = main.forward.value;
     let sign = if main.drive_unknown() { -1.0 } else { 1.0 };
-    let saved = |f: Option<Real>| f.and_then(|f| finite(sign * (f - f0)));
+    let signed = |f: Option<Real>| f.and_then(|f| finite(sign * (f - f0)));
+    let noise = round_off(f0, main.ideal.value);
+    let mut order = Vec::new();
     let mut parts = Vec::new();
     for (id, part) in rig.parts.iter().enumerate() {
         let Some(settings) = frictionless_settings(&rig, id) else {
@@ -265,34 +295,41 @@ pub fn rank(source: &RigSource, alt: Option<&Alternative>) -> Result<Ranking, St
                 }
             },
         };
+        let (frictionless_saved, frictionless_worse_by) = split_saving(signed(frictionless), noise);
+        let (alternative_saved, alternative_worse_by) = split_saving(signed(alternative), noise);
+        // By the alternative's saving when one is asked for (a worse alternative below
+        // every saving, the least bad first), then by the frictionless saving (parts the
+        // alternative does not apply to still rank among themselves).
+        let missing = Real::NEG_INFINITY;
+        order.push((
+            if alt.is_some() {
+                alternative_saved
+                    .or(alternative_worse_by.map(|w| -w))
+                    .unwrap_or(missing)
+            } else {
+                0.0
+            },
+            frictionless_saved
+                .or(frictionless_worse_by.map(|w| -w))
+                .unwrap_or(missing),
+            parts.len(),
+        ));
         parts.push(RankRow {
             part: part.name.clone(),
             kind: part.kind.name(),
             frictionless,
-            frictionless_saved: saved(frictionless),
+            frictionless_saved,
+            frictionless_worse_by,
             alternative,
-            alternative_saved: saved(alternative),
+            alternative_saved,
+            alternative_worse_by,
             note: (!notes.is_empty()).then(|| notes.join("; ")),
         });
     }
-    // By the alternative's saving when one is asked for, then by the frictionless
-    // saving (parts the alternative does not apply to still rank among themselves).
-    let key = |r: &RankRow| {
-        let alternative = if alt.is_some() {
-            r.alternative_saved.unwrap_or(Real::NEG_INFINITY)
-        } else {
-            0.0
-        };
-        (
-            alternative,
-            r.frictionless_saved.unwrap_or(Real::NEG_INFINITY),
-        )
-    };
-    // Stable sort: equal savings keep file order.
-    parts.sort_by(|a, b| {
-        let (ka, kb) = (key(a), key(b));
-        kb.0.total_cmp(&ka.0).then(kb.1.total_cmp(&ka.1))
-    });
+    // Stable: equal savings keep file order.
+    order.sort_by(|a, b| b.0.total_cmp(&a.0).then(b.1.total_cmp(&a.1)));
+    let mut rows: Vec<Option<RankRow>> = parts.into_iter().map(Some).collect();
+    let parts: Vec<RankRow> = order.iter().filter_map(|k| rows[k.2].take()).collect();
     let mut sensitivities = Vec::new();
     for (k, value, lower) in coefficients(&rig) {
         let d = derivative(source, &k, value, lower).ok().and_then(finite);
@@ -346,8 +383,10 @@ pub fn write(w: &mut dyn Write, r: &Ranking, format: Format) -> io::Result<()> {
             "kind".into(),
             format!("frictionless_{si}"),
             format!("frictionless_saved_{si}"),
+            format!("frictionless_worse_by_{si}"),
             format!("alternative_{si}"),
             format!("alternative_saved_{si}"),
+            format!("alternative_worse_by_{si}"),
             "note".into(),
         ];
         for (i, p) in r.parts.iter().enumerate() {
@@ -357,8 +396,10 @@ pub fn write(w: &mut dyn Write, r: &Ranking, format: Format) -> io::Result<()> {
                 p.kind.into(),
                 csv_number(p.frictionless),
                 csv_number(p.frictionless_saved),
+                csv_number(p.frictionless_worse_by),
                 csv_number(p.alternative),
                 csv_number(p.alternative_saved),
+                csv_number(p.alternative_worse_by),
                 p.note.clone().unwrap_or_default(),
             ]);
         }
@@ -381,6 +422,11 @@ pub fn write(w: &mut dyn Write, r: &Ranking, format: Format) -> io::Result<()> {
         return s.write_csv(w);
     }
     let q = |x| quantity(x, d, &r.units);
+    // A saving, or how much worse it is: never a negative saving.
+    let saves = |saved: Option<Real>, worse: Option<Real>| match worse {
+        Some(w) => format!("worse by {}", q(Some(w))),
+        None => q(saved),
+    };
     t.headers = vec![
         "rank".into(),
         "part".into(),
@@ -407,16 +453,28 @@ pub fn write(w: &mut dyn Write, r: &Ranking, format: Format) -> io::Result<()> {
             p.part.clone(),
             p.kind.into(),
             q(p.frictionless),
-            q(p.frictionless_saved),
+            saves(p.frictionless_saved, p.frictionless_worse_by),
         ];
         if r.alternative.is_some() {
             row.push(q(p.alternative));
-            row.push(q(p.alternative_saved));
+            row.push(saves(p.alternative_saved, p.alternative_worse_by));
         }
         t.rows.push(row);
         if let Some(n) = &p.note {
             notes.push(format!("`{}`: {n}", p.part));
         }
+    }
+    let worse: Vec<String> = r
+        .parts
+        .iter()
+        .filter(|p| p.alternative_worse_by.is_some())
+        .map(|p| format!("`{}`", p.part))
+        .collect();
+    if !worse.is_empty() {
+        notes.push(format!(
+            "The alternative is worse than the bearing as written at {}: it is no upgrade there.",
+            worse.join(", ")
+        ));
     }
     let unit = r.units.unit(d);
     notes.push(String::new());
