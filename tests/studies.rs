@@ -759,3 +759,52 @@ fn rank_to_takes_units_in_the_bearing() {
     let b = num(&inches["parts"][0]["alternative"]);
     assert!(close(a, b, 1e-7), "{a} vs {b}");
 }
+
+#[test]
+fn rank_sensitivities_measure_effort_saved_like_the_ranking_and_name_the_written_key() {
+    // Guards: the sensitivity list measures what the ranking measures (effort saved, in
+    // the asked unit), orders the same way, and names the key the file wrote
+    // (`efficiency`, not `factor`).
+    let rated = "parts.low.2.bearing={kind: rated, efficiency: 0.99}";
+    let path = rig("chain-plain.yaml");
+    let r = json(&["rank", &path, "--set", rated, "--json"]);
+    let order: Vec<&str> = r["parts"]
+        .as_array()
+        .unwrap()
+        .iter()
+        .map(|p| p["part"].as_str().unwrap())
+        .collect();
+    assert_eq!(order.last(), Some(&"low.2"), "{order:?}");
+    let sens = r["sensitivities"].as_array().unwrap();
+    let keys: Vec<&str> = sens.iter().map(|s| s["key"].as_str().unwrap()).collect();
+    assert!(keys.contains(&"parts.low.2.bearing.efficiency"), "{keys:?}");
+    assert!(!keys.iter().any(|k| k.ends_with(".factor")), "{keys:?}");
+    let at = |k: &str| keys.iter().position(|x| *x == k).unwrap();
+    let low = at("parts.low.2.bearing.efficiency");
+    assert!(at("parts.top.1.bearing.mu") < low && at("parts.top.3.bearing.mu") < low);
+    assert_eq!(keys.last(), Some(&"ropes.cord6.mu"), "no effect: last");
+    let f0 = num(&r["forward"]);
+    // Hand check for the plain bearing: 10 % less friction is mu 0.135.
+    let top = &sens[at("parts.top.1.bearing.mu")];
+    assert_eq!(num(&top["value"]), 0.15);
+    let f = check_forward("chain-plain.yaml", &[rated, "parts.top.1.bearing.mu=0.135"]);
+    assert!(
+        close(num(&top["saved_with_10pct_less_friction"]), f0 - f, 1e-9),
+        "{top}"
+    );
+    // ... and for the rated one: K = 1/0.99, loss K − 1 cut by 10 %, η = 1/(1 + 0.9(K − 1)).
+    let k = 1.0 / 0.99;
+    let eta = 1.0 / (1.0 + 0.9 * (k - 1.0));
+    let low2 = &sens[low];
+    assert_eq!(num(&low2["value"]), 0.99);
+    let set = format!("parts.low.2.bearing.efficiency={eta}");
+    let f = check_forward("chain-plain.yaml", &[rated, &set]);
+    assert!(
+        close(num(&low2["saved_with_10pct_less_friction"]), f0 - f, 1e-9),
+        "{low2}"
+    );
+    // The text lists the same measure, in the rig's unit, under the file's own key.
+    let text = ok(&["rank", &path, "--set", rated]);
+    assert!(text.contains("parts.low.2.bearing.efficiency"), "{text}");
+    assert!(text.contains("10 % less friction"), "{text}");
+}

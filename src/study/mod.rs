@@ -24,9 +24,9 @@ use serde::Serialize;
 use crate::checks;
 use crate::math::Real;
 use crate::report::{finite, Report};
-use crate::rig::file::{strip_bom, MAX_INPUT_BYTES};
+use crate::rig::file::{parse_tree, strip_bom, MAX_INPUT_BYTES};
 use crate::rig::load::{load_str_with, ranges_str, variants_str};
-use crate::rig::overrides::{Uncertain, Variant};
+use crate::rig::overrides::{apply_overrides, Uncertain, Variant};
 use crate::rig::{LoadError, Rig};
 use crate::solve::{self, Solution, SolveError, SolveOptions, SubRigSolution};
 
@@ -127,6 +127,30 @@ impl RigSource {
             };
             StudyError::Solve { source_name, error }
         })
+    }
+
+    /// Whether the mapping at `path` (exact key names, e.g. `["parts", "hook.a",
+    /// "bearing"]`) holds `key` in the file as written with the base overrides: which
+    /// of two spellings of one value (`factor` or `efficiency`) the file uses.
+    pub fn has_key(&self, path: &[&str], key: &str) -> bool {
+        let Ok((Some(mut root), _)) = parse_tree(&self.text) else {
+            return false;
+        };
+        if !apply_overrides(&mut root, &self.overrides).is_empty() {
+            return false;
+        }
+        let mut node = &root;
+        for step in path {
+            let Some(next) = node
+                .entries()
+                .and_then(|e| e.iter().find(|e| e.key == *step))
+            else {
+                return false;
+            };
+            node = &next.value;
+        }
+        node.entries()
+            .is_some_and(|e| e.iter().any(|e| e.key == key))
     }
 
     /// The file's named variants.

@@ -91,17 +91,78 @@ pub struct RankRow {
     pub note: Option<String>,
 }
 
-/// Sensitivity of the forward value to one coefficient.
+/// Sensitivity of the forward value to one friction coefficient, measured like the
+/// ranking: what cutting the friction it stands for saves.
 #[derive(Debug, Clone, Serialize, PartialEq)]
 pub struct Sensitivity {
-    /// The coefficient's key path.
+    /// The coefficient's key path, as the file writes it (`bearing.efficiency` where
+    /// the file gives a rated sheave's efficiency, `bearing.factor` where it gives K).
     pub key: String,
-    /// Its value.
+    /// Its value as written (after `--set`).
     pub value: Real,
-    /// d(forward)/d(coefficient), in the asked quantity's SI unit per unit coefficient.
+    /// What 10 % less friction at this coefficient saves, in the asked quantity's SI
+    /// unit (less effort, or more load moved; the ranking's measure): μ × 0.9, or a
+    /// rated sheave's loss K − 1 × 0.9 (for an efficiency η, K = 1/η). Never negative:
+    /// round-off is zero, a change for the worse is `worse_with_10pct_less_friction`.
+    pub saved_with_10pct_less_friction: Option<Real>,
+    /// How much worse the rig is with 10 % less friction here, where it is worse
+    /// beyond round-off (it should not be).
+    pub worse_with_10pct_less_friction: Option<Real>,
+    /// d(forward)/d(value), in the asked quantity's SI unit per unit of the written
+    /// key (negative for an efficiency: more efficient, less effort).
     pub derivative: Option<Real>,
-    /// Relative sensitivity: (value / forward) × derivative.
+    /// Relative sensitivity to the written key: (value / forward) × derivative. Beware
+    /// comparing it across kinds of key: a rated factor K near 1 carries its friction
+    /// in K − 1, so its elasticity is far larger than a μ's for the same loss; the
+    /// saving above compares like with like.
     pub elasticity: Option<Real>,
+}
+
+/// The share of its friction a sensitivity cuts (10 %).
+pub const SENSITIVITY_CUT: Real = 0.1;
+
+/// What a friction coefficient stands for, so that its friction can be cut by a share.
+#[derive(Debug, Clone, Copy, PartialEq, Eq)]
+pub enum Measure {
+    /// A friction coefficient μ (bearing, groove, rope on a surface, thrust): the
+    /// friction is μ itself.
+    Mu,
+    /// A rated sheave's factor K = 1/η: the friction is K − 1.
+    Factor,
+    /// A rated sheave's efficiency η: the friction is 1/η − 1.
+    Efficiency,
+}
+
+/// A friction coefficient of the rig that acts on the forward value.
+#[derive(Debug, Clone, PartialEq)]
+pub struct Coefficient {
+    /// Key path, as the file writes it.
+    pub key: String,
+    /// Value as written.
+    pub value: Real,
+    /// What it stands for.
+    pub measure: Measure,
+}
+
+impl Coefficient {
+    /// The least and greatest value the key accepts.
+    pub fn bounds(&self) -> (Real, Real) {
+        match self.measure {
+            Measure::Mu => (0.0, Real::INFINITY),
+            Measure::Factor => (1.0, Real::INFINITY),
+            Measure::Efficiency => (0.0, 1.0),
+        }
+    }
+
+    /// The value with the friction it stands for cut by `share` (0 to 1).
+    pub fn with_less_friction(&self, share: Real) -> Real {
+        let keep = 1.0 - share;
+        match self.measure {
+            Measure::Mu => self.value * keep,
+            Measure::Factor => 1.0 + (self.value - 1.0) * keep,
+            Measure::Efficiency => 1.0 / (1.0 + (1.0 / self.value - 1.0) * keep),
+        }
+    }
 }
 
 /// The ranking.
@@ -115,7 +176,7 @@ pub struct Ranking {
     pub alternative: Option<String>,
     /// Parts, best saving first.
     pub parts: Vec<RankRow>,
-    /// Sensitivities, largest magnitude of elasticity first.
+    /// Sensitivities, largest saving first (the ranking's order and measure).
     pub sensitivities: Vec<Sensitivity>,
     /// The caution.
     pub caution: &'static str,
@@ -167,41 +228,63 @@ pub fn alternative_settings(
     }
 }
 
-/// Every friction coefficient of the rig that acts on the forward value: key path,
-/// value, and the least value the key accepts.
-pub fn coefficients(rig: &Rig) -> Vec<(String, Real, Real)> {
+/// Every friction coefficient of the rig that acts on the forward value, under the key
+/// the file (with its `--set` overrides) writes it by.
+pub fn coefficients(rig: &Rig, source: &RigSource) -> Vec<Coefficient> {
     let mut out = Vec::new();
+    let mu = |key: String, value: Real| Coefficient {
+        key,
+        value,
+        measure: Measure::Mu,
+    };
     for r in &rig.ropes {
-        out.push((format!("ropes.{}.mu", r.name), r.mu, 0.0));
+        out.push(mu(format!("ropes.{}.mu", r.name), r.mu));
     }
     for p in &rig.parts {
         let n = &p.name;
-        let bearing = |prefix: &str, b: &Bearing, out: &mut Vec<(String, Real, Real)>| match b {
-            Bearing::Plain { mu, .. } | Bearing::Rolling { mu, .. } => {
-                out.push((format!("parts.{n}.{prefix}.mu"), *mu, 0.0))
+        let bearing = |path: &[&str], b: &Bearing, out: &mut Vec<Coefficient>| {
+            let prefix = path.join(".");
+            match b {
+                Bearing::Plain { mu: m, .. } | Bearing::Rolling { mu: m, .. } => {
+                    out.push(mu(format!("parts.{n}.{prefix}.mu"), *m))
+                }
+                Bearing::Rated { factor } => {
+                    let mut at = vec!["parts", n.as_str()];
+                    at.extend_from_slice(path);
+                    out.push(if source.has_key(&at, "efficiency") {
+                        Coefficient {
+                            key: format!("parts.{n}.{prefix}.efficiency"),
+                            value: 1.0 / factor,
+                            measure: Measure::Efficiency,
+                        }
+                    } else {
+                        Coefficient {
+                            key: format!("parts.{n}.{prefix}.factor"),
+                            value: *factor,
+                            measure: Measure::Factor,
+                        }
+                    })
+                }
+                Bearing::None => {}
             }
-            Bearing::Rated { factor } => {
-                out.push((format!("parts.{n}.{prefix}.factor"), *factor, 1.0))
-            }
-            Bearing::None => {}
         };
         match &p.kind {
             PartKind::Sheave(s) => {
-                bearing("bearing", &s.bearing, &mut out);
-                if let Some(mu) = s.mu {
-                    out.push((format!("parts.{n}.mu"), mu, 0.0));
+                bearing(&["bearing"], &s.bearing, &mut out);
+                if let Some(m) = s.mu {
+                    out.push(mu(format!("parts.{n}.mu"), m));
                 }
             }
             PartKind::Guide(g) => {
-                if let Some(mu) = g.mu {
-                    out.push((format!("parts.{n}.mu"), mu, 0.0));
+                if let Some(m) = g.mu {
+                    out.push(mu(format!("parts.{n}.mu"), m));
                 }
             }
             PartKind::Drum(d) => {
                 if let Some(shaft) = &d.shaft {
-                    bearing("shaft.bearing", &shaft.bearing, &mut out);
+                    bearing(&["shaft", "bearing"], &shaft.bearing, &mut out);
                     if let Some(t) = &shaft.thrust {
-                        out.push((format!("parts.{n}.shaft.thrust.mu"), t.mu, 0.0));
+                        out.push(mu(format!("parts.{n}.shaft.thrust.mu"), t.mu));
                     }
                 }
             }
@@ -229,6 +312,14 @@ fn split_saving(signed: Option<Real>, noise: Real) -> (Option<Real>, Option<Real
     }
 }
 
+/// `items` ordered by their keys `(first, then, index)`, largest first; stable, so
+/// equal keys keep file order.
+fn largest_first<T>(items: Vec<T>, mut keys: Vec<(Real, Real, usize)>) -> Vec<T> {
+    keys.sort_by(|a, b| b.0.total_cmp(&a.0).then(b.1.total_cmp(&a.1)));
+    let mut items: Vec<Option<T>> = items.into_iter().map(Some).collect();
+    keys.iter().filter_map(|k| items[k.2].take()).collect()
+}
+
 /// The forward value of the main sub-rig with `settings`.
 fn forward_with(source: &RigSource, settings: &[(String, String)]) -> Result<Real, StudyError> {
     let (_, s) = source.solve(settings)?;
@@ -236,23 +327,22 @@ fn forward_with(source: &RigSource, settings: &[(String, String)]) -> Result<Rea
         .ok_or_else(|| StudyError::Input("the forward value is not finite".to_string()))
 }
 
-/// d(forward)/d(coefficient) by central differences (one-sided next to the lower
+/// d(forward)/d(value) of a coefficient by central differences (one-sided next to a
 /// bound), step 1e-4 of the value (at least 1e-6).
 ///
 /// # Errors
 /// When a perturbed rig cannot be solved.
-pub fn derivative(
-    source: &RigSource,
-    key: &str,
-    value: Real,
-    lower: Real,
-) -> Result<Real, StudyError> {
+pub fn derivative(source: &RigSource, c: &Coefficient) -> Result<Real, StudyError> {
+    let (lower, upper) = c.bounds();
+    let value = c.value;
     let h = (value.abs() * 1e-4).max(1e-6);
-    let at = |v: Real| forward_with(source, &[(key.to_string(), format!("{v}"))]);
-    if value - h >= lower {
-        Ok((at(value + h)? - at(value - h)?) / (2.0 * h))
-    } else {
+    let at = |v: Real| forward_with(source, &[(c.key.clone(), format!("{v}"))]);
+    if value - h < lower {
         Ok((at(value + h)? - at(value)?) / h)
+    } else if value + h > upper {
+        Ok((at(value)? - at(value - h)?) / h)
+    } else {
+        Ok((at(value + h)? - at(value - h)?) / (2.0 * h))
     }
 }
 
@@ -326,24 +416,33 @@ pub fn rank(source: &RigSource, alt: Option<&Alternative>) -> Result<Ranking, St
             note: (!notes.is_empty()).then(|| notes.join("; ")),
         });
     }
-    // Stable: equal savings keep file order.
-    order.sort_by(|a, b| b.0.total_cmp(&a.0).then(b.1.total_cmp(&a.1)));
-    let mut rows: Vec<Option<RankRow>> = parts.into_iter().map(Some).collect();
-    let parts: Vec<RankRow> = order.iter().filter_map(|k| rows[k.2].take()).collect();
+    let parts = largest_first(parts, order);
     let mut sensitivities = Vec::new();
-    for (k, value, lower) in coefficients(&rig) {
-        let d = derivative(source, &k, value, lower).ok().and_then(finite);
+    let mut order = Vec::new();
+    for c in coefficients(&rig, source) {
+        let d = derivative(source, &c).ok().and_then(finite);
+        let less = (
+            c.key.clone(),
+            format!("{}", c.with_less_friction(SENSITIVITY_CUT)),
+        );
+        let cut = signed(forward_with(source, &[less]).ok());
+        let (saved, worse) = split_saving(cut, noise);
+        order.push((
+            saved.or(worse.map(|w| -w)).unwrap_or(Real::NEG_INFINITY),
+            0.0,
+            sensitivities.len(),
+        ));
         sensitivities.push(Sensitivity {
-            elasticity: d.and_then(|d| finite(value / f0 * d)),
-            key: k,
-            value,
+            elasticity: d.and_then(|d| finite(c.value / f0 * d)),
+            key: c.key,
+            value: c.value,
+            saved_with_10pct_less_friction: saved,
+            worse_with_10pct_less_friction: worse,
             derivative: d,
         });
     }
-    sensitivities.sort_by(|a, b| {
-        let m = |s: &Sensitivity| s.elasticity.map_or(-1.0, Real::abs);
-        m(b).total_cmp(&m(a))
-    });
+    // Largest saving first, as the ranking.
+    let sensitivities = largest_first(sensitivities, order);
     Ok(Ranking {
         solve_for: AskedQuantity::of(&rig, main),
         forward: finite(f0),
@@ -408,6 +507,8 @@ pub fn write(w: &mut dyn Write, r: &Ranking, format: Format) -> io::Result<()> {
         s.headers = vec![
             "coefficient".into(),
             "value".into(),
+            format!("saved_with_10pct_less_friction_{si}"),
+            format!("worse_with_10pct_less_friction_{si}"),
             format!("derivative_{si}"),
             "elasticity".into(),
         ];
@@ -415,6 +516,8 @@ pub fn write(w: &mut dyn Write, r: &Ranking, format: Format) -> io::Result<()> {
             s.rows.push(vec![
                 x.key.clone(),
                 format!("{}", x.value),
+                csv_number(x.saved_with_10pct_less_friction),
+                csv_number(x.worse_with_10pct_less_friction),
                 csv_number(x.derivative),
                 csv_number(x.elasticity),
             ]);
@@ -476,21 +579,20 @@ pub fn write(w: &mut dyn Write, r: &Ranking, format: Format) -> io::Result<()> {
             worse.join(", ")
         ));
     }
-    let unit = r.units.unit(d);
     notes.push(String::new());
-    notes.push("Sensitivity of the forward value to each friction coefficient:".into());
-    s.headers = vec![
-        "coefficient".into(),
-        "value".into(),
-        format!("d(forward)/d(coefficient) ({})", unit.symbol),
-        "elasticity".into(),
-    ];
+    notes.push(format!(
+        "What 10 % less friction at each coefficient saves (the ranking's measure: the forward {} with that friction cut, against the rig as written):",
+        r.solve_for.quantity
+    ));
+    s.headers = vec!["coefficient".into(), "value".into(), "saves".into()];
     for x in &r.sensitivities {
         s.rows.push(vec![
             x.key.clone(),
             number(Some(x.value), 4),
-            number(x.derivative.map(|v| v / unit.si), 4),
-            number(x.elasticity, 3),
+            saves(
+                x.saved_with_10pct_less_friction,
+                x.worse_with_10pct_less_friction,
+            ),
         ]);
     }
     let mut buf = Vec::new();
@@ -501,7 +603,7 @@ pub fn write(w: &mut dyn Write, r: &Ranking, format: Format) -> io::Result<()> {
     }
     notes.push(String::from_utf8_lossy(&buf).trim_end().to_string());
     notes.push(
-        "Elasticity: the relative change of the forward value per relative change of the coefficient."
+        "10 % less friction: a coefficient μ times 0.9; a rated sheave's loss K − 1 times 0.9 (for an efficiency η, K = 1/η). Derivatives and elasticities are in the JSON."
             .into(),
     );
     write_human(
