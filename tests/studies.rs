@@ -327,7 +327,8 @@ fn golden_compare_and_sweep_tables() {
     let text = ok(&["compare", &rig("tackle-rated.yaml"), "--variants"]);
     assert!(text.trim_end().ends_with("licensed person."));
     golden("compare-tackle-variants.txt", &text);
-    let md = ok(&[
+    // The 30 kg step cannot move (351.5 N needed, 300 N available): exit 1.
+    let md = failing(&[
         "sweep",
         &rig("chain-plain.yaml"),
         "--vary",
@@ -339,7 +340,7 @@ fn golden_compare_and_sweep_tables() {
     ]);
     assert!(md.contains("| --- |") || md.contains("| --- | ---:"));
     golden("sweep-chain-mass.md", &md);
-    let csv = ok(&[
+    let csv = failing(&[
         "sweep",
         &rig("chain-plain.yaml"),
         "--vary",
@@ -572,7 +573,7 @@ fn share_not_moving_is_zero_or_one_when_the_range_sits_on_one_side() {
     // The share of samples that do not move, with the hand's available force set.
     let share_at = |force: &str, samples: &str| {
         let set = format!("parts.hand.force={force}");
-        let out = json(&[
+        let args = [
             "spread",
             &path,
             "--samples",
@@ -580,7 +581,11 @@ fn share_not_moving_is_zero_or_one_when_the_range_sits_on_one_side() {
             "--json",
             "--set",
             &set,
-        ]);
+        ];
+        let out = run(&args);
+        // Samples that cannot move fail the check: exit 1 (0 when all move).
+        assert_ne!(out.status.code(), Some(2), "{args:?}");
+        let out: Value = serde_json::from_slice(&out.stdout).expect("json");
         num(&out["share_not_moving"])
     };
     assert_eq!(share_at("400 N", "50"), 0.0);
@@ -807,4 +812,207 @@ fn rank_sensitivities_measure_effort_saved_like_the_ranking_and_name_the_written
     let text = ok(&["rank", &path, "--set", rated]);
     assert!(text.contains("parts.low.2.bearing.efficiency"), "{text}");
     assert!(text.contains("10 % less friction"), "{text}");
+}
+
+// ------------------------------------------------- studies fail like `check`
+
+/// Runs a study that must fail a check: exit 1, stdout as text.
+fn failing(args: &[&str]) -> String {
+    let out = run(args);
+    assert_eq!(
+        out.status.code(),
+        Some(1),
+        "reeve {args:?}: {}",
+        String::from_utf8_lossy(&out.stderr)
+    );
+    String::from_utf8(out.stdout).expect("utf-8 output")
+}
+
+#[test]
+fn compare_exits_1_and_shows_the_margin_when_a_column_fails_a_check() {
+    // Guards: a compared rig that `check` fails (cannot move) fails the comparison, and
+    // its margin and failing check are in the table.
+    let args = [
+        "compare",
+        "tests/rigs/chain-plain.yaml",
+        "rigs/automaton-cord.yaml",
+    ];
+    let text = failing(&args);
+    let row = |label: &str| {
+        text.lines()
+            .find(|l| l.starts_with(label))
+            .unwrap_or_else(|| panic!("no `{label}` row: {text}"))
+            .to_string()
+    };
+    // chain-plain: 300 N available over 234.4 N forward; automaton: 1.2 N over 1.4706 N.
+    assert!(
+        row("margin").contains("28.0 %") && row("margin").contains("-18.4 %"),
+        "{text}"
+    );
+    assert!(
+        row("moves").contains("yes") && row("moves").contains("no"),
+        "{text}"
+    );
+    assert!(row("checks").contains("FAIL cannot-move"), "{text}");
+    let mut args = args.to_vec();
+    args.push("--json");
+    let v: Value = serde_json::from_slice(&run(&args).stdout).unwrap();
+    assert_eq!(v["columns"][0]["fails"], false);
+    assert_eq!(v["columns"][1]["fails"], true);
+    assert_eq!(v["columns"][1]["failing"][0], "cannot-move");
+    assert!(close(
+        num(&v["columns"][1]["margin"]),
+        1.2 / 1.470_6 - 1.0,
+        1e-3
+    ));
+    // A comparison where every rig passes still exits 0.
+    ok(&[
+        "compare",
+        "tests/rigs/chain-plain.yaml",
+        "tests/rigs/tackle-rated.yaml",
+    ]);
+}
+
+#[test]
+fn sweep_exits_1_and_marks_the_step_that_cannot_move() {
+    // Guards: a sweep step that `check` fails (30 kg needs 351.5 N, 300 N available)
+    // fails the sweep, and the margin and checks columns show which step.
+    let path = rig("chain-plain.yaml");
+    let args = [
+        "sweep",
+        &path,
+        "--vary",
+        "parts.load.mass=10..30 kg",
+        "--steps",
+        "5",
+    ];
+    let text = failing(&args);
+    let last = text
+        .lines()
+        .find(|l| l.starts_with("30.00"))
+        .expect("30 kg row");
+    // Hand check of the margin: 300 / 351.54 − 1 = −14.7 %.
+    assert!(
+        last.contains("-14.7 %") && last.contains("FAIL cannot-move"),
+        "{text}"
+    );
+    let first = text.lines().find(|l| l.starts_with("10.00")).unwrap();
+    assert!(first.contains(" ok"), "{text}");
+    let mut json_args = args.to_vec();
+    json_args.push("--json");
+    let v: Value = serde_json::from_slice(&run(&json_args).stdout).unwrap();
+    let steps = v["steps"].as_array().unwrap();
+    assert_eq!(steps[4]["fails"], true);
+    assert_eq!(steps[0]["fails"], false);
+    assert!(num(&steps[4]["margin"]) < 0.0 && num(&steps[0]["margin"]) > 0.0);
+    // Every step passing: exit 0.
+    ok(&[
+        "sweep",
+        &path,
+        "--vary",
+        "parts.load.mass=10..20 kg",
+        "--steps",
+        "3",
+    ]);
+}
+
+#[test]
+fn a_sweep_marks_the_steps_where_a_sheave_stalls() {
+    // Guards: past the point where the pulley stalls the values stop following its
+    // bearing (the rope slides at the capstan ratio); those steps are marked.
+    let args = [
+        "sweep",
+        "rigs/sash-window.yaml",
+        "--set",
+        "parts.pulley.mu=0.01",
+        "--vary",
+        "parts.pulley.bearing.mu=0.01..0.35",
+        "--steps",
+        "5",
+    ];
+    let text = ok(&args);
+    let marked: Vec<&str> = text.lines().filter(|l| l.contains("stalled")).collect();
+    assert!(marked.iter().any(|l| l.starts_with("0.3500")), "{text}");
+    assert!(!marked.iter().any(|l| l.starts_with("0.01000")), "{text}");
+    let mut json_args = args.to_vec();
+    json_args.push("--json");
+    let v: Value = serde_json::from_slice(&run(&json_args).stdout).unwrap();
+    let steps = v["steps"].as_array().unwrap();
+    assert_eq!(steps[4]["stalled"][0], "pulley");
+    assert!(steps[0]["stalled"].as_array().unwrap().is_empty());
+}
+
+#[test]
+fn a_stroke_of_a_rig_that_cannot_move_exits_1() {
+    // Guards: the stroke fails like `check` where its steps fail a check.
+    let text = failing(&[
+        "sweep",
+        "rigs/automaton-cord.yaml",
+        "--stroke",
+        "5 mm",
+        "--steps",
+        "2",
+    ]);
+    assert!(
+        text.contains("FAIL cannot-move") && text.contains("-18.4 %"),
+        "{text}"
+    );
+}
+
+#[test]
+fn rank_exits_1_where_the_rig_or_a_row_fails_a_check() {
+    // Guards: rank fails like `check` on the rig as written, and where the alternative
+    // bearing makes a row fail (240 N available, a worse bearing needs more).
+    let text = failing(&["rank", "rigs/automaton-cord.yaml"]);
+    assert!(text.contains("cannot-move"), "{text}");
+    let path = rig("chain-plain.yaml");
+    let args = [
+        "rank",
+        &path,
+        "--set",
+        "parts.hand.force=240 N",
+        "--to",
+        "{kind: plain, pin_diameter: 10, mu: 0.3}",
+    ];
+    let text = failing(&args);
+    assert!(text.contains("FAIL cannot-move"), "{text}");
+    let mut json_args = args.to_vec();
+    json_args.push("--json");
+    let v: Value = serde_json::from_slice(&run(&json_args).stdout).unwrap();
+    assert_eq!(v["verdict"]["fails"], false, "as written it moves");
+    assert_eq!(v["parts"][0]["alternative_verdict"]["fails"], true);
+    assert!(num(&v["parts"][0]["alternative_verdict"]["margin"]) < 0.0);
+}
+
+#[test]
+fn spread_exits_1_when_samples_fail_a_check_and_shows_the_margin() {
+    // Guards: a spread whose samples fail a check (the hand's 207 N is inside the
+    // spread of forward values) exits 1, and the margin's percentiles show it.
+    let path = rig("spread-hoist.yaml");
+    let args = [
+        "spread",
+        &path,
+        "--samples",
+        "100",
+        "--set",
+        "parts.hand.force=207 N",
+    ];
+    let text = failing(&args);
+    assert!(text.lines().any(|l| l.starts_with("margin")), "{text}");
+    assert!(text.contains("cannot-move"), "{text}");
+    let mut json_args = args.to_vec();
+    json_args.push("--json");
+    let v: Value = serde_json::from_slice(&run(&json_args).stdout).unwrap();
+    let share = num(&v["share_failing"]);
+    assert!(share > 0.0 && share < 1.0, "{share}");
+    assert!(num(&v["margin"]["p5"]) < 0.0 && num(&v["margin"]["p95"]) > 0.0);
+    // Every sample moving: exit 0.
+    ok(&[
+        "spread",
+        &path,
+        "--samples",
+        "50",
+        "--set",
+        "parts.hand.force=400 N",
+    ]);
 }

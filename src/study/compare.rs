@@ -13,7 +13,7 @@ use crate::rig::Rig;
 use crate::units::{Dimension, UnitSystem};
 
 use super::table::{csv_number, write_human, Format, Table};
-use super::{figures, Figures, RigSource, StudyError};
+use super::{figures, margin_cell, Figures, RigSource, StudyError};
 
 /// The comparison: one [`Figures`] per column, first column the reference.
 #[derive(Debug, Clone, Serialize, PartialEq)]
@@ -149,6 +149,8 @@ struct Row {
     values: Vec<Option<Real>>,
     changes: Vec<Option<Real>>,
     show: Box<dyn Fn(usize, Option<Real>) -> String>,
+    /// Cells for CSV where the row is words, not numbers.
+    csv_text: Option<Vec<String>>,
 }
 
 fn rows(c: &Comparison, _rig_units: &UnitSystem) -> Vec<Row> {
@@ -173,13 +175,14 @@ fn rows(c: &Comparison, _rig_units: &UnitSystem) -> Vec<Row> {
         c.change_pct.iter().map(f).collect::<Vec<_>>()
     };
     let unit = c.columns.first().map_or("N", |f| f.solve_for.unit);
-    vec![
+    let mut out = vec![
         Row {
             label: "ideal",
             unit,
             values: col(&|f| f.ideal),
             changes: chg(&|x| x.ideal),
             show: Box::new(asked.clone()),
+            csv_text: None,
         },
         Row {
             label: "forward",
@@ -187,6 +190,7 @@ fn rows(c: &Comparison, _rig_units: &UnitSystem) -> Vec<Row> {
             values: col(&|f| f.forward),
             changes: chg(&|x| x.forward),
             show: Box::new(asked.clone()),
+            csv_text: None,
         },
         Row {
             label: "back",
@@ -194,6 +198,7 @@ fn rows(c: &Comparison, _rig_units: &UnitSystem) -> Vec<Row> {
             values: col(&|f| f.back),
             changes: chg(&|x| x.back),
             show: Box::new(asked.clone()),
+            csv_text: None,
         },
         Row {
             label: "efficiency",
@@ -201,6 +206,7 @@ fn rows(c: &Comparison, _rig_units: &UnitSystem) -> Vec<Row> {
             values: col(&|f| f.efficiency),
             changes: chg(&|x| x.efficiency),
             show: Box::new(pct),
+            csv_text: None,
         },
         Row {
             label: "holding band low",
@@ -208,6 +214,7 @@ fn rows(c: &Comparison, _rig_units: &UnitSystem) -> Vec<Row> {
             values: col(&|f| f.holding_band[0]),
             changes: vec![None; c.columns.len()],
             show: Box::new(asked.clone()),
+            csv_text: None,
         },
         Row {
             label: "holding band high",
@@ -215,19 +222,15 @@ fn rows(c: &Comparison, _rig_units: &UnitSystem) -> Vec<Row> {
             values: col(&|f| f.holding_band[1]),
             changes: vec![None; c.columns.len()],
             show: Box::new(asked),
+            csv_text: None,
         },
         Row {
             label: "self-locking",
             unit: "",
             values: col(&|f| Some(if f.self_locking { 1.0 } else { 0.0 })),
             changes: vec![None; c.columns.len()],
-            show: Box::new(|_, x: Option<Real>| {
-                if x == Some(1.0) {
-                    "yes".into()
-                } else {
-                    "no".into()
-                }
-            }),
+            show: Box::new(yes_no),
+            csv_text: None,
         },
         Row {
             label: "largest tension",
@@ -235,6 +238,7 @@ fn rows(c: &Comparison, _rig_units: &UnitSystem) -> Vec<Row> {
             values: col(&|f| f.largest_tension_n),
             changes: chg(&|x| x.largest_tension_n),
             show: Box::new(force),
+            csv_text: None,
         },
         Row {
             label: "lowest safety factor",
@@ -242,6 +246,7 @@ fn rows(c: &Comparison, _rig_units: &UnitSystem) -> Vec<Row> {
             values: col(&|f| f.lowest_safety_factor),
             changes: chg(&|x| x.lowest_safety_factor),
             show: Box::new(plain),
+            csv_text: None,
         },
         Row {
             label: "largest fleet angle",
@@ -249,6 +254,7 @@ fn rows(c: &Comparison, _rig_units: &UnitSystem) -> Vec<Row> {
             values: col(&|f| f.largest_fleet_deg),
             changes: chg(&|x| x.largest_fleet_deg),
             show: Box::new(deg),
+            csv_text: None,
         },
         Row {
             label: "smallest D/d",
@@ -256,6 +262,7 @@ fn rows(c: &Comparison, _rig_units: &UnitSystem) -> Vec<Row> {
             values: col(&|f| f.smallest_bend_ratio),
             changes: chg(&|x| x.smallest_bend_ratio),
             show: Box::new(plain),
+            csv_text: None,
         },
         Row {
             label: "warnings",
@@ -264,8 +271,58 @@ fn rows(c: &Comparison, _rig_units: &UnitSystem) -> Vec<Row> {
             changes: vec![None; c.columns.len()],
             // A count: no decimals.
             show: Box::new(|_, x: Option<Real>| x.map_or("—".into(), |v| format!("{v:.0}"))),
+            csv_text: None,
         },
-    ]
+    ];
+    // The margin and whether the drive moves, where any column gives what is available
+    // (or a stated load); then every column's checks, as `check` would judge it.
+    if c.columns.iter().any(|f| f.verdict.margin.is_some()) {
+        let at = out
+            .iter()
+            .position(|r| r.label == "self-locking")
+            .map_or(out.len(), |i| i + 1);
+        out.splice(
+            at..at,
+            [
+                Row {
+                    label: "margin",
+                    unit: "1",
+                    values: col(&|f| f.verdict.margin),
+                    changes: vec![None; c.columns.len()],
+                    show: Box::new(|_, x| margin_cell(x)),
+                    csv_text: None,
+                },
+                Row {
+                    label: "moves",
+                    unit: "",
+                    values: col(&|f| f.verdict.moves.map(|m| if m { 1.0 } else { 0.0 })),
+                    changes: vec![None; c.columns.len()],
+                    show: Box::new(yes_no),
+                    csv_text: None,
+                },
+            ],
+        );
+    }
+    let checks: Vec<String> = c.columns.iter().map(|f| f.verdict.cell()).collect();
+    let shown = checks.clone();
+    out.push(Row {
+        label: "checks",
+        unit: "",
+        values: col(&|f| Some(if f.verdict.fails { 1.0 } else { 0.0 })),
+        changes: vec![None; c.columns.len()],
+        show: Box::new(move |i, _| shown[i].clone()),
+        csv_text: Some(checks),
+    });
+    out
+}
+
+/// `yes` for 1, `no` for 0, `—` for nothing.
+fn yes_no(_: usize, x: Option<Real>) -> String {
+    match x {
+        Some(1.0) => "yes".into(),
+        Some(_) => "no".into(),
+        None => "—".into(),
+    }
 }
 
 /// The human table: a cell per column, with the change against the first in
@@ -306,7 +363,10 @@ pub fn csv_table(c: &Comparison) -> Table {
         .into_iter()
         .map(|r| {
             let mut cells = vec![r.label.to_string(), r.unit.to_string()];
-            cells.extend(r.values.iter().map(|v| csv_number(*v)));
+            match &r.csv_text {
+                Some(text) => cells.extend(text.iter().cloned()),
+                None => cells.extend(r.values.iter().map(|v| csv_number(*v))),
+            }
             cells.extend(r.changes.iter().skip(1).map(|v| csv_number(*v)));
             cells
         })
@@ -339,6 +399,13 @@ pub fn write(w: &mut dyn Write, c: &Comparison, format: Format) -> io::Result<()
                 &[],
             )
         }
+    }
+}
+
+impl Comparison {
+    /// Whether any column fails a check (the comparison exits 1, as `check` would).
+    pub fn fails(&self) -> bool {
+        self.columns.iter().any(|f| f.verdict.fails)
     }
 }
 

@@ -8,6 +8,10 @@
 //! tree (so a changed value gets the loader's checks) or, for the stroke, by moving the
 //! resolved parts; none has physics of its own. Results are plain structs that
 //! serialize to JSON with units in the keys; [`table`] and [`plot`] write them out.
+//!
+//! Every solved run is also judged as `check` judges it ([`Verdict`], through
+//! `checks::run` and `Report::fails`), so a study shows each run's margin and failing
+//! checks and fails (exit 1) where `check` would fail any of its rigs.
 
 pub mod compare;
 pub mod plot;
@@ -23,7 +27,7 @@ use serde::Serialize;
 
 use crate::checks;
 use crate::math::Real;
-use crate::report::{finite, Report};
+use crate::report::Report;
 use crate::rig::file::{parse_tree, strip_bom, MAX_INPUT_BYTES};
 use crate::rig::load::{load_str_with, ranges_str, variants_str};
 use crate::rig::overrides::{apply_overrides, Uncertain, Variant};
@@ -192,6 +196,85 @@ impl AskedQuantity {
     }
 }
 
+/// What `check` concludes about one solved rig, read through [`checks::run`] and
+/// [`Report`]: the margin, whether the drive moves the rig, the checks that fail (a
+/// study exits 1 when any run fails one, as `check` does), and the sheaves that stall.
+#[derive(Debug, Clone, Default, Serialize, PartialEq)]
+pub struct Verdict {
+    /// Relative margin of the asked quantity over its given value (the report's
+    /// `margin`), where one is given.
+    pub margin: Option<Real>,
+    /// Whether the drive moves the rig (None when nothing is given to compare).
+    pub moves: Option<bool>,
+    /// Whether a check fails (`check` would exit 1).
+    pub fails: bool,
+    /// Codes of the failing checks, each once, in the order `check` lists them.
+    pub failing: Vec<&'static str>,
+    /// Sheaves that stall (do not turn; the rope slides over them) forward or back:
+    /// past a stall the values stop following that sheave's bearing.
+    pub stalled: Vec<String>,
+}
+
+impl Verdict {
+    /// The verdict of a built report.
+    pub fn of(report: &Report) -> Verdict {
+        let mut failing = Vec::new();
+        let mut stalled = Vec::new();
+        for w in &report.warnings {
+            if w.fails && !failing.contains(&w.code) {
+                failing.push(w.code);
+            }
+            if w.code == STALLED {
+                if let Some(p) = w.part.as_ref().filter(|p| !stalled.contains(*p)) {
+                    stalled.push(p.clone());
+                }
+            }
+        }
+        Verdict {
+            margin: report.headline.margin,
+            moves: report.headline.moves,
+            fails: report.fails(),
+            failing,
+            stalled,
+        }
+    }
+
+    /// The verdict of a solved rig (runs the checks).
+    pub fn assess(rig: &Rig, solution: &Solution) -> Verdict {
+        Verdict::of(&assess(rig, solution))
+    }
+
+    /// A table cell: `ok` or `FAIL` with the failing codes, and the stalled sheaves.
+    pub fn cell(&self) -> String {
+        let mut cell = if self.fails {
+            format!("FAIL {}", self.failing.join(", "))
+        } else {
+            "ok".to_string()
+        };
+        if !self.stalled.is_empty() {
+            cell.push_str(&format!("; stalled: {}", self.stalled.join(", ")));
+        }
+        cell
+    }
+}
+
+/// The code of the stalled-sheave warning.
+const STALLED: &str = "stalled-sheave";
+
+/// The report of a solved rig with its checks, as `check` builds it.
+pub fn assess(rig: &Rig, solution: &Solution) -> Report {
+    Report::build(rig, solution, checks::run(rig, solution))
+}
+
+/// A note for a table with stalled rows: why their values stop changing.
+pub fn stalled_note(stalled_rows: usize, rows: usize) -> Option<String> {
+    (stalled_rows > 0).then(|| {
+        format!(
+            "{stalled_rows} of {rows} rows have a stalled sheave (`stalled` in checks): it does not turn and the rope slides over it at the capstan ratio, so its bearing no longer changes the values there."
+        )
+    })
+}
+
 /// The headline figures of one solved rig, as compared and swept. SI units.
 #[derive(Debug, Clone, Serialize, PartialEq)]
 pub struct Figures {
@@ -223,6 +306,9 @@ pub struct Figures {
     pub smallest_bend_ratio: Option<Real>,
     /// Number of warnings from the checks.
     pub warnings: usize,
+    /// What `check` concludes (margin, moves, failing checks, stalled sheaves).
+    #[serde(flatten)]
+    pub verdict: Verdict,
 }
 
 fn fold_max(values: impl Iterator<Item = Real>) -> Option<Real> {
@@ -259,10 +345,9 @@ pub fn largest_fleet_deg(solution: &Solution) -> Option<Real> {
     )
 }
 
-/// The figures of a solved rig (runs the checks for the warning count).
+/// The figures of a solved rig (runs the checks for the warning count and verdict).
 pub fn figures(label: &str, rig: &Rig, solution: &Solution) -> Figures {
-    let warnings = checks::run(rig, solution);
-    let report = Report::build(rig, solution, warnings);
+    let report = assess(rig, solution);
     let main = solution.main();
     let h = &report.headline;
     Figures {
@@ -280,19 +365,13 @@ pub fn figures(label: &str, rig: &Rig, solution: &Solution) -> Figures {
         largest_fleet_deg: fold_max(report.parts.iter().filter_map(|p| p.fleet_deg)),
         smallest_bend_ratio: fold_min(report.parts.iter().filter_map(|p| p.bend_ratio)),
         warnings: report.warnings.len(),
+        verdict: Verdict::of(&report),
     }
 }
 
-/// Whether the main drive moves the rig, where the asked part's quantity is given.
-pub fn moves(rig: &Rig, solution: &Solution) -> Option<bool> {
-    let main = solution.main();
-    let available = solve::given_quantity(rig, main.solve_for)?;
-    let f = finite(main.forward.value)?;
-    Some(if main.drive_unknown() {
-        available >= f
-    } else {
-        available <= f
-    })
+/// A margin as a table cell (`12.5 %`, `—`).
+pub fn margin_cell(margin: Option<Real>) -> String {
+    margin.map_or("—".into(), |m| format!("{:.1} %", m * 100.0))
 }
 
 /// Splits `"60 kg"` into 60 and `kg`, `"0.2"` into 0.2 and an empty unit.

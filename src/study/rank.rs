@@ -27,7 +27,7 @@ use crate::rig::Rig;
 use crate::units::{Dimension, UnitSystem};
 
 use super::table::{csv_number, write_human, Format, Table};
-use super::{AskedQuantity, RigSource, StudyError};
+use super::{margin_cell, AskedQuantity, RigSource, StudyError, Verdict};
 
 /// Friction coefficient of the `--to rolling` default: a deep-groove ball bearing's
 /// constant coefficient referred to the bore (from memory of rolling-bearing
@@ -87,6 +87,10 @@ pub struct RankRow {
     /// How much worse the alternative is than the bearing as written (more effort, or
     /// less load moved), where it is worse beyond round-off.
     pub alternative_worse_by: Option<Real>,
+    /// What `check` concludes about the rig with this part frictionless.
+    pub frictionless_verdict: Option<Verdict>,
+    /// What `check` concludes about the rig with this part's alternative bearing.
+    pub alternative_verdict: Option<Verdict>,
     /// Why a value is missing.
     pub note: Option<String>,
 }
@@ -172,6 +176,8 @@ pub struct Ranking {
     pub solve_for: AskedQuantity,
     /// Forward value of the rig as written.
     pub forward: Option<Real>,
+    /// What `check` concludes about the rig as written.
+    pub verdict: Verdict,
     /// The alternative, when one was asked for.
     pub alternative: Option<String>,
     /// Parts, best saving first.
@@ -183,6 +189,19 @@ pub struct Ranking {
     /// Units of the rig, for text output.
     #[serde(skip)]
     pub units: UnitSystem,
+}
+
+impl Ranking {
+    /// Whether the rig as written or any row fails a check (exit 1, as `check` would).
+    pub fn fails(&self) -> bool {
+        self.verdict.fails
+            || self.parts.iter().any(|p| {
+                [&p.frictionless_verdict, &p.alternative_verdict]
+                    .into_iter()
+                    .flatten()
+                    .any(|v| v.fails)
+            })
+    }
 }
 
 /// Overrides that make `part` frictionless (see the module doc), if it has friction.
@@ -320,6 +339,17 @@ fn largest_first<T>(items: Vec<T>, mut keys: Vec<(Real, Real, usize)>) -> Vec<T>
     keys.iter().filter_map(|k| items[k.2].take()).collect()
 }
 
+/// The forward value of the main sub-rig with `settings`, and what `check` concludes.
+fn judged_with(
+    source: &RigSource,
+    settings: &[(String, String)],
+) -> Result<(Real, Verdict), StudyError> {
+    let (rig, s) = source.solve(settings)?;
+    let forward = finite(s.main().forward.value)
+        .ok_or_else(|| StudyError::Input("the forward value is not finite".to_string()))?;
+    Ok((forward, Verdict::assess(&rig, &s)))
+}
+
 /// The forward value of the main sub-rig with `settings`.
 fn forward_with(source: &RigSource, settings: &[(String, String)]) -> Result<Real, StudyError> {
     let (_, s) = source.solve(settings)?;
@@ -364,27 +394,28 @@ pub fn rank(source: &RigSource, alt: Option<&Alternative>) -> Result<Ranking, St
             continue;
         };
         let mut notes = Vec::new();
-        let frictionless = match forward_with(source, &settings) {
-            Ok(v) => Some(v),
+        let (frictionless, frictionless_verdict) = match judged_with(source, &settings) {
+            Ok((v, verdict)) => (Some(v), Some(verdict)),
             Err(e) => {
                 notes.push(format!("frictionless: {e}"));
-                None
+                (None, None)
             }
         };
-        let alternative = match alt.map(|a| alternative_settings(&rig, id, a)) {
-            None => None,
-            Some(Err(why)) => {
-                notes.push(why);
-                None
-            }
-            Some(Ok(s)) => match forward_with(source, &s) {
-                Ok(v) => Some(v),
-                Err(e) => {
-                    notes.push(format!("alternative: {e}"));
-                    None
+        let (alternative, alternative_verdict) =
+            match alt.map(|a| alternative_settings(&rig, id, a)) {
+                None => (None, None),
+                Some(Err(why)) => {
+                    notes.push(why);
+                    (None, None)
                 }
-            },
-        };
+                Some(Ok(s)) => match judged_with(source, &s) {
+                    Ok((v, verdict)) => (Some(v), Some(verdict)),
+                    Err(e) => {
+                        notes.push(format!("alternative: {e}"));
+                        (None, None)
+                    }
+                },
+            };
         let (frictionless_saved, frictionless_worse_by) = split_saving(signed(frictionless), noise);
         let (alternative_saved, alternative_worse_by) = split_saving(signed(alternative), noise);
         // By the alternative's saving when one is asked for (a worse alternative below
@@ -410,9 +441,11 @@ pub fn rank(source: &RigSource, alt: Option<&Alternative>) -> Result<Ranking, St
             frictionless,
             frictionless_saved,
             frictionless_worse_by,
+            frictionless_verdict,
             alternative,
             alternative_saved,
             alternative_worse_by,
+            alternative_verdict,
             note: (!notes.is_empty()).then(|| notes.join("; ")),
         });
     }
@@ -446,6 +479,7 @@ pub fn rank(source: &RigSource, alt: Option<&Alternative>) -> Result<Ranking, St
     Ok(Ranking {
         solve_for: AskedQuantity::of(&rig, main),
         forward: finite(f0),
+        verdict: Verdict::assess(&rig, &solution),
         alternative: alt.map(Alternative::label),
         parts,
         sensitivities,
@@ -487,7 +521,17 @@ pub fn write(w: &mut dyn Write, r: &Ranking, format: Format) -> io::Result<()> {
             format!("alternative_saved_{si}"),
             format!("alternative_worse_by_{si}"),
             "note".into(),
+            "frictionless_margin".into(),
+            "frictionless_failing".into(),
+            "alternative_margin".into(),
+            "alternative_failing".into(),
         ];
+        let verdict_csv = |v: &Option<Verdict>| {
+            [
+                csv_number(v.as_ref().and_then(|v| v.margin)),
+                v.as_ref().map_or(String::new(), |v| v.failing.join(" ")),
+            ]
+        };
         for (i, p) in r.parts.iter().enumerate() {
             t.rows.push(vec![
                 (i + 1).to_string(),
@@ -501,6 +545,9 @@ pub fn write(w: &mut dyn Write, r: &Ranking, format: Format) -> io::Result<()> {
                 csv_number(p.alternative_worse_by),
                 p.note.clone().unwrap_or_default(),
             ]);
+            let row = t.rows.last_mut().expect("just pushed");
+            row.extend(verdict_csv(&p.frictionless_verdict));
+            row.extend(verdict_csv(&p.alternative_verdict));
         }
         t.write_csv(w)?;
         writeln!(w)?;
@@ -530,6 +577,25 @@ pub fn write(w: &mut dyn Write, r: &Ranking, format: Format) -> io::Result<()> {
         Some(w) => format!("worse by {}", q(Some(w))),
         None => q(saved),
     };
+    // Margins where something is given to compare with; a checks column where a row
+    // fails a check or stalls a sheave.
+    let margins = r.verdict.margin.is_some();
+    let margin = |v: &Option<Verdict>| margin_cell(v.as_ref().and_then(|v| v.margin));
+    let row_checks = |p: &RankRow| {
+        let found: Vec<String> = [
+            ("frictionless", &p.frictionless_verdict),
+            ("alternative", &p.alternative_verdict),
+        ]
+        .into_iter()
+        .filter_map(|(what, v)| {
+            v.as_ref()
+                .filter(|v| v.fails || !v.stalled.is_empty())
+                .map(|v| format!("{what}: {}", v.cell()))
+        })
+        .collect();
+        found.join("; ")
+    };
+    let checks = r.parts.iter().any(|p| !row_checks(p).is_empty());
     t.headers = vec![
         "rank".into(),
         "part".into(),
@@ -537,15 +603,29 @@ pub fn write(w: &mut dyn Write, r: &Ranking, format: Format) -> io::Result<()> {
         "frictionless".into(),
         "saves".into(),
     ];
+    if margins {
+        t.headers.push("margin".into());
+    }
     if r.alternative.is_some() {
         t.headers.push("alternative".into());
         t.headers.push("saves".into());
+        if margins {
+            t.headers.push("margin".into());
+        }
+    }
+    if checks {
+        t.headers.push("checks".into());
     }
     let mut notes = vec![format!(
-        "Forward {} at `{}` as written: {}.",
+        "Forward {} at `{}` as written: {}{}; checks: {}.",
         r.solve_for.quantity,
         r.solve_for.part,
-        q(r.forward)
+        q(r.forward),
+        r.verdict.margin.map_or(String::new(), |m| format!(
+            " (margin {})",
+            margin_cell(Some(m))
+        )),
+        r.verdict.cell()
     )];
     if let Some(a) = &r.alternative {
         notes.push(format!("Alternative bearing: {a}."));
@@ -558,9 +638,19 @@ pub fn write(w: &mut dyn Write, r: &Ranking, format: Format) -> io::Result<()> {
             q(p.frictionless),
             saves(p.frictionless_saved, p.frictionless_worse_by),
         ];
+        if margins {
+            row.push(margin(&p.frictionless_verdict));
+        }
         if r.alternative.is_some() {
             row.push(q(p.alternative));
             row.push(saves(p.alternative_saved, p.alternative_worse_by));
+            if margins {
+                row.push(margin(&p.alternative_verdict));
+            }
+        }
+        if checks {
+            let c = row_checks(p);
+            row.push(if c.is_empty() { "ok".into() } else { c });
         }
         t.rows.push(row);
         if let Some(n) = &p.note {
