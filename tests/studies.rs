@@ -1016,3 +1016,63 @@ fn spread_exits_1_when_samples_fail_a_check_and_shows_the_margin() {
         "parts.hand.force=400 N",
     ]);
 }
+
+#[test]
+fn compare_groups_columns_by_the_asked_quantity_and_never_mixes_units_in_a_change() {
+    // Guards: no percentage between a mass and a force (or between a drive's effort and
+    // a load's greatest value): each asked quantity is its own group, and changes are
+    // against the first column of the same group only.
+    let args = [
+        "compare",
+        "rigs/sash-window.yaml",
+        "rigs/workshop-hoist.yaml",
+        "tests/rigs/review/block-unknown.yaml",
+        "tests/rigs/chain-plain.yaml",
+    ];
+    let text = ok(&args);
+    // Three groups: counterweight mass (drive), force at a haul (drive), mass at a
+    // block (load); chain-plain joins the workshop hoist's group.
+    assert!(text.contains("3 groups"), "{text}");
+    assert!(text.contains("mass at `counterweight`"), "{text}");
+    assert!(text.contains("mass at `hook`"), "{text}");
+    assert!(text.contains("force at `winch`, `hand`"), "{text}");
+    let forward: Vec<&str> = text.lines().filter(|l| l.starts_with("forward")).collect();
+    assert_eq!(forward.len(), 3, "{text}");
+    assert!(
+        !forward[0].contains('(') && !forward[2].contains('('),
+        "{text}"
+    );
+    // Hand check within the force group: 234.4 N against 2229 N is −89.5 %.
+    assert!(
+        forward[1].contains("2229 N") && forward[1].contains("(-89.5 %)"),
+        "{text}"
+    );
+    let mut json_args = args.to_vec();
+    json_args.push("--json");
+    let v = json(&json_args);
+    let groups = v["groups"].as_array().unwrap();
+    assert_eq!(groups.len(), 3);
+    assert_eq!(groups[1]["columns"], serde_json::json!([1, 3]));
+    assert_eq!(groups[2]["solve_for"]["role"], "load");
+    assert_eq!(
+        num(&v["change_pct"][1]["forward"]),
+        0.0,
+        "its own group's reference"
+    );
+    let csv = ok(&[&args[..], &["--format", "csv"]].concat());
+    assert_eq!(
+        csv.lines().filter(|l| l.starts_with("figure,unit")).count(),
+        3,
+        "{csv}"
+    );
+    // One group: one table, as before.
+    let one = ok(&[
+        "compare",
+        "rigs/workshop-hoist.yaml",
+        "tests/rigs/chain-plain.yaml",
+    ]);
+    assert!(
+        !one.contains("groups") && one.contains("(-89.5 %)"),
+        "{one}"
+    );
+}

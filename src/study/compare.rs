@@ -1,6 +1,11 @@
 //! `compare`: rigs or named variants side by side, one column each, with every
 //! column's change against the first in percent. Rigs of different make-up (sheave
 //! counts, drives) compare as they are: each column is its own rig's answer.
+//!
+//! Only like compares with like: columns are grouped by the asked quantity (its unit,
+//! and whether it is a drive's effort or a load's greatest value), each group is its
+//! own table, and a change is against the first column of the same group; between
+//! groups (a mass and a force) there is no percentage.
 
 use std::io::{self, Write};
 
@@ -12,16 +17,21 @@ use crate::report::CAUTION;
 use crate::rig::Rig;
 use crate::units::{Dimension, UnitSystem};
 
-use super::table::{csv_number, write_human, Format, Table};
-use super::{figures, margin_cell, Figures, RigSource, StudyError};
+use super::table::{csv_number, write_human, write_human_sections, Format, Table};
+use super::{figures, margin_cell, AskedQuantity, Figures, RigSource, StudyError};
+use crate::report::text::capitalise;
 
-/// The comparison: one [`Figures`] per column, first column the reference.
+/// The comparison: one [`Figures`] per column, grouped by the asked quantity; the first
+/// column of each group is that group's reference.
 #[derive(Debug, Clone, Serialize, PartialEq)]
 pub struct Comparison {
-    /// The columns.
+    /// The columns, in the order given.
     pub columns: Vec<Figures>,
-    /// Per column, the change of each figure against the first column, percent.
+    /// Per column, the change of each figure against the first column of its group,
+    /// percent.
     pub change_pct: Vec<Changes>,
+    /// The groups of like columns, in order of first appearance.
+    pub groups: Vec<Group>,
     /// The caution.
     pub caution: &'static str,
     /// Units of the first rig, for text output.
@@ -29,7 +39,16 @@ pub struct Comparison {
     pub units: UnitSystem,
 }
 
-/// Changes against the first column, percent (None where either value is missing or
+/// Columns that ask for the same quantity (and unit, of a drive or of a load alike).
+#[derive(Debug, Clone, Serialize, PartialEq)]
+pub struct Group {
+    /// The asked quantity (the part of the group's first column).
+    pub solve_for: AskedQuantity,
+    /// Indices into `columns`, the first the group's reference.
+    pub columns: Vec<usize>,
+}
+
+/// Changes against the first column of the group, percent (None where either value is missing or
 /// the reference is zero).
 #[derive(Debug, Clone, Serialize, PartialEq)]
 pub struct Changes {
@@ -62,11 +81,27 @@ pub fn change_pct(x: Option<Real>, reference: Option<Real>) -> Option<Real> {
 
 /// Builds the comparison from labelled, solved rigs.
 pub fn compare(columns: Vec<Figures>, units: UnitSystem) -> Comparison {
-    let first = columns.first().cloned();
+    let mut groups: Vec<Group> = Vec::new();
+    for (i, f) in columns.iter().enumerate() {
+        match groups.iter_mut().find(|g| g.solve_for.like(&f.solve_for)) {
+            Some(g) => g.columns.push(i),
+            None => groups.push(Group {
+                solve_for: f.solve_for.clone(),
+                columns: vec![i],
+            }),
+        }
+    }
+    let reference = |i: usize| {
+        groups
+            .iter()
+            .find(|g| g.columns.contains(&i))
+            .map(|g| &columns[g.columns[0]])
+    };
     let change_pct = columns
         .iter()
-        .map(|c| {
-            let r = first.as_ref();
+        .enumerate()
+        .map(|(i, c)| {
+            let r = reference(i);
             let ch = |f: &dyn Fn(&Figures) -> Option<Real>| change_pct(f(c), r.and_then(f));
             Changes {
                 ideal: ch(&|f| f.ideal),
@@ -83,6 +118,7 @@ pub fn compare(columns: Vec<Figures>, units: UnitSystem) -> Comparison {
     Comparison {
         columns,
         change_pct,
+        groups,
         caution: CAUTION,
         units,
     }
@@ -384,25 +420,89 @@ pub fn write(w: &mut dyn Write, c: &Comparison, format: Format) -> io::Result<()
             let json = serde_json::to_string_pretty(c).map_err(io::Error::other)?;
             writeln!(w, "{json}")
         }
-        Format::Csv => csv_table(c).write_csv(w),
+        // One CSV table per group, a blank line between.
+        Format::Csv => {
+            for (i, g) in c.groups.iter().enumerate() {
+                if i > 0 {
+                    writeln!(w)?;
+                }
+                csv_table(&c.group(g)).write_csv(w)?;
+            }
+            Ok(())
+        }
+        _ if c.groups.len() <= 1 => write_human(
+            w,
+            format,
+            &format!(
+                "Comparison of {} columns ({}); change against the first column in parentheses",
+                c.columns.len(),
+                c.groups
+                    .first()
+                    .map(|g| asked_words(c, g))
+                    .unwrap_or_default()
+            ),
+            &human_table(c),
+            &[],
+        ),
         _ => {
-            let asked = c
-                .columns
-                .first()
-                .map(|f| format!("the {} at `{}`", f.solve_for.quantity, f.solve_for.part))
-                .unwrap_or_default();
-            write_human(
+            let sections: Vec<(String, Table)> = c
+                .groups
+                .iter()
+                .map(|g| (capitalise(&asked_words(c, g)), human_table(&c.group(g))))
+                .collect();
+            write_human_sections(
                 w,
                 format,
-                &format!("Comparison of {} columns ({asked}); change against the first column in parentheses", c.columns.len()),
-                &human_table(c),
+                &format!(
+                    "Comparison of {} columns in {} groups by the asked quantity; change against the first column of the same group in parentheses, none between groups",
+                    c.columns.len(),
+                    c.groups.len()
+                ),
+                &sections,
                 &[],
             )
         }
     }
 }
 
+/// `the force at `winch`, `hand``: a group's quantity and every part its columns ask
+/// about.
+fn asked_words(c: &Comparison, g: &Group) -> String {
+    let mut parts: Vec<String> = Vec::new();
+    for &i in &g.columns {
+        let p = format!("`{}`", c.columns[i].solve_for.part);
+        if !parts.contains(&p) {
+            parts.push(p);
+        }
+    }
+    let role = if g.solve_for.role == "load" {
+        " (a load: forward is the most the drive moves)"
+    } else {
+        ""
+    };
+    format!("the {} at {}{role}", g.solve_for.quantity, parts.join(", "))
+}
+
 impl Comparison {
+    /// The comparison of one group's columns alone (its changes are already against
+    /// the group's first column).
+    pub fn group(&self, g: &Group) -> Comparison {
+        Comparison {
+            columns: g.columns.iter().map(|&i| self.columns[i].clone()).collect(),
+            change_pct: g
+                .columns
+                .iter()
+                .map(|&i| self.change_pct[i].clone())
+                .collect(),
+            groups: vec![Group {
+                solve_for: g.solve_for.clone(),
+                columns: (0..g.columns.len()).collect(),
+            }],
+            caution: self.caution,
+            units: self.units,
+        }
+    }
+
     /// Whether any column fails a check (the comparison exits 1, as `check` would).
     pub fn fails(&self) -> bool {
         self.columns.iter().any(|f| f.verdict.fails)

@@ -183,6 +183,9 @@ pub struct AskedQuantity {
     pub quantity: &'static str,
     /// SI unit of the values.
     pub unit: &'static str,
+    /// `drive` where the asked part is the drive (forward: the least value that starts
+    /// the rig), `load` where it is a load (forward: the greatest load the drive moves).
+    pub role: &'static str,
 }
 
 impl AskedQuantity {
@@ -192,7 +195,14 @@ impl AskedQuantity {
             part: rig.parts[sub.solve_for].name.clone(),
             quantity: sub.quantity.name(),
             unit: sub.quantity.si_unit(),
+            role: if sub.drive_unknown() { "drive" } else { "load" },
         }
+    }
+
+    /// Whether two asked quantities are like with like: the same quantity in the same
+    /// unit, asked of a drive or of a load alike (the part may differ).
+    pub fn like(&self, other: &AskedQuantity) -> bool {
+        (self.quantity, self.unit, self.role) == (other.quantity, other.unit, other.role)
     }
 }
 
