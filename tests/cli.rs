@@ -177,3 +177,44 @@ fn a_block_cannot_drive_against_its_own_load() {
         "{err}"
     );
 }
+
+fn check_text(args: &[&str]) -> String {
+    let out = Command::new(env!("CARGO_BIN_EXE_reeve"))
+        .arg("check")
+        .args(args)
+        .output()
+        .unwrap();
+    String::from_utf8(out.stdout).unwrap()
+}
+
+#[test]
+fn the_friction_at_the_drive_is_shown_beside_the_efficiency() {
+    // Guards: on a balanced line set (efficiency says little) the friction at the drive,
+    // forward − ideal and ideal − back in the asked unit, is in the JSON and the text.
+    let v = check_json(&["rigs/line-set.yaml"]);
+    let at = |k: &str, c: &str| v[k][c].as_f64().unwrap();
+    let (ideal, forward, back) = (
+        at("ideal", "value"),
+        at("forward", "value"),
+        at("back", "value"),
+    );
+    let ff = v["friction_forward"].as_f64().unwrap();
+    let fb = v["friction_back"].as_f64().unwrap();
+    assert!((ff - (forward - ideal)).abs() < 1e-9 && ff > 0.0, "{v}");
+    assert!((fb - (ideal - back)).abs() < 1e-9 && fb > 0.0, "{v}");
+    // 149.7 − 98.06 = 51.64 N and 98.06 − 49.49 = 48.57 N (figures of the summary).
+    let text = check_text(&["rigs/line-set.yaml"]);
+    let row = text
+        .lines()
+        .find(|l| l.trim_start().starts_with("friction"))
+        .unwrap_or_else(|| panic!("no friction row: {text}"));
+    assert!(row.contains("51.6") && row.contains("48.5"), "{row}");
+    // A load unknown: the friction costs load (ideal − forward, back − ideal), in kg.
+    let v = check_json(&["tests/rigs/review/block-unknown.yaml"]);
+    let ideal = v["ideal"]["value"].as_f64().unwrap();
+    let ff = v["friction_forward"].as_f64().unwrap();
+    assert!(
+        (ff - (ideal - v["forward"]["value"].as_f64().unwrap())).abs() < 1e-9 && ff > 0.0,
+        "{v}"
+    );
+}

@@ -715,3 +715,15 @@ fn table_writes_to_a_file_with_o() {
     assert_eq!(fs::read_to_string(&file).unwrap(), stdout);
     let _ = fs::remove_dir_all(&dir);
 }
+
+#[test]
+fn the_html_summary_shows_the_friction_at_the_drive() {
+    // Guards: the report's summary table has the friction row of `check` (line set:
+    // 149.7 − 98.06 = 51.64 N forward, 98.06 − 49.49 = 48.57 N back).
+    let html = stdout_of(&["report", rig("line-set").to_str().unwrap(), "-o", "-"]);
+    let row = html
+        .lines()
+        .find(|l| l.contains("<th scope=\"row\">friction</th>"))
+        .unwrap_or_else(|| panic!("no friction row"));
+    assert!(row.contains("51.64 N") && row.contains("48.57 N"), "{row}");
+}

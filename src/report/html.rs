@@ -206,6 +206,12 @@ fn write_summary(w: &mut dyn Write, h: &Headline, units: &UnitSystem, id: &str) 
         percent(h.forward.efficiency),
         percent(h.back.efficiency)
     )?;
+    writeln!(
+        w,
+        "<tr><th scope=\"row\">friction</th><td class=\"num\"></td><td class=\"num\">{}</td><td class=\"num\">{}</td></tr>",
+        q(h.friction_forward),
+        q(h.friction_back)
+    )?;
     writeln!(w, "</tbody></table></div>")?;
     writeln!(w, "<ul>")?;
     if let Some(vr) = h.velocity_ratio {

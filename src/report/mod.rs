@@ -177,6 +177,14 @@ pub struct Headline {
     pub breakaway: Option<CaseHeadline>,
     /// Whether the rig will not run back by itself.
     pub self_locking: bool,
+    /// The friction at the drive going forward, in the asked quantity's SI unit: forward
+    /// − ideal for a drive unknown (the effort friction costs), ideal − forward for a
+    /// load unknown (the load friction keeps the drive from moving). Where loads balance
+    /// (a line set) efficiency says little and this says what friction costs.
+    pub friction_forward: Option<Real>,
+    /// The friction at the drive running back, same unit: ideal − back for a drive
+    /// unknown, back − ideal for a load unknown.
+    pub friction_back: Option<Real>,
     /// Drive speed over load speed.
     pub velocity_ratio: Option<Real>,
     /// Unit of the velocity ratio: `1`, or `rad/m` / `m/rad` where a drum drives a
@@ -295,6 +303,16 @@ fn headline(rig: &Rig, sub: &SubRigSolution) -> Headline {
             }),
         }),
         self_locking: sub.self_locking(),
+        friction_forward: finite(if sub.drive_unknown() {
+            f - sub.ideal.value
+        } else {
+            sub.ideal.value - f
+        }),
+        friction_back: finite(if sub.drive_unknown() {
+            sub.ideal.value - b
+        } else {
+            b - sub.ideal.value
+        }),
         velocity_ratio: sub.velocity_ratio,
         velocity_ratio_unit: {
             let turns = |p: usize| matches!(rig.parts[p].kind, PartKind::Drum(_));

@@ -80,6 +80,14 @@ fn write_headline(w: &mut dyn Write, h: &Headline, units: &UnitSystem) -> io::Re
         percent(h.forward.efficiency),
         percent(h.back.efficiency)
     )?;
+    writeln!(
+        w,
+        "  {:<12} {:>14} {:>14} {:>14}",
+        "friction",
+        "",
+        q(h.friction_forward),
+        q(h.friction_back)
+    )?;
     if let Some(b) = &h.breakaway {
         writeln!(
             w,

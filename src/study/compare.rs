@@ -60,6 +60,10 @@ pub struct Changes {
     pub back: Option<Real>,
     /// Forward efficiency.
     pub efficiency: Option<Real>,
+    /// Friction at the drive, forward.
+    pub friction_forward: Option<Real>,
+    /// Friction at the drive, back.
+    pub friction_back: Option<Real>,
     /// Largest span tension.
     pub largest_tension_n: Option<Real>,
     /// Lowest safety factor.
@@ -108,6 +112,8 @@ pub fn compare(columns: Vec<Figures>, units: UnitSystem) -> Comparison {
                 forward: ch(&|f| f.forward),
                 back: ch(&|f| f.back),
                 efficiency: ch(&|f| f.efficiency),
+                friction_forward: ch(&|f| f.friction_forward),
+                friction_back: ch(&|f| f.friction_back),
                 largest_tension_n: ch(&|f| f.largest_tension_n),
                 lowest_safety_factor: ch(&|f| f.lowest_safety_factor),
                 largest_fleet_deg: ch(&|f| f.largest_fleet_deg),
@@ -242,6 +248,22 @@ fn rows(c: &Comparison, _rig_units: &UnitSystem) -> Vec<Row> {
             values: col(&|f| f.efficiency),
             changes: chg(&|x| x.efficiency),
             show: Box::new(pct),
+            csv_text: None,
+        },
+        Row {
+            label: "friction forward",
+            unit,
+            values: col(&|f| f.friction_forward),
+            changes: chg(&|x| x.friction_forward),
+            show: Box::new(asked.clone()),
+            csv_text: None,
+        },
+        Row {
+            label: "friction back",
+            unit,
+            values: col(&|f| f.friction_back),
+            changes: chg(&|x| x.friction_back),
+            show: Box::new(asked.clone()),
             csv_text: None,
         },
         Row {

@@ -302,6 +302,11 @@ pub struct Figures {
     pub efficiency: Option<Real>,
     /// Back efficiency.
     pub back_efficiency: Option<Real>,
+    /// The friction at the drive going forward, in the asked unit (the report's
+    /// `friction_forward`).
+    pub friction_forward: Option<Real>,
+    /// The friction at the drive running back (the report's `friction_back`).
+    pub friction_back: Option<Real>,
     /// Holding band [low, high].
     pub holding_band: [Option<Real>; 2],
     /// Whether the rig will not run back by itself.
@@ -368,6 +373,8 @@ pub fn figures(label: &str, rig: &Rig, solution: &Solution) -> Figures {
         back: h.back.value,
         efficiency: h.forward.efficiency,
         back_efficiency: h.back.efficiency,
+        friction_forward: h.friction_forward,
+        friction_back: h.friction_back,
         holding_band: h.holding_band,
         self_locking: h.self_locking,
         largest_tension_n: largest_tension(solution),
