@@ -218,3 +218,60 @@ fn the_friction_at_the_drive_is_shown_beside_the_efficiency() {
         "{v}"
     );
 }
+
+/// The outcome line of `check`: the line that gives the margin.
+fn outcome_line(args: &[&str]) -> String {
+    let text = check_text(args);
+    text.lines()
+        .find(|l| l.contains("(margin"))
+        .unwrap_or_else(|| panic!("no outcome line: {text}"))
+        .to_string()
+}
+
+#[test]
+fn a_counterweight_outcome_is_worded_for_a_counterweight() {
+    // Guards: a counterweight drive gets counterweight wording for each side of its
+    // holding band (5.701 kg to 6.314 kg for rigs/sash-window.yaml), not hoist wording.
+    let sash = "rigs/sash-window.yaml";
+    let above = outcome_line(&[sash]);
+    assert!(
+        above.contains("counterweight")
+            && above.contains("6.400 kg")
+            && above.contains("6.314 kg")
+            && above.contains("`sash` rises by itself"),
+        "{above}"
+    );
+    assert!(!above.contains("the drive moves the rig"), "{above}");
+    let inside = outcome_line(&[sash, "--set", "parts.counterweight.mass=6.0"]);
+    assert!(
+        inside.contains("holding band") && inside.contains("holds `sash` still"),
+        "{inside}"
+    );
+    let below = outcome_line(&[sash, "--set", "parts.counterweight.mass=5.5"]);
+    assert!(below.contains("`sash` drops back by itself"), "{below}");
+}
+
+#[test]
+fn hauls_and_drums_get_their_own_outcome_words() {
+    // Guards: a pull, a drum and a stated load are each worded for what they are.
+    let pull = outcome_line(&["rigs/workshop-hoist.yaml"]);
+    assert!(
+        pull.contains("pull at `winch`") && pull.contains("`hook` rises"),
+        "{pull}"
+    );
+    let short = outcome_line(&["rigs/automaton-cord.yaml"]);
+    assert!(
+        short.contains("pull at `follower`") && short.contains("CANNOT"),
+        "{short}"
+    );
+    let drum = outcome_line(&["rigs/ramp-winch.yaml"]);
+    assert!(
+        drum.contains("drum `winch`") && drum.contains("turns"),
+        "{drum}"
+    );
+    let load = outcome_line(&["tests/rigs/review/block-unknown.yaml"]);
+    assert!(
+        load.contains("stated mass") && load.contains("`hook` rises"),
+        "{load}"
+    );
+}

@@ -727,3 +727,11 @@ fn the_html_summary_shows_the_friction_at_the_drive() {
         .unwrap_or_else(|| panic!("no friction row"));
     assert!(row.contains("51.64 N") && row.contains("48.57 N"), "{row}");
 }
+
+#[test]
+fn the_html_summary_words_the_outcome_for_the_drive() {
+    // Guards: the report words a counterweight's outcome as `check` does.
+    let html = stdout_of(&["report", rig("sash-window").to_str().unwrap(), "-o", "-"]);
+    assert!(html.contains("rises by itself"), "counterweight wording");
+    assert!(!html.contains("the drive moves the rig"));
+}

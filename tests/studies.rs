@@ -1076,3 +1076,17 @@ fn compare_groups_columns_by_the_asked_quantity_and_never_mixes_units_in_a_chang
         "{one}"
     );
 }
+
+#[test]
+fn spread_words_the_share_not_moving_for_a_counterweight() {
+    // Guards: spread says what a counterweight does not do in its failing samples.
+    let text = failing(&["spread", "rigs/sash-window.yaml", "--samples", "100"]);
+    let line = text
+        .lines()
+        .find(|l| l.contains("% of the samples"))
+        .unwrap_or_else(|| panic!("{text}"));
+    assert!(
+        line.contains("`counterweight` does not raise `sash` by itself"),
+        "{line}"
+    );
+}

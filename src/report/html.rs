@@ -32,6 +32,31 @@ pub fn esc(s: &str) -> String {
     out
 }
 
+/// Escaped text with its `code` spans (between backticks) as `<code>` elements.
+pub fn code_spans(escaped: &str) -> String {
+    let mut out = String::with_capacity(escaped.len() + 16);
+    let mut parts = escaped.split('`');
+    if let Some(first) = parts.next() {
+        out.push_str(first);
+    }
+    let rest: Vec<&str> = parts.collect();
+    // An odd backtick left over is text, not the start of a span.
+    let pairs = rest.len() / 2 * 2;
+    for (i, part) in rest.iter().enumerate() {
+        if i >= pairs {
+            out.push('`');
+            out.push_str(part);
+        } else if i % 2 == 0 {
+            out.push_str("<code>");
+            out.push_str(part);
+            out.push_str("</code>");
+        } else {
+            out.push_str(part);
+        }
+    }
+    out
+}
+
 const STYLE: &str = r#"
 :root { --ink: #1d1d1f; --muted: #5b5b60; --rule: #d6d6da; --accent: #1f4e9c; --bad: #b00000; --warn: #9a5b00; }
 * { box-sizing: border-box; }
@@ -232,19 +257,12 @@ fn write_summary(w: &mut dyn Write, h: &Headline, units: &UnitSystem, id: &str) 
         q(hi)
     )?;
     writeln!(w, "<li>{}.</li>", h.self_locking_words())?;
-    if let Some(a) = h.available {
-        let what = super::text::capitalise(h.given_word());
-        let verdict = match h.moves {
-            Some(true) => "<span class=\"ok\">the drive moves the rig</span>",
-            Some(false) => "<span class=\"bad\">the drive cannot move the rig</span>",
-            None => "",
-        };
+    if let Some((sentence, moves)) = super::text::outcome(h, units) {
         writeln!(
             w,
-            "<li>{what} {}: {}; {verdict} (margin {}).</li>",
-            esc(h.solve_for.quantity),
-            q(Some(a)),
-            percent(h.margin)
+            "<li><span class=\"{}\">{}</span></li>",
+            if moves { "ok" } else { "bad" },
+            code_spans(&esc(&sentence))
         )?;
     }
     writeln!(w, "</ul>")

@@ -12,6 +12,7 @@ use serde::Serialize;
 use crate::checks::Warning;
 use crate::math::{Real, Vector};
 use crate::rig::model::{PartKind, Rig};
+use crate::solve::kinematics::Motion;
 use crate::solve::{given_quantity, Case, Solution, SubRigSolution};
 
 /// The caution every human-readable report ends with (DESIGN.md §6).
@@ -159,6 +160,89 @@ pub struct DrumReport {
     pub margin_nm: Option<Real>,
 }
 
+/// What drives a sub-rig, for wording its outcome.
+#[derive(Debug, Clone, Copy, PartialEq, Eq)]
+pub enum DriveKind {
+    /// A haul end: a person, a hand or a powered pull; it can pull less than it has.
+    Pull,
+    /// A hanging weight (a counterweight): its value is what it is, and it moves the
+    /// rig by itself or not at all.
+    Counterweight,
+    /// A drum (a winch or crank); it can turn with less torque than it has.
+    Drum,
+    /// A block whose load drives it forward (a falling block), fixed like a weight.
+    FallingBlock,
+}
+
+impl DriveKind {
+    /// The drive kind of a part.
+    pub fn of(kind: &PartKind) -> DriveKind {
+        match kind {
+            PartKind::Weight(_) => DriveKind::Counterweight,
+            PartKind::Drum(_) => DriveKind::Drum,
+            PartKind::Block(_) => DriveKind::FallingBlock,
+            _ => DriveKind::Pull,
+        }
+    }
+
+    /// Whether its value is fixed (a weight's mass, a block's load): then it moves the
+    /// rig by itself above the forward value, friction holds it inside the holding band,
+    /// and the rig runs back by itself below the back value.
+    pub fn fixed(self) -> bool {
+        matches!(self, DriveKind::Counterweight | DriveKind::FallingBlock)
+    }
+}
+
+/// Which way a part goes when the rig moves forward.
+#[derive(Debug, Clone, Copy, PartialEq, Eq)]
+pub enum Travel {
+    /// More than 10° above the horizontal (against gravity).
+    Up,
+    /// More than 10° below the horizontal.
+    Down,
+    /// Within 10° of the horizontal.
+    Across,
+    /// It turns (a drum).
+    Turns,
+}
+
+impl Travel {
+    /// What the part does going forward and running back: `rises` / `drops back`.
+    pub fn words(travel: Option<Travel>) -> (&'static str, &'static str) {
+        match travel {
+            Some(Travel::Up) => ("rises", "drops back"),
+            Some(Travel::Down) => ("lowers", "rises back"),
+            Some(Travel::Turns) => ("turns forward", "turns back"),
+            Some(Travel::Across) | None => ("moves forward", "runs back"),
+        }
+    }
+}
+
+/// The way `part` travels in the forward motion, if it moves.
+fn travel(rig: &Rig, solution: &Solution, part: usize) -> Option<Travel> {
+    let k = &solution.kinematics;
+    let i = (*k.dof_of_part.get(part)?)?;
+    match k.dofs[i].motion {
+        Motion::Rotate(_) => Some(Travel::Turns),
+        Motion::Translate(d) => {
+            let v = d.into_inner() * k.forward[i];
+            let n = v.norm();
+            if !(n > 0.0 && n.is_finite()) {
+                return None;
+            }
+            // sin 10° ≈ 0.17: steeper than that reads as going up or down.
+            let up = v.dot(&-rig.gravity.into_inner()) / n;
+            Some(if up > 0.17 {
+                Travel::Up
+            } else if up < -0.17 {
+                Travel::Down
+            } else {
+                Travel::Across
+            })
+        }
+    }
+}
+
 /// The headline of one sub-rig.
 #[derive(Debug, Clone, Serialize, PartialEq)]
 pub struct Headline {
@@ -204,6 +288,13 @@ pub struct Headline {
     pub moves: Option<bool>,
     /// Energy audit misfit per case (fraction of drive power).
     pub energy_audit: PerCase,
+    /// What drives the rig, for the outcome's wording. Not in the JSON.
+    #[serde(skip_serializing)]
+    pub drive_kind: DriveKind,
+    /// The part the outcome speaks of (the moved load for a drive unknown, the asked
+    /// load otherwise) and which way it goes forward. Not in the JSON.
+    #[serde(skip_serializing)]
+    pub subject: Option<(String, Option<Travel>)>,
 }
 
 impl Headline {
@@ -264,7 +355,7 @@ fn dir(v: &Vector) -> Option<[Real; 3]> {
     (n > 0.0 && n.is_finite()).then(|| [v.x / n, v.y / n, v.z / n])
 }
 
-fn headline(rig: &Rig, sub: &SubRigSolution) -> Headline {
+fn headline(rig: &Rig, solution: &Solution, sub: &SubRigSolution) -> Headline {
     let available = given_quantity(rig, sub.solve_for);
     let (f, b) = (sub.forward.value, sub.back.value);
     let margin = available.and_then(|a| {
@@ -333,6 +424,13 @@ fn headline(rig: &Rig, sub: &SubRigSolution) -> Headline {
             forward: finite(sub.forward.audit_residual),
             back: finite(sub.back.audit_residual),
         },
+        drive_kind: DriveKind::of(&rig.parts[sub.drive].kind),
+        subject: (if sub.drive_unknown() {
+            sub.load_part
+        } else {
+            Some(sub.solve_for)
+        })
+        .map(|p| (rig.parts[p].name.clone(), travel(rig, solution, p))),
     }
 }
 
@@ -493,7 +591,7 @@ impl Report {
         Report {
             format: 1,
             title: rig.title.clone(),
-            headline: headline(rig, main),
+            headline: headline(rig, solution, main),
             spans,
             parts,
             drums,
@@ -502,7 +600,7 @@ impl Report {
                 .subrigs
                 .iter()
                 .skip(1)
-                .map(|s| headline(rig, s))
+                .map(|s| headline(rig, solution, s))
                 .collect(),
             caution: CAUTION,
         }

@@ -18,7 +18,8 @@ use crate::units::{Dimension, UnitSystem};
 
 use super::rng::Rng;
 use super::table::{csv_number, write_human, Format, Table};
-use super::{largest_tension, margin_cell, AskedQuantity, RigSource, StudyError, Verdict};
+use super::{assess, largest_tension, margin_cell, AskedQuantity, RigSource, StudyError, Verdict};
+use crate::report::text::{capitalise, not_moving_words};
 
 /// Draws one value of a distribution.
 pub fn draw(d: &Distribution, rng: &mut Rng) -> Real {
@@ -154,6 +155,10 @@ pub struct Spread {
     pub share_failing: Option<Real>,
     /// Per failing check code, the share of solved samples in which it fails.
     pub failing_share: BTreeMap<&'static str, Real>,
+    /// What the drive fails to do where it does not move the rig, worded for what it
+    /// is (for text output).
+    #[serde(skip)]
+    pub not_moving: String,
     /// The caution.
     pub caution: &'static str,
     /// Units of the rig, for text output.
@@ -231,6 +236,7 @@ pub fn spread(
             results[i] = r;
         }
     });
+    let nominal_report = assess(&rig, &nominal);
     let ok: Vec<Sample> = results.into_iter().flatten().collect();
     let judged: Vec<bool> = ok.iter().filter_map(|s| s.verdict.moves).collect();
     let share = |n: usize| n as Real / ok.len() as Real;
@@ -270,7 +276,8 @@ pub fn spread(
         largest_tension_n: percentiles(ok.iter().map(|s| s.largest_tension).collect()),
         share_not_moving: (!judged.is_empty())
             .then(|| judged.iter().filter(|m| !**m).count() as Real / judged.len() as Real),
-        nominal_verdict: Verdict::assess(&rig, &nominal),
+        nominal_verdict: Verdict::of(&nominal_report),
+        not_moving: not_moving_words(&nominal_report.headline),
         margin: percentiles(ok.iter().filter_map(|s| s.verdict.margin).collect()),
         share_failing: (!ok.is_empty())
             .then(|| share(ok.iter().filter(|s| s.verdict.fails).count())),
@@ -396,7 +403,8 @@ pub fn write(w: &mut dyn Write, s: &Spread, format: Format) -> io::Result<()> {
     }
     if let Some(share) = s.share_not_moving {
         notes.push(format!(
-            "The drive does not move the rig in {:.1} % of the samples.",
+            "{} in {:.1} % of the samples.",
+            capitalise(&s.not_moving),
             share * 100.0
         ));
     }
