@@ -275,3 +275,42 @@ fn hauls_and_drums_get_their_own_outcome_words() {
         "{load}"
     );
 }
+
+#[test]
+fn bend_ratio_warnings_on_the_same_rope_and_limit_read_as_one() {
+    // Guards: three sheaves below the same D/d limit for the same rope are one line of
+    // text listing them, while the JSON keeps one entry per part (outside checks key
+    // on `part`).
+    let rig = "tests/rigs/chain-plain.yaml";
+    let text = check_text(&[rig]);
+    let lines: Vec<&str> = text
+        .lines()
+        .filter(|l| l.contains("[bend-ratio]"))
+        .collect();
+    assert_eq!(lines.len(), 1, "{text}");
+    assert!(
+        lines[0].contains("`top.1` (7.3), `low.2` (7.3) and `top.3` (7.3)")
+            && lines[0].contains("below 8.0 for rope `cord6`"),
+        "{}",
+        lines[0]
+    );
+    let v = check_json(&[rig]);
+    let parts: Vec<&str> = v["warnings"]
+        .as_array()
+        .unwrap()
+        .iter()
+        .filter(|w| w["code"] == "bend-ratio")
+        .map(|w| w["part"].as_str().unwrap())
+        .collect();
+    assert_eq!(parts, ["top.1", "low.2", "top.3"]);
+    // Siblings: a fleet angle at two parts of one line, a stall forward and back.
+    let text = check_text(&["rigs/ramp-winch.yaml"]);
+    assert_eq!(text.matches("[fleet-angle]").count(), 1, "{text}");
+    let text = check_text(&["rigs/sash-window.yaml", "--set", "parts.pulley.mu=0.01"]);
+    let stalled: Vec<&str> = text
+        .lines()
+        .filter(|l| l.contains("[stalled-sheave]"))
+        .collect();
+    assert_eq!(stalled.len(), 1, "{text}");
+    assert!(stalled[0].contains("forward and back"), "{}", stalled[0]);
+}

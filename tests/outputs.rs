@@ -735,3 +735,24 @@ fn the_html_summary_words_the_outcome_for_the_drive() {
     assert!(html.contains("rises by itself"), "counterweight wording");
     assert!(!html.contains("the drive moves the rig"));
 }
+
+#[test]
+fn html_warnings_render_code_and_name_the_part_once() {
+    // Guards: no raw backticks in the report's warnings, code spans as <code>, the
+    // part named once, and bend-ratio warnings grouped as in the text.
+    let html = stdout_of(&["report", rig("rescue-haul").to_str().unwrap(), "-o", "-"]);
+    let start = html
+        .find("<section id=\"warnings\">")
+        .expect("warnings section");
+    let section = &html[start..start + html[start..].find("</section>").unwrap()];
+    assert!(!section.contains('`'), "{section}");
+    let items: Vec<&str> = section.lines().filter(|l| l.starts_with("<li>")).collect();
+    assert_eq!(items.len(), 1, "one grouped bend-ratio warning: {section}");
+    assert_eq!(
+        items[0].matches("<code>leg.biner</code>").count(),
+        1,
+        "{}",
+        items[0]
+    );
+    assert!(items[0].contains("<code>static11</code>"), "{}", items[0]);
+}

@@ -1090,3 +1090,33 @@ fn spread_words_the_share_not_moving_for_a_counterweight() {
         "{line}"
     );
 }
+
+#[test]
+fn spread_over_a_rig_with_no_ranges_is_refused() {
+    // Guards: with nothing given as a range every sample is the same rig; say so
+    // (exit 2) instead of printing identical percentiles.
+    let out = run(&["spread", "rigs/workshop-hoist.yaml", "--samples", "10"]);
+    assert_eq!(out.status.code(), Some(2));
+    let err = String::from_utf8_lossy(&out.stderr);
+    assert!(
+        err.contains("nothing to spread") && err.contains("{min:"),
+        "{err}"
+    );
+}
+
+#[test]
+fn a_sweep_between_equal_ends_is_refused() {
+    // Guards: `--vary KEY=A..A` over several steps would print identical rows.
+    let path = rig("chain-plain.yaml");
+    let out = run(&["sweep", &path, "--vary", "parts.top.1.bearing.mu=0.2..0.2"]);
+    assert_eq!(out.status.code(), Some(2));
+    assert!(String::from_utf8_lossy(&out.stderr).contains("nothing to sweep"));
+    ok(&[
+        "sweep",
+        &path,
+        "--vary",
+        "parts.top.1.bearing.mu=0.2..0.2",
+        "--steps",
+        "1",
+    ]);
+}

@@ -422,22 +422,24 @@ pub fn write_html(
         writeln!(w, "<p>No warnings: every check passes.</p>")?;
     } else {
         writeln!(w, "<ul class=\"warnings\">")?;
-        for warning in &report.warnings {
+        for warning in &crate::checks::grouped(&report.warnings) {
             let (class, tag) = if warning.fails {
                 ("fail", "FAIL")
             } else {
                 ("warn", "warn")
             };
+            // Name the part only where the message does not already.
+            let at = warning
+                .part
+                .as_deref()
+                .filter(|p| !warning.message.contains(&format!("`{p}`")))
+                .map(|p| format!(" at <code>{}</code>", esc(p)))
+                .unwrap_or_default();
             writeln!(
                 w,
-                "<li><span class=\"tag {class}\">{tag}</span><code>{}</code>{} {}</li>",
+                "<li><span class=\"tag {class}\">{tag}</span><code>{}</code>{at}: {}</li>",
                 esc(warning.code),
-                warning
-                    .part
-                    .as_deref()
-                    .map(|p| format!(" at <code>{}</code>:", esc(p)))
-                    .unwrap_or_else(|| ":".to_string()),
-                esc(&warning.message)
+                code_spans(&esc(&warning.message))
             )?;
         }
         writeln!(w, "</ul>")?;

@@ -413,7 +413,7 @@ pub fn write_check(w: &mut dyn Write, rig: &Rig, report: &Report, source: &str) 
         writeln!(w, "Checks: no warnings.")?;
     } else {
         writeln!(w, "Warnings:")?;
-        for warning in &report.warnings {
+        for warning in &crate::checks::grouped(&report.warnings) {
             let mark = if warning.fails { "FAIL" } else { "warn" };
             writeln!(w, "  {mark} [{}] {}", warning.code, warning.message)?;
         }

@@ -187,6 +187,12 @@ pub fn spread(
 ) -> Result<Spread, StudyError> {
     let ranges = source.ranges()?;
     let (rig, nominal) = source.solve(&[])?;
+    if ranges.is_empty() {
+        return Err(StudyError::Input(format!(
+            "{}: the rig gives no value as a range, so every sample would be the same rig: nothing to spread; write an uncertain value as `{{min: a, max: b}}` or `{{mean: m, sd: s}}`, in the file or with --set (e.g. `--set \"ropes.NAME.mu={{min: 0.1, max: 0.2}}\"`)",
+            source.source
+        )));
+    }
     let main = nominal.main();
     let threads = if threads == 0 {
         std::thread::available_parallelism().map_or(1, |n| n.get())
@@ -377,9 +383,6 @@ pub fn write(w: &mut dyn Write, s: &Spread, format: Format) -> io::Result<()> {
         "{} samples, seed {}; {} could not be solved.",
         s.samples, s.seed, s.failed
     )];
-    if s.inputs.is_empty() {
-        notes.push("The rig gives no value as a range, so every sample is the nominal rig.".into());
-    }
     for i in &s.inputs {
         let u = if i.unit.is_empty() {
             String::new()

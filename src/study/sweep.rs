@@ -150,8 +150,16 @@ impl Stroke {
 /// Sweeps one value over `steps` evenly spaced steps.
 ///
 /// # Errors
-/// When the rig does not load as written. Steps that fail carry their error.
+/// When the rig does not load as written, or both ends are equal over more than one
+/// step. Steps that fail carry their error.
 pub fn sweep(source: &RigSource, vary: &Vary, steps: usize) -> Result<Sweep, StudyError> {
+    if vary.from == vary.to && steps > 1 {
+        return Err(StudyError::Input(format!(
+            "--vary `{}`: both ends are {}, so every step would be the same rig: nothing to sweep (give two different ends, or --steps 1)",
+            vary.key,
+            with_unit(vary.from, &vary.unit)
+        )));
+    }
     let units = source.load(&[])?.units;
     let mut solve_for = None;
     let mut out = Vec::new();
