@@ -105,14 +105,18 @@ fn every_anchor_and_fixed_sheave_reports_its_pin_load() {
     }
 }
 
-fn check_json(args: &[&str]) -> serde_json::Value {
-    let out = Command::new(env!("CARGO_BIN_EXE_reeve"))
+/// `reeve check ARGS`, its stdout.
+fn check_stdout(args: &[&str]) -> Vec<u8> {
+    Command::new(env!("CARGO_BIN_EXE_reeve"))
         .arg("check")
         .args(args)
-        .arg("--json")
         .output()
-        .unwrap();
-    serde_json::from_slice(&out.stdout).unwrap()
+        .unwrap()
+        .stdout
+}
+
+fn check_json(args: &[&str]) -> serde_json::Value {
+    serde_json::from_slice(&check_stdout(&[args, &["--json"]].concat())).unwrap()
 }
 
 fn codes(json: &serde_json::Value) -> Vec<String> {
@@ -179,12 +183,7 @@ fn a_block_cannot_drive_against_its_own_load() {
 }
 
 fn check_text(args: &[&str]) -> String {
-    let out = Command::new(env!("CARGO_BIN_EXE_reeve"))
-        .arg("check")
-        .args(args)
-        .output()
-        .unwrap();
-    String::from_utf8(out.stdout).unwrap()
+    String::from_utf8(check_stdout(args)).unwrap()
 }
 
 #[test]

@@ -828,6 +828,18 @@ fn failing(args: &[&str]) -> String {
     String::from_utf8(out.stdout).expect("utf-8 output")
 }
 
+/// The `--json` document of a study, whatever its exit code (not 2).
+fn json_whatever_the_exit(args: &[&str]) -> Value {
+    let out = run(&[args, &["--json"]].concat());
+    assert_ne!(
+        out.status.code(),
+        Some(2),
+        "{}",
+        String::from_utf8_lossy(&out.stderr)
+    );
+    serde_json::from_slice(&out.stdout).expect("json")
+}
+
 #[test]
 fn compare_exits_1_and_shows_the_margin_when_a_column_fails_a_check() {
     // Guards: a compared rig that `check` fails (cannot move) fails the comparison, and
@@ -854,9 +866,7 @@ fn compare_exits_1_and_shows_the_margin_when_a_column_fails_a_check() {
         "{text}"
     );
     assert!(row("checks").contains("FAIL cannot-move"), "{text}");
-    let mut args = args.to_vec();
-    args.push("--json");
-    let v: Value = serde_json::from_slice(&run(&args).stdout).unwrap();
+    let v = json_whatever_the_exit(&args);
     assert_eq!(v["columns"][0]["fails"], false);
     assert_eq!(v["columns"][1]["fails"], true);
     assert_eq!(v["columns"][1]["failing"][0], "cannot-move");
@@ -898,9 +908,7 @@ fn sweep_exits_1_and_marks_the_step_that_cannot_move() {
     );
     let first = text.lines().find(|l| l.starts_with("10.00")).unwrap();
     assert!(first.contains(" ok"), "{text}");
-    let mut json_args = args.to_vec();
-    json_args.push("--json");
-    let v: Value = serde_json::from_slice(&run(&json_args).stdout).unwrap();
+    let v = json_whatever_the_exit(&args);
     let steps = v["steps"].as_array().unwrap();
     assert_eq!(steps[4]["fails"], true);
     assert_eq!(steps[0]["fails"], false);
@@ -934,9 +942,7 @@ fn a_sweep_marks_the_steps_where_a_sheave_stalls() {
     let marked: Vec<&str> = text.lines().filter(|l| l.contains("stalled")).collect();
     assert!(marked.iter().any(|l| l.starts_with("0.3500")), "{text}");
     assert!(!marked.iter().any(|l| l.starts_with("0.01000")), "{text}");
-    let mut json_args = args.to_vec();
-    json_args.push("--json");
-    let v: Value = serde_json::from_slice(&run(&json_args).stdout).unwrap();
+    let v = json_whatever_the_exit(&args);
     let steps = v["steps"].as_array().unwrap();
     assert_eq!(steps[4]["stalled"][0], "pulley");
     assert!(steps[0]["stalled"].as_array().unwrap().is_empty());
@@ -976,9 +982,7 @@ fn rank_exits_1_where_the_rig_or_a_row_fails_a_check() {
     ];
     let text = failing(&args);
     assert!(text.contains("FAIL cannot-move"), "{text}");
-    let mut json_args = args.to_vec();
-    json_args.push("--json");
-    let v: Value = serde_json::from_slice(&run(&json_args).stdout).unwrap();
+    let v = json_whatever_the_exit(&args);
     assert_eq!(v["verdict"]["fails"], false, "as written it moves");
     assert_eq!(v["parts"][0]["alternative_verdict"]["fails"], true);
     assert!(num(&v["parts"][0]["alternative_verdict"]["margin"]) < 0.0);
@@ -1000,9 +1004,7 @@ fn spread_exits_1_when_samples_fail_a_check_and_shows_the_margin() {
     let text = failing(&args);
     assert!(text.lines().any(|l| l.starts_with("margin")), "{text}");
     assert!(text.contains("cannot-move"), "{text}");
-    let mut json_args = args.to_vec();
-    json_args.push("--json");
-    let v: Value = serde_json::from_slice(&run(&json_args).stdout).unwrap();
+    let v = json_whatever_the_exit(&args);
     let share = num(&v["share_failing"]);
     assert!(share > 0.0 && share < 1.0, "{share}");
     assert!(num(&v["margin"]["p5"]) < 0.0 && num(&v["margin"]["p95"]) > 0.0);
@@ -1047,9 +1049,7 @@ fn compare_groups_columns_by_the_asked_quantity_and_never_mixes_units_in_a_chang
         forward[1].contains("2229 N") && forward[1].contains("(-89.5 %)"),
         "{text}"
     );
-    let mut json_args = args.to_vec();
-    json_args.push("--json");
-    let v = json(&json_args);
+    let v = json(&[&args[..], &["--json"]].concat());
     let groups = v["groups"].as_array().unwrap();
     assert_eq!(groups.len(), 3);
     assert_eq!(groups[1]["columns"], serde_json::json!([1, 3]));
