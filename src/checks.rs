@@ -21,6 +21,34 @@ pub struct Warning {
     pub message: String,
     /// Whether this fails the check (exit code 1) rather than only warning.
     pub fails: bool,
+    /// How the finding reads together with others of its kind (the same D/d limit on
+    /// several sheaves): human-readable reports list them in one sentence
+    /// ([`grouped`]); the JSON keeps one entry per part. Not in the JSON.
+    #[serde(skip_serializing)]
+    pub group: Option<Group>,
+}
+
+/// A finding's place in a sentence shared with others: `{lead}{items}{tail}`, the items
+/// of the findings with the same code, lead and tail joined as `a, b and c`.
+#[derive(Debug, Clone, PartialEq)]
+pub struct Group {
+    /// The words before the list.
+    pub lead: String,
+    /// This finding's item (`` `head` (6.7) ``).
+    pub item: String,
+    /// The words after the list.
+    pub tail: String,
+}
+
+impl Warning {
+    fn grouped_as(mut self, lead: String, item: String, tail: &str) -> Warning {
+        self.group = Some(Group {
+            lead,
+            item,
+            tail: tail.to_string(),
+        });
+        self
+    }
 }
 
 fn warn(code: &'static str, part: Option<&str>, fails: bool, message: String) -> Warning {
@@ -29,6 +57,52 @@ fn warn(code: &'static str, part: Option<&str>, fails: bool, message: String) ->
         part: part.map(str::to_string),
         message,
         fails,
+        group: None,
+    }
+}
+
+/// The warnings as a person reads them: findings that share a code and a sentence
+/// (the same D/d limit for the same rope, the same fleet-angle limit on one line, one
+/// sheave stalled forward and back) merged into one, in the order of their first; a
+/// merged warning names no single `part`. One finding alone keeps its own message.
+pub fn grouped(warnings: &[Warning]) -> Vec<Warning> {
+    let mut out: Vec<(Warning, Vec<String>)> = Vec::new();
+    for w in warnings {
+        let same = w.group.as_ref().and_then(|g| {
+            out.iter_mut().find(|(o, _)| {
+                o.code == w.code
+                    && o.fails == w.fails
+                    && o.group
+                        .as_ref()
+                        .is_some_and(|h| h.lead == g.lead && h.tail == g.tail)
+            })
+        });
+        match (same, &w.group) {
+            (Some((_, items)), Some(g)) => {
+                if !items.contains(&g.item) {
+                    items.push(g.item.clone());
+                }
+            }
+            _ => out.push((w.clone(), w.group.iter().map(|g| g.item.clone()).collect())),
+        }
+    }
+    out.into_iter()
+        .map(|(mut w, items)| {
+            if let (Some(g), true) = (&w.group, items.len() > 1) {
+                w.message = format!("{}{}{}", g.lead, and_list(&items), g.tail);
+                w.part = None;
+            }
+            w
+        })
+        .collect()
+}
+
+/// `a`, `a and b`, `a, b and c`.
+fn and_list(items: &[String]) -> String {
+    match items {
+        [] => String::new(),
+        [one] => one.clone(),
+        [rest @ .., last] => format!("{} and {last}", rest.join(", ")),
     }
 }
 
@@ -49,30 +123,53 @@ pub fn geometry_checks(rig: &Rig, geometry: &crate::geometry::Geometry) -> Vec<W
                 .unwrap_or(0.0)
                 .max(entry.fleet_out.unwrap_or(0.0));
             if fleet > limit + 1e-12 {
-                out.push(warn(
-                    "fleet-angle",
-                    Some(&part.name),
-                    false,
-                    format!(
-                        "line `{}`: fleet angle {:.2}° at `{}` exceeds the limit {:.2}°; the rope rubs the groove flank (align the part with the span)",
-                        line.name,
-                        fleet.to_degrees(),
-                        part.name,
-                        limit.to_degrees()
-                    ),
-                ));
-            }
-            if let Some(ratio) = entry.bend_ratio {
-                if ratio < rope.min_bend_ratio - 1e-9 {
-                    out.push(warn(
-                        "bend-ratio",
+                let tail = "; the rope rubs the groove flank (align the part with the span)";
+                out.push(
+                    warn(
+                        "fleet-angle",
                         Some(&part.name),
                         false,
                         format!(
-                            "line `{}`: D/d {:.1} at `{}` is below {:.1} for rope `{}`; a larger diameter lengthens rope life",
-                            line.name, ratio, part.name, rope.min_bend_ratio, rope.name
+                            "line `{}`: fleet angle {:.2}° at `{}` exceeds the limit {:.2}°{tail}",
+                            line.name,
+                            fleet.to_degrees(),
+                            part.name,
+                            limit.to_degrees()
                         ),
-                    ));
+                    )
+                    .grouped_as(
+                        format!(
+                            "line `{}`: fleet angle above the limit {:.2}° at ",
+                            line.name,
+                            limit.to_degrees()
+                        ),
+                        format!("`{}` ({:.2}°)", part.name, fleet.to_degrees()),
+                        tail,
+                    ),
+                );
+            }
+            if let Some(ratio) = entry.bend_ratio {
+                if ratio < rope.min_bend_ratio - 1e-9 {
+                    let tail = "; a larger diameter lengthens rope life";
+                    out.push(
+                        warn(
+                            "bend-ratio",
+                            Some(&part.name),
+                            false,
+                            format!(
+                                "line `{}`: D/d {:.1} at `{}` is below {:.1} for rope `{}`{tail}",
+                                line.name, ratio, part.name, rope.min_bend_ratio, rope.name
+                            ),
+                        )
+                        .grouped_as(
+                            format!(
+                                "D/d below {:.1} for rope `{}` at ",
+                                rope.min_bend_ratio, rope.name
+                            ),
+                            format!("`{}` ({ratio:.1})", part.name),
+                            tail,
+                        ),
+                    );
                 }
             }
             if e > 0 && e + 1 < n && entry.wrap < NO_WRAP && !matches!(part.kind, PartKind::Drum(_))
@@ -489,14 +586,14 @@ fn subrig_checks(rig: &Rig, sub: &SubRigSolution) -> Vec<Warning> {
         }
         for &(l, e) in &case.stalled {
             let part = &rig.parts[rig.lines[l].path[e].part].name;
-            out.push(warn(
-                "stalled-sheave",
-                Some(part),
-                false,
-                format!(
-                    "{name}: `{part}` does not turn: its bearing (with the sheave's own weight in the pin load) needs more than the groove can transmit, so the rope slides over it at the capstan ratio"
+            let tail = format!(": `{part}` does not turn: its bearing (with the sheave's own weight in the pin load) needs more than the groove can transmit, so the rope slides over it at the capstan ratio");
+            out.push(
+                warn("stalled-sheave", Some(part), false, format!("{name}{tail}")).grouped_as(
+                    String::new(),
+                    name.to_string(),
+                    &tail,
                 ),
-            ));
+            );
         }
         for &(l, j) in &case.slack {
             let line = &rig.lines[l];

@@ -107,14 +107,18 @@ fn every_anchor_and_fixed_sheave_reports_its_pin_load() {
     }
 }
 
-fn check_json(args: &[&str]) -> serde_json::Value {
-    let out = Command::new(env!("CARGO_BIN_EXE_reeve"))
+/// `reeve check ARGS`, its stdout.
+fn check_stdout(args: &[&str]) -> Vec<u8> {
+    Command::new(env!("CARGO_BIN_EXE_reeve"))
         .arg("check")
         .args(args)
-        .arg("--json")
         .output()
-        .unwrap();
-    serde_json::from_slice(&out.stdout).unwrap()
+        .unwrap()
+        .stdout
+}
+
+fn check_json(args: &[&str]) -> serde_json::Value {
+    serde_json::from_slice(&check_stdout(&[args, &["--json"]].concat())).unwrap()
 }
 
 fn codes(json: &serde_json::Value) -> Vec<String> {
@@ -581,4 +585,136 @@ fn a_drum_at_a_line_end_shows_the_turns_wound_on_it() {
     );
     assert_eq!(winch["wrap_deg"].as_f64(), Some(1080.0), "{winch}");
     let _ = std::fs::remove_dir_all(&dir);
+}
+
+fn check_text(args: &[&str]) -> String {
+    String::from_utf8(check_stdout(args)).unwrap()
+}
+
+#[test]
+fn the_friction_at_the_drive_is_shown_beside_the_efficiency() {
+    // Guards: on a balanced line set (efficiency says little) the friction at the drive,
+    // forward − ideal and ideal − back in the asked unit, is in the JSON and the text.
+    let v = check_json(&["rigs/line-set.yaml"]);
+    let at = |k: &str, c: &str| v[k][c].as_f64().unwrap();
+    let (ideal, forward, back) = (
+        at("ideal", "value"),
+        at("forward", "value"),
+        at("back", "value"),
+    );
+    let ff = v["friction_forward"].as_f64().unwrap();
+    let fb = v["friction_back"].as_f64().unwrap();
+    assert!((ff - (forward - ideal)).abs() < 1e-9 && ff > 0.0, "{v}");
+    assert!((fb - (ideal - back)).abs() < 1e-9 && fb > 0.0, "{v}");
+    // 149.7 − 98.06 = 51.64 N and 98.06 − 49.49 = 48.57 N (figures of the summary).
+    let text = check_text(&["rigs/line-set.yaml"]);
+    let row = text
+        .lines()
+        .find(|l| l.trim_start().starts_with("friction"))
+        .unwrap_or_else(|| panic!("no friction row: {text}"));
+    assert!(row.contains("51.6") && row.contains("48.5"), "{row}");
+    // A load unknown: the friction costs load (ideal − forward, back − ideal), in kg.
+    let v = check_json(&["tests/rigs/review/block-unknown.yaml"]);
+    let ideal = v["ideal"]["value"].as_f64().unwrap();
+    let ff = v["friction_forward"].as_f64().unwrap();
+    assert!(
+        (ff - (ideal - v["forward"]["value"].as_f64().unwrap())).abs() < 1e-9 && ff > 0.0,
+        "{v}"
+    );
+}
+
+/// The outcome line of `check`: the line that gives the margin.
+fn outcome_line(args: &[&str]) -> String {
+    let text = check_text(args);
+    text.lines()
+        .find(|l| l.contains("(margin"))
+        .unwrap_or_else(|| panic!("no outcome line: {text}"))
+        .to_string()
+}
+
+#[test]
+fn a_counterweight_outcome_is_worded_for_a_counterweight() {
+    // Guards: a counterweight drive gets counterweight wording for each side of its
+    // holding band (5.701 kg to 6.314 kg for rigs/sash-window.yaml), not hoist wording.
+    let sash = "rigs/sash-window.yaml";
+    let above = outcome_line(&[sash]);
+    assert!(
+        above.contains("counterweight")
+            && above.contains("6.400 kg")
+            && above.contains("6.314 kg")
+            && above.contains("`sash` rises by itself"),
+        "{above}"
+    );
+    assert!(!above.contains("the drive moves the rig"), "{above}");
+    let inside = outcome_line(&[sash, "--set", "parts.counterweight.mass=6.0"]);
+    assert!(
+        inside.contains("holding band") && inside.contains("holds `sash` still"),
+        "{inside}"
+    );
+    let below = outcome_line(&[sash, "--set", "parts.counterweight.mass=5.5"]);
+    assert!(below.contains("`sash` drops back by itself"), "{below}");
+}
+
+#[test]
+fn hauls_and_drums_get_their_own_outcome_words() {
+    // Guards: a pull, a drum and a stated load are each worded for what they are.
+    let pull = outcome_line(&["rigs/workshop-hoist.yaml"]);
+    assert!(
+        pull.contains("pull at `winch`") && pull.contains("`hook` rises"),
+        "{pull}"
+    );
+    let short = outcome_line(&["rigs/automaton-cord.yaml"]);
+    assert!(
+        short.contains("pull at `follower`") && short.contains("CANNOT"),
+        "{short}"
+    );
+    let drum = outcome_line(&["rigs/ramp-winch.yaml"]);
+    assert!(
+        drum.contains("drum `winch`") && drum.contains("turns"),
+        "{drum}"
+    );
+    let load = outcome_line(&["tests/rigs/review/block-unknown.yaml"]);
+    assert!(
+        load.contains("stated mass") && load.contains("`hook` rises"),
+        "{load}"
+    );
+}
+
+#[test]
+fn bend_ratio_warnings_on_the_same_rope_and_limit_read_as_one() {
+    // Guards: three sheaves below the same D/d limit for the same rope are one line of
+    // text listing them, while the JSON keeps one entry per part (outside checks key
+    // on `part`).
+    let rig = "tests/rigs/chain-plain.yaml";
+    let text = check_text(&[rig]);
+    let lines: Vec<&str> = text
+        .lines()
+        .filter(|l| l.contains("[bend-ratio]"))
+        .collect();
+    assert_eq!(lines.len(), 1, "{text}");
+    assert!(
+        lines[0].contains("`top.1` (7.3), `low.2` (7.3) and `top.3` (7.3)")
+            && lines[0].contains("below 8.0 for rope `cord6`"),
+        "{}",
+        lines[0]
+    );
+    let v = check_json(&[rig]);
+    let parts: Vec<&str> = v["warnings"]
+        .as_array()
+        .unwrap()
+        .iter()
+        .filter(|w| w["code"] == "bend-ratio")
+        .map(|w| w["part"].as_str().unwrap())
+        .collect();
+    assert_eq!(parts, ["top.1", "low.2", "top.3"]);
+    // Siblings: a fleet angle at two parts of one line, a stall forward and back.
+    let text = check_text(&["rigs/ramp-winch.yaml"]);
+    assert_eq!(text.matches("[fleet-angle]").count(), 1, "{text}");
+    let text = check_text(&["rigs/sash-window.yaml", "--set", "parts.pulley.mu=0.01"]);
+    let stalled: Vec<&str> = text
+        .lines()
+        .filter(|l| l.contains("[stalled-sheave]"))
+        .collect();
+    assert_eq!(stalled.len(), 1, "{text}");
+    assert!(stalled[0].contains("forward and back"), "{}", stalled[0]);
 }

@@ -715,3 +715,44 @@ fn table_writes_to_a_file_with_o() {
     assert_eq!(fs::read_to_string(&file).unwrap(), stdout);
     let _ = fs::remove_dir_all(&dir);
 }
+
+#[test]
+fn the_html_summary_shows_the_friction_at_the_drive() {
+    // Guards: the report's summary table has the friction row of `check` (line set:
+    // 149.7 − 98.06 = 51.64 N forward, 98.06 − 49.49 = 48.57 N back).
+    let html = stdout_of(&["report", rig("line-set").to_str().unwrap(), "-o", "-"]);
+    let row = html
+        .lines()
+        .find(|l| l.contains("<th scope=\"row\">friction</th>"))
+        .unwrap_or_else(|| panic!("no friction row"));
+    assert!(row.contains("51.64 N") && row.contains("48.57 N"), "{row}");
+}
+
+#[test]
+fn the_html_summary_words_the_outcome_for_the_drive() {
+    // Guards: the report words a counterweight's outcome as `check` does.
+    let html = stdout_of(&["report", rig("sash-window").to_str().unwrap(), "-o", "-"]);
+    assert!(html.contains("rises by itself"), "counterweight wording");
+    assert!(!html.contains("the drive moves the rig"));
+}
+
+#[test]
+fn html_warnings_render_code_and_name_the_part_once() {
+    // Guards: no raw backticks in the report's warnings, code spans as <code>, the
+    // part named once, and bend-ratio warnings grouped as in the text.
+    let html = stdout_of(&["report", rig("rescue-haul").to_str().unwrap(), "-o", "-"]);
+    let start = html
+        .find("<section id=\"warnings\">")
+        .expect("warnings section");
+    let section = &html[start..start + html[start..].find("</section>").unwrap()];
+    assert!(!section.contains('`'), "{section}");
+    let items: Vec<&str> = section.lines().filter(|l| l.starts_with("<li>")).collect();
+    assert_eq!(items.len(), 1, "one grouped bend-ratio warning: {section}");
+    assert_eq!(
+        items[0].matches("<code>leg.biner</code>").count(),
+        1,
+        "{}",
+        items[0]
+    );
+    assert!(items[0].contains("<code>static11</code>"), "{}", items[0]);
+}

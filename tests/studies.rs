@@ -327,7 +327,8 @@ fn golden_compare_and_sweep_tables() {
     let text = ok(&["compare", &rig("tackle-rated.yaml"), "--variants"]);
     assert!(text.trim_end().ends_with("licensed person."));
     golden("compare-tackle-variants.txt", &text);
-    let md = ok(&[
+    // The 30 kg step cannot move (351.5 N needed, 300 N available): exit 1.
+    let md = failing(&[
         "sweep",
         &rig("chain-plain.yaml"),
         "--vary",
@@ -339,7 +340,7 @@ fn golden_compare_and_sweep_tables() {
     ]);
     assert!(md.contains("| --- |") || md.contains("| --- | ---:"));
     golden("sweep-chain-mass.md", &md);
-    let csv = ok(&[
+    let csv = failing(&[
         "sweep",
         &rig("chain-plain.yaml"),
         "--vary",
@@ -572,7 +573,7 @@ fn share_not_moving_is_zero_or_one_when_the_range_sits_on_one_side() {
     // The share of samples that do not move, with the hand's available force set.
     let share_at = |force: &str, samples: &str| {
         let set = format!("parts.hand.force={force}");
-        let out = json(&[
+        let args = [
             "spread",
             &path,
             "--samples",
@@ -580,7 +581,11 @@ fn share_not_moving_is_zero_or_one_when_the_range_sits_on_one_side() {
             "--json",
             "--set",
             &set,
-        ]);
+        ];
+        let out = run(&args);
+        // Samples that cannot move fail the check: exit 1 (0 when all move).
+        assert_ne!(out.status.code(), Some(2), "{args:?}");
+        let out: Value = serde_json::from_slice(&out.stdout).expect("json");
         num(&out["share_not_moving"])
     };
     assert_eq!(share_at("400 N", "50"), 0.0);
@@ -702,4 +707,416 @@ fn a_zero_stroke_is_refused() {
     let out = run(&["sweep", "rigs/workshop-hoist.yaml", "--stroke", "0"]);
     assert_eq!(out.status.code(), Some(2));
     assert!(String::from_utf8_lossy(&out.stderr).contains("other than zero"));
+}
+
+#[test]
+fn rank_calls_a_worse_alternative_worse_instead_of_a_negative_saving() {
+    // Guards: a `--to` bearing worse than the current one is reported as worse, never
+    // as a negative saving, and it ranks below every real saving.
+    let worse = "{kind: plain, pin_diameter: 10, mu: 0.3}";
+    let r = json(&["rank", &rig("chain-plain.yaml"), "--to", worse, "--json"]);
+    for p in r["parts"].as_array().unwrap() {
+        assert!(p["alternative_saved"].is_null(), "{p}");
+        let name = p["part"].as_str().unwrap();
+        let set = format!("parts.{name}.bearing={worse}");
+        // Hand check: the extra effort is the worse rig's forward value minus the rig's.
+        let extra = check_forward("chain-plain.yaml", &[&set]) - num(&r["forward"]);
+        assert!(extra > 0.0);
+        assert!(close(num(&p["alternative_worse_by"]), extra, 1e-9), "{p}");
+    }
+    let text = ok(&["rank", &rig("chain-plain.yaml"), "--to", worse]);
+    assert!(text.contains("worse by 13.43 N"), "{text}");
+    assert!(!text.contains(" -1"), "{text}");
+}
+
+#[test]
+fn rank_shows_round_off_savings_as_zero() {
+    // Guards: a part that is already frictionless saves exactly zero (no "-0", no tiny
+    // negative from round-off).
+    let path = "tests/rigs/review/frictionless.yaml";
+    let out = ok(&["rank", path, "--to", "rolling", "--json"]);
+    assert!(!out.contains("-0.0") && !out.contains("e-1"), "{out}");
+    let r: Value = serde_json::from_str(&out).unwrap();
+    for p in r["parts"].as_array().unwrap() {
+        assert_eq!(num(&p["frictionless_saved"]), 0.0, "{p}");
+        assert!(p["frictionless_worse_by"].is_null(), "{p}");
+    }
+}
+
+#[test]
+fn rank_to_takes_units_in_the_bearing() {
+    // Guards: `--to` reads bare numbers in the rig's units and accepts written units.
+    let bare = json(&[
+        "rank",
+        &rig("chain-plain.yaml"),
+        "--to",
+        "{kind: plain, pin_diameter: 8, mu: 0.08}",
+        "--json",
+    ]);
+    let inches = json(&[
+        "rank",
+        &rig("chain-plain.yaml"),
+        "--to",
+        "{kind: plain, pin_diameter: 0.31496063 in, mu: 0.08}",
+        "--json",
+    ]);
+    let a = num(&bare["parts"][0]["alternative"]);
+    let b = num(&inches["parts"][0]["alternative"]);
+    assert!(close(a, b, 1e-7), "{a} vs {b}");
+}
+
+#[test]
+fn rank_sensitivities_measure_effort_saved_like_the_ranking_and_name_the_written_key() {
+    // Guards: the sensitivity list measures what the ranking measures (effort saved, in
+    // the asked unit), orders the same way, and names the key the file wrote
+    // (`efficiency`, not `factor`).
+    let rated = "parts.low.2.bearing={kind: rated, efficiency: 0.99}";
+    let path = rig("chain-plain.yaml");
+    let r = json(&["rank", &path, "--set", rated, "--json"]);
+    let order: Vec<&str> = r["parts"]
+        .as_array()
+        .unwrap()
+        .iter()
+        .map(|p| p["part"].as_str().unwrap())
+        .collect();
+    assert_eq!(order.last(), Some(&"low.2"), "{order:?}");
+    let sens = r["sensitivities"].as_array().unwrap();
+    let keys: Vec<&str> = sens.iter().map(|s| s["key"].as_str().unwrap()).collect();
+    assert!(keys.contains(&"parts.low.2.bearing.efficiency"), "{keys:?}");
+    assert!(!keys.iter().any(|k| k.ends_with(".factor")), "{keys:?}");
+    let at = |k: &str| keys.iter().position(|x| *x == k).unwrap();
+    let low = at("parts.low.2.bearing.efficiency");
+    assert!(at("parts.top.1.bearing.mu") < low && at("parts.top.3.bearing.mu") < low);
+    assert_eq!(keys.last(), Some(&"ropes.cord6.mu"), "no effect: last");
+    let f0 = num(&r["forward"]);
+    // Hand check for the plain bearing: 10 % less friction is mu 0.135.
+    let top = &sens[at("parts.top.1.bearing.mu")];
+    assert_eq!(num(&top["value"]), 0.15);
+    let f = check_forward("chain-plain.yaml", &[rated, "parts.top.1.bearing.mu=0.135"]);
+    assert!(
+        close(num(&top["saved_with_10pct_less_friction"]), f0 - f, 1e-9),
+        "{top}"
+    );
+    // ... and for the rated one: K = 1/0.99, loss K − 1 cut by 10 %, η = 1/(1 + 0.9(K − 1)).
+    let k = 1.0 / 0.99;
+    let eta = 1.0 / (1.0 + 0.9 * (k - 1.0));
+    let low2 = &sens[low];
+    assert_eq!(num(&low2["value"]), 0.99);
+    let set = format!("parts.low.2.bearing.efficiency={eta}");
+    let f = check_forward("chain-plain.yaml", &[rated, &set]);
+    assert!(
+        close(num(&low2["saved_with_10pct_less_friction"]), f0 - f, 1e-9),
+        "{low2}"
+    );
+    // The text lists the same measure, in the rig's unit, under the file's own key.
+    let text = ok(&["rank", &path, "--set", rated]);
+    assert!(text.contains("parts.low.2.bearing.efficiency"), "{text}");
+    assert!(text.contains("10 % less friction"), "{text}");
+}
+
+// ------------------------------------------------- studies fail like `check`
+
+/// Runs a study that must fail a check: exit 1, stdout as text.
+fn failing(args: &[&str]) -> String {
+    let out = run(args);
+    assert_eq!(
+        out.status.code(),
+        Some(1),
+        "reeve {args:?}: {}",
+        String::from_utf8_lossy(&out.stderr)
+    );
+    String::from_utf8(out.stdout).expect("utf-8 output")
+}
+
+/// The `--json` document of a study, whatever its exit code (not 2).
+fn json_whatever_the_exit(args: &[&str]) -> Value {
+    let out = run(&[args, &["--json"]].concat());
+    assert_ne!(
+        out.status.code(),
+        Some(2),
+        "{}",
+        String::from_utf8_lossy(&out.stderr)
+    );
+    serde_json::from_slice(&out.stdout).expect("json")
+}
+
+#[test]
+fn compare_exits_1_and_shows_the_margin_when_a_column_fails_a_check() {
+    // Guards: a compared rig that `check` fails (cannot move) fails the comparison, and
+    // its margin and failing check are in the table.
+    let args = [
+        "compare",
+        "tests/rigs/chain-plain.yaml",
+        "rigs/automaton-cord.yaml",
+    ];
+    let text = failing(&args);
+    let row = |label: &str| {
+        text.lines()
+            .find(|l| l.starts_with(label))
+            .unwrap_or_else(|| panic!("no `{label}` row: {text}"))
+            .to_string()
+    };
+    // chain-plain: 300 N available over 234.4 N forward; automaton: 1.2 N over 1.4706 N.
+    assert!(
+        row("margin").contains("28.0 %") && row("margin").contains("-18.4 %"),
+        "{text}"
+    );
+    assert!(
+        row("moves").contains("yes") && row("moves").contains("no"),
+        "{text}"
+    );
+    assert!(row("checks").contains("FAIL cannot-move"), "{text}");
+    let v = json_whatever_the_exit(&args);
+    assert_eq!(v["columns"][0]["fails"], false);
+    assert_eq!(v["columns"][1]["fails"], true);
+    assert_eq!(v["columns"][1]["failing"][0], "cannot-move");
+    assert!(close(
+        num(&v["columns"][1]["margin"]),
+        1.2 / 1.470_6 - 1.0,
+        1e-3
+    ));
+    // A comparison where every rig passes still exits 0.
+    ok(&[
+        "compare",
+        "tests/rigs/chain-plain.yaml",
+        "tests/rigs/tackle-rated.yaml",
+    ]);
+}
+
+#[test]
+fn sweep_exits_1_and_marks_the_step_that_cannot_move() {
+    // Guards: a sweep step that `check` fails (30 kg needs 351.5 N, 300 N available)
+    // fails the sweep, and the margin and checks columns show which step.
+    let path = rig("chain-plain.yaml");
+    let args = [
+        "sweep",
+        &path,
+        "--vary",
+        "parts.load.mass=10..30 kg",
+        "--steps",
+        "5",
+    ];
+    let text = failing(&args);
+    let last = text
+        .lines()
+        .find(|l| l.starts_with("30.00"))
+        .expect("30 kg row");
+    // Hand check of the margin: 300 / 351.54 − 1 = −14.7 %.
+    assert!(
+        last.contains("-14.7 %") && last.contains("FAIL cannot-move"),
+        "{text}"
+    );
+    let first = text.lines().find(|l| l.starts_with("10.00")).unwrap();
+    assert!(first.contains(" ok"), "{text}");
+    let v = json_whatever_the_exit(&args);
+    let steps = v["steps"].as_array().unwrap();
+    assert_eq!(steps[4]["fails"], true);
+    assert_eq!(steps[0]["fails"], false);
+    assert!(num(&steps[4]["margin"]) < 0.0 && num(&steps[0]["margin"]) > 0.0);
+    // Every step passing: exit 0.
+    ok(&[
+        "sweep",
+        &path,
+        "--vary",
+        "parts.load.mass=10..20 kg",
+        "--steps",
+        "3",
+    ]);
+}
+
+#[test]
+fn a_sweep_marks_the_steps_where_a_sheave_stalls() {
+    // Guards: past the point where the pulley stalls the values stop following its
+    // bearing (the rope slides at the capstan ratio); those steps are marked.
+    let args = [
+        "sweep",
+        "rigs/sash-window.yaml",
+        "--set",
+        "parts.pulley.mu=0.01",
+        "--vary",
+        "parts.pulley.bearing.mu=0.01..0.35",
+        "--steps",
+        "5",
+    ];
+    let text = ok(&args);
+    let marked: Vec<&str> = text.lines().filter(|l| l.contains("stalled")).collect();
+    assert!(marked.iter().any(|l| l.starts_with("0.3500")), "{text}");
+    assert!(!marked.iter().any(|l| l.starts_with("0.01000")), "{text}");
+    let v = json_whatever_the_exit(&args);
+    let steps = v["steps"].as_array().unwrap();
+    assert_eq!(steps[4]["stalled"][0], "pulley");
+    assert!(steps[0]["stalled"].as_array().unwrap().is_empty());
+}
+
+#[test]
+fn a_stroke_of_a_rig_that_cannot_move_exits_1() {
+    // Guards: the stroke fails like `check` where its steps fail a check.
+    let text = failing(&[
+        "sweep",
+        "rigs/automaton-cord.yaml",
+        "--stroke",
+        "5 mm",
+        "--steps",
+        "2",
+    ]);
+    assert!(
+        text.contains("FAIL cannot-move") && text.contains("-18.4 %"),
+        "{text}"
+    );
+}
+
+#[test]
+fn rank_exits_1_where_the_rig_or_a_row_fails_a_check() {
+    // Guards: rank fails like `check` on the rig as written, and where the alternative
+    // bearing makes a row fail (240 N available, a worse bearing needs more).
+    let text = failing(&["rank", "rigs/automaton-cord.yaml"]);
+    assert!(text.contains("cannot-move"), "{text}");
+    let path = rig("chain-plain.yaml");
+    let args = [
+        "rank",
+        &path,
+        "--set",
+        "parts.hand.force=240 N",
+        "--to",
+        "{kind: plain, pin_diameter: 10, mu: 0.3}",
+    ];
+    let text = failing(&args);
+    assert!(text.contains("FAIL cannot-move"), "{text}");
+    let v = json_whatever_the_exit(&args);
+    assert_eq!(v["verdict"]["fails"], false, "as written it moves");
+    assert_eq!(v["parts"][0]["alternative_verdict"]["fails"], true);
+    assert!(num(&v["parts"][0]["alternative_verdict"]["margin"]) < 0.0);
+}
+
+#[test]
+fn spread_exits_1_when_samples_fail_a_check_and_shows_the_margin() {
+    // Guards: a spread whose samples fail a check (the hand's 207 N is inside the
+    // spread of forward values) exits 1, and the margin's percentiles show it.
+    let path = rig("spread-hoist.yaml");
+    let args = [
+        "spread",
+        &path,
+        "--samples",
+        "100",
+        "--set",
+        "parts.hand.force=207 N",
+    ];
+    let text = failing(&args);
+    assert!(text.lines().any(|l| l.starts_with("margin")), "{text}");
+    assert!(text.contains("cannot-move"), "{text}");
+    let v = json_whatever_the_exit(&args);
+    let share = num(&v["share_failing"]);
+    assert!(share > 0.0 && share < 1.0, "{share}");
+    assert!(num(&v["margin"]["p5"]) < 0.0 && num(&v["margin"]["p95"]) > 0.0);
+    // Every sample moving: exit 0.
+    ok(&[
+        "spread",
+        &path,
+        "--samples",
+        "50",
+        "--set",
+        "parts.hand.force=400 N",
+    ]);
+}
+
+#[test]
+fn compare_groups_columns_by_the_asked_quantity_and_never_mixes_units_in_a_change() {
+    // Guards: no percentage between a mass and a force (or between a drive's effort and
+    // a load's greatest value): each asked quantity is its own group, and changes are
+    // against the first column of the same group only.
+    let args = [
+        "compare",
+        "rigs/sash-window.yaml",
+        "rigs/workshop-hoist.yaml",
+        "tests/rigs/review/block-unknown.yaml",
+        "tests/rigs/chain-plain.yaml",
+    ];
+    let text = ok(&args);
+    // Three groups: counterweight mass (drive), force at a haul (drive), mass at a
+    // block (load); chain-plain joins the workshop hoist's group.
+    assert!(text.contains("3 groups"), "{text}");
+    assert!(text.contains("mass at `counterweight`"), "{text}");
+    assert!(text.contains("mass at `hook`"), "{text}");
+    assert!(text.contains("force at `winch`, `hand`"), "{text}");
+    let forward: Vec<&str> = text.lines().filter(|l| l.starts_with("forward")).collect();
+    assert_eq!(forward.len(), 3, "{text}");
+    assert!(
+        !forward[0].contains('(') && !forward[2].contains('('),
+        "{text}"
+    );
+    // Hand check within the force group: 234.4 N against 2229 N is −89.5 %.
+    assert!(
+        forward[1].contains("2229 N") && forward[1].contains("(-89.5 %)"),
+        "{text}"
+    );
+    let v = json(&[&args[..], &["--json"]].concat());
+    let groups = v["groups"].as_array().unwrap();
+    assert_eq!(groups.len(), 3);
+    assert_eq!(groups[1]["columns"], serde_json::json!([1, 3]));
+    assert_eq!(groups[2]["solve_for"]["role"], "load");
+    assert_eq!(
+        num(&v["change_pct"][1]["forward"]),
+        0.0,
+        "its own group's reference"
+    );
+    let csv = ok(&[&args[..], &["--format", "csv"]].concat());
+    assert_eq!(
+        csv.lines().filter(|l| l.starts_with("figure,unit")).count(),
+        3,
+        "{csv}"
+    );
+    // One group: one table, as before.
+    let one = ok(&[
+        "compare",
+        "rigs/workshop-hoist.yaml",
+        "tests/rigs/chain-plain.yaml",
+    ]);
+    assert!(
+        !one.contains("groups") && one.contains("(-89.5 %)"),
+        "{one}"
+    );
+}
+
+#[test]
+fn spread_words_the_share_not_moving_for_a_counterweight() {
+    // Guards: spread says what a counterweight does not do in its failing samples.
+    let text = failing(&["spread", "rigs/sash-window.yaml", "--samples", "100"]);
+    let line = text
+        .lines()
+        .find(|l| l.contains("% of the samples"))
+        .unwrap_or_else(|| panic!("{text}"));
+    assert!(
+        line.contains("`counterweight` does not raise `sash` by itself"),
+        "{line}"
+    );
+}
+
+#[test]
+fn spread_over_a_rig_with_no_ranges_is_refused() {
+    // Guards: with nothing given as a range every sample is the same rig; say so
+    // (exit 2) instead of printing identical percentiles.
+    let out = run(&["spread", "rigs/workshop-hoist.yaml", "--samples", "10"]);
+    assert_eq!(out.status.code(), Some(2));
+    let err = String::from_utf8_lossy(&out.stderr);
+    assert!(
+        err.contains("nothing to spread") && err.contains("{min:"),
+        "{err}"
+    );
+}
+
+#[test]
+fn a_sweep_between_equal_ends_is_refused() {
+    // Guards: `--vary KEY=A..A` over several steps would print identical rows.
+    let path = rig("chain-plain.yaml");
+    let out = run(&["sweep", &path, "--vary", "parts.top.1.bearing.mu=0.2..0.2"]);
+    assert_eq!(out.status.code(), Some(2));
+    assert!(String::from_utf8_lossy(&out.stderr).contains("nothing to sweep"));
+    ok(&[
+        "sweep",
+        &path,
+        "--vary",
+        "parts.top.1.bearing.mu=0.2..0.2",
+        "--steps",
+        "1",
+    ]);
 }

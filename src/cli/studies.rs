@@ -8,7 +8,7 @@ use crate::study::table::Format;
 use crate::study::{compare, rank, spread, sweep, RigSource, StudyError};
 
 use super::output::{emit, Destination};
-use super::{parse_sets, write_out, Failure, RigArgs, EXIT_OK};
+use super::{parse_sets, write_out, Failure, RigArgs, EXIT_CHECK_FAILED, EXIT_OK};
 
 /// Output format options shared by the studies.
 #[derive(Debug, Clone, clap::Args)]
@@ -117,8 +117,10 @@ pub struct SpreadArgs {
 }
 
 /// The most `--samples` accepted: about a minute of solving for a small rig on two
-/// cores (measured: 100 000 samples of `rigs/sash-window.yaml` in 5.5 s); more than
-/// this is a typo, and an absurd count would otherwise abort on allocation.
+/// cores (measured: 100 000 samples of `rigs/sash-window.yaml` in 5.5 s; running the
+/// checks on every sample adds about a quarter, 2.2 s to 2.8 s for 5000 samples on one
+/// thread in a debug build); more than this is a typo, and an absurd count would
+/// otherwise abort on allocation.
 pub const MAX_SAMPLES: usize = 1_000_000;
 
 /// The most `--steps` accepted (measured: 10 000 stroke steps of a one-sheave rig in
@@ -133,6 +135,15 @@ fn checked_steps(steps: Option<usize>, default: usize) -> Result<usize, Failure>
             "--steps {n}: at most {MAX_STEPS} steps; a finer sweep shows nothing more"
         ))),
         n => Ok(n),
+    }
+}
+
+/// A study's exit code: 1 where any of its runs fails a check, as `check` would.
+fn exit_code(fails: bool) -> i32 {
+    if fails {
+        EXIT_CHECK_FAILED
+    } else {
+        EXIT_OK
     }
 }
 
@@ -170,7 +181,7 @@ pub fn run_compare(args: CompareArgs) -> Result<i32, Failure> {
         compare::compare_rigs(&sources).map_err(fail)?
     };
     write_out(|w| compare::write(w, &c, format))?;
-    Ok(EXIT_OK)
+    Ok(exit_code(c.fails()))
 }
 
 /// Writes a study's result to an output.
@@ -181,11 +192,13 @@ pub fn run_sweep(args: SweepArgs) -> Result<i32, Failure> {
     let format = args.format.format()?;
     let steps = checked_steps(args.steps, if args.stroke.is_some() { 10 } else { 11 })?;
     let s = source(&args.rig)?;
-    let (chart, write): (String, Writer) = if let Some(distance) = &args.stroke {
+    let (chart, write, fails): (String, Writer, bool) = if let Some(distance) = &args.stroke {
         let st = sweep::stroke(&s, distance, steps, 8).map_err(fail)?;
+        let fails = st.fails();
         (
             sweep::stroke_chart(&st),
             Box::new(move |w| sweep::write_stroke(w, &st, format)),
+            fails,
         )
     } else {
         let text = args.vary.as_deref().unwrap_or_default();
@@ -200,9 +213,11 @@ pub fn run_sweep(args: SweepArgs) -> Result<i32, Failure> {
                 why.unwrap_or_default()
             )));
         }
+        let fails = sw.fails();
         (
             sweep::sweep_chart(&sw),
             Box::new(move |w| sweep::write_sweep(w, &sw, format)),
+            fails,
         )
     };
     if let Some(path) = &args.plot {
@@ -212,7 +227,7 @@ pub fn run_sweep(args: SweepArgs) -> Result<i32, Failure> {
         })?;
     }
     write_out(|w| write(w))?;
-    Ok(EXIT_OK)
+    Ok(exit_code(fails))
 }
 
 /// `reeve rank`.
@@ -236,7 +251,7 @@ pub fn run_rank(args: RankArgs) -> Result<i32, Failure> {
     }
     let r = rank::rank(&s, alt.as_ref()).map_err(fail)?;
     write_out(|w| rank::write(w, &r, format))?;
-    Ok(EXIT_OK)
+    Ok(exit_code(r.fails()))
 }
 
 /// `reeve spread`.
@@ -254,5 +269,5 @@ pub fn run_spread(args: SpreadArgs) -> Result<i32, Failure> {
     let s = source(&args.rig)?;
     let r = spread::spread(&s, args.samples, args.seed, args.threads, true).map_err(fail)?;
     write_out(|w| spread::write(w, &r, format))?;
-    Ok(EXIT_OK)
+    Ok(exit_code(r.fails()))
 }

@@ -32,6 +32,31 @@ pub fn esc(s: &str) -> String {
     out
 }
 
+/// Escaped text with its `code` spans (between backticks) as `<code>` elements.
+pub fn code_spans(escaped: &str) -> String {
+    let mut out = String::with_capacity(escaped.len() + 16);
+    let mut parts = escaped.split('`');
+    if let Some(first) = parts.next() {
+        out.push_str(first);
+    }
+    let rest: Vec<&str> = parts.collect();
+    // An odd backtick left over is text, not the start of a span.
+    let pairs = rest.len() / 2 * 2;
+    for (i, part) in rest.iter().enumerate() {
+        if i >= pairs {
+            out.push('`');
+            out.push_str(part);
+        } else if i % 2 == 0 {
+            out.push_str("<code>");
+            out.push_str(part);
+            out.push_str("</code>");
+        } else {
+            out.push_str(part);
+        }
+    }
+    out
+}
+
 const STYLE: &str = r#"
 :root { --ink: #1d1d1f; --muted: #5b5b60; --rule: #d6d6da; --accent: #1f4e9c; --bad: #b00000; --warn: #9a5b00; }
 * { box-sizing: border-box; }
@@ -209,6 +234,12 @@ fn write_summary(w: &mut dyn Write, h: &Headline, units: &UnitSystem, id: &str) 
         percent(h.forward.efficiency),
         percent(h.back.efficiency)
     )?;
+    writeln!(
+        w,
+        "<tr><th scope=\"row\">friction</th><td class=\"num\"></td><td class=\"num\">{}</td><td class=\"num\">{}</td></tr>",
+        q(h.friction_forward),
+        q(h.friction_back)
+    )?;
     writeln!(w, "</tbody></table></div>")?;
     writeln!(w, "<ul>")?;
     if let (Some(vr), ma) = h.ratio_words(units) {
@@ -229,21 +260,12 @@ fn write_summary(w: &mut dyn Write, h: &Headline, units: &UnitSystem, id: &str) 
         q(hi)
     )?;
     writeln!(w, "<li>{}.</li>", h.self_locking_words())?;
-    if let (Some(a), Some((ok, head, why))) = (h.available, h.verdict(units)) {
-        let what = super::text::capitalise(h.given_word());
-        let class = if ok { "ok" } else { "bad" };
-        let why = if why.is_empty() {
-            why
-        } else {
-            format!(": {}", esc(&why))
-        };
-        let verdict = format!("<span class=\"{class}\">{head}</span>{why}");
+    if let Some((sentence, moves)) = super::text::outcome(h, units) {
         writeln!(
             w,
-            "<li>{what} {}: {}; {verdict} (margin {}).</li>",
-            esc(h.solve_for.quantity),
-            q(Some(a)),
-            percent(h.margin)
+            "<li><span class=\"{}\">{}</span></li>",
+            if moves { "ok" } else { "bad" },
+            code_spans(&esc(&sentence))
         )?;
     }
     writeln!(w, "</ul>")
@@ -403,22 +425,24 @@ pub fn write_html(
         writeln!(w, "<p>No warnings: every check passes.</p>")?;
     } else {
         writeln!(w, "<ul class=\"warnings\">")?;
-        for warning in &report.warnings {
+        for warning in &crate::checks::grouped(&report.warnings) {
             let (class, tag) = if warning.fails {
                 ("fail", "FAIL")
             } else {
                 ("warn", "warn")
             };
+            // Name the part only where the message does not already.
+            let at = warning
+                .part
+                .as_deref()
+                .filter(|p| !warning.message.contains(&format!("`{p}`")))
+                .map(|p| format!(" at <code>{}</code>", esc(p)))
+                .unwrap_or_default();
             writeln!(
                 w,
-                "<li><span class=\"tag {class}\">{tag}</span><code>{}</code>{} {}</li>",
+                "<li><span class=\"tag {class}\">{tag}</span><code>{}</code>{at}: {}</li>",
                 esc(warning.code),
-                warning
-                    .part
-                    .as_deref()
-                    .map(|p| format!(" at <code>{}</code>:", esc(p)))
-                    .unwrap_or_else(|| ":".to_string()),
-                esc(&warning.message)
+                code_spans(&esc(&warning.message))
             )?;
         }
         writeln!(w, "</ul>")?;

@@ -12,6 +12,7 @@ use serde::Serialize;
 use crate::checks::Warning;
 use crate::math::{Real, Vector};
 use crate::rig::model::{PartKind, Rig};
+use crate::solve::kinematics::Motion;
 use crate::solve::{given_quantity, Case, Outcome, Solution, SubRigSolution};
 use crate::units::UnitSystem;
 
@@ -164,6 +165,89 @@ pub struct DrumReport {
     pub margin_nm: Option<Real>,
 }
 
+/// What drives a sub-rig, for wording its outcome.
+#[derive(Debug, Clone, Copy, PartialEq, Eq)]
+pub enum DriveKind {
+    /// A haul end: a person, a hand or a powered pull; it can pull less than it has.
+    Pull,
+    /// A hanging weight (a counterweight): its value is what it is, and it moves the
+    /// rig by itself or not at all.
+    Counterweight,
+    /// A drum (a winch or crank); it can turn with less torque than it has.
+    Drum,
+    /// A block whose load drives it forward (a falling block), fixed like a weight.
+    FallingBlock,
+}
+
+impl DriveKind {
+    /// The drive kind of a part.
+    pub fn of(kind: &PartKind) -> DriveKind {
+        match kind {
+            PartKind::Weight(_) => DriveKind::Counterweight,
+            PartKind::Drum(_) => DriveKind::Drum,
+            PartKind::Block(_) => DriveKind::FallingBlock,
+            _ => DriveKind::Pull,
+        }
+    }
+
+    /// Whether its value is fixed (a weight's mass, a block's load): then it moves the
+    /// rig by itself above the forward value, friction holds it inside the holding band,
+    /// and the rig runs back by itself below the back value.
+    pub fn fixed(self) -> bool {
+        matches!(self, DriveKind::Counterweight | DriveKind::FallingBlock)
+    }
+}
+
+/// Which way a part goes when the rig moves forward.
+#[derive(Debug, Clone, Copy, PartialEq, Eq)]
+pub enum Travel {
+    /// More than 10° above the horizontal (against gravity).
+    Up,
+    /// More than 10° below the horizontal.
+    Down,
+    /// Within 10° of the horizontal.
+    Across,
+    /// It turns (a drum).
+    Turns,
+}
+
+impl Travel {
+    /// What the part does going forward and running back: `rises` / `drops back`.
+    pub fn words(travel: Option<Travel>) -> (&'static str, &'static str) {
+        match travel {
+            Some(Travel::Up) => ("rises", "drops back"),
+            Some(Travel::Down) => ("lowers", "rises back"),
+            Some(Travel::Turns) => ("turns forward", "turns back"),
+            Some(Travel::Across) | None => ("moves forward", "runs back"),
+        }
+    }
+}
+
+/// The way `part` travels in the forward motion, if it moves.
+fn travel(rig: &Rig, solution: &Solution, part: usize) -> Option<Travel> {
+    let k = &solution.kinematics;
+    let i = (*k.dof_of_part.get(part)?)?;
+    match k.dofs[i].motion {
+        Motion::Rotate(_) => Some(Travel::Turns),
+        Motion::Translate(d) => {
+            let v = d.into_inner() * k.forward[i];
+            let n = v.norm();
+            if !(n > 0.0 && n.is_finite()) {
+                return None;
+            }
+            // sin 10° ≈ 0.17: steeper than that reads as going up or down.
+            let up = v.dot(&-rig.gravity.into_inner()) / n;
+            Some(if up > 0.17 {
+                Travel::Up
+            } else if up < -0.17 {
+                Travel::Down
+            } else {
+                Travel::Across
+            })
+        }
+    }
+}
+
 /// The headline of one sub-rig.
 #[derive(Debug, Clone, Serialize, PartialEq)]
 pub struct Headline {
@@ -182,6 +266,14 @@ pub struct Headline {
     pub breakaway: Option<CaseHeadline>,
     /// Whether the rig will not run back by itself.
     pub self_locking: bool,
+    /// The friction at the drive going forward, in the asked quantity's SI unit: forward
+    /// − ideal for a drive unknown (the effort friction costs), ideal − forward for a
+    /// load unknown (the load friction keeps the drive from moving). Where loads balance
+    /// (a line set) efficiency says little and this says what friction costs.
+    pub friction_forward: Option<Real>,
+    /// The friction at the drive running back, same unit: ideal − back for a drive
+    /// unknown, back − ideal for a load unknown.
+    pub friction_back: Option<Real>,
     /// Drive speed over load speed.
     pub velocity_ratio: Option<Real>,
     /// Unit of the velocity ratio: `1`, or `rad/m` / `m/rad` where a drum drives a
@@ -208,6 +300,13 @@ pub struct Headline {
     pub outcome: Option<Outcome>,
     /// Energy audit misfit per case (fraction of drive power).
     pub energy_audit: PerCase,
+    /// What drives the rig, for the outcome's wording. Not in the JSON.
+    #[serde(skip_serializing)]
+    pub drive_kind: DriveKind,
+    /// The part the outcome speaks of (the moved load for a drive unknown, the asked
+    /// load otherwise) and which way it goes forward. Not in the JSON.
+    #[serde(skip_serializing)]
+    pub subject: Option<(String, Option<Travel>)>,
 }
 
 impl Headline {
@@ -399,7 +498,7 @@ fn quantity_note(rig: &Rig, sub: &SubRigSolution) -> Option<String> {
     })
 }
 
-fn headline(rig: &Rig, sub: &SubRigSolution) -> Headline {
+fn headline(rig: &Rig, solution: &Solution, sub: &SubRigSolution) -> Headline {
     let available = given_quantity(rig, sub.solve_for);
     let (f, b) = (sub.forward.value, sub.back.value);
     let margin = available.and_then(|a| sub.margin(a));
@@ -434,6 +533,16 @@ fn headline(rig: &Rig, sub: &SubRigSolution) -> Headline {
             }),
         }),
         self_locking: sub.self_locking(),
+        friction_forward: finite(if sub.drive_unknown() {
+            f - sub.ideal.value
+        } else {
+            sub.ideal.value - f
+        }),
+        friction_back: finite(if sub.drive_unknown() {
+            sub.ideal.value - b
+        } else {
+            b - sub.ideal.value
+        }),
         velocity_ratio: sub.velocity_ratio,
         velocity_ratio_unit: {
             let turns = |p: usize| matches!(rig.parts[p].kind, PartKind::Drum(_));
@@ -455,6 +564,13 @@ fn headline(rig: &Rig, sub: &SubRigSolution) -> Headline {
             forward: finite(sub.forward.audit_residual),
             back: finite(sub.back.audit_residual),
         },
+        drive_kind: DriveKind::of(&rig.parts[sub.drive].kind),
+        subject: (if sub.drive_unknown() {
+            sub.load_part
+        } else {
+            Some(sub.solve_for)
+        })
+        .map(|p| (rig.parts[p].name.clone(), travel(rig, solution, p))),
     }
 }
 
@@ -631,7 +747,7 @@ impl Report {
         Report {
             format: 1,
             title: rig.title.clone(),
-            headline: headline(rig, main),
+            headline: headline(rig, solution, main),
             spans,
             parts,
             drums,
@@ -640,7 +756,7 @@ impl Report {
                 .subrigs
                 .iter()
                 .skip(1)
-                .map(|s| headline(rig, s))
+                .map(|s| headline(rig, solution, s))
                 .collect(),
             caution: CAUTION,
         }

@@ -6,9 +6,10 @@ use std::io::{self, Write};
 
 use crate::math::Real;
 use crate::rig::model::Rig;
+use crate::solve::Outcome;
 use crate::units::{Dimension, UnitSystem};
 
-use super::{Headline, Report, CAUTION};
+use super::{DriveKind, Headline, Report, Travel, CAUTION};
 
 /// Formats a number with about `sig` significant figures, without exponent for the
 /// everyday range, and `—` for a missing value.
@@ -68,6 +69,14 @@ fn write_headline(w: &mut dyn Write, h: &Headline, units: &UnitSystem) -> io::Re
         percent(h.forward.efficiency),
         percent(h.back.efficiency)
     )?;
+    writeln!(
+        w,
+        "  {:<12} {:>14} {:>14} {:>14}",
+        "friction",
+        "",
+        q(h.friction_forward),
+        q(h.friction_back)
+    )?;
     if let Some(b) = &h.breakaway {
         writeln!(
             w,
@@ -96,7 +105,55 @@ fn write_headline(w: &mut dyn Write, h: &Headline, units: &UnitSystem) -> io::Re
         q(hi)
     )?;
     writeln!(w, "{}.", h.self_locking_words())?;
-    if let (Some(a), Some((ok, head, why))) = (h.available, h.verdict(units)) {
+    if let Some((sentence, _)) = outcome(h, units) {
+        writeln!(w, "{sentence}")?;
+    }
+    Ok(())
+}
+
+/// The drive's kind as a noun (`the counterweight`).
+fn drive_noun(kind: DriveKind) -> &'static str {
+    match kind {
+        DriveKind::Pull => "the pull",
+        DriveKind::Drum => "the drum",
+        DriveKind::Counterweight => "the counterweight",
+        DriveKind::FallingBlock => "the falling block",
+    }
+}
+
+/// The drive as the outcome names it (`the pull at `hand``, `the counterweight `cw``;
+/// a part already named for its kind, `counterweight`, by its name alone).
+fn drive_name(h: &Headline) -> String {
+    let d = &h.drive;
+    let noun = drive_noun(h.drive_kind);
+    match h.drive_kind {
+        DriveKind::Pull => format!("{noun} at `{d}`"),
+        _ if noun.ends_with(d.to_lowercase().as_str()) => format!("`{d}`"),
+        _ => format!("{noun} `{d}`"),
+    }
+}
+
+/// What happens, worded for what the drive is (a pull or a drum, which can give less
+/// than they have; a counterweight or a falling block, which move the rig by themselves
+/// or not at all), where the asked quantity is given: the sentence, and whether the
+/// drive moves the rig. Failing outcomes carry a word in capitals for the terminal.
+pub fn outcome(h: &Headline, units: &UnitSystem) -> Option<(String, bool)> {
+    let given = h.available?;
+    let moves = h.moves?;
+    let d = dimension_of(h.solve_for.quantity);
+    let q = |x: Real| quantity(Some(x), d, units);
+    let margin = percent(h.margin);
+    let drive_unknown = h.solve_for.part == h.drive;
+    let [low, high] = h.holding_band;
+    let (Some(forward), Some(low), Some(high)) = (h.forward.value, low, high) else {
+        return None;
+    };
+    // Where the loads do the work forward (the drive holds them back or lets them run
+    // away), or the given drive acts backward, the verdict of the outcome says what
+    // happens in its own words.
+    let reversed = drive_unknown && (h.ideal.value.is_some_and(|v| v < 0.0) || given < 0.0);
+    if reversed || matches!(h.outcome, Some(Outcome::HoldsBack | Outcome::RunsAway)) {
+        let (ok, head, why) = h.verdict(units)?;
         let head = if ok {
             head.to_string()
         } else {
@@ -107,20 +164,113 @@ fn write_headline(w: &mut dyn Write, h: &Headline, units: &UnitSystem) -> io::Re
         } else {
             format!(": {why}")
         };
-        writeln!(
-            w,
-            "{} {}: {}; {head}{why} (margin {})",
-            capitalise(h.given_word()),
-            h.solve_for.quantity,
-            q(Some(a)),
-            percent(h.margin)
-        )?;
+        return Some((
+            format!(
+                "{} {}: {}; {head}{why} (margin {margin})",
+                capitalise(h.given_word()),
+                h.solve_for.quantity,
+                q(given)
+            ),
+            ok,
+        ));
     }
-    Ok(())
+    let drive = drive_name(h);
+    let subject = h.subject.as_ref();
+    let load = subject.map_or("the rig".to_string(), |(n, _)| format!("`{n}`"));
+    let (ahead, back) = Travel::words(subject.and_then(|(_, t)| *t));
+    let fixed = h.drive_kind.fixed();
+    let does = match h.drive_kind {
+        DriveKind::Drum => "it turns and ",
+        DriveKind::Counterweight | DriveKind::FallingBlock => "it sinks and ",
+        DriveKind::Pull => "",
+    };
+    // Where the given value stands against the band, in the words of the quantity.
+    let head = if drive_unknown {
+        if fixed {
+            format!("{}: {}", capitalise(&drive), q(given))
+        } else {
+            format!("{}: {} available", capitalise(&drive), q(given))
+        }
+    } else {
+        format!(
+            "The stated {} of {load}, {},",
+            h.solve_for.quantity,
+            q(given)
+        )
+    };
+    let sentence = match (drive_unknown, fixed, moves) {
+        (true, false, true) => format!(
+            "{head}, above the {} needed forward: {does}{load} {ahead}",
+            q(forward)
+        ),
+        (true, false, false) => format!(
+            "{head}, below the {} needed forward: IT CANNOT MOVE {load}",
+            q(forward)
+        ),
+        (true, true, true) => format!(
+            "{head}, above the forward value {}: {does}{load} {ahead} by itself",
+            q(forward)
+        ),
+        (false, false, true) => format!(
+            "{head} is within the {} that {drive} moves: {does}{load} {ahead}",
+            q(forward)
+        ),
+        (false, false, false) => format!(
+            "{head} is above the {} that {drive} moves: IT CANNOT MOVE {load}",
+            q(forward)
+        ),
+        (false, true, true) => format!(
+            "{head} is within the {} that {drive} moves: {does}{load} {ahead} by itself",
+            q(forward)
+        ),
+        // A fixed drive that does not move the rig: held by friction inside the band,
+        // or run back below it (drive unknown: below the back value; a load unknown:
+        // a load above its back value).
+        (true, true, false) | (false, true, false) => {
+            let runs_back = if drive_unknown {
+                given < low
+            } else {
+                given > high
+            };
+            let is = if drive_unknown { "," } else { " is" };
+            let noun = drive_noun(h.drive_kind);
+            if runs_back {
+                format!(
+                    "{head}{is} beyond the back value {}: {load} {back} by itself and lifts {noun}",
+                    q(if drive_unknown { low } else { high })
+                )
+            } else {
+                format!(
+                    "{head}{is} inside the holding band ({} to {}): friction holds {load} still; {noun} does not move it by itself",
+                    q(low),
+                    q(high)
+                )
+            }
+        }
+    };
+    Some((format!("{sentence} (margin {margin})."), moves))
+}
+
+/// What a drive that does not move the rig fails to do, for counting samples: `the
+/// pull at `hand` cannot move `hook``, ``cw` does not raise `sash` by itself`.
+pub fn not_moving_words(h: &Headline) -> String {
+    let subject = h.subject.as_ref();
+    let load = subject.map_or("the rig".to_string(), |(n, _)| format!("`{n}`"));
+    let verb = match subject.and_then(|(_, t)| *t) {
+        Some(Travel::Up) => "raise",
+        Some(Travel::Down) => "lower",
+        Some(Travel::Turns) => "turn",
+        _ => "move",
+    };
+    if h.drive_kind.fixed() {
+        format!("`{}` does not {verb} {load} by itself", h.drive)
+    } else {
+        format!("{} cannot {verb} {load}", drive_name(h))
+    }
 }
 
 /// The first letter in upper case.
-pub(crate) fn capitalise(s: &str) -> String {
+pub fn capitalise(s: &str) -> String {
     let mut c = s.chars();
     match c.next() {
         Some(f) => f.to_uppercase().collect::<String>() + c.as_str(),
@@ -249,7 +399,7 @@ pub fn write_check(w: &mut dyn Write, rig: &Rig, report: &Report, source: &str) 
         writeln!(w, "Checks: no warnings.")?;
     } else {
         writeln!(w, "Warnings:")?;
-        for warning in &report.warnings {
+        for warning in &crate::checks::grouped(&report.warnings) {
             let mark = if warning.fails { "FAIL" } else { "warn" };
             writeln!(w, "  {mark} [{}] {}", warning.code, warning.message)?;
         }

@@ -1,6 +1,11 @@
 //! `compare`: rigs or named variants side by side, one column each, with every
 //! column's change against the first in percent. Rigs of different make-up (sheave
 //! counts, drives) compare as they are: each column is its own rig's answer.
+//!
+//! Only like compares with like: columns are grouped by the asked quantity (its unit,
+//! and whether it is a drive's effort or a load's greatest value), each group is its
+//! own table, and a change is against the first column of the same group; between
+//! groups (a mass and a force) there is no percentage.
 
 use std::io::{self, Write};
 
@@ -12,16 +17,21 @@ use crate::report::CAUTION;
 use crate::rig::Rig;
 use crate::units::{Dimension, UnitSystem};
 
-use super::table::{csv_number, write_human, Format, Table};
-use super::{figures, Figures, RigSource, StudyError};
+use super::table::{csv_number, write_human, write_human_sections, Format, Table};
+use super::{figures, margin_cell, AskedQuantity, Figures, RigSource, StudyError};
+use crate::report::text::capitalise;
 
-/// The comparison: one [`Figures`] per column, first column the reference.
+/// The comparison: one [`Figures`] per column, grouped by the asked quantity; the first
+/// column of each group is that group's reference.
 #[derive(Debug, Clone, Serialize, PartialEq)]
 pub struct Comparison {
-    /// The columns.
+    /// The columns, in the order given.
     pub columns: Vec<Figures>,
-    /// Per column, the change of each figure against the first column, percent.
+    /// Per column, the change of each figure against the first column of its group,
+    /// percent.
     pub change_pct: Vec<Changes>,
+    /// The groups of like columns, in order of first appearance.
+    pub groups: Vec<Group>,
     /// The caution.
     pub caution: &'static str,
     /// Units of the first rig, for text output.
@@ -29,7 +39,16 @@ pub struct Comparison {
     pub units: UnitSystem,
 }
 
-/// Changes against the first column, percent (None where either value is missing or
+/// Columns that ask for the same quantity (and unit, of a drive or of a load alike).
+#[derive(Debug, Clone, Serialize, PartialEq)]
+pub struct Group {
+    /// The asked quantity (the part of the group's first column).
+    pub solve_for: AskedQuantity,
+    /// Indices into `columns`, the first the group's reference.
+    pub columns: Vec<usize>,
+}
+
+/// Changes against the first column of the group, percent (None where either value is missing or
 /// the reference is zero).
 #[derive(Debug, Clone, Serialize, PartialEq)]
 pub struct Changes {
@@ -41,6 +60,10 @@ pub struct Changes {
     pub back: Option<Real>,
     /// Forward efficiency.
     pub efficiency: Option<Real>,
+    /// Friction at the drive, forward.
+    pub friction_forward: Option<Real>,
+    /// Friction at the drive, back.
+    pub friction_back: Option<Real>,
     /// Largest span tension.
     pub largest_tension_n: Option<Real>,
     /// Lowest safety factor.
@@ -62,17 +85,35 @@ pub fn change_pct(x: Option<Real>, reference: Option<Real>) -> Option<Real> {
 
 /// Builds the comparison from labelled, solved rigs.
 pub fn compare(columns: Vec<Figures>, units: UnitSystem) -> Comparison {
-    let first = columns.first().cloned();
+    let mut groups: Vec<Group> = Vec::new();
+    for (i, f) in columns.iter().enumerate() {
+        match groups.iter_mut().find(|g| g.solve_for.like(&f.solve_for)) {
+            Some(g) => g.columns.push(i),
+            None => groups.push(Group {
+                solve_for: f.solve_for.clone(),
+                columns: vec![i],
+            }),
+        }
+    }
+    let reference = |i: usize| {
+        groups
+            .iter()
+            .find(|g| g.columns.contains(&i))
+            .map(|g| &columns[g.columns[0]])
+    };
     let change_pct = columns
         .iter()
-        .map(|c| {
-            let r = first.as_ref();
+        .enumerate()
+        .map(|(i, c)| {
+            let r = reference(i);
             let ch = |f: &dyn Fn(&Figures) -> Option<Real>| change_pct(f(c), r.and_then(f));
             Changes {
                 ideal: ch(&|f| f.ideal),
                 forward: ch(&|f| f.forward),
                 back: ch(&|f| f.back),
                 efficiency: ch(&|f| f.efficiency),
+                friction_forward: ch(&|f| f.friction_forward),
+                friction_back: ch(&|f| f.friction_back),
                 largest_tension_n: ch(&|f| f.largest_tension_n),
                 lowest_safety_factor: ch(&|f| f.lowest_safety_factor),
                 largest_fleet_deg: ch(&|f| f.largest_fleet_deg),
@@ -83,6 +124,7 @@ pub fn compare(columns: Vec<Figures>, units: UnitSystem) -> Comparison {
     Comparison {
         columns,
         change_pct,
+        groups,
         caution: CAUTION,
         units,
     }
@@ -149,6 +191,8 @@ struct Row {
     values: Vec<Option<Real>>,
     changes: Vec<Option<Real>>,
     show: Box<dyn Fn(usize, Option<Real>) -> String>,
+    /// Cells for CSV where the row is words, not numbers.
+    csv_text: Option<Vec<String>>,
 }
 
 fn rows(c: &Comparison, _rig_units: &UnitSystem) -> Vec<Row> {
@@ -173,13 +217,14 @@ fn rows(c: &Comparison, _rig_units: &UnitSystem) -> Vec<Row> {
         c.change_pct.iter().map(f).collect::<Vec<_>>()
     };
     let unit = c.columns.first().map_or("N", |f| f.solve_for.unit);
-    vec![
+    let mut out = vec![
         Row {
             label: "ideal",
             unit,
             values: col(&|f| f.ideal),
             changes: chg(&|x| x.ideal),
             show: Box::new(asked.clone()),
+            csv_text: None,
         },
         Row {
             label: "forward",
@@ -187,6 +232,7 @@ fn rows(c: &Comparison, _rig_units: &UnitSystem) -> Vec<Row> {
             values: col(&|f| f.forward),
             changes: chg(&|x| x.forward),
             show: Box::new(asked.clone()),
+            csv_text: None,
         },
         Row {
             label: "back",
@@ -194,6 +240,7 @@ fn rows(c: &Comparison, _rig_units: &UnitSystem) -> Vec<Row> {
             values: col(&|f| f.back),
             changes: chg(&|x| x.back),
             show: Box::new(asked.clone()),
+            csv_text: None,
         },
         Row {
             label: "efficiency",
@@ -201,6 +248,23 @@ fn rows(c: &Comparison, _rig_units: &UnitSystem) -> Vec<Row> {
             values: col(&|f| f.efficiency),
             changes: chg(&|x| x.efficiency),
             show: Box::new(pct),
+            csv_text: None,
+        },
+        Row {
+            label: "friction forward",
+            unit,
+            values: col(&|f| f.friction_forward),
+            changes: chg(&|x| x.friction_forward),
+            show: Box::new(asked.clone()),
+            csv_text: None,
+        },
+        Row {
+            label: "friction back",
+            unit,
+            values: col(&|f| f.friction_back),
+            changes: chg(&|x| x.friction_back),
+            show: Box::new(asked.clone()),
+            csv_text: None,
         },
         Row {
             label: "holding band low",
@@ -208,6 +272,7 @@ fn rows(c: &Comparison, _rig_units: &UnitSystem) -> Vec<Row> {
             values: col(&|f| f.holding_band[0]),
             changes: vec![None; c.columns.len()],
             show: Box::new(asked.clone()),
+            csv_text: None,
         },
         Row {
             label: "holding band high",
@@ -215,19 +280,15 @@ fn rows(c: &Comparison, _rig_units: &UnitSystem) -> Vec<Row> {
             values: col(&|f| f.holding_band[1]),
             changes: vec![None; c.columns.len()],
             show: Box::new(asked),
+            csv_text: None,
         },
         Row {
             label: "self-locking",
             unit: "",
             values: col(&|f| Some(if f.self_locking { 1.0 } else { 0.0 })),
             changes: vec![None; c.columns.len()],
-            show: Box::new(|_, x: Option<Real>| {
-                if x == Some(1.0) {
-                    "yes".into()
-                } else {
-                    "no".into()
-                }
-            }),
+            show: Box::new(yes_no),
+            csv_text: None,
         },
         Row {
             label: "largest tension",
@@ -235,6 +296,7 @@ fn rows(c: &Comparison, _rig_units: &UnitSystem) -> Vec<Row> {
             values: col(&|f| f.largest_tension_n),
             changes: chg(&|x| x.largest_tension_n),
             show: Box::new(force),
+            csv_text: None,
         },
         Row {
             label: "lowest safety factor",
@@ -242,6 +304,7 @@ fn rows(c: &Comparison, _rig_units: &UnitSystem) -> Vec<Row> {
             values: col(&|f| f.lowest_safety_factor),
             changes: chg(&|x| x.lowest_safety_factor),
             show: Box::new(plain),
+            csv_text: None,
         },
         Row {
             label: "largest fleet angle",
@@ -249,6 +312,7 @@ fn rows(c: &Comparison, _rig_units: &UnitSystem) -> Vec<Row> {
             values: col(&|f| f.largest_fleet_deg),
             changes: chg(&|x| x.largest_fleet_deg),
             show: Box::new(deg),
+            csv_text: None,
         },
         Row {
             label: "smallest D/d",
@@ -256,6 +320,7 @@ fn rows(c: &Comparison, _rig_units: &UnitSystem) -> Vec<Row> {
             values: col(&|f| f.smallest_bend_ratio),
             changes: chg(&|x| x.smallest_bend_ratio),
             show: Box::new(plain),
+            csv_text: None,
         },
         Row {
             label: "warnings",
@@ -264,8 +329,58 @@ fn rows(c: &Comparison, _rig_units: &UnitSystem) -> Vec<Row> {
             changes: vec![None; c.columns.len()],
             // A count: no decimals.
             show: Box::new(|_, x: Option<Real>| x.map_or("—".into(), |v| format!("{v:.0}"))),
+            csv_text: None,
         },
-    ]
+    ];
+    // The margin and whether the drive moves, where any column gives what is available
+    // (or a stated load); then every column's checks, as `check` would judge it.
+    if c.columns.iter().any(|f| f.verdict.margin.is_some()) {
+        let at = out
+            .iter()
+            .position(|r| r.label == "self-locking")
+            .map_or(out.len(), |i| i + 1);
+        out.splice(
+            at..at,
+            [
+                Row {
+                    label: "margin",
+                    unit: "1",
+                    values: col(&|f| f.verdict.margin),
+                    changes: vec![None; c.columns.len()],
+                    show: Box::new(|_, x| margin_cell(x)),
+                    csv_text: None,
+                },
+                Row {
+                    label: "moves",
+                    unit: "",
+                    values: col(&|f| f.verdict.moves.map(|m| if m { 1.0 } else { 0.0 })),
+                    changes: vec![None; c.columns.len()],
+                    show: Box::new(yes_no),
+                    csv_text: None,
+                },
+            ],
+        );
+    }
+    let checks: Vec<String> = c.columns.iter().map(|f| f.verdict.cell()).collect();
+    let shown = checks.clone();
+    out.push(Row {
+        label: "checks",
+        unit: "",
+        values: col(&|f| Some(if f.verdict.fails { 1.0 } else { 0.0 })),
+        changes: vec![None; c.columns.len()],
+        show: Box::new(move |i, _| shown[i].clone()),
+        csv_text: Some(checks),
+    });
+    out
+}
+
+/// `yes` for 1, `no` for 0, `—` for nothing.
+fn yes_no(_: usize, x: Option<Real>) -> String {
+    match x {
+        Some(1.0) => "yes".into(),
+        Some(_) => "no".into(),
+        None => "—".into(),
+    }
 }
 
 /// The human table: a cell per column, with the change against the first in
@@ -306,7 +421,10 @@ pub fn csv_table(c: &Comparison) -> Table {
         .into_iter()
         .map(|r| {
             let mut cells = vec![r.label.to_string(), r.unit.to_string()];
-            cells.extend(r.values.iter().map(|v| csv_number(*v)));
+            match &r.csv_text {
+                Some(text) => cells.extend(text.iter().cloned()),
+                None => cells.extend(r.values.iter().map(|v| csv_number(*v))),
+            }
             cells.extend(r.changes.iter().skip(1).map(|v| csv_number(*v)));
             cells
         })
@@ -324,21 +442,92 @@ pub fn write(w: &mut dyn Write, c: &Comparison, format: Format) -> io::Result<()
             let json = serde_json::to_string_pretty(c).map_err(io::Error::other)?;
             writeln!(w, "{json}")
         }
-        Format::Csv => csv_table(c).write_csv(w),
+        // One CSV table per group, a blank line between.
+        Format::Csv => {
+            for (i, g) in c.groups.iter().enumerate() {
+                if i > 0 {
+                    writeln!(w)?;
+                }
+                csv_table(&c.group(g)).write_csv(w)?;
+            }
+            Ok(())
+        }
+        _ if c.groups.len() <= 1 => write_human(
+            w,
+            format,
+            &format!(
+                "Comparison of {} columns ({}); change against the first column in parentheses",
+                c.columns.len(),
+                c.groups
+                    .first()
+                    .map(|g| asked_words(c, g))
+                    .unwrap_or_default()
+            ),
+            &human_table(c),
+            &[],
+        ),
         _ => {
-            let asked = c
-                .columns
-                .first()
-                .map(|f| format!("the {} at `{}`", f.solve_for.quantity, f.solve_for.part))
-                .unwrap_or_default();
-            write_human(
+            let sections: Vec<(String, Table)> = c
+                .groups
+                .iter()
+                .map(|g| (capitalise(&asked_words(c, g)), human_table(&c.group(g))))
+                .collect();
+            write_human_sections(
                 w,
                 format,
-                &format!("Comparison of {} columns ({asked}); change against the first column in parentheses", c.columns.len()),
-                &human_table(c),
+                &format!(
+                    "Comparison of {} columns in {} groups by the asked quantity; change against the first column of the same group in parentheses, none between groups",
+                    c.columns.len(),
+                    c.groups.len()
+                ),
+                &sections,
                 &[],
             )
         }
+    }
+}
+
+/// `the force at `winch`, `hand``: a group's quantity and every part its columns ask
+/// about.
+fn asked_words(c: &Comparison, g: &Group) -> String {
+    let mut parts: Vec<String> = Vec::new();
+    for &i in &g.columns {
+        let p = format!("`{}`", c.columns[i].solve_for.part);
+        if !parts.contains(&p) {
+            parts.push(p);
+        }
+    }
+    let role = if g.solve_for.role == "load" {
+        " (a load: forward is the most the drive moves)"
+    } else {
+        ""
+    };
+    format!("the {} at {}{role}", g.solve_for.quantity, parts.join(", "))
+}
+
+impl Comparison {
+    /// The comparison of one group's columns alone (its changes are already against
+    /// the group's first column).
+    pub fn group(&self, g: &Group) -> Comparison {
+        Comparison {
+            columns: g.columns.iter().map(|&i| self.columns[i].clone()).collect(),
+            change_pct: g
+                .columns
+                .iter()
+                .map(|&i| self.change_pct[i].clone())
+                .collect(),
+            groups: vec![Group {
+                solve_for: g.solve_for.clone(),
+                columns: (0..g.columns.len()).collect(),
+            }],
+            caution: self.caution,
+            units: self.units,
+        }
+    }
+
+    /// Whether any column fails a check (the comparison exits 1, as `check` would).
+    pub fn fails(&self) -> bool {
+        self.columns.iter().any(|f| f.verdict.fails)
     }
 }
 

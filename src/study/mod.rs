@@ -8,6 +8,10 @@
 //! tree (so a changed value gets the loader's checks) or, for the stroke, by moving the
 //! resolved parts; none has physics of its own. Results are plain structs that
 //! serialize to JSON with units in the keys; [`table`] and [`plot`] write them out.
+//!
+//! Every solved run is also judged as `check` judges it ([`Verdict`], through
+//! `checks::run` and `Report::fails`), so a study shows each run's margin and failing
+//! checks and fails (exit 1) where `check` would fail any of its rigs.
 
 pub mod compare;
 pub mod plot;
@@ -23,10 +27,10 @@ use serde::Serialize;
 
 use crate::checks;
 use crate::math::Real;
-use crate::report::{finite, Report};
-use crate::rig::file::{strip_bom, MAX_INPUT_BYTES};
+use crate::report::Report;
+use crate::rig::file::{parse_tree, strip_bom, MAX_INPUT_BYTES};
 use crate::rig::load::{load_str_with, ranges_str, variants_str};
-use crate::rig::overrides::{Uncertain, Variant};
+use crate::rig::overrides::{apply_overrides, Uncertain, Variant};
 use crate::rig::{LoadError, Rig};
 use crate::solve::{self, Solution, SolveError, SolveOptions, SubRigSolution};
 
@@ -129,6 +133,30 @@ impl RigSource {
         })
     }
 
+    /// Whether the mapping at `path` (exact key names, e.g. `["parts", "hook.a",
+    /// "bearing"]`) holds `key` in the file as written with the base overrides: which
+    /// of two spellings of one value (`factor` or `efficiency`) the file uses.
+    pub fn has_key(&self, path: &[&str], key: &str) -> bool {
+        let Ok((Some(mut root), _)) = parse_tree(&self.text) else {
+            return false;
+        };
+        if !apply_overrides(&mut root, &self.overrides).is_empty() {
+            return false;
+        }
+        let mut node = &root;
+        for step in path {
+            let Some(next) = node
+                .entries()
+                .and_then(|e| e.iter().find(|e| e.key == *step))
+            else {
+                return false;
+            };
+            node = &next.value;
+        }
+        node.entries()
+            .is_some_and(|e| e.iter().any(|e| e.key == key))
+    }
+
     /// The file's named variants.
     ///
     /// # Errors
@@ -155,6 +183,9 @@ pub struct AskedQuantity {
     pub quantity: &'static str,
     /// SI unit of the values.
     pub unit: &'static str,
+    /// `drive` where the asked part is the drive (forward: the least value that starts
+    /// the rig), `load` where it is a load (forward: the greatest load the drive moves).
+    pub role: &'static str,
 }
 
 impl AskedQuantity {
@@ -164,8 +195,94 @@ impl AskedQuantity {
             part: rig.parts[sub.solve_for].name.clone(),
             quantity: sub.quantity.name(),
             unit: sub.quantity.si_unit(),
+            role: if sub.drive_unknown() { "drive" } else { "load" },
         }
     }
+
+    /// Whether two asked quantities are like with like: the same quantity in the same
+    /// unit, asked of a drive or of a load alike (the part may differ).
+    pub fn like(&self, other: &AskedQuantity) -> bool {
+        (self.quantity, self.unit, self.role) == (other.quantity, other.unit, other.role)
+    }
+}
+
+/// What `check` concludes about one solved rig, read through [`checks::run`] and
+/// [`Report`]: the margin, whether the drive moves the rig, the checks that fail (a
+/// study exits 1 when any run fails one, as `check` does), and the sheaves that stall.
+#[derive(Debug, Clone, Default, Serialize, PartialEq)]
+pub struct Verdict {
+    /// Relative margin of the asked quantity over its given value (the report's
+    /// `margin`), where one is given.
+    pub margin: Option<Real>,
+    /// Whether the drive moves the rig (None when nothing is given to compare).
+    pub moves: Option<bool>,
+    /// Whether a check fails (`check` would exit 1).
+    pub fails: bool,
+    /// Codes of the failing checks, each once, in the order `check` lists them.
+    pub failing: Vec<&'static str>,
+    /// Sheaves that stall (do not turn; the rope slides over them) forward or back:
+    /// past a stall the values stop following that sheave's bearing.
+    pub stalled: Vec<String>,
+}
+
+impl Verdict {
+    /// The verdict of a built report.
+    pub fn of(report: &Report) -> Verdict {
+        let mut failing = Vec::new();
+        let mut stalled = Vec::new();
+        for w in &report.warnings {
+            if w.fails && !failing.contains(&w.code) {
+                failing.push(w.code);
+            }
+            if w.code == STALLED {
+                if let Some(p) = w.part.as_ref().filter(|p| !stalled.contains(*p)) {
+                    stalled.push(p.clone());
+                }
+            }
+        }
+        Verdict {
+            margin: report.headline.margin,
+            moves: report.headline.moves,
+            fails: report.fails(),
+            failing,
+            stalled,
+        }
+    }
+
+    /// The verdict of a solved rig (runs the checks).
+    pub fn assess(rig: &Rig, solution: &Solution) -> Verdict {
+        Verdict::of(&assess(rig, solution))
+    }
+
+    /// A table cell: `ok` or `FAIL` with the failing codes, and the stalled sheaves.
+    pub fn cell(&self) -> String {
+        let mut cell = if self.fails {
+            format!("FAIL {}", self.failing.join(", "))
+        } else {
+            "ok".to_string()
+        };
+        if !self.stalled.is_empty() {
+            cell.push_str(&format!("; stalled: {}", self.stalled.join(", ")));
+        }
+        cell
+    }
+}
+
+/// The code of the stalled-sheave warning.
+const STALLED: &str = "stalled-sheave";
+
+/// The report of a solved rig with its checks, as `check` builds it.
+pub fn assess(rig: &Rig, solution: &Solution) -> Report {
+    Report::build(rig, solution, checks::run(rig, solution))
+}
+
+/// A note for a table with stalled rows: why their values stop changing.
+pub fn stalled_note(stalled_rows: usize, rows: usize) -> Option<String> {
+    (stalled_rows > 0).then(|| {
+        format!(
+            "{stalled_rows} of {rows} rows have a stalled sheave (`stalled` in checks): it does not turn and the rope slides over it at the capstan ratio, so its bearing no longer changes the values there."
+        )
+    })
 }
 
 /// The headline figures of one solved rig, as compared and swept. SI units.
@@ -185,6 +302,11 @@ pub struct Figures {
     pub efficiency: Option<Real>,
     /// Back efficiency.
     pub back_efficiency: Option<Real>,
+    /// The friction at the drive going forward, in the asked unit (the report's
+    /// `friction_forward`).
+    pub friction_forward: Option<Real>,
+    /// The friction at the drive running back (the report's `friction_back`).
+    pub friction_back: Option<Real>,
     /// Holding band [low, high].
     pub holding_band: [Option<Real>; 2],
     /// Whether the rig will not run back by itself.
@@ -199,6 +321,9 @@ pub struct Figures {
     pub smallest_bend_ratio: Option<Real>,
     /// Number of warnings from the checks.
     pub warnings: usize,
+    /// What `check` concludes (margin, moves, failing checks, stalled sheaves).
+    #[serde(flatten)]
+    pub verdict: Verdict,
 }
 
 fn fold_max(values: impl Iterator<Item = Real>) -> Option<Real> {
@@ -235,10 +360,9 @@ pub fn largest_fleet_deg(solution: &Solution) -> Option<Real> {
     )
 }
 
-/// The figures of a solved rig (runs the checks for the warning count).
+/// The figures of a solved rig (runs the checks for the warning count and verdict).
 pub fn figures(label: &str, rig: &Rig, solution: &Solution) -> Figures {
-    let warnings = checks::run(rig, solution);
-    let report = Report::build(rig, solution, warnings);
+    let report = assess(rig, solution);
     let main = solution.main();
     let h = &report.headline;
     Figures {
@@ -249,6 +373,8 @@ pub fn figures(label: &str, rig: &Rig, solution: &Solution) -> Figures {
         back: h.back.value,
         efficiency: h.forward.efficiency,
         back_efficiency: h.back.efficiency,
+        friction_forward: h.friction_forward,
+        friction_back: h.friction_back,
         holding_band: h.holding_band,
         self_locking: h.self_locking,
         largest_tension_n: largest_tension(solution),
@@ -256,17 +382,13 @@ pub fn figures(label: &str, rig: &Rig, solution: &Solution) -> Figures {
         largest_fleet_deg: fold_max(report.parts.iter().filter_map(|p| p.fleet_deg)),
         smallest_bend_ratio: fold_min(report.parts.iter().filter_map(|p| p.bend_ratio)),
         warnings: report.warnings.len(),
+        verdict: Verdict::of(&report),
     }
 }
 
-/// Whether the main drive does what the rig needs (moves it, or holds back a load that
-/// runs it forward by itself: [`crate::solve::Outcome`]), where the asked part's
-/// quantity is given.
-pub fn moves(rig: &Rig, solution: &Solution) -> Option<bool> {
-    let main = solution.main();
-    let available = solve::given_quantity(rig, main.solve_for)?;
-    finite(main.forward.value)?;
-    Some(main.outcome(available).succeeds())
+/// A margin as a table cell (`12.5 %`, `—`).
+pub fn margin_cell(margin: Option<Real>) -> String {
+    margin.map_or("—".into(), |m| format!("{:.1} %", m * 100.0))
 }
 
 /// Splits `"60 kg"` into 60 and `kg`, `"0.2"` into 0.2 and an empty unit.

@@ -27,7 +27,7 @@ use crate::rig::Rig;
 use crate::units::{Dimension, UnitSystem};
 
 use super::table::{csv_number, write_human, Format, Table};
-use super::{AskedQuantity, RigSource, StudyError};
+use super::{margin_cell, AskedQuantity, RigSource, StudyError, Verdict};
 
 /// Friction coefficient of the `--to rolling` default: a deep-groove ball bearing's
 /// constant coefficient referred to the bore (from memory of rolling-bearing
@@ -71,27 +71,102 @@ pub struct RankRow {
     /// Forward value with this part alone frictionless.
     pub frictionless: Option<Real>,
     /// What that saves: forward − that value for a drive unknown (less effort),
-    /// that value − forward for a load unknown (more load moved).
+    /// that value − forward for a load unknown (more load moved). Never negative:
+    /// round-off is zero, and a change for the worse is `frictionless_worse_by`.
     pub frictionless_saved: Option<Real>,
+    /// How much worse the rig is with the part frictionless (more effort, or less load
+    /// moved), where it is worse beyond round-off; absent otherwise. A frictionless
+    /// part should never cost more, so a value here says the rig is not simple (a
+    /// sheave that starts or stops stalling, a pin load that moves).
+    pub frictionless_worse_by: Option<Real>,
     /// Forward value with this part's bearing changed to the alternative.
     pub alternative: Option<Real>,
-    /// What that saves (same sign convention).
+    /// What that saves (same sign convention; never negative, see
+    /// `alternative_worse_by`).
     pub alternative_saved: Option<Real>,
+    /// How much worse the alternative is than the bearing as written (more effort, or
+    /// less load moved), where it is worse beyond round-off.
+    pub alternative_worse_by: Option<Real>,
+    /// What `check` concludes about the rig with this part frictionless.
+    pub frictionless_verdict: Option<Verdict>,
+    /// What `check` concludes about the rig with this part's alternative bearing.
+    pub alternative_verdict: Option<Verdict>,
     /// Why a value is missing.
     pub note: Option<String>,
 }
 
-/// Sensitivity of the forward value to one coefficient.
+/// Sensitivity of the forward value to one friction coefficient, measured like the
+/// ranking: what cutting the friction it stands for saves.
 #[derive(Debug, Clone, Serialize, PartialEq)]
 pub struct Sensitivity {
-    /// The coefficient's key path.
+    /// The coefficient's key path, as the file writes it (`bearing.efficiency` where
+    /// the file gives a rated sheave's efficiency, `bearing.factor` where it gives K).
     pub key: String,
-    /// Its value.
+    /// Its value as written (after `--set`).
     pub value: Real,
-    /// d(forward)/d(coefficient), in the asked quantity's SI unit per unit coefficient.
+    /// What 10 % less friction at this coefficient saves, in the asked quantity's SI
+    /// unit (less effort, or more load moved; the ranking's measure): μ × 0.9, or a
+    /// rated sheave's loss K − 1 × 0.9 (for an efficiency η, K = 1/η). Never negative:
+    /// round-off is zero, a change for the worse is `worse_with_10pct_less_friction`.
+    pub saved_with_10pct_less_friction: Option<Real>,
+    /// How much worse the rig is with 10 % less friction here, where it is worse
+    /// beyond round-off (it should not be).
+    pub worse_with_10pct_less_friction: Option<Real>,
+    /// d(forward)/d(value), in the asked quantity's SI unit per unit of the written
+    /// key (negative for an efficiency: more efficient, less effort).
     pub derivative: Option<Real>,
-    /// Relative sensitivity: (value / forward) × derivative.
+    /// Relative sensitivity to the written key: (value / forward) × derivative. Beware
+    /// comparing it across kinds of key: a rated factor K near 1 carries its friction
+    /// in K − 1, so its elasticity is far larger than a μ's for the same loss; the
+    /// saving above compares like with like.
     pub elasticity: Option<Real>,
+}
+
+/// The share of its friction a sensitivity cuts (10 %).
+pub const SENSITIVITY_CUT: Real = 0.1;
+
+/// What a friction coefficient stands for, so that its friction can be cut by a share.
+#[derive(Debug, Clone, Copy, PartialEq, Eq)]
+pub enum Measure {
+    /// A friction coefficient μ (bearing, groove, rope on a surface, thrust): the
+    /// friction is μ itself.
+    Mu,
+    /// A rated sheave's factor K = 1/η: the friction is K − 1.
+    Factor,
+    /// A rated sheave's efficiency η: the friction is 1/η − 1.
+    Efficiency,
+}
+
+/// A friction coefficient of the rig that acts on the forward value.
+#[derive(Debug, Clone, PartialEq)]
+pub struct Coefficient {
+    /// Key path, as the file writes it.
+    pub key: String,
+    /// Value as written.
+    pub value: Real,
+    /// What it stands for.
+    pub measure: Measure,
+}
+
+impl Coefficient {
+    /// The least and greatest value the key accepts.
+    pub fn bounds(&self) -> (Real, Real) {
+        match self.measure {
+            Measure::Mu => (0.0, Real::INFINITY),
+            Measure::Factor => (1.0, Real::INFINITY),
+            Measure::Efficiency => (0.0, 1.0),
+        }
+    }
+
+    /// The value with the friction it stands for cut by `share` (0 to 1).
+    pub fn with_less_friction(&self, share: Real) -> Real {
+        let keep = 1.0 - share;
+        match self.measure {
+            Measure::Mu => self.value * keep,
+            Measure::Factor => 1.0 + (self.value - 1.0) * keep,
+            Measure::Efficiency => 1.0 / (1.0 + (1.0 / self.value - 1.0) * keep),
+        }
+    }
 }
 
 /// The ranking.
@@ -101,17 +176,32 @@ pub struct Ranking {
     pub solve_for: AskedQuantity,
     /// Forward value of the rig as written.
     pub forward: Option<Real>,
+    /// What `check` concludes about the rig as written.
+    pub verdict: Verdict,
     /// The alternative, when one was asked for.
     pub alternative: Option<String>,
     /// Parts, best saving first.
     pub parts: Vec<RankRow>,
-    /// Sensitivities, largest magnitude of elasticity first.
+    /// Sensitivities, largest saving first (the ranking's order and measure).
     pub sensitivities: Vec<Sensitivity>,
     /// The caution.
     pub caution: &'static str,
     /// Units of the rig, for text output.
     #[serde(skip)]
     pub units: UnitSystem,
+}
+
+impl Ranking {
+    /// Whether the rig as written or any row fails a check (exit 1, as `check` would).
+    pub fn fails(&self) -> bool {
+        self.verdict.fails
+            || self.parts.iter().any(|p| {
+                [&p.frictionless_verdict, &p.alternative_verdict]
+                    .into_iter()
+                    .flatten()
+                    .any(|v| v.fails)
+            })
+    }
 }
 
 /// Overrides that make `part` frictionless (see the module doc), if it has friction.
@@ -157,41 +247,63 @@ pub fn alternative_settings(
     }
 }
 
-/// Every friction coefficient of the rig that acts on the forward value: key path,
-/// value, and the least value the key accepts.
-pub fn coefficients(rig: &Rig) -> Vec<(String, Real, Real)> {
+/// Every friction coefficient of the rig that acts on the forward value, under the key
+/// the file (with its `--set` overrides) writes it by.
+pub fn coefficients(rig: &Rig, source: &RigSource) -> Vec<Coefficient> {
     let mut out = Vec::new();
+    let mu = |key: String, value: Real| Coefficient {
+        key,
+        value,
+        measure: Measure::Mu,
+    };
     for r in &rig.ropes {
-        out.push((format!("ropes.{}.mu", r.name), r.mu, 0.0));
+        out.push(mu(format!("ropes.{}.mu", r.name), r.mu));
     }
     for p in &rig.parts {
         let n = &p.name;
-        let bearing = |prefix: &str, b: &Bearing, out: &mut Vec<(String, Real, Real)>| match b {
-            Bearing::Plain { mu, .. } | Bearing::Rolling { mu, .. } => {
-                out.push((format!("parts.{n}.{prefix}.mu"), *mu, 0.0))
+        let bearing = |path: &[&str], b: &Bearing, out: &mut Vec<Coefficient>| {
+            let prefix = path.join(".");
+            match b {
+                Bearing::Plain { mu: m, .. } | Bearing::Rolling { mu: m, .. } => {
+                    out.push(mu(format!("parts.{n}.{prefix}.mu"), *m))
+                }
+                Bearing::Rated { factor } => {
+                    let mut at = vec!["parts", n.as_str()];
+                    at.extend_from_slice(path);
+                    out.push(if source.has_key(&at, "efficiency") {
+                        Coefficient {
+                            key: format!("parts.{n}.{prefix}.efficiency"),
+                            value: 1.0 / factor,
+                            measure: Measure::Efficiency,
+                        }
+                    } else {
+                        Coefficient {
+                            key: format!("parts.{n}.{prefix}.factor"),
+                            value: *factor,
+                            measure: Measure::Factor,
+                        }
+                    })
+                }
+                Bearing::None => {}
             }
-            Bearing::Rated { factor } => {
-                out.push((format!("parts.{n}.{prefix}.factor"), *factor, 1.0))
-            }
-            Bearing::None => {}
         };
         match &p.kind {
             PartKind::Sheave(s) => {
-                bearing("bearing", &s.bearing, &mut out);
-                if let Some(mu) = s.mu {
-                    out.push((format!("parts.{n}.mu"), mu, 0.0));
+                bearing(&["bearing"], &s.bearing, &mut out);
+                if let Some(m) = s.mu {
+                    out.push(mu(format!("parts.{n}.mu"), m));
                 }
             }
             PartKind::Guide(g) => {
-                if let Some(mu) = g.mu {
-                    out.push((format!("parts.{n}.mu"), mu, 0.0));
+                if let Some(m) = g.mu {
+                    out.push(mu(format!("parts.{n}.mu"), m));
                 }
             }
             PartKind::Drum(d) => {
                 if let Some(shaft) = &d.shaft {
-                    bearing("shaft.bearing", &shaft.bearing, &mut out);
+                    bearing(&["shaft", "bearing"], &shaft.bearing, &mut out);
                     if let Some(t) = &shaft.thrust {
-                        out.push((format!("parts.{n}.shaft.thrust.mu"), t.mu, 0.0));
+                        out.push(mu(format!("parts.{n}.shaft.thrust.mu"), t.mu));
                     }
                 }
             }
@@ -201,6 +313,43 @@ pub fn coefficients(rig: &Rig) -> Vec<(String, Real, Real)> {
     out
 }
 
+/// Differences of the forward value within this of zero are round-off: a relative
+/// 1e-9 of the larger of the forward and ideal values (the solver settles its fixed
+/// point to 1e-12).
+fn round_off(forward: Real, ideal: Real) -> Real {
+    1e-9 * forward.abs().max(ideal.abs()).max(Real::MIN_POSITIVE)
+}
+
+/// A signed saving split into what it saves (never negative; round-off is zero) and,
+/// where it is worse beyond round-off, by how much.
+fn split_saving(signed: Option<Real>, noise: Real) -> (Option<Real>, Option<Real>) {
+    match signed {
+        Some(s) if s.abs() <= noise => (Some(0.0), None),
+        Some(s) if s > 0.0 => (Some(s), None),
+        Some(s) => (None, Some(-s)),
+        None => (None, None),
+    }
+}
+
+/// `items` ordered by their keys `(first, then, index)`, largest first; stable, so
+/// equal keys keep file order.
+fn largest_first<T>(items: Vec<T>, mut keys: Vec<(Real, Real, usize)>) -> Vec<T> {
+    keys.sort_by(|a, b| b.0.total_cmp(&a.0).then(b.1.total_cmp(&a.1)));
+    let mut items: Vec<Option<T>> = items.into_iter().map(Some).collect();
+    keys.iter().filter_map(|k| items[k.2].take()).collect()
+}
+
+/// The forward value of the main sub-rig with `settings`, and what `check` concludes.
+fn judged_with(
+    source: &RigSource,
+    settings: &[(String, String)],
+) -> Result<(Real, Verdict), StudyError> {
+    let (rig, s) = source.solve(settings)?;
+    let forward = finite(s.main().forward.value)
+        .ok_or_else(|| StudyError::Input("the forward value is not finite".to_string()))?;
+    Ok((forward, Verdict::assess(&rig, &s)))
+}
+
 /// The forward value of the main sub-rig with `settings`.
 fn forward_with(source: &RigSource, settings: &[(String, String)]) -> Result<Real, StudyError> {
     let (_, s) = source.solve(settings)?;
@@ -208,23 +357,22 @@ fn forward_with(source: &RigSource, settings: &[(String, String)]) -> Result<Rea
         .ok_or_else(|| StudyError::Input("the forward value is not finite".to_string()))
 }
 
-/// d(forward)/d(coefficient) by central differences (one-sided next to the lower
+/// d(forward)/d(value) of a coefficient by central differences (one-sided next to a
 /// bound), step 1e-4 of the value (at least 1e-6).
 ///
 /// # Errors
 /// When a perturbed rig cannot be solved.
-pub fn derivative(
-    source: &RigSource,
-    key: &str,
-    value: Real,
-    lower: Real,
-) -> Result<Real, StudyError> {
+pub fn derivative(source: &RigSource, c: &Coefficient) -> Result<Real, StudyError> {
+    let (lower, upper) = c.bounds();
+    let value = c.value;
     let h = (value.abs() * 1e-4).max(1e-6);
-    let at = |v: Real| forward_with(source, &[(key.to_string(), format!("{v}"))]);
-    if value - h >= lower {
-        Ok((at(value + h)? - at(value - h)?) / (2.0 * h))
-    } else {
+    let at = |v: Real| forward_with(source, &[(c.key.clone(), format!("{v}"))]);
+    if value - h < lower {
         Ok((at(value + h)? - at(value)?) / h)
+    } else if value + h > upper {
+        Ok((at(value)? - at(value - h)?) / h)
+    } else {
+        Ok((at(value + h)? - at(value - h)?) / (2.0 * h))
     }
 }
 
@@ -237,79 +385,101 @@ pub fn rank(source: &RigSource, alt: Option<&Alternative>) -> Result<Ranking, St
     let main = solution.main();
     let f0 = main.forward.value;
     let sign = if main.drive_unknown() { -1.0 } else { 1.0 };
-    let saved = |f: Option<Real>| f.and_then(|f| finite(sign * (f - f0)));
+    let signed = |f: Option<Real>| f.and_then(|f| finite(sign * (f - f0)));
+    let noise = round_off(f0, main.ideal.value);
+    let mut order = Vec::new();
     let mut parts = Vec::new();
     for (id, part) in rig.parts.iter().enumerate() {
         let Some(settings) = frictionless_settings(&rig, id) else {
             continue;
         };
         let mut notes = Vec::new();
-        let frictionless = match forward_with(source, &settings) {
-            Ok(v) => Some(v),
+        let (frictionless, frictionless_verdict) = match judged_with(source, &settings) {
+            Ok((v, verdict)) => (Some(v), Some(verdict)),
             Err(e) => {
                 notes.push(format!("frictionless: {e}"));
-                None
+                (None, None)
             }
         };
-        let alternative = match alt.map(|a| alternative_settings(&rig, id, a)) {
-            None => None,
-            Some(Err(why)) => {
-                notes.push(why);
-                None
-            }
-            Some(Ok(s)) => match forward_with(source, &s) {
-                Ok(v) => Some(v),
-                Err(e) => {
-                    notes.push(format!("alternative: {e}"));
-                    None
+        let (alternative, alternative_verdict) =
+            match alt.map(|a| alternative_settings(&rig, id, a)) {
+                None => (None, None),
+                Some(Err(why)) => {
+                    notes.push(why);
+                    (None, None)
                 }
+                Some(Ok(s)) => match judged_with(source, &s) {
+                    Ok((v, verdict)) => (Some(v), Some(verdict)),
+                    Err(e) => {
+                        notes.push(format!("alternative: {e}"));
+                        (None, None)
+                    }
+                },
+            };
+        let (frictionless_saved, frictionless_worse_by) = split_saving(signed(frictionless), noise);
+        let (alternative_saved, alternative_worse_by) = split_saving(signed(alternative), noise);
+        // By the alternative's saving when one is asked for (a worse alternative below
+        // every saving, the least bad first), then by the frictionless saving (parts the
+        // alternative does not apply to still rank among themselves).
+        let missing = Real::NEG_INFINITY;
+        order.push((
+            if alt.is_some() {
+                alternative_saved
+                    .or(alternative_worse_by.map(|w| -w))
+                    .unwrap_or(missing)
+            } else {
+                0.0
             },
-        };
+            frictionless_saved
+                .or(frictionless_worse_by.map(|w| -w))
+                .unwrap_or(missing),
+            parts.len(),
+        ));
         parts.push(RankRow {
             part: part.name.clone(),
             kind: part.kind.name(),
             frictionless,
-            frictionless_saved: saved(frictionless),
+            frictionless_saved,
+            frictionless_worse_by,
+            frictionless_verdict,
             alternative,
-            alternative_saved: saved(alternative),
+            alternative_saved,
+            alternative_worse_by,
+            alternative_verdict,
             note: (!notes.is_empty()).then(|| notes.join("; ")),
         });
     }
-    // By the alternative's saving when one is asked for, then by the frictionless
-    // saving (parts the alternative does not apply to still rank among themselves).
-    let key = |r: &RankRow| {
-        let alternative = if alt.is_some() {
-            r.alternative_saved.unwrap_or(Real::NEG_INFINITY)
-        } else {
-            0.0
-        };
-        (
-            alternative,
-            r.frictionless_saved.unwrap_or(Real::NEG_INFINITY),
-        )
-    };
-    // Stable sort: equal savings keep file order.
-    parts.sort_by(|a, b| {
-        let (ka, kb) = (key(a), key(b));
-        kb.0.total_cmp(&ka.0).then(kb.1.total_cmp(&ka.1))
-    });
+    let parts = largest_first(parts, order);
     let mut sensitivities = Vec::new();
-    for (k, value, lower) in coefficients(&rig) {
-        let d = derivative(source, &k, value, lower).ok().and_then(finite);
+    let mut order = Vec::new();
+    for c in coefficients(&rig, source) {
+        let d = derivative(source, &c).ok().and_then(finite);
+        let less = (
+            c.key.clone(),
+            format!("{}", c.with_less_friction(SENSITIVITY_CUT)),
+        );
+        let cut = signed(forward_with(source, &[less]).ok());
+        let (saved, worse) = split_saving(cut, noise);
+        order.push((
+            saved.or(worse.map(|w| -w)).unwrap_or(Real::NEG_INFINITY),
+            0.0,
+            sensitivities.len(),
+        ));
         sensitivities.push(Sensitivity {
-            elasticity: d.and_then(|d| finite(value / f0 * d)),
-            key: k,
-            value,
+            elasticity: d.and_then(|d| finite(c.value / f0 * d)),
+            key: c.key,
+            value: c.value,
+            saved_with_10pct_less_friction: saved,
+            worse_with_10pct_less_friction: worse,
             derivative: d,
         });
     }
-    sensitivities.sort_by(|a, b| {
-        let m = |s: &Sensitivity| s.elasticity.map_or(-1.0, Real::abs);
-        m(b).total_cmp(&m(a))
-    });
+    // Largest saving first, as the ranking.
+    let sensitivities = largest_first(sensitivities, order);
     Ok(Ranking {
         solve_for: AskedQuantity::of(&rig, main),
         forward: finite(f0),
+        verdict: Verdict::assess(&rig, &solution),
         alternative: alt.map(Alternative::label),
         parts,
         sensitivities,
@@ -346,10 +516,22 @@ pub fn write(w: &mut dyn Write, r: &Ranking, format: Format) -> io::Result<()> {
             "kind".into(),
             format!("frictionless_{si}"),
             format!("frictionless_saved_{si}"),
+            format!("frictionless_worse_by_{si}"),
             format!("alternative_{si}"),
             format!("alternative_saved_{si}"),
+            format!("alternative_worse_by_{si}"),
             "note".into(),
+            "frictionless_margin".into(),
+            "frictionless_failing".into(),
+            "alternative_margin".into(),
+            "alternative_failing".into(),
         ];
+        let verdict_csv = |v: &Option<Verdict>| {
+            [
+                csv_number(v.as_ref().and_then(|v| v.margin)),
+                v.as_ref().map_or(String::new(), |v| v.failing.join(" ")),
+            ]
+        };
         for (i, p) in r.parts.iter().enumerate() {
             t.rows.push(vec![
                 (i + 1).to_string(),
@@ -357,16 +539,23 @@ pub fn write(w: &mut dyn Write, r: &Ranking, format: Format) -> io::Result<()> {
                 p.kind.into(),
                 csv_number(p.frictionless),
                 csv_number(p.frictionless_saved),
+                csv_number(p.frictionless_worse_by),
                 csv_number(p.alternative),
                 csv_number(p.alternative_saved),
+                csv_number(p.alternative_worse_by),
                 p.note.clone().unwrap_or_default(),
             ]);
+            let row = t.rows.last_mut().expect("just pushed");
+            row.extend(verdict_csv(&p.frictionless_verdict));
+            row.extend(verdict_csv(&p.alternative_verdict));
         }
         t.write_csv(w)?;
         writeln!(w)?;
         s.headers = vec![
             "coefficient".into(),
             "value".into(),
+            format!("saved_with_10pct_less_friction_{si}"),
+            format!("worse_with_10pct_less_friction_{si}"),
             format!("derivative_{si}"),
             "elasticity".into(),
         ];
@@ -374,6 +563,8 @@ pub fn write(w: &mut dyn Write, r: &Ranking, format: Format) -> io::Result<()> {
             s.rows.push(vec![
                 x.key.clone(),
                 format!("{}", x.value),
+                csv_number(x.saved_with_10pct_less_friction),
+                csv_number(x.worse_with_10pct_less_friction),
                 csv_number(x.derivative),
                 csv_number(x.elasticity),
             ]);
@@ -381,6 +572,30 @@ pub fn write(w: &mut dyn Write, r: &Ranking, format: Format) -> io::Result<()> {
         return s.write_csv(w);
     }
     let q = |x| quantity(x, d, &r.units);
+    // A saving, or how much worse it is: never a negative saving.
+    let saves = |saved: Option<Real>, worse: Option<Real>| match worse {
+        Some(w) => format!("worse by {}", q(Some(w))),
+        None => q(saved),
+    };
+    // Margins where something is given to compare with; a checks column where a row
+    // fails a check or stalls a sheave.
+    let margins = r.verdict.margin.is_some();
+    let margin = |v: &Option<Verdict>| margin_cell(v.as_ref().and_then(|v| v.margin));
+    let row_checks = |p: &RankRow| {
+        let found: Vec<String> = [
+            ("frictionless", &p.frictionless_verdict),
+            ("alternative", &p.alternative_verdict),
+        ]
+        .into_iter()
+        .filter_map(|(what, v)| {
+            v.as_ref()
+                .filter(|v| v.fails || !v.stalled.is_empty())
+                .map(|v| format!("{what}: {}", v.cell()))
+        })
+        .collect();
+        found.join("; ")
+    };
+    let checks = r.parts.iter().any(|p| !row_checks(p).is_empty());
     t.headers = vec![
         "rank".into(),
         "part".into(),
@@ -388,15 +603,29 @@ pub fn write(w: &mut dyn Write, r: &Ranking, format: Format) -> io::Result<()> {
         "frictionless".into(),
         "saves".into(),
     ];
+    if margins {
+        t.headers.push("margin".into());
+    }
     if r.alternative.is_some() {
         t.headers.push("alternative".into());
         t.headers.push("saves".into());
+        if margins {
+            t.headers.push("margin".into());
+        }
+    }
+    if checks {
+        t.headers.push("checks".into());
     }
     let mut notes = vec![format!(
-        "Forward {} at `{}` as written: {}.",
+        "Forward {} at `{}` as written: {}{}; checks: {}.",
         r.solve_for.quantity,
         r.solve_for.part,
-        q(r.forward)
+        q(r.forward),
+        r.verdict.margin.map_or(String::new(), |m| format!(
+            " (margin {})",
+            margin_cell(Some(m))
+        )),
+        r.verdict.cell()
     )];
     if let Some(a) = &r.alternative {
         notes.push(format!("Alternative bearing: {a}."));
@@ -407,32 +636,53 @@ pub fn write(w: &mut dyn Write, r: &Ranking, format: Format) -> io::Result<()> {
             p.part.clone(),
             p.kind.into(),
             q(p.frictionless),
-            q(p.frictionless_saved),
+            saves(p.frictionless_saved, p.frictionless_worse_by),
         ];
+        if margins {
+            row.push(margin(&p.frictionless_verdict));
+        }
         if r.alternative.is_some() {
             row.push(q(p.alternative));
-            row.push(q(p.alternative_saved));
+            row.push(saves(p.alternative_saved, p.alternative_worse_by));
+            if margins {
+                row.push(margin(&p.alternative_verdict));
+            }
+        }
+        if checks {
+            let c = row_checks(p);
+            row.push(if c.is_empty() { "ok".into() } else { c });
         }
         t.rows.push(row);
         if let Some(n) = &p.note {
             notes.push(format!("`{}`: {n}", p.part));
         }
     }
-    let unit = r.units.unit(d);
+    let worse: Vec<String> = r
+        .parts
+        .iter()
+        .filter(|p| p.alternative_worse_by.is_some())
+        .map(|p| format!("`{}`", p.part))
+        .collect();
+    if !worse.is_empty() {
+        notes.push(format!(
+            "The alternative is worse than the bearing as written at {}: it is no upgrade there.",
+            worse.join(", ")
+        ));
+    }
     notes.push(String::new());
-    notes.push("Sensitivity of the forward value to each friction coefficient:".into());
-    s.headers = vec![
-        "coefficient".into(),
-        "value".into(),
-        format!("d(forward)/d(coefficient) ({})", unit.symbol),
-        "elasticity".into(),
-    ];
+    notes.push(format!(
+        "What 10 % less friction at each coefficient saves (the ranking's measure: the forward {} with that friction cut, against the rig as written):",
+        r.solve_for.quantity
+    ));
+    s.headers = vec!["coefficient".into(), "value".into(), "saves".into()];
     for x in &r.sensitivities {
         s.rows.push(vec![
             x.key.clone(),
             number(Some(x.value), 4),
-            number(x.derivative.map(|v| v / unit.si), 4),
-            number(x.elasticity, 3),
+            saves(
+                x.saved_with_10pct_less_friction,
+                x.worse_with_10pct_less_friction,
+            ),
         ]);
     }
     let mut buf = Vec::new();
@@ -443,7 +693,7 @@ pub fn write(w: &mut dyn Write, r: &Ranking, format: Format) -> io::Result<()> {
     }
     notes.push(String::from_utf8_lossy(&buf).trim_end().to_string());
     notes.push(
-        "Elasticity: the relative change of the forward value per relative change of the coefficient."
+        "10 % less friction: a coefficient μ times 0.9; a rated sheave's loss K − 1 times 0.9 (for an efficiency η, K = 1/η). Derivatives and elasticities are in the JSON."
             .into(),
     );
     write_human(

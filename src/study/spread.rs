@@ -4,6 +4,7 @@
 //! solver is untouched. Sample `i` always uses random stream `i` of the seed
 //! ([`Rng::stream`]), so the numbers do not depend on the number of threads.
 
+use std::collections::BTreeMap;
 use std::io::{self, IsTerminal, Write};
 use std::sync::atomic::{AtomicBool, AtomicUsize, Ordering};
 
@@ -17,7 +18,8 @@ use crate::units::{Dimension, UnitSystem};
 
 use super::rng::Rng;
 use super::table::{csv_number, write_human, Format, Table};
-use super::{largest_tension, moves, AskedQuantity, RigSource, StudyError};
+use super::{assess, largest_tension, margin_cell, AskedQuantity, RigSource, StudyError, Verdict};
+use crate::report::text::{capitalise, not_moving_words};
 
 /// Draws one value of a distribution.
 pub fn draw(d: &Distribution, rng: &mut Rng) -> Real {
@@ -40,7 +42,7 @@ pub fn draw(d: &Distribution, rng: &mut Rng) -> Real {
 }
 
 /// The outcome of one sample.
-#[derive(Debug, Clone, Copy, PartialEq)]
+#[derive(Debug, Clone, PartialEq)]
 pub struct Sample {
     /// Forward value.
     pub forward: Real,
@@ -48,8 +50,8 @@ pub struct Sample {
     pub back: Real,
     /// Largest span tension, N.
     pub largest_tension: Real,
-    /// Whether the drive moves the rig (None when nothing is given to compare).
-    pub moves: Option<bool>,
+    /// What `check` concludes about the sample.
+    pub verdict: Verdict,
 }
 
 /// The draws of sample `i`: one override per uncertain value.
@@ -69,7 +71,7 @@ pub fn run_sample(source: &RigSource, ranges: &[Uncertain], seed: u64, i: u64) -
         forward: finite(main.forward.value)?,
         back: finite(main.back.value)?,
         largest_tension: largest_tension(&s)?,
-        moves: moves(&rig, &s),
+        verdict: Verdict::assess(&rig, &s),
     })
 }
 
@@ -145,11 +147,30 @@ pub struct Spread {
     /// Share of solved samples in which the drive does not move the rig (where the
     /// asked part's quantity is given).
     pub share_not_moving: Option<Real>,
+    /// What `check` concludes about the nominal rig.
+    pub nominal_verdict: Verdict,
+    /// Margin percentiles (where the asked part's quantity is given).
+    pub margin: Option<Percentiles>,
+    /// Share of solved samples in which a check fails (`check` would exit 1).
+    pub share_failing: Option<Real>,
+    /// Per failing check code, the share of solved samples in which it fails.
+    pub failing_share: BTreeMap<&'static str, Real>,
+    /// What the drive fails to do where it does not move the rig, worded for what it
+    /// is (for text output).
+    #[serde(skip)]
+    pub not_moving: String,
     /// The caution.
     pub caution: &'static str,
     /// Units of the rig, for text output.
     #[serde(skip)]
     pub units: UnitSystem,
+}
+
+impl Spread {
+    /// Whether the nominal rig or any solved sample fails a check (exit 1).
+    pub fn fails(&self) -> bool {
+        self.nominal_verdict.fails || self.share_failing.is_some_and(|x| x > 0.0)
+    }
 }
 
 /// Runs `samples` samples on `threads` threads (0: as many as the machine has),
@@ -166,6 +187,12 @@ pub fn spread(
 ) -> Result<Spread, StudyError> {
     let ranges = source.ranges()?;
     let (rig, nominal) = source.solve(&[])?;
+    if ranges.is_empty() {
+        return Err(StudyError::Input(format!(
+            "{}: the rig gives no value as a range, so every sample would be the same rig: nothing to spread; write an uncertain value as `{{min: a, max: b}}` or `{{mean: m, sd: s}}`, in the file or with --set (e.g. `--set \"ropes.NAME.mu={{min: 0.1, max: 0.2}}\"`)",
+            source.source
+        )));
+    }
     let main = nominal.main();
     let threads = if threads == 0 {
         std::thread::available_parallelism().map_or(1, |n| n.get())
@@ -215,8 +242,19 @@ pub fn spread(
             results[i] = r;
         }
     });
-    let ok: Vec<Sample> = results.iter().flatten().copied().collect();
-    let judged: Vec<bool> = ok.iter().filter_map(|s| s.moves).collect();
+    let nominal_report = assess(&rig, &nominal);
+    let ok: Vec<Sample> = results.into_iter().flatten().collect();
+    let judged: Vec<bool> = ok.iter().filter_map(|s| s.verdict.moves).collect();
+    let share = |n: usize| n as Real / ok.len() as Real;
+    let mut failing_share = BTreeMap::new();
+    for s in &ok {
+        for code in &s.verdict.failing {
+            *failing_share.entry(*code).or_insert(0.0) += 1.0;
+        }
+    }
+    for v in failing_share.values_mut() {
+        *v = share(*v as usize);
+    }
     Ok(Spread {
         solve_for: AskedQuantity::of(&rig, main),
         samples,
@@ -244,6 +282,12 @@ pub fn spread(
         largest_tension_n: percentiles(ok.iter().map(|s| s.largest_tension).collect()),
         share_not_moving: (!judged.is_empty())
             .then(|| judged.iter().filter(|m| !**m).count() as Real / judged.len() as Real),
+        nominal_verdict: Verdict::of(&nominal_report),
+        not_moving: not_moving_words(&nominal_report.headline),
+        margin: percentiles(ok.iter().filter_map(|s| s.verdict.margin).collect()),
+        share_failing: (!ok.is_empty())
+            .then(|| share(ok.iter().filter(|s| s.verdict.fails).count())),
+        failing_share,
         caution: CAUTION,
         units: rig.units,
     })
@@ -267,11 +311,12 @@ fn dimension_of(quantity: &str) -> Dimension {
     }
 }
 
-/// A row of the spread table: name, SI unit, dimension, nominal value, percentiles.
+/// A row of the spread table: name, SI unit, dimension (none: a ratio shown in
+/// percent), nominal value, percentiles.
 type Row<'a> = (
     &'a str,
     &'a str,
-    Dimension,
+    Option<Dimension>,
     Option<Real>,
     Option<Percentiles>,
 );
@@ -287,17 +332,20 @@ pub fn write(w: &mut dyn Write, s: &Spread, format: Format) -> io::Result<()> {
     }
     let d = dimension_of(s.solve_for.quantity);
     let si = s.solve_for.unit;
-    let rows: [Row; 3] = [
-        ("forward", si, d, s.nominal_forward, s.forward),
-        ("back", si, d, s.nominal_back, s.back),
+    let mut rows: Vec<Row> = vec![
+        ("forward", si, Some(d), s.nominal_forward, s.forward),
+        ("back", si, Some(d), s.nominal_back, s.back),
         (
             "largest tension",
             "N",
-            Dimension::Force,
+            Some(Dimension::Force),
             None,
             s.largest_tension_n,
         ),
     ];
+    if s.margin.is_some() || s.nominal_verdict.margin.is_some() {
+        rows.push(("margin", "1", None, s.nominal_verdict.margin, s.margin));
+    }
     let mut t = Table::default();
     if format == Format::Csv {
         t.headers = ["figure", "unit", "nominal", "p5", "p50", "p95"]
@@ -319,7 +367,10 @@ pub fn write(w: &mut dyn Write, s: &Spread, format: Format) -> io::Result<()> {
         .map(String::from)
         .to_vec();
     for (name, _, dim, nominal, p) in rows {
-        let q = |x| quantity(x, dim, &s.units);
+        let q = |x| match dim {
+            None => margin_cell(x),
+            Some(dim) => quantity(x, dim, &s.units),
+        };
         t.rows.push(vec![
             name.into(),
             q(nominal),
@@ -332,9 +383,6 @@ pub fn write(w: &mut dyn Write, s: &Spread, format: Format) -> io::Result<()> {
         "{} samples, seed {}; {} could not be solved.",
         s.samples, s.seed, s.failed
     )];
-    if s.inputs.is_empty() {
-        notes.push("The rig gives no value as a range, so every sample is the nominal rig.".into());
-    }
     for i in &s.inputs {
         let u = if i.unit.is_empty() {
             String::new()
@@ -358,8 +406,27 @@ pub fn write(w: &mut dyn Write, s: &Spread, format: Format) -> io::Result<()> {
     }
     if let Some(share) = s.share_not_moving {
         notes.push(format!(
-            "The drive does not move the rig in {:.1} % of the samples.",
+            "{} in {:.1} % of the samples.",
+            capitalise(&s.not_moving),
             share * 100.0
+        ));
+    }
+    if s.nominal_verdict.fails {
+        notes.push(format!(
+            "The nominal rig fails a check: {}.",
+            s.nominal_verdict.failing.join(", ")
+        ));
+    }
+    if let Some(share) = s.share_failing.filter(|&x| x > 0.0) {
+        let codes: Vec<String> = s
+            .failing_share
+            .iter()
+            .map(|(code, x)| format!("{code} in {:.1} %", x * 100.0))
+            .collect();
+        notes.push(format!(
+            "A check fails in {:.1} % of the solved samples ({}); `reeve check` with the sample's values gives the details.",
+            share * 100.0,
+            codes.join(", ")
         ));
     }
     write_human(

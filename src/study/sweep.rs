@@ -25,8 +25,8 @@ use crate::units::{parse_quantity, Dimension, UnitSystem};
 use super::plot::{self, Panel, Series};
 use super::table::{csv_number, write_human, Format, Table};
 use super::{
-    largest_fleet_deg, largest_tension, number_and_unit, with_unit, AskedQuantity, RigSource,
-    StudyError,
+    largest_fleet_deg, largest_tension, margin_cell, number_and_unit, stalled_note, with_unit,
+    AskedQuantity, RigSource, StudyError, Verdict,
 };
 
 /// A value to vary: `KEY=FROM..TO`, the bounds in the unit written (or the file's).
@@ -110,6 +110,9 @@ pub struct SweepStep {
     pub efficiency: Option<Real>,
     /// Why this step has no values.
     pub error: Option<String>,
+    /// What `check` concludes about this step (empty where it could not be solved).
+    #[serde(flatten)]
+    pub verdict: Verdict,
 }
 
 /// A parameter sweep.
@@ -130,11 +133,33 @@ pub struct Sweep {
     pub units: UnitSystem,
 }
 
+impl Sweep {
+    /// Whether any step fails a check (the sweep exits 1, as `check` would).
+    pub fn fails(&self) -> bool {
+        self.steps.iter().any(|s| s.verdict.fails)
+    }
+}
+
+impl Stroke {
+    /// Whether any step fails a check (the stroke exits 1, as `check` would).
+    pub fn fails(&self) -> bool {
+        self.steps.iter().any(|s| s.verdict.fails)
+    }
+}
+
 /// Sweeps one value over `steps` evenly spaced steps.
 ///
 /// # Errors
-/// When the rig does not load as written. Steps that fail carry their error.
+/// When the rig does not load as written, or both ends are equal over more than one
+/// step. Steps that fail carry their error.
 pub fn sweep(source: &RigSource, vary: &Vary, steps: usize) -> Result<Sweep, StudyError> {
+    if vary.from == vary.to && steps > 1 {
+        return Err(StudyError::Input(format!(
+            "--vary `{}`: both ends are {}, so every step would be the same rig: nothing to sweep (give two different ends, or --steps 1)",
+            vary.key,
+            with_unit(vary.from, &vary.unit)
+        )));
+    }
     let units = source.load(&[])?.units;
     let mut solve_for = None;
     let mut out = Vec::new();
@@ -151,6 +176,7 @@ pub fn sweep(source: &RigSource, vary: &Vary, steps: usize) -> Result<Sweep, Stu
                     back: finite(main.back.value),
                     efficiency: main.forward_efficiency(),
                     error: None,
+                    verdict: Verdict::assess(&rig, &solution),
                 });
             }
             Err(e) => out.push(SweepStep {
@@ -160,6 +186,7 @@ pub fn sweep(source: &RigSource, vary: &Vary, steps: usize) -> Result<Sweep, Stu
                 back: None,
                 efficiency: None,
                 error: Some(e.to_string()),
+                verdict: Verdict::default(),
             }),
         }
     }
@@ -179,6 +206,39 @@ fn dimension_of(quantity: &str) -> Dimension {
         "torque" => Dimension::Torque,
         _ => Dimension::Force,
     }
+}
+
+/// Whether any row has a margin (something given to compare with).
+fn any_margin(verdicts: &[&Verdict]) -> bool {
+    verdicts.iter().any(|v| v.margin.is_some())
+}
+
+/// The margin (where shown) and checks cells of a row; a row that could not be solved
+/// has no checks.
+fn verdict_cells(v: &Verdict, margin: bool, unsolved: bool) -> Vec<String> {
+    let mut cells = Vec::new();
+    if margin {
+        cells.push(margin_cell(v.margin));
+    }
+    cells.push(if unsolved { "—".into() } else { v.cell() });
+    cells
+}
+
+/// CSV headers of a verdict.
+fn verdict_headers() -> [String; 5] {
+    ["margin", "moves", "fails", "failing", "stalled"].map(String::from)
+}
+
+/// CSV cells of a verdict: margin, moves, fails, failing codes and stalled sheaves
+/// (space-separated).
+fn verdict_csv(v: &Verdict) -> [String; 5] {
+    [
+        csv_number(v.margin),
+        v.moves.map_or(String::new(), |m| m.to_string()),
+        v.fails.to_string(),
+        v.failing.join(" "),
+        v.stalled.join(" "),
+    ]
 }
 
 fn value_heading(key: &str, unit: &str) -> String {
@@ -213,15 +273,18 @@ pub fn write_sweep(w: &mut dyn Write, s: &Sweep, format: Format) -> io::Result<(
             "efficiency".into(),
             "error".into(),
         ];
+        t.headers.extend(verdict_headers());
         for st in &s.steps {
-            t.rows.push(vec![
+            let mut row = vec![
                 format!("{}", st.value),
                 csv_number(st.ideal),
                 csv_number(st.forward),
                 csv_number(st.back),
                 csv_number(st.efficiency),
                 st.error.clone().unwrap_or_default(),
-            ]);
+            ];
+            row.extend(verdict_csv(&st.verdict));
+            t.rows.push(row);
         }
         return t.write_csv(w);
     }
@@ -232,21 +295,33 @@ pub fn write_sweep(w: &mut dyn Write, s: &Sweep, format: Format) -> io::Result<(
         "back".into(),
         "efficiency".into(),
     ];
+    let verdicts: Vec<&Verdict> = s.steps.iter().map(|st| &st.verdict).collect();
+    let margins = any_margin(&verdicts);
+    if margins {
+        t.headers.push("margin".into());
+    }
+    t.headers.push("checks".into());
     let mut notes = Vec::new();
     for st in &s.steps {
         let q = |x| quantity(x, d, &s.units);
-        t.rows.push(vec![
+        let mut row = vec![
             number(Some(st.value), 4),
             q(st.ideal),
             q(st.forward),
             q(st.back),
             st.efficiency
                 .map_or("—".into(), |e| format!("{:.1} %", e * 100.0)),
-        ]);
+        ];
+        row.extend(verdict_cells(&st.verdict, margins, st.error.is_some()));
+        t.rows.push(row);
         if let Some(e) = &st.error {
             notes.push(format!("at {} = {}: {e}", s.key, number(Some(st.value), 4)));
         }
     }
+    notes.extend(stalled_note(
+        verdicts.iter().filter(|v| !v.stalled.is_empty()).count(),
+        verdicts.len(),
+    ));
     let title = match &s.solve_for {
         Some(a) => format!("Sweep of `{}`: the {} at `{}`", s.key, a.quantity, a.part),
         None => format!("Sweep of `{}`", s.key),
@@ -301,6 +376,9 @@ pub struct StrokeStep {
     pub largest_tension_n: Option<Real>,
     /// Why the stroke ends here.
     pub error: Option<String>,
+    /// What `check` concludes at this position (empty where it could not be solved).
+    #[serde(flatten)]
+    pub verdict: Verdict,
 }
 
 /// A stroke: the drive moved forward through its travel.
@@ -439,6 +517,7 @@ pub fn stroke(
             velocity_ratio: main.velocity_ratio,
             largest_fleet_deg: largest_fleet_deg(s),
             largest_tension_n: largest_tension(s),
+            verdict: Verdict::assess(rig, s),
             error: slack.then(|| {
                 let (l, j) = main
                     .forward
@@ -516,6 +595,7 @@ fn stopped(travel: Real, why: String) -> StrokeStep {
         largest_fleet_deg: None,
         largest_tension_n: None,
         error: Some(why),
+        verdict: Verdict::default(),
     }
 }
 
@@ -553,8 +633,9 @@ pub fn write_stroke(w: &mut dyn Write, s: &Stroke, format: Format) -> io::Result
             "largest_tension_n".into(),
             "error".into(),
         ];
+        t.headers.extend(verdict_headers());
         for st in &s.steps {
-            t.rows.push(vec![
+            let mut row = vec![
                 format!("{}", st.travel),
                 csv_number(st.forward),
                 csv_number(st.back),
@@ -562,7 +643,9 @@ pub fn write_stroke(w: &mut dyn Write, s: &Stroke, format: Format) -> io::Result
                 csv_number(st.largest_fleet_deg),
                 csv_number(st.largest_tension_n),
                 st.error.clone().unwrap_or_default(),
-            ]);
+            ];
+            row.extend(verdict_csv(&st.verdict));
+            t.rows.push(row);
         }
         return t.write_csv(w);
     }
@@ -575,10 +658,17 @@ pub fn write_stroke(w: &mut dyn Write, s: &Stroke, format: Format) -> io::Result
         "largest fleet".into(),
         "largest tension".into(),
     ];
+    let verdicts: Vec<&Verdict> = s.steps.iter().map(|st| &st.verdict).collect();
+    let margins = any_margin(&verdicts);
+    if margins {
+        t.headers.push("margin".into());
+    }
+    t.headers.push("checks".into());
     let mut notes = Vec::new();
     for st in &s.steps {
         let (tv, _) = travel_shown(s, st.travel);
-        t.rows.push(vec![
+        let unsolved = st.forward.is_none() && st.error.is_some();
+        let mut row = vec![
             number(Some(tv), 4),
             quantity(st.forward, d, &s.units),
             quantity(st.back, d, &s.units),
@@ -586,7 +676,9 @@ pub fn write_stroke(w: &mut dyn Write, s: &Stroke, format: Format) -> io::Result
             st.largest_fleet_deg
                 .map_or("—".into(), |f| format!("{}°", number(Some(f), 3))),
             quantity(st.largest_tension_n, Dimension::Force, &s.units),
-        ]);
+        ];
+        row.extend(verdict_cells(&st.verdict, margins, unsolved));
+        t.rows.push(row);
         if let Some(e) = &st.error {
             notes.push(format!(
                 "at travel {} {tu}: {e}; the stroke stops here",
@@ -594,6 +686,10 @@ pub fn write_stroke(w: &mut dyn Write, s: &Stroke, format: Format) -> io::Result
             ));
         }
     }
+    notes.extend(stalled_note(
+        verdicts.iter().filter(|v| !v.stalled.is_empty()).count(),
+        verdicts.len(),
+    ));
     write_human(
         w,
         format,

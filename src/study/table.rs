@@ -116,10 +116,28 @@ pub fn write_human(
     table: &Table,
     notes: &[String],
 ) -> io::Result<()> {
+    write_human_sections(w, format, title, &[(String::new(), table.clone())], notes)
+}
+
+/// Writes a titled study in a human-readable format (text or Markdown): one table per
+/// section, each under its heading (none where the heading is empty), then the notes,
+/// ending with the caution.
+pub fn write_human_sections(
+    w: &mut dyn Write,
+    format: Format,
+    title: &str,
+    sections: &[(String, Table)],
+    notes: &[String],
+) -> io::Result<()> {
     if format == Format::Markdown {
         writeln!(w, "## {title}\n")?;
-        table.write_markdown(w)?;
-        writeln!(w)?;
+        for (heading, table) in sections {
+            if !heading.is_empty() {
+                writeln!(w, "### {heading}\n")?;
+            }
+            table.write_markdown(w)?;
+            writeln!(w)?;
+        }
         for n in notes {
             if n.is_empty() || n.starts_with('|') || n.contains('\n') {
                 writeln!(w, "{n}")?;
@@ -133,8 +151,13 @@ pub fn write_human(
         writeln!(w, "*{CAUTION}*")
     } else {
         writeln!(w, "{title}\n")?;
-        table.write_text(w)?;
-        writeln!(w)?;
+        for (heading, table) in sections {
+            if !heading.is_empty() {
+                writeln!(w, "{heading}:")?;
+            }
+            table.write_text(w)?;
+            writeln!(w)?;
+        }
         for n in notes {
             writeln!(w, "{n}")?;
         }
