@@ -454,7 +454,8 @@ fn failure_messages_use_the_rigs_units_and_precision() {
 #[test]
 fn an_imperial_rig_shows_torque_in_imperial_units() {
     // Guards `torque N*m` on the unit line of a rig in inches and pounds: with no torque
-    // unit stated it is lbf*in (force × length), for bare numbers and reports alike.
+    // unit stated its reports show lbf*in (force × length), while a bare torque is still
+    // read in N*m, the format's default (DESIGN.md §4 is a contract).
     // Hand calculation in the rig header: load torque 3 lbf*in = 0.338958 N·m, ideal
     // pull 3/2.125 = 1.41176 lbf.
     let rig = "tests/rigs/hinge-imperial.yaml";
@@ -478,6 +479,16 @@ fn an_imperial_rig_shows_torque_in_imperial_units() {
         (load - 3.0 * 4.448_221_615_260_5 * 0.0254).abs() < 1e-9,
         "{load}"
     );
+    let bare = std::fs::read_to_string(rig)
+        .unwrap()
+        .replace("torque: \"3 lbf*in\"", "torque: 3");
+    let path = std::env::temp_dir().join(format!("reeve-bare-torque-{}.yaml", std::process::id()));
+    std::fs::write(&path, bare).unwrap();
+    let (_, json, err) = reeve(&["check", path.to_str().unwrap(), "--json"]);
+    let _ = std::fs::remove_file(&path);
+    let json: serde_json::Value = serde_json::from_str(&json).unwrap_or_else(|_| panic!("{err}"));
+    let load = json["drums"][0]["load_torque_nm"].as_f64().unwrap();
+    assert!((load - 3.0).abs() < 1e-12, "a bare torque is N*m: {load}");
 }
 
 #[test]

@@ -1093,9 +1093,17 @@ fn resolve(root: &Node, source: &str) -> Result<Rig, Vec<Problem>> {
             }
         }
     }
-    if !torque_stated {
-        r.units.torque = default_torque(&r.units);
-    }
+    // Bare torques keep the format's default unit (N*m) when `units` names none (the
+    // rig format is a contract: DESIGN.md §4); only the reports of an imperial rig show
+    // torques in an imperial unit.
+    let shown_units = if torque_stated {
+        r.units
+    } else {
+        UnitSystem {
+            torque: default_torque(&r.units),
+            ..r.units
+        }
+    };
 
     // gravity
     if let Some(n) = get(top, "gravity") {
@@ -1258,7 +1266,7 @@ fn resolve(root: &Node, source: &str) -> Result<Rig, Vec<Problem>> {
     let assembled = (|| {
         Some(Rig {
             title,
-            units: r.units,
+            units: shown_units,
             gravity: r.gravity,
             limits,
             ropes: ropes.into_iter().collect::<Option<Vec<_>>>()?,
@@ -1572,9 +1580,10 @@ fn part(
 
 /// A block's load: `(Some(load or None when unknown), load_is_force)`, or `(None, _)`
 /// after a problem.
-/// The torque unit of a file whose `units` state none: `N*m`, except that a file in
-/// pound-force gets `lbf*in` when its lengths are inches and `lbf*ft` otherwise, so that
-/// an imperial rig neither reads its bare torques nor reports them in N·m.
+/// The torque unit the reports of a file whose `units` state none show: `N*m`, except
+/// that a file in pound-force shows `lbf*in` when its lengths are inches and `lbf*ft`
+/// otherwise, so that an imperial rig is not reported in N·m. Its bare torques are still
+/// read in N*m, the format's default.
 fn default_torque(units: &UnitSystem) -> crate::units::Unit {
     let symbol = match (units.force.symbol, units.length.symbol) {
         ("lbf", "in") => "lbf*in",
