@@ -210,3 +210,55 @@ fn studies_locate_solve_errors_like_check() {
         );
     }
 }
+
+/// Guards the file check at the command line: a NUL in a comment ended the reading
+/// there and the run went on with half a file (exit 0).
+#[test]
+fn a_control_character_in_the_rig_file_is_exit_2_with_line_and_column() {
+    let dir = scratch("nul-comment");
+    let text = RIG.replace(
+        "lines:\n",
+        "# a \u{0} here\nlimits: {design_factor: 50}\nlines:\n",
+    );
+    std::fs::write(dir.join("rig.yaml"), text).unwrap();
+    let out = reeve(&dir, &["check", "rig.yaml"]);
+    assert_eq!(out.status.code(), Some(2), "{}", stderr(&out));
+    assert!(stderr(&out).contains("rig.yaml:11:5:"), "{}", stderr(&out));
+    assert!(stderr(&out).contains("U+0000 (NUL)"), "{}", stderr(&out));
+}
+
+/// Guards the other ways text enters: `--set` values, `variants` (after YAML escapes)
+/// and `rank --to` get the file's character check, and the message shows the character
+/// escaped, never raw on the terminal.
+#[test]
+fn control_characters_in_set_variants_and_rank_to_are_refused() {
+    let dir = scratch("control-entries");
+    let variants = RIG.to_string() + "variants:\n  bad: [\"parts.s.bearing.mu=0.1\\0\"]\n";
+    write_rig(&dir);
+    std::fs::write(dir.join("variants.yaml"), &variants).unwrap();
+    for args in [
+        &[
+            "check",
+            "rig.yaml",
+            "--set",
+            "parts.s.bearing.mu=0.1\u{1b}[2J",
+        ][..],
+        &["check", "rig.yaml", "--set", "title=a \u{202e}title"],
+        &["compare", "variants.yaml", "--variants"],
+        &[
+            "rank",
+            "rig.yaml",
+            "--to",
+            "{kind: plain, pin_diameter: 8, mu: 0.08}\u{1b}[2J",
+        ],
+    ] {
+        let out = reeve(&dir, args);
+        let err = stderr(&out);
+        assert_eq!(out.status.code(), Some(2), "{args:?}: {err}");
+        assert!(err.contains("character U+"), "{args:?}: {err}");
+        assert!(
+            !err.contains(['\u{1b}', '\u{0}', '\u{202e}']),
+            "{args:?}: raw in {err:?}"
+        );
+    }
+}

@@ -1049,7 +1049,19 @@ fn resolve(root: &Node, source: &str) -> Result<Rig, Vec<Problem>> {
         }
     }
     let title = match get(top, "title") {
-        Some(n) => r.text(n, "title", "a title (text)").map(str::to_string),
+        // A title heads every report and drawing: one line (a block scalar's closing
+        // line break is dropped).
+        Some(n) => match r.text(n, "title", "a title (text)").map(str::trim) {
+            Some(t) if t.contains(['\t', '\n', '\r']) => {
+                r.report(
+                    n.location,
+                    "title",
+                    "a title is one line of text, without tabs or line breaks".to_string(),
+                );
+                None
+            }
+            t => t.map(str::to_string),
+        },
         None => None,
     }
     .unwrap_or_else(|| {
