@@ -11,26 +11,11 @@ use crate::rig::model::Rig;
 use crate::solve::Solution;
 use crate::units::{Dimension, UnitSystem};
 
+use super::escape::xml as esc;
 use super::svg::{self, DrawOptions};
 use super::table::{self, Align, CaseFilter, Style, Table, TableChoice};
 use super::text::{number, quantity};
 use super::{Headline, Report, CAUTION};
-
-/// Escapes text for HTML content and attribute values.
-pub fn esc(s: &str) -> String {
-    let mut out = String::with_capacity(s.len());
-    for c in s.chars() {
-        match c {
-            '&' => out.push_str("&amp;"),
-            '<' => out.push_str("&lt;"),
-            '>' => out.push_str("&gt;"),
-            '"' => out.push_str("&quot;"),
-            '\'' => out.push_str("&#39;"),
-            c => out.push(c),
-        }
-    }
-    out
-}
 
 const STYLE: &str = r#"
 :root { --ink: #1d1d1f; --muted: #5b5b60; --rule: #d6d6da; --accent: #1f4e9c; --bad: #b00000; --warn: #9a5b00; }

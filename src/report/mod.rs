@@ -2,6 +2,7 @@
 //! fields are the `check --json` contract of DESIGN.md §5: SI numbers, keys carrying
 //! their units, angles in degrees; `None` becomes JSON `null`, never NaN.
 
+pub mod escape;
 pub mod html;
 pub mod svg;
 pub mod table;

@@ -19,6 +19,7 @@ use crate::rig::model::{PartKind, Rig};
 use crate::solve::Solution;
 use crate::units::{Dimension, UnitSystem};
 
+use super::escape::xml as esc;
 use super::table::units_line;
 use super::text::quantity;
 use super::{Report, CAUTION};
@@ -211,21 +212,6 @@ impl Sheet {
     fn dir(&self, v: &Vector) -> (Real, Real) {
         (v.dot(&self.right), -v.dot(&self.up))
     }
-}
-
-fn esc(s: &str) -> String {
-    let mut out = String::with_capacity(s.len());
-    for c in s.chars() {
-        match c {
-            '&' => out.push_str("&amp;"),
-            '<' => out.push_str("&lt;"),
-            '>' => out.push_str("&gt;"),
-            '"' => out.push_str("&quot;"),
-            '\'' => out.push_str("&apos;"),
-            c => out.push(c),
-        }
-    }
-    out
 }
 
 /// Colour stops of the tension scale, low to high.

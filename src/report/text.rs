@@ -148,8 +148,12 @@ pub(crate) fn capitalise(s: &str) -> String {
     }
 }
 
-/// Writes the `check` summary.
+/// Writes the `check` summary (names, title and source with unsafe characters escaped).
 pub fn write_check(w: &mut dyn Write, rig: &Rig, report: &Report, source: &str) -> io::Result<()> {
+    super::escape::write_printable(w, |w| write_check_raw(w, rig, report, source))
+}
+
+fn write_check_raw(w: &mut dyn Write, rig: &Rig, report: &Report, source: &str) -> io::Result<()> {
     let units = &rig.units;
     let len = |x| quantity(x, Dimension::Length, units);
     let force = |x| quantity(x, Dimension::Force, units);
