@@ -860,3 +860,185 @@ fn csv_cells_that_read_as_formulas_are_prefixed() {
         assert!(named, "{args:?}: no prefixed name in {all:?}");
     }
 }
+
+/// The names in a folder, sorted.
+fn names_in(dir: &Path) -> Vec<String> {
+    let mut names: Vec<String> = fs::read_dir(dir)
+        .unwrap()
+        .map(|e| e.unwrap().file_name().to_string_lossy().into_owned())
+        .collect();
+    names.sort();
+    names
+}
+
+/// Guards against stale temporary files: one left by an earlier run (killed, or whose
+/// PID this process now has) never blocks the next write, and one of a dead process
+/// older than a minute is removed.
+#[test]
+fn a_stale_temp_file_never_blocks_the_next_write() {
+    use reeve::cli::output::write_atomically;
+    let dir = scratch("stale-temp");
+    let target = dir.join("out.svg");
+    // Every name this process would try first is taken.
+    for n in 0..64 {
+        fs::write(
+            dir.join(format!(".out.svg.{}-{n}.tmp", std::process::id())),
+            "stale",
+        )
+        .unwrap();
+    }
+    write_atomically(&target, |w| w.write_all(b"new")).unwrap();
+    assert_eq!(fs::read_to_string(&target).unwrap(), "new");
+    // Through the binary: a dead process's old temp file goes, a fresh one stays (it may
+    // be another machine's write in progress), and a live process's stays.
+    let dead_old = dir.join(".out.svg.2147480000-0.tmp");
+    let dead_new = dir.join(".out.svg.2147480001-0.tmp");
+    let live = dir.join(".out.svg.1-0.tmp");
+    for p in [&dead_old, &dead_new, &live] {
+        fs::write(p, "stale").unwrap();
+    }
+    let hour_ago = std::time::SystemTime::now() - Duration::from_secs(3600);
+    for p in [&dead_old, &live] {
+        fs::File::options()
+            .write(true)
+            .open(p)
+            .unwrap()
+            .set_modified(hour_ago)
+            .unwrap();
+    }
+    let r = rig("sash-window");
+    let out = reeve(&["draw", r.to_str().unwrap(), "-o", target.to_str().unwrap()]);
+    assert!(
+        out.status.success(),
+        "{}",
+        String::from_utf8_lossy(&out.stderr)
+    );
+    assert!(
+        !dead_old.exists(),
+        "a dead process's old temp file was kept"
+    );
+    assert!(dead_new.exists() && live.exists());
+    let _ = fs::remove_dir_all(&dir);
+}
+
+/// Guards signal clean-up: SIGTERM, SIGINT or SIGHUP during a write removes the
+/// temporary file before the process ends (by the signal, as before). The write runs
+/// in a child copy of this test binary, which signals itself half-way.
+#[cfg(unix)]
+#[test]
+fn a_signal_during_a_write_leaves_no_temp_file() {
+    use std::os::unix::process::ExitStatusExt;
+    if let Ok(target) = std::env::var("REEVE_SIGNAL_CHILD_TARGET") {
+        let signal = std::env::var("REEVE_SIGNAL_CHILD_SIGNAL").unwrap();
+        let _ = reeve::cli::output::write_atomically(Path::new(&target), |w| {
+            w.write_all(b"<svg>half")?;
+            w.flush()?;
+            Command::new("kill")
+                .args([format!("-{signal}"), std::process::id().to_string()])
+                .status()?;
+            std::thread::sleep(Duration::from_secs(10));
+            Ok(())
+        });
+        unreachable!("the signal ends the child");
+    }
+    for (signal, number) in [("TERM", 15), ("INT", 2), ("HUP", 1)] {
+        let dir = scratch("signal");
+        let target = dir.join("out.svg");
+        let status = Command::new(std::env::current_exe().unwrap())
+            .args([
+                "--exact",
+                "a_signal_during_a_write_leaves_no_temp_file",
+                "--nocapture",
+            ])
+            .env("REEVE_SIGNAL_CHILD_TARGET", &target)
+            .env("REEVE_SIGNAL_CHILD_SIGNAL", signal)
+            .stdout(Stdio::null())
+            .stderr(Stdio::null())
+            .status()
+            .unwrap();
+        assert_eq!(status.signal(), Some(number), "SIG{signal}: {status:?}");
+        assert_eq!(
+            names_in(&dir),
+            Vec::<String>::new(),
+            "SIG{signal} left files"
+        );
+        let _ = fs::remove_dir_all(&dir);
+    }
+}
+
+/// Guards the input check against other names of the same file: `-o` onto a hard link
+/// of the input rig is refused like the rig itself (same device and inode).
+#[cfg(unix)]
+#[test]
+fn refuses_to_write_over_a_hard_link_of_the_input_rig() {
+    let dir = scratch("hard-link");
+    let copy = dir.join("rig.yaml");
+    fs::copy(rig("sash-window"), &copy).unwrap();
+    let before = fs::read(&copy).unwrap();
+    let link = dir.join("drawing.svg");
+    fs::hard_link(&copy, &link).unwrap();
+    for cmd in ["draw", "report", "table"] {
+        let out = reeve(&[cmd, copy.to_str().unwrap(), "-o", link.to_str().unwrap()]);
+        assert_eq!(out.status.code(), Some(2), "{cmd}");
+        let err = String::from_utf8_lossy(&out.stderr);
+        assert!(
+            err.contains("refusing to write over the input"),
+            "{cmd}: {err}"
+        );
+        assert_eq!(fs::read(&copy).unwrap(), before, "{cmd}: the rig changed");
+    }
+    let _ = fs::remove_dir_all(&dir);
+}
+
+/// Guards the symlink choice (README): `-o` onto a symlink writes through it, replacing
+/// the file it points at atomically and keeping the link, as a shell redirection would;
+/// a dangling link's target is created.
+#[cfg(unix)]
+#[test]
+fn output_onto_a_symlink_writes_through_it() {
+    let dir = scratch("symlink");
+    let real = dir.join("real.svg");
+    fs::write(&real, "old").unwrap();
+    let link = dir.join("link.svg");
+    std::os::unix::fs::symlink("real.svg", &link).unwrap();
+    let r = rig("sash-window");
+    let out = reeve(&["draw", r.to_str().unwrap(), "-o", link.to_str().unwrap()]);
+    assert!(
+        out.status.success(),
+        "{}",
+        String::from_utf8_lossy(&out.stderr)
+    );
+    assert!(
+        fs::symlink_metadata(&link)
+            .unwrap()
+            .file_type()
+            .is_symlink(),
+        "the link was replaced"
+    );
+    assert!(fs::read_to_string(&real).unwrap().contains("<svg"));
+    // A dangling link: its target is created in the target's folder.
+    let sub = dir.join("sub");
+    fs::create_dir_all(&sub).unwrap();
+    let dangling = dir.join("dangling.svg");
+    std::os::unix::fs::symlink("sub/new.svg", &dangling).unwrap();
+    let out = reeve(&[
+        "draw",
+        r.to_str().unwrap(),
+        "-o",
+        dangling.to_str().unwrap(),
+    ]);
+    assert!(
+        out.status.success(),
+        "{}",
+        String::from_utf8_lossy(&out.stderr)
+    );
+    assert!(fs::symlink_metadata(&dangling)
+        .unwrap()
+        .file_type()
+        .is_symlink());
+    assert!(fs::read_to_string(sub.join("new.svg"))
+        .unwrap()
+        .contains("<svg"));
+    assert_eq!(names_in(&sub), vec!["new.svg".to_string()]);
+    let _ = fs::remove_dir_all(&dir);
+}
