@@ -799,3 +799,60 @@ fn control_characters_in_overrides_are_refused() {
         assert!(shown.contains(key), "{shown}");
     }
 }
+
+/// Guards bearing sizes: a pin or bore as large as the part it carries (a 200 mm pin in
+/// a 60 mm sheave, or a bare `8` read as metres) is refused at its key, for sheaves and
+/// drum shafts, from the file and from `--set`.
+#[test]
+fn bearing_sizes_that_do_not_fit_the_part_are_refused() {
+    let e = fails(&with("pin_diameter: 10,", "pin_diameter: 200,"));
+    assert_problem(
+        &e,
+        11,
+        &[
+            "parts.head.bearing.pin_diameter",
+            "200 mm",
+            "60 mm",
+            "smaller than",
+        ],
+    );
+    let e = fails(&with("bore: 10,", "bore: 60,"));
+    assert_problem(&e, 14, &["parts.hook.a.bearing.bore", "smaller than"]);
+    // A drum's shaft journal.
+    let drum = with(
+        "  hand:   {kind: haul, at: [400, 0, 1000]}",
+        "  hand:   {kind: drum, at: [400, 0, 1000], axle: [0, 1, 0], diameter: 40,\n           shaft: {bearing: {kind: plain, pin_diameter: 45, mu: 0.1}}}",
+    );
+    let e = fails(&drum);
+    assert_problem(
+        &e,
+        16,
+        &["parts.hand.shaft.bearing.pin_diameter", "45 mm", "40 mm"],
+    );
+    // An override in the wrong unit is refused, naming the override and the file's unit.
+    let metres = EXAMPLE
+        .replace("length: mm", "length: m")
+        .replace("diameter: 6,", "diameter: 0.006,")
+        .replace("diameter: 60,", "diameter: 0.06,")
+        .replace("pin_diameter: 10,", "pin_diameter: 0.01,")
+        .replace("bore: 10,", "bore: 0.01,");
+    load_str(&metres, "rig.yaml").unwrap();
+    let e = load_str_with(
+        &metres,
+        "rig.yaml",
+        &set(&[("parts.head.bearing.pin_diameter", "8")]),
+    )
+    .unwrap_err();
+    let shown = e.to_string();
+    assert!(
+        shown.contains("8 m") && shown.contains("bare numbers") && shown.contains("override"),
+        "{shown}"
+    );
+    // Written with its unit, it fits.
+    load_str_with(
+        &metres,
+        "rig.yaml",
+        &set(&[("parts.head.bearing.pin_diameter", "8 mm")]),
+    )
+    .unwrap();
+}

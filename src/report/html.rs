@@ -193,6 +193,9 @@ fn write_summary(w: &mut dyn Write, h: &Headline, units: &UnitSystem, id: &str) 
     )?;
     writeln!(w, "</tbody></table></div>")?;
     writeln!(w, "<ul>")?;
+    for note in h.efficiency_notes() {
+        writeln!(w, "<li>{}</li>", esc(&note))?;
+    }
     if let Some(vr) = h.velocity_ratio {
         write!(w, "<li>Velocity ratio {}", number(Some(vr), 4))?;
         if let Some(p) = &h.load_part {

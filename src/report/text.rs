@@ -80,6 +80,9 @@ fn write_headline(w: &mut dyn Write, h: &Headline, units: &UnitSystem) -> io::Re
         percent(h.forward.efficiency),
         percent(h.back.efficiency)
     )?;
+    for note in h.efficiency_notes() {
+        writeln!(w, "  {note}")?;
+    }
     if let Some(b) = &h.breakaway {
         writeln!(
             w,

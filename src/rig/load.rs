@@ -27,7 +27,9 @@
 //!   0 or more; a rated factor is at least 1 and an efficiency in (0, 1]; groove angles
 //!   lie in (0°, 180°), cone half-angles in (0°, 90°], the fleet-angle limit in
 //!   (0°, 90°); the design factor is at least 1; extra `turns` a whole number from 0 to
-//!   1000. Magnitudes above 1e12 in SI are refused as certainly mistaken.
+//!   1000. Magnitudes above 1e12 in SI are refused as certainly mistaken. A plain
+//!   bearing's pin or a rolling bearing's bore must be smaller than the sheave's tread
+//!   diameter or the drum's diameter it carries.
 
 use std::collections::HashMap;
 use std::path::Path;
@@ -970,6 +972,51 @@ impl Resolver {
         })
     }
 
+    /// Refuses a pin or bore that is not smaller than the diameter of the part it
+    /// carries (a sheave's tread, a drum): the bearing would be larger than its part, and
+    /// the friction circle would reach the rope (ρ ≥ 1). Usually a unit slip: a bare
+    /// number is read in the file's length unit. Located at the `pin_diameter` or `bore`.
+    fn bearing_fits(
+        &mut self,
+        bearing_node: Option<&Node>,
+        bearing: Option<&Bearing>,
+        bearing_path: &str,
+        part_diameter: Option<Real>,
+        (part, measure): (&str, &str),
+    ) {
+        let (Some(bearing), Some(part_diameter)) = (bearing, part_diameter) else {
+            return;
+        };
+        let (key, size, what) = match *bearing {
+            Bearing::Plain { pin_diameter, .. } => ("pin_diameter", pin_diameter, "pin"),
+            Bearing::Rolling { bore, .. } => ("bore", bore, "bore"),
+            Bearing::Rated { .. } | Bearing::None => return,
+        };
+        if size < part_diameter {
+            return;
+        }
+        let location = bearing_node
+            .and_then(Node::entries)
+            .and_then(|e| get(e, key))
+            .map_or(Location::default(), |n| n.location);
+        let unit = self.units.length;
+        let shown = |v: Real| {
+            let text = format!("{:.6}", v / unit.si);
+            let text = text.trim_end_matches('0').trim_end_matches('.');
+            format!("{text} {}", unit.symbol)
+        };
+        self.report(
+            location,
+            join(bearing_path, key),
+            format!(
+                "the {what} ({}) does not fit a {part} of {} {measure}; expected a {what} diameter smaller than the {part}'s {measure} (bare numbers are in the file's length unit, {}; write a unit such as `8 mm` to say otherwise)",
+                shown(size),
+                shown(part_diameter),
+                unit.symbol
+            ),
+        );
+    }
+
     /// A reference to a part by name.
     fn part_ref(&mut self, node: &Node, path: &str, names: &Names, role: &str) -> Option<usize> {
         let name = self.text(node, path, &format!("the name of a part ({role})"))?;
@@ -1431,6 +1478,13 @@ fn part(
             let bearing = r
                 .require(entries, "bearing", &path, at, "a bearing such as `{kind: plain, pin_diameter: 10, mu: 0.12}` or `{kind: none}`")
                 .and_then(|n| r.bearing(n, &join(&path, "bearing")));
+            r.bearing_fits(
+                get(entries, "bearing"),
+                bearing.as_ref(),
+                &join(&path, "bearing"),
+                tread_diameter,
+                ("sheave", "tread diameter"),
+            );
             let mass = own_mass(r);
             let groove_angle = r.groove(entries, &path);
             let mu = r.opt_mu(entries, "mu", &path);
@@ -1514,6 +1568,15 @@ fn part(
                 Some(s) => Some(s?),
                 None => None,
             };
+            r.bearing_fits(
+                get(entries, "shaft")
+                    .and_then(Node::entries)
+                    .and_then(|e| get(e, "bearing")),
+                shaft.as_ref().map(|s| &s.bearing),
+                &join(&path, "shaft.bearing"),
+                diameter,
+                ("drum", "diameter"),
+            );
             Some(PartKind::Drum(Drum {
                 axle: axle?,
                 diameter: diameter?,
