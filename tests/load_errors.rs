@@ -856,3 +856,15 @@ fn bearing_sizes_that_do_not_fit_the_part_are_refused() {
     )
     .unwrap();
 }
+
+/// Guards the wording of `cone_angle`: a pivot's included angle written where the
+/// half-angle belongs (120°) is refused with a message that says which angle is meant.
+#[test]
+fn cone_angle_errors_say_it_is_the_half_angle() {
+    let text = with(
+        "  hand:   {kind: haul, at: [400, 0, 1000]}",
+        "  hand:   {kind: drum, at: [400, 0, 1000], axle: [0, 1, 0], diameter: 40,\n           shaft: {thrust: {load: 10, diameter: 20, mu: 0.1, contact: new, cone_angle: 120}}}",
+    );
+    let e = fails(&text);
+    assert_problem(&e, 16, &["cone_angle", "half-angle", "included angle"]);
+}

@@ -1042,3 +1042,50 @@ fn output_onto_a_symlink_writes_through_it() {
     assert_eq!(names_in(&sub), vec!["new.svg".to_string()]);
     let _ = fs::remove_dir_all(&dir);
 }
+
+/// Every `.rs` file under `dir`, recursively.
+fn rust_files(dir: &Path, out: &mut Vec<PathBuf>) {
+    for entry in fs::read_dir(dir).unwrap() {
+        let path = entry.unwrap().path();
+        if path.is_dir() {
+            rust_files(&path, out);
+        } else if path.extension().is_some_and(|e| e == "rs") {
+            out.push(path);
+        }
+    }
+}
+
+/// Guards the sources shown to users (README, DEVELOPERS, rigs, doc comments, the HTML
+/// report's notes): published handbooks, standards and textbooks, never a manufacturer
+/// (tests may name the exact table they check); the wire-rope D/d of 26 belongs to 6x25
+/// filler-wire rope; `cone_angle` is a half-angle where the user writes it.
+#[test]
+fn user_facing_text_names_no_manufacturer_and_the_right_sources() {
+    let root = Path::new(ROOT);
+    let mut files = vec![root.join("README.md"), root.join("DEVELOPERS.md")];
+    rust_files(&root.join("src"), &mut files);
+    for e in fs::read_dir(root.join("rigs")).unwrap() {
+        files.push(e.unwrap().path());
+    }
+    let html = stdout_of(&["report", rig("ramp-winch").to_str().unwrap(), "-o", "-"]);
+    let mut texts: Vec<(String, String)> = files
+        .iter()
+        .map(|f| (f.display().to_string(), fs::read_to_string(f).unwrap()))
+        .collect();
+    texts.push(("the HTML report".to_string(), html.clone()));
+    for (name, text) in &texts {
+        for maker in ["SKF", "Koyo", "JTEKT"] {
+            assert!(!text.contains(maker), "{name} names the maker {maker}");
+        }
+    }
+    let readme = fs::read_to_string(root.join("README.md")).unwrap();
+    for needle in ["6x25 filler-wire", "30–34", "half-angle"] {
+        assert!(readme.contains(needle), "README lacks `{needle}`");
+    }
+    assert!(html.contains("half-angle"), "the report's thrust note");
+    let load = fs::read_to_string(root.join("src/rig/load.rs")).unwrap();
+    assert!(
+        load.contains("6x25 filler-wire"),
+        "default_min_bend_ratio's source"
+    );
+}

@@ -95,9 +95,9 @@ as in Beer and Johnston, chapter 8, section \"Journal Bearings. Axle Friction\".
         "Sheave on a rolling bearing: constant-coefficient catalogue model",
         "Friction moment M = μ_b |F_pin| d_bore / 2, i.e. r_f = μ_b d_bore / 2, then as for \
 the friction circle. The simplified friction moment of rolling-bearing makers' general \
-catalogues (e.g. the SKF rolling bearings catalogue, \"Friction\": estimating the \
-frictional moment with a constant coefficient, M = 0.5 μ P d), with the catalogue's \
-coefficient for the bearing type (0.0015 for an open deep groove ball bearing).",
+catalogues (a constant coefficient per bearing type, M = 0.5 μ P d, about 0.0015 for an \
+open deep groove ball bearing), as presented in bearing-design texts, e.g. Harnoy, Bearing \
+Design in Machinery, chapter on rolling-element bearings (friction).",
     ),
     (
         "Rated sheaves and multi-part tackle: wire-rope handbook reeving efficiency",
@@ -111,7 +111,8 @@ handbooks on reeving efficiency.",
         "Drum shafts: thrust (pivot and collar) friction",
         "M_thrust = μ W r_eff with r_eff = (2/3)(Ro³ − Ri³)/(Ro² − Ri²) for uniform pressure \
 (new surfaces) and r_eff = (Ro + Ri)/2 for uniform wear (run-in surfaces); a conical \
-pivot of half-angle α divides by sin α. As in Beer and Johnston, chapter 8, section \"Thrust \
+pivot of half-angle α (the file's cone_angle: half the pivot's included angle) divides \
+by sin α. As in Beer and Johnston, chapter 8, section \"Thrust \
 Bearings. Disk Friction\", and in machine-design texts on disc clutches, e.g. Shigley's Mechanical \
 Engineering Design (clutches and brakes: uniform wear and uniform pressure).",
     ),

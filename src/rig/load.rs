@@ -254,9 +254,10 @@ fn sorted(mut problems: Vec<Problem>) -> Vec<Problem> {
 
 /// Default least tread-diameter / rope-diameter ratio for a rope kind.
 ///
-/// - wire: 26 (from memory: wire-rope handbook D/d tables give about 26 as the minimum
-///   for 6x19-class rope, more for stiffer constructions; give `min_bend_ratio` for
-///   your rope);
+/// - wire: 26, the least D/d of the wire-rope handbooks' table for 6x25 filler-wire
+///   class rope (the *Wire Rope Users Manual*'s D/d table; from memory); other 6x19-class
+///   constructions need 30–34 (6x21 filler wire 30, 6x19 Seale 34) and stiffer ones more:
+///   give `min_bend_ratio` for your rope;
 /// - fibre: 8 (common practice for braided and laid fibre rope on sheaves);
 /// - kernmantle: 4 (common practice in rope rescue: pulley diameter at least four rope
 ///   diameters);
@@ -956,7 +957,7 @@ impl Resolver {
                     n,
                     &p,
                     |v| v > 0.0 && v <= std::f64::consts::FRAC_PI_2,
-                    "a half-angle greater than 0 and at most 90 degrees",
+                    "a half-angle (half the pivot's included angle) greater than 0 and at most 90 degrees",
                 );
                 Some(v?)
             }
@@ -1993,7 +1994,8 @@ lines:
         assert_eq!(rig.title, "u.yaml");
         // 0.25 in = 0.25 * 0.0254 m = 0.00635 m (1959 agreement, exact).
         assert!(close(rig.ropes[0].diameter, 0.00635));
-        // Wire rope default D/d 26, from memory of wire-rope handbook tables.
+        // Wire rope default D/d 26, the least for 6x25 filler-wire rope (wire-rope
+        // handbook D/d table, from memory).
         assert_eq!(rig.ropes[0].min_bend_ratio, 26.0);
         let PartKind::Guide(g) = &rig.parts[1].kind else {
             panic!()
