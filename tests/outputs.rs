@@ -1089,3 +1089,60 @@ fn user_facing_text_names_no_manufacturer_and_the_right_sources() {
         "default_min_bend_ratio's source"
     );
 }
+
+/// Guards the printed report: with the print stylesheet, every table (the 16-column
+/// parts table above all) fits the width of an A4 page inside its 14 mm margins
+/// (182 mm, 688 px at 96 px per inch). Measured in headless Chromium on a copy of the
+/// report whose print rules apply on screen and which carries a measuring script.
+#[test]
+fn html_tables_fit_a_printed_a4_page() {
+    let Some(browser) = browser() else {
+        if std::env::var("REEVE_REQUIRE_BROWSER").as_deref() == Ok("1") {
+            panic!("REEVE_REQUIRE_BROWSER=1 but no chromium was found on PATH");
+        }
+        eprintln!("skipped: no headless browser (chromium) on PATH");
+        return;
+    };
+    let dir = scratch("a4");
+    for name in ["line-set", "rescue-haul", "greenhouse-vents"] {
+        let html = stdout_of(&["report", rig(name).to_str().unwrap(), "-o", "-"]);
+        assert!(html.contains("@media print"));
+        let script = "<pre id=\"measure\"></pre><script>\
+const width = document.documentElement.clientWidth; const wide = [];\
+document.querySelectorAll('table').forEach(t => { const r = t.getBoundingClientRect().right;\
+ if (r > width + 0.5) wide.push((t.id || t.className) + ' ' + Math.round(r)); });\
+if (document.documentElement.scrollWidth > width) wide.push('page ' + document.documentElement.scrollWidth);\
+document.getElementById('measure').textContent = wide.length ? 'too wide: ' + wide.join(', ') + ' > ' + width : 'fits';\
+</script></body>";
+        let page = html
+            .replace("@media print", "@media all")
+            .replace("</body>", script);
+        let file = dir.join(format!("{name}.html"));
+        fs::write(&file, page).unwrap();
+        let profile = dir.join(format!("profile-{name}"));
+        let mut cmd = Command::new(&browser);
+        cmd.args([
+            "--headless",
+            "--no-sandbox",
+            "--disable-gpu",
+            "--disable-quic",
+            "--no-first-run",
+            "--disable-background-networking",
+            "--disable-component-update",
+            "--disable-sync",
+            "--hide-scrollbars",
+            "--window-size=688,1200",
+        ])
+        .arg(format!("--user-data-dir={}", profile.display()))
+        .arg("--dump-dom")
+        .arg(format!("file://{}", file.canonicalize().unwrap().display()));
+        let dom = run_with_deadline(cmd, Duration::from_secs(120));
+        let measured = dom
+            .split("<pre id=\"measure\">")
+            .nth(1)
+            .and_then(|s| s.split('<').next())
+            .unwrap_or("no measurement");
+        assert_eq!(measured, "fits", "{name}");
+    }
+    let _ = fs::remove_dir_all(&dir);
+}

@@ -62,8 +62,9 @@ dl.methods dd { margin: 0.2rem 0 0 1rem; }
   body { padding: 0; font-size: 10pt; }
   main { max-width: none; }
   .table-scroll { overflow: visible; border: none; }
-  th, td { padding: 0.15rem 0.3rem; }
-  th { white-space: normal; }
+  /* An A4 page inside 14 mm margins is 182 mm wide: the 16-column parts table fits
+     with narrow padding and directions wrapping at their commas. */
+  th, td { padding: 0.1rem 0.15rem; white-space: normal; }
   table.data { font-size: 7.5pt; }
   figure, .loss, table.summary, .caution { break-inside: avoid; }
   tr { break-inside: avoid; }
