@@ -855,6 +855,18 @@ fn bearing_sizes_that_do_not_fit_the_part_are_refused() {
         &set(&[("parts.head.bearing.pin_diameter", "8 mm")]),
     )
     .unwrap();
+    // A size written with its unit gets no hint about bare numbers.
+    let e = load_str_with(
+        &metres,
+        "rig.yaml",
+        &set(&[("parts.head.bearing.pin_diameter", "80 mm")]),
+    )
+    .unwrap_err();
+    let shown = e.to_string();
+    assert!(
+        shown.contains("smaller than") && !shown.contains("bare numbers"),
+        "{shown}"
+    );
 }
 
 /// Guards the wording of `cone_angle`: a pivot's included angle written where the

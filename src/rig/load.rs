@@ -996,10 +996,12 @@ impl Resolver {
         if size < part_diameter {
             return;
         }
-        let location = bearing_node
+        let node = bearing_node
             .and_then(Node::entries)
-            .and_then(|e| get(e, key))
-            .map_or(Location::default(), |n| n.location);
+            .and_then(|e| get(e, key));
+        let location = node.map_or(Location::default(), |n| n.location);
+        // The likely slip is a bare number read in the file's unit (`8` on a rig in m).
+        let bare = node.is_some_and(|n| n.plain_number().is_some());
         let unit = self.units.length;
         let shown = |v: Real| {
             let text = format!("{:.6}", v / unit.si);
@@ -1010,10 +1012,17 @@ impl Resolver {
             location,
             join(bearing_path, key),
             format!(
-                "the {what} ({}) does not fit a {part} of {} {measure}; expected a {what} diameter smaller than the {part}'s {measure} (bare numbers are in the file's length unit, {}; write a unit such as `8 mm` to say otherwise)",
+                "the {what} ({}) does not fit a {part} of {} {measure}; expected a {what} diameter smaller than the {part}'s {measure}{}",
                 shown(size),
                 shown(part_diameter),
-                unit.symbol
+                if bare {
+                    format!(
+                        " (bare numbers are in the file's length unit, {}; write a unit such as `8 mm` to say otherwise)",
+                        unit.symbol
+                    )
+                } else {
+                    String::new()
+                }
             ),
         );
     }
