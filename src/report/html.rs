@@ -303,7 +303,7 @@ pub fn write_html(
     w.write_all(drawing.as_bytes())?;
     writeln!(
         w,
-        "<figcaption>Drawn to scale; spans coloured and labelled by forward tension; parts with warnings ringed in red.</figcaption>\n</figure>\n</section>"
+        "<figcaption>Drawn at the scale in its title block (on the sheet printed at full size); spans coloured and labelled by forward tension; parts with warnings ringed in red.</figcaption>\n</figure>\n</section>"
     )?;
 
     let tables = table::tables(
