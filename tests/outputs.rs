@@ -490,6 +490,37 @@ fn browser() -> Option<PathBuf> {
     None
 }
 
+/// The headless browser; where none is installed, `None` (the caller skips its browser
+/// checks, saying so), unless `REEVE_REQUIRE_BROWSER=1` demands one (CI).
+fn browser_or_skip(skipped: &str) -> Option<PathBuf> {
+    let found = browser();
+    if found.is_none() {
+        if std::env::var("REEVE_REQUIRE_BROWSER").as_deref() == Ok("1") {
+            panic!("REEVE_REQUIRE_BROWSER=1 but no chromium was found on PATH");
+        }
+        eprintln!("skipped: no headless browser (chromium) on PATH{skipped}");
+    }
+    found
+}
+
+/// A headless browser command with its own profile and the flags that keep it from
+/// reaching for the network (NOTES.md).
+fn headless(browser: &Path, profile: &Path) -> Command {
+    let mut cmd = Command::new(browser);
+    cmd.args([
+        "--headless",
+        "--no-sandbox",
+        "--disable-gpu",
+        "--disable-quic",
+        "--no-first-run",
+        "--disable-background-networking",
+        "--disable-component-update",
+        "--disable-sync",
+    ])
+    .arg(format!("--user-data-dir={}", profile.display()));
+    cmd
+}
+
 /// Runs a command with a deadline; returns its stdout.
 fn run_with_deadline(mut cmd: Command, deadline: Duration) -> String {
     let mut child = cmd
@@ -542,31 +573,14 @@ fn html_report_renders_in_a_headless_browser() {
     assert!(text.contains("@media print"));
     assert!(text.contains(reeve::report::CAUTION));
 
-    let Some(browser) = browser() else {
-        if std::env::var("REEVE_REQUIRE_BROWSER").as_deref() == Ok("1") {
-            panic!("REEVE_REQUIRE_BROWSER=1 but no chromium was found on PATH");
-        }
-        eprintln!(
-            "skipped: no headless browser (chromium) on PATH; the HTML was checked as text only"
-        );
+    let Some(browser) = browser_or_skip("; the HTML was checked as text only") else {
         return;
     };
     let profile = dir.join("profile");
     fs::create_dir_all(&profile).unwrap();
-    let mut cmd = Command::new(browser);
-    cmd.args([
-        "--headless",
-        "--no-sandbox",
-        "--disable-gpu",
-        "--disable-quic",
-        "--no-first-run",
-        "--disable-background-networking",
-        "--disable-component-update",
-        "--disable-sync",
-    ])
-    .arg(format!("--user-data-dir={}", profile.display()))
-    .arg("--dump-dom")
-    .arg(format!("file://{}", html.canonicalize().unwrap().display()));
+    let mut cmd = headless(&browser, &profile);
+    cmd.arg("--dump-dom")
+        .arg(format!("file://{}", html.canonicalize().unwrap().display()));
     let dom = run_with_deadline(cmd, Duration::from_secs(120));
     assert!(
         dom.contains("<main>"),
@@ -1101,11 +1115,7 @@ fn user_facing_text_names_no_manufacturer_and_the_right_sources() {
 /// report whose print rules apply on screen and which carries a measuring script.
 #[test]
 fn html_tables_fit_a_printed_a4_page() {
-    let Some(browser) = browser() else {
-        if std::env::var("REEVE_REQUIRE_BROWSER").as_deref() == Ok("1") {
-            panic!("REEVE_REQUIRE_BROWSER=1 but no chromium was found on PATH");
-        }
-        eprintln!("skipped: no headless browser (chromium) on PATH");
+    let Some(browser) = browser_or_skip("") else {
         return;
     };
     let dir = scratch("a4");
@@ -1125,22 +1135,9 @@ document.getElementById('measure').textContent = wide.length ? 'too wide: ' + wi
         let file = dir.join(format!("{name}.html"));
         fs::write(&file, page).unwrap();
         let profile = dir.join(format!("profile-{name}"));
-        let mut cmd = Command::new(&browser);
-        cmd.args([
-            "--headless",
-            "--no-sandbox",
-            "--disable-gpu",
-            "--disable-quic",
-            "--no-first-run",
-            "--disable-background-networking",
-            "--disable-component-update",
-            "--disable-sync",
-            "--hide-scrollbars",
-            "--window-size=688,1200",
-        ])
-        .arg(format!("--user-data-dir={}", profile.display()))
-        .arg("--dump-dom")
-        .arg(format!("file://{}", file.canonicalize().unwrap().display()));
+        let mut cmd = headless(&browser, &profile);
+        cmd.args(["--hide-scrollbars", "--window-size=688,1200", "--dump-dom"])
+            .arg(format!("file://{}", file.canonicalize().unwrap().display()));
         let dom = run_with_deadline(cmd, Duration::from_secs(120));
         let measured = dom
             .split("<pre id=\"measure\">")
