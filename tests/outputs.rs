@@ -1279,6 +1279,26 @@ fn the_default_drawing_separates_parts_spans_and_labels() {
     }
 }
 
+/// Guards the default view against seeing the rig edge-on: a flat rig of kilometre
+/// falls 66 mm apart separates its parts best from the top, where every span is a dot,
+/// and a rig along one axis has area only in the isometric view; both are drawn from
+/// the front.
+#[test]
+fn the_default_view_never_sees_the_rig_edge_on() {
+    for name in ["block-unknown", "two-subrigs", "frictionless", "slope-cart"] {
+        let file = Path::new(ROOT).join(format!("tests/rigs/review/{name}.yaml"));
+        let svg = stdout_of(&["draw", file.to_str().unwrap(), "-o", "-"]);
+        let doc = roxmltree::Document::parse(&svg).unwrap();
+        let view = doc.root_element().attribute("data-view").unwrap();
+        let expected = if name == "two-subrigs" {
+            "side"
+        } else {
+            "front"
+        };
+        assert_eq!(view, expected, "{name}");
+    }
+}
+
 /// The part names of a part label (`⚠ head.1, head.2`).
 fn l_names(label: &str) -> Vec<String> {
     label

@@ -292,7 +292,8 @@ fn groups(n: usize, close: impl Fn(usize, usize) -> bool) -> Vec<Vec<usize>> {
 }
 
 /// How many pairs of parts (other than a block and the parts it carries) and pairs of
-/// spans a view draws on top of each other at its scale.
+/// spans a view draws on top of each other at its scale, and how many spans it shows
+/// only end-on (as dots).
 fn overlaps(rig: &Rig, solution: &Solution, points: &[Point], view: View) -> usize {
     let (parts, spans) = projected(rig, solution, view, view_scale(points, view).px_per_m());
     let carried =
@@ -306,7 +307,11 @@ fn overlaps(rig: &Rig, solution: &Solution, points: &[Point], view: View) -> usi
             }
         }
     }
-    for i in 0..spans.len() {
+    for (i, span) in spans.iter().enumerate() {
+        // A span seen end-on is a dot: the view does not show it.
+        if (span[1].0 - span[0].0).hypot(span[1].1 - span[0].1) < COINCIDENT_PX {
+            n += 1;
+        }
         for j in i + 1..spans.len() {
             if segments_coincide(spans[i], spans[j], COINCIDENT_PX)
                 || segments_coincide(spans[j], spans[i], COINCIDENT_PX)
@@ -318,36 +323,50 @@ fn overlaps(rig: &Rig, solution: &Solution, points: &[Point], view: View) -> usi
     n
 }
 
+/// A view whose projected area is below this share of the largest orthographic view's
+/// is the rig seen (nearly) edge-on: it shows no layout, however well it separates the
+/// parts.
+const EDGE_ON_AREA: Real = 0.01;
+
 /// The view that separates the rig's parts and spans best: of front, side, top and
-/// iso, the one that draws the fewest pairs of parts or spans on top of each other at
-/// its scale; among equals an orthographic view (true lengths) before the isometric,
-/// then the largest projected area (a flat rig seen edge-on has none), then the largest
-/// perimeter; ties go to front, then side, then top.
+/// iso, leaving out views that see the rig edge-on (area under 1 % of the largest
+/// orthographic view's), the one that draws the fewest pairs of parts or spans on top
+/// of each other, and spans end-on, at its scale; among equals an orthographic view
+/// (true lengths) before the isometric, then the largest projected area, then the
+/// largest perimeter; ties go to front, then side, then top.
 pub fn default_view(rig: &Rig, solution: &Solution) -> View {
     let points = key_points(rig, solution);
-    let score = |v: View| {
+    let views = [View::Front, View::Side, View::Top, View::Iso];
+    let size = |v: View| {
         let (x0, x1, y0, y1) = extent(&points, v);
-        (
+        ((x1 - x0) * (y1 - y0), (x1 - x0) + (y1 - y0))
+    };
+    // Against the orthographic views only: a rig along one axis has no area in any of
+    // them and some in the isometric, yet its front view shows it best.
+    let largest = views[..3].iter().map(|&v| size(v).0).fold(0.0, Real::max);
+    let mut best: Option<(View, (usize, bool, Real, Real))> = None;
+    for v in views {
+        let (area, perimeter) = size(v);
+        if area < EDGE_ON_AREA * largest {
+            continue;
+        }
+        let score = (
             overlaps(rig, solution, &points, v),
             v == View::Iso,
-            (x1 - x0) * (y1 - y0),
-            (x1 - x0) + (y1 - y0),
-        )
-    };
-    let mut best = View::Front;
-    let mut best_score = score(best);
-    for v in [View::Side, View::Top, View::Iso] {
-        let (n, iso, a, p) = score(v);
-        let (bn, biso, ba, bp) = best_score;
-        let better = (n, iso) < (bn, biso)
-            || ((n, iso) == (bn, biso)
-                && (a > ba * (1.0 + 1e-9) || (a >= ba * (1.0 - 1e-9) && p > bp * (1.0 + 1e-9))));
+            area,
+            perimeter,
+        );
+        let better = best.map_or(true, |(_, (bn, biso, ba, bp))| {
+            (score.0, score.1) < (bn, biso)
+                || ((score.0, score.1) == (bn, biso)
+                    && (area > ba * (1.0 + 1e-9)
+                        || (area >= ba * (1.0 - 1e-9) && perimeter > bp * (1.0 + 1e-9))))
+        });
         if better {
-            best = v;
-            best_score = (n, iso, a, p);
+            best = Some((v, score));
         }
     }
-    best
+    best.map_or(View::Front, |(v, _)| v)
 }
 
 /// Two unit vectors spanning the plane normal to `axle`.
