@@ -6,19 +6,22 @@ fn main() {
     let cli = match reeve::cli::Cli::try_parse() {
         Ok(cli) => cli,
         Err(e) => {
-            let code = if e.use_stderr() {
-                reeve::cli::EXIT_BAD_INPUT
-            } else {
-                0
-            };
-            let _ = e.print();
-            std::process::exit(code);
+            if !e.use_stderr() {
+                // Help and version.
+                let _ = e.print();
+                std::process::exit(0);
+            }
+            // The message quotes what was typed: never echo a control character raw.
+            let rendered = e.render().to_string();
+            eprint!("{}", reeve::text::printable_lines(&rendered));
+            std::process::exit(reeve::cli::EXIT_BAD_INPUT);
         }
     };
     let code = match reeve::cli::run(cli) {
         Ok(code) => code,
         Err(failure) => {
-            eprintln!("reeve: {}", failure.message);
+            // Messages quote names and values: never echo a control character raw.
+            eprintln!("reeve: {}", reeve::text::printable_lines(&failure.message));
             failure.code
         }
     };

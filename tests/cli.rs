@@ -729,3 +729,39 @@ fn bend_ratio_warnings_on_the_same_rope_and_limit_read_as_one() {
     assert_eq!(stalled.len(), 1, "{text}");
     assert!(stalled[0].contains("forward and back"), "{}", stalled[0]);
 }
+
+/// Guards the efficiency bound: a self-locking rig's back value has the opposite sign to
+/// the ideal value, and `back/ideal` (−8.2 % here) was printed as an efficiency. No
+/// output shows an efficiency outside 0–100 %; the text says why there is none.
+#[test]
+fn an_efficiency_outside_0_to_100_percent_is_never_printed() {
+    let rig = concat!(env!("CARGO_MANIFEST_DIR"), "/rigs/line-set.yaml");
+    let set = ["--set", "parts.loft.c.bearing.mu=1.5"];
+    let json = check_json(&[rig, set[0], set[1]]);
+    assert_eq!(json["self_locking"], true);
+    assert!(json["back"]["value"].as_f64().unwrap() < 0.0);
+    assert!(json["back"]["efficiency"].is_null(), "{}", json["back"]);
+    let e = json["forward"]["efficiency"].as_f64().unwrap();
+    assert!((0.0..=1.0).contains(&e), "{e}");
+    let out = Command::new(env!("CARGO_BIN_EXE_reeve"))
+        .args(["check", rig, set[0], set[1]])
+        .output()
+        .unwrap();
+    let text = String::from_utf8_lossy(&out.stdout);
+    let row = text
+        .lines()
+        .find(|l| l.trim_start().starts_with("efficiency"))
+        .unwrap();
+    assert!(!row.contains('-'), "{row}");
+    assert!(text.contains("No back efficiency"), "{text}");
+    let out = Command::new(env!("CARGO_BIN_EXE_reeve"))
+        .args(["report", rig, set[0], set[1], "-o", "-"])
+        .output()
+        .unwrap();
+    let html = String::from_utf8_lossy(&out.stdout);
+    assert!(
+        !html.contains("-8.2 %") && !html.contains("−8.2 %"),
+        "html shows it"
+    );
+    assert!(html.contains("No back efficiency"));
+}

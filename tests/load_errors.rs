@@ -710,3 +710,173 @@ fn overrides_may_add_a_missing_key_and_remove_an_optional_one() {
     assert_eq!(head.mass, Some(2.0));
     assert_eq!(rig.ropes[0].breaking_strength, None);
 }
+
+/// Guards the file check: a NUL in a comment once ended the YAML reader there and the
+/// rest of the file (here its `limits`) was silently ignored.
+#[test]
+fn control_characters_in_the_file_are_refused_with_line_and_column() {
+    let text = with(
+        "solve_for: hand ",
+        "# a comment with a \u{0} in it\nsolve_for: hand ",
+    ) + "limits: {design_factor: 50}\n";
+    let e = fails(&text);
+    assert_problem(&e, 19, &["19:20", "U+0000", "NUL"]);
+    // Every other control character but tab, CR and LF, the C1 controls and the Unicode
+    // line separators and bidirectional overrides too, wherever they are written.
+    for (c, line) in [
+        ('\u{1b}', 2),
+        ('\u{7f}', 9),
+        ('\u{85}', 12),
+        ('\u{2028}', 17),
+        ('\u{202e}', 18),
+        ('\u{2066}', 1),
+    ] {
+        let text = match line {
+            2 => with("workshop hatch", &format!("workshop{c} hatch")),
+            9 => with("eye:    {", &format!("eye:    {{  # {c}\n    ")),
+            12 => with("hook:   {", &format!("hook{c}:   {{")),
+            17 => with("fall: {rope", &format!("fall: {{rope{c}")),
+            18 => with(
+                "# the part whose forward",
+                &format!("# the {c}part whose forward"),
+            ),
+            _ => format!("{c}{EXAMPLE}"),
+        };
+        let e = fails(&text);
+        let code = format!("U+{:04X}", c as u32);
+        assert_problem(&e, line, &[code.as_str(), "only tab"]);
+    }
+    // Tabs in comments and between values, and CRLF line ends, are fine.
+    let tabbed = with(
+        "# defaults for bare numbers",
+        "#\tdefaults\tfor bare numbers",
+    )
+    .replace("mu: 0.2, min_bend_ratio", "mu: 0.2,\tmin_bend_ratio")
+    .replace('\n', "\r\n");
+    load_str(&tabbed, "rig.yaml").unwrap();
+}
+
+/// Guards escaped text: a control character written as a YAML escape (`"\e"`, `"\0"`)
+/// in quoted text is refused like a raw one; a title or name is one line.
+#[test]
+fn control_characters_written_as_escapes_are_refused() {
+    let e = fails(&with(
+        "title: Two-part hoist for a workshop hatch",
+        "title: \"Two-part \\e[31mhoist\"",
+    ));
+    assert_problem(&e, 2, &["title", "U+001B"]);
+    let e = fails(&with(
+        "hook:   {kind: block",
+        "\"ho\\u202Eok\":   {kind: block",
+    ));
+    assert_problem(&e, 12, &["U+202E"]);
+    let e = fails(&with(
+        "braid6: {diameter: 6,",
+        "braid6: {diameter: \"6\\0 mm\",",
+    ));
+    assert_problem(&e, 7, &["U+0000"]);
+    let e = fails(&with(
+        "title: Two-part hoist for a workshop hatch",
+        "title: \"Two-part\\nhoist\"",
+    ));
+    assert_problem(&e, 2, &["title", "one line"]);
+}
+
+/// Guards the other ways text enters: `--set` values get the same check as the file.
+#[test]
+fn control_characters_in_overrides_are_refused() {
+    for (key, value) in [
+        ("parts.head.bearing.mu", "0.1\u{0}"),
+        ("parts.hook.load.mass", "40\u{1b}[2J kg"),
+        ("title", "new \u{202e}title"),
+    ] {
+        let e = load_str_with(EXAMPLE, "rig.yaml", &set(&[(key, value)])).unwrap_err();
+        let shown = e.to_string();
+        assert!(
+            shown.contains("control character") || shown.contains("U+202E"),
+            "{shown}"
+        );
+        assert!(shown.contains(key), "{shown}");
+    }
+}
+
+/// Guards bearing sizes: a pin or bore as large as the part it carries (a 200 mm pin in
+/// a 60 mm sheave, or a bare `8` read as metres) is refused at its key, for sheaves and
+/// drum shafts, from the file and from `--set`.
+#[test]
+fn bearing_sizes_that_do_not_fit_the_part_are_refused() {
+    let e = fails(&with("pin_diameter: 10,", "pin_diameter: 200,"));
+    assert_problem(
+        &e,
+        11,
+        &[
+            "parts.head.bearing.pin_diameter",
+            "200 mm",
+            "60 mm",
+            "smaller than",
+        ],
+    );
+    let e = fails(&with("bore: 10,", "bore: 60,"));
+    assert_problem(&e, 14, &["parts.hook.a.bearing.bore", "smaller than"]);
+    // A drum's shaft journal.
+    let drum = with(
+        "  hand:   {kind: haul, at: [400, 0, 1000]}",
+        "  hand:   {kind: drum, at: [400, 0, 1000], axle: [0, 1, 0], diameter: 40,\n           shaft: {bearing: {kind: plain, pin_diameter: 45, mu: 0.1}}}",
+    );
+    let e = fails(&drum);
+    assert_problem(
+        &e,
+        16,
+        &["parts.hand.shaft.bearing.pin_diameter", "45 mm", "40 mm"],
+    );
+    // An override in the wrong unit is refused, naming the override and the file's unit.
+    let metres = EXAMPLE
+        .replace("length: mm", "length: m")
+        .replace("diameter: 6,", "diameter: 0.006,")
+        .replace("diameter: 60,", "diameter: 0.06,")
+        .replace("pin_diameter: 10,", "pin_diameter: 0.01,")
+        .replace("bore: 10,", "bore: 0.01,");
+    load_str(&metres, "rig.yaml").unwrap();
+    let e = load_str_with(
+        &metres,
+        "rig.yaml",
+        &set(&[("parts.head.bearing.pin_diameter", "8")]),
+    )
+    .unwrap_err();
+    let shown = e.to_string();
+    assert!(
+        shown.contains("8 m") && shown.contains("bare numbers") && shown.contains("override"),
+        "{shown}"
+    );
+    // Written with its unit, it fits.
+    load_str_with(
+        &metres,
+        "rig.yaml",
+        &set(&[("parts.head.bearing.pin_diameter", "8 mm")]),
+    )
+    .unwrap();
+    // A size written with its unit gets no hint about bare numbers.
+    let e = load_str_with(
+        &metres,
+        "rig.yaml",
+        &set(&[("parts.head.bearing.pin_diameter", "80 mm")]),
+    )
+    .unwrap_err();
+    let shown = e.to_string();
+    assert!(
+        shown.contains("smaller than") && !shown.contains("bare numbers"),
+        "{shown}"
+    );
+}
+
+/// Guards the wording of `cone_angle`: a pivot's included angle written where the
+/// half-angle belongs (120°) is refused with a message that says which angle is meant.
+#[test]
+fn cone_angle_errors_say_it_is_the_half_angle() {
+    let text = with(
+        "  hand:   {kind: haul, at: [400, 0, 1000]}",
+        "  hand:   {kind: drum, at: [400, 0, 1000], axle: [0, 1, 0], diameter: 40,\n           shaft: {thrust: {load: 10, diameter: 20, mu: 0.1, contact: new, cone_angle: 120}}}",
+    );
+    let e = fails(&text);
+    assert_problem(&e, 16, &["cone_angle", "half-angle", "included angle"]);
+}

@@ -449,10 +449,10 @@ fn tackle_spot_values_by_hand() {
 
 #[test]
 fn oilfield_ten_line_fast_line_factor() {
-    // Source: drilling handbook fast-line factor table for block-and-tackle reeving
-    // (e.g. IADC Drilling Manual / API RP 9B tables; from memory): 10 lines strung,
-    // roller-bearing sheaves K = 1.04, efficiency 0.811, fast-line factor 0.123
-    // (fast-line tension = factor × hook load). The fast line leaves the crown (fixed)
+    // Source: API RP 9B (wire rope: application, care and use), §2.3.3.4, fast-line
+    // factor for block-and-tackle reeving (from memory): 10 lines strung,
+    // roller-bearing sheaves K = 1.04, efficiency 0.811, fast-line factor 0.123 as
+    // printed (its formula gives 0.123 29; fast-line tension = factor × hook load). The fast line leaves the crown (fixed)
     // block, the dead line is anchored: S = N = 10.
     // Hand calculation: 1.04¹⁰ = 1.480 244; E = 0.480 244/(1.480 244·10·0.04) = 0.811 09;
     // factor = 1/(10·0.811 09) = 0.123 29.

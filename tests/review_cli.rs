@@ -210,3 +210,102 @@ fn studies_locate_solve_errors_like_check() {
         );
     }
 }
+
+/// Guards the file check at the command line: a NUL in a comment ended the reading
+/// there and the run went on with half a file (exit 0).
+#[test]
+fn a_control_character_in_the_rig_file_is_exit_2_with_line_and_column() {
+    let dir = scratch("nul-comment");
+    let text = RIG.replace(
+        "lines:\n",
+        "# a \u{0} here\nlimits: {design_factor: 50}\nlines:\n",
+    );
+    std::fs::write(dir.join("rig.yaml"), text).unwrap();
+    let out = reeve(&dir, &["check", "rig.yaml"]);
+    assert_eq!(out.status.code(), Some(2), "{}", stderr(&out));
+    assert!(stderr(&out).contains("rig.yaml:11:5:"), "{}", stderr(&out));
+    assert!(stderr(&out).contains("U+0000 (NUL)"), "{}", stderr(&out));
+}
+
+/// Guards the other ways text enters: `--set` values, `variants` (after YAML escapes)
+/// and `rank --to` get the file's character check, and the message shows the character
+/// escaped, never raw on the terminal.
+#[test]
+fn control_characters_in_set_variants_and_rank_to_are_refused() {
+    let dir = scratch("control-entries");
+    let variants = RIG.to_string() + "variants:\n  bad: [\"parts.s.bearing.mu=0.1\\0\"]\n";
+    write_rig(&dir);
+    std::fs::write(dir.join("variants.yaml"), &variants).unwrap();
+    for args in [
+        &[
+            "check",
+            "rig.yaml",
+            "--set",
+            "parts.s.bearing.mu=0.1\u{1b}[2J",
+        ][..],
+        &["check", "rig.yaml", "--set", "title=a \u{202e}title"],
+        &["compare", "variants.yaml", "--variants"],
+        &[
+            "rank",
+            "rig.yaml",
+            "--to",
+            "{kind: plain, pin_diameter: 8, mu: 0.08}\u{1b}[2J",
+        ],
+    ] {
+        let out = reeve(&dir, args);
+        let err = stderr(&out);
+        assert_eq!(out.status.code(), Some(2), "{args:?}: {err}");
+        assert!(err.contains("character U+"), "{args:?}: {err}");
+        assert!(
+            !err.contains(['\u{1b}', '\u{0}', '\u{202e}']),
+            "{args:?}: raw in {err:?}"
+        );
+    }
+}
+
+/// Guards `rank --to` units: a bare number in the bearing text is in the rig's length
+/// unit (a bare `8` on a metre rig is an 8 m pin, refused as not fitting, with a hint),
+/// and a unit may be written (`8 mm`) with the same result as the bare number on a
+/// millimetre rig.
+#[test]
+fn rank_to_reads_bare_numbers_in_the_rigs_units_and_accepts_units() {
+    let dir = scratch("rank-to-units");
+    write_rig(&dir);
+    let metres = RIG
+        .replace("length: mm", "length: m")
+        .replace("diameter: 6,", "diameter: 0.006,")
+        .replace("[0, 0, 2000]", "[0, 0, 2]")
+        .replace("diameter: 50,", "diameter: 0.05,")
+        .replace("pin_diameter: 8,", "pin_diameter: 0.008,")
+        .replace("[-25, 0, 1000]", "[-0.025, 0, 1]")
+        .replace("[25, 0, 1000]", "[0.025, 0, 1]");
+    std::fs::write(dir.join("metres.yaml"), metres).unwrap();
+    let rank = |file: &str, to: &str| {
+        let out = reeve(&dir, &["rank", file, "--to", to, "--format", "json"]);
+        (
+            out.status.code(),
+            String::from_utf8_lossy(&out.stdout).into_owned(),
+            stderr(&out),
+        )
+    };
+    let (code, bare_mm, err) = rank("rig.yaml", "{kind: plain, pin_diameter: 8, mu: 0.08}");
+    assert_eq!(code, Some(0), "{err}");
+    let (code, with_unit, err) = rank("rig.yaml", "{kind: plain, pin_diameter: 8 mm, mu: 0.08}");
+    assert_eq!(code, Some(0), "{err}");
+    let alternative = |json: &str| {
+        let v: serde_json::Value = serde_json::from_str(json).unwrap();
+        v["parts"][0]["alternative"].as_f64().unwrap()
+    };
+    assert_eq!(alternative(&bare_mm), alternative(&with_unit));
+    let (code, _, err) = rank("metres.yaml", "{kind: plain, pin_diameter: 8, mu: 0.08}");
+    assert_eq!(code, Some(2), "{err}");
+    assert!(
+        err.contains("--to") && err.contains("8 m") && err.contains("bare numbers"),
+        "{err}"
+    );
+    let (code, with_unit_m, err) =
+        rank("metres.yaml", "{kind: plain, pin_diameter: 8 mm, mu: 0.08}");
+    assert_eq!(code, Some(0), "{err}");
+    let ratio = alternative(&with_unit_m) / alternative(&with_unit);
+    assert!((ratio - 1.0).abs() < 1e-9, "{ratio}");
+}

@@ -1,14 +1,14 @@
 //! Rolling-element bearings: the constant-coefficient catalogue model.
 //!
-//! Bearing makers give a quick estimate of the running friction moment for a bearing
+//! Rolling-bearing makers' general catalogues give a quick estimate of the running friction moment for a bearing
 //! under moderate load, good lubrication and normal speed: `M = μ · F · d / 2`, with
 //! `d` the bore and `μ` a constant per bearing type. Seen from the sheave, that is a
 //! friction circle of radius `μ d / 2`, used exactly like a plain bearing's.
 //!
-//! Typical coefficients for open (unsealed) bearings, from the SKF *Rolling bearings*
-//! catalogue (section "Friction", table "Constant coefficient of friction μ for open
-//! bearings") and the Koyo/JTEKT catalogue (technical section, "Friction coefficient of
-//! bearings"):
+//! Typical coefficients for open (unsealed) bearings, as the makers' catalogues tabulate
+//! them (their friction sections, constant coefficient of friction by bearing type) and
+//! bearing-design texts reproduce them (Harnoy, *Bearing Design in Machinery*, chapter on
+//! rolling-element bearings; from memory):
 //!
 //! | bearing type | μ |
 //! |---|---|
@@ -23,7 +23,7 @@
 //!
 //! Contact seals, heavy grease and start-up add to these (catalogues quote start-up
 //! friction up to about twice the running value); a plain bearing, for comparison,
-//! runs at 0.01 – 0.02 when well lubricated (Koyo, same table).
+//! runs at 0.01 – 0.02 when well lubricated (same tables).
 
 use crate::math::Real;
 
@@ -54,9 +54,10 @@ use crate::math::Real;
 /// ```
 ///
 /// # Source
-/// SKF, *Rolling bearings* catalogue, "Friction: estimating the frictional moment",
-/// `M = 0.5 μ P d`; Koyo (JTEKT) bearing catalogue, technical section "Friction
-/// coefficient of bearings", `M = μ P d / 2`.
+/// Rolling-bearing makers' general catalogues, friction sections: `M = 0.5 μ P d` with a
+/// constant coefficient per bearing type; as in Harnoy, *Bearing Design in Machinery*,
+/// rolling-element bearings chapter (from memory). `tests/friction_published.rs` checks
+/// the catalogue table it names.
 pub fn friction_radius(bore: Real, mu: Real) -> Real {
     debug_assert!(bore >= 0.0, "bore must be ≥ 0, got {bore}");
     debug_assert!(mu >= 0.0, "coefficient of friction must be ≥ 0, got {mu}");
@@ -85,7 +86,7 @@ pub fn friction_radius(bore: Real, mu: Real) -> Real {
 /// ```
 ///
 /// # Source
-/// SKF, *Rolling bearings* catalogue, "Friction: estimating the frictional moment".
+/// As [`friction_radius`].
 pub fn friction_moment(bore: Real, mu: Real, load: Real) -> Real {
     debug_assert!(load >= 0.0, "bearing load must be ≥ 0, got {load}");
     friction_radius(bore, mu) * load.max(0.0)

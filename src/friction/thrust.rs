@@ -80,7 +80,8 @@ pub fn effective_radius(thrust: &Thrust) -> Real {
 /// `M`, N·m, `≥ 0`.
 ///
 /// # Example
-/// Conical pivot of 150 mm diameter, cone angle 120° (`α = 60°`), 20 kN, μ = 0.03, new
+/// Conical pivot of 150 mm diameter, included angle 120° (so `cone_angle`, the half-angle,
+/// is `α = 60°`), 20 kN, μ = 0.03, new
 /// (uniform pressure): `M = 0.03 × 20 000 × (2/3 × 0.075) / sin 60° = 34.641 N·m`.
 /// ```
 /// use reeve::friction::thrust::moment;

@@ -11,26 +11,11 @@ use crate::rig::model::Rig;
 use crate::solve::Solution;
 use crate::units::{Dimension, UnitSystem};
 
+use super::escape::xml as esc;
 use super::svg::{self, DrawOptions};
 use super::table::{self, Align, CaseFilter, Style, Table, TableChoice};
 use super::text::quantity;
 use super::{Headline, Report, CAUTION};
-
-/// Escapes text for HTML content and attribute values.
-pub fn esc(s: &str) -> String {
-    let mut out = String::with_capacity(s.len());
-    for c in s.chars() {
-        match c {
-            '&' => out.push_str("&amp;"),
-            '<' => out.push_str("&lt;"),
-            '>' => out.push_str("&gt;"),
-            '"' => out.push_str("&quot;"),
-            '\'' => out.push_str("&#39;"),
-            c => out.push(c),
-        }
-    }
-    out
-}
 
 /// Escaped text with its `code` spans (between backticks) as `<code>` elements.
 pub fn code_spans(escaped: &str) -> String {
@@ -102,8 +87,9 @@ dl.methods dd { margin: 0.2rem 0 0 1rem; }
   body { padding: 0; font-size: 10pt; }
   main { max-width: none; }
   .table-scroll { overflow: visible; border: none; }
-  th, td { padding: 0.15rem 0.3rem; }
-  th { white-space: normal; }
+  /* An A4 page inside 14 mm margins is 182 mm wide: the 16-column parts table fits
+     with narrow padding and directions wrapping at their commas. */
+  th, td { padding: 0.1rem 0.15rem; white-space: normal; }
   table.data { font-size: 7.5pt; }
   figure, .loss, table.summary, .caution { break-inside: avoid; }
   tr { break-inside: avoid; }
@@ -135,9 +121,9 @@ as in Beer and Johnston, chapter 8, section \"Journal Bearings. Axle Friction\".
         "Sheave on a rolling bearing: constant-coefficient catalogue model",
         "Friction moment M = μ_b |F_pin| d_bore / 2, i.e. r_f = μ_b d_bore / 2, then as for \
 the friction circle. The simplified friction moment of rolling-bearing makers' general \
-catalogues (e.g. the SKF rolling bearings catalogue, \"Friction\": estimating the \
-frictional moment with a constant coefficient, M = 0.5 μ P d), with the catalogue's \
-coefficient for the bearing type (0.0015 for an open deep groove ball bearing).",
+catalogues (a constant coefficient per bearing type, M = 0.5 μ P d, about 0.0015 for an \
+open deep groove ball bearing), as presented in bearing-design texts, e.g. Harnoy, Bearing \
+Design in Machinery, chapter on rolling-element bearings (friction).",
     ),
     (
         "Rated sheaves and multi-part tackle: wire-rope handbook reeving efficiency",
@@ -151,7 +137,8 @@ handbooks on reeving efficiency.",
         "Drum shafts: thrust (pivot and collar) friction",
         "M_thrust = μ W r_eff with r_eff = (2/3)(Ro³ − Ri³)/(Ro² − Ri²) for uniform pressure \
 (new surfaces) and r_eff = (Ro + Ri)/2 for uniform wear (run-in surfaces); a conical \
-pivot of half-angle α divides by sin α. As in Beer and Johnston, chapter 8, section \"Thrust \
+pivot of half-angle α (the file's cone_angle: half the pivot's included angle) divides \
+by sin α. As in Beer and Johnston, chapter 8, section \"Thrust \
 Bearings. Disk Friction\", and in machine-design texts on disc clutches, e.g. Shigley's Mechanical \
 Engineering Design (clutches and brakes: uniform wear and uniform pressure).",
     ),
@@ -242,6 +229,9 @@ fn write_summary(w: &mut dyn Write, h: &Headline, units: &UnitSystem, id: &str) 
     )?;
     writeln!(w, "</tbody></table></div>")?;
     writeln!(w, "<ul>")?;
+    for note in h.efficiency_notes() {
+        writeln!(w, "<li>{}</li>", esc(&note))?;
+    }
     if let (Some(vr), ma) = h.ratio_words(units) {
         write!(w, "<li>Velocity ratio {}", esc(&vr))?;
         if let Some(p) = &h.load_part {
@@ -340,7 +330,7 @@ pub fn write_html(
     w.write_all(drawing.as_bytes())?;
     writeln!(
         w,
-        "<figcaption>Drawn to scale; spans coloured and labelled by forward tension; parts with warnings ringed in red.</figcaption>\n</figure>\n</section>"
+        "<figcaption>Drawn at the scale in its title block (on the sheet printed at full size); spans coloured and labelled by forward tension; parts with warnings ringed in red.</figcaption>\n</figure>\n</section>"
     )?;
 
     let tables = table::tables(

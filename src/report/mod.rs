@@ -2,6 +2,7 @@
 //! fields are the `check --json` contract of DESIGN.md §5: SI numbers, keys carrying
 //! their units, angles in degrees; `None` becomes JSON `null`, never NaN.
 
+pub mod escape;
 pub mod html;
 pub mod svg;
 pub mod table;
@@ -27,6 +28,19 @@ pub fn finite(x: Real) -> Option<Real> {
     x.is_finite().then_some(x)
 }
 
+/// An efficiency fit to show: a share of the power between 0 and 1 (round-off within
+/// 1e-9 of either end is clamped). Anything else (a back value of the opposite sign
+/// to the ideal value, as in a self-locking rig, gives `back/ideal < 0`) is not an
+/// efficiency and is `None`: JSON leaves it out, and the text says why
+/// ([`Headline::efficiency_notes`]).
+pub fn efficiency(x: Option<Real>) -> Option<Real> {
+    const ROUND_OFF: Real = 1e-9;
+    match x? {
+        e if (-ROUND_OFF..=1.0 + ROUND_OFF).contains(&e) => Some(e.clamp(0.0, 1.0)),
+        _ => None,
+    }
+}
+
 /// The asked quantity.
 #[derive(Debug, Clone, Serialize, PartialEq)]
 pub struct Asked {
@@ -47,7 +61,8 @@ pub struct Asked {
 pub struct CaseHeadline {
     /// The asked quantity in this case, SI.
     pub value: Option<Real>,
-    /// Efficiency (DESIGN.md §3), absent for the ideal case.
+    /// Efficiency (DESIGN.md §3), between 0 and 1 ([`efficiency`]); absent for the ideal
+    /// case and where no efficiency applies.
     #[serde(skip_serializing_if = "Option::is_none")]
     pub efficiency: Option<Real>,
 }
@@ -436,6 +451,29 @@ impl Headline {
         }
     }
 
+    /// Why a case shows no efficiency, one sentence per case that has a value but no
+    /// efficiency (an out-of-range figure is never shown as a number).
+    pub fn efficiency_notes(&self) -> Vec<String> {
+        let ideal = self.ideal.value;
+        [("forward", &self.forward), ("back", &self.back)]
+            .into_iter()
+            .filter(|(_, c)| c.value.is_some() && c.efficiency.is_none())
+            .map(|(name, c)| {
+                let why = match (ideal, c.value) {
+                    (Some(0.0), _) => "the ideal value is zero".to_string(),
+                    (Some(i), Some(v)) if i * v < 0.0 => {
+                        let runs = if name == "back" { "back" } else { "forward" };
+                        format!(
+                            "the {name} value has the opposite sign to the ideal value, so the rig does not run {runs} by itself and no share of the power passes through"
+                        )
+                    }
+                    _ => "the figure would fall outside 0–100 %, which friction cannot give; please report this rig".to_string(),
+                };
+                format!("No {name} efficiency: {why}.")
+            })
+            .collect()
+    }
+
     /// What the given value of the asked quantity is: the drive's `available` effort,
     /// or a load's `stated` value.
     pub fn given_word(&self) -> &'static str {
@@ -518,19 +556,19 @@ fn headline(rig: &Rig, solution: &Solution, sub: &SubRigSolution) -> Headline {
         },
         forward: CaseHeadline {
             value: finite(f),
-            efficiency: sub.forward_efficiency(),
+            efficiency: efficiency(sub.forward_efficiency()),
         },
         back: CaseHeadline {
             value: finite(b),
-            efficiency: sub.back_efficiency(),
+            efficiency: efficiency(sub.back_efficiency()),
         },
         breakaway: sub.breakaway.as_ref().map(|c| CaseHeadline {
             value: finite(c.value),
-            efficiency: finite(if sub.drive_unknown() {
+            efficiency: efficiency(finite(if sub.drive_unknown() {
                 sub.ideal.value / c.value
             } else {
                 c.value / sub.ideal.value
-            }),
+            })),
         }),
         self_locking: sub.self_locking(),
         friction_forward: finite(if sub.drive_unknown() {
@@ -553,7 +591,7 @@ fn headline(rig: &Rig, solution: &Solution, sub: &SubRigSolution) -> Headline {
             }
         },
         load_part: sub.load_part.map(|p| rig.parts[p].name.clone()),
-        mechanical_advantage: sub.mechanical_advantage(),
+        mechanical_advantage: efficiency(sub.forward_efficiency()).and(sub.mechanical_advantage()),
         holding_band: [finite(f.min(b)), finite(f.max(b))],
         available,
         margin,

@@ -1,5 +1,7 @@
-//! The rig drawing of `reeve draw`: a hand-written SVG, drawn to scale in one of four
-//! parallel projections.
+//! The rig drawing of `reeve draw`: a hand-written SVG in one of four parallel
+//! projections, at a standard drawing scale (1, 2 or 5 × 10ⁿ, ISO 5455) that the title
+//! block names; by default in the view that draws the fewest parts and spans on top of
+//! each other ([`default_view`]).
 //!
 //! Round parts are their pitch circles in their own planes, projected (ellipses in
 //! general, drawn as closed paths); anchors, blocks, weights and haul ends are symbols at
@@ -17,8 +19,9 @@ use std::io::{self, Write};
 use crate::math::{Point, Real, Vector};
 use crate::rig::model::{PartKind, Rig};
 use crate::solve::Solution;
-use crate::units::{Dimension, UnitSystem};
+use crate::units::Dimension;
 
+use super::escape::xml as esc;
 use super::table::units_line;
 use super::text::quantity;
 use super::{Report, CAUTION};
@@ -142,24 +145,228 @@ fn extent(points: &[Point], view: View) -> (Real, Real, Real, Real) {
     b
 }
 
-/// The view that spreads the rig most: of front, side and top, the one whose projected
-/// bounding box has the largest area (a flat rig seen edge-on has none), then the
-/// largest perimeter; ties go to front, then side.
+/// A point on the sheet, px from its top left corner (y down).
+type SheetPoint = (Real, Real);
+
+/// A straight segment on the sheet: its two ends.
+type SheetSegment = [SheetPoint; 2];
+
+/// Screen and print resolution of the sheet: 96 px per inch (CSS and SVG user units).
+const PX_PER_MM: Real = 96.0 / 25.4;
+
+/// The drawing area for the rig on the sheet, px (wide, tall).
+const AREA: (Real, Real) = (700.0, 740.0);
+
+/// Parts or spans closer than this on the sheet, px, are drawn on top of each other.
+const COINCIDENT_PX: Real = 4.5;
+
+/// A standard drawing scale (ISO 5455 series 1, 2, 5 × 10ⁿ): `paper : real`.
+#[derive(Debug, Clone, Copy, PartialEq)]
+struct DrawingScale {
+    /// Real length per length on paper (20 for 1:20, 0.5 for 2:1).
+    real_per_paper: Real,
+}
+
+impl DrawingScale {
+    /// The largest standard scale at which `width` × `height` metres fit `area` px.
+    fn fitting(width: Real, height: Real, area: (Real, Real)) -> DrawingScale {
+        let fit = (area.0 / width.max(1e-9)).min(area.1 / height.max(1e-9));
+        // From 100:1 (a small mechanism) to 1:50 000 000.
+        let series = (-2..=7).flat_map(|k| [1.0, 2.0, 5.0].map(|m| m * 10f64.powi(k)));
+        let mut chosen = 5e7;
+        for real_per_paper in series {
+            if PX_PER_MM * 1000.0 / real_per_paper <= fit {
+                chosen = real_per_paper;
+                break;
+            }
+        }
+        DrawingScale {
+            real_per_paper: chosen,
+        }
+    }
+
+    /// Sheet px per real metre.
+    fn px_per_m(self) -> Real {
+        PX_PER_MM * 1000.0 / self.real_per_paper
+    }
+
+    /// `1:20`, `1:1`, `5:1`.
+    fn ratio(self) -> String {
+        if self.real_per_paper >= 1.0 {
+            format!("1:{}", self.real_per_paper.round())
+        } else {
+            format!("{}:1", (1.0 / self.real_per_paper).round())
+        }
+    }
+}
+
+/// The scale a view of the rig is drawn at.
+fn view_scale(points: &[Point], view: View) -> DrawingScale {
+    let (x0, x1, y0, y1) = extent(points, view);
+    DrawingScale::fitting(x1 - x0, y1 - y0, AREA)
+}
+
+/// Whether two sheet segments lie on top of each other: nearly parallel, overlapping
+/// along their length by more than `gap`, and nowhere in the overlap more than `gap`
+/// apart.
+fn segments_coincide(a: SheetSegment, b: SheetSegment, gap: Real) -> bool {
+    let (dx, dy) = (a[1].0 - a[0].0, a[1].1 - a[0].1);
+    let len = dx.hypot(dy);
+    if len < gap {
+        // A span seen end-on is a dot: it coincides with a segment through it.
+        let (ex, ey) = (b[1].0 - b[0].0, b[1].1 - b[0].1);
+        let m = ex.hypot(ey);
+        return m >= gap && {
+            let cross = ((a[0].0 - b[0].0) * ey - (a[0].1 - b[0].1) * ex).abs() / m;
+            let t = ((a[0].0 - b[0].0) * ex + (a[0].1 - b[0].1) * ey) / (m * m);
+            cross < gap && (0.0..=1.0).contains(&t)
+        };
+    }
+    let (ux, uy) = (dx / len, dy / len);
+    let along = |p: SheetPoint| (p.0 - a[0].0) * ux + (p.1 - a[0].1) * uy;
+    let across = |p: SheetPoint| (p.1 - a[0].1) * ux - (p.0 - a[0].0) * uy;
+    let (s0, s1) = (along(b[0]), along(b[1]));
+    if (s1 - s0).abs() < 1e-9 {
+        return false;
+    }
+    let (lo, hi) = (s0.min(s1).max(0.0), s0.max(s1).min(len));
+    if hi - lo < gap {
+        return false;
+    }
+    let offset = |s: Real| {
+        let t = (s - s0) / (s1 - s0);
+        across((
+            b[0].0 + (b[1].0 - b[0].0) * t,
+            b[0].1 + (b[1].1 - b[0].1) * t,
+        ))
+    };
+    offset(lo).abs() < gap && offset(hi).abs() < gap
+}
+
+/// Sheet positions (px, at the view's scale) of every part's point and of every span's
+/// ends.
+fn projected(
+    rig: &Rig,
+    solution: &Solution,
+    view: View,
+    px_per_m: Real,
+) -> (Vec<SheetPoint>, Vec<SheetSegment>) {
+    let (right, up) = view.axes();
+    let at = |p: &Point| {
+        (
+            p.coords.dot(&right) * px_per_m,
+            -p.coords.dot(&up) * px_per_m,
+        )
+    };
+    let parts = rig.parts.iter().map(|p| at(&p.at)).collect();
+    let spans = solution
+        .geometry
+        .lines
+        .iter()
+        .flat_map(|l| l.spans.iter().map(|s| [at(&s.start), at(&s.end)]))
+        .collect();
+    (parts, spans)
+}
+
+/// Groups of indices whose items `close` joins (transitively), in index order.
+fn groups(n: usize, close: impl Fn(usize, usize) -> bool) -> Vec<Vec<usize>> {
+    let mut group: Vec<usize> = (0..n).collect();
+    for i in 0..n {
+        for j in i + 1..n {
+            if close(i, j) {
+                let (gi, gj) = (group[i], group[j]);
+                for g in group.iter_mut().filter(|g| **g == gj) {
+                    *g = gi;
+                }
+            }
+        }
+    }
+    let mut out: Vec<Vec<usize>> = Vec::new();
+    for i in 0..n {
+        match out.iter_mut().find(|g| group[g[0]] == group[i]) {
+            Some(g) => g.push(i),
+            None => out.push(vec![i]),
+        }
+    }
+    out
+}
+
+/// How many pairs of parts (other than a block and the parts it carries) and pairs of
+/// spans a view draws on top of each other at its scale, and how many spans it shows
+/// only end-on (as dots).
+fn overlaps(rig: &Rig, solution: &Solution, points: &[Point], view: View) -> usize {
+    let (parts, spans) = projected(rig, solution, view, view_scale(points, view).px_per_m());
+    let carried =
+        |i: usize, j: usize| rig.parts[i].block == Some(j) || rig.parts[j].block == Some(i);
+    let mut n = 0;
+    for i in 0..parts.len() {
+        for j in i + 1..parts.len() {
+            let d = (parts[i].0 - parts[j].0).hypot(parts[i].1 - parts[j].1);
+            if d < COINCIDENT_PX && !carried(i, j) {
+                n += 1;
+            }
+        }
+    }
+    for (i, span) in spans.iter().enumerate() {
+        // A span seen end-on is a dot: the view does not show it.
+        if (span[1].0 - span[0].0).hypot(span[1].1 - span[0].1) < COINCIDENT_PX {
+            n += 1;
+        }
+        for j in i + 1..spans.len() {
+            if segments_coincide(spans[i], spans[j], COINCIDENT_PX)
+                || segments_coincide(spans[j], spans[i], COINCIDENT_PX)
+            {
+                n += 1;
+            }
+        }
+    }
+    n
+}
+
+/// A view whose projected area is below this share of the largest orthographic view's
+/// is the rig seen (nearly) edge-on: it shows no layout, however well it separates the
+/// parts.
+const EDGE_ON_AREA: Real = 0.01;
+
+/// The view that separates the rig's parts and spans best: of front, side, top and
+/// iso, leaving out views that see the rig edge-on (area under 1 % of the largest
+/// orthographic view's), the one that draws the fewest pairs of parts or spans on top
+/// of each other, and spans end-on, at its scale; among equals an orthographic view
+/// (true lengths) before the isometric, then the largest projected area, then the
+/// largest perimeter; ties go to front, then side, then top.
 pub fn default_view(rig: &Rig, solution: &Solution) -> View {
     let points = key_points(rig, solution);
-    let score = |v: View| {
+    let views = [View::Front, View::Side, View::Top, View::Iso];
+    let size = |v: View| {
         let (x0, x1, y0, y1) = extent(&points, v);
         ((x1 - x0) * (y1 - y0), (x1 - x0) + (y1 - y0))
     };
-    let mut best = View::Front;
-    for v in [View::Side, View::Top] {
-        let (a, p) = score(v);
-        let (ba, bp) = score(best);
-        if a > ba * (1.0 + 1e-9) || (a >= ba * (1.0 - 1e-9) && p > bp * (1.0 + 1e-9)) {
-            best = v;
+    // Against the orthographic views only: a rig along one axis has no area in any of
+    // them and some in the isometric, yet its front view shows it best.
+    let largest = views[..3].iter().map(|&v| size(v).0).fold(0.0, Real::max);
+    let mut best: Option<(View, (usize, bool, Real, Real))> = None;
+    for v in views {
+        let (area, perimeter) = size(v);
+        if area < EDGE_ON_AREA * largest {
+            continue;
+        }
+        let score = (
+            overlaps(rig, solution, &points, v),
+            v == View::Iso,
+            area,
+            perimeter,
+        );
+        let better = best.map_or(true, |(_, (bn, biso, ba, bp))| {
+            (score.0, score.1) < (bn, biso)
+                || ((score.0, score.1) == (bn, biso)
+                    && (area > ba * (1.0 + 1e-9)
+                        || (area >= ba * (1.0 - 1e-9) && perimeter > bp * (1.0 + 1e-9))))
+        });
+        if better {
+            best = Some((v, score));
         }
     }
-    best
+    best.map_or(View::Front, |(v, _)| v)
 }
 
 /// Two unit vectors spanning the plane normal to `axle`.
@@ -201,7 +408,7 @@ struct Sheet {
 }
 
 impl Sheet {
-    fn at(&self, p: &Point) -> (Real, Real) {
+    fn at(&self, p: &Point) -> SheetPoint {
         (
             self.left + (p.coords.dot(&self.right) - self.x0) * self.scale,
             self.top + (self.y1 - p.coords.dot(&self.up)) * self.scale,
@@ -211,21 +418,6 @@ impl Sheet {
     fn dir(&self, v: &Vector) -> (Real, Real) {
         (v.dot(&self.right), -v.dot(&self.up))
     }
-}
-
-fn esc(s: &str) -> String {
-    let mut out = String::with_capacity(s.len());
-    for c in s.chars() {
-        match c {
-            '&' => out.push_str("&amp;"),
-            '<' => out.push_str("&lt;"),
-            '>' => out.push_str("&gt;"),
-            '"' => out.push_str("&quot;"),
-            '\'' => out.push_str("&apos;"),
-            c => out.push(c),
-        }
-    }
-    out
 }
 
 /// Colour stops of the tension scale, low to high.
@@ -263,10 +455,42 @@ fn darken(colour: &str) -> String {
     format!("#{:02x}{:02x}{:02x}", channel(1), channel(3), channel(5))
 }
 
-/// Boxes already taken by labels, so later labels look for a free place.
+/// Boxes already taken by labels and symbols, and the spans drawn on the sheet, so that
+/// later labels look for a free place.
 #[derive(Default)]
 struct Placer {
     taken: Vec<(Real, Real, Real, Real)>,
+    spans: Vec<SheetSegment>,
+}
+
+/// Whether the segment `a`–`b` passes through the box `(x0, y0, x1, y1)` (Liang–Barsky
+/// clipping).
+fn segment_crosses_box(a: SheetPoint, b: SheetPoint, bx: (Real, Real, Real, Real)) -> bool {
+    let (dx, dy) = (b.0 - a.0, b.1 - a.1);
+    let (mut t0, mut t1) = (0.0, 1.0);
+    for (p, q) in [
+        (-dx, a.0 - bx.0),
+        (dx, bx.2 - a.0),
+        (-dy, a.1 - bx.1),
+        (dy, bx.3 - a.1),
+    ] {
+        if p == 0.0 {
+            if q < 0.0 {
+                return false;
+            }
+        } else {
+            let t = q / p;
+            if p < 0.0 {
+                t0 = t.max(t0);
+            } else {
+                t1 = t.min(t1);
+            }
+            if t0 > t1 {
+                return false;
+            }
+        }
+    }
+    true
 }
 
 const FONT: Real = 11.0;
@@ -281,22 +505,51 @@ impl Placer {
             .iter()
             .all(|t| b.2 <= t.0 || b.0 >= t.2 || b.3 <= t.1 || b.1 >= t.3)
     }
-    /// Picks the first candidate anchor (left-aligned text baseline) whose box is free,
-    /// else the first; records it.
-    fn place(&mut self, candidates: &[(Real, Real)], label: &str) -> (Real, Real) {
+    /// Whether no span runs through `b`.
+    fn clear_of_spans(&self, b: (Real, Real, Real, Real)) -> bool {
+        !self
+            .spans
+            .iter()
+            .any(|s| segment_crosses_box(s[0], s[1], b))
+    }
+    /// Picks the first candidate anchor (left-aligned text baseline) whose box is free
+    /// and crosses no span, else the first whose box is free, else the first; records it.
+    fn place(&mut self, candidates: &[SheetPoint], label: &str) -> SheetPoint {
         let w = text_width(label, FONT);
-        let boxed = |(x, y): (Real, Real)| (x - 1.0, y - FONT, x + w + 1.0, y + 3.0);
+        let boxed = |(x, y): SheetPoint| (x - 1.0, y - FONT, x + w + 1.0, y + 3.0);
         let chosen = candidates
             .iter()
             .copied()
-            .find(|&c| self.free(boxed(c)))
+            .find(|&c| self.free(boxed(c)) && self.clear_of_spans(boxed(c)))
+            .or_else(|| candidates.iter().copied().find(|&c| self.free(boxed(c))))
             .or_else(|| candidates.first().copied())
             .unwrap_or((0.0, 0.0));
         self.taken.push(boxed(chosen));
         chosen
     }
-    fn reserve(&mut self, x: Real, y: Real, r: Real) {
-        self.taken.push((x - r, y - r, x + r, y + r));
+    /// Keeps labels off a symbol at `(x, y)` of these half-extents.
+    fn reserve(&mut self, x: Real, y: Real, half_w: Real, half_h: Real) {
+        self.taken
+            .push((x - half_w, y - half_h, x + half_w, y + half_h));
+    }
+}
+
+/// A part's symbol on the sheet, to be labelled.
+#[derive(Debug, Clone, Copy)]
+struct Symbol {
+    /// The part.
+    part: usize,
+    /// Centre, px.
+    centre: SheetPoint,
+    /// Half-width and half-height of the symbol, px.
+    half: (Real, Real),
+    /// Whether a warning names the part.
+    warned: bool,
+}
+
+impl Symbol {
+    fn reach(&self) -> Real {
+        self.half.0.max(self.half.1)
     }
 }
 
@@ -319,15 +572,47 @@ pub fn wrap_words(text: &str, width: usize) -> Vec<String> {
     lines
 }
 
+/// The least half-width of a round part's outline on the sheet, px: seen edge-on, a
+/// sheave would vanish into a line under its spans.
+const MIN_HALF_WIDTH_PX: Real = 2.5;
+
 /// A closed path along a circle of radius `r` about `centre` in the plane normal to
-/// `axle`, projected onto the sheet.
+/// `axle`, projected onto the sheet: an ellipse, widened to [`MIN_HALF_WIDTH_PX`] across
+/// its major axis where the circle is seen (nearly) edge-on.
 fn circle_path(sheet: &Sheet, centre: &Point, axle: &Vector, r: Real) -> String {
     let (u, v) = plane_basis(axle);
+    // The ellipse is M·(cos t, sin t) with M = [a b] the projected radii, px.
+    let (a, b) = (sheet.dir(&u), sheet.dir(&v));
+    let (a, b) = (
+        (a.0 * r * sheet.scale, a.1 * r * sheet.scale),
+        (b.0 * r * sheet.scale, b.1 * r * sheet.scale),
+    );
+    // Semi-axes from M·Mᵀ = [[p, c], [c, q]]: eigenvalues (p + q)/2 ± √(((p − q)/2)² + c²).
+    let (p, q, c) = (
+        a.0 * a.0 + b.0 * b.0,
+        a.1 * a.1 + b.1 * b.1,
+        a.0 * a.1 + b.0 * b.1,
+    );
+    let (mean, half) = ((p + q) / 2.0, ((p - q) / 2.0).hypot(c));
+    let (major, minor) = ((mean + half).sqrt(), (mean - half).max(0.0).sqrt());
+    let widen = minor < MIN_HALF_WIDTH_PX;
+    let angle = 0.5 * (2.0 * c).atan2(p - q);
+    let (cx, cy) = sheet.at(centre);
     let mut d = String::new();
     const STEPS: usize = 72;
     for k in 0..STEPS {
         let t = k as Real * std::f64::consts::TAU / STEPS as Real;
-        let (x, y) = sheet.at(&(centre + (u * t.cos() + v * t.sin()) * r));
+        let (x, y) = if widen {
+            // Edge-on: an ellipse of the same length along the projected diameter (never
+            // wider than long, for a part too small to show at this scale).
+            let (e, f) = (major * t.cos(), MIN_HALF_WIDTH_PX.min(major) * t.sin());
+            (
+                cx + e * angle.cos() - f * angle.sin(),
+                cy + e * angle.sin() + f * angle.cos(),
+            )
+        } else {
+            sheet.at(&(centre + (u * t.cos() + v * t.sin()) * r))
+        };
         let _ = write!(d, "{}{x:.1},{y:.1} ", if k == 0 { "M" } else { "L" });
     }
     d.push('Z');
@@ -366,17 +651,12 @@ pub fn render(rig: &Rig, solution: &Solution, report: &Report, options: &DrawOpt
     // Sheet layout, px: drawing area on the left, legend on the right, title block and
     // caution below.
     const PAGE_W: Real = 1000.0;
-    const AREA_W: Real = 700.0;
-    const AREA_H: Real = 740.0;
+    const AREA_W: Real = AREA.0;
     const LEFT: Real = 90.0;
     const TOP: Real = 50.0;
-    let (span_w, span_h) = ((x1 - x0).max(1e-9), (y1 - y0).max(1e-9));
-    let scale = (AREA_W / span_w).min(AREA_H / span_h);
-    let scale = if scale.is_finite() && scale > 0.0 {
-        scale
-    } else {
-        1.0
-    };
+    // A standard scale, so that the printed sheet can be measured.
+    let drawing_scale = view_scale(&points, view);
+    let scale = drawing_scale.px_per_m();
     let (draw_w, draw_h) = ((x1 - x0) * scale, (y1 - y0) * scale);
     // Centre narrow drawings in the area.
     let left = LEFT + (AREA_W - draw_w).max(0.0) / 2.0;
@@ -392,7 +672,10 @@ pub fn render(rig: &Rig, solution: &Solution, report: &Report, options: &DrawOpt
     let caution_lines = wrap_words(CAUTION, 150);
     // Below the drawing and its dimensions, and below the legend and key on the right.
     let block_top = (TOP + draw_h + 80.0).max(TOP + 440.0);
-    let page_h = block_top + 120.0 + caution_lines.len() as Real * 12.0 + 16.0;
+    // A whole number of px, so that the sheet's size in mm states it exactly.
+    const TITLE_BLOCK_H: Real = 120.0;
+    let page_h =
+        (block_top + TITLE_BLOCK_H + 16.0 + caution_lines.len() as Real * 12.0 + 16.0).ceil();
 
     let mut s = String::new();
     let warned: Vec<&str> = report
@@ -421,8 +704,11 @@ pub fn render(rig: &Rig, solution: &Solution, report: &Report, options: &DrawOpt
         s.push_str("<?xml version=\"1.0\" encoding=\"UTF-8\"?>\n");
         let _ = writeln!(
             s,
-            "<svg xmlns=\"http://www.w3.org/2000/svg\" width=\"{PAGE_W:.0}\" height=\"{page_h:.0}\" viewBox=\"0 0 {PAGE_W:.0} {page_h:.0}\" font-family=\"DejaVu Sans, Helvetica, Arial, sans-serif\" data-view=\"{}\">",
-            view.name()
+            "<svg xmlns=\"http://www.w3.org/2000/svg\" width=\"{:.2}mm\" height=\"{:.2}mm\" viewBox=\"0 0 {PAGE_W:.0} {page_h:.0}\" font-family=\"DejaVu Sans, Helvetica, Arial, sans-serif\" data-view=\"{}\" data-scale=\"{}\">",
+            PAGE_W / PX_PER_MM,
+            page_h / PX_PER_MM,
+            view.name(),
+            drawing_scale.ratio()
         );
     } else {
         let _ = writeln!(
@@ -575,13 +861,14 @@ pub fn render(rig: &Rig, solution: &Solution, report: &Report, options: &DrawOpt
                 esc(to),
                 esc(&quantity(forward, Dimension::Force, units))
             );
+            placer.spans.push([(ax, ay), (bx, by)]);
             span_labels.push((k, (ax, ay), (bx, by), forward, colour));
             k += 1;
         }
     }
 
     // Parts.
-    let mut part_label_requests = Vec::new();
+    let mut symbols: Vec<Symbol> = Vec::new();
     for (id, part) in rig.parts.iter().enumerate() {
         let (cx, cy) = sheet.at(&part.at);
         let is_warned = warned.contains(&part.name.as_str());
@@ -735,18 +1022,52 @@ pub fn render(rig: &Rig, solution: &Solution, report: &Report, options: &DrawOpt
             );
         }
         s.push_str("</g>\n");
-        placer.reserve(cx, cy, reach.min(30.0));
-        part_label_requests.push((id, cx, cy, half_w, half_h, is_warned));
+        placer.reserve(cx, cy, half_w.min(30.0), half_h.min(30.0));
+        symbols.push(Symbol {
+            part: id,
+            centre: (cx, cy),
+            half: (half_w, half_h),
+            warned: is_warned,
+        });
     }
 
-    // Part labels, then span labels, each in the first free place.
+    // Part labels, then span labels, each in the first free place. Parts drawn on top of
+    // each other (two sheaves on one pin seen along it, a block and its sheave), and
+    // round parts each drawn mostly over the other (two sheaves on one pin seen at a
+    // slant), share one label naming them all in the file's order.
     s.push_str("<g class=\"labels\" font-size=\"11\">\n");
-    for (id, cx, cy, half_w, half_h, is_warned) in part_label_requests {
-        let name = &rig.parts[id].name;
+    let part_groups = groups(symbols.len(), |i, j| {
+        let (a, b) = (&symbols[i], &symbols[j]);
+        let apart = (a.centre.0 - b.centre.0).hypot(a.centre.1 - b.centre.1);
+        let round = |s: &Symbol| rig.parts[s.part].kind.round().is_some();
+        apart < COINCIDENT_PX || (round(a) && round(b) && apart < 0.5 * a.reach().min(b.reach()))
+    });
+    for members in part_groups {
+        // The group's symbols together: the box around them all.
+        let members: Vec<Symbol> = members.iter().map(|&m| symbols[m]).collect();
+        let fold = |f: fn(Real, Real) -> Real, pick: &dyn Fn(&Symbol) -> Real| {
+            members.iter().map(pick).reduce(f).unwrap_or(0.0)
+        };
+        let (x_lo, x_hi) = (
+            fold(Real::min, &|s| s.centre.0 - s.half.0),
+            fold(Real::max, &|s| s.centre.0 + s.half.0),
+        );
+        let (y_lo, y_hi) = (
+            fold(Real::min, &|s| s.centre.1 - s.half.1),
+            fold(Real::max, &|s| s.centre.1 + s.half.1),
+        );
+        let (cx, cy) = ((x_lo + x_hi) / 2.0, (y_lo + y_hi) / 2.0);
+        let (half_w, half_h) = ((x_hi - x_lo) / 2.0, (y_hi - y_lo) / 2.0);
+        let is_warned = members.iter().any(|s| s.warned);
+        let names: Vec<&str> = members
+            .iter()
+            .map(|s| rig.parts[s.part].name.as_str())
+            .collect();
+        let name = &rig.parts[members[0].part].name;
         let label = if is_warned {
-            format!("⚠ {name}")
+            format!("⚠ {}", names.join(", "))
         } else {
-            name.clone()
+            names.join(", ")
         };
         let w = text_width(&label, FONT);
         // Around the symbol's outline: the diagonals first (at 70 % of the half-extents,
@@ -772,8 +1093,35 @@ pub fn render(rig: &Rig, solution: &Solution, report: &Report, options: &DrawOpt
             esc(&label)
         );
     }
-    for (k, (ax, ay), (bx, by), forward, colour) in span_labels {
-        let label = quantity(forward, Dimension::Force, units);
+    // Spans drawn on top of each other share one label with their tensions in path order.
+    let span_groups = groups(span_labels.len(), |i, j| {
+        let (a, b) = (&span_labels[i], &span_labels[j]);
+        let (sa, sb) = ([a.1, a.2], [b.1, b.2]);
+        segments_coincide(sa, sb, COINCIDENT_PX) || segments_coincide(sb, sa, COINCIDENT_PX)
+    });
+    for members in span_groups {
+        // The longest span of the group carries the label.
+        let longest = members
+            .iter()
+            .copied()
+            .max_by(|&i, &j| {
+                let len = |k: usize| {
+                    let (_, a, b, _, _) = &span_labels[k];
+                    (b.0 - a.0).hypot(b.1 - a.1)
+                };
+                len(i).total_cmp(&len(j))
+            })
+            .unwrap_or(members[0]);
+        let (k, (ax, ay), (bx, by), _, colour) = span_labels[longest].clone();
+        let tensions: Vec<String> = members
+            .iter()
+            .map(|&m| quantity(span_labels[m].3, Dimension::Force, units))
+            .collect();
+        let label = if tensions.iter().all(|t| *t == tensions[0]) && tensions.len() > 1 {
+            format!("{} (×{})", tensions[0], tensions.len())
+        } else {
+            tensions.join(" / ")
+        };
         let w = text_width(&label, FONT);
         let mut candidates = Vec::new();
         let (dx, dy) = (bx - ax, by - ay);
@@ -872,10 +1220,17 @@ pub fn render(rig: &Rig, solution: &Solution, report: &Report, options: &DrawOpt
             q(h.ideal.value)
         ),
         format!("Units: {}", units_line(units)),
+        view.description().to_string(),
         format!(
-            "{} · scale {}",
-            view.description(),
-            scale_note(scale, units)
+            "Scale {}{} on the sheet printed at {:.0} × {:.0} mm",
+            drawing_scale.ratio(),
+            if view == View::Iso {
+                " (lengths parallel to the sheet)"
+            } else {
+                ""
+            },
+            PAGE_W / PX_PER_MM,
+            page_h / PX_PER_MM
         ),
         format!(
             "Date {} · drawn by reeve {} · warnings: {}",
@@ -886,7 +1241,7 @@ pub fn render(rig: &Rig, solution: &Solution, report: &Report, options: &DrawOpt
     ];
     let _ = writeln!(
         s,
-        "<g class=\"title-block\"><rect x=\"{bx:.1}\" y=\"{block_top:.1}\" width=\"{bw:.1}\" height=\"104\" fill=\"#fafafa\" stroke=\"#333\" stroke-width=\"1.2\"/>\
+        "<g class=\"title-block\"><rect x=\"{bx:.1}\" y=\"{block_top:.1}\" width=\"{bw:.1}\" height=\"{TITLE_BLOCK_H:.0}\" fill=\"#fafafa\" stroke=\"#333\" stroke-width=\"1.2\"/>\
 <text x=\"{:.1}\" y=\"{:.1}\" font-size=\"14\" font-weight=\"bold\">{}</text>",
         bx + 10.0,
         block_top + 20.0,
@@ -905,7 +1260,7 @@ pub fn render(rig: &Rig, solution: &Solution, report: &Report, options: &DrawOpt
     let _ = write!(
         s,
         "<text class=\"caution\" x=\"20\" y=\"{:.1}\" font-size=\"10\" fill=\"#333\">",
-        block_top + 124.0
+        block_top + TITLE_BLOCK_H + 20.0
     );
     for (i, text) in caution_lines.iter().enumerate() {
         let _ = write!(
@@ -917,16 +1272,6 @@ pub fn render(rig: &Rig, solution: &Solution, report: &Report, options: &DrawOpt
     }
     s.push_str("</text>\n</svg>\n");
     s
-}
-
-/// The sheet scale in words: how many of the rig's length units one centimetre of a
-/// 96-dpi screen (37.8 px) shows.
-fn scale_note(px_per_m: Real, units: &UnitSystem) -> String {
-    let metres_per_cm = 37.795_275_590_551_18 / px_per_m;
-    format!(
-        "1 cm ≙ {}",
-        quantity(Some(metres_per_cm), Dimension::Length, units)
-    )
 }
 
 #[cfg(test)]
@@ -948,6 +1293,51 @@ mod tests {
         assert_eq!(ramp(0.0), "#1f4e9c");
         assert_eq!(ramp(1.0), "#d1495b");
         assert_eq!(ramp(Real::NAN), "#1f4e9c");
+    }
+
+    #[test]
+    fn standard_scales() {
+        // 2.8 m tall in 740 px (195.8 mm): 1:14.3 would fit, so 1:20 is the largest
+        // standard one; 0.12 m in 700 px: 1:1; 5 mm: 20:1 (fit 37:1); 1 km: 1:10 000.
+        let area = (700.0, 740.0);
+        let ratio = |w, h| DrawingScale::fitting(w, h, area).ratio();
+        assert_eq!(ratio(0.2, 2.8), "1:20");
+        assert_eq!(ratio(0.12, 0.1), "1:1");
+        assert_eq!(ratio(0.005, 0.005), "20:1");
+        assert_eq!(ratio(1000.0, 10.0), "1:10000");
+        // A rig that is one point still gets a scale.
+        assert_eq!(ratio(0.0, 0.0), "100:1");
+        let s = DrawingScale::fitting(0.2, 2.8, area);
+        assert!((s.px_per_m() * 2.8 - 2800.0 / 20.0 * PX_PER_MM).abs() < 1e-9);
+    }
+
+    #[test]
+    fn coincident_segments() {
+        let a = [(0.0, 0.0), (100.0, 0.0)];
+        // Parallel, 3 px apart, overlapping by half: on top of each other.
+        assert!(segments_coincide(a, [(50.0, 3.0), (150.0, 3.0)], 4.5));
+        // 6 px apart, or touching end to end, or crossing: not.
+        assert!(!segments_coincide(a, [(0.0, 6.0), (100.0, 6.0)], 4.5));
+        assert!(!segments_coincide(a, [(100.0, 0.0), (200.0, 0.0)], 4.5));
+        assert!(!segments_coincide(a, [(50.0, -50.0), (50.0, 50.0)], 4.5));
+        // A span seen end-on (a dot) on another span.
+        assert!(segments_coincide([(40.0, 1.0), (40.5, 1.0)], a, 4.5));
+    }
+
+    #[test]
+    fn groups_join_transitively() {
+        let x: [Real; 4] = [0.0, 3.0, 6.0, 20.0];
+        let g = groups(x.len(), |i, j| (x[i] - x[j]).abs() < 4.0);
+        assert_eq!(g, vec![vec![0, 1, 2], vec![3]]);
+    }
+
+    #[test]
+    fn segments_and_boxes() {
+        let b = (0.0, 0.0, 10.0, 10.0);
+        assert!(segment_crosses_box((-5.0, 5.0), (15.0, 5.0), b));
+        assert!(segment_crosses_box((2.0, 2.0), (3.0, 3.0), b));
+        assert!(!segment_crosses_box((-5.0, -1.0), (15.0, -1.0), b));
+        assert!(!segment_crosses_box((5.0, 25.0), (25.0, 5.0), b));
     }
 
     #[test]

@@ -15,6 +15,9 @@ use serde::Serialize;
 use crate::math::Real;
 use crate::units::{Dimension, UnitSystem};
 
+use crate::text::printable;
+
+use super::escape::{csv_field, markdown_cell};
 use super::text::number;
 use super::{Report, CAUTION};
 
@@ -400,29 +403,38 @@ fn pad(s: &str, w: usize, align: Align) -> String {
     }
 }
 
-/// Writes one table as aligned plain text: title, header, rule, rows.
+/// Writes one table as aligned plain text: title, header, rule, rows (unsafe characters
+/// escaped before the columns are measured).
 pub fn write_text_table(w: &mut dyn Write, table: &Table) -> io::Result<()> {
     let cells: Vec<Vec<String>> = table
         .rows
         .iter()
-        .map(|r| r.iter().map(Cell::text).collect())
+        .map(|r| {
+            r.iter()
+                .map(|c| printable(&c.text()).into_owned())
+                .collect()
+        })
         .collect();
-    let widths: Vec<usize> = table
+    let headers: Vec<String> = table
         .columns
         .iter()
+        .map(|c| printable(&c.header).into_owned())
+        .collect();
+    let widths: Vec<usize> = headers
+        .iter()
         .enumerate()
-        .map(|(i, c)| {
+        .map(|(i, header)| {
             cells
                 .iter()
                 .filter_map(|r| r.get(i))
                 .map(|s| width(s))
-                .chain([width(&c.header)])
+                .chain([width(header)])
                 .max()
                 .unwrap_or(0)
         })
         .collect();
     let line = |parts: Vec<String>| parts.join("  ").trim_end().to_string();
-    writeln!(w, "{}", table.title)?;
+    writeln!(w, "{}", printable(&table.title))?;
     writeln!(
         w,
         "{}",
@@ -430,8 +442,9 @@ pub fn write_text_table(w: &mut dyn Write, table: &Table) -> io::Result<()> {
             table
                 .columns
                 .iter()
+                .zip(&headers)
                 .zip(&widths)
-                .map(|(c, &n)| pad(&c.header, n, c.align))
+                .map(|((c, h), &n)| pad(h, n, c.align))
                 .collect()
         )
     )?;
@@ -464,7 +477,7 @@ pub fn write_text(
     units: &UnitSystem,
     tables: &[Table],
 ) -> io::Result<()> {
-    writeln!(w, "{}", report.title)?;
+    writeln!(w, "{}", printable(&report.title))?;
     writeln!(w, "Units: {}", units_line(units))?;
     for t in tables {
         writeln!(w)?;
@@ -482,10 +495,6 @@ pub fn units_line(units: &UnitSystem) -> String {
     )
 }
 
-fn markdown_cell(s: &str) -> String {
-    s.replace('\\', "\\\\").replace('|', "\\|")
-}
-
 /// Writes the tables as GitHub-flavoured Markdown, ending with the caution.
 pub fn write_markdown(
     w: &mut dyn Write,
@@ -498,7 +507,7 @@ pub fn write_markdown(
     writeln!(w, "Units: {}.", units_line(units))?;
     for t in tables {
         writeln!(w)?;
-        writeln!(w, "## {}", t.title)?;
+        writeln!(w, "## {}", markdown_cell(&t.title))?;
         writeln!(w)?;
         let header: Vec<String> = t.columns.iter().map(|c| markdown_cell(&c.header)).collect();
         writeln!(w, "| {} |", header.join(" | "))?;
@@ -518,16 +527,6 @@ pub fn write_markdown(
     }
     writeln!(w)?;
     writeln!(w, "_{CAUTION}_")
-}
-
-/// Quotes a CSV field where RFC 4180 needs it (comma, quote, line break, or leading or
-/// trailing space), doubling inner quotes.
-pub fn csv_field(s: &str) -> String {
-    if s.contains([',', '"', '\n', '\r']) || s.starts_with(' ') || s.ends_with(' ') {
-        format!("\"{}\"", s.replace('"', "\"\""))
-    } else {
-        s.to_string()
-    }
 }
 
 /// Writes one table as CSV: one header row, then the rows; CRLF line ends (RFC 4180),
@@ -718,14 +717,6 @@ pub fn tables_json(report: &Report, cases: CaseFilter, choice: TableChoice) -> T
 #[cfg(test)]
 mod tests {
     use super::*;
-
-    #[test]
-    fn csv_quotes_only_where_needed() {
-        assert_eq!(csv_field("fall"), "fall");
-        assert_eq!(csv_field("a, b"), "\"a, b\"");
-        assert_eq!(csv_field("say \"hi\""), "\"say \"\"hi\"\"\"");
-        assert_eq!(csv_field(" lead"), "\" lead\"");
-    }
 
     #[test]
     fn negative_zero_loses_its_sign() {

@@ -77,6 +77,9 @@ fn write_headline(w: &mut dyn Write, h: &Headline, units: &UnitSystem) -> io::Re
         q(h.friction_forward),
         q(h.friction_back)
     )?;
+    for note in h.efficiency_notes() {
+        writeln!(w, "  {note}")?;
+    }
     if let Some(b) = &h.breakaway {
         writeln!(
             w,
@@ -278,8 +281,12 @@ pub fn capitalise(s: &str) -> String {
     }
 }
 
-/// Writes the `check` summary.
+/// Writes the `check` summary (names, title and source with unsafe characters escaped).
 pub fn write_check(w: &mut dyn Write, rig: &Rig, report: &Report, source: &str) -> io::Result<()> {
+    super::escape::write_printable(w, |w| write_check_raw(w, rig, report, source))
+}
+
+fn write_check_raw(w: &mut dyn Write, rig: &Rig, report: &Report, source: &str) -> io::Result<()> {
     let units = &rig.units;
     let len = |x| quantity(x, Dimension::Length, units);
     let force = |x| quantity(x, Dimension::Force, units);

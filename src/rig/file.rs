@@ -14,6 +14,13 @@
 //! deeply nested document costs little time and memory. Duplicate keys in any mapping
 //! (including duplicate part names, which a plain map would silently collapse) are
 //! reported, and the first definition is kept so that checking can go on.
+//!
+//! Text is checked before it is parsed: a control or formatting character refused by
+//! [`crate::text::is_unsafe_in_file`] anywhere in the file (a comment included) is an
+//! error with its line and column, since a NUL would end the YAML reader early and the
+//! rest of the file would be silently ignored. A quoted scalar's escapes (`"\0"`,
+//! `"\e"`) are checked after they are resolved, and a key (a part, rope or line name)
+//! holds no tab or line break either.
 
 use std::collections::HashMap;
 
@@ -22,6 +29,7 @@ use yaml_rust2::scanner::{Marker, TScalarStyle};
 
 use crate::rig::error::Problem;
 use crate::rig::model::Location;
+use crate::text::{describe, is_unsafe, is_unsafe_in_file, printable, unsafe_in_file};
 
 /// Largest rig file read, bytes (1 MiB; real rigs are a few kilobytes).
 pub const MAX_INPUT_BYTES: usize = 1 << 20;
@@ -330,6 +338,40 @@ impl Builder {
         }
     }
 
+    /// Notes a refused character in a scalar as read (escapes resolved): in a key (a
+    /// name) no tab or line break either.
+    fn check_scalar(&mut self, text: &str, at: Location) {
+        let is_key = matches!(self.stack.last(), Some(Frame::Map { key: None, .. }));
+        let refused = |c: char| {
+            if is_key {
+                is_unsafe(c)
+            } else {
+                is_unsafe_in_file(c)
+            }
+        };
+        if let Some(c) = text.chars().find(|&c| refused(c)) {
+            let what = if is_key {
+                format!("the key `{}`", printable(text))
+            } else {
+                "this value".to_string()
+            };
+            let problem = fatal(
+                at,
+                &self.path(),
+                format!(
+                    "{} in {what}; {}",
+                    describe(c),
+                    if is_key {
+                        "a name holds no control or formatting characters, tabs or line breaks"
+                    } else {
+                        ALLOWED
+                    }
+                ),
+            );
+            note(&mut self.problems, &mut self.dropped, problem);
+        }
+    }
+
     fn open(&mut self, frame: Frame, at: Location) -> Result<(), Problem> {
         self.count_node(at)?;
         if self.stack.len() >= MAX_DEPTH {
@@ -362,6 +404,7 @@ impl Builder {
             }
             Event::Scalar(text, style, anchor, tag) => {
                 self.count_node(at)?;
+                self.check_scalar(&text, at);
                 let tagged_str = tag.as_ref().is_some_and(|t| t.suffix == "str");
                 let plain = style == TScalarStyle::Plain && !tagged_str;
                 self.place(
@@ -447,6 +490,29 @@ impl Builder {
     }
 }
 
+/// What the file may hold, for messages.
+const ALLOWED: &str =
+    "among control and formatting characters a rig file may hold only tab, CR and LF; remove it";
+
+/// Every refused character of the text, each located (at most [`MAX_PROBLEMS`]).
+fn refused_characters(text: &str) -> Vec<Problem> {
+    let (found, more) = unsafe_in_file(text, MAX_PROBLEMS);
+    let mut problems: Vec<Problem> = found
+        .into_iter()
+        .map(|(line, column, c)| {
+            fatal(
+                Location { line, column },
+                "document",
+                format!("{} is not allowed here; {ALLOWED}", describe(c)),
+            )
+        })
+        .collect();
+    if more > 0 {
+        problems.push(more_problems(more));
+    }
+    problems
+}
+
 /// Removes a leading byte-order mark.
 pub fn strip_bom(text: &str) -> &str {
     text.strip_prefix('\u{feff}').unwrap_or(text)
@@ -458,7 +524,8 @@ pub fn strip_bom(text: &str) -> &str {
 /// (duplicate keys, complex keys).
 ///
 /// # Errors
-/// The fatal problems: YAML syntax, size, nesting, alias expansion, a second document.
+/// The fatal problems: YAML syntax, size, nesting, alias expansion, a second document,
+/// refused characters (every one, located).
 pub fn parse_tree(text: &str) -> Result<(Option<Node>, Vec<Problem>), Vec<Problem>> {
     let text = strip_bom(text);
     if text.len() > MAX_INPUT_BYTES {
@@ -470,6 +537,10 @@ pub fn parse_tree(text: &str) -> Result<(Option<Node>, Vec<Problem>), Vec<Proble
                 text.len()
             ),
         }]);
+    }
+    let refused = refused_characters(text);
+    if !refused.is_empty() {
+        return Err(refused);
     }
     // The parser is not expected to panic, but it reads untrusted text: turn a panic into
     // an error rather than taking the caller down.
@@ -531,7 +602,11 @@ pub fn parse_value(text: &str) -> Result<Node, String> {
         }
         Ok((_, problems)) | Err(problems) => Err(problems
             .into_iter()
-            .map(|p| p.message)
+            .map(|p| match p.location {
+                Some(l) if l.line == 1 => format!("{} (at column {})", p.message, l.column),
+                Some(l) => format!("{} (at line {} column {})", p.message, l.line, l.column),
+                None => p.message,
+            })
             .collect::<Vec<_>>()
             .join("; ")),
     }

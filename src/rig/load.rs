@@ -29,7 +29,9 @@
 //!   0 or more; a rated factor is at least 1 and an efficiency in (0, 1]; groove angles
 //!   lie in (0°, 180°), cone half-angles in (0°, 90°], the fleet-angle limit in
 //!   (0°, 90°); the design factor is at least 1; extra `turns` a whole number from 0 to
-//!   1000. Magnitudes above 1e12 in SI are refused as certainly mistaken.
+//!   1000. Magnitudes above 1e12 in SI are refused as certainly mistaken. A plain
+//!   bearing's pin or a rolling bearing's bore must be smaller than the sheave's tread
+//!   diameter or the drum's diameter it carries.
 
 use std::collections::HashMap;
 use std::path::Path;
@@ -254,9 +256,10 @@ fn sorted(mut problems: Vec<Problem>) -> Vec<Problem> {
 
 /// Default least tread-diameter / rope-diameter ratio for a rope kind.
 ///
-/// - wire: 26 (from memory: wire-rope handbook D/d tables give about 26 as the minimum
-///   for 6x19-class rope, more for stiffer constructions; give `min_bend_ratio` for
-///   your rope);
+/// - wire: 26, the least D/d of the wire-rope handbooks' table for 6x25 filler-wire
+///   class rope (the *Wire Rope Users Manual*'s D/d table; from memory); other 6x19-class
+///   constructions need 30–34 (6x21 filler wire 30, 6x19 Seale 34) and stiffer ones more:
+///   give `min_bend_ratio` for your rope;
 /// - fibre: 8 (common practice for braided and laid fibre rope on sheaves);
 /// - kernmantle: 4 (common practice in rope rescue: pulley diameter at least four rope
 ///   diameters);
@@ -956,7 +959,7 @@ impl Resolver {
                     n,
                     &p,
                     |v| v > 0.0 && v <= std::f64::consts::FRAC_PI_2,
-                    "a half-angle greater than 0 and at most 90 degrees",
+                    "a half-angle (half the pivot's included angle) greater than 0 and at most 90 degrees",
                 );
                 Some(v?)
             }
@@ -970,6 +973,60 @@ impl Resolver {
             contact: contact?,
             cone_angle,
         })
+    }
+
+    /// Refuses a pin or bore that is not smaller than the diameter of the part it
+    /// carries (a sheave's tread, a drum): the bearing would be larger than its part, and
+    /// the friction circle would reach the rope (ρ ≥ 1). Usually a unit slip: a bare
+    /// number is read in the file's length unit. Located at the `pin_diameter` or `bore`.
+    fn bearing_fits(
+        &mut self,
+        bearing_node: Option<&Node>,
+        bearing: Option<&Bearing>,
+        bearing_path: &str,
+        part_diameter: Option<Real>,
+        (part, measure): (&str, &str),
+    ) {
+        let (Some(bearing), Some(part_diameter)) = (bearing, part_diameter) else {
+            return;
+        };
+        let (key, size, what) = match *bearing {
+            Bearing::Plain { pin_diameter, .. } => ("pin_diameter", pin_diameter, "pin"),
+            Bearing::Rolling { bore, .. } => ("bore", bore, "bore"),
+            Bearing::Rated { .. } | Bearing::None => return,
+        };
+        if size < part_diameter {
+            return;
+        }
+        let node = bearing_node
+            .and_then(Node::entries)
+            .and_then(|e| get(e, key));
+        let location = node.map_or(Location::default(), |n| n.location);
+        // The likely slip is a bare number read in the file's unit (`8` on a rig in m).
+        let bare = node.is_some_and(|n| n.plain_number().is_some());
+        let unit = self.units.length;
+        let shown = |v: Real| {
+            let text = format!("{:.6}", v / unit.si);
+            let text = text.trim_end_matches('0').trim_end_matches('.');
+            format!("{text} {}", unit.symbol)
+        };
+        self.report(
+            location,
+            join(bearing_path, key),
+            format!(
+                "the {what} ({}) does not fit a {part} of {} {measure}; expected a {what} diameter smaller than the {part}'s {measure}{}",
+                shown(size),
+                shown(part_diameter),
+                if bare {
+                    format!(
+                        " (bare numbers are in the file's length unit, {}; write a unit such as `8 mm` to say otherwise)",
+                        unit.symbol
+                    )
+                } else {
+                    String::new()
+                }
+            ),
+        );
     }
 
     /// A reference to a part by name.
@@ -1051,7 +1108,19 @@ fn resolve(root: &Node, source: &str) -> Result<Rig, Vec<Problem>> {
         }
     }
     let title = match get(top, "title") {
-        Some(n) => r.text(n, "title", "a title (text)").map(str::to_string),
+        // A title heads every report and drawing: one line (a block scalar's closing
+        // line break is dropped).
+        Some(n) => match r.text(n, "title", "a title (text)").map(str::trim) {
+            Some(t) if t.contains(['\t', '\n', '\r']) => {
+                r.report(
+                    n.location,
+                    "title",
+                    "a title is one line of text, without tabs or line breaks".to_string(),
+                );
+                None
+            }
+            t => t.map(str::to_string),
+        },
         None => None,
     }
     .unwrap_or_else(|| {
@@ -1434,6 +1503,13 @@ fn part(
             let bearing = r
                 .require(entries, "bearing", &path, at, "a bearing such as `{kind: plain, pin_diameter: 10, mu: 0.12}` or `{kind: none}`")
                 .and_then(|n| r.bearing(n, &join(&path, "bearing")));
+            r.bearing_fits(
+                get(entries, "bearing"),
+                bearing.as_ref(),
+                &join(&path, "bearing"),
+                tread_diameter,
+                ("sheave", "tread diameter"),
+            );
             let mass = own_mass(r);
             let groove_angle = r.groove(entries, &path);
             let mu = r.opt_mu(entries, "mu", &path);
@@ -1524,6 +1600,15 @@ fn part(
                 Some(s) => Some(s?),
                 None => None,
             };
+            r.bearing_fits(
+                get(entries, "shaft")
+                    .and_then(Node::entries)
+                    .and_then(|e| get(e, "bearing")),
+                shaft.as_ref().map(|s| &s.bearing),
+                &join(&path, "shaft.bearing"),
+                diameter,
+                ("drum", "diameter"),
+            );
             Some(PartKind::Drum(Drum {
                 axle: axle?,
                 diameter: diameter?,
@@ -1953,7 +2038,8 @@ lines:
         assert_eq!(rig.title, "u.yaml");
         // 0.25 in = 0.25 * 0.0254 m = 0.00635 m (1959 agreement, exact).
         assert!(close(rig.ropes[0].diameter, 0.00635));
-        // Wire rope default D/d 26, from memory of wire-rope handbook tables.
+        // Wire rope default D/d 26, the least for 6x25 filler-wire rope (wire-rope
+        // handbook D/d table, from memory).
         assert_eq!(rig.ropes[0].min_bend_ratio, 26.0);
         let PartKind::Guide(g) = &rig.parts[1].kind else {
             panic!()

@@ -5,6 +5,7 @@
 use std::fmt::Write as _;
 
 use crate::math::Real;
+use crate::report::escape::xml as escape;
 
 /// One line of a chart: a name for the legend and its points (None = no value there).
 #[derive(Debug, Clone, PartialEq)]
@@ -37,13 +38,6 @@ const BOTTOM: Real = 60.0;
 const COLOURS: &[&str] = &[
     "#1f77b4", "#d62728", "#2ca02c", "#9467bd", "#ff7f0e", "#8c564b",
 ];
-
-fn escape(text: &str) -> String {
-    text.replace('&', "&amp;")
-        .replace('<', "&lt;")
-        .replace('>', "&gt;")
-        .replace('"', "&quot;")
-}
 
 /// Round tick positions covering [lo, hi] (about five).
 pub fn ticks(lo: Real, hi: Real) -> Vec<Real> {

@@ -174,7 +174,7 @@ pub fn sweep(source: &RigSource, vary: &Vary, steps: usize) -> Result<Sweep, Stu
                     ideal: finite(main.ideal.value),
                     forward: finite(main.forward.value),
                     back: finite(main.back.value),
-                    efficiency: main.forward_efficiency(),
+                    efficiency: crate::report::efficiency(main.forward_efficiency()),
                     error: None,
                     verdict: Verdict::assess(&rig, &solution),
                 });

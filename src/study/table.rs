@@ -3,7 +3,9 @@
 
 use std::io::{self, Write};
 
+use crate::report::escape::{csv_field, markdown_cell, write_printable};
 use crate::report::CAUTION;
+use crate::text::printable;
 
 /// Output formats of the studies.
 #[derive(Debug, Clone, Copy, PartialEq, Eq)]
@@ -45,8 +47,19 @@ impl Table {
     /// Writes aligned text.
     pub fn write_text(&self, w: &mut dyn Write) -> io::Result<()> {
         let n = self.headers.len();
-        let mut widths: Vec<usize> = self.headers.iter().map(|h| h.chars().count()).collect();
-        for row in &self.rows {
+        // Unsafe characters escaped before the columns are measured.
+        let headers: Vec<String> = self
+            .headers
+            .iter()
+            .map(|h| printable(h).into_owned())
+            .collect();
+        let rows: Vec<Vec<String>> = self
+            .rows
+            .iter()
+            .map(|r| r.iter().map(|c| printable(c).into_owned()).collect())
+            .collect();
+        let mut widths: Vec<usize> = headers.iter().map(|h| h.chars().count()).collect();
+        for row in &rows {
             for (i, c) in row.iter().enumerate().take(n) {
                 widths[i] = widths[i].max(c.chars().count());
             }
@@ -67,8 +80,8 @@ impl Table {
             }
             writeln!(w, "{}", out.trim_end())
         };
-        line(w, &self.headers)?;
-        for row in &self.rows {
+        line(w, &headers)?;
+        for row in &rows {
             line(w, row)?;
         }
         Ok(())
@@ -76,31 +89,23 @@ impl Table {
 
     /// Writes a Markdown table.
     pub fn write_markdown(&self, w: &mut dyn Write) -> io::Result<()> {
-        let esc = |c: &str| c.replace('|', "\\|");
-        let head: Vec<String> = self.headers.iter().map(|h| esc(h)).collect();
+        let head: Vec<String> = self.headers.iter().map(|h| markdown_cell(h)).collect();
         writeln!(w, "| {} |", head.join(" | "))?;
         let rule: Vec<&str> = (0..self.headers.len())
             .map(|i| if i == 0 { "---" } else { "---:" })
             .collect();
         writeln!(w, "| {} |", rule.join(" | "))?;
         for row in &self.rows {
-            let cells: Vec<String> = row.iter().map(|c| esc(c)).collect();
+            let cells: Vec<String> = row.iter().map(|c| markdown_cell(c)).collect();
             writeln!(w, "| {} |", cells.join(" | "))?;
         }
         Ok(())
     }
 
-    /// Writes CSV (RFC 4180 quoting).
+    /// Writes CSV (RFC 4180 quoting; a cell that reads as a formula is prefixed with `'`).
     pub fn write_csv(&self, w: &mut dyn Write) -> io::Result<()> {
-        let quote = |c: &str| {
-            if c.contains([',', '"', '\n', '\r']) {
-                format!("\"{}\"", c.replace('"', "\"\""))
-            } else {
-                c.to_string()
-            }
-        };
         for row in std::iter::once(&self.headers).chain(&self.rows) {
-            let cells: Vec<String> = row.iter().map(|c| quote(c)).collect();
+            let cells: Vec<String> = row.iter().map(|c| csv_field(c)).collect();
             writeln!(w, "{}", cells.join(","))?;
         }
         Ok(())
@@ -108,7 +113,7 @@ impl Table {
 }
 
 /// Writes a titled study table in a human-readable format (text or Markdown), with
-/// notes, ending with the caution.
+/// notes, ending with the caution; unsafe characters in names are escaped.
 pub fn write_human(
     w: &mut dyn Write,
     format: Format,
@@ -116,13 +121,25 @@ pub fn write_human(
     table: &Table,
     notes: &[String],
 ) -> io::Result<()> {
-    write_human_sections(w, format, title, &[(String::new(), table.clone())], notes)
+    write_printable(w, |w| {
+        write_human_sections(w, format, title, &[(String::new(), table.clone())], notes)
+    })
 }
 
 /// Writes a titled study in a human-readable format (text or Markdown): one table per
 /// section, each under its heading (none where the heading is empty), then the notes,
-/// ending with the caution.
+/// ending with the caution; unsafe characters in names are escaped.
 pub fn write_human_sections(
+    w: &mut dyn Write,
+    format: Format,
+    title: &str,
+    sections: &[(String, Table)],
+    notes: &[String],
+) -> io::Result<()> {
+    write_printable(w, |w| write_sections_raw(w, format, title, sections, notes))
+}
+
+fn write_sections_raw(
     w: &mut dyn Write,
     format: Format,
     title: &str,
