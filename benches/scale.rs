@@ -1,0 +1,559 @@
+//! Speed at scale, through the command line: each rig family of `tests/common/mod.rs`
+//! at several sizes, written to a temporary directory and run by a `reeve` binary as a
+//! child process (`check`, `spread`, `rank`, `sweep --stroke`). Going through the
+//! binary keeps the bench valid while the library's internals change, and lets the same
+//! bench measure an older binary side by side.
+//!
+//! ```sh
+//! cargo bench --bench scale                              # the binary cargo just built
+//! cargo bench --bench scale -- /work/bin/reeve-before    # or any other binary
+//! REEVE_BIN=/path/to/reeve cargo bench --bench scale     # the same, by variable
+//! cargo bench --bench scale -- --family cascade --family chain --timeout 20 --runs 3
+//! ```
+//!
+//! For every measurement: the median of several runs (5 below 2 s, 3 below 15 s,
+//! else 1; `--runs N` sets the first) of wall time and of the child's user CPU time,
+//! and its peak resident memory (`ru_maxrss` from `wait4`). Each run is started by a
+//! small launcher (this binary again, `--launch`), because Linux counts the memory of
+//! the process that spawns a child in the child's `ru_maxrss` (the bench itself holds
+//! large reports); the launcher's own few megabytes are the floor of that figure. A run over the timeout
+//! (60 s; `--timeout S`) is killed and shown as "> 60 s". Time per passage divides the
+//! time by the rope passages in the rig (for `spread` and `sweep`: by passages times
+//! samples or steps). Growth is t(10n)/t(n) against the family's row ten times smaller.
+//! Where a family has a closed form, one extra `--json` run (not timed) gives the
+//! relative error of the binary's value against it. No timing assertions: this prints.
+
+use std::fmt::Write as _;
+use std::fs::File;
+use std::path::{Path, PathBuf};
+use std::process::{Command, Stdio};
+use std::sync::atomic::{AtomicBool, Ordering};
+use std::sync::{mpsc, Arc};
+use std::time::{Duration, Instant};
+
+#[path = "../tests/common/mod.rs"]
+mod common;
+use common::{
+    cascade, chain, line_set_passages, line_sets, max_line_sets, ranged_tackle, serpentine, tackle,
+    tackles, CASCADE_LOAD_KG, CHAIN_LOAD_KG, G, RANGED_TACKLE_SHEAVES,
+};
+
+/// Capstan friction of the two chain families (the issue's 1,000-guide chain, whose tiny
+/// back value is off by 2e-6, has this).
+const CHAIN_MU: f64 = 0.01;
+/// Sheaves of the tackle moved through its stroke.
+const STROKE_SHEAVES: usize = 4;
+
+/// What one child process cost.
+#[derive(Debug, Clone, Copy)]
+struct Run {
+    wall: Duration,
+    user: Duration,
+    sys: Duration,
+    peak_kib: i64,
+    exit: i32,
+}
+
+fn duration(t: libc::timeval) -> Duration {
+    Duration::new(t.tv_sec as u64, t.tv_usec as u32 * 1000)
+}
+
+/// Runs `binary args`, output discarded (stderr kept in `stderr_file`), killed after
+/// `timeout`. `None` when it was killed.
+fn run_once(binary: &Path, args: &[String], stderr_file: &Path, timeout: Duration) -> Option<Run> {
+    let stderr = File::create(stderr_file).expect("stderr file");
+    let start = Instant::now();
+    let child = Command::new(binary)
+        .args(args)
+        .stdin(Stdio::null())
+        .stdout(Stdio::null())
+        .stderr(stderr)
+        .spawn()
+        .unwrap_or_else(|e| panic!("cannot run {}: {e}", binary.display()));
+    let pid = child.id() as libc::pid_t;
+    // A watchdog kills the child at the timeout. The child is reaped only after the
+    // watchdog has stopped, so its pid cannot have been reused when it is killed.
+    let killed = Arc::new(AtomicBool::new(false));
+    let (done, wait) = mpsc::channel::<()>();
+    let watchdog = {
+        let killed = Arc::clone(&killed);
+        std::thread::spawn(move || {
+            if wait.recv_timeout(timeout).is_err() {
+                killed.store(true, Ordering::SeqCst);
+                // SAFETY: plain syscall on our own, not yet reaped, child.
+                unsafe { libc::kill(pid, libc::SIGKILL) };
+            }
+        })
+    };
+    loop {
+        // SAFETY: `info` is a valid out-pointer; WNOWAIT leaves the child unreaped.
+        let mut info: libc::siginfo_t = unsafe { std::mem::zeroed() };
+        let r = unsafe {
+            libc::waitid(
+                libc::P_PID,
+                pid as libc::id_t,
+                &mut info,
+                libc::WEXITED | libc::WNOWAIT,
+            )
+        };
+        if r == 0 || std::io::Error::last_os_error().raw_os_error() != Some(libc::EINTR) {
+            break;
+        }
+    }
+    let wall = start.elapsed();
+    let _ = done.send(());
+    watchdog.join().expect("watchdog");
+    let mut status = 0;
+    // SAFETY: valid out-pointers; reaps our own child.
+    let mut usage: libc::rusage = unsafe { std::mem::zeroed() };
+    let reaped = unsafe { libc::wait4(pid, &mut status, 0, &mut usage) };
+    assert_eq!(reaped, pid, "wait4: {}", std::io::Error::last_os_error());
+    std::mem::forget(child); // already reaped: dropping it must not wait again
+    if killed.load(Ordering::SeqCst) {
+        return None;
+    }
+    let exit = if libc::WIFEXITED(status) {
+        libc::WEXITSTATUS(status)
+    } else {
+        -libc::WTERMSIG(status)
+    };
+    Some(Run {
+        wall,
+        user: duration(usage.ru_utime),
+        sys: duration(usage.ru_stime),
+        peak_kib: usage.ru_maxrss,
+        exit,
+    })
+}
+
+/// Launcher mode, `scale --launch TIMEOUT_S STDERR_FILE BINARY ARGS...`: one
+/// [`run_once`] from a fresh, small process; prints its figures on one line
+/// (nanoseconds, KiB, exit code) or `timeout`.
+fn launch(args: &[String]) {
+    let [timeout, stderr_file, binary, rest @ ..] = args else {
+        panic!("--launch TIMEOUT_S STDERR_FILE BINARY ARGS...");
+    };
+    let timeout = Duration::from_secs_f64(timeout.parse().expect("--launch TIMEOUT_S"));
+    match run_once(Path::new(binary), rest, Path::new(stderr_file), timeout) {
+        Some(r) => println!(
+            "{} {} {} {} {}",
+            r.wall.as_nanos(),
+            r.user.as_nanos(),
+            r.sys.as_nanos(),
+            r.peak_kib,
+            r.exit
+        ),
+        None => println!("timeout"),
+    }
+}
+
+/// [`run_once`] through the launcher (see [`launch`]).
+fn run_launched(
+    binary: &Path,
+    args: &[String],
+    stderr_file: &Path,
+    timeout: Duration,
+) -> Option<Run> {
+    let launcher = std::env::current_exe().expect("the bench binary's own path");
+    let out = Command::new(launcher)
+        .arg("--launch")
+        .arg(timeout.as_secs_f64().to_string())
+        .arg(stderr_file)
+        .arg(binary)
+        .args(args)
+        .stdin(Stdio::null())
+        .output()
+        .expect("run the launcher");
+    let text = String::from_utf8_lossy(&out.stdout);
+    if text.trim() == "timeout" {
+        return None;
+    }
+    let fields: Vec<i64> = text
+        .split_whitespace()
+        .map(|f| f.parse().expect("launcher figure"))
+        .collect();
+    let [wall, user, sys, peak_kib, exit] = fields[..] else {
+        panic!(
+            "the launcher failed: {}{}",
+            text,
+            String::from_utf8_lossy(&out.stderr)
+        );
+    };
+    let nanos = |n: i64| Duration::from_nanos(n as u64);
+    Some(Run {
+        wall: nanos(wall),
+        user: nanos(user),
+        sys: nanos(sys),
+        peak_kib,
+        exit: exit as i32,
+    })
+}
+
+/// The median of each figure over `runs` runs (fewer for slow commands).
+fn measure(binary: &Path, args: &[String], scratch: &Path, settings: &Settings) -> Measured {
+    let stderr_file = scratch.join("stderr.txt");
+    let Some(first) = run_launched(binary, args, &stderr_file, settings.timeout) else {
+        return Measured::TimedOut;
+    };
+    let message = std::fs::read_to_string(&stderr_file)
+        .unwrap_or_default()
+        .lines()
+        .next()
+        .unwrap_or("")
+        .to_string();
+    let runs = if first.wall < Duration::from_secs(2) {
+        settings.runs
+    } else if first.wall < Duration::from_secs(15) {
+        settings.runs.min(3)
+    } else {
+        1
+    };
+    let mut all = vec![first];
+    for _ in 1..runs {
+        match run_launched(binary, args, &stderr_file, settings.timeout) {
+            Some(r) => all.push(r),
+            None => return Measured::TimedOut,
+        }
+    }
+    let median = |f: &dyn Fn(&Run) -> Duration| {
+        let mut v: Vec<Duration> = all.iter().map(f).collect();
+        v.sort();
+        v[v.len() / 2]
+    };
+    Measured::Done {
+        wall: median(&|r| r.wall),
+        user: median(&|r| r.user),
+        sys: median(&|r| r.sys),
+        peak_kib: all.iter().map(|r| r.peak_kib).max().unwrap_or(0),
+        exit: first.exit,
+        message,
+        runs: all.len(),
+    }
+}
+
+#[derive(Debug, Clone)]
+enum Measured {
+    TimedOut,
+    Done {
+        wall: Duration,
+        user: Duration,
+        sys: Duration,
+        peak_kib: i64,
+        exit: i32,
+        message: String,
+        runs: usize,
+    },
+}
+
+/// One row of the table: a family at one size.
+struct Case {
+    family: &'static str,
+    size: usize,
+    /// Rope passages solved in one command: passages of the rig, times samples or steps.
+    passages: usize,
+    rig: String,
+    /// Arguments after the rig file.
+    args: Vec<String>,
+    /// The command (before the rig file).
+    command: &'static str,
+    /// Closed form: the JSON case (`forward`, `back`) of `check --json` and its expected
+    /// value, given the report (some closed forms use its reported wraps).
+    closed_form: Option<(&'static str, Expected)>,
+}
+
+/// The expected value of a closed form, from the report where it needs reported data.
+type Expected = Box<dyn Fn(&serde_json::Value) -> Option<f64>>;
+
+/// Sum of the wraps of every guide in a `check --json` report, radians.
+fn guide_wraps(report: &serde_json::Value) -> Option<f64> {
+    report["parts"]
+        .as_array()?
+        .iter()
+        .filter(|p| p["kind"] == "guide")
+        .map(|p| p["wrap_deg"].as_f64().map(f64::to_radians))
+        .sum()
+}
+
+fn strings(args: &[&str]) -> Vec<String> {
+    args.iter().map(|s| s.to_string()).collect()
+}
+
+fn cases(families: &[String]) -> Vec<Case> {
+    let wanted = |f: &str| families.is_empty() || families.iter().any(|w| w == f);
+    let mut cases = Vec::new();
+    if wanted("line-sets") {
+        let largest = max_line_sets();
+        for n in [10, 100, 1000, largest] {
+            cases.push(Case {
+                family: "line-sets",
+                size: n,
+                passages: line_set_passages(n),
+                rig: line_sets(n),
+                args: vec![],
+                command: "check",
+                closed_form: None,
+            });
+        }
+        // Reading and validating the largest file alone: the same text with a drive
+        // that does not exist, refused (exit 2) only after the whole file is read.
+        cases.push(Case {
+            family: "line-sets-load",
+            size: largest,
+            passages: line_set_passages(largest),
+            rig: line_sets(largest).replace("drive: s0.operator", "drive: s0.nobody"),
+            args: vec![],
+            command: "check",
+            closed_form: None,
+        });
+    }
+    if wanted("cascade") {
+        for n in [10, 100, 300, 1000] {
+            cases.push(Case {
+                family: "cascade",
+                size: n,
+                passages: n,
+                rig: cascade(n, "{kind: none}"),
+                args: vec![],
+                command: "check",
+                // W/2^N (derived in `cascade`), frictionless: forward = ideal.
+                closed_form: Some((
+                    "forward",
+                    Box::new(move |_| Some(CASCADE_LOAD_KG * G / 2f64.powi(n as i32))),
+                )),
+            });
+        }
+    }
+    if wanted("chain") {
+        // The zig-zag of `chain`: back = W·exp(−μΣφ) over the wraps the binary reports.
+        for n in [10, 100, 1000, 10000] {
+            cases.push(Case {
+                family: "chain",
+                size: n,
+                passages: n,
+                rig: chain(n, CHAIN_MU),
+                args: vec![],
+                command: "check",
+                closed_form: Some((
+                    "back",
+                    Box::new(|r| Some(G * (-CHAIN_MU * guide_wraps(r)?).exp())),
+                )),
+            });
+        }
+    }
+    if wanted("serpentine") {
+        // Every wrap exactly π: back = W·exp(−μNπ), no geometry needed.
+        for n in [10, 100, 1000, 10000] {
+            cases.push(Case {
+                family: "serpentine",
+                size: n,
+                passages: n,
+                rig: serpentine(n, CHAIN_MU),
+                args: vec![],
+                command: "check",
+                closed_form: Some((
+                    "back",
+                    Box::new(move |_| {
+                        let turn = CHAIN_MU * n as f64 * std::f64::consts::PI;
+                        Some(CHAIN_LOAD_KG * G * (-turn).exp())
+                    }),
+                )),
+            });
+        }
+    }
+    if wanted("spread") {
+        for samples in [100, 1000, 10_000, 100_000] {
+            cases.push(Case {
+                family: "spread",
+                size: samples,
+                passages: RANGED_TACKLE_SHEAVES * samples,
+                rig: ranged_tackle(),
+                args: strings(&["--samples", &samples.to_string(), "--seed", "1"]),
+                command: "spread",
+                closed_form: None,
+            });
+        }
+    }
+    if wanted("rank") {
+        for n in [10, 30, 100, 300, 1000] {
+            cases.push(Case {
+                family: "rank",
+                size: n,
+                passages: 2 * n,
+                rig: tackles(n),
+                args: vec![],
+                command: "rank",
+                closed_form: None,
+            });
+        }
+    }
+    if wanted("stroke") {
+        for steps in [100, 1000, 10_000, 100_000] {
+            cases.push(Case {
+                family: "stroke",
+                size: steps,
+                passages: STROKE_SHEAVES * (steps + 1),
+                rig: tackle(STROKE_SHEAVES),
+                args: strings(&["--stroke", "1000 mm", "--steps", &steps.to_string()]),
+                command: "sweep",
+                closed_form: None,
+            });
+        }
+    }
+    cases
+}
+
+/// Relative error of the binary's `check --json` value against the closed form.
+fn closed_form_error(binary: &Path, rig: &Path, field: &str, expected: &Expected) -> String {
+    let out = match Command::new(binary)
+        .arg("check")
+        .arg(rig)
+        .arg("--json")
+        .output()
+    {
+        Ok(out) => out,
+        Err(e) => return format!("cannot run: {e}"),
+    };
+    let report = serde_json::from_slice::<serde_json::Value>(&out.stdout).unwrap_or_default();
+    match (report[field]["value"].as_f64(), expected(&report)) {
+        (Some(v), Some(expected)) => format!(
+            "{field} rel. err {:.1e}",
+            (v - expected).abs() / expected.abs()
+        ),
+        _ => "no value".to_string(),
+    }
+}
+
+struct Settings {
+    binary: PathBuf,
+    families: Vec<String>,
+    timeout: Duration,
+    runs: usize,
+}
+
+fn settings() -> Settings {
+    let mut binary = std::env::var_os("REEVE_BIN").map(PathBuf::from);
+    let mut families = Vec::new();
+    let mut timeout = Duration::from_secs(60);
+    let mut runs = 5;
+    let mut args = std::env::args().skip(1);
+    while let Some(a) = args.next() {
+        let mut value = |name: &str| {
+            args.next()
+                .unwrap_or_else(|| panic!("{name} needs a value"))
+        };
+        match a.as_str() {
+            "--family" => families.push(value("--family")),
+            "--timeout" => {
+                timeout = Duration::from_secs_f64(value("--timeout").parse().expect("--timeout S"))
+            }
+            "--runs" => runs = value("--runs").parse().expect("--runs N"),
+            // `cargo bench` passes `--bench` to every bench binary.
+            "--bench" => {}
+            flag if flag.starts_with("--") => {
+                panic!(
+                    "unknown flag {flag}: expected --family F, --timeout S, --runs N, or a binary"
+                )
+            }
+            path => binary = Some(PathBuf::from(path)),
+        }
+    }
+    Settings {
+        binary: binary.unwrap_or_else(|| PathBuf::from(env!("CARGO_BIN_EXE_reeve"))),
+        families,
+        timeout,
+        runs: runs.max(1),
+    }
+}
+
+fn seconds(d: Duration) -> String {
+    let s = d.as_secs_f64();
+    if s < 1.0 {
+        format!("{:.1} ms", s * 1e3)
+    } else {
+        format!("{s:.2} s")
+    }
+}
+
+fn main() {
+    let args: Vec<String> = std::env::args().collect();
+    if args.get(1).map(String::as_str) == Some("--launch") {
+        launch(&args[2..]);
+        return;
+    }
+    let settings = settings();
+    let scratch = std::env::temp_dir().join(format!("reeve-bench-scale-{}", std::process::id()));
+    std::fs::create_dir_all(&scratch).expect("scratch dir");
+    println!("binary: {}", settings.binary.display());
+    println!(
+        "timeout {} s; medians of up to {} runs; growth = t(10n)/t(n)\n",
+        settings.timeout.as_secs_f64(),
+        settings.runs
+    );
+    println!(
+        "| family | size | passages | wall | user | sys | wall/passage | growth (wall) | growth (user) | peak MB | exit | runs | closed form / message |"
+    );
+    println!("|---|--:|--:|--:|--:|--:|--:|--:|--:|--:|--:|--:|---|");
+    let mut done: Vec<(&'static str, usize, Measured)> = Vec::new();
+    for case in cases(&settings.families) {
+        let rig = scratch.join(format!("{}-{}.yaml", case.family, case.size));
+        std::fs::write(&rig, &case.rig).expect("write rig");
+        let mut args = vec![case.command.to_string(), rig.display().to_string()];
+        args.extend(case.args.iter().cloned());
+        let measured = measure(&settings.binary, &args, &scratch, &settings);
+        let mut row = format!("| {} | {} | {} |", case.family, case.size, case.passages);
+        match &measured {
+            Measured::TimedOut => {
+                let over = format!("> {} s", settings.timeout.as_secs());
+                let _ = write!(row, " {over} | {over} | | | | | | | killed | 1 | |");
+            }
+            Measured::Done {
+                wall,
+                user,
+                sys,
+                peak_kib,
+                exit,
+                message,
+                runs,
+            } => {
+                let per = wall.as_secs_f64() / case.passages as f64;
+                let earlier = done.iter().find_map(|(f, n, m)| match m {
+                    Measured::Done { wall, user, .. }
+                        if *f == case.family && n * 10 == case.size =>
+                    {
+                        Some((*wall, *user))
+                    }
+                    _ => None,
+                });
+                let growth = |now: Duration, then: Option<Duration>| match then {
+                    Some(t) if t > Duration::ZERO => {
+                        format!("{:.1}", now.as_secs_f64() / t.as_secs_f64())
+                    }
+                    _ => "—".to_string(),
+                };
+                let note = match &case.closed_form {
+                    Some((field, expected)) if *exit != 2 => {
+                        closed_form_error(&settings.binary, &rig, field, expected)
+                    }
+                    // The rig's temporary path says nothing: keep the file name.
+                    _ if *exit != 0 => message.replace(&format!("{}/", scratch.display()), ""),
+                    _ => String::new(),
+                };
+                let _ = write!(
+                    row,
+                    " {} | {} | {} | {:.2} µs | {} | {} | {:.1} | {exit} | {runs} | {note} |",
+                    seconds(*wall),
+                    seconds(*user),
+                    seconds(*sys),
+                    per * 1e6,
+                    growth(*wall, earlier.map(|e| e.0)),
+                    growth(*user, earlier.map(|e| e.1)),
+                    *peak_kib as f64 / 1024.0,
+                );
+            }
+        }
+        println!("{row}");
+        done.push((case.family, case.size, measured));
+        let _ = std::fs::remove_file(&rig);
+    }
+    let _ = std::fs::remove_dir_all(&scratch);
+}
