@@ -5,21 +5,22 @@
 //! bench measure an older binary side by side.
 //!
 //! ```sh
-//! cargo bench --bench scale                              # the binary cargo just built
+//! cargo bench --bench scale                              # target/release/reeve, just built
 //! cargo bench --bench scale -- /work/bin/reeve-before    # or any other binary
 //! REEVE_BIN=/path/to/reeve cargo bench --bench scale     # the same, by variable
 //! cargo bench --bench scale -- --family cascade --family chain --timeout 20 --runs 3
 //! ```
 //!
-//! For every measurement: the median of several runs (5 below 2 s, 3 below 15 s,
-//! else 1; `--runs N` sets the first) of wall time and of the child's user CPU time,
-//! and its peak resident memory (`ru_maxrss` from `wait4`). Each run is started by a
-//! small launcher (this binary again, `--launch`), because Linux counts the memory of
-//! the process that spawns a child in the child's `ru_maxrss` (the bench itself holds
-//! large reports); the launcher's own few megabytes are the floor of that figure. A run over the timeout
-//! (60 s; `--timeout S`) is killed and shown as "> 60 s". Time per passage divides the
-//! time by the rope passages in the rig (for `spread` and `sweep`: by passages times
-//! samples or steps). Growth is t(10n)/t(n) against the family's row ten times smaller.
+//! For every measurement: the median of several runs (5 below 2 s, else 3; `--runs N`
+//! sets the first, and caps the second) of wall time and of the child's user and system
+//! CPU time, and its peak resident memory (the largest `ru_maxrss` from `wait4`). Each
+//! run is started by a small launcher (this binary again, `--launch`), because Linux
+//! counts the memory of the process that spawns a child in the child's `ru_maxrss` (the
+//! bench itself holds large reports); the launcher's own 2.5 MB or so are the floor of
+//! that figure. A run over the timeout (60 s; `--timeout S`) is killed and shown as
+//! "> 60 s". Time per passage divides the wall time by the rope passages solved (for
+//! `spread` and `sweep`: the rig's passages times samples or steps). Growth is
+//! t(10n)/t(n) against the family's row ten times smaller.
 //! Where a family has a closed form, one extra `--json` run (not timed) gives the
 //! relative error of the binary's value against it. No timing assertions: this prints.
 
@@ -35,7 +36,8 @@ use std::time::{Duration, Instant};
 mod common;
 use common::{
     cascade, chain, line_set_passages, line_sets, max_line_sets, ranged_tackle, serpentine, tackle,
-    tackles, CASCADE_LOAD_KG, CHAIN_LOAD_KG, G, RANGED_TACKLE_SHEAVES,
+    tackles, CASCADE_LOAD_KG, CHAIN_LOAD_KG, G, LINE_SET_ARBOR_KG, LINE_SET_BATTEN_KG,
+    RANGED_TACKLE_SHEAVES,
 };
 
 /// Capstan friction of the two chain families (the issue's 1,000-guide chain, whose tiny
@@ -203,10 +205,8 @@ fn measure(binary: &Path, args: &[String], scratch: &Path, settings: &Settings) 
         .to_string();
     let runs = if first.wall < Duration::from_secs(2) {
         settings.runs
-    } else if first.wall < Duration::from_secs(15) {
-        settings.runs.min(3)
     } else {
-        1
+        settings.runs.min(3)
     };
     let mut all = vec![first];
     for _ in 1..runs {
@@ -291,7 +291,11 @@ fn cases(families: &[String]) -> Vec<Case> {
                 rig: line_sets(n),
                 args: vec![],
                 command: "check",
-                closed_form: None,
+                // Derived in `line_sets` (virtual work): (180 − 170) kg · g.
+                closed_form: Some((
+                    "ideal",
+                    Box::new(|_| Some((LINE_SET_BATTEN_KG - LINE_SET_ARBOR_KG) * G)),
+                )),
             });
         }
         // Reading and validating the largest file alone: the same text with a drive
@@ -307,7 +311,7 @@ fn cases(families: &[String]) -> Vec<Case> {
         });
     }
     if wanted("cascade") {
-        for n in [10, 100, 300, 1000] {
+        for n in [10, 30, 100, 300, 1000] {
             cases.push(Case {
                 family: "cascade",
                 size: n,
@@ -402,8 +406,9 @@ fn cases(families: &[String]) -> Vec<Case> {
     cases
 }
 
-/// Relative error of the binary's `check --json` value against the closed form.
-fn closed_form_error(binary: &Path, rig: &Path, field: &str, expected: &Expected) -> String {
+/// What one extra `check --json` run says: the relative error of the binary's value
+/// against the closed form, if the family has one, and the codes of failing checks.
+fn check_note(binary: &Path, rig: &Path, closed_form: Option<&(&str, Expected)>) -> String {
     let out = match Command::new(binary)
         .arg("check")
         .arg(rig)
@@ -414,13 +419,30 @@ fn closed_form_error(binary: &Path, rig: &Path, field: &str, expected: &Expected
         Err(e) => return format!("cannot run: {e}"),
     };
     let report = serde_json::from_slice::<serde_json::Value>(&out.stdout).unwrap_or_default();
-    match (report[field]["value"].as_f64(), expected(&report)) {
-        (Some(v), Some(expected)) => format!(
-            "{field} rel. err {:.1e}",
-            (v - expected).abs() / expected.abs()
-        ),
-        _ => "no value".to_string(),
+    let mut notes = Vec::new();
+    if let Some((field, expected)) = closed_form {
+        notes.push(
+            match (report[*field]["value"].as_f64(), expected(&report)) {
+                (Some(v), Some(expected)) => format!(
+                    "{field} rel. err {:.1e}",
+                    (v - expected).abs() / expected.abs()
+                ),
+                _ => format!("no {field} value"),
+            },
+        );
     }
+    let mut failing: Vec<&str> = report["warnings"]
+        .as_array()
+        .into_iter()
+        .flatten()
+        .filter(|w| w["fails"] == true)
+        .filter_map(|w| w["code"].as_str())
+        .collect();
+    failing.dedup();
+    if !failing.is_empty() {
+        notes.push(format!("fails: {}", failing.join(", ")));
+    }
+    notes.join("; ")
 }
 
 struct Settings {
@@ -484,6 +506,7 @@ fn main() {
     let scratch = std::env::temp_dir().join(format!("reeve-bench-scale-{}", std::process::id()));
     std::fs::create_dir_all(&scratch).expect("scratch dir");
     println!("binary: {}", settings.binary.display());
+    println!("load average before: {}", load_average());
     println!(
         "timeout {} s; medians of up to {} runs; growth = t(10n)/t(n)\n",
         settings.timeout.as_secs_f64(),
@@ -530,13 +553,15 @@ fn main() {
                     }
                     _ => "—".to_string(),
                 };
-                let note = match &case.closed_form {
-                    Some((field, expected)) if *exit != 2 => {
-                        closed_form_error(&settings.binary, &rig, field, expected)
-                    }
+                let note = if *exit == 2 {
                     // The rig's temporary path says nothing: keep the file name.
-                    _ if *exit != 0 => message.replace(&format!("{}/", scratch.display()), ""),
-                    _ => String::new(),
+                    message.replace(&format!("{}/", scratch.display()), "")
+                } else if case.command == "check" && (case.closed_form.is_some() || *exit != 0) {
+                    check_note(&settings.binary, &rig, case.closed_form.as_ref())
+                } else if *exit != 0 {
+                    message.clone()
+                } else {
+                    String::new()
                 };
                 let _ = write!(
                     row,
@@ -556,4 +581,12 @@ fn main() {
         let _ = std::fs::remove_file(&rig);
     }
     let _ = std::fs::remove_dir_all(&scratch);
+    println!("\nload average after: {}", load_average());
+}
+
+/// The 1, 5 and 15 minute load averages (other work on the machine skews the times).
+fn load_average() -> String {
+    std::fs::read_to_string("/proc/loadavg")
+        .map(|l| l.split_whitespace().take(3).collect::<Vec<_>>().join(" "))
+        .unwrap_or_else(|_| "unknown".to_string())
 }

@@ -187,12 +187,12 @@ pub const CASCADE_LOAD_KG: f64 = 100.0;
 /// value is `W·(1/(1 + K))^N`. Frictionless (K = 1) both are the ideal `W/2^N`; the
 /// velocity ratio is `2^N`.
 pub fn cascade(pulleys: usize, bearing: &str) -> String {
-    // Tread 42 mm and rope 8 mm: pitch radius 25 mm. Block i+1 sits on the far side of
+    // Tread 46 mm and rope 4 mm (D/d 11.5): pitch radius 25 mm. Block i+1 sits on the far side of
     // block i's sheave, `rise` mm above it.
     let (r, rise) = (25.0, 100.0);
     let top = rise * (pulleys as f64 + 10.0);
     let mut yaml = format!(
-        "format: 1\ntitle: Cascade of {pulleys} movable pulleys\nropes:\n  w: {{diameter: 8, mu: 0.12}}\nparts:\n"
+        "format: 1\ntitle: Cascade of {pulleys} movable pulleys\nropes:\n  w: {{diameter: 4, mu: 0.12}}\nparts:\n"
     );
     let mut lines = String::from("lines:\n");
     for i in 0..pulleys {
@@ -216,7 +216,7 @@ pub fn cascade(pulleys: usize, bearing: &str) -> String {
         let _ = writeln!(
             yaml,
             "  c{i}: {{kind: block, at: [{x}, 0, {z}], moves: [0, 0, 1], load: {{mass: {load}}}}}\n  \
-             c{i}.s: {{kind: sheave, block: c{i}, at: [{x}, 0, {z}], axle: [0, 1, 0], diameter: 42, bearing: {bearing}}}\n  \
+             c{i}.s: {{kind: sheave, block: c{i}, at: [{x}, 0, {z}], axle: [0, 1, 0], diameter: 46, bearing: {bearing}}}\n  \
              a{i}: {{kind: anchor, at: [{}, 0, {top}]}}",
             x - r
         );
@@ -246,7 +246,7 @@ pub const CHAIN_LOAD_KG: f64 = 1.0;
 pub fn serpentine(guides: usize, mu: f64) -> String {
     let r = 6.0;
     let mut yaml = format!(
-        "format: 1\ntitle: Cord over a serpentine of {guides} pins\nropes:\n  c: {{diameter: 2, mu: {mu}}}\nparts:\n"
+        "format: 1\ntitle: Cord over a serpentine of {guides} pins\nropes:\n  c: {{kind: cord, diameter: 2, mu: {mu}}}\nparts:\n"
     );
     // The last guide is an upper one: the first is upper when the count is odd. The hand
     // end hangs below an upper first guide, or stands above a lower one.
