@@ -18,7 +18,7 @@
 //! counts the memory of the process that spawns a child in the child's `ru_maxrss` (the
 //! bench itself holds large reports); the launcher's own 2.5 MB or so are the floor of
 //! that figure. A run over the timeout (60 s; `--timeout S`) is killed and shown as
-//! "> 60 s". Time per passage divides the wall time by the rope passages solved (for
+//! "> 60 s", and the family's larger sizes are not run. Time per passage divides the wall time by the rope passages solved (for
 //! `spread` and `sweep`: the rig's passages times samples or steps). Growth is
 //! t(10n)/t(n) against the family's row ten times smaller.
 //! Where a family has a closed form, one extra `--json` run (not timed) gives the
@@ -522,12 +522,28 @@ fn main() {
         std::fs::write(&rig, &case.rig).expect("write rig");
         let mut args = vec![case.command.to_string(), rig.display().to_string()];
         args.extend(case.args.iter().cloned());
-        let measured = measure(&settings.binary, &args, &scratch, &settings);
         let mut row = format!("| {} | {} | {} |", case.family, case.size, case.passages);
+        let over = format!("> {} s", settings.timeout.as_secs());
+        // A larger size of a family that already ran over the timeout would too.
+        let smaller_timed_out = done
+            .iter()
+            .find(|(f, n, m)| {
+                *f == case.family && *n < case.size && matches!(m, Measured::TimedOut)
+            })
+            .map(|(_, n, _)| *n);
+        if let Some(n) = smaller_timed_out {
+            let _ = write!(
+                row,
+                " {over} | | | | | | | | | 0 | not run: size {n} ran over |"
+            );
+            println!("{row}");
+            done.push((case.family, case.size, Measured::TimedOut));
+            continue;
+        }
+        let measured = measure(&settings.binary, &args, &scratch, &settings);
         match &measured {
             Measured::TimedOut => {
-                let over = format!("> {} s", settings.timeout.as_secs());
-                let _ = write!(row, " {over} | {over} | | | | | | | killed | 1 | |");
+                let _ = write!(row, " {over} | | | | | | | | killed | 1 | |");
             }
             Measured::Done {
                 wall,
