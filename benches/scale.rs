@@ -274,6 +274,25 @@ fn guide_wraps(report: &serde_json::Value) -> Option<f64> {
         .sum()
 }
 
+/// A `check` of a rig.
+fn check(
+    family: &'static str,
+    size: usize,
+    passages: usize,
+    rig: String,
+    closed_form: Option<(&'static str, Expected)>,
+) -> Case {
+    Case {
+        family,
+        size,
+        passages,
+        rig,
+        args: vec![],
+        command: "check",
+        closed_form,
+    }
+}
+
 fn strings(args: &[&str]) -> Vec<String> {
     args.iter().map(|s| s.to_string()).collect()
 }
@@ -284,84 +303,49 @@ fn cases(families: &[String]) -> Vec<Case> {
     if wanted("line-sets") {
         let largest = max_line_sets();
         for n in [10, 100, 1000, largest] {
-            cases.push(Case {
-                family: "line-sets",
-                size: n,
-                passages: line_set_passages(n),
-                rig: line_sets(n),
-                args: vec![],
-                command: "check",
-                // Derived in `line_sets` (virtual work): (180 − 170) kg · g.
-                closed_form: Some((
-                    "ideal",
-                    Box::new(|_| Some((LINE_SET_BATTEN_KG - LINE_SET_ARBOR_KG) * G)),
-                )),
-            });
+            // Derived in `line_sets` (virtual work): (180 − 170) kg · g.
+            let ideal: Expected = Box::new(|_| Some((LINE_SET_BATTEN_KG - LINE_SET_ARBOR_KG) * G));
+            let (passages, rig) = (line_set_passages(n), line_sets(n));
+            cases.push(check("line-sets", n, passages, rig, Some(("ideal", ideal))));
         }
         // Reading and validating the largest file alone: the same text with a drive
         // that does not exist, refused (exit 2) only after the whole file is read.
-        cases.push(Case {
-            family: "line-sets-load",
-            size: largest,
-            passages: line_set_passages(largest),
-            rig: line_sets(largest).replace("drive: s0.operator", "drive: s0.nobody"),
-            args: vec![],
-            command: "check",
-            closed_form: None,
-        });
+        let rig = line_sets(largest).replace("drive: s0.operator", "drive: s0.nobody");
+        let passages = line_set_passages(largest);
+        cases.push(check("line-sets-load", largest, passages, rig, None));
     }
     if wanted("cascade") {
         for n in [10, 30, 100, 300, 1000] {
-            cases.push(Case {
-                family: "cascade",
-                size: n,
-                passages: n,
-                rig: cascade(n, "{kind: none}"),
-                args: vec![],
-                command: "check",
-                // W/2^N (derived in `cascade`), frictionless: forward = ideal.
-                closed_form: Some((
-                    "forward",
-                    Box::new(move |_| Some(CASCADE_LOAD_KG * G / 2f64.powi(n as i32))),
-                )),
-            });
+            // W/2^N (derived in `cascade`), frictionless: forward = ideal.
+            let forward: Expected =
+                Box::new(move |_| Some(CASCADE_LOAD_KG * G / 2f64.powi(n as i32)));
+            let rig = cascade(n, "{kind: none}");
+            cases.push(check("cascade", n, n, rig, Some(("forward", forward))));
         }
     }
     if wanted("chain") {
         // The zig-zag of `chain`: back = W·exp(−μΣφ) over the wraps the binary reports.
         for n in [10, 100, 1000, 10000] {
-            cases.push(Case {
-                family: "chain",
-                size: n,
-                passages: n,
-                rig: chain(n, CHAIN_MU),
-                args: vec![],
-                command: "check",
-                closed_form: Some((
-                    "back",
-                    Box::new(|r| Some(G * (-CHAIN_MU * guide_wraps(r)?).exp())),
-                )),
-            });
+            // `chain` hangs 1 kg.
+            let back: Expected = Box::new(|r| Some(G * (-CHAIN_MU * guide_wraps(r)?).exp()));
+            cases.push(check(
+                "chain",
+                n,
+                n,
+                chain(n, CHAIN_MU),
+                Some(("back", back)),
+            ));
         }
     }
     if wanted("serpentine") {
         // Every wrap exactly π: back = W·exp(−μNπ), no geometry needed.
         for n in [10, 100, 1000, 10000] {
-            cases.push(Case {
-                family: "serpentine",
-                size: n,
-                passages: n,
-                rig: serpentine(n, CHAIN_MU),
-                args: vec![],
-                command: "check",
-                closed_form: Some((
-                    "back",
-                    Box::new(move |_| {
-                        let turn = CHAIN_MU * n as f64 * std::f64::consts::PI;
-                        Some(CHAIN_LOAD_KG * G * (-turn).exp())
-                    }),
-                )),
+            let back: Expected = Box::new(move |_| {
+                let turn = CHAIN_MU * n as f64 * std::f64::consts::PI;
+                Some(CHAIN_LOAD_KG * G * (-turn).exp())
             });
+            let rig = serpentine(n, CHAIN_MU);
+            cases.push(check("serpentine", n, n, rig, Some(("back", back))));
         }
     }
     if wanted("spread") {

@@ -169,18 +169,7 @@ fn serpentine_matches_the_capstan_equation() {
             w,
             1e-9,
         );
-        assert_close(
-            &format!("{n} guides, forward"),
-            value(&report, "forward"),
-            w * turn.exp(),
-            1e-9,
-        );
-        assert_close(
-            &format!("{n} guides, back"),
-            value(&report, "back"),
-            w * (-turn).exp(),
-            1e-9,
-        );
+        assert_capstan(&format!("{n} guides"), &report, w, turn, 1e-9);
     }
 }
 
@@ -212,19 +201,22 @@ fn zig_zag_chain_matches_the_capstan_equation_over_its_wraps() {
             assert_close(&format!("{n} guides, wrap of g{i}"), *wrap, interior, 1e-9);
         }
         let turn = mu * wraps.iter().sum::<f64>();
-        assert_close(
-            &format!("{n} guides, forward"),
-            value(&report, "forward"),
-            w * turn.exp(),
-            1e-12,
-        );
-        assert_close(
-            &format!("{n} guides, back"),
-            value(&report, "back"),
-            w * (-turn).exp(),
-            1e-12,
-        );
+        assert_capstan(&format!("{n} guides"), &report, w, turn, 1e-12);
     }
+}
+
+/// Forward `weight·exp(turn)` and back `weight·exp(−turn)` (capstan equation, `turn` =
+/// μ·Σφ), relative tolerance `tol`.
+fn assert_capstan(what: &str, report: &Value, weight: f64, turn: f64, tol: f64) {
+    let forward = value(report, "forward");
+    assert_close(
+        &format!("{what}, forward"),
+        forward,
+        weight * turn.exp(),
+        tol,
+    );
+    let back = value(report, "back");
+    assert_close(&format!("{what}, back"), back, weight * (-turn).exp(), tol);
 }
 
 /// Hauling-part pull of a tackle with rated sheaves, N = S parts (wire-rope handbook
