@@ -9,6 +9,7 @@
 //! cargo bench --bench scale -- /work/bin/reeve-before    # or any other binary
 //! REEVE_BIN=/path/to/reeve cargo bench --bench scale     # the same, by variable
 //! cargo bench --bench scale -- --family cascade --family chain --timeout 20 --runs 3
+//! cargo bench --bench scale -- --family rank --size 300 --timeout 600   # one row
 //! ```
 //!
 //! For every measurement: the median of several runs (5 below 2 s, else 3; `--runs N`
@@ -432,6 +433,8 @@ fn check_note(binary: &Path, rig: &Path, closed_form: Option<&(&str, Expected)>)
 struct Settings {
     binary: PathBuf,
     families: Vec<String>,
+    /// Only these sizes (all when empty).
+    sizes: Vec<usize>,
     timeout: Duration,
     runs: usize,
 }
@@ -439,6 +442,7 @@ struct Settings {
 fn settings() -> Settings {
     let mut binary = std::env::var_os("REEVE_BIN").map(PathBuf::from);
     let mut families = Vec::new();
+    let mut sizes = Vec::new();
     let mut timeout = Duration::from_secs(60);
     let mut runs = 5;
     let mut args = std::env::args().skip(1);
@@ -449,6 +453,7 @@ fn settings() -> Settings {
         };
         match a.as_str() {
             "--family" => families.push(value("--family")),
+            "--size" => sizes.push(value("--size").parse().expect("--size N")),
             "--timeout" => {
                 timeout = Duration::from_secs_f64(value("--timeout").parse().expect("--timeout S"))
             }
@@ -457,7 +462,7 @@ fn settings() -> Settings {
             "--bench" => {}
             flag if flag.starts_with("--") => {
                 panic!(
-                    "unknown flag {flag}: expected --family F, --timeout S, --runs N, or a binary"
+                    "unknown flag {flag}: expected --family F, --size N, --timeout S, --runs N, or a binary"
                 )
             }
             path => binary = Some(PathBuf::from(path)),
@@ -466,6 +471,7 @@ fn settings() -> Settings {
     Settings {
         binary: binary.unwrap_or_else(|| PathBuf::from(env!("CARGO_BIN_EXE_reeve"))),
         families,
+        sizes,
         timeout,
         runs: runs.max(1),
     }
@@ -501,7 +507,10 @@ fn main() {
     );
     println!("|---|--:|--:|--:|--:|--:|--:|--:|--:|--:|--:|--:|---|");
     let mut done: Vec<(&'static str, usize, Measured)> = Vec::new();
-    for case in cases(&settings.families) {
+    let cases = cases(&settings.families)
+        .into_iter()
+        .filter(|c| settings.sizes.is_empty() || settings.sizes.contains(&c.size));
+    for case in cases {
         let rig = scratch.join(format!("{}-{}.yaml", case.family, case.size));
         std::fs::write(&rig, &case.rig).expect("write rig");
         let mut args = vec![case.command.to_string(), rig.display().to_string()];
