@@ -31,6 +31,7 @@ reeving formula, W * K^20 * (K - 1) / (K^20 - 1) = 360.8 N.
 """
 
 import argparse
+import signal
 import time
 
 import numpy as np
@@ -70,6 +71,7 @@ def study(samples, seed):
 
 
 def main():
+    signal.signal(signal.SIGPIPE, signal.SIG_DFL)  # quiet when piped into `head`
     parser = argparse.ArgumentParser(description=__doc__.splitlines()[0])
     parser.add_argument("--samples", type=int, default=100_000)
     parser.add_argument("--seed", type=int, default=1)
