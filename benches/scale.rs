@@ -33,7 +33,7 @@ use std::sync::atomic::{AtomicBool, Ordering};
 use std::sync::{mpsc, Arc};
 use std::time::{Duration, Instant};
 
-#[path = "../tests/common/mod.rs"]
+#[path = "../tests/it/support/generators.rs"]
 mod common;
 use common::{
     cascade, chain, line_set_passages, line_sets, max_line_sets, ranged_tackle, serpentine, tackle,

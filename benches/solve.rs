@@ -7,7 +7,7 @@ use std::time::{Duration, Instant};
 use reeve::rig::load_str;
 use reeve::solve::{solve, SolveOptions};
 
-#[path = "../tests/common/mod.rs"]
+#[path = "../tests/it/support/generators.rs"]
 mod common;
 use common::{chain, tackle};
 

@@ -618,7 +618,7 @@ fn malformed_ranges_and_variants_are_reported() {
     assert!(String::from_utf8_lossy(&out.stderr).contains("no `variants:`"));
 }
 
-mod common;
+use crate::support::generators as common;
 
 #[test]
 fn compare_of_tackles_over_the_number_of_parts_reproduces_the_handbook_formula() {

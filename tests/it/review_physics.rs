@@ -3,7 +3,7 @@
 //! checked against a hand calculation (arithmetic beside the check) or a published
 //! formula named beside it.
 
-mod common;
+use crate::support::generators as common;
 use common::{assert_close, audit_ok};
 use std::f64::consts::PI;
 use std::path::PathBuf;

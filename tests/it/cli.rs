@@ -4,7 +4,7 @@
 use std::io::Write;
 use std::process::Command;
 
-mod common;
+use crate::support::generators as common;
 
 fn run(text: &str) -> (i32, String, String) {
     let dir = std::env::temp_dir().join(format!("reeve-cli-{}", std::process::id()));

@@ -1014,7 +1014,7 @@ fn a_signal_during_a_write_leaves_no_temp_file() {
         let status = Command::new(std::env::current_exe().unwrap())
             .args([
                 "--exact",
-                "a_signal_during_a_write_leaves_no_temp_file",
+                "outputs::a_signal_during_a_write_leaves_no_temp_file",
                 "--nocapture",
             ])
             .env("REEVE_SIGNAL_CHILD_TARGET", &target)

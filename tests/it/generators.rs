@@ -10,7 +10,7 @@ use std::process::Command;
 
 use serde_json::Value;
 
-mod common;
+use crate::support::generators as common;
 use common::{
     assert_close, cascade, chain, line_sets, max_line_sets, ranged_tackle, serpentine, tackle,
     tackles, CASCADE_LOAD_KG, CHAIN_LOAD_KG, G, LINE_SET_ARBOR_KG, LINE_SET_BATTEN_KG,

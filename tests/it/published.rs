@@ -2,7 +2,7 @@
 //! published worked examples and handbook formulas. Every check names its source beside
 //! it; values known only from memory say so, hand calculations show their arithmetic.
 
-mod common;
+use crate::support::generators as common;
 use common::{assert_close, audit_ok};
 use std::f64::consts::PI;
 

@@ -4,7 +4,7 @@
 use reeve::rig::load_str;
 use reeve::solve::{solve, SolveOptions};
 
-mod common;
+use crate::support::generators as common;
 use common::chain;
 
 #[test]

@@ -1,0 +1,3 @@
+//! What the test modules share.
+
+pub mod generators;
