@@ -1,34 +1,9 @@
 //! The real binary on bad rigs that only the geometry or the solver can find wrong:
 //! exit code 2, and a message that names the file, line, column and part.
 
-use std::io::Write;
-use std::process::Command;
-
 use crate::support::generators as common;
-
-fn run(text: &str) -> (i32, String, String) {
-    let dir = std::env::temp_dir().join(format!("reeve-cli-{}", std::process::id()));
-    std::fs::create_dir_all(&dir).unwrap();
-    let path = dir.join(format!(
-        "rig-{:x}.yaml",
-        text.len() * 7919 + text.bytes().map(usize::from).sum::<usize>()
-    ));
-    std::fs::File::create(&path)
-        .unwrap()
-        .write_all(text.as_bytes())
-        .unwrap();
-    let out = Command::new(env!("CARGO_BIN_EXE_reeve"))
-        .arg("check")
-        .arg(&path)
-        .output()
-        .unwrap();
-    let _ = std::fs::remove_file(&path);
-    (
-        out.status.code().unwrap_or(-1),
-        String::from_utf8_lossy(&out.stdout).into_owned(),
-        String::from_utf8_lossy(&out.stderr).into_owned(),
-    )
-}
+use crate::support::reeve;
+use crate::support::run::{reeve_on, Ran};
 
 const HEAD: &str = "format: 1\nropes:\n  r: {diameter: 6, mu: 0.2}\nparts:\n";
 
@@ -37,7 +12,9 @@ fn point_inside_a_sheave_is_located() {
     let rig = format!(
         "{HEAD}  a: {{kind: anchor, at: [0, 0, 0]}}\n  s: {{kind: sheave, at: [0, 0, 10], axle: [0, 1, 0], diameter: 60, bearing: {{kind: none}}}}\n  h: {{kind: haul, at: [500, 0, 0]}}\nlines:\n  l: {{rope: r, path: [a, s, h]}}\n"
     );
-    let (code, _, err) = run(&rig);
+    let Ran {
+        code, stderr: err, ..
+    } = reeve_on(&rig, &["check"]);
     assert_eq!(code, 2, "{err}");
     assert!(
         err.contains(":9:")
@@ -53,7 +30,9 @@ fn coincident_points_are_located() {
     let rig = format!(
         "{HEAD}  a: {{kind: anchor, at: [0, 0, 0]}}\n  w: {{kind: weight, at: [0, 0, 0], mass: 1}}\n  h: {{kind: haul, at: [0, 0, 500]}}\nlines:\n  l: {{rope: r, path: [a, w]}}\n  m: {{rope: r, path: [w, h]}}\n"
     );
-    let (code, _, err) = run(&rig);
+    let Ran {
+        code, stderr: err, ..
+    } = reeve_on(&rig, &["check"]);
     assert_eq!(code, 2, "{err}");
     assert!(err.contains(":9:") && err.contains("same place"), "{err}");
 }
@@ -64,7 +43,9 @@ fn a_rig_that_cannot_move_names_its_parts() {
     let rig = format!(
         "{HEAD}  a: {{kind: anchor, at: [0, 0, 0]}}\n  s: {{kind: sheave, at: [100, 0, 1000], axle: [0, 1, 0], diameter: 60, bearing: {{kind: none}}}}\n  w: {{kind: weight, at: [200, 0, 0], mass: 1}}\n  b: {{kind: anchor, at: [100, 0, 2000]}}\n  h: {{kind: haul, at: [300, 0, 0]}}\nlines:\n  l: {{rope: r, path: [a, s, w]}}\n  m: {{rope: r, path: [w, b]}}\n  n: {{rope: r, path: [b, h]}}\ndrive: h\n"
     );
-    let (code, _, err) = run(&rig);
+    let Ran {
+        code, stderr: err, ..
+    } = reeve_on(&rig, &["check"]);
     assert_eq!(code, 2, "{err}");
     assert!(err.contains("`w`"), "{err}");
 }
@@ -74,30 +55,25 @@ fn ambiguous_side_asks_for_side() {
     let rig = format!(
         "{HEAD}  a: {{kind: anchor, at: [0, 0, 2000]}}\n  s: {{kind: sheave, at: [0, 0, 1000], axle: [0, 1, 0], diameter: 60, bearing: {{kind: none}}}}\n  w: {{kind: weight, at: [0, 0, 0], mass: 1}}\nlines:\n  l: {{rope: r, path: [a, s, w]}}\ndrive: w\n"
     );
-    let (code, _, err) = run(&rig);
+    let Ran {
+        code, stderr: err, ..
+    } = reeve_on(&rig, &["check"]);
     assert_eq!(code, 2, "{err}");
     assert!(err.contains(":9:") && err.contains("side: left"), "{err}");
 }
 
 #[test]
 fn check_output_ends_with_the_caution() {
-    let out = Command::new(env!("CARGO_BIN_EXE_reeve"))
-        .args(["check", "rigs/workshop-hoist.yaml"])
-        .output()
-        .unwrap();
-    assert_eq!(out.status.code(), Some(0));
-    let text = String::from_utf8_lossy(&out.stdout);
+    let text = reeve(&["check", "rigs/workshop-hoist.yaml"])
+        .expect_code(0)
+        .stdout;
     assert!(text.trim_end().ends_with(reeve::report::CAUTION), "{text}");
 }
 
 #[test]
 fn every_anchor_and_fixed_sheave_reports_its_pin_load() {
     for rig in ["rigs/workshop-hoist.yaml", "rigs/line-set.yaml"] {
-        let out = Command::new(env!("CARGO_BIN_EXE_reeve"))
-            .args(["check", rig, "--json"])
-            .output()
-            .unwrap();
-        let json: serde_json::Value = serde_json::from_slice(&out.stdout).unwrap();
+        let json = reeve(&["check", rig, "--json"]).json();
         for part in json["parts"].as_array().unwrap() {
             if matches!(part["kind"].as_str(), Some("anchor" | "sheave")) {
                 let load = part["pin_load_n"]["forward"].as_f64();
@@ -107,18 +83,9 @@ fn every_anchor_and_fixed_sheave_reports_its_pin_load() {
     }
 }
 
-/// `reeve check ARGS`, its stdout.
-fn check_stdout(args: &[&str]) -> Vec<u8> {
-    Command::new(env!("CARGO_BIN_EXE_reeve"))
-        .arg("check")
-        .args(args)
-        .output()
-        .unwrap()
-        .stdout
-}
-
+/// `reeve check ARGS --json`, parsed, whatever the exit code.
 fn check_json(args: &[&str]) -> serde_json::Value {
-    serde_json::from_slice(&check_stdout(&[args, &["--json"]].concat())).unwrap()
+    reeve(&[&["check"], args, &["--json"]].concat()).json()
 }
 
 fn codes(json: &serde_json::Value) -> Vec<String> {
@@ -176,26 +143,14 @@ fn a_block_cannot_drive_against_its_own_load() {
     let rig = format!(
         "{HEAD}  top: {{kind: sheave, at: [0, 0, 1000], axle: [0, 1, 0], diameter: 60, bearing: {{kind: none}}}}\n  b: {{kind: block, at: [-33, 0, 0], moves: [0, 0, 1], load: {{mass: 5}}}}\n  w: {{kind: weight, at: [33, 0, 0], mass: 4}}\nlines:\n  l: {{rope: r, path: [b, top, w]}}\ndrive: b\n"
     );
-    let (code, _, err) = run(&rig);
+    let Ran {
+        code, stderr: err, ..
+    } = reeve_on(&rig, &["check"]);
     assert_eq!(code, 2, "{err}");
     assert!(
         err.contains(":6:") && err.contains("`b`") && err.contains("against its own travel"),
         "{err}"
     );
-}
-
-/// The real binary on a rig file with any command; (exit code, stdout, stderr).
-fn reeve(args: &[&str]) -> (i32, String, String) {
-    let out = Command::new(env!("CARGO_BIN_EXE_reeve"))
-        .args(args)
-        .current_dir(env!("CARGO_MANIFEST_DIR"))
-        .output()
-        .unwrap();
-    (
-        out.status.code().unwrap_or(-1),
-        String::from_utf8_lossy(&out.stdout).into_owned(),
-        String::from_utf8_lossy(&out.stderr).into_owned(),
-    )
 }
 
 /// The analysis commands that solve a rig, with the arguments each needs.
@@ -218,7 +173,9 @@ fn a_capstan_ratio_that_overflows_is_a_located_error_in_every_command() {
     // μ = 0.25 give e^(0.25·(π + 2000π)) = e^1571, beyond f64 (largest e^709).
     for args in every_solving_command("tests/rigs/guide-turns.yaml") {
         let args: Vec<&str> = args.iter().map(String::as_str).collect();
-        let (code, _, err) = reeve(&args);
+        let Ran {
+            code, stderr: err, ..
+        } = reeve(&args);
         assert_eq!(code, 2, "{args:?}: {err}");
         assert!(!err.contains("panicked"), "{args:?}: {err}");
         assert!(
@@ -237,7 +194,9 @@ fn a_rope_mu_of_hundreds_set_from_the_command_line_is_refused_not_a_panic() {
     for mut args in every_solving_command("rigs/rescue-haul.yaml") {
         args.extend(["--set".to_string(), "parts.leg.biner.mu=1000".to_string()]);
         let args: Vec<&str> = args.iter().map(String::as_str).collect();
-        let (code, _, err) = reeve(&args);
+        let Ran {
+            code, stderr: err, ..
+        } = reeve(&args);
         assert_eq!(code, 2, "{args:?}: {err}");
         assert!(!err.contains("panicked"), "{args:?}: {err}");
         assert!(
@@ -247,7 +206,9 @@ fn a_rope_mu_of_hundreds_set_from_the_command_line_is_refused_not_a_panic() {
     }
     // A rope `mu` of a few hundred on bare pins (rigs/automaton-cord.yaml, no `mu` of
     // their own): e^(300·φ) overflows too, and the message names the first pin.
-    let (code, _, err) = reeve(&[
+    let Ran {
+        code, stderr: err, ..
+    } = reeve(&[
         "rank",
         "rigs/automaton-cord.yaml",
         "--set",
@@ -259,7 +220,9 @@ fn a_rope_mu_of_hundreds_set_from_the_command_line_is_refused_not_a_panic() {
         "{err}"
     );
     // The sweep that reaches it in a step: refused as well, never a panic.
-    let (code, _, err) = reeve(&[
+    let Ran {
+        code, stderr: err, ..
+    } = reeve(&[
         "sweep",
         "rigs/rescue-haul.yaml",
         "--vary",
@@ -279,7 +242,12 @@ fn a_finite_but_unphysical_capstan_ratio_has_its_own_message() {
     let text = std::fs::read_to_string("tests/rigs/guide-turns.yaml")
         .unwrap()
         .replace("turns: 1000", "turns: 100");
-    let (code, out, err) = run(&text);
+    let Ran {
+        code,
+        stdout: out,
+        stderr: err,
+        ..
+    } = reeve_on(&text, &["check"]);
     assert_eq!(code, 2, "{out}{err}");
     assert!(
         err.contains("`bar`") && err.contains("too large to be physical"),
@@ -287,7 +255,12 @@ fn a_finite_but_unphysical_capstan_ratio_has_its_own_message() {
     );
     // Five turns (e^(0.25·11π) = 5.7e3) are an ordinary capstan and still solve.
     let text = text.replace("turns: 100", "turns: 5");
-    let (code, out, err) = run(&text);
+    let Ran {
+        code,
+        stdout: out,
+        stderr: err,
+        ..
+    } = reeve_on(&text, &["check"]);
     assert_eq!(code, 0, "{out}{err}");
 }
 
@@ -296,14 +269,24 @@ fn friction_that_compounds_beyond_any_rope_fails_the_check() {
     // Guards huge figures with exit 0 where every passage is ordinary but they multiply:
     // 40 zig-zag pins at μ = 0.5, each wrapped about 2 rad (ratio e^1 ≈ 2.8, capstan
     // equation), multiply the pull about e^40 ≈ 1e17-fold, far above 1e12.
-    let (code, out, err) = run(&common::chain(40, 0.5));
+    let Ran {
+        code,
+        stdout: out,
+        stderr: err,
+        ..
+    } = reeve_on(&common::chain(40, 0.5), &["check"]);
     assert_eq!(code, 1, "{out}{err}");
     assert!(
         out.contains("FAIL [friction-lock]") && out.contains("line `cord`"),
         "{out}"
     );
     // Ten such pins (e^10 ≈ 2e4) are an ordinary, if lossy, rig.
-    let (code, out, err) = run(&common::chain(10, 0.5));
+    let Ran {
+        code,
+        stdout: out,
+        stderr: err,
+        ..
+    } = reeve_on(&common::chain(10, 0.5), &["check"]);
     assert!(!out.contains("friction-lock"), "{out}{err}");
     assert_eq!(code, 0, "{out}{err}");
 }
@@ -313,7 +296,12 @@ fn loads_square_to_the_motion_are_refused_with_the_likely_fix() {
     // Guards "0 N in every case, the drive moves the rig, exit 0": the hook rises along
     // +Y while gravity is the default −Z, so its 40 kg do no work (virtual work:
     // X = −(v·Q)/(v·x) = 0 for every friction).
-    let (code, out, err) = reeve(&["check", "tests/rigs/y-up-hoist.yaml"]);
+    let Ran {
+        code,
+        stdout: out,
+        stderr: err,
+        ..
+    } = reeve(&["check", "tests/rigs/y-up-hoist.yaml"]);
     assert_eq!(code, 2, "{out}{err}");
     assert!(
         err.contains("y-up-hoist.yaml:12:")
@@ -324,7 +312,12 @@ fn loads_square_to_the_motion_are_refused_with_the_likely_fix() {
         "{err}"
     );
     // The same rig with gravity along −Y solves: 2:1, ideal 40 g / 2 = 196.13 N.
-    let (code, out, err) = reeve(&[
+    let Ran {
+        code,
+        stdout: out,
+        stderr: err,
+        ..
+    } = reeve(&[
         "check",
         "tests/rigs/y-up-hoist.yaml",
         "--json",
@@ -341,7 +334,12 @@ fn loads_square_to_the_motion_are_refused_with_the_likely_fix() {
         .replace("moves: [1, 0, 0]}", "moves: [1, 0, 0], load: {mass: 100}}")
         .replace(", force: 300}", "}")
         .replace("solve_for: cart", "");
-    let (code, out, err) = run(&text);
+    let Ran {
+        code,
+        stdout: out,
+        stderr: err,
+        ..
+    } = reeve_on(&text, &["check"]);
     assert_eq!(code, 2, "{out}{err}");
     assert!(
         err.contains("`cart`") && err.contains("do no work"),
@@ -357,7 +355,12 @@ fn a_balanced_rig_whose_ideal_effort_is_zero_still_solves() {
     let rig = format!(
         "{HEAD}  s: {{kind: sheave, at: [0, 0, 2000], axle: [0, 1, 0], diameter: 60, bearing: {{kind: plain, pin_diameter: 10, mu: 0.1}}}}\n  a: {{kind: weight, at: [-33, 0, 0], mass: 5}}\n  b: {{kind: weight, at: [33, 0, -500], mass: 5}}\n  h: {{kind: haul, at: [100, 0, 1000]}}\nlines:\n  l: {{rope: r, path: [a, s, b]}}\n  m: {{rope: r, path: [b, h]}}\ndrive: h\n"
     );
-    let (code, out, err) = run(&rig);
+    let Ran {
+        code,
+        stdout: out,
+        stderr: err,
+        ..
+    } = reeve_on(&rig, &["check"]);
     assert!(!err.contains("do no work"), "{err}");
     assert_ne!(code, 2, "{out}{err}");
 }
@@ -368,11 +371,10 @@ fn verdict(rig: &str, sets: &[&str]) -> (i32, serde_json::Value, String) {
     for s in sets {
         args.extend(["--set", s]);
     }
-    let (_, text, _) = reeve(&args);
+    let text = reeve(&args).stdout;
     args.push("--json");
-    let (code, json, err) = reeve(&args);
-    let json = serde_json::from_str(&json).unwrap_or_else(|e| panic!("{e}: {err}"));
-    (code, json, text)
+    let ran = reeve(&args);
+    (ran.code, ran.json(), text)
 }
 
 #[test]
@@ -431,7 +433,12 @@ fn a_drive_turning_backward_says_so_and_fails() {
 fn failure_messages_use_the_rigs_units_and_precision() {
     // Guards "2600.0000 N available, 2769.3525 N needed" beside a summary in kN: the
     // warnings use the summary's units and four significant figures.
-    let (code, out, err) = reeve(&[
+    let Ran {
+        code,
+        stdout: out,
+        stderr: err,
+        ..
+    } = reeve(&[
         "check",
         "rigs/workshop-hoist.yaml",
         "--set",
@@ -459,7 +466,12 @@ fn an_imperial_rig_shows_torque_in_imperial_units() {
     // Hand calculation in the rig header: load torque 3 lbf*in = 0.338958 N·m, ideal
     // pull 3/2.125 = 1.41176 lbf.
     let rig = "tests/rigs/hinge-imperial.yaml";
-    let (code, text, err) = reeve(&["check", rig]);
+    let Ran {
+        code,
+        stdout: text,
+        stderr: err,
+        ..
+    } = reeve(&["check", rig]);
     assert_eq!(code, 0, "{err}");
     assert!(
         text.contains("3.000 lbf*in") && !text.contains("N*m"),
@@ -470,9 +482,9 @@ fn an_imperial_rig_shows_torque_in_imperial_units() {
     // radius, 2.125 in/rad, not 0.05397 m/rad.
     assert!(text.contains("Velocity ratio 2.125 in/rad"), "{text}");
     assert!(text.contains("mechanical advantage 2.125 in"), "{text}");
-    let (_, table, _) = reeve(&["table", rig, "--format", "md"]);
+    let Ran { stdout: table, .. } = reeve(&["table", rig, "--format", "md"]);
     assert!(table.contains("torque lbf*in"), "{table}");
-    let (_, json, _) = reeve(&["check", rig, "--json"]);
+    let Ran { stdout: json, .. } = reeve(&["check", rig, "--json"]);
     let json: serde_json::Value = serde_json::from_str(&json).unwrap();
     let load = json["drums"][0]["load_torque_nm"].as_f64().unwrap();
     assert!(
@@ -482,11 +494,7 @@ fn an_imperial_rig_shows_torque_in_imperial_units() {
     let bare = std::fs::read_to_string(rig)
         .unwrap()
         .replace("torque: \"3 lbf*in\"", "torque: 3");
-    let path = std::env::temp_dir().join(format!("reeve-bare-torque-{}.yaml", std::process::id()));
-    std::fs::write(&path, bare).unwrap();
-    let (_, json, err) = reeve(&["check", path.to_str().unwrap(), "--json"]);
-    let _ = std::fs::remove_file(&path);
-    let json: serde_json::Value = serde_json::from_str(&json).unwrap_or_else(|_| panic!("{err}"));
+    let json = reeve_on(&bare, &["check", "--json"]).json();
     let load = json["drums"][0]["load_torque_nm"].as_f64().unwrap();
     assert!((load - 3.0).abs() < 1e-12, "a bare torque is N*m: {load}");
 }
@@ -494,7 +502,7 @@ fn an_imperial_rig_shows_torque_in_imperial_units() {
 #[test]
 fn passage_columns_carry_their_degree_signs() {
     // Guards fleet columns without `°` beside `wrap °` in the check summary.
-    let (_, text, _) = reeve(&["check", "rigs/ramp-winch.yaml"]);
+    let Ran { stdout: text, .. } = reeve(&["check", "rigs/ramp-winch.yaml"]);
     assert!(
         text.contains("wrap °") && text.contains("fleet in °") && text.contains("fleet out °"),
         "{text}"
@@ -537,7 +545,11 @@ fn a_default_drum_side_that_leads_the_rope_across_the_drum_is_warned() {
     // it on the lead sheave's side.
     let text = std::fs::read_to_string("rigs/ramp-winch.yaml").unwrap();
     let started = text.replace("path: [cart, lead, winch]", "path: [winch, lead, cart]");
-    let (_, out, err) = run(&started);
+    let Ran {
+        stdout: out,
+        stderr: err,
+        ..
+    } = reeve_on(&started, &["check"]);
     assert!(
         out.contains("[drum-side]") && out.contains("`winch`") && out.contains("side: right"),
         "{out}{err}"
@@ -548,11 +560,11 @@ fn a_default_drum_side_that_leads_the_rope_across_the_drum_is_warned() {
             "path: [cart, lead, winch]",
             &format!("path: [{{part: winch, side: {side}}}, lead, cart]"),
         );
-        let (_, out, _) = run(&stated);
+        let Ran { stdout: out, .. } = reeve_on(&stated, &["check"]);
         assert!(!out.contains("[drum-side]"), "{side}: {out}");
     }
     // The rig as drawn, drum at the end with the default side, runs open: no warning.
-    let (_, out, _) = reeve(&["check", "rigs/ramp-winch.yaml"]);
+    let Ran { stdout: out, .. } = reeve(&["check", "rigs/ramp-winch.yaml"]);
     assert!(!out.contains("[drum-side]"), "{out}");
     // A weight hanging under the drum's far edge (tests/rigs/review/drum-end-right.yaml
     // without its `side: right`): the default side leads the rope across the drum's
@@ -560,9 +572,9 @@ fn a_default_drum_side_that_leads_the_rope_across_the_drum_is_warned() {
     let hanging = std::fs::read_to_string("tests/rigs/review/drum-end-right.yaml")
         .unwrap()
         .replace("{part: winch, side: right}", "winch");
-    let (_, out, _) = run(&hanging);
+    let Ran { stdout: out, .. } = reeve_on(&hanging, &["check"]);
     assert!(out.contains("[drum-side]"), "{out}");
-    let (_, out, _) = reeve(&["check", "tests/rigs/review/drum-end-left.yaml"]);
+    let Ran { stdout: out, .. } = reeve(&["check", "tests/rigs/review/drum-end-left.yaml"]);
     assert!(!out.contains("[drum-side]"), "{out}");
 }
 
@@ -576,13 +588,7 @@ fn a_drum_at_a_line_end_shows_the_turns_wound_on_it() {
             "path: [cart, lead, winch]",
             "path: [cart, lead, {part: winch, turns: 3}]",
         );
-    let dir = std::env::temp_dir().join(format!("reeve-cli-turns-{}", std::process::id()));
-    std::fs::create_dir_all(&dir).unwrap();
-    let path = dir.join("winch.yaml");
-    std::fs::write(&path, text).unwrap();
-    let (_, json, err) = reeve(&["check", path.to_str().unwrap(), "--json"]);
-    let json: serde_json::Value =
-        serde_json::from_str(&json).unwrap_or_else(|e| panic!("{e}{err}"));
+    let json = reeve_on(&text, &["check", "--json"]).json();
     let winch = json["parts"]
         .as_array()
         .unwrap()
@@ -595,11 +601,11 @@ fn a_drum_at_a_line_end_shows_the_turns_wound_on_it() {
         "{winch}"
     );
     assert_eq!(winch["wrap_deg"].as_f64(), Some(1080.0), "{winch}");
-    let _ = std::fs::remove_dir_all(&dir);
 }
 
+/// `reeve check ARGS`, its text, whatever the exit code.
 fn check_text(args: &[&str]) -> String {
-    String::from_utf8(check_stdout(args)).unwrap()
+    reeve(&[&["check"], args].concat()).stdout
 }
 
 #[test]
@@ -743,22 +749,14 @@ fn an_efficiency_outside_0_to_100_percent_is_never_printed() {
     assert!(json["back"]["efficiency"].is_null(), "{}", json["back"]);
     let e = json["forward"]["efficiency"].as_f64().unwrap();
     assert!((0.0..=1.0).contains(&e), "{e}");
-    let out = Command::new(env!("CARGO_BIN_EXE_reeve"))
-        .args(["check", rig, set[0], set[1]])
-        .output()
-        .unwrap();
-    let text = String::from_utf8_lossy(&out.stdout);
+    let text = reeve(&["check", rig, set[0], set[1]]).stdout;
     let row = text
         .lines()
         .find(|l| l.trim_start().starts_with("efficiency"))
         .unwrap();
     assert!(!row.contains('-'), "{row}");
     assert!(text.contains("No back efficiency"), "{text}");
-    let out = Command::new(env!("CARGO_BIN_EXE_reeve"))
-        .args(["report", rig, set[0], set[1], "-o", "-"])
-        .output()
-        .unwrap();
-    let html = String::from_utf8_lossy(&out.stdout);
+    let html = reeve(&["report", rig, set[0], set[1], "-o", "-"]).stdout;
     assert!(
         !html.contains("-8.2 %") && !html.contains("−8.2 %"),
         "html shows it"

@@ -6,6 +6,8 @@ use std::time::{Duration, Instant};
 use proptest::prelude::*;
 use reeve::rig::{load_file, load_str, load_str_with, LoadError};
 
+use crate::support::Scratch;
+
 const EXAMPLE: &str = "\
 format: 1
 title: Two-part hoist for a workshop hatch
@@ -379,12 +381,9 @@ fn leading_bom_is_stripped() {
     let rig = load_str(&format!("\u{feff}{EXAMPLE}"), "rig.yaml").unwrap();
     assert_eq!(rig.parts.len(), 5);
     // And a file on disk with a BOM loads too.
-    let dir = std::env::temp_dir().join(format!("reeve-load-{}", std::process::id()));
-    std::fs::create_dir_all(&dir).unwrap();
-    let path = dir.join("bom.yaml");
-    std::fs::write(&path, format!("\u{feff}{EXAMPLE}")).unwrap();
+    let dir = Scratch::new("bom");
+    let path = dir.write("bom.yaml", &format!("\u{feff}{EXAMPLE}"));
     assert!(load_file(&path).is_ok());
-    let _ = std::fs::remove_dir_all(&dir);
 }
 
 #[test]

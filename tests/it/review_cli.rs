@@ -5,15 +5,10 @@
 //! with a clear message on bad arguments.
 
 use std::path::{Path, PathBuf};
-use std::process::{Command, Output};
+use std::process::Command;
 
-/// A fresh scratch folder for one test.
-fn scratch(name: &str) -> PathBuf {
-    let dir = std::env::temp_dir().join(format!("reeve-review-{}-{name}", std::process::id()));
-    let _ = std::fs::remove_dir_all(&dir);
-    std::fs::create_dir_all(&dir).unwrap();
-    dir
-}
+use crate::support::run::Ran;
+use crate::support::{Reeve, Scratch};
 
 /// A small rig that solves: a weight over one plain-bearing sheave, hauled by hand.
 const RIG: &str = "format: 1
@@ -36,21 +31,14 @@ fn write_rig(dir: &Path) -> PathBuf {
     path
 }
 
-fn reeve(dir: &Path, args: &[&str]) -> Output {
-    Command::new(env!("CARGO_BIN_EXE_reeve"))
-        .current_dir(dir)
-        .args(args)
-        .output()
-        .unwrap()
-}
-
-fn stderr(out: &Output) -> String {
-    String::from_utf8_lossy(&out.stderr).into_owned()
+/// `reeve ARGS` run in `dir`.
+fn reeve(dir: &Path, args: &[&str]) -> Ran {
+    Reeve::new(args).in_dir(dir).run()
 }
 
 #[test]
 fn sweep_plot_refuses_to_write_over_the_input_rig() {
-    let dir = scratch("plot-input");
+    let dir = Scratch::new("plot-input");
     write_rig(&dir);
     let out = reeve(
         &dir,
@@ -65,8 +53,8 @@ fn sweep_plot_refuses_to_write_over_the_input_rig() {
             "./rig.yaml",
         ],
     );
-    assert_eq!(out.status.code(), Some(2), "{}", stderr(&out));
-    assert!(stderr(&out).contains("refusing to write over the input rig"));
+    assert_eq!(out.code, 2, "{}", out.stderr);
+    assert!(out.stderr.contains("refusing to write over the input rig"));
     assert_eq!(
         std::fs::read_to_string(dir.join("rig.yaml")).unwrap(),
         RIG,
@@ -79,7 +67,7 @@ fn sweep_plot_refuses_to_write_over_the_input_rig() {
 fn output_to_a_fifo_writes_into_it_and_keeps_it() {
     use std::io::Read;
     use std::os::unix::fs::FileTypeExt;
-    let dir = scratch("fifo");
+    let dir = Scratch::new("fifo");
     write_rig(&dir);
     let fifo = dir.join("out.svg");
     let made = Command::new("mkfifo").arg(&fifo).status();
@@ -95,7 +83,7 @@ fn output_to_a_fifo_writes_into_it_and_keeps_it() {
         .open(&fifo)
         .unwrap();
     let out = reeve(&dir, &["draw", "rig.yaml", "-o", "out.svg"]);
-    assert_eq!(out.status.code(), Some(0), "{}", stderr(&out));
+    assert_eq!(out.code, 0, "{}", out.stderr);
     let kind = std::fs::symlink_metadata(&fifo).unwrap().file_type();
     assert!(kind.is_fifo(), "the FIFO was replaced by a regular file");
     let mut buf = [0u8; 512];
@@ -105,19 +93,19 @@ fn output_to_a_fifo_writes_into_it_and_keeps_it() {
 
 #[test]
 fn spread_with_an_absurd_sample_count_is_refused() {
-    let dir = scratch("samples");
+    let dir = Scratch::new("samples");
     write_rig(&dir);
     let out = reeve(
         &dir,
         &["spread", "rig.yaml", "--samples", "18446744073709551615"],
     );
-    assert_eq!(out.status.code(), Some(2), "{}", stderr(&out));
-    assert!(stderr(&out).contains("--samples"), "{}", stderr(&out));
+    assert_eq!(out.code, 2, "{}", out.stderr);
+    assert!(out.stderr.contains("--samples"), "{}", out.stderr);
 }
 
 #[test]
 fn sweep_with_an_absurd_step_count_is_refused() {
-    let dir = scratch("steps-huge");
+    let dir = Scratch::new("steps-huge");
     write_rig(&dir);
     for mode in [
         ["--vary", "parts.s.bearing.mu=0.05..0.2"],
@@ -134,14 +122,14 @@ fn sweep_with_an_absurd_step_count_is_refused() {
                 "100000000000",
             ],
         );
-        assert_eq!(out.status.code(), Some(2), "{mode:?}: {}", stderr(&out));
-        assert!(stderr(&out).contains("--steps"), "{}", stderr(&out));
+        assert_eq!(out.code, 2, "{mode:?}: {}", out.stderr);
+        assert!(out.stderr.contains("--steps"), "{}", out.stderr);
     }
 }
 
 #[test]
 fn sweep_with_zero_steps_is_refused() {
-    let dir = scratch("steps-zero");
+    let dir = Scratch::new("steps-zero");
     write_rig(&dir);
     for mode in [
         ["--vary", "parts.s.bearing.mu=0.05..0.2"],
@@ -151,20 +139,20 @@ fn sweep_with_zero_steps_is_refused() {
             &dir,
             &["sweep", "rig.yaml", mode[0], mode[1], "--steps", "0"],
         );
-        assert_eq!(out.status.code(), Some(2), "{mode:?}: {}", stderr(&out));
-        assert!(stderr(&out).contains("--steps"), "{}", stderr(&out));
+        assert_eq!(out.code, 2, "{mode:?}: {}", out.stderr);
+        assert!(out.stderr.contains("--steps"), "{}", out.stderr);
     }
 }
 
 #[test]
 fn sweep_of_a_key_that_never_solves_is_bad_input() {
-    let dir = scratch("vary-bad");
+    let dir = Scratch::new("vary-bad");
     write_rig(&dir);
     // A part that does not exist, and a value with the wrong unit: no step can solve.
     for vary in ["parts.nope.mu=1..2", "parts.s.diameter=10kg..20kg"] {
         let out = reeve(&dir, &["sweep", "rig.yaml", "--vary", vary, "--steps", "3"]);
-        assert_eq!(out.status.code(), Some(2), "{vary}: {}", stderr(&out));
-        assert!(stderr(&out).contains("rig.yaml"), "{}", stderr(&out));
+        assert_eq!(out.code, 2, "{vary}: {}", out.stderr);
+        assert!(out.stderr.contains("rig.yaml"), "{}", out.stderr);
         assert!(out.stdout.is_empty(), "{vary}: a table was printed");
     }
     // A range that is valid only in part still sweeps, showing where it fails.
@@ -179,21 +167,21 @@ fn sweep_of_a_key_that_never_solves_is_bad_input() {
             "3",
         ],
     );
-    assert_eq!(out.status.code(), Some(0), "{}", stderr(&out));
+    assert_eq!(out.code, 0, "{}", out.stderr);
 }
 
 #[test]
 fn studies_locate_solve_errors_like_check() {
-    let dir = scratch("study-locate");
+    let dir = Scratch::new("study-locate");
     // A line tied at both ends: it loads, but the solver finds that nothing can move.
     let rig = "format: 1\nropes:\n  r: {diameter: 6, mu: 0.2}\nparts:\n  a: {kind: anchor, at: [0, 0, 2000]}\n  h: {kind: haul, at: [0, 0, 0]}\nlines:\n  l: {rope: r, path: [a, h]}\n";
     std::fs::write(dir.join("rig.yaml"), rig).unwrap();
     let check = reeve(&dir, &["check", "rig.yaml"]);
-    assert_eq!(check.status.code(), Some(2));
+    assert_eq!(check.code, 2);
     assert!(
-        stderr(&check).contains("rig.yaml:6:3: parts.h:"),
+        check.stderr.contains("rig.yaml:6:3: parts.h:"),
         "{}",
-        stderr(&check)
+        check.stderr
     );
     for args in [
         &["rank", "rig.yaml"][..],
@@ -202,11 +190,11 @@ fn studies_locate_solve_errors_like_check() {
         &["sweep", "rig.yaml", "--stroke", "10"],
     ] {
         let out = reeve(&dir, args);
-        assert_eq!(out.status.code(), Some(2), "{args:?}");
+        assert_eq!(out.code, 2, "{args:?}");
         assert!(
-            stderr(&out).contains("rig.yaml:6:3: parts.h:"),
+            out.stderr.contains("rig.yaml:6:3: parts.h:"),
             "{args:?}: {}",
-            stderr(&out)
+            out.stderr
         );
     }
 }
@@ -215,16 +203,16 @@ fn studies_locate_solve_errors_like_check() {
 /// there and the run went on with half a file (exit 0).
 #[test]
 fn a_control_character_in_the_rig_file_is_exit_2_with_line_and_column() {
-    let dir = scratch("nul-comment");
+    let dir = Scratch::new("nul-comment");
     let text = RIG.replace(
         "lines:\n",
         "# a \u{0} here\nlimits: {design_factor: 50}\nlines:\n",
     );
     std::fs::write(dir.join("rig.yaml"), text).unwrap();
     let out = reeve(&dir, &["check", "rig.yaml"]);
-    assert_eq!(out.status.code(), Some(2), "{}", stderr(&out));
-    assert!(stderr(&out).contains("rig.yaml:11:5:"), "{}", stderr(&out));
-    assert!(stderr(&out).contains("U+0000 (NUL)"), "{}", stderr(&out));
+    assert_eq!(out.code, 2, "{}", out.stderr);
+    assert!(out.stderr.contains("rig.yaml:11:5:"), "{}", out.stderr);
+    assert!(out.stderr.contains("U+0000 (NUL)"), "{}", out.stderr);
 }
 
 /// Guards the other ways text enters: `--set` values, `variants` (after YAML escapes)
@@ -232,7 +220,7 @@ fn a_control_character_in_the_rig_file_is_exit_2_with_line_and_column() {
 /// escaped, never raw on the terminal.
 #[test]
 fn control_characters_in_set_variants_and_rank_to_are_refused() {
-    let dir = scratch("control-entries");
+    let dir = Scratch::new("control-entries");
     let variants = RIG.to_string() + "variants:\n  bad: [\"parts.s.bearing.mu=0.1\\0\"]\n";
     write_rig(&dir);
     std::fs::write(dir.join("variants.yaml"), &variants).unwrap();
@@ -253,8 +241,8 @@ fn control_characters_in_set_variants_and_rank_to_are_refused() {
         ],
     ] {
         let out = reeve(&dir, args);
-        let err = stderr(&out);
-        assert_eq!(out.status.code(), Some(2), "{args:?}: {err}");
+        let err = out.stderr;
+        assert_eq!(out.code, 2, "{args:?}: {err}");
         assert!(err.contains("character U+"), "{args:?}: {err}");
         assert!(
             !err.contains(['\u{1b}', '\u{0}', '\u{202e}']),
@@ -269,7 +257,7 @@ fn control_characters_in_set_variants_and_rank_to_are_refused() {
 /// millimetre rig.
 #[test]
 fn rank_to_reads_bare_numbers_in_the_rigs_units_and_accepts_units() {
-    let dir = scratch("rank-to-units");
+    let dir = Scratch::new("rank-to-units");
     write_rig(&dir);
     let metres = RIG
         .replace("length: mm", "length: m")
@@ -282,30 +270,26 @@ fn rank_to_reads_bare_numbers_in_the_rigs_units_and_accepts_units() {
     std::fs::write(dir.join("metres.yaml"), metres).unwrap();
     let rank = |file: &str, to: &str| {
         let out = reeve(&dir, &["rank", file, "--to", to, "--format", "json"]);
-        (
-            out.status.code(),
-            String::from_utf8_lossy(&out.stdout).into_owned(),
-            stderr(&out),
-        )
+        (out.code, out.stdout, out.stderr)
     };
     let (code, bare_mm, err) = rank("rig.yaml", "{kind: plain, pin_diameter: 8, mu: 0.08}");
-    assert_eq!(code, Some(0), "{err}");
+    assert_eq!(code, 0, "{err}");
     let (code, with_unit, err) = rank("rig.yaml", "{kind: plain, pin_diameter: 8 mm, mu: 0.08}");
-    assert_eq!(code, Some(0), "{err}");
+    assert_eq!(code, 0, "{err}");
     let alternative = |json: &str| {
         let v: serde_json::Value = serde_json::from_str(json).unwrap();
         v["parts"][0]["alternative"].as_f64().unwrap()
     };
     assert_eq!(alternative(&bare_mm), alternative(&with_unit));
     let (code, _, err) = rank("metres.yaml", "{kind: plain, pin_diameter: 8, mu: 0.08}");
-    assert_eq!(code, Some(2), "{err}");
+    assert_eq!(code, 2, "{err}");
     assert!(
         err.contains("--to") && err.contains("8 m") && err.contains("bare numbers"),
         "{err}"
     );
     let (code, with_unit_m, err) =
         rank("metres.yaml", "{kind: plain, pin_diameter: 8 mm, mu: 0.08}");
-    assert_eq!(code, Some(0), "{err}");
+    assert_eq!(code, 0, "{err}");
     let ratio = alternative(&with_unit_m) / alternative(&with_unit);
     assert!((ratio - 1.0).abs() < 1e-9, "{ratio}");
 }

@@ -4,6 +4,7 @@
 //! formula named beside it.
 
 use crate::support::generators as common;
+use crate::support::{reeve, test_rig};
 use common::{assert_close, audit_ok};
 use std::f64::consts::PI;
 use std::path::PathBuf;
@@ -261,12 +262,7 @@ fn frictionless_equals_ideal_exactly_in_odd_units() {
 
 /// `reeve check` text for a rig.
 fn check_text(name: &str) -> String {
-    let out = std::process::Command::new(env!("CARGO_BIN_EXE_reeve"))
-        .arg("check")
-        .arg(rig_path(name))
-        .output()
-        .unwrap();
-    String::from_utf8_lossy(&out.stdout).into_owned()
+    reeve(&["check", &test_rig(&format!("review/{name}"))]).stdout
 }
 
 #[test]
@@ -290,12 +286,7 @@ fn loss_of_input_is_positive_when_the_load_drives_forward() {
     // drum-end-left runs forward by lowering the weight: the input is the weight's
     // 10 g × 0.053 = 5.1975 W per rad/s, of which the 0.5 N·m drag takes 0.5 W:
     // 9.62 % (hand calculation). The drive's own power (−4.6975 W) is an output here.
-    let out = std::process::Command::new(env!("CARGO_BIN_EXE_reeve"))
-        .args(["check", "--json"])
-        .arg(rig_path("drum-end-left.yaml"))
-        .output()
-        .unwrap();
-    let json: serde_json::Value = serde_json::from_slice(&out.stdout).unwrap();
+    let json = reeve(&["check", "--json", &test_rig("review/drum-end-left.yaml")]).json();
     let winch = json["parts"]
         .as_array()
         .unwrap()

@@ -4,9 +4,10 @@
 //! exit codes: 0 clean, 1 when a check fails, 2 on a bad file.
 
 use std::path::{Path, PathBuf};
-use std::process::{Command, Output};
 
 use serde::Deserialize;
+
+use crate::support::{reeve, Scratch, ROOT};
 
 /// The warning codes (sorted, with repeats) and exit code each example rig is designed
 /// to give, from its header comment. A rig without an entry fails the test.
@@ -105,22 +106,6 @@ struct CheckJson {
     warnings: Vec<Warning>,
 }
 
-fn manifest() -> PathBuf {
-    PathBuf::from(env!("CARGO_MANIFEST_DIR"))
-}
-
-fn reeve(args: &[&str]) -> Output {
-    Command::new(env!("CARGO_BIN_EXE_reeve"))
-        .args(args)
-        .current_dir(manifest())
-        .output()
-        .expect("the reeve binary runs")
-}
-
-fn code(out: &Output) -> i32 {
-    out.status.code().expect("exit code, not a signal")
-}
-
 /// Every number anywhere in the document is finite (JSON cannot hold NaN, but a
 /// writer could print a huge or odd value; serde_json parses those as f64).
 fn all_finite(value: &serde_json::Value, at: &str) {
@@ -144,7 +129,7 @@ fn all_finite(value: &serde_json::Value, at: &str) {
 }
 
 fn example_rigs() -> Vec<PathBuf> {
-    let mut rigs: Vec<PathBuf> = std::fs::read_dir(manifest().join("rigs"))
+    let mut rigs: Vec<PathBuf> = std::fs::read_dir(Path::new(ROOT).join("rigs"))
         .expect("rigs/ is readable")
         .filter_map(|e| e.ok().map(|e| e.path()))
         .filter(|p| p.extension().is_some_and(|x| x == "yaml" || x == "yml"))
@@ -162,17 +147,7 @@ fn check_rig(path: &Path) {
         );
     };
     let rel = format!("rigs/{file}");
-    let out = reeve(&["check", "--json", &rel]);
-    let stdout = String::from_utf8_lossy(&out.stdout);
-    let stderr = String::from_utf8_lossy(&out.stderr);
-    assert_eq!(
-        code(&out),
-        exit,
-        "{rel}: exit code {} (expected {exit}); stderr: {stderr}",
-        code(&out)
-    );
-    let value: serde_json::Value = serde_json::from_str(&stdout)
-        .unwrap_or_else(|e| panic!("{rel}: output is not JSON ({e}): {stdout}"));
+    let value = reeve(&["check", "--json", &rel]).expect_code(exit).json();
     all_finite(&value, &rel);
     // The energy audit (an extra key beyond §5) balances to round-off in every case.
     for case in ["ideal", "forward", "back"] {
@@ -266,7 +241,7 @@ fn check_rig(path: &Path) {
     );
     // The text summary gives the same exit code.
     let text = reeve(&["check", &rel]);
-    assert_eq!(code(&text), exit, "{rel}: text mode exit code");
+    assert_eq!(text.code, exit, "{rel}: text mode exit code");
 }
 
 #[test]
@@ -295,13 +270,8 @@ fn a_drive_too_weak_exits_1() {
         "--set",
         "parts.winch.force=1 kN",
     ]);
-    assert_eq!(
-        code(&out),
-        1,
-        "stderr: {}",
-        String::from_utf8_lossy(&out.stderr)
-    );
-    let json: CheckJson = serde_json::from_slice(&out.stdout).expect("JSON");
+    let out = out.expect_code(1);
+    let json: CheckJson = serde_json::from_str(&out.stdout).expect("JSON");
     assert!(
         json.warnings.iter().any(|w| w.code == "cannot-move"),
         "warnings: {:?}",
@@ -311,10 +281,8 @@ fn a_drive_too_weak_exits_1() {
 
 #[test]
 fn a_bad_file_exits_2() {
-    let dir = std::env::temp_dir().join(format!("reeve-rigs-{}", std::process::id()));
-    std::fs::create_dir_all(&dir).expect("temp dir");
-    let bad = dir.join("bad.yaml");
-    std::fs::write(&bad, "format: 1\nparts: [this is not a rig\n").expect("write");
+    let dir = Scratch::new("rigs");
+    let bad = dir.write("bad.yaml", "format: 1\nparts: [this is not a rig\n");
     let bad = bad.to_string_lossy().to_string();
     for args in [
         vec!["check", bad.as_str()],
@@ -322,13 +290,7 @@ fn a_bad_file_exits_2() {
         vec!["check", "rigs/no-such-rig.yaml"],
     ] {
         let out = reeve(&args);
-        assert_eq!(
-            code(&out),
-            2,
-            "{args:?}: stderr {}",
-            String::from_utf8_lossy(&out.stderr)
-        );
+        assert_eq!(out.code, 2, "{args:?}: stderr {}", out.stderr);
         assert!(!out.stderr.is_empty(), "{args:?}: says why on stderr");
     }
-    let _ = std::fs::remove_dir_all(&dir);
 }

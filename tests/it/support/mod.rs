@@ -1,3 +1,68 @@
-//! What the test modules share.
+//! What the test modules share, each in one place: the binary runner ([`run`]), scratch
+//! folders, where the rig files are, and the rig generators that the benchmarks share
+//! ([`generators`], included by path from `benches/`).
 
 pub mod generators;
+pub mod run;
+
+use std::path::{Path, PathBuf};
+use std::sync::atomic::{AtomicU32, Ordering};
+
+pub use run::{json_of, reeve, stdout_of, Reeve};
+
+/// The package's root folder (where `rigs/` and `tests/` are).
+pub const ROOT: &str = env!("CARGO_MANIFEST_DIR");
+
+/// `rigs/NAME.yaml`, an example rig shipped to users, as a path argument.
+pub fn example_rig(name: &str) -> String {
+    format!("{ROOT}/rigs/{name}.yaml")
+}
+
+/// `tests/rigs/NAME`, a rig made for the tests (`review/…` for the small probing rigs).
+pub fn test_rig(name: &str) -> String {
+    format!("{ROOT}/tests/rigs/{name}")
+}
+
+/// A fresh empty folder under the system's temporary folder, removed when dropped.
+pub struct Scratch(PathBuf);
+
+impl Scratch {
+    /// A new folder whose name carries `tag`, this process and a counter.
+    pub fn new(tag: &str) -> Scratch {
+        static N: AtomicU32 = AtomicU32::new(0);
+        let dir = std::env::temp_dir().join(format!(
+            "reeve-test-{tag}-{}-{}",
+            std::process::id(),
+            N.fetch_add(1, Ordering::Relaxed)
+        ));
+        let _ = std::fs::remove_dir_all(&dir);
+        std::fs::create_dir_all(&dir).expect("scratch folder");
+        Scratch(dir)
+    }
+
+    /// Writes `text` to the file `name` in the folder; its path.
+    pub fn write(&self, name: &str, text: &str) -> PathBuf {
+        let path = self.0.join(name);
+        std::fs::write(&path, text).unwrap_or_else(|e| panic!("{}: {e}", path.display()));
+        path
+    }
+}
+
+impl std::ops::Deref for Scratch {
+    type Target = Path;
+    fn deref(&self) -> &Path {
+        &self.0
+    }
+}
+
+impl AsRef<Path> for Scratch {
+    fn as_ref(&self) -> &Path {
+        &self.0
+    }
+}
+
+impl Drop for Scratch {
+    fn drop(&mut self) {
+        let _ = std::fs::remove_dir_all(&self.0);
+    }
+}
