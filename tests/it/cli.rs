@@ -2,8 +2,8 @@
 //! exit code 2, and a message that names the file, line, column and part.
 
 use crate::support::generators as common;
-use crate::support::reeve;
 use crate::support::run::{reeve_on, Ran};
+use crate::support::{assert_abs, reeve};
 
 const HEAD: &str = "format: 1\nropes:\n  r: {diameter: 6, mu: 0.2}\nparts:\n";
 
@@ -113,10 +113,8 @@ fn a_drum_paying_out_is_flagged_and_self_locks_when_drag_holds_it() {
     let held = check_json(&[rig, "--set", "parts.winch.drag=6"]);
     let forward = held["forward"]["value"].as_f64().unwrap();
     let back = held["back"]["value"].as_f64().unwrap();
-    assert!(
-        (forward - 0.8025).abs() < 1e-3 && (back + 11.1975).abs() < 1e-3,
-        "{held}"
-    );
+    assert_abs("held by 6 N·m drag: forward, N·m", forward, 0.8025, 1e-3);
+    assert_abs("held by 6 N·m drag: back, N·m", back, -11.1975, 1e-3);
     assert_eq!(held["self_locking"], true, "{held}");
 }
 
@@ -327,7 +325,7 @@ fn loads_square_to_the_motion_are_refused_with_the_likely_fix() {
     assert_eq!(code, 0, "{err}");
     let json: serde_json::Value = serde_json::from_str(&out).unwrap();
     let ideal = json["ideal"]["value"].as_f64().unwrap();
-    assert!((ideal - 40.0 * 9.80665 / 2.0).abs() < 1e-6, "{ideal}");
+    assert_abs("ideal pull, N", ideal, 40.0 * 9.80665 / 2.0, 1e-6);
     // A block moving across gravity with a mass load, hauled for a force: refused too.
     let text = std::fs::read_to_string("tests/rigs/review/level-cart.yaml")
         .unwrap()
@@ -401,7 +399,7 @@ fn a_reversed_winch_that_cannot_hold_its_load_fails() {
     assert!(text.contains("runs away"), "{text}");
     let f = json["forward"]["value"].as_f64().unwrap();
     let margin = json["margin"].as_f64().unwrap();
-    assert!((margin - (f + 15.0) / f.abs()).abs() < 1e-12, "{json}");
+    assert_abs("margin (f + 15)/|f|", margin, (f + 15.0) / f.abs(), 1e-12);
     // A brake of −30 N·m holds it: exit 0, margin (−20.25 + 30)/20.25 = +48 %.
     let (code, json, text) = verdict(rig, &["parts.winch.torque=-30"]);
     assert_eq!(code, 0, "{text}");
@@ -409,10 +407,8 @@ fn a_reversed_winch_that_cannot_hold_its_load_fails() {
     assert_eq!(json["moves"], true);
     let f = json["forward"]["value"].as_f64().unwrap();
     let margin = json["margin"].as_f64().unwrap();
-    assert!(
-        (margin - (f + 30.0) / f.abs()).abs() < 1e-12 && margin > 0.4,
-        "{json}"
-    );
+    assert_abs("margin (f + 30)/|f|", margin, (f + 30.0) / f.abs(), 1e-12);
+    assert!(margin > 0.4, "{json}");
 }
 
 #[test]
@@ -484,19 +480,20 @@ fn an_imperial_rig_shows_torque_in_imperial_units() {
     assert!(text.contains("mechanical advantage 2.125 in"), "{text}");
     let Ran { stdout: table, .. } = reeve(&["table", rig, "--format", "md"]);
     assert!(table.contains("torque lbf*in"), "{table}");
-    let Ran { stdout: json, .. } = reeve(&["check", rig, "--json"]);
-    let json: serde_json::Value = serde_json::from_str(&json).unwrap();
+    let json = reeve(&["check", rig, "--json"]).json();
     let load = json["drums"][0]["load_torque_nm"].as_f64().unwrap();
-    assert!(
-        (load - 3.0 * 4.448_221_615_260_5 * 0.0254).abs() < 1e-9,
-        "{load}"
+    assert_abs(
+        "3 lbf*in load torque, N·m",
+        load,
+        3.0 * 4.448_221_615_260_5 * 0.0254,
+        1e-9,
     );
     let bare = std::fs::read_to_string(rig)
         .unwrap()
         .replace("torque: \"3 lbf*in\"", "torque: 3");
     let json = reeve_on(&bare, &["check", "--json"]).json();
     let load = json["drums"][0]["load_torque_nm"].as_f64().unwrap();
-    assert!((load - 3.0).abs() < 1e-12, "a bare torque is N*m: {load}");
+    assert_abs("a bare torque is N*m", load, 3.0, 1e-12);
 }
 
 #[test]
@@ -621,8 +618,14 @@ fn the_friction_at_the_drive_is_shown_beside_the_efficiency() {
     );
     let ff = v["friction_forward"].as_f64().unwrap();
     let fb = v["friction_back"].as_f64().unwrap();
-    assert!((ff - (forward - ideal)).abs() < 1e-9 && ff > 0.0, "{v}");
-    assert!((fb - (ideal - back)).abs() < 1e-9 && fb > 0.0, "{v}");
+    assert_abs(
+        "friction forward = forward − ideal",
+        ff,
+        forward - ideal,
+        1e-9,
+    );
+    assert_abs("friction back = ideal − back", fb, ideal - back, 1e-9);
+    assert!(ff > 0.0 && fb > 0.0, "{v}");
     // 149.7 − 98.06 = 51.64 N and 98.06 − 49.49 = 48.57 N (figures of the summary).
     let text = check_text(&["rigs/line-set.yaml"]);
     let row = text
@@ -634,10 +637,14 @@ fn the_friction_at_the_drive_is_shown_beside_the_efficiency() {
     let v = check_json(&["tests/rigs/review/block-unknown.yaml"]);
     let ideal = v["ideal"]["value"].as_f64().unwrap();
     let ff = v["friction_forward"].as_f64().unwrap();
-    assert!(
-        (ff - (ideal - v["forward"]["value"].as_f64().unwrap())).abs() < 1e-9 && ff > 0.0,
-        "{v}"
+    let forward = v["forward"]["value"].as_f64().unwrap();
+    assert_abs(
+        "friction forward = ideal − forward",
+        ff,
+        ideal - forward,
+        1e-9,
     );
+    assert!(ff > 0.0, "{v}");
 }
 
 /// The outcome line of `check`: the line that gives the margin.

@@ -7,12 +7,13 @@
 
 use serde_json::Value;
 
+use crate::support::assert_rel;
 use crate::support::generators as common;
 use crate::support::run::{reeve_on, Ran};
 use common::{
-    assert_close, cascade, chain, line_sets, max_line_sets, ranged_tackle, serpentine, tackle,
-    tackles, CASCADE_LOAD_KG, CHAIN_LOAD_KG, G, LINE_SET_ARBOR_KG, LINE_SET_BATTEN_KG,
-    MAX_RIG_BYTES, RANGED_TACKLE_SHEAVES,
+    cascade, chain, line_sets, max_line_sets, ranged_tackle, serpentine, tackle, tackles,
+    CASCADE_LOAD_KG, CHAIN_LOAD_KG, G, LINE_SET_ARBOR_KG, LINE_SET_BATTEN_KG, MAX_RIG_BYTES,
+    RANGED_TACKLE_SHEAVES,
 };
 
 /// `reeve ARGS[0] RIG ARGS[1..] --json` on a generated rig, which must succeed (exit 0),
@@ -46,9 +47,9 @@ fn line_sets_are_independent_sub_rigs_with_the_ideal_effort_of_one_set() {
     let forward = value(subrigs[0], "forward");
     for (i, sub) in subrigs.iter().enumerate() {
         assert_eq!(sub["drive"], format!("s{i}.operator"));
-        assert_close(&format!("set {i} ideal"), value(sub, "ideal"), ideal, 1e-12);
+        assert_rel(&format!("set {i} ideal"), value(sub, "ideal"), ideal, 1e-12);
         // The sets are identical: one forward value.
-        assert_close(
+        assert_rel(
             &format!("set {i} forward"),
             value(sub, "forward"),
             forward,
@@ -85,14 +86,14 @@ fn frictionless_cascade_gives_the_weight_over_two_to_the_n() {
         let report = json(&cascade(n, "{kind: none}"), &["check"]);
         let expected = w / 2f64.powi(n as i32);
         for case in ["ideal", "forward", "back"] {
-            assert_close(
+            assert_rel(
                 &format!("{n} pulleys, {case}"),
                 value(&report, case),
                 expected,
                 1e-9,
             );
         }
-        assert_close(
+        assert_rel(
             &format!("{n} pulleys, velocity ratio"),
             report["velocity_ratio"].as_f64().unwrap(),
             2f64.powi(n as i32),
@@ -109,13 +110,13 @@ fn rated_cascade_matches_its_closed_form() {
         let rig = cascade(n, &format!("{{kind: rated, factor: {k}}}"));
         let report = json(&rig, &["check"]);
         let n = n as i32;
-        assert_close(
+        assert_rel(
             &format!("{n} rated pulleys, forward"),
             value(&report, "forward"),
             w * (k / (1.0 + k)).powi(n),
             1e-9,
         );
-        assert_close(
+        assert_rel(
             &format!("{n} rated pulleys, back"),
             value(&report, "back"),
             w * (1.0 / (1.0 + k)).powi(n),
@@ -132,7 +133,7 @@ fn serpentine_matches_the_capstan_equation() {
     for n in [1, 2, 3, 10, 50] {
         let report = json(&serpentine(n, mu), &["check"]);
         let turn = mu * n as f64 * std::f64::consts::PI;
-        assert_close(
+        assert_rel(
             &format!("{n} guides, ideal"),
             value(&report, "ideal"),
             w,
@@ -167,7 +168,7 @@ fn zig_zag_chain_matches_the_capstan_equation_over_its_wraps() {
             .collect();
         assert_eq!(wraps.len(), n);
         for (i, wrap) in wraps.iter().enumerate().take(n - 2).skip(2) {
-            assert_close(&format!("{n} guides, wrap of g{i}"), *wrap, interior, 1e-9);
+            assert_rel(&format!("{n} guides, wrap of g{i}"), *wrap, interior, 1e-9);
         }
         let turn = mu * wraps.iter().sum::<f64>();
         assert_capstan(&format!("{n} guides"), &report, w, turn, 1e-12);
@@ -178,14 +179,14 @@ fn zig_zag_chain_matches_the_capstan_equation_over_its_wraps() {
 /// μ·Σφ), relative tolerance `tol`.
 fn assert_capstan(what: &str, report: &Value, weight: f64, turn: f64, tol: f64) {
     let forward = value(report, "forward");
-    assert_close(
+    assert_rel(
         &format!("{what}, forward"),
         forward,
         weight * turn.exp(),
         tol,
     );
     let back = value(report, "back");
-    assert_close(&format!("{what}, back"), back, weight * (-turn).exp(), tol);
+    assert_rel(&format!("{what}, back"), back, weight * (-turn).exp(), tol);
 }
 
 /// Hauling-part pull of a tackle with rated sheaves, N = S parts (wire-rope handbook
@@ -201,7 +202,7 @@ fn ranged_tackle_has_21_ranges_and_its_nominal_is_the_handbook_tackle() {
     let report = json(&text, &["check"]);
     // Nominal: every factor 1.04 (middle of 1.02..1.06), the load its mean, 500 kg.
     let parts = RANGED_TACKLE_SHEAVES as i32;
-    assert_close(
+    assert_rel(
         "nominal forward",
         value(&report, "forward"),
         handbook_pull(500.0 * G, 1.04, parts),
@@ -224,7 +225,7 @@ fn independent_tackles_match_the_plain_bearing_closed_form_and_rank() {
     let subrigs = all_subrigs(&report);
     assert_eq!(subrigs.len(), 3);
     for (i, sub) in subrigs.iter().enumerate() {
-        assert_close(
+        assert_rel(
             &format!("tackle {i} forward"),
             value(sub, "forward"),
             w * k * k / (1.0 + k),
@@ -255,7 +256,7 @@ fn stroke_of_a_tackle_keeps_its_closed_form_at_every_step() {
     let steps = report["steps"].as_array().expect("steps");
     assert_eq!(steps.len(), 6, "both ends included");
     for step in steps {
-        assert_close(
+        assert_rel(
             &format!("forward at travel {}", step["travel"]),
             step["forward"].as_f64().unwrap(),
             handbook_pull(500.0 * G, 1.04, 4),

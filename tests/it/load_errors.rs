@@ -6,7 +6,7 @@ use std::time::{Duration, Instant};
 use proptest::prelude::*;
 use reeve::rig::{load_file, load_str, load_str_with, LoadError};
 
-use crate::support::Scratch;
+use crate::support::{assert_abs, Scratch};
 
 const EXAMPLE: &str = "\
 format: 1
@@ -483,11 +483,16 @@ fn overrides_apply_by_the_files_own_keys() {
     };
     assert_eq!(hook.load, Some(BlockLoad::Mass(60.0)));
     assert_eq!(rig.ropes[0].mu, 0.1);
-    assert!((rig.limits.fleet_angle - 2f64.to_radians()).abs() < 1e-15);
+    assert_abs(
+        "fleet angle limit, rad",
+        rig.limits.fleet_angle,
+        2f64.to_radians(),
+        1e-15,
+    );
     let PartKind::Sheave(a) = &rig.parts[3].kind else {
         panic!()
     };
-    assert!((a.tread_diameter - 0.08).abs() < 1e-15);
+    assert_abs("hook.a tread, m", a.tread_diameter, 0.08, 1e-15);
     let PartKind::Haul(h) = &rig.parts[4].kind else {
         panic!()
     };

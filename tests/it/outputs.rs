@@ -15,7 +15,7 @@ use std::time::{Duration, Instant};
 
 use serde::Deserialize;
 
-use crate::support::{example_rig, reeve, stdout_of, Scratch, ROOT};
+use crate::support::{assert_abs, example_rig, reeve, stdout_of, Scratch, ROOT};
 
 /// A line diff (longest common subsequence), `-` expected, `+` actual, with a little
 /// context, for readable golden mismatches.
@@ -184,7 +184,7 @@ fn json_tables_parse_back_in_si() {
     assert_eq!(spans[4].to, "winch");
     // SI: lengths in metres, tensions in newtons (the file uses mm and kN).
     let last = &spans[4];
-    assert!((last.length_m.unwrap() - 2.7).abs() < 1e-9, "{last:?}");
+    assert_abs("last span length, m", last.length_m.unwrap(), 2.7, 1e-9);
     let forward = last.tension_n.forward.flatten().unwrap();
     assert!(forward > 1000.0 && forward < 5000.0, "{forward} N");
     assert!(last.tension_n.ideal.is_some() && last.tension_n.back.is_some());
@@ -198,14 +198,19 @@ fn json_tables_parse_back_in_si() {
     let sheave = parts.iter().find(|p| p.part == "upper.b").unwrap();
     assert_eq!(sheave.kind, "sheave");
     assert_eq!(sheave.line.as_deref(), Some("fall"));
-    assert!((sheave.wrap_deg.unwrap() - 180.0).abs() < 1e-6);
+    assert_abs("upper.b wrap, °", sheave.wrap_deg.unwrap(), 180.0, 1e-6);
     assert!(sheave.fleet_in_deg.is_some() && sheave.fleet_out_deg.is_some());
     assert!(sheave.bend_ratio.unwrap() > 20.0);
     // Rated sheave, K = 1.04 at 180° (the rig file): forward ratio K.
-    assert!((sheave.tension_ratio.forward.flatten().unwrap() - 1.04).abs() < 1e-9);
+    assert_abs(
+        "upper.b forward ratio",
+        sheave.tension_ratio.forward.flatten().unwrap(),
+        1.04,
+        1e-9,
+    );
     let dir = sheave.pin_load_direction.forward.flatten().unwrap();
     let norm = dir.iter().map(|x| x * x).sum::<f64>().sqrt();
-    assert!((norm - 1.0).abs() < 1e-9);
+    assert_abs("pin load direction, length", norm, 1.0, 1e-9);
     assert!(sheave.pin_load_n.back.flatten().unwrap() > 0.0);
     assert!(sheave.loss_share.flatten().unwrap() > 0.0);
 
@@ -250,9 +255,11 @@ fn csv_parses_back_and_matches_json() {
             let csv_value: f64 = row[forward_col].parse().expect("a plain number");
             let si = span.tension_n.forward.flatten().unwrap();
             // CSV carries 6 significant figures.
-            assert!(
-                (csv_value * factor - si).abs() <= 1e-5 * si.abs(),
-                "{name}: {csv_value} {unit} vs {si} N"
+            assert_abs(
+                &format!("{name}: {csv_value} {unit} in N"),
+                csv_value * factor,
+                si,
+                1e-5 * si.abs(),
             );
         }
         // The part table: the pin direction in three numeric columns, a unit vector.

@@ -12,6 +12,7 @@
 
 use std::collections::BTreeMap;
 
+use approx::relative_eq;
 use proptest::prelude::*;
 use reeve::math::STANDARD_GRAVITY;
 use reeve::rig::load_str;
@@ -458,10 +459,6 @@ fn tensions(text: &str, s: &Solution) -> BTreeMap<(String, usize, &'static str),
     out
 }
 
-fn close(a: f64, b: f64, rel: f64) -> bool {
-    (a - b).abs() <= rel * a.abs().max(b.abs()).max(1e-9)
-}
-
 proptest! {
     #![proptest_config(ProptestConfig { cases: 40, failure_persistence: None, .. ProptestConfig::default() })]
 
@@ -484,7 +481,7 @@ proptest! {
         let text = spec.plain();
         let s = solve_text(&text);
         let ideal = s.main().ideal.value;
-        prop_assert!(close(ideal, expected, 1e-9), "ideal {} vs virtual work {}\n{}", ideal, expected, text);
+        prop_assert!(relative_eq!(ideal, expected, epsilon = 1e-18, max_relative = 1e-9), "ideal {} vs virtual work {}\n{}", ideal, expected, text);
         // Strip every friction: forward = back = ideal.
         let mut frictionless = spec.clone();
         for part in &mut frictionless.parts {
@@ -502,8 +499,8 @@ proptest! {
         let text = frictionless.plain();
         let s = solve_text(&text);
         let m = s.main();
-        prop_assert!(close(m.forward.value, expected, 1e-9), "frictionless forward {} vs {}\n{}", m.forward.value, expected, text);
-        prop_assert!(close(m.back.value, expected, 1e-9), "frictionless back {} vs {}\n{}", m.back.value, expected, text);
+        prop_assert!(relative_eq!(m.forward.value, expected, epsilon = 1e-18, max_relative = 1e-9), "frictionless forward {} vs {}\n{}", m.forward.value, expected, text);
+        prop_assert!(relative_eq!(m.back.value, expected, epsilon = 1e-18, max_relative = 1e-9), "frictionless back {} vs {}\n{}", m.back.value, expected, text);
     }
 
     /// The energy audit balances to round-off in every case, and the fixed point
@@ -518,7 +515,7 @@ proptest! {
                 prop_assert!(matches!(case.status, Status::Converged { .. }), "{}: {:?}\n{}", case.case.name(), case.status, text);
                 let loss: f64 = case.loss.iter().sum();
                 let load: f64 = case.load_power.iter().sum();
-                prop_assert!(close(case.drive_power, load + loss, 1e-9),
+                prop_assert!(relative_eq!(case.drive_power, load + loss, epsilon = 1e-18, max_relative = 1e-9),
                     "{}: drive {} vs load {} + loss {}", case.case.name(), case.drive_power, load, loss);
                 for (part, l) in case.loss.iter().enumerate() {
                     prop_assert!(*l >= -1e-9 * case.drive_power.abs(), "{}: negative loss {} at part {}", case.case.name(), l, part);
@@ -559,11 +556,11 @@ proptest! {
             for e in 1..line.path.len() - 1 {
                 let along = |c: &reeve::solve::CaseResult| c.tension[l][e] / c.tension[l][e - 1];
                 let product = along(&m.forward) * along(&m.back);
-                prop_assert!(close(product, 1.0, 1e-9), "line {} entry {}: k_f·k_b = {}\n{}", line.name, e, product, text);
+                prop_assert!(relative_eq!(product, 1.0, epsilon = 1e-18, max_relative = 1e-9), "line {} entry {}: k_f·k_b = {}\n{}", line.name, e, product, text);
                 let (rf, rb) = (m.forward.ratio[l][e], m.back.ratio[l][e]);
                 prop_assert!(rf.is_some() && rb.is_some(), "ratio reported");
                 let (rf, rb) = (rf.unwrap_or(0.0), rb.unwrap_or(0.0));
-                prop_assert!(rf >= 1.0 - 1e-12 && close(rf, rb, 1e-9), "line {} entry {}: reported {} vs {}", line.name, e, rf, rb);
+                prop_assert!(rf >= 1.0 - 1e-12 && relative_eq!(rf, rb, epsilon = 1e-18, max_relative = 1e-9), "line {} entry {}: reported {} vs {}", line.name, e, rf, rb);
             }
         }
     }
@@ -586,12 +583,12 @@ proptest! {
         let (s0, s1) = (solve_text(&base), solve_text(&moved));
         for case in [Case::Ideal, Case::Forward, Case::Back] {
             let (a, b) = (s0.main().case(case).value, s1.main().case(case).value);
-            prop_assert!(close(a, b, 1e-8), "{}: {} vs {} after rigid motion\n{}", case.name(), a, b, moved);
+            prop_assert!(relative_eq!(a, b, epsilon = 1e-17, max_relative = 1e-8), "{}: {} vs {} after rigid motion\n{}", case.name(), a, b, moved);
         }
         let (t0, t1) = (tensions(&base, &s0), tensions(&moved, &s1));
         for (key, a) in &t0 {
             let b = t1[key];
-            prop_assert!(close(*a, b, 1e-8), "{:?}: {} vs {} after rigid motion", key, a, b);
+            prop_assert!(relative_eq!(*a, b, epsilon = 1e-17, max_relative = 1e-8), "{:?}: {} vs {} after rigid motion", key, a, b);
         }
     }
 
@@ -619,12 +616,12 @@ proptest! {
         let (s0, s1) = (solve_text(&base), solve_text(&shuffled));
         for case in [Case::Ideal, Case::Forward, Case::Back] {
             let (a, b) = (s0.main().case(case).value, s1.main().case(case).value);
-            prop_assert!(close(a, b, 1e-10), "{}: {} vs {} after reordering\n{}", case.name(), a, b, shuffled);
+            prop_assert!(relative_eq!(a, b, epsilon = 1e-19, max_relative = 1e-10), "{}: {} vs {} after reordering\n{}", case.name(), a, b, shuffled);
         }
         let (t0, t1) = (tensions(&base, &s0), tensions(&shuffled, &s1));
         for (key, a) in &t0 {
             let b = t1[key];
-            prop_assert!(close(*a, b, 1e-10), "{:?}: {} vs {} after reordering", key, a, b);
+            prop_assert!(relative_eq!(*a, b, epsilon = 1e-19, max_relative = 1e-10), "{:?}: {} vs {} after reordering", key, a, b);
         }
     }
 
@@ -658,7 +655,7 @@ proptest! {
         let s = solve_text(&text);
         let expected = -mass * STANDARD_GRAVITY * dot(g, m) * dot(p, u) / dot(m, u);
         let ideal = s.main().ideal.value;
-        prop_assert!(close(ideal, expected, 1e-9), "ideal {} vs virtual work {}\n{}", ideal, expected, text);
+        prop_assert!(relative_eq!(ideal, expected, epsilon = 1e-18, max_relative = 1e-9), "ideal {} vs virtual work {}\n{}", ideal, expected, text);
     }
 }
 

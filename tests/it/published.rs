@@ -2,8 +2,7 @@
 //! published worked examples and handbook formulas. Every check names its source beside
 //! it; values known only from memory say so, hand calculations show their arithmetic.
 
-use crate::support::generators as common;
-use common::{assert_close, audit_ok};
+use crate::support::{assert_abs, assert_rel, audit_ok};
 use std::f64::consts::PI;
 
 use reeve::math::STANDARD_GRAVITY;
@@ -68,42 +67,38 @@ fn journal_bearing_raise_hold_lower_beer_johnston() {
         m.forward.value / LBF,
         m.back.value / LBF,
     );
-    assert_close("ideal pull, lb (500 lb, no friction)", ideal, 500.0, 1e-9);
-    assert_close(
+    assert_rel("ideal pull, lb (500 lb, no friction)", ideal, 500.0, 1e-9);
+    assert_rel(
         "raise, lb (hand calc 500·2.2/1.8)",
         raise,
         500.0 * 2.2 / 1.8,
         1e-9,
     );
-    assert_close(
+    assert_rel(
         "hold/lower, lb (hand calc 500·1.8/2.2)",
         hold,
         500.0 * 1.8 / 2.2,
         1e-9,
     );
     // Published, to the book's three figures.
-    assert!(
-        (raise - 611.0).abs() < 0.5,
-        "raise: measured {raise} lb, book 611 lb"
-    );
-    assert!(
-        (hold - 409.0).abs() < 0.5,
-        "hold: measured {hold} lb, book 409 lb"
-    );
+    assert_abs("raise, lb, vs the book", raise, 611.0, 0.5);
+    assert_abs("hold, lb, vs the book", hold, 409.0, 0.5);
     // With the exact friction circle and μ = 0.20 itself: r_f = 1·0.2/√1.04 = 0.196 116 in,
     // P = 500 (2 + r_f)/(2 − r_f) = 608.74 lb (hand calculation): within 0.4 % of the book.
     let (_, s) = solve_text(&journal_pulley(0.2, "[2, 0, -60]"));
     let r_f = 0.2 / 1.04_f64.sqrt();
     let raise = s.main().forward.value / LBF;
-    assert_close(
+    assert_rel(
         "raise with exact r_f, lb",
         raise,
         500.0 * (2.0 + r_f) / (2.0 - r_f),
         1e-9,
     );
-    assert!(
-        (raise / 611.0 - 1.0).abs() < 0.005,
-        "exact model {raise} lb vs book 611 lb"
+    assert_abs(
+        "exact model over the book's 611 lb",
+        raise / 611.0,
+        1.0,
+        0.005,
     );
     audit_ok(&s);
 }
@@ -119,7 +114,7 @@ fn journal_bearing_horizontal_pull() {
     let (_, s) = solve_text(&journal_pulley(mu, "[60, 0, 2]"));
     let x = (2.0 + 796.0_f64.sqrt()) / 198.0;
     let raise = s.main().forward.value / LBF;
-    assert_close(
+    assert_rel(
         "horizontal raise, lb (hand calc)",
         raise,
         500.0 * (1.0 + x),
@@ -128,7 +123,7 @@ fn journal_bearing_horizontal_pull() {
     // The closed-form ratio at 90° for ρ = 0.1: b = 1/0.99, k = b + √(b² − 1).
     let b: f64 = 1.0 / 0.99;
     let k = b + (b * b - 1.0).sqrt();
-    assert_close("ratio at 90°", raise / 500.0, k, 1e-9);
+    assert_rel("ratio at 90°", raise / 500.0, k, 1e-9);
     audit_ok(&s);
 }
 
@@ -167,26 +162,23 @@ fn sheave_weight_in_the_pin_load_parallel_spans() {
     let m = s.main();
     let raise = m.forward.value / LBF;
     let lower = m.back.value / LBF;
-    assert_close(
+    assert_rel(
         "raise with weight, lb",
         raise,
         (120.0 + 24.0 * r_f) / (6.0 - r_f),
         1e-9,
     );
-    assert_close(
+    assert_rel(
         "lower with weight, lb",
         lower,
         (120.0 - 24.0 * r_f) / (6.0 + r_f),
         1e-9,
     );
-    assert!(
-        (raise - 20.731).abs() < 1e-3,
-        "raise {raise} lb vs 20.731 lb"
-    );
+    assert_abs("raise with weight, lb, vs 20.731 lb", raise, 20.731, 1e-3);
     // Pin load, forward: P + 20 + 4 lb straight down.
     let pulley = 1;
     let pin = m.forward.pin_load[pulley].expect("pin load") / LBF;
-    assert_close("pin load, lb", pin.norm(), raise + 24.0, 1e-9);
+    assert_rel("pin load, lb", pin.norm(), raise + 24.0, 1e-9);
     assert!(pin.z < 0.0, "pin load points down: {pin:?}");
     audit_ok(&s);
 }
@@ -224,8 +216,8 @@ fn sheave_weight_in_the_pin_load_right_angle() {
         20.0,
     );
     let m = s.main();
-    assert_close("raise, 90° wrap, lb", m.forward.value / LBF, raise, 1e-9);
-    assert_close("lower, 90° wrap, lb", m.back.value / LBF, lower, 1e-9);
+    assert_rel("raise, 90° wrap, lb", m.forward.value / LBF, raise, 1e-9);
+    assert_rel("lower, 90° wrap, lb", m.back.value / LBF, lower, 1e-9);
     audit_ok(&s);
 }
 
@@ -255,9 +247,9 @@ lines:
     let rho: f64 = 0.0015 * 0.010 / 0.05;
     let k = (1.0 + rho) / (1.0 - rho);
     let m = s.main();
-    assert_close("rolling forward, N", m.forward.value, 1000.0 * k, 1e-12);
-    assert_close("rolling back, N", m.back.value, 1000.0 / k, 1e-12);
-    assert_close(
+    assert_rel("rolling forward, N", m.forward.value, 1000.0 * k, 1e-12);
+    assert_rel("rolling back, N", m.back.value, 1000.0 / k, 1e-12);
+    assert_rel(
         "rolling forward efficiency",
         m.forward_efficiency().unwrap(),
         1.0 / k,
@@ -377,31 +369,31 @@ fn check_tackle(n: usize, lead: Lead, k: f64) {
     let e = reeving_efficiency(k, n, s_count);
     let e_back = reeving_efficiency(1.0 / k, n, s_count);
     let what = format!("N = {n}, S = {s_count}, K = {k}, {lead:?}");
-    assert_close(
+    assert_rel(
         &format!("{what}: ideal pull W/N"),
         m.ideal.value,
         w / n as f64,
         1e-9,
     );
-    assert_close(
+    assert_rel(
         &format!("{what}: pull W/(N E)"),
         m.forward.value,
         w / (n as f64 * e),
         1e-9,
     );
-    assert_close(
+    assert_rel(
         &format!("{what}: efficiency E"),
         m.forward_efficiency().unwrap(),
         e,
         1e-9,
     );
-    assert_close(
+    assert_rel(
         &format!("{what}: lowering pull"),
         m.back.value,
         w / (n as f64 * e_back),
         1e-9,
     );
-    assert_close(
+    assert_rel(
         &format!("{what}: velocity ratio"),
         m.velocity_ratio.unwrap(),
         n as f64,
@@ -440,10 +432,11 @@ fn tackle_spot_values_by_hand() {
     // · 4 · 0.09) = 0.809 94; pull = W/(4·0.809 94) = 0.308 66 W.
     let (text, _) = tackle(4, Lead::Fixed { extra: 0 }, 1.09, 1000.0);
     let (_, s) = solve_text(&text);
-    assert!(
-        (s.main().forward.value - 308.66).abs() < 0.01,
-        "4-part K = 1.09: measured {} N, hand calculation 308.66 N",
-        s.main().forward.value
+    assert_abs(
+        "4-part K = 1.09, N, vs the hand calculation",
+        s.main().forward.value,
+        308.66,
+        0.01,
     );
 }
 
@@ -461,21 +454,15 @@ fn oilfield_ten_line_fast_line_factor() {
     assert_eq!(s_count, 10);
     let (_, s) = solve_text(&text);
     let factor = s.main().forward.value / hook_load;
-    assert!(
-        (factor - 0.123).abs() < 5e-4,
-        "fast-line factor: measured {factor}, table 0.123"
-    );
-    assert_close(
+    assert_abs("fast-line factor vs the table", factor, 0.123, 5e-4);
+    assert_rel(
         "fast-line factor vs hand calculation",
         factor,
         0.123_29,
         1e-4,
     );
     let e = s.main().forward_efficiency().unwrap();
-    assert!(
-        (e - 0.811).abs() < 5e-4,
-        "efficiency: measured {e}, table 0.811"
-    );
+    assert_abs("efficiency vs the table", e, 0.811, 5e-4);
 }
 
 // ---------------------------------------------------------------------------------
@@ -512,12 +499,12 @@ fn hawser_on_a_bollard_beer_johnston() {
     // Through the solver: the ship pulls the hawser off (the load), the worker holds;
     // the holding force is the `back` value (the greatest pull at which it runs back).
     let mu = (7500.0_f64 / 150.0).ln() / (4.0 * PI);
-    assert!((mu - 0.311).abs() < 5e-4, "μ = {mu}, book 0.311");
+    assert_abs("μ from the book's forces", mu, 0.311, 5e-4);
     let (_, s) = solve_text(&bollard(mu, 2, 7500.0, ""));
     let m = s.main();
-    assert_close("two turns: holding force, N", m.back.value, 150.0, 1e-9);
+    assert_rel("two turns: holding force, N", m.back.value, 150.0, 1e-9);
     // Forward: hauling the ship in needs 7500·50 N (hand calculation, capstan reversed).
-    assert_close(
+    assert_rel(
         "two turns: hauling force, N",
         m.forward.value,
         7500.0 * 50.0,
@@ -527,16 +514,13 @@ fn hawser_on_a_bollard_beer_johnston() {
     // = 53 033 N.
     let (_, s) = solve_text(&bollard(mu, 3, 1.0, ""));
     let held = 150.0 / s.main().back.value;
-    assert_close(
+    assert_rel(
         "three turns: tension held by 150 N",
         held,
         150.0 * 50.0_f64.powf(1.5),
         1e-9,
     );
-    assert!(
-        (held - 53_000.0).abs() < 50.0,
-        "three turns: {held} N, book 53.0 kN"
-    );
+    assert_abs("three turns, N, vs the book", held, 53_000.0, 50.0);
     audit_ok(&s);
 }
 
@@ -569,13 +553,13 @@ lines:
         let m = s.main();
         let ratio = (0.35 * total).exp();
         // The person holds the machine: back value = 1000/ratio lb.
-        assert_close(
+        assert_rel(
             &format!("{turns} extra turns: holding pull, lb"),
             m.back.value / LBF,
             1000.0 / ratio,
             1e-9,
         );
-        assert_close(
+        assert_rel(
             &format!("{turns} extra turns: hauling pull, lb"),
             m.forward.value / LBF,
             1000.0 * ratio,
@@ -583,9 +567,11 @@ lines:
         );
         if turns == 1 {
             let w_max = 50.0 * ratio;
-            assert!(
-                (w_max - 1353.8).abs() < 0.1,
-                "1½ turns: W_max {w_max} lb, hand calculation 1353.8 lb"
+            assert_abs(
+                "1½ turns: W_max, lb, vs the hand calculation",
+                w_max,
+                1353.8,
+                0.1,
             );
         }
     }
@@ -601,16 +587,13 @@ fn v_groove_wedge_factor() {
     let (_, s) = solve_text(&bollard(0.2, 2, 7500.0, ", groove: {angle: 40}"));
     let mu_eff = 0.2 / 20f64.to_radians().sin();
     let ratio = (mu_eff * 4.0 * PI).exp();
-    assert_close(
+    assert_rel(
         "V-groove: holding force, N",
         s.main().back.value,
         7500.0 / ratio,
         1e-9,
     );
-    assert!(
-        (ratio - 1553.9).abs() < 0.5,
-        "ratio {ratio}, hand calculation 1553.9"
-    );
+    assert_abs("V-groove ratio vs the hand calculation", ratio, 1553.9, 0.5);
 }
 
 #[test]
@@ -655,31 +638,21 @@ solve_for: cylinder
         .map(|e| e.wrap.to_degrees())
         .collect();
     for w in &wraps {
-        assert!((w - 135.0).abs() < 1e-9, "wrap {w}°, expected 135°");
+        assert_abs("wrap, °", *w, 135.0, 1e-9);
     }
     // The most the 500 N hauler lifts: forward value of the load unknown.
     let expected = 500.0 * (-0.25 * 1.5 * PI).exp() / STANDARD_GRAVITY;
-    assert_close(
+    assert_rel(
         "largest mass, kg (hand calculation)",
         m.forward.value,
         expected,
         1e-9,
     );
     let book = 500.0 * (-0.25 * 1.5 * PI).exp() / 9.81;
-    assert!(
-        (book - 15.7).abs() < 0.05,
-        "book's figure: {book} kg vs 15.7 kg"
-    );
-    assert!(
-        (m.forward.value - 15.7).abs() < 0.05,
-        "measured {} kg vs book 15.7 kg",
-        m.forward.value
-    );
+    assert_abs("the book's figure, kg (g = 9.81)", book, 15.7, 0.05);
+    assert_abs("largest mass, kg, vs the book", m.forward.value, 15.7, 0.05);
     let t2 = m.forward.tension[0][1];
-    assert!(
-        (t2 - 277.4).abs() < 0.1,
-        "T2: measured {t2} N, book 277.4 N"
-    );
+    assert_abs("T2, N, vs the book", t2, 277.4, 0.1);
     audit_ok(&s);
 }
 
@@ -751,26 +724,26 @@ fn drum_with_thrust_and_journal() {
         let shaft = format!(", shaft: {{bearing: {{kind: none}}, thrust: {thrust}}}");
         let (_, s) = solve_text(&winch(&shaft, 0.0));
         let m = s.main();
-        assert_close(
+        assert_rel(
             &format!("{thrust}: ideal torque W R"),
             m.ideal.value,
             w * r,
             1e-12,
         );
-        assert_close(
+        assert_rel(
             &format!("{thrust}: forward torque"),
             m.forward.value,
             w * r + m_thrust,
             1e-12,
         );
-        assert_close(
+        assert_rel(
             &format!("{thrust}: back torque"),
             m.back.value,
             w * r - m_thrust,
             1e-12,
         );
         let drum = m.forward.drums[0].expect("drum torques");
-        assert_close(
+        assert_rel(
             &format!("{thrust}: thrust torque"),
             drum.thrust,
             m_thrust,
@@ -786,15 +759,15 @@ fn drum_with_thrust_and_journal() {
     let r_f = 0.02 * 0.15 / (1.0 + 0.15_f64 * 0.15).sqrt();
     let m_j = r_f * 70.0 * STANDARD_GRAVITY;
     let m = s.main();
-    assert_close(
+    assert_rel(
         "journal: forward torque",
         m.forward.value,
         w * r + m_j,
         1e-9,
     );
-    assert_close("journal: back torque", m.back.value, w * r - m_j, 1e-9);
+    assert_rel("journal: back torque", m.back.value, w * r - m_j, 1e-9);
     let drum = m.forward.drums[0].expect("drum torques");
-    assert_close("journal: journal torque", drum.journal, m_j, 1e-9);
+    assert_rel("journal: journal torque", drum.journal, m_j, 1e-9);
     audit_ok(&s);
 }
 
@@ -808,7 +781,7 @@ fn drum_self_locking_by_thrust_friction() {
     let (_, s) = solve_text(&winch(shaft, 0.0));
     let m = s.main();
     let wr = 50.0 * STANDARD_GRAVITY * 0.1;
-    assert_close("self-locking back torque", m.back.value, wr - 120.0, 1e-12);
+    assert_rel("self-locking back torque", m.back.value, wr - 120.0, 1e-12);
     assert!(
         m.self_locking(),
         "back {} vs ideal {}: self-locking",
@@ -843,13 +816,13 @@ lines:
     let (rig, s) = solve_text(text);
     let m = s.main();
     let capstan = (0.1 * PI).exp();
-    assert_close(
+    assert_rel(
         "stalled: forward pull",
         m.forward.value,
         1000.0 * capstan,
         1e-9,
     );
-    assert_close("stalled: back pull", m.back.value, 1000.0 / capstan, 1e-9);
+    assert_rel("stalled: back pull", m.back.value, 1000.0 / capstan, 1e-9);
     assert!(!m.forward.stalled.is_empty(), "the stall is reported");
     let warnings = reeve::checks::run(&rig, &s);
     assert!(
@@ -874,24 +847,25 @@ fn tackle_with_the_load_unknown() {
     let m = s.main();
     let e = reeving_efficiency(1.04, 4, s_count);
     let e_back = reeving_efficiency(1.0 / 1.04, 4, s_count);
-    assert_close(
+    assert_rel(
         "greatest load moved",
         m.forward.value,
         2000.0 * 4.0 * e,
         1e-9,
     );
-    assert_close(
+    assert_rel(
         "least load that runs back",
         m.back.value,
         2000.0 * 4.0 * e_back,
         1e-9,
     );
-    assert!(
-        (m.forward.value - 7259.8).abs() < 0.1,
-        "hand calculation 7259.8 N: {}",
-        m.forward.value
+    assert_abs(
+        "greatest load moved, N, vs the hand calculation",
+        m.forward.value,
+        7259.8,
+        0.1,
     );
-    assert_close(
+    assert_rel(
         "efficiency forward/ideal",
         m.forward_efficiency().unwrap(),
         e,
@@ -920,13 +894,13 @@ fn drum_winding_the_hauling_part_of_a_tackle() {
     let (_, s) = solve_text(&text);
     let m = s.main();
     let pull = 10_000.0 / (4.0 * reeving_efficiency(1.04, 4, s_count));
-    assert_close(
+    assert_rel(
         "drum ideal torque",
         m.ideal.value,
         10_000.0 / 4.0 * 0.1,
         1e-9,
     );
-    assert_close("drum forward torque", m.forward.value, pull * 0.1, 1e-9);
+    assert_rel("drum forward torque", m.forward.value, pull * 0.1, 1e-9);
     audit_ok(&s);
 }
 
@@ -962,26 +936,27 @@ lines:
     let m = s.main();
     let (w, mg, r, tau) = (5.0 * STANDARD_GRAVITY, 2.0 * STANDARD_GRAVITY, 0.1, 4.0);
     let r_f = 0.01 * 0.2 / 1.04_f64.sqrt();
-    assert_close("ideal pull", m.ideal.value, w + tau / r, 1e-12);
-    assert_close(
+    assert_rel("ideal pull", m.ideal.value, w + tau / r, 1e-12);
+    assert_rel(
         "forward pull",
         m.forward.value,
         (w * r + tau + r_f * (w + mg)) / (r - r_f),
         1e-9,
     );
-    assert_close(
+    assert_rel(
         "back pull",
         m.back.value,
         (w * r + tau - r_f * (w + mg)) / (r + r_f),
         1e-9,
     );
-    assert!(
-        (m.forward.value - 92.187).abs() < 1e-3,
-        "forward {} N vs hand 92.187 N",
-        m.forward.value
+    assert_abs(
+        "forward, N, vs the hand calculation",
+        m.forward.value,
+        92.187,
+        1e-3,
     );
     let drum = m.forward.drums[1].expect("drum torques");
-    assert_close(
+    assert_rel(
         "rope torque balances load + journal",
         drum.rope,
         tau + drum.journal,

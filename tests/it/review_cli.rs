@@ -8,7 +8,7 @@ use std::path::{Path, PathBuf};
 use std::process::Command;
 
 use crate::support::run::Ran;
-use crate::support::{Reeve, Scratch};
+use crate::support::{assert_abs, Reeve, Scratch};
 
 /// A small rig that solves: a weight over one plain-bearing sheave, hauled by hand.
 const RIG: &str = "format: 1
@@ -291,5 +291,10 @@ fn rank_to_reads_bare_numbers_in_the_rigs_units_and_accepts_units() {
         rank("metres.yaml", "{kind: plain, pin_diameter: 8 mm, mu: 0.08}");
     assert_eq!(code, 0, "{err}");
     let ratio = alternative(&with_unit_m) / alternative(&with_unit);
-    assert!((ratio - 1.0).abs() < 1e-9, "{ratio}");
+    assert_abs(
+        "8 mm pin on a metre rig over the same on a mm rig",
+        ratio,
+        1.0,
+        1e-9,
+    );
 }

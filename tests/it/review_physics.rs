@@ -3,9 +3,7 @@
 //! checked against a hand calculation (arithmetic beside the check) or a published
 //! formula named beside it.
 
-use crate::support::generators as common;
-use crate::support::{reeve, test_rig};
-use common::{assert_close, audit_ok};
+use crate::support::{assert_rel, audit_ok, reeve, test_rig};
 use std::f64::consts::PI;
 use std::path::PathBuf;
 
@@ -76,9 +74,9 @@ fn moving_sheave_with_own_weight_forward_and_back() {
     let main = s.main();
     let rf = friction_circle(0.005, 0.2);
     let diff = rf * 40.0 * G / 0.033;
-    assert_close("ideal", main.ideal.value, 21.0 * G, 1e-8);
-    assert_close("forward", main.forward.value, (42.0 * G + diff) / 2.0, 1e-8);
-    assert_close("back", main.back.value, (42.0 * G - diff) / 2.0, 1e-8);
+    assert_rel("ideal", main.ideal.value, 21.0 * G, 1e-8);
+    assert_rel("forward", main.forward.value, (42.0 * G + diff) / 2.0, 1e-8);
+    assert_rel("back", main.back.value, (42.0 * G - diff) / 2.0, 1e-8);
     no_stall(main);
     audit_ok(&s);
 }
@@ -97,8 +95,8 @@ fn sheave_weight_that_unloads_the_pin_does_not_stall_it() {
     let rf = friction_circle(0.099, 5.0);
     let diff = rf * 0.5 * G / 0.103;
     // The falls run to points 1 km up, so they are vertical to about (R/L)² = 1e-8.
-    assert_close("forward", main.forward.value, (10.5 * G + diff) / 2.0, 1e-7);
-    assert_close("back", main.back.value, (10.5 * G - diff) / 2.0, 1e-7);
+    assert_rel("forward", main.forward.value, (10.5 * G + diff) / 2.0, 1e-7);
+    assert_rel("back", main.back.value, (10.5 * G - diff) / 2.0, 1e-7);
     no_stall(main);
     audit_ok(&s);
 }
@@ -111,9 +109,9 @@ fn drum_in_the_middle_of_a_line_with_turns() {
     // back 5 g + 2/0.053 = 86.769 N.
     let (_, s) = solve_rig("drum-middle.yaml");
     let main = s.main();
-    assert_close("ideal", main.ideal.value, 5.0 * G + 3.0 / 0.053, 1e-9);
-    assert_close("forward", main.forward.value, 5.0 * G + 4.0 / 0.053, 1e-9);
-    assert_close("back", main.back.value, 5.0 * G + 2.0 / 0.053, 1e-9);
+    assert_rel("ideal", main.ideal.value, 5.0 * G + 3.0 / 0.053, 1e-9);
+    assert_rel("forward", main.forward.value, 5.0 * G + 4.0 / 0.053, 1e-9);
+    assert_rel("back", main.back.value, 5.0 * G + 2.0 / 0.053, 1e-9);
     assert!(main.forward.slipping.is_empty() && main.back.slipping.is_empty());
     audit_ok(&s);
 }
@@ -126,17 +124,17 @@ fn drive_drum_at_a_line_end_winds_in_or_pays_out_by_side() {
     let (_, s) = solve_rig("drum-end-right.yaml");
     let m = s.main();
     let lift = 10.0 * G * 0.053;
-    assert_close("right ideal", m.ideal.value, lift, 1e-9);
-    assert_close("right forward", m.forward.value, lift + 0.5, 1e-9);
-    assert_close("right back", m.back.value, lift - 0.5, 1e-9);
+    assert_rel("right ideal", m.ideal.value, lift, 1e-9);
+    assert_rel("right forward", m.forward.value, lift + 0.5, 1e-9);
+    assert_rel("right back", m.back.value, lift - 0.5, 1e-9);
     audit_ok(&s);
     // `side: left` at the start pays out when turning forward (lowers): the drive
     // absorbs power, every value is negative.
     let (_, s) = solve_rig("drum-end-left.yaml");
     let m = s.main();
-    assert_close("left ideal", m.ideal.value, -lift, 1e-9);
-    assert_close("left forward", m.forward.value, -lift + 0.5, 1e-9);
-    assert_close("left back", m.back.value, -lift - 0.5, 1e-9);
+    assert_rel("left ideal", m.ideal.value, -lift, 1e-9);
+    assert_rel("left forward", m.forward.value, -lift + 0.5, 1e-9);
+    assert_rel("left back", m.back.value, -lift - 0.5, 1e-9);
     audit_ok(&s);
 }
 
@@ -152,8 +150,8 @@ fn efficiency_never_exceeds_one_when_the_load_drives_forward() {
     let lift = 10.0 * G * 0.053;
     let fwd = m.forward_efficiency().unwrap();
     let back = m.back_efficiency().unwrap();
-    assert_close("forward efficiency", fwd, (lift - 0.5) / lift, 1e-9);
-    assert_close("back efficiency", back, lift / (lift + 0.5), 1e-9);
+    assert_rel("forward efficiency", fwd, (lift - 0.5) / lift, 1e-9);
+    assert_rel("back efficiency", back, lift / (lift + 0.5), 1e-9);
 }
 
 #[test]
@@ -165,17 +163,17 @@ fn load_unknown_over_a_capstan_bar() {
     let (_, s) = solve_rig("load-unknown-capstan.yaml");
     let m = s.main();
     let e = (0.25 * PI).exp();
-    assert_close("ideal", m.ideal.value, 100.0 / G, 1e-9);
-    assert_close("forward", m.forward.value, 100.0 / G / e, 1e-6);
-    assert_close("back", m.back.value, 100.0 / G * e, 1e-6);
+    assert_rel("ideal", m.ideal.value, 100.0 / G, 1e-9);
+    assert_rel("forward", m.forward.value, 100.0 / G / e, 1e-6);
+    assert_rel("back", m.back.value, 100.0 / G * e, 1e-6);
     // Efficiencies (DESIGN.md §3 for a load unknown): forward/ideal and ideal/back.
-    assert_close(
+    assert_rel(
         "forward eff",
         m.forward_efficiency().unwrap(),
         1.0 / e,
         1e-6,
     );
-    assert_close("back eff", m.back_efficiency().unwrap(), 1.0 / e, 1e-6);
+    assert_rel("back eff", m.back_efficiency().unwrap(), 1.0 / e, 1e-6);
     assert!(!m.self_locking());
     audit_ok(&s);
 }
@@ -186,8 +184,8 @@ fn cart_on_a_slope_pulled_horizontally() {
     // 566.19 N; the cart moves 1/cos 30° = 1.1547 m per metre of rope.
     let (_, s) = solve_rig("slope-cart.yaml");
     let m = s.main();
-    assert_close("ideal", m.ideal.value, 100.0 * G * (PI / 6.0).tan(), 1e-9);
-    assert_close(
+    assert_rel("ideal", m.ideal.value, 100.0 * G * (PI / 6.0).tan(), 1e-9);
+    assert_rel(
         "velocity ratio",
         m.velocity_ratio.unwrap(),
         (PI / 6.0).cos(),
@@ -204,7 +202,7 @@ fn two_independent_sub_rigs_both_solved() {
     assert_eq!(s.subrigs.len(), 2);
     let b = &s.subrigs[0];
     assert_eq!(rig.parts[b.drive].name, "hand.b");
-    assert_close(
+    assert_rel(
         "b forward",
         b.forward.value,
         20.0 * G * (0.1 * PI).exp(),
@@ -212,7 +210,7 @@ fn two_independent_sub_rigs_both_solved() {
     );
     let a = &s.subrigs[1];
     assert_eq!(rig.parts[a.drive].name, "hand.a");
-    assert_close(
+    assert_rel(
         "a forward",
         a.forward.value,
         10.0 * G * (0.25 * PI).exp(),
@@ -256,7 +254,7 @@ fn frictionless_equals_ideal_exactly_in_odd_units() {
     let m = s.main();
     assert_eq!(m.forward.value, m.ideal.value);
     assert_eq!(m.back.value, m.ideal.value);
-    assert_close("ideal", m.ideal.value, 21.0 * G, 1e-6);
+    assert_rel("ideal", m.ideal.value, 21.0 * G, 1e-6);
     audit_ok(&s);
 }
 
@@ -294,7 +292,7 @@ fn loss_of_input_is_positive_when_the_load_drives_forward() {
         .find(|p| p["name"] == "winch")
         .unwrap();
     let share = winch["loss_of_input"].as_f64().unwrap();
-    assert_close("loss of input", share, 0.5 / (10.0 * G * 0.053), 1e-9);
+    assert_rel("loss of input", share, 0.5 / (10.0 * G * 0.053), 1e-9);
 }
 
 #[test]
@@ -306,14 +304,14 @@ fn block_load_unknown_under_a_heavy_moving_sheave() {
     let (_, s) = solve_rig("block-unknown.yaml");
     let m = s.main();
     let q = friction_circle(0.005, 0.2) / 0.033;
-    assert_close("ideal", m.ideal.value, 500.0 / G - 2.0, 1e-8);
-    assert_close(
+    assert_rel("ideal", m.ideal.value, 500.0 / G - 2.0, 1e-8);
+    assert_rel(
         "forward",
         m.forward.value,
         (500.0 - 2.0 * G) / (G * (1.0 + q)),
         1e-8,
     );
-    assert_close(
+    assert_rel(
         "back",
         m.back.value,
         (500.0 - 2.0 * G) / (G * (1.0 - q)),
@@ -331,7 +329,7 @@ fn capstan_head_drive_with_a_tailing_hand() {
     // and slips with none (limit e^{0.2π} = 1.874).
     let (_, s) = solve_rig("capstan-winch.yaml");
     let m = s.main();
-    assert_close("ideal", m.ideal.value, (10.0 * G - 10.0) * 0.053, 1e-8);
+    assert_rel("ideal", m.ideal.value, (10.0 * G - 10.0) * 0.053, 1e-8);
     assert!(m.forward.slipping.is_empty());
     let text = std::fs::read_to_string(rig_path("capstan-winch.yaml"))
         .unwrap()
@@ -339,8 +337,8 @@ fn capstan_head_drive_with_a_tailing_hand() {
     let rig = load_str(&text, "capstan-winch.yaml").unwrap();
     let s = solve(&rig, &SolveOptions::default()).unwrap();
     let slip = s.main().forward.slipping.first().copied().unwrap();
-    assert_close("needed", slip.ratio, G, 1e-8);
-    assert_close("limit", slip.limit, (0.2 * PI).exp(), 1e-8);
+    assert_rel("needed", slip.ratio, G, 1e-8);
+    assert_rel("limit", slip.limit, (0.2 * PI).exp(), 1e-8);
 }
 
 #[test]
@@ -367,7 +365,7 @@ fn every_review_rig_balances_its_energy() {
             for (l, entries) in sub.forward.ratio.iter().enumerate() {
                 for (e, r) in entries.iter().enumerate() {
                     if let (Some(f), Some(b)) = (r, sub.back.ratio[l][e]) {
-                        assert_close(&format!("{name} {l} {e}"), *f, b, 1e-12);
+                        assert_rel(&format!("{name} {l} {e}"), *f, b, 1e-12);
                     }
                 }
             }
@@ -383,9 +381,9 @@ fn haul_pulled_off_its_rope_reports_the_component_along_pull() {
     // T cos 60° = 49.03 N, and the "mechanical advantage" is 2 with no tackle at all.
     let (_, s) = solve_rig("haul-oblique.yaml");
     let m = s.main();
-    assert_close("effort", m.ideal.value, 10.0 * G * 0.5, 1e-9);
-    assert_close("tension", m.ideal.tension[0][0], 10.0 * G, 1e-9);
-    assert_close("MA", m.mechanical_advantage().unwrap(), 2.0, 1e-9);
+    assert_rel("effort", m.ideal.value, 10.0 * G * 0.5, 1e-9);
+    assert_rel("tension", m.ideal.tension[0][0], 10.0 * G, 1e-9);
+    assert_rel("MA", m.mechanical_advantage().unwrap(), 2.0, 1e-9);
 }
 
 #[test]
@@ -398,9 +396,9 @@ fn a_block_with_no_load_moving_across_gravity_is_solved_for_a_force() {
     let m = s.main();
     assert_eq!(m.quantity, reeve::solve::Quantity::Force);
     let k = (0.2 * PI / 2.0).exp();
-    assert_close("ideal", m.ideal.value, 300.0, 1e-9);
-    assert_close("forward", m.forward.value, 300.0 / k, 1e-9);
-    assert_close("back", m.back.value, 300.0 * k, 1e-9);
+    assert_rel("ideal", m.ideal.value, 300.0, 1e-9);
+    assert_rel("forward", m.forward.value, 300.0 / k, 1e-9);
+    assert_rel("back", m.back.value, 300.0 * k, 1e-9);
     // The output says why the figure is a force.
     let text = check_text("level-cart.yaml");
     assert!(
@@ -419,7 +417,7 @@ fn a_block_with_no_load_moving_with_gravity_is_still_solved_for_a_mass() {
     });
     let s = solve(&rig, &SolveOptions::default()).unwrap();
     assert_eq!(s.main().quantity, reeve::solve::Quantity::Mass);
-    assert_close("ideal", s.main().ideal.value, 500.0 / G - 2.0, 1e-8);
+    assert_rel("ideal", s.main().ideal.value, 500.0 / G - 2.0, 1e-8);
     let report = reeve::report::Report::build(&rig, &s, Vec::new());
     let note = report.headline.solve_for.note.clone().unwrap_or_default();
     assert!(
@@ -460,5 +458,5 @@ fn the_margin_of_a_negative_stated_load_has_the_sign_of_the_verdict() {
     let h = &report.headline;
     let forward = 300.0 / (0.2 * PI / 2.0).exp();
     assert_eq!(h.moves, Some(true));
-    assert_close("margin", h.margin.unwrap(), (forward + 50.0) / 50.0, 1e-9);
+    assert_rel("margin", h.margin.unwrap(), (forward + 50.0) / 50.0, 1e-9);
 }

@@ -7,14 +7,10 @@ use serde_json::Value;
 use std::path::Path;
 
 use crate::support::generators::tackle;
-use crate::support::{json_of, reeve, stdout_of, test_rig, Scratch};
+use crate::support::{assert_rel, json_of, reeve, stdout_of, test_rig, Scratch};
 
 fn num(v: &Value) -> f64 {
     v.as_f64().unwrap_or_else(|| panic!("not a number: {v}"))
-}
-
-fn close(a: f64, b: f64, rel: f64) -> bool {
-    (a - b).abs() <= rel * b.abs().max(1e-12)
 }
 
 fn check_forward(file: &str, sets: &[&str]) -> f64 {
@@ -73,25 +69,31 @@ fn overrides_of_every_kind_of_key() {
     assert!(k > base, "{k} vs {base}");
     // A quantity with a unit, in another unit than the file's: 1000 N = 0.1 kN·10.
     let kn = check_forward("tackle-rated.yaml", &["parts.hook.load.force=1 kN"]);
-    assert!(close(kn, base, 1e-12), "{kn} vs {base}");
+    assert_rel("load set as 1 kN vs the file's 1000 N", kn, base, 1e-12);
     // A mapping (a whole bearing) and a list (a point).
     let none = check_forward("tackle-rated.yaml", &["parts.upper.d.bearing={kind: none}"]);
     assert!(none < base);
     let moved = check_forward("tackle-rated.yaml", &["parts.hand.at=[400, 0, 400]"]);
-    assert!(close(moved, base, 1e-9), "{moved} vs {base}");
+    assert_rel("hand moved along its vertical fall", moved, base, 1e-9);
     // A mass instead of a force removes the force (exclusive pair): hand calculation,
     // 102 kg × 9.80665 m/s² = 1000.28 N, so the pull scales by 1.00028.
     let mass = check_forward("tackle-rated.yaml", &["parts.hook.load.mass=102 kg"]);
-    assert!(close(mass, base * 102.0 * 9.80665 / 1000.0, 1e-9), "{mass}");
+    assert_rel(
+        "102 kg instead of 1000 N",
+        mass,
+        base * 102.0 * 9.80665 / 1000.0,
+        1e-9,
+    );
     // A rope key and `~` removing an optional key.
     let rope = check_forward("tackle-rated.yaml", &["ropes.r10.mu=0.3"]);
-    assert!(close(rope, base, 1e-12));
+    assert_rel("rope mu where every sheave is rated", rope, base, 1e-12);
     let sheave_mu = check_forward("chain-plain.yaml", &["parts.top.1.bearing.mu_static=~"]);
-    assert!(close(
+    assert_rel(
+        "mu_static removed",
         sheave_mu,
         check_forward("chain-plain.yaml", &[]),
-        1e-12
-    ));
+        1e-12,
+    );
 }
 
 #[test]
@@ -173,16 +175,16 @@ fn compare_of_rated_tackles_reproduces_the_handbook_formula() {
             .expect("column");
         let expected = handbook_pull(1000.0, k, 4, 4);
         let got = num(&col["forward"]);
-        assert!(close(got, expected, 1e-9), "K = {k}: {got} vs {expected}");
+        assert_rel(&format!("K = {k}: forward"), got, expected, 1e-9);
         let e = num(&col["efficiency"]);
         let e_hb = (k.powi(4) - 1.0) / (k.powi(4) * 4.0 * (k - 1.0));
-        assert!(close(e, e_hb, 1e-9), "K = {k}: efficiency {e} vs {e_hb}");
+        assert_rel(&format!("K = {k}: efficiency"), e, e_hb, 1e-9);
     }
     // The change column is relative to the first.
     let ch = num(&c["change_pct"][1]["forward"]);
     let expected =
         (handbook_pull(1000.0, 1.02, 4, 4) / handbook_pull(1000.0, 1.04, 4, 4) - 1.0) * 100.0;
-    assert!(close(ch, expected, 1e-9), "{ch} vs {expected}");
+    assert_rel("change of K1.02 against base, %", ch, expected, 1e-9);
 }
 
 #[test]
@@ -202,8 +204,18 @@ fn sweep_of_the_load_reproduces_the_handbook_formula_at_every_step() {
     assert_eq!(steps.len(), 4);
     for (st, w) in steps.iter().zip([500.0, 1000.0, 1500.0, 2000.0]) {
         let expected = handbook_pull(w, 1.04, 4, 4);
-        assert!(close(num(&st["forward"]), expected, 1e-9), "W = {w}: {st}");
-        assert!(close(num(&st["ideal"]), w / 4.0, 1e-9));
+        assert_rel(
+            &format!("W = {w}: {st}"),
+            num(&st["forward"]),
+            expected,
+            1e-9,
+        );
+        assert_rel(
+            &format!("W = {w}: ideal W/4"),
+            num(&st["ideal"]),
+            w / 4.0,
+            1e-9,
+        );
     }
 }
 
@@ -253,16 +265,27 @@ fn a_stroke_of_a_tackle_keeps_the_velocity_ratio() {
     assert_eq!(steps.len(), 5);
     for st in steps {
         assert!(st["error"].is_null(), "{st}");
-        assert!(close(num(&st["velocity_ratio"]), 4.0, 1e-9), "{st}");
+        assert_rel(
+            &format!("velocity ratio at {st}"),
+            num(&st["velocity_ratio"]),
+            4.0,
+            1e-9,
+        );
         // Hand calculation: the travel does not change vertical spans, so the pull stays
         // at the handbook value (DESIGN.md §1).
-        assert!(close(
+        assert_rel(
+            &format!("forward at {st}"),
             num(&st["forward"]),
             handbook_pull(1000.0, 1.04, 4, 4),
-            1e-9
-        ));
+            1e-9,
+        );
     }
-    assert!(close(num(&steps[4]["travel"]), 0.8, 1e-12));
+    assert_rel(
+        "travel of the last step, m",
+        num(&steps[4]["travel"]),
+        0.8,
+        1e-12,
+    );
     let chart = std::fs::read_to_string(&svg).unwrap();
     assert!(chart.contains("travel of hand (mm)") && chart.contains("force (N)"));
     assert!(chart.contains("Largest span tension"));
@@ -333,7 +356,12 @@ fn in_a_tackle_the_sheave_nearest_the_hauling_part_ranks_first() {
     // pull = W·K³/(1 + K + K² + K³).
     let k: f64 = 1.04;
     let expected = 1000.0 * k.powi(3) / (1.0 + k + k * k + k.powi(3));
-    assert!(close(num(&parts[0]["frictionless"]), expected, 1e-9));
+    assert_rel(
+        "pull with upper.d frictionless",
+        num(&parts[0]["frictionless"]),
+        expected,
+        1e-9,
+    );
 }
 
 #[test]
@@ -350,7 +378,12 @@ fn along_a_chain_of_identical_sheaves_every_sheave_saves_the_same() {
         .collect();
     assert_eq!(saved.len(), 3);
     for s in &saved {
-        assert!(close(*s, saved[0], 1e-9), "{saved:?}");
+        assert_rel(
+            &format!("saving of each sheave {saved:?}"),
+            *s,
+            saved[0],
+            1e-9,
+        );
         assert!(*s > 0.0);
     }
     // ... and the frictionless value is the forward value of the rig written that way.
@@ -375,11 +408,12 @@ fn ranking_with_an_alternative_bearing() {
         let name = p["part"].as_str().unwrap();
         // Catalogue default: rolling bore = the plain pin diameter, mu 0.0015.
         let set = format!("parts.{name}.bearing={{kind: rolling, bore: 10 mm, mu: 0.0015}}");
-        assert!(close(
+        assert_rel(
+            &format!("{name} with a rolling bearing"),
             num(&p["alternative"]),
             check_forward("chain-plain.yaml", &[&set]),
-            1e-12
-        ));
+            1e-12,
+        );
     }
     let yaml = json_of(&[
         "rank",
@@ -412,9 +446,11 @@ fn sensitivity_matches_the_capstan_derivative() {
         .find(|s| s["key"] == "parts.bar.mu")
         .expect("guide mu");
     let expected = w * phi * (0.25 * phi).exp();
-    assert!(
-        close(num(&s["derivative"]), expected, 1e-6),
-        "{s} vs {expected}"
+    assert_rel(
+        &format!("dF/dmu of {s}"),
+        num(&s["derivative"]),
+        expected,
+        1e-6,
     );
     // The rope's own mu does not act where the guide gives its own.
     let rope = r["sensitivities"]
@@ -425,7 +461,12 @@ fn sensitivity_matches_the_capstan_derivative() {
         .unwrap();
     assert!(num(&rope["derivative"]).abs() < 1e-6);
     // Frictionless guide: the ideal W.
-    assert!(close(num(&r["parts"][0]["frictionless"]), w, 1e-9));
+    assert_rel(
+        "frictionless guide: the ideal W",
+        num(&r["parts"][0]["frictionless"]),
+        w,
+        1e-9,
+    );
 }
 
 // --------------------------------------------------------------------- spread
@@ -471,7 +512,7 @@ fn deterministic_commands_use_the_middle_of_a_range() {
             "parts.hook.a.bearing.mu=0.12",
         ],
     );
-    assert!(close(a, b, 1e-12), "{a} vs {b}");
+    assert_rel("middle of the ranges vs the values set", a, b, 1e-12);
 }
 
 #[test]
@@ -617,9 +658,11 @@ fn compare_of_tackles_over_the_number_of_parts_reproduces_the_handbook_formula()
         };
         let expected = handbook_pull(500.0 * 9.80665, 1.04, n as i32, s as i32);
         let forward = num(&column["forward"]);
-        assert!(
-            close(forward, expected, 1e-9),
-            "{sheaves} sheaves ({n} parts): {forward} vs handbook {expected}"
+        assert_rel(
+            &format!("{sheaves} sheaves ({n} parts) vs handbook"),
+            forward,
+            expected,
+            1e-9,
         );
     }
 }
@@ -694,7 +737,12 @@ fn rank_calls_a_worse_alternative_worse_instead_of_a_negative_saving() {
         // Hand check: the extra effort is the worse rig's forward value minus the rig's.
         let extra = check_forward("chain-plain.yaml", &[&set]) - num(&r["forward"]);
         assert!(extra > 0.0);
-        assert!(close(num(&p["alternative_worse_by"]), extra, 1e-9), "{p}");
+        assert_rel(
+            &format!("worse by, {p}"),
+            num(&p["alternative_worse_by"]),
+            extra,
+            1e-9,
+        );
     }
     let text = stdout_of(&["rank", &test_rig("chain-plain.yaml"), "--to", worse]);
     assert!(text.contains("worse by 13.43 N"), "{text}");
@@ -734,7 +782,7 @@ fn rank_to_takes_units_in_the_bearing() {
     ]);
     let a = num(&bare["parts"][0]["alternative"]);
     let b = num(&inches["parts"][0]["alternative"]);
-    assert!(close(a, b, 1e-7), "{a} vs {b}");
+    assert_rel("pin in inches vs in mm", a, b, 1e-7);
 }
 
 #[test]
@@ -765,9 +813,11 @@ fn rank_sensitivities_measure_effort_saved_like_the_ranking_and_name_the_written
     let top = &sens[at("parts.top.1.bearing.mu")];
     assert_eq!(num(&top["value"]), 0.15);
     let f = check_forward("chain-plain.yaml", &[rated, "parts.top.1.bearing.mu=0.135"]);
-    assert!(
-        close(num(&top["saved_with_10pct_less_friction"]), f0 - f, 1e-9),
-        "{top}"
+    assert_rel(
+        &format!("saved, {top}"),
+        num(&top["saved_with_10pct_less_friction"]),
+        f0 - f,
+        1e-9,
     );
     // ... and for the rated one: K = 1/0.99, loss K − 1 cut by 10 %, η = 1/(1 + 0.9(K − 1)).
     let k = 1.0 / 0.99;
@@ -776,9 +826,11 @@ fn rank_sensitivities_measure_effort_saved_like_the_ranking_and_name_the_written
     assert_eq!(num(&low2["value"]), 0.99);
     let set = format!("parts.low.2.bearing.efficiency={eta}");
     let f = check_forward("chain-plain.yaml", &[rated, &set]);
-    assert!(
-        close(num(&low2["saved_with_10pct_less_friction"]), f0 - f, 1e-9),
-        "{low2}"
+    assert_rel(
+        &format!("saved, {low2}"),
+        num(&low2["saved_with_10pct_less_friction"]),
+        f0 - f,
+        1e-9,
     );
     // The text lists the same measure, in the rig's unit, under the file's own key.
     let text = stdout_of(&["rank", &path, "--set", rated]);
@@ -830,11 +882,12 @@ fn compare_exits_1_and_shows_the_margin_when_a_column_fails_a_check() {
     assert_eq!(v["columns"][0]["fails"], false);
     assert_eq!(v["columns"][1]["fails"], true);
     assert_eq!(v["columns"][1]["failing"][0], "cannot-move");
-    assert!(close(
+    assert_rel(
+        "margin of the automaton, 1.2 N over 1.4706 N",
         num(&v["columns"][1]["margin"]),
         1.2 / 1.470_6 - 1.0,
-        1e-3
-    ));
+        1e-3,
+    );
     // A comparison where every rig passes still exits 0.
     stdout_of(&[
         "compare",

@@ -4,8 +4,6 @@
 
 use std::fmt::Write as _;
 
-use reeve::solve::Solution;
-
 /// A planar tackle of `sheaves` rated sheaves (K = 1.04), alternately moving (on the hook
 /// block, below) and fixed (above), dead end on the fixed block, falls vertical, hook
 /// load 500 kg. With an even count the hauling part leaves the fixed block (N = S =
@@ -336,27 +334,4 @@ pub fn tackles(count: usize) -> String {
     yaml.push_str(&lines);
     yaml.push_str("drive: t0.hand\n");
     yaml
-}
-
-/// Relative closeness with a message carrying both numbers.
-pub fn assert_close(what: &str, measured: f64, expected: f64, rel_tol: f64) {
-    let err = (measured - expected).abs() / expected.abs().max(1e-300);
-    assert!(
-        err <= rel_tol,
-        "{what}: measured {measured}, expected {expected} (relative error {err:.3e} > {rel_tol:.1e})"
-    );
-}
-
-/// Energy audit of every case of every sub-rig balances (DESIGN.md §3 step 5).
-pub fn audit_ok(solution: &Solution) {
-    for sub in &solution.subrigs {
-        for case in [&sub.ideal, &sub.forward, &sub.back] {
-            assert!(
-                case.audit_residual < 1e-9,
-                "{}: energy audit residual {}",
-                case.case.name(),
-                case.audit_residual
-            );
-        }
-    }
 }

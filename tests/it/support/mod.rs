@@ -2,12 +2,14 @@
 //! folders, where the rig files are, and the rig generators that the benchmarks share
 //! ([`generators`], included by path from `benches/`).
 
+pub mod close;
 pub mod generators;
 pub mod run;
 
 use std::path::{Path, PathBuf};
 use std::sync::atomic::{AtomicU32, Ordering};
 
+pub use close::{assert_abs, assert_rel};
 pub use run::{json_of, reeve, stdout_of, Reeve};
 
 /// The package's root folder (where `rigs/` and `tests/` are).
@@ -64,5 +66,21 @@ impl AsRef<Path> for Scratch {
 impl Drop for Scratch {
     fn drop(&mut self) {
         let _ = std::fs::remove_dir_all(&self.0);
+    }
+}
+
+/// Asserts the energy audit of every case of every sub-rig balances (DESIGN.md §3 step
+/// 5: drive power = load power + losses, to round-off).
+#[track_caller]
+pub fn audit_ok(solution: &reeve::solve::Solution) {
+    for sub in &solution.subrigs {
+        for case in [&sub.ideal, &sub.forward, &sub.back] {
+            assert!(
+                case.audit_residual < 1e-9,
+                "{}: energy audit residual {}",
+                case.case.name(),
+                case.audit_residual
+            );
+        }
     }
 }
