@@ -3,7 +3,7 @@
 //! the HTML report opened in headless Chromium; atomic writes and the refusal to write
 //! over the input rig.
 //!
-//! Golden files live in `tests/golden/`; `REEVE_BLESS=1 cargo test --test outputs`
+//! Golden files live in `tests/golden/`; `REEVE_BLESS=1 cargo test --test it golden`
 //! rewrites them. These are format tests, not physics tests: the numbers in the golden
 //! files are whatever the solver computes, checked elsewhere against their sources.
 
@@ -15,71 +15,8 @@ use std::time::{Duration, Instant};
 
 use serde::Deserialize;
 
+use crate::support::golden::golden;
 use crate::support::{assert_abs, example_rig, reeve, stdout_of, Scratch, ROOT};
-
-/// A line diff (longest common subsequence), `-` expected, `+` actual, with a little
-/// context, for readable golden mismatches.
-fn diff(expected: &str, actual: &str) -> String {
-    let a: Vec<&str> = expected.lines().collect();
-    let b: Vec<&str> = actual.lines().collect();
-    let (n, m) = (a.len(), b.len());
-    let mut lcs = vec![vec![0usize; m + 1]; n + 1];
-    for i in (0..n).rev() {
-        for j in (0..m).rev() {
-            lcs[i][j] = if a[i] == b[j] {
-                lcs[i + 1][j + 1] + 1
-            } else {
-                lcs[i + 1][j].max(lcs[i][j + 1])
-            };
-        }
-    }
-    let mut ops = Vec::new();
-    let (mut i, mut j) = (0, 0);
-    while i < n || j < m {
-        if i < n && j < m && a[i] == b[j] {
-            ops.push((' ', a[i], i + 1));
-            i += 1;
-            j += 1;
-        } else if i < n && (j == m || lcs[i + 1][j] >= lcs[i][j + 1]) {
-            ops.push(('-', a[i], i + 1));
-            i += 1;
-        } else {
-            ops.push(('+', b[j], j + 1));
-            j += 1;
-        }
-    }
-    let changed: Vec<usize> = (0..ops.len()).filter(|&k| ops[k].0 != ' ').collect();
-    let mut out = String::new();
-    for (k, (op, text, line)) in ops.iter().enumerate() {
-        if changed.iter().any(|&c| c.abs_diff(k) <= 2) {
-            out.push_str(&format!("{op} {line:>4} | {text}\n"));
-        }
-    }
-    out
-}
-
-/// Compares `actual` with the golden file, or rewrites it when `REEVE_BLESS=1`.
-fn golden(name: &str, actual: &str) {
-    let path = Path::new(ROOT).join("tests/golden").join(name);
-    if std::env::var("REEVE_BLESS").as_deref() == Ok("1") {
-        fs::create_dir_all(path.parent().unwrap()).unwrap();
-        fs::write(&path, actual).unwrap();
-        return;
-    }
-    let expected = fs::read_to_string(&path).unwrap_or_else(|_| {
-        panic!(
-            "golden file {} is missing; run `REEVE_BLESS=1 cargo test --test outputs` to create it",
-            path.display()
-        )
-    });
-    if expected != actual {
-        panic!(
-            "{name} differs from its golden file (- golden, + now); if the change is meant, \
-rerun with REEVE_BLESS=1:\n{}",
-            diff(&expected, actual)
-        );
-    }
-}
 
 const GOLDEN_RIGS: [&str; 2] = ["workshop-hoist", "sash-window"];
 

@@ -1,12 +1,11 @@
 //! Design studies through the real binary: overrides and variants, compare, sweep and
 //! stroke, upgrade ranking and sensitivities, Monte Carlo spread. Golden tables live in
-//! `tests/golden/`; rewrite them with `REEVE_BLESS=1 cargo test --test studies`.
+//! `tests/golden/`; rewrite them with `REEVE_BLESS=1 cargo test --test it golden`.
 
 use serde_json::Value;
 
-use std::path::Path;
-
 use crate::support::generators::tackle;
+use crate::support::golden::golden;
 use crate::support::{assert_rel, json_of, reeve, stdout_of, test_rig, Scratch};
 
 fn num(v: &Value) -> f64 {
@@ -23,33 +22,6 @@ fn check_forward(file: &str, sets: &[&str]) -> f64 {
     let out = reeve(&args);
     assert_ne!(out.code, 2, "{}", out.stderr);
     num(&out.json()["forward"]["value"])
-}
-
-fn golden(name: &str, actual: &str) {
-    let path = Path::new(env!("CARGO_MANIFEST_DIR"))
-        .join("tests/golden")
-        .join(name);
-    if std::env::var_os("REEVE_BLESS").is_some() {
-        std::fs::write(&path, actual).expect("write golden");
-        return;
-    }
-    let expected = std::fs::read_to_string(&path)
-        .unwrap_or_else(|_| panic!("missing golden {name}; run with REEVE_BLESS=1"));
-    if expected != actual {
-        let diff: Vec<String> = expected
-            .lines()
-            .zip(actual.lines())
-            .enumerate()
-            .filter(|(_, (e, a))| e != a)
-            .map(|(i, (e, a))| format!("line {}:\n  expected: {e}\n  actual:   {a}", i + 1))
-            .collect();
-        panic!(
-            "golden {name} differs ({} vs {} lines):\n{}",
-            expected.lines().count(),
-            actual.lines().count(),
-            diff.join("\n")
-        );
-    }
 }
 
 /// Wire-rope handbook reeving efficiency formula, DESIGN.md §1:

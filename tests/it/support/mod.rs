@@ -4,6 +4,7 @@
 
 pub mod close;
 pub mod generators;
+pub mod golden;
 pub mod run;
 
 use std::path::{Path, PathBuf};
