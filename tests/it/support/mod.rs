@@ -13,6 +13,11 @@ use std::sync::atomic::{AtomicU32, Ordering};
 pub use close::{assert_abs, assert_rel};
 pub use run::{json_of, reeve, stdout_of, Reeve};
 
+/// The example rig of DESIGN.md section 4, byte for byte (`tests/rigs/design-example.yaml`,
+/// which the library's own loader tests include too). Tests edit it and check the line
+/// numbers of the problems they cause, so the file carries no comment of its own.
+pub const EXAMPLE: &str = include_str!("../../rigs/design-example.yaml");
+
 /// The package's root folder (where `rigs/` and `tests/` are).
 pub const ROOT: &str = env!("CARGO_MANIFEST_DIR");
 
