@@ -1,9 +1,18 @@
 //! The real binary on bad rigs that only the geometry or the solver can find wrong:
-//! exit code 2, and a message that names the file, line, column and part.
+//! exit code 2, and a message that names the file, line, column and part; and what
+//! `check` says: verdicts, margins, outcome wording, warnings, units.
+
+use std::f64::consts::PI;
+
+use reeve::math::STANDARD_GRAVITY;
+use reeve::solve::{solve, SolveError, SolveOptions};
 
 use crate::support::generators as common;
-use crate::support::run::{reeve_on, Ran};
-use crate::support::{assert_abs, reeve};
+use crate::support::run::reeve_on;
+use crate::support::{
+    assert_abs, assert_rel, edited_rig, reeve, reeve_in, solve_test_rig, test_rig, Scratch,
+    ONE_SHEAVE,
+};
 
 const HEAD: &str = "format: 1\nropes:\n  r: {diameter: 6, mu: 0.2}\nparts:\n";
 
@@ -12,9 +21,7 @@ fn point_inside_a_sheave_is_located() {
     let rig = format!(
         "{HEAD}  a: {{kind: anchor, at: [0, 0, 0]}}\n  s: {{kind: sheave, at: [0, 0, 10], axle: [0, 1, 0], diameter: 60, bearing: {{kind: none}}}}\n  h: {{kind: haul, at: [500, 0, 0]}}\nlines:\n  l: {{rope: r, path: [a, s, h]}}\n"
     );
-    let Ran {
-        code, stderr: err, ..
-    } = reeve_on(&rig, &["check"]);
+    let (code, _, err) = reeve_on(&rig, &["check"]).parts();
     assert_eq!(code, 2, "{err}");
     assert!(
         err.contains(":9:")
@@ -30,9 +37,7 @@ fn coincident_points_are_located() {
     let rig = format!(
         "{HEAD}  a: {{kind: anchor, at: [0, 0, 0]}}\n  w: {{kind: weight, at: [0, 0, 0], mass: 1}}\n  h: {{kind: haul, at: [0, 0, 500]}}\nlines:\n  l: {{rope: r, path: [a, w]}}\n  m: {{rope: r, path: [w, h]}}\n"
     );
-    let Ran {
-        code, stderr: err, ..
-    } = reeve_on(&rig, &["check"]);
+    let (code, _, err) = reeve_on(&rig, &["check"]).parts();
     assert_eq!(code, 2, "{err}");
     assert!(err.contains(":9:") && err.contains("same place"), "{err}");
 }
@@ -43,9 +48,7 @@ fn a_rig_that_cannot_move_names_its_parts() {
     let rig = format!(
         "{HEAD}  a: {{kind: anchor, at: [0, 0, 0]}}\n  s: {{kind: sheave, at: [100, 0, 1000], axle: [0, 1, 0], diameter: 60, bearing: {{kind: none}}}}\n  w: {{kind: weight, at: [200, 0, 0], mass: 1}}\n  b: {{kind: anchor, at: [100, 0, 2000]}}\n  h: {{kind: haul, at: [300, 0, 0]}}\nlines:\n  l: {{rope: r, path: [a, s, w]}}\n  m: {{rope: r, path: [w, b]}}\n  n: {{rope: r, path: [b, h]}}\ndrive: h\n"
     );
-    let Ran {
-        code, stderr: err, ..
-    } = reeve_on(&rig, &["check"]);
+    let (code, _, err) = reeve_on(&rig, &["check"]).parts();
     assert_eq!(code, 2, "{err}");
     assert!(err.contains("`w`"), "{err}");
 }
@@ -55,11 +58,61 @@ fn ambiguous_side_asks_for_side() {
     let rig = format!(
         "{HEAD}  a: {{kind: anchor, at: [0, 0, 2000]}}\n  s: {{kind: sheave, at: [0, 0, 1000], axle: [0, 1, 0], diameter: 60, bearing: {{kind: none}}}}\n  w: {{kind: weight, at: [0, 0, 0], mass: 1}}\nlines:\n  l: {{rope: r, path: [a, s, w]}}\ndrive: w\n"
     );
-    let Ran {
-        code, stderr: err, ..
-    } = reeve_on(&rig, &["check"]);
+    let (code, _, err) = reeve_on(&rig, &["check"]).parts();
     assert_eq!(code, 2, "{err}");
     assert!(err.contains(":9:") && err.contains("side: left"), "{err}");
+}
+
+/// Guards the file check at the command line: a NUL in a comment ended the reading
+/// there and the run went on with half a file (exit 0).
+#[test]
+fn a_control_character_in_the_rig_file_is_exit_2_with_line_and_column() {
+    let dir = Scratch::new("nul-comment");
+    let text = ONE_SHEAVE.replace(
+        "lines:\n",
+        "# a \u{0} here\nlimits: {design_factor: 50}\nlines:\n",
+    );
+    std::fs::write(dir.join("rig.yaml"), text).unwrap();
+    let out = reeve_in(&dir, &["check", "rig.yaml"]);
+    assert_eq!(out.code, 2, "{}", out.stderr);
+    assert!(out.stderr.contains("rig.yaml:11:5:"), "{}", out.stderr);
+    assert!(out.stderr.contains("U+0000 (NUL)"), "{}", out.stderr);
+}
+
+/// Guards the other ways text enters: `--set` values, `variants` (after YAML escapes)
+/// and `rank --to` get the file's character check, and the message shows the character
+/// escaped, never raw on the terminal.
+#[test]
+fn control_characters_in_set_variants_and_rank_to_are_refused() {
+    let dir = Scratch::new("control-entries");
+    let variants = ONE_SHEAVE.to_string() + "variants:\n  bad: [\"parts.s.bearing.mu=0.1\\0\"]\n";
+    dir.write("rig.yaml", ONE_SHEAVE);
+    std::fs::write(dir.join("variants.yaml"), &variants).unwrap();
+    for args in [
+        &[
+            "check",
+            "rig.yaml",
+            "--set",
+            "parts.s.bearing.mu=0.1\u{1b}[2J",
+        ][..],
+        &["check", "rig.yaml", "--set", "title=a \u{202e}title"],
+        &["compare", "variants.yaml", "--variants"],
+        &[
+            "rank",
+            "rig.yaml",
+            "--to",
+            "{kind: plain, pin_diameter: 8, mu: 0.08}\u{1b}[2J",
+        ],
+    ] {
+        let out = reeve_in(&dir, args);
+        let err = out.stderr;
+        assert_eq!(out.code, 2, "{args:?}: {err}");
+        assert!(err.contains("character U+"), "{args:?}: {err}");
+        assert!(
+            !err.contains(['\u{1b}', '\u{0}', '\u{202e}']),
+            "{args:?}: raw in {err:?}"
+        );
+    }
 }
 
 #[test]
@@ -141,9 +194,7 @@ fn a_block_cannot_drive_against_its_own_load() {
     let rig = format!(
         "{HEAD}  top: {{kind: sheave, at: [0, 0, 1000], axle: [0, 1, 0], diameter: 60, bearing: {{kind: none}}}}\n  b: {{kind: block, at: [-33, 0, 0], moves: [0, 0, 1], load: {{mass: 5}}}}\n  w: {{kind: weight, at: [33, 0, 0], mass: 4}}\nlines:\n  l: {{rope: r, path: [b, top, w]}}\ndrive: b\n"
     );
-    let Ran {
-        code, stderr: err, ..
-    } = reeve_on(&rig, &["check"]);
+    let (code, _, err) = reeve_on(&rig, &["check"]).parts();
     assert_eq!(code, 2, "{err}");
     assert!(
         err.contains(":6:") && err.contains("`b`") && err.contains("against its own travel"),
@@ -171,9 +222,7 @@ fn a_capstan_ratio_that_overflows_is_a_located_error_in_every_command() {
     // μ = 0.25 give e^(0.25·(π + 2000π)) = e^1571, beyond f64 (largest e^709).
     for args in every_solving_command("tests/rigs/guide-turns.yaml") {
         let args: Vec<&str> = args.iter().map(String::as_str).collect();
-        let Ran {
-            code, stderr: err, ..
-        } = reeve(&args);
+        let (code, _, err) = reeve(&args).parts();
         assert_eq!(code, 2, "{args:?}: {err}");
         assert!(!err.contains("panicked"), "{args:?}: {err}");
         assert!(
@@ -192,9 +241,7 @@ fn a_rope_mu_of_hundreds_set_from_the_command_line_is_refused_not_a_panic() {
     for mut args in every_solving_command("rigs/rescue-haul.yaml") {
         args.extend(["--set".to_string(), "parts.leg.biner.mu=1000".to_string()]);
         let args: Vec<&str> = args.iter().map(String::as_str).collect();
-        let Ran {
-            code, stderr: err, ..
-        } = reeve(&args);
+        let (code, _, err) = reeve(&args).parts();
         assert_eq!(code, 2, "{args:?}: {err}");
         assert!(!err.contains("panicked"), "{args:?}: {err}");
         assert!(
@@ -204,30 +251,28 @@ fn a_rope_mu_of_hundreds_set_from_the_command_line_is_refused_not_a_panic() {
     }
     // A rope `mu` of a few hundred on bare pins (rigs/automaton-cord.yaml, no `mu` of
     // their own): e^(300·φ) overflows too, and the message names the first pin.
-    let Ran {
-        code, stderr: err, ..
-    } = reeve(&[
+    let (code, _, err) = reeve(&[
         "rank",
         "rigs/automaton-cord.yaml",
         "--set",
         "ropes.braid1.mu=300",
-    ]);
+    ])
+    .parts();
     assert_eq!(code, 2, "{err}");
     assert!(
         err.contains("`pin.1`") && err.contains("too large to be physical"),
         "{err}"
     );
     // The sweep that reaches it in a step: refused as well, never a panic.
-    let Ran {
-        code, stderr: err, ..
-    } = reeve(&[
+    let (code, _, err) = reeve(&[
         "sweep",
         "rigs/rescue-haul.yaml",
         "--vary",
         "parts.leg.biner.mu=0.2..1000",
         "--steps",
         "3",
-    ]);
+    ])
+    .parts();
     assert!(!err.contains("panicked"), "{err}");
     assert_ne!(code, 101, "{err}");
 }
@@ -240,12 +285,7 @@ fn a_finite_but_unphysical_capstan_ratio_has_its_own_message() {
     let text = std::fs::read_to_string("tests/rigs/guide-turns.yaml")
         .unwrap()
         .replace("turns: 1000", "turns: 100");
-    let Ran {
-        code,
-        stdout: out,
-        stderr: err,
-        ..
-    } = reeve_on(&text, &["check"]);
+    let (code, out, err) = reeve_on(&text, &["check"]).parts();
     assert_eq!(code, 2, "{out}{err}");
     assert!(
         err.contains("`bar`") && err.contains("too large to be physical"),
@@ -253,12 +293,7 @@ fn a_finite_but_unphysical_capstan_ratio_has_its_own_message() {
     );
     // Five turns (e^(0.25·11π) = 5.7e3) are an ordinary capstan and still solve.
     let text = text.replace("turns: 100", "turns: 5");
-    let Ran {
-        code,
-        stdout: out,
-        stderr: err,
-        ..
-    } = reeve_on(&text, &["check"]);
+    let (code, out, err) = reeve_on(&text, &["check"]).parts();
     assert_eq!(code, 0, "{out}{err}");
 }
 
@@ -267,24 +302,14 @@ fn friction_that_compounds_beyond_any_rope_fails_the_check() {
     // Guards huge figures with exit 0 where every passage is ordinary but they multiply:
     // 40 zig-zag pins at μ = 0.5, each wrapped about 2 rad (ratio e^1 ≈ 2.8, capstan
     // equation), multiply the pull about e^40 ≈ 1e17-fold, far above 1e12.
-    let Ran {
-        code,
-        stdout: out,
-        stderr: err,
-        ..
-    } = reeve_on(&common::chain(40, 0.5), &["check"]);
+    let (code, out, err) = reeve_on(&common::chain(40, 0.5), &["check"]).parts();
     assert_eq!(code, 1, "{out}{err}");
     assert!(
         out.contains("FAIL [friction-lock]") && out.contains("line `cord`"),
         "{out}"
     );
     // Ten such pins (e^10 ≈ 2e4) are an ordinary, if lossy, rig.
-    let Ran {
-        code,
-        stdout: out,
-        stderr: err,
-        ..
-    } = reeve_on(&common::chain(10, 0.5), &["check"]);
+    let (code, out, err) = reeve_on(&common::chain(10, 0.5), &["check"]).parts();
     assert!(!out.contains("friction-lock"), "{out}{err}");
     assert_eq!(code, 0, "{out}{err}");
 }
@@ -294,12 +319,7 @@ fn loads_square_to_the_motion_are_refused_with_the_likely_fix() {
     // Guards "0 N in every case, the drive moves the rig, exit 0": the hook rises along
     // +Y while gravity is the default −Z, so its 40 kg do no work (virtual work:
     // X = −(v·Q)/(v·x) = 0 for every friction).
-    let Ran {
-        code,
-        stdout: out,
-        stderr: err,
-        ..
-    } = reeve(&["check", "tests/rigs/y-up-hoist.yaml"]);
+    let (code, out, err) = reeve(&["check", "tests/rigs/y-up-hoist.yaml"]).parts();
     assert_eq!(code, 2, "{out}{err}");
     assert!(
         err.contains("y-up-hoist.yaml:12:")
@@ -310,18 +330,14 @@ fn loads_square_to_the_motion_are_refused_with_the_likely_fix() {
         "{err}"
     );
     // The same rig with gravity along −Y solves: 2:1, ideal 40 g / 2 = 196.13 N.
-    let Ran {
-        code,
-        stdout: out,
-        stderr: err,
-        ..
-    } = reeve(&[
+    let (code, out, err) = reeve(&[
         "check",
         "tests/rigs/y-up-hoist.yaml",
         "--json",
         "--set",
         "gravity=[0, -1, 0]",
-    ]);
+    ])
+    .parts();
     assert_eq!(code, 0, "{err}");
     let json: serde_json::Value = serde_json::from_str(&out).unwrap();
     let ideal = json["ideal"]["value"].as_f64().unwrap();
@@ -332,17 +348,103 @@ fn loads_square_to_the_motion_are_refused_with_the_likely_fix() {
         .replace("moves: [1, 0, 0]}", "moves: [1, 0, 0], load: {mass: 100}}")
         .replace(", force: 300}", "}")
         .replace("solve_for: cart", "");
-    let Ran {
-        code,
-        stdout: out,
-        stderr: err,
-        ..
-    } = reeve_on(&text, &["check"]);
+    let (code, out, err) = reeve_on(&text, &["check"]).parts();
     assert_eq!(code, 2, "{out}{err}");
     assert!(
         err.contains("`cart`") && err.contains("do no work"),
         "{err}"
     );
+}
+
+#[test]
+fn a_block_with_no_load_moving_across_gravity_is_solved_for_a_force() {
+    // Guards "no equilibrium" for an unknown block that states no load on a level
+    // track: a mass there does no work, so the unknown is the force against `moves`.
+    // Hand calculation (rig header, capstan equation, Hibbeler §8.5): ideal 300 N,
+    // forward 300/e^(0.2·π/2) = 219.12 N, back 300·e^(0.2·π/2) = 410.73 N.
+    let (_, s) = solve_test_rig("review/level-cart.yaml");
+    let m = s.main();
+    assert_eq!(m.quantity, reeve::solve::Quantity::Force);
+    let k = (0.2 * PI / 2.0).exp();
+    assert_rel("ideal", m.ideal.value, 300.0, 1e-9);
+    assert_rel("forward", m.forward.value, 300.0 / k, 1e-9);
+    assert_rel("back", m.back.value, 300.0 * k, 1e-9);
+    // The output says why the figure is a force.
+    let text = check_text(&[&test_rig("review/level-cart.yaml")]);
+    assert!(
+        text.contains("`cart` states no load") && text.contains("force against its `moves`"),
+        "{text}"
+    );
+}
+
+#[test]
+fn a_block_with_no_load_moving_with_gravity_is_still_solved_for_a_mass() {
+    // Guards the other side of the same choice: under a 2:1 hook the travel is along
+    // gravity, so the unknown stays the mass (block-unknown.yaml without its load:
+    // ideal (500 − 2 g)/g = 48.986 kg, hand calculation in the rig header).
+    let rig = edited_rig("review/block-unknown.yaml", |t| {
+        t.replace(", load: {mass: 45}", "")
+    });
+    let s = solve(&rig, &SolveOptions::default()).unwrap();
+    assert_eq!(s.main().quantity, reeve::solve::Quantity::Mass);
+    assert_rel(
+        "ideal",
+        s.main().ideal.value,
+        500.0 / STANDARD_GRAVITY - 2.0,
+        1e-8,
+    );
+    let report = reeve::report::Report::build(&rig, &s, Vec::new());
+    let note = report.headline.solve_for.note.clone().unwrap_or_default();
+    assert!(
+        note.contains("states no load") && note.contains("mass"),
+        "{note}"
+    );
+}
+
+#[test]
+fn no_equilibrium_names_its_real_cause() {
+    // Guards the one hint "lines pulling only sideways" given for every inconsistent
+    // system: a mass asked for on a block whose travel is square to gravity does no
+    // work, and the message must say that, not blame the lines.
+    let rig = edited_rig("review/level-cart.yaml", |t| {
+        t.replace("moves: [1, 0, 0]}", "moves: [1, 0, 0], load: {mass: ~}}")
+    });
+    let e = solve(&rig, &SolveOptions::default()).unwrap_err();
+    let message = e.to_string();
+    assert!(!matches!(e, SolveError::NoEquilibrium { .. }), "{message}");
+    assert!(
+        message.contains("`cart`") && message.contains("square to gravity"),
+        "{message}"
+    );
+    assert!(!message.contains("sideways"), "{message}");
+    assert_eq!(e.subject().1, Some("cart"));
+}
+
+#[test]
+fn solve_for_in_another_sub_rig_is_a_clear_error() {
+    // Guards a solve_for that the drive cannot reach (another sub-rig): a clear error
+    // naming both parts, not an inconsistent equilibrium.
+    // The drive `hand.b` cannot move `load.a` (a separate line): the error must say so,
+    // not report an inconsistent equilibrium.
+    let rig = edited_rig("review/two-subrigs.yaml", |text| {
+        text.replace("drive: hand.b", "drive: hand.b\nsolve_for: load.a")
+            .replace(
+                "hand.b: {kind: haul, at: [0, 500, -1e6]}",
+                "hand.b: {kind: haul, at: [0, 500, -1e6], force: 300}",
+            )
+            .replace(", mass: 10}", "}")
+    });
+    match solve(&rig, &SolveOptions::default()) {
+        Err(e) => {
+            let message = e.to_string();
+            assert!(
+                message.contains("`load.a`") && message.contains("`hand.b`"),
+                "{message}"
+            );
+            assert!(!matches!(e, SolveError::NoEquilibrium { .. }), "{message}");
+        }
+        Ok(_) => panic!("a load the drive cannot reach was solved"),
+    }
 }
 
 #[test]
@@ -353,12 +455,7 @@ fn a_balanced_rig_whose_ideal_effort_is_zero_still_solves() {
     let rig = format!(
         "{HEAD}  s: {{kind: sheave, at: [0, 0, 2000], axle: [0, 1, 0], diameter: 60, bearing: {{kind: plain, pin_diameter: 10, mu: 0.1}}}}\n  a: {{kind: weight, at: [-33, 0, 0], mass: 5}}\n  b: {{kind: weight, at: [33, 0, -500], mass: 5}}\n  h: {{kind: haul, at: [100, 0, 1000]}}\nlines:\n  l: {{rope: r, path: [a, s, b]}}\n  m: {{rope: r, path: [b, h]}}\ndrive: h\n"
     );
-    let Ran {
-        code,
-        stdout: out,
-        stderr: err,
-        ..
-    } = reeve_on(&rig, &["check"]);
+    let (code, out, err) = reeve_on(&rig, &["check"]).parts();
     assert!(!err.contains("do no work"), "{err}");
     assert_ne!(code, 2, "{out}{err}");
 }
@@ -426,22 +523,34 @@ fn a_drive_turning_backward_says_so_and_fails() {
 }
 
 #[test]
+fn the_margin_of_a_negative_stated_load_has_the_sign_of_the_verdict() {
+    // Guards margin = forward/stated − 1, which flips sign for a stated load below zero:
+    // the level cart pushed along its travel by 50 N (`load: {force: -50}`) is moved
+    // with room to spare (forward 219.12 N ≥ −50 N), margin (219.12 + 50)/50 = +538 %.
+    let rig = edited_rig("review/level-cart.yaml", |t| {
+        t.replace("moves: [1, 0, 0]}", "moves: [1, 0, 0], load: {force: -50}}")
+    });
+    let s = solve(&rig, &SolveOptions::default()).unwrap();
+    let report = reeve::report::Report::build(&rig, &s, Vec::new());
+    let h = &report.headline;
+    let forward = 300.0 / (0.2 * PI / 2.0).exp();
+    assert_eq!(h.moves, Some(true));
+    assert_rel("margin", h.margin.unwrap(), (forward + 50.0) / 50.0, 1e-9);
+}
+
+#[test]
 fn failure_messages_use_the_rigs_units_and_precision() {
     // Guards "2600.0000 N available, 2769.3525 N needed" beside a summary in kN: the
     // warnings use the summary's units and four significant figures.
-    let Ran {
-        code,
-        stdout: out,
-        stderr: err,
-        ..
-    } = reeve(&[
+    let (code, out, err) = reeve(&[
         "check",
         "rigs/workshop-hoist.yaml",
         "--set",
         "parts.hook.load.mass=1000 kg",
         "--set",
         "ropes.wire8.breaking_strength=10 kN",
-    ]);
+    ])
+    .parts();
     assert_eq!(code, 1, "{out}{err}");
     assert!(out.contains("2.600 kN available, 2.769 kN needed"), "{out}");
     let warnings: Vec<&str> = out.lines().filter(|l| l.contains("FAIL [")).collect();
@@ -462,12 +571,7 @@ fn an_imperial_rig_shows_torque_in_imperial_units() {
     // Hand calculation in the rig header: load torque 3 lbf*in = 0.338958 N·m, ideal
     // pull 3/2.125 = 1.41176 lbf.
     let rig = "tests/rigs/hinge-imperial.yaml";
-    let Ran {
-        code,
-        stdout: text,
-        stderr: err,
-        ..
-    } = reeve(&["check", rig]);
+    let (code, text, err) = reeve(&["check", rig]).parts();
     assert_eq!(code, 0, "{err}");
     assert!(
         text.contains("3.000 lbf*in") && !text.contains("N*m"),
@@ -478,7 +582,7 @@ fn an_imperial_rig_shows_torque_in_imperial_units() {
     // radius, 2.125 in/rad, not 0.05397 m/rad.
     assert!(text.contains("Velocity ratio 2.125 in/rad"), "{text}");
     assert!(text.contains("mechanical advantage 2.125 in"), "{text}");
-    let Ran { stdout: table, .. } = reeve(&["table", rig, "--format", "md"]);
+    let table = reeve(&["table", rig, "--format", "md"]).stdout;
     assert!(table.contains("torque lbf*in"), "{table}");
     let json = reeve(&["check", rig, "--json"]).json();
     let load = json["drums"][0]["load_torque_nm"].as_f64().unwrap();
@@ -499,7 +603,7 @@ fn an_imperial_rig_shows_torque_in_imperial_units() {
 #[test]
 fn passage_columns_carry_their_degree_signs() {
     // Guards fleet columns without `°` beside `wrap °` in the check summary.
-    let Ran { stdout: text, .. } = reeve(&["check", "rigs/ramp-winch.yaml"]);
+    let text = reeve(&["check", "rigs/ramp-winch.yaml"]).stdout;
     assert!(
         text.contains("wrap °") && text.contains("fleet in °") && text.contains("fleet out °"),
         "{text}"
@@ -542,11 +646,7 @@ fn a_default_drum_side_that_leads_the_rope_across_the_drum_is_warned() {
     // it on the lead sheave's side.
     let text = std::fs::read_to_string("rigs/ramp-winch.yaml").unwrap();
     let started = text.replace("path: [cart, lead, winch]", "path: [winch, lead, cart]");
-    let Ran {
-        stdout: out,
-        stderr: err,
-        ..
-    } = reeve_on(&started, &["check"]);
+    let (_, out, err) = reeve_on(&started, &["check"]).parts();
     assert!(
         out.contains("[drum-side]") && out.contains("`winch`") && out.contains("side: right"),
         "{out}{err}"
@@ -557,11 +657,11 @@ fn a_default_drum_side_that_leads_the_rope_across_the_drum_is_warned() {
             "path: [cart, lead, winch]",
             &format!("path: [{{part: winch, side: {side}}}, lead, cart]"),
         );
-        let Ran { stdout: out, .. } = reeve_on(&stated, &["check"]);
+        let out = reeve_on(&stated, &["check"]).stdout;
         assert!(!out.contains("[drum-side]"), "{side}: {out}");
     }
     // The rig as drawn, drum at the end with the default side, runs open: no warning.
-    let Ran { stdout: out, .. } = reeve(&["check", "rigs/ramp-winch.yaml"]);
+    let out = reeve(&["check", "rigs/ramp-winch.yaml"]).stdout;
     assert!(!out.contains("[drum-side]"), "{out}");
     // A weight hanging under the drum's far edge (tests/rigs/review/drum-end-right.yaml
     // without its `side: right`): the default side leads the rope across the drum's
@@ -569,9 +669,9 @@ fn a_default_drum_side_that_leads_the_rope_across_the_drum_is_warned() {
     let hanging = std::fs::read_to_string("tests/rigs/review/drum-end-right.yaml")
         .unwrap()
         .replace("{part: winch, side: right}", "winch");
-    let Ran { stdout: out, .. } = reeve_on(&hanging, &["check"]);
+    let out = reeve_on(&hanging, &["check"]).stdout;
     assert!(out.contains("[drum-side]"), "{out}");
-    let Ran { stdout: out, .. } = reeve(&["check", "tests/rigs/review/drum-end-left.yaml"]);
+    let out = reeve(&["check", "tests/rigs/review/drum-end-left.yaml"]).stdout;
     assert!(!out.contains("[drum-side]"), "{out}");
 }
 
@@ -645,6 +745,47 @@ fn the_friction_at_the_drive_is_shown_beside_the_efficiency() {
         1e-9,
     );
     assert!(ff > 0.0, "{v}");
+}
+
+#[test]
+fn self_locking_words_point_the_right_way_for_a_load_unknown() {
+    // Guards the self-locking sentence for a load unknown: it runs back above the back
+    // value, not below.
+    // For a load unknown `back` is the least load that drives the rig back (DESIGN.md
+    // §3): the rig runs back above it (22.37 kg here, capstan equation as in
+    // load_unknown_over_a_capstan_bar), not below.
+    let text = check_text(&[&test_rig("review/load-unknown-capstan.yaml")]);
+    assert!(!text.contains("below the back value"), "{text}");
+    assert!(
+        text.contains("a load above the back value runs it back"),
+        "{text}"
+    );
+    // For a drive unknown it runs back when the effort falls below `back`.
+    let text = check_text(&[&test_rig("review/drum-middle.yaml")]);
+    assert!(text.contains("below the back value"), "{text}");
+}
+
+#[test]
+fn loss_of_input_is_positive_when_the_load_drives_forward() {
+    // Guards the loss share of a drive that absorbs power: measured against what the load
+    // puts in, so positive.
+    // drum-end-left runs forward by lowering the weight: the input is the weight's
+    // 10 g × 0.053 = 5.1975 W per rad/s, of which the 0.5 N·m drag takes 0.5 W:
+    // 9.62 % (hand calculation). The drive's own power (−4.6975 W) is an output here.
+    let json = reeve(&["check", "--json", &test_rig("review/drum-end-left.yaml")]).json();
+    let winch = json["parts"]
+        .as_array()
+        .unwrap()
+        .iter()
+        .find(|p| p["name"] == "winch")
+        .unwrap();
+    let share = winch["loss_of_input"].as_f64().unwrap();
+    assert_rel(
+        "loss of input",
+        share,
+        0.5 / (10.0 * STANDARD_GRAVITY * 0.053),
+        1e-9,
+    );
 }
 
 /// The outcome line of `check`: the line that gives the margin.

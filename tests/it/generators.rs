@@ -9,7 +9,7 @@ use serde_json::Value;
 
 use crate::support::assert_rel;
 use crate::support::generators as common;
-use crate::support::run::{reeve_on, Ran};
+use crate::support::run::reeve_on;
 use common::{
     cascade, chain, line_sets, max_line_sets, ranged_tackle, serpentine, tackle, tackles,
     CASCADE_LOAD_KG, CHAIN_LOAD_KG, G, LINE_SET_ARBOR_KG, LINE_SET_BATTEN_KG, MAX_RIG_BYTES,
@@ -69,9 +69,7 @@ fn the_largest_line_set_file_is_the_largest_the_loader_reads() {
     assert!(n > 1000, "{n} line sets");
     assert!(line_sets(n).len() <= MAX_RIG_BYTES);
     // One set more is refused for its size: the mirrored cap is the loader's.
-    let Ran {
-        code, stderr: err, ..
-    } = reeve_on(&line_sets(n + 1), &["check"]);
+    let (code, _, err) = reeve_on(&line_sets(n + 1), &["check"]).parts();
     assert_eq!(code, 2, "{err}");
     assert!(err.contains(&MAX_RIG_BYTES.to_string()), "{err}");
 }
@@ -233,12 +231,7 @@ fn independent_tackles_match_the_plain_bearing_closed_form_and_rank() {
         );
     }
     // `rank` lists every sheave of every tackle.
-    let Ran {
-        code,
-        stdout: out,
-        stderr: err,
-        ..
-    } = reeve_on(&text, &["rank"]);
+    let (code, out, err) = reeve_on(&text, &["rank"]).parts();
     assert_eq!(code, 0, "{err}");
     for i in 0..3 {
         assert!(out.contains(&format!("t{i}.upper")), "{out}");

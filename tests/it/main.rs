@@ -13,7 +13,5 @@ mod numerics;
 mod outputs;
 mod properties;
 mod published;
-mod review_cli;
-mod review_physics;
 mod rigs;
 mod studies;

@@ -16,7 +16,9 @@ use std::time::{Duration, Instant};
 use serde::Deserialize;
 
 use crate::support::golden::golden;
-use crate::support::{assert_abs, example_rig, reeve, stdout_of, Scratch, ROOT};
+use crate::support::{
+    assert_abs, example_rig, reeve, reeve_in, stdout_of, Scratch, ONE_SHEAVE, ROOT,
+};
 
 const GOLDEN_RIGS: [&str; 2] = ["workshop-hoist", "sash-window"];
 
@@ -528,6 +530,34 @@ fn refuses_to_write_over_the_input_rig() {
 }
 
 #[test]
+fn sweep_plot_refuses_to_write_over_the_input_rig() {
+    // Guards the input rig against `sweep --plot`: a plot path that names the rig (here
+    // `./rig.yaml`) is refused, exit 2, and the rig is unchanged.
+    let dir = Scratch::new("plot-input");
+    dir.write("rig.yaml", ONE_SHEAVE);
+    let out = reeve_in(
+        &dir,
+        &[
+            "sweep",
+            "rig.yaml",
+            "--vary",
+            "parts.s.bearing.mu=0.05..0.2",
+            "--steps",
+            "3",
+            "--plot",
+            "./rig.yaml",
+        ],
+    );
+    assert_eq!(out.code, 2, "{}", out.stderr);
+    assert!(out.stderr.contains("refusing to write over the input rig"));
+    assert_eq!(
+        std::fs::read_to_string(dir.join("rig.yaml")).unwrap(),
+        ONE_SHEAVE,
+        "the input rig was changed"
+    );
+}
+
+#[test]
 fn a_failed_write_leaves_no_partial_file() {
     use reeve::cli::output::write_atomically;
     let dir = Scratch::new("atomic");
@@ -941,6 +971,37 @@ fn output_onto_a_symlink_writes_through_it() {
         .unwrap()
         .contains("<svg"));
     assert_eq!(names_in(&sub), vec!["new.svg".to_string()]);
+}
+
+#[cfg(unix)]
+#[test]
+fn output_to_a_fifo_writes_into_it_and_keeps_it() {
+    // Guards special files: `-o` onto a FIFO writes into it and leaves it a FIFO (writing a
+    // temporary file and renaming it over the target would replace it with a regular file).
+    use std::io::Read;
+    use std::os::unix::fs::FileTypeExt;
+    let dir = Scratch::new("fifo");
+    dir.write("rig.yaml", ONE_SHEAVE);
+    let fifo = dir.join("out.svg");
+    let made = Command::new("mkfifo").arg(&fifo).status();
+    if !matches!(made, Ok(s) if s.success()) {
+        eprintln!("mkfifo is not available; skipped");
+        return;
+    }
+    // Opened for reading and writing, a FIFO does not block, and it keeps a reader
+    // present while reeve writes (the drawing is far below the pipe's buffer).
+    let mut end = std::fs::OpenOptions::new()
+        .read(true)
+        .write(true)
+        .open(&fifo)
+        .unwrap();
+    let out = reeve_in(&dir, &["draw", "rig.yaml", "-o", "out.svg"]);
+    assert_eq!(out.code, 0, "{}", out.stderr);
+    let kind = std::fs::symlink_metadata(&fifo).unwrap().file_type();
+    assert!(kind.is_fifo(), "the FIFO was replaced by a regular file");
+    let mut buf = [0u8; 512];
+    let n = end.read(&mut buf).unwrap();
+    assert!(String::from_utf8_lossy(&buf[..n]).contains("<svg"));
 }
 
 /// Every `.rs` file under `dir`, recursively.

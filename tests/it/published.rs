@@ -1,25 +1,18 @@
 //! Analytic checks of the whole solver (rig text → `load_str` → `solve`) against
 //! published worked examples and handbook formulas. Every check names its source beside
 //! it; values known only from memory say so, hand calculations show their arithmetic.
+//! The small rigs of `tests/rigs/review/` (signs, stalls, drums, load unknowns,
+//! sub-rigs) are checked here against hand calculations too.
 
-use crate::support::{assert_abs, assert_rel, audit_ok};
 use std::f64::consts::PI;
 
 use reeve::math::STANDARD_GRAVITY;
-use reeve::rig::load_str;
-use reeve::rig::model::Rig;
-use reeve::solve::{solve, Solution, SolveOptions};
+use reeve::solve::{solve, SolveOptions, Status, SubRigSolution};
+
+use crate::support::{assert_abs, assert_rel, audit_ok, edited_rig, solve_test_rig, solve_text};
 
 /// One pound-force in newtons (exact by definition: 0.453 592 37 kg × 9.806 65 m/s²).
 const LBF: f64 = 4.448_221_615_260_5;
-
-fn solve_text(text: &str) -> (Rig, Solution) {
-    let rig =
-        load_str(text, "test.yaml").unwrap_or_else(|e| panic!("rig does not load: {e}\n{text}"));
-    let solution = solve(&rig, &SolveOptions::default())
-        .unwrap_or_else(|e| panic!("rig does not solve: {e}\n{text}"));
-    (rig, solution)
-}
 
 // ---------------------------------------------------------------------------------
 // Axle friction: the friction circle through the whole solver.
@@ -255,6 +248,125 @@ lines:
         1.0 / k,
         1e-12,
     );
+    audit_ok(&s);
+}
+
+/// Friction-circle radius `r sin(atan μ)` (Beer & Johnston, *Statics*, §8.7).
+fn friction_circle(r: f64, mu: f64) -> f64 {
+    r * mu / (1.0 + mu * mu).sqrt()
+}
+
+/// Asserts that forward and back settle and that no sheave stalls.
+fn no_stall(sub: &SubRigSolution) {
+    for case in [&sub.forward, &sub.back] {
+        assert!(
+            matches!(case.status, Status::Converged { iterations } if iterations < 100),
+            "{}: {:?}",
+            case.case.name(),
+            case.status
+        );
+        assert!(
+            case.stalled.is_empty(),
+            "{}: stalled {:?}",
+            case.case.name(),
+            case.stalled
+        );
+    }
+}
+
+#[test]
+fn moving_sheave_with_own_weight_forward_and_back() {
+    // Guards the weight of a sheave on a moving block: it hangs on the falls, not on the
+    // pin, forward and back.
+    // Hand calculation, falls taken as vertical (the ends are 1e6 mm away, so the
+    // tangent tilt is below 1e-9): the block (40 kg load + 2 kg sheave) hangs on
+    // T1 + P = 42 g = 411.879 N; the pin carries the rope pulls up less the sheave's
+    // own 2 g down, i.e. 40 g = 392.266 N; r_f = 5 mm × 0.2/√1.04 = 0.980 58 mm,
+    // R = 33 mm, so |P − T1| = r_f × 40 g / R = 11.656 N.
+    // Forward P = (411.879 + 11.656)/2 = 211.77 N, back (411.879 − 11.656)/2 = 200.11 N.
+    let rig = edited_rig("review/moving-sheave-weight.yaml", |text| {
+        text.replace("[-33, 0, 2000]", "[-33, 0, 1e6]")
+            .replace("[33, 0, 2000]", "[33, 0, 1e6]")
+    });
+    let s = solve(&rig, &SolveOptions::default()).unwrap();
+    let main = s.main();
+    let rf = friction_circle(0.005, 0.2);
+    let diff = rf * 40.0 * STANDARD_GRAVITY / 0.033;
+    assert_rel("ideal", main.ideal.value, 21.0 * STANDARD_GRAVITY, 1e-8);
+    assert_rel(
+        "forward",
+        main.forward.value,
+        (42.0 * STANDARD_GRAVITY + diff) / 2.0,
+        1e-8,
+    );
+    assert_rel(
+        "back",
+        main.back.value,
+        (42.0 * STANDARD_GRAVITY - diff) / 2.0,
+        1e-8,
+    );
+    no_stall(main);
+    audit_ok(&s);
+}
+
+#[test]
+fn sheave_weight_that_unloads_the_pin_does_not_stall_it() {
+    // Guards the stall test of a heavy sheave: the pin load with the weight in it, not the
+    // weightless ratio, decides whether it turns.
+    // Hand calculation (rig header): r_f = 99 mm × 5/√26 = 97.077 mm, R = 103 mm (a pin
+    // just inside the tread: a larger one is refused). The ropes carry the 10 kg sheave,
+    // the pin only the 0.5 kg load:
+    // (P − T1) R = r_f × 0.5 g, P + T1 = 10.5 g → P = 53.796 N, T1 = 49.174 N,
+    // ratio 1.0940, below the groove's capstan ratio e^{0.2 π} = 1.874 (Euler–Eytelwein,
+    // Hibbeler §8.5), so the sheave turns. The weightless ratio (1 + ρ)/(1 − ρ) = 33.8
+    // alone would say it stalls.
+    let (_, s) = solve_test_rig("review/sheave-weight-unloads-pin.yaml");
+    let main = s.main();
+    let rf = friction_circle(0.099, 5.0);
+    let diff = rf * 0.5 * STANDARD_GRAVITY / 0.103;
+    // The falls run to points 1 km up, so they are vertical to about (R/L)² = 1e-8.
+    assert_rel(
+        "forward",
+        main.forward.value,
+        (10.5 * STANDARD_GRAVITY + diff) / 2.0,
+        1e-7,
+    );
+    assert_rel(
+        "back",
+        main.back.value,
+        (10.5 * STANDARD_GRAVITY - diff) / 2.0,
+        1e-7,
+    );
+    no_stall(main);
+    audit_ok(&s);
+}
+
+#[test]
+fn block_load_unknown_under_a_heavy_moving_sheave() {
+    // Guards a mass asked for on a block under a heavy moving sheave: the sheave weighs on
+    // the falls, not on the pin.
+    // Hand calculation (rig header): r_f/R = 0.980 58 mm/33 mm = 0.029 715; falls carry
+    // (m + 2) g, the pin m g; with P = 250 N:
+    // forward m = (500 − 2 g)/(g (1 + r_f/R)) = 47.572 kg (greatest load lifted),
+    // back m = (500 − 2 g)/(g (1 − r_f/R)) = 50.486 kg (least load that runs back).
+    let (_, s) = solve_test_rig("review/block-unknown.yaml");
+    let m = s.main();
+    let q = friction_circle(0.005, 0.2) / 0.033;
+    assert_rel("ideal", m.ideal.value, 500.0 / STANDARD_GRAVITY - 2.0, 1e-8);
+    assert_rel(
+        "forward",
+        m.forward.value,
+        (500.0 - 2.0 * STANDARD_GRAVITY) / (STANDARD_GRAVITY * (1.0 + q)),
+        1e-8,
+    );
+    assert_rel(
+        "back",
+        m.back.value,
+        (500.0 - 2.0 * STANDARD_GRAVITY) / (STANDARD_GRAVITY * (1.0 - q)),
+        1e-8,
+    );
+    assert!(m.forward_efficiency().unwrap() < 1.0 && m.back_efficiency().unwrap() < 1.0);
+    no_stall(m);
     audit_ok(&s);
 }
 
@@ -656,6 +768,37 @@ solve_for: cylinder
     audit_ok(&s);
 }
 
+#[test]
+fn load_unknown_over_a_capstan_bar() {
+    // Guards forward and back for a load unknown (forward the greatest load moved, back the
+    // least that runs back) and their efficiencies.
+    // Capstan equation (Euler–Eytelwein; Hibbeler, Statics, §8.5): 100 N pull over a
+    // bar with 180° wrap, μ = 0.25 (ends 1e6 mm away, so the wrap is π to 1e-9).
+    // Forward = greatest mass lifted = 100/(g e^{0.25π}) = 4.6493 kg; back = least mass
+    // that runs back = 100 e^{0.25π}/g = 22.365 kg; ideal 100/g = 10.197 kg.
+    let (_, s) = solve_test_rig("review/load-unknown-capstan.yaml");
+    let m = s.main();
+    let e = (0.25 * PI).exp();
+    assert_rel("ideal", m.ideal.value, 100.0 / STANDARD_GRAVITY, 1e-9);
+    assert_rel(
+        "forward",
+        m.forward.value,
+        100.0 / STANDARD_GRAVITY / e,
+        1e-6,
+    );
+    assert_rel("back", m.back.value, 100.0 / STANDARD_GRAVITY * e, 1e-6);
+    // Efficiencies (DESIGN.md §3 for a load unknown): forward/ideal and ideal/back.
+    assert_rel(
+        "forward eff",
+        m.forward_efficiency().unwrap(),
+        1.0 / e,
+        1e-6,
+    );
+    assert_rel("back eff", m.back_efficiency().unwrap(), 1.0 / e, 1e-6);
+    assert!(!m.self_locking());
+    audit_ok(&s);
+}
+
 // ---------------------------------------------------------------------------------
 // Drums: journal and thrust friction in the drum's torque balance.
 // ---------------------------------------------------------------------------------
@@ -969,5 +1112,192 @@ lines:
     assert!(reeve::checks::run(&rig, &s)
         .iter()
         .all(|w| w.code != "drum-slip"));
+    audit_ok(&s);
+}
+
+#[test]
+fn drum_in_the_middle_of_a_line_with_turns() {
+    // Guards the moment balance of a drum that a line passes over with turns: load torque
+    // and drag, forward and back.
+    // Hand calculation: moment balance of the drum (DESIGN.md §1),
+    // (T_hand − T_load) R = M_load ± M_drag, R = 53 mm:
+    // ideal 5 g + 3/0.053 = 105.637 N, forward 5 g + 4/0.053 = 124.506 N,
+    // back 5 g + 2/0.053 = 86.769 N.
+    let (_, s) = solve_test_rig("review/drum-middle.yaml");
+    let main = s.main();
+    assert_rel(
+        "ideal",
+        main.ideal.value,
+        5.0 * STANDARD_GRAVITY + 3.0 / 0.053,
+        1e-9,
+    );
+    assert_rel(
+        "forward",
+        main.forward.value,
+        5.0 * STANDARD_GRAVITY + 4.0 / 0.053,
+        1e-9,
+    );
+    assert_rel(
+        "back",
+        main.back.value,
+        5.0 * STANDARD_GRAVITY + 2.0 / 0.053,
+        1e-9,
+    );
+    assert!(main.forward.slipping.is_empty() && main.back.slipping.is_empty());
+    audit_ok(&s);
+}
+
+#[test]
+fn drive_drum_at_a_line_end_winds_in_or_pays_out_by_side() {
+    // Guards the winding sense of a drive drum at a line end: `side` decides whether
+    // turning forward winds the rope in or pays it out.
+    // Hand calculation: 10 kg on R = 53 mm needs 10 g × 0.053 = 5.1975 N·m; drag 0.5 N·m.
+    // `side: right` at the start of the path winds the rope in when the drum turns
+    // forward (lifts): forward 5.6975, back 4.6975 N·m.
+    let (_, s) = solve_test_rig("review/drum-end-right.yaml");
+    let m = s.main();
+    let lift = 10.0 * STANDARD_GRAVITY * 0.053;
+    assert_rel("right ideal", m.ideal.value, lift, 1e-9);
+    assert_rel("right forward", m.forward.value, lift + 0.5, 1e-9);
+    assert_rel("right back", m.back.value, lift - 0.5, 1e-9);
+    audit_ok(&s);
+    // `side: left` at the start pays out when turning forward (lowers): the drive
+    // absorbs power, every value is negative.
+    let (_, s) = solve_test_rig("review/drum-end-left.yaml");
+    let m = s.main();
+    assert_rel("left ideal", m.ideal.value, -lift, 1e-9);
+    assert_rel("left forward", m.forward.value, -lift + 0.5, 1e-9);
+    assert_rel("left back", m.back.value, -lift - 0.5, 1e-9);
+    audit_ok(&s);
+}
+
+#[test]
+fn efficiency_never_exceeds_one_when_the_load_drives_forward() {
+    // Guards the efficiency of a rig that the load drives forward: power out over power in,
+    // never above one.
+    // Efficiency is power out over power in (any machine-design text; DESIGN.md §3).
+    // drum-end-left lowers the weight when it runs forward: the weight puts in
+    // 5.1975 W per rad/s and the drum takes 4.6975 of it (0.5 to drag): forward
+    // efficiency 4.6975/5.1975 = 90.38 %; running back the drum lifts the weight,
+    // putting in 5.6975 for 5.1975: 91.22 %.
+    let (_, s) = solve_test_rig("review/drum-end-left.yaml");
+    let m = s.main();
+    let lift = 10.0 * STANDARD_GRAVITY * 0.053;
+    let fwd = m.forward_efficiency().unwrap();
+    let back = m.back_efficiency().unwrap();
+    assert_rel("forward efficiency", fwd, (lift - 0.5) / lift, 1e-9);
+    assert_rel("back efficiency", back, lift / (lift + 0.5), 1e-9);
+}
+
+#[test]
+fn capstan_head_drive_with_a_tailing_hand() {
+    // Guards a capstan head as the drive: its torque, and the no-slip check with turns and
+    // without.
+    // Hand calculation: torque (98.0665 − 10) N × 0.053 m = 4.6675 N·m; the passage
+    // holds 9.807 ≤ e^{0.2 × 7π} = 81.3 with 3 turns (capstan equation, Hibbeler §8.5)
+    // and slips with none (limit e^{0.2π} = 1.874).
+    let (_, s) = solve_test_rig("review/capstan-winch.yaml");
+    let m = s.main();
+    assert_rel(
+        "ideal",
+        m.ideal.value,
+        (10.0 * STANDARD_GRAVITY - 10.0) * 0.053,
+        1e-8,
+    );
+    assert!(m.forward.slipping.is_empty());
+    let rig = edited_rig("review/capstan-winch.yaml", |text| {
+        text.replace("turns: 3", "turns: 0")
+    });
+    let s = solve(&rig, &SolveOptions::default()).unwrap();
+    let slip = s.main().forward.slipping.first().copied().unwrap();
+    assert_rel("needed", slip.ratio, STANDARD_GRAVITY, 1e-8);
+    assert_rel("limit", slip.limit, (0.2 * PI).exp(), 1e-8);
+}
+
+// ---------------------------------------------------------------------------------
+// Virtual work: slopes, oblique pulls, sub-rigs, no friction.
+// ---------------------------------------------------------------------------------
+
+#[test]
+fn cart_on_a_slope_pulled_horizontally() {
+    // Guards virtual work for a block whose travel is at an angle to its rope and to
+    // gravity.
+    // Hand calculation (virtual work): P cos 30° = m g sin 30°, P = 100 g tan 30° =
+    // 566.19 N; the cart moves 1/cos 30° = 1.1547 m per metre of rope.
+    let (_, s) = solve_test_rig("review/slope-cart.yaml");
+    let m = s.main();
+    assert_rel(
+        "ideal",
+        m.ideal.value,
+        100.0 * STANDARD_GRAVITY * (PI / 6.0).tan(),
+        1e-9,
+    );
+    assert_rel(
+        "velocity ratio",
+        m.velocity_ratio.unwrap(),
+        (PI / 6.0).cos(),
+        1e-9,
+    );
+    audit_ok(&s);
+}
+
+#[test]
+fn haul_pulled_off_its_rope_reports_the_component_along_pull() {
+    // Guards present behaviour (a design question left open): a haul pulled off its rope
+    // reports the component along `pull`.
+    // Present behaviour, left to the lead as a design question: a haul whose `pull` is
+    // 60° off its rope moves along `pull`, so the effort is the rope tension's component
+    // along it (virtual work, hand calculation): T = 10 g = 98.07 N, effort
+    // T cos 60° = 49.03 N, and the "mechanical advantage" is 2 with no tackle at all.
+    let (_, s) = solve_test_rig("review/haul-oblique.yaml");
+    let m = s.main();
+    assert_rel("effort", m.ideal.value, 10.0 * STANDARD_GRAVITY * 0.5, 1e-9);
+    assert_rel(
+        "tension",
+        m.ideal.tension[0][0],
+        10.0 * STANDARD_GRAVITY,
+        1e-9,
+    );
+    assert_rel("MA", m.mechanical_advantage().unwrap(), 2.0, 1e-9);
+}
+
+#[test]
+fn two_independent_sub_rigs_both_solved() {
+    // Guards independent sub-rigs: each is solved with its own drive.
+    // Capstan equation (Hibbeler §8.5), 180° wrap: line b (the drive) forward
+    // 20 g e^{0.1π} = 268.53 N; line a forward 10 g e^{0.25π} = 215.09 N.
+    let (rig, s) = solve_test_rig("review/two-subrigs.yaml");
+    assert_eq!(s.subrigs.len(), 2);
+    let b = &s.subrigs[0];
+    assert_eq!(rig.parts[b.drive].name, "hand.b");
+    assert_rel(
+        "b forward",
+        b.forward.value,
+        20.0 * STANDARD_GRAVITY * (0.1 * PI).exp(),
+        1e-6,
+    );
+    let a = &s.subrigs[1];
+    assert_eq!(rig.parts[a.drive].name, "hand.a");
+    assert_rel(
+        "a forward",
+        a.forward.value,
+        10.0 * STANDARD_GRAVITY * (0.25 * PI).exp(),
+        1e-6,
+    );
+    audit_ok(&s);
+}
+
+#[test]
+fn frictionless_equals_ideal_exactly_in_odd_units() {
+    // Guards zero friction in units other than SI: forward and back are the ideal to the
+    // last bit.
+    // μ = 0 everywhere: forward and back are the ideal to the last bit (DESIGN.md §3:
+    // friction reverses between forward and back, and there is none). Hand calculation
+    // (virtual work): 2:1 on (40 + 2) kg, falls vertical to 1e-9: 21 g = 205.94 N.
+    let (_, s) = solve_test_rig("review/frictionless.yaml");
+    let m = s.main();
+    assert_eq!(m.forward.value, m.ideal.value);
+    assert_eq!(m.back.value, m.ideal.value);
+    assert_rel("ideal", m.ideal.value, 21.0 * STANDARD_GRAVITY, 1e-6);
     audit_ok(&s);
 }

@@ -6,7 +6,9 @@ use serde_json::Value;
 
 use crate::support::generators::tackle;
 use crate::support::golden::golden;
-use crate::support::{assert_rel, json_of, reeve, stdout_of, test_rig, Scratch};
+use crate::support::{
+    assert_abs, assert_rel, json_of, reeve, reeve_in, stdout_of, test_rig, Scratch, ONE_SHEAVE,
+};
 
 fn num(v: &Value) -> f64 {
     v.as_f64().unwrap_or_else(|| panic!("not a number: {v}"))
@@ -757,6 +759,54 @@ fn rank_to_takes_units_in_the_bearing() {
     assert_rel("pin in inches vs in mm", a, b, 1e-7);
 }
 
+/// Guards `rank --to` units: a bare number in the bearing text is in the rig's length
+/// unit (a bare `8` on a metre rig is an 8 m pin, refused as not fitting, with a hint),
+/// and a unit may be written (`8 mm`) with the same result as the bare number on a
+/// millimetre rig.
+#[test]
+fn rank_to_reads_bare_numbers_in_the_rigs_units_and_accepts_units() {
+    let dir = Scratch::new("rank-to-units");
+    dir.write("rig.yaml", ONE_SHEAVE);
+    let metres = ONE_SHEAVE
+        .replace("length: mm", "length: m")
+        .replace("diameter: 6,", "diameter: 0.006,")
+        .replace("[0, 0, 2000]", "[0, 0, 2]")
+        .replace("diameter: 50,", "diameter: 0.05,")
+        .replace("pin_diameter: 8,", "pin_diameter: 0.008,")
+        .replace("[-25, 0, 1000]", "[-0.025, 0, 1]")
+        .replace("[25, 0, 1000]", "[0.025, 0, 1]");
+    std::fs::write(dir.join("metres.yaml"), metres).unwrap();
+    let rank = |file: &str, to: &str| {
+        let out = reeve_in(&dir, &["rank", file, "--to", to, "--format", "json"]);
+        (out.code, out.stdout, out.stderr)
+    };
+    let (code, bare_mm, err) = rank("rig.yaml", "{kind: plain, pin_diameter: 8, mu: 0.08}");
+    assert_eq!(code, 0, "{err}");
+    let (code, with_unit, err) = rank("rig.yaml", "{kind: plain, pin_diameter: 8 mm, mu: 0.08}");
+    assert_eq!(code, 0, "{err}");
+    let alternative = |json: &str| {
+        let v: serde_json::Value = serde_json::from_str(json).unwrap();
+        v["parts"][0]["alternative"].as_f64().unwrap()
+    };
+    assert_eq!(alternative(&bare_mm), alternative(&with_unit));
+    let (code, _, err) = rank("metres.yaml", "{kind: plain, pin_diameter: 8, mu: 0.08}");
+    assert_eq!(code, 2, "{err}");
+    assert!(
+        err.contains("--to") && err.contains("8 m") && err.contains("bare numbers"),
+        "{err}"
+    );
+    let (code, with_unit_m, err) =
+        rank("metres.yaml", "{kind: plain, pin_diameter: 8 mm, mu: 0.08}");
+    assert_eq!(code, 0, "{err}");
+    let ratio = alternative(&with_unit_m) / alternative(&with_unit);
+    assert_abs(
+        "8 mm pin on a metre rig over the same on a mm rig",
+        ratio,
+        1.0,
+        1e-9,
+    );
+}
+
 #[test]
 fn rank_sensitivities_measure_effort_saved_like_the_ranking_and_name_the_written_key() {
     // Guards: the sensitivity list measures what the ranking measures (effort saved, in
@@ -1104,4 +1154,125 @@ fn a_sweep_between_equal_ends_is_refused() {
         "--steps",
         "1",
     ]);
+}
+
+// ------------------------------------------ bounded work and located errors
+
+#[test]
+fn spread_with_an_absurd_sample_count_is_refused() {
+    // Guards against unbounded work: a sample count near u64::MAX is refused, exit 2,
+    // naming `--samples`, instead of aborting.
+    let dir = Scratch::new("samples");
+    dir.write("rig.yaml", ONE_SHEAVE);
+    let out = reeve_in(
+        &dir,
+        &["spread", "rig.yaml", "--samples", "18446744073709551615"],
+    );
+    assert_eq!(out.code, 2, "{}", out.stderr);
+    assert!(out.stderr.contains("--samples"), "{}", out.stderr);
+}
+
+#[test]
+fn sweep_with_an_absurd_step_count_is_refused() {
+    // Guards against unbounded work: 1e11 steps are refused, exit 2, naming `--steps`, for
+    // a sweep of a key and for a stroke.
+    let dir = Scratch::new("steps-huge");
+    dir.write("rig.yaml", ONE_SHEAVE);
+    for mode in [
+        ["--vary", "parts.s.bearing.mu=0.05..0.2"],
+        ["--stroke", "100"],
+    ] {
+        let out = reeve_in(
+            &dir,
+            &[
+                "sweep",
+                "rig.yaml",
+                mode[0],
+                mode[1],
+                "--steps",
+                "100000000000",
+            ],
+        );
+        assert_eq!(out.code, 2, "{mode:?}: {}", out.stderr);
+        assert!(out.stderr.contains("--steps"), "{}", out.stderr);
+    }
+}
+
+#[test]
+fn sweep_with_zero_steps_is_refused() {
+    // Guards against an empty sweep: `--steps 0` is refused, exit 2, for a sweep of a key
+    // and for a stroke.
+    let dir = Scratch::new("steps-zero");
+    dir.write("rig.yaml", ONE_SHEAVE);
+    for mode in [
+        ["--vary", "parts.s.bearing.mu=0.05..0.2"],
+        ["--stroke", "100"],
+    ] {
+        let out = reeve_in(
+            &dir,
+            &["sweep", "rig.yaml", mode[0], mode[1], "--steps", "0"],
+        );
+        assert_eq!(out.code, 2, "{mode:?}: {}", out.stderr);
+        assert!(out.stderr.contains("--steps"), "{}", out.stderr);
+    }
+}
+
+#[test]
+fn sweep_of_a_key_that_never_solves_is_bad_input() {
+    // Guards the exit code of a sweep whose steps can never solve (a part that does not
+    // exist, a value in the wrong unit): bad input, exit 2, naming the file, no table; a
+    // range that solves in part still sweeps.
+    let dir = Scratch::new("vary-bad");
+    dir.write("rig.yaml", ONE_SHEAVE);
+    // A part that does not exist, and a value with the wrong unit: no step can solve.
+    for vary in ["parts.nope.mu=1..2", "parts.s.diameter=10kg..20kg"] {
+        let out = reeve_in(&dir, &["sweep", "rig.yaml", "--vary", vary, "--steps", "3"]);
+        assert_eq!(out.code, 2, "{vary}: {}", out.stderr);
+        assert!(out.stderr.contains("rig.yaml"), "{}", out.stderr);
+        assert!(out.stdout.is_empty(), "{vary}: a table was printed");
+    }
+    // A range that is valid only in part still sweeps, showing where it fails.
+    let out = reeve_in(
+        &dir,
+        &[
+            "sweep",
+            "rig.yaml",
+            "--vary",
+            "parts.s.bearing.mu=-0.1..0.2",
+            "--steps",
+            "3",
+        ],
+    );
+    assert_eq!(out.code, 0, "{}", out.stderr);
+}
+
+#[test]
+fn studies_locate_solve_errors_like_check() {
+    // Guards located solve errors in the studies: rank, spread, compare and sweep name the
+    // file, line and column of the part, as check does.
+    let dir = Scratch::new("study-locate");
+    // A line tied at both ends: it loads, but the solver finds that nothing can move.
+    let rig = "format: 1\nropes:\n  r: {diameter: 6, mu: 0.2}\nparts:\n  a: {kind: anchor, at: [0, 0, 2000]}\n  h: {kind: haul, at: [0, 0, 0]}\nlines:\n  l: {rope: r, path: [a, h]}\n";
+    std::fs::write(dir.join("rig.yaml"), rig).unwrap();
+    let check = reeve_in(&dir, &["check", "rig.yaml"]);
+    assert_eq!(check.code, 2);
+    assert!(
+        check.stderr.contains("rig.yaml:6:3: parts.h:"),
+        "{}",
+        check.stderr
+    );
+    for args in [
+        &["rank", "rig.yaml"][..],
+        &["spread", "rig.yaml", "--samples", "3"],
+        &["compare", "rig.yaml"],
+        &["sweep", "rig.yaml", "--stroke", "10"],
+    ] {
+        let out = reeve_in(&dir, args);
+        assert_eq!(out.code, 2, "{args:?}");
+        assert!(
+            out.stderr.contains("rig.yaml:6:3: parts.h:"),
+            "{args:?}: {}",
+            out.stderr
+        );
+    }
 }

@@ -31,6 +31,11 @@ impl Ran {
         self
     }
 
+    /// (exit code, stdout, stderr), for `let (code, out, err) = reeve(…).parts();`.
+    pub fn parts(self) -> (i32, String, String) {
+        (self.code, self.stdout, self.stderr)
+    }
+
     /// Standard output parsed as JSON, whatever the exit code.
     #[track_caller]
     pub fn json(&self) -> serde_json::Value {
@@ -133,4 +138,10 @@ pub fn json_of(args: &[&str]) -> serde_json::Value {
 #[track_caller]
 pub fn reeve_on(text: &str, args: &[&str]) -> Ran {
     Reeve::new(args).rig_text(text).run()
+}
+
+/// `reeve ARGS` run in `dir` (relative paths in the arguments are under it).
+#[track_caller]
+pub fn reeve_in(dir: &std::path::Path, args: &[&str]) -> Ran {
+    Reeve::new(args).in_dir(dir).run()
 }
