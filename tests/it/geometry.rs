@@ -884,7 +884,10 @@ proptest! {
         let base = showcase();
         let before = geometry(&base);
         let after = geometry(&moved(&base, &rotation, &shift));
+        prop_assert_eq!(before.lines.len(), after.lines.len());
         for (l0, l1) in before.lines.iter().zip(&after.lines) {
+            prop_assert_eq!(l0.spans.len(), l1.spans.len());
+            prop_assert_eq!(l0.entries.len(), l1.entries.len());
             for (s0, s1) in l0.spans.iter().zip(&l1.spans) {
                 same("span length", s0.length, s1.length);
             }

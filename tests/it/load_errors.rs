@@ -418,6 +418,7 @@ fn all_problems_are_collected() {
         .iter()
         .filter_map(|p| p.location.map(|l| l.line))
         .collect();
+    assert_eq!(lines.len(), e.problems.len(), "every problem is located");
     assert!(lines.windows(2).all(|w| w[0] <= w[1]), "{lines:?}");
 }
 

@@ -257,6 +257,7 @@ fn svg_is_xml_with_one_element_per_span_and_part_and_renders() {
         let check: serde_json::Value =
             serde_json::from_str(&stdout_of(&["check", &r, "--json"])).unwrap();
         let span_count = check["spans"].as_array().unwrap().len();
+        assert!(span_count > 0, "{name}: no spans to compare");
         let part_names: BTreeSet<String> = check["parts"]
             .as_array()
             .unwrap()
@@ -1167,6 +1168,15 @@ fn the_default_drawing_separates_parts_spans_and_labels() {
                 ))
             })
             .collect();
+        // Every round part (sheave, guide, drum) has its hub, so the loops below compare
+        // every pair of them.
+        let round = reeve(&["check", &example_rig(name), "--json"]).json()["parts"]
+            .as_array()
+            .unwrap()
+            .iter()
+            .filter(|p| matches!(p["kind"].as_str(), Some("sheave" | "guide" | "drum")))
+            .count();
+        assert_eq!(hubs.len(), round, "{name}: hubs found {hubs:?}");
         for (i, (a, pa)) in hubs.iter().enumerate() {
             for (b, pb) in &hubs[i + 1..] {
                 let d = (pa.0 - pb.0).hypot(pa.1 - pb.1);
@@ -1184,6 +1194,7 @@ fn the_default_drawing_separates_parts_spans_and_labels() {
             }
         }
         let spans = with_class(&doc, "span");
+        assert!(spans.len() > 1, "{name}: {} spans drawn", spans.len());
         for (i, a) in spans.iter().enumerate() {
             for (j, b) in spans.iter().enumerate().skip(i + 1) {
                 if !coincide(span_ends(a), span_ends(b), 4.0)
@@ -1211,6 +1222,10 @@ fn the_default_drawing_separates_parts_spans_and_labels() {
                 (text, (x, y - 11.0, x + w, y + 3.0))
             })
             .collect();
+        assert!(
+            !part_labels.is_empty() && !span_labels.is_empty(),
+            "{name}: labels {boxes:?}"
+        );
         for (i, (ta, a)) in boxes.iter().enumerate() {
             for (tb, b) in &boxes[i + 1..] {
                 let overlap = a.0 < b.2 && b.0 < a.2 && a.1 < b.3 && b.1 < a.3;

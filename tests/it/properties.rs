@@ -733,13 +733,21 @@ fn every_review_rig_balances_its_energy() {
     for name in ["load-unknown-capstan.yaml", "two-subrigs.yaml"] {
         let (_, s) = solve_test_rig(&format!("review/{name}"));
         for sub in &s.subrigs {
+            let mut passages = 0;
             for (l, entries) in sub.forward.ratio.iter().enumerate() {
                 for (e, r) in entries.iter().enumerate() {
-                    if let (Some(f), Some(b)) = (r, sub.back.ratio[l][e]) {
-                        assert_rel(&format!("{name} {l} {e}"), *f, b, 1e-12);
+                    // A passage has a ratio in both cases, a line end in neither.
+                    match (r, sub.back.ratio[l][e]) {
+                        (Some(f), Some(b)) => {
+                            assert_rel(&format!("{name} {l} {e}"), *f, b, 1e-12);
+                            passages += 1;
+                        }
+                        (None, None) => {}
+                        other => panic!("{name} line {l} entry {e}: ratios {other:?}"),
                     }
                 }
             }
+            assert!(passages > 0, "{name}: a sub-rig without a passage ratio");
         }
     }
 }

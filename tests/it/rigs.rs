@@ -7,7 +7,7 @@ use std::path::{Path, PathBuf};
 
 use serde::Deserialize;
 
-use crate::support::{reeve, Scratch, ROOT};
+use crate::support::{assert_abs, reeve, Scratch, ROOT};
 
 /// The warning codes (sorted, with repeats) and exit code each example rig is designed
 /// to give, from its header comment. A rig without an entry fails the test.
@@ -67,6 +67,7 @@ struct Span {
 }
 
 #[derive(Debug, Deserialize)]
+#[allow(dead_code)]
 struct ForwardBack {
     forward: Option<f64>,
     back: Option<f64>,
@@ -138,7 +139,102 @@ fn example_rigs() -> Vec<PathBuf> {
     rigs
 }
 
-fn check_rig(path: &Path) {
+/// What the checks of the example rigs exercised, so that the test can require each
+/// check to have been made on some rig rather than skipped on all of them.
+#[derive(Debug, Default)]
+struct Exercised {
+    /// Drums (not the drive) whose margin was checked against journal + thrust.
+    drum_margins: usize,
+    /// Rigs whose pin loads include a part's own weight.
+    own_weights: usize,
+}
+
+/// The pin loads of every part, in every case, sum to the weight of the parts that
+/// report one. Each span pulls its two ends towards each other with its one tension,
+/// so the forces the (massless) lines put on the parts cancel, whatever the friction;
+/// a part's pin load is that force plus its own weight (sheaves and drums with a
+/// `mass`). Returns whether any such weight took part.
+fn pin_loads_balance(rel: &str, path: &Path, value: &serde_json::Value) -> bool {
+    use reeve::rig::model::PartKind;
+    let rig = reeve::rig::load_file(path).unwrap_or_else(|e| panic!("{rel}: {e}"));
+    let own_mass = |name: &str| {
+        let part = rig.parts.iter().find(|p| p.name == name);
+        match part.map(|p| &p.kind) {
+            Some(PartKind::Sheave(s)) => s.mass.unwrap_or(0.0),
+            Some(PartKind::Drum(d)) => d.mass.unwrap_or(0.0),
+            Some(_) => 0.0,
+            None => panic!("{rel}: the JSON names part `{name}`, which the rig lacks"),
+        }
+    };
+    let gravity = rig.gravity.into_inner() * reeve::math::STANDARD_GRAVITY;
+    let parts = value["parts"].as_array().expect("parts");
+    let mut weighed = false;
+    for (case, load, direction) in [
+        (
+            "ideal",
+            &["pin_load_ideal_n"][..],
+            &["pin_load_direction_ideal"][..],
+        ),
+        (
+            "forward",
+            &["pin_load_n", "forward"],
+            &["pin_load_direction", "forward"],
+        ),
+        (
+            "back",
+            &["pin_load_n", "back"],
+            &["pin_load_direction", "back"],
+        ),
+    ] {
+        let at =
+            |p: &serde_json::Value, keys: &[&str]| keys.iter().fold(p.clone(), |v, k| v[k].clone());
+        let (mut sum, mut weight, mut scale, mut count) = ([0.0; 3], [0.0; 3], 0.0, 0);
+        for p in parts {
+            let name = p["name"].as_str().expect("part name");
+            let (Some(f), Some(u)) = (at(p, load).as_f64(), at(p, direction).as_array().cloned())
+            else {
+                // A part no line touches (a block whose lines end on its sheaves).
+                assert!(
+                    at(p, load).is_null() && at(p, direction).is_null(),
+                    "{rel}: {name}: {case} pin load {p}"
+                );
+                continue;
+            };
+            let u: Vec<f64> = u
+                .iter()
+                .map(|x| x.as_f64().expect("direction component"))
+                .collect();
+            assert_abs(
+                &format!("{rel}: {name}: {case} pin load direction, length"),
+                u.iter().map(|x| x * x).sum::<f64>().sqrt(),
+                1.0,
+                1e-9,
+            );
+            let m = own_mass(name);
+            for i in 0..3 {
+                sum[i] += f * u[i];
+                weight[i] += m * gravity[i];
+            }
+            scale += f;
+            count += 1;
+            weighed |= m > 0.0;
+        }
+        assert!(count > 0, "{rel}: no part reports a {case} pin load");
+        for i in 0..3 {
+            assert_abs(
+                &format!(
+                    "{rel}: {case} pin loads summed, component {i}, N (the parts' own weight)"
+                ),
+                sum[i],
+                weight[i],
+                1e-9 * scale,
+            );
+        }
+    }
+    weighed
+}
+
+fn check_rig(path: &Path, exercised: &mut Exercised) {
     let file = path.file_name().and_then(|f| f.to_str()).unwrap_or("?");
     let Some(&(_, codes, exit)) = EXPECTED.iter().find(|(name, _, _)| *name == file) else {
         panic!(
@@ -157,20 +253,47 @@ fn check_rig(path: &Path) {
             "{rel}: energy audit {case} misfit {misfit:?}"
         );
     }
-    // Drum torques: the margin, where given, is "forward rope torque minus (load +
-    // drag): what journal and thrust take" (src/report), which the drum's moment
-    // balance makes equal to journal + thrust.
-    for drum in value["drums"].as_array().into_iter().flatten() {
-        if let Some(margin) = drum["margin_nm"].as_f64() {
-            let journal = drum["journal_nm"]["forward"].as_f64().unwrap_or(0.0);
-            let thrust = drum["thrust_nm"].as_f64().unwrap_or(0.0);
+    // Drum torques, one entry per drum part. The margin of a drum that is not the
+    // drive is "forward rope torque minus (load + drag): what journal and thrust take"
+    // (src/report), which the drum's moment balance makes equal to journal + thrust;
+    // the drive drum has none (its torque is the asked one).
+    let drums = value["drums"]
+        .as_array()
+        .unwrap_or_else(|| panic!("{rel}: no `drums` list"));
+    let drum_parts: Vec<&str> = value["parts"]
+        .as_array()
+        .expect("parts")
+        .iter()
+        .filter(|p| p["kind"] == "drum")
+        .map(|p| p["name"].as_str().unwrap())
+        .collect();
+    let drum_names: Vec<&str> = drums.iter().map(|d| d["name"].as_str().unwrap()).collect();
+    assert_eq!(drum_names, drum_parts, "{rel}: one `drums` entry per drum");
+    for drum in drums {
+        let name = drum["name"].as_str().unwrap();
+        let margin = drum["margin_nm"].as_f64();
+        if value["drive"] == name {
             assert!(
-                (margin - (journal + thrust)).abs() <= 1e-9 * (1.0 + margin.abs()),
-                "{rel}: drum {}: margin {margin} N·m, journal + thrust {} N·m",
-                drum["name"],
-                journal + thrust
+                margin.is_none(),
+                "{rel}: the drive drum `{name}` has a margin"
             );
+            continue;
         }
+        let margin = margin.unwrap_or_else(|| panic!("{rel}: drum `{name}` has no margin"));
+        let journal = drum["journal_nm"]["forward"]
+            .as_f64()
+            .expect("journal torque");
+        let thrust = drum["thrust_nm"].as_f64().expect("thrust torque");
+        assert_abs(
+            &format!("{rel}: drum `{name}`: margin vs journal + thrust, N·m"),
+            margin,
+            journal + thrust,
+            1e-9 * (1.0 + margin.abs()),
+        );
+        exercised.drum_margins += 1;
+    }
+    if pin_loads_balance(&rel, path, &value) {
+        exercised.own_weights += 1;
     }
     let json: CheckJson = serde_json::from_value(value)
         .unwrap_or_else(|e| panic!("{rel}: JSON misses a DESIGN.md §5 key ({e})"));
@@ -205,21 +328,20 @@ fn check_rig(path: &Path) {
             (t.ideal, t.forward, t.back)
         );
     }
+    // Loss shares: a rig that loses effort to friction (forward efficiency below 1)
+    // shares its loss out in full; one that does not has no share anywhere.
     let shares: f64 = json.parts.iter().filter_map(|p| p.loss_share).sum();
     let has_loss = json
         .parts
         .iter()
         .any(|p| p.loss_share.is_some_and(|s| s > 0.0));
+    assert_eq!(
+        has_loss,
+        e < 1.0,
+        "{rel}: loss shares {shares} with a forward efficiency of {e}"
+    );
     if has_loss {
-        assert!(
-            (shares - 1.0).abs() < 1e-9,
-            "{rel}: loss shares sum to {shares}"
-        );
-    }
-    for part in &json.parts {
-        if let Some(p) = part.pin_load_n.forward.or(part.pin_load_n.back) {
-            assert!(p >= 0.0, "{rel}: pin load of {}", part.name);
-        }
+        assert_abs(&format!("{rel}: loss shares summed"), shares, 1.0, 1e-9);
     }
     // Self-locking is what the values say (DESIGN.md §3).
     assert_eq!(
@@ -248,9 +370,15 @@ fn check_rig(path: &Path) {
 fn every_example_rig_solves_with_its_designed_warnings() {
     let rigs = example_rigs();
     assert!(rigs.len() >= 3, "expected the example rigs in rigs/");
+    let mut exercised = Exercised::default();
     for path in &rigs {
-        check_rig(path);
+        check_rig(path, &mut exercised);
     }
+    // Each conditional check above was made on some rig.
+    assert!(
+        exercised.drum_margins > 0 && exercised.own_weights > 0,
+        "{exercised:?}"
+    );
     // Every table entry names a rig that exists (catches renames).
     for (name, _, _) in EXPECTED {
         assert!(

@@ -216,6 +216,7 @@ fn sweep_over_a_bearing_mu_is_monotonic() {
         .iter()
         .map(|x| num(&x["back"]))
         .collect();
+    assert_eq!((f.len(), b.len()), (9, 9), "one value per step");
     assert!(f.windows(2).all(|w| w[1] > w[0]), "forward {f:?}");
     assert!(b.windows(2).all(|w| w[1] < w[0]), "back {b:?}");
 }
@@ -378,6 +379,11 @@ fn ranking_with_an_alternative_bearing() {
         "rolling",
         "--json",
     ]);
+    assert_eq!(
+        r["parts"].as_array().unwrap().len(),
+        3,
+        "the chain's sheaves"
+    );
     for p in r["parts"].as_array().unwrap() {
         let name = p["part"].as_str().unwrap();
         // Catalogue default: rolling bore = the plain pin diameter, mu 0.0015.
@@ -657,6 +663,7 @@ fn a_drum_driven_stroke_moves_the_load_until_it_reaches_the_sheave() {
         "--json",
     ]);
     let steps = short["steps"].as_array().unwrap();
+    assert_eq!(steps.len(), 4, "both ends and two steps between: {short}");
     assert!(steps.iter().all(|s| s["error"].is_null()), "{short}");
     let long = reeve(&[
         "sweep",
@@ -681,6 +688,11 @@ fn rank_falls_back_to_the_frictionless_saving_where_the_alternative_does_not_app
         .iter()
         .map(|p| num(&p["frictionless_saved"]))
         .collect();
+    assert_eq!(
+        saved.len(),
+        4,
+        "three rated pulleys and a carabiner: {saved:?}"
+    );
     assert!(saved.windows(2).all(|w| w[0] >= w[1]), "{saved:?}");
     assert_eq!(out["parts"][0]["part"], "leg.biner");
 }
@@ -704,6 +716,11 @@ fn rank_calls_a_worse_alternative_worse_instead_of_a_negative_saving() {
         worse,
         "--json",
     ]);
+    assert_eq!(
+        r["parts"].as_array().unwrap().len(),
+        3,
+        "the chain's sheaves"
+    );
     for p in r["parts"].as_array().unwrap() {
         assert!(p["alternative_saved"].is_null(), "{p}");
         let name = p["part"].as_str().unwrap();
@@ -731,6 +748,7 @@ fn rank_shows_round_off_savings_as_zero() {
     let out = stdout_of(&["rank", path, "--to", "rolling", "--json"]);
     assert!(!out.contains("-0.0") && !out.contains("e-1"), "{out}");
     let r: Value = serde_json::from_str(&out).unwrap();
+    assert_eq!(r["parts"].as_array().unwrap().len(), 3, "{out}");
     for p in r["parts"].as_array().unwrap() {
         assert_eq!(num(&p["frictionless_saved"]), 0.0, "{p}");
         assert!(p["frictionless_worse_by"].is_null(), "{p}");
