@@ -8,8 +8,8 @@ use reeve::rig::load_str;
 use reeve::solve::{solve, SolveOptions};
 
 #[path = "../tests/it/support/generators.rs"]
-mod common;
-use common::{chain, tackle};
+mod generators;
+use generators::{chain, tackle};
 
 fn time(label: &str, yaml: &str) {
     let rig = match load_str(yaml, label) {

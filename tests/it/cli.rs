@@ -7,7 +7,7 @@ use std::f64::consts::PI;
 use reeve::math::STANDARD_GRAVITY;
 use reeve::solve::{solve, SolveError, SolveOptions};
 
-use crate::support::generators as common;
+use crate::support::generators::chain;
 use crate::support::run::reeve_on;
 use crate::support::{
     assert_abs, assert_rel, edited_rig, reeve, reeve_in, solve_test_rig, test_rig, Scratch,
@@ -306,14 +306,14 @@ fn friction_that_compounds_beyond_any_rope_fails_the_check() {
     // Guards huge figures with exit 0 where every passage is ordinary but they multiply:
     // 40 zig-zag pins at μ = 0.5, each wrapped about 2 rad (ratio e^1 ≈ 2.8, capstan
     // equation), multiply the pull about e^40 ≈ 1e17-fold, far above 1e12.
-    let (code, out, err) = reeve_on(&common::chain(40, 0.5), &["check"]).parts();
+    let (code, out, err) = reeve_on(&chain(40, 0.5), &["check"]).parts();
     assert_eq!(code, 1, "{out}{err}");
     assert!(
         out.contains("FAIL [friction-lock]") && out.contains("line `cord`"),
         "{out}"
     );
     // Ten such pins (e^10 ≈ 2e4) are an ordinary, if lossy, rig.
-    let (code, out, err) = reeve_on(&common::chain(10, 0.5), &["check"]).parts();
+    let (code, out, err) = reeve_on(&chain(10, 0.5), &["check"]).parts();
     assert!(!out.contains("friction-lock"), "{out}{err}");
     assert_eq!(code, 0, "{out}{err}");
 }

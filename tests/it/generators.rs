@@ -1,5 +1,5 @@
-//! The rig generators of `tests/common/mod.rs`, which `benches/scale.rs` times at large
-//! sizes, checked at small sizes: each family loads, solves through the real binary, and
+//! The rig generators of `tests/it/support/generators.rs`, which `benches/scale.rs` times
+//! at large sizes, checked at small sizes: each family loads, solves through the real binary, and
 //! matches its closed form where it has one. The closed forms are derived in the
 //! generators' docs (marked "derived") or are the published formulas named there.
 //! Through the binary and its JSON (the contract of DESIGN.md §5), so these checks hold
@@ -8,13 +8,12 @@
 use serde_json::Value;
 
 use crate::support::assert_rel;
-use crate::support::generators as common;
-use crate::support::run::reeve_on;
-use common::{
+use crate::support::generators::{
     cascade, chain, line_sets, max_line_sets, ranged_tackle, serpentine, tackle, tackles,
     CASCADE_LOAD_KG, CHAIN_LOAD_KG, G, LINE_SET_ARBOR_KG, LINE_SET_BATTEN_KG, MAX_RIG_BYTES,
     RANGED_TACKLE_SHEAVES,
 };
+use crate::support::run::reeve_on;
 
 /// `reeve ARGS[0] RIG ARGS[1..] --json` on a generated rig, which must succeed (exit 0),
 /// parsed.

@@ -238,7 +238,7 @@ fn check_rig(path: &Path, exercised: &mut Exercised) {
     let file = path.file_name().and_then(|f| f.to_str()).unwrap_or("?");
     let Some(&(_, codes, exit)) = EXPECTED.iter().find(|(name, _, _)| *name == file) else {
         panic!(
-            "rigs/{file} has no entry in EXPECTED in tests/rigs.rs: read its header comment \
+            "rigs/{file} has no entry in EXPECTED in tests/it/rigs.rs: read its header comment \
              and add the warning codes and exit code it is designed to give"
         );
     };
@@ -384,7 +384,7 @@ fn every_example_rig_solves_with_its_designed_warnings() {
         assert!(
             rigs.iter()
                 .any(|p| p.file_name().and_then(|f| f.to_str()) == Some(name)),
-            "tests/rigs.rs lists rigs/{name}, which does not exist"
+            "tests/it/rigs.rs lists rigs/{name}, which does not exist"
         );
     }
 }

@@ -1,5 +1,6 @@
-//! Rig generators shared by the tests and the benchmarks (`benches/solve.rs` includes
-//! this file by path).
+//! Rig generators shared by the tests and the benchmarks: `benches/solve.rs` and
+//! `benches/scale.rs` include this file by path, so it uses nothing but the standard
+//! library (each bench uses only some of it, hence `dead_code`).
 #![allow(dead_code)]
 
 use std::fmt::Write as _;
@@ -85,7 +86,7 @@ pub fn chain(n: usize, mu: f64) -> String {
 pub const G: f64 = 9.80665;
 
 /// The largest rig file the loader reads, bytes (mirrors the loader's 1 MiB cap;
-/// `tests/generators.rs` checks that the loader agrees).
+/// `tests/it/generators.rs` checks that the loader agrees).
 pub const MAX_RIG_BYTES: usize = 1 << 20;
 
 /// Mass of each line set's batten (with its pipe and load) and of its arbor, kg.
