@@ -155,6 +155,7 @@ struct Exercised {
 /// a part's pin load is that force plus its own weight (sheaves and drums with a
 /// `mass`). Returns whether any such weight took part.
 fn pin_loads_balance(rel: &str, path: &Path, value: &serde_json::Value) -> bool {
+    use reeve::math::Vector;
     use reeve::rig::model::PartKind;
     let rig = reeve::rig::load_file(path).unwrap_or_else(|e| panic!("{rel}: {e}"));
     let own_mass = |name: &str| {
@@ -188,7 +189,8 @@ fn pin_loads_balance(rel: &str, path: &Path, value: &serde_json::Value) -> bool 
     ] {
         let at =
             |p: &serde_json::Value, keys: &[&str]| keys.iter().fold(p.clone(), |v, k| v[k].clone());
-        let (mut sum, mut weight, mut scale, mut count) = ([0.0; 3], [0.0; 3], 0.0, 0);
+        let (mut sum, mut weight) = (Vector::zeros(), Vector::zeros());
+        let (mut scale, mut count) = (0.0, 0);
         for p in parts {
             let name = p["name"].as_str().expect("part name");
             let (Some(f), Some(u)) = (at(p, load).as_f64(), at(p, direction).as_array().cloned())
@@ -200,36 +202,27 @@ fn pin_loads_balance(rel: &str, path: &Path, value: &serde_json::Value) -> bool 
                 );
                 continue;
             };
-            let u: Vec<f64> = u
-                .iter()
-                .map(|x| x.as_f64().expect("direction component"))
-                .collect();
+            let u = Vector::from_iterator(u.iter().map(|x| x.as_f64().expect("direction")));
             assert_abs(
                 &format!("{rel}: {name}: {case} pin load direction, length"),
-                u.iter().map(|x| x * x).sum::<f64>().sqrt(),
+                u.norm(),
                 1.0,
                 1e-9,
             );
             let m = own_mass(name);
-            for i in 0..3 {
-                sum[i] += f * u[i];
-                weight[i] += m * gravity[i];
-            }
+            sum += f * u;
+            weight += m * gravity;
             scale += f;
             count += 1;
             weighed |= m > 0.0;
         }
         assert!(count > 0, "{rel}: no part reports a {case} pin load");
-        for i in 0..3 {
-            assert_abs(
-                &format!(
-                    "{rel}: {case} pin loads summed, component {i}, N (the parts' own weight)"
-                ),
-                sum[i],
-                weight[i],
-                1e-9 * scale,
-            );
-        }
+        assert_abs(
+            &format!("{rel}: {case} pin loads summed less the parts' own weight, N"),
+            (sum - weight).norm(),
+            0.0,
+            1e-9 * scale,
+        );
     }
     weighed
 }
