@@ -1,6 +1,6 @@
-//! Speed at scale, through the command line: each rig family of `tests/common/mod.rs`
-//! at several sizes, written to a temporary directory and run by a `reeve` binary as a
-//! child process (`check`, `spread`, `rank`, `sweep --stroke`). Going through the
+//! Speed at scale, through the command line: each rig family of
+//! `tests/it/support/generators.rs` at several sizes, written to a temporary directory
+//! and run by a `reeve` binary as a child process (`check`, `spread`, `rank`, `sweep --stroke`). Going through the
 //! binary keeps the bench valid while the library's internals change, and lets the same
 //! bench measure an older binary side by side.
 //!
@@ -33,9 +33,9 @@ use std::sync::atomic::{AtomicBool, Ordering};
 use std::sync::{mpsc, Arc};
 use std::time::{Duration, Instant};
 
-#[path = "../tests/common/mod.rs"]
-mod common;
-use common::{
+#[path = "../tests/it/support/generators.rs"]
+mod generators;
+use generators::{
     cascade, chain, line_set_passages, line_sets, max_line_sets, ranged_tackle, serpentine, tackle,
     tackles, CASCADE_LOAD_KG, CHAIN_LOAD_KG, G, LINE_SET_ARBOR_KG, LINE_SET_BATTEN_KG,
     RANGED_TACKLE_SHEAVES,

@@ -7,9 +7,9 @@ use std::time::{Duration, Instant};
 use reeve::rig::load_str;
 use reeve::solve::{solve, SolveOptions};
 
-#[path = "../tests/common/mod.rs"]
-mod common;
-use common::{chain, tackle};
+#[path = "../tests/it/support/generators.rs"]
+mod generators;
+use generators::{chain, tackle};
 
 fn time(label: &str, yaml: &str) {
     let rig = match load_str(yaml, label) {

@@ -13,8 +13,8 @@ and back pull, to set beside
 
     reeve spread RIG --samples 100000 --seed 1
 
-where RIG is `ranged_tackle()` of `tests/common/mod.rs` (`benches/scale.rs` writes and
-times it as the `spread` family). The percentiles agree to sampling error, not to the
+where RIG is `ranged_tackle()` of `tests/it/support/generators.rs` (`benches/scale.rs`
+writes and times it as the `spread` family). The percentiles agree to sampling error, not to the
 digit: the two draw different random numbers. The whole process, start-up included, is
 `/usr/bin/time -f '%e s %M KiB' python3 benches/walk.py`.
 

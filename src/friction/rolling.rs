@@ -56,7 +56,7 @@ use crate::math::Real;
 /// # Source
 /// Rolling-bearing makers' general catalogues, friction sections: `M = 0.5 μ P d` with a
 /// constant coefficient per bearing type; as in Harnoy, *Bearing Design in Machinery*,
-/// rolling-element bearings chapter (from memory). `tests/friction_published.rs` checks
+/// rolling-element bearings chapter (from memory). `tests/it/friction_published.rs` checks
 /// the catalogue table it names.
 pub fn friction_radius(bore: Real, mu: Real) -> Real {
     debug_assert!(bore >= 0.0, "bore must be ≥ 0, got {bore}");

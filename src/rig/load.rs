@@ -1929,27 +1929,7 @@ mod tests {
     use crate::math::STANDARD_GRAVITY;
 
     /// The example of DESIGN.md section 4.
-    pub(crate) const EXAMPLE: &str = "\
-format: 1
-title: Two-part hoist for a workshop hatch
-units: {length: mm, force: N, mass: kg, torque: N*m}  # defaults for bare numbers
-gravity: [0, 0, -1]            # direction only (default -Z); g = 9.80665 m/s^2
-limits: {fleet_angle: 1.5, design_factor: 5}          # degrees; ratio
-ropes:
-  braid6: {diameter: 6, breaking_strength: 7.5 kN, mu: 0.2, min_bend_ratio: 8}
-parts:
-  eye:    {kind: anchor, at: [0, 0, 2400]}
-  head:   {kind: sheave, at: [120, 0, 2400], axle: [0, 1, 0], diameter: 60,
-           bearing: {kind: plain, pin_diameter: 10, mu: 0.12}}
-  hook:   {kind: block, at: [60, 0, 900], moves: [0, 0, 1], load: {mass: 40}}
-  hook.a: {kind: sheave, block: hook, at: [60, 0, 900], axle: [0, 1, 0], diameter: 60,
-           bearing: {kind: rolling, bore: 10, mu: 0.0015}}
-  hand:   {kind: haul, at: [400, 0, 1000]}
-lines:
-  fall: {rope: braid6, path: [eye, hook.a, head, hand]}
-drive: hand          # the part whose forward motion drives the rig (default: the only haul)
-solve_for: hand      # the part whose natural quantity is unknown (default: the drive)
-";
+    pub(crate) const EXAMPLE: &str = include_str!("../../tests/rigs/design-example.yaml");
 
     fn close(a: f64, b: f64) -> bool {
         (a - b).abs() <= 1e-12 * b.abs().max(1.0)

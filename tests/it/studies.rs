@@ -1,92 +1,29 @@
 //! Design studies through the real binary: overrides and variants, compare, sweep and
 //! stroke, upgrade ranking and sensitivities, Monte Carlo spread. Golden tables live in
-//! `tests/golden/`; rewrite them with `REEVE_BLESS=1 cargo test --test studies`.
-
-use std::path::Path;
-use std::process::{Command, Output};
+//! `tests/golden/`; rewrite them with `REEVE_BLESS=1 cargo test --test it golden`.
 
 use serde_json::Value;
 
-const BIN: &str = env!("CARGO_BIN_EXE_reeve");
-
-fn rig(name: &str) -> String {
-    format!("{}/tests/rigs/{name}", env!("CARGO_MANIFEST_DIR"))
-}
-
-fn run(args: &[&str]) -> Output {
-    Command::new(BIN)
-        .args(args)
-        .current_dir(env!("CARGO_MANIFEST_DIR"))
-        .output()
-        .expect("the reeve binary runs")
-}
-
-fn ok(args: &[&str]) -> String {
-    let out = run(args);
-    assert!(
-        out.status.success(),
-        "reeve {args:?} failed: {}",
-        String::from_utf8_lossy(&out.stderr)
-    );
-    String::from_utf8(out.stdout).expect("utf-8 output")
-}
-
-fn json(args: &[&str]) -> Value {
-    let text = ok(args);
-    serde_json::from_str(&text).unwrap_or_else(|e| panic!("{e}: {text}"))
-}
+use crate::support::generators::tackle;
+use crate::support::golden::golden;
+use crate::support::{
+    assert_abs, assert_rel, json_of, reeve, reeve_in, stdout_of, test_rig, Scratch, ONE_SHEAVE,
+};
 
 fn num(v: &Value) -> f64 {
     v.as_f64().unwrap_or_else(|| panic!("not a number: {v}"))
 }
 
-fn close(a: f64, b: f64, rel: f64) -> bool {
-    (a - b).abs() <= rel * b.abs().max(1e-12)
-}
-
 fn check_forward(file: &str, sets: &[&str]) -> f64 {
-    let path = rig(file);
+    let path = test_rig(file);
     let mut args = vec!["check", path.as_str(), "--json"];
     for s in sets {
         args.push("--set");
         args.push(s);
     }
-    let out = run(&args);
-    assert_ne!(
-        out.status.code(),
-        Some(2),
-        "{}",
-        String::from_utf8_lossy(&out.stderr)
-    );
-    let v: Value = serde_json::from_slice(&out.stdout).expect("json");
-    num(&v["forward"]["value"])
-}
-
-fn golden(name: &str, actual: &str) {
-    let path = Path::new(env!("CARGO_MANIFEST_DIR"))
-        .join("tests/golden")
-        .join(name);
-    if std::env::var_os("REEVE_BLESS").is_some() {
-        std::fs::write(&path, actual).expect("write golden");
-        return;
-    }
-    let expected = std::fs::read_to_string(&path)
-        .unwrap_or_else(|_| panic!("missing golden {name}; run with REEVE_BLESS=1"));
-    if expected != actual {
-        let diff: Vec<String> = expected
-            .lines()
-            .zip(actual.lines())
-            .enumerate()
-            .filter(|(_, (e, a))| e != a)
-            .map(|(i, (e, a))| format!("line {}:\n  expected: {e}\n  actual:   {a}", i + 1))
-            .collect();
-        panic!(
-            "golden {name} differs ({} vs {} lines):\n{}",
-            expected.lines().count(),
-            actual.lines().count(),
-            diff.join("\n")
-        );
-    }
+    let out = reeve(&args);
+    assert_ne!(out.code, 2, "{}", out.stderr);
+    num(&out.json()["forward"]["value"])
 }
 
 /// Wire-rope handbook reeving efficiency formula, DESIGN.md §1:
@@ -106,37 +43,43 @@ fn overrides_of_every_kind_of_key() {
     assert!(k > base, "{k} vs {base}");
     // A quantity with a unit, in another unit than the file's: 1000 N = 0.1 kN·10.
     let kn = check_forward("tackle-rated.yaml", &["parts.hook.load.force=1 kN"]);
-    assert!(close(kn, base, 1e-12), "{kn} vs {base}");
+    assert_rel("load set as 1 kN vs the file's 1000 N", kn, base, 1e-12);
     // A mapping (a whole bearing) and a list (a point).
     let none = check_forward("tackle-rated.yaml", &["parts.upper.d.bearing={kind: none}"]);
     assert!(none < base);
     let moved = check_forward("tackle-rated.yaml", &["parts.hand.at=[400, 0, 400]"]);
-    assert!(close(moved, base, 1e-9), "{moved} vs {base}");
+    assert_rel("hand moved along its vertical fall", moved, base, 1e-9);
     // A mass instead of a force removes the force (exclusive pair): hand calculation,
     // 102 kg × 9.80665 m/s² = 1000.28 N, so the pull scales by 1.00028.
     let mass = check_forward("tackle-rated.yaml", &["parts.hook.load.mass=102 kg"]);
-    assert!(close(mass, base * 102.0 * 9.80665 / 1000.0, 1e-9), "{mass}");
+    assert_rel(
+        "102 kg instead of 1000 N",
+        mass,
+        base * 102.0 * 9.80665 / 1000.0,
+        1e-9,
+    );
     // A rope key and `~` removing an optional key.
     let rope = check_forward("tackle-rated.yaml", &["ropes.r10.mu=0.3"]);
-    assert!(close(rope, base, 1e-12));
+    assert_rel("rope mu where every sheave is rated", rope, base, 1e-12);
     let sheave_mu = check_forward("chain-plain.yaml", &["parts.top.1.bearing.mu_static=~"]);
-    assert!(close(
+    assert_rel(
+        "mu_static removed",
         sheave_mu,
         check_forward("chain-plain.yaml", &[]),
-        1e-12
-    ));
+        1e-12,
+    );
 }
 
 #[test]
 fn unknown_override_keys_are_errors_with_a_suggestion() {
-    let path = rig("tackle-rated.yaml");
+    let path = test_rig("tackle-rated.yaml");
     for cmd in ["check", "rank", "spread"] {
-        let out = run(&[cmd, &path, "--set", "parts.hnd.force=100 N"]);
-        assert_eq!(out.status.code(), Some(2), "{cmd}");
-        let err = String::from_utf8_lossy(&out.stderr);
+        let out = reeve(&[cmd, &path, "--set", "parts.hnd.force=100 N"]);
+        assert_eq!(out.code, 2, "{cmd}");
+        let err = &out.stderr;
         assert!(err.contains("did you mean `hand`"), "{cmd}: {err}");
     }
-    let out = run(&[
+    let out = reeve(&[
         "sweep",
         &path,
         "--set",
@@ -144,17 +87,17 @@ fn unknown_override_keys_are_errors_with_a_suggestion() {
         "--vary",
         "parts.hook.load.force=900..1000",
     ]);
-    assert_eq!(out.status.code(), Some(2));
-    assert!(String::from_utf8_lossy(&out.stderr).contains("factor"));
-    let out = run(&["compare", &path, "--set", "ropes.r11.mu=0.1"]);
-    assert_eq!(out.status.code(), Some(2));
-    assert!(String::from_utf8_lossy(&out.stderr).contains("did you mean `r10`"));
+    assert_eq!(out.code, 2);
+    assert!(out.stderr.contains("factor"));
+    let out = reeve(&["compare", &path, "--set", "ropes.r11.mu=0.1"]);
+    assert_eq!(out.code, 2);
+    assert!(out.stderr.contains("did you mean `r10`"));
 }
 
 #[test]
 fn a_variant_equals_the_same_set_list() {
-    let path = rig("tackle-rated.yaml");
-    let c = json(&["compare", &path, "--variants", "--json"]);
+    let path = test_rig("tackle-rated.yaml");
+    let c = json_of(&["compare", &path, "--variants", "--json"]);
     let cols = c["columns"].as_array().expect("columns");
     assert_eq!(cols.len(), 5);
     let by = |label: &str| {
@@ -187,9 +130,9 @@ fn a_variant_equals_the_same_set_list() {
 fn compare_of_rated_tackles_reproduces_the_handbook_formula() {
     // Wire-rope handbook reeving efficiency formula, DESIGN.md §1, with N = S = 4
     // (hauling part leaves the fixed block), W = 1000 N, at each K of the variants.
-    let c = json(&[
+    let c = json_of(&[
         "compare",
-        &rig("tackle-rated.yaml"),
+        &test_rig("tackle-rated.yaml"),
         "--variants",
         "--format",
         "json",
@@ -206,25 +149,25 @@ fn compare_of_rated_tackles_reproduces_the_handbook_formula() {
             .expect("column");
         let expected = handbook_pull(1000.0, k, 4, 4);
         let got = num(&col["forward"]);
-        assert!(close(got, expected, 1e-9), "K = {k}: {got} vs {expected}");
+        assert_rel(&format!("K = {k}: forward"), got, expected, 1e-9);
         let e = num(&col["efficiency"]);
         let e_hb = (k.powi(4) - 1.0) / (k.powi(4) * 4.0 * (k - 1.0));
-        assert!(close(e, e_hb, 1e-9), "K = {k}: efficiency {e} vs {e_hb}");
+        assert_rel(&format!("K = {k}: efficiency"), e, e_hb, 1e-9);
     }
     // The change column is relative to the first.
     let ch = num(&c["change_pct"][1]["forward"]);
     let expected =
         (handbook_pull(1000.0, 1.02, 4, 4) / handbook_pull(1000.0, 1.04, 4, 4) - 1.0) * 100.0;
-    assert!(close(ch, expected, 1e-9), "{ch} vs {expected}");
+    assert_rel("change of K1.02 against base, %", ch, expected, 1e-9);
 }
 
 #[test]
 fn sweep_of_the_load_reproduces_the_handbook_formula_at_every_step() {
     // Wire-rope handbook reeving efficiency formula, DESIGN.md §1 (K = 1.04, N = S = 4):
     // the pull is proportional to the load at every step.
-    let s = json(&[
+    let s = json_of(&[
         "sweep",
-        &rig("tackle-rated.yaml"),
+        &test_rig("tackle-rated.yaml"),
         "--vary",
         "parts.hook.load.force=0.5 kN..2 kN",
         "--steps",
@@ -235,16 +178,26 @@ fn sweep_of_the_load_reproduces_the_handbook_formula_at_every_step() {
     assert_eq!(steps.len(), 4);
     for (st, w) in steps.iter().zip([500.0, 1000.0, 1500.0, 2000.0]) {
         let expected = handbook_pull(w, 1.04, 4, 4);
-        assert!(close(num(&st["forward"]), expected, 1e-9), "W = {w}: {st}");
-        assert!(close(num(&st["ideal"]), w / 4.0, 1e-9));
+        assert_rel(
+            &format!("W = {w}: {st}"),
+            num(&st["forward"]),
+            expected,
+            1e-9,
+        );
+        assert_rel(
+            &format!("W = {w}: ideal W/4"),
+            num(&st["ideal"]),
+            w / 4.0,
+            1e-9,
+        );
     }
 }
 
 #[test]
 fn sweep_over_a_bearing_mu_is_monotonic() {
-    let s = json(&[
+    let s = json_of(&[
         "sweep",
-        &rig("chain-plain.yaml"),
+        &test_rig("chain-plain.yaml"),
         "--vary",
         "parts.low.2.bearing.mu=0..0.4",
         "--steps",
@@ -263,18 +216,18 @@ fn sweep_over_a_bearing_mu_is_monotonic() {
         .iter()
         .map(|x| num(&x["back"]))
         .collect();
+    assert_eq!((f.len(), b.len()), (9, 9), "one value per step");
     assert!(f.windows(2).all(|w| w[1] > w[0]), "forward {f:?}");
     assert!(b.windows(2).all(|w| w[1] < w[0]), "back {b:?}");
 }
 
 #[test]
 fn a_stroke_of_a_tackle_keeps_the_velocity_ratio() {
-    let dir = std::env::temp_dir().join(format!("reeve-stroke-{}", std::process::id()));
-    std::fs::create_dir_all(&dir).unwrap();
+    let dir = Scratch::new("stroke");
     let svg = dir.join("stroke.svg");
-    let s = json(&[
+    let s = json_of(&[
         "sweep",
-        &rig("tackle-rated.yaml"),
+        &test_rig("tackle-rated.yaml"),
         "--stroke",
         "800 mm",
         "--steps",
@@ -287,29 +240,39 @@ fn a_stroke_of_a_tackle_keeps_the_velocity_ratio() {
     assert_eq!(steps.len(), 5);
     for st in steps {
         assert!(st["error"].is_null(), "{st}");
-        assert!(close(num(&st["velocity_ratio"]), 4.0, 1e-9), "{st}");
+        assert_rel(
+            &format!("velocity ratio at {st}"),
+            num(&st["velocity_ratio"]),
+            4.0,
+            1e-9,
+        );
         // Hand calculation: the travel does not change vertical spans, so the pull stays
         // at the handbook value (DESIGN.md §1).
-        assert!(close(
+        assert_rel(
+            &format!("forward at {st}"),
             num(&st["forward"]),
             handbook_pull(1000.0, 1.04, 4, 4),
-            1e-9
-        ));
+            1e-9,
+        );
     }
-    assert!(close(num(&steps[4]["travel"]), 0.8, 1e-12));
+    assert_rel(
+        "travel of the last step, m",
+        num(&steps[4]["travel"]),
+        0.8,
+        1e-12,
+    );
     let chart = std::fs::read_to_string(&svg).unwrap();
     assert!(chart.contains("travel of hand (mm)") && chart.contains("force (N)"));
     assert!(chart.contains("Largest span tension"));
-    let _ = std::fs::remove_dir_all(&dir);
 }
 
 #[test]
 fn a_stroke_that_lifts_the_block_into_the_head_reports_where_it_fails() {
     // The hook starts 1000 mm below the upper sheaves and rises 1 mm per 4 mm of pull:
     // 4400 mm of pull would lift it 1100 mm, into the upper block.
-    let s = json(&[
+    let s = json_of(&[
         "sweep",
-        &rig("tackle-rated.yaml"),
+        &test_rig("tackle-rated.yaml"),
         "--stroke",
         "4400 mm",
         "--steps",
@@ -324,13 +287,13 @@ fn a_stroke_that_lifts_the_block_into_the_head_reports_where_it_fails() {
 
 #[test]
 fn golden_compare_and_sweep_tables() {
-    let text = ok(&["compare", &rig("tackle-rated.yaml"), "--variants"]);
+    let text = stdout_of(&["compare", &test_rig("tackle-rated.yaml"), "--variants"]);
     assert!(text.trim_end().ends_with("licensed person."));
     golden("compare-tackle-variants.txt", &text);
     // The 30 kg step cannot move (351.5 N needed, 300 N available): exit 1.
     let md = failing(&[
         "sweep",
-        &rig("chain-plain.yaml"),
+        &test_rig("chain-plain.yaml"),
         "--vary",
         "parts.load.mass=10..30 kg",
         "--steps",
@@ -342,7 +305,7 @@ fn golden_compare_and_sweep_tables() {
     golden("sweep-chain-mass.md", &md);
     let csv = failing(&[
         "sweep",
-        &rig("chain-plain.yaml"),
+        &test_rig("chain-plain.yaml"),
         "--vary",
         "parts.load.mass=10..30 kg",
         "--steps",
@@ -358,7 +321,7 @@ fn golden_compare_and_sweep_tables() {
 
 #[test]
 fn in_a_tackle_the_sheave_nearest_the_hauling_part_ranks_first() {
-    let r = json(&["rank", &rig("tackle-rated.yaml"), "--json"]);
+    let r = json_of(&["rank", &test_rig("tackle-rated.yaml"), "--json"]);
     let parts = r["parts"].as_array().unwrap();
     let order: Vec<&str> = parts.iter().map(|p| p["part"].as_str().unwrap()).collect();
     // Hauling part ← upper.d ← lower.c ← upper.b ← lower.a ← dead end.
@@ -368,7 +331,12 @@ fn in_a_tackle_the_sheave_nearest_the_hauling_part_ranks_first() {
     // pull = W·K³/(1 + K + K² + K³).
     let k: f64 = 1.04;
     let expected = 1000.0 * k.powi(3) / (1.0 + k + k * k + k.powi(3));
-    assert!(close(num(&parts[0]["frictionless"]), expected, 1e-9));
+    assert_rel(
+        "pull with upper.d frictionless",
+        num(&parts[0]["frictionless"]),
+        expected,
+        1e-9,
+    );
 }
 
 #[test]
@@ -376,7 +344,7 @@ fn along_a_chain_of_identical_sheaves_every_sheave_saves_the_same() {
     // Multiplicative losses commute: with load-independent ratios k (friction circle,
     // no sheave weight; DESIGN.md §1) the pull is W·k³ and any one frictionless sheave
     // gives W·k², whichever it is, although the last sheave dissipates the most power.
-    let r = json(&["rank", &rig("chain-plain.yaml"), "--json"]);
+    let r = json_of(&["rank", &test_rig("chain-plain.yaml"), "--json"]);
     let saved: Vec<f64> = r["parts"]
         .as_array()
         .unwrap()
@@ -385,7 +353,12 @@ fn along_a_chain_of_identical_sheaves_every_sheave_saves_the_same() {
         .collect();
     assert_eq!(saved.len(), 3);
     for s in &saved {
-        assert!(close(*s, saved[0], 1e-9), "{saved:?}");
+        assert_rel(
+            &format!("saving of each sheave {saved:?}"),
+            *s,
+            saved[0],
+            1e-9,
+        );
         assert!(*s > 0.0);
     }
     // ... and the frictionless value is the forward value of the rig written that way.
@@ -399,40 +372,51 @@ fn along_a_chain_of_identical_sheaves_every_sheave_saves_the_same() {
 
 #[test]
 fn ranking_with_an_alternative_bearing() {
-    let r = json(&[
+    let r = json_of(&[
         "rank",
-        &rig("chain-plain.yaml"),
+        &test_rig("chain-plain.yaml"),
         "--to",
         "rolling",
         "--json",
     ]);
+    assert_eq!(
+        r["parts"].as_array().unwrap().len(),
+        3,
+        "the chain's sheaves"
+    );
     for p in r["parts"].as_array().unwrap() {
         let name = p["part"].as_str().unwrap();
         // Catalogue default: rolling bore = the plain pin diameter, mu 0.0015.
         let set = format!("parts.{name}.bearing={{kind: rolling, bore: 10 mm, mu: 0.0015}}");
-        assert!(close(
+        assert_rel(
+            &format!("{name} with a rolling bearing"),
             num(&p["alternative"]),
             check_forward("chain-plain.yaml", &[&set]),
-            1e-12
-        ));
+            1e-12,
+        );
     }
-    let yaml = json(&[
+    let yaml = json_of(&[
         "rank",
-        &rig("chain-plain.yaml"),
+        &test_rig("chain-plain.yaml"),
         "--to",
         "{kind: plain, pin_diameter: 8, mu: 0.08}",
         "--json",
     ]);
     assert!(num(&yaml["parts"][0]["alternative_saved"]) > 0.0);
-    let out = run(&["rank", &rig("chain-plain.yaml"), "--to", "{kind: plane}"]);
-    assert_eq!(out.status.code(), Some(2));
+    let out = reeve(&[
+        "rank",
+        &test_rig("chain-plain.yaml"),
+        "--to",
+        "{kind: plane}",
+    ]);
+    assert_eq!(out.code, 2);
 }
 
 #[test]
 fn sensitivity_matches_the_capstan_derivative() {
     // Capstan equation (Euler–Eytelwein), DESIGN.md §1: F = W·exp(mu·phi), phi = pi,
     // so dF/dmu = W·phi·exp(mu·phi). W = 10 kg × 9.80665 m/s², mu = 0.25.
-    let r = json(&["rank", &rig("capstan-guide.yaml"), "--json"]);
+    let r = json_of(&["rank", &test_rig("capstan-guide.yaml"), "--json"]);
     let w = 10.0 * 9.80665;
     let phi = std::f64::consts::PI;
     let s = r["sensitivities"]
@@ -442,9 +426,11 @@ fn sensitivity_matches_the_capstan_derivative() {
         .find(|s| s["key"] == "parts.bar.mu")
         .expect("guide mu");
     let expected = w * phi * (0.25 * phi).exp();
-    assert!(
-        close(num(&s["derivative"]), expected, 1e-6),
-        "{s} vs {expected}"
+    assert_rel(
+        &format!("dF/dmu of {s}"),
+        num(&s["derivative"]),
+        expected,
+        1e-6,
     );
     // The rope's own mu does not act where the guide gives its own.
     let rope = r["sensitivities"]
@@ -455,7 +441,12 @@ fn sensitivity_matches_the_capstan_derivative() {
         .unwrap();
     assert!(num(&rope["derivative"]).abs() < 1e-6);
     // Frictionless guide: the ideal W.
-    assert!(close(num(&r["parts"][0]["frictionless"]), w, 1e-9));
+    assert_rel(
+        "frictionless guide: the ideal W",
+        num(&r["parts"][0]["frictionless"]),
+        w,
+        1e-9,
+    );
 }
 
 // --------------------------------------------------------------------- spread
@@ -470,10 +461,10 @@ fn zero_width_ranges_reproduce_the_deterministic_values() {
         "--set",
         "parts.hook.a.bearing.mu={min: 0.12, max: 0.12}",
     ];
-    let path = rig("spread-hoist.yaml");
+    let path = test_rig("spread-hoist.yaml");
     let mut args = vec!["spread", path.as_str(), "--samples", "20", "--json"];
     args.extend_from_slice(&sets);
-    let s = json(&args);
+    let s = json_of(&args);
     let f = check_forward(
         "spread-hoist.yaml",
         &[
@@ -501,13 +492,13 @@ fn deterministic_commands_use_the_middle_of_a_range() {
             "parts.hook.a.bearing.mu=0.12",
         ],
     );
-    assert!(close(a, b, 1e-12), "{a} vs {b}");
+    assert_rel("middle of the ranges vs the values set", a, b, 1e-12);
 }
 
 #[test]
 fn median_of_a_narrow_symmetric_range_is_the_deterministic_value() {
-    let path = rig("spread-hoist.yaml");
-    let s = json(&[
+    let path = test_rig("spread-hoist.yaml");
+    let s = json_of(&[
         "spread",
         &path,
         "--samples",
@@ -538,9 +529,9 @@ fn median_of_a_narrow_symmetric_range_is_the_deterministic_value() {
 
 #[test]
 fn same_seed_same_numbers_and_threads_do_not_matter() {
-    let path = rig("spread-hoist.yaml");
-    let a = ok(&["spread", &path, "--samples", "60", "--seed", "5"]);
-    let b = ok(&[
+    let path = test_rig("spread-hoist.yaml");
+    let a = stdout_of(&["spread", &path, "--samples", "60", "--seed", "5"]);
+    let b = stdout_of(&[
         "spread",
         &path,
         "--samples",
@@ -550,7 +541,7 @@ fn same_seed_same_numbers_and_threads_do_not_matter() {
         "--threads",
         "1",
     ]);
-    let c = ok(&[
+    let c = stdout_of(&[
         "spread",
         &path,
         "--samples",
@@ -563,13 +554,13 @@ fn same_seed_same_numbers_and_threads_do_not_matter() {
     assert_eq!(a, b);
     assert_eq!(b, c);
     assert!(a.trim_end().ends_with("licensed person."));
-    let d = ok(&["spread", &path, "--samples", "60", "--seed", "6"]);
+    let d = stdout_of(&["spread", &path, "--samples", "60", "--seed", "6"]);
     assert_ne!(a, d);
 }
 
 #[test]
 fn share_not_moving_is_zero_or_one_when_the_range_sits_on_one_side() {
-    let path = rig("spread-hoist.yaml");
+    let path = test_rig("spread-hoist.yaml");
     // The share of samples that do not move, with the hand's available force set.
     let share_at = |force: &str, samples: &str| {
         let set = format!("parts.hand.force={force}");
@@ -582,10 +573,10 @@ fn share_not_moving_is_zero_or_one_when_the_range_sits_on_one_side() {
             "--set",
             &set,
         ];
-        let out = run(&args);
+        let out = reeve(&args);
         // Samples that cannot move fail the check: exit 1 (0 when all move).
-        assert_ne!(out.status.code(), Some(2), "{args:?}");
-        let out: Value = serde_json::from_slice(&out.stdout).expect("json");
+        assert_ne!(out.code, 2, "{args:?}");
+        let out = out.json();
         num(&out["share_not_moving"])
     };
     assert_eq!(share_at("400 N", "50"), 0.0);
@@ -597,28 +588,26 @@ fn share_not_moving_is_zero_or_one_when_the_range_sits_on_one_side() {
 
 #[test]
 fn malformed_ranges_and_variants_are_reported() {
-    let path = rig("spread-hoist.yaml");
-    let out = run(&[
+    let path = test_rig("spread-hoist.yaml");
+    let out = reeve(&[
         "check",
         &path,
         "--set",
         "ropes.braid6.mu={min: 0.3, max: 0.2}",
     ]);
-    assert_eq!(out.status.code(), Some(2));
-    assert!(String::from_utf8_lossy(&out.stderr).contains("larger than `max`"));
-    let out = run(&[
+    assert_eq!(out.code, 2);
+    assert!(out.stderr.contains("larger than `max`"));
+    let out = reeve(&[
         "check",
         &path,
         "--set",
         "ropes.braid6.mu={min: 0.3, mx: 0.2}",
     ]);
-    assert_eq!(out.status.code(), Some(2));
-    let out = run(&["compare", &path, "--variants"]);
-    assert_eq!(out.status.code(), Some(2));
-    assert!(String::from_utf8_lossy(&out.stderr).contains("no `variants:`"));
+    assert_eq!(out.code, 2);
+    let out = reeve(&["compare", &path, "--variants"]);
+    assert_eq!(out.code, 2);
+    assert!(out.stderr.contains("no `variants:`"));
 }
-
-mod common;
 
 #[test]
 fn compare_of_tackles_over_the_number_of_parts_reproduces_the_handbook_formula() {
@@ -626,19 +615,18 @@ fn compare_of_tackles_over_the_number_of_parts_reproduces_the_handbook_formula()
     // E = (K^N − 1)/(K^S·N·(K − 1)). One column per tackle of 1 to 8 sheaves (the shared
     // generator: even counts haul from the fixed block, S = N; odd counts from the moving
     // block, N = sheaves + 1, S = sheaves), compared in one `reeve compare` run.
-    let dir = std::env::temp_dir().join(format!("reeve-compare-n-{}", std::process::id()));
-    std::fs::create_dir_all(&dir).unwrap();
+    let dir = Scratch::new("compare-n");
     let files: Vec<String> = (1..=8)
         .map(|sheaves| {
-            let path = dir.join(format!("tackle-{sheaves}.yaml"));
-            std::fs::write(&path, common::tackle(sheaves)).unwrap();
-            path.display().to_string()
+            dir.write(&format!("tackle-{sheaves}.yaml"), &tackle(sheaves))
+                .display()
+                .to_string()
         })
         .collect();
     let mut args = vec!["compare"];
     args.extend(files.iter().map(String::as_str));
     args.push("--json");
-    let out = json(&args);
+    let out = json_of(&args);
     let columns = out["columns"].as_array().unwrap();
     assert_eq!(columns.len(), 8);
     for (i, column) in columns.iter().enumerate() {
@@ -650,12 +638,13 @@ fn compare_of_tackles_over_the_number_of_parts_reproduces_the_handbook_formula()
         };
         let expected = handbook_pull(500.0 * 9.80665, 1.04, n as i32, s as i32);
         let forward = num(&column["forward"]);
-        assert!(
-            close(forward, expected, 1e-9),
-            "{sheaves} sheaves ({n} parts): {forward} vs handbook {expected}"
+        assert_rel(
+            &format!("{sheaves} sheaves ({n} parts) vs handbook"),
+            forward,
+            expected,
+            1e-9,
         );
     }
-    let _ = std::fs::remove_dir_all(&dir);
 }
 
 #[test]
@@ -664,7 +653,7 @@ fn a_drum_driven_stroke_moves_the_load_until_it_reaches_the_sheave() {
     // runs along the ramp, so the drum (pitch radius 53 mm) closes it up after about
     // 2.972 / 0.053 rad ≈ 3213° (hand calculation). 3000° must stop short; 3400° must be
     // reported as the cart meeting the sheave, not silently carried through it.
-    let short = json(&[
+    let short = json_of(&[
         "sweep",
         "rigs/ramp-winch.yaml",
         "--stroke",
@@ -674,8 +663,9 @@ fn a_drum_driven_stroke_moves_the_load_until_it_reaches_the_sheave() {
         "--json",
     ]);
     let steps = short["steps"].as_array().unwrap();
+    assert_eq!(steps.len(), 4, "both ends and two steps between: {short}");
     assert!(steps.iter().all(|s| s["error"].is_null()), "{short}");
-    let long = run(&[
+    let long = reeve(&[
         "sweep",
         "rigs/ramp-winch.yaml",
         "--stroke",
@@ -683,7 +673,7 @@ fn a_drum_driven_stroke_moves_the_load_until_it_reaches_the_sheave() {
         "--steps",
         "4",
     ]);
-    let text = String::from_utf8_lossy(&long.stdout);
+    let text = &long.stdout;
     assert!(text.contains("closes up: `cart` and `lead` meet"), "{text}");
 }
 
@@ -691,22 +681,27 @@ fn a_drum_driven_stroke_moves_the_load_until_it_reaches_the_sheave() {
 fn rank_falls_back_to_the_frictionless_saving_where_the_alternative_does_not_apply() {
     // rigs/rescue-haul.yaml has only rated pulleys and a carabiner, so `--to rolling`
     // applies to none of them; the ranking must still be by effort saved, largest first.
-    let out = json(&["rank", "rigs/rescue-haul.yaml", "--to", "rolling", "--json"]);
+    let out = json_of(&["rank", "rigs/rescue-haul.yaml", "--to", "rolling", "--json"]);
     let saved: Vec<f64> = out["parts"]
         .as_array()
         .unwrap()
         .iter()
         .map(|p| num(&p["frictionless_saved"]))
         .collect();
+    assert_eq!(
+        saved.len(),
+        4,
+        "three rated pulleys and a carabiner: {saved:?}"
+    );
     assert!(saved.windows(2).all(|w| w[0] >= w[1]), "{saved:?}");
     assert_eq!(out["parts"][0]["part"], "leg.biner");
 }
 
 #[test]
 fn a_zero_stroke_is_refused() {
-    let out = run(&["sweep", "rigs/workshop-hoist.yaml", "--stroke", "0"]);
-    assert_eq!(out.status.code(), Some(2));
-    assert!(String::from_utf8_lossy(&out.stderr).contains("other than zero"));
+    let out = reeve(&["sweep", "rigs/workshop-hoist.yaml", "--stroke", "0"]);
+    assert_eq!(out.code, 2);
+    assert!(out.stderr.contains("other than zero"));
 }
 
 #[test]
@@ -714,7 +709,18 @@ fn rank_calls_a_worse_alternative_worse_instead_of_a_negative_saving() {
     // Guards: a `--to` bearing worse than the current one is reported as worse, never
     // as a negative saving, and it ranks below every real saving.
     let worse = "{kind: plain, pin_diameter: 10, mu: 0.3}";
-    let r = json(&["rank", &rig("chain-plain.yaml"), "--to", worse, "--json"]);
+    let r = json_of(&[
+        "rank",
+        &test_rig("chain-plain.yaml"),
+        "--to",
+        worse,
+        "--json",
+    ]);
+    assert_eq!(
+        r["parts"].as_array().unwrap().len(),
+        3,
+        "the chain's sheaves"
+    );
     for p in r["parts"].as_array().unwrap() {
         assert!(p["alternative_saved"].is_null(), "{p}");
         let name = p["part"].as_str().unwrap();
@@ -722,9 +728,14 @@ fn rank_calls_a_worse_alternative_worse_instead_of_a_negative_saving() {
         // Hand check: the extra effort is the worse rig's forward value minus the rig's.
         let extra = check_forward("chain-plain.yaml", &[&set]) - num(&r["forward"]);
         assert!(extra > 0.0);
-        assert!(close(num(&p["alternative_worse_by"]), extra, 1e-9), "{p}");
+        assert_rel(
+            &format!("worse by, {p}"),
+            num(&p["alternative_worse_by"]),
+            extra,
+            1e-9,
+        );
     }
-    let text = ok(&["rank", &rig("chain-plain.yaml"), "--to", worse]);
+    let text = stdout_of(&["rank", &test_rig("chain-plain.yaml"), "--to", worse]);
     assert!(text.contains("worse by 13.43 N"), "{text}");
     assert!(!text.contains(" -1"), "{text}");
 }
@@ -734,9 +745,10 @@ fn rank_shows_round_off_savings_as_zero() {
     // Guards: a part that is already frictionless saves exactly zero (no "-0", no tiny
     // negative from round-off).
     let path = "tests/rigs/review/frictionless.yaml";
-    let out = ok(&["rank", path, "--to", "rolling", "--json"]);
+    let out = stdout_of(&["rank", path, "--to", "rolling", "--json"]);
     assert!(!out.contains("-0.0") && !out.contains("e-1"), "{out}");
     let r: Value = serde_json::from_str(&out).unwrap();
+    assert_eq!(r["parts"].as_array().unwrap().len(), 3, "{out}");
     for p in r["parts"].as_array().unwrap() {
         assert_eq!(num(&p["frictionless_saved"]), 0.0, "{p}");
         assert!(p["frictionless_worse_by"].is_null(), "{p}");
@@ -746,23 +758,71 @@ fn rank_shows_round_off_savings_as_zero() {
 #[test]
 fn rank_to_takes_units_in_the_bearing() {
     // Guards: `--to` reads bare numbers in the rig's units and accepts written units.
-    let bare = json(&[
+    let bare = json_of(&[
         "rank",
-        &rig("chain-plain.yaml"),
+        &test_rig("chain-plain.yaml"),
         "--to",
         "{kind: plain, pin_diameter: 8, mu: 0.08}",
         "--json",
     ]);
-    let inches = json(&[
+    let inches = json_of(&[
         "rank",
-        &rig("chain-plain.yaml"),
+        &test_rig("chain-plain.yaml"),
         "--to",
         "{kind: plain, pin_diameter: 0.31496063 in, mu: 0.08}",
         "--json",
     ]);
     let a = num(&bare["parts"][0]["alternative"]);
     let b = num(&inches["parts"][0]["alternative"]);
-    assert!(close(a, b, 1e-7), "{a} vs {b}");
+    assert_rel("pin in inches vs in mm", a, b, 1e-7);
+}
+
+/// Guards `rank --to` units: a bare number in the bearing text is in the rig's length
+/// unit (a bare `8` on a metre rig is an 8 m pin, refused as not fitting, with a hint),
+/// and a unit may be written (`8 mm`) with the same result as the bare number on a
+/// millimetre rig.
+#[test]
+fn rank_to_reads_bare_numbers_in_the_rigs_units_and_accepts_units() {
+    let dir = Scratch::new("rank-to-units");
+    dir.write("rig.yaml", ONE_SHEAVE);
+    let metres = ONE_SHEAVE
+        .replace("length: mm", "length: m")
+        .replace("diameter: 6,", "diameter: 0.006,")
+        .replace("[0, 0, 2000]", "[0, 0, 2]")
+        .replace("diameter: 50,", "diameter: 0.05,")
+        .replace("pin_diameter: 8,", "pin_diameter: 0.008,")
+        .replace("[-25, 0, 1000]", "[-0.025, 0, 1]")
+        .replace("[25, 0, 1000]", "[0.025, 0, 1]");
+    std::fs::write(dir.join("metres.yaml"), metres).unwrap();
+    let rank = |file: &str, to: &str| {
+        let out = reeve_in(&dir, &["rank", file, "--to", to, "--format", "json"]);
+        (out.code, out.stdout, out.stderr)
+    };
+    let (code, bare_mm, err) = rank("rig.yaml", "{kind: plain, pin_diameter: 8, mu: 0.08}");
+    assert_eq!(code, 0, "{err}");
+    let (code, with_unit, err) = rank("rig.yaml", "{kind: plain, pin_diameter: 8 mm, mu: 0.08}");
+    assert_eq!(code, 0, "{err}");
+    let alternative = |json: &str| {
+        let v: serde_json::Value = serde_json::from_str(json).unwrap();
+        v["parts"][0]["alternative"].as_f64().unwrap()
+    };
+    assert_eq!(alternative(&bare_mm), alternative(&with_unit));
+    let (code, _, err) = rank("metres.yaml", "{kind: plain, pin_diameter: 8, mu: 0.08}");
+    assert_eq!(code, 2, "{err}");
+    assert!(
+        err.contains("--to") && err.contains("8 m") && err.contains("bare numbers"),
+        "{err}"
+    );
+    let (code, with_unit_m, err) =
+        rank("metres.yaml", "{kind: plain, pin_diameter: 8 mm, mu: 0.08}");
+    assert_eq!(code, 0, "{err}");
+    let ratio = alternative(&with_unit_m) / alternative(&with_unit);
+    assert_abs(
+        "8 mm pin on a metre rig over the same on a mm rig",
+        ratio,
+        1.0,
+        1e-9,
+    );
 }
 
 #[test]
@@ -771,8 +831,8 @@ fn rank_sensitivities_measure_effort_saved_like_the_ranking_and_name_the_written
     // the asked unit), orders the same way, and names the key the file wrote
     // (`efficiency`, not `factor`).
     let rated = "parts.low.2.bearing={kind: rated, efficiency: 0.99}";
-    let path = rig("chain-plain.yaml");
-    let r = json(&["rank", &path, "--set", rated, "--json"]);
+    let path = test_rig("chain-plain.yaml");
+    let r = json_of(&["rank", &path, "--set", rated, "--json"]);
     let order: Vec<&str> = r["parts"]
         .as_array()
         .unwrap()
@@ -793,9 +853,11 @@ fn rank_sensitivities_measure_effort_saved_like_the_ranking_and_name_the_written
     let top = &sens[at("parts.top.1.bearing.mu")];
     assert_eq!(num(&top["value"]), 0.15);
     let f = check_forward("chain-plain.yaml", &[rated, "parts.top.1.bearing.mu=0.135"]);
-    assert!(
-        close(num(&top["saved_with_10pct_less_friction"]), f0 - f, 1e-9),
-        "{top}"
+    assert_rel(
+        &format!("saved, {top}"),
+        num(&top["saved_with_10pct_less_friction"]),
+        f0 - f,
+        1e-9,
     );
     // ... and for the rated one: K = 1/0.99, loss K − 1 cut by 10 %, η = 1/(1 + 0.9(K − 1)).
     let k = 1.0 / 0.99;
@@ -804,12 +866,14 @@ fn rank_sensitivities_measure_effort_saved_like_the_ranking_and_name_the_written
     assert_eq!(num(&low2["value"]), 0.99);
     let set = format!("parts.low.2.bearing.efficiency={eta}");
     let f = check_forward("chain-plain.yaml", &[rated, &set]);
-    assert!(
-        close(num(&low2["saved_with_10pct_less_friction"]), f0 - f, 1e-9),
-        "{low2}"
+    assert_rel(
+        &format!("saved, {low2}"),
+        num(&low2["saved_with_10pct_less_friction"]),
+        f0 - f,
+        1e-9,
     );
     // The text lists the same measure, in the rig's unit, under the file's own key.
-    let text = ok(&["rank", &path, "--set", rated]);
+    let text = stdout_of(&["rank", &path, "--set", rated]);
     assert!(text.contains("parts.low.2.bearing.efficiency"), "{text}");
     assert!(text.contains("10 % less friction"), "{text}");
 }
@@ -818,26 +882,14 @@ fn rank_sensitivities_measure_effort_saved_like_the_ranking_and_name_the_written
 
 /// Runs a study that must fail a check: exit 1, stdout as text.
 fn failing(args: &[&str]) -> String {
-    let out = run(args);
-    assert_eq!(
-        out.status.code(),
-        Some(1),
-        "reeve {args:?}: {}",
-        String::from_utf8_lossy(&out.stderr)
-    );
-    String::from_utf8(out.stdout).expect("utf-8 output")
+    reeve(args).expect_code(1).stdout
 }
 
 /// The `--json` document of a study, whatever its exit code (not 2).
 fn json_whatever_the_exit(args: &[&str]) -> Value {
-    let out = run(&[args, &["--json"]].concat());
-    assert_ne!(
-        out.status.code(),
-        Some(2),
-        "{}",
-        String::from_utf8_lossy(&out.stderr)
-    );
-    serde_json::from_slice(&out.stdout).expect("json")
+    let out = reeve(&[args, &["--json"]].concat());
+    assert_ne!(out.code, 2, "{}", out.stderr);
+    out.json()
 }
 
 #[test]
@@ -870,13 +922,14 @@ fn compare_exits_1_and_shows_the_margin_when_a_column_fails_a_check() {
     assert_eq!(v["columns"][0]["fails"], false);
     assert_eq!(v["columns"][1]["fails"], true);
     assert_eq!(v["columns"][1]["failing"][0], "cannot-move");
-    assert!(close(
+    assert_rel(
+        "margin of the automaton, 1.2 N over 1.4706 N",
         num(&v["columns"][1]["margin"]),
         1.2 / 1.470_6 - 1.0,
-        1e-3
-    ));
+        1e-3,
+    );
     // A comparison where every rig passes still exits 0.
-    ok(&[
+    stdout_of(&[
         "compare",
         "tests/rigs/chain-plain.yaml",
         "tests/rigs/tackle-rated.yaml",
@@ -887,7 +940,7 @@ fn compare_exits_1_and_shows_the_margin_when_a_column_fails_a_check() {
 fn sweep_exits_1_and_marks_the_step_that_cannot_move() {
     // Guards: a sweep step that `check` fails (30 kg needs 351.5 N, 300 N available)
     // fails the sweep, and the margin and checks columns show which step.
-    let path = rig("chain-plain.yaml");
+    let path = test_rig("chain-plain.yaml");
     let args = [
         "sweep",
         &path,
@@ -914,7 +967,7 @@ fn sweep_exits_1_and_marks_the_step_that_cannot_move() {
     assert_eq!(steps[0]["fails"], false);
     assert!(num(&steps[4]["margin"]) < 0.0 && num(&steps[0]["margin"]) > 0.0);
     // Every step passing: exit 0.
-    ok(&[
+    stdout_of(&[
         "sweep",
         &path,
         "--vary",
@@ -938,7 +991,7 @@ fn a_sweep_marks_the_steps_where_a_sheave_stalls() {
         "--steps",
         "5",
     ];
-    let text = ok(&args);
+    let text = stdout_of(&args);
     let marked: Vec<&str> = text.lines().filter(|l| l.contains("stalled")).collect();
     assert!(marked.iter().any(|l| l.starts_with("0.3500")), "{text}");
     assert!(!marked.iter().any(|l| l.starts_with("0.01000")), "{text}");
@@ -971,7 +1024,7 @@ fn rank_exits_1_where_the_rig_or_a_row_fails_a_check() {
     // bearing makes a row fail (240 N available, a worse bearing needs more).
     let text = failing(&["rank", "rigs/automaton-cord.yaml"]);
     assert!(text.contains("cannot-move"), "{text}");
-    let path = rig("chain-plain.yaml");
+    let path = test_rig("chain-plain.yaml");
     let args = [
         "rank",
         &path,
@@ -992,7 +1045,7 @@ fn rank_exits_1_where_the_rig_or_a_row_fails_a_check() {
 fn spread_exits_1_when_samples_fail_a_check_and_shows_the_margin() {
     // Guards: a spread whose samples fail a check (the hand's 207 N is inside the
     // spread of forward values) exits 1, and the margin's percentiles show it.
-    let path = rig("spread-hoist.yaml");
+    let path = test_rig("spread-hoist.yaml");
     let args = [
         "spread",
         &path,
@@ -1009,7 +1062,7 @@ fn spread_exits_1_when_samples_fail_a_check_and_shows_the_margin() {
     assert!(share > 0.0 && share < 1.0, "{share}");
     assert!(num(&v["margin"]["p5"]) < 0.0 && num(&v["margin"]["p95"]) > 0.0);
     // Every sample moving: exit 0.
-    ok(&[
+    stdout_of(&[
         "spread",
         &path,
         "--samples",
@@ -1031,7 +1084,7 @@ fn compare_groups_columns_by_the_asked_quantity_and_never_mixes_units_in_a_chang
         "tests/rigs/review/block-unknown.yaml",
         "tests/rigs/chain-plain.yaml",
     ];
-    let text = ok(&args);
+    let text = stdout_of(&args);
     // Three groups: counterweight mass (drive), force at a haul (drive), mass at a
     // block (load); chain-plain joins the workshop hoist's group.
     assert!(text.contains("3 groups"), "{text}");
@@ -1049,7 +1102,7 @@ fn compare_groups_columns_by_the_asked_quantity_and_never_mixes_units_in_a_chang
         forward[1].contains("2229 N") && forward[1].contains("(-89.5 %)"),
         "{text}"
     );
-    let v = json(&[&args[..], &["--json"]].concat());
+    let v = json_of(&[&args[..], &["--json"]].concat());
     let groups = v["groups"].as_array().unwrap();
     assert_eq!(groups.len(), 3);
     assert_eq!(groups[1]["columns"], serde_json::json!([1, 3]));
@@ -1059,14 +1112,14 @@ fn compare_groups_columns_by_the_asked_quantity_and_never_mixes_units_in_a_chang
         0.0,
         "its own group's reference"
     );
-    let csv = ok(&[&args[..], &["--format", "csv"]].concat());
+    let csv = stdout_of(&[&args[..], &["--format", "csv"]].concat());
     assert_eq!(
         csv.lines().filter(|l| l.starts_with("figure,unit")).count(),
         3,
         "{csv}"
     );
     // One group: one table, as before.
-    let one = ok(&[
+    let one = stdout_of(&[
         "compare",
         "rigs/workshop-hoist.yaml",
         "tests/rigs/chain-plain.yaml",
@@ -1095,9 +1148,9 @@ fn spread_words_the_share_not_moving_for_a_counterweight() {
 fn spread_over_a_rig_with_no_ranges_is_refused() {
     // Guards: with nothing given as a range every sample is the same rig; say so
     // (exit 2) instead of printing identical percentiles.
-    let out = run(&["spread", "rigs/workshop-hoist.yaml", "--samples", "10"]);
-    assert_eq!(out.status.code(), Some(2));
-    let err = String::from_utf8_lossy(&out.stderr);
+    let out = reeve(&["spread", "rigs/workshop-hoist.yaml", "--samples", "10"]);
+    assert_eq!(out.code, 2);
+    let err = &out.stderr;
     assert!(
         err.contains("nothing to spread") && err.contains("{min:"),
         "{err}"
@@ -1107,11 +1160,11 @@ fn spread_over_a_rig_with_no_ranges_is_refused() {
 #[test]
 fn a_sweep_between_equal_ends_is_refused() {
     // Guards: `--vary KEY=A..A` over several steps would print identical rows.
-    let path = rig("chain-plain.yaml");
-    let out = run(&["sweep", &path, "--vary", "parts.top.1.bearing.mu=0.2..0.2"]);
-    assert_eq!(out.status.code(), Some(2));
-    assert!(String::from_utf8_lossy(&out.stderr).contains("nothing to sweep"));
-    ok(&[
+    let path = test_rig("chain-plain.yaml");
+    let out = reeve(&["sweep", &path, "--vary", "parts.top.1.bearing.mu=0.2..0.2"]);
+    assert_eq!(out.code, 2);
+    assert!(out.stderr.contains("nothing to sweep"));
+    stdout_of(&[
         "sweep",
         &path,
         "--vary",
@@ -1119,4 +1172,125 @@ fn a_sweep_between_equal_ends_is_refused() {
         "--steps",
         "1",
     ]);
+}
+
+// ------------------------------------------ bounded work and located errors
+
+#[test]
+fn spread_with_an_absurd_sample_count_is_refused() {
+    // Guards against unbounded work: a sample count near u64::MAX is refused, exit 2,
+    // naming `--samples`, instead of aborting.
+    let dir = Scratch::new("samples");
+    dir.write("rig.yaml", ONE_SHEAVE);
+    let out = reeve_in(
+        &dir,
+        &["spread", "rig.yaml", "--samples", "18446744073709551615"],
+    );
+    assert_eq!(out.code, 2, "{}", out.stderr);
+    assert!(out.stderr.contains("--samples"), "{}", out.stderr);
+}
+
+#[test]
+fn sweep_with_an_absurd_step_count_is_refused() {
+    // Guards against unbounded work: 1e11 steps are refused, exit 2, naming `--steps`, for
+    // a sweep of a key and for a stroke.
+    let dir = Scratch::new("steps-huge");
+    dir.write("rig.yaml", ONE_SHEAVE);
+    for mode in [
+        ["--vary", "parts.s.bearing.mu=0.05..0.2"],
+        ["--stroke", "100"],
+    ] {
+        let out = reeve_in(
+            &dir,
+            &[
+                "sweep",
+                "rig.yaml",
+                mode[0],
+                mode[1],
+                "--steps",
+                "100000000000",
+            ],
+        );
+        assert_eq!(out.code, 2, "{mode:?}: {}", out.stderr);
+        assert!(out.stderr.contains("--steps"), "{}", out.stderr);
+    }
+}
+
+#[test]
+fn sweep_with_zero_steps_is_refused() {
+    // Guards against an empty sweep: `--steps 0` is refused, exit 2, for a sweep of a key
+    // and for a stroke.
+    let dir = Scratch::new("steps-zero");
+    dir.write("rig.yaml", ONE_SHEAVE);
+    for mode in [
+        ["--vary", "parts.s.bearing.mu=0.05..0.2"],
+        ["--stroke", "100"],
+    ] {
+        let out = reeve_in(
+            &dir,
+            &["sweep", "rig.yaml", mode[0], mode[1], "--steps", "0"],
+        );
+        assert_eq!(out.code, 2, "{mode:?}: {}", out.stderr);
+        assert!(out.stderr.contains("--steps"), "{}", out.stderr);
+    }
+}
+
+#[test]
+fn sweep_of_a_key_that_never_solves_is_bad_input() {
+    // Guards the exit code of a sweep whose steps can never solve (a part that does not
+    // exist, a value in the wrong unit): bad input, exit 2, naming the file, no table; a
+    // range that solves in part still sweeps.
+    let dir = Scratch::new("vary-bad");
+    dir.write("rig.yaml", ONE_SHEAVE);
+    // A part that does not exist, and a value with the wrong unit: no step can solve.
+    for vary in ["parts.nope.mu=1..2", "parts.s.diameter=10kg..20kg"] {
+        let out = reeve_in(&dir, &["sweep", "rig.yaml", "--vary", vary, "--steps", "3"]);
+        assert_eq!(out.code, 2, "{vary}: {}", out.stderr);
+        assert!(out.stderr.contains("rig.yaml"), "{}", out.stderr);
+        assert!(out.stdout.is_empty(), "{vary}: a table was printed");
+    }
+    // A range that is valid only in part still sweeps, showing where it fails.
+    let out = reeve_in(
+        &dir,
+        &[
+            "sweep",
+            "rig.yaml",
+            "--vary",
+            "parts.s.bearing.mu=-0.1..0.2",
+            "--steps",
+            "3",
+        ],
+    );
+    assert_eq!(out.code, 0, "{}", out.stderr);
+}
+
+#[test]
+fn studies_locate_solve_errors_like_check() {
+    // Guards located solve errors in the studies: rank, spread, compare and sweep name the
+    // file, line and column of the part, as check does.
+    let dir = Scratch::new("study-locate");
+    // A line tied at both ends: it loads, but the solver finds that nothing can move.
+    let rig = "format: 1\nropes:\n  r: {diameter: 6, mu: 0.2}\nparts:\n  a: {kind: anchor, at: [0, 0, 2000]}\n  h: {kind: haul, at: [0, 0, 0]}\nlines:\n  l: {rope: r, path: [a, h]}\n";
+    std::fs::write(dir.join("rig.yaml"), rig).unwrap();
+    let check = reeve_in(&dir, &["check", "rig.yaml"]);
+    assert_eq!(check.code, 2);
+    assert!(
+        check.stderr.contains("rig.yaml:6:3: parts.h:"),
+        "{}",
+        check.stderr
+    );
+    for args in [
+        &["rank", "rig.yaml"][..],
+        &["spread", "rig.yaml", "--samples", "3"],
+        &["compare", "rig.yaml"],
+        &["sweep", "rig.yaml", "--stroke", "10"],
+    ] {
+        let out = reeve_in(&dir, args);
+        assert_eq!(out.code, 2, "{args:?}");
+        assert!(
+            out.stderr.contains("rig.yaml:6:3: parts.h:"),
+            "{args:?}: {}",
+            out.stderr
+        );
+    }
 }

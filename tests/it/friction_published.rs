@@ -19,13 +19,7 @@ use reeve::friction::{
 use reeve::math::Vector;
 use reeve::rig::model::{Bearing, Contact, Thrust};
 
-/// Asserts `measured` is within `tolerance` of `expected`, naming the check.
-fn check(what: &str, measured: f64, expected: f64, tolerance: f64) {
-    assert!(
-        (measured - expected).abs() <= tolerance,
-        "{what}: measured {measured}, expected {expected} ± {tolerance}"
-    );
-}
+use crate::support::assert_abs;
 
 fn down() -> Vector {
     -Vector::y()
@@ -47,13 +41,13 @@ fn beer_johnston_sample_problem_pulley_on_fixed_shaft() {
     // (a) Both spans vertical, P the tight side.
     // Hand calculation: P (2 − 0.2) = 500 (2 + 0.2) → P = 611.11 lb.
     let p = tight_tension(w, &down(), &down(), &zero, r_f, r_pitch).unwrap();
-    check("B&J SP 8.6(a) raise, vertical P", p, 611.0, 0.5);
-    check("B&J SP 8.6(a) hand calculation", p, 500.0 * 2.2 / 1.8, 1e-9);
+    assert_abs("B&J SP 8.6(a) raise, vertical P", p, 611.0, 0.5);
+    assert_abs("B&J SP 8.6(a) hand calculation", p, 500.0 * 2.2 / 1.8, 1e-9);
     // (b) Holding: the load's span is tight, P the slack side.
     // Hand calculation: P (2 + 0.2) = 500 (2 − 0.2) → P = 409.09 lb.
     let p = slack_tension(w, &down(), &down(), &zero, r_f, r_pitch).unwrap();
-    check("B&J SP 8.6(b) hold, vertical P", p, 409.0, 0.5);
-    check("B&J SP 8.6(b) hand calculation", p, 500.0 * 1.8 / 2.2, 1e-9);
+    assert_abs("B&J SP 8.6(b) hold, vertical P", p, 409.0, 0.5);
+    assert_abs("B&J SP 8.6(b) hand calculation", p, 500.0 * 1.8 / 2.2, 1e-9);
     // (c) P horizontal, load hanging: the spans are 90° apart (wrap 90°).
     // Hand calculation (the book's construction): the resultant passes through the
     // spans' intersection at 2√2 in from the centre and touches the friction circle,
@@ -61,13 +55,13 @@ fn beer_johnston_sample_problem_pulley_on_fixed_shaft() {
     // P = W cot 40.945° = 576.30 lb.
     let horizontal = Vector::x();
     let p = tight_tension(w, &horizontal, &down(), &zero, r_f, r_pitch).unwrap();
-    check("B&J SP 8.6(c) raise, horizontal P", p, 576.0, 0.5);
+    assert_abs("B&J SP 8.6(c) raise, horizontal P", p, 576.0, 0.5);
     let angle = PI / 4.0 - (0.2 / (2.0 * 2f64.sqrt())).asin();
-    check("B&J SP 8.6(c) hand calculation", p, w / angle.tan(), 1e-9);
+    assert_abs("B&J SP 8.6(c) hand calculation", p, w / angle.tan(), 1e-9);
     // The exact friction circle r sin(atan μ) = 0.196 12 in differs from the book's
     // approximation by under 2 %, and lowers the raising force a little.
     let exact = friction_circle_radius(1.0, 0.20);
-    check("r sin(atan 0.2)", exact, 0.196_116, 1e-6);
+    assert_abs("r sin(atan 0.2)", exact, 0.196_116, 1e-6);
     let p_exact = tight_tension(w, &down(), &down(), &zero, exact, r_pitch).unwrap();
     assert!(
         p_exact < 611.2 && p_exact > 605.0,
@@ -84,10 +78,10 @@ fn hibbeler_8_120_pulley_weight_in_the_pin_load() {
     let r_f = friction_circle_radius(0.5, 0.20); // in
     let weight = 4.0 * down();
     let p = tight_tension(20.0, &down(), &down(), &weight, r_f, 6.0).unwrap();
-    check("Hibbeler 8-120 P", p, 20.7, 0.05);
+    assert_abs("Hibbeler 8-120 P", p, 20.7, 0.05);
     // Hand calculation: r_f = 0.5 × 0.2/√1.04 = 0.098 058 in;
     // (P − 20) 6 = r_f (P + 20 + 4) → P = (120 + 24 r_f)/(6 − r_f) = 20.7310 lb.
-    check(
+    assert_abs(
         "Hibbeler 8-120 hand calculation",
         p,
         (120.0 + 24.0 * r_f) / (6.0 - r_f),
@@ -95,7 +89,7 @@ fn hibbeler_8_120_pulley_weight_in_the_pin_load() {
     );
     // Without its weight the pulley would need less: k(180°) × 20 lb.
     let light = tight_tension(20.0, &down(), &down(), &Vector::zeros(), r_f, 6.0).unwrap();
-    check(
+    assert_abs(
         "weightless pulley",
         light,
         20.0 * sheave_ratio(r_f / 6.0, PI),
@@ -133,18 +127,18 @@ fn sheave_weight_against_brute_force_scan() {
         t += step;
     }
     let scanned = found.expect("the scan finds a sign change");
-    check("tight tension vs brute-force scan", solved, scanned, 1e-6);
+    assert_abs("tight tension vs brute-force scan", solved, scanned, 1e-6);
 
     // Fixed point T ← T_s + (r_f/R)|T u_t + c|: a contraction with factor r_f/R < 1.
     let mut t = slack;
     for _ in 0..200 {
         t = slack + r_f / r * (t * u_t + slack * u_s + weight).norm();
     }
-    check("tight tension vs fixed-point iteration", solved, t, 1e-9);
+    assert_abs("tight tension vs fixed-point iteration", solved, t, 1e-9);
 
     // The reverse case: the same sheave turning the other way.
     let back = slack_tension(solved, &u_t, &u_s, &weight, r_f, r).unwrap();
-    check("slack tension inverts tight tension", back, slack, 1e-9);
+    assert_abs("slack tension inverts tight tension", back, slack, 1e-9);
 }
 
 // ---------------------------------------------------------------------------------
@@ -157,10 +151,10 @@ fn sheave_weight_against_brute_force_scan() {
 fn rated_sheave_k_1_09() {
     let rho = rho_from_factor(1.09);
     // Hand calculation: ρ = 0.09/2.09 = 0.043 062 2.
-    check("rho from K = 1.09", rho, 0.043_062_2, 1e-7);
+    assert_abs("rho from K = 1.09", rho, 0.043_062_2, 1e-7);
     // k(180°) gives back the rating: (1 + ρ)/(1 − ρ) = K (DESIGN.md §1).
-    check("k(180°) = K", sheave_ratio(rho, PI), 1.09, 1e-12);
-    check(
+    assert_abs("k(180°) = K", sheave_ratio(rho, PI), 1.09, 1e-12);
+    assert_abs(
         "k(180°) closed form",
         sheave_ratio(rho, PI),
         (1.0 + rho) / (1.0 - rho),
@@ -174,14 +168,14 @@ fn rated_sheave_k_1_09() {
             Vector::new((PI - phi).sin(), -(PI - phi).cos(), 0.0),
         );
         let slack = slack_tension(1000.0, &u_t, &u_s, &Vector::zeros(), rho, 1.0).unwrap();
-        check("k(φ) × (T_s/T_t) = 1", k * slack / 1000.0, 1.0, 1e-12);
+        assert_abs("k(φ) × (T_s/T_t) = 1", k * slack / 1000.0, 1.0, 1e-12);
         let tight = tight_tension(1000.0, &u_t, &u_s, &Vector::zeros(), rho, 1.0).unwrap();
-        check("tight tension / slack = k(φ)", tight / 1000.0, k, 1e-12);
+        assert_abs("tight tension / slack = k(φ)", tight / 1000.0, k, 1e-12);
     }
     // Smaller wraps lose less: k rises monotonically with wrap up to 180°.
     assert!(sheave_ratio(rho, PI / 2.0) < sheave_ratio(rho, PI));
     // Efficiency 1/K: η = 0.917 431 → K = 1.09.
-    check(
+    assert_abs(
         "K from efficiency",
         factor_from_efficiency(1.0 / 1.09).unwrap(),
         1.09,
@@ -204,8 +198,8 @@ fn two_part_tackle_matches_reeving_efficiency() {
     let e = (kk.powf(n) - 1.0) / (kk.powf(s) * n * (kk - 1.0));
     // Hand calculation: E = (1.1881 − 1)/(1.1881 × 2 × 0.09) = 0.879 556;
     // W/(N E) = 568.469 N.
-    check("reeving efficiency", e, 0.879_556, 1e-6);
-    check("hauling pull vs handbook formula", pull, w / (n * e), 1e-9);
+    assert_abs("reeving efficiency", e, 0.879_556, 1e-6);
+    assert_abs("hauling pull vs handbook formula", pull, w / (n * e), 1e-9);
 }
 
 // ---------------------------------------------------------------------------------
@@ -219,14 +213,14 @@ fn two_part_tackle_matches_reeving_efficiency() {
 #[test]
 fn hibbeler_cord_over_pipe() {
     let weight = 250.0 * 9.81;
-    check(
+    assert_abs(
         "Hibbeler 8-83(a)",
         weight / capstan_ratio(0.2, None, PI),
         1308.38,
         0.01,
     );
     let wrap = total_wrap(PI, 1);
-    check(
+    assert_abs(
         "Hibbeler 8-83(b)",
         weight / capstan_ratio(0.2, None, wrap),
         372.38,
@@ -234,13 +228,13 @@ fn hibbeler_cord_over_pipe() {
     );
     // Largest F before the cylinder rises: hand calculation 2452.5 e^(0.2π) = 4597.10 N
     // and 2452.5 e^(0.6π) = 16 152.3 N.
-    check(
+    assert_abs(
         "largest F, 180°",
         weight * capstan_ratio(0.2, None, PI),
         4597.10,
         0.01,
     );
-    check(
+    assert_abs(
         "largest F, 540°",
         weight * capstan_ratio(0.2, None, wrap),
         16_152.3,
@@ -255,12 +249,12 @@ fn hibbeler_cord_over_pipe() {
 #[test]
 fn hibbeler_two_and_a_half_turns() {
     let wrap = total_wrap(PI, 2);
-    check("2.5 turns = 5π", wrap, 5.0 * PI, 1e-12);
+    assert_abs("2.5 turns = 5π", wrap, 5.0 * PI, 1e-12);
     // μ = ln(196.2/25)/(5π) = 0.131 16.
     let mu = (20.0 * 9.81 / 25.0_f64).ln() / wrap;
-    check("μ from holding force", mu, 0.131, 0.0005);
+    assert_abs("μ from holding force", mu, 0.131, 0.0005);
     // The solution carries the rounded μ = 0.131 into the second part.
-    check(
+    assert_abs(
         "P with μ = 0.131",
         20.0 * 9.81 * capstan_ratio(0.131, None, wrap),
         1535.91,
@@ -274,14 +268,14 @@ fn hibbeler_two_and_a_half_turns() {
 #[test]
 fn pickedshares_rope_round_a_pole() {
     let f = 100.0 * 9.81 / capstan_ratio(0.2, None, 1.5 * PI);
-    check("pickedshares ex. 27", f, 382.26, 0.01);
+    assert_abs("pickedshares ex. 27", f, 382.26, 0.01);
 }
 
 /// Beer & Johnston, *Statics*, problem 8.115 (brake drum; the published solution
 /// manual's intermediate value): `e^(0.25 π) = 2.1933` for μ_k = 0.25 over 180°.
 #[test]
 fn beer_johnston_brake_band_ratio() {
-    check(
+    assert_abs(
         "B&J 8.115 ratio",
         capstan_ratio(0.25, None, PI),
         2.1933,
@@ -294,7 +288,7 @@ fn beer_johnston_brake_band_ratio() {
 #[test]
 fn turns_on_a_bollard() {
     let one_and_a_half = total_wrap(PI, 1);
-    check(
+    assert_abs(
         "1.5 turns, μ 0.35",
         50.0 * capstan_ratio(0.35, None, one_and_a_half),
         1353.83,
@@ -303,7 +297,7 @@ fn turns_on_a_bollard() {
     for turns in 0..5 {
         let with = capstan_ratio(0.35, None, total_wrap(PI, turns + 1));
         let without = capstan_ratio(0.35, None, total_wrap(PI, turns));
-        check(
+        assert_abs(
             "one more turn",
             with / without,
             (0.35 * 2.0 * PI).exp(),
@@ -318,7 +312,7 @@ fn turns_on_a_bollard() {
 #[test]
 fn v_groove_wedge_factor() {
     // Hand calculation: a 60° groove doubles μ (sin 30° = 1/2).
-    check(
+    assert_abs(
         "60° groove",
         effective_mu(0.15, Some(60f64.to_radians())),
         0.30,
@@ -326,10 +320,10 @@ fn v_groove_wedge_factor() {
     );
     // Hand calculation: 38° groove, μ = 0.25: 0.25/sin 19° = 0.767 888.
     let mu = effective_mu(0.25, Some(38f64.to_radians()));
-    check("38° groove", mu, 0.767_888, 1e-6);
+    assert_abs("38° groove", mu, 0.767_888, 1e-6);
     // Over 180°: e^(0.767 888 π) = 11.170; a round groove gives e^(0.25π) = 2.193.
     let vee = capstan_ratio(0.25, Some(38f64.to_radians()), PI);
-    check(
+    assert_abs(
         "38° groove over 180°",
         vee,
         (0.767_888_371_7 * PI).exp(),
@@ -359,7 +353,7 @@ fn thrust(load: f64, d: f64, di: f64, mu: f64, contact: Contact, cone: Option<f6
 #[test]
 fn hibbeler_collar_si() {
     let collar = thrust(5000.0, 0.200, 0.150, 0.3, Contact::New, None);
-    check(
+    assert_abs(
         "Hibbeler collar, uniform pressure",
         moment(&collar),
         132.14,
@@ -374,7 +368,7 @@ fn hibbeler_collar_si() {
 #[test]
 fn hibbeler_collar_us() {
     let collar = thrust(800.0, 4.0, 2.0, 0.35, Contact::New, None);
-    check("Hibbeler collar, lb·in", moment(&collar), 435.5, 0.1);
+    assert_abs("Hibbeler collar, lb·in", moment(&collar), 435.5, 0.1);
 }
 
 /// Hibbeler, *Statics*, §8.6 (chapter 8, exercise 109, worked at questionai.com): an
@@ -383,9 +377,9 @@ fn hibbeler_collar_us() {
 #[test]
 fn hibbeler_floor_polisher_disk() {
     let disk = thrust(80.0, 2.0, 0.0, 0.3, Contact::New, None);
-    check("disk friction moment", moment(&disk), 16.0, 1e-9);
+    assert_abs("disk friction moment", moment(&disk), 16.0, 1e-9);
     // Meriam & Kraige, *Statics*, disk friction (from memory): M = (2/3) μ P R.
-    check(
+    assert_abs(
         "solid pivot r_eff = 2R/3",
         effective_radius(&disk),
         2.0 / 3.0,
@@ -404,8 +398,8 @@ fn conical_pivot_example() {
                                          // Uniform pressure: T = (2/3) μ W R cosec α = (2/3)(0.03)(20 000)(0.075)/0.866 025
                                          // = 34.641 N·m; power = 34.641 × 20.944 = 725.52 W.
     let new = thrust(20e3, 0.150, 0.0, 0.03, Contact::New, alpha);
-    check("cone, uniform pressure, torque", moment(&new), 34.641, 1e-3);
-    check(
+    assert_abs("cone, uniform pressure, torque", moment(&new), 34.641, 1e-3);
+    assert_abs(
         "cone, uniform pressure, power",
         moment_dissipation(moment(&new), omega),
         725.52,
@@ -413,8 +407,8 @@ fn conical_pivot_example() {
     );
     // Uniform wear: T = (1/2) μ W R cosec α = 25.981 N·m; power = 544.14 W.
     let worn = thrust(20e3, 0.150, 0.0, 0.03, Contact::Worn, alpha);
-    check("cone, uniform wear, torque", moment(&worn), 25.981, 1e-3);
-    check(
+    assert_abs("cone, uniform wear, torque", moment(&worn), 25.981, 1e-3);
+    assert_abs(
         "cone, uniform wear, power",
         moment_dissipation(moment(&worn), omega),
         544.14,
@@ -422,7 +416,7 @@ fn conical_pivot_example() {
     );
     // The same pivot made flat loses sin 60° less.
     let flat = thrust(20e3, 0.150, 0.0, 0.03, Contact::New, None);
-    check(
+    assert_abs(
         "flat vs cone",
         moment(&flat) / moment(&new),
         60f64.to_radians().sin(),
@@ -441,13 +435,13 @@ fn helicopter_shaft_collars() {
     // T = 0.05 × 94 247.8 × 0.126 667 = 596.90 N·m; P = T × 4π = 7500.9 W.
     let load = 6.0 * 0.4e6 * PI / 4.0 * (0.300_f64.powi(2) - 0.200_f64.powi(2));
     let collars = thrust(load, 0.300, 0.200, 0.05, Contact::New, None);
-    check("collar r_eff", effective_radius(&collars), 0.126_667, 1e-6);
-    check("collar torque", moment(&collars), 596.90, 0.01);
+    assert_abs("collar r_eff", effective_radius(&collars), 0.126_667, 1e-6);
+    assert_abs("collar torque", moment(&collars), 596.90, 0.01);
     let power = moment_dissipation(moment(&collars), 120.0 * 2.0 * PI / 60.0);
-    check("collar power, W", power, 7500.0, 10.0);
+    assert_abs("collar power, W", power, 7500.0, 10.0);
     // Uniform wear, same collars: r_eff = (150 + 100)/2 = 125 mm.
     let worn = thrust(load, 0.300, 0.200, 0.05, Contact::Worn, None);
-    check("worn collar r_eff", effective_radius(&worn), 0.125, 1e-12);
+    assert_abs("worn collar r_eff", effective_radius(&worn), 0.125, 1e-12);
 }
 
 // ---------------------------------------------------------------------------------
@@ -460,13 +454,13 @@ fn helicopter_shaft_collars() {
 #[test]
 fn deep_groove_ball_bearing_catalogue_moment() {
     // Hand calculation: 0.5 × 0.0015 × 1000 N × 0.010 m = 0.0075 N·m.
-    check(
+    assert_abs(
         "M = 0.5 μ P d",
         friction_moment(0.010, 0.0015, 1000.0),
         0.0075,
         1e-15,
     );
-    check(
+    assert_abs(
         "r_f = μ d / 2",
         friction_radius(0.010, 0.0015),
         7.5e-6,
@@ -483,7 +477,7 @@ fn deep_groove_ball_bearing_catalogue_moment() {
         resistance,
         BearingResistance::FrictionCircle { radius: 7.5e-6 }
     );
-    check(
+    assert_abs(
         "rolling sheave k(180°)",
         sheave_ratio(resistance.rho(0.033), PI),
         1.000_454_6,
@@ -497,7 +491,7 @@ fn deep_groove_ball_bearing_catalogue_moment() {
         mu_static: None,
     };
     let rho = bearing_resistance(&plain, false).rho(0.033);
-    check(
+    assert_abs(
         "plain sheave k(180°)",
         sheave_ratio(rho, PI),
         1.036_768,

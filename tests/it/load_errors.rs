@@ -1,32 +1,13 @@
 //! Every class of rig-file error names the file, line and the part or key, says what was
-//! expected, and never panics. The base rig is the example of DESIGN.md section 4.
+//! expected, and never panics. The base rig is the example of DESIGN.md section 4
+//! ([`EXAMPLE`], `tests/rigs/design-example.yaml`).
 
 use std::time::{Duration, Instant};
 
 use proptest::prelude::*;
 use reeve::rig::{load_file, load_str, load_str_with, LoadError};
 
-const EXAMPLE: &str = "\
-format: 1
-title: Two-part hoist for a workshop hatch
-units: {length: mm, force: N, mass: kg, torque: N*m}  # defaults for bare numbers
-gravity: [0, 0, -1]            # direction only (default -Z); g = 9.80665 m/s^2
-limits: {fleet_angle: 1.5, design_factor: 5}          # degrees; ratio
-ropes:
-  braid6: {diameter: 6, breaking_strength: 7.5 kN, mu: 0.2, min_bend_ratio: 8}
-parts:
-  eye:    {kind: anchor, at: [0, 0, 2400]}
-  head:   {kind: sheave, at: [120, 0, 2400], axle: [0, 1, 0], diameter: 60,
-           bearing: {kind: plain, pin_diameter: 10, mu: 0.12}}
-  hook:   {kind: block, at: [60, 0, 900], moves: [0, 0, 1], load: {mass: 40}}
-  hook.a: {kind: sheave, block: hook, at: [60, 0, 900], axle: [0, 1, 0], diameter: 60,
-           bearing: {kind: rolling, bore: 10, mu: 0.0015}}
-  hand:   {kind: haul, at: [400, 0, 1000]}
-lines:
-  fall: {rope: braid6, path: [eye, hook.a, head, hand]}
-drive: hand          # the part whose forward motion drives the rig (default: the only haul)
-solve_for: hand      # the part whose natural quantity is unknown (default: the drive)
-";
+use crate::support::{assert_abs, Scratch, EXAMPLE};
 
 /// The example with one piece of text replaced (which must occur).
 fn with(from: &str, to: &str) -> String {
@@ -379,12 +360,9 @@ fn leading_bom_is_stripped() {
     let rig = load_str(&format!("\u{feff}{EXAMPLE}"), "rig.yaml").unwrap();
     assert_eq!(rig.parts.len(), 5);
     // And a file on disk with a BOM loads too.
-    let dir = std::env::temp_dir().join(format!("reeve-load-{}", std::process::id()));
-    std::fs::create_dir_all(&dir).unwrap();
-    let path = dir.join("bom.yaml");
-    std::fs::write(&path, format!("\u{feff}{EXAMPLE}")).unwrap();
+    let dir = Scratch::new("bom");
+    let path = dir.write("bom.yaml", &format!("\u{feff}{EXAMPLE}"));
     assert!(load_file(&path).is_ok());
-    let _ = std::fs::remove_dir_all(&dir);
 }
 
 #[test]
@@ -440,6 +418,7 @@ fn all_problems_are_collected() {
         .iter()
         .filter_map(|p| p.location.map(|l| l.line))
         .collect();
+    assert_eq!(lines.len(), e.problems.len(), "every problem is located");
     assert!(lines.windows(2).all(|w| w[0] <= w[1]), "{lines:?}");
 }
 
@@ -484,11 +463,16 @@ fn overrides_apply_by_the_files_own_keys() {
     };
     assert_eq!(hook.load, Some(BlockLoad::Mass(60.0)));
     assert_eq!(rig.ropes[0].mu, 0.1);
-    assert!((rig.limits.fleet_angle - 2f64.to_radians()).abs() < 1e-15);
+    assert_abs(
+        "fleet angle limit, rad",
+        rig.limits.fleet_angle,
+        2f64.to_radians(),
+        1e-15,
+    );
     let PartKind::Sheave(a) = &rig.parts[3].kind else {
         panic!()
     };
-    assert!((a.tread_diameter - 0.08).abs() < 1e-15);
+    assert_abs("hook.a tread, m", a.tread_diameter, 0.08, 1e-15);
     let PartKind::Haul(h) = &rig.parts[4].kind else {
         panic!()
     };

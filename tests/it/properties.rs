@@ -8,14 +8,18 @@
 //! weights, a guide, and optionally a runner tackle on the hauling part (a compound
 //! rig with two lines). Source of the invariants: principle of virtual work and the
 //! work–energy balance (any statics text, e.g. Beer & Johnston, *Statics*, ch. 10);
-//! DESIGN.md §§1–3.
+//! DESIGN.md §§1–3. The energy audit is also checked on every small rig in
+//! `tests/rigs/review/`.
 
 use std::collections::BTreeMap;
 
+use approx::relative_eq;
 use proptest::prelude::*;
 use reeve::math::STANDARD_GRAVITY;
 use reeve::rig::load_str;
 use reeve::solve::{solve, Case, Solution, SolveOptions, Status};
+
+use crate::support::{assert_rel, audit_ok, solve_test_rig, solve_text, test_rig};
 
 type V3 = [f64; 3];
 
@@ -439,11 +443,6 @@ fn params_strategy(with_mass: bool) -> impl Strategy<Value = Params> {
         )
 }
 
-fn solve_text(text: &str) -> Solution {
-    let rig = load_str(text, "random.yaml").unwrap_or_else(|e| panic!("{e}\n{text}"));
-    solve(&rig, &SolveOptions::default()).unwrap_or_else(|e| panic!("{e}\n{text}"))
-}
-
 /// Tensions by (line name, span index) for every case.
 fn tensions(text: &str, s: &Solution) -> BTreeMap<(String, usize, &'static str), f64> {
     let rig = load_str(text, "random.yaml").expect("loads");
@@ -456,10 +455,6 @@ fn tensions(text: &str, s: &Solution) -> BTreeMap<(String, usize, &'static str),
         }
     }
     out
-}
-
-fn close(a: f64, b: f64, rel: f64) -> bool {
-    (a - b).abs() <= rel * a.abs().max(b.abs()).max(1e-9)
 }
 
 proptest! {
@@ -482,9 +477,9 @@ proptest! {
         // A drum winding the hauling part needs the pull times its pitch radius 0.1 m.
         let expected = if p.drum.is_some() { 0.1 * expected } else { expected };
         let text = spec.plain();
-        let s = solve_text(&text);
+        let (_, s) = solve_text(&text);
         let ideal = s.main().ideal.value;
-        prop_assert!(close(ideal, expected, 1e-9), "ideal {} vs virtual work {}\n{}", ideal, expected, text);
+        prop_assert!(relative_eq!(ideal, expected, epsilon = 1e-18, max_relative = 1e-9), "ideal {} vs virtual work {}\n{}", ideal, expected, text);
         // Strip every friction: forward = back = ideal.
         let mut frictionless = spec.clone();
         for part in &mut frictionless.parts {
@@ -500,10 +495,10 @@ proptest! {
             }
         }
         let text = frictionless.plain();
-        let s = solve_text(&text);
+        let (_, s) = solve_text(&text);
         let m = s.main();
-        prop_assert!(close(m.forward.value, expected, 1e-9), "frictionless forward {} vs {}\n{}", m.forward.value, expected, text);
-        prop_assert!(close(m.back.value, expected, 1e-9), "frictionless back {} vs {}\n{}", m.back.value, expected, text);
+        prop_assert!(relative_eq!(m.forward.value, expected, epsilon = 1e-18, max_relative = 1e-9), "frictionless forward {} vs {}\n{}", m.forward.value, expected, text);
+        prop_assert!(relative_eq!(m.back.value, expected, epsilon = 1e-18, max_relative = 1e-9), "frictionless back {} vs {}\n{}", m.back.value, expected, text);
     }
 
     /// The energy audit balances to round-off in every case, and the fixed point
@@ -511,14 +506,14 @@ proptest! {
     #[test]
     fn energy_audit_balances(p in params_strategy(true)) {
         let text = build(&p).0.plain();
-        let s = solve_text(&text);
+        let (_, s) = solve_text(&text);
         for sub in &s.subrigs {
             for case in [&sub.ideal, &sub.forward, &sub.back] {
                 prop_assert!(case.audit_residual < 1e-9, "{}: audit residual {}\n{}", case.case.name(), case.audit_residual, text);
                 prop_assert!(matches!(case.status, Status::Converged { .. }), "{}: {:?}\n{}", case.case.name(), case.status, text);
                 let loss: f64 = case.loss.iter().sum();
                 let load: f64 = case.load_power.iter().sum();
-                prop_assert!(close(case.drive_power, load + loss, 1e-9),
+                prop_assert!(relative_eq!(case.drive_power, load + loss, epsilon = 1e-18, max_relative = 1e-9),
                     "{}: drive {} vs load {} + loss {}", case.case.name(), case.drive_power, load, loss);
                 for (part, l) in case.loss.iter().enumerate() {
                     prop_assert!(*l >= -1e-9 * case.drive_power.abs(), "{}: negative loss {} at part {}", case.case.name(), l, part);
@@ -534,7 +529,7 @@ proptest! {
         let mut p = p;
         p.load_unknown = load_unknown;
         let text = build(&p).0.plain();
-        let s = solve_text(&text);
+        let (_, s) = solve_text(&text);
         let m = s.main();
         let (i, f, b) = (m.ideal.value, m.forward.value, m.back.value);
         let slack = 1e-12 * i.abs();
@@ -552,18 +547,18 @@ proptest! {
     #[test]
     fn ratios_invert_between_forward_and_back(p in params_strategy(false)) {
         let text = build(&p).0.plain();
-        let s = solve_text(&text);
+        let (_, s) = solve_text(&text);
         let m = s.main();
         let rig = load_str(&text, "random.yaml").expect("loads");
         for (l, line) in rig.lines.iter().enumerate() {
             for e in 1..line.path.len() - 1 {
                 let along = |c: &reeve::solve::CaseResult| c.tension[l][e] / c.tension[l][e - 1];
                 let product = along(&m.forward) * along(&m.back);
-                prop_assert!(close(product, 1.0, 1e-9), "line {} entry {}: k_f·k_b = {}\n{}", line.name, e, product, text);
+                prop_assert!(relative_eq!(product, 1.0, epsilon = 1e-18, max_relative = 1e-9), "line {} entry {}: k_f·k_b = {}\n{}", line.name, e, product, text);
                 let (rf, rb) = (m.forward.ratio[l][e], m.back.ratio[l][e]);
                 prop_assert!(rf.is_some() && rb.is_some(), "ratio reported");
                 let (rf, rb) = (rf.unwrap_or(0.0), rb.unwrap_or(0.0));
-                prop_assert!(rf >= 1.0 - 1e-12 && close(rf, rb, 1e-9), "line {} entry {}: reported {} vs {}", line.name, e, rf, rb);
+                prop_assert!(rf >= 1.0 - 1e-12 && relative_eq!(rf, rb, epsilon = 1e-18, max_relative = 1e-9), "line {} entry {}: reported {} vs {}", line.name, e, rf, rb);
             }
         }
     }
@@ -583,15 +578,15 @@ proptest! {
         let lines: Vec<usize> = (0..spec.lines.len()).collect();
         let base = spec.plain();
         let moved = spec.render(&Rigid::new(theta, phi, angle, shift), &parts, &lines);
-        let (s0, s1) = (solve_text(&base), solve_text(&moved));
+        let (s0, s1) = (solve_text(&base).1, solve_text(&moved).1);
         for case in [Case::Ideal, Case::Forward, Case::Back] {
             let (a, b) = (s0.main().case(case).value, s1.main().case(case).value);
-            prop_assert!(close(a, b, 1e-8), "{}: {} vs {} after rigid motion\n{}", case.name(), a, b, moved);
+            prop_assert!(relative_eq!(a, b, epsilon = 1e-17, max_relative = 1e-8), "{}: {} vs {} after rigid motion\n{}", case.name(), a, b, moved);
         }
         let (t0, t1) = (tensions(&base, &s0), tensions(&moved, &s1));
         for (key, a) in &t0 {
             let b = t1[key];
-            prop_assert!(close(*a, b, 1e-8), "{:?}: {} vs {} after rigid motion", key, a, b);
+            prop_assert!(relative_eq!(*a, b, epsilon = 1e-17, max_relative = 1e-8), "{:?}: {} vs {} after rigid motion", key, a, b);
         }
     }
 
@@ -616,15 +611,15 @@ proptest! {
         }
         let base = spec.plain();
         let shuffled = spec.render(&Rigid::identity(), &parts, &lines);
-        let (s0, s1) = (solve_text(&base), solve_text(&shuffled));
+        let (s0, s1) = (solve_text(&base).1, solve_text(&shuffled).1);
         for case in [Case::Ideal, Case::Forward, Case::Back] {
             let (a, b) = (s0.main().case(case).value, s1.main().case(case).value);
-            prop_assert!(close(a, b, 1e-10), "{}: {} vs {} after reordering\n{}", case.name(), a, b, shuffled);
+            prop_assert!(relative_eq!(a, b, epsilon = 1e-19, max_relative = 1e-10), "{}: {} vs {} after reordering\n{}", case.name(), a, b, shuffled);
         }
         let (t0, t1) = (tensions(&base, &s0), tensions(&shuffled, &s1));
         for (key, a) in &t0 {
             let b = t1[key];
-            prop_assert!(close(*a, b, 1e-10), "{:?}: {} vs {} after reordering", key, a, b);
+            prop_assert!(relative_eq!(*a, b, epsilon = 1e-19, max_relative = 1e-10), "{:?}: {} vs {} after reordering", key, a, b);
         }
     }
 
@@ -655,10 +650,10 @@ proptest! {
              \x20 haul: {{kind: haul, at: {}, pull: {}}}\nlines:\n  l: {{rope: r, path: [block, haul]}}\n",
             vec_text(gravity), vec_text(block), vec_text(moves), mass, vec_text(hand), vec_text(pull)
         );
-        let s = solve_text(&text);
+        let (_, s) = solve_text(&text);
         let expected = -mass * STANDARD_GRAVITY * dot(g, m) * dot(p, u) / dot(m, u);
         let ideal = s.main().ideal.value;
-        prop_assert!(close(ideal, expected, 1e-9), "ideal {} vs virtual work {}\n{}", ideal, expected, text);
+        prop_assert!(relative_eq!(ideal, expected, epsilon = 1e-18, max_relative = 1e-9), "ideal {} vs virtual work {}\n{}", ideal, expected, text);
     }
 }
 
@@ -710,6 +705,49 @@ proptest! {
                 let message = e.to_string();
                 prop_assert!(e.subject().1.is_some(), "unlocated: {}\n{}", message, text);
             }
+        }
+    }
+}
+
+#[test]
+fn every_review_rig_balances_its_energy() {
+    // Guards the energy audit and the inverse passage ratios on every small rig in
+    // tests/rigs/review/ (drums, stalls, load unknowns, sub-rigs), not only on random
+    // tackles.
+    // DESIGN.md §3 step 5: drive power = load power + losses, to round-off, in every
+    // case of every sub-rig; and where friction does not depend on the load (capstan
+    // bars, no own weight) the tension ratio of a passage is the same forward and back
+    // (k_forward · k_back = 1 as T_after/T_before).
+    let dir = test_rig("review");
+    let mut names: Vec<String> = std::fs::read_dir(&dir)
+        .unwrap()
+        .map(|e| e.unwrap().file_name().to_string_lossy().into_owned())
+        .filter(|n| n.ends_with(".yaml"))
+        .collect();
+    names.sort();
+    assert!(names.len() >= 12, "{names:?}");
+    for name in &names {
+        let (_, s) = solve_test_rig(&format!("review/{name}"));
+        audit_ok(&s);
+    }
+    for name in ["load-unknown-capstan.yaml", "two-subrigs.yaml"] {
+        let (_, s) = solve_test_rig(&format!("review/{name}"));
+        for sub in &s.subrigs {
+            let mut passages = 0;
+            for (l, entries) in sub.forward.ratio.iter().enumerate() {
+                for (e, r) in entries.iter().enumerate() {
+                    // A passage has a ratio in both cases, a line end in neither.
+                    match (r, sub.back.ratio[l][e]) {
+                        (Some(f), Some(b)) => {
+                            assert_rel(&format!("{name} {l} {e}"), *f, b, 1e-12);
+                            passages += 1;
+                        }
+                        (None, None) => {}
+                        other => panic!("{name} line {l} entry {e}: ratios {other:?}"),
+                    }
+                }
+            }
+            assert!(passages > 0, "{name}: a sub-rig without a passage ratio");
         }
     }
 }

@@ -4,8 +4,8 @@
 use reeve::rig::load_str;
 use reeve::solve::{solve, SolveOptions};
 
-mod common;
-use common::chain;
+use crate::support::generators::{chain, tackle};
+use crate::support::{assert_abs, assert_rel};
 
 #[test]
 fn a_long_capstan_chain_keeps_the_capstan_product() {
@@ -24,18 +24,19 @@ fn a_long_capstan_chain_keeps_the_capstan_product() {
         let main = solution.main();
         let expected_forward = weight * (mu * total_wrap).exp();
         let expected_back = weight * (-mu * total_wrap).exp();
-        let rel = |a: f64, b: f64| ((a - b) / b).abs();
-        assert!(
-            rel(main.forward.value, expected_forward) < 1e-9,
-            "{n} guides: forward {} vs capstan product {expected_forward}",
-            main.forward.value
+        assert_rel(
+            &format!("{n} guides: forward vs the capstan product"),
+            main.forward.value,
+            expected_forward,
+            1e-9,
         );
         // The back pull can be far below round-off of the load (1e-19 N against 10 N):
         // compare it to within round-off of the weight.
-        assert!(
-            (main.back.value - expected_back).abs() < 1e-9 * expected_back.max(weight * 1e-6),
-            "{n} guides: back {} vs capstan product {expected_back}",
-            main.back.value
+        assert_abs(
+            &format!("{n} guides: back vs the capstan product"),
+            main.back.value,
+            expected_back,
+            1e-9 * expected_back.max(weight * 1e-6),
         );
         assert!(
             main.forward.audit_residual < 1e-9,
@@ -53,7 +54,7 @@ fn the_benchmark_tackles_match_the_handbook_reeving_formula() {
     // moving block (N = sheaves + 1, S = N − 1). This keeps the benchmark's rigs honest.
     let (k, weight) = (1.04_f64, 500.0 * 9.80665);
     for sheaves in 1..=16 {
-        let rig = load_str(&common::tackle(sheaves), "tackle.yaml").unwrap();
+        let rig = load_str(&tackle(sheaves), "tackle.yaml").unwrap();
         let solution = solve(&rig, &SolveOptions::default()).unwrap();
         let forward = solution.main().forward.value;
         let (n, s) = if sheaves % 2 == 0 {
@@ -63,9 +64,11 @@ fn the_benchmark_tackles_match_the_handbook_reeving_formula() {
         };
         let e = (k.powi(n as i32) - 1.0) / (k.powi(s as i32) * n as f64 * (k - 1.0));
         let expected = weight / (n as f64 * e);
-        assert!(
-            ((forward - expected) / expected).abs() < 1e-9,
-            "{sheaves} sheaves ({n} parts): {forward} vs {expected}"
+        assert_rel(
+            &format!("{sheaves} sheaves ({n} parts)"),
+            forward,
+            expected,
+            1e-9,
         );
     }
 }

@@ -4,9 +4,10 @@
 //! exit codes: 0 clean, 1 when a check fails, 2 on a bad file.
 
 use std::path::{Path, PathBuf};
-use std::process::{Command, Output};
 
 use serde::Deserialize;
+
+use crate::support::{assert_abs, reeve, Scratch, ROOT};
 
 /// The warning codes (sorted, with repeats) and exit code each example rig is designed
 /// to give, from its header comment. A rig without an entry fails the test.
@@ -66,6 +67,7 @@ struct Span {
 }
 
 #[derive(Debug, Deserialize)]
+#[allow(dead_code)]
 struct ForwardBack {
     forward: Option<f64>,
     back: Option<f64>,
@@ -105,22 +107,6 @@ struct CheckJson {
     warnings: Vec<Warning>,
 }
 
-fn manifest() -> PathBuf {
-    PathBuf::from(env!("CARGO_MANIFEST_DIR"))
-}
-
-fn reeve(args: &[&str]) -> Output {
-    Command::new(env!("CARGO_BIN_EXE_reeve"))
-        .args(args)
-        .current_dir(manifest())
-        .output()
-        .expect("the reeve binary runs")
-}
-
-fn code(out: &Output) -> i32 {
-    out.status.code().expect("exit code, not a signal")
-}
-
 /// Every number anywhere in the document is finite (JSON cannot hold NaN, but a
 /// writer could print a huge or odd value; serde_json parses those as f64).
 fn all_finite(value: &serde_json::Value, at: &str) {
@@ -144,7 +130,7 @@ fn all_finite(value: &serde_json::Value, at: &str) {
 }
 
 fn example_rigs() -> Vec<PathBuf> {
-    let mut rigs: Vec<PathBuf> = std::fs::read_dir(manifest().join("rigs"))
+    let mut rigs: Vec<PathBuf> = std::fs::read_dir(Path::new(ROOT).join("rigs"))
         .expect("rigs/ is readable")
         .filter_map(|e| e.ok().map(|e| e.path()))
         .filter(|p| p.extension().is_some_and(|x| x == "yaml" || x == "yml"))
@@ -153,26 +139,104 @@ fn example_rigs() -> Vec<PathBuf> {
     rigs
 }
 
-fn check_rig(path: &Path) {
+/// What the checks of the example rigs exercised, so that the test can require each
+/// check to have been made on some rig rather than skipped on all of them.
+#[derive(Debug, Default)]
+struct Exercised {
+    /// Drums (not the drive) whose margin was checked against journal + thrust.
+    drum_margins: usize,
+    /// Rigs whose pin loads include a part's own weight.
+    own_weights: usize,
+}
+
+/// The pin loads of every part, in every case, sum to the weight of the parts that
+/// report one. Each span pulls its two ends towards each other with its one tension,
+/// so the forces the (massless) lines put on the parts cancel, whatever the friction;
+/// a part's pin load is that force plus its own weight (sheaves and drums with a
+/// `mass`). Returns whether any such weight took part.
+fn pin_loads_balance(rel: &str, path: &Path, value: &serde_json::Value) -> bool {
+    use reeve::math::Vector;
+    use reeve::rig::model::PartKind;
+    let rig = reeve::rig::load_file(path).unwrap_or_else(|e| panic!("{rel}: {e}"));
+    let own_mass = |name: &str| {
+        let part = rig.parts.iter().find(|p| p.name == name);
+        match part.map(|p| &p.kind) {
+            Some(PartKind::Sheave(s)) => s.mass.unwrap_or(0.0),
+            Some(PartKind::Drum(d)) => d.mass.unwrap_or(0.0),
+            Some(_) => 0.0,
+            None => panic!("{rel}: the JSON names part `{name}`, which the rig lacks"),
+        }
+    };
+    let gravity = rig.gravity.into_inner() * reeve::math::STANDARD_GRAVITY;
+    let parts = value["parts"].as_array().expect("parts");
+    let mut weighed = false;
+    for (case, load, direction) in [
+        (
+            "ideal",
+            &["pin_load_ideal_n"][..],
+            &["pin_load_direction_ideal"][..],
+        ),
+        (
+            "forward",
+            &["pin_load_n", "forward"],
+            &["pin_load_direction", "forward"],
+        ),
+        (
+            "back",
+            &["pin_load_n", "back"],
+            &["pin_load_direction", "back"],
+        ),
+    ] {
+        let at =
+            |p: &serde_json::Value, keys: &[&str]| keys.iter().fold(p.clone(), |v, k| v[k].clone());
+        let (mut sum, mut weight) = (Vector::zeros(), Vector::zeros());
+        let (mut scale, mut count) = (0.0, 0);
+        for p in parts {
+            let name = p["name"].as_str().expect("part name");
+            let (Some(f), Some(u)) = (at(p, load).as_f64(), at(p, direction).as_array().cloned())
+            else {
+                // A part no line touches (a block whose lines end on its sheaves).
+                assert!(
+                    at(p, load).is_null() && at(p, direction).is_null(),
+                    "{rel}: {name}: {case} pin load {p}"
+                );
+                continue;
+            };
+            let u = Vector::from_iterator(u.iter().map(|x| x.as_f64().expect("direction")));
+            assert_abs(
+                &format!("{rel}: {name}: {case} pin load direction, length"),
+                u.norm(),
+                1.0,
+                1e-9,
+            );
+            let m = own_mass(name);
+            sum += f * u;
+            weight += m * gravity;
+            scale += f;
+            count += 1;
+            weighed |= m > 0.0;
+        }
+        assert!(count > 0, "{rel}: no part reports a {case} pin load");
+        assert_abs(
+            &format!("{rel}: {case} pin loads summed less the parts' own weight, N"),
+            (sum - weight).norm(),
+            0.0,
+            1e-9 * scale,
+        );
+    }
+    weighed
+}
+
+fn check_rig(path: &Path, exercised: &mut Exercised) {
     let file = path.file_name().and_then(|f| f.to_str()).unwrap_or("?");
     let Some(&(_, codes, exit)) = EXPECTED.iter().find(|(name, _, _)| *name == file) else {
         panic!(
-            "rigs/{file} has no entry in EXPECTED in tests/rigs.rs: read its header comment \
+            "rigs/{file} has no entry in EXPECTED in tests/it/rigs.rs: read its header comment \
              and add the warning codes and exit code it is designed to give"
         );
     };
     let rel = format!("rigs/{file}");
-    let out = reeve(&["check", "--json", &rel]);
-    let stdout = String::from_utf8_lossy(&out.stdout);
-    let stderr = String::from_utf8_lossy(&out.stderr);
-    assert_eq!(
-        code(&out),
-        exit,
-        "{rel}: exit code {} (expected {exit}); stderr: {stderr}",
-        code(&out)
-    );
-    let value: serde_json::Value = serde_json::from_str(&stdout)
-        .unwrap_or_else(|e| panic!("{rel}: output is not JSON ({e}): {stdout}"));
+    let value = reeve(&["check", "--json", &rel]).expect_code(exit).json();
     all_finite(&value, &rel);
     // The energy audit (an extra key beyond §5) balances to round-off in every case.
     for case in ["ideal", "forward", "back"] {
@@ -182,20 +246,47 @@ fn check_rig(path: &Path) {
             "{rel}: energy audit {case} misfit {misfit:?}"
         );
     }
-    // Drum torques: the margin, where given, is "forward rope torque minus (load +
-    // drag): what journal and thrust take" (src/report), which the drum's moment
-    // balance makes equal to journal + thrust.
-    for drum in value["drums"].as_array().into_iter().flatten() {
-        if let Some(margin) = drum["margin_nm"].as_f64() {
-            let journal = drum["journal_nm"]["forward"].as_f64().unwrap_or(0.0);
-            let thrust = drum["thrust_nm"].as_f64().unwrap_or(0.0);
+    // Drum torques, one entry per drum part. The margin of a drum that is not the
+    // drive is "forward rope torque minus (load + drag): what journal and thrust take"
+    // (src/report), which the drum's moment balance makes equal to journal + thrust;
+    // the drive drum has none (its torque is the asked one).
+    let drums = value["drums"]
+        .as_array()
+        .unwrap_or_else(|| panic!("{rel}: no `drums` list"));
+    let drum_parts: Vec<&str> = value["parts"]
+        .as_array()
+        .expect("parts")
+        .iter()
+        .filter(|p| p["kind"] == "drum")
+        .map(|p| p["name"].as_str().unwrap())
+        .collect();
+    let drum_names: Vec<&str> = drums.iter().map(|d| d["name"].as_str().unwrap()).collect();
+    assert_eq!(drum_names, drum_parts, "{rel}: one `drums` entry per drum");
+    for drum in drums {
+        let name = drum["name"].as_str().unwrap();
+        let margin = drum["margin_nm"].as_f64();
+        if value["drive"] == name {
             assert!(
-                (margin - (journal + thrust)).abs() <= 1e-9 * (1.0 + margin.abs()),
-                "{rel}: drum {}: margin {margin} N·m, journal + thrust {} N·m",
-                drum["name"],
-                journal + thrust
+                margin.is_none(),
+                "{rel}: the drive drum `{name}` has a margin"
             );
+            continue;
         }
+        let margin = margin.unwrap_or_else(|| panic!("{rel}: drum `{name}` has no margin"));
+        let journal = drum["journal_nm"]["forward"]
+            .as_f64()
+            .expect("journal torque");
+        let thrust = drum["thrust_nm"].as_f64().expect("thrust torque");
+        assert_abs(
+            &format!("{rel}: drum `{name}`: margin vs journal + thrust, N·m"),
+            margin,
+            journal + thrust,
+            1e-9 * (1.0 + margin.abs()),
+        );
+        exercised.drum_margins += 1;
+    }
+    if pin_loads_balance(&rel, path, &value) {
+        exercised.own_weights += 1;
     }
     let json: CheckJson = serde_json::from_value(value)
         .unwrap_or_else(|e| panic!("{rel}: JSON misses a DESIGN.md §5 key ({e})"));
@@ -230,21 +321,20 @@ fn check_rig(path: &Path) {
             (t.ideal, t.forward, t.back)
         );
     }
+    // Loss shares: a rig that loses effort to friction (forward efficiency below 1)
+    // shares its loss out in full; one that does not has no share anywhere.
     let shares: f64 = json.parts.iter().filter_map(|p| p.loss_share).sum();
     let has_loss = json
         .parts
         .iter()
         .any(|p| p.loss_share.is_some_and(|s| s > 0.0));
+    assert_eq!(
+        has_loss,
+        e < 1.0,
+        "{rel}: loss shares {shares} with a forward efficiency of {e}"
+    );
     if has_loss {
-        assert!(
-            (shares - 1.0).abs() < 1e-9,
-            "{rel}: loss shares sum to {shares}"
-        );
-    }
-    for part in &json.parts {
-        if let Some(p) = part.pin_load_n.forward.or(part.pin_load_n.back) {
-            assert!(p >= 0.0, "{rel}: pin load of {}", part.name);
-        }
+        assert_abs(&format!("{rel}: loss shares summed"), shares, 1.0, 1e-9);
     }
     // Self-locking is what the values say (DESIGN.md §3).
     assert_eq!(
@@ -266,22 +356,28 @@ fn check_rig(path: &Path) {
     );
     // The text summary gives the same exit code.
     let text = reeve(&["check", &rel]);
-    assert_eq!(code(&text), exit, "{rel}: text mode exit code");
+    assert_eq!(text.code, exit, "{rel}: text mode exit code");
 }
 
 #[test]
 fn every_example_rig_solves_with_its_designed_warnings() {
     let rigs = example_rigs();
     assert!(rigs.len() >= 3, "expected the example rigs in rigs/");
+    let mut exercised = Exercised::default();
     for path in &rigs {
-        check_rig(path);
+        check_rig(path, &mut exercised);
     }
+    // Each conditional check above was made on some rig.
+    assert!(
+        exercised.drum_margins > 0 && exercised.own_weights > 0,
+        "{exercised:?}"
+    );
     // Every table entry names a rig that exists (catches renames).
     for (name, _, _) in EXPECTED {
         assert!(
             rigs.iter()
                 .any(|p| p.file_name().and_then(|f| f.to_str()) == Some(name)),
-            "tests/rigs.rs lists rigs/{name}, which does not exist"
+            "tests/it/rigs.rs lists rigs/{name}, which does not exist"
         );
     }
 }
@@ -295,13 +391,8 @@ fn a_drive_too_weak_exits_1() {
         "--set",
         "parts.winch.force=1 kN",
     ]);
-    assert_eq!(
-        code(&out),
-        1,
-        "stderr: {}",
-        String::from_utf8_lossy(&out.stderr)
-    );
-    let json: CheckJson = serde_json::from_slice(&out.stdout).expect("JSON");
+    let out = out.expect_code(1);
+    let json: CheckJson = serde_json::from_str(&out.stdout).expect("JSON");
     assert!(
         json.warnings.iter().any(|w| w.code == "cannot-move"),
         "warnings: {:?}",
@@ -311,10 +402,8 @@ fn a_drive_too_weak_exits_1() {
 
 #[test]
 fn a_bad_file_exits_2() {
-    let dir = std::env::temp_dir().join(format!("reeve-rigs-{}", std::process::id()));
-    std::fs::create_dir_all(&dir).expect("temp dir");
-    let bad = dir.join("bad.yaml");
-    std::fs::write(&bad, "format: 1\nparts: [this is not a rig\n").expect("write");
+    let dir = Scratch::new("rigs");
+    let bad = dir.write("bad.yaml", "format: 1\nparts: [this is not a rig\n");
     let bad = bad.to_string_lossy().to_string();
     for args in [
         vec!["check", bad.as_str()],
@@ -322,13 +411,7 @@ fn a_bad_file_exits_2() {
         vec!["check", "rigs/no-such-rig.yaml"],
     ] {
         let out = reeve(&args);
-        assert_eq!(
-            code(&out),
-            2,
-            "{args:?}: stderr {}",
-            String::from_utf8_lossy(&out.stderr)
-        );
+        assert_eq!(out.code, 2, "{args:?}: stderr {}", out.stderr);
         assert!(!out.stderr.is_empty(), "{args:?}: says why on stderr");
     }
-    let _ = std::fs::remove_dir_all(&dir);
 }

@@ -3,133 +3,33 @@
 //! the HTML report opened in headless Chromium; atomic writes and the refusal to write
 //! over the input rig.
 //!
-//! Golden files live in `tests/golden/`; `REEVE_BLESS=1 cargo test --test outputs`
+//! Golden files live in `tests/golden/`; `REEVE_BLESS=1 cargo test --test it golden`
 //! rewrites them. These are format tests, not physics tests: the numbers in the golden
 //! files are whatever the solver computes, checked elsewhere against their sources.
 
 use std::collections::BTreeSet;
 use std::fs;
 use std::path::{Path, PathBuf};
-use std::process::{Command, Output, Stdio};
-use std::sync::atomic::{AtomicU32, Ordering};
+use std::process::{Command, Stdio};
 use std::time::{Duration, Instant};
 
 use serde::Deserialize;
 
-const BIN: &str = env!("CARGO_BIN_EXE_reeve");
-const ROOT: &str = env!("CARGO_MANIFEST_DIR");
-
-fn rig(name: &str) -> PathBuf {
-    Path::new(ROOT).join("rigs").join(format!("{name}.yaml"))
-}
-
-fn reeve(args: &[&str]) -> Output {
-    Command::new(BIN)
-        .args(args)
-        .current_dir(ROOT)
-        .env("SOURCE_DATE_EPOCH", "1767225600") // 2026-01-01, for stable dates
-        .output()
-        .expect("run reeve")
-}
-
-fn stdout_of(args: &[&str]) -> String {
-    let out = reeve(args);
-    assert!(
-        out.status.success(),
-        "reeve {args:?} failed ({}): {}",
-        out.status,
-        String::from_utf8_lossy(&out.stderr)
-    );
-    String::from_utf8(out.stdout).expect("utf-8 output")
-}
-
-/// A fresh empty folder under the system's temporary folder.
-fn scratch(tag: &str) -> PathBuf {
-    static N: AtomicU32 = AtomicU32::new(0);
-    let dir = std::env::temp_dir().join(format!(
-        "reeve-outputs-{tag}-{}-{}",
-        std::process::id(),
-        N.fetch_add(1, Ordering::Relaxed)
-    ));
-    let _ = fs::remove_dir_all(&dir);
-    fs::create_dir_all(&dir).expect("scratch folder");
-    dir
-}
-
-/// A line diff (longest common subsequence), `-` expected, `+` actual, with a little
-/// context, for readable golden mismatches.
-fn diff(expected: &str, actual: &str) -> String {
-    let a: Vec<&str> = expected.lines().collect();
-    let b: Vec<&str> = actual.lines().collect();
-    let (n, m) = (a.len(), b.len());
-    let mut lcs = vec![vec![0usize; m + 1]; n + 1];
-    for i in (0..n).rev() {
-        for j in (0..m).rev() {
-            lcs[i][j] = if a[i] == b[j] {
-                lcs[i + 1][j + 1] + 1
-            } else {
-                lcs[i + 1][j].max(lcs[i][j + 1])
-            };
-        }
-    }
-    let mut ops = Vec::new();
-    let (mut i, mut j) = (0, 0);
-    while i < n || j < m {
-        if i < n && j < m && a[i] == b[j] {
-            ops.push((' ', a[i], i + 1));
-            i += 1;
-            j += 1;
-        } else if i < n && (j == m || lcs[i + 1][j] >= lcs[i][j + 1]) {
-            ops.push(('-', a[i], i + 1));
-            i += 1;
-        } else {
-            ops.push(('+', b[j], j + 1));
-            j += 1;
-        }
-    }
-    let changed: Vec<usize> = (0..ops.len()).filter(|&k| ops[k].0 != ' ').collect();
-    let mut out = String::new();
-    for (k, (op, text, line)) in ops.iter().enumerate() {
-        if changed.iter().any(|&c| c.abs_diff(k) <= 2) {
-            out.push_str(&format!("{op} {line:>4} | {text}\n"));
-        }
-    }
-    out
-}
-
-/// Compares `actual` with the golden file, or rewrites it when `REEVE_BLESS=1`.
-fn golden(name: &str, actual: &str) {
-    let path = Path::new(ROOT).join("tests/golden").join(name);
-    if std::env::var("REEVE_BLESS").as_deref() == Ok("1") {
-        fs::create_dir_all(path.parent().unwrap()).unwrap();
-        fs::write(&path, actual).unwrap();
-        return;
-    }
-    let expected = fs::read_to_string(&path).unwrap_or_else(|_| {
-        panic!(
-            "golden file {} is missing; run `REEVE_BLESS=1 cargo test --test outputs` to create it",
-            path.display()
-        )
-    });
-    if expected != actual {
-        panic!(
-            "{name} differs from its golden file (- golden, + now); if the change is meant, \
-rerun with REEVE_BLESS=1:\n{}",
-            diff(&expected, actual)
-        );
-    }
-}
+use crate::support::golden::golden;
+use crate::support::{
+    assert_abs, example_rig, reeve, reeve_in, stdout_of, Scratch, ONE_SHEAVE, ROOT,
+};
 
 const GOLDEN_RIGS: [&str; 2] = ["workshop-hoist", "sash-window"];
 
 #[test]
 fn golden_text_tables() {
     for name in GOLDEN_RIGS {
-        let r = rig(name);
-        let out = stdout_of(&["table", r.to_str().unwrap()]);
+        let r = example_rig(name);
+        let out = stdout_of(&["table", &r]);
         assert!(out.trim_end().ends_with(reeve::report::CAUTION));
         golden(&format!("{name}.table.txt"), &out);
-        let out = stdout_of(&["table", r.to_str().unwrap(), "--case", "forward"]);
+        let out = stdout_of(&["table", &r, "--case", "forward"]);
         golden(&format!("{name}.table-forward.txt"), &out);
     }
 }
@@ -137,8 +37,8 @@ fn golden_text_tables() {
 #[test]
 fn golden_markdown_tables() {
     for name in GOLDEN_RIGS {
-        let r = rig(name);
-        let out = stdout_of(&["table", r.to_str().unwrap(), "--format", "md"]);
+        let r = example_rig(name);
+        let out = stdout_of(&["table", &r, "--format", "md"]);
         assert!(out.contains(reeve::report::CAUTION));
         golden(&format!("{name}.table.md"), &out);
     }
@@ -147,16 +47,9 @@ fn golden_markdown_tables() {
 #[test]
 fn golden_csv_tables() {
     for name in GOLDEN_RIGS {
-        let r = rig(name);
+        let r = example_rig(name);
         for table in ["spans", "parts"] {
-            let out = stdout_of(&[
-                "table",
-                r.to_str().unwrap(),
-                "--format",
-                "csv",
-                "--table",
-                table,
-            ]);
+            let out = stdout_of(&["table", &r, "--format", "csv", "--table", table]);
             golden(&format!("{name}.{table}.csv"), &out);
         }
     }
@@ -211,14 +104,9 @@ struct PartIn {
 
 #[test]
 fn json_tables_parse_back_in_si() {
-    let r = rig("workshop-hoist");
-    let all: TablesIn = serde_json::from_str(&stdout_of(&[
-        "table",
-        r.to_str().unwrap(),
-        "--format",
-        "json",
-    ]))
-    .expect("JSON parses into the reader's structs");
+    let r = example_rig("workshop-hoist");
+    let all: TablesIn = serde_json::from_str(&stdout_of(&["table", &r, "--format", "json"]))
+        .expect("JSON parses into the reader's structs");
     assert_eq!(all.format, 1);
     assert_eq!(all.cases, "all");
     assert!(all.title.contains("hoist"));
@@ -235,41 +123,39 @@ fn json_tables_parse_back_in_si() {
     assert_eq!(spans[4].to, "winch");
     // SI: lengths in metres, tensions in newtons (the file uses mm and kN).
     let last = &spans[4];
-    assert!((last.length_m.unwrap() - 2.7).abs() < 1e-9, "{last:?}");
+    assert_abs("last span length, m", last.length_m.unwrap(), 2.7, 1e-9);
     let forward = last.tension_n.forward.flatten().unwrap();
     assert!(forward > 1000.0 && forward < 5000.0, "{forward} N");
     assert!(last.tension_n.ideal.is_some() && last.tension_n.back.is_some());
     assert!(last.safety_factor.unwrap() > 1.0);
     // The same numbers as `check --json` (one report behind both).
     let check: serde_json::Value =
-        serde_json::from_str(&stdout_of(&["check", r.to_str().unwrap(), "--json"])).unwrap();
+        serde_json::from_str(&stdout_of(&["check", &r, "--json"])).unwrap();
     let check_forward = check["spans"][4]["tension_n"]["forward"].as_f64().unwrap();
     assert_eq!(forward, check_forward);
     let parts = all.parts.expect("parts");
     let sheave = parts.iter().find(|p| p.part == "upper.b").unwrap();
     assert_eq!(sheave.kind, "sheave");
     assert_eq!(sheave.line.as_deref(), Some("fall"));
-    assert!((sheave.wrap_deg.unwrap() - 180.0).abs() < 1e-6);
+    assert_abs("upper.b wrap, °", sheave.wrap_deg.unwrap(), 180.0, 1e-6);
     assert!(sheave.fleet_in_deg.is_some() && sheave.fleet_out_deg.is_some());
     assert!(sheave.bend_ratio.unwrap() > 20.0);
     // Rated sheave, K = 1.04 at 180° (the rig file): forward ratio K.
-    assert!((sheave.tension_ratio.forward.flatten().unwrap() - 1.04).abs() < 1e-9);
+    assert_abs(
+        "upper.b forward ratio",
+        sheave.tension_ratio.forward.flatten().unwrap(),
+        1.04,
+        1e-9,
+    );
     let dir = sheave.pin_load_direction.forward.flatten().unwrap();
     let norm = dir.iter().map(|x| x * x).sum::<f64>().sqrt();
-    assert!((norm - 1.0).abs() < 1e-9);
+    assert_abs("pin load direction, length", norm, 1.0, 1e-9);
     assert!(sheave.pin_load_n.back.flatten().unwrap() > 0.0);
     assert!(sheave.loss_share.flatten().unwrap() > 0.0);
 
     // --case back narrows every per-case field to `back`.
     let back: TablesIn = serde_json::from_str(&stdout_of(&[
-        "table",
-        r.to_str().unwrap(),
-        "--format",
-        "json",
-        "--case",
-        "back",
-        "--table",
-        "spans",
+        "table", &r, "--format", "json", "--case", "back", "--table", "spans",
     ]))
     .unwrap();
     assert!(back.parts.is_none());
@@ -281,8 +167,8 @@ fn json_tables_parse_back_in_si() {
 #[test]
 fn csv_parses_back_and_matches_json() {
     for name in GOLDEN_RIGS {
-        let r = rig(name);
-        let csv_text = stdout_of(&["table", r.to_str().unwrap(), "--format", "csv"]);
+        let r = example_rig(name);
+        let csv_text = stdout_of(&["table", &r, "--format", "csv"]);
         let mut reader = csv::Reader::from_reader(csv_text.as_bytes());
         let headers = reader.headers().expect("one header row").clone();
         assert_eq!(&headers[0], "line");
@@ -297,13 +183,8 @@ fn csv_parses_back_and_matches_json() {
             "kN" => 1000.0,
             other => panic!("unexpected unit {other}"),
         };
-        let json: TablesIn = serde_json::from_str(&stdout_of(&[
-            "table",
-            r.to_str().unwrap(),
-            "--format",
-            "json",
-        ]))
-        .unwrap();
+        let json: TablesIn =
+            serde_json::from_str(&stdout_of(&["table", &r, "--format", "json"])).unwrap();
         let spans = json.spans.unwrap();
         let rows: Vec<csv::StringRecord> = reader.records().map(|r| r.unwrap()).collect();
         assert_eq!(rows.len(), spans.len());
@@ -313,20 +194,15 @@ fn csv_parses_back_and_matches_json() {
             let csv_value: f64 = row[forward_col].parse().expect("a plain number");
             let si = span.tension_n.forward.flatten().unwrap();
             // CSV carries 6 significant figures.
-            assert!(
-                (csv_value * factor - si).abs() <= 1e-5 * si.abs(),
-                "{name}: {csv_value} {unit} vs {si} N"
+            assert_abs(
+                &format!("{name}: {csv_value} {unit} in N"),
+                csv_value * factor,
+                si,
+                1e-5 * si.abs(),
             );
         }
         // The part table: the pin direction in three numeric columns, a unit vector.
-        let parts_csv = stdout_of(&[
-            "table",
-            r.to_str().unwrap(),
-            "--format",
-            "csv",
-            "--table",
-            "parts",
-        ]);
+        let parts_csv = stdout_of(&["table", &r, "--format", "csv", "--table", "parts"]);
         assert!(
             parts_csv.is_ascii() || name != "workshop-hoist",
             "ASCII headers"
@@ -357,14 +233,14 @@ fn csv_parses_back_and_matches_json() {
     // CSV holds one table: asking for both is refused with a hint.
     let out = reeve(&[
         "table",
-        rig("sash-window").to_str().unwrap(),
+        &example_rig("sash-window"),
         "--format",
         "csv",
         "--table",
         "both",
     ]);
-    assert_eq!(out.status.code(), Some(2));
-    assert!(String::from_utf8_lossy(&out.stderr).contains("--table spans"));
+    assert_eq!(out.code, 2);
+    assert!(out.stderr.contains("--table spans"));
 }
 
 /// Elements of a parsed SVG with this exact class.
@@ -377,10 +253,11 @@ fn with_class<'a>(doc: &'a roxmltree::Document, class: &str) -> Vec<roxmltree::N
 #[test]
 fn svg_is_xml_with_one_element_per_span_and_part_and_renders() {
     for name in ["workshop-hoist", "sash-window", "rescue-haul"] {
-        let r = rig(name);
+        let r = example_rig(name);
         let check: serde_json::Value =
-            serde_json::from_str(&stdout_of(&["check", r.to_str().unwrap(), "--json"])).unwrap();
+            serde_json::from_str(&stdout_of(&["check", &r, "--json"])).unwrap();
         let span_count = check["spans"].as_array().unwrap().len();
+        assert!(span_count > 0, "{name}: no spans to compare");
         let part_names: BTreeSet<String> = check["parts"]
             .as_array()
             .unwrap()
@@ -388,7 +265,7 @@ fn svg_is_xml_with_one_element_per_span_and_part_and_renders() {
             .map(|p| p["name"].as_str().unwrap().to_string())
             .collect();
         for view in ["front", "side", "top", "iso"] {
-            let svg = stdout_of(&["draw", r.to_str().unwrap(), "-o", "-", "--view", view]);
+            let svg = stdout_of(&["draw", &r, "-o", "-", "--view", view]);
             let doc = roxmltree::Document::parse(&svg)
                 .unwrap_or_else(|e| panic!("{name} {view}: not XML: {e}"));
             assert_eq!(doc.root_element().attribute("data-view"), Some(view));
@@ -422,7 +299,7 @@ fn svg_is_xml_with_one_element_per_span_and_part_and_renders() {
         // Without --view, the default is an orthographic view where one draws the rig as
         // well as the isometric; the hoist's two-sheave blocks overlap in every one of
         // them (the default view's own test).
-        let svg = stdout_of(&["draw", r.to_str().unwrap(), "-o", "-"]);
+        let svg = stdout_of(&["draw", &r, "-o", "-"]);
         let doc = roxmltree::Document::parse(&svg).unwrap();
         let expected: &[&str] = if name == "workshop-hoist" {
             &["iso"]
@@ -551,15 +428,10 @@ fn run_with_deadline(mut cmd: Command, deadline: Duration) -> String {
 
 #[test]
 fn html_report_renders_in_a_headless_browser() {
-    let dir = scratch("html");
+    let dir = Scratch::new("html");
     let html = dir.join("report.html");
-    let r = rig("workshop-hoist");
-    let out = reeve(&["report", r.to_str().unwrap(), "-o", html.to_str().unwrap()]);
-    assert!(
-        out.status.success(),
-        "{}",
-        String::from_utf8_lossy(&out.stderr)
-    );
+    let r = example_rig("workshop-hoist");
+    reeve(&["report", &r, "-o", html.to_str().unwrap()]).expect_code(0);
     let text = fs::read_to_string(&html).unwrap();
     // Self-contained: no scripts, no external resources.
     assert!(!text.contains("<script"), "no scripts");
@@ -587,7 +459,7 @@ fn html_report_renders_in_a_headless_browser() {
         "the browser rendered no page:\n{dom:.500}"
     );
     // Summary figures (the headline as `check` prints it).
-    let check = stdout_of(&["check", r.to_str().unwrap()]);
+    let check = stdout_of(&["check", &r]);
     for figure in ["2.023 kN", "2.229 kN", "1.832 kN", "90.7 %"] {
         assert!(check.contains(figure), "check shows {figure}");
         assert!(dom.contains(figure), "the page shows {figure}");
@@ -605,14 +477,13 @@ fn html_report_renders_in_a_headless_browser() {
     assert!(dom.contains("id=\"losses\"") && dom.contains("class=\"bar\""));
     assert!(dom.contains("Euler") && dom.contains("Eytelwein") && dom.contains("friction circle"));
     assert!(dom.contains("Caution:"));
-    let _ = fs::remove_dir_all(&dir);
 }
 
 #[test]
 fn refuses_to_write_over_the_input_rig() {
-    let dir = scratch("refuse");
+    let dir = Scratch::new("refuse");
     let copy = dir.join("rig.yaml");
-    fs::copy(rig("sash-window"), &copy).unwrap();
+    fs::copy(example_rig("sash-window"), &copy).unwrap();
     let before = fs::read(&copy).unwrap();
     let sub = dir.join("sub");
     fs::create_dir_all(&sub).unwrap();
@@ -639,11 +510,11 @@ fn refuses_to_write_over_the_input_rig() {
             ],
         ] {
             let out = reeve(&cmd);
-            assert_eq!(out.status.code(), Some(2), "{cmd:?}");
+            assert_eq!(out.code, 2, "{cmd:?}");
             assert!(
-                String::from_utf8_lossy(&out.stderr).contains("refusing to write over the input"),
+                out.stderr.contains("refusing to write over the input"),
                 "{}",
-                String::from_utf8_lossy(&out.stderr)
+                out.stderr
             );
             assert_eq!(fs::read(&copy).unwrap(), before, "the rig is untouched");
         }
@@ -654,16 +525,43 @@ fn refuses_to_write_over_the_input_rig() {
         let link = dir.join("link.svg");
         std::os::unix::fs::symlink(&copy, &link).unwrap();
         let out = reeve(&["draw", copy.to_str().unwrap(), "-o", link.to_str().unwrap()]);
-        assert_eq!(out.status.code(), Some(2));
+        assert_eq!(out.code, 2);
         assert_eq!(fs::read(&copy).unwrap(), before);
     }
-    let _ = fs::remove_dir_all(&dir);
+}
+
+#[test]
+fn sweep_plot_refuses_to_write_over_the_input_rig() {
+    // Guards the input rig against `sweep --plot`: a plot path that names the rig (here
+    // `./rig.yaml`) is refused, exit 2, and the rig is unchanged.
+    let dir = Scratch::new("plot-input");
+    dir.write("rig.yaml", ONE_SHEAVE);
+    let out = reeve_in(
+        &dir,
+        &[
+            "sweep",
+            "rig.yaml",
+            "--vary",
+            "parts.s.bearing.mu=0.05..0.2",
+            "--steps",
+            "3",
+            "--plot",
+            "./rig.yaml",
+        ],
+    );
+    assert_eq!(out.code, 2, "{}", out.stderr);
+    assert!(out.stderr.contains("refusing to write over the input rig"));
+    assert_eq!(
+        std::fs::read_to_string(dir.join("rig.yaml")).unwrap(),
+        ONE_SHEAVE,
+        "the input rig was changed"
+    );
 }
 
 #[test]
 fn a_failed_write_leaves_no_partial_file() {
     use reeve::cli::output::write_atomically;
-    let dir = scratch("atomic");
+    let dir = Scratch::new("atomic");
     let target = dir.join("drawing.svg");
     // An error half-way: nothing appears.
     let err = write_atomically(&target, |w| {
@@ -694,52 +592,42 @@ fn a_failed_write_leaves_no_partial_file() {
     let missing = dir.join("no-such-folder").join("rig.svg");
     let out = reeve(&[
         "draw",
-        rig("sash-window").to_str().unwrap(),
+        &example_rig("sash-window"),
         "-o",
         missing.to_str().unwrap(),
     ]);
-    assert_eq!(out.status.code(), Some(2));
-    assert!(String::from_utf8_lossy(&out.stderr).contains("cannot write"));
+    assert_eq!(out.code, 2);
+    assert!(out.stderr.contains("cannot write"));
     assert!(!missing.exists());
     // `-o -` is stdout, and `-o FILE` writes the same bytes to the file.
     let file = dir.join("rig.svg");
     let out = reeve(&[
         "draw",
-        rig("sash-window").to_str().unwrap(),
+        &example_rig("sash-window"),
         "-o",
         file.to_str().unwrap(),
-    ]);
-    assert!(out.status.success());
+    ])
+    .expect_code(0);
     assert!(out.stdout.is_empty());
-    let stdout = stdout_of(&["draw", rig("sash-window").to_str().unwrap(), "-o", "-"]);
+    let stdout = stdout_of(&["draw", &example_rig("sash-window"), "-o", "-"]);
     assert_eq!(fs::read_to_string(&file).unwrap(), stdout);
-    let _ = fs::remove_dir_all(&dir);
 }
 
 #[test]
 fn table_writes_to_a_file_with_o() {
-    let dir = scratch("table");
+    let dir = Scratch::new("table");
     let file = dir.join("spans.csv");
-    let r = rig("workshop-hoist");
-    let out = reeve(&[
-        "table",
-        r.to_str().unwrap(),
-        "--format",
-        "csv",
-        "-o",
-        file.to_str().unwrap(),
-    ]);
-    assert!(out.status.success());
-    let stdout = stdout_of(&["table", r.to_str().unwrap(), "--format", "csv"]);
+    let r = example_rig("workshop-hoist");
+    reeve(&["table", &r, "--format", "csv", "-o", file.to_str().unwrap()]).expect_code(0);
+    let stdout = stdout_of(&["table", &r, "--format", "csv"]);
     assert_eq!(fs::read_to_string(&file).unwrap(), stdout);
-    let _ = fs::remove_dir_all(&dir);
 }
 
 #[test]
 fn the_html_summary_shows_the_friction_at_the_drive() {
     // Guards: the report's summary table has the friction row of `check` (line set:
     // 149.7 − 98.06 = 51.64 N forward, 98.06 − 49.49 = 48.57 N back).
-    let html = stdout_of(&["report", rig("line-set").to_str().unwrap(), "-o", "-"]);
+    let html = stdout_of(&["report", &example_rig("line-set"), "-o", "-"]);
     let row = html
         .lines()
         .find(|l| l.contains("<th scope=\"row\">friction</th>"))
@@ -750,7 +638,7 @@ fn the_html_summary_shows_the_friction_at_the_drive() {
 #[test]
 fn the_html_summary_words_the_outcome_for_the_drive() {
     // Guards: the report words a counterweight's outcome as `check` does.
-    let html = stdout_of(&["report", rig("sash-window").to_str().unwrap(), "-o", "-"]);
+    let html = stdout_of(&["report", &example_rig("sash-window"), "-o", "-"]);
     assert!(html.contains("rises by itself"), "counterweight wording");
     assert!(!html.contains("the drive moves the rig"));
 }
@@ -759,7 +647,7 @@ fn the_html_summary_words_the_outcome_for_the_drive() {
 fn html_warnings_render_code_and_name_the_part_once() {
     // Guards: no raw backticks in the report's warnings, code spans as <code>, the
     // part named once, and bend-ratio warnings grouped as in the text.
-    let html = stdout_of(&["report", rig("rescue-haul").to_str().unwrap(), "-o", "-"]);
+    let html = stdout_of(&["report", &example_rig("rescue-haul"), "-o", "-"]);
     let start = html
         .find("<section id=\"warnings\">")
         .expect("warnings section");
@@ -799,7 +687,7 @@ lines:
 /// raw, and the SVG and HTML stay well-formed XML.
 #[test]
 fn control_characters_in_a_file_name_are_escaped_in_every_output() {
-    let dir = scratch("control-name");
+    let dir = Scratch::new("control-name");
     let name = "hoist\u{1b}[31m\u{7}\u{202e}.yaml";
     fs::write(dir.join(name), named_rig("s", "l", "h")).unwrap();
     let file = dir.join(name);
@@ -891,7 +779,7 @@ fn control_characters_in_names_built_in_code_are_escaped_by_the_writers() {
 /// numbers, negative ones included, stay numbers.
 #[test]
 fn csv_cells_that_read_as_formulas_are_prefixed() {
-    let dir = scratch("csv-formula");
+    let dir = Scratch::new("csv-formula");
     let text = named_rig("=HYPERLINK(\"http://x\")", "@SUM(A1)", "-cmd");
     let file = dir.join("+rig.yaml");
     fs::write(&file, text).unwrap();
@@ -944,7 +832,7 @@ fn names_in(dir: &Path) -> Vec<String> {
 #[test]
 fn a_stale_temp_file_never_blocks_the_next_write() {
     use reeve::cli::output::write_atomically;
-    let dir = scratch("stale-temp");
+    let dir = Scratch::new("stale-temp");
     let target = dir.join("out.svg");
     // Every name this process would try first is taken.
     for n in 0..64 {
@@ -973,19 +861,13 @@ fn a_stale_temp_file_never_blocks_the_next_write() {
             .set_modified(hour_ago)
             .unwrap();
     }
-    let r = rig("sash-window");
-    let out = reeve(&["draw", r.to_str().unwrap(), "-o", target.to_str().unwrap()]);
-    assert!(
-        out.status.success(),
-        "{}",
-        String::from_utf8_lossy(&out.stderr)
-    );
+    let r = example_rig("sash-window");
+    reeve(&["draw", &r, "-o", target.to_str().unwrap()]).expect_code(0);
     assert!(
         !dead_old.exists(),
         "a dead process's old temp file was kept"
     );
     assert!(dead_new.exists() && live.exists());
-    let _ = fs::remove_dir_all(&dir);
 }
 
 /// Guards signal clean-up: SIGTERM, SIGINT or SIGHUP during a write removes the
@@ -1009,12 +891,12 @@ fn a_signal_during_a_write_leaves_no_temp_file() {
         unreachable!("the signal ends the child");
     }
     for (signal, number) in [("TERM", 15), ("INT", 2), ("HUP", 1)] {
-        let dir = scratch("signal");
+        let dir = Scratch::new("signal");
         let target = dir.join("out.svg");
         let status = Command::new(std::env::current_exe().unwrap())
             .args([
                 "--exact",
-                "a_signal_during_a_write_leaves_no_temp_file",
+                "outputs::a_signal_during_a_write_leaves_no_temp_file",
                 "--nocapture",
             ])
             .env("REEVE_SIGNAL_CHILD_TARGET", &target)
@@ -1029,7 +911,6 @@ fn a_signal_during_a_write_leaves_no_temp_file() {
             Vec::<String>::new(),
             "SIG{signal} left files"
         );
-        let _ = fs::remove_dir_all(&dir);
     }
 }
 
@@ -1038,23 +919,22 @@ fn a_signal_during_a_write_leaves_no_temp_file() {
 #[cfg(unix)]
 #[test]
 fn refuses_to_write_over_a_hard_link_of_the_input_rig() {
-    let dir = scratch("hard-link");
+    let dir = Scratch::new("hard-link");
     let copy = dir.join("rig.yaml");
-    fs::copy(rig("sash-window"), &copy).unwrap();
+    fs::copy(example_rig("sash-window"), &copy).unwrap();
     let before = fs::read(&copy).unwrap();
     let link = dir.join("drawing.svg");
     fs::hard_link(&copy, &link).unwrap();
     for cmd in ["draw", "report", "table"] {
         let out = reeve(&[cmd, copy.to_str().unwrap(), "-o", link.to_str().unwrap()]);
-        assert_eq!(out.status.code(), Some(2), "{cmd}");
-        let err = String::from_utf8_lossy(&out.stderr);
+        assert_eq!(out.code, 2, "{cmd}");
+        let err = out.stderr;
         assert!(
             err.contains("refusing to write over the input"),
             "{cmd}: {err}"
         );
         assert_eq!(fs::read(&copy).unwrap(), before, "{cmd}: the rig changed");
     }
-    let _ = fs::remove_dir_all(&dir);
 }
 
 /// Guards the symlink choice (README): `-o` onto a symlink writes through it, replacing
@@ -1063,18 +943,13 @@ fn refuses_to_write_over_a_hard_link_of_the_input_rig() {
 #[cfg(unix)]
 #[test]
 fn output_onto_a_symlink_writes_through_it() {
-    let dir = scratch("symlink");
+    let dir = Scratch::new("symlink");
     let real = dir.join("real.svg");
     fs::write(&real, "old").unwrap();
     let link = dir.join("link.svg");
     std::os::unix::fs::symlink("real.svg", &link).unwrap();
-    let r = rig("sash-window");
-    let out = reeve(&["draw", r.to_str().unwrap(), "-o", link.to_str().unwrap()]);
-    assert!(
-        out.status.success(),
-        "{}",
-        String::from_utf8_lossy(&out.stderr)
-    );
+    let r = example_rig("sash-window");
+    reeve(&["draw", &r, "-o", link.to_str().unwrap()]).expect_code(0);
     assert!(
         fs::symlink_metadata(&link)
             .unwrap()
@@ -1088,17 +963,7 @@ fn output_onto_a_symlink_writes_through_it() {
     fs::create_dir_all(&sub).unwrap();
     let dangling = dir.join("dangling.svg");
     std::os::unix::fs::symlink("sub/new.svg", &dangling).unwrap();
-    let out = reeve(&[
-        "draw",
-        r.to_str().unwrap(),
-        "-o",
-        dangling.to_str().unwrap(),
-    ]);
-    assert!(
-        out.status.success(),
-        "{}",
-        String::from_utf8_lossy(&out.stderr)
-    );
+    reeve(&["draw", &r, "-o", dangling.to_str().unwrap()]).expect_code(0);
     assert!(fs::symlink_metadata(&dangling)
         .unwrap()
         .file_type()
@@ -1107,7 +972,37 @@ fn output_onto_a_symlink_writes_through_it() {
         .unwrap()
         .contains("<svg"));
     assert_eq!(names_in(&sub), vec!["new.svg".to_string()]);
-    let _ = fs::remove_dir_all(&dir);
+}
+
+#[cfg(unix)]
+#[test]
+fn output_to_a_fifo_writes_into_it_and_keeps_it() {
+    // Guards special files: `-o` onto a FIFO writes into it and leaves it a FIFO (writing a
+    // temporary file and renaming it over the target would replace it with a regular file).
+    use std::io::Read;
+    use std::os::unix::fs::FileTypeExt;
+    let dir = Scratch::new("fifo");
+    dir.write("rig.yaml", ONE_SHEAVE);
+    let fifo = dir.join("out.svg");
+    let made = Command::new("mkfifo").arg(&fifo).status();
+    if !matches!(made, Ok(s) if s.success()) {
+        eprintln!("mkfifo is not available; skipped");
+        return;
+    }
+    // Opened for reading and writing, a FIFO does not block, and it keeps a reader
+    // present while reeve writes (the drawing is far below the pipe's buffer).
+    let mut end = std::fs::OpenOptions::new()
+        .read(true)
+        .write(true)
+        .open(&fifo)
+        .unwrap();
+    let out = reeve_in(&dir, &["draw", "rig.yaml", "-o", "out.svg"]);
+    assert_eq!(out.code, 0, "{}", out.stderr);
+    let kind = std::fs::symlink_metadata(&fifo).unwrap().file_type();
+    assert!(kind.is_fifo(), "the FIFO was replaced by a regular file");
+    let mut buf = [0u8; 512];
+    let n = end.read(&mut buf).unwrap();
+    assert!(String::from_utf8_lossy(&buf[..n]).contains("<svg"));
 }
 
 /// Every `.rs` file under `dir`, recursively.
@@ -1134,7 +1029,7 @@ fn user_facing_text_names_no_manufacturer_and_the_right_sources() {
     for e in fs::read_dir(root.join("rigs")).unwrap() {
         files.push(e.unwrap().path());
     }
-    let html = stdout_of(&["report", rig("ramp-winch").to_str().unwrap(), "-o", "-"]);
+    let html = stdout_of(&["report", &example_rig("ramp-winch"), "-o", "-"]);
     let mut texts: Vec<(String, String)> = files
         .iter()
         .map(|f| (f.display().to_string(), fs::read_to_string(f).unwrap()))
@@ -1166,9 +1061,9 @@ fn html_tables_fit_a_printed_a4_page() {
     let Some(browser) = browser_or_skip("") else {
         return;
     };
-    let dir = scratch("a4");
+    let dir = Scratch::new("a4");
     for name in ["line-set", "rescue-haul", "greenhouse-vents"] {
-        let html = stdout_of(&["report", rig(name).to_str().unwrap(), "-o", "-"]);
+        let html = stdout_of(&["report", &example_rig(name), "-o", "-"]);
         assert!(html.contains("@media print"));
         let script = "<pre id=\"measure\"></pre><script>\
 const width = document.documentElement.clientWidth; const wide = [];\
@@ -1194,7 +1089,6 @@ document.getElementById('measure').textContent = wide.length ? 'too wide: ' + wi
             .unwrap_or("no measurement");
         assert_eq!(measured, "fits", "{name}");
     }
-    let _ = fs::remove_dir_all(&dir);
 }
 
 /// Points of an SVG path made of `M`/`L` commands.
@@ -1250,7 +1144,7 @@ fn coincide(a: ((f64, f64), (f64, f64)), b: ((f64, f64), (f64, f64)), gap: f64) 
 #[test]
 fn the_default_drawing_separates_parts_spans_and_labels() {
     for name in ["workshop-hoist", "line-set", "rescue-haul", "sash-window"] {
-        let svg = stdout_of(&["draw", rig(name).to_str().unwrap(), "-o", "-"]);
+        let svg = stdout_of(&["draw", &example_rig(name), "-o", "-"]);
         let doc = roxmltree::Document::parse(&svg).unwrap();
         let label_texts = |class: &str| -> Vec<String> {
             with_class(&doc, class)
@@ -1274,6 +1168,15 @@ fn the_default_drawing_separates_parts_spans_and_labels() {
                 ))
             })
             .collect();
+        // Every round part (sheave, guide, drum) has its hub, so the loops below compare
+        // every pair of them.
+        let round = reeve(&["check", &example_rig(name), "--json"]).json()["parts"]
+            .as_array()
+            .unwrap()
+            .iter()
+            .filter(|p| matches!(p["kind"].as_str(), Some("sheave" | "guide" | "drum")))
+            .count();
+        assert_eq!(hubs.len(), round, "{name}: hubs found {hubs:?}");
         for (i, (a, pa)) in hubs.iter().enumerate() {
             for (b, pb) in &hubs[i + 1..] {
                 let d = (pa.0 - pb.0).hypot(pa.1 - pb.1);
@@ -1291,6 +1194,7 @@ fn the_default_drawing_separates_parts_spans_and_labels() {
             }
         }
         let spans = with_class(&doc, "span");
+        assert!(spans.len() > 1, "{name}: {} spans drawn", spans.len());
         for (i, a) in spans.iter().enumerate() {
             for (j, b) in spans.iter().enumerate().skip(i + 1) {
                 if !coincide(span_ends(a), span_ends(b), 4.0)
@@ -1318,6 +1222,10 @@ fn the_default_drawing_separates_parts_spans_and_labels() {
                 (text, (x, y - 11.0, x + w, y + 3.0))
             })
             .collect();
+        assert!(
+            !part_labels.is_empty() && !span_labels.is_empty(),
+            "{name}: labels {boxes:?}"
+        );
         for (i, (ta, a)) in boxes.iter().enumerate() {
             for (tb, b) in &boxes[i + 1..] {
                 let overlap = a.0 < b.2 && b.0 < a.2 && a.1 < b.3 && b.1 < a.3;
@@ -1371,14 +1279,7 @@ fn drawings_use_a_standard_scale_and_say_which() {
         "ramp-winch",
     ] {
         for view in ["front", "side", "top"] {
-            let svg = stdout_of(&[
-                "draw",
-                rig(name).to_str().unwrap(),
-                "-o",
-                "-",
-                "--view",
-                view,
-            ]);
+            let svg = stdout_of(&["draw", &example_rig(name), "-o", "-", "--view", view]);
             let doc = roxmltree::Document::parse(&svg).unwrap();
             let root = doc.root_element();
             let width_mm: f64 = root
@@ -1454,7 +1355,7 @@ fn drawings_use_a_standard_scale_and_say_which() {
 /// line of no width; the iso view still draws it as a visible ellipse.
 #[test]
 fn an_edge_on_sheave_stays_visible_in_the_iso_view() {
-    let dir = scratch("edge-on");
+    let dir = Scratch::new("edge-on");
     // The iso view looks along (1, -1, 1): an axle along (1, 1, 0) lies in the sheet.
     let text = "format: 1
 units: {length: mm, force: N, mass: kg}
@@ -1507,5 +1408,4 @@ lines:
         "edge-on sheave drawn {:.2} px wide",
         2.0 * across
     );
-    let _ = fs::remove_dir_all(&dir);
 }

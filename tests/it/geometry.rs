@@ -3,6 +3,7 @@
 
 use std::f64::consts::{FRAC_PI_2, PI, TAU};
 
+use approx::relative_eq;
 use proptest::prelude::*;
 use reeve::geometry::{compute, Geometry, GeometryError, GeometryOptions, LineGeometry};
 use reeve::math::{Direction, Point, Real, Vector};
@@ -11,6 +12,8 @@ use reeve::rig::model::{
     Rig, Rope, RopeKind, Sheave, Side, Weight,
 };
 use reeve::units::UnitSystem;
+
+use crate::support::assert_abs;
 
 // ---------------------------------------------------------------------------------------
 // Building rigs
@@ -228,13 +231,6 @@ fn assert_consistent(rig: &Rig, line: &LineGeometry) {
     }
 }
 
-fn close(measured: Real, expected: Real, tolerance: Real, what: &str) {
-    assert!(
-        (measured - expected).abs() <= tolerance,
-        "{what}: measured {measured}, expected {expected}, tolerance {tolerance}"
-    );
-}
-
 // ---------------------------------------------------------------------------------------
 // Wraps, spans, fleet angles, bend ratios
 
@@ -255,13 +251,13 @@ fn half_wrap_over_a_sheave_with_parallel_spans() {
     let g = geometry(&r);
     let line = &g.lines[0];
     let head = &line.entries[1];
-    close(head.pitch_radius, 0.03, 1e-15, "pitch radius");
-    close(head.wrap, PI, 1e-12, "wrap");
-    close(line.spans[0].length, 1.0, 1e-12, "rising span");
-    close(line.spans[1].length, 1.0, 1e-12, "falling span");
-    close(head.fleet_in.unwrap(), 0.0, 1e-12, "fleet in");
-    close(head.fleet_out.unwrap(), 0.0, 1e-12, "fleet out");
-    close(head.bend_ratio.unwrap(), 9.0, 1e-12, "bend ratio");
+    assert_abs("pitch radius", head.pitch_radius, 0.03, 1e-15);
+    assert_abs("wrap", head.wrap, PI, 1e-12);
+    assert_abs("rising span", line.spans[0].length, 1.0, 1e-12);
+    assert_abs("falling span", line.spans[1].length, 1.0, 1e-12);
+    assert_abs("fleet in", head.fleet_in.unwrap(), 0.0, 1e-12);
+    assert_abs("fleet out", head.fleet_out.unwrap(), 0.0, 1e-12);
+    assert_abs("bend ratio", head.bend_ratio.unwrap(), 9.0, 1e-12);
     assert!((line.spans[0].start - Point::new(-0.03, 0.0, 0.0)).norm() < 1e-12);
     assert!((line.spans[0].end - Point::new(-0.03, 0.0, 1.0)).norm() < 1e-12);
     // Point ends: no sense, no wrap, no fleet angle, no bend ratio.
@@ -291,10 +287,10 @@ fn quarter_wrap_from_horizontal_to_vertical() {
     );
     let g = geometry(&r);
     let line = &g.lines[0];
-    close(line.entries[1].wrap, FRAC_PI_2, 1e-12, "wrap");
+    assert_abs("wrap", line.entries[1].wrap, FRAC_PI_2, 1e-12);
     assert_eq!(line.entries[1].sense, Some(1.0));
-    close(line.spans[0].length, 1.0, 1e-12, "level span");
-    close(line.spans[1].length, 1.0, 1e-12, "falling span");
+    assert_abs("level span", line.spans[0].length, 1.0, 1e-12);
+    assert_abs("falling span", line.spans[1].length, 1.0, 1e-12);
 }
 
 #[test]
@@ -314,9 +310,9 @@ fn three_quarter_wrap_when_the_rope_crosses_itself() {
         vec![vec![entry(0), sided(1, Side::Right), entry(2)]],
     );
     let g = geometry(&r);
-    close(g.lines[0].entries[1].wrap, 1.5 * PI, 1e-12, "wrap");
-    close(g.lines[0].spans[0].length, 1.0, 1e-12, "level span");
-    close(g.lines[0].spans[1].length, 1.0, 1e-12, "falling span");
+    assert_abs("wrap", g.lines[0].entries[1].wrap, 1.5 * PI, 1e-12);
+    assert_abs("level span", g.lines[0].spans[0].length, 1.0, 1e-12);
+    assert_abs("falling span", g.lines[0].spans[1].length, 1.0, 1e-12);
 }
 
 #[test]
@@ -338,11 +334,11 @@ fn external_and_crossed_spans_between_two_sheaves() {
         vec![vec![entry(0), entry(1), entry(2), entry(3)]],
     );
     let g = geometry(&over);
-    close(
+    assert_abs(
+        "external",
         g.lines[0].spans[1].length,
         (1.0 - 0.02f64.powi(2)).sqrt(),
         1e-12,
-        "external",
     );
     assert_eq!(g.lines[0].entries[1].sense, g.lines[0].entries[2].sense);
     // Over `a`, then under `b` and up: opposite senses, crossed tangent
@@ -353,11 +349,11 @@ fn external_and_crossed_spans_between_two_sheaves() {
         vec![vec![entry(0), entry(1), entry(2), entry(3)]],
     );
     let g = geometry(&crossed);
-    close(
+    assert_abs(
+        "crossed",
         g.lines[0].spans[1].length,
         (1.0 - 0.08f64.powi(2)).sqrt(),
         1e-12,
-        "crossed",
     );
     assert_eq!(
         g.lines[0].entries[1].sense,
@@ -381,10 +377,10 @@ fn fleet_angle_of_a_lead_offset_along_the_axle() {
     );
     let g = geometry(&r);
     let head = &g.lines[0].entries[1];
-    close(head.fleet_in.unwrap(), 0.05f64.atan(), 1e-12, "fleet in");
-    close(head.fleet_out.unwrap(), 0.0, 1e-12, "fleet out");
+    assert_abs("fleet in", head.fleet_in.unwrap(), 0.05f64.atan(), 1e-12);
+    assert_abs("fleet out", head.fleet_out.unwrap(), 0.0, 1e-12);
     // The offset moves neither tangent point: the wrap stays 90° (hand calculation).
-    close(head.wrap, FRAC_PI_2, 1e-12, "wrap");
+    assert_abs("wrap", head.wrap, FRAC_PI_2, 1e-12);
 }
 
 #[test]
@@ -414,25 +410,25 @@ fn drum_at_a_line_end_and_turns_on_a_guide() {
     assert_eq!(winch_l.wrap, 0.0);
     assert_eq!(winch_l.turns, 3);
     assert!(winch_l.fleet_in.is_none() && winch_l.fleet_out.is_some());
-    close(
+    assert_abs(
+        "drum bend ratio",
         winch_l.bend_ratio.unwrap(),
         94.0 / 6.0,
         1e-12,
-        "drum bend ratio",
     );
     // Left and right leave from opposite sides of the drum: external vs crossed tangent
     // to the guide (R₁ = 0.05, R₂ = 0.03, D = √2; hand calculation).
-    close(
+    assert_abs(
+        "left lead",
         gl.lines[0].spans[0].length,
         (2.0 - 0.02f64.powi(2)).sqrt(),
         1e-12,
-        "left lead",
     );
-    close(
+    assert_abs(
+        "right lead",
         gr.lines[0].spans[0].length,
         (2.0 - 0.08f64.powi(2)).sqrt(),
         1e-12,
-        "right lead",
     );
     // Two extra turns on the guide add 4π to the wrap measured between tangent points.
     let bar = &gl.lines[0].entries[1];
@@ -464,20 +460,20 @@ fn block_end_is_its_point_and_carried_sheave_its_own_centre() {
         vec![vec![entry(0), entry(2), entry(3)], vec![entry(1), entry(4)]],
     );
     let g = geometry(&r);
-    close(
+    assert_abs(
+        "wrap under the carried sheave",
         g.lines[0].entries[1].wrap,
         PI,
         1e-12,
-        "wrap under the carried sheave",
     );
-    close(
+    assert_abs(
+        "to the carried sheave",
         g.lines[0].spans[0].length,
         1.1,
         1e-12,
-        "to the carried sheave",
     );
     assert!((g.lines[1].spans[0].start - Point::new(0.0, 0.0, 1.0)).norm() < 1e-15);
-    close(g.lines[1].spans[0].length, 2.0, 1e-15, "block to stay");
+    assert_abs("block to stay", g.lines[1].spans[0].length, 2.0, 1e-15);
 }
 
 #[test]
@@ -497,13 +493,13 @@ fn explicit_side_settles_a_straight_path() {
     let g = geometry(&r);
     let entry = &g.lines[0].entries[1];
     assert_eq!(entry.sense, Some(-1.0));
-    close(entry.wrap, 2.0 * 0.03f64.asin(), 1e-12, "wrap");
+    assert_abs("wrap", entry.wrap, 2.0 * 0.03f64.asin(), 1e-12);
     // Tangent length from a point 1 m off: √(1 − R²) (hand calculation).
-    close(
+    assert_abs(
+        "lead",
         g.lines[0].spans[0].length,
         (1.0 - 0.03f64.powi(2)).sqrt(),
         1e-12,
-        "lead",
     );
 }
 
@@ -846,10 +842,11 @@ fn moved(rig: &Rig, rotation: &nalgebra::Rotation3<Real>, shift: &Vector) -> Rig
     out
 }
 
-fn same(a: Real, b: Real, what: &str) {
-    // 1e-9 relative; angles near zero (fleet in a plane) are compared against 1 rad.
+/// `a` and `b` agree to 1e-9 relative; angles near zero (fleet in a plane) are compared
+/// against 1 rad.
+fn same(what: &str, a: Real, b: Real) {
     assert!(
-        (a - b).abs() <= 1e-9 * a.abs().max(b.abs()).max(1.0),
+        relative_eq!(a, b, epsilon = 1e-9, max_relative = 1e-9),
         "{what}: {a} vs {b}"
     );
 }
@@ -887,17 +884,20 @@ proptest! {
         let base = showcase();
         let before = geometry(&base);
         let after = geometry(&moved(&base, &rotation, &shift));
+        prop_assert_eq!(before.lines.len(), after.lines.len());
         for (l0, l1) in before.lines.iter().zip(&after.lines) {
+            prop_assert_eq!(l0.spans.len(), l1.spans.len());
+            prop_assert_eq!(l0.entries.len(), l1.entries.len());
             for (s0, s1) in l0.spans.iter().zip(&l1.spans) {
-                same(s0.length, s1.length, "span length");
+                same("span length", s0.length, s1.length);
             }
             for (e0, e1) in l0.entries.iter().zip(&l1.entries) {
-                same(e0.wrap, e1.wrap, "wrap");
+                same("wrap", e0.wrap, e1.wrap);
                 prop_assert_eq!(e0.sense, e1.sense);
                 for (f0, f1) in [(e0.fleet_in, e1.fleet_in), (e0.fleet_out, e1.fleet_out)] {
                     prop_assert_eq!(f0.is_some(), f1.is_some());
                     if let (Some(f0), Some(f1)) = (f0, f1) {
-                        same(f0, f1, "fleet angle");
+                        same("fleet angle", f0, f1);
                     }
                 }
             }

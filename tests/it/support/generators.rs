@@ -1,10 +1,9 @@
-//! Rig generators shared by the tests and the benchmarks (`benches/solve.rs` includes
-//! this file by path).
+//! Rig generators shared by the tests and the benchmarks: `benches/solve.rs` and
+//! `benches/scale.rs` include this file by path, so it uses nothing but the standard
+//! library (each bench uses only some of it, hence `dead_code`).
 #![allow(dead_code)]
 
 use std::fmt::Write as _;
-
-use reeve::solve::Solution;
 
 /// A planar tackle of `sheaves` rated sheaves (K = 1.04), alternately moving (on the hook
 /// block, below) and fixed (above), dead end on the fixed block, falls vertical, hook
@@ -87,7 +86,7 @@ pub fn chain(n: usize, mu: f64) -> String {
 pub const G: f64 = 9.80665;
 
 /// The largest rig file the loader reads, bytes (mirrors the loader's 1 MiB cap;
-/// `tests/generators.rs` checks that the loader agrees).
+/// `tests/it/generators.rs` checks that the loader agrees).
 pub const MAX_RIG_BYTES: usize = 1 << 20;
 
 /// Mass of each line set's batten (with its pipe and load) and of its arbor, kg.
@@ -336,27 +335,4 @@ pub fn tackles(count: usize) -> String {
     yaml.push_str(&lines);
     yaml.push_str("drive: t0.hand\n");
     yaml
-}
-
-/// Relative closeness with a message carrying both numbers.
-pub fn assert_close(what: &str, measured: f64, expected: f64, rel_tol: f64) {
-    let err = (measured - expected).abs() / expected.abs().max(1e-300);
-    assert!(
-        err <= rel_tol,
-        "{what}: measured {measured}, expected {expected} (relative error {err:.3e} > {rel_tol:.1e})"
-    );
-}
-
-/// Energy audit of every case of every sub-rig balances (DESIGN.md §3 step 5).
-pub fn audit_ok(solution: &Solution) {
-    for sub in &solution.subrigs {
-        for case in [&sub.ideal, &sub.forward, &sub.back] {
-            assert!(
-                case.audit_residual < 1e-9,
-                "{}: energy audit residual {}",
-                case.case.name(),
-                case.audit_residual
-            );
-        }
-    }
 }

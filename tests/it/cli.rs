@@ -1,34 +1,18 @@
 //! The real binary on bad rigs that only the geometry or the solver can find wrong:
-//! exit code 2, and a message that names the file, line, column and part.
+//! exit code 2, and a message that names the file, line, column and part; and what
+//! `check` says: verdicts, margins, outcome wording, warnings, units.
 
-use std::io::Write;
-use std::process::Command;
+use std::f64::consts::PI;
 
-mod common;
+use reeve::math::STANDARD_GRAVITY;
+use reeve::solve::{solve, SolveError, SolveOptions};
 
-fn run(text: &str) -> (i32, String, String) {
-    let dir = std::env::temp_dir().join(format!("reeve-cli-{}", std::process::id()));
-    std::fs::create_dir_all(&dir).unwrap();
-    let path = dir.join(format!(
-        "rig-{:x}.yaml",
-        text.len() * 7919 + text.bytes().map(usize::from).sum::<usize>()
-    ));
-    std::fs::File::create(&path)
-        .unwrap()
-        .write_all(text.as_bytes())
-        .unwrap();
-    let out = Command::new(env!("CARGO_BIN_EXE_reeve"))
-        .arg("check")
-        .arg(&path)
-        .output()
-        .unwrap();
-    let _ = std::fs::remove_file(&path);
-    (
-        out.status.code().unwrap_or(-1),
-        String::from_utf8_lossy(&out.stdout).into_owned(),
-        String::from_utf8_lossy(&out.stderr).into_owned(),
-    )
-}
+use crate::support::generators::chain;
+use crate::support::run::reeve_on;
+use crate::support::{
+    assert_abs, assert_rel, edited_rig, reeve, reeve_in, solve_test_rig, test_rig, Scratch,
+    ONE_SHEAVE,
+};
 
 const HEAD: &str = "format: 1\nropes:\n  r: {diameter: 6, mu: 0.2}\nparts:\n";
 
@@ -37,7 +21,7 @@ fn point_inside_a_sheave_is_located() {
     let rig = format!(
         "{HEAD}  a: {{kind: anchor, at: [0, 0, 0]}}\n  s: {{kind: sheave, at: [0, 0, 10], axle: [0, 1, 0], diameter: 60, bearing: {{kind: none}}}}\n  h: {{kind: haul, at: [500, 0, 0]}}\nlines:\n  l: {{rope: r, path: [a, s, h]}}\n"
     );
-    let (code, _, err) = run(&rig);
+    let (code, _, err) = reeve_on(&rig, &["check"]).parts();
     assert_eq!(code, 2, "{err}");
     assert!(
         err.contains(":9:")
@@ -53,7 +37,7 @@ fn coincident_points_are_located() {
     let rig = format!(
         "{HEAD}  a: {{kind: anchor, at: [0, 0, 0]}}\n  w: {{kind: weight, at: [0, 0, 0], mass: 1}}\n  h: {{kind: haul, at: [0, 0, 500]}}\nlines:\n  l: {{rope: r, path: [a, w]}}\n  m: {{rope: r, path: [w, h]}}\n"
     );
-    let (code, _, err) = run(&rig);
+    let (code, _, err) = reeve_on(&rig, &["check"]).parts();
     assert_eq!(code, 2, "{err}");
     assert!(err.contains(":9:") && err.contains("same place"), "{err}");
 }
@@ -64,7 +48,7 @@ fn a_rig_that_cannot_move_names_its_parts() {
     let rig = format!(
         "{HEAD}  a: {{kind: anchor, at: [0, 0, 0]}}\n  s: {{kind: sheave, at: [100, 0, 1000], axle: [0, 1, 0], diameter: 60, bearing: {{kind: none}}}}\n  w: {{kind: weight, at: [200, 0, 0], mass: 1}}\n  b: {{kind: anchor, at: [100, 0, 2000]}}\n  h: {{kind: haul, at: [300, 0, 0]}}\nlines:\n  l: {{rope: r, path: [a, s, w]}}\n  m: {{rope: r, path: [w, b]}}\n  n: {{rope: r, path: [b, h]}}\ndrive: h\n"
     );
-    let (code, _, err) = run(&rig);
+    let (code, _, err) = reeve_on(&rig, &["check"]).parts();
     assert_eq!(code, 2, "{err}");
     assert!(err.contains("`w`"), "{err}");
 }
@@ -74,51 +58,91 @@ fn ambiguous_side_asks_for_side() {
     let rig = format!(
         "{HEAD}  a: {{kind: anchor, at: [0, 0, 2000]}}\n  s: {{kind: sheave, at: [0, 0, 1000], axle: [0, 1, 0], diameter: 60, bearing: {{kind: none}}}}\n  w: {{kind: weight, at: [0, 0, 0], mass: 1}}\nlines:\n  l: {{rope: r, path: [a, s, w]}}\ndrive: w\n"
     );
-    let (code, _, err) = run(&rig);
+    let (code, _, err) = reeve_on(&rig, &["check"]).parts();
     assert_eq!(code, 2, "{err}");
     assert!(err.contains(":9:") && err.contains("side: left"), "{err}");
 }
 
+/// Guards the file check at the command line: a NUL in a comment ended the reading
+/// there and the run went on with half a file (exit 0).
+#[test]
+fn a_control_character_in_the_rig_file_is_exit_2_with_line_and_column() {
+    let dir = Scratch::new("nul-comment");
+    let text = ONE_SHEAVE.replace(
+        "lines:\n",
+        "# a \u{0} here\nlimits: {design_factor: 50}\nlines:\n",
+    );
+    std::fs::write(dir.join("rig.yaml"), text).unwrap();
+    let out = reeve_in(&dir, &["check", "rig.yaml"]);
+    assert_eq!(out.code, 2, "{}", out.stderr);
+    assert!(out.stderr.contains("rig.yaml:11:5:"), "{}", out.stderr);
+    assert!(out.stderr.contains("U+0000 (NUL)"), "{}", out.stderr);
+}
+
+/// Guards the other ways text enters: `--set` values, `variants` (after YAML escapes)
+/// and `rank --to` get the file's character check, and the message shows the character
+/// escaped, never raw on the terminal.
+#[test]
+fn control_characters_in_set_variants_and_rank_to_are_refused() {
+    let dir = Scratch::new("control-entries");
+    let variants = ONE_SHEAVE.to_string() + "variants:\n  bad: [\"parts.s.bearing.mu=0.1\\0\"]\n";
+    dir.write("rig.yaml", ONE_SHEAVE);
+    std::fs::write(dir.join("variants.yaml"), &variants).unwrap();
+    for args in [
+        &[
+            "check",
+            "rig.yaml",
+            "--set",
+            "parts.s.bearing.mu=0.1\u{1b}[2J",
+        ][..],
+        &["check", "rig.yaml", "--set", "title=a \u{202e}title"],
+        &["compare", "variants.yaml", "--variants"],
+        &[
+            "rank",
+            "rig.yaml",
+            "--to",
+            "{kind: plain, pin_diameter: 8, mu: 0.08}\u{1b}[2J",
+        ],
+    ] {
+        let out = reeve_in(&dir, args);
+        let err = out.stderr;
+        assert_eq!(out.code, 2, "{args:?}: {err}");
+        assert!(err.contains("character U+"), "{args:?}: {err}");
+        assert!(
+            !err.contains(['\u{1b}', '\u{0}', '\u{202e}']),
+            "{args:?}: raw in {err:?}"
+        );
+    }
+}
+
 #[test]
 fn check_output_ends_with_the_caution() {
-    let out = Command::new(env!("CARGO_BIN_EXE_reeve"))
-        .args(["check", "rigs/workshop-hoist.yaml"])
-        .output()
-        .unwrap();
-    assert_eq!(out.status.code(), Some(0));
-    let text = String::from_utf8_lossy(&out.stdout);
+    let text = reeve(&["check", "rigs/workshop-hoist.yaml"])
+        .expect_code(0)
+        .stdout;
     assert!(text.trim_end().ends_with(reeve::report::CAUTION), "{text}");
 }
 
 #[test]
 fn every_anchor_and_fixed_sheave_reports_its_pin_load() {
     for rig in ["rigs/workshop-hoist.yaml", "rigs/line-set.yaml"] {
-        let out = Command::new(env!("CARGO_BIN_EXE_reeve"))
-            .args(["check", rig, "--json"])
-            .output()
-            .unwrap();
-        let json: serde_json::Value = serde_json::from_slice(&out.stdout).unwrap();
+        let json = reeve(&["check", rig, "--json"]).json();
+        let mut checked = std::collections::BTreeSet::new();
         for part in json["parts"].as_array().unwrap() {
-            if matches!(part["kind"].as_str(), Some("anchor" | "sheave")) {
+            if let Some(kind @ ("anchor" | "sheave")) = part["kind"].as_str() {
                 let load = part["pin_load_n"]["forward"].as_f64();
                 assert!(load.is_some_and(|l| l > 0.0), "{rig}: {part}");
+                checked.insert(kind);
             }
         }
+        // Both rigs have both kinds: the loop above checked something of each.
+        assert_eq!(Vec::from_iter(checked), ["anchor", "sheave"], "{rig}");
     }
 }
 
-/// `reeve check ARGS`, its stdout.
-fn check_stdout(args: &[&str]) -> Vec<u8> {
-    Command::new(env!("CARGO_BIN_EXE_reeve"))
-        .arg("check")
-        .args(args)
-        .output()
-        .unwrap()
-        .stdout
-}
-
+/// `reeve check ARGS --json`, parsed, whatever the exit code.
 fn check_json(args: &[&str]) -> serde_json::Value {
-    serde_json::from_slice(&check_stdout(&[args, &["--json"]].concat())).unwrap()
+    reeve(&[&["check"], args, &["--json"]].concat()).json()
 }
 
 fn codes(json: &serde_json::Value) -> Vec<String> {
@@ -146,10 +170,8 @@ fn a_drum_paying_out_is_flagged_and_self_locks_when_drag_holds_it() {
     let held = check_json(&[rig, "--set", "parts.winch.drag=6"]);
     let forward = held["forward"]["value"].as_f64().unwrap();
     let back = held["back"]["value"].as_f64().unwrap();
-    assert!(
-        (forward - 0.8025).abs() < 1e-3 && (back + 11.1975).abs() < 1e-3,
-        "{held}"
-    );
+    assert_abs("held by 6 N·m drag: forward, N·m", forward, 0.8025, 1e-3);
+    assert_abs("held by 6 N·m drag: back, N·m", back, -11.1975, 1e-3);
     assert_eq!(held["self_locking"], true, "{held}");
 }
 
@@ -176,26 +198,12 @@ fn a_block_cannot_drive_against_its_own_load() {
     let rig = format!(
         "{HEAD}  top: {{kind: sheave, at: [0, 0, 1000], axle: [0, 1, 0], diameter: 60, bearing: {{kind: none}}}}\n  b: {{kind: block, at: [-33, 0, 0], moves: [0, 0, 1], load: {{mass: 5}}}}\n  w: {{kind: weight, at: [33, 0, 0], mass: 4}}\nlines:\n  l: {{rope: r, path: [b, top, w]}}\ndrive: b\n"
     );
-    let (code, _, err) = run(&rig);
+    let (code, _, err) = reeve_on(&rig, &["check"]).parts();
     assert_eq!(code, 2, "{err}");
     assert!(
         err.contains(":6:") && err.contains("`b`") && err.contains("against its own travel"),
         "{err}"
     );
-}
-
-/// The real binary on a rig file with any command; (exit code, stdout, stderr).
-fn reeve(args: &[&str]) -> (i32, String, String) {
-    let out = Command::new(env!("CARGO_BIN_EXE_reeve"))
-        .args(args)
-        .current_dir(env!("CARGO_MANIFEST_DIR"))
-        .output()
-        .unwrap();
-    (
-        out.status.code().unwrap_or(-1),
-        String::from_utf8_lossy(&out.stdout).into_owned(),
-        String::from_utf8_lossy(&out.stderr).into_owned(),
-    )
 }
 
 /// The analysis commands that solve a rig, with the arguments each needs.
@@ -218,7 +226,7 @@ fn a_capstan_ratio_that_overflows_is_a_located_error_in_every_command() {
     // μ = 0.25 give e^(0.25·(π + 2000π)) = e^1571, beyond f64 (largest e^709).
     for args in every_solving_command("tests/rigs/guide-turns.yaml") {
         let args: Vec<&str> = args.iter().map(String::as_str).collect();
-        let (code, _, err) = reeve(&args);
+        let (code, _, err) = reeve(&args).parts();
         assert_eq!(code, 2, "{args:?}: {err}");
         assert!(!err.contains("panicked"), "{args:?}: {err}");
         assert!(
@@ -237,7 +245,7 @@ fn a_rope_mu_of_hundreds_set_from_the_command_line_is_refused_not_a_panic() {
     for mut args in every_solving_command("rigs/rescue-haul.yaml") {
         args.extend(["--set".to_string(), "parts.leg.biner.mu=1000".to_string()]);
         let args: Vec<&str> = args.iter().map(String::as_str).collect();
-        let (code, _, err) = reeve(&args);
+        let (code, _, err) = reeve(&args).parts();
         assert_eq!(code, 2, "{args:?}: {err}");
         assert!(!err.contains("panicked"), "{args:?}: {err}");
         assert!(
@@ -252,7 +260,8 @@ fn a_rope_mu_of_hundreds_set_from_the_command_line_is_refused_not_a_panic() {
         "rigs/automaton-cord.yaml",
         "--set",
         "ropes.braid1.mu=300",
-    ]);
+    ])
+    .parts();
     assert_eq!(code, 2, "{err}");
     assert!(
         err.contains("`pin.1`") && err.contains("too large to be physical"),
@@ -266,7 +275,8 @@ fn a_rope_mu_of_hundreds_set_from_the_command_line_is_refused_not_a_panic() {
         "parts.leg.biner.mu=0.2..1000",
         "--steps",
         "3",
-    ]);
+    ])
+    .parts();
     assert!(!err.contains("panicked"), "{err}");
     assert_ne!(code, 101, "{err}");
 }
@@ -279,7 +289,7 @@ fn a_finite_but_unphysical_capstan_ratio_has_its_own_message() {
     let text = std::fs::read_to_string("tests/rigs/guide-turns.yaml")
         .unwrap()
         .replace("turns: 1000", "turns: 100");
-    let (code, out, err) = run(&text);
+    let (code, out, err) = reeve_on(&text, &["check"]).parts();
     assert_eq!(code, 2, "{out}{err}");
     assert!(
         err.contains("`bar`") && err.contains("too large to be physical"),
@@ -287,7 +297,7 @@ fn a_finite_but_unphysical_capstan_ratio_has_its_own_message() {
     );
     // Five turns (e^(0.25·11π) = 5.7e3) are an ordinary capstan and still solve.
     let text = text.replace("turns: 100", "turns: 5");
-    let (code, out, err) = run(&text);
+    let (code, out, err) = reeve_on(&text, &["check"]).parts();
     assert_eq!(code, 0, "{out}{err}");
 }
 
@@ -296,14 +306,14 @@ fn friction_that_compounds_beyond_any_rope_fails_the_check() {
     // Guards huge figures with exit 0 where every passage is ordinary but they multiply:
     // 40 zig-zag pins at μ = 0.5, each wrapped about 2 rad (ratio e^1 ≈ 2.8, capstan
     // equation), multiply the pull about e^40 ≈ 1e17-fold, far above 1e12.
-    let (code, out, err) = run(&common::chain(40, 0.5));
+    let (code, out, err) = reeve_on(&chain(40, 0.5), &["check"]).parts();
     assert_eq!(code, 1, "{out}{err}");
     assert!(
         out.contains("FAIL [friction-lock]") && out.contains("line `cord`"),
         "{out}"
     );
     // Ten such pins (e^10 ≈ 2e4) are an ordinary, if lossy, rig.
-    let (code, out, err) = run(&common::chain(10, 0.5));
+    let (code, out, err) = reeve_on(&chain(10, 0.5), &["check"]).parts();
     assert!(!out.contains("friction-lock"), "{out}{err}");
     assert_eq!(code, 0, "{out}{err}");
 }
@@ -313,7 +323,7 @@ fn loads_square_to_the_motion_are_refused_with_the_likely_fix() {
     // Guards "0 N in every case, the drive moves the rig, exit 0": the hook rises along
     // +Y while gravity is the default −Z, so its 40 kg do no work (virtual work:
     // X = −(v·Q)/(v·x) = 0 for every friction).
-    let (code, out, err) = reeve(&["check", "tests/rigs/y-up-hoist.yaml"]);
+    let (code, out, err) = reeve(&["check", "tests/rigs/y-up-hoist.yaml"]).parts();
     assert_eq!(code, 2, "{out}{err}");
     assert!(
         err.contains("y-up-hoist.yaml:12:")
@@ -330,23 +340,115 @@ fn loads_square_to_the_motion_are_refused_with_the_likely_fix() {
         "--json",
         "--set",
         "gravity=[0, -1, 0]",
-    ]);
+    ])
+    .parts();
     assert_eq!(code, 0, "{err}");
     let json: serde_json::Value = serde_json::from_str(&out).unwrap();
     let ideal = json["ideal"]["value"].as_f64().unwrap();
-    assert!((ideal - 40.0 * 9.80665 / 2.0).abs() < 1e-6, "{ideal}");
+    assert_abs("ideal pull, N", ideal, 40.0 * 9.80665 / 2.0, 1e-6);
     // A block moving across gravity with a mass load, hauled for a force: refused too.
     let text = std::fs::read_to_string("tests/rigs/review/level-cart.yaml")
         .unwrap()
         .replace("moves: [1, 0, 0]}", "moves: [1, 0, 0], load: {mass: 100}}")
         .replace(", force: 300}", "}")
         .replace("solve_for: cart", "");
-    let (code, out, err) = run(&text);
+    let (code, out, err) = reeve_on(&text, &["check"]).parts();
     assert_eq!(code, 2, "{out}{err}");
     assert!(
         err.contains("`cart`") && err.contains("do no work"),
         "{err}"
     );
+}
+
+#[test]
+fn a_block_with_no_load_moving_across_gravity_is_solved_for_a_force() {
+    // Guards "no equilibrium" for an unknown block that states no load on a level
+    // track: a mass there does no work, so the unknown is the force against `moves`.
+    // Hand calculation (rig header, capstan equation, Hibbeler §8.5): ideal 300 N,
+    // forward 300/e^(0.2·π/2) = 219.12 N, back 300·e^(0.2·π/2) = 410.73 N.
+    let (_, s) = solve_test_rig("review/level-cart.yaml");
+    let m = s.main();
+    assert_eq!(m.quantity, reeve::solve::Quantity::Force);
+    let k = (0.2 * PI / 2.0).exp();
+    assert_rel("ideal", m.ideal.value, 300.0, 1e-9);
+    assert_rel("forward", m.forward.value, 300.0 / k, 1e-9);
+    assert_rel("back", m.back.value, 300.0 * k, 1e-9);
+    // The output says why the figure is a force.
+    let text = check_text(&[&test_rig("review/level-cart.yaml")]);
+    assert!(
+        text.contains("`cart` states no load") && text.contains("force against its `moves`"),
+        "{text}"
+    );
+}
+
+#[test]
+fn a_block_with_no_load_moving_with_gravity_is_still_solved_for_a_mass() {
+    // Guards the other side of the same choice: under a 2:1 hook the travel is along
+    // gravity, so the unknown stays the mass (block-unknown.yaml without its load:
+    // ideal (500 − 2 g)/g = 48.986 kg, hand calculation in the rig header).
+    let rig = edited_rig("review/block-unknown.yaml", |t| {
+        t.replace(", load: {mass: 45}", "")
+    });
+    let s = solve(&rig, &SolveOptions::default()).unwrap();
+    assert_eq!(s.main().quantity, reeve::solve::Quantity::Mass);
+    assert_rel(
+        "ideal",
+        s.main().ideal.value,
+        500.0 / STANDARD_GRAVITY - 2.0,
+        1e-8,
+    );
+    let report = reeve::report::Report::build(&rig, &s, Vec::new());
+    let note = report.headline.solve_for.note.clone().unwrap_or_default();
+    assert!(
+        note.contains("states no load") && note.contains("mass"),
+        "{note}"
+    );
+}
+
+#[test]
+fn no_equilibrium_names_its_real_cause() {
+    // Guards the one hint "lines pulling only sideways" given for every inconsistent
+    // system: a mass asked for on a block whose travel is square to gravity does no
+    // work, and the message must say that, not blame the lines.
+    let rig = edited_rig("review/level-cart.yaml", |t| {
+        t.replace("moves: [1, 0, 0]}", "moves: [1, 0, 0], load: {mass: ~}}")
+    });
+    let e = solve(&rig, &SolveOptions::default()).unwrap_err();
+    let message = e.to_string();
+    assert!(!matches!(e, SolveError::NoEquilibrium { .. }), "{message}");
+    assert!(
+        message.contains("`cart`") && message.contains("square to gravity"),
+        "{message}"
+    );
+    assert!(!message.contains("sideways"), "{message}");
+    assert_eq!(e.subject().1, Some("cart"));
+}
+
+#[test]
+fn solve_for_in_another_sub_rig_is_a_clear_error() {
+    // Guards a solve_for that the drive cannot reach (another sub-rig): a clear error
+    // naming both parts, not an inconsistent equilibrium.
+    // The drive `hand.b` cannot move `load.a` (a separate line): the error must say so,
+    // not report an inconsistent equilibrium.
+    let rig = edited_rig("review/two-subrigs.yaml", |text| {
+        text.replace("drive: hand.b", "drive: hand.b\nsolve_for: load.a")
+            .replace(
+                "hand.b: {kind: haul, at: [0, 500, -1e6]}",
+                "hand.b: {kind: haul, at: [0, 500, -1e6], force: 300}",
+            )
+            .replace(", mass: 10}", "}")
+    });
+    match solve(&rig, &SolveOptions::default()) {
+        Err(e) => {
+            let message = e.to_string();
+            assert!(
+                message.contains("`load.a`") && message.contains("`hand.b`"),
+                "{message}"
+            );
+            assert!(!matches!(e, SolveError::NoEquilibrium { .. }), "{message}");
+        }
+        Ok(_) => panic!("a load the drive cannot reach was solved"),
+    }
 }
 
 #[test]
@@ -357,7 +459,7 @@ fn a_balanced_rig_whose_ideal_effort_is_zero_still_solves() {
     let rig = format!(
         "{HEAD}  s: {{kind: sheave, at: [0, 0, 2000], axle: [0, 1, 0], diameter: 60, bearing: {{kind: plain, pin_diameter: 10, mu: 0.1}}}}\n  a: {{kind: weight, at: [-33, 0, 0], mass: 5}}\n  b: {{kind: weight, at: [33, 0, -500], mass: 5}}\n  h: {{kind: haul, at: [100, 0, 1000]}}\nlines:\n  l: {{rope: r, path: [a, s, b]}}\n  m: {{rope: r, path: [b, h]}}\ndrive: h\n"
     );
-    let (code, out, err) = run(&rig);
+    let (code, out, err) = reeve_on(&rig, &["check"]).parts();
     assert!(!err.contains("do no work"), "{err}");
     assert_ne!(code, 2, "{out}{err}");
 }
@@ -368,11 +470,10 @@ fn verdict(rig: &str, sets: &[&str]) -> (i32, serde_json::Value, String) {
     for s in sets {
         args.extend(["--set", s]);
     }
-    let (_, text, _) = reeve(&args);
+    let text = reeve(&args).stdout;
     args.push("--json");
-    let (code, json, err) = reeve(&args);
-    let json = serde_json::from_str(&json).unwrap_or_else(|e| panic!("{e}: {err}"));
-    (code, json, text)
+    let ran = reeve(&args);
+    (ran.code, ran.json(), text)
 }
 
 #[test]
@@ -399,7 +500,7 @@ fn a_reversed_winch_that_cannot_hold_its_load_fails() {
     assert!(text.contains("runs away"), "{text}");
     let f = json["forward"]["value"].as_f64().unwrap();
     let margin = json["margin"].as_f64().unwrap();
-    assert!((margin - (f + 15.0) / f.abs()).abs() < 1e-12, "{json}");
+    assert_abs("margin (f + 15)/|f|", margin, (f + 15.0) / f.abs(), 1e-12);
     // A brake of −30 N·m holds it: exit 0, margin (−20.25 + 30)/20.25 = +48 %.
     let (code, json, text) = verdict(rig, &["parts.winch.torque=-30"]);
     assert_eq!(code, 0, "{text}");
@@ -407,10 +508,8 @@ fn a_reversed_winch_that_cannot_hold_its_load_fails() {
     assert_eq!(json["moves"], true);
     let f = json["forward"]["value"].as_f64().unwrap();
     let margin = json["margin"].as_f64().unwrap();
-    assert!(
-        (margin - (f + 30.0) / f.abs()).abs() < 1e-12 && margin > 0.4,
-        "{json}"
-    );
+    assert_abs("margin (f + 30)/|f|", margin, (f + 30.0) / f.abs(), 1e-12);
+    assert!(margin > 0.4, "{json}");
 }
 
 #[test]
@@ -428,6 +527,22 @@ fn a_drive_turning_backward_says_so_and_fails() {
 }
 
 #[test]
+fn the_margin_of_a_negative_stated_load_has_the_sign_of_the_verdict() {
+    // Guards margin = forward/stated − 1, which flips sign for a stated load below zero:
+    // the level cart pushed along its travel by 50 N (`load: {force: -50}`) is moved
+    // with room to spare (forward 219.12 N ≥ −50 N), margin (219.12 + 50)/50 = +538 %.
+    let rig = edited_rig("review/level-cart.yaml", |t| {
+        t.replace("moves: [1, 0, 0]}", "moves: [1, 0, 0], load: {force: -50}}")
+    });
+    let s = solve(&rig, &SolveOptions::default()).unwrap();
+    let report = reeve::report::Report::build(&rig, &s, Vec::new());
+    let h = &report.headline;
+    let forward = 300.0 / (0.2 * PI / 2.0).exp();
+    assert_eq!(h.moves, Some(true));
+    assert_rel("margin", h.margin.unwrap(), (forward + 50.0) / 50.0, 1e-9);
+}
+
+#[test]
 fn failure_messages_use_the_rigs_units_and_precision() {
     // Guards "2600.0000 N available, 2769.3525 N needed" beside a summary in kN: the
     // warnings use the summary's units and four significant figures.
@@ -438,7 +553,8 @@ fn failure_messages_use_the_rigs_units_and_precision() {
         "parts.hook.load.mass=1000 kg",
         "--set",
         "ropes.wire8.breaking_strength=10 kN",
-    ]);
+    ])
+    .parts();
     assert_eq!(code, 1, "{out}{err}");
     assert!(out.contains("2.600 kN available, 2.769 kN needed"), "{out}");
     let warnings: Vec<&str> = out.lines().filter(|l| l.contains("FAIL [")).collect();
@@ -459,7 +575,7 @@ fn an_imperial_rig_shows_torque_in_imperial_units() {
     // Hand calculation in the rig header: load torque 3 lbf*in = 0.338958 N·m, ideal
     // pull 3/2.125 = 1.41176 lbf.
     let rig = "tests/rigs/hinge-imperial.yaml";
-    let (code, text, err) = reeve(&["check", rig]);
+    let (code, text, err) = reeve(&["check", rig]).parts();
     assert_eq!(code, 0, "{err}");
     assert!(
         text.contains("3.000 lbf*in") && !text.contains("N*m"),
@@ -470,31 +586,28 @@ fn an_imperial_rig_shows_torque_in_imperial_units() {
     // radius, 2.125 in/rad, not 0.05397 m/rad.
     assert!(text.contains("Velocity ratio 2.125 in/rad"), "{text}");
     assert!(text.contains("mechanical advantage 2.125 in"), "{text}");
-    let (_, table, _) = reeve(&["table", rig, "--format", "md"]);
+    let table = reeve(&["table", rig, "--format", "md"]).stdout;
     assert!(table.contains("torque lbf*in"), "{table}");
-    let (_, json, _) = reeve(&["check", rig, "--json"]);
-    let json: serde_json::Value = serde_json::from_str(&json).unwrap();
+    let json = reeve(&["check", rig, "--json"]).json();
     let load = json["drums"][0]["load_torque_nm"].as_f64().unwrap();
-    assert!(
-        (load - 3.0 * 4.448_221_615_260_5 * 0.0254).abs() < 1e-9,
-        "{load}"
+    assert_abs(
+        "3 lbf*in load torque, N·m",
+        load,
+        3.0 * 4.448_221_615_260_5 * 0.0254,
+        1e-9,
     );
     let bare = std::fs::read_to_string(rig)
         .unwrap()
         .replace("torque: \"3 lbf*in\"", "torque: 3");
-    let path = std::env::temp_dir().join(format!("reeve-bare-torque-{}.yaml", std::process::id()));
-    std::fs::write(&path, bare).unwrap();
-    let (_, json, err) = reeve(&["check", path.to_str().unwrap(), "--json"]);
-    let _ = std::fs::remove_file(&path);
-    let json: serde_json::Value = serde_json::from_str(&json).unwrap_or_else(|_| panic!("{err}"));
+    let json = reeve_on(&bare, &["check", "--json"]).json();
     let load = json["drums"][0]["load_torque_nm"].as_f64().unwrap();
-    assert!((load - 3.0).abs() < 1e-12, "a bare torque is N*m: {load}");
+    assert_abs("a bare torque is N*m", load, 3.0, 1e-12);
 }
 
 #[test]
 fn passage_columns_carry_their_degree_signs() {
     // Guards fleet columns without `°` beside `wrap °` in the check summary.
-    let (_, text, _) = reeve(&["check", "rigs/ramp-winch.yaml"]);
+    let text = reeve(&["check", "rigs/ramp-winch.yaml"]).stdout;
     assert!(
         text.contains("wrap °") && text.contains("fleet in °") && text.contains("fleet out °"),
         "{text}"
@@ -537,7 +650,7 @@ fn a_default_drum_side_that_leads_the_rope_across_the_drum_is_warned() {
     // it on the lead sheave's side.
     let text = std::fs::read_to_string("rigs/ramp-winch.yaml").unwrap();
     let started = text.replace("path: [cart, lead, winch]", "path: [winch, lead, cart]");
-    let (_, out, err) = run(&started);
+    let (_, out, err) = reeve_on(&started, &["check"]).parts();
     assert!(
         out.contains("[drum-side]") && out.contains("`winch`") && out.contains("side: right"),
         "{out}{err}"
@@ -548,11 +661,18 @@ fn a_default_drum_side_that_leads_the_rope_across_the_drum_is_warned() {
             "path: [cart, lead, winch]",
             &format!("path: [{{part: winch, side: {side}}}, lead, cart]"),
         );
-        let (_, out, _) = run(&stated);
+        let (code, out, err) = reeve_on(&stated, &["check"]).parts();
+        // It solves (a summary with its warnings, exit 0 or 1), without this warning.
+        assert!(
+            code != 2 && out.contains("Caution"),
+            "{side}: exit {code}: {err}"
+        );
         assert!(!out.contains("[drum-side]"), "{side}: {out}");
     }
     // The rig as drawn, drum at the end with the default side, runs open: no warning.
-    let (_, out, _) = reeve(&["check", "rigs/ramp-winch.yaml"]);
+    let out = reeve(&["check", "rigs/ramp-winch.yaml"])
+        .expect_code(0)
+        .stdout;
     assert!(!out.contains("[drum-side]"), "{out}");
     // A weight hanging under the drum's far edge (tests/rigs/review/drum-end-right.yaml
     // without its `side: right`): the default side leads the rope across the drum's
@@ -560,9 +680,11 @@ fn a_default_drum_side_that_leads_the_rope_across_the_drum_is_warned() {
     let hanging = std::fs::read_to_string("tests/rigs/review/drum-end-right.yaml")
         .unwrap()
         .replace("{part: winch, side: right}", "winch");
-    let (_, out, _) = run(&hanging);
+    let out = reeve_on(&hanging, &["check"]).stdout;
     assert!(out.contains("[drum-side]"), "{out}");
-    let (_, out, _) = reeve(&["check", "tests/rigs/review/drum-end-left.yaml"]);
+    let out = reeve(&["check", "tests/rigs/review/drum-end-left.yaml"])
+        .expect_code(0)
+        .stdout;
     assert!(!out.contains("[drum-side]"), "{out}");
 }
 
@@ -576,13 +698,7 @@ fn a_drum_at_a_line_end_shows_the_turns_wound_on_it() {
             "path: [cart, lead, winch]",
             "path: [cart, lead, {part: winch, turns: 3}]",
         );
-    let dir = std::env::temp_dir().join(format!("reeve-cli-turns-{}", std::process::id()));
-    std::fs::create_dir_all(&dir).unwrap();
-    let path = dir.join("winch.yaml");
-    std::fs::write(&path, text).unwrap();
-    let (_, json, err) = reeve(&["check", path.to_str().unwrap(), "--json"]);
-    let json: serde_json::Value =
-        serde_json::from_str(&json).unwrap_or_else(|e| panic!("{e}{err}"));
+    let json = reeve_on(&text, &["check", "--json"]).json();
     let winch = json["parts"]
         .as_array()
         .unwrap()
@@ -595,11 +711,11 @@ fn a_drum_at_a_line_end_shows_the_turns_wound_on_it() {
         "{winch}"
     );
     assert_eq!(winch["wrap_deg"].as_f64(), Some(1080.0), "{winch}");
-    let _ = std::fs::remove_dir_all(&dir);
 }
 
+/// `reeve check ARGS`, its text, whatever the exit code.
 fn check_text(args: &[&str]) -> String {
-    String::from_utf8(check_stdout(args)).unwrap()
+    reeve(&[&["check"], args].concat()).stdout
 }
 
 #[test]
@@ -615,8 +731,14 @@ fn the_friction_at_the_drive_is_shown_beside_the_efficiency() {
     );
     let ff = v["friction_forward"].as_f64().unwrap();
     let fb = v["friction_back"].as_f64().unwrap();
-    assert!((ff - (forward - ideal)).abs() < 1e-9 && ff > 0.0, "{v}");
-    assert!((fb - (ideal - back)).abs() < 1e-9 && fb > 0.0, "{v}");
+    assert_abs(
+        "friction forward = forward − ideal",
+        ff,
+        forward - ideal,
+        1e-9,
+    );
+    assert_abs("friction back = ideal − back", fb, ideal - back, 1e-9);
+    assert!(ff > 0.0 && fb > 0.0, "{v}");
     // 149.7 − 98.06 = 51.64 N and 98.06 − 49.49 = 48.57 N (figures of the summary).
     let text = check_text(&["rigs/line-set.yaml"]);
     let row = text
@@ -628,9 +750,54 @@ fn the_friction_at_the_drive_is_shown_beside_the_efficiency() {
     let v = check_json(&["tests/rigs/review/block-unknown.yaml"]);
     let ideal = v["ideal"]["value"].as_f64().unwrap();
     let ff = v["friction_forward"].as_f64().unwrap();
+    let forward = v["forward"]["value"].as_f64().unwrap();
+    assert_abs(
+        "friction forward = ideal − forward",
+        ff,
+        ideal - forward,
+        1e-9,
+    );
+    assert!(ff > 0.0, "{v}");
+}
+
+#[test]
+fn self_locking_words_point_the_right_way_for_a_load_unknown() {
+    // Guards the self-locking sentence for a load unknown: it runs back above the back
+    // value, not below.
+    // For a load unknown `back` is the least load that drives the rig back (DESIGN.md
+    // §3): the rig runs back above it (22.37 kg here, capstan equation as in
+    // load_unknown_over_a_capstan_bar), not below.
+    let text = check_text(&[&test_rig("review/load-unknown-capstan.yaml")]);
+    assert!(!text.contains("below the back value"), "{text}");
     assert!(
-        (ff - (ideal - v["forward"]["value"].as_f64().unwrap())).abs() < 1e-9 && ff > 0.0,
-        "{v}"
+        text.contains("a load above the back value runs it back"),
+        "{text}"
+    );
+    // For a drive unknown it runs back when the effort falls below `back`.
+    let text = check_text(&[&test_rig("review/drum-middle.yaml")]);
+    assert!(text.contains("below the back value"), "{text}");
+}
+
+#[test]
+fn loss_of_input_is_positive_when_the_load_drives_forward() {
+    // Guards the loss share of a drive that absorbs power: measured against what the load
+    // puts in, so positive.
+    // drum-end-left runs forward by lowering the weight: the input is the weight's
+    // 10 g × 0.053 = 5.1975 W per rad/s, of which the 0.5 N·m drag takes 0.5 W:
+    // 9.62 % (hand calculation). The drive's own power (−4.6975 W) is an output here.
+    let json = reeve(&["check", "--json", &test_rig("review/drum-end-left.yaml")]).json();
+    let winch = json["parts"]
+        .as_array()
+        .unwrap()
+        .iter()
+        .find(|p| p["name"] == "winch")
+        .unwrap();
+    let share = winch["loss_of_input"].as_f64().unwrap();
+    assert_rel(
+        "loss of input",
+        share,
+        0.5 / (10.0 * STANDARD_GRAVITY * 0.053),
+        1e-9,
     );
 }
 
@@ -743,22 +910,14 @@ fn an_efficiency_outside_0_to_100_percent_is_never_printed() {
     assert!(json["back"]["efficiency"].is_null(), "{}", json["back"]);
     let e = json["forward"]["efficiency"].as_f64().unwrap();
     assert!((0.0..=1.0).contains(&e), "{e}");
-    let out = Command::new(env!("CARGO_BIN_EXE_reeve"))
-        .args(["check", rig, set[0], set[1]])
-        .output()
-        .unwrap();
-    let text = String::from_utf8_lossy(&out.stdout);
+    let text = reeve(&["check", rig, set[0], set[1]]).stdout;
     let row = text
         .lines()
         .find(|l| l.trim_start().starts_with("efficiency"))
         .unwrap();
     assert!(!row.contains('-'), "{row}");
     assert!(text.contains("No back efficiency"), "{text}");
-    let out = Command::new(env!("CARGO_BIN_EXE_reeve"))
-        .args(["report", rig, set[0], set[1], "-o", "-"])
-        .output()
-        .unwrap();
-    let html = String::from_utf8_lossy(&out.stdout);
+    let html = reeve(&["report", rig, set[0], set[1], "-o", "-"]).stdout;
     assert!(
         !html.contains("-8.2 %") && !html.contains("−8.2 %"),
         "html shows it"

@@ -1,0 +1,17 @@
+//! The integration tests of `reeve`: one test binary, one module per subject, sharing
+//! one support module (the binary runner, closeness, golden files, the example rig and
+//! the rig generators). Run one subject with `cargo test --test it SUBJECT::`.
+
+mod support;
+
+mod cli;
+mod friction_published;
+mod generators;
+mod geometry;
+mod load_errors;
+mod numerics;
+mod outputs;
+mod properties;
+mod published;
+mod rigs;
+mod studies;
