@@ -67,6 +67,9 @@ pub struct Kinematics {
     /// The rope's speed over each path entry, relative to that part and along the path
     /// direction, in the forward motion (`rope_speed[line][entry]`).
     pub rope_speed: Vec<Vec<Real>>,
+    /// Per line, the rope speed (per unit drive speed) below which the rope counts as
+    /// standing still on a part: round-off, not motion.
+    pub rope_speed_floor: Vec<Real>,
 }
 
 /// The direction a haul end is pulled: given, or along its span away from the line.
@@ -157,7 +160,15 @@ impl Kinematics {
                     &span.start,
                     &u,
                 );
-                rows.push(end - start);
+                // Round-off of a span square to a part's motion (u · d of order 1e-17)
+                // is no motion: an exact zero keeps the rig's pattern for the walk.
+                let mut row = end - start;
+                row.apply(|x| {
+                    if x.abs() < 1e-13 {
+                        *x = 0.0;
+                    }
+                });
+                rows.push(row);
             }
             span_rows.push(rows);
         }
@@ -208,6 +219,7 @@ impl Kinematics {
 
         // Each sub-rig on its own.
         let mut forward = DVector::zeros(n);
+        let mut walked = vec![false; network.components.len()];
         for (c, members) in network.components.iter().enumerate() {
             let cols: Vec<usize> = members.iter().filter_map(|&p| dof_of_part[p]).collect();
             if cols.is_empty() {
@@ -224,8 +236,26 @@ impl Kinematics {
                     .map(|&i| rig.parts[dofs[i].part].name.clone())
                     .collect()
             };
-            let null = null_space(&a, &rows, &cols, rank_tolerance);
             let drive = drives.get(c).copied().flatten();
+            // A determinate sub-rig (one constraint per moving part but the drive, in
+            // an order that brings in one part at a time) is walked to full precision;
+            // the null space by SVD below is for the rest.
+            if let Some(speeds) = walk_motion(
+                rig,
+                &dofs,
+                &a,
+                &rows,
+                &cols,
+                drive.and_then(|d| dof_of_part[d]),
+                rank_tolerance,
+            )? {
+                for (r, &col) in cols.iter().enumerate() {
+                    forward[col] = speeds[r];
+                }
+                walked[c] = true;
+                continue;
+            }
+            let null = null_space(&a, &rows, &cols, rank_tolerance);
             match (null.ncols(), drive) {
                 (0, _) => {
                     return Err(SolveError::CannotMove {
@@ -293,6 +323,29 @@ impl Kinematics {
             }
         }
 
+        // Below what speed the rope counts as standing on a part: 1e-12 of the drive's
+        // speed where the motion came from the SVD (whose round-off is relative to the
+        // drive), 1e-12 of the line's own speeds where it was walked (exact to its own
+        // scale: a cascade's far lines run at 2^-N of the drive and still run).
+        let rope_speed_floor: Vec<Real> = (0..rig.lines.len())
+            .map(|l| {
+                let walked_line = line_component(rig, network, l).is_some_and(|c| walked[c]);
+                if !walked_line {
+                    return 1e-12;
+                }
+                let scale = span_rows[l]
+                    .iter()
+                    .map(|row| {
+                        row.iter()
+                            .zip(forward.iter())
+                            .map(|(b, v)| (b * v).abs())
+                            .sum::<Real>()
+                    })
+                    .fold(0.0, Real::max);
+                1e-12 * scale
+            })
+            .collect();
+
         Ok(Kinematics {
             dofs,
             dof_of_part,
@@ -300,6 +353,7 @@ impl Kinematics {
             span_rows,
             forward,
             rope_speed,
+            rope_speed_floor,
         })
     }
 }
@@ -340,6 +394,49 @@ fn point_velocity_along(
         }
     }
     v
+}
+
+/// The forward speeds of a sub-rig's degrees of freedom (`cols`, drive at +1) by
+/// walking its constraints (`rows` of `a`), when they are determinate: one constraint
+/// per moving part but the drive, ordered so that each brings in one part (see
+/// [`super::walk`]); a pivot must be above the null-space threshold of the SVD. None
+/// when the walk does not apply (then the SVD decides).
+///
+/// # Errors
+/// [`SolveError::BeyondPrecision`] when a part's speed relative to the drive's is
+/// beyond what a double holds (a cascade of more than about 1,000 movable pulleys).
+fn walk_motion(
+    rig: &Rig,
+    dofs: &[Dof],
+    a: &DMatrix<Real>,
+    rows: &[usize],
+    cols: &[usize],
+    drive: Option<usize>,
+    tolerance: Real,
+) -> Result<Option<Vec<Real>>, SolveError> {
+    let Some(dpos) = drive.and_then(|d| cols.iter().position(|&i| i == d)) else {
+        return Ok(None);
+    };
+    if rows.len() + 1 != cols.len() {
+        return Ok(None);
+    }
+    let mut sub = DMatrix::zeros(rows.len(), cols.len());
+    for (r, &row) in rows.iter().enumerate() {
+        for (k, &col) in cols.iter().enumerate() {
+            sub[(r, k)] = a[(row, col)];
+        }
+    }
+    let scale = sub.amax().max(1.0);
+    let mut known = vec![None; cols.len()];
+    known[dpos] = Some(1.0);
+    super::walk::substitute(&sub, &vec![0.0; rows.len()], &known, |r, k| {
+        sub[(r, k)].abs() > tolerance * scale
+    })
+    .map_err(|e| SolveError::BeyondPrecision {
+        stage: "the kinematics",
+        what: "the speed",
+        part: rig.parts[dofs[cols[e.col]].part].name.clone(),
+    })
 }
 
 /// Orthonormal basis of the null space of `a` restricted to `rows` × `cols`.

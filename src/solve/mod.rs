@@ -7,6 +7,7 @@
 
 pub mod kinematics;
 pub mod statics;
+pub mod walk;
 
 use crate::geometry::{self, Geometry, GeometryError, GeometryOptions};
 use crate::math::{Real, Vector};
@@ -152,6 +153,18 @@ pub enum SolveError {
         /// The part concerned, if known.
         part: Option<String>,
     },
+    /// A speed or tension that the walk of a determinate rig finds beyond what a double
+    /// holds (below the smallest normal `f64`, 2.2e-308, relative to the drive's, or
+    /// above the largest): no figure in double precision would be right.
+    #[error("{stage}: {what} at `{part}` is beyond what double precision holds (its size relative to the drive's is below 2.2e-308 or above 1.8e308), so every figure of this rig would be wrong; split the rig into fewer stages in series, or solve its parts one at a time")]
+    BeyondPrecision {
+        /// Where: `the kinematics`, `the forward case`, ...
+        stage: &'static str,
+        /// What: `the speed`, `a tension`.
+        what: &'static str,
+        /// The part whose equation gave it.
+        part: String,
+    },
     /// Every load acts square to the motion (a block travelling across gravity, a rig
     /// drawn with Y up while `gravity` is left at −Z): every figure would be zero.
     #[error("the loads do no work as the rig moves, so every figure would be zero: {}; if the rig is drawn with the blocks' `moves` pointing up, set `gravity: {}`; otherwise point `moves` the way the block travels, or give what resists its travel as `load: {{force: ...}}`", square_words(parts, moves, gravity), vector_words(&-moves))]
@@ -215,6 +228,7 @@ impl SolveError {
             SolveError::UnknownDoesNoWork { part, .. } => (None, Some(part)),
             SolveError::LoadsDoNoWork { parts, .. } => (None, parts.first().map(String::as_str)),
             SolveError::NoEquilibrium { part, .. } => (None, part.as_deref()),
+            SolveError::BeyondPrecision { part, .. } => (None, Some(part)),
         }
     }
 

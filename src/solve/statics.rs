@@ -379,7 +379,7 @@ impl<'a> Problem<'a> {
             return (1.0, 0.0, false);
         }
         let s = case.sign() * self.kin.rope_speed[line][e];
-        if s.abs() < 1e-12 {
+        if s.abs() < self.kin.rope_speed_floor[line] {
             return (1.0, 0.0, false);
         }
         let entry = &self.geometry.lines[line].entries[e];
@@ -625,29 +625,32 @@ impl<'a> Problem<'a> {
                     }
                 })
                 .collect();
-            let mut scaled = mat.clone();
-            for (j, n) in column_norms.iter().enumerate() {
-                scaled.column_mut(j).unscale_mut(*n);
-            }
-            // Then the rows (equations), which leaves the solutions of a consistent
-            // system unchanged.
-            let mut scaled_rhs = rhs.clone();
-            for i in 0..n {
-                let r = scaled.row(i).amax();
-                if r > 0.0 && r.is_finite() {
-                    scaled.row_mut(i).unscale_mut(r);
-                    scaled_rhs[i] /= r;
+            // A determinate system is walked, unknown by unknown, to full precision
+            // (super::walk); a pivot must pass the rank threshold of the dense solve on
+            // the equilibrated matrix, so the walk answers only where that solve would
+            // find full rank too.
+            let row_max: Vec<Real> = (0..n)
+                .map(|k| {
+                    (0..m)
+                        .map(|j| mat[(k, j)].abs() / column_norms[j])
+                        .fold(0.0, Real::max)
+                })
+                .collect();
+            let walked = super::walk::substitute(&mat, rhs.as_slice(), &vec![None; m], |k, j| {
+                mat[(k, j)].abs() / column_norms[j] > options.rank_tolerance * row_max[k]
+            })
+            .map_err(|e| {
+                let part = self.kin.dofs[self.dofs[e.row]].part;
+                SolveError::BeyondPrecision {
+                    stage: stage_name(case, breakaway),
+                    what: "a tension",
+                    part: rig.parts[part].name.clone(),
                 }
-            }
-            let scale = scaled.amax().max(1e-300);
-            let svd = scaled.svd(true, true);
-            let rank = svd.rank(options.rank_tolerance * scale);
-            let mut solution = svd
-                .solve(&scaled_rhs, options.rank_tolerance * scale)
-                .unwrap_or_else(|_| DVector::zeros(m));
-            for (j, n) in column_norms.iter().enumerate() {
-                solution[j] /= n;
-            }
+            })?;
+            let (solution, rank) = match walked {
+                Some(x) => (DVector::from_vec(x), m),
+                None => self.dense_solve(&mat, &rhs, &column_norms, options),
+            };
             let residual = (&mat * &solution - &rhs).norm();
             // Compare the misfit with the size of the terms that should cancel.
             let terms = mat.abs() * solution.abs();
@@ -738,6 +741,43 @@ impl<'a> Problem<'a> {
             status,
             &velocity,
         ))
+    }
+
+    /// The equilibrated least-squares solve of `mat x = rhs` by SVD, and the rank it
+    /// finds: for systems the walk cannot order (lines sharing a block, coupled
+    /// drums).
+    fn dense_solve(
+        &self,
+        mat: &DMatrix<Real>,
+        rhs: &DVector<Real>,
+        column_norms: &[Real],
+        options: &SolveOptions,
+    ) -> (DVector<Real>, usize) {
+        let (n, m) = mat.shape();
+        let mut scaled = mat.clone();
+        for (j, n) in column_norms.iter().enumerate() {
+            scaled.column_mut(j).unscale_mut(*n);
+        }
+        // Then the rows (equations), which leaves the solutions of a consistent
+        // system unchanged.
+        let mut scaled_rhs = rhs.clone();
+        for i in 0..n {
+            let r = scaled.row(i).amax();
+            if r > 0.0 && r.is_finite() {
+                scaled.row_mut(i).unscale_mut(r);
+                scaled_rhs[i] /= r;
+            }
+        }
+        let scale = scaled.amax().max(1e-300);
+        let svd = scaled.svd(true, true);
+        let rank = svd.rank(options.rank_tolerance * scale);
+        let mut solution = svd
+            .solve(&scaled_rhs, options.rank_tolerance * scale)
+            .unwrap_or_else(|_| DVector::zeros(m));
+        for (j, n) in column_norms.iter().enumerate() {
+            solution[j] /= n;
+        }
+        (solution, rank)
     }
 
     /// The error for a tension coefficient that overflowed at entry `e` of `line`.
