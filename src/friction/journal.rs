@@ -4,8 +4,8 @@
 //! it slips; the pin's reaction then leans by the friction angle `atan(mu)` and its
 //! line of action touches a circle of radius `r_f = r sin(atan mu)` about the pin's
 //! centre. The friction moment is `r_f × |pin load|`, whatever the load's direction.
-//! [`super::bearing_resistance`] turns a plain bearing into this radius; the moment
-//! balance of a sheave lives in [`super`].
+//! `solve::bearing::bearing_resistance` turns a plain bearing into this radius; the moment
+//! balance of a sheave lives in [`super::sheave`].
 
 use crate::math::Real;
 

@@ -7,25 +7,34 @@
 //! they have run in. Radii are measured perpendicular to the shaft, also on a cone.
 
 use crate::math::Real;
-use crate::rig::model::{Contact, Thrust};
+
+/// How the pressure spreads over a thrust face.
+#[derive(Debug, Clone, Copy, PartialEq, Eq)]
+pub enum Pressure {
+    /// Uniform pressure: new, well-fitting surfaces.
+    Uniform,
+    /// Uniform wear (pressure ∝ 1/r): surfaces that have run in.
+    UniformWear,
+}
 
 /// Effective friction radius of a thrust face (pivot or collar).
 ///
 /// # Formula
 /// With outer radius `Ro` and inner radius `Ri` (`Ri = 0` for a solid pivot):
-/// - uniform pressure ([`Contact::New`]):
+/// - uniform pressure ([`Pressure::Uniform`]):
 ///   `r_eff = (2/3)(Ro³ − Ri³)/(Ro² − Ri²) = (2/3)(Ro² + Ro Ri + Ri²)/(Ro + Ri)`
 ///   (`(2/3) Ro` for a solid pivot);
-/// - uniform wear ([`Contact::Worn`]): `r_eff = (Ro + Ri)/2` (`Ro/2` for a solid
+/// - uniform wear ([`Pressure::UniformWear`]): `r_eff = (Ro + Ri)/2` (`Ro/2` for a solid
 ///   pivot).
 ///
 /// The second form of the uniform-pressure radius has no `0/0` for a thin ring
 /// (`Ri → Ro`, where `r_eff → Ro`).
 ///
 /// # Arguments
-/// - `thrust`: the bearing; `diameter` = `2 Ro` and `inner_diameter` = `2 Ri` in m,
-///   `0 ≤ Ri ≤ Ro` (loading validates; here a swapped pair is put in order and a NaN
-///   or negative diameter counts as 0).
+/// - `diameter` = `2 Ro` and `inner_diameter` = `2 Ri`, m, `0 ≤ Ri ≤ Ro` (loading
+///   validates; here a swapped pair is put in order and a NaN or negative diameter
+///   counts as 0).
+/// - `pressure`: how the pressure spreads over the face.
 ///
 /// # Returns
 /// `r_eff`, m, with `Ri ≤ r_eff ≤ Ro`.
@@ -34,11 +43,9 @@ use crate::rig::model::{Contact, Thrust};
 /// A collar of 200 mm outer and 150 mm inner diameter, new:
 /// `r_eff = (2/3)(0.1³ − 0.075³)/(0.1² − 0.075²) = 0.088 095 m`.
 /// ```
-/// use reeve::friction::thrust::effective_radius;
-/// use reeve::rig::model::{Contact, Thrust};
-/// let collar = Thrust { load: 5000.0, diameter: 0.200, inner_diameter: 0.150, mu: 0.3,
-///                       contact: Contact::New, cone_angle: None };
-/// assert!((effective_radius(&collar) - 0.088_095).abs() < 1e-6);
+/// use reeve::friction::thrust::{effective_radius, Pressure};
+/// let r_eff = effective_radius(0.200, 0.150, Pressure::Uniform);
+/// assert!((r_eff - 0.088_095).abs() < 1e-6);
 /// ```
 ///
 /// # Source
@@ -46,17 +53,17 @@ use crate::rig::model::{Contact, Thrust};
 /// bearings, pivot bearings, and disks", eq. 8-7 (uniform pressure); Beer & Johnston,
 /// *Statics*, §8.8 "Thrust bearings; disk friction" (uniform pressure) and problem 8.95
 /// (worn collar, uniform wear).
-pub fn effective_radius(thrust: &Thrust) -> Real {
-    let (outer, inner) = radii(thrust);
-    match thrust.contact {
-        Contact::New => {
+pub fn effective_radius(diameter: Real, inner_diameter: Real, pressure: Pressure) -> Real {
+    let (outer, inner) = radii(diameter, inner_diameter);
+    match pressure {
+        Pressure::Uniform => {
             let sum = outer + inner;
             if sum == 0.0 {
                 return 0.0;
             }
             2.0 / 3.0 * (outer * outer + outer * inner + inner * inner) / sum
         }
-        Contact::Worn => (outer + inner) / 2.0,
+        Pressure::UniformWear => (outer + inner) / 2.0,
     }
 }
 
@@ -67,11 +74,11 @@ pub fn effective_radius(thrust: &Thrust) -> Real {
 /// cone's half-angle (`sin α = 1` for a flat face).
 ///
 /// # Arguments
-/// - `thrust.load`: axial load `W`, N, `≥ 0`.
-/// - `thrust.mu`: coefficient of friction, `≥ 0`.
-/// - `thrust.cone_angle`: half-angle `α` of a conical pivot, radians, `0 < α ≤ π/2`
+/// - `load`: axial load `W`, N, `≥ 0`.
+/// - `mu`: coefficient of friction, `≥ 0`.
+/// - `effective_radius`: `r_eff`, m, `≥ 0` ([`effective_radius`]).
+/// - `cone_angle`: half-angle `α` of a conical pivot, radians, `0 < α ≤ π/2`
 ///   (`π/2` is flat); `None` for a flat face.
-/// - diameters and contact as in [`effective_radius`].
 ///
 /// Ranges are validated at load and `debug_assert!`ed here; in release builds a NaN or
 /// negative load or `μ` counts as 0 and a cone angle outside `(0, π/2]` as flat.
@@ -84,31 +91,23 @@ pub fn effective_radius(thrust: &Thrust) -> Real {
 /// is `α = 60°`), 20 kN, μ = 0.03, new
 /// (uniform pressure): `M = 0.03 × 20 000 × (2/3 × 0.075) / sin 60° = 34.641 N·m`.
 /// ```
-/// use reeve::friction::thrust::moment;
-/// use reeve::rig::model::{Contact, Thrust};
-/// let pivot = Thrust { load: 20e3, diameter: 0.150, inner_diameter: 0.0, mu: 0.03,
-///                      contact: Contact::New, cone_angle: Some(60f64.to_radians()) };
-/// assert!((moment(&pivot) - 34.641).abs() < 1e-3);
+/// use reeve::friction::thrust::{effective_radius, moment, Pressure};
+/// let r_eff = effective_radius(0.150, 0.0, Pressure::Uniform);
+/// let m = moment(20e3, 0.03, r_eff, Some(60f64.to_radians()));
+/// assert!((m - 34.641).abs() < 1e-3);
 /// ```
 ///
 /// # Source
 /// Hibbeler, *Statics*, §8.6, eq. 8-7; Beer & Johnston, *Statics*, §8.8 and problem
 /// 8.96 (conical bearing, uniform pressure: `M = (2/3) μ P (R₂³ − R₁³)/((R₂² − R₁²)
 /// sin θ)`).
-pub fn moment(thrust: &Thrust) -> Real {
-    debug_assert!(
-        thrust.load >= 0.0,
-        "thrust load must be ≥ 0, got {}",
-        thrust.load
-    );
-    debug_assert!(
-        thrust.mu >= 0.0,
-        "coefficient of friction must be ≥ 0, got {}",
-        thrust.mu
-    );
-    let load = thrust.load.max(0.0);
-    let mu = thrust.mu.max(0.0);
-    let sin_alpha = match thrust.cone_angle {
+pub fn moment(load: Real, mu: Real, effective_radius: Real, cone_angle: Option<Real>) -> Real {
+    debug_assert!(load >= 0.0, "thrust load must be ≥ 0, got {load}");
+    debug_assert!(mu >= 0.0, "coefficient of friction must be ≥ 0, got {mu}");
+    let load = load.max(0.0);
+    let mu = mu.max(0.0);
+    let r_eff = effective_radius.max(0.0);
+    let sin_alpha = match cone_angle {
         Some(alpha) => {
             debug_assert!(
                 alpha > 0.0 && alpha <= std::f64::consts::FRAC_PI_2,
@@ -122,7 +121,7 @@ pub fn moment(thrust: &Thrust) -> Real {
         }
         None => 1.0,
     };
-    let moment = mu * load * effective_radius(thrust) / sin_alpha;
+    let moment = mu * load * r_eff / sin_alpha;
     // 0 × ∞ (an unloaded, infinitely large face) is the only way to a NaN here.
     if moment.is_nan() {
         0.0
@@ -132,15 +131,13 @@ pub fn moment(thrust: &Thrust) -> Real {
 }
 
 /// Outer and inner contact radii, in order, NaN and negatives counted as 0.
-fn radii(thrust: &Thrust) -> (Real, Real) {
+fn radii(diameter: Real, inner_diameter: Real) -> (Real, Real) {
     debug_assert!(
-        thrust.inner_diameter >= 0.0 && thrust.inner_diameter <= thrust.diameter,
-        "thrust diameters must satisfy 0 ≤ inner ≤ outer, got {} and {}",
-        thrust.inner_diameter,
-        thrust.diameter
+        inner_diameter >= 0.0 && inner_diameter <= diameter,
+        "thrust diameters must satisfy 0 ≤ inner ≤ outer, got {inner_diameter} and {diameter}"
     );
-    let a = thrust.diameter.max(0.0) / 2.0;
-    let b = thrust.inner_diameter.max(0.0) / 2.0;
+    let a = diameter.max(0.0) / 2.0;
+    let b = inner_diameter.max(0.0) / 2.0;
     (a.max(b), a.min(b))
 }
 
@@ -148,37 +145,31 @@ fn radii(thrust: &Thrust) -> (Real, Real) {
 mod tests {
     use super::*;
 
-    fn face(diameter: Real, inner_diameter: Real, contact: Contact) -> Thrust {
-        Thrust {
-            load: 100.0,
-            diameter,
-            inner_diameter,
-            mu: 0.1,
-            contact,
-            cone_angle: None,
-        }
+    /// `effective_radius` of a face.
+    fn r(diameter: Real, inner_diameter: Real, pressure: Pressure) -> Real {
+        effective_radius(diameter, inner_diameter, pressure)
     }
 
     #[test]
     fn solid_pivot() {
         // Uniform pressure: (2/3) R; uniform wear: R/2.
-        assert!((effective_radius(&face(0.06, 0.0, Contact::New)) - 0.02).abs() < 1e-15);
-        assert!((effective_radius(&face(0.06, 0.0, Contact::Worn)) - 0.015).abs() < 1e-15);
+        assert!((r(0.06, 0.0, Pressure::Uniform) - 0.02).abs() < 1e-15);
+        assert!((r(0.06, 0.0, Pressure::UniformWear) - 0.015).abs() < 1e-15);
     }
 
     #[test]
     fn thin_ring_tends_to_its_radius() {
-        let r = effective_radius(&face(0.1, 0.1 - 1e-12, Contact::New));
-        assert!((r - 0.05).abs() < 1e-12, "{r}");
-        let r = effective_radius(&face(0.1, 0.1, Contact::New));
-        assert!((r - 0.05).abs() < 1e-15, "{r}");
+        let e = r(0.1, 0.1 - 1e-12, Pressure::Uniform);
+        assert!((e - 0.05).abs() < 1e-12, "{e}");
+        let e = r(0.1, 0.1, Pressure::Uniform);
+        assert!((e - 0.05).abs() < 1e-15, "{e}");
     }
 
     #[test]
     fn new_exceeds_worn_and_both_lie_between_radii() {
         for &(d, di) in &[(0.1, 0.0), (0.1, 0.05), (0.3, 0.2), (0.02, 0.019)] {
-            let new = effective_radius(&face(d, di, Contact::New));
-            let worn = effective_radius(&face(d, di, Contact::Worn));
+            let new = r(d, di, Pressure::Uniform);
+            let worn = r(d, di, Pressure::UniformWear);
             assert!(new >= worn - 1e-15, "{d} {di}: {new} < {worn}");
             assert!(worn >= di / 2.0 && new <= d / 2.0 + 1e-15);
         }
@@ -186,11 +177,11 @@ mod tests {
 
     #[test]
     fn cone_divides_by_sine_of_half_angle() {
-        let mut t = face(0.1, 0.0, Contact::Worn);
-        let flat = moment(&t);
-        t.cone_angle = Some(30f64.to_radians());
-        assert!((moment(&t) - 2.0 * flat).abs() < 1e-12);
-        t.cone_angle = Some(std::f64::consts::FRAC_PI_2);
-        assert!((moment(&t) - flat).abs() < 1e-15);
+        let r_eff = r(0.1, 0.0, Pressure::UniformWear);
+        let flat = moment(100.0, 0.1, r_eff, None);
+        assert!((moment(100.0, 0.1, r_eff, Some(30f64.to_radians())) - 2.0 * flat).abs() < 1e-12);
+        assert!(
+            (moment(100.0, 0.1, r_eff, Some(std::f64::consts::FRAC_PI_2)) - flat).abs() < 1e-15
+        );
     }
 }

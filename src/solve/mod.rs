@@ -5,6 +5,7 @@
 //! sub-rig is the one holding the rig's `drive`; its unknown is `solve_for`. Every other
 //! moving sub-rig needs exactly one haul end, which is then its drive and its unknown.
 
+pub mod bearing;
 pub mod kinematics;
 pub mod statics;
 pub mod walk;

@@ -19,6 +19,7 @@ use crate::math::{Real, Vector, STANDARD_GRAVITY};
 use crate::network::Network;
 use crate::rig::model::{square_to_gravity, BlockLoad, LineId, PartId, PartKind, Rig};
 
+use super::bearing::{bearing_resistance, thrust_moment};
 use super::kinematics::{line_component, Kinematics};
 use super::{Case, SolveError, SolveOptions};
 
@@ -398,7 +399,7 @@ impl<'a> Problem<'a> {
             PartKind::Guide(_) => (orient(capstan), 0.0, false),
             PartKind::Sheave(sheave) => {
                 let r = entry.pitch_radius;
-                match friction::bearing_resistance(&sheave.bearing, breakaway) {
+                match bearing_resistance(&sheave.bearing, breakaway) {
                     BearingResistance::Free => (1.0, 0.0, false),
                     BearingResistance::Rated { rho } => {
                         let k = friction::sheave_ratio(rho, wrap);
@@ -485,13 +486,13 @@ impl<'a> Problem<'a> {
                 |a, (f, _)| a + f,
             );
             let radial = (total - axle * total.dot(&axle)).norm();
-            journal = match friction::bearing_resistance(&shaft.bearing, breakaway) {
+            journal = match bearing_resistance(&shaft.bearing, breakaway) {
                 BearingResistance::Free => 0.0,
                 BearingResistance::FrictionCircle { radius } => radius * radial,
                 BearingResistance::Rated { rho } => rho * 0.5 * d.diameter * radial,
             };
             if let Some(t) = &shaft.thrust {
-                thrust = friction::thrust::moment(t);
+                thrust = thrust_moment(t);
             }
         }
         (d.drag, journal, thrust)
@@ -806,13 +807,13 @@ impl<'a> Problem<'a> {
             PartKind::Sheave(s) => {
                 s.mass.unwrap_or(0.0) > 0.0
                     && matches!(
-                        friction::bearing_resistance(&s.bearing, false),
+                        bearing_resistance(&s.bearing, false),
                         BearingResistance::FrictionCircle { .. }
                     )
             }
             PartKind::Drum(d) => d.shaft.as_ref().is_some_and(|s| {
                 !matches!(
-                    friction::bearing_resistance(&s.bearing, false),
+                    bearing_resistance(&s.bearing, false),
                     BearingResistance::Free
                 )
             }),

@@ -11,13 +11,13 @@ use reeve::friction::capstan::{capstan_ratio, effective_mu, total_wrap};
 use reeve::friction::journal::friction_circle_radius;
 use reeve::friction::rated::{factor_from_efficiency, rho_from_factor};
 use reeve::friction::rolling::{friction_moment, friction_radius};
-use reeve::friction::thrust::{effective_radius, moment};
+use reeve::friction::thrust::{self, Pressure};
 use reeve::friction::{
-    bearing_resistance, moment_dissipation, sheave_ratio, slack_tension, tight_tension,
-    BearingResistance,
+    moment_dissipation, sheave_ratio, slack_tension, tight_tension, BearingResistance,
 };
 use reeve::math::Vector;
-use reeve::rig::model::{Bearing, Contact, Thrust};
+use reeve::rig::model::Bearing;
+use reeve::solve::bearing::bearing_resistance;
 
 use crate::support::assert_abs;
 
@@ -336,15 +336,33 @@ fn v_groove_wedge_factor() {
 // Thrust: collars, flat and conical pivots
 // ---------------------------------------------------------------------------------
 
-fn thrust(load: f64, d: f64, di: f64, mu: f64, contact: Contact, cone: Option<f64>) -> Thrust {
-    Thrust {
+/// A thrust face: axial load, outer and inner diameter, μ, pressure, cone half-angle.
+struct Face {
+    load: f64,
+    diameter: f64,
+    inner_diameter: f64,
+    mu: f64,
+    pressure: Pressure,
+    cone_angle: Option<f64>,
+}
+
+fn thrust(load: f64, d: f64, di: f64, mu: f64, pressure: Pressure, cone: Option<f64>) -> Face {
+    Face {
         load,
         diameter: d,
         inner_diameter: di,
         mu,
-        contact,
+        pressure,
         cone_angle: cone,
     }
+}
+
+fn effective_radius(face: &Face) -> f64 {
+    thrust::effective_radius(face.diameter, face.inner_diameter, face.pressure)
+}
+
+fn moment(face: &Face) -> f64 {
+    thrust::moment(face.load, face.mu, effective_radius(face), face.cone_angle)
 }
 
 /// Hibbeler, *Statics*, §8.6, eq. 8-7 `M = (2/3) μ P (R₂³ − R₁³)/(R₂² − R₁²)`; problem
@@ -352,7 +370,7 @@ fn thrust(load: f64, d: f64, di: f64, mu: f64, contact: Contact, cone: Option<f6
 /// 200 mm diameters, μ = 0.3, P = 5 kN: M = 132.14 N·m.
 #[test]
 fn hibbeler_collar_si() {
-    let collar = thrust(5000.0, 0.200, 0.150, 0.3, Contact::New, None);
+    let collar = thrust(5000.0, 0.200, 0.150, 0.3, Pressure::Uniform, None);
     assert_abs(
         "Hibbeler collar, uniform pressure",
         moment(&collar),
@@ -367,7 +385,7 @@ fn hibbeler_collar_si() {
 /// calculation: (2/3)(0.35)(800)(7/3) = 435.56 lb·in).
 #[test]
 fn hibbeler_collar_us() {
-    let collar = thrust(800.0, 4.0, 2.0, 0.35, Contact::New, None);
+    let collar = thrust(800.0, 4.0, 2.0, 0.35, Pressure::Uniform, None);
     assert_abs("Hibbeler collar, lb·in", moment(&collar), 435.5, 0.1);
 }
 
@@ -376,7 +394,7 @@ fn hibbeler_collar_us() {
 /// M = (2/3) μ P R = 16 lb·ft (the flat solid pivot, `Ri = 0`).
 #[test]
 fn hibbeler_floor_polisher_disk() {
-    let disk = thrust(80.0, 2.0, 0.0, 0.3, Contact::New, None);
+    let disk = thrust(80.0, 2.0, 0.0, 0.3, Pressure::Uniform, None);
     assert_abs("disk friction moment", moment(&disk), 16.0, 1e-9);
     // Meriam & Kraige, *Statics*, disk friction (from memory): M = (2/3) μ P R.
     assert_abs(
@@ -397,7 +415,7 @@ fn conical_pivot_example() {
     let omega = 200.0 * 2.0 * PI / 60.0; // 20.944 rad/s
                                          // Uniform pressure: T = (2/3) μ W R cosec α = (2/3)(0.03)(20 000)(0.075)/0.866 025
                                          // = 34.641 N·m; power = 34.641 × 20.944 = 725.52 W.
-    let new = thrust(20e3, 0.150, 0.0, 0.03, Contact::New, alpha);
+    let new = thrust(20e3, 0.150, 0.0, 0.03, Pressure::Uniform, alpha);
     assert_abs("cone, uniform pressure, torque", moment(&new), 34.641, 1e-3);
     assert_abs(
         "cone, uniform pressure, power",
@@ -406,7 +424,7 @@ fn conical_pivot_example() {
         0.01,
     );
     // Uniform wear: T = (1/2) μ W R cosec α = 25.981 N·m; power = 544.14 W.
-    let worn = thrust(20e3, 0.150, 0.0, 0.03, Contact::Worn, alpha);
+    let worn = thrust(20e3, 0.150, 0.0, 0.03, Pressure::UniformWear, alpha);
     assert_abs("cone, uniform wear, torque", moment(&worn), 25.981, 1e-3);
     assert_abs(
         "cone, uniform wear, power",
@@ -415,7 +433,7 @@ fn conical_pivot_example() {
         0.01,
     );
     // The same pivot made flat loses sin 60° less.
-    let flat = thrust(20e3, 0.150, 0.0, 0.03, Contact::New, None);
+    let flat = thrust(20e3, 0.150, 0.0, 0.03, Pressure::Uniform, None);
     assert_abs(
         "flat vs cone",
         moment(&flat) / moment(&new),
@@ -434,13 +452,13 @@ fn helicopter_shaft_collars() {
     // r_eff = (2/3)(150³ − 100³)/(150² − 100²) = 126.667 mm;
     // T = 0.05 × 94 247.8 × 0.126 667 = 596.90 N·m; P = T × 4π = 7500.9 W.
     let load = 6.0 * 0.4e6 * PI / 4.0 * (0.300_f64.powi(2) - 0.200_f64.powi(2));
-    let collars = thrust(load, 0.300, 0.200, 0.05, Contact::New, None);
+    let collars = thrust(load, 0.300, 0.200, 0.05, Pressure::Uniform, None);
     assert_abs("collar r_eff", effective_radius(&collars), 0.126_667, 1e-6);
     assert_abs("collar torque", moment(&collars), 596.90, 0.01);
     let power = moment_dissipation(moment(&collars), 120.0 * 2.0 * PI / 60.0);
     assert_abs("collar power, W", power, 7500.0, 10.0);
     // Uniform wear, same collars: r_eff = (150 + 100)/2 = 125 mm.
-    let worn = thrust(load, 0.300, 0.200, 0.05, Contact::Worn, None);
+    let worn = thrust(load, 0.300, 0.200, 0.05, Pressure::UniformWear, None);
     assert_abs("worn collar r_eff", effective_radius(&worn), 0.125, 1e-12);
 }
 
