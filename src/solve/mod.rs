@@ -8,6 +8,7 @@
 pub mod bearing;
 pub mod kinematics;
 pub mod statics;
+pub mod travel;
 pub mod walk;
 
 use crate::geometry::{self, Geometry, GeometryError, GeometryOptions};

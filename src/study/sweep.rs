@@ -2,13 +2,12 @@
 //! one end of a range to the other ([`sweep`]), or as the drive moves the rig through
 //! its travel ([`stroke`]).
 //!
-//! The stroke integrates the kinematics: with the drive at unit forward speed,
-//! `Solution::kinematics.forward` gives every degree of freedom's speed, so each
-//! translating part (block, weight, haul end, and every sheave a block carries) moves
-//! by `direction × speed × dt`; drums only turn, which changes no geometry. Each step is
-//! split into sub-steps taken by the midpoint rule, re-solving the geometry at every
-//! evaluation. A step where the rig cannot be solved (a point enters a sheave, the
-//! geometry fails, a span goes slack) is reported and ends the stroke.
+//! The stroke moves the drive through its travel in steps, each split into sub-steps
+//! that `solve::travel::midpoint_step` takes (the parts moved along the rig's motion
+//! by the midpoint rule, the rig solved again where they are); the study itself has no
+//! kinematics. A step where the rig cannot be solved (a point enters a sheave, the
+//! geometry fails, a span goes slack, a span closes up) is reported and ends the
+//! stroke.
 
 use std::io::{self, Write};
 
@@ -18,7 +17,7 @@ use crate::math::Real;
 use crate::report::text::{number, quantity};
 use crate::report::{finite, CAUTION};
 use crate::rig::Rig;
-use crate::solve::kinematics::Motion;
+use crate::solve::travel::{self, ClosedSpan};
 use crate::solve::Solution;
 use crate::units::{parse_quantity, Dimension, UnitSystem};
 
@@ -399,58 +398,17 @@ pub struct Stroke {
     pub units: UnitSystem,
 }
 
-/// Speeds of the main sub-rig's translating parts per unit drive speed:
-/// `(part, velocity)`, including sheaves carried by a moving block.
-fn velocities(rig: &Rig, solution: &Solution) -> Vec<(usize, crate::math::Vector)> {
-    let main = solution.main().component;
-    let k = &solution.kinematics;
-    let mut out = Vec::new();
-    for (i, dof) in k.dofs.iter().enumerate() {
-        if solution.network.component_of[dof.part] != main {
-            continue;
-        }
-        if let Motion::Translate(dir) = dof.motion {
-            let v = dir.into_inner() * k.forward[i];
-            out.push((dof.part, v));
-            // Sheaves and pick points carried by the block move with it.
-            for (s, part) in rig.parts.iter().enumerate() {
-                if part.block == Some(dof.part) {
-                    out.push((s, v));
-                }
-            }
-        }
-    }
-    out
-}
-
-/// A span that closed up or turned round between two positions: a moving part has
-/// reached (or passed through) the part at the span's other end.
-fn closed_span(rig: &Rig, before: &Solution, after: &Solution) -> Option<String> {
-    for (l, line) in rig.lines.iter().enumerate() {
-        let (a, b) = (
-            &before.geometry.lines[l].spans,
-            &after.geometry.lines[l].spans,
-        );
-        for (j, (x, y)) in a.iter().zip(b).enumerate() {
-            if x.direction.dot(&y.direction) < 0.0 || y.length <= 1e-9 * x.length.max(1e-9) {
-                let from = &rig.parts[line.path[j].part].name;
-                let to = &rig.parts[line.path[j + 1].part].name;
-                return Some(format!(
-                    "span {j} of line `{}` closes up: `{from}` and `{to}` meet",
-                    line.name
-                ));
-            }
-        }
-    }
-    None
-}
-
-fn moved(rig: &Rig, v: &[(usize, crate::math::Vector)], dt: Real) -> Rig {
-    let mut r = rig.clone();
-    for (p, vel) in v {
-        r.parts[*p].at += vel * dt;
-    }
-    r
+/// Why the stroke stops where a span closes up: a moving part has reached (or passed
+/// through) the part at the span's other end.
+fn closed_words(rig: &Rig, closed: ClosedSpan) -> String {
+    let line = &rig.lines[closed.line];
+    let j = closed.span;
+    let from = &rig.parts[line.path[j].part].name;
+    let to = &rig.parts[line.path[j + 1].part].name;
+    format!(
+        "span {j} of line `{}` closes up: `{from}` and `{to}` meet",
+        line.name
+    )
 }
 
 /// The drive's travel, parsed: a length for a translating drive, an angle (degrees by
@@ -488,13 +446,7 @@ pub fn stroke(
 ) -> Result<Stroke, StudyError> {
     let (mut rig, first) = source.solve(&[])?;
     let drive = rig.drive;
-    let rotates = first
-        .kinematics
-        .dof_of_part
-        .get(drive)
-        .copied()
-        .flatten()
-        .is_some_and(|i| matches!(first.kinematics.dofs[i].motion, Motion::Rotate(_)));
+    let rotates = travel::drive_rotates(&rig, &first);
     let total = parse_travel(distance, &rig, rotates)?;
     if total == 0.0 || !total.is_finite() {
         return Err(StudyError::Input(format!(
@@ -541,28 +493,20 @@ pub fn stroke(
         }
         // Translating parts move (also when a drum drives: then per radian of the drum).
         for _ in 0..substeps {
-            // Midpoint rule: velocities at the half step carry the whole step.
-            let v0 = velocities(&rig, &current);
-            let half = moved(&rig, &v0, 0.5 * dt);
-            let mid = match source.solve_rig(&half) {
-                Ok(s) => s,
-                Err(e) => {
-                    out.push(failed(step as Real * total / steps as Real, e));
-                    break 'outer;
-                }
-            };
-            let v1 = velocities(&half, &mid);
-            let next_rig = moved(&rig, &v1, dt);
-            let next = match source.solve_rig(&next_rig) {
-                Ok(s) => s,
-                Err(e) => {
-                    out.push(failed(step as Real * total / steps as Real, e));
-                    break 'outer;
-                }
-            };
-            if let Some(why) = closed_span(&next_rig, &current, &next) {
+            let (next_rig, next) =
+                match travel::midpoint_step(&rig, &current, dt, |r| source.solve_rig(r)) {
+                    Ok(moved) => moved,
+                    Err(e) => {
+                        out.push(failed(step as Real * total / steps as Real, e));
+                        break 'outer;
+                    }
+                };
+            if let Some(closed) = travel::closed_span(&next_rig, &current, &next) {
                 // The figures past that point describe a rope through a part: none.
-                out.push(stopped(step as Real * total / steps as Real, why));
+                out.push(stopped(
+                    step as Real * total / steps as Real,
+                    closed_words(&next_rig, closed),
+                ));
                 break 'outer;
             }
             rig = next_rig;
