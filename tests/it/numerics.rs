@@ -176,3 +176,29 @@ fn a_cascade_beyond_double_precision_is_refused_not_answered() {
         "first line: {first}"
     );
 }
+
+#[test]
+fn a_10000_guide_chain_is_right_and_fails_its_friction_lock_check() {
+    // Guards "never a wrong answer with exit 0": friction over 10,000 guides multiplies
+    // the tension about 1e89-fold. The walk still gives the capstan product (its back
+    // value was off by 6e82 through the dense solve), and the friction-lock check,
+    // which reads the solved ratios, fails the rig.
+    let mu = 0.01;
+    let rig = load_str(&chain(10_000, mu), "chain.yaml").unwrap();
+    let solution = solve(&rig, &SolveOptions::default()).unwrap();
+    let wrap = total_wrap(&solution);
+    assert_rel(
+        "10,000 guides: back vs W·exp(−μΣφ)",
+        solution.main().back.value,
+        9.80665 * (-mu * wrap).exp(),
+        1e-11,
+    );
+    let warnings = reeve::checks::run(&rig, &solution);
+    assert!(
+        warnings
+            .iter()
+            .any(|w| w.code == "friction-lock" && w.fails),
+        "{:?}",
+        warnings.iter().map(|w| w.code).collect::<Vec<_>>()
+    );
+}
