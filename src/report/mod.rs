@@ -3,6 +3,8 @@
 //! their units, angles in degrees; `None` becomes JSON `null`, never NaN.
 
 pub mod escape;
+pub mod file;
+pub mod format;
 pub mod html;
 pub mod svg;
 pub mod table;
@@ -16,6 +18,8 @@ use crate::rig::model::{PartKind, Rig};
 use crate::solve::kinematics::Motion;
 use crate::solve::{given_quantity, Case, Outcome, Solution, SubRigSolution};
 use crate::units::UnitSystem;
+
+pub use format::Format;
 
 /// The caution every human-readable report ends with (DESIGN.md §6).
 pub const CAUTION: &str =

@@ -40,6 +40,9 @@ pub enum View {
 }
 
 impl View {
+    /// Every view, in the order the help lists them.
+    pub const ALL: [View; 4] = [View::Front, View::Side, View::Top, View::Iso];
+
     /// Lowercase name.
     pub fn name(self) -> &'static str {
         match self {

@@ -36,6 +36,24 @@ pub enum CaseFilter {
 }
 
 impl CaseFilter {
+    /// Every filter, in the order the help lists them.
+    pub const ALL: [CaseFilter; 4] = [
+        CaseFilter::All,
+        CaseFilter::Ideal,
+        CaseFilter::Forward,
+        CaseFilter::Back,
+    ];
+
+    /// One line for the help.
+    pub fn describe(self) -> &'static str {
+        match self {
+            CaseFilter::All => "Ideal, forward and back",
+            CaseFilter::Ideal => "No friction",
+            CaseFilter::Forward => "Driving forward",
+            CaseFilter::Back => "Running back",
+        }
+    }
+
     /// Lowercase name (`all`, `ideal`, `forward`, `back`).
     pub fn name(self) -> &'static str {
         match self {
@@ -66,6 +84,29 @@ pub enum TableChoice {
     Spans,
     /// Parts only.
     Parts,
+}
+
+impl TableChoice {
+    /// Every choice, in the order the help lists them.
+    pub const ALL: [TableChoice; 3] = [TableChoice::Both, TableChoice::Spans, TableChoice::Parts];
+
+    /// Lowercase name (`both`, `spans`, `parts`).
+    pub fn name(self) -> &'static str {
+        match self {
+            TableChoice::Both => "both",
+            TableChoice::Spans => "spans",
+            TableChoice::Parts => "parts",
+        }
+    }
+
+    /// One line for the help.
+    pub fn describe(self) -> &'static str {
+        match self {
+            TableChoice::Both => "Spans and parts",
+            TableChoice::Spans => "Spans only",
+            TableChoice::Parts => "Parts only",
+        }
+    }
 }
 
 /// Who reads the table: a person (text, Markdown, HTML) or a program (CSV).

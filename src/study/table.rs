@@ -7,31 +7,7 @@ use crate::report::escape::{csv_field, markdown_cell, write_printable};
 use crate::report::CAUTION;
 use crate::text::printable;
 
-/// Output formats of the studies.
-#[derive(Debug, Clone, Copy, PartialEq, Eq)]
-pub enum Format {
-    /// Aligned text for a terminal.
-    Text,
-    /// A Markdown table.
-    Markdown,
-    /// Comma-separated values (numbers in SI, units in the headers).
-    Csv,
-    /// One JSON document.
-    Json,
-}
-
-impl Format {
-    /// Reads `text`, `md`, `csv` or `json`.
-    pub fn parse(word: &str) -> Option<Format> {
-        match word {
-            "text" | "txt" => Some(Format::Text),
-            "md" | "markdown" => Some(Format::Markdown),
-            "csv" => Some(Format::Csv),
-            "json" => Some(Format::Json),
-            _ => None,
-        }
-    }
-}
+pub use crate::report::Format;
 
 /// A table: a header row and body rows of cells; the first column is left-aligned,
 /// the others right-aligned in text.
