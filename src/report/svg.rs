@@ -1206,17 +1206,13 @@ pub fn render(rig: &Rig, solution: &Solution, report: &Report, options: &DrawOpt
 
     // Title block.
     let h = &report.headline;
-    let dim = match h.solve_for.quantity {
-        "mass" => Dimension::Mass,
-        "torque" => Dimension::Torque,
-        _ => Dimension::Force,
-    };
+    let dim = h.solve_for.quantity.dimension();
     let q = |x| quantity(x, dim, units);
     let (bx, bw) = (PAGE_W - 560.0, 544.0);
     let lines = [
         format!(
             "{} at {}: forward {} · back {} · ideal {}",
-            h.solve_for.quantity,
+            h.solve_for.quantity.name(),
             h.solve_for.part,
             q(h.forward.value),
             q(h.back.value),

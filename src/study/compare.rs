@@ -13,12 +13,13 @@ use serde::Serialize;
 
 use crate::math::Real;
 use crate::report::text::number;
+use crate::report::Asked;
 use crate::report::CAUTION;
 use crate::rig::Rig;
 use crate::units::{Dimension, UnitSystem};
 
 use super::table::{csv_number, write_human, write_human_sections, Format, Table};
-use super::{figures, margin_cell, AskedQuantity, Figures, RigSource, StudyError};
+use super::{figures, margin_cell, Figures, RigSource, StudyError};
 use crate::report::text::capitalise;
 
 /// The comparison: one [`Figures`] per column, grouped by the asked quantity; the first
@@ -43,7 +44,7 @@ pub struct Comparison {
 #[derive(Debug, Clone, Serialize, PartialEq)]
 pub struct Group {
     /// The asked quantity (the part of the group's first column).
-    pub solve_for: AskedQuantity,
+    pub solve_for: Asked,
     /// Indices into `columns`, the first the group's reference.
     pub columns: Vec<usize>,
 }
@@ -176,14 +177,6 @@ pub fn label_of(source: &str) -> String {
         .map_or(source.to_string(), |f| f.to_string_lossy().into_owned())
 }
 
-fn dimension_of(quantity: &str) -> Dimension {
-    match quantity {
-        "mass" => Dimension::Mass,
-        "torque" => Dimension::Torque,
-        _ => Dimension::Force,
-    }
-}
-
 /// A row: label, SI unit for CSV, value per column, change per column, how to show.
 struct Row {
     label: &'static str,
@@ -197,10 +190,13 @@ struct Row {
 
 fn rows(c: &Comparison, _rig_units: &UnitSystem) -> Vec<Row> {
     let units = c.units;
-    let quantities: Vec<&'static str> = c.columns.iter().map(|f| f.solve_for.quantity).collect();
-    let asked = move |i: usize, x: Option<Real>| {
-        crate::report::text::quantity(x, dimension_of(quantities[i]), &units)
-    };
+    let dimensions: Vec<Dimension> = c
+        .columns
+        .iter()
+        .map(|f| f.solve_for.quantity.dimension())
+        .collect();
+    let asked =
+        move |i: usize, x: Option<Real>| crate::report::text::quantity(x, dimensions[i], &units);
     let force =
         move |_: usize, x: Option<Real>| crate::report::text::quantity(x, Dimension::Force, &units);
     let pct = |_: usize, x: Option<Real>| match x {
@@ -216,7 +212,7 @@ fn rows(c: &Comparison, _rig_units: &UnitSystem) -> Vec<Row> {
     let chg = |f: &dyn Fn(&super::compare::Changes) -> Option<Real>| {
         c.change_pct.iter().map(f).collect::<Vec<_>>()
     };
-    let unit = c.columns.first().map_or("N", |f| f.solve_for.unit);
+    let unit = c.columns.first().map_or("N", |f| f.solve_for.unit());
     let mut out = vec![
         Row {
             label: "ideal",
@@ -497,12 +493,16 @@ fn asked_words(c: &Comparison, g: &Group) -> String {
             parts.push(p);
         }
     }
-    let role = if g.solve_for.role == "load" {
+    let role = if g.solve_for.role == crate::report::Role::Load {
         " (a load: forward is the most the drive moves)"
     } else {
         ""
     };
-    format!("the {} at {}{role}", g.solve_for.quantity, parts.join(", "))
+    format!(
+        "the {} at {}{role}",
+        g.solve_for.quantity.name(),
+        parts.join(", ")
+    )
 }
 
 impl Comparison {

@@ -27,12 +27,12 @@ use serde::Serialize;
 
 use crate::checks;
 use crate::math::Real;
-use crate::report::Report;
+use crate::report::{Asked, Report};
 use crate::rig::file::{parse_tree, strip_bom, MAX_INPUT_BYTES};
 use crate::rig::load::{load_str_with, ranges_str, variants_str};
 use crate::rig::overrides::{apply_overrides, Uncertain, Variant};
 use crate::rig::{LoadError, Rig};
-use crate::solve::{self, Solution, SolveError, SolveOptions, SubRigSolution};
+use crate::solve::{self, Solution, SolveError, SolveOptions};
 
 /// Why a study cannot run (exit 2).
 #[derive(Debug, Clone, thiserror::Error)]
@@ -174,38 +174,6 @@ impl RigSource {
     }
 }
 
-/// The asked quantity of a study, with the unit its values are given in.
-#[derive(Debug, Clone, Serialize, PartialEq)]
-pub struct AskedQuantity {
-    /// The part solved for.
-    pub part: String,
-    /// `force`, `mass` or `torque`.
-    pub quantity: &'static str,
-    /// SI unit of the values.
-    pub unit: &'static str,
-    /// `drive` where the asked part is the drive (forward: the least value that starts
-    /// the rig), `load` where it is a load (forward: the greatest load the drive moves).
-    pub role: &'static str,
-}
-
-impl AskedQuantity {
-    /// The asked quantity of a sub-rig.
-    pub fn of(rig: &Rig, sub: &SubRigSolution) -> AskedQuantity {
-        AskedQuantity {
-            part: rig.parts[sub.solve_for].name.clone(),
-            quantity: sub.quantity.name(),
-            unit: sub.quantity.si_unit(),
-            role: if sub.drive_unknown() { "drive" } else { "load" },
-        }
-    }
-
-    /// Whether two asked quantities are like with like: the same quantity in the same
-    /// unit, asked of a drive or of a load alike (the part may differ).
-    pub fn like(&self, other: &AskedQuantity) -> bool {
-        (self.quantity, self.unit, self.role) == (other.quantity, other.unit, other.role)
-    }
-}
-
 /// What `check` concludes about one solved rig, read through [`checks::run`] and
 /// [`Report`]: the margin, whether the drive moves the rig, the checks that fail (a
 /// study exits 1 when any run fails one, as `check` does), and the sheaves that stall.
@@ -291,7 +259,7 @@ pub struct Figures {
     /// Column label (file name or variant name).
     pub label: String,
     /// The asked quantity.
-    pub solve_for: AskedQuantity,
+    pub solve_for: Asked,
     /// Ideal value.
     pub ideal: Option<Real>,
     /// Forward value.
@@ -367,7 +335,7 @@ pub fn figures(label: &str, rig: &Rig, solution: &Solution) -> Figures {
     let h = &report.headline;
     Figures {
         label: label.to_string(),
-        solve_for: AskedQuantity::of(rig, main),
+        solve_for: Asked::of(rig, main),
         ideal: h.ideal.value,
         forward: h.forward.value,
         back: h.back.value,

@@ -21,13 +21,14 @@ use serde::Serialize;
 
 use crate::math::Real;
 use crate::report::text::{number, quantity};
+use crate::report::Asked;
 use crate::report::{finite, CAUTION};
 use crate::rig::model::{Bearing, PartKind};
 use crate::rig::Rig;
-use crate::units::{Dimension, UnitSystem};
+use crate::units::UnitSystem;
 
 use super::table::{csv_number, write_human, Format, Table};
-use super::{margin_cell, AskedQuantity, RigSource, StudyError, Verdict};
+use super::{margin_cell, RigSource, StudyError, Verdict};
 
 /// Friction coefficient of the `--to rolling` default: a deep-groove ball bearing's
 /// constant coefficient referred to the bore (from memory of rolling-bearing
@@ -173,7 +174,7 @@ impl Coefficient {
 #[derive(Debug, Clone, Serialize, PartialEq)]
 pub struct Ranking {
     /// The asked quantity.
-    pub solve_for: AskedQuantity,
+    pub solve_for: Asked,
     /// Forward value of the rig as written.
     pub forward: Option<Real>,
     /// What `check` concludes about the rig as written.
@@ -477,7 +478,7 @@ pub fn rank(source: &RigSource, alt: Option<&Alternative>) -> Result<Ranking, St
     // Largest saving first, as the ranking.
     let sensitivities = largest_first(sensitivities, order);
     Ok(Ranking {
-        solve_for: AskedQuantity::of(&rig, main),
+        solve_for: Asked::of(&rig, main),
         forward: finite(f0),
         verdict: Verdict::assess(&rig, &solution),
         alternative: alt.map(Alternative::label),
@@ -486,14 +487,6 @@ pub fn rank(source: &RigSource, alt: Option<&Alternative>) -> Result<Ranking, St
         caution: CAUTION,
         units: rig.units,
     })
-}
-
-fn dimension_of(quantity: &str) -> Dimension {
-    match quantity {
-        "mass" => Dimension::Mass,
-        "torque" => Dimension::Torque,
-        _ => Dimension::Force,
-    }
 }
 
 /// Writes a ranking.
@@ -505,8 +498,8 @@ pub fn write(w: &mut dyn Write, r: &Ranking, format: Format) -> io::Result<()> {
         let json = serde_json::to_string_pretty(r).map_err(io::Error::other)?;
         return writeln!(w, "{json}");
     }
-    let d = dimension_of(r.solve_for.quantity);
-    let si = r.solve_for.unit;
+    let d = r.solve_for.quantity.dimension();
+    let si = r.solve_for.unit();
     let mut t = Table::default();
     let mut s = Table::default();
     if format == Format::Csv {
@@ -618,7 +611,7 @@ pub fn write(w: &mut dyn Write, r: &Ranking, format: Format) -> io::Result<()> {
     }
     let mut notes = vec![format!(
         "Forward {} at `{}` as written: {}{}; checks: {}.",
-        r.solve_for.quantity,
+        r.solve_for.quantity.name(),
         r.solve_for.part,
         q(r.forward),
         r.verdict.margin.map_or(String::new(), |m| format!(
@@ -672,7 +665,7 @@ pub fn write(w: &mut dyn Write, r: &Ranking, format: Format) -> io::Result<()> {
     notes.push(String::new());
     notes.push(format!(
         "What 10 % less friction at each coefficient saves (the ranking's measure: the forward {} with that friction cut, against the rig as written):",
-        r.solve_for.quantity
+        r.solve_for.quantity.name()
     ));
     s.headers = vec!["coefficient".into(), "value".into(), "saves".into()];
     for x in &r.sensitivities {
@@ -701,7 +694,8 @@ pub fn write(w: &mut dyn Write, r: &Ranking, format: Format) -> io::Result<()> {
         format,
         &format!(
             "Upgrade ranking: the forward {} at `{}`, each part alone made frictionless",
-            r.solve_for.quantity, r.solve_for.part
+            r.solve_for.quantity.name(),
+            r.solve_for.part
         ),
         &t,
         &notes,

@@ -12,13 +12,14 @@ use serde::Serialize;
 
 use crate::math::Real;
 use crate::report::text::{number, quantity};
+use crate::report::Asked;
 use crate::report::{finite, CAUTION};
 use crate::rig::overrides::{Distribution, Uncertain};
 use crate::units::{Dimension, UnitSystem};
 
 use super::rng::Rng;
 use super::table::{csv_number, write_human, Format, Table};
-use super::{assess, largest_tension, margin_cell, AskedQuantity, RigSource, StudyError, Verdict};
+use super::{assess, largest_tension, margin_cell, RigSource, StudyError, Verdict};
 use crate::report::text::{capitalise, not_moving_words};
 
 /// Draws one value of a distribution.
@@ -125,7 +126,7 @@ pub struct Input {
 #[derive(Debug, Clone, Serialize, PartialEq)]
 pub struct Spread {
     /// The asked quantity.
-    pub solve_for: AskedQuantity,
+    pub solve_for: Asked,
     /// Samples asked for.
     pub samples: usize,
     /// Seed.
@@ -256,7 +257,7 @@ pub fn spread(
         *v = share(*v as usize);
     }
     Ok(Spread {
-        solve_for: AskedQuantity::of(&rig, main),
+        solve_for: Asked::of(&rig, main),
         samples,
         seed,
         failed: samples - ok.len(),
@@ -303,14 +304,6 @@ fn draw_bar(done: usize, total: usize) {
     );
 }
 
-fn dimension_of(quantity: &str) -> Dimension {
-    match quantity {
-        "mass" => Dimension::Mass,
-        "torque" => Dimension::Torque,
-        _ => Dimension::Force,
-    }
-}
-
 /// A row of the spread table: name, SI unit, dimension (none: a ratio shown in
 /// percent), nominal value, percentiles.
 type Row<'a> = (
@@ -330,8 +323,8 @@ pub fn write(w: &mut dyn Write, s: &Spread, format: Format) -> io::Result<()> {
         let json = serde_json::to_string_pretty(s).map_err(io::Error::other)?;
         return writeln!(w, "{json}");
     }
-    let d = dimension_of(s.solve_for.quantity);
-    let si = s.solve_for.unit;
+    let d = s.solve_for.quantity.dimension();
+    let si = s.solve_for.unit();
     let mut rows: Vec<Row> = vec![
         ("forward", si, Some(d), s.nominal_forward, s.forward),
         ("back", si, Some(d), s.nominal_back, s.back),
@@ -434,7 +427,8 @@ pub fn write(w: &mut dyn Write, s: &Spread, format: Format) -> io::Result<()> {
         format,
         &format!(
             "Spread of the {} at `{}` over the ranged inputs",
-            s.solve_for.quantity, s.solve_for.part
+            s.solve_for.quantity.name(),
+            s.solve_for.part
         ),
         &t,
         &notes,

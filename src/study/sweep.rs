@@ -16,6 +16,7 @@ use serde::Serialize;
 
 use crate::math::Real;
 use crate::report::text::{number, quantity};
+use crate::report::Asked;
 use crate::report::{finite, CAUTION};
 use crate::rig::Rig;
 use crate::solve::kinematics::Motion;
@@ -26,7 +27,7 @@ use super::plot::{self, Panel, Series};
 use super::table::{csv_number, write_human, Format, Table};
 use super::{
     largest_fleet_deg, largest_tension, margin_cell, number_and_unit, stalled_note, with_unit,
-    AskedQuantity, RigSource, StudyError, Verdict,
+    RigSource, StudyError, Verdict,
 };
 
 /// A value to vary: `KEY=FROM..TO`, the bounds in the unit written (or the file's).
@@ -123,7 +124,7 @@ pub struct Sweep {
     /// Unit of the varied values as written (empty: the file's unit or a ratio).
     pub unit: String,
     /// The asked quantity (from the first step that solved).
-    pub solve_for: Option<AskedQuantity>,
+    pub solve_for: Option<Asked>,
     /// The steps.
     pub steps: Vec<SweepStep>,
     /// The caution.
@@ -168,7 +169,7 @@ pub fn sweep(source: &RigSource, vary: &Vary, steps: usize) -> Result<Sweep, Stu
         match source.solve(&[setting]) {
             Ok((rig, solution)) => {
                 let main = solution.main();
-                solve_for.get_or_insert_with(|| AskedQuantity::of(&rig, main));
+                solve_for.get_or_insert_with(|| Asked::of(&rig, main));
                 out.push(SweepStep {
                     value,
                     ideal: finite(main.ideal.value),
@@ -198,14 +199,6 @@ pub fn sweep(source: &RigSource, vary: &Vary, steps: usize) -> Result<Sweep, Stu
         caution: CAUTION,
         units,
     })
-}
-
-fn dimension_of(quantity: &str) -> Dimension {
-    match quantity {
-        "mass" => Dimension::Mass,
-        "torque" => Dimension::Torque,
-        _ => Dimension::Force,
-    }
 }
 
 /// Whether any row has a margin (something given to compare with).
@@ -258,11 +251,11 @@ pub fn write_sweep(w: &mut dyn Write, s: &Sweep, format: Format) -> io::Result<(
         let json = serde_json::to_string_pretty(s).map_err(io::Error::other)?;
         return writeln!(w, "{json}");
     }
-    let (qname, si) = s
+    let si = s.solve_for.as_ref().map_or("N", Asked::unit);
+    let d = s
         .solve_for
         .as_ref()
-        .map_or(("value", "N"), |a| (a.quantity, a.unit));
-    let d = dimension_of(qname);
+        .map_or(Dimension::Force, |a| a.quantity.dimension());
     let mut t = Table::default();
     if format == Format::Csv {
         t.headers = vec![
@@ -323,7 +316,12 @@ pub fn write_sweep(w: &mut dyn Write, s: &Sweep, format: Format) -> io::Result<(
         verdicts.len(),
     ));
     let title = match &s.solve_for {
-        Some(a) => format!("Sweep of `{}`: the {} at `{}`", s.key, a.quantity, a.part),
+        Some(a) => format!(
+            "Sweep of `{}`: the {} at `{}`",
+            s.key,
+            a.quantity.name(),
+            a.part
+        ),
         None => format!("Sweep of `{}`", s.key),
     };
     write_human(w, format, &title, &t, &notes)
@@ -331,11 +329,13 @@ pub fn write_sweep(w: &mut dyn Write, s: &Sweep, format: Format) -> io::Result<(
 
 /// The chart of a sweep: ideal, forward and back against the varied value.
 pub fn sweep_chart(s: &Sweep) -> String {
-    let (qname, part) = s
+    let (qname, part) = s.solve_for.as_ref().map_or(("value", String::new()), |a| {
+        (a.quantity.name(), a.part.clone())
+    });
+    let d = s
         .solve_for
         .as_ref()
-        .map_or(("value", String::new()), |a| (a.quantity, a.part.clone()));
-    let d = dimension_of(qname);
+        .map_or(Dimension::Force, |a| a.quantity.dimension());
     let unit = s.units.unit(d);
     let series = |name: &str, f: &dyn Fn(&SweepStep) -> Option<Real>| Series {
         name: name.to_string(),
@@ -389,7 +389,7 @@ pub struct Stroke {
     /// Unit of `travel`: `m` or `rad`.
     pub travel_unit: &'static str,
     /// The asked quantity.
-    pub solve_for: Option<AskedQuantity>,
+    pub solve_for: Option<Asked>,
     /// The steps (the first at zero travel).
     pub steps: Vec<StrokeStep>,
     /// The caution.
@@ -504,7 +504,7 @@ pub fn stroke(
     let steps = steps.max(1);
     let substeps = substeps.max(1);
     let dt = total / (steps * substeps) as Real;
-    let asked = AskedQuantity::of(&rig, first.main());
+    let asked = Asked::of(&rig, first.main());
     let mut out = Vec::new();
     let record = |travel: Real, rig: &Rig, s: &Solution| {
         let main = s.main();
@@ -620,8 +620,11 @@ pub fn write_stroke(w: &mut dyn Write, s: &Stroke, format: Format) -> io::Result
     let (qname, si) = s
         .solve_for
         .as_ref()
-        .map_or(("value", "N"), |a| (a.quantity, a.unit));
-    let d = dimension_of(qname);
+        .map_or(("value", "N"), |a| (a.quantity.name(), a.unit()));
+    let d = s
+        .solve_for
+        .as_ref()
+        .map_or(Dimension::Force, |a| a.quantity.dimension());
     let mut t = Table::default();
     if format == Format::Csv {
         t.headers = vec![
@@ -702,11 +705,13 @@ pub fn write_stroke(w: &mut dyn Write, s: &Stroke, format: Format) -> io::Result
 /// The chart of a stroke: effort, largest fleet angle and largest span tension against
 /// travel, one panel each.
 pub fn stroke_chart(s: &Stroke) -> String {
-    let (qname, part) = s
+    let (qname, part) = s.solve_for.as_ref().map_or(("value", String::new()), |a| {
+        (a.quantity.name(), a.part.clone())
+    });
+    let d = s
         .solve_for
         .as_ref()
-        .map_or(("value", String::new()), |a| (a.quantity, a.part.clone()));
-    let d = dimension_of(qname);
+        .map_or(Dimension::Force, |a| a.quantity.dimension());
     let unit = s.units.unit(d);
     let force = s.units.unit(Dimension::Force);
     let (_, tu) = travel_shown(s, 0.0);
