@@ -1,9 +1,11 @@
 //! Command glue for the design studies (`compare`, `sweep`, `rank`, `spread`): parse
-//! the study's settings, run it from [`crate::study`], write the chosen format.
+//! the study's settings, run it from [`reeve::study`], and write the chosen format with
+//! the study's writer in [`reeve::report::study`].
 
 use std::io::{self, Write};
 use std::path::PathBuf;
 
+use reeve::report::study as writers;
 use reeve::rig::model::PartKind;
 use reeve::study::{compare, rank, spread, sweep, RigSource};
 
@@ -151,7 +153,7 @@ pub fn run_compare(args: CompareArgs) -> Result<i32, Failure> {
             .collect::<Result<Vec<_>, _>>()?;
         compare::compare_rigs(&sources)?
     };
-    write_out(|w| compare::write(w, &c, format))?;
+    write_out(|w| writers::compare::write(w, &c, format))?;
     Ok(exit_code(c.fails()))
 }
 
@@ -167,8 +169,8 @@ pub fn run_sweep(args: SweepArgs) -> Result<i32, Failure> {
         let st = sweep::stroke(&s, distance, steps, 8)?;
         let fails = st.fails();
         (
-            sweep::stroke_chart(&st),
-            Box::new(move |w| sweep::write_stroke(w, &st, format)),
+            writers::sweep::stroke_chart(&st),
+            Box::new(move |w| writers::sweep::write_stroke(w, &st, format)),
             fails,
         )
     } else {
@@ -186,8 +188,8 @@ pub fn run_sweep(args: SweepArgs) -> Result<i32, Failure> {
         }
         let fails = sw.fails();
         (
-            sweep::sweep_chart(&sw),
-            Box::new(move |w| sweep::write_sweep(w, &sw, format)),
+            writers::sweep::sweep_chart(&sw),
+            Box::new(move |w| writers::sweep::write_sweep(w, &sw, format)),
             fails,
         )
     };
@@ -224,7 +226,7 @@ pub fn run_rank(args: RankArgs) -> Result<i32, Failure> {
         }
     }
     let r = rank::rank(&s, alt.as_ref())?;
-    write_out(|w| rank::write(w, &r, format))?;
+    write_out(|w| writers::rank::write(w, &r, format))?;
     Ok(exit_code(r.fails()))
 }
 
@@ -242,6 +244,6 @@ pub fn run_spread(args: SpreadArgs) -> Result<i32, Failure> {
     }
     let s = source(&args.rig)?;
     let r = spread::spread(&s, args.samples, args.seed, args.threads, true)?;
-    write_out(|w| spread::write(w, &r, format))?;
+    write_out(|w| writers::spread::write(w, &r, format))?;
     Ok(exit_code(r.fails()))
 }

@@ -3,10 +3,12 @@
 //! their units, angles in degrees; `None` becomes JSON `null`, never NaN.
 
 pub mod asked;
+pub mod chart;
 pub mod escape;
 pub mod file;
 pub mod format;
 pub mod html;
+pub mod study;
 pub mod svg;
 pub mod table;
 pub mod text;

@@ -7,19 +7,18 @@
 //! every run applies. A study changes a rig only through more overrides on the parsed
 //! tree (so a changed value gets the loader's checks) or, for the stroke, by moving the
 //! resolved parts; none has physics of its own. Results are plain structs that
-//! serialize to JSON with units in the keys; [`table`] and [`plot`] write them out.
+//! serialize to JSON with units in the keys; [`crate::report::study`] writes them out
+//! as text, Markdown, CSV or JSON, and [`crate::report::chart`] draws their charts.
 //!
 //! Every solved run is also judged as `check` judges it ([`Verdict`], through
 //! `checks::run` and `Report::fails`), so a study shows each run's margin and failing
 //! checks and fails (exit 1) where `check` would fail any of its rigs.
 
 pub mod compare;
-pub mod plot;
 pub mod rank;
 pub mod rng;
 pub mod spread;
 pub mod sweep;
-pub mod table;
 
 use std::path::Path;
 
@@ -221,19 +220,6 @@ impl Verdict {
     pub fn assess(rig: &Rig, solution: &Solution) -> Verdict {
         Verdict::of(&assess(rig, solution))
     }
-
-    /// A table cell: `ok` or `FAIL` with the failing codes, and the stalled sheaves.
-    pub fn cell(&self) -> String {
-        let mut cell = if self.fails {
-            format!("FAIL {}", self.failing.join(", "))
-        } else {
-            "ok".to_string()
-        };
-        if !self.stalled.is_empty() {
-            cell.push_str(&format!("; stalled: {}", self.stalled.join(", ")));
-        }
-        cell
-    }
 }
 
 /// The code of the stalled-sheave warning.
@@ -242,15 +228,6 @@ const STALLED: &str = "stalled-sheave";
 /// The report of a solved rig with its checks, as `check` builds it.
 pub fn assess(rig: &Rig, solution: &Solution) -> Report {
     Report::build(rig, solution, checks::run(rig, solution))
-}
-
-/// A note for a table with stalled rows: why their values stop changing.
-pub fn stalled_note(stalled_rows: usize, rows: usize) -> Option<String> {
-    (stalled_rows > 0).then(|| {
-        format!(
-            "{stalled_rows} of {rows} rows have a stalled sheave (`stalled` in checks): it does not turn and the rope slides over it at the capstan ratio, so its bearing no longer changes the values there."
-        )
-    })
 }
 
 /// The headline figures of one solved rig, as compared and swept. SI units.
@@ -352,11 +329,6 @@ pub fn figures(label: &str, rig: &Rig, solution: &Solution) -> Figures {
         warnings: report.warnings.len(),
         verdict: Verdict::of(&report),
     }
-}
-
-/// A margin as a table cell (`12.5 %`, `—`).
-pub fn margin_cell(margin: Option<Real>) -> String {
-    margin.map_or("—".into(), |m| format!("{:.1} %", m * 100.0))
 }
 
 /// Splits `"60 kg"` into 60 and `kg`, `"0.2"` into 0.2 and an empty unit.

@@ -1,11 +1,12 @@
-//! Line charts as standalone SVG: one or more panels stacked vertically, each with
-//! labelled axes (units in the labels), round-number ticks and a legend. Missing
-//! points (a failed step) break the line rather than being joined over.
+//! Line charts of the studies (sweep, stroke) as standalone SVG: one or more panels
+//! stacked vertically, each with labelled axes (units in the labels), round-number
+//! ticks and a legend. Missing points (a failed step) break the line rather than being
+//! joined over.
 
 use std::fmt::Write as _;
 
+use super::escape::xml as escape;
 use crate::math::Real;
-use crate::report::escape::xml as escape;
 
 /// One line of a chart: a name for the legend and its points (None = no value there).
 #[derive(Debug, Clone, PartialEq)]
