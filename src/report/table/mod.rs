@@ -19,9 +19,7 @@ use std::io::{self, Write};
 use crate::math::Real;
 use crate::units::{Dimension, UnitSystem};
 
-use crate::text::printable;
-
-use super::escape::{csv_field, markdown_cell};
+use super::escape::{csv_field, markdown_cell, text_line};
 use super::text::number;
 use super::{Report, CAUTION};
 
@@ -518,14 +516,14 @@ pub fn write_text_table(w: &mut dyn Write, table: &Table) -> io::Result<()> {
         .iter()
         .map(|r| {
             r.iter()
-                .map(|c| printable(&c.text()).into_owned())
+                .map(|c| text_line(&c.text()).into_owned())
                 .collect()
         })
         .collect();
     let headers: Vec<String> = table
         .columns
         .iter()
-        .map(|c| printable(&c.header).into_owned())
+        .map(|c| text_line(&c.header).into_owned())
         .collect();
     let widths: Vec<usize> = headers
         .iter()
@@ -543,7 +541,7 @@ pub fn write_text_table(w: &mut dyn Write, table: &Table) -> io::Result<()> {
     let line = |parts: Vec<String>| parts.join("  ").trim_end().to_string();
     let sheet = table.layout == Layout::Sheet;
     if sheet {
-        writeln!(w, "{}", printable(&table.title))?;
+        writeln!(w, "{}", text_line(&table.title))?;
     }
     writeln!(
         w,
@@ -589,7 +587,7 @@ pub fn write_text(
     units: &UnitSystem,
     tables: &[Table],
 ) -> io::Result<()> {
-    writeln!(w, "{}", printable(&report.title))?;
+    writeln!(w, "{}", text_line(&report.title))?;
     writeln!(w, "Units: {}", units_line(units))?;
     for t in tables {
         writeln!(w)?;
