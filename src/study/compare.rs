@@ -159,7 +159,7 @@ pub fn compare_variants(source: &RigSource) -> Result<Comparison, StudyError> {
     for v in &variants {
         let (rig, solution) = source
             .solve(&v.settings)
-            .map_err(|e| StudyError::Input(format!("variant `{}`: {e}", v.name)))?;
+            .map_err(|e| StudyError::Input(format!("variant `{}`: {}", v.name, e.chain())))?;
         columns.push(figures(&v.name, &rig, &solution));
     }
     Ok(compare(columns, units))

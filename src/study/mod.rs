@@ -39,18 +39,34 @@ pub enum StudyError {
     /// The rig file (with its overrides) does not load.
     #[error(transparent)]
     Load(#[from] LoadError),
-    /// The rig loads but cannot be solved.
-    #[error("{source_name}: {error}")]
+    /// The rig loads but cannot be solved; the solve error is the `source()`.
+    #[error("{source_name}")]
     Solve {
         /// The rig file, with the line, column and part or key where the error can be
         /// located (`rig.yaml:6:3: parts.h`), as `check` words it.
         source_name: String,
         /// Why.
+        #[source]
         error: SolveError,
     },
     /// A study setting is wrong (message says what was expected).
     #[error("{0}")]
     Input(String),
+}
+
+impl StudyError {
+    /// The message with its causes, `context: cause`, for a table note or a step that
+    /// could not be solved (the command line prints the same chain).
+    pub fn chain(&self) -> String {
+        let mut message = self.to_string();
+        let mut cause = std::error::Error::source(self);
+        while let Some(e) = cause {
+            message.push_str(": ");
+            message.push_str(&e.to_string());
+            cause = e.source();
+        }
+        message
+    }
 }
 
 /// A rig's text with the overrides every run of a study applies.

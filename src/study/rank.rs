@@ -394,7 +394,7 @@ pub fn rank(source: &RigSource, alt: Option<&Alternative>) -> Result<Ranking, St
         let (frictionless, frictionless_verdict) = match judged_with(source, &settings) {
             Ok((v, verdict)) => (Some(v), Some(verdict)),
             Err(e) => {
-                notes.push(format!("frictionless: {e}"));
+                notes.push(format!("frictionless: {}", e.chain()));
                 (None, None)
             }
         };
@@ -408,7 +408,7 @@ pub fn rank(source: &RigSource, alt: Option<&Alternative>) -> Result<Ranking, St
                 Some(Ok(s)) => match judged_with(source, &s) {
                     Ok((v, verdict)) => (Some(v), Some(verdict)),
                     Err(e) => {
-                        notes.push(format!("alternative: {e}"));
+                        notes.push(format!("alternative: {}", e.chain()));
                         (None, None)
                     }
                 },

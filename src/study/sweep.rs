@@ -180,7 +180,7 @@ pub fn sweep(source: &RigSource, vary: &Vary, steps: usize) -> Result<Sweep, Stu
                 forward: None,
                 back: None,
                 efficiency: None,
-                error: Some(e.to_string()),
+                error: Some(e.chain()),
                 verdict: Verdict::default(),
             }),
         }
@@ -419,7 +419,10 @@ pub fn stroke(
 }
 
 fn failed(travel: Real, e: StudyError) -> StrokeStep {
-    stopped(travel, format!("the rig cannot be solved here: {e}"))
+    stopped(
+        travel,
+        format!("the rig cannot be solved here: {}", e.chain()),
+    )
 }
 
 /// A step with no figures, only the reason the stroke stops there.
