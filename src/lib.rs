@@ -8,7 +8,6 @@
 #![warn(missing_docs)]
 
 pub mod checks;
-pub mod cli;
 pub mod friction;
 pub mod geometry;
 pub mod math;

@@ -1,10 +1,13 @@
 //! The `reeve` command line (thin: parse arguments, run, map the result to an exit code).
+//! The command line's modules are in `src/cli/`; the library (`src/lib.rs`) knows no clap.
 
 use clap::Parser;
 
+mod cli;
+
 fn main() {
-    let cli = match reeve::cli::Cli::try_parse() {
-        Ok(cli) => cli,
+    let args = match cli::Cli::try_parse() {
+        Ok(args) => args,
         Err(e) => {
             if !e.use_stderr() {
                 // Help and version.
@@ -14,15 +17,16 @@ fn main() {
             // The message quotes what was typed: never echo a control character raw.
             let rendered = e.render().to_string();
             eprint!("{}", reeve::text::printable_lines(&rendered));
-            std::process::exit(reeve::cli::EXIT_BAD_INPUT);
+            std::process::exit(cli::EXIT_BAD_INPUT);
         }
     };
-    let code = match reeve::cli::run(cli) {
+    let code = match cli::run(args) {
         Ok(code) => code,
         Err(failure) => {
-            // Messages quote names and values: never echo a control character raw.
-            eprintln!("reeve: {}", reeve::text::printable_lines(&failure.message));
-            failure.code
+            // The error and its causes, once. Messages quote names and values: never
+            // echo a control character raw.
+            eprintln!("reeve: {}", reeve::text::printable_lines(&failure.chain()));
+            failure.code()
         }
     };
     std::process::exit(code);

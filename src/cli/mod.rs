@@ -1,19 +1,25 @@
-//! The command line: clap definitions and the glue from arguments to the library.
-//! The library never depends on this module.
+//! The command line: clap definitions and the glue from arguments to the library. These
+//! modules belong to the binary (`src/main.rs` declares them); the library knows no clap.
+//! Every failure is a [`Failure`] that keeps the library's error as its `source()`, so
+//! the binary prints the whole chain once.
 
 use std::io::{self, Write};
 use std::path::{Path, PathBuf};
 
 use clap::{Parser, Subcommand};
 
-pub mod output;
+pub mod args;
+pub mod destination;
 pub mod outputs;
 pub mod studies;
 
-use crate::checks;
-use crate::report::{text, Report};
-use crate::rig::{self, Rig};
-use crate::solve::{self, SolveOptions};
+use reeve::checks;
+use reeve::report::{text, Report};
+use reeve::rig::{self, LoadError, Rig};
+use reeve::solve::{self, SolveError, SolveOptions};
+use reeve::study::StudyError;
+
+use args::{JsonArg, RigArgs};
 
 /// Exit code: the rig moves and every check passes.
 pub const EXIT_OK: i32 = 0;
@@ -31,17 +37,6 @@ pub struct Cli {
     pub command: Command,
 }
 
-/// Options shared by every command that reads a rig.
-#[derive(Debug, clap::Args)]
-pub struct RigArgs {
-    /// The rig file (YAML, format 1).
-    pub rig: PathBuf,
-    /// Change one value of the rig before solving, by the file's own keys
-    /// (e.g. `parts.head.bearing.mu=0.08`); may be repeated.
-    #[arg(long = "set", value_name = "KEY=VALUE")]
-    pub set: Vec<String>,
-}
-
 /// The commands.
 #[derive(Debug, Subcommand)]
 pub enum Command {
@@ -50,9 +45,9 @@ pub enum Command {
         /// The rig.
         #[command(flatten)]
         rig: RigArgs,
-        /// Print the whole result as one JSON document (SI units) instead.
-        #[arg(long)]
-        json: bool,
+        /// JSON instead of text.
+        #[command(flatten)]
+        json: JsonArg,
     },
     /// Print the drawing-set tables: tension in every span; wrap, fleet, D/d, ratio,
     /// pin load and loss share at every part.
@@ -71,31 +66,101 @@ pub enum Command {
     Spread(studies::SpreadArgs),
 }
 
-/// What went wrong, already worded for the user.
-#[derive(Debug)]
-pub struct Failure {
-    /// The message (may span lines).
-    pub message: String,
-    /// Exit code.
-    pub code: i32,
+/// Why a command could not do its work (exit 2). The library's error stays the
+/// `source()`; the message of each variant is only the context the command line adds.
+#[derive(Debug, thiserror::Error)]
+pub enum Failure {
+    /// A flag's value is wrong (the message says what was expected).
+    #[error("{0}")]
+    Input(String),
+    /// The rig file, with its overrides, does not load.
+    #[error(transparent)]
+    Load(Box<LoadError>),
+    /// The rig loads but cannot be solved; the context is the file, line, column and
+    /// part where the error can be located.
+    #[error("{location}")]
+    Solve {
+        /// `rig.yaml:6:3: parts.h`, or the file alone.
+        location: String,
+        /// Why.
+        #[source]
+        source: Box<SolveError>,
+    },
+    /// A study cannot run.
+    #[error(transparent)]
+    Study(Box<StudyError>),
+    /// A flag's value is refused by the library (`--to BEARING` that does not load).
+    #[error("{flag}")]
+    Flag {
+        /// The flag and its value as typed (`--to `x``).
+        flag: String,
+        /// Why.
+        #[source]
+        source: Box<StudyError>,
+    },
+    /// A result could not be encoded as JSON.
+    #[error("cannot encode the {what}")]
+    Encode {
+        /// What (`report`, `tables`).
+        what: &'static str,
+        /// Why.
+        #[source]
+        source: serde_json::Error,
+    },
+    /// Writing to stdout failed (other than a closed pipe).
+    #[error("cannot write output")]
+    Stdout(#[source] io::Error),
+    /// Writing a file failed.
+    #[error("cannot write `{}`", path.display())]
+    File {
+        /// The file.
+        path: PathBuf,
+        /// Why.
+        #[source]
+        source: io::Error,
+    },
 }
 
-impl Failure {
-    pub(crate) fn input(message: impl Into<String>) -> Failure {
-        Failure {
-            message: message.into(),
-            code: EXIT_BAD_INPUT,
-        }
+// The library's errors are boxed: they are large, and a failure is the rare path.
+impl From<LoadError> for Failure {
+    fn from(e: LoadError) -> Failure {
+        Failure::Load(Box::new(e))
     }
 }
 
-pub(crate) fn parse_sets(sets: &[String]) -> Result<Vec<(String, String)>, Failure> {
+impl From<StudyError> for Failure {
+    fn from(e: StudyError) -> Failure {
+        Failure::Study(Box::new(e))
+    }
+}
+
+impl Failure {
+    /// The exit code: every failure is bad input or an unsolvable rig.
+    pub fn code(&self) -> i32 {
+        EXIT_BAD_INPUT
+    }
+
+    /// The message with its causes, `context: cause: cause`, as the binary prints it.
+    pub fn chain(&self) -> String {
+        let mut message = self.to_string();
+        let mut cause = std::error::Error::source(self);
+        while let Some(e) = cause {
+            message.push_str(": ");
+            message.push_str(&e.to_string());
+            cause = e.source();
+        }
+        message
+    }
+}
+
+/// `KEY=VALUE` pairs of `--set`.
+pub fn parse_sets(sets: &[String]) -> Result<Vec<(String, String)>, Failure> {
     sets.iter()
         .map(|s| {
             s.split_once('=')
                 .map(|(k, v)| (k.trim().to_string(), v.trim().to_string()))
                 .ok_or_else(|| {
-                    Failure::input(format!(
+                    Failure::Input(format!(
                         "--set `{s}`: expected KEY=VALUE, e.g. parts.head.bearing.mu=0.08"
                     ))
                 })
@@ -103,56 +168,47 @@ pub(crate) fn parse_sets(sets: &[String]) -> Result<Vec<(String, String)>, Failu
         .collect()
 }
 
-/// Loads a rig with its overrides; errors come back worded with file and line.
+/// Loads a rig with its overrides; errors name file and line.
 pub fn load(args: &RigArgs) -> Result<Rig, Failure> {
-    let overrides = parse_sets(&args.set)?;
-    let result = if overrides.is_empty() {
-        rig::load_file(&args.rig)
+    let overrides = parse_sets(&args.sets.set)?;
+    let rig = if overrides.is_empty() {
+        rig::load_file(&args.rig)?
     } else {
-        rig::load::load_file_with(&args.rig, &overrides)
+        rig::load::load_file_with(&args.rig, &overrides)?
     };
-    result.map_err(|e| Failure::input(e.to_string()))
+    Ok(rig)
 }
 
 /// Loads and solves.
 pub fn load_and_solve(args: &RigArgs) -> Result<(Rig, solve::Solution), Failure> {
     let rig = load(args)?;
-    let solution = solve::solve(&rig, &SolveOptions::default())
-        .map_err(|e| Failure::input(locate(&args.rig, &rig, &e)))?;
+    let solution =
+        solve::solve(&rig, &SolveOptions::default()).map_err(|source| Failure::Solve {
+            location: locate(&args.rig, &rig, &source),
+            source: Box::new(source),
+        })?;
     Ok((rig, solution))
 }
 
-/// `file:line:column: key: message` for a solve error, as far as it can be located.
-pub fn locate(path: &Path, rig: &Rig, error: &solve::SolveError) -> String {
+/// `file:line:column: key` for a solve error, as far as it can be located.
+fn locate(path: &Path, rig: &Rig, error: &SolveError) -> String {
     match error.location(rig) {
         Some((l, subject)) if l.line > 0 => {
-            format!(
-                "{}:{}:{}: {subject}: {error}",
-                path.display(),
-                l.line,
-                l.column
-            )
+            format!("{}:{}:{}: {subject}", path.display(), l.line, l.column)
         }
-        _ => format!("{}: {error}", path.display()),
+        _ => path.display().to_string(),
     }
 }
 
-pub(crate) fn write_out(f: impl FnOnce(&mut dyn Write) -> io::Result<()>) -> Result<(), Failure> {
+/// Writes to stdout; a closed pipe (`reeve check x | head`) is not an error.
+pub fn write_out(f: impl FnOnce(&mut dyn Write) -> io::Result<()>) -> Result<(), Failure> {
     let stdout = io::stdout();
     let mut lock = stdout.lock();
     match f(&mut lock).and_then(|_| lock.flush()) {
         Ok(()) => Ok(()),
-        // A closed pipe (`reeve check x | head`) is not an error.
         Err(e) if e.kind() == io::ErrorKind::BrokenPipe => Ok(()),
-        Err(e) => Err(Failure {
-            message: format!("cannot write output: {e}"),
-            code: EXIT_BAD_INPUT,
-        }),
+        Err(e) => Err(Failure::Stdout(e)),
     }
-}
-
-fn display(path: &Path) -> String {
-    path.display().to_string()
 }
 
 /// Runs a parsed command line; returns the exit code.
@@ -162,12 +218,16 @@ pub fn run(cli: Cli) -> Result<i32, Failure> {
             let (rig, solution) = load_and_solve(&args)?;
             let warnings = checks::run(&rig, &solution);
             let report = Report::build(&rig, &solution, warnings);
-            if json {
-                let json = serde_json::to_string_pretty(&report)
-                    .map_err(|e| Failure::input(format!("cannot encode the report: {e}")))?;
+            if json.json {
+                let json =
+                    serde_json::to_string_pretty(&report).map_err(|source| Failure::Encode {
+                        what: "report",
+                        source,
+                    })?;
                 write_out(|w| writeln!(w, "{json}"))?;
             } else {
-                write_out(|w| text::write_check(w, &rig, &report, &display(&args.rig)))?;
+                let source = args.rig.display().to_string();
+                write_out(|w| text::write_check(w, &rig, &report, &source))?;
             }
             Ok(if report.fails() {
                 EXIT_CHECK_FAILED

@@ -2,69 +2,18 @@
 //! rig, builds the one [`Report`], and hands it to a writer of `crate::report`; the
 //! output goes through [`super::output`] (stdout or an atomic file write).
 
-use std::path::PathBuf;
+use clap::Args;
 
-use clap::{Args, ValueEnum};
+use reeve::checks;
+use reeve::report::svg::{self, DrawOptions};
+use reeve::report::table::{self, CaseFilter, Style, TableChoice};
+use reeve::report::{html, Format, Report};
+use reeve::rig::Rig;
+use reeve::solve::Solution;
 
-use crate::checks;
-use crate::report::svg::{self, DrawOptions, View};
-use crate::report::table::{self, CaseFilter, Style, TableChoice};
-use crate::report::{html, Report};
-use crate::rig::Rig;
-use crate::solve::Solution;
-
-use super::output::{emit, Destination};
-use super::{load_and_solve, Failure, RigArgs, EXIT_BAD_INPUT, EXIT_OK};
-
-/// Table formats.
-#[derive(Debug, Clone, Copy, PartialEq, Eq, ValueEnum)]
-pub enum TableFormat {
-    /// Aligned plain text.
-    Text,
-    /// Markdown tables.
-    Md,
-    /// Comma-separated values (one table: see `--table`).
-    Csv,
-    /// One JSON document, SI units.
-    Json,
-}
-
-/// `--case`.
-#[derive(Debug, Clone, Copy, PartialEq, Eq, ValueEnum)]
-pub enum CaseArg {
-    /// Ideal, forward and back.
-    All,
-    /// No friction.
-    Ideal,
-    /// Driving forward.
-    Forward,
-    /// Running back.
-    Back,
-}
-
-/// `--table`.
-#[derive(Debug, Clone, Copy, PartialEq, Eq, ValueEnum)]
-pub enum TableArg {
-    /// Spans and parts.
-    Both,
-    /// Spans only.
-    Spans,
-    /// Parts only.
-    Parts,
-}
-
-/// `--view`.
-#[derive(Debug, Clone, Copy, PartialEq, Eq, ValueEnum)]
-pub enum ViewArg {
-    /// Looking along +y (x to the right, z up).
-    Front,
-    /// Looking along −x (y to the right, z up).
-    Side,
-    /// Looking down −z (x to the right, y up).
-    Top,
-    /// Isometric.
-    Iso,
-}
+use super::args::{case_parser, table_parser, FormatArgs, OutputArg, RigArgs, ViewArg};
+use super::destination::{emit, Destination};
+use super::{load_and_solve, Failure, EXIT_OK};
 
 /// Arguments of `reeve table`.
 #[derive(Debug, Args)]
@@ -73,63 +22,47 @@ pub struct TableArgs {
     #[command(flatten)]
     pub rig: RigArgs,
     /// Output format.
-    #[arg(long, value_enum, default_value = "text")]
-    pub format: TableFormat,
+    #[command(flatten)]
+    pub format: FormatArgs,
     /// Show only one case's columns.
-    #[arg(long = "case", value_enum, default_value = "all")]
-    pub case: CaseArg,
+    #[arg(long = "case", value_name = "CASE", value_parser = case_parser(), default_value = "all")]
+    pub case: CaseFilter,
     /// Which table; CSV holds one table, the span table unless `--table parts`.
-    #[arg(long = "table", value_enum)]
-    pub table: Option<TableArg>,
-    /// Write to this file instead of stdout (`-` is stdout).
-    #[arg(short = 'o', long = "output", value_name = "FILE")]
-    pub output: Option<PathBuf>,
+    #[arg(long = "table", value_name = "TABLE", value_parser = table_parser())]
+    pub table: Option<TableChoice>,
+    /// Where to write.
+    #[command(flatten)]
+    pub output: OutputArg,
 }
 
 /// Arguments of `reeve draw`.
 #[derive(Debug, Args)]
+#[command(mut_arg("output", |a| a.required(true).help("The SVG file to write (`-` is stdout)")))]
 pub struct DrawArgs {
     /// The rig.
     #[command(flatten)]
     pub rig: RigArgs,
-    /// The SVG file to write (`-` is stdout).
-    #[arg(short = 'o', long = "output", value_name = "FILE")]
-    pub output: PathBuf,
-    /// Projection; default: the one among front, side and top that spreads the rig most.
-    #[arg(long, value_enum)]
-    pub view: Option<ViewArg>,
+    /// Where to write.
+    #[command(flatten)]
+    pub output: OutputArg,
+    /// Projection.
+    #[command(flatten)]
+    pub view: ViewArg,
 }
 
 /// Arguments of `reeve report`.
 #[derive(Debug, Args)]
+#[command(mut_arg("output", |a| a.required(true).help("The HTML file to write (`-` is stdout)")))]
 pub struct ReportArgs {
     /// The rig.
     #[command(flatten)]
     pub rig: RigArgs,
-    /// The HTML file to write (`-` is stdout).
-    #[arg(short = 'o', long = "output", value_name = "FILE")]
-    pub output: PathBuf,
-    /// Projection of the drawing (as for `draw`).
-    #[arg(long, value_enum)]
-    pub view: Option<ViewArg>,
-}
-
-fn cases(arg: CaseArg) -> CaseFilter {
-    match arg {
-        CaseArg::All => CaseFilter::All,
-        CaseArg::Ideal => CaseFilter::Ideal,
-        CaseArg::Forward => CaseFilter::Forward,
-        CaseArg::Back => CaseFilter::Back,
-    }
-}
-
-fn view(arg: Option<ViewArg>) -> Option<View> {
-    arg.map(|v| match v {
-        ViewArg::Front => View::Front,
-        ViewArg::Side => View::Side,
-        ViewArg::Top => View::Top,
-        ViewArg::Iso => View::Iso,
-    })
+    /// Where to write.
+    #[command(flatten)]
+    pub output: OutputArg,
+    /// Projection of the drawing.
+    #[command(flatten)]
+    pub view: ViewArg,
 }
 
 /// Today's date (UTC) as `YYYY-MM-DD`, or the date of `SOURCE_DATE_EPOCH` when that is
@@ -150,41 +83,39 @@ pub fn today() -> String {
 /// `reeve table`.
 pub fn run_table(args: TableArgs) -> Result<i32, Failure> {
     let (rig, _, report) = solved_report(&args.rig)?;
-    let cases = cases(args.case);
-    let choice = match (args.table, args.format) {
-        (Some(TableArg::Spans), _) => TableChoice::Spans,
-        (Some(TableArg::Parts), _) => TableChoice::Parts,
-        (Some(TableArg::Both), TableFormat::Csv) => {
-            return Err(Failure {
-                message: "a CSV file holds one table: use --table spans or --table parts"
-                    .to_string(),
-                code: EXIT_BAD_INPUT,
-            })
+    let format = args.format.format();
+    let cases = args.case;
+    let choice = match (args.table, format) {
+        (Some(TableChoice::Both), Format::Csv) => {
+            return Err(Failure::Input(
+                "a CSV file holds one table: use --table spans or --table parts".to_string(),
+            ))
         }
-        (None, TableFormat::Csv) => TableChoice::Spans,
-        (Some(TableArg::Both) | None, _) => TableChoice::Both,
+        (None, Format::Csv) => TableChoice::Spans,
+        (Some(choice), _) => choice,
+        (None, _) => TableChoice::Both,
     };
-    let destination = Destination::from_arg(args.output.as_deref(), Destination::Stdout);
+    let destination = Destination::from_arg(args.output.output.as_deref(), Destination::Stdout);
     let units = &rig.units;
-    match args.format {
-        TableFormat::Json => {
+    match format {
+        Format::Json => {
             let json = serde_json::to_string_pretty(&table::tables_json(&report, cases, choice))
-                .map_err(|e| Failure {
-                    message: format!("cannot encode the tables: {e}"),
-                    code: EXIT_BAD_INPUT,
+                .map_err(|source| Failure::Encode {
+                    what: "tables",
+                    source,
                 })?;
             emit(&destination, &args.rig.rig, |w| writeln!(w, "{json}"))?;
         }
         format => {
-            let style = if format == TableFormat::Csv {
+            let style = if format == Format::Csv {
                 Style::Data
             } else {
                 Style::Human
             };
             let tables = table::tables(&report, units, cases, choice, style);
             emit(&destination, &args.rig.rig, |w| match format {
-                TableFormat::Md => table::write_markdown(w, &report, units, &tables),
-                TableFormat::Csv => tables.iter().try_for_each(|t| table::write_csv(w, t)),
+                Format::Markdown => table::write_markdown(w, &report, units, &tables),
+                Format::Csv => tables.iter().try_for_each(|t| table::write_csv(w, t)),
                 _ => table::write_text(w, &report, units, &tables),
             })?;
         }
@@ -203,11 +134,11 @@ fn solved_report(args: &RigArgs) -> Result<(Rig, Solution, Report), Failure> {
 pub fn run_draw(args: DrawArgs) -> Result<i32, Failure> {
     let (rig, solution, report) = solved_report(&args.rig)?;
     let options = DrawOptions {
-        view: view(args.view),
+        view: args.view.view,
         date: today(),
         standalone: true,
     };
-    let destination = Destination::from_arg(Some(&args.output), Destination::Stdout);
+    let destination = Destination::from_arg(args.output.output.as_deref(), Destination::Stdout);
     emit(&destination, &args.rig.rig, |w| {
         svg::write_svg(w, &rig, &solution, &report, &options)
     })?;
@@ -218,11 +149,11 @@ pub fn run_draw(args: DrawArgs) -> Result<i32, Failure> {
 pub fn run_report(args: ReportArgs) -> Result<i32, Failure> {
     let (rig, solution, report) = solved_report(&args.rig)?;
     let options = DrawOptions {
-        view: view(args.view),
+        view: args.view.view,
         date: today(),
         standalone: false,
     };
-    let destination = Destination::from_arg(Some(&args.output), Destination::Stdout);
+    let destination = Destination::from_arg(args.output.output.as_deref(), Destination::Stdout);
     let source = args.rig.rig.display().to_string();
     emit(&destination, &args.rig.rig, |w| {
         html::write_html(w, &rig, &solution, &report, &options, &source)

@@ -1,39 +1,17 @@
 //! Command glue for the design studies (`compare`, `sweep`, `rank`, `spread`): parse
-//! the study's settings, run it from [`crate::study`], write the chosen format.
+//! the study's settings, run it from [`reeve::study`], and write the chosen format with
+//! the study's writer in [`reeve::report::study`].
 
 use std::io::{self, Write};
 use std::path::PathBuf;
 
-use crate::study::table::Format;
-use crate::study::{compare, rank, spread, sweep, RigSource, StudyError};
+use reeve::report::study as writers;
+use reeve::rig::model::PartKind;
+use reeve::study::{compare, rank, spread, sweep, RigSource};
 
-use super::output::{emit, Destination};
-use super::{parse_sets, write_out, Failure, RigArgs, EXIT_CHECK_FAILED, EXIT_OK};
-
-/// Output format options shared by the studies.
-#[derive(Debug, Clone, clap::Args)]
-pub struct FormatArgs {
-    /// Output format: text, md, csv or json.
-    #[arg(long, value_name = "FORMAT", default_value = "text")]
-    pub format: String,
-    /// Same as `--format json`.
-    #[arg(long)]
-    pub json: bool,
-}
-
-impl FormatArgs {
-    fn format(&self) -> Result<Format, Failure> {
-        if self.json {
-            return Ok(Format::Json);
-        }
-        Format::parse(&self.format).ok_or_else(|| {
-            Failure::input(format!(
-                "--format `{}`: expected one of text, md, csv, json",
-                self.format
-            ))
-        })
-    }
-}
+use super::args::{FormatArgs, RigArgs, SetArgs};
+use super::destination::{emit, Destination};
+use super::{parse_sets, write_out, Failure, EXIT_CHECK_FAILED, EXIT_OK};
 
 /// Arguments of `compare`.
 #[derive(Debug, clap::Args)]
@@ -44,9 +22,9 @@ pub struct CompareArgs {
     /// Compare the rig as written with each of its named `variants:` instead.
     #[arg(long)]
     pub variants: bool,
-    /// Change one value of every rig before solving (`KEY=VALUE`); may be repeated.
-    #[arg(long = "set", value_name = "KEY=VALUE")]
-    pub set: Vec<String>,
+    /// Overrides applied to every rig.
+    #[command(flatten)]
+    pub sets: SetArgs,
     /// Output format.
     #[command(flatten)]
     pub format: FormatArgs,
@@ -130,8 +108,8 @@ pub const MAX_STEPS: usize = 100_000;
 /// `--steps` checked: at least 1 and at most [`MAX_STEPS`].
 fn checked_steps(steps: Option<usize>, default: usize) -> Result<usize, Failure> {
     match steps.unwrap_or(default) {
-        0 => Err(Failure::input("--steps: expected at least 1")),
-        n if n > MAX_STEPS => Err(Failure::input(format!(
+        0 => Err(Failure::Input("--steps: expected at least 1".into())),
+        n if n > MAX_STEPS => Err(Failure::Input(format!(
             "--steps {n}: at most {MAX_STEPS} steps; a finer sweep shows nothing more"
         ))),
         n => Ok(n),
@@ -147,40 +125,35 @@ fn exit_code(fails: bool) -> i32 {
     }
 }
 
-fn fail(e: StudyError) -> Failure {
-    Failure::input(e.to_string())
-}
-
 fn source(args: &RigArgs) -> Result<RigSource, Failure> {
-    let sets = parse_sets(&args.set)?;
-    let s = RigSource::read(&args.rig, &sets).map_err(fail)?;
+    let sets = parse_sets(&args.sets.set)?;
+    let s = RigSource::read(&args.rig, &sets)?;
     // Load once so that a bad file or override is reported before any study runs.
-    s.load(&[]).map_err(fail)?;
+    s.load(&[])?;
     Ok(s)
 }
 
 /// `reeve compare`.
 pub fn run_compare(args: CompareArgs) -> Result<i32, Failure> {
-    let format = args.format.format()?;
-    let sets = parse_sets(&args.set)?;
+    let format = args.format.format();
+    let sets = parse_sets(&args.sets.set)?;
     let c = if args.variants {
         if args.rigs.len() != 1 {
-            return Err(Failure::input(
-                "--variants compares the variants of one rig; give exactly one rig file",
+            return Err(Failure::Input(
+                "--variants compares the variants of one rig; give exactly one rig file".into(),
             ));
         }
-        let s = RigSource::read(&args.rigs[0], &sets).map_err(fail)?;
-        compare::compare_variants(&s).map_err(fail)?
+        let s = RigSource::read(&args.rigs[0], &sets)?;
+        compare::compare_variants(&s)?
     } else {
         let sources = args
             .rigs
             .iter()
             .map(|p| RigSource::read(p, &sets))
-            .collect::<Result<Vec<_>, _>>()
-            .map_err(fail)?;
-        compare::compare_rigs(&sources).map_err(fail)?
+            .collect::<Result<Vec<_>, _>>()?;
+        compare::compare_rigs(&sources)?
     };
-    write_out(|w| compare::write(w, &c, format))?;
+    write_out(|w| writers::compare::write(w, &c, format))?;
     Ok(exit_code(c.fails()))
 }
 
@@ -189,34 +162,34 @@ type Writer = Box<dyn Fn(&mut dyn Write) -> io::Result<()>>;
 
 /// `reeve sweep`.
 pub fn run_sweep(args: SweepArgs) -> Result<i32, Failure> {
-    let format = args.format.format()?;
+    let format = args.format.format();
     let steps = checked_steps(args.steps, if args.stroke.is_some() { 10 } else { 11 })?;
     let s = source(&args.rig)?;
     let (chart, write, fails): (String, Writer, bool) = if let Some(distance) = &args.stroke {
-        let st = sweep::stroke(&s, distance, steps, 8).map_err(fail)?;
+        let st = sweep::stroke(&s, distance, steps, 8)?;
         let fails = st.fails();
         (
-            sweep::stroke_chart(&st),
-            Box::new(move |w| sweep::write_stroke(w, &st, format)),
+            writers::sweep::stroke_chart(&st),
+            Box::new(move |w| writers::sweep::write_stroke(w, &st, format)),
             fails,
         )
     } else {
         let text = args.vary.as_deref().unwrap_or_default();
-        let vary = sweep::parse_vary(text).map_err(fail)?;
-        let sw = sweep::sweep(&s, &vary, steps).map_err(fail)?;
+        let vary = sweep::parse_vary(text)?;
+        let sw = sweep::sweep(&s, &vary, steps)?;
         // A key that no step can take (no such part, a value in the wrong unit) is bad
         // input, not a table of dashes.
         if sw.steps.iter().all(|st| st.error.is_some()) {
             let why = sw.steps.iter().find_map(|st| st.error.clone());
-            return Err(Failure::input(format!(
+            return Err(Failure::Input(format!(
                 "--vary `{text}`: no step could be solved; at the first: {}",
                 why.unwrap_or_default()
             )));
         }
         let fails = sw.fails();
         (
-            sweep::sweep_chart(&sw),
-            Box::new(move |w| sweep::write_sweep(w, &sw, format)),
+            writers::sweep::sweep_chart(&sw),
+            Box::new(move |w| writers::sweep::write_sweep(w, &sw, format)),
             fails,
         )
     };
@@ -232,42 +205,45 @@ pub fn run_sweep(args: SweepArgs) -> Result<i32, Failure> {
 
 /// `reeve rank`.
 pub fn run_rank(args: RankArgs) -> Result<i32, Failure> {
-    let format = args.format.format()?;
+    let format = args.format.format();
     let s = source(&args.rig)?;
     let alt = args.to.as_deref().map(rank::Alternative::parse);
     if let Some(rank::Alternative::Bearing(text)) = &alt {
         // Check the bearing once on the first part that takes it, so that a typo is
         // reported rather than shown as "—" on every row.
-        let rig = s.load(&[]).map_err(fail)?;
+        let rig = s.load(&[])?;
         if let Some(id) = rig
             .parts
             .iter()
-            .position(|p| matches!(p.kind, crate::rig::model::PartKind::Sheave(_)))
+            .position(|p| matches!(p.kind, PartKind::Sheave(_)))
         {
             let key = format!("parts.{}.bearing", rig.parts[id].name);
             s.load(&[(key, text.clone())])
-                .map_err(|e| Failure::input(format!("--to `{text}`: {e}")))?;
+                .map_err(|source| Failure::Flag {
+                    flag: format!("--to `{text}`"),
+                    source: Box::new(source),
+                })?;
         }
     }
-    let r = rank::rank(&s, alt.as_ref()).map_err(fail)?;
-    write_out(|w| rank::write(w, &r, format))?;
+    let r = rank::rank(&s, alt.as_ref())?;
+    write_out(|w| writers::rank::write(w, &r, format))?;
     Ok(exit_code(r.fails()))
 }
 
 /// `reeve spread`.
 pub fn run_spread(args: SpreadArgs) -> Result<i32, Failure> {
-    let format = args.format.format()?;
+    let format = args.format.format();
     if args.samples == 0 {
-        return Err(Failure::input("--samples: expected at least 1"));
+        return Err(Failure::Input("--samples: expected at least 1".into()));
     }
     if args.samples > MAX_SAMPLES {
-        return Err(Failure::input(format!(
+        return Err(Failure::Input(format!(
             "--samples {}: at most {MAX_SAMPLES} samples (about a minute for a small rig); the percentiles settle long before",
             args.samples
         )));
     }
     let s = source(&args.rig)?;
-    let r = spread::spread(&s, args.samples, args.seed, args.threads, true).map_err(fail)?;
-    write_out(|w| spread::write(w, &r, format))?;
+    let r = spread::spread(&s, args.samples, args.seed, args.threads, true)?;
+    write_out(|w| writers::spread::write(w, &r, format))?;
     Ok(exit_code(r.fails()))
 }

@@ -1,7 +1,10 @@
-//! Escaping for every output format, in one place: XML (SVG, HTML), CSV, Markdown and
-//! terminal text. Each writer escapes what it writes, even though the loader already
-//! refuses control characters in names and titles ([`crate::text`]): a rig built in
-//! code, or a file name shown as the source or the title, never went through the loader.
+//! Escaping for every output format, in one place, one function per target: XML for
+//! SVG, HTML and charts ([`xml`]), CSV ([`csv_field`]), Markdown ([`markdown_cell`]),
+//! and terminal text ([`text_line`] for a cell, [`write_printable`] for a document).
+//! No writer escapes on its own. Each writer escapes what it writes, even though the
+//! loader already refuses control characters in names and titles ([`crate::text`]): a
+//! rig built in code, or a file name shown as the source or the title, never went
+//! through the loader.
 
 use std::borrow::Cow;
 use std::io::{self, Write};
@@ -31,6 +34,13 @@ pub fn xml(s: &str) -> String {
 /// with `+` or `-` and is not a plain number (`-1.5` stays a number, `-cmd` does not).
 fn reads_as_formula(s: &str) -> bool {
     s.starts_with(['=', '@']) || (s.starts_with(['+', '-']) && s.parse::<f64>().is_err())
+}
+
+/// One line of terminal text (a table cell, header or title): the characters of
+/// [`crate::text::is_unsafe`] and line breaks as visible escapes, so a cell stays one
+/// line and its width can be measured.
+pub fn text_line(s: &str) -> Cow<'_, str> {
+    printable(s)
 }
 
 /// One CSV field: unsafe characters escaped (one line), a cell a spreadsheet would run

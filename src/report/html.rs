@@ -187,16 +187,12 @@ fn percent(x: Option<Real>) -> String {
 }
 
 fn write_summary(w: &mut dyn Write, h: &Headline, units: &UnitSystem, id: &str) -> io::Result<()> {
-    let dim = match h.solve_for.quantity {
-        "mass" => Dimension::Mass,
-        "torque" => Dimension::Torque,
-        _ => Dimension::Force,
-    };
+    let dim = h.solve_for.quantity.dimension();
     let q = |x| esc(&quantity(x, dim, units));
     writeln!(
         w,
         "<p>Asked: the <strong>{}</strong> at <code>{}</code>; drive: <code>{}</code>.</p>",
-        esc(h.solve_for.quantity),
+        esc(h.solve_for.quantity.name()),
         esc(&h.solve_for.part),
         esc(&h.drive)
     )?;
@@ -210,7 +206,7 @@ fn write_summary(w: &mut dyn Write, h: &Headline, units: &UnitSystem, id: &str) 
     writeln!(
         w,
         "<tr><th scope=\"row\">{}</th><td class=\"num\">{}</td><td class=\"num\">{}</td><td class=\"num\">{}</td></tr>",
-        esc(h.solve_for.quantity),
+        esc(h.solve_for.quantity.name()),
         q(h.ideal.value),
         q(h.forward.value),
         q(h.back.value)

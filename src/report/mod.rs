@@ -2,8 +2,13 @@
 //! fields are the `check --json` contract of DESIGN.md §5: SI numbers, keys carrying
 //! their units, angles in degrees; `None` becomes JSON `null`, never NaN.
 
+pub mod asked;
+pub mod chart;
 pub mod escape;
+pub mod file;
+pub mod format;
 pub mod html;
+pub mod study;
 pub mod svg;
 pub mod table;
 pub mod text;
@@ -16,6 +21,9 @@ use crate::rig::model::{PartKind, Rig};
 use crate::solve::kinematics::Motion;
 use crate::solve::{given_quantity, Case, Outcome, Solution, SubRigSolution};
 use crate::units::UnitSystem;
+
+pub use asked::{Asked, Role};
+pub use format::Format;
 
 /// The caution every human-readable report ends with (DESIGN.md §6).
 pub const CAUTION: &str =
@@ -39,21 +47,6 @@ pub fn efficiency(x: Option<Real>) -> Option<Real> {
         e if (-ROUND_OFF..=1.0 + ROUND_OFF).contains(&e) => Some(e.clamp(0.0, 1.0)),
         _ => None,
     }
-}
-
-/// The asked quantity.
-#[derive(Debug, Clone, Serialize, PartialEq)]
-pub struct Asked {
-    /// Part name.
-    pub part: String,
-    /// `force`, `mass` or `torque`.
-    pub quantity: &'static str,
-    /// SI unit of the values.
-    pub unit: &'static str,
-    /// Why this quantity, where the file did not say (a `solve_for` block without
-    /// `load`). Not in the JSON when absent.
-    #[serde(skip_serializing_if = "Option::is_none")]
-    pub note: Option<String>,
 }
 
 /// One case's headline.
@@ -267,6 +260,7 @@ fn travel(rig: &Rig, solution: &Solution, part: usize) -> Option<Travel> {
 #[derive(Debug, Clone, Serialize, PartialEq)]
 pub struct Headline {
     /// What is solved for.
+    #[serde(serialize_with = "Asked::serialize_in_report")]
     pub solve_for: Asked,
     /// The drive part.
     pub drive: String,
@@ -444,11 +438,7 @@ impl Headline {
 
     /// The report dimension of the asked quantity.
     pub fn dimension(&self) -> crate::units::Dimension {
-        match self.solve_for.quantity {
-            "mass" => crate::units::Dimension::Mass,
-            "torque" => crate::units::Dimension::Torque,
-            _ => crate::units::Dimension::Force,
-        }
+        self.solve_for.quantity.dimension()
     }
 
     /// Why a case shows no efficiency, one sentence per case that has a value but no
@@ -543,12 +533,7 @@ fn headline(rig: &Rig, solution: &Solution, sub: &SubRigSolution) -> Headline {
     let outcome = available.map(|a| sub.outcome(a));
     let moves = outcome.map(Outcome::succeeds);
     Headline {
-        solve_for: Asked {
-            part: rig.parts[sub.solve_for].name.clone(),
-            quantity: sub.quantity.name(),
-            unit: sub.quantity.si_unit(),
-            note: quantity_note(rig, sub),
-        },
+        solve_for: Asked::of(rig, sub),
         drive: rig.parts[sub.drive].name.clone(),
         ideal: CaseHeadline {
             value: finite(sub.ideal.value),

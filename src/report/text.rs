@@ -29,21 +29,15 @@ fn percent(x: Option<Real>) -> String {
     }
 }
 
-fn dimension_of(quantity: &str) -> Dimension {
-    match quantity {
-        "mass" => Dimension::Mass,
-        "torque" => Dimension::Torque,
-        _ => Dimension::Force,
-    }
-}
-
 fn write_headline(w: &mut dyn Write, h: &Headline, units: &UnitSystem) -> io::Result<()> {
-    let d = dimension_of(h.solve_for.quantity);
+    let d = h.solve_for.quantity.dimension();
     let q = |x| quantity(x, d, units);
     writeln!(
         w,
         "Asked: the {} at `{}` (drive: `{}`)",
-        h.solve_for.quantity, h.solve_for.part, h.drive
+        h.solve_for.quantity.name(),
+        h.solve_for.part,
+        h.drive
     )?;
     if let Some(note) = &h.solve_for.note {
         writeln!(w, "  ({note})")?;
@@ -56,7 +50,7 @@ fn write_headline(w: &mut dyn Write, h: &Headline, units: &UnitSystem) -> io::Re
     writeln!(
         w,
         "  {:<12} {:>14} {:>14} {:>14}",
-        h.solve_for.quantity,
+        h.solve_for.quantity.name(),
         q(h.ideal.value),
         q(h.forward.value),
         q(h.back.value)
@@ -143,7 +137,7 @@ fn drive_name(h: &Headline) -> String {
 pub fn outcome(h: &Headline, units: &UnitSystem) -> Option<(String, bool)> {
     let given = h.available?;
     let moves = h.moves?;
-    let d = dimension_of(h.solve_for.quantity);
+    let d = h.solve_for.quantity.dimension();
     let q = |x: Real| quantity(Some(x), d, units);
     let margin = percent(h.margin);
     let drive_unknown = h.solve_for.part == h.drive;
@@ -171,7 +165,7 @@ pub fn outcome(h: &Headline, units: &UnitSystem) -> Option<(String, bool)> {
             format!(
                 "{} {}: {}; {head}{why} (margin {margin})",
                 capitalise(h.given_word()),
-                h.solve_for.quantity,
+                h.solve_for.quantity.name(),
                 q(given)
             ),
             ok,
@@ -197,7 +191,7 @@ pub fn outcome(h: &Headline, units: &UnitSystem) -> Option<(String, bool)> {
     } else {
         format!(
             "The stated {} of {load}, {},",
-            h.solve_for.quantity,
+            h.solve_for.quantity.name(),
             q(given)
         )
     };

@@ -7,19 +7,18 @@
 //! every run applies. A study changes a rig only through more overrides on the parsed
 //! tree (so a changed value gets the loader's checks) or, for the stroke, by moving the
 //! resolved parts; none has physics of its own. Results are plain structs that
-//! serialize to JSON with units in the keys; [`table`] and [`plot`] write them out.
+//! serialize to JSON with units in the keys; [`crate::report::study`] writes them out
+//! as text, Markdown, CSV or JSON, and [`crate::report::chart`] draws their charts.
 //!
 //! Every solved run is also judged as `check` judges it ([`Verdict`], through
 //! `checks::run` and `Report::fails`), so a study shows each run's margin and failing
 //! checks and fails (exit 1) where `check` would fail any of its rigs.
 
 pub mod compare;
-pub mod plot;
 pub mod rank;
 pub mod rng;
 pub mod spread;
 pub mod sweep;
-pub mod table;
 
 use std::path::Path;
 
@@ -27,12 +26,12 @@ use serde::Serialize;
 
 use crate::checks;
 use crate::math::Real;
-use crate::report::Report;
+use crate::report::{Asked, Report};
 use crate::rig::file::{parse_tree, strip_bom, MAX_INPUT_BYTES};
 use crate::rig::load::{load_str_with, ranges_str, variants_str};
 use crate::rig::overrides::{apply_overrides, Uncertain, Variant};
 use crate::rig::{LoadError, Rig};
-use crate::solve::{self, Solution, SolveError, SolveOptions, SubRigSolution};
+use crate::solve::{self, Solution, SolveError, SolveOptions};
 
 /// Why a study cannot run (exit 2).
 #[derive(Debug, Clone, thiserror::Error)]
@@ -40,18 +39,34 @@ pub enum StudyError {
     /// The rig file (with its overrides) does not load.
     #[error(transparent)]
     Load(#[from] LoadError),
-    /// The rig loads but cannot be solved.
-    #[error("{source_name}: {error}")]
+    /// The rig loads but cannot be solved; the solve error is the `source()`.
+    #[error("{source_name}")]
     Solve {
         /// The rig file, with the line, column and part or key where the error can be
         /// located (`rig.yaml:6:3: parts.h`), as `check` words it.
         source_name: String,
         /// Why.
+        #[source]
         error: SolveError,
     },
     /// A study setting is wrong (message says what was expected).
     #[error("{0}")]
     Input(String),
+}
+
+impl StudyError {
+    /// The message with its causes, `context: cause`, for a table note or a step that
+    /// could not be solved (the command line prints the same chain).
+    pub fn chain(&self) -> String {
+        let mut message = self.to_string();
+        let mut cause = std::error::Error::source(self);
+        while let Some(e) = cause {
+            message.push_str(": ");
+            message.push_str(&e.to_string());
+            cause = e.source();
+        }
+        message
+    }
 }
 
 /// A rig's text with the overrides every run of a study applies.
@@ -174,38 +189,6 @@ impl RigSource {
     }
 }
 
-/// The asked quantity of a study, with the unit its values are given in.
-#[derive(Debug, Clone, Serialize, PartialEq)]
-pub struct AskedQuantity {
-    /// The part solved for.
-    pub part: String,
-    /// `force`, `mass` or `torque`.
-    pub quantity: &'static str,
-    /// SI unit of the values.
-    pub unit: &'static str,
-    /// `drive` where the asked part is the drive (forward: the least value that starts
-    /// the rig), `load` where it is a load (forward: the greatest load the drive moves).
-    pub role: &'static str,
-}
-
-impl AskedQuantity {
-    /// The asked quantity of a sub-rig.
-    pub fn of(rig: &Rig, sub: &SubRigSolution) -> AskedQuantity {
-        AskedQuantity {
-            part: rig.parts[sub.solve_for].name.clone(),
-            quantity: sub.quantity.name(),
-            unit: sub.quantity.si_unit(),
-            role: if sub.drive_unknown() { "drive" } else { "load" },
-        }
-    }
-
-    /// Whether two asked quantities are like with like: the same quantity in the same
-    /// unit, asked of a drive or of a load alike (the part may differ).
-    pub fn like(&self, other: &AskedQuantity) -> bool {
-        (self.quantity, self.unit, self.role) == (other.quantity, other.unit, other.role)
-    }
-}
-
 /// What `check` concludes about one solved rig, read through [`checks::run`] and
 /// [`Report`]: the margin, whether the drive moves the rig, the checks that fail (a
 /// study exits 1 when any run fails one, as `check` does), and the sheaves that stall.
@@ -253,19 +236,6 @@ impl Verdict {
     pub fn assess(rig: &Rig, solution: &Solution) -> Verdict {
         Verdict::of(&assess(rig, solution))
     }
-
-    /// A table cell: `ok` or `FAIL` with the failing codes, and the stalled sheaves.
-    pub fn cell(&self) -> String {
-        let mut cell = if self.fails {
-            format!("FAIL {}", self.failing.join(", "))
-        } else {
-            "ok".to_string()
-        };
-        if !self.stalled.is_empty() {
-            cell.push_str(&format!("; stalled: {}", self.stalled.join(", ")));
-        }
-        cell
-    }
 }
 
 /// The code of the stalled-sheave warning.
@@ -276,22 +246,13 @@ pub fn assess(rig: &Rig, solution: &Solution) -> Report {
     Report::build(rig, solution, checks::run(rig, solution))
 }
 
-/// A note for a table with stalled rows: why their values stop changing.
-pub fn stalled_note(stalled_rows: usize, rows: usize) -> Option<String> {
-    (stalled_rows > 0).then(|| {
-        format!(
-            "{stalled_rows} of {rows} rows have a stalled sheave (`stalled` in checks): it does not turn and the rope slides over it at the capstan ratio, so its bearing no longer changes the values there."
-        )
-    })
-}
-
 /// The headline figures of one solved rig, as compared and swept. SI units.
 #[derive(Debug, Clone, Serialize, PartialEq)]
 pub struct Figures {
     /// Column label (file name or variant name).
     pub label: String,
     /// The asked quantity.
-    pub solve_for: AskedQuantity,
+    pub solve_for: Asked,
     /// Ideal value.
     pub ideal: Option<Real>,
     /// Forward value.
@@ -367,7 +328,7 @@ pub fn figures(label: &str, rig: &Rig, solution: &Solution) -> Figures {
     let h = &report.headline;
     Figures {
         label: label.to_string(),
-        solve_for: AskedQuantity::of(rig, main),
+        solve_for: Asked::of(rig, main),
         ideal: h.ideal.value,
         forward: h.forward.value,
         back: h.back.value,
@@ -384,11 +345,6 @@ pub fn figures(label: &str, rig: &Rig, solution: &Solution) -> Figures {
         warnings: report.warnings.len(),
         verdict: Verdict::of(&report),
     }
-}
-
-/// A margin as a table cell (`12.5 %`, `—`).
-pub fn margin_cell(margin: Option<Real>) -> String {
-    margin.map_or("—".into(), |m| format!("{:.1} %", m * 100.0))
 }
 
 /// Splits `"60 kg"` into 60 and `kg`, `"0.2"` into 0.2 and an empty unit.

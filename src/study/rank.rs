@@ -15,19 +15,16 @@
 //! Any bearing written in YAML (`{kind: plain, pin_diameter: 8, mu: 0.08}`) may be
 //! given instead; it replaces every sheave bearing and drum shaft bearing in turn.
 
-use std::io::{self, Write};
-
 use serde::Serialize;
 
 use crate::math::Real;
-use crate::report::text::{number, quantity};
+use crate::report::Asked;
 use crate::report::{finite, CAUTION};
 use crate::rig::model::{Bearing, PartKind};
 use crate::rig::Rig;
-use crate::units::{Dimension, UnitSystem};
+use crate::units::UnitSystem;
 
-use super::table::{csv_number, write_human, Format, Table};
-use super::{margin_cell, AskedQuantity, RigSource, StudyError, Verdict};
+use super::{RigSource, StudyError, Verdict};
 
 /// Friction coefficient of the `--to rolling` default: a deep-groove ball bearing's
 /// constant coefficient referred to the bore (from memory of rolling-bearing
@@ -173,7 +170,7 @@ impl Coefficient {
 #[derive(Debug, Clone, Serialize, PartialEq)]
 pub struct Ranking {
     /// The asked quantity.
-    pub solve_for: AskedQuantity,
+    pub solve_for: Asked,
     /// Forward value of the rig as written.
     pub forward: Option<Real>,
     /// What `check` concludes about the rig as written.
@@ -397,7 +394,7 @@ pub fn rank(source: &RigSource, alt: Option<&Alternative>) -> Result<Ranking, St
         let (frictionless, frictionless_verdict) = match judged_with(source, &settings) {
             Ok((v, verdict)) => (Some(v), Some(verdict)),
             Err(e) => {
-                notes.push(format!("frictionless: {e}"));
+                notes.push(format!("frictionless: {}", e.chain()));
                 (None, None)
             }
         };
@@ -411,7 +408,7 @@ pub fn rank(source: &RigSource, alt: Option<&Alternative>) -> Result<Ranking, St
                 Some(Ok(s)) => match judged_with(source, &s) {
                     Ok((v, verdict)) => (Some(v), Some(verdict)),
                     Err(e) => {
-                        notes.push(format!("alternative: {e}"));
+                        notes.push(format!("alternative: {}", e.chain()));
                         (None, None)
                     }
                 },
@@ -477,7 +474,7 @@ pub fn rank(source: &RigSource, alt: Option<&Alternative>) -> Result<Ranking, St
     // Largest saving first, as the ranking.
     let sensitivities = largest_first(sensitivities, order);
     Ok(Ranking {
-        solve_for: AskedQuantity::of(&rig, main),
+        solve_for: Asked::of(&rig, main),
         forward: finite(f0),
         verdict: Verdict::assess(&rig, &solution),
         alternative: alt.map(Alternative::label),
@@ -486,224 +483,4 @@ pub fn rank(source: &RigSource, alt: Option<&Alternative>) -> Result<Ranking, St
         caution: CAUTION,
         units: rig.units,
     })
-}
-
-fn dimension_of(quantity: &str) -> Dimension {
-    match quantity {
-        "mass" => Dimension::Mass,
-        "torque" => Dimension::Torque,
-        _ => Dimension::Force,
-    }
-}
-
-/// Writes a ranking.
-///
-/// # Errors
-/// I/O errors of the writer.
-pub fn write(w: &mut dyn Write, r: &Ranking, format: Format) -> io::Result<()> {
-    if format == Format::Json {
-        let json = serde_json::to_string_pretty(r).map_err(io::Error::other)?;
-        return writeln!(w, "{json}");
-    }
-    let d = dimension_of(r.solve_for.quantity);
-    let si = r.solve_for.unit;
-    let mut t = Table::default();
-    let mut s = Table::default();
-    if format == Format::Csv {
-        t.headers = vec![
-            "rank".into(),
-            "part".into(),
-            "kind".into(),
-            format!("frictionless_{si}"),
-            format!("frictionless_saved_{si}"),
-            format!("frictionless_worse_by_{si}"),
-            format!("alternative_{si}"),
-            format!("alternative_saved_{si}"),
-            format!("alternative_worse_by_{si}"),
-            "note".into(),
-            "frictionless_margin".into(),
-            "frictionless_failing".into(),
-            "alternative_margin".into(),
-            "alternative_failing".into(),
-        ];
-        let verdict_csv = |v: &Option<Verdict>| {
-            [
-                csv_number(v.as_ref().and_then(|v| v.margin)),
-                v.as_ref().map_or(String::new(), |v| v.failing.join(" ")),
-            ]
-        };
-        for (i, p) in r.parts.iter().enumerate() {
-            t.rows.push(vec![
-                (i + 1).to_string(),
-                p.part.clone(),
-                p.kind.into(),
-                csv_number(p.frictionless),
-                csv_number(p.frictionless_saved),
-                csv_number(p.frictionless_worse_by),
-                csv_number(p.alternative),
-                csv_number(p.alternative_saved),
-                csv_number(p.alternative_worse_by),
-                p.note.clone().unwrap_or_default(),
-            ]);
-            let row = t.rows.last_mut().expect("just pushed");
-            row.extend(verdict_csv(&p.frictionless_verdict));
-            row.extend(verdict_csv(&p.alternative_verdict));
-        }
-        t.write_csv(w)?;
-        writeln!(w)?;
-        s.headers = vec![
-            "coefficient".into(),
-            "value".into(),
-            format!("saved_with_10pct_less_friction_{si}"),
-            format!("worse_with_10pct_less_friction_{si}"),
-            format!("derivative_{si}"),
-            "elasticity".into(),
-        ];
-        for x in &r.sensitivities {
-            s.rows.push(vec![
-                x.key.clone(),
-                format!("{}", x.value),
-                csv_number(x.saved_with_10pct_less_friction),
-                csv_number(x.worse_with_10pct_less_friction),
-                csv_number(x.derivative),
-                csv_number(x.elasticity),
-            ]);
-        }
-        return s.write_csv(w);
-    }
-    let q = |x| quantity(x, d, &r.units);
-    // A saving, or how much worse it is: never a negative saving.
-    let saves = |saved: Option<Real>, worse: Option<Real>| match worse {
-        Some(w) => format!("worse by {}", q(Some(w))),
-        None => q(saved),
-    };
-    // Margins where something is given to compare with; a checks column where a row
-    // fails a check or stalls a sheave.
-    let margins = r.verdict.margin.is_some();
-    let margin = |v: &Option<Verdict>| margin_cell(v.as_ref().and_then(|v| v.margin));
-    let row_checks = |p: &RankRow| {
-        let found: Vec<String> = [
-            ("frictionless", &p.frictionless_verdict),
-            ("alternative", &p.alternative_verdict),
-        ]
-        .into_iter()
-        .filter_map(|(what, v)| {
-            v.as_ref()
-                .filter(|v| v.fails || !v.stalled.is_empty())
-                .map(|v| format!("{what}: {}", v.cell()))
-        })
-        .collect();
-        found.join("; ")
-    };
-    let checks = r.parts.iter().any(|p| !row_checks(p).is_empty());
-    t.headers = vec![
-        "rank".into(),
-        "part".into(),
-        "kind".into(),
-        "frictionless".into(),
-        "saves".into(),
-    ];
-    if margins {
-        t.headers.push("margin".into());
-    }
-    if r.alternative.is_some() {
-        t.headers.push("alternative".into());
-        t.headers.push("saves".into());
-        if margins {
-            t.headers.push("margin".into());
-        }
-    }
-    if checks {
-        t.headers.push("checks".into());
-    }
-    let mut notes = vec![format!(
-        "Forward {} at `{}` as written: {}{}; checks: {}.",
-        r.solve_for.quantity,
-        r.solve_for.part,
-        q(r.forward),
-        r.verdict.margin.map_or(String::new(), |m| format!(
-            " (margin {})",
-            margin_cell(Some(m))
-        )),
-        r.verdict.cell()
-    )];
-    if let Some(a) = &r.alternative {
-        notes.push(format!("Alternative bearing: {a}."));
-    }
-    for (i, p) in r.parts.iter().enumerate() {
-        let mut row = vec![
-            (i + 1).to_string(),
-            p.part.clone(),
-            p.kind.into(),
-            q(p.frictionless),
-            saves(p.frictionless_saved, p.frictionless_worse_by),
-        ];
-        if margins {
-            row.push(margin(&p.frictionless_verdict));
-        }
-        if r.alternative.is_some() {
-            row.push(q(p.alternative));
-            row.push(saves(p.alternative_saved, p.alternative_worse_by));
-            if margins {
-                row.push(margin(&p.alternative_verdict));
-            }
-        }
-        if checks {
-            let c = row_checks(p);
-            row.push(if c.is_empty() { "ok".into() } else { c });
-        }
-        t.rows.push(row);
-        if let Some(n) = &p.note {
-            notes.push(format!("`{}`: {n}", p.part));
-        }
-    }
-    let worse: Vec<String> = r
-        .parts
-        .iter()
-        .filter(|p| p.alternative_worse_by.is_some())
-        .map(|p| format!("`{}`", p.part))
-        .collect();
-    if !worse.is_empty() {
-        notes.push(format!(
-            "The alternative is worse than the bearing as written at {}: it is no upgrade there.",
-            worse.join(", ")
-        ));
-    }
-    notes.push(String::new());
-    notes.push(format!(
-        "What 10 % less friction at each coefficient saves (the ranking's measure: the forward {} with that friction cut, against the rig as written):",
-        r.solve_for.quantity
-    ));
-    s.headers = vec!["coefficient".into(), "value".into(), "saves".into()];
-    for x in &r.sensitivities {
-        s.rows.push(vec![
-            x.key.clone(),
-            number(Some(x.value), 4),
-            saves(
-                x.saved_with_10pct_less_friction,
-                x.worse_with_10pct_less_friction,
-            ),
-        ]);
-    }
-    let mut buf = Vec::new();
-    if format == Format::Markdown {
-        s.write_markdown(&mut buf)?;
-    } else {
-        s.write_text(&mut buf)?;
-    }
-    notes.push(String::from_utf8_lossy(&buf).trim_end().to_string());
-    notes.push(
-        "10 % less friction: a coefficient μ times 0.9; a rated sheave's loss K − 1 times 0.9 (for an efficiency η, K = 1/η). Derivatives and elasticities are in the JSON."
-            .into(),
-    );
-    write_human(
-        w,
-        format,
-        &format!(
-            "Upgrade ranking: the forward {} at `{}`, each part alone made frictionless",
-            r.solve_for.quantity, r.solve_for.part
-        ),
-        &t,
-        &notes,
-    )
 }

@@ -5,21 +5,20 @@
 //! ([`Rng::stream`]), so the numbers do not depend on the number of threads.
 
 use std::collections::BTreeMap;
-use std::io::{self, IsTerminal, Write};
+use std::io::{self, IsTerminal};
 use std::sync::atomic::{AtomicBool, AtomicUsize, Ordering};
 
 use serde::Serialize;
 
 use crate::math::Real;
-use crate::report::text::{number, quantity};
+use crate::report::Asked;
 use crate::report::{finite, CAUTION};
 use crate::rig::overrides::{Distribution, Uncertain};
-use crate::units::{Dimension, UnitSystem};
+use crate::units::UnitSystem;
 
 use super::rng::Rng;
-use super::table::{csv_number, write_human, Format, Table};
-use super::{assess, largest_tension, margin_cell, AskedQuantity, RigSource, StudyError, Verdict};
-use crate::report::text::{capitalise, not_moving_words};
+use super::{assess, largest_tension, RigSource, StudyError, Verdict};
+use crate::report::text::not_moving_words;
 
 /// Draws one value of a distribution.
 pub fn draw(d: &Distribution, rng: &mut Rng) -> Real {
@@ -125,7 +124,7 @@ pub struct Input {
 #[derive(Debug, Clone, Serialize, PartialEq)]
 pub struct Spread {
     /// The asked quantity.
-    pub solve_for: AskedQuantity,
+    pub solve_for: Asked,
     /// Samples asked for.
     pub samples: usize,
     /// Seed.
@@ -256,7 +255,7 @@ pub fn spread(
         *v = share(*v as usize);
     }
     Ok(Spread {
-        solve_for: AskedQuantity::of(&rig, main),
+        solve_for: Asked::of(&rig, main),
         samples,
         seed,
         failed: samples - ok.len(),
@@ -301,144 +300,6 @@ fn draw_bar(done: usize, total: usize) {
         "#".repeat(filled),
         " ".repeat(width - filled.min(width))
     );
-}
-
-fn dimension_of(quantity: &str) -> Dimension {
-    match quantity {
-        "mass" => Dimension::Mass,
-        "torque" => Dimension::Torque,
-        _ => Dimension::Force,
-    }
-}
-
-/// A row of the spread table: name, SI unit, dimension (none: a ratio shown in
-/// percent), nominal value, percentiles.
-type Row<'a> = (
-    &'a str,
-    &'a str,
-    Option<Dimension>,
-    Option<Real>,
-    Option<Percentiles>,
-);
-
-/// Writes a spread.
-///
-/// # Errors
-/// I/O errors of the writer.
-pub fn write(w: &mut dyn Write, s: &Spread, format: Format) -> io::Result<()> {
-    if format == Format::Json {
-        let json = serde_json::to_string_pretty(s).map_err(io::Error::other)?;
-        return writeln!(w, "{json}");
-    }
-    let d = dimension_of(s.solve_for.quantity);
-    let si = s.solve_for.unit;
-    let mut rows: Vec<Row> = vec![
-        ("forward", si, Some(d), s.nominal_forward, s.forward),
-        ("back", si, Some(d), s.nominal_back, s.back),
-        (
-            "largest tension",
-            "N",
-            Some(Dimension::Force),
-            None,
-            s.largest_tension_n,
-        ),
-    ];
-    if s.margin.is_some() || s.nominal_verdict.margin.is_some() {
-        rows.push(("margin", "1", None, s.nominal_verdict.margin, s.margin));
-    }
-    let mut t = Table::default();
-    if format == Format::Csv {
-        t.headers = ["figure", "unit", "nominal", "p5", "p50", "p95"]
-            .map(String::from)
-            .to_vec();
-        for (name, unit, _, nominal, p) in rows {
-            t.rows.push(vec![
-                name.into(),
-                unit.into(),
-                csv_number(nominal),
-                csv_number(p.map(|p| p.p5)),
-                csv_number(p.map(|p| p.p50)),
-                csv_number(p.map(|p| p.p95)),
-            ]);
-        }
-        return t.write_csv(w);
-    }
-    t.headers = ["", "nominal", "P5", "P50", "P95"]
-        .map(String::from)
-        .to_vec();
-    for (name, _, dim, nominal, p) in rows {
-        let q = |x| match dim {
-            None => margin_cell(x),
-            Some(dim) => quantity(x, dim, &s.units),
-        };
-        t.rows.push(vec![
-            name.into(),
-            q(nominal),
-            q(p.map(|p| p.p5)),
-            q(p.map(|p| p.p50)),
-            q(p.map(|p| p.p95)),
-        ]);
-    }
-    let mut notes = vec![format!(
-        "{} samples, seed {}; {} could not be solved.",
-        s.samples, s.seed, s.failed
-    )];
-    for i in &s.inputs {
-        let u = if i.unit.is_empty() {
-            String::new()
-        } else {
-            format!(" {}", i.unit)
-        };
-        notes.push(match i.distribution {
-            "uniform" => format!(
-                "`{}`: uniform from {}{u} to {}{u}",
-                i.key,
-                number(Some(i.parameters[0]), 4),
-                number(Some(i.parameters[1]), 4)
-            ),
-            _ => format!(
-                "`{}`: normal, mean {}{u}, sd {}{u}, truncated at zero",
-                i.key,
-                number(Some(i.parameters[0]), 4),
-                number(Some(i.parameters[1]), 4)
-            ),
-        });
-    }
-    if let Some(share) = s.share_not_moving {
-        notes.push(format!(
-            "{} in {:.1} % of the samples.",
-            capitalise(&s.not_moving),
-            share * 100.0
-        ));
-    }
-    if s.nominal_verdict.fails {
-        notes.push(format!(
-            "The nominal rig fails a check: {}.",
-            s.nominal_verdict.failing.join(", ")
-        ));
-    }
-    if let Some(share) = s.share_failing.filter(|&x| x > 0.0) {
-        let codes: Vec<String> = s
-            .failing_share
-            .iter()
-            .map(|(code, x)| format!("{code} in {:.1} %", x * 100.0))
-            .collect();
-        notes.push(format!(
-            "A check fails in {:.1} % of the solved samples ({}); `reeve check` with the sample's values gives the details.",
-            share * 100.0,
-            codes.join(", ")
-        ));
-    }
-    write_human(
-        w,
-        format,
-        &format!(
-            "Spread of the {} at `{}` over the ranged inputs",
-            s.solve_for.quantity, s.solve_for.part
-        ),
-        &t,
-        &notes,
-    )
 }
 
 #[cfg(test)]

@@ -9,23 +9,18 @@
 //! geometry fails, a span goes slack, a span closes up) is reported and ends the
 //! stroke.
 
-use std::io::{self, Write};
-
 use serde::Serialize;
 
 use crate::math::Real;
-use crate::report::text::{number, quantity};
+use crate::report::Asked;
 use crate::report::{finite, CAUTION};
 use crate::rig::Rig;
 use crate::solve::travel::{self, ClosedSpan};
 use crate::solve::Solution;
 use crate::units::{parse_quantity, Dimension, UnitSystem};
 
-use super::plot::{self, Panel, Series};
-use super::table::{csv_number, write_human, Format, Table};
 use super::{
-    largest_fleet_deg, largest_tension, margin_cell, number_and_unit, stalled_note, with_unit,
-    AskedQuantity, RigSource, StudyError, Verdict,
+    largest_fleet_deg, largest_tension, number_and_unit, with_unit, RigSource, StudyError, Verdict,
 };
 
 /// A value to vary: `KEY=FROM..TO`, the bounds in the unit written (or the file's).
@@ -122,7 +117,7 @@ pub struct Sweep {
     /// Unit of the varied values as written (empty: the file's unit or a ratio).
     pub unit: String,
     /// The asked quantity (from the first step that solved).
-    pub solve_for: Option<AskedQuantity>,
+    pub solve_for: Option<Asked>,
     /// The steps.
     pub steps: Vec<SweepStep>,
     /// The caution.
@@ -167,7 +162,7 @@ pub fn sweep(source: &RigSource, vary: &Vary, steps: usize) -> Result<Sweep, Stu
         match source.solve(&[setting]) {
             Ok((rig, solution)) => {
                 let main = solution.main();
-                solve_for.get_or_insert_with(|| AskedQuantity::of(&rig, main));
+                solve_for.get_or_insert_with(|| Asked::of(&rig, main));
                 out.push(SweepStep {
                     value,
                     ideal: finite(main.ideal.value),
@@ -184,7 +179,7 @@ pub fn sweep(source: &RigSource, vary: &Vary, steps: usize) -> Result<Sweep, Stu
                 forward: None,
                 back: None,
                 efficiency: None,
-                error: Some(e.to_string()),
+                error: Some(e.chain()),
                 verdict: Verdict::default(),
             }),
         }
@@ -197,163 +192,6 @@ pub fn sweep(source: &RigSource, vary: &Vary, steps: usize) -> Result<Sweep, Stu
         caution: CAUTION,
         units,
     })
-}
-
-fn dimension_of(quantity: &str) -> Dimension {
-    match quantity {
-        "mass" => Dimension::Mass,
-        "torque" => Dimension::Torque,
-        _ => Dimension::Force,
-    }
-}
-
-/// Whether any row has a margin (something given to compare with).
-fn any_margin(verdicts: &[&Verdict]) -> bool {
-    verdicts.iter().any(|v| v.margin.is_some())
-}
-
-/// The margin (where shown) and checks cells of a row; a row that could not be solved
-/// has no checks.
-fn verdict_cells(v: &Verdict, margin: bool, unsolved: bool) -> Vec<String> {
-    let mut cells = Vec::new();
-    if margin {
-        cells.push(margin_cell(v.margin));
-    }
-    cells.push(if unsolved { "—".into() } else { v.cell() });
-    cells
-}
-
-/// CSV headers of a verdict.
-fn verdict_headers() -> [String; 5] {
-    ["margin", "moves", "fails", "failing", "stalled"].map(String::from)
-}
-
-/// CSV cells of a verdict: margin, moves, fails, failing codes and stalled sheaves
-/// (space-separated).
-fn verdict_csv(v: &Verdict) -> [String; 5] {
-    [
-        csv_number(v.margin),
-        v.moves.map_or(String::new(), |m| m.to_string()),
-        v.fails.to_string(),
-        v.failing.join(" "),
-        v.stalled.join(" "),
-    ]
-}
-
-fn value_heading(key: &str, unit: &str) -> String {
-    if unit.is_empty() {
-        key.to_string()
-    } else {
-        format!("{key} ({unit})")
-    }
-}
-
-/// Writes a sweep.
-///
-/// # Errors
-/// I/O errors of the writer.
-pub fn write_sweep(w: &mut dyn Write, s: &Sweep, format: Format) -> io::Result<()> {
-    if format == Format::Json {
-        let json = serde_json::to_string_pretty(s).map_err(io::Error::other)?;
-        return writeln!(w, "{json}");
-    }
-    let (qname, si) = s
-        .solve_for
-        .as_ref()
-        .map_or(("value", "N"), |a| (a.quantity, a.unit));
-    let d = dimension_of(qname);
-    let mut t = Table::default();
-    if format == Format::Csv {
-        t.headers = vec![
-            value_heading(&s.key, &s.unit),
-            format!("ideal_{si}"),
-            format!("forward_{si}"),
-            format!("back_{si}"),
-            "efficiency".into(),
-            "error".into(),
-        ];
-        t.headers.extend(verdict_headers());
-        for st in &s.steps {
-            let mut row = vec![
-                format!("{}", st.value),
-                csv_number(st.ideal),
-                csv_number(st.forward),
-                csv_number(st.back),
-                csv_number(st.efficiency),
-                st.error.clone().unwrap_or_default(),
-            ];
-            row.extend(verdict_csv(&st.verdict));
-            t.rows.push(row);
-        }
-        return t.write_csv(w);
-    }
-    t.headers = vec![
-        value_heading(&s.key, &s.unit),
-        "ideal".into(),
-        "forward".into(),
-        "back".into(),
-        "efficiency".into(),
-    ];
-    let verdicts: Vec<&Verdict> = s.steps.iter().map(|st| &st.verdict).collect();
-    let margins = any_margin(&verdicts);
-    if margins {
-        t.headers.push("margin".into());
-    }
-    t.headers.push("checks".into());
-    let mut notes = Vec::new();
-    for st in &s.steps {
-        let q = |x| quantity(x, d, &s.units);
-        let mut row = vec![
-            number(Some(st.value), 4),
-            q(st.ideal),
-            q(st.forward),
-            q(st.back),
-            st.efficiency
-                .map_or("—".into(), |e| format!("{:.1} %", e * 100.0)),
-        ];
-        row.extend(verdict_cells(&st.verdict, margins, st.error.is_some()));
-        t.rows.push(row);
-        if let Some(e) = &st.error {
-            notes.push(format!("at {} = {}: {e}", s.key, number(Some(st.value), 4)));
-        }
-    }
-    notes.extend(stalled_note(
-        verdicts.iter().filter(|v| !v.stalled.is_empty()).count(),
-        verdicts.len(),
-    ));
-    let title = match &s.solve_for {
-        Some(a) => format!("Sweep of `{}`: the {} at `{}`", s.key, a.quantity, a.part),
-        None => format!("Sweep of `{}`", s.key),
-    };
-    write_human(w, format, &title, &t, &notes)
-}
-
-/// The chart of a sweep: ideal, forward and back against the varied value.
-pub fn sweep_chart(s: &Sweep) -> String {
-    let (qname, part) = s
-        .solve_for
-        .as_ref()
-        .map_or(("value", String::new()), |a| (a.quantity, a.part.clone()));
-    let d = dimension_of(qname);
-    let unit = s.units.unit(d);
-    let series = |name: &str, f: &dyn Fn(&SweepStep) -> Option<Real>| Series {
-        name: name.to_string(),
-        points: s
-            .steps
-            .iter()
-            .map(|st| (st.value, f(st).map(|v| v / unit.si)))
-            .collect(),
-    };
-    plot::svg(&[Panel {
-        title: format!("Sweep of {}: the {qname} at {part}", s.key),
-        x_label: value_heading(&s.key, &s.unit),
-        y_label: format!("{qname} ({})", unit.symbol),
-        series: vec![
-            series("ideal", &|st| st.ideal),
-            series("forward", &|st| st.forward),
-            series("back", &|st| st.back),
-        ],
-    }])
 }
 
 /// One step of a stroke. SI units.
@@ -388,7 +226,7 @@ pub struct Stroke {
     /// Unit of `travel`: `m` or `rad`.
     pub travel_unit: &'static str,
     /// The asked quantity.
-    pub solve_for: Option<AskedQuantity>,
+    pub solve_for: Option<Asked>,
     /// The steps (the first at zero travel).
     pub steps: Vec<StrokeStep>,
     /// The caution.
@@ -456,7 +294,7 @@ pub fn stroke(
     let steps = steps.max(1);
     let substeps = substeps.max(1);
     let dt = total / (steps * substeps) as Real;
-    let asked = AskedQuantity::of(&rig, first.main());
+    let asked = Asked::of(&rig, first.main());
     let mut out = Vec::new();
     let record = |travel: Real, rig: &Rig, s: &Solution| {
         let main = s.main();
@@ -525,7 +363,10 @@ pub fn stroke(
 }
 
 fn failed(travel: Real, e: StudyError) -> StrokeStep {
-    stopped(travel, format!("the rig cannot be solved here: {e}"))
+    stopped(
+        travel,
+        format!("the rig cannot be solved here: {}", e.chain()),
+    )
 }
 
 /// A step with no figures, only the reason the stroke stops there.
@@ -541,153 +382,6 @@ fn stopped(travel: Real, why: String) -> StrokeStep {
         error: Some(why),
         verdict: Verdict::default(),
     }
-}
-
-fn travel_shown(s: &Stroke, t: Real) -> (Real, String) {
-    if s.travel_unit == "rad" {
-        (t.to_degrees(), "deg".to_string())
-    } else {
-        let u = s.units.unit(Dimension::Length);
-        (t / u.si, u.symbol.to_string())
-    }
-}
-
-/// Writes a stroke.
-///
-/// # Errors
-/// I/O errors of the writer.
-pub fn write_stroke(w: &mut dyn Write, s: &Stroke, format: Format) -> io::Result<()> {
-    if format == Format::Json {
-        let json = serde_json::to_string_pretty(s).map_err(io::Error::other)?;
-        return writeln!(w, "{json}");
-    }
-    let (qname, si) = s
-        .solve_for
-        .as_ref()
-        .map_or(("value", "N"), |a| (a.quantity, a.unit));
-    let d = dimension_of(qname);
-    let mut t = Table::default();
-    if format == Format::Csv {
-        t.headers = vec![
-            format!("travel_{}", s.travel_unit),
-            format!("forward_{si}"),
-            format!("back_{si}"),
-            "velocity_ratio".into(),
-            "largest_fleet_deg".into(),
-            "largest_tension_n".into(),
-            "error".into(),
-        ];
-        t.headers.extend(verdict_headers());
-        for st in &s.steps {
-            let mut row = vec![
-                format!("{}", st.travel),
-                csv_number(st.forward),
-                csv_number(st.back),
-                csv_number(st.velocity_ratio),
-                csv_number(st.largest_fleet_deg),
-                csv_number(st.largest_tension_n),
-                st.error.clone().unwrap_or_default(),
-            ];
-            row.extend(verdict_csv(&st.verdict));
-            t.rows.push(row);
-        }
-        return t.write_csv(w);
-    }
-    let (_, tu) = travel_shown(s, 0.0);
-    t.headers = vec![
-        format!("travel ({tu})"),
-        format!("{qname} forward"),
-        "back".into(),
-        "velocity ratio".into(),
-        "largest fleet".into(),
-        "largest tension".into(),
-    ];
-    let verdicts: Vec<&Verdict> = s.steps.iter().map(|st| &st.verdict).collect();
-    let margins = any_margin(&verdicts);
-    if margins {
-        t.headers.push("margin".into());
-    }
-    t.headers.push("checks".into());
-    let mut notes = Vec::new();
-    for st in &s.steps {
-        let (tv, _) = travel_shown(s, st.travel);
-        let unsolved = st.forward.is_none() && st.error.is_some();
-        let mut row = vec![
-            number(Some(tv), 4),
-            quantity(st.forward, d, &s.units),
-            quantity(st.back, d, &s.units),
-            number(st.velocity_ratio, 4),
-            st.largest_fleet_deg
-                .map_or("—".into(), |f| format!("{}°", number(Some(f), 3))),
-            quantity(st.largest_tension_n, Dimension::Force, &s.units),
-        ];
-        row.extend(verdict_cells(&st.verdict, margins, unsolved));
-        t.rows.push(row);
-        if let Some(e) = &st.error {
-            notes.push(format!(
-                "at travel {} {tu}: {e}; the stroke stops here",
-                number(Some(tv), 4)
-            ));
-        }
-    }
-    notes.extend(stalled_note(
-        verdicts.iter().filter(|v| !v.stalled.is_empty()).count(),
-        verdicts.len(),
-    ));
-    write_human(
-        w,
-        format,
-        &format!("Stroke of the drive `{}`", s.drive),
-        &t,
-        &notes,
-    )
-}
-
-/// The chart of a stroke: effort, largest fleet angle and largest span tension against
-/// travel, one panel each.
-pub fn stroke_chart(s: &Stroke) -> String {
-    let (qname, part) = s
-        .solve_for
-        .as_ref()
-        .map_or(("value", String::new()), |a| (a.quantity, a.part.clone()));
-    let d = dimension_of(qname);
-    let unit = s.units.unit(d);
-    let force = s.units.unit(Dimension::Force);
-    let (_, tu) = travel_shown(s, 0.0);
-    let series = |name: &str, f: &dyn Fn(&StrokeStep) -> Option<Real>| Series {
-        name: name.to_string(),
-        points: s
-            .steps
-            .iter()
-            .map(|st| (travel_shown(s, st.travel).0, f(st)))
-            .collect(),
-    };
-    let x_label = format!("travel of {} ({tu})", s.drive);
-    plot::svg(&[
-        Panel {
-            title: format!("The {qname} at {part} through the stroke"),
-            x_label: x_label.clone(),
-            y_label: format!("{qname} ({})", unit.symbol),
-            series: vec![
-                series("forward", &|st| st.forward.map(|v| v / unit.si)),
-                series("back", &|st| st.back.map(|v| v / unit.si)),
-            ],
-        },
-        Panel {
-            title: "Largest fleet angle".into(),
-            x_label: x_label.clone(),
-            y_label: "fleet angle (deg)".into(),
-            series: vec![series("largest fleet angle", &|st| st.largest_fleet_deg)],
-        },
-        Panel {
-            title: "Largest span tension".into(),
-            x_label,
-            y_label: format!("tension ({})", force.symbol),
-            series: vec![series("largest tension", &|st| {
-                st.largest_tension_n.map(|v| v / force.si)
-            })],
-        },
-    ])
 }
 
 #[cfg(test)]

@@ -10,8 +10,8 @@ use reeve::solve::{solve, SolveError, SolveOptions};
 use crate::support::generators::chain;
 use crate::support::run::reeve_on;
 use crate::support::{
-    assert_abs, assert_rel, edited_rig, reeve, reeve_in, solve_test_rig, test_rig, Scratch,
-    ONE_SHEAVE,
+    assert_abs, assert_rel, edited_rig, example_rig, reeve, reeve_in, solve_test_rig, stdout_of,
+    test_rig, Scratch, ONE_SHEAVE,
 };
 
 const HEAD: &str = "format: 1\nropes:\n  r: {diameter: 6, mu: 0.2}\nparts:\n";
@@ -923,4 +923,42 @@ fn an_efficiency_outside_0_to_100_percent_is_never_printed() {
         "html shows it"
     );
     assert!(html.contains("No back efficiency"));
+}
+
+#[test]
+fn shared_flags_mean_the_same_on_every_command() {
+    // Guards the one definition of --format and --json: `table --json` is
+    // `table --format json`, `--json` wins over `--format` as on the studies, and the
+    // hand-parsed spellings the studies always took (`txt`, `markdown`) still work,
+    // on `table` too.
+    let r = example_rig("sash-window");
+    let json = stdout_of(&["table", &r, "--format", "json"]);
+    assert_eq!(stdout_of(&["table", &r, "--json"]), json);
+    assert_eq!(stdout_of(&["table", &r, "--format", "csv", "--json"]), json);
+    let md = stdout_of(&["table", &r, "--format", "md"]);
+    assert_eq!(stdout_of(&["table", &r, "--format", "markdown"]), md);
+    let text = stdout_of(&["rank", &r]);
+    assert_eq!(stdout_of(&["rank", &r, "--format", "txt"]), text);
+    assert_eq!(
+        stdout_of(&["rank", &r, "--format", "markdown"]),
+        stdout_of(&["rank", &r, "--format", "md"])
+    );
+    let (code, _, err) = reeve(&["rank", &r, "--format", "yaml"]).parts();
+    assert_eq!(code, 2, "{err}");
+    assert!(err.contains("text, md, csv, json"), "{err}");
+}
+
+#[test]
+fn a_failed_write_prints_the_cause_after_the_context() {
+    // Guards the error chain: the binary prints the command's context and then the
+    // library's or the system's error, once, as `context: cause`.
+    let r = example_rig("sash-window");
+    let (code, _, err) = reeve(&["draw", &r, "-o", "/no/such/folder/rig.svg"]).parts();
+    assert_eq!(code, 2, "{err}");
+    let line = err.lines().next().unwrap_or_default();
+    assert!(
+        line.starts_with("reeve: cannot write `/no/such/folder/rig.svg`: "),
+        "{err}"
+    );
+    assert_eq!(err.matches("cannot write").count(), 1, "{err}");
 }

@@ -560,7 +560,7 @@ fn sweep_plot_refuses_to_write_over_the_input_rig() {
 
 #[test]
 fn a_failed_write_leaves_no_partial_file() {
-    use reeve::cli::output::write_atomically;
+    use reeve::report::file::write_atomically;
     let dir = Scratch::new("atomic");
     let target = dir.join("drawing.svg");
     // An error half-way: nothing appears.
@@ -831,7 +831,7 @@ fn names_in(dir: &Path) -> Vec<String> {
 /// older than a minute is removed.
 #[test]
 fn a_stale_temp_file_never_blocks_the_next_write() {
-    use reeve::cli::output::write_atomically;
+    use reeve::report::file::write_atomically;
     let dir = Scratch::new("stale-temp");
     let target = dir.join("out.svg");
     // Every name this process would try first is taken.
@@ -879,7 +879,7 @@ fn a_signal_during_a_write_leaves_no_temp_file() {
     use std::os::unix::process::ExitStatusExt;
     if let Ok(target) = std::env::var("REEVE_SIGNAL_CHILD_TARGET") {
         let signal = std::env::var("REEVE_SIGNAL_CHILD_SIGNAL").unwrap();
-        let _ = reeve::cli::output::write_atomically(Path::new(&target), |w| {
+        let _ = reeve::report::file::write_atomically(Path::new(&target), |w| {
             w.write_all(b"<svg>half")?;
             w.flush()?;
             Command::new("kill")

@@ -1,6 +1,12 @@
-//! The drawing-set tables of `reeve table`: one span table (tension in every span) and
-//! one part table (wrap, fleet, D/d, tension ratio, pin load and loss share at every
-//! part), written as aligned text, Markdown, CSV or JSON.
+//! One table type for every output, and its writers. [`Table`] holds typed cells
+//! ([`Cell`]) under columns with their alignment; [`write_text_table`],
+//! [`write_markdown_table`] and [`write_csv`] write any table, each through the one
+//! escaping function of its target ([`super::escape`]).
+//!
+//! The drawing-set tables of `reeve table` are built here too: one span table (tension
+//! in every span) and one part table (wrap, fleet, D/d, tension ratio, pin load and loss
+//! share at every part), written as aligned text, Markdown, CSV or JSON ([`json`]). The
+//! studies' tables are built by [`super::study`].
 //!
 //! Text, Markdown and CSV show the rig file's own units, with the unit in every column
 //! header; JSON is SI with unit-suffixed keys. Rows follow the report's order (lines and
@@ -10,16 +16,16 @@
 
 use std::io::{self, Write};
 
-use serde::Serialize;
-
 use crate::math::Real;
 use crate::units::{Dimension, UnitSystem};
 
-use crate::text::printable;
-
-use super::escape::{csv_field, markdown_cell};
+use super::escape::{csv_field, markdown_cell, text_line};
 use super::text::number;
 use super::{Report, CAUTION};
+
+pub mod json;
+
+pub use json::{tables_json, CasesJson, PartJson, SpanJson, TablesJson};
 
 /// Which cases the tables show (`--case`).
 #[derive(Debug, Clone, Copy, PartialEq, Eq, Default)]
@@ -36,6 +42,24 @@ pub enum CaseFilter {
 }
 
 impl CaseFilter {
+    /// Every filter, in the order the help lists them.
+    pub const ALL: [CaseFilter; 4] = [
+        CaseFilter::All,
+        CaseFilter::Ideal,
+        CaseFilter::Forward,
+        CaseFilter::Back,
+    ];
+
+    /// One line for the help.
+    pub fn describe(self) -> &'static str {
+        match self {
+            CaseFilter::All => "Ideal, forward and back",
+            CaseFilter::Ideal => "No friction",
+            CaseFilter::Forward => "Driving forward",
+            CaseFilter::Back => "Running back",
+        }
+    }
+
     /// Lowercase name (`all`, `ideal`, `forward`, `back`).
     pub fn name(self) -> &'static str {
         match self {
@@ -66,6 +90,29 @@ pub enum TableChoice {
     Spans,
     /// Parts only.
     Parts,
+}
+
+impl TableChoice {
+    /// Every choice, in the order the help lists them.
+    pub const ALL: [TableChoice; 3] = [TableChoice::Both, TableChoice::Spans, TableChoice::Parts];
+
+    /// Lowercase name (`both`, `spans`, `parts`).
+    pub fn name(self) -> &'static str {
+        match self {
+            TableChoice::Both => "both",
+            TableChoice::Spans => "spans",
+            TableChoice::Parts => "parts",
+        }
+    }
+
+    /// One line for the help.
+    pub fn describe(self) -> &'static str {
+        match self {
+            TableChoice::Both => "Spans and parts",
+            TableChoice::Spans => "Spans only",
+            TableChoice::Parts => "Parts only",
+        }
+    }
 }
 
 /// Who reads the table: a person (text, Markdown, HTML) or a program (CSV).
@@ -167,14 +214,31 @@ pub struct Column {
     pub align: Align,
 }
 
+/// How a table is laid out. The two layouts are the two shapes of output the commands
+/// have always written (kept byte for byte: they are compared against golden files).
+#[derive(Debug, Clone, Copy, PartialEq, Eq, Default)]
+pub enum Layout {
+    /// A drawing-set table (`reeve table`, the HTML report): in text its title, the
+    /// header and a rule of dashes; in Markdown every column's alignment marked
+    /// (`:---`, `---:`); in CSV CRLF line ends (RFC 4180).
+    #[default]
+    Sheet,
+    /// A study table (`compare`, `sweep`, `rank`, `spread`), inside a document that
+    /// writes the title: in text the header and rows only; in Markdown right-aligned
+    /// columns marked (`---:`) and left-aligned ones plain (`---`); in CSV LF line ends.
+    Study,
+}
+
 /// A titled table of cells, ready for any writer.
-#[derive(Debug, Clone, PartialEq)]
+#[derive(Debug, Clone, PartialEq, Default)]
 pub struct Table {
-    /// Title (`Spans`, `Parts`).
+    /// Title (`Spans`, `Parts`); a study table's title is its document's.
     pub title: String,
+    /// How the writers lay it out.
+    pub layout: Layout,
     /// Columns.
     pub columns: Vec<Column>,
-    /// Rows, each as long as `columns`.
+    /// Rows, each as long as `columns` (a shorter row leaves its last cells empty).
     pub rows: Vec<Vec<Cell>>,
 }
 
@@ -182,15 +246,55 @@ impl Table {
     fn new(title: &str) -> Table {
         Table {
             title: title.to_string(),
-            columns: Vec::new(),
-            rows: Vec::new(),
+            ..Table::default()
         }
     }
+
     fn column(&mut self, header: impl Into<String>, align: Align) {
         self.columns.push(Column {
             header: header.into(),
             align,
         });
+    }
+
+    /// A study table: the first column (names) left-aligned, the others right-aligned.
+    pub fn study() -> Table {
+        Table {
+            layout: Layout::Study,
+            ..Table::default()
+        }
+    }
+
+    /// A study table with these headers and rows of text.
+    pub fn study_with(headers: Vec<String>, rows: Vec<Vec<String>>) -> Table {
+        let mut t = Table::study();
+        t.headers(headers);
+        for row in rows {
+            t.text_row(row);
+        }
+        t
+    }
+
+    /// Adds a column: left-aligned when it is the first, right-aligned after.
+    pub fn header(&mut self, header: impl Into<String>) {
+        let align = if self.columns.is_empty() {
+            Align::Left
+        } else {
+            Align::Right
+        };
+        self.column(header, align);
+    }
+
+    /// Adds columns as [`Table::header`] does.
+    pub fn headers(&mut self, headers: impl IntoIterator<Item = String>) {
+        for h in headers {
+            self.header(h);
+        }
+    }
+
+    /// Adds a row of text cells.
+    pub fn text_row(&mut self, cells: Vec<String>) {
+        self.rows.push(cells.into_iter().map(Cell::Text).collect());
     }
 }
 
@@ -403,22 +507,23 @@ fn pad(s: &str, w: usize, align: Align) -> String {
     }
 }
 
-/// Writes one table as aligned plain text: title, header, rule, rows (unsafe characters
-/// escaped before the columns are measured).
+/// Writes one table as aligned plain text: title, header, rule, rows, or for a study
+/// table the header and rows only (unsafe characters escaped before the columns are
+/// measured).
 pub fn write_text_table(w: &mut dyn Write, table: &Table) -> io::Result<()> {
     let cells: Vec<Vec<String>> = table
         .rows
         .iter()
         .map(|r| {
             r.iter()
-                .map(|c| printable(&c.text()).into_owned())
+                .map(|c| text_line(&c.text()).into_owned())
                 .collect()
         })
         .collect();
     let headers: Vec<String> = table
         .columns
         .iter()
-        .map(|c| printable(&c.header).into_owned())
+        .map(|c| text_line(&c.header).into_owned())
         .collect();
     let widths: Vec<usize> = headers
         .iter()
@@ -434,7 +539,10 @@ pub fn write_text_table(w: &mut dyn Write, table: &Table) -> io::Result<()> {
         })
         .collect();
     let line = |parts: Vec<String>| parts.join("  ").trim_end().to_string();
-    writeln!(w, "{}", printable(&table.title))?;
+    let sheet = table.layout == Layout::Sheet;
+    if sheet {
+        writeln!(w, "{}", text_line(&table.title))?;
+    }
     writeln!(
         w,
         "{}",
@@ -448,11 +556,13 @@ pub fn write_text_table(w: &mut dyn Write, table: &Table) -> io::Result<()> {
                 .collect()
         )
     )?;
-    writeln!(
-        w,
-        "{}",
-        line(widths.iter().map(|&n| "-".repeat(n)).collect())
-    )?;
+    if sheet {
+        writeln!(
+            w,
+            "{}",
+            line(widths.iter().map(|&n| "-".repeat(n)).collect())
+        )?;
+    }
     for row in &cells {
         writeln!(
             w,
@@ -477,7 +587,7 @@ pub fn write_text(
     units: &UnitSystem,
     tables: &[Table],
 ) -> io::Result<()> {
-    writeln!(w, "{}", printable(&report.title))?;
+    writeln!(w, "{}", text_line(&report.title))?;
     writeln!(w, "Units: {}", units_line(units))?;
     for t in tables {
         writeln!(w)?;
@@ -509,208 +619,54 @@ pub fn write_markdown(
         writeln!(w)?;
         writeln!(w, "## {}", markdown_cell(&t.title))?;
         writeln!(w)?;
-        let header: Vec<String> = t.columns.iter().map(|c| markdown_cell(&c.header)).collect();
-        writeln!(w, "| {} |", header.join(" | "))?;
-        let rule: Vec<&str> = t
-            .columns
-            .iter()
-            .map(|c| match c.align {
-                Align::Left => ":---",
-                Align::Right => "---:",
-            })
-            .collect();
-        writeln!(w, "| {} |", rule.join(" | "))?;
-        for row in &t.rows {
-            let cells: Vec<String> = row.iter().map(|c| markdown_cell(&c.text())).collect();
-            writeln!(w, "| {} |", cells.join(" | "))?;
-        }
+        write_markdown_table(w, t)?;
     }
     writeln!(w)?;
     writeln!(w, "_{CAUTION}_")
 }
 
-/// Writes one table as CSV: one header row, then the rows; CRLF line ends (RFC 4180),
-/// which every spreadsheet reads.
-pub fn write_csv(w: &mut dyn Write, table: &Table) -> io::Result<()> {
-    let header: Vec<String> = table.columns.iter().map(|c| csv_field(&c.header)).collect();
-    write!(w, "{}\r\n", header.join(","))?;
-    for row in &table.rows {
-        let cells: Vec<String> = row.iter().map(|c| csv_field(&c.csv())).collect();
-        write!(w, "{}\r\n", cells.join(","))?;
+/// Writes one table as a Markdown table: header, alignment rule, rows (no title).
+pub fn write_markdown_table(w: &mut dyn Write, t: &Table) -> io::Result<()> {
+    let header: Vec<String> = t.columns.iter().map(|c| markdown_cell(&c.header)).collect();
+    writeln!(w, "| {} |", header.join(" | "))?;
+    let rule: Vec<&str> = t
+        .columns
+        .iter()
+        .map(|c| match (c.align, t.layout) {
+            (Align::Left, Layout::Sheet) => ":---",
+            (Align::Left, Layout::Study) => "---",
+            (Align::Right, _) => "---:",
+        })
+        .collect();
+    writeln!(w, "| {} |", rule.join(" | "))?;
+    for row in &t.rows {
+        let cells: Vec<String> = row.iter().map(|c| markdown_cell(&c.text())).collect();
+        writeln!(w, "| {} |", cells.join(" | "))?;
     }
     Ok(())
 }
 
-/// Per-case values, present only for the cases asked for; a present `None` is `null`.
-#[derive(Debug, Clone, Serialize, PartialEq)]
-pub struct CasesJson<T> {
-    /// No friction.
-    #[serde(skip_serializing_if = "Option::is_none")]
-    pub ideal: Option<Option<T>>,
-    /// Driving forward.
-    #[serde(skip_serializing_if = "Option::is_none")]
-    pub forward: Option<Option<T>>,
-    /// Running back.
-    #[serde(skip_serializing_if = "Option::is_none")]
-    pub back: Option<Option<T>>,
-}
-
-impl<T> CasesJson<T> {
-    fn new(cases: CaseFilter, ideal: Option<T>, forward: Option<T>, back: Option<T>) -> Self {
-        CasesJson {
-            ideal: cases.ideal().then_some(ideal),
-            forward: cases.forward().then_some(forward),
-            back: cases.back().then_some(back),
-        }
+/// Writes one table as CSV: one header row, then the rows; a drawing-set table with
+/// CRLF line ends (RFC 4180, which every spreadsheet reads), a study table with LF.
+pub fn write_csv(w: &mut dyn Write, table: &Table) -> io::Result<()> {
+    let end = match table.layout {
+        Layout::Sheet => "\r\n",
+        Layout::Study => "\n",
+    };
+    let header: Vec<String> = table.columns.iter().map(|c| csv_field(&c.header)).collect();
+    write!(w, "{}{end}", header.join(","))?;
+    for row in &table.rows {
+        let cells: Vec<String> = row.iter().map(|c| csv_field(&c.csv())).collect();
+        write!(w, "{}{end}", cells.join(","))?;
     }
+    Ok(())
 }
 
-/// A span row of the JSON table (SI).
-#[derive(Debug, Clone, Serialize, PartialEq)]
-pub struct SpanJson {
-    /// Line name.
-    pub line: String,
-    /// Span index along the line, from 0.
-    pub span: usize,
-    /// Part it leaves.
-    pub from: String,
-    /// Part it reaches.
-    pub to: String,
-    /// Length, m.
-    pub length_m: Option<Real>,
-    /// Tension per case, N.
-    pub tension_n: CasesJson<Real>,
-    /// Breaking strength over the larger of the forward and back tensions.
-    pub safety_factor: Option<Real>,
-}
-
-/// A part row of the JSON table (SI, angles in degrees).
-#[derive(Debug, Clone, Serialize, PartialEq)]
-pub struct PartJson {
-    /// Part name.
-    pub part: String,
-    /// Kind as written.
-    pub kind: String,
-    /// Line of this passage (absent for a part without passages).
-    pub line: Option<String>,
-    /// Wrap, degrees.
-    pub wrap_deg: Option<Real>,
-    /// Fleet angle of the arriving span, degrees.
-    pub fleet_in_deg: Option<Real>,
-    /// Fleet angle of the leaving span, degrees.
-    pub fleet_out_deg: Option<Real>,
-    /// Tread diameter over rope diameter.
-    pub bend_ratio: Option<Real>,
-    /// Tight over slack tension (forward and back only; 1 without friction).
-    pub tension_ratio: CasesJson<Real>,
-    /// Resultant load magnitude, N.
-    pub pin_load_n: CasesJson<Real>,
-    /// Unit direction of the resultant load.
-    pub pin_load_direction: CasesJson<[Real; 3]>,
-    /// Share of all losses at this part, forward case (0 to 1).
-    #[serde(skip_serializing_if = "Option::is_none")]
-    pub loss_share: Option<Option<Real>>,
-}
-
-/// The JSON document of `reeve table --format json`.
-#[derive(Debug, Clone, Serialize, PartialEq)]
-pub struct TablesJson {
-    /// Format version of the rig file.
-    pub format: u32,
-    /// Rig title.
-    pub title: String,
-    /// Which cases the columns show.
-    pub cases: &'static str,
-    /// The span table (absent when only parts were asked for).
-    #[serde(skip_serializing_if = "Option::is_none")]
-    pub spans: Option<Vec<SpanJson>>,
-    /// The part table (absent when only spans were asked for).
-    #[serde(skip_serializing_if = "Option::is_none")]
-    pub parts: Option<Vec<PartJson>>,
-}
-
-/// Builds the JSON tables (SI) from the report.
-pub fn tables_json(report: &Report, cases: CaseFilter, choice: TableChoice) -> TablesJson {
-    let spans = (choice != TableChoice::Parts).then(|| {
-        report
-            .spans
-            .iter()
-            .map(|s| SpanJson {
-                line: s.line.clone(),
-                span: s.index,
-                from: s.from.clone(),
-                to: s.to.clone(),
-                length_m: s.length_m,
-                tension_n: CasesJson::new(
-                    cases,
-                    s.tension_n.ideal,
-                    s.tension_n.forward,
-                    s.tension_n.back,
-                ),
-                safety_factor: s.safety_factor,
-            })
-            .collect()
-    });
-    let parts = (choice != TableChoice::Spans).then(|| {
-        let mut rows = Vec::new();
-        for p in &report.parts {
-            let pins = CasesJson::new(
-                cases,
-                p.pin_load_ideal_n,
-                p.pin_load_n.forward,
-                p.pin_load_n.back,
-            );
-            let dirs = CasesJson::new(
-                cases,
-                p.pin_load_direction_ideal,
-                p.pin_load_direction.forward,
-                p.pin_load_direction.back,
-            );
-            let loss = cases.forward().then_some(p.loss_share);
-            if p.passages.is_empty() {
-                rows.push(PartJson {
-                    part: p.name.clone(),
-                    kind: p.kind.to_string(),
-                    line: None,
-                    wrap_deg: None,
-                    fleet_in_deg: None,
-                    fleet_out_deg: None,
-                    bend_ratio: None,
-                    tension_ratio: CasesJson::new(cases, None, None, None),
-                    pin_load_n: pins.clone(),
-                    pin_load_direction: dirs.clone(),
-                    loss_share: loss,
-                });
-            }
-            for pass in &p.passages {
-                rows.push(PartJson {
-                    part: p.name.clone(),
-                    kind: p.kind.to_string(),
-                    line: Some(pass.line.clone()),
-                    wrap_deg: pass.wrap_deg,
-                    fleet_in_deg: pass.fleet_in_deg,
-                    fleet_out_deg: pass.fleet_out_deg,
-                    bend_ratio: pass.bend_ratio,
-                    tension_ratio: CasesJson::new(
-                        cases,
-                        Some(1.0),
-                        pass.tension_ratio.forward,
-                        pass.tension_ratio.back,
-                    ),
-                    pin_load_n: pins.clone(),
-                    pin_load_direction: dirs.clone(),
-                    loss_share: loss,
-                });
-            }
-        }
-        rows
-    });
-    TablesJson {
-        format: report.format,
-        title: report.title.clone(),
-        cases: cases.name(),
-        spans,
-        parts,
+/// A CSV number: full precision, empty when missing.
+pub fn csv_number(x: Option<Real>) -> String {
+    match x {
+        Some(v) if v.is_finite() => format!("{v}"),
+        _ => String::new(),
     }
 }
 

@@ -1,11 +1,12 @@
-//! Line charts as standalone SVG: one or more panels stacked vertically, each with
-//! labelled axes (units in the labels), round-number ticks and a legend. Missing
-//! points (a failed step) break the line rather than being joined over.
+//! Line charts of the studies (sweep, stroke) as standalone SVG: one or more panels
+//! stacked vertically, each with labelled axes (units in the labels), round-number
+//! ticks and a legend. Missing points (a failed step) break the line rather than being
+//! joined over.
 
 use std::fmt::Write as _;
 
+use super::escape::xml as esc;
 use crate::math::Real;
-use crate::report::escape::xml as escape;
 
 /// One line of a chart: a name for the legend and its points (None = no value there).
 #[derive(Debug, Clone, PartialEq)]
@@ -123,7 +124,7 @@ fn panel_svg(out: &mut String, panel: &Panel, y0: Real) {
         r#"<text x="{}" y="{}" text-anchor="middle" font-size="14" font-weight="bold">{}</text>"#,
         (px0 + px1) / 2.0,
         y0 + 22.0,
-        escape(&panel.title)
+        esc(&panel.title)
     );
     let _ = writeln!(
         out,
@@ -155,7 +156,7 @@ fn panel_svg(out: &mut String, panel: &Panel, y0: Real) {
         r#"<text x="{}" y="{}" text-anchor="middle">{}</text>"#,
         (px0 + px1) / 2.0,
         py1 + 40.0,
-        escape(&panel.x_label)
+        esc(&panel.x_label)
     );
     let _ = writeln!(
         out,
@@ -164,7 +165,7 @@ fn panel_svg(out: &mut String, panel: &Panel, y0: Real) {
         (py0 + py1) / 2.0,
         px0 - 60.0,
         (py0 + py1) / 2.0,
-        escape(&panel.y_label)
+        esc(&panel.y_label)
     );
     for (i, s) in panel.series.iter().enumerate() {
         let colour = COLOURS[i % COLOURS.len()];
@@ -202,7 +203,7 @@ fn panel_svg(out: &mut String, panel: &Panel, y0: Real) {
             px1 + 36.0,
             px1 + 42.0,
             ly + 4.0,
-            escape(&s.name)
+            esc(&s.name)
         );
     }
 }

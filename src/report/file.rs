@@ -1,36 +1,13 @@
-//! Where a command's output goes: stdout (`-o -`, or no `-o` for commands that print by
-//! default) or a file written atomically. A file is written to a temporary file in the
-//! same folder and renamed into place only once it is complete, so a failure never
-//! leaves a half-written drawing or report (nor, after SIGTERM, SIGINT or SIGHUP, a
-//! temporary file); and a command never writes over the rig file it read, under any of
-//! its names.
+//! Writing an output file whole or not at all. A file is written to a temporary file in
+//! the same folder and renamed into place only once it is complete, so a failure never
+//! leaves a half-written drawing, table or report (nor, after SIGTERM, SIGINT or SIGHUP,
+//! a temporary file); and [`is_same_file`] tells a writer that it is about to write over
+//! its own input under another name.
 
 use std::fs;
 use std::io::{self, BufWriter, Write};
 use std::path::{Path, PathBuf};
 use std::sync::atomic::{AtomicU64, Ordering};
-
-use super::{Failure, EXIT_BAD_INPUT};
-
-/// Where to write.
-#[derive(Debug, Clone, PartialEq, Eq)]
-pub enum Destination {
-    /// Standard output.
-    Stdout,
-    /// A file, replaced atomically.
-    File(PathBuf),
-}
-
-impl Destination {
-    /// `-` is stdout; anything else a file; no `-o` at all takes `default`.
-    pub fn from_arg(arg: Option<&Path>, default: Destination) -> Destination {
-        match arg {
-            None => default,
-            Some(p) if p.as_os_str() == "-" => Destination::Stdout,
-            Some(p) => Destination::File(p.to_path_buf()),
-        }
-    }
-}
 
 /// Whether writing to `output` would overwrite `input`: the same file under any name
 /// (a symlink, a hard link, `dir/../rig.yaml`), compared by device and inode on Unix and
@@ -310,47 +287,6 @@ mod signals {
     impl Pending {
         pub fn new(_: &std::path::Path) -> Pending {
             Pending
-        }
-    }
-}
-
-/// Writes a command's output to `destination`, refusing to overwrite `input` (exit 2).
-/// A closed pipe on stdout is not an error.
-///
-/// # Errors
-/// A [`Failure`] with exit code 2 that names the file and the cause.
-pub fn emit(
-    destination: &Destination,
-    input: &Path,
-    write: impl FnOnce(&mut dyn Write) -> io::Result<()>,
-) -> Result<(), Failure> {
-    match destination {
-        Destination::Stdout => {
-            let stdout = io::stdout();
-            let mut lock = stdout.lock();
-            match write(&mut lock).and_then(|_| lock.flush()) {
-                Ok(()) => Ok(()),
-                Err(e) if e.kind() == io::ErrorKind::BrokenPipe => Ok(()),
-                Err(e) => Err(Failure {
-                    message: format!("cannot write output: {e}"),
-                    code: EXIT_BAD_INPUT,
-                }),
-            }
-        }
-        Destination::File(path) => {
-            if is_same_file(path, input) {
-                return Err(Failure {
-                    message: format!(
-                        "refusing to write over the input rig `{}`; choose another output file",
-                        path.display()
-                    ),
-                    code: EXIT_BAD_INPUT,
-                });
-            }
-            write_atomically(path, write).map_err(|e| Failure {
-                message: format!("cannot write `{}`: {e}", path.display()),
-                code: EXIT_BAD_INPUT,
-            })
         }
     }
 }

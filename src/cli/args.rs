@@ -1,0 +1,142 @@
+//! The flags more than one command takes, each defined once as an argument group that
+//! the commands flatten: the rig and its `--set` overrides ([`RigArgs`], [`SetArgs`]),
+//! `--format` with `--json` ([`FormatArgs`], [`JsonArg`]), `-o` ([`OutputArg`]) and
+//! `--view` ([`ViewArg`]). The words a choice accepts come from the library's own enums
+//! ([`reeve::report::Format`], [`View`], [`CaseFilter`], [`TableChoice`]) through
+//! [`one_of`], so the command line and the library cannot disagree on a spelling.
+
+use std::path::PathBuf;
+
+use clap::builder::{PossibleValue, PossibleValuesParser, TypedValueParser};
+
+use reeve::report::svg::View;
+use reeve::report::table::{CaseFilter, TableChoice};
+use reeve::report::Format;
+
+/// A value parser over one of the library's enums: each value's word, its other
+/// spellings and its line of help. Only the listed words parse.
+pub fn one_of<T: Copy + Send + Sync + 'static>(
+    values: impl IntoIterator<Item = (T, &'static str, &'static [&'static str], &'static str)>,
+) -> impl TypedValueParser<Value = T> {
+    let values: Vec<_> = values.into_iter().collect();
+    let possible: Vec<PossibleValue> = values
+        .iter()
+        .map(|&(_, name, aliases, help)| {
+            PossibleValue::new(name)
+                .aliases(aliases.iter().copied())
+                .help(help)
+        })
+        .collect();
+    PossibleValuesParser::new(possible).try_map(move |word: String| {
+        values
+            .iter()
+            .find(|(_, name, aliases, _)| *name == word || aliases.contains(&word.as_str()))
+            .map(|&(value, ..)| value)
+            .ok_or("not one of the listed values")
+    })
+}
+
+/// `--format`: the words of [`Format`] (`txt` and `markdown` as other spellings).
+fn format_parser() -> impl TypedValueParser<Value = Format> {
+    one_of(
+        Format::ALL
+            .into_iter()
+            .map(|f| (f, f.name(), f.aliases(), f.describe())),
+    )
+}
+
+/// `--view`: the words of [`View`].
+fn view_parser() -> impl TypedValueParser<Value = View> {
+    one_of(
+        View::ALL
+            .into_iter()
+            .map(|v| (v, v.name(), &[][..], v.description())),
+    )
+}
+
+/// `--case`: the words of [`CaseFilter`].
+pub fn case_parser() -> impl TypedValueParser<Value = CaseFilter> {
+    one_of(
+        CaseFilter::ALL
+            .into_iter()
+            .map(|c| (c, c.name(), &[][..], c.describe())),
+    )
+}
+
+/// `--table`: the words of [`TableChoice`].
+pub fn table_parser() -> impl TypedValueParser<Value = TableChoice> {
+    one_of(
+        TableChoice::ALL
+            .into_iter()
+            .map(|t| (t, t.name(), &[][..], t.describe())),
+    )
+}
+
+/// `--set KEY=VALUE`, repeatable.
+#[derive(Debug, Clone, Default, clap::Args)]
+pub struct SetArgs {
+    /// Change one value of the rig before solving, by the file's own keys
+    /// (e.g. `parts.head.bearing.mu=0.08`); may be repeated.
+    #[arg(long = "set", value_name = "KEY=VALUE")]
+    pub set: Vec<String>,
+}
+
+/// The rig file and its overrides: what every one-rig command reads.
+#[derive(Debug, Clone, clap::Args)]
+pub struct RigArgs {
+    /// The rig file (YAML, format 1).
+    pub rig: PathBuf,
+    /// Overrides.
+    #[command(flatten)]
+    pub sets: SetArgs,
+}
+
+/// `--json`.
+#[derive(Debug, Clone, Copy, Default, clap::Args)]
+pub struct JsonArg {
+    /// Print one JSON document (SI units, keys carrying their units) instead of text;
+    /// where the command has `--format`, the same as `--format json`.
+    #[arg(long)]
+    pub json: bool,
+}
+
+/// `--format` and `--json`.
+#[derive(Debug, Clone, Copy, clap::Args)]
+pub struct FormatArgs {
+    /// Output format.
+    #[arg(long, value_name = "FORMAT", value_parser = format_parser(), default_value = "text")]
+    pub format: Format,
+    /// JSON instead.
+    #[command(flatten)]
+    pub json: JsonArg,
+}
+
+impl FormatArgs {
+    /// The format asked for: `--json` wins over `--format`.
+    pub fn format(self) -> Format {
+        if self.json.json {
+            Format::Json
+        } else {
+            self.format
+        }
+    }
+}
+
+/// `-o FILE`. Optional here; a command that always writes a file makes it required
+/// (`#[command(mut_arg("output", ...))]`) with help of its own.
+#[derive(Debug, Clone, Default, clap::Args)]
+pub struct OutputArg {
+    /// Write to this file instead of stdout (`-` is stdout); a file is written whole or
+    /// not at all, and never over the rig file.
+    #[arg(short = 'o', long = "output", value_name = "FILE")]
+    pub output: Option<PathBuf>,
+}
+
+/// `--view`.
+#[derive(Debug, Clone, Copy, Default, clap::Args)]
+pub struct ViewArg {
+    /// Projection of the drawing; default: the one among front, side and top that
+    /// spreads the rig most.
+    #[arg(long, value_name = "VIEW", value_parser = view_parser())]
+    pub view: Option<View>,
+}
