@@ -11,8 +11,9 @@ pub mod outputs;
 pub mod studies;
 
 use crate::checks;
+use crate::model::Rig;
 use crate::report::{text, Report};
-use crate::rig::{self, Rig};
+use crate::rig;
 use crate::solve::{self, SolveOptions};
 
 /// Exit code: the rig moves and every check passes.

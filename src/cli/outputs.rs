@@ -7,10 +7,10 @@ use std::path::PathBuf;
 use clap::{Args, ValueEnum};
 
 use crate::checks;
+use crate::model::Rig;
 use crate::report::svg::{self, DrawOptions, View};
 use crate::report::table::{self, CaseFilter, Style, TableChoice};
 use crate::report::{html, Report};
-use crate::rig::Rig;
 use crate::solve::Solution;
 
 use super::output::{emit, Destination};

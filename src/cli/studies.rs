@@ -242,7 +242,7 @@ pub fn run_rank(args: RankArgs) -> Result<i32, Failure> {
         if let Some(id) = rig
             .parts
             .iter()
-            .position(|p| matches!(p.kind, crate::rig::model::PartKind::Sheave(_)))
+            .position(|p| matches!(p.kind, crate::model::PartKind::Sheave(_)))
         {
             let key = format!("parts.{}.bearing", rig.parts[id].name);
             s.load(&[(key, text.clone())])

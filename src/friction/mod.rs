@@ -32,7 +32,7 @@ pub mod rolling;
 pub mod thrust;
 
 use crate::math::{Real, Vector};
-use crate::rig::model::Bearing;
+use crate::model::Bearing;
 
 /// The largest tension ratio (tight over slack) that a rope can span: `10¹²`.
 ///
@@ -148,7 +148,7 @@ impl BearingResistance {
 /// A 10 mm pin with μ = 0.12 (μ_s = 0.18):
 /// ```
 /// use reeve::friction::{bearing_resistance, BearingResistance};
-/// use reeve::rig::model::Bearing;
+/// use reeve::model::Bearing;
 /// let pin = Bearing::Plain { pin_diameter: 0.010, mu: 0.12, mu_static: Some(0.18) };
 /// match bearing_resistance(&pin, false) {
 ///     // 5 mm × 0.12 / √1.0144 = 0.595 72 mm

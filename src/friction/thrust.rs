@@ -7,7 +7,7 @@
 //! they have run in. Radii are measured perpendicular to the shaft, also on a cone.
 
 use crate::math::Real;
-use crate::rig::model::{Contact, Thrust};
+use crate::model::{Contact, Thrust};
 
 /// Effective friction radius of a thrust face (pivot or collar).
 ///
@@ -35,7 +35,7 @@ use crate::rig::model::{Contact, Thrust};
 /// `r_eff = (2/3)(0.1³ − 0.075³)/(0.1² − 0.075²) = 0.088 095 m`.
 /// ```
 /// use reeve::friction::thrust::effective_radius;
-/// use reeve::rig::model::{Contact, Thrust};
+/// use reeve::model::{Contact, Thrust};
 /// let collar = Thrust { load: 5000.0, diameter: 0.200, inner_diameter: 0.150, mu: 0.3,
 ///                       contact: Contact::New, cone_angle: None };
 /// assert!((effective_radius(&collar) - 0.088_095).abs() < 1e-6);
@@ -85,7 +85,7 @@ pub fn effective_radius(thrust: &Thrust) -> Real {
 /// (uniform pressure): `M = 0.03 × 20 000 × (2/3 × 0.075) / sin 60° = 34.641 N·m`.
 /// ```
 /// use reeve::friction::thrust::moment;
-/// use reeve::rig::model::{Contact, Thrust};
+/// use reeve::model::{Contact, Thrust};
 /// let pivot = Thrust { load: 20e3, diameter: 0.150, inner_diameter: 0.0, mu: 0.03,
 ///                      contact: Contact::New, cone_angle: Some(60f64.to_radians()) };
 /// assert!((moment(&pivot) - 34.641).abs() < 1e-3);

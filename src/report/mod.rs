@@ -12,7 +12,7 @@ use serde::Serialize;
 
 use crate::checks::Warning;
 use crate::math::{Real, Vector};
-use crate::rig::model::{PartKind, Rig};
+use crate::model::{PartKind, Rig};
 use crate::solve::kinematics::Motion;
 use crate::solve::{given_quantity, Case, Outcome, Solution, SubRigSolution};
 use crate::units::UnitSystem;
@@ -616,7 +616,7 @@ fn headline(rig: &Rig, solution: &Solution, sub: &SubRigSolution) -> Headline {
 /// the rope is tied to a drum, the turns wound on it (`turns` of that path entry).
 fn passage_wrap(
     rig: &Rig,
-    line: &crate::rig::model::Line,
+    line: &crate::model::Line,
     e: usize,
     g: &crate::geometry::EntryGeometry,
 ) -> Real {

@@ -16,8 +16,8 @@ use nalgebra::{DMatrix, DVector};
 
 use crate::geometry::Geometry;
 use crate::math::{Direction, Real, Vector};
-use crate::network::Network;
-use crate::rig::model::{LineId, PartId, PartKind, Rig};
+use crate::model::Network;
+use crate::model::{LineId, PartId, PartKind, Rig};
 
 use super::SolveError;
 

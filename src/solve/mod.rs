@@ -10,8 +10,8 @@ pub mod statics;
 
 use crate::geometry::{self, Geometry, GeometryError, GeometryOptions};
 use crate::math::{Real, Vector};
-use crate::network::Network;
-use crate::rig::model::{PartId, PartKind, Rig};
+use crate::model::Network;
+use crate::model::{PartId, PartKind, Rig};
 
 pub use kinematics::Kinematics;
 pub use statics::{CaseResult, DrumTorques, Status};
@@ -220,7 +220,7 @@ impl SolveError {
 
     /// Where in the rig file the error points: the path entry of the line, else the
     /// part's definition.
-    pub fn location(&self, rig: &Rig) -> Option<(crate::rig::model::Location, String)> {
+    pub fn location(&self, rig: &Rig) -> Option<(crate::model::Location, String)> {
         let (line, part) = self.subject();
         let part_id = part.and_then(|p| rig.part_named(p));
         if let (Some(line), Some(pid)) = (line, part_id) {
@@ -281,7 +281,7 @@ fn unknown_does_no_work(
         return None;
     }
     if let PartKind::Block(b) = &rig.parts[solve_for].kind {
-        if !b.load_is_force && crate::rig::model::square_to_gravity(&b.moves, &rig.gravity) {
+        if !b.load_is_force && crate::model::square_to_gravity(&b.moves, &rig.gravity) {
             return Some((
                 format!(
                     "its `moves` {} is square to gravity {}",
@@ -421,7 +421,7 @@ pub fn given_quantity(rig: &Rig, part: PartId) -> Option<Real> {
         PartKind::Weight(w) => w.mass,
         PartKind::Drum(d) => d.torque,
         PartKind::Block(b) => b.load.map(|l| match l {
-            crate::rig::model::BlockLoad::Mass(m) | crate::rig::model::BlockLoad::Force(m) => m,
+            crate::model::BlockLoad::Mass(m) | crate::model::BlockLoad::Force(m) => m,
         }),
         _ => None,
     }
@@ -776,7 +776,7 @@ pub fn solve(rig: &Rig, options: &SolveOptions) -> Result<Solution, SolveError> 
 
 /// Whether any bearing gives a static coefficient (then a breakaway case is solved).
 pub fn has_static_friction(rig: &Rig) -> bool {
-    use crate::rig::model::Bearing;
+    use crate::model::Bearing;
     let is_static = |b: &Bearing| {
         matches!(
             b,

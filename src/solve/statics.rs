@@ -16,8 +16,8 @@ use nalgebra::{DMatrix, DVector};
 use crate::friction::{self, BearingResistance};
 use crate::geometry::Geometry;
 use crate::math::{Real, Vector, STANDARD_GRAVITY};
-use crate::network::Network;
-use crate::rig::model::{square_to_gravity, BlockLoad, LineId, PartId, PartKind, Rig};
+use crate::model::Network;
+use crate::model::{square_to_gravity, BlockLoad, LineId, PartId, PartKind, Rig};
 
 use super::kinematics::{line_component, Kinematics};
 use super::{Case, SolveError, SolveOptions};

@@ -12,9 +12,9 @@ use std::io::{self, Write};
 use serde::Serialize;
 
 use crate::math::Real;
+use crate::model::Rig;
 use crate::report::text::number;
 use crate::report::CAUTION;
-use crate::rig::Rig;
 use crate::units::{Dimension, UnitSystem};
 
 use super::table::{csv_number, write_human, write_human_sections, Format, Table};

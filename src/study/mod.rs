@@ -27,11 +27,12 @@ use serde::Serialize;
 
 use crate::checks;
 use crate::math::Real;
+use crate::model::Rig;
 use crate::report::Report;
 use crate::rig::file::{parse_tree, strip_bom};
 use crate::rig::load::{load_str_with, ranges_str, read_text, variants_str};
 use crate::rig::overrides::{apply_overrides, Uncertain, Variant};
-use crate::rig::{LoadError, Rig};
+use crate::rig::LoadError;
 use crate::solve::{self, Solution, SolveError, SolveOptions, SubRigSolution};
 
 /// Why a study cannot run (exit 2).

@@ -20,10 +20,10 @@ use std::io::{self, Write};
 use serde::Serialize;
 
 use crate::math::Real;
+use crate::model::Rig;
+use crate::model::{Bearing, PartKind};
 use crate::report::text::{number, quantity};
 use crate::report::{finite, CAUTION};
-use crate::rig::model::{Bearing, PartKind};
-use crate::rig::Rig;
 use crate::units::{Dimension, UnitSystem};
 
 use super::table::{csv_number, write_human, Format, Table};

@@ -15,9 +15,9 @@ use std::io::{self, Write};
 use serde::Serialize;
 
 use crate::math::Real;
+use crate::model::Rig;
 use crate::report::text::{number, quantity};
 use crate::report::{finite, CAUTION};
-use crate::rig::Rig;
 use crate::solve::kinematics::Motion;
 use crate::solve::Solution;
 use crate::units::{parse_quantity, Dimension, UnitSystem};

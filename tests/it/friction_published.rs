@@ -17,7 +17,7 @@ use reeve::friction::{
     BearingResistance,
 };
 use reeve::math::Vector;
-use reeve::rig::model::{Bearing, Contact, Thrust};
+use reeve::model::{Bearing, Contact, Thrust};
 
 use crate::support::assert_abs;
 

@@ -7,7 +7,7 @@ use approx::relative_eq;
 use proptest::prelude::*;
 use reeve::geometry::{compute, Geometry, GeometryError, GeometryOptions, LineGeometry};
 use reeve::math::{Direction, Point, Real, Vector};
-use reeve::rig::model::{
+use reeve::model::{
     Bearing, Block, Drum, Guide, Haul, Limits, Line, Location, Part, PartId, PartKind, PathEntry,
     Rig, Rope, RopeKind, Sheave, Side, Weight,
 };

@@ -439,7 +439,7 @@ fn set(pairs: &[(&str, &str)]) -> Vec<(String, String)> {
 
 #[test]
 fn overrides_apply_by_the_files_own_keys() {
-    use reeve::rig::model::{Bearing, BlockLoad, PartKind};
+    use reeve::model::{Bearing, BlockLoad, PartKind};
     let rig = load_str_with(
         EXAMPLE,
         "rig.yaml",
@@ -678,7 +678,7 @@ fn problems_are_capped_with_a_count() {
 
 #[test]
 fn overrides_may_add_a_missing_key_and_remove_an_optional_one() {
-    use reeve::rig::model::PartKind;
+    use reeve::model::PartKind;
     let rig = load_str_with(
         EXAMPLE,
         "rig.yaml",

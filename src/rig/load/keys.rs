@@ -1,8 +1,8 @@
 //! The format's key lists, part kinds and defaults: what a rig file may say.
 
 use crate::math::Real;
+use crate::model::RopeKind;
 use crate::rig::file::{Entry, Node};
-use crate::rig::model::RopeKind;
 
 /// Default least tread-diameter / rope-diameter ratio for a rope kind.
 ///

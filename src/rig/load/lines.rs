@@ -2,8 +2,8 @@
 
 use super::keys::{get, join, Kind, ENTRY_KEYS, LINE_KEYS, MOST_TURNS};
 use super::read::{hint_or_list, Names, Resolver};
+use crate::model::{Line, PathEntry, Side};
 use crate::rig::file::{Entry, Node, Value};
-use crate::rig::model::{Line, PathEntry, Side};
 
 pub(super) fn line(
     r: &mut Resolver,

@@ -35,9 +35,9 @@
 
 use std::path::Path;
 
+use crate::model::Rig;
 use crate::rig::error::{LoadError, Problem};
 use crate::rig::file::{parse_tree, Node, MAX_INPUT_BYTES};
-use crate::rig::model::Rig;
 use crate::rig::overrides::{apply_overrides, read_variants, take_ranges, Uncertain, Variant};
 
 mod keys;

@@ -3,11 +3,11 @@
 use super::keys::{get, join, Kind, KINDS, LOAD_KEYS, SHAFT_KEYS};
 use super::read::{Names, Resolver};
 use crate::math::Point;
-use crate::rig::file::{Entry, Node};
-use crate::rig::model::{
+use crate::model::{
     square_to_gravity, Bearing, Block, BlockLoad, Drum, Guide, Haul, Location, Part, PartKind,
     Shaft, Sheave, Weight,
 };
+use crate::rig::file::{Entry, Node};
 use crate::rig::suggest::did_you_mean;
 use crate::units::{parse_unit_of, Dimension, UnitSystem};
 
@@ -361,8 +361,8 @@ mod tests {
     use super::*;
     use crate::math::Vector;
     use crate::math::STANDARD_GRAVITY;
+    use crate::model::{Contact, Side};
     use crate::rig::load::load_str;
-    use crate::rig::model::{Contact, Side};
 
     fn close(a: f64, b: f64) -> bool {
         (a - b).abs() <= 1e-12 * b.abs().max(1.0)

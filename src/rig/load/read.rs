@@ -5,9 +5,9 @@ use std::collections::HashMap;
 
 use super::keys::{get, join, Kind, BEARING_KINDS, GROOVE_KEYS, LARGEST, THRUST_KEYS};
 use crate::math::{Direction, Real, Vector};
+use crate::model::{Bearing, Contact, Location, Thrust};
 use crate::rig::error::Problem;
 use crate::rig::file::{Entry, Node, Value, MAX_PROBLEMS};
-use crate::rig::model::{Bearing, Contact, Location, Thrust};
 use crate::rig::suggest::did_you_mean;
 use crate::units::{parse_quantity, Dimension, UnitError, UnitSystem};
 

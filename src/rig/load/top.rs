@@ -12,9 +12,9 @@ use super::lines::line;
 use super::parts::{default_torque, part};
 use super::read::{Names, Resolver};
 use crate::math::Vector;
+use crate::model::{Limits, Rig, Rope, RopeKind};
 use crate::rig::error::Problem;
 use crate::rig::file::{more_problems, Entry, Node};
-use crate::rig::model::{Limits, Rig, Rope, RopeKind};
 use crate::rig::overrides::read_variants;
 use crate::units::{parse_unit_of, Dimension, UnitSystem};
 
@@ -374,8 +374,8 @@ pub(super) fn rope(r: &mut Resolver, e: &Entry) -> Option<Rope> {
 #[cfg(test)]
 mod tests {
     use crate::math::Vector;
+    use crate::model::{Bearing, BlockLoad, PartKind, RopeKind};
     use crate::rig::load::load_str;
-    use crate::rig::model::{Bearing, BlockLoad, PartKind, RopeKind};
 
     /// The example of DESIGN.md section 4.
     const EXAMPLE: &str = include_str!("../../../tests/rigs/design-example.yaml");

@@ -1,5 +1,12 @@
-//! The rig as resolved: names checked, references turned into indices, every quantity in
-//! SI and radians. Geometry and the solver read only this; they never see YAML.
+//! The model: the rig as resolved, its own stage between the file layer ([`crate::rig`],
+//! which builds it) and every later stage (geometry, friction, solve, checks, report,
+//! studies), which read only this and never see YAML. Names are checked, references
+//! turned into ids, every quantity is in SI and radians; [`network`] holds the
+//! line-and-sheave graph and the independent sub-rigs.
+
+pub mod network;
+
+pub use network::{Link, Network};
 
 use crate::math::{Direction, Point, Real};
 use crate::units::UnitSystem;
@@ -254,7 +261,7 @@ pub const SQUARE: Real = 1e-9;
 ///
 /// ```
 /// use reeve::math::{Direction, Vector};
-/// use reeve::rig::model::square_to_gravity;
+/// use reeve::model::square_to_gravity;
 /// let down = Direction::new_normalize(-Vector::z());
 /// assert!(square_to_gravity(&Direction::new_normalize(Vector::x()), &down));
 /// assert!(!square_to_gravity(&Direction::new_normalize(Vector::new(1.0, 0.0, 0.1)), &down));

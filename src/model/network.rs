@@ -6,7 +6,7 @@
 use petgraph::graph::{NodeIndex, UnGraph};
 use petgraph::unionfind::UnionFind;
 
-use crate::rig::model::{LineId, PartId, Rig};
+use crate::model::{LineId, PartId, Rig};
 
 /// What a graph edge stands for.
 #[derive(Debug, Clone, Copy, PartialEq, Eq)]
