@@ -206,8 +206,6 @@ pub struct Sheave {
     pub groove_angle: Option<Real>,
     /// Rope-on-groove friction (default: the rope's), for the stalled-sheave check.
     pub mu: Option<Real>,
-    /// The block that carries it, if any.
-    pub block: Option<PartId>,
 }
 
 /// A fixed round surface.
@@ -223,13 +221,29 @@ pub struct Guide {
     pub groove_angle: Option<Real>,
 }
 
-/// The load a block carries.
+/// The load a block carries: which quantity it is, and its value (None when it is the
+/// unknown).
 #[derive(Debug, Clone, Copy, PartialEq)]
 pub enum BlockLoad {
     /// A hanging mass, kg, acting along gravity.
-    Mass(Real),
+    Mass(Option<Real>),
     /// A force, N, acting against the block's forward travel.
-    Force(Real),
+    Force(Option<Real>),
+}
+
+impl BlockLoad {
+    /// The value (kg or N), None when it is the unknown.
+    pub fn value(self) -> Option<Real> {
+        match self {
+            BlockLoad::Mass(v) | BlockLoad::Force(v) => v,
+        }
+    }
+
+    /// Whether the load is a force (else a mass); decides the unknown's quantity when
+    /// the block is `solve_for`.
+    pub fn is_force(self) -> bool {
+        matches!(self, BlockLoad::Force(_))
+    }
 }
 
 /// A moving frame.
@@ -237,11 +251,8 @@ pub enum BlockLoad {
 pub struct Block {
     /// Direction of forward travel.
     pub moves: Direction,
-    /// The load; None when it is the unknown.
-    pub load: Option<BlockLoad>,
-    /// Whether the load is given as a force (true) or a mass (false); decides the
-    /// unknown's quantity when the block is `solve_for`.
-    pub load_is_force: bool,
+    /// The load: its quantity, and its value unless it is the unknown.
+    pub load: BlockLoad,
     /// Whether the file says which quantity the load is (it has `load`). Only a
     /// `solve_for` block may leave `load` out; its quantity is then a mass where its
     /// travel has a component along gravity, else a force against `moves`

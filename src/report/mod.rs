@@ -523,7 +523,7 @@ fn quantity_note(rig: &Rig, sub: &SubRigSolution) -> Option<String> {
     if b.load_stated {
         return None;
     }
-    Some(if b.load_is_force {
+    Some(if b.load.is_force() {
         format!(
             "`{}` states no load and its travel is square to gravity, so the figure is the force against its `moves`",
             part.name

@@ -281,7 +281,7 @@ fn unknown_does_no_work(
         return None;
     }
     if let PartKind::Block(b) = &rig.parts[solve_for].kind {
-        if !b.load_is_force && crate::model::square_to_gravity(&b.moves, &rig.gravity) {
+        if !b.load.is_force() && crate::model::square_to_gravity(&b.moves, &rig.gravity) {
             return Some((
                 format!(
                     "its `moves` {} is square to gravity {}",
@@ -405,7 +405,7 @@ pub fn natural_quantity(rig: &Rig, part: PartId) -> Option<Quantity> {
         PartKind::Haul(_) => Some(Quantity::Force),
         PartKind::Weight(_) => Some(Quantity::Mass),
         PartKind::Drum(_) => Some(Quantity::Torque),
-        PartKind::Block(b) => Some(if b.load_is_force {
+        PartKind::Block(b) => Some(if b.load.is_force() {
             Quantity::Force
         } else {
             Quantity::Mass
@@ -420,9 +420,7 @@ pub fn given_quantity(rig: &Rig, part: PartId) -> Option<Real> {
         PartKind::Haul(h) => h.force,
         PartKind::Weight(w) => w.mass,
         PartKind::Drum(d) => d.torque,
-        PartKind::Block(b) => b.load.map(|l| match l {
-            crate::model::BlockLoad::Mass(m) | crate::model::BlockLoad::Force(m) => m,
-        }),
+        PartKind::Block(b) => b.load.value(),
         _ => None,
     }
 }
@@ -644,7 +642,7 @@ pub fn solve(rig: &Rig, options: &SolveOptions) -> Result<Solution, SolveError> 
     }
     // A block drives only as a falling weight: its load must act along its travel.
     if let PartKind::Block(b) = &rig.parts[rig.drive].kind {
-        if b.load_is_force || rig.gravity.dot(&b.moves) <= 0.0 {
+        if b.load.is_force() || rig.gravity.dot(&b.moves) <= 0.0 {
             return Err(SolveError::DriveAgainstItsLoad {
                 drive: rig.parts[rig.drive].name.clone(),
             });

@@ -107,7 +107,6 @@ pub(super) fn part(
                 mass,
                 groove_angle,
                 mu,
-                block,
             }))
         }
         Kind::Guide => {
@@ -135,10 +134,14 @@ pub(super) fn part(
             // along its travel, else the force against `moves`.
             let load_is_force =
                 load_is_force || (!load_stated && square_to_gravity(&moves, &r.gravity));
+            let load = match load? {
+                Some(given) => given,
+                None if load_is_force => BlockLoad::Force(None),
+                None => BlockLoad::Mass(None),
+            };
             Some(PartKind::Block(Block {
                 moves,
-                load: load?,
-                load_is_force,
+                load,
                 load_stated,
                 mass,
             }))
@@ -250,8 +253,6 @@ pub(super) fn part(
     })
 }
 
-/// A block's load: `(Some(load or None when unknown), load_is_force)`, or `(None, _)`
-/// after a problem.
 /// The torque unit the reports of a file whose `units` state none show: `N*m`, except
 /// that a file in pound-force shows `lbf*in` when its lengths are inches and `lbf*ft`
 /// otherwise, so that an imperial rig is not reported in N·m. Its bare torques are still
@@ -265,6 +266,8 @@ pub(super) fn default_torque(units: &UnitSystem) -> crate::units::Unit {
     parse_unit_of(symbol, Dimension::Torque).unwrap_or(units.torque)
 }
 
+/// A block's load: `(Some(load or None when unknown), load_is_force)`, or `(None, _)`
+/// after a problem.
 pub(super) fn block_load(
     r: &mut Resolver,
     entries: &[Entry],
@@ -325,8 +328,8 @@ pub(super) fn block_load(
         r.check(v, &entry.value, &kp, |v| v >= 0.0, "a mass of 0 or more")
     };
     match value {
-        Some(v) if is_force => (Some(Some(BlockLoad::Force(v))), true),
-        Some(v) => (Some(Some(BlockLoad::Mass(v))), false),
+        Some(v) if is_force => (Some(Some(BlockLoad::Force(Some(v)))), true),
+        Some(v) => (Some(Some(BlockLoad::Mass(Some(v)))), false),
         None => (None, is_force),
     }
 }
@@ -451,7 +454,7 @@ solve_for: b
         let PartKind::Block(b) = &rig.parts[1].kind else {
             panic!()
         };
-        assert_eq!((b.load, b.load_is_force), (None, true));
+        assert_eq!((b.load.value(), b.load.is_force()), (None, true));
         // Default travel is against gravity: gravity -Y, so +Y.
         assert_eq!(b.moves.into_inner(), Vector::new(0.0, 1.0, 0.0));
         assert_eq!((rig.drive, rig.solve_for), (3, 1));

@@ -416,17 +416,17 @@ mod tests {
         };
         assert!(close(pin_diameter, 0.010));
         assert_eq!((mu, mu_static), (0.12, None));
-        assert_eq!(head.block, None);
+        assert_eq!(rig.parts[1].block, None);
         let PartKind::Block(hook) = &rig.parts[2].kind else {
             panic!("hook")
         };
-        assert_eq!(hook.load, Some(BlockLoad::Mass(40.0)));
-        assert!(!hook.load_is_force);
+        assert_eq!(hook.load, BlockLoad::Mass(Some(40.0)));
+        assert!(!hook.load.is_force());
         assert_eq!(hook.moves.into_inner(), Vector::new(0.0, 0.0, 1.0));
         let PartKind::Sheave(a) = &rig.parts[3].kind else {
             panic!("hook.a")
         };
-        assert_eq!(a.block, Some(2));
+        assert_eq!(rig.parts[3].block, Some(2));
         assert_eq!(
             a.bearing,
             Bearing::Rolling {
