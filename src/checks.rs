@@ -3,7 +3,7 @@
 //! load, and the solver's own health. Each warning has a stable `code`.
 
 use crate::math::Real;
-use crate::rig::model::{PartKind, Rig};
+use crate::model::{PartKind, Rig};
 use crate::solve::{Outcome, Solution, Status, SubRigSolution};
 use crate::units::Dimension;
 
@@ -353,7 +353,7 @@ pub fn pull_checks(rig: &Rig, solution: &Solution) -> Vec<Warning> {
 /// static friction is at least the running friction, so the breakaway figure would come
 /// out below the running one.
 pub fn bearing_checks(rig: &Rig) -> Vec<Warning> {
-    use crate::rig::model::Bearing;
+    use crate::model::Bearing;
     let mut out = Vec::new();
     for part in &rig.parts {
         let bearing = match &part.kind {

@@ -14,8 +14,9 @@ pub mod outputs;
 pub mod studies;
 
 use reeve::checks;
+use reeve::model::Rig;
 use reeve::report::{text, Report};
-use reeve::rig::{self, LoadError, Rig};
+use reeve::rig::{self, LoadError};
 use reeve::solve::{self, SolveError, SolveOptions};
 use reeve::study::StudyError;
 

@@ -5,10 +5,10 @@
 use clap::Args;
 
 use reeve::checks;
+use reeve::model::Rig;
 use reeve::report::svg::{self, DrawOptions};
 use reeve::report::table::{self, CaseFilter, Style, TableChoice};
 use reeve::report::{html, Format, Report};
-use reeve::rig::Rig;
 use reeve::solve::Solution;
 
 use super::args::{case_parser, table_parser, FormatArgs, OutputArg, RigArgs, ViewArg};

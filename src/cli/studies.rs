@@ -5,8 +5,8 @@
 use std::io::{self, Write};
 use std::path::PathBuf;
 
+use reeve::model::PartKind;
 use reeve::report::study as writers;
-use reeve::rig::model::PartKind;
 use reeve::study::{compare, rank, spread, sweep, RigSource};
 
 use super::args::{FormatArgs, RigArgs, SetArgs};

@@ -27,7 +27,7 @@ pub mod tangent;
 use std::f64::consts::TAU;
 
 use crate::math::{Direction, Point, Real};
-use crate::rig::model::{LineId, PartId, Rig};
+use crate::model::{LineId, PartId, Rig};
 use tangent::{common_tangent, exceeds, Circle, End, TangentError, TangentOptions, DEGENERATE};
 
 /// A straight length of rope between two parts of a line.

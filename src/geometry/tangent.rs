@@ -209,6 +209,27 @@ pub fn common_tangent(
 /// circle, or circles nested (external) or overlapping (crossed). The larger circle is
 /// named. NaN input also lands here.
 ///
+/// # Example
+/// An external tangent (same sense) between sheaves of pitch radius 50 mm and 30 mm,
+/// 400 mm apart, axles along +Z. By hand: `Δ = 0.05 − 0.03 = 0.02` m, `e₁ = +X`,
+/// `e₂ = Z × X = +Y`, `√(|D|² − Δ²) = √(0.16 − 0.0004) = √0.1596 ≈ 0.399 500` m (the span
+/// length), `n = (0.02 X − √0.1596 Y) / 0.4 ≈ (0.05, −0.998 75, 0)`, so the rope leaves
+/// the first sheave at `0.05 n ≈ (2.5 mm, −49.94 mm, 0)`.
+/// ```
+/// use reeve::geometry::tangent::{tangent_closed_form, Circle};
+/// use reeve::math::{Direction, Point, Vector};
+/// let axle = Direction::new_normalize(Vector::z());
+/// let big = Circle { centre: Point::origin(), axle, radius: 0.05, sense: 1.0 };
+/// let small = Circle { centre: Point::new(0.4, 0.0, 0.0), axle, radius: 0.03, sense: 1.0 };
+/// let t = tangent_closed_form(&big, &small, &axle).unwrap();
+/// assert!(((t.end - t.start).norm() - 0.1596f64.sqrt()).abs() < 1e-12);
+/// let leave = t.start.coords;
+/// assert!((leave.x - 0.0025).abs() < 1e-12);
+/// assert!((leave.y + 0.05 * 0.1596f64.sqrt() / 0.4).abs() < 1e-12);
+/// // The span is square to the radius at both tangent points.
+/// assert!((t.end - t.start).dot(&leave).abs() < 1e-12);
+/// ```
+///
 /// Source: hand derivation from the tangency conditions above (plane geometry of common
 /// tangents).
 pub fn tangent_closed_form(
@@ -269,6 +290,34 @@ pub fn tangent_closed_form(
 /// `Inside` even where a tangent might exist; with the centre line more than about 32°
 /// off both axles and the centres three summed radii apart this cannot happen (see the
 /// property test).
+///
+/// # Example
+/// The sheaves of [`tangent_closed_form`]'s example (radii 50 mm and 30 mm, 400 mm
+/// apart, parallel axles): the iteration gives the closed form's span length
+/// `√(0.4² − 0.02²) = √0.1596` m (hand calculation) to its tolerance, in a few steps,
+/// since each step contracts by about `R₁R₂ / |D|² ≈ 0.01`. Then a lead sheave turned a
+/// quarter turn (axle along +X, 1 m above and 0.4 m along): no closed form, but the span
+/// found is square to the radius at both ends, the tangency it solves.
+/// ```
+/// use reeve::geometry::tangent::{tangent_iterative, Circle, TangentOptions};
+/// use reeve::math::{Direction, Point, Vector};
+/// let z = Direction::new_normalize(Vector::z());
+/// let big = Circle { centre: Point::origin(), axle: z, radius: 0.05, sense: 1.0 };
+/// let small = Circle { centre: Point::new(0.4, 0.0, 0.0), axle: z, radius: 0.03, sense: 1.0 };
+/// let (t, steps) = tangent_iterative(&big, &small, &TangentOptions::default()).unwrap();
+/// assert!(((t.end - t.start).norm() - 0.1596f64.sqrt()).abs() < 1e-10);
+/// assert!(steps < 20, "{steps} steps");
+///
+/// let x = Direction::new_normalize(Vector::x());
+/// let lead = Circle { centre: Point::new(0.4, 0.0, 1.0), axle: x, radius: 0.03, sense: 1.0 };
+/// let (t, _) = tangent_iterative(&big, &lead, &TangentOptions::default()).unwrap();
+/// let span = t.end - t.start;
+/// assert!(span.dot(&(t.start - big.centre)).abs() < 1e-9);
+/// assert!(span.dot(&(t.end - lead.centre)).abs() < 1e-9);
+/// // Each tangent point lies on its own circle.
+/// assert!(((t.start - big.centre).norm() - 0.05).abs() < 1e-9);
+/// assert!(((t.end - lead.centre).norm() - 0.03).abs() < 1e-9);
+/// ```
 ///
 /// Source: hand derivation (block Gauss–Seidel on the two tangency conditions).
 pub fn tangent_iterative(

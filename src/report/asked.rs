@@ -5,7 +5,7 @@
 
 use serde::ser::{Serialize, SerializeMap, Serializer};
 
-use crate::rig::model::Rig;
+use crate::model::Rig;
 use crate::solve::{Quantity, SubRigSolution};
 
 /// Whether the asked part is the drive or a load (DESIGN.md §3): forward is the least

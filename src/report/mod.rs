@@ -17,7 +17,7 @@ use serde::Serialize;
 
 use crate::checks::Warning;
 use crate::math::{Real, Vector};
-use crate::rig::model::{PartKind, Rig};
+use crate::model::{PartKind, Rig};
 use crate::solve::kinematics::Motion;
 use crate::solve::{given_quantity, Case, Outcome, Solution, SubRigSolution};
 use crate::units::UnitSystem;
@@ -513,7 +513,7 @@ fn quantity_note(rig: &Rig, sub: &SubRigSolution) -> Option<String> {
     if b.load_stated {
         return None;
     }
-    Some(if b.load_is_force {
+    Some(if b.load.is_force() {
         format!(
             "`{}` states no load and its travel is square to gravity, so the figure is the force against its `moves`",
             part.name
@@ -601,7 +601,7 @@ fn headline(rig: &Rig, solution: &Solution, sub: &SubRigSolution) -> Headline {
 /// the rope is tied to a drum, the turns wound on it (`turns` of that path entry).
 fn passage_wrap(
     rig: &Rig,
-    line: &crate::rig::model::Line,
+    line: &crate::model::Line,
     e: usize,
     g: &crate::geometry::EntryGeometry,
 ) -> Real {

@@ -5,7 +5,7 @@
 use std::io::{self, Write};
 
 use crate::math::Real;
-use crate::rig::model::Rig;
+use crate::model::Rig;
 use crate::solve::Outcome;
 use crate::units::{Dimension, UnitSystem};
 

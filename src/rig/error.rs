@@ -3,7 +3,7 @@
 
 use std::fmt;
 
-use crate::rig::model::Location;
+use crate::model::Location;
 
 /// One problem in a rig file.
 #[derive(Debug, Clone, PartialEq)]

@@ -27,8 +27,8 @@ use std::collections::HashMap;
 use yaml_rust2::parser::{Event, Parser};
 use yaml_rust2::scanner::{Marker, TScalarStyle};
 
+use crate::model::Location;
 use crate::rig::error::Problem;
-use crate::rig::model::Location;
 use crate::text::{describe, is_unsafe, is_unsafe_in_file, printable, unsafe_in_file};
 
 /// Largest rig file read, bytes (1 MiB; real rigs are a few kilobytes).

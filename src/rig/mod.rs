@@ -1,14 +1,12 @@
 //! Rig files: the located YAML tree as written ([`file`](mod@file)), overrides ([`overrides`]),
-//! loading and validation ([`load`]) into the resolved, SI [`model`], with problems
+//! loading and validation ([`load`]) into the resolved, SI [`crate::model`], with problems
 //! reported as [`LoadError`] ([`error`]).
 
 pub mod error;
 pub mod file;
 pub mod load;
-pub mod model;
 pub mod overrides;
 pub mod suggest;
 
 pub use error::{LoadError, Problem};
 pub use load::{load_file, load_str, load_str_with};
-pub use model::Rig;

@@ -10,9 +10,9 @@
 //! existing one. Setting one of a pair that excludes the other (`mass`/`force` of a
 //! block load, `factor`/`efficiency` of a rated bearing) removes the other.
 
+use crate::model::Location;
 use crate::rig::error::Problem;
 use crate::rig::file::{parse_value, Entry, Node, Value};
-use crate::rig::model::Location;
 use crate::rig::suggest::did_you_mean;
 
 /// Maps whose keys are names the user chose; overrides cannot add to them.

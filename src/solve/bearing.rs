@@ -4,7 +4,7 @@
 
 use crate::friction::{self, thrust::Pressure, BearingResistance};
 use crate::math::Real;
-use crate::rig::model::{Bearing, Contact, Thrust};
+use crate::model::{Bearing, Contact, Thrust};
 
 /// Reduces a bearing to its resistance. `use_static` picks `mu_static` where given
 /// (breakaway case).
@@ -29,7 +29,7 @@ use crate::rig::model::{Bearing, Contact, Thrust};
 /// ```
 /// use reeve::friction::BearingResistance;
 /// use reeve::solve::bearing::bearing_resistance;
-/// use reeve::rig::model::Bearing;
+/// use reeve::model::Bearing;
 /// let pin = Bearing::Plain { pin_diameter: 0.010, mu: 0.12, mu_static: Some(0.18) };
 /// match bearing_resistance(&pin, false) {
 ///     // 5 mm × 0.12 / √1.0144 = 0.595 72 mm
@@ -78,7 +78,7 @@ pub fn bearing_resistance(bearing: &Bearing, use_static: bool) -> BearingResista
 /// # Example
 /// Conical pivot of 150 mm, half-angle 60°, 20 kN, μ = 0.03, new: 34.641 N·m.
 /// ```
-/// use reeve::rig::model::{Contact, Thrust};
+/// use reeve::model::{Contact, Thrust};
 /// use reeve::solve::bearing::thrust_moment;
 /// let pivot = Thrust { load: 20e3, diameter: 0.150, inner_diameter: 0.0, mu: 0.03,
 ///                      contact: Contact::New, cone_angle: Some(60f64.to_radians()) };

@@ -16,8 +16,8 @@ use nalgebra::{DMatrix, DVector};
 
 use crate::geometry::Geometry;
 use crate::math::{Direction, Real, Vector};
-use crate::network::Network;
-use crate::rig::model::{LineId, PartId, PartKind, Rig};
+use crate::model::Network;
+use crate::model::{LineId, PartId, PartKind, Rig};
 
 use super::SolveError;
 
@@ -110,16 +110,13 @@ impl Kinematics {
     ) -> Result<Kinematics, SolveError> {
         let mut dofs = Vec::new();
         let mut dof_of_part = vec![None; rig.parts.len()];
+        // From the network's graph: which parts a line reaches, and which blocks carry
+        // a part that a line reaches.
         let in_line: Vec<bool> = (0..rig.parts.len())
-            .map(|p| rig.lines.iter().any(|l| l.path.iter().any(|e| e.part == p)))
+            .map(|p| !network.lines_at(p).is_empty())
             .collect();
         let carries: Vec<bool> = (0..rig.parts.len())
-            .map(|p| {
-                rig.parts
-                    .iter()
-                    .enumerate()
-                    .any(|(s, part)| part.block == Some(p) && in_line[s])
-            })
+            .map(|p| network.carried_by(p).into_iter().any(|s| in_line[s]))
             .collect();
         for (id, part) in rig.parts.iter().enumerate() {
             let motion = match &part.kind {

@@ -13,8 +13,8 @@ pub mod walk;
 
 use crate::geometry::{self, Geometry, GeometryError, GeometryOptions};
 use crate::math::{Real, Vector};
-use crate::network::Network;
-use crate::rig::model::{PartId, PartKind, Rig};
+use crate::model::Network;
+use crate::model::{PartId, PartKind, Rig};
 
 pub use kinematics::Kinematics;
 pub use statics::{CaseResult, DrumTorques, Status};
@@ -236,7 +236,7 @@ impl SolveError {
 
     /// Where in the rig file the error points: the path entry of the line, else the
     /// part's definition.
-    pub fn location(&self, rig: &Rig) -> Option<(crate::rig::model::Location, String)> {
+    pub fn location(&self, rig: &Rig) -> Option<(crate::model::Location, String)> {
         let (line, part) = self.subject();
         let part_id = part.and_then(|p| rig.part_named(p));
         if let (Some(line), Some(pid)) = (line, part_id) {
@@ -297,7 +297,7 @@ fn unknown_does_no_work(
         return None;
     }
     if let PartKind::Block(b) = &rig.parts[solve_for].kind {
-        if !b.load_is_force && crate::rig::model::square_to_gravity(&b.moves, &rig.gravity) {
+        if !b.load.is_force() && crate::model::square_to_gravity(&b.moves, &rig.gravity) {
             return Some((
                 format!(
                     "its `moves` {} is square to gravity {}",
@@ -421,7 +421,7 @@ pub fn natural_quantity(rig: &Rig, part: PartId) -> Option<Quantity> {
         PartKind::Haul(_) => Some(Quantity::Force),
         PartKind::Weight(_) => Some(Quantity::Mass),
         PartKind::Drum(_) => Some(Quantity::Torque),
-        PartKind::Block(b) => Some(if b.load_is_force {
+        PartKind::Block(b) => Some(if b.load.is_force() {
             Quantity::Force
         } else {
             Quantity::Mass
@@ -436,9 +436,7 @@ pub fn given_quantity(rig: &Rig, part: PartId) -> Option<Real> {
         PartKind::Haul(h) => h.force,
         PartKind::Weight(w) => w.mass,
         PartKind::Drum(d) => d.torque,
-        PartKind::Block(b) => b.load.map(|l| match l {
-            crate::rig::model::BlockLoad::Mass(m) | crate::rig::model::BlockLoad::Force(m) => m,
-        }),
+        PartKind::Block(b) => b.load.value(),
         _ => None,
     }
 }
@@ -660,7 +658,7 @@ pub fn solve(rig: &Rig, options: &SolveOptions) -> Result<Solution, SolveError> 
     }
     // A block drives only as a falling weight: its load must act along its travel.
     if let PartKind::Block(b) = &rig.parts[rig.drive].kind {
-        if b.load_is_force || rig.gravity.dot(&b.moves) <= 0.0 {
+        if b.load.is_force() || rig.gravity.dot(&b.moves) <= 0.0 {
             return Err(SolveError::DriveAgainstItsLoad {
                 drive: rig.parts[rig.drive].name.clone(),
             });
@@ -792,7 +790,7 @@ pub fn solve(rig: &Rig, options: &SolveOptions) -> Result<Solution, SolveError> 
 
 /// Whether any bearing gives a static coefficient (then a breakaway case is solved).
 pub fn has_static_friction(rig: &Rig) -> bool {
-    use crate::rig::model::Bearing;
+    use crate::model::Bearing;
     let is_static = |b: &Bearing| {
         matches!(
             b,

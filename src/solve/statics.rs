@@ -16,8 +16,8 @@ use nalgebra::{DMatrix, DVector};
 use crate::friction::{self, BearingResistance};
 use crate::geometry::Geometry;
 use crate::math::{Real, Vector, STANDARD_GRAVITY};
-use crate::network::Network;
-use crate::rig::model::{square_to_gravity, BlockLoad, LineId, PartId, PartKind, Rig};
+use crate::model::Network;
+use crate::model::{square_to_gravity, BlockLoad, LineId, PartId, PartKind, Rig};
 
 use super::bearing::{bearing_resistance, thrust_moment};
 use super::kinematics::{line_component, Kinematics};
@@ -159,7 +159,7 @@ fn block_mass(rig: &Rig, block: PartId) -> Real {
         .parts
         .iter()
         .filter_map(|p| match &p.kind {
-            PartKind::Sheave(s) if s.block == Some(block) => s.mass,
+            PartKind::Sheave(s) if p.block == Some(block) => s.mass,
             _ => None,
         })
         .sum::<Real>()
@@ -208,16 +208,16 @@ impl<'a> Problem<'a> {
                     let mass = block_mass(rig, part);
                     let mut q = gravity_force(rig, mass).dot(&moves);
                     if unknown {
-                        x_coef[k] = if b.load_is_force {
+                        x_coef[k] = if b.load.is_force() {
                             -1.0
                         } else {
                             gravity_force(rig, 1.0).dot(&moves)
                         };
                     } else {
                         match b.load {
-                            Some(BlockLoad::Mass(m)) => q += gravity_force(rig, m).dot(&moves),
-                            Some(BlockLoad::Force(f)) => q -= f,
-                            None => {}
+                            BlockLoad::Mass(Some(m)) => q += gravity_force(rig, m).dot(&moves),
+                            BlockLoad::Force(Some(f)) => q -= f,
+                            _ => {}
                         }
                     }
                     q_load[k] = q;
@@ -296,11 +296,11 @@ impl<'a> Problem<'a> {
                 PartKind::Block(b) => {
                     let mass = block_mass(self.rig, part)
                         + match b.load {
-                            Some(BlockLoad::Mass(m)) => m,
+                            BlockLoad::Mass(Some(m)) => m,
                             _ => 0.0,
                         };
                     let force = match b.load {
-                        Some(BlockLoad::Force(f)) => f.abs(),
+                        BlockLoad::Force(Some(f)) => f.abs(),
                         _ => 0.0,
                     };
                     if mass > 0.0 && square_to_gravity(&b.moves, &self.rig.gravity) {

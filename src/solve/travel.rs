@@ -11,7 +11,7 @@
 //! carry the whole step, second-order accurate in `dt`.
 
 use crate::math::{Real, Vector};
-use crate::rig::model::{LineId, PartId, Rig};
+use crate::model::{LineId, PartId, Rig};
 
 use super::kinematics::Motion;
 use super::Solution;

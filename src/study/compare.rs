@@ -10,9 +10,9 @@
 use serde::Serialize;
 
 use crate::math::Real;
+use crate::model::Rig;
 use crate::report::Asked;
 use crate::report::CAUTION;
-use crate::rig::Rig;
 use crate::units::UnitSystem;
 
 use super::{figures, Figures, RigSource, StudyError};

@@ -26,11 +26,12 @@ use serde::Serialize;
 
 use crate::checks;
 use crate::math::Real;
+use crate::model::Rig;
 use crate::report::{Asked, Report};
-use crate::rig::file::{parse_tree, strip_bom, MAX_INPUT_BYTES};
-use crate::rig::load::{load_str_with, ranges_str, variants_str};
+use crate::rig::file::{parse_tree, strip_bom};
+use crate::rig::load::{load_str_with, ranges_str, read_text, variants_str};
 use crate::rig::overrides::{apply_overrides, Uncertain, Variant};
-use crate::rig::{LoadError, Rig};
+use crate::rig::LoadError;
 use crate::solve::{self, Solution, SolveError, SolveOptions};
 
 /// Why a study cannot run (exit 2).
@@ -81,24 +82,17 @@ pub struct RigSource {
 }
 
 impl RigSource {
-    /// Reads a rig file.
+    /// Reads a rig file with the one reader every command uses
+    /// ([`crate::rig::load::read_text`]).
     ///
     /// # Errors
-    /// [`StudyError::Input`] when the file cannot be read or is too large.
+    /// [`StudyError::Load`] naming the file when it cannot be read, is not UTF-8 or is
+    /// too large.
     pub fn read(path: &Path, overrides: &[(String, String)]) -> Result<RigSource, StudyError> {
-        let source = path.display().to_string();
-        let meta = std::fs::metadata(path)
-            .map_err(|e| StudyError::Input(format!("cannot read the rig file `{source}`: {e}")))?;
-        if meta.len() > MAX_INPUT_BYTES as u64 + 3 {
-            return Err(StudyError::Input(format!(
-                "{source}: the file is larger than the {MAX_INPUT_BYTES} bytes a rig file may have"
-            )));
-        }
-        let text = std::fs::read_to_string(path)
-            .map_err(|e| StudyError::Input(format!("cannot read the rig file `{source}`: {e}")))?;
+        let text = read_text(path)?;
         Ok(RigSource {
             text: strip_bom(&text).to_string(),
-            source,
+            source: path.display().to_string(),
             overrides: overrides.to_vec(),
         })
     }

@@ -18,10 +18,10 @@
 use serde::Serialize;
 
 use crate::math::Real;
+use crate::model::Rig;
+use crate::model::{Bearing, PartKind};
 use crate::report::Asked;
 use crate::report::{finite, CAUTION};
-use crate::rig::model::{Bearing, PartKind};
-use crate::rig::Rig;
 use crate::units::UnitSystem;
 
 use super::{RigSource, StudyError, Verdict};

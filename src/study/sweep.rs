@@ -12,9 +12,9 @@
 use serde::Serialize;
 
 use crate::math::Real;
+use crate::model::Rig;
 use crate::report::Asked;
 use crate::report::{finite, CAUTION};
-use crate::rig::Rig;
 use crate::solve::travel::{self, ClosedSpan};
 use crate::solve::Solution;
 use crate::units::{parse_quantity, Dimension, UnitSystem};

@@ -962,3 +962,15 @@ fn a_failed_write_prints_the_cause_after_the_context() {
     );
     assert_eq!(err.matches("cannot write").count(), 1, "{err}");
 }
+
+/// Guards the one reader of rig files: every command, studies included, says the same
+/// thing about a file it cannot read (the path named, a lowercase reason) and exits 2.
+#[test]
+fn every_command_reads_rig_files_alike() {
+    let expected = "nothere.yaml: cannot read the rig file `nothere.yaml`: no such file";
+    for command in ["check", "table", "compare", "rank", "spread"] {
+        let (code, _, err) = reeve(&[command, "nothere.yaml"]).parts();
+        assert_eq!(code, 2, "{command}: {err}");
+        assert!(err.contains(expected), "{command}: {err}");
+    }
+}

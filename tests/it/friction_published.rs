@@ -16,7 +16,7 @@ use reeve::friction::{
     moment_dissipation, sheave_ratio, slack_tension, tight_tension, BearingResistance,
 };
 use reeve::math::Vector;
-use reeve::rig::model::Bearing;
+use reeve::model::Bearing;
 use reeve::solve::bearing::bearing_resistance;
 
 use crate::support::assert_abs;

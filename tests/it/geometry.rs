@@ -7,9 +7,9 @@ use approx::relative_eq;
 use proptest::prelude::*;
 use reeve::geometry::{compute, Geometry, GeometryError, GeometryOptions, LineGeometry};
 use reeve::math::{Direction, Point, Real, Vector};
-use reeve::rig::model::{
-    Bearing, Block, Drum, Guide, Haul, Limits, Line, Location, Part, PartId, PartKind, PathEntry,
-    Rig, Rope, RopeKind, Sheave, Side, Weight,
+use reeve::model::{
+    Bearing, Block, BlockLoad, Drum, Guide, Haul, Limits, Line, Location, Part, PartId, PartKind,
+    PathEntry, Rig, Rope, RopeKind, Sheave, Side, Weight,
 };
 use reeve::units::UnitSystem;
 
@@ -26,10 +26,7 @@ fn part(name: &str, at: [Real; 3], kind: PartKind) -> Part {
     Part {
         name: name.to_string(),
         at: Point::new(at[0], at[1], at[2]),
-        block: match &kind {
-            PartKind::Sheave(s) => s.block,
-            _ => None,
-        },
+        block: None,
         kind,
         location: Location::default(),
     }
@@ -60,8 +57,7 @@ fn block(name: &str, at: [Real; 3]) -> Part {
         at,
         PartKind::Block(Block {
             moves: dir(0.0, 0.0, 1.0),
-            load: None,
-            load_is_force: false,
+            load: BlockLoad::Mass(None),
             load_stated: true,
             mass: None,
         }),
@@ -79,7 +75,7 @@ fn carried_sheave(
     tread: Real,
     block: Option<PartId>,
 ) -> Part {
-    part(
+    let mut sheave = part(
         name,
         at,
         PartKind::Sheave(Sheave {
@@ -89,9 +85,10 @@ fn carried_sheave(
             mass: None,
             groove_angle: None,
             mu: None,
-            block,
         }),
-    )
+    );
+    sheave.block = block;
+    sheave
 }
 
 fn guide(name: &str, at: [Real; 3], axle: Direction, diameter: Real) -> Part {

@@ -439,7 +439,7 @@ fn set(pairs: &[(&str, &str)]) -> Vec<(String, String)> {
 
 #[test]
 fn overrides_apply_by_the_files_own_keys() {
-    use reeve::rig::model::{Bearing, BlockLoad, PartKind};
+    use reeve::model::{Bearing, BlockLoad, PartKind};
     let rig = load_str_with(
         EXAMPLE,
         "rig.yaml",
@@ -461,7 +461,7 @@ fn overrides_apply_by_the_files_own_keys() {
     let PartKind::Block(hook) = &rig.parts[2].kind else {
         panic!()
     };
-    assert_eq!(hook.load, Some(BlockLoad::Mass(60.0)));
+    assert_eq!(hook.load, BlockLoad::Mass(Some(60.0)));
     assert_eq!(rig.ropes[0].mu, 0.1);
     assert_abs(
         "fleet angle limit, rad",
@@ -488,8 +488,8 @@ fn overrides_apply_by_the_files_own_keys() {
         panic!()
     };
     assert_eq!(
-        (hook.load, hook.load_is_force),
-        (Some(BlockLoad::Force(500.0)), true)
+        (hook.load, hook.load.is_force()),
+        (BlockLoad::Force(Some(500.0)), true)
     );
 }
 
@@ -678,7 +678,7 @@ fn problems_are_capped_with_a_count() {
 
 #[test]
 fn overrides_may_add_a_missing_key_and_remove_an_optional_one() {
-    use reeve::rig::model::PartKind;
+    use reeve::model::PartKind;
     let rig = load_str_with(
         EXAMPLE,
         "rig.yaml",

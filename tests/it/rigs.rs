@@ -156,7 +156,7 @@ struct Exercised {
 /// `mass`). Returns whether any such weight took part.
 fn pin_loads_balance(rel: &str, path: &Path, value: &serde_json::Value) -> bool {
     use reeve::math::Vector;
-    use reeve::rig::model::PartKind;
+    use reeve::model::PartKind;
     let rig = reeve::rig::load_file(path).unwrap_or_else(|e| panic!("{rel}: {e}"));
     let own_mass = |name: &str| {
         let part = rig.parts.iter().find(|p| p.name == name);

@@ -17,7 +17,7 @@ use std::fmt::Write as _;
 use std::io::{self, Write};
 
 use crate::math::{Real, Vector};
-use crate::rig::model::{PartKind, Rig};
+use crate::model::{PartKind, Rig};
 use crate::solve::Solution;
 use crate::units::Dimension;
 

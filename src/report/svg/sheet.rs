@@ -5,7 +5,7 @@
 use std::fmt::Write as _;
 
 use crate::math::{Point, Real, Vector};
-use crate::rig::model::Rig;
+use crate::model::Rig;
 use crate::solve::Solution;
 
 use super::view::{SheetPoint, SheetSegment};

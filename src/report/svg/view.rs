@@ -3,7 +3,7 @@
 //! the fewest parts and spans on top of each other).
 
 use crate::math::{Point, Real, Vector};
-use crate::rig::model::Rig;
+use crate::model::Rig;
 use crate::solve::Solution;
 
 use super::sheet::{pitch_radius_of, plane_basis};

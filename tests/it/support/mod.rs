@@ -13,7 +13,7 @@ use std::sync::atomic::{AtomicU32, Ordering};
 pub use close::{assert_abs, assert_rel};
 pub use run::{json_of, reeve, reeve_in, stdout_of};
 
-use reeve::rig::model::Rig;
+use reeve::model::Rig;
 use reeve::solve::{solve, Solution, SolveOptions};
 
 /// The example rig of DESIGN.md section 4, byte for byte (`tests/rigs/design-example.yaml`,

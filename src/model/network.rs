@@ -6,7 +6,7 @@
 use petgraph::graph::{NodeIndex, UnGraph};
 use petgraph::unionfind::UnionFind;
 
-use crate::rig::model::{LineId, PartId, Rig};
+use crate::model::{LineId, PartId, Rig};
 
 /// What a graph edge stands for.
 #[derive(Debug, Clone, Copy, PartialEq, Eq)]
@@ -90,6 +90,37 @@ impl Network {
         }
     }
 
+    /// The parts that block `block` carries (its sheaves and pick points), read from the
+    /// graph's `Carried` edges (each joins the carried part to its block), file order.
+    pub fn carried_by(&self, block: PartId) -> Vec<PartId> {
+        let mut carried: Vec<PartId> = self
+            .graph
+            .edge_indices()
+            .filter(|&e| self.graph[e] == Link::Carried)
+            .filter_map(|e| self.graph.edge_endpoints(e))
+            .filter(|&(_, b)| self.graph[b] == block)
+            .map(|(p, _)| self.graph[p])
+            .collect();
+        carried.sort_unstable();
+        carried
+    }
+
+    /// The lines that pass over or end at `part`, read from the graph's span edges,
+    /// in line order without repeats.
+    pub fn lines_at(&self, part: PartId) -> Vec<LineId> {
+        let mut lines: Vec<LineId> = self
+            .graph
+            .edges(NodeIndex::new(part))
+            .filter_map(|e| match *e.weight() {
+                Link::Span { line, .. } => Some(line),
+                Link::Carried => None,
+            })
+            .collect();
+        lines.sort_unstable();
+        lines.dedup();
+        lines
+    }
+
     /// The lines whose parts belong to sub-rig `component`.
     pub fn lines_of(&self, rig: &Rig, component: usize) -> Vec<LineId> {
         rig.lines
@@ -102,5 +133,25 @@ impl Network {
             })
             .map(|(i, _)| i)
             .collect()
+    }
+}
+
+#[cfg(test)]
+mod tests {
+    use super::*;
+    use crate::rig::load_str;
+
+    #[test]
+    fn graph_queries_on_the_design_example() {
+        let text = include_str!("../../tests/rigs/design-example.yaml");
+        let rig = load_str(text, "hoist.yaml").unwrap();
+        let network = Network::build(&rig);
+        let id = |name: &str| rig.part_named(name).unwrap();
+        assert_eq!(network.carried_by(id("hook")), [id("hook.a")]);
+        assert!(network.carried_by(id("head")).is_empty());
+        assert_eq!(network.lines_at(id("head")), [0]);
+        assert_eq!(network.lines_at(id("hook.a")), [0]);
+        // The block itself is carried-to, not on the line.
+        assert!(network.lines_at(id("hook")).is_empty());
     }
 }

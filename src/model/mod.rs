@@ -1,5 +1,12 @@
-//! The rig as resolved: names checked, references turned into indices, every quantity in
-//! SI and radians. Geometry and the solver read only this; they never see YAML.
+//! The model: the rig as resolved, its own stage between the file layer ([`crate::rig`],
+//! which builds it) and every later stage (geometry, friction, solve, checks, report,
+//! studies), which read only this and never see YAML. Names are checked, references
+//! turned into ids, every quantity is in SI and radians; [`network`] holds the
+//! line-and-sheave graph and the independent sub-rigs.
+
+pub mod network;
+
+pub use network::{Link, Network};
 
 use crate::math::{Direction, Point, Real};
 use crate::units::UnitSystem;
@@ -199,8 +206,6 @@ pub struct Sheave {
     pub groove_angle: Option<Real>,
     /// Rope-on-groove friction (default: the rope's), for the stalled-sheave check.
     pub mu: Option<Real>,
-    /// The block that carries it, if any.
-    pub block: Option<PartId>,
 }
 
 /// A fixed round surface.
@@ -216,13 +221,29 @@ pub struct Guide {
     pub groove_angle: Option<Real>,
 }
 
-/// The load a block carries.
+/// The load a block carries: which quantity it is, and its value (None when it is the
+/// unknown).
 #[derive(Debug, Clone, Copy, PartialEq)]
 pub enum BlockLoad {
     /// A hanging mass, kg, acting along gravity.
-    Mass(Real),
+    Mass(Option<Real>),
     /// A force, N, acting against the block's forward travel.
-    Force(Real),
+    Force(Option<Real>),
+}
+
+impl BlockLoad {
+    /// The value (kg or N), None when it is the unknown.
+    pub fn value(self) -> Option<Real> {
+        match self {
+            BlockLoad::Mass(v) | BlockLoad::Force(v) => v,
+        }
+    }
+
+    /// Whether the load is a force (else a mass); decides the unknown's quantity when
+    /// the block is `solve_for`.
+    pub fn is_force(self) -> bool {
+        matches!(self, BlockLoad::Force(_))
+    }
 }
 
 /// A moving frame.
@@ -230,11 +251,8 @@ pub enum BlockLoad {
 pub struct Block {
     /// Direction of forward travel.
     pub moves: Direction,
-    /// The load; None when it is the unknown.
-    pub load: Option<BlockLoad>,
-    /// Whether the load is given as a force (true) or a mass (false); decides the
-    /// unknown's quantity when the block is `solve_for`.
-    pub load_is_force: bool,
+    /// The load: its quantity, and its value unless it is the unknown.
+    pub load: BlockLoad,
     /// Whether the file says which quantity the load is (it has `load`). Only a
     /// `solve_for` block may leave `load` out; its quantity is then a mass where its
     /// travel has a component along gravity, else a force against `moves`
@@ -254,7 +272,7 @@ pub const SQUARE: Real = 1e-9;
 ///
 /// ```
 /// use reeve::math::{Direction, Vector};
-/// use reeve::rig::model::square_to_gravity;
+/// use reeve::model::square_to_gravity;
 /// let down = Direction::new_normalize(-Vector::z());
 /// assert!(square_to_gravity(&Direction::new_normalize(Vector::x()), &down));
 /// assert!(!square_to_gravity(&Direction::new_normalize(Vector::new(1.0, 0.0, 0.1)), &down));
