@@ -49,7 +49,7 @@ for path in rigs:
     sets.append(["set limits.fleet_angle=0.5", "set gravity=[0, 0, -1]"])
     if target == "settings":
         # The settings target reads `set`, `to` and `vary` lines only.
-        commands = [[], ["to rolling"], ["to {kind: plain, pin_diameter: 8 mm, mu: 0.08}"],
+        commands = [[], ["variants"], ["ranges"], ["frictionless"], ["to rolling"], ["to {kind: plain, pin_diameter: 8 mm, mu: 0.08}"],
                     ["to {kind: rated, efficiency: 0.95}"]]
         commands += [["vary " + c[0][len("sweep "):]] for c in commands_sweep(parts, ropes, sheave, block)]
     if target == "files":
@@ -59,7 +59,7 @@ for path in rigs:
         commands = [[f"out {o}", f"cmd {c}"] for o in outs for c in cmds]
         sets = [[]]
     for c in commands:
-        for s in (sets if not c or c[0].split()[0] in ("check", "compare", "spread", "rank", "to") else sets[:1]):
+        for s in (sets if not c or c[0].split()[0] in ("check", "compare", "spread", "rank", "to", "ranges") else sets[:1]):
             body = text.rstrip("\n") + "\n" + "".join(f"#% {x}\n" for x in s + c)
             name = hashlib.sha1(body.encode()).hexdigest()
             with open(os.path.join(out, name), "w", encoding="utf-8") as f:

@@ -38,10 +38,19 @@ fn binary() -> &'static PathBuf {
     static BIN: OnceLock<PathBuf> = OnceLock::new();
     BIN.get_or_init(|| {
         let bin = std::env::var_os("REEVE_BIN").map_or_else(
-            || PathBuf::from(concat!(env!("CARGO_MANIFEST_DIR"), "/../target/debug/reeve")),
+            || {
+                PathBuf::from(concat!(
+                    env!("CARGO_MANIFEST_DIR"),
+                    "/../target/debug/reeve"
+                ))
+            },
             PathBuf::from,
         );
-        assert!(bin.exists(), "no reeve binary at {} (cargo build, or set REEVE_BIN)", bin.display());
+        assert!(
+            bin.exists(),
+            "no reeve binary at {} (cargo build, or set REEVE_BIN)",
+            bin.display()
+        );
         bin
     })
 }
@@ -110,7 +119,9 @@ fuzz_target!(|data: &[u8]| {
         "table" => command.args(["table", "rig.yaml", "-o"]).arg(&target),
         "report" => command.args(["report", "rig.yaml", "-o"]).arg(&target),
         "plot" => command
-            .args(["sweep", "rig.yaml", "--stroke", "10 mm", "--steps", "2", "--plot"])
+            .args([
+                "sweep", "rig.yaml", "--stroke", "10 mm", "--steps", "2", "--plot",
+            ])
             .arg(&target),
         _ => command.args(["draw", "rig.yaml", "-o"]).arg(&target),
     };
@@ -128,13 +139,20 @@ fuzz_target!(|data: &[u8]| {
         assert!(!stderr.trim().is_empty(), "exit 2 without a word");
     }
     if names_input {
-        assert_eq!(code, Some(2), "an output naming the input was accepted:\n{stderr}");
+        assert_eq!(
+            code,
+            Some(2),
+            "an output naming the input was accepted:\n{stderr}"
+        );
     }
     let written = code != Some(2) && out != "folder";
     if written {
         let path = if out == "dangling" {
             assert!(
-                fs::symlink_metadata(&target).unwrap().file_type().is_symlink(),
+                fs::symlink_metadata(&target)
+                    .unwrap()
+                    .file_type()
+                    .is_symlink(),
                 "the link written through was replaced"
             );
             file(&format!("sub/real.{ext}"))

@@ -11,7 +11,13 @@
 //! #% set KEY=VALUE      an override (at most 8)
 //! #% to BEARING         `rolling` or a bearing in YAML flow text
 //! #% vary KEY=FROM..TO
+//! #% variants           load each variant
+//! #% ranges             load each range at its nominal value
+//! #% frictionless       load the rig with each part made frictionless, as `rank` does
 //! ```
+//!
+//! Only what a line asks for is loaded beyond the rig itself, so that an input costs
+//! about one load.
 //!
 //! Oracles: no panic; every load error names the file and locates each problem (a line
 //! and column, or the key or part it concerns); a loaded rig's values are finite.
@@ -29,7 +35,7 @@ use reeve::study::{sweep, RigSource, StudyError};
 const SOURCE: &str = "fuzz.yaml";
 const MAX_SETS: usize = 8;
 /// Variants and parts tried per input, at most.
-const MAX_TRIES: usize = 4;
+const MAX_TRIES: usize = 3;
 
 fuzz_target!(|data: &[u8]| {
     let Ok(text) = std::str::from_utf8(data) else {
@@ -38,6 +44,7 @@ fuzz_target!(|data: &[u8]| {
     let mut sets = Vec::new();
     let mut to = None;
     let mut vary = None;
+    let (mut variants, mut ranges, mut frictionless) = (false, false, false);
     for line in text.lines() {
         let Some(command) = line.strip_prefix("#%") else {
             continue;
@@ -53,6 +60,13 @@ fuzz_target!(|data: &[u8]| {
             to = Some(Alternative::parse(t));
         } else if let Some(v) = command.strip_prefix("vary ") {
             vary = Some(v.to_string());
+        } else {
+            match command {
+                "variants" => variants = true,
+                "ranges" => ranges = true,
+                "frictionless" => frictionless = true,
+                _ => {}
+            }
         }
     }
     let source = RigSource::from_text(text, SOURCE, &sets);
@@ -67,7 +81,7 @@ fuzz_target!(|data: &[u8]| {
             Err(e) => study_error(&e),
         }
     }
-    match source.ranges() {
+    match source.ranges().map(|r| if ranges { r } else { Vec::new() }) {
         Ok(ranges) => {
             for r in ranges.iter().take(MAX_TRIES) {
                 let nominal = r.distribution.nominal();
@@ -80,7 +94,10 @@ fuzz_target!(|data: &[u8]| {
     let Some(rig) = check(source.load(&[])) else {
         return;
     };
-    match source.variants() {
+    match source
+        .variants()
+        .map(|v| if variants { v } else { Vec::new() })
+    {
         Ok(variants) => {
             for v in variants.iter().take(MAX_TRIES) {
                 assert!(!v.name.is_empty(), "a variant without a name");
@@ -102,7 +119,8 @@ fuzz_target!(|data: &[u8]| {
             }
         }
     }
-    for id in 0..rig.parts.len().min(MAX_TRIES) {
+    let tried = if frictionless { rig.parts.len() } else { 0 };
+    for id in 0..tried.min(MAX_TRIES) {
         if let Some(settings) = rank::frictionless_settings(&rig, id) {
             check(source.load(&settings));
         }
@@ -146,7 +164,10 @@ fn load_error(e: &LoadError) {
     assert_eq!(e.file, SOURCE);
     assert!(!e.problems.is_empty(), "a load error without a problem");
     for p in &e.problems {
-        assert!(!p.message.trim().is_empty(), "a problem without a message: {p:?}");
+        assert!(
+            !p.message.trim().is_empty(),
+            "a problem without a message: {p:?}"
+        );
         match p.location {
             Some(l) => assert!(l.line >= 1 && l.column >= 1, "{p:?}"),
             None => assert!(!p.subject.trim().is_empty(), "{p:?}"),

@@ -35,9 +35,9 @@
 #![no_main]
 
 use libfuzzer_sys::fuzz_target;
+use reeve::report::html;
 use reeve::report::svg::{self, DrawOptions, View};
 use reeve::report::table::{self, CaseFilter, Style, TableChoice};
-use reeve::report::html;
 use reeve::rig::model::PartKind;
 use reeve::rig::LoadError;
 use reeve::study::table::Format;
@@ -151,7 +151,9 @@ fuzz_target!(|data: &[u8]| {
                         let tables = table::tables(&report, &rig.units, cases, choice, style);
                         match format {
                             "md" => table::write_markdown(&mut out, &report, &rig.units, &tables),
-                            "csv" => tables.iter().try_for_each(|t| table::write_csv(&mut out, t)),
+                            "csv" => tables
+                                .iter()
+                                .try_for_each(|t| table::write_csv(&mut out, t)),
                             _ => table::write_text(&mut out, &report, &rig.units, &tables),
                         }
                         .unwrap();
@@ -176,8 +178,7 @@ fuzz_target!(|data: &[u8]| {
                     svg::write_svg(&mut out, &rig, &solution, &report, &options).unwrap();
                     ctx.svg(std::str::from_utf8(&out).unwrap(), "draw");
                 } else {
-                    html::write_html(&mut out, &rig, &solution, &report, &options, SOURCE)
-                        .unwrap();
+                    html::write_html(&mut out, &rig, &solution, &report, &options, SOURCE).unwrap();
                     ctx.html(std::str::from_utf8(&out).unwrap());
                 }
             }
@@ -333,7 +334,10 @@ impl Context<'_> {
     fn load_error(&self, e: &LoadError) {
         assert!(!e.problems.is_empty(), "a load error without a problem");
         for p in &e.problems {
-            assert!(!p.message.trim().is_empty(), "a problem without a message: {p:?}");
+            assert!(
+                !p.message.trim().is_empty(),
+                "a problem without a message: {p:?}"
+            );
             match p.location {
                 Some(l) => assert!(
                     l.line >= 1 && l.column >= 1,
@@ -517,8 +521,8 @@ fn walk(value: &serde_yaml::Value, path: &str, efficiency: bool) {
                 let key = k.as_str().unwrap_or("?");
                 // `change_pct` holds percent changes, of efficiencies too.
                 let path = format!("{path}.{key}");
-                let efficiency = (efficiency || key.contains("efficiency"))
-                    && !path.contains("change_pct");
+                let efficiency =
+                    (efficiency || key.contains("efficiency")) && !path.contains("change_pct");
                 walk(v, &path, efficiency);
             }
         }
