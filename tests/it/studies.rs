@@ -124,6 +124,35 @@ fn a_variant_equals_the_same_set_list() {
     );
 }
 
+#[test]
+fn set_on_variants_changes_the_variants_compared() {
+    // `--set` on the `variants:` key itself is applied like any other override, not
+    // silently ignored: removing them leaves nothing to compare, changing one changes
+    // its column.
+    let path = test_rig("tackle-rated.yaml");
+    let out = reeve(&["compare", &path, "--variants", "--set", "variants=~"]);
+    assert_eq!(out.code, 2, "{}", out.stdout);
+    assert!(out.stderr.contains("no `variants:`"), "{}", out.stderr);
+    let c = json_of(&[
+        "compare",
+        &path,
+        "--variants",
+        "--json",
+        "--set",
+        "variants.heavy=[\"parts.hook.load={mass: 200 kg}\"]",
+    ]);
+    let heavy = c["columns"]
+        .as_array()
+        .expect("columns")
+        .iter()
+        .find(|c| c["label"] == "heavy")
+        .expect("column heavy");
+    assert_eq!(
+        num(&heavy["forward"]),
+        check_forward("tackle-rated.yaml", &["parts.hook.load={mass: 200 kg}"])
+    );
+}
+
 // ------------------------------------------------------------ compare and sweep
 
 #[test]
