@@ -347,6 +347,17 @@ pub fn emit(
                     code: EXIT_BAD_INPUT,
                 });
             }
+            // Said plainly: renaming over a folder fails with the system's words, and
+            // with a trailing slash those are "not a directory".
+            if fs::metadata(path).is_ok_and(|m| m.is_dir()) {
+                return Err(Failure {
+                    message: format!(
+                        "cannot write `{}`: it is a folder; give the output a file name",
+                        path.display()
+                    ),
+                    code: EXIT_BAD_INPUT,
+                });
+            }
             write_atomically(path, write).map_err(|e| Failure {
                 message: format!("cannot write `{}`: {e}", path.display()),
                 code: EXIT_BAD_INPUT,
