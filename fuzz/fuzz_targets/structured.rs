@@ -346,7 +346,7 @@ impl Context<'_> {
                     l.column
                 ),
                 None => assert!(
-                    !p.subject.trim().is_empty(),
+                    !p.subject.trim().is_empty() || p.message.contains("(override `"),
                     "a problem with neither a location nor a subject: {p:?}"
                 ),
             }
