@@ -48,6 +48,14 @@ pub fn emit(
                     path.display()
                 )));
             }
+            // Said plainly: renaming over a folder fails with the system's words, and
+            // with a trailing slash those are "not a directory".
+            if std::fs::metadata(path).is_ok_and(|m| m.is_dir()) {
+                return Err(Failure::Input(format!(
+                    "cannot write `{}`: it is a folder; give the output a file name",
+                    path.display()
+                )));
+            }
             write_atomically(path, write).map_err(|source| Failure::File {
                 path: path.clone(),
                 source,

@@ -30,8 +30,8 @@ use crate::model::Rig;
 use crate::report::{Asked, Report};
 use crate::rig::file::{parse_tree, strip_bom};
 use crate::rig::load::{load_str_with, ranges_str, read_text, variants_str};
-use crate::rig::overrides::{apply_overrides, Uncertain, Variant};
-use crate::rig::LoadError;
+use crate::rig::overrides::{apply_overrides, read_variants, Uncertain, Variant};
+use crate::rig::{LoadError, Problem};
 use crate::solve::{self, Solution, SolveError, SolveOptions};
 
 /// Why a study cannot run (exit 2).
@@ -166,12 +166,39 @@ impl RigSource {
             .is_some_and(|e| e.iter().any(|e| e.key == key))
     }
 
-    /// The file's named variants.
+    /// The file's named variants, after the base overrides (`--set variants.NAME=...`
+    /// changes one, `--set variants=~` removes them all), as [`RigSource::ranges`] reads
+    /// the ranges.
     ///
     /// # Errors
-    /// [`StudyError::Load`] when `variants` is malformed.
+    /// [`StudyError::Load`] when `variants` is malformed or an override does not apply.
     pub fn variants(&self) -> Result<Vec<Variant>, StudyError> {
-        Ok(variants_str(&self.text, &self.source)?)
+        if self.overrides.is_empty() {
+            return Ok(variants_str(&self.text, &self.source)?);
+        }
+        let fail = |problems: Vec<Problem>| {
+            StudyError::Load(LoadError {
+                file: self.source.clone(),
+                problems,
+            })
+        };
+        let Some(mut root) = parse_tree(&self.text).map_err(fail)?.0 else {
+            return Ok(Vec::new());
+        };
+        let problems = apply_overrides(&mut root, &self.overrides);
+        if !problems.is_empty() {
+            return Err(fail(problems));
+        }
+        let node = root
+            .entries()
+            .and_then(|top| top.iter().find(|e| e.key == "variants"))
+            .map(|e| &e.value)
+            .filter(|v| !v.is_null());
+        match node.map(read_variants) {
+            None => Ok(Vec::new()),
+            Some((variants, problems)) if problems.is_empty() => Ok(variants),
+            Some((_, problems)) => Err(fail(problems)),
+        }
     }
 
     /// The file's ranged values (after the base overrides).

@@ -1421,3 +1421,33 @@ lines:
         2.0 * across
     );
 }
+
+#[test]
+fn an_output_that_is_a_folder_is_named_as_one() {
+    // `-o sub` and `-o sub/` onto an existing folder say that it is a folder (with a
+    // slash the system's own words were "not a directory"), and leave no file behind.
+    let dir = Scratch::new("output-folder");
+    let copy = dir.join("rig.yaml");
+    fs::copy(example_rig("sash-window"), &copy).unwrap();
+    let sub = dir.join("sub");
+    fs::create_dir_all(&sub).unwrap();
+    let slashed = format!("{}/", sub.display());
+    for target in [sub.to_str().unwrap(), slashed.as_str()] {
+        for cmd in ["draw", "report", "table"] {
+            let out = reeve(&[cmd, copy.to_str().unwrap(), "-o", target]);
+            assert_eq!(out.code, 2, "{cmd} -o {target}");
+            assert!(
+                out.stderr.contains("is a folder"),
+                "{cmd} -o {target}: {}",
+                out.stderr
+            );
+        }
+    }
+    let left: Vec<_> = fs::read_dir(&*dir)
+        .unwrap()
+        .flatten()
+        .map(|e| e.file_name())
+        .collect();
+    assert_eq!(left.len(), 2, "{left:?}");
+    assert_eq!(fs::read_dir(&sub).unwrap().count(), 0);
+}

@@ -124,6 +124,51 @@ fn a_variant_equals_the_same_set_list() {
     );
 }
 
+#[test]
+fn an_override_without_a_key_names_itself() {
+    // `--set =VALUE` (an empty key, from the settings fuzz target) is refused with a
+    // message that quotes the override, since it has no key or line to point at.
+    let path = test_rig("tackle-rated.yaml");
+    for cmd in ["check", "rank"] {
+        let out = reeve(&[cmd, &path, "--set", "=[0, 0, -1]"]);
+        assert_eq!(out.code, 2, "{cmd}: {}", out.stdout);
+        assert!(
+            out.stderr.contains("expected a key path") && out.stderr.contains("`=[0, 0, -1]`"),
+            "{cmd}: {}",
+            out.stderr
+        );
+    }
+}
+
+#[test]
+fn set_on_variants_changes_the_variants_compared() {
+    // `--set` on the `variants:` key itself is applied like any other override, not
+    // silently ignored: removing them leaves nothing to compare, changing one changes
+    // its column.
+    let path = test_rig("tackle-rated.yaml");
+    let out = reeve(&["compare", &path, "--variants", "--set", "variants=~"]);
+    assert_eq!(out.code, 2, "{}", out.stdout);
+    assert!(out.stderr.contains("no `variants:`"), "{}", out.stderr);
+    let c = json_of(&[
+        "compare",
+        &path,
+        "--variants",
+        "--json",
+        "--set",
+        "variants.heavy=[\"parts.hook.load={mass: 200 kg}\"]",
+    ]);
+    let heavy = c["columns"]
+        .as_array()
+        .expect("columns")
+        .iter()
+        .find(|c| c["label"] == "heavy")
+        .expect("column heavy");
+    assert_eq!(
+        num(&heavy["forward"]),
+        check_forward("tackle-rated.yaml", &["parts.hook.load={mass: 200 kg}"])
+    );
+}
+
 // ------------------------------------------------------------ compare and sweep
 
 #[test]
