@@ -27,8 +27,9 @@
 #![no_main]
 
 use libfuzzer_sys::fuzz_target;
-use reeve::rig::model::PartKind;
-use reeve::rig::{LoadError, Rig};
+use reeve::model::PartKind;
+use reeve::model::Rig;
+use reeve::rig::LoadError;
 use reeve::study::rank::{self, Alternative};
 use reeve::study::{sweep, RigSource, StudyError};
 

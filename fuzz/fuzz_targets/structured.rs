@@ -35,12 +35,12 @@
 #![no_main]
 
 use libfuzzer_sys::fuzz_target;
+use reeve::model::PartKind;
 use reeve::report::html;
 use reeve::report::svg::{self, DrawOptions, View};
 use reeve::report::table::{self, CaseFilter, Style, TableChoice};
-use reeve::rig::model::PartKind;
+use reeve::report::Format;
 use reeve::rig::LoadError;
-use reeve::study::table::Format;
 use reeve::study::{compare, rank, spread, sweep, RigSource, StudyError};
 
 /// Commands run per input, at most.
@@ -185,7 +185,9 @@ fuzz_target!(|data: &[u8]| {
             "variants" => match compare::compare_variants(&source) {
                 Ok(c) => {
                     ctx.values(&c, "variants");
-                    ctx.formats(arg(0), "variants", |w, f| compare::write(w, &c, f));
+                    ctx.formats(arg(0), "variants", |w, f| {
+                        reeve::report::study::compare::write(w, &c, f)
+                    });
                 }
                 Err(e) => ctx.study_error(&e),
             },
@@ -194,7 +196,9 @@ fuzz_target!(|data: &[u8]| {
                 match compare::compare_rigs(&[plain, source.clone()]) {
                     Ok(c) => {
                         ctx.values(&c, "compare");
-                        ctx.formats(arg(0), "compare", |w, f| compare::write(w, &c, f));
+                        ctx.formats(arg(0), "compare", |w, f| {
+                            reeve::report::study::compare::write(w, &c, f)
+                        });
                     }
                     Err(e) => ctx.study_error(&e),
                 }
@@ -211,8 +215,10 @@ fuzz_target!(|data: &[u8]| {
                 match sweep::sweep(&source, &vary, steps) {
                     Ok(s) => {
                         ctx.values(&s, "sweep");
-                        ctx.formats(arg(2), "sweep", |w, f| sweep::write_sweep(w, &s, f));
-                        ctx.svg(&sweep::sweep_chart(&s), "sweep chart");
+                        ctx.formats(arg(2), "sweep", |w, f| {
+                            reeve::report::study::sweep::write_sweep(w, &s, f)
+                        });
+                        ctx.svg(&reeve::report::study::sweep::sweep_chart(&s), "sweep chart");
                     }
                     Err(e) => ctx.study_error(&e),
                 }
@@ -235,8 +241,13 @@ fuzz_target!(|data: &[u8]| {
                 match sweep::stroke(&source, &distance, steps, 2) {
                     Ok(s) => {
                         ctx.values(&s, "stroke");
-                        ctx.formats(format, "stroke", |w, f| sweep::write_stroke(w, &s, f));
-                        ctx.svg(&sweep::stroke_chart(&s), "stroke chart");
+                        ctx.formats(format, "stroke", |w, f| {
+                            reeve::report::study::sweep::write_stroke(w, &s, f)
+                        });
+                        ctx.svg(
+                            &reeve::report::study::sweep::stroke_chart(&s),
+                            "stroke chart",
+                        );
                     }
                     Err(e) => ctx.study_error(&e),
                 }
@@ -278,7 +289,9 @@ fuzz_target!(|data: &[u8]| {
                 match rank::rank(&source, alt.as_ref()) {
                     Ok(r) => {
                         ctx.values(&r, "rank");
-                        ctx.formats(arg(0), "rank", |w, f| rank::write(w, &r, f));
+                        ctx.formats(arg(0), "rank", |w, f| {
+                            reeve::report::study::rank::write(w, &r, f)
+                        });
                     }
                     Err(e) => ctx.study_error(&e),
                 }
@@ -289,7 +302,9 @@ fuzz_target!(|data: &[u8]| {
                 match spread::spread(&source, samples, seed, 1, false) {
                     Ok(s) => {
                         ctx.values(&s, "spread");
-                        ctx.formats(arg(2), "spread", |w, f| spread::write(w, &s, f));
+                        ctx.formats(arg(2), "spread", |w, f| {
+                            reeve::report::study::spread::write(w, &s, f)
+                        });
                     }
                     Err(e) => ctx.study_error(&e),
                 }
