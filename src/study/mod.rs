@@ -29,7 +29,7 @@ use crate::math::Real;
 use crate::model::Rig;
 use crate::report::{Asked, Report};
 use crate::rig::file::{parse_tree, strip_bom};
-use crate::rig::load::{load_str_with, ranges_str, read_text, variants_str};
+use crate::rig::load::{ranges_str, read_text, variants_str, ParsedRig};
 use crate::rig::overrides::{apply_overrides, read_variants, Uncertain, Variant};
 use crate::rig::{LoadError, Problem};
 use crate::solve::{self, Solution, SolveError, SolveOptions};
@@ -79,6 +79,8 @@ pub struct RigSource {
     pub source: String,
     /// `KEY=VALUE` overrides applied before a study's own.
     pub overrides: Vec<(String, String)>,
+    /// The text parsed once, resolved again for every run (no re-parse per sample).
+    parsed: ParsedRig,
 }
 
 impl RigSource {
@@ -90,11 +92,11 @@ impl RigSource {
     /// too large.
     pub fn read(path: &Path, overrides: &[(String, String)]) -> Result<RigSource, StudyError> {
         let text = read_text(path)?;
-        Ok(RigSource {
-            text: strip_bom(&text).to_string(),
-            source: path.display().to_string(),
-            overrides: overrides.to_vec(),
-        })
+        Ok(RigSource::from_text(
+            strip_bom(&text),
+            &path.display().to_string(),
+            overrides,
+        ))
     }
 
     /// Rig text held in memory (tests, generated rigs).
@@ -103,6 +105,7 @@ impl RigSource {
             text: text.to_string(),
             source: source.to_string(),
             overrides: overrides.to_vec(),
+            parsed: ParsedRig::parse(text, source),
         }
     }
 
@@ -113,7 +116,7 @@ impl RigSource {
     pub fn load(&self, extra: &[(String, String)]) -> Result<Rig, StudyError> {
         let mut all = self.overrides.clone();
         all.extend_from_slice(extra);
-        Ok(load_str_with(&self.text, &self.source, &all)?)
+        Ok(self.parsed.load_with(&all)?)
     }
 
     /// Loads and solves with `extra` overrides.
