@@ -31,6 +31,7 @@ use crate::report::{Asked, Report};
 use crate::rig::file::{parse_tree, strip_bom};
 use crate::rig::load::{ranges_str, read_text, variants_str, ParsedRig};
 use crate::rig::overrides::{apply_overrides, read_variants, Uncertain, Variant};
+use crate::rig::params::{self, Resolved};
 use crate::rig::{LoadError, Problem};
 use crate::solve::{self, Solution, SolveError, SolveOptions};
 
@@ -210,6 +211,51 @@ impl RigSource {
     /// [`StudyError::Load`] when a range is malformed.
     pub fn ranges(&self) -> Result<Vec<Uncertain>, StudyError> {
         Ok(ranges_str(&self.text, &self.source, &self.overrides)?)
+    }
+}
+
+/// A loaded rig with a study's ranged keys resolved to model parameters
+/// ([`crate::model::param`]): a sample is the rig with its drawn values set, not a new
+/// read of the file.
+#[derive(Debug, Clone)]
+pub struct ModelSampler {
+    base: Rig,
+    params: Vec<Resolved>,
+}
+
+impl ModelSampler {
+    /// The rig with `values` (in the written units, one per ranged key) set; None when
+    /// one does not convert or fails its check (the caller takes the file path).
+    pub fn rig(&self, values: &[Real]) -> Option<Rig> {
+        let mut rig = self.base.clone();
+        for (p, &v) in self.params.iter().zip(values) {
+            p.param.set(&mut rig, p.si(&self.base, v)?)?;
+        }
+        Some(rig)
+    }
+}
+
+impl RigSource {
+    /// The model path for `ranges` on the loaded `rig`, when every ranged key is a
+    /// model parameter and, for the values `probe`, the rig it gives is the very rig
+    /// the file path loads (compared whole); None otherwise.
+    pub fn sampler(&self, rig: &Rig, ranges: &[Uncertain], probe: &[Real]) -> Option<ModelSampler> {
+        let params = ranges
+            .iter()
+            .map(|u| params::resolve(rig, &u.key, &u.unit))
+            .collect::<Option<Vec<_>>>()?;
+        let sampler = ModelSampler {
+            base: rig.clone(),
+            params,
+        };
+        let fast = sampler.rig(probe)?;
+        let settings: Vec<_> = ranges
+            .iter()
+            .zip(probe)
+            .map(|(u, &v)| u.setting(v))
+            .collect();
+        let slow = self.load(&settings).ok()?;
+        (format!("{fast:?}") == format!("{slow:?}")).then_some(sampler)
     }
 }
 
