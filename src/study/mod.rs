@@ -236,26 +236,55 @@ impl ModelSampler {
 }
 
 impl RigSource {
-    /// The model path for `ranges` on the loaded `rig`, when every ranged key is a
-    /// model parameter and, for the values `probe`, the rig it gives is the very rig
-    /// the file path loads (compared whole); None otherwise.
-    pub fn sampler(&self, rig: &Rig, ranges: &[Uncertain], probe: &[Real]) -> Option<ModelSampler> {
-        let params = ranges
+    /// The model path for `keys` (each a file key with the unit its values are written
+    /// in, empty for bare numbers) on the loaded `rig`, when every key is a model
+    /// parameter and, for the values `probe`, the rig it gives is the very rig the file
+    /// path loads with those values as overrides (compared whole); None otherwise.
+    pub fn sampler(
+        &self,
+        rig: &Rig,
+        keys: &[(String, String)],
+        probe: &[Real],
+    ) -> Option<ModelSampler> {
+        let params = keys
             .iter()
-            .map(|u| params::resolve(rig, &u.key, &u.unit))
+            .map(|(key, unit)| params::resolve(rig, key, unit))
             .collect::<Option<Vec<_>>>()?;
         let sampler = ModelSampler {
             base: rig.clone(),
             params,
         };
         let fast = sampler.rig(probe)?;
-        let settings: Vec<_> = ranges
+        let settings: Vec<_> = keys
             .iter()
             .zip(probe)
-            .map(|(u, &v)| u.setting(v))
+            .map(|((key, unit), &v)| (key.clone(), with_unit(v, unit)))
             .collect();
         let slow = self.load(&settings).ok()?;
         (format!("{fast:?}") == format!("{slow:?}")).then_some(sampler)
+    }
+
+    /// Solves with the values of `keys` set: on the model when `model` takes them,
+    /// else through the file with the same values as overrides.
+    ///
+    /// # Errors
+    /// [`StudyError`] when the rig does not load or solve.
+    pub fn solve_values(
+        &self,
+        model: Option<&ModelSampler>,
+        keys: &[(String, String)],
+        values: &[Real],
+    ) -> Result<(Rig, Solution), StudyError> {
+        if let Some(rig) = model.and_then(|m| m.rig(values)) {
+            let solution = self.solve_rig(&rig)?;
+            return Ok((rig, solution));
+        }
+        let settings: Vec<_> = keys
+            .iter()
+            .zip(values)
+            .map(|((key, unit), &v)| (key.clone(), with_unit(v, unit)))
+            .collect();
+        self.solve(&settings)
     }
 }
 

@@ -62,6 +62,14 @@ pub fn draws_of(ranges: &[Uncertain], seed: u64, i: u64) -> Vec<Real> {
         .collect()
 }
 
+/// The ranged keys with their written units.
+pub fn keys_of(ranges: &[Uncertain]) -> Vec<(String, String)> {
+    ranges
+        .iter()
+        .map(|u| (u.key.clone(), u.unit.clone()))
+        .collect()
+}
+
 /// The draws of sample `i`: one override per uncertain value.
 pub fn settings_of(ranges: &[Uncertain], seed: u64, i: u64) -> Vec<(String, String)> {
     ranges
@@ -85,14 +93,9 @@ fn run_sample_on(
     seed: u64,
     i: u64,
 ) -> Option<Sample> {
-    let fast = model.and_then(|m| m.rig(&draws_of(ranges, seed, i)));
-    let (rig, s) = match fast {
-        Some(rig) => {
-            let s = source.solve_rig(&rig).ok()?;
-            (rig, s)
-        }
-        None => source.solve(&settings_of(ranges, seed, i)).ok()?,
-    };
+    let (rig, s) = source
+        .solve_values(model, &keys_of(ranges), &draws_of(ranges, seed, i))
+        .ok()?;
     let main = s.main();
     Some(Sample {
         forward: finite(main.forward.value)?,
@@ -224,7 +227,7 @@ pub fn spread(
     // Ranged keys that are plain model values are set on the resolved rig (no re-read
     // of the file per sample); any other key, or a draw the model path refuses, takes
     // the file path, which gives the loader's checks and messages.
-    let model = source.sampler(&rig, &ranges, &draws_of(&ranges, seed, 0));
+    let model = source.sampler(&rig, &keys_of(&ranges), &draws_of(&ranges, seed, 0));
     let threads = if threads == 0 {
         std::thread::available_parallelism().map_or(1, |n| n.get())
     } else {

@@ -1345,14 +1345,14 @@ fn studies_locate_solve_errors_like_check() {
 /// the file path loads with the same draws as overrides (compared whole).
 #[test]
 fn spread_samples_on_the_model_are_the_rigs_the_file_gives() {
-    use reeve::study::spread::{draws_of, settings_of};
+    use reeve::study::spread::{draws_of, keys_of, settings_of};
     use reeve::study::RigSource;
     let path = test_rig("spread-hoist.yaml");
     let source = RigSource::read(std::path::Path::new(&path), &[]).unwrap();
     let ranges = source.ranges().unwrap();
     let rig = source.load(&[]).unwrap();
     let sampler = source
-        .sampler(&rig, &ranges, &draws_of(&ranges, 3, 0))
+        .sampler(&rig, &keys_of(&ranges), &draws_of(&ranges, 3, 0))
         .expect("every ranged key of spread-hoist.yaml is a model parameter");
     for i in 0..50 {
         let fast = sampler.rig(&draws_of(&ranges, 3, i)).unwrap();
