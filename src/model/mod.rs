@@ -5,6 +5,7 @@
 //! line-and-sheave graph and the independent sub-rigs.
 
 pub mod network;
+pub mod param;
 
 pub use network::{Link, Network};
 

@@ -6,6 +6,7 @@ pub mod error;
 pub mod file;
 pub mod load;
 pub mod overrides;
+pub mod params;
 pub mod suggest;
 
 pub use error::{LoadError, Problem};

@@ -29,8 +29,9 @@ use crate::math::Real;
 use crate::model::Rig;
 use crate::report::{Asked, Report};
 use crate::rig::file::{parse_tree, strip_bom};
-use crate::rig::load::{load_str_with, ranges_str, read_text, variants_str};
+use crate::rig::load::{ranges_str, read_text, variants_str, ParsedRig};
 use crate::rig::overrides::{apply_overrides, read_variants, Uncertain, Variant};
+use crate::rig::params::{self, Resolved};
 use crate::rig::{LoadError, Problem};
 use crate::solve::{self, Solution, SolveError, SolveOptions};
 
@@ -79,6 +80,8 @@ pub struct RigSource {
     pub source: String,
     /// `KEY=VALUE` overrides applied before a study's own.
     pub overrides: Vec<(String, String)>,
+    /// The text parsed once, resolved again for every run (no re-parse per sample).
+    parsed: ParsedRig,
 }
 
 impl RigSource {
@@ -90,11 +93,11 @@ impl RigSource {
     /// too large.
     pub fn read(path: &Path, overrides: &[(String, String)]) -> Result<RigSource, StudyError> {
         let text = read_text(path)?;
-        Ok(RigSource {
-            text: strip_bom(&text).to_string(),
-            source: path.display().to_string(),
-            overrides: overrides.to_vec(),
-        })
+        Ok(RigSource::from_text(
+            strip_bom(&text),
+            &path.display().to_string(),
+            overrides,
+        ))
     }
 
     /// Rig text held in memory (tests, generated rigs).
@@ -103,6 +106,7 @@ impl RigSource {
             text: text.to_string(),
             source: source.to_string(),
             overrides: overrides.to_vec(),
+            parsed: ParsedRig::parse(text, source),
         }
     }
 
@@ -113,7 +117,7 @@ impl RigSource {
     pub fn load(&self, extra: &[(String, String)]) -> Result<Rig, StudyError> {
         let mut all = self.overrides.clone();
         all.extend_from_slice(extra);
-        Ok(load_str_with(&self.text, &self.source, &all)?)
+        Ok(self.parsed.load_with(&all)?)
     }
 
     /// Loads and solves with `extra` overrides.
@@ -207,6 +211,80 @@ impl RigSource {
     /// [`StudyError::Load`] when a range is malformed.
     pub fn ranges(&self) -> Result<Vec<Uncertain>, StudyError> {
         Ok(ranges_str(&self.text, &self.source, &self.overrides)?)
+    }
+}
+
+/// A loaded rig with a study's ranged keys resolved to model parameters
+/// ([`crate::model::param`]): a sample is the rig with its drawn values set, not a new
+/// read of the file.
+#[derive(Debug, Clone)]
+pub struct ModelSampler {
+    base: Rig,
+    params: Vec<Resolved>,
+}
+
+impl ModelSampler {
+    /// The rig with `values` (in the written units, one per ranged key) set; None when
+    /// one does not convert or fails its check (the caller takes the file path).
+    pub fn rig(&self, values: &[Real]) -> Option<Rig> {
+        let mut rig = self.base.clone();
+        for (p, &v) in self.params.iter().zip(values) {
+            p.param.set(&mut rig, p.si(&self.base, v)?)?;
+        }
+        Some(rig)
+    }
+}
+
+impl RigSource {
+    /// The model path for `keys` (each a file key with the unit its values are written
+    /// in, empty for bare numbers) on the loaded `rig`, when every key is a model
+    /// parameter and, for the values `probe`, the rig it gives is the very rig the file
+    /// path loads with those values as overrides (compared whole); None otherwise.
+    pub fn sampler(
+        &self,
+        rig: &Rig,
+        keys: &[(String, String)],
+        probe: &[Real],
+    ) -> Option<ModelSampler> {
+        let params = keys
+            .iter()
+            .map(|(key, unit)| params::resolve(rig, key, unit))
+            .collect::<Option<Vec<_>>>()?;
+        let sampler = ModelSampler {
+            base: rig.clone(),
+            params,
+        };
+        let fast = sampler.rig(probe)?;
+        let settings: Vec<_> = keys
+            .iter()
+            .zip(probe)
+            .map(|((key, unit), &v)| (key.clone(), with_unit(v, unit)))
+            .collect();
+        let slow = self.load(&settings).ok()?;
+        (format!("{fast:?}") == format!("{slow:?}")).then_some(sampler)
+    }
+
+    /// Solves with the values of `keys` set: on the model when `model` takes them,
+    /// else through the file with the same values as overrides.
+    ///
+    /// # Errors
+    /// [`StudyError`] when the rig does not load or solve.
+    pub fn solve_values(
+        &self,
+        model: Option<&ModelSampler>,
+        keys: &[(String, String)],
+        values: &[Real],
+    ) -> Result<(Rig, Solution), StudyError> {
+        if let Some(rig) = model.and_then(|m| m.rig(values)) {
+            let solution = self.solve_rig(&rig)?;
+            return Ok((rig, solution));
+        }
+        let settings: Vec<_> = keys
+            .iter()
+            .zip(values)
+            .map(|((key, unit), &v)| (key.clone(), with_unit(v, unit)))
+            .collect();
+        self.solve(&settings)
     }
 }
 

@@ -17,7 +17,7 @@ use crate::rig::overrides::{Distribution, Uncertain};
 use crate::units::UnitSystem;
 
 use super::rng::Rng;
-use super::{assess, largest_tension, RigSource, StudyError, Verdict};
+use super::{assess, largest_tension, ModelSampler, RigSource, StudyError, Verdict};
 use crate::report::text::not_moving_words;
 
 /// Draws one value of a distribution.
@@ -53,18 +53,49 @@ pub struct Sample {
     pub verdict: Verdict,
 }
 
-/// The draws of sample `i`: one override per uncertain value.
-pub fn settings_of(ranges: &[Uncertain], seed: u64, i: u64) -> Vec<(String, String)> {
+/// The drawn values of sample `i`, one per uncertain value, in the written unit.
+pub fn draws_of(ranges: &[Uncertain], seed: u64, i: u64) -> Vec<Real> {
     let mut rng = Rng::stream(seed, i);
     ranges
         .iter()
-        .map(|u| u.setting(draw(&u.distribution, &mut rng)))
+        .map(|u| draw(&u.distribution, &mut rng))
+        .collect()
+}
+
+/// The ranged keys with their written units.
+pub fn keys_of(ranges: &[Uncertain]) -> Vec<(String, String)> {
+    ranges
+        .iter()
+        .map(|u| (u.key.clone(), u.unit.clone()))
+        .collect()
+}
+
+/// The draws of sample `i`: one override per uncertain value.
+pub fn settings_of(ranges: &[Uncertain], seed: u64, i: u64) -> Vec<(String, String)> {
+    ranges
+        .iter()
+        .zip(draws_of(ranges, seed, i))
+        .map(|(u, v)| u.setting(v))
         .collect()
 }
 
 /// Solves sample `i`; None when that rig cannot be solved.
 pub fn run_sample(source: &RigSource, ranges: &[Uncertain], seed: u64, i: u64) -> Option<Sample> {
-    let (rig, s) = source.solve(&settings_of(ranges, seed, i)).ok()?;
+    run_sample_on(source, None, ranges, seed, i)
+}
+
+/// Solves sample `i`, on the resolved model when `model` gives every ranged key as a
+/// model parameter and the drawn values pass their checks, else on the file.
+fn run_sample_on(
+    source: &RigSource,
+    model: Option<&ModelSampler>,
+    ranges: &[Uncertain],
+    seed: u64,
+    i: u64,
+) -> Option<Sample> {
+    let (rig, s) = source
+        .solve_values(model, &keys_of(ranges), &draws_of(ranges, seed, i))
+        .ok()?;
     let main = s.main();
     Some(Sample {
         forward: finite(main.forward.value)?,
@@ -193,6 +224,10 @@ pub fn spread(
         )));
     }
     let main = nominal.main();
+    // Ranged keys that are plain model values are set on the resolved rig (no re-read
+    // of the file per sample); any other key, or a draw the model path refuses, takes
+    // the file path, which gives the loader's checks and messages.
+    let model = source.sampler(&rig, &keys_of(&ranges), &draws_of(&ranges, seed, 0));
     let threads = if threads == 0 {
         std::thread::available_parallelism().map_or(1, |n| n.get())
     } else {
@@ -217,12 +252,12 @@ pub fn spread(
         // Thread t takes samples t, t + threads, ...; each sample uses its own stream.
         let chunks: Vec<Vec<(usize, Option<Sample>)>> = (0..threads)
             .map(|t| {
-                let (ranges, done) = (&ranges, &done);
+                let (ranges, done, model) = (&ranges, &done, model.as_ref());
                 scope.spawn(move || {
                     (t..samples)
                         .step_by(threads)
                         .map(|i| {
-                            let r = run_sample(source, ranges, seed, i as u64);
+                            let r = run_sample_on(source, model, ranges, seed, i as u64);
                             done.fetch_add(1, Ordering::Relaxed);
                             (i, r)
                         })

@@ -154,12 +154,19 @@ pub fn sweep(source: &RigSource, vary: &Vary, steps: usize) -> Result<Sweep, Stu
             with_unit(vary.from, &vary.unit)
         )));
     }
-    let units = source.load(&[])?.units;
+    let base = source.load(&[])?;
+    let units = base.units;
+    // A numeric model value is set on the resolved rig for each step (see
+    // `RigSource::sampler`); any other key re-resolves the file per step.
+    let keys = [(vary.key.clone(), vary.unit.clone())];
+    let values = steps_between(vary.from, vary.to, steps);
+    let model = values
+        .first()
+        .and_then(|&first| source.sampler(&base, &keys, &[first]));
     let mut solve_for = None;
     let mut out = Vec::new();
-    for value in steps_between(vary.from, vary.to, steps) {
-        let setting = (vary.key.clone(), with_unit(value, &vary.unit));
-        match source.solve(&[setting]) {
+    for value in values {
+        match source.solve_values(model.as_ref(), &keys, &[value]) {
             Ok((rig, solution)) => {
                 let main = solution.main();
                 solve_for.get_or_insert_with(|| Asked::of(&rig, main));

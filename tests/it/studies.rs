@@ -1339,3 +1339,28 @@ fn studies_locate_solve_errors_like_check() {
         );
     }
 }
+
+/// Guards the spread's model path: every ranged key of the example rig is a model
+/// parameter, and for many samples the rig with its draws set on the model is the rig
+/// the file path loads with the same draws as overrides (compared whole).
+#[test]
+fn spread_samples_on_the_model_are_the_rigs_the_file_gives() {
+    use reeve::study::spread::{draws_of, keys_of, settings_of};
+    use reeve::study::RigSource;
+    let path = test_rig("spread-hoist.yaml");
+    let source = RigSource::read(std::path::Path::new(&path), &[]).unwrap();
+    let ranges = source.ranges().unwrap();
+    let rig = source.load(&[]).unwrap();
+    let sampler = source
+        .sampler(&rig, &keys_of(&ranges), &draws_of(&ranges, 3, 0))
+        .expect("every ranged key of spread-hoist.yaml is a model parameter");
+    for i in 0..50 {
+        let fast = sampler.rig(&draws_of(&ranges, 3, i)).unwrap();
+        let slow = source.load(&settings_of(&ranges, 3, i)).unwrap();
+        assert_eq!(format!("{fast:?}"), format!("{slow:?}"), "sample {i}");
+    }
+    // A draw the loader refuses (a negative coefficient) is refused on the model too.
+    let mut bad = draws_of(&ranges, 3, 0);
+    bad.iter_mut().for_each(|v| *v = -1.0);
+    assert!(sampler.rig(&bad).is_none());
+}

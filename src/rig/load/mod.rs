@@ -154,11 +154,50 @@ pub fn load_str_with(
     source: &str,
     overrides: &[(String, String)],
 ) -> Result<Rig, LoadError> {
+    load_parsed_with(&parse_tree(text), source, overrides)
+}
+
+/// Rig text parsed once into its tree, to be resolved many times with different
+/// overrides (the studies: one resolve per sample, step or variation, no re-parse).
+/// [`ParsedRig::load_with`] gives exactly what [`load_str_with`] gives for the same
+/// text and overrides.
+#[derive(Debug, Clone)]
+pub struct ParsedRig {
+    tree: Result<(Option<Node>, Vec<Problem>), Vec<Problem>>,
+    source: String,
+}
+
+impl ParsedRig {
+    /// Parses `text`; `source` names it in messages. Parse errors are kept and given
+    /// by every [`ParsedRig::load_with`].
+    pub fn parse(text: &str, source: &str) -> ParsedRig {
+        ParsedRig {
+            tree: parse_tree(text),
+            source: source.to_string(),
+        }
+    }
+
+    /// Applies `overrides` to a copy of the parsed tree and resolves it, as
+    /// [`load_str_with`] does.
+    ///
+    /// # Errors
+    /// A [`LoadError`] naming every problem found in the file and the overrides.
+    pub fn load_with(&self, overrides: &[(String, String)]) -> Result<Rig, LoadError> {
+        load_parsed_with(&self.tree, &self.source, overrides)
+    }
+}
+
+/// [`load_str_with`] after the parse.
+fn load_parsed_with(
+    parsed: &Result<(Option<Node>, Vec<Problem>), Vec<Problem>>,
+    source: &str,
+    overrides: &[(String, String)],
+) -> Result<Rig, LoadError> {
     let fail = |problems: Vec<Problem>| LoadError {
         file: source.to_string(),
         problems,
     };
-    let (root, mut problems) = parse_tree(text).map_err(fail)?;
+    let (root, mut problems) = parsed.clone().map_err(fail)?;
     let Some(mut root) = root else {
         return Err(fail(vec![Problem {
             location: None,
