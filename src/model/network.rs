@@ -109,6 +109,18 @@ impl Network {
         carried
     }
 
+    /// Whether one of `a` and `b` is a block carrying the other, read from the graph's
+    /// `Carried` edge between them.
+    pub fn carries(&self, a: PartId, b: PartId) -> bool {
+        self.graph
+            .edges_connecting(NodeIndex::new(a), NodeIndex::new(b))
+            .chain(
+                self.graph
+                    .edges_connecting(NodeIndex::new(b), NodeIndex::new(a)),
+            )
+            .any(|e| *e.weight() == Link::Carried)
+    }
+
     /// The lines that pass over or end at `part`, read from the graph's span edges,
     /// in line order without repeats.
     pub fn lines_at(&self, part: PartId) -> Vec<LineId> {
@@ -152,6 +164,9 @@ mod tests {
         let id = |name: &str| rig.part_named(name).unwrap();
         assert_eq!(network.carried_by(id("hook")), [id("hook.a")]);
         assert!(network.carried_by(id("head")).is_empty());
+        assert!(network.carries(id("hook"), id("hook.a")));
+        assert!(network.carries(id("hook.a"), id("hook")));
+        assert!(!network.carries(id("head"), id("hook.a")));
         assert_eq!(network.lines_at(id("head")), [0]);
         assert_eq!(network.lines_at(id("hook.a")), [0]);
         // The block itself is carried-to, not on the line.
