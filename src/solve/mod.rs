@@ -383,7 +383,7 @@ pub fn solve(rig: &Rig, options: &SolveOptions) -> Result<Solution, SolveError> 
                         | PartKind::Weight(_)
                         | PartKind::Haul(_)
                         | PartKind::Drum(_)
-                ) && rig.lines.iter().any(|l| l.path.iter().any(|e| e.part == p))
+                ) && !network.lines_at(p).is_empty()
             })
             .collect();
         if movers.is_empty() {
