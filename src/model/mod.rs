@@ -23,8 +23,39 @@ pub struct Location {
 
 /// Index of a part in [`Rig::parts`] (file order).
 pub type PartId = usize;
-/// Index of a rope in [`Rig::ropes`].
-pub type RopeId = usize;
+/// A rope: its position in [`Rig::ropes`]. A type of its own, so that a rope cannot be
+/// taken for a part or a line; `rig.ropes[id]` indexes with it.
+#[derive(Debug, Clone, Copy, PartialEq, Eq, PartialOrd, Ord, Hash)]
+pub struct RopeId(u32);
+
+impl RopeId {
+    /// The id of position `index` in [`Rig::ropes`].
+    ///
+    /// # Panics
+    /// Beyond 2³² ropes, which no rig file reaches (files are capped in size).
+    pub fn new(index: usize) -> Self {
+        Self(u32::try_from(index).expect("fewer than 2^32 ropes"))
+    }
+
+    /// The position in [`Rig::ropes`].
+    pub fn index(self) -> usize {
+        self.0 as usize
+    }
+}
+
+impl std::ops::Index<RopeId> for [Rope] {
+    type Output = Rope;
+    fn index(&self, id: RopeId) -> &Rope {
+        &self[id.index()]
+    }
+}
+
+impl std::ops::Index<RopeId> for Vec<Rope> {
+    type Output = Rope;
+    fn index(&self, id: RopeId) -> &Rope {
+        &self[id.index()]
+    }
+}
 /// Index of a line in [`Rig::lines`].
 pub type LineId = usize;
 

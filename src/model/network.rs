@@ -4,7 +4,7 @@
 //! carry part and line names.
 
 use petgraph::graph::{NodeIndex, UnGraph};
-use petgraph::unionfind::UnionFind;
+use petgraph::visit::{Dfs, NodeFiltered};
 
 use crate::model::{LineId, PartId, Rig};
 
@@ -40,7 +40,6 @@ impl Network {
     pub fn build(rig: &Rig) -> Network {
         let mut graph = UnGraph::with_capacity(rig.parts.len(), 0);
         let nodes: Vec<NodeIndex> = (0..rig.parts.len()).map(|p| graph.add_node(p)).collect();
-        let mut joined = UnionFind::new(rig.parts.len());
         for (line_id, line) in rig.lines.iter().enumerate() {
             for (index, pair) in line.path.windows(2).enumerate() {
                 let (a, b) = (pair[0].part, pair[1].part);
@@ -53,35 +52,40 @@ impl Network {
                     },
                 );
             }
-            // Every moving or turning part of one line moves with the line.
-            let mut members = line
-                .path
-                .iter()
-                .map(|e| e.part)
-                .filter(|&p| !rig.parts[p].is_fixed_anchor());
-            if let Some(first) = members.next() {
-                for other in members {
-                    joined.union(first, other);
-                }
-            }
         }
         for (id, part) in rig.parts.iter().enumerate() {
             if let Some(block) = part.block {
                 graph.add_edge(nodes[id], nodes[block], Link::Carried);
-                joined.union(id, block);
             }
         }
-        let labels = joined.into_labeling();
+        // Sub-rigs are the components of the graph without its fixed anchors: every
+        // moving or turning part of one line moves with the line, a carried part with
+        // its block, but two lines tied to one anchor stay independent. Each fixed
+        // anchor is a sub-rig of its own. Components are numbered by their first part
+        // in file order.
+        let moving = NodeFiltered::from_fn(&graph, |n: NodeIndex| {
+            !rig.parts[n.index()].is_fixed_anchor()
+        });
         let mut component_of = vec![usize::MAX; rig.parts.len()];
         let mut components: Vec<Vec<PartId>> = Vec::new();
-        let mut label_to_component = std::collections::HashMap::new();
-        for (id, label) in labels.iter().enumerate() {
-            let c = *label_to_component.entry(*label).or_insert_with(|| {
-                components.push(Vec::new());
-                components.len() - 1
-            });
-            component_of[id] = c;
-            components[c].push(id);
+        for id in 0..rig.parts.len() {
+            if component_of[id] != usize::MAX {
+                continue;
+            }
+            let c = components.len();
+            let mut members = vec![id];
+            if !rig.parts[id].is_fixed_anchor() {
+                members.clear();
+                let mut dfs = Dfs::new(&moving, nodes[id]);
+                while let Some(n) = dfs.next(&moving) {
+                    members.push(graph[n]);
+                }
+            }
+            members.sort_unstable();
+            for &p in &members {
+                component_of[p] = c;
+            }
+            components.push(members);
         }
         Network {
             graph,
@@ -105,6 +109,18 @@ impl Network {
         carried
     }
 
+    /// Whether one of `a` and `b` is a block carrying the other, read from the graph's
+    /// `Carried` edge between them.
+    pub fn carries(&self, a: PartId, b: PartId) -> bool {
+        self.graph
+            .edges_connecting(NodeIndex::new(a), NodeIndex::new(b))
+            .chain(
+                self.graph
+                    .edges_connecting(NodeIndex::new(b), NodeIndex::new(a)),
+            )
+            .any(|e| *e.weight() == Link::Carried)
+    }
+
     /// The lines that pass over or end at `part`, read from the graph's span edges,
     /// in line order without repeats.
     pub fn lines_at(&self, part: PartId) -> Vec<LineId> {
@@ -121,18 +137,17 @@ impl Network {
         lines
     }
 
-    /// The lines whose parts belong to sub-rig `component`.
+    /// The lines whose moving or turning parts belong to sub-rig `component`, read from
+    /// the graph's span edges at its parts, in line order.
     pub fn lines_of(&self, rig: &Rig, component: usize) -> Vec<LineId> {
-        rig.lines
+        let mut lines: Vec<LineId> = self.components[component]
             .iter()
-            .enumerate()
-            .filter(|(_, l)| {
-                l.path.iter().any(|e| {
-                    !rig.parts[e.part].is_fixed_anchor() && self.component_of[e.part] == component
-                })
-            })
-            .map(|(i, _)| i)
-            .collect()
+            .filter(|&&p| !rig.parts[p].is_fixed_anchor())
+            .flat_map(|&p| self.lines_at(p))
+            .collect();
+        lines.sort_unstable();
+        lines.dedup();
+        lines
     }
 }
 
@@ -149,9 +164,50 @@ mod tests {
         let id = |name: &str| rig.part_named(name).unwrap();
         assert_eq!(network.carried_by(id("hook")), [id("hook.a")]);
         assert!(network.carried_by(id("head")).is_empty());
+        assert!(network.carries(id("hook"), id("hook.a")));
+        assert!(network.carries(id("hook.a"), id("hook")));
+        assert!(!network.carries(id("head"), id("hook.a")));
         assert_eq!(network.lines_at(id("head")), [0]);
         assert_eq!(network.lines_at(id("hook.a")), [0]);
         // The block itself is carried-to, not on the line.
         assert!(network.lines_at(id("hook")).is_empty());
+    }
+
+    /// Guards the rule that a fixed anchor does not join sub-rigs: two lines tied to one
+    /// anchor are two sub-rigs; the anchor is one of its own.
+    #[test]
+    fn a_shared_fixed_anchor_does_not_join_sub_rigs() {
+        let text = "format: 1
+units: {length: mm, force: N, mass: kg}
+ropes:
+  cord4: {diameter: 4, mu: 0.2}
+parts:
+  eye:    {kind: anchor, at: [0, 0, 1000]}
+  bar.a:  {kind: guide, at: [20, 0, 1000], axle: [0, 1, 0], diameter: 36}
+  load.a: {kind: weight, at: [40, 0, 0], mass: 10}
+  bar.b:  {kind: guide, at: [-20, 0, 1000], axle: [0, 1, 0], diameter: 36}
+  hand.b: {kind: haul, at: [-40, 0, 0]}
+lines:
+  a: {rope: cord4, path: [eye, bar.a, load.a]}
+  b: {rope: cord4, path: [eye, bar.b, hand.b]}
+drive: hand.b
+";
+        let rig = load_str(text, "shared.yaml").unwrap();
+        let network = Network::build(&rig);
+        let id = |name: &str| rig.part_named(name).unwrap();
+        assert_eq!(network.components.len(), 3);
+        assert_eq!(
+            network.components[network.component_of[id("eye")]],
+            [id("eye")]
+        );
+        let a = network.component_of[id("bar.a")];
+        let b = network.component_of[id("bar.b")];
+        assert_ne!(a, b);
+        assert_eq!(network.components[a], [id("bar.a"), id("load.a")]);
+        assert_eq!(network.lines_of(&rig, a), [0]);
+        assert_eq!(network.lines_of(&rig, b), [1]);
+        assert!(network
+            .lines_of(&rig, network.component_of[id("eye")])
+            .is_empty());
     }
 }

@@ -6,7 +6,7 @@
 
 use crate::math::Real;
 use crate::model::param::Param;
-use crate::model::Rig;
+use crate::model::{Rig, RopeId};
 use crate::units::{parse_quantity, Dimension};
 
 /// A file key resolved against a rig: the parameter and how a written value becomes SI.
@@ -48,7 +48,7 @@ pub fn resolve(rig: &Rig, key: &str, unit: &str) -> Option<Resolved> {
     } else {
         let name = key.strip_prefix("ropes.")?.strip_suffix(".mu")?;
         let r = rig.ropes.iter().position(|r| r.name == name)?;
-        (Param::RopeMu(r), None)
+        (Param::RopeMu(RopeId::new(r)), None)
     };
     Some(Resolved {
         param,

@@ -9,7 +9,7 @@ use reeve::geometry::{compute, Geometry, GeometryError, GeometryOptions, LineGeo
 use reeve::math::{Direction, Point, Real, Vector};
 use reeve::model::{
     Bearing, Block, BlockLoad, Drum, Guide, Haul, Limits, Line, Location, Part, PartId, PartKind,
-    PathEntry, Rig, Rope, RopeKind, Sheave, Side, Weight,
+    PathEntry, Rig, Rope, RopeId, RopeKind, Sheave, Side, Weight,
 };
 use reeve::units::UnitSystem;
 
@@ -166,7 +166,7 @@ fn rig(rope_diameter: Real, parts: Vec<Part>, paths: Vec<Vec<PathEntry>>) -> Rig
             .enumerate()
             .map(|(i, path)| Line {
                 name: format!("line{i}"),
-                rope: 0,
+                rope: RopeId::new(0),
                 path,
                 location: Location::default(),
             })

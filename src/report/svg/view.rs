@@ -253,8 +253,7 @@ pub(super) fn groups(n: usize, close: impl Fn(usize, usize) -> bool) -> Vec<Vec<
 /// only end-on (as dots).
 pub(super) fn overlaps(rig: &Rig, solution: &Solution, points: &[Point], view: View) -> usize {
     let (parts, spans) = projected(rig, solution, view, view_scale(points, view).px_per_m());
-    let carried =
-        |i: usize, j: usize| rig.parts[i].block == Some(j) || rig.parts[j].block == Some(i);
+    let carried = |i: usize, j: usize| solution.network.carries(i, j);
     let mut n = 0;
     for i in 0..parts.len() {
         for j in i + 1..parts.len() {

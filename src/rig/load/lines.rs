@@ -2,7 +2,7 @@
 
 use super::keys::{get, join, Kind, ENTRY_KEYS, LINE_KEYS, MOST_TURNS};
 use super::read::{hint_or_list, Names, Resolver};
-use crate::model::{Line, PathEntry, Side};
+use crate::model::{Line, PathEntry, RopeId, Side};
 use crate::rig::file::{Entry, Node, Value};
 
 pub(super) fn line(
@@ -85,7 +85,7 @@ pub(super) fn line(
     }
     Some(Line {
         name: e.key.clone(),
-        rope: rope?,
+        rope: RopeId::new(rope?),
         path: ok.then_some(steps)?,
         location: e.key_location,
     })

@@ -1,0 +1,153 @@
+//! Turning one case's solved tensions into its [`CaseResult`]: drum torques, slips,
+//! pin loads and the energy audit.
+
+use super::*;
+
+impl Problem<'_> {
+    #[allow(clippy::too_many_arguments)]
+    pub(super) fn finish(
+        &self,
+        case: Case,
+        value: Real,
+        tension: Vec<Vec<Real>>,
+        stalled: Vec<(LineId, usize)>,
+        drum_friction: Vec<(Real, Real, Real)>,
+        indeterminate: bool,
+        status: Status,
+        velocity: &DVector<Real>,
+    ) -> CaseResult {
+        let rig = self.rig;
+        let nparts = rig.parts.len();
+        let mut loss = vec![0.0; nparts];
+        let mut ratio: Vec<Vec<Option<Real>>> =
+            rig.lines.iter().map(|l| vec![None; l.path.len()]).collect();
+        let mut slack = Vec::new();
+        let mut slipping = Vec::new();
+        for &l in &self.lines {
+            let path = &rig.lines[l].path;
+            for (j, &t) in tension[l].iter().enumerate() {
+                if t < -1e-9 * (1.0 + value.abs()) {
+                    slack.push((l, j));
+                }
+            }
+            for e in 1..path.len() - 1 {
+                let (a, b) = (tension[l][e - 1], tension[l][e]);
+                let (hi, lo) = if a.abs() >= b.abs() { (a, b) } else { (b, a) };
+                if lo.abs() > 0.0 {
+                    ratio[l][e] = Some(hi / lo);
+                }
+                let part = path[e].part;
+                if matches!(rig.parts[part].kind, PartKind::Drum(_)) {
+                    // Untied drum passage: the rope must not slip.
+                    let entry = &self.geometry.lines[l].entries[e];
+                    let round = rig.parts[part].kind.round();
+                    let limit = friction::capstan::capstan_ratio(
+                        self.surface_mu(l, part),
+                        round.and_then(|r| r.groove_angle),
+                        entry.wrap,
+                    );
+                    if lo > 0.0 && hi / lo > limit * (1.0 + 1e-9) {
+                        slipping.push(Slip {
+                            line: l,
+                            entry: e,
+                            ratio: hi / lo,
+                            limit,
+                        });
+                    }
+                } else {
+                    let s = case.sign() * self.kin.rope_speed[l][e];
+                    loss[part] += (b - a) * s;
+                }
+            }
+        }
+        // Drum friction losses, per-dof powers.
+        let mut load_power = vec![0.0; nparts];
+        let mut drive_power = 0.0;
+        for (k, &i) in self.dofs.iter().enumerate() {
+            let part = self.kin.dofs[i].part;
+            let v = velocity[i];
+            let (drag, journal, thrust) = drum_friction[k];
+            loss[part] += (drag + journal + thrust) * v.abs();
+            let p = (self.q_load[k] + value * self.x_coef[k]) * v;
+            if part == self.drive {
+                drive_power += p;
+            } else {
+                load_power[part] -= p;
+            }
+        }
+        let total_loss: Real = loss.iter().sum();
+        let total_load: Real = load_power.iter().sum();
+        let scale = drive_power
+            .abs()
+            .max(total_load.abs())
+            .max(total_loss.abs())
+            .max(1e-300);
+        let audit_residual = (drive_power - total_load - total_loss).abs() / scale;
+
+        // Pin loads and drum torques.
+        let forces = self.contact_forces(&tension);
+        let mut pin_load = vec![None; nparts];
+        let mut drums = vec![None; nparts];
+        for (id, part) in rig.parts.iter().enumerate() {
+            if forces[id].is_empty() {
+                continue;
+            }
+            let own = match &part.kind {
+                PartKind::Sheave(s) => s.mass.unwrap_or(0.0),
+                PartKind::Drum(d) => d.mass.unwrap_or(0.0),
+                _ => 0.0,
+            };
+            let total = forces[id]
+                .iter()
+                .fold(gravity_force(rig, own), |a, (f, _)| a + f);
+            pin_load[id] = Some(total);
+            if let PartKind::Drum(d) = &part.kind {
+                let axle = d.axle.into_inner();
+                let torque: Real = forces[id]
+                    .iter()
+                    .map(|(f, at)| (at - part.at).cross(f).dot(&axle))
+                    .sum();
+                let k = self.dofs.iter().position(|&i| self.kin.dofs[i].part == id);
+                let speed = self.kin.dof_of_part[id].map(|i| velocity[i]).unwrap_or(0.0);
+                let dir = if speed < 0.0 { -1.0 } else { 1.0 };
+                let (drag, journal, thrust) =
+                    k.map(|k| drum_friction[k]).unwrap_or((0.0, 0.0, 0.0));
+                let load = if id == self.solve_for && id != self.drive {
+                    value
+                } else if id == self.drive {
+                    0.0
+                } else {
+                    d.torque.unwrap_or(0.0)
+                };
+                let fwd = self.kin.dof_of_part[id]
+                    .map(|i| self.kin.forward[i])
+                    .unwrap_or(0.0);
+                drums[id] = Some(DrumTorques {
+                    rope: torque * dir,
+                    load: load * if fwd * speed >= 0.0 { 1.0 } else { -1.0 },
+                    drag,
+                    journal,
+                    thrust,
+                    speed,
+                });
+            }
+        }
+        CaseResult {
+            case,
+            value,
+            tension,
+            ratio,
+            loss,
+            load_power,
+            drive_power,
+            pin_load,
+            drums,
+            stalled,
+            slipping,
+            slack,
+            indeterminate,
+            status,
+            audit_residual,
+        }
+    }
+}
