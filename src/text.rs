@@ -127,6 +127,19 @@ pub fn unsafe_in_file(text: &str, limit: usize) -> (Vec<(usize, usize, char)>, u
     (found, more)
 }
 
+/// An error with its causes, `context: cause: cause`, as the binary prints it and as a
+/// study writes it into a table note: each `source()` in turn, joined by `: `.
+pub fn error_chain(error: &dyn std::error::Error) -> String {
+    let mut message = error.to_string();
+    let mut cause = error.source();
+    while let Some(e) = cause {
+        message.push_str(": ");
+        message.push_str(&e.to_string());
+        cause = e.source();
+    }
+    message
+}
+
 #[cfg(test)]
 mod tests {
     use super::*;

@@ -143,14 +143,7 @@ impl Failure {
 
     /// The message with its causes, `context: cause: cause`, as the binary prints it.
     pub fn chain(&self) -> String {
-        let mut message = self.to_string();
-        let mut cause = std::error::Error::source(self);
-        while let Some(e) = cause {
-            message.push_str(": ");
-            message.push_str(&e.to_string());
-            cause = e.source();
-        }
-        message
+        reeve::text::error_chain(self)
     }
 }
 

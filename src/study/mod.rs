@@ -60,14 +60,7 @@ impl StudyError {
     /// The message with its causes, `context: cause`, for a table note or a step that
     /// could not be solved (the command line prints the same chain).
     pub fn chain(&self) -> String {
-        let mut message = self.to_string();
-        let mut cause = std::error::Error::source(self);
-        while let Some(e) = cause {
-            message.push_str(": ");
-            message.push_str(&e.to_string());
-            cause = e.source();
-        }
-        message
+        crate::text::error_chain(self)
     }
 }
 
