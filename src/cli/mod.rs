@@ -12,6 +12,7 @@ pub mod args;
 pub mod destination;
 pub mod outputs;
 pub mod studies;
+pub mod tools;
 
 use reeve::checks;
 use reeve::model::Rig;
@@ -65,6 +66,10 @@ pub enum Command {
     Rank(studies::RankArgs),
     /// Monte Carlo spread over the values the rig gives as ranges.
     Spread(studies::SpreadArgs),
+    /// Print a shell completion script (bash, zsh, fish, powershell).
+    Completions(tools::CompletionsArgs),
+    /// Print the manual page (roff), or write it with -o.
+    Manual(tools::ManualArgs),
 }
 
 /// Why a command could not do its work (exit 2). The library's error stays the
@@ -236,5 +241,7 @@ pub fn run(cli: Cli) -> Result<i32, Failure> {
         Command::Sweep(args) => studies::run_sweep(args),
         Command::Rank(args) => studies::run_rank(args),
         Command::Spread(args) => studies::run_spread(args),
+        Command::Completions(args) => tools::run_completions(args),
+        Command::Manual(args) => tools::run_manual(args),
     }
 }

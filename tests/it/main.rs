@@ -15,3 +15,4 @@ mod properties;
 mod published;
 mod rigs;
 mod studies;
+mod tools;
