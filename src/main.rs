@@ -25,7 +25,9 @@ fn main() {
         Err(failure) => {
             // The error and its causes, once. Messages quote names and values: never
             // echo a control character raw.
-            eprintln!("reeve: {}", reeve::text::printable_lines(&failure.chain()));
+            let message = format!("reeve: {}", reeve::text::printable_lines(&failure.chain()));
+            // Under each located problem, the line of the rig and a caret (stderr only).
+            eprintln!("{}", cli::snippet::with_snippets(&message));
             failure.code()
         }
     };

@@ -11,6 +11,7 @@ use clap::{Parser, Subcommand};
 pub mod args;
 pub mod destination;
 pub mod outputs;
+pub mod snippet;
 pub mod studies;
 pub mod tools;
 

@@ -974,3 +974,25 @@ fn every_command_reads_rig_files_alike() {
         assert!(err.contains(expected), "{command}: {err}");
     }
 }
+
+#[test]
+fn a_located_error_shows_the_line_with_a_caret_under_the_column() {
+    // Guards the source line and caret under each located problem (issue 13 item 7),
+    // and that the first line stays `reeve: FILE:LINE:COL: KEY: message` as before.
+    let rig = "format: 1\nropes:\n  r: {diameter: -4, mu: 0.2}\nparts:\n  \
+               h: {kind: haul, at: [0, 0, 0]}\n  w: {kind: weight, at: [0, 0, -100], mass: 5}\n\
+               lines:\n  l: {rope: r, path: [h, w]}\n";
+    let (code, _, err) = reeve_on(rig, &["check"]).parts();
+    assert_eq!(code, 2, "{err}");
+    let lines: Vec<&str> = err.lines().collect();
+    assert!(
+        lines[0].starts_with("reeve: ") && lines[0].contains(":3:17: ropes.r.diameter: "),
+        "{err}"
+    );
+    assert_eq!(lines[1], " 3 |   r: {diameter: -4, mu: 0.2}", "{err}");
+    assert_eq!(lines[2].find('^'), lines[1].find("-4"), "{err}");
+    // An error with no line in the file shows no snippet.
+    let (code, _, err) = reeve(&["check", "nothere.yaml"]).parts();
+    assert_eq!(code, 2, "{err}");
+    assert!(!err.contains('^') && !err.contains(" | "), "{err}");
+}
