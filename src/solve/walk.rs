@@ -122,10 +122,8 @@ pub fn substitute(
 mod tests {
     use super::*;
 
-    #[test]
-    fn a_chain_of_halvings_keeps_every_digit() {
-        // x_0 = 1 known; x_i − 2 x_{i+1} = 0: x_i = 2^-i, exactly, to 2^-1000.
-        let n = 1000;
+    /// `n` equations x_i − 2 x_{i+1} = 0 over `n + 1` unknowns, x_0 = 1 known.
+    fn halvings(n: usize) -> (DMatrix<Real>, Vec<Option<Real>>) {
         let mut a = DMatrix::zeros(n, n + 1);
         for i in 0..n {
             a[(i, i)] = 1.0;
@@ -133,6 +131,14 @@ mod tests {
         }
         let mut known = vec![None; n + 1];
         known[0] = Some(1.0);
+        (a, known)
+    }
+
+    #[test]
+    fn a_chain_of_halvings_keeps_every_digit() {
+        // x_0 = 1 known; x_i − 2 x_{i+1} = 0: x_i = 2^-i, exactly, to 2^-1000.
+        let n = 1000;
+        let (a, known) = halvings(n);
         let x = substitute(&a, &vec![0.0; n], &known, |_, _| true)
             .unwrap()
             .unwrap();
@@ -142,13 +148,7 @@ mod tests {
     #[test]
     fn below_the_smallest_double_is_refused() {
         let n = 1100;
-        let mut a = DMatrix::zeros(n, n + 1);
-        for i in 0..n {
-            a[(i, i)] = 1.0;
-            a[(i, i + 1)] = -2.0;
-        }
-        let mut known = vec![None; n + 1];
-        known[0] = Some(1.0);
+        let (a, known) = halvings(n);
         let e = substitute(&a, &vec![0.0; n], &known, |_, _| true).unwrap_err();
         assert_eq!(e.col, 1022 + 1);
     }
