@@ -51,7 +51,7 @@ impl Dimension {
             Dimension::Length => &["mm", "cm", "m", "in", "ft"],
             Dimension::Force => &["N", "kN", "lbf"],
             Dimension::Mass => &["kg", "g", "lb"],
-            Dimension::Torque => &["N*m", "N*mm", "lbf*in", "lbf*ft"],
+            Dimension::Torque => &["N*m", "N*mm", "kN*m", "lbf*in", "lbf*ft"],
         }
     }
 }
@@ -73,83 +73,59 @@ impl fmt::Display for Unit {
     }
 }
 
-const UNITS: &[Unit] = &[
-    Unit {
-        dimension: Dimension::Length,
-        symbol: "mm",
-        si: 1e-3,
-    },
-    Unit {
-        dimension: Dimension::Length,
-        symbol: "cm",
-        si: 1e-2,
-    },
-    Unit {
-        dimension: Dimension::Length,
-        symbol: "m",
-        si: 1.0,
-    },
-    Unit {
-        dimension: Dimension::Length,
-        symbol: "in",
-        si: INCH,
-    },
-    Unit {
-        dimension: Dimension::Length,
-        symbol: "ft",
-        si: FOOT,
-    },
-    Unit {
-        dimension: Dimension::Force,
-        symbol: "N",
-        si: 1.0,
-    },
-    Unit {
-        dimension: Dimension::Force,
-        symbol: "kN",
-        si: 1e3,
-    },
-    Unit {
-        dimension: Dimension::Force,
-        symbol: "lbf",
-        si: POUND_FORCE,
-    },
-    Unit {
-        dimension: Dimension::Mass,
-        symbol: "kg",
-        si: 1.0,
-    },
-    Unit {
-        dimension: Dimension::Mass,
-        symbol: "g",
-        si: 1e-3,
-    },
-    Unit {
-        dimension: Dimension::Mass,
-        symbol: "lb",
-        si: POUND,
-    },
-    Unit {
-        dimension: Dimension::Torque,
-        symbol: "N*m",
-        si: 1.0,
-    },
-    Unit {
-        dimension: Dimension::Torque,
-        symbol: "N*mm",
-        si: 1e-3,
-    },
-    Unit {
-        dimension: Dimension::Torque,
-        symbol: "lbf*in",
-        si: POUND_FORCE * INCH,
-    },
-    Unit {
-        dimension: Dimension::Torque,
-        symbol: "lbf*ft",
-        si: POUND_FORCE * FOOT,
-    },
-];
+/// Every unit, by its canonical spelling: what a rig file may write and what a report
+/// may show.
+pub mod unit {
+    use super::{Dimension, Unit, FOOT, INCH, POUND, POUND_FORCE};
+
+    const fn unit(dimension: Dimension, symbol: &'static str, si: super::Real) -> Unit {
+        Unit {
+            dimension,
+            symbol,
+            si,
+        }
+    }
+
+    /// Millimetre.
+    pub const MM: Unit = unit(Dimension::Length, "mm", 1e-3);
+    /// Centimetre.
+    pub const CM: Unit = unit(Dimension::Length, "cm", 1e-2);
+    /// Metre.
+    pub const M: Unit = unit(Dimension::Length, "m", 1.0);
+    /// Inch.
+    pub const IN: Unit = unit(Dimension::Length, "in", INCH);
+    /// Foot.
+    pub const FT: Unit = unit(Dimension::Length, "ft", FOOT);
+    /// Newton.
+    pub const N: Unit = unit(Dimension::Force, "N", 1.0);
+    /// Kilonewton.
+    pub const KN: Unit = unit(Dimension::Force, "kN", 1e3);
+    /// Pound-force.
+    pub const LBF: Unit = unit(Dimension::Force, "lbf", POUND_FORCE);
+    /// Kilogram.
+    pub const KG: Unit = unit(Dimension::Mass, "kg", 1.0);
+    /// Gram.
+    pub const G: Unit = unit(Dimension::Mass, "g", 1e-3);
+    /// Pound (avoirdupois).
+    pub const LB: Unit = unit(Dimension::Mass, "lb", POUND);
+    /// Newton-metre.
+    pub const N_M: Unit = unit(Dimension::Torque, "N*m", 1.0);
+    /// Newton-millimetre.
+    pub const N_MM: Unit = unit(Dimension::Torque, "N*mm", 1e-3);
+    /// Kilonewton-metre.
+    pub const KN_M: Unit = unit(Dimension::Torque, "kN*m", 1e3);
+    /// Pound-force inch.
+    pub const LBF_IN: Unit = unit(Dimension::Torque, "lbf*in", POUND_FORCE * INCH);
+    /// Pound-force foot.
+    pub const LBF_FT: Unit = unit(Dimension::Torque, "lbf*ft", POUND_FORCE * FOOT);
+
+    /// All of them.
+    pub(super) const ALL: &[Unit] = &[
+        MM, CM, M, IN, FT, N, KN, LBF, KG, G, LB, N_M, N_MM, KN_M, LBF_IN, LBF_FT,
+    ];
+}
+
+use unit::ALL as UNITS;
 
 /// Looks a unit up by spelling. Accepts the canonical spellings plus the usual
 /// variants of a product (`N·m`, `N.m`, `Nm`, `N m`, `lbf-ft`, `lb*ft` is *not* a torque).
@@ -165,6 +141,8 @@ pub fn parse_unit(text: &str) -> Option<Unit> {
         "ft*lbf" => "lbf*ft",
         "m*N" => "N*m",
         "mm*N" => "N*mm",
+        "kNm" => "kN*m",
+        "m*kN" => "kN*m",
         "inch" | "inches" => "in",
         "feet" | "foot" => "ft",
         "lbs" => "lb",
@@ -271,8 +249,12 @@ pub fn parse_quantity(text: &str, dimension: Dimension, default: Unit) -> Result
 /// The units a rig file uses for bare numbers, and the units its reports show.
 #[derive(Debug, Clone, Copy, PartialEq)]
 pub struct UnitSystem {
-    /// Lengths (default mm).
+    /// Lengths (default mm): sizes, positions, the drawing's dimensions.
     pub length: Unit,
+    /// Lengths along the rig in the reports: span lengths and travel. A rig file has one
+    /// length unit, so this is `length` for the file's own units; `--units imperial`
+    /// shows them in feet (sizes stay in inches), `--units metric` in metres.
+    pub span_length: Unit,
     /// Forces (default N).
     pub force: Unit,
     /// Masses (default kg).
@@ -283,12 +265,12 @@ pub struct UnitSystem {
 
 impl Default for UnitSystem {
     fn default() -> Self {
-        // Indices into the unit table: mm, N, kg, N*m (checked by a unit test).
         UnitSystem {
-            length: UNITS[0],
-            force: UNITS[5],
-            mass: UNITS[8],
-            torque: UNITS[11],
+            length: unit::MM,
+            span_length: unit::MM,
+            force: unit::N,
+            mass: unit::KG,
+            torque: unit::N_M,
         }
     }
 }
@@ -319,11 +301,83 @@ impl UnitSystem {
     /// assert_eq!(units.show(2769.3525, Dimension::Force), "2.769 kN");
     /// ```
     pub fn show(&self, value: Real, dimension: Dimension) -> String {
-        let unit = self.unit(dimension);
-        if value.is_finite() {
-            format!("{} {}", significant(value / unit.si, 4), unit.symbol)
-        } else {
-            "—".to_string()
+        show_in(value, self.unit(dimension))
+    }
+
+    /// A span length or a travel as the reports show it (see [`UnitSystem::span_length`]).
+    pub fn show_span(&self, value: Real) -> String {
+        show_in(value, self.span_length)
+    }
+}
+
+/// An SI value in `unit`, to four significant figures, with the unit; `—` when not
+/// finite.
+pub fn show_in(value: Real, unit: Unit) -> String {
+    if value.is_finite() {
+        format!("{} {}", significant(value / unit.si, 4), unit.symbol)
+    } else {
+        "—".to_string()
+    }
+}
+
+/// The units the human-readable outputs show (`--units`); JSON is SI whatever the
+/// choice, and every value inside is SI already, so a choice only changes what is shown.
+#[derive(Debug, Clone, Copy, PartialEq, Eq, Default)]
+pub enum UnitChoice {
+    /// The rig file's own units (its `units:`), as written.
+    #[default]
+    File,
+    /// SI: m, N, kg, N*m.
+    Si,
+    /// A metric drawing set: sizes in mm, span lengths and travel in m, kN, kg, kN*m.
+    Metric,
+    /// US customary: sizes in in, span lengths and travel in ft, lbf, lb, lbf*ft.
+    Imperial,
+}
+
+impl UnitChoice {
+    /// Every choice, in the order the help lists them.
+    pub const ALL: [UnitChoice; 4] = [
+        UnitChoice::File,
+        UnitChoice::Si,
+        UnitChoice::Metric,
+        UnitChoice::Imperial,
+    ];
+
+    /// The word that names it (`file`, `si`, `metric`, `imperial`).
+    pub fn name(self) -> &'static str {
+        match self {
+            UnitChoice::File => "file",
+            UnitChoice::Si => "si",
+            UnitChoice::Metric => "metric",
+            UnitChoice::Imperial => "imperial",
+        }
+    }
+
+    /// One line for the help.
+    pub fn describe(self) -> &'static str {
+        match self {
+            UnitChoice::File => "The rig file's own units",
+            UnitChoice::Si => "m, N, kg, N*m",
+            UnitChoice::Metric => "Sizes in mm, span lengths and travel in m, kN, kg, kN*m",
+            UnitChoice::Imperial => "Sizes in in, span lengths and travel in ft, lbf, lb, lbf*ft",
+        }
+    }
+
+    /// The units shown for a rig whose file shows `file`.
+    pub fn system(self, file: UnitSystem) -> UnitSystem {
+        let of = |length, span_length, force, mass, torque| UnitSystem {
+            length,
+            span_length,
+            force,
+            mass,
+            torque,
+        };
+        match self {
+            UnitChoice::File => file,
+            UnitChoice::Si => of(unit::M, unit::M, unit::N, unit::KG, unit::N_M),
+            UnitChoice::Metric => of(unit::MM, unit::M, unit::KN, unit::KG, unit::KN_M),
+            UnitChoice::Imperial => of(unit::IN, unit::FT, unit::LBF, unit::LB, unit::LBF_FT),
         }
     }
 }
@@ -377,8 +431,98 @@ mod tests {
         assert_eq!(si("1 kg", Dimension::Mass), 1.0);
         assert_eq!(si("1 N*m", Dimension::Torque), 1.0);
         assert_eq!(si("1 N*mm", Dimension::Torque), 1e-3);
+        assert_eq!(si("1 kN*m", Dimension::Torque), 1e3);
         assert!((si("1 lbf*in", Dimension::Torque) - 4.4482216152605 * 0.0254).abs() < 1e-15);
         assert!((si("1 lbf*ft", Dimension::Torque) - 4.4482216152605 * 0.3048).abs() < 1e-15);
+    }
+
+    #[test]
+    fn nist_sp_811_factors() {
+        // NIST Special Publication 811 (2008), Guide for the Use of the International
+        // System of Units, Appendix B.8 (factors for units listed alphabetically), as
+        // printed there: exact for the inch, foot and pound; rounded to seven figures
+        // for the pound-force and its torques, so compared at that rounding (values as
+        // remembered from the appendix; they agree with the 1959 definitions above).
+        let factors: [(Unit, Real, Real); 6] = [
+            (unit::IN, 2.54e-2, 0.0),
+            (unit::FT, 3.048e-1, 0.0),
+            (unit::LB, 4.535_923_7e-1, 0.0),
+            (unit::LBF, 4.448_222, 5e-7),
+            (unit::LBF_FT, 1.355_818, 5e-7),
+            (unit::LBF_IN, 1.129_848e-1, 5e-8),
+        ];
+        for (u, nist, rounding) in factors {
+            assert!(
+                (u.si - nist).abs() <= rounding,
+                "{}: {} N, m, kg or N*m per unit, NIST SP 811 gives {nist}",
+                u.symbol,
+                u.si
+            );
+        }
+    }
+
+    #[test]
+    fn factors_round_trip() {
+        // Every unit, and every unit each `--units` choice shows: SI and back gives the
+        // number written, to a few units in the last place.
+        let mut all: Vec<Unit> = UNITS.to_vec();
+        for choice in UnitChoice::ALL {
+            let s = choice.system(UnitSystem::default());
+            all.extend([s.length, s.span_length, s.force, s.mass, s.torque]);
+        }
+        for u in all {
+            assert_eq!(parse_unit(u.symbol), Some(u), "{} reads back", u.symbol);
+            for x in [1.0, 0.1, 7.5, 123.456, 1e-6, 9.87e8] {
+                let text = format!("{x} {}", u.symbol);
+                let si = parse_quantity(&text, u.dimension, u).unwrap();
+                let back = UnitSystem {
+                    length: u,
+                    span_length: u,
+                    force: u,
+                    mass: u,
+                    torque: u,
+                }
+                .from_si(si, u.dimension);
+                assert!(
+                    (back - x).abs() <= 4.0 * Real::EPSILON * x,
+                    "{text}: {si} SI, back {back}"
+                );
+            }
+        }
+    }
+
+    #[test]
+    fn unit_choices() {
+        let file = UnitSystem::default();
+        assert_eq!(UnitChoice::File.system(file), file);
+        let symbols = |c: UnitChoice| {
+            let s = c.system(file);
+            [
+                s.length.symbol,
+                s.span_length.symbol,
+                s.force.symbol,
+                s.mass.symbol,
+                s.torque.symbol,
+            ]
+        };
+        assert_eq!(symbols(UnitChoice::Si), ["m", "m", "N", "kg", "N*m"]);
+        assert_eq!(symbols(UnitChoice::Metric), ["mm", "m", "kN", "kg", "kN*m"]);
+        assert_eq!(
+            symbols(UnitChoice::Imperial),
+            ["in", "ft", "lbf", "lb", "lbf*ft"]
+        );
+        for c in UnitChoice::ALL {
+            let s = c.system(file);
+            for (u, d) in [
+                (s.length, Dimension::Length),
+                (s.span_length, Dimension::Length),
+                (s.force, Dimension::Force),
+                (s.mass, Dimension::Mass),
+                (s.torque, Dimension::Torque),
+            ] {
+                assert_eq!(u.dimension, d, "{} under {}", u.symbol, c.name());
+            }
+        }
     }
 
     #[test]

@@ -1,8 +1,9 @@
 //! The flags more than one command takes, each defined once as an argument group that
 //! the commands flatten: the rig and its `--set` overrides ([`RigArgs`], [`SetArgs`]),
-//! `--format` with `--json` ([`FormatArgs`], [`JsonArg`]), `-o` ([`OutputArg`]) and
-//! `--view` ([`ViewArg`]). The words a choice accepts come from the library's own enums
-//! ([`reeve::report::Format`], [`View`], [`CaseFilter`], [`TableChoice`]) through
+//! `--format` with `--json` ([`FormatArgs`], [`JsonArg`]), `-o` ([`OutputArg`]),
+//! `--view` ([`ViewArg`]) and `--units` ([`UnitsArg`]). The words a choice accepts come
+//! from the library's own enums ([`reeve::report::Format`], [`View`], [`CaseFilter`],
+//! [`TableChoice`], [`UnitChoice`]) through
 //! [`one_of`], so the command line and the library cannot disagree on a spelling.
 
 use std::path::PathBuf;
@@ -12,6 +13,7 @@ use clap::builder::{PossibleValue, PossibleValuesParser, TypedValueParser};
 use reeve::report::svg::View;
 use reeve::report::table::{CaseFilter, TableChoice};
 use reeve::report::Format;
+use reeve::units::{UnitChoice, UnitSystem};
 
 /// A value parser over one of the library's enums: each value's word, its other
 /// spellings and its line of help. Only the listed words parse.
@@ -51,6 +53,15 @@ fn view_parser() -> impl TypedValueParser<Value = View> {
         View::ALL
             .into_iter()
             .map(|v| (v, v.name(), &[][..], v.description())),
+    )
+}
+
+/// `--units`: the words of [`UnitChoice`].
+fn units_parser() -> impl TypedValueParser<Value = UnitChoice> {
+    one_of(
+        UnitChoice::ALL
+            .into_iter()
+            .map(|u| (u, u.name(), &[][..], u.describe())),
     )
 }
 
@@ -139,4 +150,20 @@ pub struct ViewArg {
     /// spreads the rig most.
     #[arg(long, value_name = "VIEW", value_parser = view_parser())]
     pub view: Option<View>,
+}
+
+/// `--units`.
+#[derive(Debug, Clone, Copy, Default, clap::Args)]
+pub struct UnitsArg {
+    /// Units of the text, Markdown, CSV, HTML and drawings (JSON stays SI): the rig
+    /// file's own, SI, a metric drawing set or US customary; the unit is in every header.
+    #[arg(long, value_name = "UNITS", value_parser = units_parser(), default_value = "file")]
+    pub units: UnitChoice,
+}
+
+impl UnitsArg {
+    /// The units to show for a rig whose file shows `file`.
+    pub fn shown(self, file: UnitSystem) -> UnitSystem {
+        self.units.system(file)
+    }
 }

@@ -22,7 +22,7 @@ use reeve::rig::{self, LoadError};
 use reeve::solve::{self, SolveError, SolveOptions};
 use reeve::study::StudyError;
 
-use args::{JsonArg, RigArgs};
+use args::{JsonArg, RigArgs, UnitsArg};
 
 /// Exit code: the rig moves and every check passes.
 pub const EXIT_OK: i32 = 0;
@@ -51,6 +51,9 @@ pub enum Command {
         /// JSON instead of text.
         #[command(flatten)]
         json: JsonArg,
+        /// Units of the text.
+        #[command(flatten)]
+        units: UnitsArg,
     },
     /// Print the drawing-set tables: tension in every span; wrap, fleet, D/d, ratio,
     /// pin load and loss share at every part.
@@ -214,8 +217,16 @@ pub fn write_out(f: impl FnOnce(&mut dyn Write) -> io::Result<()>) -> Result<(),
 /// Runs a parsed command line; returns the exit code.
 pub fn run(cli: Cli) -> Result<i32, Failure> {
     match cli.command {
-        Command::Check { rig: args, json } => {
-            let (rig, solution) = load_and_solve(&args)?;
+        Command::Check {
+            rig: args,
+            json,
+            units,
+        } => {
+            let (mut rig, solution) = load_and_solve(&args)?;
+            if !json.json {
+                // Every value is SI by now: only what the text shows changes.
+                rig.units = units.shown(rig.units);
+            }
             let warnings = checks::run(&rig, &solution);
             let report = Report::build(&rig, &solution, warnings);
             if json.json {

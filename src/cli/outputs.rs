@@ -11,7 +11,7 @@ use reeve::report::table::{self, CaseFilter, Style, TableChoice};
 use reeve::report::{html, Format, Report};
 use reeve::solve::Solution;
 
-use super::args::{case_parser, table_parser, FormatArgs, OutputArg, RigArgs, ViewArg};
+use super::args::{case_parser, table_parser, FormatArgs, OutputArg, RigArgs, UnitsArg, ViewArg};
 use super::destination::{emit, Destination};
 use super::{load_and_solve, Failure, EXIT_OK};
 
@@ -33,6 +33,9 @@ pub struct TableArgs {
     /// Where to write.
     #[command(flatten)]
     pub output: OutputArg,
+    /// Units of the tables (not of JSON).
+    #[command(flatten)]
+    pub units: UnitsArg,
 }
 
 /// Arguments of `reeve draw`.
@@ -48,6 +51,9 @@ pub struct DrawArgs {
     /// Projection.
     #[command(flatten)]
     pub view: ViewArg,
+    /// Units of the labels, dimensions and title block.
+    #[command(flatten)]
+    pub units: UnitsArg,
 }
 
 /// Arguments of `reeve report`.
@@ -63,6 +69,9 @@ pub struct ReportArgs {
     /// Projection of the drawing.
     #[command(flatten)]
     pub view: ViewArg,
+    /// Units of the report.
+    #[command(flatten)]
+    pub units: UnitsArg,
 }
 
 /// Today's date (UTC) as `YYYY-MM-DD`, or the date of `SOURCE_DATE_EPOCH` when that is
@@ -82,8 +91,10 @@ pub fn today() -> String {
 
 /// `reeve table`.
 pub fn run_table(args: TableArgs) -> Result<i32, Failure> {
-    let (rig, _, report) = solved_report(&args.rig)?;
     let format = args.format.format();
+    // JSON is SI with the file's own words; the other formats show the units asked for.
+    let units = (format != Format::Json).then_some(args.units);
+    let (rig, _, report) = solved_report(&args.rig, units)?;
     let cases = args.case;
     let choice = match (args.table, format) {
         (Some(TableChoice::Both), Format::Csv) => {
@@ -123,16 +134,24 @@ pub fn run_table(args: TableArgs) -> Result<i32, Failure> {
     Ok(EXIT_OK)
 }
 
-/// Loads, solves and checks a rig, and builds its report.
-fn solved_report(args: &RigArgs) -> Result<(Rig, Solution, Report), Failure> {
-    let (rig, solution) = load_and_solve(args)?;
+/// Loads, solves and checks a rig, and builds its report, in the units `units` shows
+/// (the file's own when `None`).
+fn solved_report(
+    args: &RigArgs,
+    units: Option<UnitsArg>,
+) -> Result<(Rig, Solution, Report), Failure> {
+    let (mut rig, solution) = load_and_solve(args)?;
+    if let Some(units) = units {
+        // Every value is SI by now: only what the outputs show changes.
+        rig.units = units.shown(rig.units);
+    }
     let report = Report::build(&rig, &solution, checks::run(&rig, &solution));
     Ok((rig, solution, report))
 }
 
 /// `reeve draw`.
 pub fn run_draw(args: DrawArgs) -> Result<i32, Failure> {
-    let (rig, solution, report) = solved_report(&args.rig)?;
+    let (rig, solution, report) = solved_report(&args.rig, Some(args.units))?;
     let options = DrawOptions {
         view: args.view.view,
         date: today(),
@@ -147,7 +166,7 @@ pub fn run_draw(args: DrawArgs) -> Result<i32, Failure> {
 
 /// `reeve report`.
 pub fn run_report(args: ReportArgs) -> Result<i32, Failure> {
-    let (rig, solution, report) = solved_report(&args.rig)?;
+    let (rig, solution, report) = solved_report(&args.rig, Some(args.units))?;
     let options = DrawOptions {
         view: args.view.view,
         date: today(),

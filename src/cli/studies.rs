@@ -9,7 +9,7 @@ use reeve::model::PartKind;
 use reeve::report::study as writers;
 use reeve::study::{compare, rank, spread, sweep, RigSource};
 
-use super::args::{FormatArgs, RigArgs, SetArgs};
+use super::args::{FormatArgs, RigArgs, SetArgs, UnitsArg};
 use super::destination::{emit, Destination};
 use super::{parse_sets, write_out, Failure, EXIT_CHECK_FAILED, EXIT_OK};
 
@@ -28,6 +28,9 @@ pub struct CompareArgs {
     /// Output format.
     #[command(flatten)]
     pub format: FormatArgs,
+    /// Units of the tables and charts (not of JSON).
+    #[command(flatten)]
+    pub units: UnitsArg,
 }
 
 /// Arguments of `sweep`.
@@ -57,6 +60,9 @@ pub struct SweepArgs {
     /// Output format.
     #[command(flatten)]
     pub format: FormatArgs,
+    /// Units of the tables and charts (not of JSON).
+    #[command(flatten)]
+    pub units: UnitsArg,
 }
 
 /// Arguments of `rank`.
@@ -72,6 +78,9 @@ pub struct RankArgs {
     /// Output format.
     #[command(flatten)]
     pub format: FormatArgs,
+    /// Units of the tables and charts (not of JSON).
+    #[command(flatten)]
+    pub units: UnitsArg,
 }
 
 /// Arguments of `spread`.
@@ -92,6 +101,9 @@ pub struct SpreadArgs {
     /// Output format.
     #[command(flatten)]
     pub format: FormatArgs,
+    /// Units of the tables and charts (not of JSON).
+    #[command(flatten)]
+    pub units: UnitsArg,
 }
 
 /// The most `--samples` accepted: about a minute of solving for a small rig on two
@@ -137,7 +149,7 @@ fn source(args: &RigArgs) -> Result<RigSource, Failure> {
 pub fn run_compare(args: CompareArgs) -> Result<i32, Failure> {
     let format = args.format.format();
     let sets = parse_sets(&args.sets.set)?;
-    let c = if args.variants {
+    let mut c = if args.variants {
         if args.rigs.len() != 1 {
             return Err(Failure::Input(
                 "--variants compares the variants of one rig; give exactly one rig file".into(),
@@ -153,6 +165,7 @@ pub fn run_compare(args: CompareArgs) -> Result<i32, Failure> {
             .collect::<Result<Vec<_>, _>>()?;
         compare::compare_rigs(&sources)?
     };
+    c.units = args.units.shown(c.units);
     write_out(|w| writers::compare::write(w, &c, format))?;
     Ok(exit_code(c.fails()))
 }
@@ -166,7 +179,8 @@ pub fn run_sweep(args: SweepArgs) -> Result<i32, Failure> {
     let steps = checked_steps(args.steps, if args.stroke.is_some() { 10 } else { 11 })?;
     let s = source(&args.rig)?;
     let (chart, write, fails): (String, Writer, bool) = if let Some(distance) = &args.stroke {
-        let st = sweep::stroke(&s, distance, steps, 8)?;
+        let mut st = sweep::stroke(&s, distance, steps, 8)?;
+        st.units = args.units.shown(st.units);
         let fails = st.fails();
         (
             writers::sweep::stroke_chart(&st),
@@ -176,7 +190,8 @@ pub fn run_sweep(args: SweepArgs) -> Result<i32, Failure> {
     } else {
         let text = args.vary.as_deref().unwrap_or_default();
         let vary = sweep::parse_vary(text)?;
-        let sw = sweep::sweep(&s, &vary, steps)?;
+        let mut sw = sweep::sweep(&s, &vary, steps)?;
+        sw.units = args.units.shown(sw.units);
         // A key that no step can take (no such part, a value in the wrong unit) is bad
         // input, not a table of dashes.
         if sw.steps.iter().all(|st| st.error.is_some()) {
@@ -225,7 +240,8 @@ pub fn run_rank(args: RankArgs) -> Result<i32, Failure> {
                 })?;
         }
     }
-    let r = rank::rank(&s, alt.as_ref())?;
+    let mut r = rank::rank(&s, alt.as_ref())?;
+    r.units = args.units.shown(r.units);
     write_out(|w| writers::rank::write(w, &r, format))?;
     Ok(exit_code(r.fails()))
 }
@@ -243,7 +259,8 @@ pub fn run_spread(args: SpreadArgs) -> Result<i32, Failure> {
         )));
     }
     let s = source(&args.rig)?;
-    let r = spread::spread(&s, args.samples, args.seed, args.threads, true)?;
+    let mut r = spread::spread(&s, args.samples, args.seed, args.threads, true)?;
+    r.units = args.units.shown(r.units);
     write_out(|w| writers::spread::write(w, &r, format))?;
     Ok(exit_code(r.fails()))
 }

@@ -282,7 +282,7 @@ pub fn write_check(w: &mut dyn Write, rig: &Rig, report: &Report, source: &str) 
 
 fn write_check_raw(w: &mut dyn Write, rig: &Rig, report: &Report, source: &str) -> io::Result<()> {
     let units = &rig.units;
-    let len = |x| quantity(x, Dimension::Length, units);
+    let len = |x: Option<Real>| x.map_or("—".to_string(), |v| units.show_span(v));
     let force = |x| quantity(x, Dimension::Force, units);
     writeln!(w, "{}  ({source})", report.title)?;
     writeln!(w)?;

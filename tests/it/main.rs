@@ -16,3 +16,4 @@ mod published;
 mod rigs;
 mod studies;
 mod tools;
+mod units_out;

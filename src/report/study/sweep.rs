@@ -179,7 +179,7 @@ fn travel_shown(s: &Stroke, t: Real) -> (Real, String) {
     if s.travel_unit == "rad" {
         (t.to_degrees(), "deg".to_string())
     } else {
-        let u = s.units.unit(Dimension::Length);
+        let u = s.units.span_length;
         (t / u.si, u.symbol.to_string())
     }
 }

@@ -655,15 +655,14 @@ pub fn render(rig: &Rig, solution: &Solution, report: &Report, options: &DrawOpt
         format!("Units: {}", units_line(units)),
         view.description().to_string(),
         format!(
-            "Scale {}{} on the sheet printed at {:.0} × {:.0} mm",
+            "Scale {}{} on the sheet printed at {}",
             drawing_scale.ratio(),
             if view == View::Iso {
                 " (lengths parallel to the sheet)"
             } else {
                 ""
             },
-            PAGE_W / PX_PER_MM,
-            page_h / PX_PER_MM
+            sheet_size(PAGE_W, page_h, units)
         ),
         format!(
             "Date {} · drawn by reeve {} · warnings: {}",
@@ -705,6 +704,17 @@ pub fn render(rig: &Rig, solution: &Solution, report: &Report, options: &DrawOpt
     }
     s.push_str("</text>\n</svg>\n");
     s
+}
+
+/// The printed sheet's size: in millimetres, or in inches where the drawing shows US
+/// customary lengths.
+fn sheet_size(width_px: Real, height_px: Real, units: &crate::units::UnitSystem) -> String {
+    let (w, h) = (width_px / PX_PER_MM, height_px / PX_PER_MM);
+    if matches!(units.length.symbol, "in" | "ft") {
+        format!("{:.2} × {:.2} in", w / 25.4, h / 25.4)
+    } else {
+        format!("{w:.0} × {h:.0} mm")
+    }
 }
 
 #[cfg(test)]

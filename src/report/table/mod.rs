@@ -17,7 +17,7 @@
 use std::io::{self, Write};
 
 use crate::math::Real;
-use crate::units::{Dimension, UnitSystem};
+use crate::units::{Dimension, Unit, UnitSystem};
 
 use super::escape::{csv_field, markdown_cell, text_line};
 use super::text::number;
@@ -301,13 +301,20 @@ impl Table {
 /// Significant figures shown for lengths, forces and ratios.
 const FIGURES: usize = 4;
 
-fn in_units(x: Option<Real>, dimension: Dimension, units: &UnitSystem) -> Cell {
-    Cell::Number(x.map(|v| units.from_si(v, dimension)), FIGURES)
+/// A cell of an SI value in the shown unit of `dimension`; with the header
+/// `format!("... ({})", units.unit(dimension))` this is all a new column needs.
+pub fn in_units(x: Option<Real>, dimension: Dimension, units: &UnitSystem) -> Cell {
+    in_unit(x, units.unit(dimension))
+}
+
+/// A cell of an SI value in `unit` (a span length in `units.span_length`).
+pub fn in_unit(x: Option<Real>, unit: Unit) -> Cell {
+    Cell::Number(x.map(|v| v / unit.si), FIGURES)
 }
 
 /// The span table: line, span index, from → to, length, tension per case, safety factor.
 pub fn span_table(report: &Report, units: &UnitSystem, cases: CaseFilter, style: Style) -> Table {
-    let (len, force) = (units.length.symbol, units.force.symbol);
+    let (len, force) = (units.span_length.symbol, units.force.symbol);
     let mut t = Table::new("Spans");
     t.column("line", Align::Left);
     t.column("span", Align::Right);
@@ -338,7 +345,7 @@ pub fn span_table(report: &Report, units: &UnitSystem, cases: CaseFilter, style:
                 row.push(Cell::Text(s.to.clone()));
             }
         }
-        row.push(in_units(s.length_m, Dimension::Length, units));
+        row.push(in_unit(s.length_m, units.span_length));
         if cases.ideal() {
             row.push(in_units(s.tension_n.ideal, Dimension::Force, units));
         }
@@ -597,10 +604,16 @@ pub fn write_text(
     writeln!(w, "{CAUTION}")
 }
 
-/// `length mm, force kN, mass kg, torque N*m`.
+/// `length mm, force kN, mass kg, torque N*m`; `length in (spans ft), ...` where span
+/// lengths have a unit of their own.
 pub fn units_line(units: &UnitSystem) -> String {
+    let spans = if units.span_length == units.length {
+        String::new()
+    } else {
+        format!(" (spans {})", units.span_length)
+    };
     format!(
-        "length {}, force {}, mass {}, torque {}",
+        "length {}{spans}, force {}, mass {}, torque {}",
         units.length, units.force, units.mass, units.torque
     )
 }

@@ -99,7 +99,10 @@ pub(super) fn resolve(root: &Node, source: &str) -> Result<Rig, Vec<Problem>> {
                 torque_stated |= dim == Dimension::Torque;
                 match parse_unit_of(text, dim) {
                     Ok(unit) => match dim {
-                        Dimension::Length => r.units.length = unit,
+                        Dimension::Length => {
+                            r.units.length = unit;
+                            r.units.span_length = unit;
+                        }
                         Dimension::Force => r.units.force = unit,
                         Dimension::Mass => r.units.mass = unit,
                         Dimension::Torque => r.units.torque = unit,
