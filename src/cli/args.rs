@@ -12,7 +12,7 @@ use clap::builder::{PossibleValue, PossibleValuesParser, TypedValueParser};
 
 use reeve::report::svg::View;
 use reeve::report::table::{CaseFilter, TableChoice};
-use reeve::report::Format;
+use reeve::report::{DrawingFormat, Format};
 use reeve::units::{UnitChoice, UnitSystem};
 
 /// A value parser over one of the library's enums: each value's word, its other
@@ -44,6 +44,15 @@ fn format_parser() -> impl TypedValueParser<Value = Format> {
         Format::ALL
             .into_iter()
             .map(|f| (f, f.name(), f.aliases(), f.describe())),
+    )
+}
+
+/// `draw --format`: the words of [`DrawingFormat`].
+pub fn drawing_format_parser() -> impl TypedValueParser<Value = DrawingFormat> {
+    one_of(
+        DrawingFormat::ALL
+            .into_iter()
+            .map(|f| (f, f.name(), &[][..], f.describe())),
     )
 }
 

@@ -8,10 +8,13 @@ use reeve::checks;
 use reeve::model::Rig;
 use reeve::report::svg::{self, DrawOptions};
 use reeve::report::table::{self, CaseFilter, Style, TableChoice};
-use reeve::report::{html, Format, Report};
+use reeve::report::{dxf, html, DrawingFormat, Format, Report};
 use reeve::solve::Solution;
 
-use super::args::{case_parser, table_parser, FormatArgs, OutputArg, RigArgs, UnitsArg, ViewArg};
+use super::args::{
+    case_parser, drawing_format_parser, table_parser, FormatArgs, OutputArg, RigArgs, UnitsArg,
+    ViewArg,
+};
 use super::destination::{emit, Destination};
 use super::{load_and_solve, Failure, EXIT_OK};
 
@@ -40,7 +43,7 @@ pub struct TableArgs {
 
 /// Arguments of `reeve draw`.
 #[derive(Debug, Args)]
-#[command(mut_arg("output", |a| a.required(true).help("The SVG file to write (`-` is stdout)")))]
+#[command(mut_arg("output", |a| a.required(true).help("The SVG or DXF file to write (`-` is stdout)")))]
 pub struct DrawArgs {
     /// The rig.
     #[command(flatten)]
@@ -48,6 +51,9 @@ pub struct DrawArgs {
     /// Where to write.
     #[command(flatten)]
     pub output: OutputArg,
+    /// Drawing format; default: the output's extension (`.dxf`), else SVG.
+    #[arg(long, value_name = "FORMAT", value_parser = drawing_format_parser())]
+    pub format: Option<DrawingFormat>,
     /// Projection.
     #[command(flatten)]
     pub view: ViewArg,
@@ -157,9 +163,19 @@ pub fn run_draw(args: DrawArgs) -> Result<i32, Failure> {
         date: today(),
         standalone: true,
     };
+    let format = args
+        .format
+        .or_else(|| {
+            args.output
+                .output
+                .as_deref()
+                .and_then(DrawingFormat::of_path)
+        })
+        .unwrap_or_default();
     let destination = Destination::from_arg(args.output.output.as_deref(), Destination::Stdout);
-    emit(&destination, &args.rig.rig, |w| {
-        svg::write_svg(w, &rig, &solution, &report, &options)
+    emit(&destination, &args.rig.rig, |w| match format {
+        DrawingFormat::Svg => svg::write_svg(w, &rig, &solution, &report, &options),
+        DrawingFormat::Dxf => dxf::write_dxf(w, &rig, &solution, &report, &options),
     })?;
     Ok(EXIT_OK)
 }

@@ -1,6 +1,6 @@
 //! Escaping for every output format, in one place, one function per target: XML for
 //! SVG, HTML and charts ([`xml`]), CSV ([`csv_field`]), Markdown ([`markdown_cell`]),
-//! and terminal text ([`text_line`] for a cell, [`write_printable`] for a document).
+//! DXF text ([`dxf_text`]) and terminal text ([`text_line`] for a cell, [`write_printable`] for a document).
 //! No writer escapes on its own. Each writer escapes what it writes, even though the
 //! loader already refuses control characters in names and titles ([`crate::text`]): a
 //! rig built in code, or a file name shown as the source or the title, never went
@@ -67,6 +67,27 @@ pub fn markdown_cell(s: &str) -> String {
     printable(s).replace('\\', "\\\\").replace('|', "\\|")
 }
 
+/// One DXF `TEXT` string: unsafe characters escaped (one line), then plain ASCII only,
+/// which every CAD program reads whatever its code page: each other character of the
+/// Basic Multilingual Plane as `\U+XXXX` (the escape AutoCAD and the programs that read
+/// its files decode), one beyond it as `?`; a backslash as `\U+005C` and a `%` that
+/// starts `%%` as `%%%` (both would otherwise start a control code).
+pub fn dxf_text(s: &str) -> String {
+    let s = printable(s);
+    let mut out = String::with_capacity(s.len());
+    let mut chars = s.chars().peekable();
+    while let Some(c) = chars.next() {
+        match c {
+            '%' if chars.peek() == Some(&'%') => out.push_str("%%%"),
+            '\\' => out.push_str("\\U+005C"),
+            ' '..='~' => out.push(c),
+            c if (c as u32) <= 0xFFFF => out.push_str(&format!("\\U+{:04X}", c as u32)),
+            _ => out.push('?'),
+        }
+    }
+    out
+}
+
 /// Runs a text writer into a buffer and writes the result with the characters of
 /// [`crate::text::is_unsafe`] escaped (line feeds and tabs pass), so that no name, title
 /// or file name reaches a terminal raw.
@@ -106,6 +127,15 @@ mod tests {
         assert_eq!(csv_field("-1.5"), "-1.5");
         assert_eq!(csv_field("+2e3"), "+2e3");
         assert_eq!(csv_field("a\u{1b}"), "a\\u{1b}");
+    }
+
+    #[test]
+    fn dxf_text_is_ascii_without_control_codes() {
+        assert_eq!(dxf_text("hand → lid"), "hand \\U+2192 lid");
+        assert_eq!(dxf_text("50 %% off, 5 %"), "50 %%%% off, 5 %");
+        assert_eq!(dxf_text("a\\b"), "a\\U+005Cb");
+        assert_eq!(dxf_text("x\u{1b}"), "x\\U+005Cu{1b}");
+        assert_eq!(dxf_text("🪢"), "?");
     }
 
     #[test]

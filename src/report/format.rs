@@ -56,6 +56,45 @@ impl Format {
     }
 }
 
+/// A format of the drawing (`reeve draw --format`).
+#[derive(Debug, Clone, Copy, PartialEq, Eq, Default)]
+pub enum DrawingFormat {
+    /// SVG, for a browser or a document.
+    #[default]
+    Svg,
+    /// DXF (release 12, ASCII), for a CAD program.
+    Dxf,
+}
+
+impl DrawingFormat {
+    /// Every drawing format, in the order the help lists them.
+    pub const ALL: [DrawingFormat; 2] = [DrawingFormat::Svg, DrawingFormat::Dxf];
+
+    /// The word that names it, which is also its file extension.
+    pub fn name(self) -> &'static str {
+        match self {
+            DrawingFormat::Svg => "svg",
+            DrawingFormat::Dxf => "dxf",
+        }
+    }
+
+    /// One line for the help.
+    pub fn describe(self) -> &'static str {
+        match self {
+            DrawingFormat::Svg => "SVG sheet at a standard scale",
+            DrawingFormat::Dxf => {
+                "DXF (R12) for CAD: the same sheet at full size, layers by kind, the tension table"
+            }
+        }
+    }
+
+    /// The format a file name's extension names (`rig.dxf`), if any.
+    pub fn of_path(path: &std::path::Path) -> Option<DrawingFormat> {
+        let ext = path.extension()?.to_str()?.to_ascii_lowercase();
+        DrawingFormat::ALL.into_iter().find(|f| f.name() == ext)
+    }
+}
+
 #[cfg(test)]
 mod tests {
     use super::*;
@@ -70,5 +109,19 @@ mod tests {
         }
         assert_eq!(Format::parse("markdown"), Some(Format::Markdown));
         assert_eq!(Format::parse("yaml"), None);
+    }
+
+    #[test]
+    fn drawing_formats_from_extensions() {
+        use std::path::Path;
+        assert_eq!(
+            DrawingFormat::of_path(Path::new("a/rig.DXF")),
+            Some(DrawingFormat::Dxf)
+        );
+        assert_eq!(
+            DrawingFormat::of_path(Path::new("rig.svg")),
+            Some(DrawingFormat::Svg)
+        );
+        assert_eq!(DrawingFormat::of_path(Path::new("-")), None);
     }
 }

@@ -4,6 +4,7 @@
 
 pub mod asked;
 pub mod chart;
+pub mod dxf;
 pub mod escape;
 pub mod file;
 pub mod format;
@@ -23,7 +24,7 @@ use crate::solve::{given_quantity, Case, Outcome, Solution, SubRigSolution};
 use crate::units::UnitSystem;
 
 pub use asked::{Asked, Role};
-pub use format::Format;
+pub use format::{DrawingFormat, Format};
 
 /// The caution every human-readable report ends with (DESIGN.md §6).
 pub const CAUTION: &str =

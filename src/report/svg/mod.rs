@@ -26,11 +26,13 @@ use super::table::units_line;
 use super::text::quantity;
 use super::{Report, CAUTION};
 
+pub mod scene;
 mod sheet;
 mod view;
 
-pub use sheet::wrap_words;
+use scene::{Anchor, Layer, Scene, Shape};
 use sheet::*;
+pub use sheet::{civil_date, wrap_words};
 use view::*;
 pub use view::{default_view, View};
 
@@ -43,23 +45,6 @@ pub struct DrawOptions {
     pub date: String,
     /// A stand-alone SVG file (XML prolog, fixed size) rather than one inlined in HTML.
     pub standalone: bool,
-}
-
-/// The Gregorian date `YYYY-MM-DD` of a day counted from 1970-01-01 (day 0).
-///
-/// Civil-from-days algorithm of H. Hinnant, "chrono-Compatible Low-Level Date
-/// Algorithms" (public domain), exact for every day in range.
-pub fn civil_date(days: i64) -> String {
-    let z = days + 719_468;
-    let era = z.div_euclid(146_097);
-    let doe = z.rem_euclid(146_097);
-    let yoe = (doe - doe / 1460 + doe / 36_524 - doe / 146_096) / 365;
-    let doy = doe - (365 * yoe + yoe / 4 - yoe / 100);
-    let mp = (5 * doy + 2) / 153;
-    let day = doy - (153 * mp + 2) / 5 + 1;
-    let month = if mp < 10 { mp + 3 } else { mp - 9 };
-    let year = yoe + era * 400 + i64::from(month <= 2);
-    format!("{year:04}-{month:02}-{day:02}")
 }
 
 /// Writes the drawing as SVG.
@@ -79,6 +64,24 @@ pub fn write_svg(
 
 /// The drawing as an SVG string (see [`write_svg`]).
 pub fn render(rig: &Rig, solution: &Solution, report: &Report, options: &DrawOptions) -> String {
+    draw(rig, solution, report, options, &mut Scene::default())
+}
+
+/// The drawing as shapes on the sheet: the same sheet as the SVG (see [`scene`]).
+pub fn scene(rig: &Rig, solution: &Solution, report: &Report, options: &DrawOptions) -> Scene {
+    let mut scene = Scene::default();
+    draw(rig, solution, report, options, &mut scene);
+    scene
+}
+
+/// Writes the SVG and records every shape of it in `sc`.
+fn draw(
+    rig: &Rig,
+    solution: &Solution,
+    report: &Report,
+    options: &DrawOptions,
+    sc: &mut Scene,
+) -> String {
     let units = &rig.units;
     let view = options.view.unwrap_or_else(|| default_view(rig, solution));
     let points = key_points(rig, solution);
@@ -113,6 +116,10 @@ pub fn render(rig: &Rig, solution: &Solution, report: &Report, options: &DrawOpt
     const TITLE_BLOCK_H: Real = 120.0;
     let page_h =
         (block_top + TITLE_BLOCK_H + 16.0 + caution_lines.len() as Real * 12.0 + 16.0).ceil();
+    sc.page = (PAGE_W, page_h);
+    sc.px_per_m = scale;
+    sc.origin = (left - x0 * scale, TOP + y1 * scale);
+    sc.real_per_paper = drawing_scale.real_per_paper;
 
     let mut s = String::new();
     let warned: Vec<&str> = report
@@ -179,6 +186,7 @@ pub fn render(rig: &Rig, solution: &Solution, report: &Report, options: &DrawOpt
         PAGE_W - 12.0,
         page_h - 12.0
     );
+    sc.rect(Layer::Title, 6.0, 6.0, PAGE_W - 12.0, page_h - 12.0);
 
     let mut placer = Placer::default();
 
@@ -199,6 +207,23 @@ pub fn render(rig: &Rig, solution: &Solution, report: &Report, options: &DrawOpt
             ybase + 5.0
         );
         let label = len(x1 - x0);
+        for (a, b) in [
+            ((ax, TOP + draw_h + 8.0), (ax, ybase + 5.0)),
+            ((bx, TOP + draw_h + 8.0), (bx, ybase + 5.0)),
+            ((ax, ybase), (bx, ybase)),
+        ] {
+            sc.push(Layer::Dimensions, Shape::Line(a, b));
+        }
+        sc.push(
+            Layer::Dimensions,
+            Shape::Text {
+                at: ((ax + bx) / 2.0, ybase + 15.0),
+                size: FONT,
+                anchor: Anchor::Middle,
+                angle: 0.0,
+                text: label.clone(),
+            },
+        );
         let _ = writeln!(
             s,
             "<text class=\"dimension-label\" x=\"{:.1}\" y=\"{:.1}\" font-size=\"{FONT}\" text-anchor=\"middle\" fill=\"#333\" stroke=\"#fff\" stroke-width=\"3\" paint-order=\"stroke\">{}</text>",
@@ -220,6 +245,23 @@ pub fn render(rig: &Rig, solution: &Solution, report: &Report, options: &DrawOpt
             left - 8.0
         );
         let (tx, ty) = (xbase - 6.0, (ay + by) / 2.0);
+        for (a, b) in [
+            ((xbase - 5.0, ay), (left - 8.0, ay)),
+            ((xbase - 5.0, by), (left - 8.0, by)),
+            ((xbase, ay), (xbase, by)),
+        ] {
+            sc.push(Layer::Dimensions, Shape::Line(a, b));
+        }
+        sc.push(
+            Layer::Dimensions,
+            Shape::Text {
+                at: (tx, ty),
+                size: FONT,
+                anchor: Anchor::Middle,
+                angle: 90.0,
+                text: len(y1 - y0),
+            },
+        );
         let half = text_width(&len(y1 - y0), FONT) / 2.0 + 4.0;
         placer
             .taken
@@ -252,12 +294,15 @@ pub fn render(rig: &Rig, solution: &Solution, report: &Report, options: &DrawOpt
             let r0 = arrive - entry.centre;
             let steps = ((turn / 0.05).ceil() as usize).clamp(2, 400);
             let mut d = String::new();
+            let mut points = Vec::with_capacity(steps + 1);
             for k in 0..=steps {
                 let a = sense * turn * k as Real / steps as Real;
                 let p = entry.centre + rotate(&r0, &axle, a);
                 let (x, y) = sheet.at(&p);
                 let _ = write!(d, "{}{x:.1},{y:.1} ", if k == 0 { "M" } else { "L" });
+                points.push((x, y));
             }
+            sc.push(Layer::Spans, Shape::Polyline(points, false));
             let _ = writeln!(
                 s,
                 "<path class=\"wrap\" data-line=\"{}\" data-entry=\"{e}\" d=\"{}\"/>",
@@ -298,6 +343,10 @@ pub fn render(rig: &Rig, solution: &Solution, report: &Report, options: &DrawOpt
                 esc(to),
                 esc(&quantity(forward, Dimension::Force, units))
             );
+            sc.push(Layer::Spans, Shape::Line((ax, ay), (bx, by)));
+            if let (Some(last), Some(t)) = (sc.items.last_mut(), forward) {
+                last.tension = Some(fraction(t));
+            }
             placer.spans.push([(ax, ay), (bx, by)]);
             span_labels.push((k, (ax, ay), (bx, by), forward, colour));
             k += 1;
@@ -339,17 +388,21 @@ pub fn render(rig: &Rig, solution: &Solution, report: &Report, options: &DrawOpt
                     "<path d=\"{}\" fill=\"{fill}\" fill-opacity=\"0.85\" stroke=\"{stroke}\" stroke-width=\"1.3\"/>",
                     circle_path(&sheet, &part.at, &axle, r)
                 );
+                let outline = |k: Real| circle_points(&sheet, &part.at, &axle, r * k);
+                sc.push(Layer::Sheaves, Shape::Polyline(outline(1.0), true));
                 if matches!(part.kind, PartKind::Drum(_)) {
                     let _ = write!(
                         s,
                         "<path d=\"{}\" fill=\"none\" stroke=\"#333\" stroke-width=\"0.8\"/>",
                         circle_path(&sheet, &part.at, &axle, r * 0.6)
                     );
+                    sc.push(Layer::Sheaves, Shape::Polyline(outline(0.6), true));
                 }
                 let _ = write!(
                     s,
                     "<circle cx=\"{cx:.1}\" cy=\"{cy:.1}\" r=\"2.2\" fill=\"#333\"/>"
                 );
+                sc.push(Layer::Sheaves, Shape::Circle((cx, cy), 2.2));
                 let (u, v) = plane_basis(&axle);
                 let (a, b) = (sheet.dir(&u), sheet.dir(&v));
                 (
@@ -358,6 +411,9 @@ pub fn render(rig: &Rig, solution: &Solution, report: &Report, options: &DrawOpt
                 )
             }
             PartKind::Anchor => {
+                let triangle = vec![(cx, cy), (cx - 8.0, cy - 12.0), (cx + 8.0, cy - 12.0)];
+                sc.push(Layer::Parts, Shape::Polyline(triangle, true));
+                sc.push(Layer::Parts, Shape::Circle((cx, cy), 2.5));
                 let _ = write!(
                     s,
                     "<path d=\"M{cx:.1},{cy:.1} l-8,-12 h16 z\" fill=\"url(#hatch)\" stroke=\"#333\" stroke-width=\"1.2\"/><circle cx=\"{cx:.1}\" cy=\"{cy:.1}\" r=\"2.5\" fill=\"#333\"/>"
@@ -365,6 +421,7 @@ pub fn render(rig: &Rig, solution: &Solution, report: &Report, options: &DrawOpt
                 (10.0, 10.0)
             }
             PartKind::Block(block) => {
+                sc.rect(Layer::Parts, cx - 7.0, cy - 7.0, 14.0, 14.0);
                 let _ = write!(
                     s,
                     "<rect x=\"{:.1}\" y=\"{:.1}\" width=\"14\" height=\"14\" fill=\"#cfd8e3\" stroke=\"#333\" stroke-width=\"1.2\"/>",
@@ -374,16 +431,19 @@ pub fn render(rig: &Rig, solution: &Solution, report: &Report, options: &DrawOpt
                 let (dx, dy) = sheet.dir(&block.moves.into_inner());
                 let n = dx.hypot(dy);
                 if n > 0.05 {
+                    let tip = (cx + dx / n * 28.0, cy + dy / n * 28.0);
                     let _ = write!(
                         s,
                         "<line x1=\"{cx:.1}\" y1=\"{cy:.1}\" x2=\"{:.1}\" y2=\"{:.1}\" stroke=\"#1f6f3f\" stroke-width=\"1.5\" stroke-dasharray=\"4 2\" marker-end=\"url(#arrow)\"/>",
-                        cx + dx / n * 28.0,
-                        cy + dy / n * 28.0
+                        tip.0,
+                        tip.1
                     );
+                    sc.push(Layer::Parts, Shape::Line((cx, cy), tip));
                 }
                 (10.0, 10.0)
             }
             PartKind::Weight(_) => {
+                sc.rect(Layer::Parts, cx - 9.0, cy, 18.0, 22.0);
                 let _ = write!(
                     s,
                     "<rect x=\"{:.1}\" y=\"{:.1}\" width=\"18\" height=\"22\" rx=\"2\" fill=\"#555\" stroke=\"#222\" stroke-width=\"1\"/>",
@@ -415,17 +475,21 @@ pub fn render(rig: &Rig, solution: &Solution, report: &Report, options: &DrawOpt
                     s,
                     "<circle cx=\"{cx:.1}\" cy=\"{cy:.1}\" r=\"4\" fill=\"#fff\" stroke=\"#b3261e\" stroke-width=\"1.5\"/>"
                 );
+                sc.push(Layer::Parts, Shape::Circle((cx, cy), 4.0));
                 if let Some(p) = pull {
                     let (dx, dy) = sheet.dir(&p);
                     let n = dx.hypot(dy);
                     if n > 0.05 {
+                        let tip = (cx + dx / n * 40.0, cy + dy / n * 40.0);
                         let _ = write!(
                             s,
                             "<line class=\"pull\" x1=\"{cx:.1}\" y1=\"{cy:.1}\" x2=\"{:.1}\" y2=\"{:.1}\" stroke=\"#b3261e\" stroke-width=\"2.5\" marker-end=\"url(#arrow)\"/>",
-                            cx + dx / n * 40.0,
-                            cy + dy / n * 40.0
+                            tip.0,
+                            tip.1
                         );
+                        sc.push(Layer::Parts, Shape::Line((cx, cy), tip));
                     } else {
+                        sc.push(Layer::Parts, Shape::Circle((cx, cy), 8.0));
                         // Pull along the line of sight: a dot in a circle.
                         let _ = write!(
                             s,
@@ -438,6 +502,7 @@ pub fn render(rig: &Rig, solution: &Solution, report: &Report, options: &DrawOpt
         };
         let reach = half_w.max(half_h);
         if is_warned {
+            sc.push(Layer::Parts, Shape::Circle((cx, cy), reach + 5.0));
             let _ = write!(
                 s,
                 "<circle class=\"warning-mark\" cx=\"{cx:.1}\" cy=\"{cy:.1}\" r=\"{:.1}\" fill=\"none\" stroke=\"#d00000\" stroke-width=\"2\" stroke-dasharray=\"5 3\"/>",
@@ -522,6 +587,7 @@ pub fn render(rig: &Rig, solution: &Solution, report: &Report, options: &DrawOpt
             (cx - half_w - 4.0 - w, cy + FONT / 2.0 - 2.0),
         ];
         let (x, y) = placer.place(&candidates, &label);
+        sc.text(Layer::Labels, (x, y), FONT, &label);
         let _ = writeln!(
             s,
             "<text class=\"part-label\" data-part=\"{}\" x=\"{x:.1}\" y=\"{y:.1}\" fill=\"{}\" font-weight=\"bold\" stroke=\"#fff\" stroke-width=\"3\" paint-order=\"stroke\">{}</text>",
@@ -579,6 +645,7 @@ pub fn render(rig: &Rig, solution: &Solution, report: &Report, options: &DrawOpt
             }
         }
         let (x, y) = placer.place(&candidates, &label);
+        sc.text(Layer::Labels, (x, y), FONT, &label);
         let colour = darken(&colour);
         let _ = writeln!(
             s,
@@ -608,6 +675,23 @@ pub fn render(rig: &Rig, solution: &Solution, report: &Report, options: &DrawOpt
         ly + lh,
         esc(&quantity(t_min.is_finite().then_some(t_min), Dimension::Force, units)),
     );
+    let t_max_text = quantity(t_max.is_finite().then_some(t_max), Dimension::Force, units);
+    let t_min_text = quantity(t_min.is_finite().then_some(t_min), Dimension::Force, units);
+    sc.text(
+        Layer::Title,
+        (lx - 10.0, ly - 22.0),
+        FONT,
+        "forward tension",
+    );
+    sc.text(
+        Layer::Title,
+        (lx - 10.0, ly - 8.0),
+        FONT,
+        &format!("({unit})"),
+    );
+    sc.rect(Layer::Title, lx, ly, 16.0, lh);
+    sc.text(Layer::Title, (lx + 22.0, ly + 10.0), FONT, &t_max_text);
+    sc.text(Layer::Title, (lx + 22.0, ly + lh), FONT, &t_min_text);
     // Key to the symbols, one row each: (symbol at (x, y) centre, text).
     let key_y = ly + lh + 30.0;
     let symbols: [(&str, &str); 8] = [
@@ -679,7 +763,20 @@ pub fn render(rig: &Rig, solution: &Solution, report: &Report, options: &DrawOpt
         block_top + 20.0,
         esc(&report.title)
     );
+    sc.rect(Layer::Title, bx, block_top, bw, TITLE_BLOCK_H);
+    sc.text(
+        Layer::Title,
+        (bx + 10.0, block_top + 20.0),
+        14.0,
+        &report.title,
+    );
     for (i, text) in lines.iter().enumerate() {
+        sc.text(
+            Layer::Title,
+            (bx + 10.0, block_top + 40.0 + 16.0 * i as Real),
+            FONT,
+            text,
+        );
         let _ = writeln!(
             s,
             "<text x=\"{:.1}\" y=\"{:.1}\" font-size=\"11\">{}</text>",
@@ -695,6 +792,8 @@ pub fn render(rig: &Rig, solution: &Solution, report: &Report, options: &DrawOpt
         block_top + TITLE_BLOCK_H + 20.0
     );
     for (i, text) in caution_lines.iter().enumerate() {
+        let at = (20.0, block_top + TITLE_BLOCK_H + 20.0 + 12.0 * i as Real);
+        sc.text(Layer::Title, at, 10.0, text);
         let _ = write!(
             s,
             "<tspan x=\"20\" dy=\"{}\">{}</tspan>",
@@ -706,85 +805,5 @@ pub fn render(rig: &Rig, solution: &Solution, report: &Report, options: &DrawOpt
     s
 }
 
-/// The printed sheet's size: in millimetres, or in inches where the drawing shows US
-/// customary lengths.
-fn sheet_size(width_px: Real, height_px: Real, units: &crate::units::UnitSystem) -> String {
-    let (w, h) = (width_px / PX_PER_MM, height_px / PX_PER_MM);
-    if matches!(units.length.symbol, "in" | "ft") {
-        format!("{:.2} × {:.2} in", w / 25.4, h / 25.4)
-    } else {
-        format!("{w:.0} × {h:.0} mm")
-    }
-}
-
 #[cfg(test)]
-mod tests {
-    use super::*;
-
-    #[test]
-    fn civil_dates() {
-        // Hand-checked: day 0 is 1970-01-01; 2000-03-01 is day 11017 (30 years of
-        // 365 days plus 7 leap days = 10957 to 2000-01-01, then 31 + 29).
-        assert_eq!(civil_date(0), "1970-01-01");
-        assert_eq!(civil_date(11_017), "2000-03-01");
-        assert_eq!(civil_date(11_016), "2000-02-29");
-        assert_eq!(civil_date(-1), "1969-12-31");
-    }
-
-    #[test]
-    fn ramp_ends() {
-        assert_eq!(ramp(0.0), "#1f4e9c");
-        assert_eq!(ramp(1.0), "#d1495b");
-        assert_eq!(ramp(Real::NAN), "#1f4e9c");
-    }
-
-    #[test]
-    fn standard_scales() {
-        // 2.8 m tall in 740 px (195.8 mm): 1:14.3 would fit, so 1:20 is the largest
-        // standard one; 0.12 m in 700 px: 1:1; 5 mm: 20:1 (fit 37:1); 1 km: 1:10 000.
-        let area = (700.0, 740.0);
-        let ratio = |w, h| DrawingScale::fitting(w, h, area).ratio();
-        assert_eq!(ratio(0.2, 2.8), "1:20");
-        assert_eq!(ratio(0.12, 0.1), "1:1");
-        assert_eq!(ratio(0.005, 0.005), "20:1");
-        assert_eq!(ratio(1000.0, 10.0), "1:10000");
-        // A rig that is one point still gets a scale.
-        assert_eq!(ratio(0.0, 0.0), "100:1");
-        let s = DrawingScale::fitting(0.2, 2.8, area);
-        assert!((s.px_per_m() * 2.8 - 2800.0 / 20.0 * PX_PER_MM).abs() < 1e-9);
-    }
-
-    #[test]
-    fn coincident_segments() {
-        let a = [(0.0, 0.0), (100.0, 0.0)];
-        // Parallel, 3 px apart, overlapping by half: on top of each other.
-        assert!(segments_coincide(a, [(50.0, 3.0), (150.0, 3.0)], 4.5));
-        // 6 px apart, or touching end to end, or crossing: not.
-        assert!(!segments_coincide(a, [(0.0, 6.0), (100.0, 6.0)], 4.5));
-        assert!(!segments_coincide(a, [(100.0, 0.0), (200.0, 0.0)], 4.5));
-        assert!(!segments_coincide(a, [(50.0, -50.0), (50.0, 50.0)], 4.5));
-        // A span seen end-on (a dot) on another span.
-        assert!(segments_coincide([(40.0, 1.0), (40.5, 1.0)], a, 4.5));
-    }
-
-    #[test]
-    fn groups_join_transitively() {
-        let x: [Real; 4] = [0.0, 3.0, 6.0, 20.0];
-        let g = groups(x.len(), |i, j| (x[i] - x[j]).abs() < 4.0);
-        assert_eq!(g, vec![vec![0, 1, 2], vec![3]]);
-    }
-
-    #[test]
-    fn segments_and_boxes() {
-        let b = (0.0, 0.0, 10.0, 10.0);
-        assert!(segment_crosses_box((-5.0, 5.0), (15.0, 5.0), b));
-        assert!(segment_crosses_box((2.0, 2.0), (3.0, 3.0), b));
-        assert!(!segment_crosses_box((-5.0, -1.0), (15.0, -1.0), b));
-        assert!(!segment_crosses_box((5.0, 25.0), (25.0, 5.0), b));
-    }
-
-    #[test]
-    fn words_wrap() {
-        assert_eq!(wrap_words("aa bb cc", 5), vec!["aa bb", "cc"]);
-    }
-}
+mod tests;

@@ -8,7 +8,7 @@ use crate::math::{Point, Real, Vector};
 use crate::model::Rig;
 use crate::solve::Solution;
 
-use super::view::{SheetPoint, SheetSegment};
+use super::view::{SheetPoint, SheetSegment, PX_PER_MM};
 
 /// Two unit vectors spanning the plane normal to `axle`.
 pub(super) fn plane_basis(axle: &Vector) -> (Vector, Vector) {
@@ -226,6 +226,24 @@ pub(super) const MIN_HALF_WIDTH_PX: Real = 2.5;
 /// `axle`, projected onto the sheet: an ellipse, widened to [`MIN_HALF_WIDTH_PX`] across
 /// its major axis where the circle is seen (nearly) edge-on.
 pub(super) fn circle_path(sheet: &Sheet, centre: &Point, axle: &Vector, r: Real) -> String {
+    let mut d = String::new();
+    for (k, (x, y)) in circle_points(sheet, centre, axle, r)
+        .into_iter()
+        .enumerate()
+    {
+        let _ = write!(d, "{}{x:.1},{y:.1} ", if k == 0 { "M" } else { "L" });
+    }
+    d.push('Z');
+    d
+}
+
+/// The points of [`circle_path`], px.
+pub(super) fn circle_points(
+    sheet: &Sheet,
+    centre: &Point,
+    axle: &Vector,
+    r: Real,
+) -> Vec<SheetPoint> {
     let (u, v) = plane_basis(axle);
     // The ellipse is M·(cos t, sin t) with M = [a b] the projected radii, px.
     let (a, b) = (sheet.dir(&u), sheet.dir(&v));
@@ -244,7 +262,7 @@ pub(super) fn circle_path(sheet: &Sheet, centre: &Point, axle: &Vector, r: Real)
     let widen = minor < MIN_HALF_WIDTH_PX;
     let angle = 0.5 * (2.0 * c).atan2(p - q);
     let (cx, cy) = sheet.at(centre);
-    let mut d = String::new();
+    let mut points = Vec::with_capacity(72);
     const STEPS: usize = 72;
     for k in 0..STEPS {
         let t = k as Real * std::f64::consts::TAU / STEPS as Real;
@@ -259,14 +277,45 @@ pub(super) fn circle_path(sheet: &Sheet, centre: &Point, axle: &Vector, r: Real)
         } else {
             sheet.at(&(centre + (u * t.cos() + v * t.sin()) * r))
         };
-        let _ = write!(d, "{}{x:.1},{y:.1} ", if k == 0 { "M" } else { "L" });
+        points.push((x, y));
     }
-    d.push('Z');
-    d
+    points
 }
 
 /// Rodrigues rotation of `r` about unit `axis` by `angle`.
 pub(super) fn rotate(r: &Vector, axis: &Vector, angle: Real) -> Vector {
     let (s, c) = angle.sin_cos();
     r * c + axis.cross(r) * s + axis * axis.dot(r) * (1.0 - c)
+}
+
+/// The Gregorian date `YYYY-MM-DD` of a day counted from 1970-01-01 (day 0).
+///
+/// Civil-from-days algorithm of H. Hinnant, "chrono-Compatible Low-Level Date
+/// Algorithms" (public domain), exact for every day in range.
+pub fn civil_date(days: i64) -> String {
+    let z = days + 719_468;
+    let era = z.div_euclid(146_097);
+    let doe = z.rem_euclid(146_097);
+    let yoe = (doe - doe / 1460 + doe / 36_524 - doe / 146_096) / 365;
+    let doy = doe - (365 * yoe + yoe / 4 - yoe / 100);
+    let mp = (5 * doy + 2) / 153;
+    let day = doy - (153 * mp + 2) / 5 + 1;
+    let month = if mp < 10 { mp + 3 } else { mp - 9 };
+    let year = yoe + era * 400 + i64::from(month <= 2);
+    format!("{year:04}-{month:02}-{day:02}")
+}
+
+/// The printed sheet's size: in millimetres, or in inches where the drawing shows US
+/// customary lengths.
+pub(super) fn sheet_size(
+    width_px: Real,
+    height_px: Real,
+    units: &crate::units::UnitSystem,
+) -> String {
+    let (w, h) = (width_px / PX_PER_MM, height_px / PX_PER_MM);
+    if matches!(units.length.symbol, "in" | "ft") {
+        format!("{:.2} × {:.2} in", w / 25.4, h / 25.4)
+    } else {
+        format!("{w:.0} × {h:.0} mm")
+    }
 }
