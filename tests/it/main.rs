@@ -5,6 +5,7 @@
 mod support;
 
 mod cli;
+mod dxf;
 mod friction_published;
 mod generators;
 mod geometry;
