@@ -7,6 +7,10 @@
 //! - pound-force = 0.453 592 37 kg × 9.806 65 m/s² = 4.448 221 615 260 5 N
 //!   (standard gravity, 3rd CGPM 1901);
 //! - gram, centimetre, millimetre, kilonewton: SI prefixes.
+//!
+//! They agree with the conversion factors of NIST Special Publication 811, Appendix B.8
+//! (checked by a test beside the defining values). Which units a report shows is a
+//! [`UnitSystem`]: the file's own, or one of [`UnitChoice`] (`--units`).
 
 use std::fmt;
 
