@@ -175,4 +175,11 @@ impl UnitsArg {
     pub fn shown(self, file: UnitSystem) -> UnitSystem {
         self.units.system(file)
     }
+
+    /// The units a study shows, and those of its CSV: SI (as its JSON, and as it always
+    /// was) unless `--units` names a system.
+    pub fn shown_in_csv(self, file: UnitSystem) -> (UnitSystem, Option<UnitSystem>) {
+        let shown = self.shown(file);
+        (shown, (self.units != UnitChoice::File).then_some(shown))
+    }
 }

@@ -165,7 +165,7 @@ pub fn run_compare(args: CompareArgs) -> Result<i32, Failure> {
             .collect::<Result<Vec<_>, _>>()?;
         compare::compare_rigs(&sources)?
     };
-    c.units = args.units.shown(c.units);
+    (c.units, c.csv_units) = args.units.shown_in_csv(c.units);
     write_out(|w| writers::compare::write(w, &c, format))?;
     Ok(exit_code(c.fails()))
 }
@@ -180,7 +180,7 @@ pub fn run_sweep(args: SweepArgs) -> Result<i32, Failure> {
     let s = source(&args.rig)?;
     let (chart, write, fails): (String, Writer, bool) = if let Some(distance) = &args.stroke {
         let mut st = sweep::stroke(&s, distance, steps, 8)?;
-        st.units = args.units.shown(st.units);
+        (st.units, st.csv_units) = args.units.shown_in_csv(st.units);
         let fails = st.fails();
         (
             writers::sweep::stroke_chart(&st),
@@ -191,7 +191,7 @@ pub fn run_sweep(args: SweepArgs) -> Result<i32, Failure> {
         let text = args.vary.as_deref().unwrap_or_default();
         let vary = sweep::parse_vary(text)?;
         let mut sw = sweep::sweep(&s, &vary, steps)?;
-        sw.units = args.units.shown(sw.units);
+        (sw.units, sw.csv_units) = args.units.shown_in_csv(sw.units);
         // A key that no step can take (no such part, a value in the wrong unit) is bad
         // input, not a table of dashes.
         if sw.steps.iter().all(|st| st.error.is_some()) {
@@ -241,7 +241,7 @@ pub fn run_rank(args: RankArgs) -> Result<i32, Failure> {
         }
     }
     let mut r = rank::rank(&s, alt.as_ref())?;
-    r.units = args.units.shown(r.units);
+    (r.units, r.csv_units) = args.units.shown_in_csv(r.units);
     write_out(|w| writers::rank::write(w, &r, format))?;
     Ok(exit_code(r.fails()))
 }
@@ -260,7 +260,7 @@ pub fn run_spread(args: SpreadArgs) -> Result<i32, Failure> {
     }
     let s = source(&args.rig)?;
     let mut r = spread::spread(&s, args.samples, args.seed, args.threads, true)?;
-    r.units = args.units.shown(r.units);
+    (r.units, r.csv_units) = args.units.shown_in_csv(r.units);
     write_out(|w| writers::spread::write(w, &r, format))?;
     Ok(exit_code(r.fails()))
 }

@@ -33,6 +33,9 @@ pub struct Comparison {
     /// Units of the first rig, for text output.
     #[serde(skip)]
     pub units: UnitSystem,
+    /// Units of the CSV: `None` for SI (as the JSON), else those of `--units`.
+    #[serde(skip)]
+    pub csv_units: Option<UnitSystem>,
 }
 
 /// Columns that ask for the same quantity (and unit, of a drive or of a load alike).
@@ -123,6 +126,7 @@ pub fn compare(columns: Vec<Figures>, units: UnitSystem) -> Comparison {
         groups,
         caution: CAUTION,
         units,
+        csv_units: None,
     }
 }
 
@@ -189,6 +193,7 @@ impl Comparison {
             }],
             caution: self.caution,
             units: self.units,
+            csv_units: self.csv_units,
         }
     }
 

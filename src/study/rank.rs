@@ -186,6 +186,9 @@ pub struct Ranking {
     /// Units of the rig, for text output.
     #[serde(skip)]
     pub units: UnitSystem,
+    /// Units of the CSV: `None` for SI (as the JSON), else those of `--units`.
+    #[serde(skip)]
+    pub csv_units: Option<UnitSystem>,
 }
 
 impl Ranking {
@@ -482,5 +485,6 @@ pub fn rank(source: &RigSource, alt: Option<&Alternative>) -> Result<Ranking, St
         sensitivities,
         caution: CAUTION,
         units: rig.units,
+        csv_units: None,
     })
 }

@@ -194,6 +194,9 @@ pub struct Spread {
     /// Units of the rig, for text output.
     #[serde(skip)]
     pub units: UnitSystem,
+    /// Units of the CSV: `None` for SI (as the JSON), else those of `--units`.
+    #[serde(skip)]
+    pub csv_units: Option<UnitSystem>,
 }
 
 impl Spread {
@@ -324,6 +327,7 @@ pub fn spread(
         failing_share,
         caution: CAUTION,
         units: rig.units,
+        csv_units: None,
     })
 }
 

@@ -125,6 +125,9 @@ pub struct Sweep {
     /// Units of the rig, for text output.
     #[serde(skip)]
     pub units: UnitSystem,
+    /// Units of the CSV: `None` for SI (as the JSON), else those of `--units`.
+    #[serde(skip)]
+    pub csv_units: Option<UnitSystem>,
 }
 
 impl Sweep {
@@ -198,6 +201,7 @@ pub fn sweep(source: &RigSource, vary: &Vary, steps: usize) -> Result<Sweep, Stu
         steps: out,
         caution: CAUTION,
         units,
+        csv_units: None,
     })
 }
 
@@ -241,6 +245,9 @@ pub struct Stroke {
     /// Units of the rig, for text output.
     #[serde(skip)]
     pub units: UnitSystem,
+    /// Units of the CSV: `None` for SI (as the JSON), else those of `--units`.
+    #[serde(skip)]
+    pub csv_units: Option<UnitSystem>,
 }
 
 /// Why the stroke stops where a span closes up: a moving part has reached (or passed
@@ -366,6 +373,7 @@ pub fn stroke(
         steps: out,
         caution: CAUTION,
         units: rig.units,
+        csv_units: None,
     })
 }
 

@@ -10,14 +10,15 @@ const NOT_IMPERIAL: [&str; 11] = [
 ];
 
 /// Each place in `text` where `symbol` stands as a unit: after a number and a space, in
-/// parentheses (a header), or after `/` or `per ` (a ratio), and not followed by more of
-/// a word or a product.
+/// parentheses (a header), after `_` (a CSV header, `ideal_N`), or after `/` or `per `
+/// (a ratio), and not followed by more of a word or a product.
 fn unit_uses<'a>(text: &'a str, symbol: &str) -> Vec<&'a str> {
     let mut found = Vec::new();
     for (i, _) in text.match_indices(symbol) {
         let before = &text[..i];
         let after = &text[i + symbol.len()..];
         let unit_like_before = before.ends_with('(')
+            || before.ends_with('_')
             || before.ends_with('/')
             || before.ends_with("per ")
             || (before.ends_with(' ')
@@ -114,8 +115,16 @@ fn imperial_outputs(rig: &str, stroke: &str, vary: &str) -> Vec<(String, String)
         run(&["report", rig, "-o", "-"]),
         run(&["compare", rig, rig]),
         run(&["compare", rig, rig, "--format", "md"]),
+        run(&["compare", rig, rig, "--format", "csv"]),
         run(&["rank", rig]),
+        run(&["rank", rig, "--format", "csv"]),
         run(&["sweep", rig, "--stroke", stroke, "--steps", "3"]),
+        run(&[
+            "sweep", rig, "--stroke", stroke, "--steps", "3", "--format", "csv",
+        ]),
+        run(&[
+            "sweep", rig, "--vary", vary, "--steps", "3", "--format", "csv",
+        ]),
         run(&[
             "sweep", rig, "--vary", vary, "--steps", "3", "--plot", &chart_arg,
         ]),

@@ -11,7 +11,7 @@ use crate::units::{Dimension, UnitSystem};
 use super::super::table::{csv_number, write_csv, Table};
 use super::super::text::{capitalise, number};
 use super::super::Format;
-use super::{margin_cell, verdict_cell, write_human, write_human_sections};
+use super::{margin_cell, verdict_cell, write_human, write_human_sections, CsvUnit};
 
 /// A row: label, SI unit for CSV, value per column, change per column, how to show.
 struct Row {
@@ -247,13 +247,28 @@ pub fn csv_table(c: &Comparison) -> Table {
             .skip(1)
             .map(|f| format!("{} change %", f.label)),
     );
+    // The asked quantity's rows and the tension's carry a unit `--units` may change.
+    let asked = c
+        .columns
+        .first()
+        .map(|f| (f.solve_for.unit(), f.solve_for.quantity.dimension()));
     let rows = rows(c, &c.units)
         .into_iter()
         .map(|r| {
-            let mut cells = vec![r.label.to_string(), r.unit.to_string()];
+            let dimension = match asked {
+                Some((si, d)) if r.unit == si => Some(d),
+                _ if r.unit == "N" => Some(Dimension::Force),
+                _ => None,
+            };
+            let u = dimension.map(|d| CsvUnit::new(c.csv_units.as_ref(), d, r.unit));
+            let unit = u.as_ref().map_or(r.unit, |u| u.symbol);
+            let mut cells = vec![r.label.to_string(), unit.to_string()];
             match &r.csv_text {
                 Some(text) => cells.extend(text.iter().cloned()),
-                None => cells.extend(r.values.iter().map(|v| csv_number(*v))),
+                None => cells.extend(r.values.iter().map(|v| match &u {
+                    Some(u) => u.number(*v),
+                    None => csv_number(*v),
+                })),
             }
             cells.extend(r.changes.iter().skip(1).map(|v| csv_number(*v)));
             cells

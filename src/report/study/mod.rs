@@ -6,9 +6,10 @@
 use std::io::{self, Write};
 
 use super::escape::write_printable;
-use super::table::{write_markdown_table, write_text_table, Table};
+use super::table::{csv_number, write_markdown_table, write_text_table, Table};
 use crate::math::Real;
 use crate::study::Verdict;
+use crate::units::{Dimension, UnitSystem};
 
 use super::{Format, CAUTION};
 
@@ -16,6 +17,57 @@ pub mod compare;
 pub mod rank;
 pub mod spread;
 pub mod sweep;
+
+/// The unit of one figure in a study's CSV: SI, spelt as the JSON's keys spell it, unless
+/// `--units` named a system (the study's `csv_units`).
+pub(super) struct CsvUnit {
+    /// SI value of one of the unit.
+    si: Real,
+    /// Its symbol for the header.
+    pub(super) symbol: &'static str,
+}
+
+impl CsvUnit {
+    /// The unit of a figure of `dimension` whose SI spelling is `si_symbol`.
+    pub(super) fn new(
+        shown: Option<&UnitSystem>,
+        dimension: Dimension,
+        si_symbol: &'static str,
+    ) -> CsvUnit {
+        match shown {
+            Some(u) => {
+                let unit = u.unit(dimension);
+                CsvUnit {
+                    si: unit.si,
+                    symbol: unit.symbol,
+                }
+            }
+            None => CsvUnit {
+                si: 1.0,
+                symbol: si_symbol,
+            },
+        }
+    }
+
+    /// A travel or span length: [`UnitSystem::span_length`] where `--units` is given.
+    pub(super) fn span(shown: Option<&UnitSystem>, si_symbol: &'static str) -> CsvUnit {
+        match shown {
+            Some(u) => CsvUnit {
+                si: u.span_length.si,
+                symbol: u.span_length.symbol,
+            },
+            None => CsvUnit {
+                si: 1.0,
+                symbol: si_symbol,
+            },
+        }
+    }
+
+    /// An SI value in this unit, full precision, empty when missing.
+    pub(super) fn number(&self, x: Option<Real>) -> String {
+        csv_number(x.map(|v| v / self.si))
+    }
+}
 
 /// Writes a titled study table in a human-readable format (text or Markdown), with
 /// notes, ending with the caution; unsafe characters in names are escaped.

@@ -10,7 +10,7 @@ use crate::study::Verdict;
 use super::super::table::{csv_number, write_csv, write_markdown_table, write_text_table, Table};
 use super::super::text::{number, quantity};
 use super::super::Format;
-use super::{margin_cell, verdict_cell, write_human};
+use super::{margin_cell, verdict_cell, write_human, CsvUnit};
 
 /// Writes a ranking.
 ///
@@ -26,6 +26,8 @@ pub fn write(w: &mut dyn Write, r: &Ranking, format: Format) -> io::Result<()> {
     let mut t = Table::study();
     let mut s = Table::study();
     if format == Format::Csv {
+        let u = CsvUnit::new(r.csv_units.as_ref(), d, si);
+        let si = u.symbol;
         t.headers(vec![
             "rank".into(),
             "part".into(),
@@ -53,12 +55,12 @@ pub fn write(w: &mut dyn Write, r: &Ranking, format: Format) -> io::Result<()> {
                 (i + 1).to_string(),
                 p.part.clone(),
                 p.kind.into(),
-                csv_number(p.frictionless),
-                csv_number(p.frictionless_saved),
-                csv_number(p.frictionless_worse_by),
-                csv_number(p.alternative),
-                csv_number(p.alternative_saved),
-                csv_number(p.alternative_worse_by),
+                u.number(p.frictionless),
+                u.number(p.frictionless_saved),
+                u.number(p.frictionless_worse_by),
+                u.number(p.alternative),
+                u.number(p.alternative_saved),
+                u.number(p.alternative_worse_by),
                 p.note.clone().unwrap_or_default(),
             ];
             row.extend(verdict_csv(&p.frictionless_verdict));
@@ -79,9 +81,9 @@ pub fn write(w: &mut dyn Write, r: &Ranking, format: Format) -> io::Result<()> {
             s.text_row(vec![
                 x.key.clone(),
                 format!("{}", x.value),
-                csv_number(x.saved_with_10pct_less_friction),
-                csv_number(x.worse_with_10pct_less_friction),
-                csv_number(x.derivative),
+                u.number(x.saved_with_10pct_less_friction),
+                u.number(x.worse_with_10pct_less_friction),
+                u.number(x.derivative),
                 csv_number(x.elasticity),
             ]);
         }

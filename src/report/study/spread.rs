@@ -10,7 +10,7 @@ use crate::units::Dimension;
 use super::super::table::{csv_number, write_csv, Table};
 use super::super::text::{capitalise, number, quantity};
 use super::super::Format;
-use super::{margin_cell, write_human};
+use super::{margin_cell, write_human, CsvUnit};
 
 /// A row of the spread table: name, SI unit, dimension (none: a ratio shown in
 /// percent), nominal value, percentiles.
@@ -54,14 +54,16 @@ pub fn write(w: &mut dyn Write, s: &Spread, format: Format) -> io::Result<()> {
                 .map(String::from)
                 .to_vec(),
         );
-        for (name, unit, _, nominal, p) in rows {
+        for (name, unit, dim, nominal, p) in rows {
+            let u = dim.map(|d| CsvUnit::new(s.csv_units.as_ref(), d, unit));
+            let n = |x: Option<Real>| u.as_ref().map_or_else(|| csv_number(x), |u| u.number(x));
             t.text_row(vec![
                 name.into(),
-                unit.into(),
-                csv_number(nominal),
-                csv_number(p.map(|p| p.p5)),
-                csv_number(p.map(|p| p.p50)),
-                csv_number(p.map(|p| p.p95)),
+                u.as_ref().map_or(unit, |u| u.symbol).into(),
+                n(nominal),
+                n(p.map(|p| p.p5)),
+                n(p.map(|p| p.p50)),
+                n(p.map(|p| p.p95)),
             ]);
         }
         return write_csv(w, &t);

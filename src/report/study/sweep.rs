@@ -13,7 +13,7 @@ use super::super::chart::{self, Panel, Series};
 use super::super::table::{csv_number, write_csv, Table};
 use super::super::text::{number, quantity};
 use super::super::Format;
-use super::{margin_cell, stalled_note, verdict_cell, write_human};
+use super::{margin_cell, stalled_note, verdict_cell, write_human, CsvUnit};
 
 /// Whether any row has a margin (something given to compare with).
 fn any_margin(verdicts: &[&Verdict]) -> bool {
@@ -76,6 +76,8 @@ pub fn write_sweep(w: &mut dyn Write, s: &Sweep, format: Format) -> io::Result<(
         .map_or(Dimension::Force, |a| a.quantity.dimension());
     let mut t = Table::study();
     if format == Format::Csv {
+        let u = CsvUnit::new(s.csv_units.as_ref(), d, si);
+        let si = u.symbol;
         t.headers(vec![
             value_heading(&s.key, &s.unit),
             format!("ideal_{si}"),
@@ -88,9 +90,9 @@ pub fn write_sweep(w: &mut dyn Write, s: &Sweep, format: Format) -> io::Result<(
         for st in &s.steps {
             let mut row = vec![
                 format!("{}", st.value),
-                csv_number(st.ideal),
-                csv_number(st.forward),
-                csv_number(st.back),
+                u.number(st.ideal),
+                u.number(st.forward),
+                u.number(st.back),
                 csv_number(st.efficiency),
                 st.error.clone().unwrap_or_default(),
             ];
@@ -203,24 +205,39 @@ pub fn write_stroke(w: &mut dyn Write, s: &Stroke, format: Format) -> io::Result
         .map_or(Dimension::Force, |a| a.quantity.dimension());
     let mut t = Table::study();
     if format == Format::Csv {
+        let shown = s.csv_units.as_ref();
+        let u = CsvUnit::new(shown, d, si);
+        let force = CsvUnit::new(shown, Dimension::Force, "n");
+        // An angle of a drum's travel stays in radians, as the JSON gives it.
+        let (travel, travel_unit) = if s.travel_unit == "rad" {
+            (CsvUnit::new(None, d, "rad"), "rad")
+        } else {
+            let t = CsvUnit::span(shown, "m");
+            let symbol = t.symbol;
+            (t, symbol)
+        };
         t.headers(vec![
-            format!("travel_{}", s.travel_unit),
-            format!("forward_{si}"),
-            format!("back_{si}"),
+            format!("travel_{travel_unit}"),
+            format!("forward_{}", u.symbol),
+            format!("back_{}", u.symbol),
             "velocity_ratio".into(),
             "largest_fleet_deg".into(),
-            "largest_tension_n".into(),
+            format!("largest_tension_{}", force.symbol),
             "error".into(),
         ]);
         t.headers(verdict_headers());
         for st in &s.steps {
             let mut row = vec![
-                format!("{}", st.travel),
-                csv_number(st.forward),
-                csv_number(st.back),
+                if s.csv_units.is_some() {
+                    travel.number(Some(st.travel))
+                } else {
+                    format!("{}", st.travel)
+                },
+                u.number(st.forward),
+                u.number(st.back),
                 csv_number(st.velocity_ratio),
                 csv_number(st.largest_fleet_deg),
-                csv_number(st.largest_tension_n),
+                force.number(st.largest_tension_n),
                 st.error.clone().unwrap_or_default(),
             ];
             row.extend(verdict_csv(&st.verdict));
