@@ -692,35 +692,7 @@ fn draw(
     sc.rect(Layer::Title, lx, ly, 16.0, lh);
     sc.text(Layer::Title, (lx + 22.0, ly + 10.0), FONT, &t_max_text);
     sc.text(Layer::Title, (lx + 22.0, ly + lh), FONT, &t_min_text);
-    // Key to the symbols, one row each: (symbol at (x, y) centre, text).
-    let key_y = ly + lh + 30.0;
-    let symbols: [(&str, &str); 8] = [
-        ("<circle cx=\"{x}\" cy=\"{y}\" r=\"6\" fill=\"#f4f4f4\" stroke=\"#333\"/>", "sheave"),
-        ("<circle cx=\"{x}\" cy=\"{y}\" r=\"6\" fill=\"url(#hatch)\" stroke=\"#333\"/>", "fixed guide"),
-        ("<circle cx=\"{x}\" cy=\"{y}\" r=\"6\" fill=\"#e8e2d4\" stroke=\"#333\"/><circle cx=\"{x}\" cy=\"{y}\" r=\"3.5\" fill=\"none\" stroke=\"#333\" stroke-width=\"0.8\"/>", "drum"),
-        ("<path d=\"M{x},{y} m0,5 l-6,-9 h12 z\" fill=\"url(#hatch)\" stroke=\"#333\"/>", "anchor"),
-        ("<rect x=\"{x}\" y=\"{y}\" transform=\"translate(-6 -6)\" width=\"12\" height=\"12\" fill=\"#cfd8e3\" stroke=\"#333\"/>", "block (- - travel)"),
-        ("<rect x=\"{x}\" y=\"{y}\" transform=\"translate(-6 -7)\" width=\"12\" height=\"14\" rx=\"2\" fill=\"#555\" stroke=\"#222\"/>", "weight"),
-        ("<path d=\"M{x},{y} m-8,0 h12\" stroke=\"#b3261e\" stroke-width=\"2.5\" marker-end=\"url(#arrow)\"/>", "haul, pull"),
-        ("<circle cx=\"{x}\" cy=\"{y}\" r=\"7\" fill=\"none\" stroke=\"#d00000\" stroke-width=\"2\" stroke-dasharray=\"5 3\"/>", "warning"),
-    ];
-    s.push_str("<g class=\"key\" font-size=\"10\" fill=\"#222\">");
-    for (i, (symbol, text)) in symbols.iter().enumerate() {
-        let (x, y) = (lx + 2.0, key_y + 20.0 * i as Real);
-        s.push_str(
-            &symbol
-                .replace("{x}", &format!("{x:.1}"))
-                .replace("{y}", &format!("{y:.1}")),
-        );
-        let _ = write!(
-            s,
-            "<text x=\"{:.1}\" y=\"{:.1}\">{}</text>",
-            x + 12.0,
-            y + 4.0,
-            esc(text)
-        );
-    }
-    s.push_str("</g>\n");
+    write_key(&mut s, lx, ly + lh + 30.0);
 
     // Title block.
     let h = &report.headline;
