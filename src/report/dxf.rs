@@ -1,7 +1,7 @@
-//! The drawing of `reeve draw --format dxf`: the same sheet as the SVG (the shapes the
-//! SVG writer records in [`Scene`]) as an ASCII DXF of release 12 (`AC1009`), the
-//! version every CAD program opens, plus the tension table of `reeve table` drawn as a
-//! grid of lines and text under the sheet.
+//! The drawing of `reeve draw --format dxf`: the same sheet as the stand-alone SVG (the
+//! shapes the SVG writer records in [`Scene`], the tension table under the caution
+//! included) as an ASCII DXF of release 12 (`AC1009`), the version every CAD program
+//! opens.
 //!
 //! Model space holds the sheet at full size in the shown length unit (`$INSUNITS`): the
 //! rig's parts and spans at their true projected places (the world's projected origin at
@@ -28,13 +28,7 @@ use crate::solve::Solution;
 use super::escape::dxf_text;
 use super::svg::scene::{Anchor, Layer, Scene, Shape};
 use super::svg::{self, DrawOptions};
-use super::table::{span_table, CaseFilter, Style};
 use super::Report;
-
-/// Font size of the tension table, px of the sheet (the SVG's label size).
-const TABLE_FONT: Real = 11.0;
-/// Row height of the tension table, px.
-const ROW: Real = 18.0;
 
 /// AutoCAD colour index of each layer: white (black on a light background) for the
 /// outlines and text, green for the point parts, blue for the spans, grey for the
@@ -74,69 +68,6 @@ fn insunits(symbol: &str) -> u8 {
     }
 }
 
-/// Adds the tension table (the span table of `reeve table`, all cases, the unit in
-/// every header) under the sheet, framed, to the scene.
-fn add_table(scene: &mut Scene, report: &Report, rig: &Rig) {
-    let table = span_table(report, &rig.units, CaseFilter::All, Style::Human);
-    let char_w = TABLE_FONT * 0.6;
-    let texts: Vec<Vec<String>> = std::iter::once(
-        table
-            .columns
-            .iter()
-            .map(|c| c.header.clone())
-            .collect::<Vec<_>>(),
-    )
-    .chain(
-        table
-            .rows
-            .iter()
-            .map(|r| r.iter().map(|c| c.text()).collect()),
-    )
-    .collect();
-    let widths: Vec<Real> = (0..table.columns.len())
-        .map(|i| {
-            texts
-                .iter()
-                .filter_map(|r| r.get(i))
-                .map(|t| t.chars().count())
-                .max()
-                .unwrap_or(0) as Real
-                * char_w
-                + 12.0
-        })
-        .collect();
-    let (x0, top) = (6.0, scene.page.1 + 24.0);
-    let total_w: Real = widths.iter().sum();
-    scene.text(
-        Layer::Table,
-        (x0, top - 6.0),
-        14.0,
-        &format!("Tension table: {}", report.title),
-    );
-    let rows = texts.len();
-    let bottom = top + ROW * rows as Real;
-    for r in 0..=rows {
-        let y = top + ROW * r as Real;
-        scene.push(Layer::Table, Shape::Line((x0, y), (x0 + total_w, y)));
-    }
-    let mut x = x0;
-    for (i, w) in widths.iter().enumerate() {
-        scene.push(Layer::Table, Shape::Line((x, top), (x, bottom)));
-        for (r, row) in texts.iter().enumerate() {
-            if let Some(t) = row.get(i) {
-                scene.text(
-                    Layer::Table,
-                    (x + 6.0, top + ROW * (r as Real + 1.0) - 5.0),
-                    TABLE_FONT,
-                    t,
-                );
-            }
-        }
-        x += w;
-    }
-    scene.push(Layer::Table, Shape::Line((x, top), (x, bottom)));
-}
-
 /// Writes the drawing as DXF (release 12, ASCII).
 ///
 /// # Errors
@@ -148,8 +79,12 @@ pub fn write_dxf(
     report: &Report,
     options: &DrawOptions,
 ) -> io::Result<()> {
-    let mut scene = svg::scene(rig, solution, report, options);
-    add_table(&mut scene, report, rig);
+    // Always the stand-alone sheet: the one with the tension table.
+    let options = DrawOptions {
+        standalone: true,
+        ..options.clone()
+    };
+    let scene = svg::scene(rig, solution, report, &options);
     w.write_all(dxf(&scene, rig.units.length).as_bytes())
 }
 
@@ -314,8 +249,13 @@ fn dxf(scene: &Scene, unit: crate::units::Unit) -> String {
                 if *angle != 0.0 {
                     group(&mut out, 50, coordinate(*angle));
                 }
-                if *anchor == Anchor::Middle {
-                    group(&mut out, 72, 1);
+                let horizontal = match anchor {
+                    Anchor::Start => 0,
+                    Anchor::Middle => 1,
+                    Anchor::End => 2,
+                };
+                if horizontal != 0 {
+                    group(&mut out, 72, horizontal);
                     point(&mut out, 11, *p);
                 }
             }

@@ -259,6 +259,28 @@ fn the_dxf_holds_the_drawing_in_layers_and_the_tension_table() {
 }
 
 #[test]
+fn the_svg_sheet_carries_the_same_tension_table() {
+    // The stand-alone SVG and the DXF are one sheet: the table's cells are the same text.
+    let rig = example_rig("workshop-hoist");
+    let svg = stdout_of(&["draw", &rig, "-o", "-"]);
+    let doc = roxmltree::Document::parse(&svg).unwrap();
+    let group = doc
+        .descendants()
+        .find(|n| n.attribute("class") == Some("tension-table"))
+        .expect("a tension table on the sheet");
+    let svg_cells: Vec<String> = group
+        .descendants()
+        .filter(|n| n.tag_name().name() == "text")
+        .filter_map(|n| n.text().map(str::to_string))
+        .collect();
+    let dxf_cells = texts(&read_dxf(&draw_dxf(&rig, &[])), "table");
+    assert_eq!(svg_cells, dxf_cells);
+    // The HTML report's inline drawing has none: the report shows the tables itself.
+    let html = stdout_of(&["report", &rig, "-o", "-"]);
+    assert!(!html.contains("tension-table"));
+}
+
+#[test]
 fn the_dxf_follows_the_units_and_the_extension() {
     let rig = test_rig("imperial-winch.yaml");
     let scratch = Scratch::new("dxf");

@@ -27,6 +27,7 @@ use super::text::quantity;
 use super::{Report, CAUTION};
 
 pub mod scene;
+mod schedule;
 mod sheet;
 mod view;
 
@@ -114,8 +115,12 @@ fn draw(
     let block_top = (TOP + draw_h + 80.0).max(TOP + 440.0);
     // A whole number of px, so that the sheet's size in mm states it exactly.
     const TITLE_BLOCK_H: Real = 120.0;
-    let page_h =
-        (block_top + TITLE_BLOCK_H + 16.0 + caution_lines.len() as Real * 12.0 + 16.0).ceil();
+    // A stand-alone sheet carries the tension table under the caution.
+    let schedule = options
+        .standalone
+        .then(|| schedule::Schedule::new(report, units, PAGE_W - 40.0));
+    let table_top = block_top + TITLE_BLOCK_H + 16.0 + caution_lines.len() as Real * 12.0 + 8.0;
+    let page_h = (table_top + 8.0 + schedule.as_ref().map_or(0.0, |t| t.height() + 8.0)).ceil();
     sc.page = (PAGE_W, page_h);
     sc.px_per_m = scale;
     sc.origin = (left - x0 * scale, TOP + y1 * scale);
@@ -773,7 +778,11 @@ fn draw(
             esc(text)
         );
     }
-    s.push_str("</text>\n</svg>\n");
+    s.push_str("</text>\n");
+    if let Some(table) = &schedule {
+        table.draw(&mut s, sc, 20.0, table_top);
+    }
+    s.push_str("</svg>\n");
     s
 }
 

@@ -60,6 +60,8 @@ pub enum Anchor {
     Start,
     /// At its middle (`text-anchor="middle"`).
     Middle,
+    /// At its end (`text-anchor="end"`: right-aligned numbers).
+    End,
 }
 
 /// One shape on the sheet, px.
