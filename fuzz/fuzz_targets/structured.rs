@@ -1,7 +1,7 @@
 //! Fuzz target: a rig file with commands, run in-process through the library paths the
 //! command line uses: `--set`, `variants`, `compare`, `sweep` (`--vary` and
 //! `--stroke`), `rank` (with `--to`), `spread`, the span and part tables, the SVG
-//! drawing, the HTML report and the studies' charts.
+//! drawing and its DXF, the HTML report and the studies' charts.
 //!
 //! The input is rig text; lines that start with `#%` (YAML comments, so the rig's line
 //! numbers stay as written) are commands, at most [`MAX_COMMANDS`] of them:
@@ -10,7 +10,7 @@
 //! #% set KEY=VALUE                   an override, as `--set` (applies to every command)
 //! #% check                           check text and JSON
 //! #% table FORMAT CASE CHOICE        text|md|csv|json, all|ideal|forward|back, both|spans|parts
-//! #% draw VIEW                       front|side|top|iso|auto
+//! #% draw VIEW                       front|side|top|iso|auto (SVG and DXF)
 //! #% html VIEW
 //! #% variants FORMAT                 compare --variants
 //! #% compare FORMAT                  the rig as written beside the rig with the overrides
@@ -27,8 +27,9 @@
 //! keeps NaN and infinities that JSON would turn into `null`) nor a `NaN` or `inf` in any
 //! text, table, chart or drawing; efficiencies between 0 and 1 or absent; every JSON
 //! output parses; every SVG (drawings, charts, and each one inside the HTML) parses as
-//! XML with finite coordinates; every load error names the file and locates each problem
-//! (a line and column, or the key or part it concerns).
+//! XML with finite coordinates; every DXF is ASCII, pairs of lines, with finite numbers;
+//! every load error names the file and locates each problem (a line and column, or the
+//! key or part it concerns).
 //!
 //! Run (nightly): `cargo +nightly fuzz run structured corpus/structured -- -dict=rig.dict
 //! -max_len=4096 -timeout=5`.
@@ -177,6 +178,21 @@ fuzz_target!(|data: &[u8]| {
                 if verb == "draw" {
                     svg::write_svg(&mut out, &rig, &solution, &report, &options).unwrap();
                     ctx.svg(std::str::from_utf8(&out).unwrap(), "draw");
+                    // The DXF of the same sheet: ASCII, pairs of lines, every number finite.
+                    let mut dxf = Vec::new();
+                    reeve::report::dxf::write_dxf(&mut dxf, &rig, &solution, &report, &options)
+                        .unwrap();
+                    assert!(dxf.is_ascii(), "dxf: not ASCII");
+                    ctx.text(&dxf, "dxf");
+                    let lines: Vec<&str> = std::str::from_utf8(&dxf).unwrap().lines().collect();
+                    assert!(lines.len() % 2 == 0, "dxf: not pairs of lines");
+                    for pair in lines.chunks(2) {
+                        let code: u16 = pair[0].trim().parse().expect("dxf: group code");
+                        if (10..=59).contains(&code) {
+                            let x: f64 = pair[1].trim().parse().expect("dxf: a number");
+                            assert!(x.is_finite(), "dxf: {x} at group {code}");
+                        }
+                    }
                 } else {
                     html::write_html(&mut out, &rig, &solution, &report, &options, SOURCE).unwrap();
                     ctx.html(std::str::from_utf8(&out).unwrap());

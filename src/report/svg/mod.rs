@@ -68,7 +68,7 @@ pub fn render(rig: &Rig, solution: &Solution, report: &Report, options: &DrawOpt
     draw(rig, solution, report, options, &mut Scene::default())
 }
 
-/// The drawing as shapes on the sheet: the same sheet as the SVG (see [`scene`]).
+/// The drawing as shapes on the sheet: the same sheet as the SVG (see [`scene::Scene`]).
 pub fn scene(rig: &Rig, solution: &Solution, report: &Report, options: &DrawOptions) -> Scene {
     let mut scene = Scene::default();
     draw(rig, solution, report, options, &mut scene);
