@@ -324,3 +324,47 @@ fn the_dxf_is_never_written_over_the_input() {
     assert_eq!(ran.code, 2, "{}", ran.stderr);
     assert_eq!(std::fs::read_to_string(&rig).unwrap(), before);
 }
+
+#[test]
+fn every_example_rig_in_every_view_gives_a_readable_dxf() {
+    let rigs = std::fs::read_dir(format!("{}/rigs", super::support::ROOT)).unwrap();
+    for entry in rigs {
+        let path = entry.unwrap().path();
+        if path.extension().and_then(|e| e.to_str()) != Some("yaml") {
+            continue;
+        }
+        let rig = path.display().to_string();
+        for view in ["front", "side", "top", "iso"] {
+            let text = draw_dxf(&rig, &["--view", view, "--units", "imperial"]);
+            assert!(text.is_ascii(), "{rig} {view}: ASCII");
+            let dxf = read_dxf(&text);
+            for e in &dxf.sections["ENTITIES"] {
+                for (code, value) in &e.groups {
+                    if (10..=59).contains(code) {
+                        let x: f64 = value.trim().parse().unwrap_or_else(|err| {
+                            panic!("{rig} {view}: {} group {code} `{value}`: {err}", e.kind)
+                        });
+                        assert!(x.is_finite(), "{rig} {view}: {x}");
+                    }
+                }
+            }
+            // A POLYLINE's vertices end with SEQEND.
+            let kinds: Vec<&str> = dxf.sections["ENTITIES"]
+                .iter()
+                .map(|e| e.kind.as_str())
+                .collect();
+            let mut open = false;
+            for k in kinds {
+                match k {
+                    "POLYLINE" => {
+                        assert!(!open, "{rig} {view}: POLYLINE inside a POLYLINE");
+                        open = true;
+                    }
+                    "VERTEX" => assert!(open, "{rig} {view}: VERTEX outside a POLYLINE"),
+                    "SEQEND" => open = false,
+                    _ => assert!(!open, "{rig} {view}: {k} before SEQEND"),
+                }
+            }
+        }
+    }
+}
