@@ -32,6 +32,8 @@ pub enum Dimension {
     Mass,
     /// Newton-metres inside.
     Torque,
+    /// Kilograms per metre inside (a rope's `mass_per_length`; DESIGN.md §7).
+    MassPerLength,
 }
 
 impl Dimension {
@@ -42,6 +44,7 @@ impl Dimension {
             Dimension::Force => "force",
             Dimension::Mass => "mass",
             Dimension::Torque => "torque",
+            Dimension::MassPerLength => "mass per length",
         }
     }
 
@@ -49,9 +52,10 @@ impl Dimension {
     pub fn spellings(self) -> &'static [&'static str] {
         match self {
             Dimension::Length => &["mm", "cm", "m", "in", "ft"],
-            Dimension::Force => &["N", "kN", "lbf"],
+            Dimension::Force => &["N", "kN", "MN", "lbf"],
             Dimension::Mass => &["kg", "g", "lb"],
             Dimension::Torque => &["N*m", "N*mm", "lbf*in", "lbf*ft"],
+            Dimension::MassPerLength => &["kg/m", "g/m", "lb/ft"],
         }
     }
 }
@@ -113,6 +117,26 @@ const UNITS: &[Unit] = &[
         dimension: Dimension::Force,
         symbol: "lbf",
         si: POUND_FORCE,
+    },
+    Unit {
+        dimension: Dimension::Force,
+        symbol: "MN",
+        si: 1e6,
+    },
+    Unit {
+        dimension: Dimension::MassPerLength,
+        symbol: "kg/m",
+        si: 1.0,
+    },
+    Unit {
+        dimension: Dimension::MassPerLength,
+        symbol: "g/m",
+        si: 1e-3,
+    },
+    Unit {
+        dimension: Dimension::MassPerLength,
+        symbol: "lb/ft",
+        si: POUND / FOOT,
     },
     Unit {
         dimension: Dimension::Mass,
@@ -250,6 +274,7 @@ pub fn parse_quantity(text: &str, dimension: Dimension, default: Unit) -> Result
         Dimension::Force => "7.5 kN",
         Dimension::Mass => "40 kg",
         Dimension::Torque => "1.2 N*m",
+        Dimension::MassPerLength => "0.25 kg/m",
     };
     let value: Real = number.trim().parse().map_err(|_| UnitError::NotAQuantity {
         text: t.to_string(),
@@ -267,6 +292,13 @@ pub fn parse_quantity(text: &str, dimension: Dimension, default: Unit) -> Result
     };
     Ok(value * unit.si)
 }
+
+/// kg/m, the unit of bare `mass_per_length` numbers (no `units` key names one).
+const KILOGRAM_PER_METRE: Unit = Unit {
+    dimension: Dimension::MassPerLength,
+    symbol: "kg/m",
+    si: 1.0,
+};
 
 /// The units a rig file uses for bare numbers, and the units its reports show.
 #[derive(Debug, Clone, Copy, PartialEq)]
@@ -301,6 +333,8 @@ impl UnitSystem {
             Dimension::Force => self.force,
             Dimension::Mass => self.mass,
             Dimension::Torque => self.torque,
+            // No `units` key names it: bare numbers and reports are in kg/m.
+            Dimension::MassPerLength => KILOGRAM_PER_METRE,
         }
     }
 
@@ -379,6 +413,12 @@ mod tests {
         assert_eq!(si("1 N*mm", Dimension::Torque), 1e-3);
         assert!((si("1 lbf*in", Dimension::Torque) - 4.4482216152605 * 0.0254).abs() < 1e-15);
         assert!((si("1 lbf*ft", Dimension::Torque) - 4.4482216152605 * 0.3048).abs() < 1e-15);
+        // DESIGN.md §7: force `MN`; mass per length `kg/m`, `g/m`, `lb/ft`.
+        assert_eq!(si("9.80665 MN", Dimension::Force), 9.80665e6);
+        assert_eq!(si("1 kg/m", Dimension::MassPerLength), 1.0);
+        assert_eq!(si("250 g/m", Dimension::MassPerLength), 0.25);
+        assert!((si("1 lb/ft", Dimension::MassPerLength) - 0.45359237 / 0.3048).abs() < 1e-15);
+        assert_eq!(si("0.5", Dimension::MassPerLength), 0.5); // bare: kg/m
     }
 
     #[test]

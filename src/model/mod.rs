@@ -131,6 +131,12 @@ pub struct Rope {
     pub mu: Real,
     /// Least tread-diameter / rope-diameter ratio.
     pub min_bend_ratio: Real,
+    /// Axial stiffness EA, N (strain = tension / EA), when given (key `stiffness`).
+    /// None: inextensible, as before DESIGN.md §7.
+    pub stiffness: Option<Real>,
+    /// Mass per length, kg/m, when given (key `mass_per_length`). None or zero:
+    /// weightless, as before DESIGN.md §7.
+    pub mass_per_length: Option<Real>,
     /// Where the rope is defined in the file.
     pub location: Location,
 }

@@ -7,7 +7,9 @@
 
 pub mod bearing;
 mod error;
+pub mod elastic;
 pub mod kinematics;
+pub mod selfweight;
 pub mod statics;
 pub mod travel;
 pub mod walk;
@@ -197,6 +199,13 @@ pub struct SubRigSolution {
     pub velocity_ratio: Option<Real>,
     /// The load part used for the velocity ratio.
     pub load_part: Option<PartId>,
+    /// The rig's spring rate at the drive, N/m or N·m/rad, frictionless, with every
+    /// loaded part held ([`elastic::drive_stiffness`]); None without rope `stiffness`.
+    pub drive_stiffness: Option<Real>,
+    /// The lost travel at the drive, m or rad: how far the drive moves from the
+    /// unloaded rig (ropes just taut) until it holds its ideal value with every loaded
+    /// part still where it stands, `|F_ideal| / drive_stiffness` (DESIGN.md §7).
+    pub lost_travel: Option<Real>,
 }
 
 impl SubRigSolution {
@@ -473,7 +482,13 @@ pub fn solve(rig: &Rig, options: &SolveOptions) -> Result<Solution, SolveError> 
             let r = 1.0 / v.abs();
             r.is_finite().then_some(r)
         });
+        let drive_stiffness = problem.drive_stiffness();
+        let lost_travel = drive_stiffness
+            .map(|k| ideal.drive_power.abs() / k)
+            .filter(|d| d.is_finite());
         subrigs.push(SubRigSolution {
+            drive_stiffness,
+            lost_travel,
             component: c,
             drive,
             solve_for,

@@ -21,6 +21,7 @@ use crate::model::{square_to_gravity, BlockLoad, LineId, PartId, PartKind, Rig};
 
 use super::bearing::{bearing_resistance, thrust_moment};
 use super::kinematics::{line_component, Kinematics};
+use super::selfweight::RopeWeight;
 use super::{Case, SolveError, SolveOptions};
 
 mod passage;
@@ -81,8 +82,15 @@ pub struct CaseResult {
     pub case: Case,
     /// The asked quantity, SI.
     pub value: Real,
-    /// `tension[line][span]`, N (empty for lines of other sub-rigs).
+    /// `tension[line][span]`, N, at the span's start (empty for lines of other
+    /// sub-rigs).
     pub tension: Vec<Vec<Real>>,
+    /// `tension_end[line][span]`, N, at the span's end: the start tension plus the
+    /// rope's weight times the rise (equal to `tension` for a weightless rope).
+    pub tension_end: Vec<Vec<Real>>,
+    /// Power into the ropes' potential energy per unit drive speed, W (zero for
+    /// weightless ropes); the energy audit counts it.
+    pub rope_power: Real,
     /// `ratio[line][entry]`: tight over slack tension at a middle passage.
     pub ratio: Vec<Vec<Option<Real>>>,
     /// Power lost at each part per unit drive speed, W (per m/s or rad/s of the drive).
@@ -103,8 +111,11 @@ pub struct CaseResult {
     /// Spans with negative tension (slack): (line, span).
     pub slack: Vec<(LineId, usize)>,
     /// Whether statics alone could not fix every tension (the split among parallel
-    /// lines is then the least-squares one).
+    /// lines is then the least-squares one, or the stiffness one).
     pub indeterminate: bool,
+    /// Whether the split among lines sharing a block follows the ropes' stiffness
+    /// (compatibility of stretch; DESIGN.md §7) rather than least squares.
+    pub split_by_stiffness: bool,
     /// Fixed-point status.
     pub status: Status,
     /// Energy audit misfit: |drive − loads − losses| over the drive power.
@@ -150,6 +161,11 @@ pub struct Problem<'a> {
     q_load: DVector<Real>,
     /// Unknown's generalized force per unit.
     x_coef: DVector<Real>,
+    /// The ropes' own weight on each span (zero for weightless ropes; DESIGN.md §7).
+    weight: RopeWeight,
+    /// The generalized load of the ropes' weight beyond the start tensions, per dof
+    /// (order of `dofs`).
+    rope_load: DVector<Real>,
 }
 
 /// A block's own mass and that of the sheaves it carries, kg.
@@ -263,6 +279,8 @@ impl<'a> Problem<'a> {
                 _ => {}
             }
         }
+        let weight = RopeWeight::build(rig, geometry);
+        let rope_load = weight.generalized_load(rig, geometry, kin, &lines, &dofs);
         Ok(Problem {
             rig,
             geometry,
@@ -274,6 +292,8 @@ impl<'a> Problem<'a> {
             lines,
             q_load,
             x_coef,
+            weight,
+            rope_load,
         })
     }
 
@@ -372,8 +392,11 @@ impl<'a> Problem<'a> {
                     if stall {
                         stalled.push((seg.line, e));
                     }
+                    // Into the passage at the previous span's end tension; out of it
+                    // with the arc's rise (both zero for a weightless rope).
                     let (c, c0) = coef[seg.line][e - 1];
-                    let next = (k * c, k * c0 + delta);
+                    let c0 = c0 + self.weight.rise(seg.line, e - 1);
+                    let next = (k * c, k * c0 + delta + self.weight.arc(seg.line, e));
                     if !(next.0.is_finite() && next.1.is_finite()) {
                         // Ratios in series that each hold but together overflow.
                         return Err(self.non_finite(
@@ -412,7 +435,7 @@ impl<'a> Problem<'a> {
             }
             // Assemble.
             let mut mat = DMatrix::zeros(n, m);
-            let mut rhs = q.clone();
+            let mut rhs = q.clone() + &self.rope_load;
             for (col, &g) in self.segs.iter().enumerate() {
                 let seg = self.kin.segments[g];
                 let rows = &self.kin.span_rows[seg.line][seg.first..seg.last];
@@ -477,6 +500,12 @@ impl<'a> Problem<'a> {
                 Some(x) => (DVector::from_vec(x), m),
                 None => self.dense_solve(&mat, &rhs, &column_norms, options),
             };
+            // Lines sharing a block: the split by stiffness where ropes give one.
+            let (solution, by_stiffness) = if rank < m {
+                self.stiffness_split(&mat, &column_norms, &coef, solution, options)
+            } else {
+                (solution, false)
+            };
             let residual = (&mat * &solution - &rhs).norm();
             // Compare the misfit with the size of the terms that should cancel.
             let terms = mat.abs() * solution.abs();
@@ -536,6 +565,7 @@ impl<'a> Problem<'a> {
                 stalled,
                 drum_friction,
                 rank < m,
+                by_stiffness,
             ));
             if converged {
                 status = Status::Converged {
@@ -549,7 +579,8 @@ impl<'a> Problem<'a> {
             };
             previous = Some(tension);
         }
-        let Some((tension, value, stalled, drum_friction, indeterminate)) = outcome else {
+        let Some((tension, value, stalled, drum_friction, indeterminate, by_stiffness)) = outcome
+        else {
             return Err(SolveError::NoEquilibrium {
                 case: case.name(),
                 residual: Real::NAN,
@@ -557,7 +588,7 @@ impl<'a> Problem<'a> {
                 hint: "no iteration ran",
             });
         };
-        Ok(self.finish(
+        let mut result = self.finish(
             case,
             value,
             tension,
@@ -566,7 +597,68 @@ impl<'a> Problem<'a> {
             indeterminate,
             status,
             &velocity,
-        ))
+        );
+        result.split_by_stiffness = by_stiffness;
+        Ok(result)
+    }
+
+    /// The load split by compatibility of stretch ([`super::elastic::compatible_split`])
+    /// when every rope of the sub-rig has a `stiffness`; else the least-squares
+    /// `solution` as it is. Also whether the stiffness fixed the split.
+    fn stiffness_split(
+        &self,
+        mat: &DMatrix<Real>,
+        column_norms: &[Real],
+        coef: &[Vec<(Real, Real)>],
+        solution: DVector<Real>,
+        options: &SolveOptions,
+    ) -> (DVector<Real>, bool) {
+        let input = super::elastic::SplitInput {
+            rig: self.rig,
+            geometry: self.geometry,
+            kin: self.kin,
+            segs: &self.segs,
+            dofs: &self.dofs,
+            coef,
+            rise: &|l, j| self.weight.rise(l, j),
+        };
+        match super::elastic::compatible_split(
+            &input,
+            mat,
+            column_norms,
+            &solution,
+            options.rank_tolerance,
+            options.motion_tolerance,
+        ) {
+            Some((x, fixed)) => (x, fixed),
+            None => (solution, false),
+        }
+    }
+
+    /// The rig's spring rate at the drive ([`super::elastic::drive_stiffness`]): every
+    /// part with a load (or the asked quantity) held, the others free.
+    pub fn drive_stiffness(&self) -> Option<Real> {
+        let drive = self
+            .dofs
+            .iter()
+            .position(|&i| self.kin.dofs[i].part == self.drive)?;
+        let held: Vec<bool> = (0..self.dofs.len())
+            .map(|k| self.q_load[k] != 0.0 || self.x_coef[k] != 0.0 || self.rope_load[k] != 0.0)
+            .collect();
+        super::elastic::drive_stiffness(&super::elastic::SpringInput {
+            rig: self.rig,
+            geometry: self.geometry,
+            kin: self.kin,
+            segs: &self.segs,
+            dofs: &self.dofs,
+            drive,
+            held: &held,
+        })
+    }
+
+    /// The lines of the sub-rig.
+    pub fn lines(&self) -> &[LineId] {
+        &self.lines
     }
 
     /// The equilibrated least-squares solve of `mat x = rhs` by SVD, and the rank it

@@ -158,6 +158,8 @@ fn rig(rope_diameter: Real, parts: Vec<Part>, paths: Vec<Vec<PathEntry>>) -> Rig
             breaking_strength: None,
             mu: 0.2,
             min_bend_ratio: 8.0,
+            stiffness: None,
+            mass_per_length: None,
             location: Location::default(),
         }],
         parts,

@@ -44,6 +44,8 @@ pub(super) const ROPE_KEYS: &[&str] = &[
     "mu",
     "min_bend_ratio",
     "kind",
+    "stiffness",
+    "mass_per_length",
 ];
 pub(super) const ROPE_KINDS: &[&str] = &["wire", "fibre", "kernmantle", "cord"];
 pub(super) const LINE_KEYS: &[&str] = &["rope", "path"];

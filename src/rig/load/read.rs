@@ -725,5 +725,6 @@ pub(super) fn example(dimension: Dimension) -> &'static str {
         Dimension::Force => "7.5 kN",
         Dimension::Mass => "40 kg",
         Dimension::Torque => "1.2 N*m",
+        Dimension::MassPerLength => "0.25 kg/m",
     }
 }

@@ -111,7 +111,8 @@ impl Problem<'_> {
                         let spans = &self.geometry.lines[line].spans;
                         let u_in = spans[e - 1].direction.into_inner();
                         let u_out = spans[e].direction.into_inner();
-                        let before = prev[line][e - 1].max(0.0);
+                        let before =
+                            (prev[line][e - 1] + self.weight.rise(line, e - 1)).max(0.0);
                         let after = if s > 0.0 {
                             friction::tight_tension(before, &u_out, &(-u_in), &weight, radius, r)
                         } else {
@@ -146,9 +147,10 @@ impl Problem<'_> {
         for &l in &self.lines {
             let path = &self.rig.lines[l].path;
             for (j, span) in self.geometry.lines[l].spans.iter().enumerate() {
-                let f = span.direction.into_inner() * tension[l][j];
-                forces[path[j].part].push((f, span.start));
-                forces[path[j + 1].part].push((-f, span.end));
+                let u = span.direction.into_inner();
+                let (at_start, at_end) = self.weight.end_forces(l, j, &u, tension[l][j]);
+                forces[path[j].part].push((at_start, span.start));
+                forces[path[j + 1].part].push((at_end, span.end));
             }
         }
         forces

@@ -23,15 +23,16 @@ impl Problem<'_> {
             rig.lines.iter().map(|l| vec![None; l.path.len()]).collect();
         let mut slack = Vec::new();
         let mut slipping = Vec::new();
+        let tension_end = self.end_tensions(&tension);
         for &l in &self.lines {
             let path = &rig.lines[l].path;
             for (j, &t) in tension[l].iter().enumerate() {
-                if t < -1e-9 * (1.0 + value.abs()) {
+                if t.min(tension_end[l][j]) < -1e-9 * (1.0 + value.abs()) {
                     slack.push((l, j));
                 }
             }
             for e in 1..path.len() - 1 {
-                let (a, b) = (tension[l][e - 1], tension[l][e]);
+                let (a, b) = (tension_end[l][e - 1], tension[l][e]);
                 let (hi, lo) = if a.abs() >= b.abs() { (a, b) } else { (b, a) };
                 if lo.abs() > 0.0 {
                     ratio[l][e] = Some(hi / lo);
@@ -56,7 +57,8 @@ impl Problem<'_> {
                     }
                 } else {
                     let s = case.sign() * self.kin.rope_speed[l][e];
-                    loss[part] += (b - a) * s;
+                    // The arc's rise is the rope's weight, not friction.
+                    loss[part] += (b - a - self.weight.arc(l, e)) * s;
                 }
             }
         }
@@ -77,12 +79,15 @@ impl Problem<'_> {
         }
         let total_loss: Real = loss.iter().sum();
         let total_load: Real = load_power.iter().sum();
+        // The ropes' own weight: its potential energy counts (DESIGN.md §7).
+        let rope_power = self.rope_power(velocity);
         let scale = drive_power
             .abs()
             .max(total_load.abs())
             .max(total_loss.abs())
+            .max(rope_power.abs())
             .max(1e-300);
-        let audit_residual = (drive_power - total_load - total_loss).abs() / scale;
+        let audit_residual = (drive_power - total_load - total_loss - rope_power).abs() / scale;
 
         // Pin loads and drum torques.
         let forces = self.contact_forces(&tension);
@@ -136,6 +141,8 @@ impl Problem<'_> {
             case,
             value,
             tension,
+            tension_end,
+            rope_power,
             ratio,
             loss,
             load_power,
@@ -146,8 +153,35 @@ impl Problem<'_> {
             slipping,
             slack,
             indeterminate,
+            split_by_stiffness: false,
             status,
             audit_residual,
         }
+    }
+}
+
+impl Problem<'_> {
+    /// Every span's tension at its end, from the tension at its start (they differ by
+    /// the rope's weight, DESIGN.md §7).
+    fn end_tensions(&self, tension: &[Vec<Real>]) -> Vec<Vec<Real>> {
+        tension
+            .iter()
+            .enumerate()
+            .map(|(l, t)| {
+                t.iter()
+                    .enumerate()
+                    .map(|(j, t)| if self.weight.per_length[l] > 0.0 { t + self.weight.rise(l, j) } else { *t })
+                    .collect()
+            })
+            .collect()
+    }
+
+    /// Power into the ropes' potential energy per unit drive speed in this case, W.
+    fn rope_power(&self, velocity: &DVector<Real>) -> Real {
+        if !self.weight.any() {
+            return 0.0;
+        }
+        self.weight
+            .potential_rate(self.rig, self.geometry, self.kin, &self.lines, velocity)
     }
 }
