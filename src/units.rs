@@ -119,26 +119,6 @@ const UNITS: &[Unit] = &[
         si: POUND_FORCE,
     },
     Unit {
-        dimension: Dimension::Force,
-        symbol: "MN",
-        si: 1e6,
-    },
-    Unit {
-        dimension: Dimension::MassPerLength,
-        symbol: "kg/m",
-        si: 1.0,
-    },
-    Unit {
-        dimension: Dimension::MassPerLength,
-        symbol: "g/m",
-        si: 1e-3,
-    },
-    Unit {
-        dimension: Dimension::MassPerLength,
-        symbol: "lb/ft",
-        si: POUND / FOOT,
-    },
-    Unit {
         dimension: Dimension::Mass,
         symbol: "kg",
         si: 1.0,
@@ -172,6 +152,27 @@ const UNITS: &[Unit] = &[
         dimension: Dimension::Torque,
         symbol: "lbf*ft",
         si: POUND_FORCE * FOOT,
+    },
+    // DESIGN.md §7 (kept after the defaults, whose indices UnitSystem::default uses).
+    Unit {
+        dimension: Dimension::Force,
+        symbol: "MN",
+        si: 1e6,
+    },
+    Unit {
+        dimension: Dimension::MassPerLength,
+        symbol: "kg/m",
+        si: 1.0,
+    },
+    Unit {
+        dimension: Dimension::MassPerLength,
+        symbol: "g/m",
+        si: 1e-3,
+    },
+    Unit {
+        dimension: Dimension::MassPerLength,
+        symbol: "lb/ft",
+        si: POUND / FOOT,
     },
 ];
 

@@ -93,12 +93,53 @@ pub struct SpanReport {
     pub to: String,
     /// Length, m.
     pub length_m: Option<Real>,
-    /// Tension per case, N.
-    pub tension_n: PerCase,
+    /// Tension per case, N, at the span's start; with rope weight also at its end.
+    pub tension_n: SpanTension,
+    /// Stretch per case, m, where the rope has a `stiffness` (DESIGN.md §7).
+    #[serde(skip_serializing_if = "Option::is_none")]
+    pub stretch_m: Option<PerCase>,
+    /// Sag under the rope's own weight, m, the largest over the cases (catenary), for a
+    /// span that is not vertical where the rope has a `mass_per_length`.
+    #[serde(skip_serializing_if = "Option::is_none")]
+    pub sag_m: Option<Real>,
     /// Breaking strength over the larger of the forward and back tensions.
     pub safety_factor: Option<Real>,
     /// Unit direction from `from` to `to`.
     pub direction: [Real; 3],
+}
+
+/// A span's tension per case: at its start (`ideal`, `forward`, `back`) and, where the
+/// rope's weight makes the two ends differ, at its end (`ideal_end`, ...; DESIGN.md §7).
+#[derive(Debug, Clone, Serialize, PartialEq)]
+pub struct SpanTension {
+    /// No friction, N.
+    pub ideal: Option<Real>,
+    /// Driving forward, N.
+    pub forward: Option<Real>,
+    /// Running back, N.
+    pub back: Option<Real>,
+    /// No friction, at the span's end, N.
+    #[serde(skip_serializing_if = "Option::is_none")]
+    pub ideal_end: Option<Real>,
+    /// Driving forward, at the span's end, N.
+    #[serde(skip_serializing_if = "Option::is_none")]
+    pub forward_end: Option<Real>,
+    /// Running back, at the span's end, N.
+    #[serde(skip_serializing_if = "Option::is_none")]
+    pub back_end: Option<Real>,
+}
+
+impl SpanTension {
+    /// The start and end tensions of a case: (start, end), the end the start where
+    /// they do not differ.
+    pub fn ends(&self, case: Case) -> (Option<Real>, Option<Real>) {
+        let (a, b) = match case {
+            Case::Ideal => (self.ideal, self.ideal_end),
+            Case::Forward => (self.forward, self.forward_end),
+            Case::Back => (self.back, self.back_end),
+        };
+        (a, b.or(a))
+    }
 }
 
 /// A passage of a line over a round part.
@@ -309,6 +350,14 @@ pub struct Headline {
     pub outcome: Option<Outcome>,
     /// Energy audit misfit per case (fraction of drive power).
     pub energy_audit: PerCase,
+    /// The lost travel at the drive, in the drive's SI unit (m, or rad for a drum),
+    /// where ropes have a `stiffness` ([`SubRigSolution::lost_travel`]).
+    #[serde(skip_serializing_if = "Option::is_none")]
+    pub lost_travel: Option<Real>,
+    /// The rig's spring rate at the drive, N/m (N*m/rad for a drum), where ropes have a
+    /// `stiffness` ([`SubRigSolution::drive_stiffness`]).
+    #[serde(skip_serializing_if = "Option::is_none")]
+    pub drive_stiffness: Option<Real>,
     /// What drives the rig, for the outcome's wording. Not in the JSON.
     #[serde(skip_serializing)]
     pub drive_kind: DriveKind,
@@ -587,6 +636,8 @@ fn headline(rig: &Rig, solution: &Solution, sub: &SubRigSolution) -> Headline {
             forward: finite(sub.forward.audit_residual),
             back: finite(sub.back.audit_residual),
         },
+        lost_travel: sub.lost_travel.and_then(finite),
+        drive_stiffness: sub.drive_stiffness.and_then(finite),
         drive_kind: DriveKind::of(&rig.parts[sub.drive].kind),
         subject: (if sub.drive_unknown() {
             sub.load_part
@@ -613,6 +664,70 @@ fn passage_wrap(
     }
 }
 
+/// The rope-as-material figures of one span (DESIGN.md §7): end tensions where they
+/// differ from the start, stretch per case, sag.
+struct SpanMaterial {
+    ends: PerCase,
+    stretch: Option<PerCase>,
+    sag: Option<Real>,
+}
+
+fn span_material(
+    rig: &Rig,
+    solution: &Solution,
+    sub: Option<&SubRigSolution>,
+    line: usize,
+    span: usize,
+) -> SpanMaterial {
+    let rope = rig.rope_of(line);
+    let geometry = &solution.geometry.lines[line].spans[span];
+    let weighs = rope.mass_per_length.is_some_and(|w| w > 0.0);
+    let ends = |c: Case| -> Option<(Real, Real)> {
+        let case = sub?.case(c);
+        Some((*case.tension[line].get(span)?, *case.tension_end[line].get(span)?))
+    };
+    let cases = [Case::Ideal, Case::Forward, Case::Back];
+    let per_case = |f: &dyn Fn(Case) -> Option<Real>| PerCase {
+        ideal: f(Case::Ideal),
+        forward: f(Case::Forward),
+        back: f(Case::Back),
+    };
+    let end = |c: Case| {
+        let (a, b) = ends(c)?;
+        (weighs && b != a).then_some(b).and_then(finite)
+    };
+    let stretch = rope.stiffness.map(|ea| {
+        per_case(&|c| {
+            let (a, b) = ends(c)?;
+            finite(crate::solve::elastic::span_stretch(a, b, geometry.length, ea))
+        })
+    });
+    let sag = if weighs {
+        let up = -rig.gravity.into_inner();
+        let chord = geometry.end - geometry.start;
+        let rise = chord.dot(&up);
+        let run = (chord - up * rise).norm();
+        let q = rope.mass_per_length.unwrap_or(0.0) * crate::math::STANDARD_GRAVITY;
+        cases
+            .iter()
+            .filter_map(|&c| {
+                let (a, b) = ends(c)?;
+                let horizontal = 0.5 * (a + b) * run / geometry.length;
+                (run > 1e-6 * geometry.length)
+                    .then(|| crate::geometry::catenary::sag(run, rise, horizontal, q))
+                    .flatten()
+            })
+            .reduce(Real::max)
+    } else {
+        None
+    };
+    SpanMaterial {
+        ends: per_case(&end),
+        stretch,
+        sag,
+    }
+}
+
 /// The sub-rig solution that owns `line`.
 fn owner<'a>(rig: &Rig, solution: &'a Solution, line: usize) -> Option<&'a SubRigSolution> {
     let comp = crate::solve::kinematics::line_component(rig, &solution.network, line)?;
@@ -633,18 +748,28 @@ impl Report {
                         .and_then(finite)
                 };
                 let (ti, tf, tb) = (t(Case::Ideal), t(Case::Forward), t(Case::Back));
-                let worst = [ti, tf, tb].into_iter().flatten().fold(0.0, Real::max);
+                let material = span_material(rig, solution, sub, l, j);
+                let worst = [ti, tf, tb]
+                    .into_iter()
+                    .chain([material.ends.ideal, material.ends.forward, material.ends.back])
+                    .flatten()
+                    .fold(0.0, Real::max);
                 spans.push(SpanReport {
                     line: line.name.clone(),
                     index: j,
                     from: rig.parts[line.path[j].part].name.clone(),
                     to: rig.parts[line.path[j + 1].part].name.clone(),
                     length_m: finite(span.length),
-                    tension_n: PerCase {
+                    tension_n: SpanTension {
                         ideal: ti,
                         forward: tf,
                         back: tb,
+                        ideal_end: material.ends.ideal,
+                        forward_end: material.ends.forward,
+                        back_end: material.ends.back,
                     },
+                    stretch_m: material.stretch,
+                    sag_m: material.sag,
                     safety_factor: rope.breaking_strength.and_then(|s| finite(s / worst)),
                     direction: [span.direction.x, span.direction.y, span.direction.z],
                 });
