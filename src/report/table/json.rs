@@ -45,8 +45,19 @@ pub struct SpanJson {
     pub to: String,
     /// Length, m.
     pub length_m: Option<Real>,
-    /// Tension per case, N.
+    /// Tension per case, N (at the span's start where the rope's weight makes the ends
+    /// differ).
     pub tension_n: CasesJson<Real>,
+    /// Tension per case at the span's end, N, where the rope's weight makes the ends
+    /// differ (DESIGN.md §7).
+    #[serde(skip_serializing_if = "Option::is_none")]
+    pub tension_end_n: Option<CasesJson<Real>>,
+    /// Stretch per case, m, where the rope has a `stiffness`.
+    #[serde(skip_serializing_if = "Option::is_none")]
+    pub stretch_m: Option<CasesJson<Real>>,
+    /// Sag, m, where the rope has a `mass_per_length` and the span is not vertical.
+    #[serde(skip_serializing_if = "Option::is_none")]
+    pub sag_m: Option<Real>,
     /// Breaking strength over the larger of the forward and back tensions.
     pub safety_factor: Option<Real>,
 }
@@ -114,6 +125,22 @@ pub fn tables_json(report: &Report, cases: CaseFilter, choice: TableChoice) -> T
                     s.tension_n.forward,
                     s.tension_n.back,
                 ),
+                tension_end_n: (s.tension_n.ideal_end.is_some()
+                    || s.tension_n.forward_end.is_some()
+                    || s.tension_n.back_end.is_some())
+                .then(|| {
+                    CasesJson::new(
+                        cases,
+                        s.tension_n.ideal_end,
+                        s.tension_n.forward_end,
+                        s.tension_n.back_end,
+                    )
+                }),
+                stretch_m: s
+                    .stretch_m
+                    .as_ref()
+                    .map(|p| CasesJson::new(cases, p.ideal, p.forward, p.back)),
+                sag_m: s.sag_m,
                 safety_factor: s.safety_factor,
             })
             .collect()

@@ -57,8 +57,12 @@ impl Problem<'_> {
                     }
                 } else {
                     let s = case.sign() * self.kin.rope_speed[l][e];
-                    // The arc's rise is the rope's weight, not friction.
-                    loss[part] += (b - a - self.weight.arc(l, e)) * s;
+                    // The arc's rise is the rope's weight, not friction; what is left of
+                    // it at round-off (a frictionless passage) is no loss.
+                    let friction = b - a - self.weight.arc(l, e);
+                    if friction.abs() > 1e-13 * (a.abs() + b.abs()) {
+                        loss[part] += friction * s;
+                    }
                 }
             }
         }
