@@ -143,6 +143,18 @@ Bearings. Disk Friction\", and in machine-design texts on disc clutches, e.g. Sh
 Engineering Design (clutches and brakes: uniform wear and uniform pressure).",
     ),
     (
+        "Rope as a material",
+        "Where a rope gives `stiffness` (EA), each span stretches by its mean tension times its \
+length over EA (Gere and Goodno, Mechanics of Materials, section 2.3); lines that share a \
+block split its load so that their stretches match as the block moves rigidly (equilibrium \
+plus compatibility, section 2.4). The spring rate at the drive holds every loaded part and \
+lets the ropes stretch; the lost travel is the drive's ideal value over that rate \
+(Castigliano's theorem, section 9.9, is its check). Where a rope gives `mass_per_length`, the \
+tension along each span grows by the weight per length times the rise, the weight across \
+the span hangs half on each end, and the sag is the catenary's (Meriam and Kraige, \
+Engineering Mechanics: Statics, section 5/9 on flexible cables; the parabola is its check).",
+    ),
+    (
         "Solver",
         "Quasi-static: kinematics from the inextensible lines, then equilibrium of every block, \
 weight and drum for three cases: ideal (no friction), forward (the drive moves the load) \
@@ -246,6 +258,14 @@ fn write_summary(w: &mut dyn Write, h: &Headline, units: &UnitSystem, id: &str) 
         q(hi)
     )?;
     writeln!(w, "<li>{}.</li>", h.self_locking_words())?;
+    if let Some((travel, rate)) = super::text::drive_spring_words(h, units) {
+        writeln!(
+            w,
+            "<li>Lost travel at the drive: {} (spring rate {}, loaded parts held, no friction).</li>",
+            esc(&travel),
+            esc(&rate)
+        )?;
+    }
     if let Some((sentence, moves)) = super::text::outcome(h, units) {
         writeln!(
             w,
