@@ -9,6 +9,7 @@ mod friction_published;
 mod generators;
 mod geometry;
 mod load_errors;
+mod material;
 mod numerics;
 mod outputs;
 mod properties;

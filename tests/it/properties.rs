@@ -822,8 +822,6 @@ proptest! {
     /// work–energy balance, e.g. Beer & Johnston, *Statics*, ch. 10, potential energy).
     #[test]
     fn energy_audit_balances_with_rope_weight(p in params_strategy(true), w in 0.05..3.0f64) {
-        let mut p = p;
-        p.drum = None;
         let text = with_material(&build(&p).0.plain(), &format!("mass_per_length: {w:?} kg/m"));
         let (_, s) = solve_text(&text);
         for sub in &s.subrigs {
@@ -845,8 +843,6 @@ proptest! {
     /// the rope's weight.
     #[test]
     fn stretch_is_positive_and_halves_with_double_stiffness(p in params_strategy(true), ea in 1e4..1e8f64, w in 0.0..2.0f64) {
-        let mut p = p;
-        p.drum = None;
         let text = build(&p).0.plain();
         let one = stretches(&with_material(&text, &format!("stiffness: {ea:?} N, mass_per_length: {w:?}")));
         let two = stretches(&with_material(&text, &format!("stiffness: {:?} N, mass_per_length: {w:?}", 2.0 * ea)));
