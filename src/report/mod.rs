@@ -98,8 +98,9 @@ pub struct SpanReport {
     /// Stretch per case, m, where the rope has a `stiffness` (DESIGN.md §7).
     #[serde(skip_serializing_if = "Option::is_none")]
     pub stretch_m: Option<PerCase>,
-    /// Sag under the rope's own weight, m, the largest over the cases (catenary), for a
-    /// span that is not vertical where the rope has a `mass_per_length`.
+    /// Sag under the rope's own weight, m: the largest vertical distance of the catenary
+    /// below the chord, the largest over the cases, for a span within 45° of level
+    /// where the rope has a `mass_per_length`.
     #[serde(skip_serializing_if = "Option::is_none")]
     pub sag_m: Option<Real>,
     /// Breaking strength over the larger of the forward and back tensions.
@@ -713,7 +714,9 @@ fn span_material(
             .filter_map(|&c| {
                 let (a, b) = ends(c)?;
                 let horizontal = 0.5 * (a + b) * run / geometry.length;
-                (run > 1e-6 * geometry.length)
+                // Near-horizontal spans only (within 45° of level): on a steep span
+                // the vertical distance from the chord says nothing useful.
+                (run > 1e-6 * geometry.length && rise.abs() <= run)
                     .then(|| crate::geometry::catenary::sag(run, rise, horizontal, q))
                     .flatten()
             })
