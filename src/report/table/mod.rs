@@ -330,8 +330,6 @@ pub fn span_table(report: &Report, units: &UnitSystem, cases: CaseFilter, style:
         t.column(format!("tension back ({force})"), Align::Right);
     }
     t.column("safety factor", Align::Right);
-    let material = MaterialColumns::of(report);
-    material.headers(&mut t, units, cases);
     for s in &report.spans {
         let mut row = vec![Cell::Text(s.line.clone()), Cell::Text(s.index.to_string())];
         match style {
@@ -352,15 +350,52 @@ pub fn span_table(report: &Report, units: &UnitSystem, cases: CaseFilter, style:
             row.push(in_units(s.tension_n.back, Dimension::Force, units));
         }
         row.push(Cell::Number(s.safety_factor, 3));
-        material.cells(&mut row, s, units, cases);
         t.rows.push(row);
     }
     t
 }
 
-/// The span table's columns for the rope as a material (DESIGN.md §7), shown only where
-/// a rope gives `stiffness` (stretch per case) or `mass_per_length` (tension at the
-/// span's end per case, sag): a rig without them keeps today's table.
+/// The rope as a material (DESIGN.md §7), a table of its own after the spans: per
+/// span, stretch per case where a rope gives `stiffness`, the tension at the span's end
+/// per case and the sag where a rope gives `mass_per_length` (the span table has the
+/// tension at its start). None for a rig without either key, which keeps today's tables.
+pub fn material_table(
+    report: &Report,
+    units: &UnitSystem,
+    cases: CaseFilter,
+    style: Style,
+) -> Option<Table> {
+    let material = MaterialColumns::of(report);
+    if !(material.stretch || material.weight) {
+        return None;
+    }
+    let mut t = Table::new("Rope as a material");
+    t.column("line", Align::Left);
+    t.column("span", Align::Right);
+    match style {
+        Style::Human => t.column("from → to", Align::Left),
+        Style::Data => {
+            t.column("from", Align::Left);
+            t.column("to", Align::Left);
+        }
+    }
+    material.headers(&mut t, units, cases);
+    for s in &report.spans {
+        let mut row = vec![Cell::Text(s.line.clone()), Cell::Text(s.index.to_string())];
+        match style {
+            Style::Human => row.push(Cell::Text(format!("{} → {}", s.from, s.to))),
+            Style::Data => {
+                row.push(Cell::Text(s.from.clone()));
+                row.push(Cell::Text(s.to.clone()));
+            }
+        }
+        material.cells(&mut row, s, units, cases);
+        t.rows.push(row);
+    }
+    Some(t)
+}
+
+/// Which columns of the material table apply.
 struct MaterialColumns {
     stretch: bool,
     weight: bool,
@@ -564,6 +599,9 @@ pub fn tables(
     }
     if choice != TableChoice::Spans {
         out.push(part_table(report, units, cases, style));
+    }
+    if choice != TableChoice::Parts {
+        out.extend(material_table(report, units, cases, style));
     }
     out
 }
