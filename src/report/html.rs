@@ -368,10 +368,12 @@ pub fn write_html(
         w,
         "<p class=\"meta\">Pin load: the resultant of the rope pulls and the part's own weight; direction as a unit vector (x, y, z) in the rig's frame. Loss share: this part's part of all friction losses, forward case.</p>\n</section>"
     )?;
-    if let Some(t) =
-        table::material_table(report, units, table::CaseFilter::Forward, Style::Human)
+    if let Some(t) = table::material_table(report, units, table::CaseFilter::Forward, Style::Human)
     {
-        writeln!(w, "<section id=\"material-table\">\n<h2>Rope as a material</h2>")?;
+        writeln!(
+            w,
+            "<section id=\"material-table\">\n<h2>Rope as a material</h2>"
+        )?;
         write_table(w, &t, "material")?;
         writeln!(
             w,

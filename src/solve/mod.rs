@@ -6,8 +6,8 @@
 //! moving sub-rig needs exactly one haul end, which is then its drive and its unknown.
 
 pub mod bearing;
-mod error;
 pub mod elastic;
+mod error;
 pub mod kinematics;
 pub mod selfweight;
 pub mod statics;

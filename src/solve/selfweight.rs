@@ -83,7 +83,12 @@ impl RopeWeight {
                     .collect(),
             );
             let mut a = vec![0.0; line.path.len()];
-            for (e, arc) in a.iter_mut().enumerate().take(line.path.len().saturating_sub(1)).skip(1) {
+            for (e, arc) in a
+                .iter_mut()
+                .enumerate()
+                .take(line.path.len().saturating_sub(1))
+                .skip(1)
+            {
                 *arc = wg * (height(rig, &g.spans[e].start) - height(rig, &g.spans[e - 1].end));
             }
             arcs.push(a);
@@ -113,7 +118,13 @@ impl RopeWeight {
 
     /// The forces a span with start tension `t_start` puts on the part at its start and
     /// the part at its end, N.
-    pub fn end_forces(&self, line: LineId, span: usize, u: &Vector, t_start: Real) -> (Vector, Vector) {
+    pub fn end_forces(
+        &self,
+        line: LineId,
+        span: usize,
+        u: &Vector,
+        t_start: Real,
+    ) -> (Vector, Vector) {
         let w = &self.spans[line][span];
         let half = w.normal * 0.5;
         (u * t_start + half, -u * (t_start + w.rise) + half)
@@ -141,7 +152,10 @@ impl RopeWeight {
             for (j, span) in geometry.lines[l].spans.iter().enumerate() {
                 let u = span.direction.into_inner();
                 let w = &self.spans[l][j];
-                for (part, at, is_end) in [(path[j].part, &span.start, false), (path[j + 1].part, &span.end, true)] {
+                for (part, at, is_end) in [
+                    (path[j].part, &span.start, false),
+                    (path[j + 1].part, &span.end, true),
+                ] {
                     let Some((i, v)) = contact_velocity(rig, kin, part, at) else {
                         continue;
                     };
@@ -180,7 +194,8 @@ impl RopeWeight {
             for (j, span) in geometry.lines[l].spans.iter().enumerate() {
                 let u = span.direction.into_inner();
                 let speed = |part: PartId, at: &Point| {
-                    contact_velocity(rig, kin, part, at).map_or(Vector::zeros(), |(i, v)| v * velocity[i])
+                    contact_velocity(rig, kin, part, at)
+                        .map_or(Vector::zeros(), |(i, v)| v * velocity[i])
                 };
                 let vp = speed(path[j].part, &span.start);
                 let vq = speed(path[j + 1].part, &span.end);
@@ -219,11 +234,29 @@ pub fn contact_velocity(
 mod tests {
     use super::*;
 
-    /// T_top = T_bottom + w·g·L for a vertical span (Meriam & Kraige, Statics §5/9).
+    /// The span's forces on its two ends carry its whole weight: with `T_end = T_start
+    /// + w·g·Δh` along the chord and `W⊥/2` on each end, the rope is in balance
+    /// (Meriam & Kraige, *Statics*, §5/9).
     #[test]
-    fn vertical_span_rises_by_its_weight() {
-        let wg = 1.0 * STANDARD_GRAVITY;
-        let rise = wg * 100.0;
-        assert!((10_000.0 + rise - 10_980.665).abs() < 1e-9);
+    fn a_span_hangs_its_weight_on_its_ends() {
+        let wg = 0.5 * STANDARD_GRAVITY;
+        let (run, rise) = (8.0_f64, 6.0_f64);
+        let length = run.hypot(rise);
+        let u = Vector::new(run, 0.0, rise) / length;
+        let w = Vector::new(0.0, 0.0, -wg * length);
+        let weight = RopeWeight {
+            spans: vec![vec![SpanWeight {
+                rise: wg * rise,
+                normal: w - u * w.dot(&u),
+                weight: wg * length,
+            }]],
+            arcs: vec![vec![0.0, 0.0]],
+            per_length: vec![wg],
+        };
+        let (at_start, at_end) = weight.end_forces(0, 0, &u, 100.0);
+        // Forces on the rope are the reactions: −(on the parts); with its weight, zero.
+        let balance = -(at_start + at_end) + w;
+        assert!(balance.norm() < 1e-12, "{balance}");
+        assert!(((at_end + u * (100.0 + wg * rise)) - (w - u * w.dot(&u)) * 0.5).norm() < 1e-12);
     }
 }

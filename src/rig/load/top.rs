@@ -386,7 +386,13 @@ fn rope_material(
         Some(n) => {
             let p = join(path, "stiffness");
             let v = r.quantity(n, &p, Dimension::Force);
-            Some(r.check(v, n, &p, |v| v > 0.0, "a positive axial stiffness EA (a force)")?)
+            Some(r.check(
+                v,
+                n,
+                &p,
+                |v| v > 0.0,
+                "a positive axial stiffness EA (a force)",
+            )?)
         }
         None => None,
     };
