@@ -234,9 +234,9 @@ pub fn contact_velocity(
 mod tests {
     use super::*;
 
-    /// The span's forces on its two ends carry its whole weight: with `T_end = T_start
-    /// + w·g·Δh` along the chord and `W⊥/2` on each end, the rope is in balance
-    /// (Meriam & Kraige, *Statics*, §5/9).
+    /// The span's forces on its two ends carry its whole weight: with the end tension
+    /// `T_start + w·g·Δh` along the chord and `W⊥/2` on each end, the rope is in
+    /// balance (Meriam & Kraige, *Statics*, §5/9).
     #[test]
     fn a_span_hangs_its_weight_on_its_ends() {
         let wg = 0.5 * STANDARD_GRAVITY;
