@@ -275,3 +275,22 @@ fn a_line_sets_balance_changes_with_trim_height() {
     let (low, high) = steps("ropes.lift.mass_per_length=0");
     assert_rel("weightless: no change", high, low, 1e-4);
 }
+
+#[test]
+fn the_tables_show_the_rope_as_a_material() {
+    // Text: a table of its own after the spans; CSV (one table): further span columns;
+    // a rig without the keys keeps today's tables (the goldens guard that).
+    let rig = test_rig("material/hanging-rope.yaml");
+    let text = crate::support::stdout_of(&["table", &rig]);
+    assert!(
+        text.contains("Rope as a material") && text.contains("stretch forward (m)"),
+        "{text}"
+    );
+    let csv = crate::support::stdout_of(&["table", &rig, "--format", "csv"]);
+    let lines: Vec<&str> = csv.lines().collect();
+    assert_eq!(lines.len(), 2, "one table, one span: {csv}");
+    assert!(lines[0].contains("stretch ideal (m)") && lines[0].contains("tension back at end (N)"));
+    assert!(lines[1].contains("0.106972"), "{csv}");
+    let html = crate::support::stdout_of(&["report", &rig, "-o", "-"]);
+    assert!(html.contains("id=\"material\"") && html.contains("Lost travel at the drive"));
+}

@@ -495,7 +495,14 @@ pub fn tables(
         out.push(part_table(report, units, cases, style));
     }
     if choice != TableChoice::Parts {
-        out.extend(material_table(report, units, cases, style));
+        match style {
+            Style::Human => out.extend(material_table(report, units, cases, style)),
+            Style::Data => {
+                if let Some(spans) = out.first_mut() {
+                    material::append_material_columns(spans, report, units, cases);
+                }
+            }
+        }
     }
     out
 }
