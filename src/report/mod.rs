@@ -8,6 +8,7 @@ pub mod escape;
 pub mod file;
 pub mod format;
 pub mod html;
+pub mod loss;
 pub mod study;
 pub mod svg;
 pub mod table;
@@ -36,11 +37,10 @@ pub fn finite(x: Real) -> Option<Real> {
     x.is_finite().then_some(x)
 }
 
-/// An efficiency fit to show: a share of the power between 0 and 1 (round-off within
-/// 1e-9 of either end is clamped). Anything else (a back value of the opposite sign
-/// to the ideal value, as in a self-locking rig, gives `back/ideal < 0`) is not an
-/// efficiency and is `None`: JSON leaves it out, and the text says why
-/// ([`Headline::efficiency_notes`]).
+/// An efficiency fit to show: a share of the power between 0 and 1 (round-off within 1e-9
+/// of either end is clamped). Anything else (a back value of the opposite sign to the ideal
+/// value, as in a self-locking rig, gives `back/ideal < 0`) is not an efficiency and is
+/// `None`: JSON leaves it out, and the text says why ([`Headline::efficiency_notes`]).
 pub fn efficiency(x: Option<Real>) -> Option<Real> {
     const ROUND_OFF: Real = 1e-9;
     match x? {
@@ -125,8 +125,8 @@ pub struct PassageReport {
 pub struct PartReport {
     /// Name.
     pub name: String,
-    /// Whether the part belongs to the main sub-rig (the one the drive moves); text
-    /// reports list the main sub-rig's losses. Not in the JSON.
+    /// Whether the part is in the main sub-rig (the drive's), whose losses text reports
+    /// list. Not in the JSON.
     #[serde(skip_serializing)]
     pub in_main: bool,
     /// Kind as written.
@@ -150,6 +150,9 @@ pub struct PartReport {
     /// Power lost here over the power put in (the drive's, or the loads' where they
     /// drive the rig), forward case (0 to 1).
     pub loss_of_input: Option<Real>,
+    /// Axial pin load and bending share (DESIGN.md §7), flattened into the part.
+    #[serde(flatten)]
+    pub material: loss::PartLoads,
     /// The part's passages.
     pub passages: Vec<PassageReport>,
 }
@@ -309,6 +312,8 @@ pub struct Headline {
     pub outcome: Option<Outcome>,
     /// Energy audit misfit per case (fraction of drive power).
     pub energy_audit: PerCase,
+    /// The audit's losses by kind (`loss.bearing`, `loss.bending`, ...; DESIGN.md §7).
+    pub loss: loss::LossReport,
     /// What drives the rig, for the outcome's wording. Not in the JSON.
     #[serde(skip_serializing)]
     pub drive_kind: DriveKind,
@@ -587,6 +592,7 @@ fn headline(rig: &Rig, solution: &Solution, sub: &SubRigSolution) -> Headline {
             forward: finite(sub.forward.audit_residual),
             back: finite(sub.back.audit_residual),
         },
+        loss: loss::LossReport::of(rig, solution, sub),
         drive_kind: DriveKind::of(&rig.parts[sub.drive].kind),
         subject: (if sub.drive_unknown() {
             sub.load_part
@@ -740,6 +746,7 @@ impl Report {
                 pin_load_direction_ideal: pin(Case::Ideal).and_then(|v| dir(&v)),
                 loss_share,
                 loss_of_input,
+                material: loss::PartLoads::of(rig, sub, id),
                 passages,
             });
             if let (PartKind::Drum(d), Some(s)) = (&part.kind, sub) {

@@ -26,6 +26,8 @@ use super::{Case, SolveError, SolveOptions};
 mod passage;
 mod result;
 
+pub use result::Losses;
+
 /// How the fixed-point iteration ended.
 #[derive(Debug, Clone, Copy, PartialEq)]
 pub enum Status {
@@ -109,6 +111,8 @@ pub struct CaseResult {
     pub status: Status,
     /// Energy audit misfit: |drive − loads − losses| over the drive power.
     pub audit_residual: Real,
+    /// `loss` by kind (bearing, bending, surface, drum), per part.
+    pub losses: Losses,
 }
 
 impl CaseResult {
@@ -629,13 +633,7 @@ impl<'a> Problem<'a> {
     /// Whether any friction depends on the tensions themselves.
     fn load_dependent(&self) -> bool {
         self.rig.parts.iter().any(|p| match &p.kind {
-            PartKind::Sheave(s) => {
-                s.mass.unwrap_or(0.0) > 0.0
-                    && matches!(
-                        bearing_resistance(&s.bearing, false),
-                        BearingResistance::FrictionCircle { .. }
-                    )
-            }
+            PartKind::Sheave(s) => Problem::sheave_load_dependent(s),
             PartKind::Drum(d) => d.shaft.as_ref().is_some_and(|s| {
                 !matches!(
                     bearing_resistance(&s.bearing, false),

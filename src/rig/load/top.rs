@@ -329,7 +329,7 @@ pub(super) fn rope(r: &mut Resolver, e: &Entry) -> Option<Rope> {
     let entries = r.mapping(
         node,
         &path,
-        "a rope `{diameter, mu, breaking_strength?, min_bend_ratio?, kind?}`",
+        "a rope `{diameter, mu, breaking_strength?, min_bend_ratio?, bend_loss?, kind?}`",
     )?;
     r.keys(entries, &path, ROPE_KEYS, "a rope");
     let at = node.location;
@@ -360,6 +360,24 @@ pub(super) fn rope(r: &mut Resolver, e: &Entry) -> Option<Rope> {
         }
         None => default_min_bend_ratio(kind),
     };
+    let bend_loss = match get(entries, "bend_loss") {
+        Some(n) => {
+            let p = join(&path, "bend_loss");
+            let v = r.number(
+                n,
+                &p,
+                "a fraction of tension lost per passage, such as 0.02",
+            );
+            r.check(
+                v,
+                n,
+                &p,
+                |v| (0.0..1.0).contains(&v),
+                "a fraction from 0 up to (not including) 1",
+            )?
+        }
+        None => 0.0,
+    };
     Some(Rope {
         name: e.key.clone(),
         kind,
@@ -367,6 +385,7 @@ pub(super) fn rope(r: &mut Resolver, e: &Entry) -> Option<Rope> {
         breaking_strength,
         mu: mu?,
         min_bend_ratio,
+        bend_loss,
         location: e.key_location,
     })
 }

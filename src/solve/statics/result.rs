@@ -3,6 +3,34 @@
 
 use super::*;
 
+/// The energy audit's losses by kind, per part, W per unit drive speed (as
+/// [`CaseResult::loss`], which is their sum part by part).
+#[derive(Debug, Clone, PartialEq, Default)]
+pub struct Losses {
+    /// A turning sheave's bearing: journal (friction circle, rolling or rated) and
+    /// thrust face.
+    pub bearing: Vec<Real>,
+    /// The rope's own bending over a turning sheave (the rope's `bend_loss`).
+    pub bending: Vec<Real>,
+    /// Rope sliding on a fixed surface: a guide, a stalled sheave (capstan).
+    pub surface: Vec<Real>,
+    /// A drum's drag, journal and thrust.
+    pub drum: Vec<Real>,
+}
+
+impl Losses {
+    /// Each kind summed over the parts: (bearing, bending, surface, drum).
+    pub fn totals(&self) -> (Real, Real, Real, Real) {
+        let sum = |v: &[Real]| v.iter().sum::<Real>();
+        (
+            sum(&self.bearing),
+            sum(&self.bending),
+            sum(&self.surface),
+            sum(&self.drum),
+        )
+    }
+}
+
 impl Problem<'_> {
     #[allow(clippy::too_many_arguments)]
     pub(super) fn finish(
@@ -19,6 +47,12 @@ impl Problem<'_> {
         let rig = self.rig;
         let nparts = rig.parts.len();
         let mut loss = vec![0.0; nparts];
+        let mut losses = Losses {
+            bearing: vec![0.0; nparts],
+            bending: vec![0.0; nparts],
+            surface: vec![0.0; nparts],
+            drum: vec![0.0; nparts],
+        };
         let mut ratio: Vec<Vec<Option<Real>>> =
             rig.lines.iter().map(|l| vec![None; l.path.len()]).collect();
         let mut slack = Vec::new();
@@ -56,7 +90,16 @@ impl Problem<'_> {
                     }
                 } else {
                     let s = case.sign() * self.kin.rope_speed[l][e];
-                    loss[part] += (b - a) * s;
+                    let lost = (b - a) * s;
+                    loss[part] += lost;
+                    let stall = stalled.contains(&(l, e));
+                    if matches!(rig.parts[part].kind, PartKind::Sheave(_)) && !stall {
+                        let bending = self.bending_loss(case, &tension, l, e, stall);
+                        losses.bending[part] += bending;
+                        losses.bearing[part] += lost - bending;
+                    } else {
+                        losses.surface[part] += lost;
+                    }
                 }
             }
         }
@@ -68,6 +111,7 @@ impl Problem<'_> {
             let v = velocity[i];
             let (drag, journal, thrust) = drum_friction[k];
             loss[part] += (drag + journal + thrust) * v.abs();
+            losses.drum[part] += (drag + journal + thrust) * v.abs();
             let p = (self.q_load[k] + value * self.x_coef[k]) * v;
             if part == self.drive {
                 drive_power += p;
@@ -148,6 +192,7 @@ impl Problem<'_> {
             indeterminate,
             status,
             audit_residual,
+            losses,
         }
     }
 }
