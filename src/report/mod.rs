@@ -172,7 +172,7 @@ pub struct DrumReport {
     pub journal_nm: ForwardBack<Option<Real>>,
     /// Thrust friction torque, N·m.
     pub thrust_nm: Option<Real>,
-    /// Forward rope torque minus (load + drag), N·m: what journal and thrust take.
+    /// Forward rope torque minus (load + drag), N·m: what journal, thrust and bending take.
     pub margin_nm: Option<Real>,
 }
 

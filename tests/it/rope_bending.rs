@@ -201,3 +201,33 @@ fn bend_loss_is_read_and_checked() {
         "{err}"
     );
 }
+
+#[test]
+fn a_rope_passing_round_a_drum_loses_its_bend_loss_there_too() {
+    // tests/rigs/review/drum-middle.yaml (load torque 3 N·m, drag 1 N·m, R = 53 mm, 5 kg
+    // weight, rope passing round the drum untied) with bend_loss 0.05. Hand calculation
+    // from the drum's moment balance, the bending torque β/(1 − β) T_slack R opposing
+    // the motion, the weight's side slack in both cases (W = 49.033 N):
+    // forward P = W + 4/0.053 + W/19 = 127.086 N; back P = W + 2/0.053 − W/19 = 84.188 N.
+    let rig = crate::support::edited_rig("review/drum-middle.yaml", |t| {
+        t.replace(
+            "r6: {diameter: 6, mu: 0.2}",
+            "r6: {diameter: 6, mu: 0.2, bend_loss: 0.05}",
+        )
+    });
+    let solution =
+        reeve::solve::solve(&rig, &reeve::solve::SolveOptions::default()).expect("solves");
+    audit_ok(&solution);
+    let w = 5.0 * 9.80665;
+    let main = solution.main();
+    assert_rel(
+        "forward",
+        main.forward.value,
+        w + 4.0 / 0.053 + w / 19.0,
+        1e-9,
+    );
+    assert_rel("back", main.back.value, w + 2.0 / 0.053 - w / 19.0, 1e-9);
+    let (_, bending, _, drum) = main.forward.losses.totals();
+    assert_rel("bending at the drum", bending, w / 19.0, 1e-9);
+    assert_rel("drag at the drum", drum, 1.0 / 0.053, 1e-9);
+}

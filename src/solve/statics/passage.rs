@@ -337,15 +337,57 @@ impl Problem<'_> {
         friction::bending::bending_power(beta, slack) * s.abs()
     }
 
-    /// Friction torques of a drum for given tensions: (drag, journal, thrust).
+    /// The rope's bending torque at a drum, N·m, from the previous tensions: over each
+    /// passage round the drum (not a tied end), `β/(1 − β) T_slack R`, the slack side
+    /// the smaller of its two spans' tensions ([`friction::bending`]); the power it
+    /// takes is `β/(1 − β) T_slack |s|` with `s = R ω`, as over a sheave. Zero without
+    /// tensions yet (the first pass of the fixed-point iteration).
+    pub(super) fn drum_bending(&self, part: PartId, tension: Option<&Vec<Vec<Real>>>) -> Real {
+        let Some(tension) = tension else {
+            return 0.0;
+        };
+        let mut torque = 0.0;
+        for &l in &self.lines {
+            let beta = self.rig.rope_of(l).bend_loss;
+            let path = &self.rig.lines[l].path;
+            if beta == 0.0 || path.len() < 3 {
+                continue;
+            }
+            for e in 1..path.len() - 1 {
+                if path[e].part != part {
+                    continue;
+                }
+                let slack = tension[l][e - 1].min(tension[l][e]);
+                let r = self.geometry.lines[l].entries[e].pitch_radius;
+                torque += friction::bending::bending_power(beta, slack) * r;
+            }
+        }
+        torque
+    }
+
+    /// Whether a rope with a bend loss passes round a drum of the sub-rig (then drum
+    /// friction depends on the tensions and the statics iterate).
+    pub(super) fn rope_bends_on_drums(&self) -> bool {
+        self.lines.iter().any(|&l| {
+            let path = &self.rig.lines[l].path;
+            self.rig.rope_of(l).bend_loss > 0.0
+                && path.len() > 2
+                && path[1..path.len() - 1]
+                    .iter()
+                    .any(|p| matches!(self.rig.parts[p.part].kind, PartKind::Drum(_)))
+        })
+    }
+
+    /// Friction torques of a drum for given tensions (drag, journal, thrust; the
+    /// bending is [`Problem::drum_bending`]).
     pub(super) fn drum_friction(
         &self,
         part: PartId,
         forces: &[(Vector, crate::math::Point)],
         breakaway: bool,
-    ) -> (Real, Real, Real) {
+    ) -> DrumFriction {
         let PartKind::Drum(d) = &self.rig.parts[part].kind else {
-            return (0.0, 0.0, 0.0);
+            return DrumFriction::default();
         };
         let mut journal = 0.0;
         let mut thrust = 0.0;
@@ -365,6 +407,31 @@ impl Problem<'_> {
                 thrust = thrust_moment(t);
             }
         }
-        (d.drag, journal, thrust)
+        DrumFriction {
+            drag: d.drag,
+            journal,
+            thrust,
+            bending: 0.0,
+        }
+    }
+}
+
+/// The torques that resist a drum's turning, N·m, each opposing its motion.
+#[derive(Debug, Clone, Copy, PartialEq, Default)]
+pub struct DrumFriction {
+    /// Drag torque as given.
+    pub drag: Real,
+    /// Journal friction.
+    pub journal: Real,
+    /// Thrust friction.
+    pub thrust: Real,
+    /// The rope's bending on and off the drum (its `bend_loss`).
+    pub bending: Real,
+}
+
+impl DrumFriction {
+    /// All of them.
+    pub fn total(&self) -> Real {
+        self.drag + self.journal + self.thrust + self.bending
     }
 }

@@ -39,7 +39,7 @@ impl Problem<'_> {
         value: Real,
         tension: Vec<Vec<Real>>,
         stalled: Vec<(LineId, usize)>,
-        drum_friction: Vec<(Real, Real, Real)>,
+        drum_friction: Vec<DrumFriction>,
         indeterminate: bool,
         status: Status,
         velocity: &DVector<Real>,
@@ -109,9 +109,10 @@ impl Problem<'_> {
         for (k, &i) in self.dofs.iter().enumerate() {
             let part = self.kin.dofs[i].part;
             let v = velocity[i];
-            let (drag, journal, thrust) = drum_friction[k];
-            loss[part] += (drag + journal + thrust) * v.abs();
-            losses.drum[part] += (drag + journal + thrust) * v.abs();
+            let friction = drum_friction[k];
+            loss[part] += friction.total() * v.abs();
+            losses.drum[part] += (friction.total() - friction.bending) * v.abs();
+            losses.bending[part] += friction.bending * v.abs();
             let p = (self.q_load[k] + value * self.x_coef[k]) * v;
             if part == self.drive {
                 drive_power += p;
@@ -154,8 +155,7 @@ impl Problem<'_> {
                 let k = self.dofs.iter().position(|&i| self.kin.dofs[i].part == id);
                 let speed = self.kin.dof_of_part[id].map(|i| velocity[i]).unwrap_or(0.0);
                 let dir = if speed < 0.0 { -1.0 } else { 1.0 };
-                let (drag, journal, thrust) =
-                    k.map(|k| drum_friction[k]).unwrap_or((0.0, 0.0, 0.0));
+                let friction = k.map(|k| drum_friction[k]).unwrap_or_default();
                 let load = if id == self.solve_for && id != self.drive {
                     value
                 } else if id == self.drive {
@@ -169,9 +169,10 @@ impl Problem<'_> {
                 drums[id] = Some(DrumTorques {
                     rope: torque * dir,
                     load: load * if fwd * speed >= 0.0 { 1.0 } else { -1.0 },
-                    drag,
-                    journal,
-                    thrust,
+                    drag: friction.drag,
+                    journal: friction.journal,
+                    thrust: friction.thrust,
+                    bending: friction.bending,
                     speed,
                 });
             }
