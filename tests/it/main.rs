@@ -13,6 +13,7 @@ mod numerics;
 mod outputs;
 mod pin_loads_3d;
 mod properties;
+mod properties_bending;
 mod published;
 mod rigs;
 mod rope_bending;
