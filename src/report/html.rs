@@ -361,11 +361,12 @@ pub fn write_html(
     }
     writeln!(w, "</section>\n<section id=\"part-table\">\n<h2>Parts</h2>")?;
     if let Some(t) = tables.get(1) {
-        write_table(w, t, "parts")?;
+        // The axial loads are listed under the losses: the part table fits a page.
+        write_table(w, &t.without_columns("axial load"), "parts")?;
     }
     writeln!(
         w,
-        "<p class=\"meta\">Pin load: the resultant of the rope pulls and the part's own weight; direction as a unit vector (x, y, z) in the rig's frame. Loss share: this part's part of all friction losses, forward case. Where shown, bend loss share: the part of all losses that the rope's bending takes there; axial load: the pin load along the part's axle.</p>\n</section>"
+        "<p class=\"meta\">Pin load: the resultant of the rope pulls and the part's own weight; direction as a unit vector (x, y, z) in the rig's frame. Loss share: this part's part of all friction losses, forward case. Where shown, bend loss share: the part of all losses that the rope's bending takes there; axial loads, the pin loads along the parts' axles, are listed under the losses.</p>\n</section>"
     )?;
 
     // Loss breakdown, forward.

@@ -1089,7 +1089,12 @@ fn html_tables_fit_a_printed_a4_page() {
         return;
     };
     let dir = Scratch::new("a4");
-    for name in ["line-set", "rescue-haul", "greenhouse-vents"] {
+    for name in [
+        "line-set",
+        "rescue-haul",
+        "greenhouse-vents",
+        "gallery-panel",
+    ] {
         let html = stdout_of(&["report", &example_rig(name), "-o", "-"]);
         assert!(html.contains("@media print"));
         let script = "<pre id=\"measure\"></pre><script>\

@@ -296,6 +296,35 @@ impl Table {
     pub fn text_row(&mut self, cells: Vec<String>) {
         self.rows.push(cells.into_iter().map(Cell::Text).collect());
     }
+
+    /// The table without the columns whose header starts with `prefix` (the HTML
+    /// report lists the axial loads apart, so its part table still fits a page).
+    pub fn without_columns(&self, prefix: &str) -> Table {
+        let keep: Vec<bool> = self
+            .columns
+            .iter()
+            .map(|c| !c.header.starts_with(prefix))
+            .collect();
+        let pick = |cells: &[Cell]| -> Vec<Cell> {
+            cells
+                .iter()
+                .zip(&keep)
+                .filter(|(_, k)| **k)
+                .map(|(c, _)| c.clone())
+                .collect()
+        };
+        Table {
+            title: self.title.clone(),
+            layout: self.layout,
+            columns: self
+                .columns
+                .iter()
+                .filter(|c| !c.header.starts_with(prefix))
+                .cloned()
+                .collect(),
+            rows: self.rows.iter().map(|r| pick(r)).collect(),
+        }
+    }
 }
 
 /// Significant figures shown for lengths, forces and ratios.
