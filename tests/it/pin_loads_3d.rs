@@ -189,3 +189,22 @@ fn a_planar_rig_reports_no_axial_load() {
     assert_eq!(s["axial_load_n"]["forward"].as_f64(), Some(0.0));
     assert_eq!(json["loss"]["bending"]["forward"].as_f64(), Some(0.0));
 }
+
+#[test]
+fn a_sheave_thrust_face_is_read_and_checked() {
+    // A sheave's thrust face takes its axial load from the spans: no `load` needed, but
+    // its `contact` is, as on a drum shaft; the error names the key and its line.
+    let text = skew_pair(", thrust: {diameter: 0.02, mu: 0.1}");
+    let (code, _, err) = reeve_on(&text, &["check"]).parts();
+    assert_eq!(code, 2, "{err}");
+    assert!(
+        err.contains("parts.b.thrust") && err.contains("contact"),
+        "{err}"
+    );
+    assert!(err.contains(":11:70:"), "located at the thrust face: {err}");
+    // A preload is a force like a drum thrust's `load`.
+    let text = skew_pair(", thrust: {diameter: 0.02, mu: 0.1, contact: worn, load: -5}");
+    let (code, _, err) = reeve_on(&text, &["check"]).parts();
+    assert_eq!(code, 2, "{err}");
+    assert!(err.contains("parts.b.thrust.load"), "{err}");
+}
