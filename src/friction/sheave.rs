@@ -645,6 +645,44 @@ mod tests {
     }
 
     proptest::proptest! {
+        /// The 3-D balance with a thrust face and a preload, any directions and axle:
+        /// the solved tension satisfies `(T_t − T_s) R = r_f |P_r| + a_t (|P·n| + W_0)`
+        /// and `slack_tension_3d` undoes it; with the spans in the plane and no thrust
+        /// it is the planar answer.
+        #[test]
+        fn balance_3d_holds_and_inverts(
+            a in -3.2f64..3.2, b in -1.5f64..1.5, c in -3.2f64..3.2, d in -1.5f64..1.5,
+            e in -3.2f64..3.2, f in -1.5f64..1.5, slack in 0f64..2000.0,
+            rho in 0f64..0.5, arm in 0f64..0.4, preload in 0f64..100.0,
+        ) {
+            let dir = |az: f64, el: f64| Vector::new(el.cos() * az.cos(), el.cos() * az.sin(), el.sin());
+            let (u_t, u_s, n) = (dir(a, b), dir(c, d), dir(e, f));
+            let r = 0.05;
+            let friction = SheaveFriction {
+                friction_radius: rho * r,
+                pitch_radius: r,
+                axle: Some(n),
+                thrust_arm: arm * r,
+                thrust_preload: preload,
+            };
+            let w = Vector::new(1.0, -2.0, 3.0);
+            let t = tight_tension_3d(slack, &u_t, &u_s, &w, &friction).unwrap();
+            let p = t * u_t + slack * u_s + w;
+            let axial = p.dot(&n);
+            let resist = rho * r * (p - axial * n).norm() + arm * r * (axial.abs() + preload);
+            let scale = 1.0 + t + preload;
+            proptest::prop_assert!(((t - slack) * r - resist).abs() <= 1e-11 * scale * r);
+            let back = slack_tension_3d(t, &u_t, &u_s, &w, &friction).unwrap();
+            proptest::prop_assert!((back - slack).abs() <= 1e-8 * scale, "{} vs {}", back, slack);
+            // In the plane normal to the axle, without thrust: the planar balance.
+            let flat = |u: Vector| (u - u.dot(&n) * n).normalize();
+            let (p_t, p_s) = (flat(u_t), flat(u_s));
+            let journal = SheaveFriction { thrust_arm: 0.0, thrust_preload: 0.0, ..friction };
+            let t3 = tight_tension_3d(slack, &p_t, &p_s, &Vector::zeros(), &journal).unwrap();
+            let t2 = tight_tension(slack, &p_t, &p_s, &Vector::zeros(), rho * r, r).unwrap();
+            proptest::prop_assert!((t3 - t2).abs() <= 1e-9 * (1.0 + t2));
+        }
+
         /// Any span directions, any constant pin force, any ρ < 1: the solved tension
         /// satisfies the moment balance, lies in its bracket, and slack_tension undoes
         /// it.
