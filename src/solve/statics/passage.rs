@@ -102,8 +102,10 @@ impl Problem<'_> {
             PartKind::Guide(_) => (orient(capstan), 0.0, false),
             PartKind::Sheave(sheave) => {
                 let keep = friction::bending::slack_factor(self.rig.rope_of(line).bend_loss);
+                // The last tension estimate of the span before the passage, if any.
+                let before = previous.map(|p| p[line][e - 1].max(0.0));
                 if let Some(turning) =
-                    self.sheave_3d(sheave, (line, e), s, capstan, previous, breakaway)
+                    self.sheave_3d(sheave, (line, e), s, capstan, before, breakaway)
                 {
                     return with_bending(turning, keep, s);
                 }
@@ -125,8 +127,7 @@ impl Problem<'_> {
                         // weight or no tension estimate yet: the sheave's own weight can
                         // lower the pin load (a sheave hanging in its falls), and then
                         // the balance below, not `k0`, says whether it turns.
-                        let prev = previous.filter(|_| weight.norm() > 0.0);
-                        let Some(prev) = prev else {
+                        let Some(before) = before.filter(|_| weight.norm() > 0.0) else {
                             return with_bending(
                                 if k0 > capstan {
                                     (orient(capstan), 0.0, true)
@@ -142,7 +143,6 @@ impl Problem<'_> {
                         let u_out = spans[e].direction.into_inner();
                         // The bearing model meets the tension it alone would leave on
                         // the slack side (`T_b`); bending takes its share after it.
-                        let before = prev[line][e - 1].max(0.0);
                         let after = if s > 0.0 {
                             friction::tight_tension(
                                 before / keep,
@@ -193,7 +193,7 @@ impl Problem<'_> {
         (line, e): (LineId, usize),
         s: Real,
         capstan: Real,
-        previous: Option<&Vec<Vec<Real>>>,
+        before: Option<Real>,
         breakaway: bool,
     ) -> Option<(Real, Real, bool)> {
         // sin of a fleet angle below which a span counts as in the groove plane.
@@ -244,7 +244,7 @@ impl Problem<'_> {
             return Some((orient(capstan), 0.0, true));
         };
         let constant = weight.norm() > 0.0 || thrust_preload > 0.0;
-        let Some(prev) = previous.filter(|_| constant) else {
+        let Some(before) = before.filter(|_| constant) else {
             return Some(if k0 > capstan {
                 (orient(capstan), 0.0, true)
             } else {
@@ -252,7 +252,6 @@ impl Problem<'_> {
             });
         };
         let keep = friction::bending::slack_factor(self.rig.rope_of(line).bend_loss);
-        let before = prev[line][e - 1].max(0.0);
         // The bearing alone, between the tight side and `T_b`, the slack tension it
         // would leave; bending takes its share after it (`with_bending`).
         let solved = if s > 0.0 {
@@ -307,16 +306,15 @@ impl Problem<'_> {
         forces
     }
 
-    /// Power lost to the rope's bending at middle entry `e` of `line` per unit drive
-    /// speed, W per unit drive speed: `β/(1 − β) T_slack |s|` over a turning sheave
+    /// Power lost to the rope's bending at middle entry `e` of `line`, with the tensions
+    /// of the spans before and after it, W per unit drive speed: `β/(1 − β) T_slack |s|` over a turning sheave
     /// ([`friction::bending::bending_power`]); 0 for a stalled sheave (the rope slides,
     /// the capstan ratio rules), a guide, or a drum.
     pub(super) fn bending_loss(
         &self,
         case: Case,
-        tension: &[Vec<Real>],
-        line: LineId,
-        e: usize,
+        (line, e): (LineId, usize),
+        (before, after): (Real, Real),
         stalled: bool,
     ) -> Real {
         let beta = self.rig.rope_of(line).bend_loss;
@@ -329,11 +327,7 @@ impl Problem<'_> {
         if beta == 0.0 || !turning {
             return 0.0;
         }
-        let slack = if s > 0.0 {
-            tension[line][e - 1]
-        } else {
-            tension[line][e]
-        };
+        let slack = if s > 0.0 { before } else { after };
         friction::bending::bending_power(beta, slack) * s.abs()
     }
 

@@ -94,7 +94,7 @@ impl Problem<'_> {
                     loss[part] += lost;
                     let stall = stalled.contains(&(l, e));
                     if matches!(rig.parts[part].kind, PartKind::Sheave(_)) && !stall {
-                        let bending = self.bending_loss(case, &tension, l, e, stall);
+                        let bending = self.bending_loss(case, (l, e), (a, b), stall);
                         losses.bending[part] += bending;
                         losses.bearing[part] += lost - bending;
                     } else {
