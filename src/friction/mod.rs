@@ -14,7 +14,8 @@
 //! - [`thrust`]: pivot and collar bearings, `μ W r_eff / sin α`;
 //! - [`sheave`]: the moment balance of a turning sheave, the closed-form ratio of a
 //!   weightless one ([`sheave_ratio`]) and the root solve where its weight joins the
-//!   pin load ([`tight_tension`] / [`slack_tension`]).
+//!   pin load ([`tight_tension`] / [`slack_tension`]), and in 3-D with the pin load
+//!   split by the axle and a thrust face ([`tight_tension_3d`] / [`slack_tension_3d`]).
 //!
 //! Here: [`BearingResistance`], what any bearing reduces to (a friction radius or a
 //! load-independent ratio), the ratio limit, and the dissipation of a passage.

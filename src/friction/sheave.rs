@@ -1,8 +1,11 @@
 //! Turning sheaves: the moment balance about the axle, `(T_t − T_s) R = r_f |F_pin|`,
 //! in closed form for a weightless sheave ([`sheave_ratio`]) and by a safeguarded root
 //! solve where a constant force (the sheave's own weight) joins the pin load
-//! ([`tight_tension`], [`slack_tension`]). Plain numbers in SI: tensions in N, radii
-//! in m, directions as unit vectors.
+//! ([`tight_tension`], [`slack_tension`]); in 3-D, where spans leave the groove plane,
+//! the journal takes only the pin load's part normal to the axle and a thrust face its
+//! axial part ([`tight_tension_3d`], [`slack_tension_3d`], [`SheaveFriction`];
+//! DESIGN.md §7). Plain numbers in SI: tensions in N, radii in m, directions as unit
+//! vectors.
 //!
 //! # Sign conventions
 //! Span directions `u` point *away from* the sheave along each span, so the rope pulls
