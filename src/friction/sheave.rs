@@ -249,8 +249,9 @@ impl SheaveFriction {
 /// # Source
 /// Friction circle as [`tight_tension`]; thrust face as
 /// [`crate::friction::thrust::moment`] (Hibbeler, *Statics*, §8.6); the split of the
-/// pin load by the axle is the bearing's geometry (a journal resists only loads normal
-/// to its axis: Shigley, *Mechanical Engineering Design*, ch. 12, journal bearings).
+/// pin load by the axle is the bearing's geometry (a journal carries only loads normal
+/// to its axis, the axial part goes to a thrust face: DESIGN.md §7; as in the journal
+/// bearing chapter of Shigley's *Mechanical Engineering Design*, from memory).
 pub fn tight_tension_3d(
     slack: Real,
     u_tight: &Vector,
