@@ -43,6 +43,7 @@ pub(super) const ROPE_KEYS: &[&str] = &[
     "breaking_strength",
     "mu",
     "min_bend_ratio",
+    "bend_loss",
     "kind",
     "stiffness",
     "mass_per_length",
@@ -110,7 +111,7 @@ impl Kind {
         match self {
             Kind::Anchor => &["block"],
             Kind::Sheave => &[
-                "axle", "diameter", "bearing", "mass", "groove", "mu", "block",
+                "axle", "diameter", "bearing", "mass", "groove", "mu", "block", "thrust",
             ],
             Kind::Guide => &["axle", "diameter", "mu", "groove"],
             Kind::Block => &["moves", "load", "mass"],
