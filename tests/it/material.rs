@@ -294,3 +294,32 @@ fn the_tables_show_the_rope_as_a_material() {
     let html = crate::support::stdout_of(&["report", &rig, "-o", "-"]);
     assert!(html.contains("id=\"material\"") && html.contains("Lost travel at the drive"));
 }
+
+#[test]
+fn the_split_by_stiffness_depends_on_stiffness_ratios_only() {
+    // Scaling every EA leaves the split (compatibility: T_i·L_i/EA equal) and halves
+    // every stretch when EA doubles (δ = T·L/EA, Gere & Goodno §2.3), where lines share a
+    // block as where they do not. A very stiff rope is not the least-squares split: the
+    // split follows EA/L however stiff (issue 11 item 2).
+    let text = std::fs::read_to_string(test_rig("material/two-lift-lines.yaml")).unwrap();
+    let run = |ea: &str| {
+        let (rig, s) = solve_text(&text.replace("stiffness: 1 MN", &format!("stiffness: {ea}")));
+        let report = Report::build(&rig, &s, Vec::new());
+        let stretch: Vec<f64> = report
+            .spans
+            .iter()
+            .map(|s| s.stretch_m.as_ref().unwrap().forward.unwrap())
+            .collect();
+        (s.main().forward.tension.clone(), stretch)
+    };
+    let (t1, d1) = run("1 MN");
+    let (t2, d2) = run("2 MN");
+    let (t3, _) = run("1e11 N");
+    for (l, (a, b)) in t1.iter().zip(&t2).enumerate() {
+        assert_rel(&format!("line {l}, EA doubled"), b[0], a[0], 1e-9);
+        assert_rel(&format!("line {l}, EA 1e11 N"), t3[l][0], a[0], 1e-9);
+    }
+    for (a, b) in d1.iter().zip(&d2) {
+        assert_rel("stretch halves", *b, a / 2.0, 1e-9);
+    }
+}
