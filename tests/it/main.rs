@@ -15,6 +15,7 @@ mod outputs;
 mod pin_loads_3d;
 mod properties;
 mod properties_bending;
+mod properties_material;
 mod published;
 mod rigs;
 mod rope_bending;
