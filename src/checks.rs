@@ -633,11 +633,18 @@ fn subrig_checks(rig: &Rig, sub: &SubRigSolution) -> Vec<Warning> {
         let shared = sub
             .load_part
             .map_or(drive.as_str(), |p| rig.parts[p].name.as_str());
+        let by_stiffness = [&sub.ideal, &sub.forward, &sub.back]
+            .iter()
+            .all(|c| !c.indeterminate || c.split_by_stiffness);
         out.push(warn(
             "indeterminate",
             Some(shared),
             false,
-            "statics alone does not fix how lines that share one block split its load; the least-squares split is shown, but the real split depends on rope stretch and where the load sits".to_string(),
+            if by_stiffness {
+                "statics alone does not fix how lines that share one block split its load; the split shown follows the stiffness of the ropes (their stretch must match as the block moves rigidly), so it holds only as far as the given stiffnesses and the drawn positions do".to_string()
+            } else {
+                "statics alone does not fix how lines that share one block split its load; the least-squares split is shown, but the real split depends on rope stretch and where the load sits (give every rope of these lines a `stiffness` to split it by stretch)".to_string()
+            },
         ));
     }
     if sub.self_locking() && rig.runs_back {

@@ -36,6 +36,8 @@ pub enum Dimension {
     Mass,
     /// Newton-metres inside.
     Torque,
+    /// Kilograms per metre inside (a rope's `mass_per_length`; DESIGN.md §7).
+    MassPerLength,
 }
 
 impl Dimension {
@@ -46,6 +48,7 @@ impl Dimension {
             Dimension::Force => "force",
             Dimension::Mass => "mass",
             Dimension::Torque => "torque",
+            Dimension::MassPerLength => "mass per length",
         }
     }
 
@@ -53,9 +56,10 @@ impl Dimension {
     pub fn spellings(self) -> &'static [&'static str] {
         match self {
             Dimension::Length => &["mm", "cm", "m", "in", "ft"],
-            Dimension::Force => &["N", "kN", "lbf"],
+            Dimension::Force => &["N", "kN", "MN", "lbf"],
             Dimension::Mass => &["kg", "g", "lb"],
             Dimension::Torque => &["N*m", "N*mm", "kN*m", "lbf*in", "lbf*ft"],
+            Dimension::MassPerLength => &["kg/m", "g/m", "lb/ft"],
         }
     }
 }
@@ -104,6 +108,8 @@ pub mod unit {
     pub const N: Unit = unit(Dimension::Force, "N", 1.0);
     /// Kilonewton.
     pub const KN: Unit = unit(Dimension::Force, "kN", 1e3);
+    /// Meganewton (DESIGN.md §7).
+    pub const MN: Unit = unit(Dimension::Force, "MN", 1e6);
     /// Pound-force.
     pub const LBF: Unit = unit(Dimension::Force, "lbf", POUND_FORCE);
     /// Kilogram.
@@ -122,10 +128,17 @@ pub mod unit {
     pub const LBF_IN: Unit = unit(Dimension::Torque, "lbf*in", POUND_FORCE * INCH);
     /// Pound-force foot.
     pub const LBF_FT: Unit = unit(Dimension::Torque, "lbf*ft", POUND_FORCE * FOOT);
+    /// Kilogram per metre (DESIGN.md §7).
+    pub const KG_PER_M: Unit = unit(Dimension::MassPerLength, "kg/m", 1.0);
+    /// Gram per metre.
+    pub const G_PER_M: Unit = unit(Dimension::MassPerLength, "g/m", 1e-3);
+    /// Pound per foot.
+    pub const LB_PER_FT: Unit = unit(Dimension::MassPerLength, "lb/ft", POUND / FOOT);
 
     /// All of them.
     pub(super) const ALL: &[Unit] = &[
-        MM, CM, M, IN, FT, N, KN, LBF, KG, G, LB, N_M, N_MM, KN_M, LBF_IN, LBF_FT,
+        MM, CM, M, IN, FT, N, KN, MN, LBF, KG, G, LB, N_M, N_MM, KN_M, LBF_IN, LBF_FT, KG_PER_M,
+        G_PER_M, LB_PER_FT,
     ];
 }
 
@@ -232,6 +245,7 @@ pub fn parse_quantity(text: &str, dimension: Dimension, default: Unit) -> Result
         Dimension::Force => "7.5 kN",
         Dimension::Mass => "40 kg",
         Dimension::Torque => "1.2 N*m",
+        Dimension::MassPerLength => "0.25 kg/m",
     };
     let value: Real = number.trim().parse().map_err(|_| UnitError::NotAQuantity {
         text: t.to_string(),
@@ -287,6 +301,8 @@ impl UnitSystem {
             Dimension::Force => self.force,
             Dimension::Mass => self.mass,
             Dimension::Torque => self.torque,
+            // No `units` key names it: bare numbers and reports are in kg/m.
+            Dimension::MassPerLength => unit::KG_PER_M,
         }
     }
 
@@ -436,6 +452,12 @@ mod tests {
         assert_eq!(si("1 N*m", Dimension::Torque), 1.0);
         assert_eq!(si("1 N*mm", Dimension::Torque), 1e-3);
         assert_eq!(si("1 kN*m", Dimension::Torque), 1e3);
+        // DESIGN.md §7: force `MN`; mass per length `kg/m`, `g/m`, `lb/ft`.
+        assert_eq!(si("9.80665 MN", Dimension::Force), 9.80665e6);
+        assert_eq!(si("1 kg/m", Dimension::MassPerLength), 1.0);
+        assert_eq!(si("250 g/m", Dimension::MassPerLength), 0.25);
+        assert!((si("1 lb/ft", Dimension::MassPerLength) - 0.45359237 / 0.3048).abs() < 1e-15);
+        assert_eq!(si("0.5", Dimension::MassPerLength), 0.5); // bare: kg/m
         assert!((si("1 lbf*in", Dimension::Torque) - 4.4482216152605 * 0.0254).abs() < 1e-15);
         assert!((si("1 lbf*ft", Dimension::Torque) - 4.4482216152605 * 0.3048).abs() < 1e-15);
     }
@@ -479,14 +501,18 @@ mod tests {
             for x in [1.0, 0.1, 7.5, 123.456, 1e-6, 9.87e8] {
                 let text = format!("{x} {}", u.symbol);
                 let si = parse_quantity(&text, u.dimension, u).unwrap();
-                let back = UnitSystem {
-                    length: u,
-                    span_length: u,
-                    force: u,
-                    mass: u,
-                    torque: u,
-                }
-                .from_si(si, u.dimension);
+                let back = match u.dimension {
+                    // No system field holds it (always kg/m): the unit's own factor.
+                    Dimension::MassPerLength => si / u.si,
+                    d => UnitSystem {
+                        length: u,
+                        span_length: u,
+                        force: u,
+                        mass: u,
+                        torque: u,
+                    }
+                    .from_si(si, d),
+                };
                 assert!(
                     (back - x).abs() <= 4.0 * Real::EPSILON * x,
                     "{text}: {si} SI, back {back}"

@@ -22,6 +22,7 @@
 //! - Fleet angle of a span at a round part is `asin(|u · a|)`, `u` the span's direction.
 //! - Two places closer than `1e-12 ×` [`rig_size`] are the same place.
 
+pub mod catenary;
 pub mod tangent;
 
 use std::f64::consts::TAU;

@@ -134,6 +134,25 @@ rig. See e.g. the Wire Rope Users Manual (Wire Rope Technical Board) and rope ma
 handbooks on reeving efficiency.",
     ),
     (
+        "Rope bending loss",
+        "The rope's own stiffness costs a fraction β (the rope's bend_loss, default 0) of \
+tension at each passage over a turning sheave, whatever the wrap: the rope bends on and \
+off once. With the rope running from the tight side to the slack side, T_slack = (1 − β) \
+times the tension the bearing model alone would leave. Basis: K. Feyrer, Wire Ropes: \
+Tension, Endurance, Reliability (Springer), on the efficiency of rope sheaves (bending at \
+the run-on and run-off points plus bearing friction); rope-rescue measurements comparing \
+one 180° deflection with two 90° deflections over the same pulleys (T. Pöysti, \
+\"Line deviation and pulley efficiency\", 2020).",
+    ),
+    (
+        "Sheaves at fleet angles: 3-D pin loads",
+        "Where spans leave a sheave's plane, the pin load P = T_t u_t + T_s u_s (+ the \
+sheave's weight) splits by the axle n into a radial part |P − (P·n) n|, which loads the \
+journal: (T_t − T_s) R = r_f |P_radial|, and an axial part P·n (the axial load), carried \
+by the sheave's cheeks or a thrust face, whose friction μ r_eff |P·n| joins the moment \
+balance where the sheave has one.",
+    ),
+    (
         "Drum shafts: thrust (pivot and collar) friction",
         "M_thrust = μ W r_eff with r_eff = (2/3)(Ro³ − Ri³)/(Ro² − Ri²) for uniform pressure \
 (new surfaces) and r_eff = (Ro + Ri)/2 for uniform wear (run-in surfaces); a conical \
@@ -141,6 +160,18 @@ pivot of half-angle α (the file's cone_angle: half the pivot's included angle) 
 by sin α. As in Beer and Johnston, chapter 8, section \"Thrust \
 Bearings. Disk Friction\", and in machine-design texts on disc clutches, e.g. Shigley's Mechanical \
 Engineering Design (clutches and brakes: uniform wear and uniform pressure).",
+    ),
+    (
+        "Rope as a material",
+        "Where a rope gives `stiffness` (EA), each span stretches by its mean tension times its \
+length over EA (Gere and Goodno, Mechanics of Materials, section 2.3); lines that share a \
+block split its load so that their stretches match as the block moves rigidly (equilibrium \
+plus compatibility, section 2.4). The spring rate at the drive holds every loaded part and \
+lets the ropes stretch; the lost travel is the drive's ideal value over that rate \
+(Castigliano's theorem, section 9.9, is its check). Where a rope gives `mass_per_length`, the \
+tension along each span grows by the weight per length times the rise, the weight across \
+the span hangs half on each end, and the sag is the catenary's (Meriam and Kraige, \
+Engineering Mechanics: Statics, section 5/9 on flexible cables; the parabola is its check).",
     ),
     (
         "Solver",
@@ -246,6 +277,14 @@ fn write_summary(w: &mut dyn Write, h: &Headline, units: &UnitSystem, id: &str) 
         q(hi)
     )?;
     writeln!(w, "<li>{}.</li>", h.self_locking_words())?;
+    if let Some((travel, rate)) = super::text::drive_spring_words(h, units) {
+        writeln!(
+            w,
+            "<li>Lost travel at the drive: {} (spring rate {}, loaded parts held, no friction).</li>",
+            esc(&travel),
+            esc(&rate)
+        )?;
+    }
     if let Some((sentence, moves)) = super::text::outcome(h, units) {
         writeln!(
             w,
@@ -342,12 +381,25 @@ pub fn write_html(
     }
     writeln!(w, "</section>\n<section id=\"part-table\">\n<h2>Parts</h2>")?;
     if let Some(t) = tables.get(1) {
-        write_table(w, t, "parts")?;
+        // The axial loads are listed under the losses: the part table fits a page.
+        write_table(w, &t.without_columns("axial load"), "parts")?;
     }
     writeln!(
         w,
-        "<p class=\"meta\">Pin load: the resultant of the rope pulls and the part's own weight; direction as a unit vector (x, y, z) in the rig's frame. Loss share: this part's part of all friction losses, forward case.</p>\n</section>"
+        "<p class=\"meta\">Pin load: the resultant of the rope pulls and the part's own weight; direction as a unit vector (x, y, z) in the rig's frame. Loss share: this part's part of all friction losses, forward case. Where shown, bend loss share: the part of all losses that the rope's bending takes there; axial loads, the pin loads along the parts' axles, are listed under the losses.</p>\n</section>"
     )?;
+    if let Some(t) = table::material_table(report, units, table::CaseFilter::Forward, Style::Human)
+    {
+        writeln!(
+            w,
+            "<section id=\"material-table\">\n<h2>Rope as a material</h2>"
+        )?;
+        write_table(w, &t, "material")?;
+        writeln!(
+            w,
+            "<p class=\"meta\">Forward case. Stretch: mean tension × length / EA. Tension at end: where the rope's weight makes the span's ends differ (the span table shows the tension at its start). Sag: the catenary's largest vertical distance below the chord, for spans within 45° of level.</p>\n</section>"
+        )?;
+    }
 
     // Loss breakdown, forward.
     writeln!(
@@ -381,6 +433,16 @@ pub fn write_html(
             )?;
         }
         writeln!(w, "</div>")?;
+    }
+    if let Some(kinds) = report.headline.loss.words(units) {
+        writeln!(w, "<p>By kind, at the drive: {}.</p>", esc(&kinds))?;
+    }
+    if let Some(axial) = super::loss::axial_words(report, units) {
+        writeln!(
+            w,
+            "<p>Axial pin loads (forward, along each axle): {}.</p>",
+            esc(&axial)
+        )?;
     }
     writeln!(w, "</section>")?;
 

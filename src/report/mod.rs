@@ -4,11 +4,14 @@
 
 pub mod asked;
 pub mod chart;
+mod drive;
 pub mod dxf;
 pub mod escape;
 pub mod file;
 pub mod format;
 pub mod html;
+pub mod loss;
+pub mod material;
 pub mod study;
 pub mod svg;
 pub mod table;
@@ -19,12 +22,15 @@ use serde::Serialize;
 use crate::checks::Warning;
 use crate::math::{Real, Vector};
 use crate::model::{PartKind, Rig};
-use crate::solve::kinematics::Motion;
 use crate::solve::{given_quantity, Case, Outcome, Solution, SubRigSolution};
 use crate::units::UnitSystem;
 
 pub use asked::{Asked, Role};
+use drive::travel;
+pub use drive::{DriveKind, Travel};
 pub use format::{DrawingFormat, Format};
+use material::span_material;
+pub use material::SpanTension;
 
 /// The caution every human-readable report ends with (DESIGN.md §6).
 pub const CAUTION: &str =
@@ -37,11 +43,10 @@ pub fn finite(x: Real) -> Option<Real> {
     x.is_finite().then_some(x)
 }
 
-/// An efficiency fit to show: a share of the power between 0 and 1 (round-off within
-/// 1e-9 of either end is clamped). Anything else (a back value of the opposite sign
-/// to the ideal value, as in a self-locking rig, gives `back/ideal < 0`) is not an
-/// efficiency and is `None`: JSON leaves it out, and the text says why
-/// ([`Headline::efficiency_notes`]).
+/// An efficiency fit to show: a share of the power between 0 and 1 (round-off within 1e-9
+/// of either end is clamped). Anything else (a back value of the opposite sign to the ideal
+/// value, as in a self-locking rig, gives `back/ideal < 0`) is not an efficiency and is
+/// `None`: JSON leaves it out, and the text says why ([`Headline::efficiency_notes`]).
 pub fn efficiency(x: Option<Real>) -> Option<Real> {
     const ROUND_OFF: Real = 1e-9;
     match x? {
@@ -94,8 +99,16 @@ pub struct SpanReport {
     pub to: String,
     /// Length, m.
     pub length_m: Option<Real>,
-    /// Tension per case, N.
-    pub tension_n: PerCase,
+    /// Tension per case, N, at the span's start; with rope weight also at its end.
+    pub tension_n: SpanTension,
+    /// Stretch per case, m, where the rope has a `stiffness` (DESIGN.md §7).
+    #[serde(skip_serializing_if = "Option::is_none")]
+    pub stretch_m: Option<PerCase>,
+    /// Sag under the rope's own weight, m: the largest vertical distance of the catenary
+    /// below the chord, the largest over the cases, for a span within 45° of level
+    /// where the rope has a `mass_per_length`.
+    #[serde(skip_serializing_if = "Option::is_none")]
+    pub sag_m: Option<Real>,
     /// Breaking strength over the larger of the forward and back tensions.
     pub safety_factor: Option<Real>,
     /// Unit direction from `from` to `to`.
@@ -126,8 +139,8 @@ pub struct PassageReport {
 pub struct PartReport {
     /// Name.
     pub name: String,
-    /// Whether the part belongs to the main sub-rig (the one the drive moves); text
-    /// reports list the main sub-rig's losses. Not in the JSON.
+    /// Whether the part is in the main sub-rig (the drive's), whose losses text reports
+    /// list. Not in the JSON.
     #[serde(skip_serializing)]
     pub in_main: bool,
     /// Kind as written.
@@ -151,6 +164,9 @@ pub struct PartReport {
     /// Power lost here over the power put in (the drive's, or the loads' where they
     /// drive the rig), forward case (0 to 1).
     pub loss_of_input: Option<Real>,
+    /// Axial pin load and bending share (DESIGN.md §7), flattened into the part.
+    #[serde(flatten)]
+    pub material: loss::PartLoads,
     /// The part's passages.
     pub passages: Vec<PassageReport>,
 }
@@ -170,91 +186,8 @@ pub struct DrumReport {
     pub journal_nm: ForwardBack<Option<Real>>,
     /// Thrust friction torque, N·m.
     pub thrust_nm: Option<Real>,
-    /// Forward rope torque minus (load + drag), N·m: what journal and thrust take.
+    /// Forward rope torque minus (load + drag), N·m: what journal, thrust and bending take.
     pub margin_nm: Option<Real>,
-}
-
-/// What drives a sub-rig, for wording its outcome.
-#[derive(Debug, Clone, Copy, PartialEq, Eq)]
-pub enum DriveKind {
-    /// A haul end: a person, a hand or a powered pull; it can pull less than it has.
-    Pull,
-    /// A hanging weight (a counterweight): its value is what it is, and it moves the
-    /// rig by itself or not at all.
-    Counterweight,
-    /// A drum (a winch or crank); it can turn with less torque than it has.
-    Drum,
-    /// A block whose load drives it forward (a falling block), fixed like a weight.
-    FallingBlock,
-}
-
-impl DriveKind {
-    /// The drive kind of a part.
-    pub fn of(kind: &PartKind) -> DriveKind {
-        match kind {
-            PartKind::Weight(_) => DriveKind::Counterweight,
-            PartKind::Drum(_) => DriveKind::Drum,
-            PartKind::Block(_) => DriveKind::FallingBlock,
-            _ => DriveKind::Pull,
-        }
-    }
-
-    /// Whether its value is fixed (a weight's mass, a block's load): then it moves the
-    /// rig by itself above the forward value, friction holds it inside the holding band,
-    /// and the rig runs back by itself below the back value.
-    pub fn fixed(self) -> bool {
-        matches!(self, DriveKind::Counterweight | DriveKind::FallingBlock)
-    }
-}
-
-/// Which way a part goes when the rig moves forward.
-#[derive(Debug, Clone, Copy, PartialEq, Eq)]
-pub enum Travel {
-    /// More than 10° above the horizontal (against gravity).
-    Up,
-    /// More than 10° below the horizontal.
-    Down,
-    /// Within 10° of the horizontal.
-    Across,
-    /// It turns (a drum).
-    Turns,
-}
-
-impl Travel {
-    /// What the part does going forward and running back: `rises` / `drops back`.
-    pub fn words(travel: Option<Travel>) -> (&'static str, &'static str) {
-        match travel {
-            Some(Travel::Up) => ("rises", "drops back"),
-            Some(Travel::Down) => ("lowers", "rises back"),
-            Some(Travel::Turns) => ("turns forward", "turns back"),
-            Some(Travel::Across) | None => ("moves forward", "runs back"),
-        }
-    }
-}
-
-/// The way `part` travels in the forward motion, if it moves.
-fn travel(rig: &Rig, solution: &Solution, part: usize) -> Option<Travel> {
-    let k = &solution.kinematics;
-    let i = (*k.dof_of_part.get(part)?)?;
-    match k.dofs[i].motion {
-        Motion::Rotate(_) => Some(Travel::Turns),
-        Motion::Translate(d) => {
-            let v = d.into_inner() * k.forward[i];
-            let n = v.norm();
-            if !(n > 0.0 && n.is_finite()) {
-                return None;
-            }
-            // sin 10° ≈ 0.17: steeper than that reads as going up or down.
-            let up = v.dot(&-rig.gravity.into_inner()) / n;
-            Some(if up > 0.17 {
-                Travel::Up
-            } else if up < -0.17 {
-                Travel::Down
-            } else {
-                Travel::Across
-            })
-        }
-    }
 }
 
 /// The headline of one sub-rig.
@@ -310,6 +243,16 @@ pub struct Headline {
     pub outcome: Option<Outcome>,
     /// Energy audit misfit per case (fraction of drive power).
     pub energy_audit: PerCase,
+    /// The lost travel at the drive, in the drive's SI unit (m, or rad for a drum),
+    /// where ropes have a `stiffness` ([`SubRigSolution::lost_travel`]).
+    #[serde(skip_serializing_if = "Option::is_none")]
+    pub lost_travel: Option<Real>,
+    /// The rig's spring rate at the drive, N/m (N*m/rad for a drum), where ropes have a
+    /// `stiffness` ([`SubRigSolution::drive_stiffness`]).
+    #[serde(skip_serializing_if = "Option::is_none")]
+    pub drive_stiffness: Option<Real>,
+    /// The audit's losses by kind (`loss.bearing`, `loss.bending`, ...; DESIGN.md §7).
+    pub loss: loss::LossReport,
     /// What drives the rig, for the outcome's wording. Not in the JSON.
     #[serde(skip_serializing)]
     pub drive_kind: DriveKind,
@@ -588,6 +531,9 @@ fn headline(rig: &Rig, solution: &Solution, sub: &SubRigSolution) -> Headline {
             forward: finite(sub.forward.audit_residual),
             back: finite(sub.back.audit_residual),
         },
+        lost_travel: sub.lost_travel.and_then(finite),
+        drive_stiffness: sub.drive_stiffness.and_then(finite),
+        loss: loss::LossReport::of(rig, solution, sub),
         drive_kind: DriveKind::of(&rig.parts[sub.drive].kind),
         subject: (if sub.drive_unknown() {
             sub.load_part
@@ -634,18 +580,32 @@ impl Report {
                         .and_then(finite)
                 };
                 let (ti, tf, tb) = (t(Case::Ideal), t(Case::Forward), t(Case::Back));
-                let worst = [ti, tf, tb].into_iter().flatten().fold(0.0, Real::max);
+                let material = span_material(rig, solution, sub, l, j);
+                let worst = [ti, tf, tb]
+                    .into_iter()
+                    .chain([
+                        material.ends.ideal,
+                        material.ends.forward,
+                        material.ends.back,
+                    ])
+                    .flatten()
+                    .fold(0.0, Real::max);
                 spans.push(SpanReport {
                     line: line.name.clone(),
                     index: j,
                     from: rig.parts[line.path[j].part].name.clone(),
                     to: rig.parts[line.path[j + 1].part].name.clone(),
                     length_m: finite(span.length),
-                    tension_n: PerCase {
+                    tension_n: SpanTension {
                         ideal: ti,
                         forward: tf,
                         back: tb,
+                        ideal_end: material.ends.ideal,
+                        forward_end: material.ends.forward,
+                        back_end: material.ends.back,
                     },
+                    stretch_m: material.stretch,
+                    sag_m: material.sag,
                     safety_factor: rope.breaking_strength.and_then(|s| finite(s / worst)),
                     direction: [span.direction.x, span.direction.y, span.direction.z],
                 });
@@ -741,6 +701,7 @@ impl Report {
                 pin_load_direction_ideal: pin(Case::Ideal).and_then(|v| dir(&v)),
                 loss_share,
                 loss_of_input,
+                material: loss::PartLoads::of(rig, sub, id),
                 passages,
             });
             if let (PartKind::Drum(d), Some(s)) = (&part.kind, sub) {

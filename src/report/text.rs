@@ -266,6 +266,81 @@ pub fn not_moving_words(h: &Headline) -> String {
     }
 }
 
+/// The lost travel and spring rate at the drive in the report's units: a length and
+/// force per length for a linear drive, degrees and torque per degree for a drum.
+pub fn drive_spring_words(h: &Headline, units: &UnitSystem) -> Option<(String, String)> {
+    let (travel, rate) = (h.lost_travel?, h.drive_stiffness?);
+    Some(if h.drive_kind == DriveKind::Drum {
+        let torque = units.torque;
+        (
+            format!("{}°", crate::units::significant(travel.to_degrees(), 4)),
+            format!(
+                "{} {}/°",
+                crate::units::significant(rate.to_radians() / torque.si, 4),
+                torque.symbol
+            ),
+        )
+    } else {
+        let (force, length) = (units.force, units.length);
+        (
+            quantity(Some(travel), Dimension::Length, units),
+            format!(
+                "{} {}/{}",
+                crate::units::significant(rate * length.si / force.si, 4),
+                force.symbol,
+                length.symbol
+            ),
+        )
+    })
+}
+
+/// The rope as a material (DESIGN.md §7), where a rope has `stiffness` or
+/// `mass_per_length`: lost travel and spring rate at the drive, then each span's
+/// stretch, end tensions and sag in the forward case.
+fn write_material(w: &mut dyn Write, report: &Report, units: &UnitSystem) -> io::Result<()> {
+    let spans: Vec<_> = report
+        .spans
+        .iter()
+        .filter(|s| s.stretch_m.is_some() || s.tension_n.forward_end.is_some() || s.sag_m.is_some())
+        .collect();
+    let spring = drive_spring_words(&report.headline, units);
+    if spans.is_empty() && spring.is_none() {
+        return Ok(());
+    }
+    let len = |x| quantity(x, Dimension::Length, units);
+    let force = |x| quantity(x, Dimension::Force, units);
+    writeln!(w)?;
+    writeln!(w, "Rope as a material (forward):")?;
+    if let Some((travel, rate)) = spring {
+        writeln!(
+            w,
+            "  Lost travel at the drive: {travel} (spring rate {rate}, loaded parts held, no friction)."
+        )?;
+    }
+    if !spans.is_empty() {
+        writeln!(
+            w,
+            "  {:<10} {:>3}  {:<26} {:>12} {:>12} {:>12} {:>12}",
+            "line", "#", "from → to", "stretch", "T at start", "T at end", "sag"
+        )?;
+        for s in spans {
+            let (start, end) = s.tension_n.ends(crate::solve::Case::Forward);
+            writeln!(
+                w,
+                "  {:<10} {:>3}  {:<26} {:>12} {:>12} {:>12} {:>12}",
+                s.line,
+                s.index,
+                format!("{} → {}", s.from, s.to),
+                len(s.stretch_m.as_ref().and_then(|p| p.forward)),
+                force(start),
+                force(end),
+                len(s.sag_m)
+            )?;
+        }
+    }
+    Ok(())
+}
+
 /// The first letter in upper case.
 pub fn capitalise(s: &str) -> String {
     let mut c = s.chars();
@@ -302,24 +377,50 @@ fn write_check_raw(w: &mut dyn Write, rig: &Rig, report: &Report, source: &str) 
     if !losses.is_empty() {
         writeln!(w)?;
         writeln!(w, "Largest losses (forward):")?;
+        // Where the rope's bending costs anything, the part of each share it takes.
+        let bending = report.headline.loss.has_bending();
+        let bend = |x: Option<Real>| {
+            if bending {
+                format!(" {:>12}", percent(x))
+            } else {
+                String::new()
+            }
+        };
         writeln!(
             w,
-            "  {:<16} {:<8} {:>12} {:>12}",
-            "part", "kind", "of losses", "of input"
+            "  {:<16} {:<8} {:>12} {:>12}{}",
+            "part",
+            "kind",
+            "of losses",
+            "of input",
+            if bending {
+                format!(" {:>12}", "bending")
+            } else {
+                String::new()
+            }
         )?;
         for p in losses.iter().take(8) {
             writeln!(
                 w,
-                "  {:<16} {:<8} {:>12} {:>12}",
+                "  {:<16} {:<8} {:>12} {:>12}{}",
                 p.name,
                 p.kind,
                 percent(p.loss_share),
-                percent(p.loss_of_input)
+                percent(p.loss_of_input),
+                bend(p.material.bend_loss_share)
             )?;
         }
         if losses.len() > 8 {
             writeln!(w, "  ... and {} more (see `reeve table`)", losses.len() - 8)?;
         }
+    }
+    // The rope-as-material lines (DESIGN.md §7), only where the rig has them.
+    if let Some(kinds) = report.headline.loss.words(units) {
+        writeln!(w, "Losses by kind (forward, at the drive): {kinds}")?;
+    }
+    if let Some(axial) = super::loss::axial_words(report, units) {
+        writeln!(w)?;
+        writeln!(w, "Axial pin loads (forward, along each axle): {axial}")?;
     }
     if !report.drums.is_empty() {
         let t = |x| quantity(x, Dimension::Torque, units);
@@ -346,6 +447,7 @@ fn write_check_raw(w: &mut dyn Write, rig: &Rig, report: &Report, source: &str) 
             )?;
         }
     }
+    write_material(w, report, units)?;
     for sub in &report.subrigs {
         writeln!(w)?;
         writeln!(w, "Independent sub-rig driven by `{}`:", sub.drive)?;

@@ -6,8 +6,10 @@
 //! moving sub-rig needs exactly one haul end, which is then its drive and its unknown.
 
 pub mod bearing;
+pub mod elastic;
 mod error;
 pub mod kinematics;
+pub mod selfweight;
 pub mod statics;
 pub mod travel;
 pub mod walk;
@@ -197,6 +199,16 @@ pub struct SubRigSolution {
     pub velocity_ratio: Option<Real>,
     /// The load part used for the velocity ratio.
     pub load_part: Option<PartId>,
+    /// The rig's spring rate at the drive, N/m or N·m/rad, frictionless, with every
+    /// loaded part held ([`elastic::drive_stiffness`]); None without rope `stiffness`.
+    pub drive_stiffness: Option<Real>,
+    /// The lost travel at the drive, m or rad: how far the drive moves from the
+    /// unloaded rig (ropes just taut) until it holds its ideal value with every loaded
+    /// part still where it stands, `|F_ideal| / drive_stiffness` (DESIGN.md §7). The
+    /// ropes' own weight, where given, counts as load taken up (the unloaded rig's rope
+    /// is just taut and weightless), so a long hanging rope's lost travel includes the
+    /// stretch of its own weight.
+    pub lost_travel: Option<Real>,
 }
 
 impl SubRigSolution {
@@ -473,7 +485,13 @@ pub fn solve(rig: &Rig, options: &SolveOptions) -> Result<Solution, SolveError> 
             let r = 1.0 / v.abs();
             r.is_finite().then_some(r)
         });
+        let drive_stiffness = problem.drive_stiffness();
+        let lost_travel = drive_stiffness
+            .map(|k| ideal.drive_power.abs() / k)
+            .filter(|d| d.is_finite());
         subrigs.push(SubRigSolution {
+            drive_stiffness,
+            lost_travel,
             component: c,
             drive,
             solve_for,

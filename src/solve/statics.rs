@@ -21,10 +21,14 @@ use crate::model::{square_to_gravity, BlockLoad, LineId, PartId, PartKind, Rig};
 
 use super::bearing::{bearing_resistance, thrust_moment};
 use super::kinematics::{line_component, Kinematics};
+use super::selfweight::RopeWeight;
 use super::{Case, SolveError, SolveOptions};
 
 mod passage;
 mod result;
+
+pub use passage::DrumFriction;
+pub use result::Losses;
 
 /// How the fixed-point iteration ended.
 #[derive(Debug, Clone, Copy, PartialEq)]
@@ -57,6 +61,8 @@ pub struct DrumTorques {
     pub journal: Real,
     /// Thrust friction torque.
     pub thrust: Real,
+    /// The rope's bending on and off the drum (DESIGN.md §7).
+    pub bending: Real,
     /// Angular speed in this case per unit drive speed, rad/s (signed about the axle).
     pub speed: Real,
 }
@@ -81,8 +87,15 @@ pub struct CaseResult {
     pub case: Case,
     /// The asked quantity, SI.
     pub value: Real,
-    /// `tension[line][span]`, N (empty for lines of other sub-rigs).
+    /// `tension[line][span]`, N, at the span's start (empty for lines of other
+    /// sub-rigs).
     pub tension: Vec<Vec<Real>>,
+    /// `tension_end[line][span]`, N, at the span's end: the start tension plus the
+    /// rope's weight times the rise (equal to `tension` for a weightless rope).
+    pub tension_end: Vec<Vec<Real>>,
+    /// Power into the ropes' potential energy per unit drive speed, W (zero for
+    /// weightless ropes); the energy audit counts it.
+    pub rope_power: Real,
     /// `ratio[line][entry]`: tight over slack tension at a middle passage.
     pub ratio: Vec<Vec<Option<Real>>>,
     /// Power lost at each part per unit drive speed, W (per m/s or rad/s of the drive).
@@ -103,12 +116,17 @@ pub struct CaseResult {
     /// Spans with negative tension (slack): (line, span).
     pub slack: Vec<(LineId, usize)>,
     /// Whether statics alone could not fix every tension (the split among parallel
-    /// lines is then the least-squares one).
+    /// lines is then the least-squares one, or the stiffness one).
     pub indeterminate: bool,
+    /// Whether the split among lines sharing a block follows the ropes' stiffness
+    /// (compatibility of stretch; DESIGN.md §7) rather than least squares.
+    pub split_by_stiffness: bool,
     /// Fixed-point status.
     pub status: Status,
     /// Energy audit misfit: |drive − loads − losses| over the drive power.
     pub audit_residual: Real,
+    /// `loss` by kind (bearing, bending, surface, drum), per part.
+    pub losses: Losses,
 }
 
 impl CaseResult {
@@ -150,6 +168,11 @@ pub struct Problem<'a> {
     q_load: DVector<Real>,
     /// Unknown's generalized force per unit.
     x_coef: DVector<Real>,
+    /// The ropes' own weight on each span (zero for weightless ropes; DESIGN.md §7).
+    weight: RopeWeight,
+    /// The generalized load of the ropes' weight beyond the start tensions, per dof
+    /// (order of `dofs`).
+    rope_load: DVector<Real>,
 }
 
 /// A block's own mass and that of the sheaves it carries, kg.
@@ -263,6 +286,8 @@ impl<'a> Problem<'a> {
                 _ => {}
             }
         }
+        let weight = RopeWeight::build(rig, geometry);
+        let rope_load = weight.generalized_load(rig, geometry, kin, &lines, &dofs);
         Ok(Problem {
             rig,
             geometry,
@@ -274,6 +299,8 @@ impl<'a> Problem<'a> {
             lines,
             q_load,
             x_coef,
+            weight,
+            rope_load,
         })
     }
 
@@ -372,8 +399,11 @@ impl<'a> Problem<'a> {
                     if stall {
                         stalled.push((seg.line, e));
                     }
+                    // Into the passage at the previous span's end tension; out of it
+                    // with the arc's rise (both zero for a weightless rope).
                     let (c, c0) = coef[seg.line][e - 1];
-                    let next = (k * c, k * c0 + delta);
+                    let c0 = c0 + self.weight.rise(seg.line, e - 1);
+                    let next = (k * c, k * c0 + delta + self.weight.arc(seg.line, e));
                     if !(next.0.is_finite() && next.1.is_finite()) {
                         // Ratios in series that each hold but together overflow.
                         return Err(self.non_finite(
@@ -389,15 +419,20 @@ impl<'a> Problem<'a> {
             // Drum friction from the previous tensions.
             let forces = previous.as_ref().map(|t| self.contact_forces(t));
             let mut q = self.q_load.clone();
-            let mut drum_friction = vec![(0.0, 0.0, 0.0); n];
+            let mut drum_friction = vec![DrumFriction::default(); n];
             if case != Case::Ideal {
                 for (k, &i) in self.dofs.iter().enumerate() {
                     let part = self.kin.dofs[i].part;
                     if matches!(rig.parts[part].kind, PartKind::Drum(_)) {
                         let empty = Vec::new();
                         let f = forces.as_ref().map(|f| &f[part]).unwrap_or(&empty);
-                        let (drag, journal, thrust) = self.drum_friction(part, f, breakaway);
-                        drum_friction[k] = (drag, journal, thrust);
+                        let friction = self.drum_friction(part, f, breakaway);
+                        // The rope's bending on and off the drum (DESIGN.md §7).
+                        let friction = DrumFriction {
+                            bending: self.drum_bending(part, previous.as_ref()),
+                            ..friction
+                        };
+                        drum_friction[k] = friction;
                         let v = velocity[i];
                         let s = if v > 1e-15 {
                             1.0
@@ -406,13 +441,13 @@ impl<'a> Problem<'a> {
                         } else {
                             0.0
                         };
-                        q[k] -= s * (drag + journal + thrust);
+                        q[k] -= s * friction.total();
                     }
                 }
             }
             // Assemble.
             let mut mat = DMatrix::zeros(n, m);
-            let mut rhs = q.clone();
+            let mut rhs = q.clone() + &self.rope_load;
             for (col, &g) in self.segs.iter().enumerate() {
                 let seg = self.kin.segments[g];
                 let rows = &self.kin.span_rows[seg.line][seg.first..seg.last];
@@ -477,6 +512,12 @@ impl<'a> Problem<'a> {
                 Some(x) => (DVector::from_vec(x), m),
                 None => self.dense_solve(&mat, &rhs, &column_norms, options),
             };
+            // Lines sharing a block: the split by stiffness where ropes give one.
+            let (solution, by_stiffness) = if rank < m {
+                self.stiffness_split(&mat, &column_norms, &coef, solution, options)
+            } else {
+                (solution, false)
+            };
             let residual = (&mat * &solution - &rhs).norm();
             // Compare the misfit with the size of the terms that should cancel.
             let terms = mat.abs() * solution.abs();
@@ -536,6 +577,7 @@ impl<'a> Problem<'a> {
                 stalled,
                 drum_friction,
                 rank < m,
+                by_stiffness,
             ));
             if converged {
                 status = Status::Converged {
@@ -549,7 +591,8 @@ impl<'a> Problem<'a> {
             };
             previous = Some(tension);
         }
-        let Some((tension, value, stalled, drum_friction, indeterminate)) = outcome else {
+        let Some((tension, value, stalled, drum_friction, indeterminate, by_stiffness)) = outcome
+        else {
             return Err(SolveError::NoEquilibrium {
                 case: case.name(),
                 residual: Real::NAN,
@@ -557,7 +600,7 @@ impl<'a> Problem<'a> {
                 hint: "no iteration ran",
             });
         };
-        Ok(self.finish(
+        let mut result = self.finish(
             case,
             value,
             tension,
@@ -566,7 +609,68 @@ impl<'a> Problem<'a> {
             indeterminate,
             status,
             &velocity,
-        ))
+        );
+        result.split_by_stiffness = by_stiffness;
+        Ok(result)
+    }
+
+    /// The load split by compatibility of stretch ([`super::elastic::compatible_split`])
+    /// when every rope of the sub-rig has a `stiffness`; else the least-squares
+    /// `solution` as it is. Also whether the stiffness fixed the split.
+    fn stiffness_split(
+        &self,
+        mat: &DMatrix<Real>,
+        column_norms: &[Real],
+        coef: &[Vec<(Real, Real)>],
+        solution: DVector<Real>,
+        options: &SolveOptions,
+    ) -> (DVector<Real>, bool) {
+        let input = super::elastic::SplitInput {
+            rig: self.rig,
+            geometry: self.geometry,
+            kin: self.kin,
+            segs: &self.segs,
+            dofs: &self.dofs,
+            coef,
+            rise: &|l, j| self.weight.rise(l, j),
+        };
+        match super::elastic::compatible_split(
+            &input,
+            mat,
+            column_norms,
+            &solution,
+            options.rank_tolerance,
+            options.motion_tolerance,
+        ) {
+            Some((x, fixed)) => (x, fixed),
+            None => (solution, false),
+        }
+    }
+
+    /// The rig's spring rate at the drive ([`super::elastic::drive_stiffness`]): every
+    /// part with a load (or the asked quantity) held, the others free.
+    pub fn drive_stiffness(&self) -> Option<Real> {
+        let drive = self
+            .dofs
+            .iter()
+            .position(|&i| self.kin.dofs[i].part == self.drive)?;
+        let held: Vec<bool> = (0..self.dofs.len())
+            .map(|k| self.q_load[k] != 0.0 || self.x_coef[k] != 0.0 || self.rope_load[k] != 0.0)
+            .collect();
+        super::elastic::drive_stiffness(&super::elastic::SpringInput {
+            rig: self.rig,
+            geometry: self.geometry,
+            kin: self.kin,
+            segs: &self.segs,
+            dofs: &self.dofs,
+            drive,
+            held: &held,
+        })
+    }
+
+    /// The lines of the sub-rig.
+    pub fn lines(&self) -> &[LineId] {
+        &self.lines
     }
 
     /// The equilibrated least-squares solve of `mat x = rhs` by SVD, and the rank it
@@ -629,19 +733,15 @@ impl<'a> Problem<'a> {
     /// Whether any friction depends on the tensions themselves.
     fn load_dependent(&self) -> bool {
         self.rig.parts.iter().any(|p| match &p.kind {
-            PartKind::Sheave(s) => {
-                s.mass.unwrap_or(0.0) > 0.0
-                    && matches!(
+            PartKind::Sheave(s) => Problem::sheave_load_dependent(s),
+            PartKind::Drum(d) => {
+                d.shaft.as_ref().is_some_and(|s| {
+                    !matches!(
                         bearing_resistance(&s.bearing, false),
-                        BearingResistance::FrictionCircle { .. }
+                        BearingResistance::Free
                     )
+                }) || self.rope_bends_on_drums()
             }
-            PartKind::Drum(d) => d.shaft.as_ref().is_some_and(|s| {
-                !matches!(
-                    bearing_resistance(&s.bearing, false),
-                    BearingResistance::Free
-                )
-            }),
             _ => false,
         })
     }

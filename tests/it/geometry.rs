@@ -85,6 +85,7 @@ fn carried_sheave(
             mass: None,
             groove_angle: None,
             mu: None,
+            thrust: None,
         }),
     );
     sheave.block = block;
@@ -158,6 +159,9 @@ fn rig(rope_diameter: Real, parts: Vec<Part>, paths: Vec<Vec<PathEntry>>) -> Rig
             breaking_strength: None,
             mu: 0.2,
             min_bend_ratio: 8.0,
+            stiffness: None,
+            mass_per_length: None,
+            bend_loss: 0.0,
             location: Location::default(),
         }],
         parts,

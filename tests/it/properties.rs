@@ -45,7 +45,7 @@ struct PartSpec {
 }
 
 #[derive(Clone, Debug)]
-struct RigSpec {
+pub(super) struct RigSpec {
     gravity: V3,
     parts: Vec<PartSpec>,
     /// (name, path)
@@ -142,7 +142,7 @@ impl RigSpec {
         text
     }
 
-    fn plain(&self) -> String {
+    pub(super) fn plain(&self) -> String {
         let parts: Vec<usize> = (0..self.parts.len()).collect();
         let lines: Vec<usize> = (0..self.lines.len()).collect();
         self.render(&Rigid::identity(), &parts, &lines)
@@ -151,7 +151,7 @@ impl RigSpec {
 
 /// Parameters of a random rig.
 #[derive(Clone, Debug)]
-struct Params {
+pub(super) struct Params {
     n: usize,
     rounds: Vec<Round>,
     jitter: Vec<f64>,
@@ -162,11 +162,11 @@ struct Params {
     pull_given: bool,
     /// Wind the hauling part on a drum instead of a haul end: (shaft text, drum mass).
     drum: Option<(String, f64)>,
-    load_unknown: bool,
+    pub(super) load_unknown: bool,
 }
 
 /// The hook's total weight and the runner's, for the virtual-work answer.
-struct Masses {
+pub(super) struct Masses {
     hook: f64,
     runner: f64,
 }
@@ -201,7 +201,7 @@ fn round_text(r: &Round) -> (String, f64) {
 /// Builds the rig: an `n`-part tackle whose falls stand roughly at x = j·a (jittered),
 /// hauling part leaving the fixed block over a last round part, down to the haul or to
 /// a runner block pulled down by a second line.
-fn build(p: &Params) -> (RigSpec, Masses) {
+pub(super) fn build(p: &Params) -> (RigSpec, Masses) {
     let n = p.n;
     let a = 0.2; // = pitch diameter: unjittered falls stand exactly vertical
     let (top, bottom) = (5.0, 1.0);
@@ -410,7 +410,7 @@ fn round_strategy(with_mass: bool) -> impl Strategy<Value = Round> {
     ]
 }
 
-fn params_strategy(with_mass: bool) -> impl Strategy<Value = Params> {
+pub(super) fn params_strategy(with_mass: bool) -> impl Strategy<Value = Params> {
     (1usize..=6)
         .prop_flat_map(move |n| {
             (

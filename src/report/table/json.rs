@@ -45,8 +45,19 @@ pub struct SpanJson {
     pub to: String,
     /// Length, m.
     pub length_m: Option<Real>,
-    /// Tension per case, N.
+    /// Tension per case, N (at the span's start where the rope's weight makes the ends
+    /// differ).
     pub tension_n: CasesJson<Real>,
+    /// Tension per case at the span's end, N, where the rope's weight makes the ends
+    /// differ (DESIGN.md §7).
+    #[serde(skip_serializing_if = "Option::is_none")]
+    pub tension_end_n: Option<CasesJson<Real>>,
+    /// Stretch per case, m, where the rope has a `stiffness`.
+    #[serde(skip_serializing_if = "Option::is_none")]
+    pub stretch_m: Option<CasesJson<Real>>,
+    /// Sag, m, where the rope has a `mass_per_length` and the span is not vertical.
+    #[serde(skip_serializing_if = "Option::is_none")]
+    pub sag_m: Option<Real>,
     /// Breaking strength over the larger of the forward and back tensions.
     pub safety_factor: Option<Real>,
 }
@@ -77,6 +88,11 @@ pub struct PartJson {
     /// Share of all losses at this part, forward case (0 to 1).
     #[serde(skip_serializing_if = "Option::is_none")]
     pub loss_share: Option<Option<Real>>,
+    /// Share of all losses that the rope's bending takes at this part, forward case.
+    #[serde(skip_serializing_if = "Option::is_none")]
+    pub bend_loss_share: Option<Option<Real>>,
+    /// The pin load's part along the axle, N (DESIGN.md §7).
+    pub axial_load_n: CasesJson<Real>,
 }
 
 /// The JSON document of `reeve table --format json`.
@@ -114,6 +130,22 @@ pub fn tables_json(report: &Report, cases: CaseFilter, choice: TableChoice) -> T
                     s.tension_n.forward,
                     s.tension_n.back,
                 ),
+                tension_end_n: (s.tension_n.ideal_end.is_some()
+                    || s.tension_n.forward_end.is_some()
+                    || s.tension_n.back_end.is_some())
+                .then(|| {
+                    CasesJson::new(
+                        cases,
+                        s.tension_n.ideal_end,
+                        s.tension_n.forward_end,
+                        s.tension_n.back_end,
+                    )
+                }),
+                stretch_m: s
+                    .stretch_m
+                    .as_ref()
+                    .map(|p| CasesJson::new(cases, p.ideal, p.forward, p.back)),
+                sag_m: s.sag_m,
                 safety_factor: s.safety_factor,
             })
             .collect()
@@ -134,6 +166,9 @@ pub fn tables_json(report: &Report, cases: CaseFilter, choice: TableChoice) -> T
                 p.pin_load_direction.back,
             );
             let loss = cases.forward().then_some(p.loss_share);
+            let bend = cases.forward().then_some(p.material.bend_loss_share);
+            let a = &p.material.axial_load_n;
+            let axial = CasesJson::new(cases, a.ideal, a.forward, a.back);
             if p.passages.is_empty() {
                 rows.push(PartJson {
                     part: p.name.clone(),
@@ -147,6 +182,8 @@ pub fn tables_json(report: &Report, cases: CaseFilter, choice: TableChoice) -> T
                     pin_load_n: pins.clone(),
                     pin_load_direction: dirs.clone(),
                     loss_share: loss,
+                    bend_loss_share: bend,
+                    axial_load_n: axial.clone(),
                 });
             }
             for pass in &p.passages {
@@ -167,6 +204,8 @@ pub fn tables_json(report: &Report, cases: CaseFilter, choice: TableChoice) -> T
                     pin_load_n: pins.clone(),
                     pin_load_direction: dirs.clone(),
                     loss_share: loss,
+                    bend_loss_share: bend,
+                    axial_load_n: axial.clone(),
                 });
             }
         }

@@ -43,7 +43,10 @@ pub(super) const ROPE_KEYS: &[&str] = &[
     "breaking_strength",
     "mu",
     "min_bend_ratio",
+    "bend_loss",
     "kind",
+    "stiffness",
+    "mass_per_length",
 ];
 pub(super) const ROPE_KINDS: &[&str] = &["wire", "fibre", "kernmantle", "cord"];
 pub(super) const LINE_KEYS: &[&str] = &["rope", "path"];
@@ -108,7 +111,7 @@ impl Kind {
         match self {
             Kind::Anchor => &["block"],
             Kind::Sheave => &[
-                "axle", "diameter", "bearing", "mass", "groove", "mu", "block",
+                "axle", "diameter", "bearing", "mass", "groove", "mu", "block", "thrust",
             ],
             Kind::Guide => &["axle", "diameter", "mu", "groove"],
             Kind::Block => &["moves", "load", "mass"],

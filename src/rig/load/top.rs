@@ -11,7 +11,7 @@ use super::keys::{
 use super::lines::line;
 use super::parts::{default_torque, part};
 use super::read::{Names, Resolver};
-use crate::math::Vector;
+use crate::math::{Real, Vector};
 use crate::model::{Limits, Rig, Rope, RopeKind};
 use crate::rig::error::Problem;
 use crate::rig::file::{more_problems, Entry, Node};
@@ -106,6 +106,7 @@ pub(super) fn resolve(root: &Node, source: &str) -> Result<Rig, Vec<Problem>> {
                         Dimension::Force => r.units.force = unit,
                         Dimension::Mass => r.units.mass = unit,
                         Dimension::Torque => r.units.torque = unit,
+                        Dimension::MassPerLength => {}
                     },
                     Err(e) => r.report(u.location, p, e.to_string()),
                 }
@@ -332,7 +333,7 @@ pub(super) fn rope(r: &mut Resolver, e: &Entry) -> Option<Rope> {
     let entries = r.mapping(
         node,
         &path,
-        "a rope `{diameter, mu, breaking_strength?, min_bend_ratio?, kind?}`",
+        "a rope `{diameter, mu, breaking_strength?, min_bend_ratio?, bend_loss?, kind?, stiffness?, mass_per_length?}`",
     )?;
     r.keys(entries, &path, ROPE_KEYS, "a rope");
     let at = node.location;
@@ -363,6 +364,25 @@ pub(super) fn rope(r: &mut Resolver, e: &Entry) -> Option<Rope> {
         }
         None => default_min_bend_ratio(kind),
     };
+    let (stiffness, mass_per_length) = rope_material(r, entries, &path)?;
+    let bend_loss = match get(entries, "bend_loss") {
+        Some(n) => {
+            let p = join(&path, "bend_loss");
+            let v = r.number(
+                n,
+                &p,
+                "a fraction of tension lost per passage, such as 0.02",
+            );
+            r.check(
+                v,
+                n,
+                &p,
+                |v| (0.0..1.0).contains(&v),
+                "a fraction from 0 up to (not including) 1",
+            )?
+        }
+        None => 0.0,
+    };
     Some(Rope {
         name: e.key.clone(),
         kind,
@@ -370,8 +390,43 @@ pub(super) fn rope(r: &mut Resolver, e: &Entry) -> Option<Rope> {
         breaking_strength,
         mu: mu?,
         min_bend_ratio,
+        stiffness,
+        mass_per_length,
+        bend_loss,
         location: e.key_location,
     })
+}
+
+/// The rope as a material (DESIGN.md §7): `stiffness` (EA, a positive force) and
+/// `mass_per_length` (zero or more; bare numbers in kg/m), both optional.
+fn rope_material(
+    r: &mut Resolver,
+    entries: &[Entry],
+    path: &str,
+) -> Option<(Option<Real>, Option<Real>)> {
+    let stiffness = match get(entries, "stiffness") {
+        Some(n) => {
+            let p = join(path, "stiffness");
+            let v = r.quantity(n, &p, Dimension::Force);
+            Some(r.check(
+                v,
+                n,
+                &p,
+                |v| v > 0.0,
+                "a positive axial stiffness EA (a force)",
+            )?)
+        }
+        None => None,
+    };
+    let mass_per_length = match get(entries, "mass_per_length") {
+        Some(n) => {
+            let p = join(path, "mass_per_length");
+            let v = r.quantity(n, &p, Dimension::MassPerLength);
+            Some(r.check(v, n, &p, |v| v >= 0.0, "a mass per length of zero or more")?)
+        }
+        None => None,
+    };
+    Some((stiffness, mass_per_length))
 }
 
 #[cfg(test)]

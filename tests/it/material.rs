@@ -1,0 +1,325 @@
+//! The rope as a material (DESIGN.md §7, issue 11 items 1–3): stretch, the load split
+//! by stiffness, the spring rate and lost travel at the drive, the rope's own weight
+//! along a span and over a sheave, sag. Each check names its source; hand calculations
+//! show their arithmetic. The rigs are in `tests/rigs/material/`.
+
+use reeve::math::STANDARD_GRAVITY;
+use reeve::report::Report;
+use reeve::solve::elastic::castigliano_lost_travel;
+
+use crate::support::run::reeve_on;
+use crate::support::{assert_rel, audit_ok, json_of, solve_test_rig, solve_text, test_rig};
+
+#[test]
+fn two_lift_lines_share_a_translating_batten_as_one_over_length() {
+    // Source: Gere & Goodno, *Mechanics of Materials*, §2.4 "Statically indeterminate
+    // structures" (two bars of the same EA holding a rigid bar that translates share the
+    // load in proportion to EA/L). Hand calculation: lines of 9 m and 8 m, 300 N:
+    // T_9 = 300·(1/9)/(1/9 + 1/8) = 300·8/17 = 141.18 N, T_8 = 300·9/17 = 158.82 N.
+    let (rig, s) = solve_test_rig("material/two-lift-lines.yaml");
+    let m = s.main();
+    let (a, b) = (
+        rig.lines.iter().position(|l| l.name == "a").unwrap(),
+        rig.lines.iter().position(|l| l.name == "b").unwrap(),
+    );
+    for case in [&m.ideal, &m.forward, &m.back] {
+        assert_rel("9 m line", case.tension[a][0], 300.0 * 8.0 / 17.0, 1e-9);
+        assert_rel("8 m line", case.tension[b][0], 300.0 * 9.0 / 17.0, 1e-9);
+        assert!(
+            case.indeterminate && case.split_by_stiffness,
+            "{:?}",
+            case.case
+        );
+    }
+    assert_rel(
+        "9 m line, to two decimals",
+        m.ideal.tension[a][0],
+        141.18,
+        5e-5,
+    );
+    assert_rel(
+        "8 m line, to two decimals",
+        m.ideal.tension[b][0],
+        158.82,
+        5e-5,
+    );
+    audit_ok(&s);
+    // The warning says the split follows the stiffness.
+    let warnings = reeve::checks::run(&rig, &s);
+    let w = warnings
+        .iter()
+        .find(|w| w.code == "indeterminate")
+        .expect("indeterminate warning");
+    assert!(w.message.contains("follows the stiffness"), "{}", w.message);
+}
+
+#[test]
+fn without_stiffness_the_split_stays_least_squares() {
+    // The same rig with its rope's stiffness removed: the old least-squares split
+    // (equal shares for parallel lines) and the old warning, which names the key.
+    let text = std::fs::read_to_string(test_rig("material/two-lift-lines.yaml")).unwrap();
+    let (rig, s) = solve_text(&text.replace(", stiffness: 1 MN", ""));
+    let m = s.main();
+    assert_rel("least squares", m.ideal.tension[0][0], 150.0, 1e-9);
+    assert!(!m.ideal.split_by_stiffness);
+    let warnings = reeve::checks::run(&rig, &s);
+    let w = warnings.iter().find(|w| w.code == "indeterminate").unwrap();
+    assert!(w.message.contains("least-squares") && w.message.contains("`stiffness`"));
+    assert!(m.lost_travel.is_none() && m.drive_stiffness.is_none());
+}
+
+#[test]
+fn vertical_rope_under_its_own_weight() {
+    // Source: Meriam & Kraige, *Engineering Mechanics: Statics*, §5/9 "Flexible cables"
+    // (T = T₀ + μ·y: the tension grows by the weight per length times the rise), and
+    // Gere & Goodno, *Mechanics of Materials*, §2.3 (a bar hanging under its own weight
+    // and an end load: δ = (P·L + w·L²/2)/EA). Issue 11's check values: 100 m, 1.0 kg/m,
+    // 10 kN at the foot → T_top = 10 000 + 9.80665·100 = 10 980.665 N = 10.981 kN;
+    // EA = 9.80665 MN → δ = (10 000·100 + 9.80665·100²/2)/9.80665e6 = 0.106 97 m.
+    let (rig, s) = solve_test_rig("material/hanging-rope.yaml");
+    let m = s.main();
+    assert_rel("foot", m.ideal.tension[0][0], 10_000.0, 1e-12);
+    assert_rel("head", m.ideal.tension_end[0][0], 10_980.665, 1e-12);
+    assert_rel("haul force", m.forward.value, 10_980.665, 1e-12);
+    let report = Report::build(&rig, &s, Vec::new());
+    let stretch = report.spans[0].stretch_m.as_ref().unwrap().ideal.unwrap();
+    let expected = (10_000.0 * 100.0 + STANDARD_GRAVITY * 100.0 * 100.0 / 2.0) / 9.80665e6;
+    assert_rel("stretch", stretch, expected, 1e-12);
+    assert_rel("stretch, to five figures", stretch, 0.10697, 5e-5);
+    // Vertical: no sag.
+    assert!(report.spans[0].sag_m.is_none());
+    audit_ok(&s);
+}
+
+#[test]
+fn heavy_rope_over_a_frictionless_head_sheave() {
+    // Issue 11's check value, by statics (Meriam & Kraige §5/9, T = T₀ + μ·y, on each
+    // vertical span; a frictionless sheave passes the tension on): 100 N weight 10 m
+    // below the sheave, haul 2 m below it, 1 kg/m: at the sheave 100 + 10·9.80665 =
+    // 198.07 N; at the haul 198.07 − 2·9.80665 = 100 + 8·9.80665 = 178.45 N.
+    let (_, s) = solve_test_rig("material/head-sheave-weight.yaml");
+    let m = s.main();
+    let expected = 100.0 + 8.0 * STANDARD_GRAVITY;
+    assert_rel("haul force", m.ideal.value, expected, 1e-9);
+    assert_rel("haul force, to two decimals", m.ideal.value, 178.45, 3e-5);
+    assert_rel("forward (frictionless)", m.forward.value, expected, 1e-9);
+    // Energy, by hand: hauling 1 m moves 1 m of rope from 10 m below the sheave to 2 m
+    // below it, raising it 8 m: the rope's potential energy grows at 8·9.80665 W per
+    // m/s of haul, and the weight's at 100 W.
+    assert_rel(
+        "rope power",
+        m.ideal.rope_power,
+        8.0 * STANDARD_GRAVITY,
+        1e-9,
+    );
+    audit_ok(&s);
+}
+
+#[test]
+fn lost_travel_two_ways_on_a_four_part_tackle() {
+    // The rated four-part tackle of tests/rigs/tackle-rated.yaml with EA = 1 MN: four
+    // falls of 1 m and a hauling part of 1.5 m, 1000 N on the hook. Frictionless, every
+    // span carries 250 N; with the hook held, the whole line (one length of rope over
+    // frictionless sheaves) stretches as the drive pulls: k = EA/ΣL = 1e6/5.5 N/m, lost
+    // travel 250·5.5/1e6 = 1.375 mm (Gere & Goodno §2.2, axial stiffness). Castigliano
+    // over the frictionless tension coefficients (Gere & Goodno §9.9): Σ (T/F)·T·L/EA
+    // with T/F = 1 on every span gives the same.
+    let text = std::fs::read_to_string(test_rig("tackle-rated.yaml")).unwrap();
+    let text = text.replace("min_bend_ratio: 8}", "min_bend_ratio: 8, stiffness: 1 MN}");
+    let (rig, s) = solve_text(&text);
+    let m = s.main();
+    assert_rel("spring rate", m.drive_stiffness.unwrap(), 1e6 / 5.5, 1e-9);
+    assert_rel(
+        "lost travel",
+        m.lost_travel.unwrap(),
+        250.0 * 5.5 / 1e6,
+        1e-9,
+    );
+    let lines: Vec<usize> = (0..rig.lines.len()).collect();
+    let castigliano =
+        castigliano_lost_travel(&rig, &s.geometry, &lines, &m.ideal.tension, m.ideal.value)
+            .unwrap();
+    assert_rel("Castigliano", castigliano, m.lost_travel.unwrap(), 1e-9);
+}
+
+#[test]
+fn lost_travel_two_ways_where_lines_share_the_load() {
+    // The two lift lines of 9 m and 8 m (EA = 1 MN) under a frame hauled on a 1 m line:
+    // the frame carries no load, so it settles as the drive pulls and the two lines act
+    // in parallel: k = 1/(1/EA + 1/(EA·(1/9 + 1/8))), δ = 300/k = 1.5706 mm. Castigliano
+    // over the ideal tensions (one load held, all tensions in proportion to the drive):
+    // (141.18²·9 + 158.82²·8 + 300²·1)/(300·1e6), the same.
+    let (rig, s) = solve_test_rig("material/two-lift-lines.yaml");
+    let m = s.main();
+    let k = 1.0 / (1e-6 + 1.0 / (1e6 * (1.0 / 9.0 + 1.0 / 8.0)));
+    assert_rel("spring rate", m.drive_stiffness.unwrap(), k, 1e-9);
+    assert_rel("lost travel", m.lost_travel.unwrap(), 300.0 / k, 1e-9);
+    let lines: Vec<usize> = (0..rig.lines.len()).collect();
+    let castigliano =
+        castigliano_lost_travel(&rig, &s.geometry, &lines, &m.ideal.tension, m.ideal.value)
+            .unwrap();
+    assert_rel("Castigliano", castigliano, m.lost_travel.unwrap(), 1e-9);
+}
+
+/// A cart on a level track pulled by a level rope 20 m long: the span is horizontal.
+const LEVEL_SPAN: &str = r#"
+format: 1
+title: level span
+units: {length: m, force: N, mass: kg}
+ropes:
+  cord: {diameter: 8 mm, mu: 0.2, mass_per_length: 200 g/m}
+parts:
+  cart: {kind: block, at: [0, 0, 0], moves: [1, 0, 0], load: {force: 500}}
+  hand: {kind: haul, at: [20, 0, 0]}
+lines:
+  pull: {rope: cord, path: [cart, hand]}
+drive: hand
+"#;
+
+#[test]
+fn a_level_span_sags_like_the_parabola() {
+    // Meriam & Kraige §5/9: the parabolic cable's sag h = μ·L²/(8T₀), approached by the
+    // catenary for a shallow span. 0.2 kg/m, 20 m, 500 N: 0.2·9.80665·400/4000 =
+    // 0.196 13 m; the catenary is within 0.1 % of it (sag/span ≈ 1 %).
+    let (rig, s) = solve_text(LEVEL_SPAN);
+    let report = Report::build(&rig, &s, Vec::new());
+    let sag = report.spans[0]
+        .sag_m
+        .expect("a level span with weight sags");
+    let parabola = 0.2 * STANDARD_GRAVITY * 400.0 / (8.0 * 500.0);
+    assert_rel("sag", sag, parabola, 1e-3);
+    // Level: both ends at one tension, so no `_end` figures; the pull is the load.
+    assert!(report.spans[0].tension_n.forward_end.is_none());
+    assert_rel("pull", s.main().forward.value, 500.0, 1e-12);
+    // The weight hangs half on each end: the cart's pin load has 0.2·g·20/2 down.
+    let pin = s.main().ideal.pin_load[0].unwrap();
+    assert_rel(
+        "cart carries half the rope",
+        -pin.z,
+        0.2 * STANDARD_GRAVITY * 10.0,
+        1e-9,
+    );
+}
+
+#[test]
+fn json_keys_of_the_contract() {
+    // DESIGN.md §7: spans gain `stretch_m: {ideal, forward, back}`, `tension_n.{case}_end`
+    // where the ends differ and `sag_m`; the top level `lost_travel`, `drive_stiffness`.
+    let j = json_of(&["check", &test_rig("material/hanging-rope.yaml"), "--json"]);
+    let span = &j["spans"][0];
+    for case in ["ideal", "forward", "back"] {
+        assert!(span["stretch_m"][case].as_f64().is_some(), "{span}");
+        assert!(
+            span["tension_n"][format!("{case}_end")].as_f64().is_some(),
+            "{span}"
+        );
+    }
+    assert!(j["lost_travel"].as_f64().is_some() && j["drive_stiffness"].as_f64().is_some());
+    let j = json_of(&["check", &test_rig("one-sheave.yaml"), "--json"]);
+    for key in ["lost_travel", "drive_stiffness"] {
+        assert!(
+            j.get(key).is_none(),
+            "a rig without the keys gains no {key}"
+        );
+    }
+    assert!(j["spans"][0].get("stretch_m").is_none() && j["spans"][0].get("sag_m").is_none());
+    let out = reeve_on(LEVEL_SPAN, &["check", "--json"])
+        .expect_code(0)
+        .json();
+    assert!(out["spans"][0]["sag_m"].as_f64().is_some());
+}
+
+#[test]
+fn bad_material_values_are_located_errors() {
+    for (value, says) in [
+        ("stiffness: -1 kN", "positive axial stiffness"),
+        ("stiffness: 3 kg", "force"),
+        ("mass_per_length: 2 kg", "mass per length"),
+        ("mass_per_length: -0.1", "zero or more"),
+    ] {
+        let text = LEVEL_SPAN.replace("mass_per_length: 200 g/m", value);
+        let (code, _, err) = reeve_on(&text, &["check"]).parts();
+        assert_eq!(code, 2, "{value}: {err}");
+        assert!(err.contains(":6:") && err.contains(says), "{value}: {err}");
+    }
+}
+
+#[test]
+fn a_line_sets_balance_changes_with_trim_height() {
+    // `sweep --stroke` re-solves with the rope's weight at each step: as the batten
+    // flies out (forward), each lift line's rope moves from the batten side to the arbor
+    // side. Hand calculation by potential energy (Beer & Johnston, *Statics*, ch. 10,
+    // virtual work and potential energy): a vertical span from height z up to a fixed
+    // block at H holds w·g·(H² − z²)/2; with the batten at z_b = 3 + x and the arbor at
+    // z_a = 4 − x, each line's d²PE/dx² = −2·w·g, so the ideal drive force falls by
+    // 6·w·g per metre for three lines: w = 0.26 lb/ft = 0.386 93 kg/m, 22.77 N/m, 45.53 N
+    // over 2 m. Weightless lift lines keep it constant.
+    let rig = crate::support::example_rig("line-set");
+    let steps = |set: &str| {
+        let j = json_of(&[
+            "sweep", &rig, "--stroke", "2m", "--steps", "3", "--set", set, "--json",
+        ]);
+        let s = j["steps"].as_array().unwrap().clone();
+        let ideal = |k: usize| s[k]["ideal"].as_f64().unwrap();
+        assert_eq!(s.last().unwrap()["travel"].as_f64(), Some(2.0));
+        (ideal(0), ideal(s.len() - 1))
+    };
+    let w = 0.26 * 0.453_592_37 / 0.3048;
+    let (low, high) = steps("ropes.lift.stiffness=3.6 MN");
+    assert_rel(
+        "fall of the ideal force over 2 m",
+        low - high,
+        2.0 * 6.0 * w * STANDARD_GRAVITY,
+        1e-3,
+    );
+    let (low, high) = steps("ropes.lift.mass_per_length=0");
+    assert_rel("weightless: no change", high, low, 1e-4);
+}
+
+#[test]
+fn the_tables_show_the_rope_as_a_material() {
+    // Text: a table of its own after the spans; CSV (one table): further span columns;
+    // a rig without the keys keeps today's tables (the goldens guard that).
+    let rig = test_rig("material/hanging-rope.yaml");
+    let text = crate::support::stdout_of(&["table", &rig]);
+    assert!(
+        text.contains("Rope as a material") && text.contains("stretch forward (m)"),
+        "{text}"
+    );
+    let csv = crate::support::stdout_of(&["table", &rig, "--format", "csv"]);
+    let lines: Vec<&str> = csv.lines().collect();
+    assert_eq!(lines.len(), 2, "one table, one span: {csv}");
+    assert!(lines[0].contains("stretch ideal (m)") && lines[0].contains("tension back at end (N)"));
+    assert!(lines[1].contains("0.106972"), "{csv}");
+    let html = crate::support::stdout_of(&["report", &rig, "-o", "-"]);
+    assert!(html.contains("id=\"material\"") && html.contains("Lost travel at the drive"));
+}
+
+#[test]
+fn the_split_by_stiffness_depends_on_stiffness_ratios_only() {
+    // Scaling every EA leaves the split (compatibility: T_i·L_i/EA equal) and halves
+    // every stretch when EA doubles (δ = T·L/EA, Gere & Goodno §2.3), where lines share a
+    // block as where they do not. A very stiff rope is not the least-squares split: the
+    // split follows EA/L however stiff (issue 11 item 2).
+    let text = std::fs::read_to_string(test_rig("material/two-lift-lines.yaml")).unwrap();
+    let run = |ea: &str| {
+        let (rig, s) = solve_text(&text.replace("stiffness: 1 MN", &format!("stiffness: {ea}")));
+        let report = Report::build(&rig, &s, Vec::new());
+        let stretch: Vec<f64> = report
+            .spans
+            .iter()
+            .map(|s| s.stretch_m.as_ref().unwrap().forward.unwrap())
+            .collect();
+        (s.main().forward.tension.clone(), stretch)
+    };
+    let (t1, d1) = run("1 MN");
+    let (t2, d2) = run("2 MN");
+    let (t3, _) = run("1e11 N");
+    for (l, (a, b)) in t1.iter().zip(&t2).enumerate() {
+        assert_rel(&format!("line {l}, EA doubled"), b[0], a[0], 1e-9);
+        assert_rel(&format!("line {l}, EA 1e11 N"), t3[l][0], a[0], 1e-9);
+    }
+    for (a, b) in d1.iter().zip(&d2) {
+        assert_rel("stretch halves", *b, a / 2.0, 1e-9);
+    }
+}
