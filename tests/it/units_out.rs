@@ -165,10 +165,18 @@ fn an_imperial_rig_reads_in_imperial_units_throughout() {
 
 #[test]
 fn a_metric_rig_with_units_imperial_has_no_stray_metric_unit() {
-    // The workshop hoist is written in mm and kN: the same scan on its outputs.
-    let rig = example_rig("workshop-hoist");
-    for (what, text) in imperial_outputs(&rig, "300 mm", "ropes.wire8.mu=0.1..0.3") {
-        assert_only_imperial(&what, &text);
+    // The workshop hoist is written in mm and kN, the gallery panel in mm and N with
+    // bend-loss and axial-load columns, the cliff raise in m with a rope's stiffness and
+    // weight: the same scan on their outputs.
+    for (name, stroke, vary) in [
+        ("workshop-hoist", "300 mm", "ropes.wire8.mu=0.1..0.3"),
+        ("gallery-panel", "200 mm", "ropes.wire4.mu=0.1..0.3"),
+        // A rope with stiffness and weight: stretch, sag, lost travel and spring rate.
+        ("cliff-raise", "300 mm", "ropes.static11.mu=0.2..0.3"),
+    ] {
+        for (what, text) in imperial_outputs(&example_rig(name), stroke, vary) {
+            assert_only_imperial(&format!("{name}: {what}"), &text);
+        }
     }
 }
 
