@@ -416,6 +416,8 @@ pub fn solve(rig: &Rig, options: &SolveOptions) -> Result<Solution, SolveError> 
         .collect();
     order.sort_by_key(|&c| (c != main_component, c));
     let mut subrigs = Vec::new();
+    // Rig-wide: any static coefficient gives every sub-rig a breakaway case.
+    let breakaway_case = has_static_friction(rig);
     for c in order {
         let (Some(drive), Some(solve_for)) = (drives[c], unknowns[c]) else {
             continue;
@@ -450,7 +452,7 @@ pub fn solve(rig: &Rig, options: &SolveOptions) -> Result<Solution, SolveError> 
         let ideal = problem.solve(Case::Ideal, options)?;
         let forward = problem.solve(Case::Forward, options)?;
         let back = problem.solve(Case::Back, options)?;
-        let breakaway = if has_static_friction(rig) {
+        let breakaway = if breakaway_case {
             Some(problem.solve_breakaway(options)?)
         } else {
             None
@@ -461,8 +463,7 @@ pub fn solve(rig: &Rig, options: &SolveOptions) -> Result<Solution, SolveError> 
             // The part that takes the most power in the ideal case.
             ideal
                 .load_power
-                .iter()
-                .enumerate()
+                .entries()
                 .filter(|(p, _)| *p != drive && network.component_of[*p] == c)
                 .filter(|(_, w)| w.abs() > 0.0)
                 .max_by(|a, b| a.1.abs().total_cmp(&b.1.abs()))

@@ -12,19 +12,23 @@
 //! weight in the pin load, drum journals) is settled by fixed-point iteration.
 
 use nalgebra::{DMatrix, DVector};
+use petgraph::graph::NodeIndex;
 
 use crate::friction::{self, BearingResistance};
 use crate::geometry::Geometry;
 use crate::math::{Real, Vector, STANDARD_GRAVITY};
-use crate::model::Network;
 use crate::model::{square_to_gravity, BlockLoad, LineId, PartId, PartKind, Rig};
+use crate::model::{Link, Network};
 
 use super::bearing::{bearing_resistance, thrust_moment};
 use super::kinematics::{line_component, Kinematics};
 use super::{Case, SolveError, SolveOptions};
 
+mod by_id;
 mod passage;
 mod result;
+
+pub use by_id::ById;
 
 /// How the fixed-point iteration ended.
 #[derive(Debug, Clone, Copy, PartialEq)]
@@ -82,20 +86,23 @@ pub struct CaseResult {
     /// The asked quantity, SI.
     pub value: Real,
     /// `tension[line][span]`, N (empty for lines of other sub-rigs).
-    pub tension: Vec<Vec<Real>>,
-    /// `ratio[line][entry]`: tight over slack tension at a middle passage.
-    pub ratio: Vec<Vec<Option<Real>>>,
-    /// Power lost at each part per unit drive speed, W (per m/s or rad/s of the drive).
-    pub loss: Vec<Real>,
+    pub tension: ById<Vec<Real>>,
+    /// `ratio[line][entry]`: tight over slack tension at a middle passage (empty for
+    /// lines of other sub-rigs).
+    pub ratio: ById<Vec<Option<Real>>>,
+    /// Power lost at each part per unit drive speed, W (per m/s or rad/s of the drive);
+    /// zero outside the sub-rig.
+    pub loss: ById<Real>,
     /// Power taken by each part's load per unit drive speed, W (negative where a load
-    /// gives power, and at the drive).
-    pub load_power: Vec<Real>,
+    /// gives power, and at the drive); zero outside the sub-rig.
+    pub load_power: ById<Real>,
     /// Power the drive puts in per unit drive speed.
     pub drive_power: Real,
-    /// Resultant force the lines (and own weight) put on each part, N.
-    pub pin_load: Vec<Option<Vector>>,
-    /// Drum torques, per part.
-    pub drums: Vec<Option<DrumTorques>>,
+    /// Resultant force the sub-rig's lines (and own weight) put on each part, N; None
+    /// at parts its lines do not reach.
+    pub pin_load: ById<Option<Vector>>,
+    /// Drum torques, per part (None but at the sub-rig's drums).
+    pub drums: ById<Option<DrumTorques>>,
     /// Sheaves that do not turn: (line, entry).
     pub stalled: Vec<(LineId, usize)>,
     /// Untied drum passages where the rope slips.
@@ -114,7 +121,7 @@ pub struct CaseResult {
 impl CaseResult {
     /// Total losses per unit drive speed, W.
     pub fn total_loss(&self) -> Real {
-        self.loss.iter().sum()
+        self.loss.entries().map(|(_, x)| x).sum()
     }
 
     /// Power put into the rig per unit drive speed, W: the drive's power where the
@@ -125,7 +132,8 @@ impl CaseResult {
             self.drive_power
         } else {
             self.load_power
-                .iter()
+                .entries()
+                .map(|(_, p)| p)
                 .filter(|p| **p < 0.0)
                 .map(|p| -p)
                 .sum()
@@ -134,35 +142,58 @@ impl CaseResult {
 }
 
 /// The statics problem of one sub-rig.
+///
+/// Every array it works on is the sub-rig's: its degrees of freedom, its lines
+/// (`local` line index = position in `lines`) and the parts they reach (`parts`); the
+/// results are keyed by the rig's ids only at the end ([`ById`]).
 pub struct Problem<'a> {
     rig: &'a Rig,
+    network: &'a Network,
     geometry: &'a Geometry,
     kin: &'a Kinematics,
     solve_for: PartId,
     drive: PartId,
-    /// Global dof indices of the sub-rig.
+    /// Global dof indices of the sub-rig, ascending.
     dofs: Vec<usize>,
     /// Global segment indices of the sub-rig.
     segs: Vec<usize>,
-    /// Lines of the sub-rig.
+    /// For each of `segs`, its line's local index.
+    seg_line: Vec<usize>,
+    /// Lines of the sub-rig, ascending.
     lines: Vec<LineId>,
+    /// Parts its lines reach and parts it moves, ascending.
+    parts: Vec<PartId>,
+    /// `path_part[local line][entry]`: the entry's part, as an index into `parts`.
+    path_part: Vec<Vec<usize>>,
+    /// For each of `dofs`, its part as an index into `parts`.
+    dof_part: Vec<usize>,
     /// Known generalized load forces (global dof index order of `dofs`).
     q_load: DVector<Real>,
     /// Unknown's generalized force per unit.
     x_coef: DVector<Real>,
 }
 
-/// A block's own mass and that of the sheaves it carries, kg.
-fn block_mass(rig: &Rig, block: PartId) -> Real {
+/// A block's own mass and that of the sheaves it carries, kg (the carried parts from
+/// the network's `Carried` edges, each stored as carried part to block; file order).
+fn block_mass(rig: &Rig, network: &Network, block: PartId) -> Real {
     let own = match &rig.parts[block].kind {
         PartKind::Block(b) => b.mass.unwrap_or(0.0),
         _ => 0.0,
     };
-    own + rig
-        .parts
+    let graph = &network.graph;
+    let mut carried: Vec<PartId> = graph
+        .edges(NodeIndex::new(block))
+        .filter(|e| *petgraph::visit::EdgeRef::weight(e) == Link::Carried)
+        .filter_map(|e| graph.edge_endpoints(petgraph::visit::EdgeRef::id(&e)))
+        .filter(|&(_, b)| graph[b] == block)
+        .map(|(p, _)| graph[p])
+        .collect();
+    carried.sort_unstable();
+    carried.dedup();
+    own + carried
         .iter()
-        .filter_map(|p| match &p.kind {
-            PartKind::Sheave(s) if p.block == Some(block) => s.mass,
+        .filter_map(|&p| match &rig.parts[p].kind {
+            PartKind::Sheave(s) => s.mass,
             _ => None,
         })
         .sum::<Real>()
@@ -186,15 +217,38 @@ impl<'a> Problem<'a> {
         drive: PartId,
         solve_for: PartId,
     ) -> Result<Problem<'a>, SolveError> {
-        let dofs: Vec<usize> = (0..kin.dofs.len())
-            .filter(|&i| network.component_of[kin.dofs[i].part] == component)
+        // The sub-rig's members (ascending) and their dofs (dofs are in part order).
+        let dofs: Vec<usize> = network.components[component]
+            .iter()
+            .filter_map(|&p| kin.dof_of_part[p])
             .collect();
-        let lines: Vec<LineId> = (0..rig.lines.len())
+        let lines: Vec<LineId> = network
+            .lines_of(rig, component)
+            .into_iter()
             .filter(|&l| line_component(rig, network, l) == Some(component))
             .collect();
-        let segs: Vec<usize> = (0..kin.segments.len())
-            .filter(|&g| lines.contains(&kin.segments[g].line))
+        // Segments are stored line by line.
+        let mut segs = Vec::new();
+        let mut seg_line = Vec::new();
+        for (li, &l) in lines.iter().enumerate() {
+            let from = kin.segments.partition_point(|s| s.line < l);
+            let to = kin.segments.partition_point(|s| s.line <= l);
+            segs.extend(from..to);
+            seg_line.extend(std::iter::repeat(li).take(to - from));
+        }
+        let mut parts: Vec<PartId> = lines
+            .iter()
+            .flat_map(|&l| rig.lines[l].path.iter().map(|e| e.part))
+            .chain(dofs.iter().map(|&i| kin.dofs[i].part))
             .collect();
+        parts.sort_unstable();
+        parts.dedup();
+        let local = |p: PartId| parts.binary_search(&p).expect("a part of the sub-rig");
+        let path_part: Vec<Vec<usize>> = lines
+            .iter()
+            .map(|&l| rig.lines[l].path.iter().map(|e| local(e.part)).collect())
+            .collect();
+        let dof_part: Vec<usize> = dofs.iter().map(|&i| local(kin.dofs[i].part)).collect();
         let mut q_load = DVector::zeros(dofs.len());
         let mut x_coef = DVector::zeros(dofs.len());
         for (k, &i) in dofs.iter().enumerate() {
@@ -208,7 +262,7 @@ impl<'a> Problem<'a> {
             match &rig.parts[part].kind {
                 PartKind::Block(b) => {
                     let moves = b.moves.into_inner();
-                    let mass = block_mass(rig, part);
+                    let mass = block_mass(rig, network, part);
                     let mut q = gravity_force(rig, mass).dot(&moves);
                     if unknown {
                         x_coef[k] = if b.load.is_force() {
@@ -265,13 +319,18 @@ impl<'a> Problem<'a> {
         }
         Ok(Problem {
             rig,
+            network,
             geometry,
             kin,
             solve_for,
             drive,
             dofs,
             segs,
+            seg_line,
             lines,
+            parts,
+            path_part,
+            dof_part,
             q_load,
             x_coef,
         })
@@ -297,7 +356,7 @@ impl<'a> Problem<'a> {
             }
             let size = match &self.rig.parts[part].kind {
                 PartKind::Block(b) => {
-                    let mass = block_mass(self.rig, part)
+                    let mass = block_mass(self.rig, self.network, part)
                         + match b.load {
                             BlockLoad::Mass(Some(m)) => m,
                             _ => 0.0,
@@ -350,29 +409,35 @@ impl<'a> Problem<'a> {
         let sign = case.sign();
         let n = self.dofs.len();
         let m = self.segs.len() + 1;
-        let velocity: DVector<Real> = self.kin.forward.clone() * sign;
+        // The sub-rig's dof speeds in this case (`velocity[k]` for `dofs[k]`).
+        let velocity: Vec<Real> = self
+            .dofs
+            .iter()
+            .map(|&i| self.kin.forward[i] * sign)
+            .collect();
+        // Tensions by local line.
         let mut previous: Option<Vec<Vec<Real>>> = None;
         let mut status = Status::Converged { iterations: 1 };
         let mut outcome = None;
         let needs_iteration = case != Case::Ideal && self.load_dependent();
         for iteration in 1..=options.max_iterations.max(1) {
             // Walk every segment: T_span = c τ + e.
-            let mut coef: Vec<Vec<(Real, Real)>> = rig
+            let mut coef: Vec<Vec<(Real, Real)>> = self
                 .lines
                 .iter()
-                .map(|l| vec![(0.0, 0.0); l.path.len().saturating_sub(1)])
+                .map(|&l| vec![(0.0, 0.0); rig.lines[l].path.len().saturating_sub(1)])
                 .collect();
             let mut stalled = Vec::new();
-            for &g in &self.segs {
+            for (&g, &li) in self.segs.iter().zip(&self.seg_line) {
                 let seg = self.kin.segments[g];
-                coef[seg.line][seg.first] = (1.0, 0.0);
+                coef[li][seg.first] = (1.0, 0.0);
                 for e in seg.first + 1..seg.last {
                     let (k, delta, stall) =
-                        self.passage(case, seg.line, e, previous.as_ref(), breakaway)?;
+                        self.passage(case, seg.line, li, e, previous.as_deref(), breakaway)?;
                     if stall {
                         stalled.push((seg.line, e));
                     }
-                    let (c, c0) = coef[seg.line][e - 1];
+                    let (c, c0) = coef[li][e - 1];
                     let next = (k * c, k * c0 + delta);
                     if !(next.0.is_finite() && next.1.is_finite()) {
                         // Ratios in series that each hold but together overflow.
@@ -383,7 +448,7 @@ impl<'a> Problem<'a> {
                             e,
                         ));
                     }
-                    coef[seg.line][e] = next;
+                    coef[li][e] = next;
                 }
             }
             // Drum friction from the previous tensions.
@@ -395,10 +460,13 @@ impl<'a> Problem<'a> {
                     let part = self.kin.dofs[i].part;
                     if matches!(rig.parts[part].kind, PartKind::Drum(_)) {
                         let empty = Vec::new();
-                        let f = forces.as_ref().map(|f| &f[part]).unwrap_or(&empty);
+                        let f = forces
+                            .as_ref()
+                            .map(|f| &f[self.dof_part[k]])
+                            .unwrap_or(&empty);
                         let (drag, journal, thrust) = self.drum_friction(part, f, breakaway);
                         drum_friction[k] = (drag, journal, thrust);
-                        let v = velocity[i];
+                        let v = velocity[k];
                         let s = if v > 1e-15 {
                             1.0
                         } else if v < -1e-15 {
@@ -413,13 +481,16 @@ impl<'a> Problem<'a> {
             // Assemble.
             let mut mat = DMatrix::zeros(n, m);
             let mut rhs = q.clone();
-            for (col, &g) in self.segs.iter().enumerate() {
+            for (col, (&g, &li)) in self.segs.iter().zip(&self.seg_line).enumerate() {
                 let seg = self.kin.segments[g];
                 let rows = &self.kin.span_rows[seg.line][seg.first..seg.last];
-                for (&(c, c0), row) in coef[seg.line][seg.first..seg.last].iter().zip(rows) {
-                    for (k, &i) in self.dofs.iter().enumerate() {
-                        mat[(k, col)] += c * row[i];
-                        rhs[k] -= c0 * row[i];
+                for (&(c, c0), row) in coef[li][seg.first..seg.last].iter().zip(rows) {
+                    for (i, b) in row.iter() {
+                        let Ok(k) = self.dofs.binary_search(&i) else {
+                            continue;
+                        };
+                        mat[(k, col)] += c * b;
+                        rhs[k] -= c0 * b;
                     }
                 }
             }
@@ -514,21 +585,19 @@ impl<'a> Problem<'a> {
                     hint,
                 });
             }
-            let mut tension: Vec<Vec<Real>> = rig
+            let mut tension: Vec<Vec<Real>> = self
                 .lines
                 .iter()
-                .map(|l| vec![0.0; l.path.len().saturating_sub(1)])
+                .map(|&l| vec![0.0; rig.lines[l].path.len().saturating_sub(1)])
                 .collect();
-            for (col, &g) in self.segs.iter().enumerate() {
+            for (col, (&g, &li)) in self.segs.iter().zip(&self.seg_line).enumerate() {
                 let seg = self.kin.segments[g];
                 for j in seg.first..seg.last {
-                    let (c, c0) = coef[seg.line][j];
-                    tension[seg.line][j] = c * solution[col] + c0;
+                    let (c, c0) = coef[li][j];
+                    tension[li][j] = c * solution[col] + c0;
                 }
             }
-            let change = previous
-                .as_ref()
-                .map(|p| relative_change(p, &tension, &self.lines));
+            let change = previous.as_ref().map(|p| relative_change(p, &tension));
             let converged = !needs_iteration || change.is_some_and(|c| c <= options.tolerance);
             outcome = Some((
                 tension.clone(),
@@ -626,9 +695,9 @@ impl<'a> Problem<'a> {
         }
     }
 
-    /// Whether any friction depends on the tensions themselves.
+    /// Whether any friction of the sub-rig depends on the tensions themselves.
     fn load_dependent(&self) -> bool {
-        self.rig.parts.iter().any(|p| match &p.kind {
+        self.parts.iter().any(|&p| match &self.rig.parts[p].kind {
             PartKind::Sheave(s) => {
                 s.mass.unwrap_or(0.0) > 0.0
                     && matches!(
@@ -657,11 +726,12 @@ fn stage_name(case: Case, breakaway: bool) -> &'static str {
     }
 }
 
-fn relative_change(a: &[Vec<Real>], b: &[Vec<Real>], lines: &[LineId]) -> Real {
+/// Largest change between two sets of the sub-rig's tensions over the largest tension.
+fn relative_change(a: &[Vec<Real>], b: &[Vec<Real>]) -> Real {
     let mut worst: Real = 0.0;
     let mut scale: Real = 0.0;
-    for &l in lines {
-        for (x, y) in a[l].iter().zip(&b[l]) {
+    for (a, b) in a.iter().zip(b) {
+        for (x, y) in a.iter().zip(b) {
             worst = worst.max((x - y).abs());
             scale = scale.max(y.abs());
         }

@@ -396,7 +396,7 @@ pub fn largest_tension(solution: &Solution) -> Option<Real> {
     fold_max(solution.subrigs.iter().flat_map(|s| {
         [&s.forward, &s.back]
             .into_iter()
-            .flat_map(|c| c.tension.iter().flatten().copied())
+            .flat_map(|c| c.tension.entries().flat_map(|(_, t)| t).copied())
     }))
 }
 

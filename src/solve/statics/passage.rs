@@ -10,8 +10,9 @@ impl Problem<'_> {
         own.unwrap_or(self.rig.rope_of(line).mu)
     }
 
-    /// `T_after = k T_before + delta` for middle entry `e` of `line`; also whether the
-    /// sheave stalls there.
+    /// `T_after = k T_before + delta` for middle entry `e` of `line` (local index `li`,
+    /// by which `previous` holds the last tensions); also whether the sheave stalls
+    /// there.
     ///
     /// # Errors
     /// [`SolveError::ImplausibleCapstan`] or [`SolveError::ImplausibleBearing`] when the
@@ -20,11 +21,12 @@ impl Problem<'_> {
         &self,
         case: Case,
         line: LineId,
+        li: usize,
         e: usize,
-        previous: Option<&Vec<Vec<Real>>>,
+        previous: Option<&[Vec<Real>]>,
         breakaway: bool,
     ) -> Result<(Real, Real, bool), SolveError> {
-        let (k, delta, stall) = self.passage_ratio(case, line, e, previous, breakaway);
+        let (k, delta, stall) = self.passage_ratio(case, line, li, e, previous, breakaway);
         let ratio = k.max(1.0 / k);
         if ratio.is_finite() && ratio <= friction::PHYSICAL_RATIO_LIMIT {
             return Ok((k, delta, stall));
@@ -56,8 +58,9 @@ impl Problem<'_> {
         &self,
         case: Case,
         line: LineId,
+        li: usize,
         e: usize,
-        previous: Option<&Vec<Vec<Real>>>,
+        previous: Option<&[Vec<Real>]>,
         breakaway: bool,
     ) -> (Real, Real, bool) {
         if case == Case::Ideal {
@@ -111,7 +114,7 @@ impl Problem<'_> {
                         let spans = &self.geometry.lines[line].spans;
                         let u_in = spans[e - 1].direction.into_inner();
                         let u_out = spans[e].direction.into_inner();
-                        let before = prev[line][e - 1].max(0.0);
+                        let before = prev[li][e - 1].max(0.0);
                         let after = if s > 0.0 {
                             friction::tight_tension(before, &u_out, &(-u_in), &weight, radius, r)
                         } else {
@@ -137,18 +140,19 @@ impl Problem<'_> {
         }
     }
 
-    /// Force each span puts on each part it touches, for the pin loads and drums.
+    /// Force each span puts on each part it touches, for the pin loads and drums:
+    /// `forces[local part]` (an index into `parts`), from the tensions by local line.
     pub(super) fn contact_forces(
         &self,
         tension: &[Vec<Real>],
     ) -> Vec<Vec<(Vector, crate::math::Point)>> {
-        let mut forces = vec![Vec::new(); self.rig.parts.len()];
-        for &l in &self.lines {
-            let path = &self.rig.lines[l].path;
+        let mut forces = vec![Vec::new(); self.parts.len()];
+        for (li, &l) in self.lines.iter().enumerate() {
+            let path = &self.path_part[li];
             for (j, span) in self.geometry.lines[l].spans.iter().enumerate() {
-                let f = span.direction.into_inner() * tension[l][j];
-                forces[path[j].part].push((f, span.start));
-                forces[path[j + 1].part].push((-f, span.end));
+                let f = span.direction.into_inner() * tension[li][j];
+                forces[path[j]].push((f, span.start));
+                forces[path[j + 1]].push((-f, span.end));
             }
         }
         forces

@@ -4,6 +4,7 @@
 use super::*;
 
 impl Problem<'_> {
+    /// `tension` by local line; `velocity[k]` is the case's speed of `dofs[k]`.
     #[allow(clippy::too_many_arguments)]
     pub(super) fn finish(
         &self,
@@ -14,27 +15,31 @@ impl Problem<'_> {
         drum_friction: Vec<(Real, Real, Real)>,
         indeterminate: bool,
         status: Status,
-        velocity: &DVector<Real>,
+        velocity: &[Real],
     ) -> CaseResult {
         let rig = self.rig;
-        let nparts = rig.parts.len();
-        let mut loss = vec![0.0; nparts];
-        let mut ratio: Vec<Vec<Option<Real>>> =
-            rig.lines.iter().map(|l| vec![None; l.path.len()]).collect();
+        // By local part (`parts`) and local line (`lines`), keyed by the rig's ids at
+        // the end.
+        let mut loss = vec![0.0; self.parts.len()];
+        let mut ratio: Vec<Vec<Option<Real>>> = self
+            .lines
+            .iter()
+            .map(|&l| vec![None; rig.lines[l].path.len()])
+            .collect();
         let mut slack = Vec::new();
         let mut slipping = Vec::new();
-        for &l in &self.lines {
+        for (li, &l) in self.lines.iter().enumerate() {
             let path = &rig.lines[l].path;
-            for (j, &t) in tension[l].iter().enumerate() {
+            for (j, &t) in tension[li].iter().enumerate() {
                 if t < -1e-9 * (1.0 + value.abs()) {
                     slack.push((l, j));
                 }
             }
             for e in 1..path.len() - 1 {
-                let (a, b) = (tension[l][e - 1], tension[l][e]);
+                let (a, b) = (tension[li][e - 1], tension[li][e]);
                 let (hi, lo) = if a.abs() >= b.abs() { (a, b) } else { (b, a) };
                 if lo.abs() > 0.0 {
-                    ratio[l][e] = Some(hi / lo);
+                    ratio[li][e] = Some(hi / lo);
                 }
                 let part = path[e].part;
                 if matches!(rig.parts[part].kind, PartKind::Drum(_)) {
@@ -56,23 +61,23 @@ impl Problem<'_> {
                     }
                 } else {
                     let s = case.sign() * self.kin.rope_speed[l][e];
-                    loss[part] += (b - a) * s;
+                    loss[self.path_part[li][e]] += (b - a) * s;
                 }
             }
         }
         // Drum friction losses, per-dof powers.
-        let mut load_power = vec![0.0; nparts];
+        let mut load_power = vec![0.0; self.parts.len()];
         let mut drive_power = 0.0;
         for (k, &i) in self.dofs.iter().enumerate() {
             let part = self.kin.dofs[i].part;
-            let v = velocity[i];
+            let v = velocity[k];
             let (drag, journal, thrust) = drum_friction[k];
-            loss[part] += (drag + journal + thrust) * v.abs();
+            loss[self.dof_part[k]] += (drag + journal + thrust) * v.abs();
             let p = (self.q_load[k] + value * self.x_coef[k]) * v;
             if part == self.drive {
                 drive_power += p;
             } else {
-                load_power[part] -= p;
+                load_power[self.dof_part[k]] -= p;
             }
         }
         let total_loss: Real = loss.iter().sum();
@@ -86,10 +91,11 @@ impl Problem<'_> {
 
         // Pin loads and drum torques.
         let forces = self.contact_forces(&tension);
-        let mut pin_load = vec![None; nparts];
-        let mut drums = vec![None; nparts];
-        for (id, part) in rig.parts.iter().enumerate() {
-            if forces[id].is_empty() {
+        let mut pin_load = vec![None; self.parts.len()];
+        let mut drums = vec![None; self.parts.len()];
+        for (lp, &id) in self.parts.iter().enumerate() {
+            let part = &rig.parts[id];
+            if forces[lp].is_empty() {
                 continue;
             }
             let own = match &part.kind {
@@ -97,18 +103,18 @@ impl Problem<'_> {
                 PartKind::Drum(d) => d.mass.unwrap_or(0.0),
                 _ => 0.0,
             };
-            let total = forces[id]
+            let total = forces[lp]
                 .iter()
                 .fold(gravity_force(rig, own), |a, (f, _)| a + f);
-            pin_load[id] = Some(total);
+            pin_load[lp] = Some(total);
             if let PartKind::Drum(d) = &part.kind {
                 let axle = d.axle.into_inner();
-                let torque: Real = forces[id]
+                let torque: Real = forces[lp]
                     .iter()
                     .map(|(f, at)| (at - part.at).cross(f).dot(&axle))
                     .sum();
                 let k = self.dofs.iter().position(|&i| self.kin.dofs[i].part == id);
-                let speed = self.kin.dof_of_part[id].map(|i| velocity[i]).unwrap_or(0.0);
+                let speed = k.map(|k| velocity[k]).unwrap_or(0.0);
                 let dir = if speed < 0.0 { -1.0 } else { 1.0 };
                 let (drag, journal, thrust) =
                     k.map(|k| drum_friction[k]).unwrap_or((0.0, 0.0, 0.0));
@@ -122,7 +128,7 @@ impl Problem<'_> {
                 let fwd = self.kin.dof_of_part[id]
                     .map(|i| self.kin.forward[i])
                     .unwrap_or(0.0);
-                drums[id] = Some(DrumTorques {
+                drums[lp] = Some(DrumTorques {
                     rope: torque * dir,
                     load: load * if fwd * speed >= 0.0 { 1.0 } else { -1.0 },
                     drag,
@@ -132,16 +138,17 @@ impl Problem<'_> {
                 });
             }
         }
+        let (nparts, nlines) = (rig.parts.len(), rig.lines.len());
         CaseResult {
             case,
             value,
-            tension,
-            ratio,
-            loss,
-            load_power,
+            tension: ById::new(nlines, self.lines.clone(), tension, Vec::new()),
+            ratio: ById::new(nlines, self.lines.clone(), ratio, Vec::new()),
+            loss: ById::new(nparts, self.parts.clone(), loss, 0.0),
+            load_power: ById::new(nparts, self.parts.clone(), load_power, 0.0),
             drive_power,
-            pin_load,
-            drums,
+            pin_load: ById::new(nparts, self.parts.clone(), pin_load, None),
+            drums: ById::new(nparts, self.parts.clone(), drums, None),
             stalled,
             slipping,
             slack,
