@@ -272,8 +272,10 @@ pub fn plumb_checks(rig: &Rig, solution: &Solution) -> Vec<Warning> {
     let mut out = Vec::new();
     let up = -rig.gravity.into_inner();
     for sub in &solution.subrigs {
-        for (id, part) in rig.parts.iter().enumerate() {
-            let (PartKind::Weight(_), Some(pull)) = (&part.kind, sub.ideal.pin_load[id]) else {
+        // The parts the sub-rig's lines reach, in part order.
+        for (id, &pin_load) in sub.ideal.pin_load.entries() {
+            let part = &rig.parts[id];
+            let (PartKind::Weight(_), Some(pull)) = (&part.kind, pin_load) else {
                 continue;
             };
             if solution.network.component_of[id] != sub.component || pull.norm() == 0.0 {
@@ -404,7 +406,9 @@ pub fn run(rig: &Rig, solution: &Solution) -> Vec<Warning> {
 /// passage may be ordinary and the line still lock: the product is what fails.
 fn friction_lock_checks(rig: &Rig, sub: &SubRigSolution) -> Vec<Warning> {
     let mut out = Vec::new();
-    for (l, line) in rig.lines.iter().enumerate() {
+    // The sub-rig's lines, in line order.
+    for (l, _) in sub.forward.tension.entries() {
+        let line = &rig.lines[l];
         // The largest product of one run: (product, first entry, last entry).
         let mut worst: Option<(Real, usize, usize)> = None;
         for case in [&sub.forward, &sub.back] {
@@ -446,7 +450,9 @@ fn friction_lock_checks(rig: &Rig, sub: &SubRigSolution) -> Vec<Warning> {
     out
 }
 
-fn subrig_checks(rig: &Rig, sub: &SubRigSolution) -> Vec<Warning> {
+/// The checks of one sub-rig's solution, as [`run`] lists them after the rig's own
+/// (a study that solves one sub-rig again checks that one again).
+pub fn subrig_checks(rig: &Rig, sub: &SubRigSolution) -> Vec<Warning> {
     let mut out = Vec::new();
     let drive = &rig.parts[sub.drive].name;
     let force = |x: Real| rig.units.show(x, Dimension::Force);
@@ -543,8 +549,10 @@ fn subrig_checks(rig: &Rig, sub: &SubRigSolution) -> Vec<Warning> {
             ));
         }
     }
-    // Safety factor of every span, worst case of forward and back.
-    for (l, line) in rig.lines.iter().enumerate() {
+    // Safety factor of every span of the sub-rig's lines (in line order), worst case of
+    // forward and back.
+    for (l, _) in sub.forward.tension.entries() {
+        let line = &rig.lines[l];
         let rope = rig.rope_of(l);
         let Some(strength) = rope.breaking_strength else {
             continue;

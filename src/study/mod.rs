@@ -15,6 +15,7 @@
 //! checks and fails (exit 1) where `check` would fail any of its rigs.
 
 pub mod compare;
+pub mod local;
 pub mod rank;
 pub mod rng;
 pub mod spread;
@@ -128,15 +129,18 @@ impl RigSource {
     /// # Errors
     /// [`StudyError::Solve`].
     pub fn solve_rig(&self, rig: &Rig) -> Result<Solution, StudyError> {
-        solve::solve(rig, &SolveOptions::default()).map_err(|error| {
-            let source_name = match error.location(rig) {
-                Some((l, subject)) if l.line > 0 => {
-                    format!("{}:{}:{}: {subject}", self.source, l.line, l.column)
-                }
-                _ => self.source.clone(),
-            };
-            StudyError::Solve { source_name, error }
-        })
+        solve::solve(rig, &SolveOptions::default()).map_err(|error| self.solve_error(rig, error))
+    }
+
+    /// A solve error of `rig`, located in this source as `check` words it.
+    pub fn solve_error(&self, rig: &Rig, error: SolveError) -> StudyError {
+        let source_name = match error.location(rig) {
+            Some((l, subject)) if l.line > 0 => {
+                format!("{}:{}:{}: {subject}", self.source, l.line, l.column)
+            }
+            _ => self.source.clone(),
+        };
+        StudyError::Solve { source_name, error }
     }
 
     /// Whether the mapping at `path` (exact key names, e.g. `["parts", "hook.a",
@@ -303,9 +307,26 @@ pub struct Verdict {
 impl Verdict {
     /// The verdict of a built report.
     pub fn of(report: &Report) -> Verdict {
+        Verdict::from_warnings(
+            report.headline.margin,
+            report.headline.moves,
+            &report.warnings,
+        )
+    }
+
+    /// The verdict from the main sub-rig's margin and whether it moves, and the
+    /// warnings in the order `check` lists them (what [`Verdict::of`] reads of a
+    /// report).
+    pub fn from_warnings<'a>(
+        margin: Option<Real>,
+        moves: Option<bool>,
+        warnings: impl IntoIterator<Item = &'a checks::Warning>,
+    ) -> Verdict {
         let mut failing = Vec::new();
         let mut stalled = Vec::new();
-        for w in &report.warnings {
+        let mut fails = false;
+        for w in warnings {
+            fails |= w.fails;
             if w.fails && !failing.contains(&w.code) {
                 failing.push(w.code);
             }
@@ -316,9 +337,9 @@ impl Verdict {
             }
         }
         Verdict {
-            margin: report.headline.margin,
-            moves: report.headline.moves,
-            fails: report.fails(),
+            margin,
+            moves,
+            fails,
             failing,
             stalled,
         }
