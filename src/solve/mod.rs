@@ -539,7 +539,9 @@ fn solve_subrig(
 /// `base`'s serve, and the other sub-rigs' answers cannot change. A study that changes
 /// one part's friction solves one sub-rig, not the rig.
 ///
-/// The answer is the one [`solve`] gives for that sub-rig of `rig`, to the bit.
+/// `breakaway_case` is [`has_static_friction`] of `rig` (the caller knows it from the
+/// change it made, without a pass over the rig). The answer is the one [`solve`] gives
+/// for that sub-rig of `rig`, to the bit.
 ///
 /// # Errors
 /// As [`solve`], for that sub-rig.
@@ -547,6 +549,7 @@ pub fn solve_again(
     rig: &Rig,
     base: &Solution,
     k: usize,
+    breakaway_case: bool,
     options: &SolveOptions,
 ) -> Result<SubRigSolution, SolveError> {
     let sub = &base.subrigs[k];
@@ -561,13 +564,19 @@ pub fn solve_again(
         sub.component,
         sub.drive,
         sub.solve_for,
-        has_static_friction(rig),
+        breakaway_case,
         options,
     )
 }
 
 /// Whether any bearing gives a static coefficient (then a breakaway case is solved).
 pub fn has_static_friction(rig: &Rig) -> bool {
+    (0..rig.parts.len()).any(|p| static_friction_at(rig, p))
+}
+
+/// Whether part `part`'s bearing (a sheave's, or a drum's shaft's) gives a static
+/// coefficient.
+pub fn static_friction_at(rig: &Rig, part: PartId) -> bool {
     use crate::model::Bearing;
     let is_static = |b: &Bearing| {
         matches!(
@@ -578,11 +587,11 @@ pub fn has_static_friction(rig: &Rig) -> bool {
             }
         )
     };
-    rig.parts.iter().any(|p| match &p.kind {
+    match &rig.parts[part].kind {
         PartKind::Sheave(s) => is_static(&s.bearing),
         PartKind::Drum(d) => d.shaft.as_ref().is_some_and(|s| is_static(&s.bearing)),
         _ => false,
-    })
+    }
 }
 
 /// Resultant of a list of forces.

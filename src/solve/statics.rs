@@ -167,6 +167,15 @@ pub struct Problem<'a> {
     path_part: Vec<Vec<usize>>,
     /// For each of `dofs`, its part as an index into `parts`.
     dof_part: Vec<usize>,
+    /// The spans touching each local part, `(local line, span, at its end)`, at
+    /// `touches[touch_start[lp]..touch_start[lp + 1]]`, in the order the lines and
+    /// their spans run (which fixes the order their forces add up in).
+    touches: Vec<(usize, usize, bool)>,
+    /// See `touches`.
+    touch_start: Vec<usize>,
+    /// `lines` and `parts` as the results' keys, shared by every case.
+    line_ids: std::sync::Arc<[usize]>,
+    part_ids: std::sync::Arc<[usize]>,
     /// Known generalized load forces (global dof index order of `dofs`).
     q_load: DVector<Real>,
     /// Unknown's generalized force per unit.
@@ -222,11 +231,23 @@ impl<'a> Problem<'a> {
             .iter()
             .filter_map(|&p| kin.dof_of_part[p])
             .collect();
-        let lines: Vec<LineId> = network
-            .lines_of(rig, component)
-            .into_iter()
-            .filter(|&l| line_component(rig, network, l) == Some(component))
+        // The lines at its moving or turning parts (as `Network::lines_of`, from the
+        // graph's span edges, in one list).
+        let mut lines: Vec<LineId> = network.components[component]
+            .iter()
+            .filter(|&&p| !rig.parts[p].is_fixed_anchor())
+            .flat_map(|&p| {
+                network.graph.edges(NodeIndex::new(p)).filter_map(|e| {
+                    match *petgraph::visit::EdgeRef::weight(&e) {
+                        Link::Span { line, .. } => Some(line),
+                        Link::Carried => None,
+                    }
+                })
+            })
             .collect();
+        lines.sort_unstable();
+        lines.dedup();
+        lines.retain(|&l| line_component(rig, network, l) == Some(component));
         // Segments are stored line by line.
         let mut segs = Vec::new();
         let mut seg_line = Vec::new();
@@ -249,6 +270,27 @@ impl<'a> Problem<'a> {
             .map(|&l| rig.lines[l].path.iter().map(|e| local(e.part)).collect())
             .collect();
         let dof_part: Vec<usize> = dofs.iter().map(|&i| local(kin.dofs[i].part)).collect();
+        // Each span touches the part it leaves and the part it reaches.
+        let mut touch_start = vec![0; parts.len() + 1];
+        for path in &path_part {
+            for pair in path.windows(2) {
+                touch_start[pair[0] + 1] += 1;
+                touch_start[pair[1] + 1] += 1;
+            }
+        }
+        for lp in 0..parts.len() {
+            touch_start[lp + 1] += touch_start[lp];
+        }
+        let mut touches = vec![(0, 0, false); touch_start[parts.len()]];
+        let mut next = touch_start.clone();
+        for (li, path) in path_part.iter().enumerate() {
+            for (j, pair) in path.windows(2).enumerate() {
+                for (lp, at_end) in [(pair[0], false), (pair[1], true)] {
+                    touches[next[lp]] = (li, j, at_end);
+                    next[lp] += 1;
+                }
+            }
+        }
         let mut q_load = DVector::zeros(dofs.len());
         let mut x_coef = DVector::zeros(dofs.len());
         for (k, &i) in dofs.iter().enumerate() {
@@ -317,6 +359,7 @@ impl<'a> Problem<'a> {
                 _ => {}
             }
         }
+        let (line_ids, part_ids) = (lines.as_slice().into(), parts.as_slice().into());
         Ok(Problem {
             rig,
             network,
@@ -331,6 +374,10 @@ impl<'a> Problem<'a> {
             parts,
             path_part,
             dof_part,
+            touches,
+            touch_start,
+            line_ids,
+            part_ids,
             q_load,
             x_coef,
         })
@@ -452,19 +499,17 @@ impl<'a> Problem<'a> {
                 }
             }
             // Drum friction from the previous tensions.
-            let forces = previous.as_ref().map(|t| self.contact_forces(t));
             let mut q = self.q_load.clone();
             let mut drum_friction = vec![(0.0, 0.0, 0.0); n];
             if case != Case::Ideal {
                 for (k, &i) in self.dofs.iter().enumerate() {
                     let part = self.kin.dofs[i].part;
                     if matches!(rig.parts[part].kind, PartKind::Drum(_)) {
-                        let empty = Vec::new();
-                        let f = forces
-                            .as_ref()
-                            .map(|f| &f[self.dof_part[k]])
-                            .unwrap_or(&empty);
-                        let (drag, journal, thrust) = self.drum_friction(part, f, breakaway);
+                        let lp = self.dof_part[k];
+                        let (drag, journal, thrust) = match previous.as_deref() {
+                            Some(t) => self.drum_friction(part, self.contacts(lp, t), breakaway),
+                            None => self.drum_friction(part, std::iter::empty(), breakaway),
+                        };
                         drum_friction[k] = (drag, journal, thrust);
                         let v = velocity[k];
                         let s = if v > 1e-15 {
@@ -599,13 +644,11 @@ impl<'a> Problem<'a> {
             }
             let change = previous.as_ref().map(|p| relative_change(p, &tension));
             let converged = !needs_iteration || change.is_some_and(|c| c <= options.tolerance);
-            outcome = Some((
-                tension.clone(),
-                solution[m - 1],
-                stalled,
-                drum_friction,
-                rank < m,
-            ));
+            let last = options.max_iterations.max(1) == iteration;
+            // The tensions go to the answer, and are kept for the next iteration only
+            // where there is one.
+            let kept = (!converged && !last).then(|| tension.clone());
+            outcome = Some((tension, solution[m - 1], stalled, drum_friction, rank < m));
             if converged {
                 status = Status::Converged {
                     iterations: iteration,
@@ -616,7 +659,7 @@ impl<'a> Problem<'a> {
                 iterations: iteration,
                 change: change.unwrap_or(Real::INFINITY),
             };
-            previous = Some(tension);
+            previous = kept;
         }
         let Some((tension, value, stalled, drum_friction, indeterminate)) = outcome else {
             return Err(SolveError::NoEquilibrium {

@@ -14,8 +14,8 @@
 //! overrides; that is checked, compared whole, the first time each kind of change is
 //! made, and a kind that does not match (and any other change) takes the file path.
 
-use std::cell::RefCell;
 use std::collections::HashMap;
+use std::sync::Mutex;
 
 use crate::checks::{self, Warning};
 use crate::math::Real;
@@ -66,10 +66,12 @@ pub struct Local<'a> {
     /// Each sub-rig's warnings.
     subrig_warnings: Vec<Vec<Warning>>,
     /// The rig as written, changed in place by a run and put back after it.
-    work: RefCell<Rig>,
+    work: Mutex<Rig>,
     /// Whether each kind of model change gives the file path's rig (absent: not yet
     /// checked).
-    trusted: RefCell<HashMap<&'static str, bool>>,
+    trusted: Mutex<HashMap<&'static str, bool>>,
+    /// How many parts of the rig as written give a static coefficient.
+    static_parts: usize,
 }
 
 impl<'a> Local<'a> {
@@ -117,9 +119,16 @@ impl<'a> Local<'a> {
             subrigs_of_rope,
             rig_warnings: own.to_vec(),
             subrig_warnings,
-            work: RefCell::new(rig.clone()),
-            trusted: RefCell::new(HashMap::new()),
+            work: Mutex::new(rig.clone()),
+            trusted: Mutex::new(HashMap::new()),
+            static_parts: (0..rig.parts.len())
+                .filter(|&p| solve::static_friction_at(rig, p))
+                .count(),
         })
+    }
+
+    fn trusted(&self) -> std::sync::MutexGuard<'_, HashMap<&'static str, bool>> {
+        self.trusted.lock().unwrap_or_else(|e| e.into_inner())
     }
 
     /// The sub-rigs (indices in `solution.subrigs`) a change of `subject` reaches.
@@ -143,11 +152,20 @@ impl<'a> Local<'a> {
         judge: bool,
     ) -> Result<Outcomes, StudyError> {
         let reached = self.reached(subject);
-        if let Some(edit) = edit.filter(|e| self.trusted.borrow().get(e.kind) != Some(&false)) {
-            let mut work = self.work.borrow_mut();
+        if let Some(edit) = edit.filter(|e| self.trusted().get(e.kind) != Some(&false)) {
+            let mut work = self.work.lock().unwrap_or_else(|e| e.into_inner());
             let applied = (edit.apply)(&mut work).is_some();
             let trusted = applied && self.check_kind(edit.kind, &work, settings);
-            let answer = trusted.then(|| self.outcomes(&work, &reached, judge));
+            // Only the changed part can have gained or lost a static coefficient.
+            let breakaway = match subject {
+                Subject::Part(p) => {
+                    self.static_parts - usize::from(solve::static_friction_at(self.rig, p))
+                        + usize::from(solve::static_friction_at(&work, p))
+                        > 0
+                }
+                Subject::Rope(_) => self.static_parts > 0,
+            };
+            let answer = trusted.then(|| self.outcomes(&work, &reached, breakaway, judge));
             // Put the rig back as written.
             match subject {
                 Subject::Part(p) => work.parts[p] = self.rig.parts[p].clone(),
@@ -158,29 +176,35 @@ impl<'a> Local<'a> {
             }
         }
         let rig = self.source.load(settings)?;
-        self.outcomes(&rig, &reached, judge)
+        self.outcomes(&rig, &reached, solve::has_static_friction(&rig), judge)
     }
 
     /// Whether the model change of `kind` gives the file path's rig: checked once.
     fn check_kind(&self, kind: &'static str, changed: &Rig, settings: &[(String, String)]) -> bool {
-        if let Some(&known) = self.trusted.borrow().get(kind) {
+        if let Some(&known) = self.trusted().get(kind) {
             return known;
         }
         let same = self
             .source
             .load(settings)
             .is_ok_and(|slow| format!("{slow:?}") == format!("{changed:?}"));
-        self.trusted.borrow_mut().insert(kind, same);
+        self.trusted().insert(kind, same);
         same
     }
 
-    fn outcomes(&self, rig: &Rig, reached: &[usize], judge: bool) -> Result<Outcomes, StudyError> {
+    fn outcomes(
+        &self,
+        rig: &Rig,
+        reached: &[usize],
+        breakaway: bool,
+        judge: bool,
+    ) -> Result<Outcomes, StudyError> {
         let options = SolveOptions::default();
         // In the solution's order, so the first error is the one the whole solve meets.
         let again: Vec<(usize, SubRigSolution)> = reached
             .iter()
             .map(|&k| {
-                solve::solve_again(rig, self.solution, k, &options)
+                solve::solve_again(rig, self.solution, k, breakaway, &options)
                     .map(|s| (k, s))
                     .map_err(|e| self.source.solve_error(rig, e))
             })
@@ -216,6 +240,35 @@ impl<'a> Local<'a> {
             )
         });
         Ok(Outcomes { forward, verdict })
+    }
+}
+
+impl Local<'_> {
+    /// Every sub-rig of `rig` solved again, `rig` being the rig as written with other
+    /// coefficients of friction or loads (a sample of a spread: no part moves), and
+    /// `check`'s verdict of it.
+    ///
+    /// # Errors
+    /// [`StudyError::Solve`] as the whole rig's solve would give it.
+    pub fn solve_all(&self, rig: &Rig) -> Result<(Vec<SubRigSolution>, Verdict), StudyError> {
+        let options = SolveOptions::default();
+        let breakaway = solve::has_static_friction(rig);
+        let subs: Vec<SubRigSolution> = (0..self.solution.subrigs.len())
+            .map(|k| {
+                solve::solve_again(rig, self.solution, k, breakaway, &options)
+                    .map_err(|e| self.source.solve_error(rig, e))
+            })
+            .collect::<Result<_, _>>()?;
+        let main = &subs[0];
+        let available = given_quantity(rig, main.solve_for);
+        let checked: Vec<Vec<Warning>> =
+            subs.iter().map(|s| checks::subrig_checks(rig, s)).collect();
+        let verdict = Verdict::from_warnings(
+            available.and_then(|a| main.margin(a)),
+            available.map(|a| main.outcome(a)).map(Outcome::succeeds),
+            self.rig_warnings.iter().chain(checked.iter().flatten()),
+        );
+        Ok((subs, verdict))
     }
 }
 

@@ -213,7 +213,9 @@ impl RigSource {
 
 /// A loaded rig with a study's ranged keys resolved to model parameters
 /// ([`crate::model::param`]): a sample is the rig with its drawn values set, not a new
-/// read of the file.
+/// read of the file. Every such parameter is a coefficient of friction or a load:
+/// none moves a part, so a sample keeps the rig's geometry and motion
+/// ([`local::Local::solve_all`]).
 #[derive(Debug, Clone)]
 pub struct ModelSampler {
     base: Rig,
@@ -225,10 +227,18 @@ impl ModelSampler {
     /// one does not convert or fails its check (the caller takes the file path).
     pub fn rig(&self, values: &[Real]) -> Option<Rig> {
         let mut rig = self.base.clone();
-        for (p, &v) in self.params.iter().zip(values) {
-            p.param.set(&mut rig, p.si(&self.base, v)?)?;
-        }
+        self.set(&mut rig, values)?;
         Some(rig)
+    }
+
+    /// [`ModelSampler::rig`] written into `rig`, a rig this sampler made (every ranged
+    /// value is set again, so one rig serves every sample of a thread). None, and `rig`
+    /// possibly changed, as there.
+    pub fn set(&self, rig: &mut Rig, values: &[Real]) -> Option<()> {
+        for (p, &v) in self.params.iter().zip(values) {
+            p.param.set(rig, p.si(&self.base, v)?)?;
+        }
+        Some(())
     }
 }
 
@@ -414,7 +424,12 @@ fn fold_min(values: impl Iterator<Item = Real>) -> Option<Real> {
 
 /// Largest tension of any span of the rig over the forward and back cases, N.
 pub fn largest_tension(solution: &Solution) -> Option<Real> {
-    fold_max(solution.subrigs.iter().flat_map(|s| {
+    largest_tension_of(&solution.subrigs)
+}
+
+/// [`largest_tension`] over the sub-rigs' answers `subrigs`.
+pub fn largest_tension_of(subrigs: &[solve::SubRigSolution]) -> Option<Real> {
+    fold_max(subrigs.iter().flat_map(|s| {
         [&s.forward, &s.back]
             .into_iter()
             .flat_map(|c| c.tension.entries().flat_map(|(_, t)| t).copied())

@@ -4,6 +4,7 @@
 //! times the number of sub-rigs.
 
 use std::ops::Index;
+use std::sync::Arc;
 
 /// Values at some ids of a rig-wide index (parts or lines), `absent` at every other id
 /// below [`ById::len`]. Indexed like the `Vec` over every id it stands for: `x[id]`,
@@ -12,8 +13,8 @@ use std::ops::Index;
 #[derive(Debug, Clone, PartialEq)]
 pub struct ById<T> {
     len: usize,
-    /// Stored ids, ascending, each once.
-    ids: Vec<usize>,
+    /// Stored ids, ascending, each once (shared by a sub-rig's results).
+    ids: Arc<[usize]>,
     values: Vec<T>,
     absent: T,
 }
@@ -24,7 +25,8 @@ impl<T> ById<T> {
     /// # Panics
     /// When `ids` is not strictly ascending, reaches `len`, or its length is not that of
     /// `values` (a bug in the solver, not bad input).
-    pub fn new(len: usize, ids: Vec<usize>, values: Vec<T>, absent: T) -> ById<T> {
+    pub fn new(len: usize, ids: impl Into<Arc<[usize]>>, values: Vec<T>, absent: T) -> ById<T> {
+        let ids = ids.into();
         assert_eq!(ids.len(), values.len(), "one value per id");
         assert!(
             ids.windows(2).all(|w| w[0] < w[1]),

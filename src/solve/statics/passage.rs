@@ -140,29 +140,31 @@ impl Problem<'_> {
         }
     }
 
-    /// Force each span puts on each part it touches, for the pin loads and drums:
-    /// `forces[local part]` (an index into `parts`), from the tensions by local line.
-    pub(super) fn contact_forces(
-        &self,
-        tension: &[Vec<Real>],
-    ) -> Vec<Vec<(Vector, crate::math::Point)>> {
-        let mut forces = vec![Vec::new(); self.parts.len()];
-        for (li, &l) in self.lines.iter().enumerate() {
-            let path = &self.path_part[li];
-            for (j, span) in self.geometry.lines[l].spans.iter().enumerate() {
+    /// The force each span touching local part `lp` (an index into `parts`) puts on
+    /// it, and where, from the tensions by local line: for the pin loads and drums.
+    pub(super) fn contacts<'b>(
+        &'b self,
+        lp: usize,
+        tension: &'b [Vec<Real>],
+    ) -> impl Iterator<Item = (Vector, crate::math::Point)> + 'b {
+        self.touches[self.touch_start[lp]..self.touch_start[lp + 1]]
+            .iter()
+            .map(move |&(li, j, at_end)| {
+                let span = &self.geometry.lines[self.lines[li]].spans[j];
                 let f = span.direction.into_inner() * tension[li][j];
-                forces[path[j]].push((f, span.start));
-                forces[path[j + 1]].push((-f, span.end));
-            }
-        }
-        forces
+                if at_end {
+                    (-f, span.end)
+                } else {
+                    (f, span.start)
+                }
+            })
     }
 
     /// Friction torques of a drum for given tensions: (drag, journal, thrust).
     pub(super) fn drum_friction(
         &self,
         part: PartId,
-        forces: &[(Vector, crate::math::Point)],
+        forces: impl Iterator<Item = (Vector, crate::math::Point)>,
         breakaway: bool,
     ) -> (Real, Real, Real) {
         let PartKind::Drum(d) = &self.rig.parts[part].kind else {
@@ -172,7 +174,7 @@ impl Problem<'_> {
         let mut thrust = 0.0;
         if let Some(shaft) = &d.shaft {
             let axle = d.axle.into_inner();
-            let total = forces.iter().fold(
+            let total = forces.fold(
                 gravity_force(self.rig, d.mass.unwrap_or(0.0)),
                 |a, (f, _)| a + f,
             );

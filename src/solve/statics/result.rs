@@ -90,12 +90,11 @@ impl Problem<'_> {
         let audit_residual = (drive_power - total_load - total_loss).abs() / scale;
 
         // Pin loads and drum torques.
-        let forces = self.contact_forces(&tension);
         let mut pin_load = vec![None; self.parts.len()];
         let mut drums = vec![None; self.parts.len()];
         for (lp, &id) in self.parts.iter().enumerate() {
             let part = &rig.parts[id];
-            if forces[lp].is_empty() {
+            if self.touch_start[lp] == self.touch_start[lp + 1] {
                 continue;
             }
             let own = match &part.kind {
@@ -103,15 +102,15 @@ impl Problem<'_> {
                 PartKind::Drum(d) => d.mass.unwrap_or(0.0),
                 _ => 0.0,
             };
-            let total = forces[lp]
-                .iter()
+            let total = self
+                .contacts(lp, &tension)
                 .fold(gravity_force(rig, own), |a, (f, _)| a + f);
             pin_load[lp] = Some(total);
             if let PartKind::Drum(d) = &part.kind {
                 let axle = d.axle.into_inner();
-                let torque: Real = forces[lp]
-                    .iter()
-                    .map(|(f, at)| (at - part.at).cross(f).dot(&axle))
+                let torque: Real = self
+                    .contacts(lp, &tension)
+                    .map(|(f, at)| (at - part.at).cross(&f).dot(&axle))
                     .sum();
                 let k = self.dofs.iter().position(|&i| self.kin.dofs[i].part == id);
                 let speed = k.map(|k| velocity[k]).unwrap_or(0.0);
@@ -142,13 +141,13 @@ impl Problem<'_> {
         CaseResult {
             case,
             value,
-            tension: ById::new(nlines, self.lines.clone(), tension, Vec::new()),
-            ratio: ById::new(nlines, self.lines.clone(), ratio, Vec::new()),
-            loss: ById::new(nparts, self.parts.clone(), loss, 0.0),
-            load_power: ById::new(nparts, self.parts.clone(), load_power, 0.0),
+            tension: ById::new(nlines, self.line_ids.clone(), tension, Vec::new()),
+            ratio: ById::new(nlines, self.line_ids.clone(), ratio, Vec::new()),
+            loss: ById::new(nparts, self.part_ids.clone(), loss, 0.0),
+            load_power: ById::new(nparts, self.part_ids.clone(), load_power, 0.0),
             drive_power,
-            pin_load: ById::new(nparts, self.parts.clone(), pin_load, None),
-            drums: ById::new(nparts, self.parts.clone(), drums, None),
+            pin_load: ById::new(nparts, self.part_ids.clone(), pin_load, None),
+            drums: ById::new(nparts, self.part_ids.clone(), drums, None),
             stalled,
             slipping,
             slack,
