@@ -337,16 +337,16 @@ impl Kinematics {
             if cols.is_empty() {
                 continue;
             }
-            let rows = &rows_of[c];
-            // The sub-rig's constraint matrix: its segments by its dofs.
-            let mut a: DMatrix<Real> = DMatrix::zeros(rows.len(), cols.len());
-            for (r, &g) in rows.iter().enumerate() {
-                for &(i, v) in &constraint[g] {
-                    if let Ok(k) = cols.binary_search(&i) {
-                        a[(r, k)] = v;
-                    }
-                }
-            }
+            // The sub-rig's constraint matrix, its segments by its dofs, by rows.
+            let a: Vec<Vec<(usize, Real)>> = rows_of[c]
+                .iter()
+                .map(|&g| {
+                    constraint[g]
+                        .iter()
+                        .filter_map(|&(i, v)| cols.binary_search(&i).ok().map(|k| (k, v)))
+                        .collect()
+                })
+                .collect();
             let names = |ids: &[usize]| -> Vec<String> {
                 ids.iter()
                     .map(|&i| rig.parts[dofs[i].part].name.clone())
@@ -370,7 +370,13 @@ impl Kinematics {
                 walked[c] = true;
                 continue;
             }
-            let null = null_space(&a, rank_tolerance);
+            let mut dense: DMatrix<Real> = DMatrix::zeros(a.len(), cols.len());
+            for (r, row) in a.iter().enumerate() {
+                for &(k, v) in row {
+                    dense[(r, k)] = v;
+                }
+            }
+            let null = null_space(&dense, rank_tolerance);
             match (null.ncols(), drive) {
                 (0, _) => {
                     return Err(SolveError::CannotMove {
@@ -511,7 +517,8 @@ fn point_velocity_along(
 }
 
 /// The forward speeds of a sub-rig's degrees of freedom (`cols`, drive at +1) by
-/// walking its constraint matrix `a` (its segments by `cols`), when it is determinate:
+/// walking its constraint matrix `a` (its segments by `cols`, by rows: `(column,
+/// value)` in column order), when it is determinate:
 /// one constraint per moving part but the drive, ordered so that each brings in one
 /// part (see [`super::walk`]); a pivot must be above the null-space threshold of the
 /// SVD. None when the walk does not apply (then the SVD decides).
@@ -522,7 +529,7 @@ fn point_velocity_along(
 fn walk_motion(
     rig: &Rig,
     dofs: &[Dof],
-    a: &DMatrix<Real>,
+    a: &[Vec<(usize, Real)>],
     cols: &[usize],
     drive: Option<usize>,
     tolerance: Real,
@@ -530,14 +537,23 @@ fn walk_motion(
     let Some(dpos) = drive.and_then(|d| cols.iter().position(|&i| i == d)) else {
         return Ok(None);
     };
-    if a.nrows() + 1 != cols.len() {
+    if a.len() + 1 != cols.len() {
         return Ok(None);
     }
-    let scale = a.amax().max(1.0);
+    let scale = a
+        .iter()
+        .flatten()
+        .map(|e| e.1.abs())
+        .fold(0.0, Real::max)
+        .max(1.0);
     let mut known = vec![None; cols.len()];
     known[dpos] = Some(1.0);
-    super::walk::substitute(a, &vec![0.0; a.nrows()], &known, |r, k| {
-        a[(r, k)].abs() > tolerance * scale
+    let entry = |r: usize, k: usize| {
+        a[r].binary_search_by_key(&k, |e| e.0)
+            .map_or(0.0, |p| a[r][p].1)
+    };
+    super::walk::substitute_rows(a, cols.len(), &vec![0.0; a.len()], &known, |r, k| {
+        entry(r, k).abs() > tolerance * scale
     })
     .map_err(|e| SolveError::BeyondPrecision {
         stage: "the kinematics",

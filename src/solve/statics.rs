@@ -523,28 +523,33 @@ impl<'a> Problem<'a> {
                     }
                 }
             }
-            // Assemble.
-            let mut mat = DMatrix::zeros(n, m);
+            // Assemble, sparse: `rows[k]` holds the nonzero pattern of dof k's
+            // equation, `(column, value)` in column order (the entries a dense matrix
+            // would hold, summed in the same order).
+            let mut rows: Vec<Vec<(usize, Real)>> = vec![Vec::new(); n];
             let mut rhs = q.clone();
             for (col, (&g, &li)) in self.segs.iter().zip(&self.seg_line).enumerate() {
                 let seg = self.kin.segments[g];
-                let rows = &self.kin.span_rows[seg.line][seg.first..seg.last];
-                for (&(c, c0), row) in coef[li][seg.first..seg.last].iter().zip(rows) {
+                let spans = &self.kin.span_rows[seg.line][seg.first..seg.last];
+                for (&(c, c0), row) in coef[li][seg.first..seg.last].iter().zip(spans) {
                     for (i, b) in row.iter() {
                         let Ok(k) = self.dofs.binary_search(&i) else {
                             continue;
                         };
-                        mat[(k, col)] += c * b;
+                        match rows[k].last_mut() {
+                            Some(last) if last.0 == col => last.1 += c * b,
+                            _ => rows[k].push((col, 0.0 + c * b)),
+                        }
                         rhs[k] -= c0 * b;
                     }
                 }
             }
-            for k in 0..n {
-                mat[(k, m - 1)] = -self.x_coef[k];
+            for (k, row) in rows.iter_mut().enumerate() {
+                row.push((m - 1, -self.x_coef[k]));
             }
             // Nothing that is not a finite number may reach the SVD (it panics on NaN).
             if let Some(k) =
-                (0..n).find(|&k| !rhs[k].is_finite() || mat.row(k).iter().any(|v| !v.is_finite()))
+                (0..n).find(|&k| !rhs[k].is_finite() || rows[k].iter().any(|e| !e.1.is_finite()))
             {
                 let part = self.kin.dofs[self.dofs[k]].part;
                 return Err(SolveError::NonFinite {
@@ -557,46 +562,67 @@ impl<'a> Problem<'a> {
             // Equilibrate the columns first: a long chain of friction passages makes
             // some tension coefficients many orders of magnitude larger than others,
             // and a rank decision on the raw matrix would drop the small ones.
-            let column_norms: Vec<Real> = (0..m)
-                .map(|j| {
-                    let n = mat.column(j).norm();
-                    if n > 0.0 && n.is_finite() {
-                        n
-                    } else {
-                        1.0
-                    }
-                })
-                .collect();
+            let column_norms = sparse_column_norms(&rows, n, m);
             // A determinate system is walked, unknown by unknown, to full precision
             // (super::walk); a pivot must pass the rank threshold of the dense solve on
             // the equilibrated matrix, so the walk answers only where that solve would
             // find full rank too.
-            let row_max: Vec<Real> = (0..n)
-                .map(|k| {
-                    (0..m)
-                        .map(|j| mat[(k, j)].abs() / column_norms[j])
+            let row_max: Vec<Real> = rows
+                .iter()
+                .map(|row| {
+                    row.iter()
+                        .map(|&(j, v)| v.abs() / column_norms[j])
                         .fold(0.0, Real::max)
                 })
                 .collect();
-            let walked = super::walk::substitute(&mat, rhs.as_slice(), &vec![None; m], |k, j| {
-                mat[(k, j)].abs() / column_norms[j] > options.rank_tolerance * row_max[k]
-            })
-            .map_err(|e| {
-                let part = self.kin.dofs[self.dofs[e.row]].part;
-                SolveError::BeyondPrecision {
-                    stage: stage_name(case, breakaway),
-                    what: "a tension",
-                    part: rig.parts[part].name.clone(),
-                }
-            })?;
-            let (solution, rank) = match walked {
-                Some(x) => (DVector::from_vec(x), m),
-                None => self.dense_solve(&mat, &rhs, &column_norms, options),
+            let entry = |k: usize, j: usize| {
+                rows[k]
+                    .binary_search_by_key(&j, |e| e.0)
+                    .map_or(0.0, |p| rows[k][p].1)
             };
-            let residual = (&mat * &solution - &rhs).norm();
+            let walked =
+                super::walk::substitute_rows(&rows, m, rhs.as_slice(), &vec![None; m], |k, j| {
+                    entry(k, j).abs() / column_norms[j] > options.rank_tolerance * row_max[k]
+                })
+                .map_err(|e| {
+                    let part = self.kin.dofs[self.dofs[e.row]].part;
+                    SolveError::BeyondPrecision {
+                        stage: stage_name(case, breakaway),
+                        what: "a tension",
+                        part: rig.parts[part].name.clone(),
+                    }
+                })?;
+            let (solution, rank, residual, terms_max) = match walked {
+                Some(x) => {
+                    // The misfit and the size of the terms, over the pattern.
+                    let misfit: DVector<Real> = DVector::from_iterator(
+                        n,
+                        rows.iter()
+                            .zip(rhs.iter())
+                            .map(|(row, b)| row.iter().map(|&(j, v)| v * x[j]).sum::<Real>() - b),
+                    );
+                    let terms = rows
+                        .iter()
+                        .map(|row| row.iter().map(|&(j, v)| v.abs() * x[j].abs()).sum::<Real>())
+                        .fold(0.0, Real::max);
+                    (DVector::from_vec(x), m, misfit.norm(), terms)
+                }
+                None => {
+                    let mut mat = DMatrix::zeros(n, m);
+                    for (k, row) in rows.iter().enumerate() {
+                        for &(j, v) in row {
+                            mat[(k, j)] = v;
+                        }
+                    }
+                    let column_norms = dense_column_norms(&mat);
+                    let (solution, rank) = self.dense_solve(&mat, &rhs, &column_norms, options);
+                    let residual = (&mat * &solution - &rhs).norm();
+                    let terms = (mat.abs() * solution.abs()).amax();
+                    (solution, rank, residual, terms)
+                }
+            };
             // Compare the misfit with the size of the terms that should cancel.
-            let terms = mat.abs() * solution.abs();
-            let rhs_scale = rhs.norm().max(terms.amax()).max(1e-300);
+            let rhs_scale = rhs.norm().max(terms_max).max(1e-300);
             if !solution.iter().all(|v| v.is_finite()) || !residual.is_finite() {
                 return Err(SolveError::NonFinite {
                     stage: stage_name(case, breakaway),
@@ -608,9 +634,14 @@ impl<'a> Problem<'a> {
             if residual > 1e-7 * rhs_scale {
                 // Name the cause: a moving part whose equation no tension reaches (its
                 // lines pull only sideways to its motion), else friction itself.
-                let tension_scale = mat.amax().max(1e-300);
+                let tension_scale = rows
+                    .iter()
+                    .flatten()
+                    .map(|e| e.1.abs())
+                    .fold(0.0, Real::max)
+                    .max(1e-300);
                 let sideways = (0..n).find(|&k| {
-                    (0..m).all(|j| mat[(k, j)].abs() <= 1e-12 * tension_scale)
+                    rows[k].iter().all(|e| e.1.abs() <= 1e-12 * tension_scale)
                         && rhs[k].abs() > 1e-7 * rhs_scale
                 });
                 let (part, hint) = match sideways {
@@ -757,6 +788,61 @@ impl<'a> Problem<'a> {
             _ => false,
         })
     }
+}
+
+/// The column norms of a sparse matrix of `n` rows and `m` columns given by its rows,
+/// to the bit as nalgebra's `column(j).norm()` of the dense matrix: its dot product
+/// keeps eight running sums over the rows in blocks of eight (row `r` in sum `r % 8`),
+/// adds them in pairs (0 + 4, 1 + 5, 2 + 6, 3 + 7), then the rows past the last block
+/// one by one; the zeros left out add nothing to sums of squares. A zero or
+/// non-finite norm is 1 (the column is left unscaled).
+fn sparse_column_norms(rows: &[Vec<(usize, Real)>], n: usize, m: usize) -> Vec<Real> {
+    let body = n - n % 8;
+    let mut lanes = vec![[0.0; 8]; m];
+    let mut tail: Vec<Vec<Real>> = vec![Vec::new(); m];
+    for (r, row) in rows.iter().enumerate() {
+        for &(j, v) in row {
+            if r < body {
+                lanes[j][r % 8] += v * v;
+            } else {
+                tail[j].push(v * v);
+            }
+        }
+    }
+    lanes
+        .iter()
+        .zip(&tail)
+        .map(|(acc, tail)| {
+            let mut dot = 0.0;
+            dot += acc[0] + acc[4];
+            dot += acc[1] + acc[5];
+            dot += acc[2] + acc[6];
+            dot += acc[3] + acc[7];
+            for t in tail {
+                dot += t;
+            }
+            let norm: Real = (0.0 + dot).sqrt();
+            if norm > 0.0 && norm.is_finite() {
+                norm
+            } else {
+                1.0
+            }
+        })
+        .collect()
+}
+
+/// The column norms of a dense matrix, a zero or non-finite norm taken as 1.
+fn dense_column_norms(mat: &DMatrix<Real>) -> Vec<Real> {
+    (0..mat.ncols())
+        .map(|j| {
+            let n = mat.column(j).norm();
+            if n > 0.0 && n.is_finite() {
+                n
+            } else {
+                1.0
+            }
+        })
+        .collect()
 }
 
 /// The case's name in messages.
