@@ -315,3 +315,59 @@ pub fn set_key(
     let param = resolved.param;
     Some((kind, move |rig: &mut Rig| param.set(rig, si)))
 }
+
+#[cfg(test)]
+mod tests {
+    use super::*;
+    use crate::study::Verdict;
+
+    /// Guards the local runs against the whole rig: each part of a rig of two
+    /// sub-rigs made frictionless, and a rope's and a bearing's coefficient changed,
+    /// give the forward value and verdict that loading the file with the same overrides
+    /// and solving and checking the whole rig give, to the bit.
+    #[test]
+    fn local_runs_are_the_whole_rigs_runs() {
+        for file in ["two-subrigs.yaml", "load-unknown-capstan.yaml"] {
+            let text =
+                std::fs::read_to_string(format!("tests/rigs/review/{file}")).expect("test rig");
+            let source = RigSource::from_text(&text, file, &[]);
+            let (rig, solution) = source.solve(&[]).unwrap();
+            let local = Local::new(&source, &rig, &solution).expect("check's order splits");
+            let whole = |settings: &[(String, String)]| {
+                let (r, s) = source.solve(settings).unwrap();
+                (s.main().forward.value, Verdict::assess(&r, &s))
+            };
+            for part in 0..rig.parts.len() {
+                let Some(settings) = super::super::rank::frictionless_settings(&rig, part) else {
+                    continue;
+                };
+                let apply = |r: &mut Rig| frictionless(r, part);
+                let edit = Edit {
+                    kind: frictionless_kind(&rig, part),
+                    apply: &apply,
+                };
+                let o = local
+                    .run(Subject::Part(part), Some(edit), &settings, true)
+                    .unwrap();
+                let (forward, verdict) = whole(&settings);
+                assert_eq!(o.forward.to_bits(), forward.to_bits(), "{file} {part}");
+                assert_eq!(o.verdict, Some(verdict), "{file} {part}");
+            }
+            for (r, rope) in rig.ropes.iter().enumerate() {
+                let key = format!("ropes.{}.mu", rope.name);
+                let settings = [(key.clone(), "0.3".to_string())];
+                let (kind, apply) = set_key(&rig, &key, 0.3).unwrap();
+                let edit = Edit {
+                    kind,
+                    apply: &apply,
+                };
+                let o = local
+                    .run(Subject::Rope(r), Some(edit), &settings, true)
+                    .unwrap();
+                let (forward, verdict) = whole(&settings);
+                assert_eq!(o.forward.to_bits(), forward.to_bits(), "{file} {key}");
+                assert_eq!(o.verdict, Some(verdict), "{file} {key}");
+            }
+        }
+    }
+}

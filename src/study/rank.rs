@@ -6,8 +6,10 @@
 //!
 //! "Frictionless" means: a sheave's bearing set to `{kind: none}`; a guide's `mu` set
 //! to 0; a drum's shaft removed (frictionless journal and thrust) and its `drag` set
-//! to 0. Each is applied as an override on the parsed tree, so the result is exactly
-//! the forward value of the rig written that way.
+//! to 0. Each is the forward value of the rig written that way: made on the model where
+//! that gives the very rig the override on the parsed tree gives (checked once per kind
+//! of change), else through the file, and solved on the sub-rig the part belongs to
+//! ([`super::local`]; a rope's coefficient reaches every sub-rig its lines run in).
 //!
 //! `--to rolling` replaces a plain bearing by a rolling one with catalogue defaults:
 //! bore = the plain bearing's pin diameter and mu = [`ROLLING_MU`]. Sheaves rated by
