@@ -66,10 +66,13 @@ fn warn(code: &'static str, part: Option<&str>, fails: bool, message: String) ->
 /// sheave stalled forward and back) merged into one, in the order of their first; a
 /// merged warning names no single `part`. One finding alone keeps its own message.
 pub fn grouped(warnings: &[Warning]) -> Vec<Warning> {
-    let mut out: Vec<(Warning, Vec<String>)> = Vec::new();
+    // Each merged warning with its items in first-seen order, and those items as a
+    // set (a long line's many like findings are merged in one pass).
+    type Merged = (Warning, Vec<String>, std::collections::HashSet<String>);
+    let mut out: Vec<Merged> = Vec::new();
     for w in warnings {
         let same = w.group.as_ref().and_then(|g| {
-            out.iter_mut().find(|(o, _)| {
+            out.iter_mut().find(|(o, _, _)| {
                 o.code == w.code
                     && o.fails == w.fails
                     && o.group
@@ -78,16 +81,20 @@ pub fn grouped(warnings: &[Warning]) -> Vec<Warning> {
             })
         });
         match (same, &w.group) {
-            (Some((_, items)), Some(g)) => {
-                if !items.contains(&g.item) {
+            (Some((_, items, seen)), Some(g)) => {
+                if seen.insert(g.item.clone()) {
                     items.push(g.item.clone());
                 }
             }
-            _ => out.push((w.clone(), w.group.iter().map(|g| g.item.clone()).collect())),
+            _ => {
+                let items: Vec<String> = w.group.iter().map(|g| g.item.clone()).collect();
+                let seen = items.iter().cloned().collect();
+                out.push((w.clone(), items, seen));
+            }
         }
     }
     out.into_iter()
-        .map(|(mut w, items)| {
+        .map(|(mut w, items, _)| {
             if let (Some(g), true) = (&w.group, items.len() > 1) {
                 w.message = format!("{}{}{}", g.lead, and_list(&items), g.tail);
                 w.part = None;
