@@ -1,7 +1,8 @@
 //! `spread`: Monte Carlo over every value the rig file gives as a range
 //! (`{min, max}` uniform, `{mean, sd}` normal truncated at zero). Each sample draws all
-//! of them together, applies them as overrides on the parsed tree and solves; the
-//! solver is untouched. Sample `i` always uses random stream `i` of the seed
+//! of them together, sets them on the resolved model where every ranged key is a model
+//! value (keeping the rig's geometry and motion, [`super::local`]) or else applies them
+//! as overrides on the parsed tree, and solves; the solver is untouched. Sample `i` always uses random stream `i` of the seed
 //! ([`Rng::stream`]), so the numbers do not depend on the number of threads.
 
 use std::collections::BTreeMap;
@@ -254,7 +255,9 @@ pub fn spread(
     // of the file per sample); any other key, or a draw the model path refuses, takes
     // the file path, which gives the loader's checks and messages.
     let model = source.sampler(&rig, &keys_of(&ranges), &draws_of(&ranges, seed, 0));
-    let local = model.as_ref().and(Local::new(source, &rig, &nominal));
+    let local = model
+        .as_ref()
+        .and_then(|_| Local::new(source, &rig, &nominal));
     let threads = if threads == 0 {
         std::thread::available_parallelism().map_or(1, |n| n.get())
     } else {
