@@ -13,6 +13,9 @@ pub mod svg;
 pub mod table;
 pub mod text;
 
+mod owners;
+use owners::Owners;
+
 use serde::Serialize;
 
 use crate::checks::Warning;
@@ -610,61 +613,6 @@ fn passage_wrap(
         std::f64::consts::TAU * Real::from(g.turns)
     } else {
         g.wrap
-    }
-}
-
-/// Who owns what, found once per report: the sub-rig solution (its index in
-/// `solution.subrigs`) of each part and line, the passages at each part and the
-/// sub-rigs whose lines reach it. Each is one pass over the parts or the lines' paths,
-/// so building the report is linear in the rig, however many sub-rigs it has.
-struct Owners {
-    /// Of each part: the solution of its sub-rig.
-    part: Vec<Option<usize>>,
-    /// Of each line: the solution of its sub-rig.
-    line: Vec<Option<usize>>,
-    /// At each part: its path entries `(line, entry)`, in line then entry order.
-    entries: Vec<Vec<(usize, usize)>>,
-    /// At each part: the solutions whose lines reach it, ascending, each once.
-    reached_by: Vec<Vec<usize>>,
-}
-
-impl Owners {
-    fn of(rig: &Rig, solution: &Solution) -> Owners {
-        let network = &solution.network;
-        let mut of_component = vec![None; network.components.len()];
-        for (k, s) in solution.subrigs.iter().enumerate().rev() {
-            // The first solution of a component, as a search from the front finds it.
-            of_component[s.component] = Some(k);
-        }
-        let part: Vec<Option<usize>> = (0..rig.parts.len())
-            .map(|p| of_component[network.component_of[p]])
-            .collect();
-        let line: Vec<Option<usize>> = (0..rig.lines.len())
-            .map(|l| {
-                crate::solve::kinematics::line_component(rig, network, l)
-                    .and_then(|c| of_component[c])
-            })
-            .collect();
-        let mut entries = vec![Vec::new(); rig.parts.len()];
-        let mut reached_by: Vec<Vec<usize>> = vec![Vec::new(); rig.parts.len()];
-        for (l, path) in rig.lines.iter().map(|l| &l.path).enumerate() {
-            for (e, entry) in path.iter().enumerate() {
-                entries[entry.part].push((l, e));
-                if let Some(k) = line[l] {
-                    reached_by[entry.part].push(k);
-                }
-            }
-        }
-        for r in &mut reached_by {
-            r.sort_unstable();
-            r.dedup();
-        }
-        Owners {
-            part,
-            line,
-            entries,
-            reached_by,
-        }
     }
 }
 
