@@ -10,7 +10,12 @@
 //! REEVE_BIN=/path/to/reeve cargo bench --bench scale     # the same, by variable
 //! cargo bench --bench scale -- --family cascade --family chain --timeout 20 --runs 3
 //! cargo bench --bench scale -- --family rank --size 300 --timeout 600   # one row
+//! cargo bench --bench scale -- --rigs /tmp/rigs --runs 1  # keep the generated rigs there
 //! ```
+//!
+//! `--rigs DIR` writes each generated rig to `DIR/FAMILY-SIZE.yaml` and keeps it, to
+//! profile one (`perf record -g reeve check DIR/line-sets-1215.yaml`) or to compare the
+//! output of two binaries on it.
 //!
 //! For every measurement: the median of several runs (5 below 2 s, else 3; `--runs N`
 //! sets the first, and caps the second) of wall time and of the child's user and system
@@ -437,6 +442,8 @@ struct Settings {
     sizes: Vec<usize>,
     timeout: Duration,
     runs: usize,
+    /// Where to write the generated rigs and keep them (a scratch folder when None).
+    rigs: Option<PathBuf>,
 }
 
 fn settings() -> Settings {
@@ -445,6 +452,7 @@ fn settings() -> Settings {
     let mut sizes = Vec::new();
     let mut timeout = Duration::from_secs(60);
     let mut runs = 5;
+    let mut rigs = None;
     let mut args = std::env::args().skip(1);
     while let Some(a) = args.next() {
         let mut value = |name: &str| {
@@ -458,11 +466,12 @@ fn settings() -> Settings {
                 timeout = Duration::from_secs_f64(value("--timeout").parse().expect("--timeout S"))
             }
             "--runs" => runs = value("--runs").parse().expect("--runs N"),
+            "--rigs" => rigs = Some(PathBuf::from(value("--rigs"))),
             // `cargo bench` passes `--bench` to every bench binary.
             "--bench" => {}
             flag if flag.starts_with("--") => {
                 panic!(
-                    "unknown flag {flag}: expected --family F, --size N, --timeout S, --runs N, or a binary"
+                    "unknown flag {flag}: expected --family F, --size N, --timeout S, --runs N, --rigs DIR, or a binary"
                 )
             }
             path => binary = Some(PathBuf::from(path)),
@@ -474,6 +483,7 @@ fn settings() -> Settings {
         sizes,
         timeout,
         runs: runs.max(1),
+        rigs,
     }
 }
 
@@ -510,8 +520,12 @@ fn main() {
     let cases = cases(&settings.families)
         .into_iter()
         .filter(|c| settings.sizes.is_empty() || settings.sizes.contains(&c.size));
+    if let Some(dir) = &settings.rigs {
+        std::fs::create_dir_all(dir).expect("--rigs DIR");
+    }
     for case in cases {
-        let rig = scratch.join(format!("{}-{}.yaml", case.family, case.size));
+        let folder = settings.rigs.as_ref().unwrap_or(&scratch);
+        let rig = folder.join(format!("{}-{}.yaml", case.family, case.size));
         std::fs::write(&rig, &case.rig).expect("write rig");
         let mut args = vec![case.command.to_string(), rig.display().to_string()];
         args.extend(case.args.iter().cloned());
@@ -564,7 +578,7 @@ fn main() {
                 };
                 let note = if *exit == 2 {
                     // The rig's temporary path says nothing: keep the file name.
-                    message.replace(&format!("{}/", scratch.display()), "")
+                    message.replace(&format!("{}/", folder.display()), "")
                 } else if case.command == "check" && (case.closed_form.is_some() || *exit != 0) {
                     check_note(&settings.binary, &rig, case.closed_form.as_ref())
                 } else if *exit != 0 {
@@ -587,7 +601,9 @@ fn main() {
         }
         println!("{row}");
         done.push((case.family, case.size, measured));
-        let _ = std::fs::remove_file(&rig);
+        if settings.rigs.is_none() {
+            let _ = std::fs::remove_file(&rig);
+        }
     }
     let _ = std::fs::remove_dir_all(&scratch);
     println!("\nload average after: {}", load_average());

@@ -66,10 +66,13 @@ fn warn(code: &'static str, part: Option<&str>, fails: bool, message: String) ->
 /// sheave stalled forward and back) merged into one, in the order of their first; a
 /// merged warning names no single `part`. One finding alone keeps its own message.
 pub fn grouped(warnings: &[Warning]) -> Vec<Warning> {
-    let mut out: Vec<(Warning, Vec<String>)> = Vec::new();
+    // Each merged warning with its items in first-seen order, and those items as a
+    // set (a long line's many like findings are merged in one pass).
+    type Merged = (Warning, Vec<String>, std::collections::HashSet<String>);
+    let mut out: Vec<Merged> = Vec::new();
     for w in warnings {
         let same = w.group.as_ref().and_then(|g| {
-            out.iter_mut().find(|(o, _)| {
+            out.iter_mut().find(|(o, _, _)| {
                 o.code == w.code
                     && o.fails == w.fails
                     && o.group
@@ -78,16 +81,20 @@ pub fn grouped(warnings: &[Warning]) -> Vec<Warning> {
             })
         });
         match (same, &w.group) {
-            (Some((_, items)), Some(g)) => {
-                if !items.contains(&g.item) {
+            (Some((_, items, seen)), Some(g)) => {
+                if seen.insert(g.item.clone()) {
                     items.push(g.item.clone());
                 }
             }
-            _ => out.push((w.clone(), w.group.iter().map(|g| g.item.clone()).collect())),
+            _ => {
+                let items: Vec<String> = w.group.iter().map(|g| g.item.clone()).collect();
+                let seen = items.iter().cloned().collect();
+                out.push((w.clone(), items, seen));
+            }
         }
     }
     out.into_iter()
-        .map(|(mut w, items)| {
+        .map(|(mut w, items, _)| {
             if let (Some(g), true) = (&w.group, items.len() > 1) {
                 w.message = format!("{}{}{}", g.lead, and_list(&items), g.tail);
                 w.part = None;
@@ -272,8 +279,10 @@ pub fn plumb_checks(rig: &Rig, solution: &Solution) -> Vec<Warning> {
     let mut out = Vec::new();
     let up = -rig.gravity.into_inner();
     for sub in &solution.subrigs {
-        for (id, part) in rig.parts.iter().enumerate() {
-            let (PartKind::Weight(_), Some(pull)) = (&part.kind, sub.ideal.pin_load[id]) else {
+        // The parts the sub-rig's lines reach, in part order.
+        for (id, &pin_load) in sub.ideal.pin_load.entries() {
+            let part = &rig.parts[id];
+            let (PartKind::Weight(_), Some(pull)) = (&part.kind, pin_load) else {
                 continue;
             };
             if solution.network.component_of[id] != sub.component || pull.norm() == 0.0 {
@@ -404,7 +413,9 @@ pub fn run(rig: &Rig, solution: &Solution) -> Vec<Warning> {
 /// passage may be ordinary and the line still lock: the product is what fails.
 fn friction_lock_checks(rig: &Rig, sub: &SubRigSolution) -> Vec<Warning> {
     let mut out = Vec::new();
-    for (l, line) in rig.lines.iter().enumerate() {
+    // The sub-rig's lines, in line order.
+    for (l, _) in sub.forward.tension.entries() {
+        let line = &rig.lines[l];
         // The largest product of one run: (product, first entry, last entry).
         let mut worst: Option<(Real, usize, usize)> = None;
         for case in [&sub.forward, &sub.back] {
@@ -446,7 +457,9 @@ fn friction_lock_checks(rig: &Rig, sub: &SubRigSolution) -> Vec<Warning> {
     out
 }
 
-fn subrig_checks(rig: &Rig, sub: &SubRigSolution) -> Vec<Warning> {
+/// The checks of one sub-rig's solution, as [`run`] lists them after the rig's own
+/// (a study that solves one sub-rig again checks that one again).
+pub fn subrig_checks(rig: &Rig, sub: &SubRigSolution) -> Vec<Warning> {
     let mut out = Vec::new();
     let drive = &rig.parts[sub.drive].name;
     let force = |x: Real| rig.units.show(x, Dimension::Force);
@@ -543,8 +556,10 @@ fn subrig_checks(rig: &Rig, sub: &SubRigSolution) -> Vec<Warning> {
             ));
         }
     }
-    // Safety factor of every span, worst case of forward and back.
-    for (l, line) in rig.lines.iter().enumerate() {
+    // Safety factor of every span of the sub-rig's lines (in line order), worst case of
+    // forward and back.
+    for (l, _) in sub.forward.tension.entries() {
+        let line = &rig.lines[l];
         let rope = rig.rope_of(l);
         let Some(strength) = rope.breaking_strength else {
             continue;

@@ -17,6 +17,9 @@ pub mod svg;
 pub mod table;
 pub mod text;
 
+mod owners;
+use owners::Owners;
+
 use serde::Serialize;
 
 use crate::checks::Warning;
@@ -560,19 +563,21 @@ fn passage_wrap(
     }
 }
 
-/// The sub-rig solution that owns `line`.
-fn owner<'a>(rig: &Rig, solution: &'a Solution, line: usize) -> Option<&'a SubRigSolution> {
-    let comp = crate::solve::kinematics::line_component(rig, &solution.network, line)?;
-    solution.subrigs.iter().find(|s| s.component == comp)
-}
-
 impl Report {
     /// Builds the report of a solved rig.
     pub fn build(rig: &Rig, solution: &Solution, warnings: Vec<Warning>) -> Report {
         let main = solution.main();
+        let owners = Owners::of(rig, solution);
+        let subrig = |k: Option<usize>| k.map(|k| &solution.subrigs[k]);
+        // Each sub-rig's forward losses and input power, once.
+        let forward_power: Vec<(Real, Real)> = solution
+            .subrigs
+            .iter()
+            .map(|s| (s.forward.total_loss(), s.forward.input_power()))
+            .collect();
         let mut spans = Vec::new();
         for (l, line) in rig.lines.iter().enumerate() {
-            let sub = owner(rig, solution, l);
+            let sub = subrig(owners.line[l]);
             let rope = rig.rope_of(l);
             for (j, span) in solution.geometry.lines[l].spans.iter().enumerate() {
                 let t = |c: Case| {
@@ -614,18 +619,13 @@ impl Report {
         let mut parts = Vec::new();
         let mut drums = Vec::new();
         for (id, part) in rig.parts.iter().enumerate() {
-            let sub = solution
-                .subrigs
-                .iter()
-                .find(|s| s.component == solution.network.component_of[id]);
+            let sub = subrig(owners.part[id]);
             let mut passages = Vec::new();
-            for (l, line) in rig.lines.iter().enumerate() {
-                for (e, entry) in line.path.iter().enumerate() {
-                    if entry.part != id || part.kind.round().is_none() {
-                        continue;
-                    }
+            if part.kind.round().is_some() {
+                for &(l, e) in &owners.entries[id] {
+                    let line = &rig.lines[l];
                     let g = &solution.geometry.lines[l].entries[e];
-                    let lsub = owner(rig, solution, l);
+                    let lsub = subrig(owners.line[l]);
                     let ratio = |c: Case| lsub.and_then(|s| s.case(c).ratio[l][e]).and_then(finite);
                     passages.push(PassageReport {
                         line: line.name.clone(),
@@ -660,16 +660,16 @@ impl Report {
                 .fold(None, |a: Option<Real>, x| Some(a.map_or(x, |a| a.min(x))));
             // A fixed anchor belongs to no sub-rig; every sub-rig whose lines pull on it
             // adds to its load.
+            // Only sub-rigs whose lines reach a part put a load on it.
             let pin = |c: Case| {
-                solution
-                    .subrigs
+                owners.reached_by[id]
                     .iter()
-                    .filter_map(|s| s.case(c).pin_load[id])
+                    .filter_map(|&k| solution.subrigs[k].case(c).pin_load[id])
                     .reduce(|a, b| a + b)
             };
-            let (loss_share, loss_of_input) = match sub {
-                Some(s) => {
-                    let total = s.forward.total_loss();
+            let (loss_share, loss_of_input) = match (sub, owners.part[id]) {
+                (Some(s), Some(k)) => {
+                    let (total, input) = forward_power[k];
                     let here = s.forward.loss[id];
                     (
                         if total > 0.0 {
@@ -677,10 +677,10 @@ impl Report {
                         } else {
                             Some(0.0)
                         },
-                        finite(here / s.forward.input_power()),
+                        finite(here / input),
                     )
                 }
-                None => (None, None),
+                _ => (None, None),
             };
             parts.push(PartReport {
                 in_main: sub.is_some_and(|s| s.component == main.component),

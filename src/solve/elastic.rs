@@ -15,6 +15,8 @@
 //!   complementary energy `U* = Σ T²L/(2EA)` (Gere & Goodno §9.9 "Castigliano's
 //!   theorem"); checked in the tests against the displacement solve of this module.
 
+use std::ops::Index;
+
 use nalgebra::{DMatrix, DVector};
 
 use crate::geometry::Geometry;
@@ -47,13 +49,14 @@ pub fn span_stretch(t_start: Real, t_end: Real, length: Real, stiffness: Real) -
     (0.5 * (t_start + t_end)).max(0.0) * length / stiffness
 }
 
-/// The stretch of every span of every line in one case, m; None for lines whose rope
+/// The stretch of every span of every line in one case, m (tensions by the rig's line
+/// ids, as a `Vec` or a case's [`super::statics::ById`]); None for lines whose rope
 /// has no `stiffness` (or lines of another sub-rig: no tensions).
 pub fn stretches(
     rig: &Rig,
     geometry: &Geometry,
-    tension: &[Vec<Real>],
-    tension_end: &[Vec<Real>],
+    tension: &impl Index<LineId, Output = Vec<Real>>,
+    tension_end: &impl Index<LineId, Output = Vec<Real>>,
 ) -> Vec<Vec<Option<Real>>> {
     (0..rig.lines.len())
         .map(|l| {
@@ -102,23 +105,28 @@ pub struct SplitInput<'a> {
     pub kin: &'a Kinematics,
     /// Global segment indices (the statics' columns, the asked quantity last).
     pub segs: &'a [usize],
-    /// Global dof indices (the statics' rows).
+    /// For each of `segs`, its line's local index (the index of `coef` and `rise`).
+    pub seg_line: &'a [usize],
+    /// Global dof indices (the statics' rows), ascending.
     pub dofs: &'a [usize],
-    /// Per line and span, the start tension `c·τ + c0` in its segment's first tension.
+    /// Per local line and span, the start tension `c·τ + c0` in its segment's first
+    /// tension.
     pub coef: &'a [Vec<(Real, Real)>],
-    /// Per line and span, the rise of the tension along the span (rope weight), N.
-    pub rise: &'a dyn Fn(LineId, usize) -> Real,
+    /// Per local line and span, the rise of the tension along the span (rope weight), N.
+    pub rise: &'a dyn Fn(usize, usize) -> Real,
 }
 
 /// The kinematic matrix of a sub-rig: one row per segment, the segment's rate of
-/// lengthening per unit speed of each dof (columns `dofs`).
+/// lengthening per unit speed of each dof (columns `dofs`, ascending).
 fn segment_rows(kin: &Kinematics, segs: &[usize], dofs: &[usize]) -> DMatrix<Real> {
     let mut a = DMatrix::zeros(segs.len(), dofs.len());
     for (r, &g) in segs.iter().enumerate() {
         let Segment { line, first, last } = kin.segments[g];
         for row in &kin.span_rows[line][first..last] {
-            for (c, &i) in dofs.iter().enumerate() {
-                a[(r, c)] += row[i];
+            for (i, rate) in row.iter() {
+                if let Ok(c) = dofs.binary_search(&i) {
+                    a[(r, c)] += rate;
+                }
             }
         }
     }
@@ -146,6 +154,7 @@ pub fn compatible_split(
         geometry,
         kin,
         segs,
+        seg_line,
         dofs,
         coef,
         rise,
@@ -154,14 +163,14 @@ pub fn compatible_split(
     // Stretch of each segment, affine in its first tension: s = a·τ + b.
     let mut a = DVector::zeros(m);
     let mut b = DVector::zeros(m);
-    for (col, &g) in segs.iter().enumerate() {
+    for (col, (&g, &li)) in segs.iter().zip(seg_line.iter()).enumerate() {
         let seg = kin.segments[g];
         let ea = rig.rope_of(seg.line).stiffness?;
         for j in seg.first..seg.last {
             let length = geometry.lines[seg.line].spans[j].length;
-            let (c, c0) = coef[seg.line][j];
+            let (c, c0) = coef[li][j];
             a[col] += c * length / ea;
-            b[col] += (c0 + 0.5 * rise(seg.line, j)) * length / ea;
+            b[col] += (c0 + 0.5 * rise(li, j)) * length / ea;
         }
     }
     // Null space of the equilibria, in the equilibrated columns.
@@ -216,7 +225,7 @@ pub struct SpringInput<'a> {
     pub kin: &'a Kinematics,
     /// Global segment indices.
     pub segs: &'a [usize],
-    /// Global dof indices.
+    /// Global dof indices, ascending.
     pub dofs: &'a [usize],
     /// Position of the drive in `dofs`.
     pub drive: usize,
@@ -303,7 +312,7 @@ pub fn castigliano_lost_travel(
     rig: &Rig,
     geometry: &Geometry,
     lines: &[LineId],
-    tension: &[Vec<Real>],
+    tension: &impl Index<LineId, Output = Vec<Real>>,
     drive_value: Real,
 ) -> Option<Real> {
     if drive_value == 0.0 {

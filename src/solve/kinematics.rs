@@ -11,13 +11,21 @@
 //! (DESIGN.md §2). Each span's contribution per unit velocity of each degree of freedom
 //! is one row of [`Kinematics::span_rows`]; the same numbers, with the sign reversed,
 //! are the span's generalized forces per unit tension in the statics.
+//!
+//! # Sizes
+//! A span moves with at most the two parts it joins, so its row is sparse
+//! ([`SpanRow`]: two entries at most), and every dense matrix (the constraints, their
+//! null space) is one sub-rig's: rows its segments, columns its degrees of freedom.
+//! A rig of many independent sub-rigs costs the sum of their sizes, not their product.
 
 use nalgebra::{DMatrix, DVector};
 
 use crate::geometry::Geometry;
 use crate::math::{Direction, Real, Vector};
+use crate::model::network::Link;
 use crate::model::Network;
 use crate::model::{LineId, PartId, PartKind, Rig};
+use petgraph::visit::EdgeRef;
 
 use super::SolveError;
 
@@ -50,6 +58,41 @@ pub struct Segment {
     pub last: usize,
 }
 
+/// A span's rate of lengthening per unit speed of each degree of freedom: nonzero at
+/// most for the moving parts at its two ends, so at most two entries `(dof, rate)`, in
+/// dof order; every other degree of freedom's rate is zero.
+#[derive(Debug, Clone, Copy, PartialEq, Default)]
+pub struct SpanRow {
+    entries: [(usize, Real); 2],
+    len: usize,
+}
+
+impl SpanRow {
+    fn push(&mut self, dof: usize, rate: Real) {
+        if let Some(e) = self.entries[..self.len].iter_mut().find(|e| e.0 == dof) {
+            e.1 += rate;
+        } else {
+            self.entries[self.len] = (dof, rate);
+            self.len += 1;
+        }
+    }
+
+    /// The nonzero rates, `(dof, rate)`, in dof order.
+    pub fn iter(&self) -> impl Iterator<Item = (usize, Real)> + '_ {
+        self.entries[..self.len].iter().copied()
+    }
+
+    /// The rate for degree of freedom `dof` (zero where the span does not move with it).
+    pub fn get(&self, dof: usize) -> Real {
+        self.iter().find(|e| e.0 == dof).map_or(0.0, |e| e.1)
+    }
+
+    /// The span's rate of lengthening for the dof speeds `speeds` (one per dof).
+    pub fn dot(&self, speeds: &DVector<Real>) -> Real {
+        self.iter().map(|(i, b)| b * speeds[i]).sum()
+    }
+}
+
 /// The rig's kinematics.
 #[derive(Debug, Clone)]
 pub struct Kinematics {
@@ -60,8 +103,8 @@ pub struct Kinematics {
     /// Segments, line by line.
     pub segments: Vec<Segment>,
     /// `span_rows[line][span]`: the span's rate of lengthening per unit speed of each
-    /// degree of freedom (length `dofs.len()`).
-    pub span_rows: Vec<Vec<DVector<Real>>>,
+    /// degree of freedom (sparse: the dofs of the parts at its ends).
+    pub span_rows: Vec<Vec<SpanRow>>,
     /// Forward speed of every degree of freedom, drive at +1 (0 outside moving sub-rigs).
     pub forward: DVector<Real>,
     /// The rope's speed over each path entry, relative to that part and along the path
@@ -79,6 +122,33 @@ pub fn haul_direction(rig: &Rig, geometry: &Geometry, part: PartId) -> Option<Di
             return Some(p);
         }
         for (l, line) in rig.lines.iter().enumerate() {
+            let g = &geometry.lines[l];
+            let n = line.path.len();
+            if line.path[n - 1].part == part {
+                return g.spans.last().map(|s| s.direction);
+            }
+            if line.path[0].part == part {
+                return g.spans.first().map(|s| -s.direction);
+            }
+        }
+    }
+    None
+}
+
+/// [`haul_direction`], asking the network which lines reach the part (the lines in
+/// order, as that function scans them).
+fn haul_direction_in(
+    rig: &Rig,
+    network: &Network,
+    geometry: &Geometry,
+    part: PartId,
+) -> Option<Direction> {
+    if let PartKind::Haul(h) = &rig.parts[part].kind {
+        if let Some(p) = h.pull {
+            return Some(p);
+        }
+        for l in network.lines_at(part) {
+            let line = &rig.lines[l];
             let g = &geometry.lines[l];
             let n = line.path.len();
             if line.path[n - 1].part == part {
@@ -111,18 +181,27 @@ impl Kinematics {
         let mut dofs = Vec::new();
         let mut dof_of_part = vec![None; rig.parts.len()];
         // From the network's graph: which parts a line reaches, and which blocks carry
-        // a part that a line reaches.
+        // a part that a line reaches (each `Carried` edge joins a carried part to its
+        // block; one pass over the edges).
         let in_line: Vec<bool> = (0..rig.parts.len())
             .map(|p| !network.lines_at(p).is_empty())
             .collect();
-        let carries: Vec<bool> = (0..rig.parts.len())
-            .map(|p| network.carried_by(p).into_iter().any(|s| in_line[s]))
-            .collect();
+        let mut carries = vec![false; rig.parts.len()];
+        for e in network.graph.edge_references() {
+            if *e.weight() == Link::Carried {
+                let (carried, block) = (network.graph[e.source()], network.graph[e.target()]);
+                if in_line[carried] {
+                    carries[block] = true;
+                }
+            }
+        }
         for (id, part) in rig.parts.iter().enumerate() {
             let motion = match &part.kind {
                 PartKind::Block(b) => Some(Motion::Translate(b.moves)),
                 PartKind::Weight(_) => Some(Motion::Translate(rig.gravity)),
-                PartKind::Haul(_) => haul_direction(rig, geometry, id).map(Motion::Translate),
+                PartKind::Haul(_) => {
+                    haul_direction_in(rig, network, geometry, id).map(Motion::Translate)
+                }
                 PartKind::Drum(d) => Some(Motion::Rotate(d.axle)),
                 _ => None,
             };
@@ -133,7 +212,6 @@ impl Kinematics {
                 }
             }
         }
-        let n = dofs.len();
 
         let mut span_rows = Vec::with_capacity(rig.lines.len());
         for (l, line) in rig.lines.iter().enumerate() {
@@ -157,15 +235,33 @@ impl Kinematics {
                     &span.start,
                     &u,
                 );
+                // end − start, as 0 − v where only one end moves.
+                let mut row = SpanRow::default();
+                let mut sum = |d: Option<(usize, Real)>, sign: Real| {
+                    if let Some((i, v)) = d {
+                        if sign > 0.0 {
+                            row.push(i, v);
+                        } else if let Some(e) = row.entries[..row.len].iter_mut().find(|e| e.0 == i)
+                        {
+                            e.1 -= v;
+                        } else {
+                            row.push(i, 0.0 - v);
+                        }
+                    }
+                };
+                sum(end, 1.0);
+                sum(start, -1.0);
                 // Round-off of a span square to a part's motion (u · d of order 1e-17)
                 // is no motion: an exact zero keeps the rig's pattern for the walk.
-                let mut row = end - start;
-                row.apply(|x| {
-                    if x.abs() < 1e-13 {
-                        *x = 0.0;
+                let mut kept = SpanRow::default();
+                let mut entries: Vec<(usize, Real)> = row.iter().collect();
+                entries.sort_by_key(|e| e.0);
+                for (i, v) in entries {
+                    if v.abs() >= 1e-13 {
+                        kept.push(i, v);
                     }
-                });
-                rows.push(row);
+                }
+                rows.push(kept);
             }
             span_rows.push(rows);
         }
@@ -187,19 +283,27 @@ impl Kinematics {
             }
         }
 
-        // Constraint matrix, one row per segment.
-        let mut a: DMatrix<Real> = DMatrix::zeros(segments.len(), n);
-        for (g, seg) in segments.iter().enumerate() {
-            for row in &span_rows[seg.line][seg.first..seg.last] {
-                for i in 0..n {
-                    a[(g, i)] += row[i];
+        // Constraint rows, one per segment, sparse: the sum of its span rows.
+        let constraint: Vec<Vec<(usize, Real)>> = segments
+            .iter()
+            .map(|seg| {
+                let mut row: Vec<(usize, Real)> = Vec::new();
+                for span in &span_rows[seg.line][seg.first..seg.last] {
+                    for (i, v) in span.iter() {
+                        match row.iter_mut().find(|e| e.0 == i) {
+                            Some(e) => e.1 += v,
+                            None => row.push((i, 0.0 + v)),
+                        }
+                    }
                 }
-            }
-        }
+                row.sort_by_key(|e| e.0);
+                row
+            })
+            .collect();
 
         // Nothing that is not a finite number may reach the SVD (it panics on NaN).
         if let Some(g) =
-            (0..segments.len()).find(|&g| a.row(g).iter().any(|v: &Real| !v.is_finite()))
+            (0..segments.len()).find(|&g| constraint[g].iter().any(|e| !e.1.is_finite()))
         {
             let seg = segments[g];
             return Err(SolveError::NonFinite {
@@ -214,19 +318,34 @@ impl Kinematics {
             });
         }
 
+        // Each line's sub-rig, once; each sub-rig's segments.
+        let line_comp: Vec<Option<usize>> = (0..rig.lines.len())
+            .map(|l| line_component(rig, network, l))
+            .collect();
+        let mut rows_of: Vec<Vec<usize>> = vec![Vec::new(); network.components.len()];
+        for (g, seg) in segments.iter().enumerate() {
+            if let Some(c) = line_comp[seg.line] {
+                rows_of[c].push(g);
+            }
+        }
+
         // Each sub-rig on its own.
-        let mut forward = DVector::zeros(n);
+        let mut forward = DVector::zeros(dofs.len());
         let mut walked = vec![false; network.components.len()];
         for (c, members) in network.components.iter().enumerate() {
             let cols: Vec<usize> = members.iter().filter_map(|&p| dof_of_part[p]).collect();
             if cols.is_empty() {
                 continue;
             }
-            let rows: Vec<usize> = segments
+            // The sub-rig's constraint matrix, its segments by its dofs, by rows.
+            let a: Vec<Vec<(usize, Real)>> = rows_of[c]
                 .iter()
-                .enumerate()
-                .filter(|(_, s)| line_component(rig, network, s.line) == Some(c))
-                .map(|(g, _)| g)
+                .map(|&g| {
+                    constraint[g]
+                        .iter()
+                        .filter_map(|&(i, v)| cols.binary_search(&i).ok().map(|k| (k, v)))
+                        .collect()
+                })
                 .collect();
             let names = |ids: &[usize]| -> Vec<String> {
                 ids.iter()
@@ -241,7 +360,6 @@ impl Kinematics {
                 rig,
                 &dofs,
                 &a,
-                &rows,
                 &cols,
                 drive.and_then(|d| dof_of_part[d]),
                 rank_tolerance,
@@ -252,7 +370,13 @@ impl Kinematics {
                 walked[c] = true;
                 continue;
             }
-            let null = null_space(&a, &rows, &cols, rank_tolerance);
+            let mut dense: DMatrix<Real> = DMatrix::zeros(a.len(), cols.len());
+            for (r, row) in a.iter().enumerate() {
+                for &(k, v) in row {
+                    dense[(r, k)] = v;
+                }
+            }
+            let null = null_space(&dense, rank_tolerance);
             match (null.ncols(), drive) {
                 (0, _) => {
                     return Err(SolveError::CannotMove {
@@ -326,7 +450,7 @@ impl Kinematics {
         // scale: a cascade's far lines run at 2^-N of the drive and still run).
         let rope_speed_floor: Vec<Real> = (0..rig.lines.len())
             .map(|l| {
-                let walked_line = line_component(rig, network, l).is_some_and(|c| walked[c]);
+                let walked_line = line_comp[l].is_some_and(|c| walked[c]);
                 if !walked_line {
                     return 1e-12;
                 }
@@ -334,8 +458,7 @@ impl Kinematics {
                     .iter()
                     .map(|row| {
                         row.iter()
-                            .zip(forward.iter())
-                            .map(|(b, v)| (b * v).abs())
+                            .map(|(i, b)| (b * forward[i]).abs())
                             .sum::<Real>()
                     })
                     .fold(0.0, Real::max);
@@ -364,7 +487,8 @@ pub fn line_component(rig: &Rig, network: &Network, line: LineId) -> Option<usiz
         .map(|e| network.component_of[e.part])
 }
 
-/// `u · V` for the contact point of `part` at `at`, per unit speed of each dof.
+/// `u · V` for the contact point of `part` at `at`, per unit speed of the one dof that
+/// moves it (its own, or its block's), if any: `(dof, rate)`.
 fn point_velocity_along(
     rig: &Rig,
     dofs: &[Dof],
@@ -372,32 +496,32 @@ fn point_velocity_along(
     part: PartId,
     at: &crate::math::Point,
     u: &Vector,
-) -> DVector<Real> {
-    let mut v = DVector::zeros(dofs.len());
+) -> Option<(usize, Real)> {
     // Carried parts (sheaves, pick points) move with their block.
     let mover = match &rig.parts[part].kind {
         PartKind::Sheave(_) | PartKind::Anchor => rig.parts[part].block,
         _ => Some(part),
     };
-    if let Some(m) = mover {
-        if let Some(i) = dof_of_part[m] {
-            v[i] = match dofs[i].motion {
-                Motion::Translate(d) => d.dot(u),
-                Motion::Rotate(axle) => {
-                    let r = at - rig.parts[m].at;
-                    axle.cross(&r).dot(u)
-                }
-            };
-        }
-    }
-    v
+    let m = mover?;
+    let i = dof_of_part[m]?;
+    Some((
+        i,
+        match dofs[i].motion {
+            Motion::Translate(d) => d.dot(u),
+            Motion::Rotate(axle) => {
+                let r = at - rig.parts[m].at;
+                axle.cross(&r).dot(u)
+            }
+        },
+    ))
 }
 
 /// The forward speeds of a sub-rig's degrees of freedom (`cols`, drive at +1) by
-/// walking its constraints (`rows` of `a`), when they are determinate: one constraint
-/// per moving part but the drive, ordered so that each brings in one part (see
-/// [`super::walk`]); a pivot must be above the null-space threshold of the SVD. None
-/// when the walk does not apply (then the SVD decides).
+/// walking its constraint matrix `a` (its segments by `cols`, by rows: `(column,
+/// value)` in column order), when it is determinate:
+/// one constraint per moving part but the drive, ordered so that each brings in one
+/// part (see [`super::walk`]); a pivot must be above the null-space threshold of the
+/// SVD. None when the walk does not apply (then the SVD decides).
 ///
 /// # Errors
 /// [`SolveError::BeyondPrecision`] when a part's speed relative to the drive's is
@@ -405,8 +529,7 @@ fn point_velocity_along(
 fn walk_motion(
     rig: &Rig,
     dofs: &[Dof],
-    a: &DMatrix<Real>,
-    rows: &[usize],
+    a: &[Vec<(usize, Real)>],
     cols: &[usize],
     drive: Option<usize>,
     tolerance: Real,
@@ -414,20 +537,23 @@ fn walk_motion(
     let Some(dpos) = drive.and_then(|d| cols.iter().position(|&i| i == d)) else {
         return Ok(None);
     };
-    if rows.len() + 1 != cols.len() {
+    if a.len() + 1 != cols.len() {
         return Ok(None);
     }
-    let mut sub = DMatrix::zeros(rows.len(), cols.len());
-    for (r, &row) in rows.iter().enumerate() {
-        for (k, &col) in cols.iter().enumerate() {
-            sub[(r, k)] = a[(row, col)];
-        }
-    }
-    let scale = sub.amax().max(1.0);
+    let scale = a
+        .iter()
+        .flatten()
+        .map(|e| e.1.abs())
+        .fold(0.0, Real::max)
+        .max(1.0);
     let mut known = vec![None; cols.len()];
     known[dpos] = Some(1.0);
-    super::walk::substitute(&sub, &vec![0.0; rows.len()], &known, |r, k| {
-        sub[(r, k)].abs() > tolerance * scale
+    let entry = |r: usize, k: usize| {
+        a[r].binary_search_by_key(&k, |e| e.0)
+            .map_or(0.0, |p| a[r][p].1)
+    };
+    super::walk::substitute_rows(a, cols.len(), &vec![0.0; a.len()], &known, |r, k| {
+        entry(r, k).abs() > tolerance * scale
     })
     .map_err(|e| SolveError::BeyondPrecision {
         stage: "the kinematics",
@@ -436,17 +562,13 @@ fn walk_motion(
     })
 }
 
-/// Orthonormal basis of the null space of `a` restricted to `rows` × `cols`.
-fn null_space(a: &DMatrix<Real>, rows: &[usize], cols: &[usize], tolerance: Real) -> DMatrix<Real> {
-    let n = cols.len();
-    let m = rows.len().max(n);
+/// Orthonormal basis of the null space of one sub-rig's constraint matrix `a`.
+fn null_space(a: &DMatrix<Real>, tolerance: Real) -> DMatrix<Real> {
+    let n = a.ncols();
+    let m = a.nrows().max(n);
     // Pad with zero rows so the SVD returns a full V.
     let mut sub = DMatrix::zeros(m, n);
-    for (r, &row) in rows.iter().enumerate() {
-        for (c, &col) in cols.iter().enumerate() {
-            sub[(r, c)] = a[(row, col)];
-        }
-    }
+    sub.rows_mut(0, a.nrows()).copy_from(a);
     let scale = sub.amax().max(1.0);
     let svd = sub.svd(false, true);
     let Some(v_t) = svd.v_t else {

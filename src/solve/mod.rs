@@ -428,81 +428,26 @@ pub fn solve(rig: &Rig, options: &SolveOptions) -> Result<Solution, SolveError> 
         .collect();
     order.sort_by_key(|&c| (c != main_component, c));
     let mut subrigs = Vec::new();
+    // Rig-wide: any static coefficient gives every sub-rig a breakaway case.
+    let breakaway_case = has_static_friction(rig);
     for c in order {
         let (Some(drive), Some(solve_for)) = (drives[c], unknowns[c]) else {
             continue;
         };
-        let quantity = natural_quantity(rig, solve_for).ok_or(SolveError::MissingQuantity {
-            part: rig.parts[solve_for].name.clone(),
-            quantity: "natural quantity (solve_for must be a haul, weight, block or drum)",
-        })?;
-        if let Some((reason, fix)) = unknown_does_no_work(rig, &kinematics, drive, solve_for) {
-            return Err(SolveError::UnknownDoesNoWork {
-                part: rig.parts[solve_for].name.clone(),
-                quantity: quantity.name(),
-                reason,
-                fix,
-            });
-        }
-        let problem =
-            statics::Problem::new(rig, &network, &geometry, &kinematics, c, drive, solve_for)?;
-        if drive == solve_for {
-            let square = problem.square_loads();
-            if let Some(&first) = square.first() {
-                let PartKind::Block(b) = &rig.parts[first].kind else {
-                    unreachable!("square_loads lists blocks only")
-                };
-                return Err(SolveError::LoadsDoNoWork {
-                    parts: square.iter().map(|&p| rig.parts[p].name.clone()).collect(),
-                    moves: b.moves.into_inner(),
-                    gravity: rig.gravity.into_inner(),
-                });
-            }
-        }
-        let ideal = problem.solve(Case::Ideal, options)?;
-        let forward = problem.solve(Case::Forward, options)?;
-        let back = problem.solve(Case::Back, options)?;
-        let breakaway = if has_static_friction(rig) {
-            Some(problem.solve_breakaway(options)?)
-        } else {
-            None
+        let parts = Parts {
+            network: &network,
+            geometry: &geometry,
+            kinematics: &kinematics,
         };
-        let load_part = if solve_for != drive {
-            Some(solve_for)
-        } else {
-            // The part that takes the most power in the ideal case.
-            ideal
-                .load_power
-                .iter()
-                .enumerate()
-                .filter(|(p, _)| *p != drive && network.component_of[*p] == c)
-                .filter(|(_, w)| w.abs() > 0.0)
-                .max_by(|a, b| a.1.abs().total_cmp(&b.1.abs()))
-                .map(|(p, _)| p)
-        };
-        let velocity_ratio = load_part.and_then(|p| {
-            let v = kinematics.dof_of_part[p].map(|i| kinematics.forward[i])?;
-            let r = 1.0 / v.abs();
-            r.is_finite().then_some(r)
-        });
-        let drive_stiffness = problem.drive_stiffness();
-        let lost_travel = drive_stiffness
-            .map(|k| ideal.drive_power.abs() / k)
-            .filter(|d| d.is_finite());
-        subrigs.push(SubRigSolution {
-            drive_stiffness,
-            lost_travel,
-            component: c,
+        subrigs.push(solve_subrig(
+            rig,
+            &parts,
+            c,
             drive,
             solve_for,
-            quantity,
-            ideal,
-            forward,
-            back,
-            breakaway,
-            velocity_ratio,
-            load_part,
-        });
+            breakaway_case,
+            options,
+        )?);
     }
     Ok(Solution {
         geometry,
@@ -512,8 +457,144 @@ pub fn solve(rig: &Rig, options: &SolveOptions) -> Result<Solution, SolveError> 
     })
 }
 
+/// What the sub-rigs of one rig share: the graph, the geometry and the kinematics.
+struct Parts<'a> {
+    network: &'a Network,
+    geometry: &'a Geometry,
+    kinematics: &'a Kinematics,
+}
+
+/// Solves sub-rig `c` of `rig` with its drive and unknown: its statics for the three
+/// cases (and breakaway when `breakaway_case`), its velocity ratio and load part.
+fn solve_subrig(
+    rig: &Rig,
+    parts: &Parts,
+    c: usize,
+    drive: PartId,
+    solve_for: PartId,
+    breakaway_case: bool,
+    options: &SolveOptions,
+) -> Result<SubRigSolution, SolveError> {
+    let Parts {
+        network,
+        geometry,
+        kinematics,
+    } = *parts;
+    let quantity = natural_quantity(rig, solve_for).ok_or(SolveError::MissingQuantity {
+        part: rig.parts[solve_for].name.clone(),
+        quantity: "natural quantity (solve_for must be a haul, weight, block or drum)",
+    })?;
+    if let Some((reason, fix)) = unknown_does_no_work(rig, kinematics, drive, solve_for) {
+        return Err(SolveError::UnknownDoesNoWork {
+            part: rig.parts[solve_for].name.clone(),
+            quantity: quantity.name(),
+            reason,
+            fix,
+        });
+    }
+    let problem = statics::Problem::new(rig, network, geometry, kinematics, c, drive, solve_for)?;
+    if drive == solve_for {
+        let square = problem.square_loads();
+        if let Some(&first) = square.first() {
+            let PartKind::Block(b) = &rig.parts[first].kind else {
+                unreachable!("square_loads lists blocks only")
+            };
+            return Err(SolveError::LoadsDoNoWork {
+                parts: square.iter().map(|&p| rig.parts[p].name.clone()).collect(),
+                moves: b.moves.into_inner(),
+                gravity: rig.gravity.into_inner(),
+            });
+        }
+    }
+    let ideal = problem.solve(Case::Ideal, options)?;
+    let forward = problem.solve(Case::Forward, options)?;
+    let back = problem.solve(Case::Back, options)?;
+    let breakaway = if breakaway_case {
+        Some(problem.solve_breakaway(options)?)
+    } else {
+        None
+    };
+    let load_part = if solve_for != drive {
+        Some(solve_for)
+    } else {
+        // The part that takes the most power in the ideal case.
+        ideal
+            .load_power
+            .entries()
+            .filter(|(p, _)| *p != drive && network.component_of[*p] == c)
+            .filter(|(_, w)| w.abs() > 0.0)
+            .max_by(|a, b| a.1.abs().total_cmp(&b.1.abs()))
+            .map(|(p, _)| p)
+    };
+    let velocity_ratio = load_part.and_then(|p| {
+        let v = kinematics.dof_of_part[p].map(|i| kinematics.forward[i])?;
+        let r = 1.0 / v.abs();
+        r.is_finite().then_some(r)
+    });
+    let drive_stiffness = problem.drive_stiffness();
+    let lost_travel = drive_stiffness
+        .map(|k| ideal.drive_power.abs() / k)
+        .filter(|d| d.is_finite());
+    Ok(SubRigSolution {
+        drive_stiffness,
+        lost_travel,
+        component: c,
+        drive,
+        solve_for,
+        quantity,
+        ideal,
+        forward,
+        back,
+        breakaway,
+        velocity_ratio,
+        load_part,
+    })
+}
+
+/// Solves sub-rig `subrigs[k]` of `base` again for `rig`, a copy of the rig `base`
+/// solved that differs only in friction (bearings, coefficients of friction, drum
+/// drag): the geometry, the graph and the kinematics do not depend on friction, so
+/// `base`'s serve, and the other sub-rigs' answers cannot change. A study that changes
+/// one part's friction solves one sub-rig, not the rig.
+///
+/// `breakaway_case` is [`has_static_friction`] of `rig` (the caller knows it from the
+/// change it made, without a pass over the rig). The answer is the one [`solve`] gives
+/// for that sub-rig of `rig`, to the bit.
+///
+/// # Errors
+/// As [`solve`], for that sub-rig.
+pub fn solve_again(
+    rig: &Rig,
+    base: &Solution,
+    k: usize,
+    breakaway_case: bool,
+    options: &SolveOptions,
+) -> Result<SubRigSolution, SolveError> {
+    let sub = &base.subrigs[k];
+    let parts = Parts {
+        network: &base.network,
+        geometry: &base.geometry,
+        kinematics: &base.kinematics,
+    };
+    solve_subrig(
+        rig,
+        &parts,
+        sub.component,
+        sub.drive,
+        sub.solve_for,
+        breakaway_case,
+        options,
+    )
+}
+
 /// Whether any bearing gives a static coefficient (then a breakaway case is solved).
 pub fn has_static_friction(rig: &Rig) -> bool {
+    (0..rig.parts.len()).any(|p| static_friction_at(rig, p))
+}
+
+/// Whether part `part`'s bearing (a sheave's, or a drum's shaft's) gives a static
+/// coefficient.
+pub fn static_friction_at(rig: &Rig, part: PartId) -> bool {
     use crate::model::Bearing;
     let is_static = |b: &Bearing| {
         matches!(
@@ -524,11 +605,11 @@ pub fn has_static_friction(rig: &Rig) -> bool {
             }
         )
     };
-    rig.parts.iter().any(|p| match &p.kind {
+    match &rig.parts[part].kind {
         PartKind::Sheave(s) => is_static(&s.bearing),
         PartKind::Drum(d) => d.shaft.as_ref().is_some_and(|s| is_static(&s.bearing)),
         _ => false,
-    })
+    }
 }
 
 /// Resultant of a list of forces.

@@ -41,12 +41,13 @@ pub struct SpanWeight {
     pub weight: Real,
 }
 
-/// The rope's weight on every span of every line; all zero for weightless ropes.
+/// The rope's weight on every span of some lines (a sub-rig's), by local line: the
+/// position of the line in the list it was built for; all zero for weightless ropes.
 #[derive(Debug, Clone, PartialEq)]
 pub struct RopeWeight {
-    /// `spans[line][span]`.
+    /// `spans[local line][span]`.
     pub spans: Vec<Vec<SpanWeight>>,
-    /// `arcs[line][entry]`: the tension change over the arc of a middle entry,
+    /// `arcs[local line][entry]`: the tension change over the arc of a middle entry,
     /// `w·g·(h at the next span's start − h at the previous span's end)`, N.
     pub arcs: Vec<Vec<Real>>,
     /// Weight per length `w·g` of each line's rope, N/m.
@@ -59,13 +60,15 @@ fn height(rig: &Rig, at: &Point) -> Real {
 }
 
 impl RopeWeight {
-    /// The weight of every span of `rig` in `geometry`.
-    pub fn build(rig: &Rig, geometry: &Geometry) -> RopeWeight {
-        let mut spans = Vec::with_capacity(rig.lines.len());
-        let mut arcs = Vec::with_capacity(rig.lines.len());
-        let mut per_length = Vec::with_capacity(rig.lines.len());
+    /// The weight of every span of lines `lines` of `rig` in `geometry`, local line
+    /// `li` being `lines[li]`.
+    pub fn build(rig: &Rig, geometry: &Geometry, lines: &[LineId]) -> RopeWeight {
+        let mut spans = Vec::with_capacity(lines.len());
+        let mut arcs = Vec::with_capacity(lines.len());
+        let mut per_length = Vec::with_capacity(lines.len());
         let down = rig.gravity.into_inner();
-        for (l, line) in rig.lines.iter().enumerate() {
+        for &l in lines {
+            let line = &rig.lines[l];
             let wg = rig.rope_of(l).mass_per_length.unwrap_or(0.0) * STANDARD_GRAVITY;
             let g = &geometry.lines[l];
             spans.push(
@@ -106,21 +109,21 @@ impl RopeWeight {
         self.per_length.iter().any(|w| *w > 0.0)
     }
 
-    /// `T_end − T_start` of a span, N.
-    pub fn rise(&self, line: LineId, span: usize) -> Real {
+    /// `T_end − T_start` of a span of local line `line`, N.
+    pub fn rise(&self, line: usize, span: usize) -> Real {
         self.spans[line][span].rise
     }
 
-    /// The tension change over the arc of middle entry `entry`, N.
-    pub fn arc(&self, line: LineId, entry: usize) -> Real {
+    /// The tension change over the arc of middle entry `entry` of local line `line`, N.
+    pub fn arc(&self, line: usize, entry: usize) -> Real {
         self.arcs[line][entry]
     }
 
     /// The forces a span with start tension `t_start` puts on the part at its start and
-    /// the part at its end, N.
+    /// the part at its end, N (`line` local).
     pub fn end_forces(
         &self,
-        line: LineId,
+        line: usize,
         span: usize,
         u: &Vector,
         t_start: Real,
@@ -131,10 +134,11 @@ impl RopeWeight {
     }
 
     /// The generalized load of the rope's weight on each degree of freedom `dofs[k]`
-    /// (global dof indices), beyond what the start tensions carry: the statics adds it
+    /// (global dof indices, ascending), beyond what the start tensions carry: the statics adds it
     /// to the known loads. With `V_P`, `V_Q` the velocities of a span's start and end
     /// contact points per unit speed of the dof and `D` its rise:
-    /// `G = Σ_spans (−D·(u·V_Q) + W⊥·(V_P + V_Q)/2)`.
+    /// `G = Σ_spans (−D·(u·V_Q) + W⊥·(V_P + V_Q)/2)`. `lines` are the ones it was
+    /// built for.
     pub fn generalized_load(
         &self,
         rig: &Rig,
@@ -144,14 +148,14 @@ impl RopeWeight {
         dofs: &[usize],
     ) -> DVector<Real> {
         let mut g = DVector::zeros(dofs.len());
-        for &l in lines {
-            if self.per_length[l] == 0.0 {
+        for (li, &l) in lines.iter().enumerate() {
+            if self.per_length[li] == 0.0 {
                 continue;
             }
             let path = &rig.lines[l].path;
             for (j, span) in geometry.lines[l].spans.iter().enumerate() {
                 let u = span.direction.into_inner();
-                let w = &self.spans[l][j];
+                let w = &self.spans[li][j];
                 for (part, at, is_end) in [
                     (path[j].part, &span.start, false),
                     (path[j + 1].part, &span.end, true),
@@ -159,7 +163,7 @@ impl RopeWeight {
                     let Some((i, v)) = contact_velocity(rig, kin, part, at) else {
                         continue;
                     };
-                    let Some(k) = dofs.iter().position(|&d| d == i) else {
+                    let Ok(k) = dofs.binary_search(&i) else {
                         continue;
                     };
                     g[k] += w.normal.dot(&v) * 0.5;
@@ -173,7 +177,8 @@ impl RopeWeight {
     }
 
     /// Power into the rope's potential energy per unit drive speed, W, for the dof
-    /// velocities `velocity` (global dof order): the rate of `Σ_spans w·g·L·h_mid`,
+    /// speeds `velocity[k]` of dofs `dofs[k]` (global dof indices, ascending; `lines`
+    /// the ones it was built for): the rate of `Σ_spans w·g·L·h_mid`,
     /// `w·g·[u·(V_Q − V_P)·(h_P + h_Q)/2 + L·ĥ·(V_P + V_Q)/2]` per span (`ĥ` up).
     pub fn potential_rate(
         &self,
@@ -181,12 +186,13 @@ impl RopeWeight {
         geometry: &Geometry,
         kin: &Kinematics,
         lines: &[LineId],
-        velocity: &DVector<Real>,
+        dofs: &[usize],
+        velocity: &[Real],
     ) -> Real {
         let up = -rig.gravity.into_inner();
         let mut rate = 0.0;
-        for &l in lines {
-            let wg = self.per_length[l];
+        for (li, &l) in lines.iter().enumerate() {
+            let wg = self.per_length[li];
             if wg == 0.0 {
                 continue;
             }
@@ -195,7 +201,8 @@ impl RopeWeight {
                 let u = span.direction.into_inner();
                 let speed = |part: PartId, at: &Point| {
                     contact_velocity(rig, kin, part, at)
-                        .map_or(Vector::zeros(), |(i, v)| v * velocity[i])
+                        .and_then(|(i, v)| Some(v * velocity[dofs.binary_search(&i).ok()?]))
+                        .unwrap_or_else(Vector::zeros)
                 };
                 let vp = speed(path[j].part, &span.start);
                 let vq = speed(path[j + 1].part, &span.end);

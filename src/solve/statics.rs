@@ -12,20 +12,27 @@
 //! weight in the pin load, drum journals) is settled by fixed-point iteration.
 
 use nalgebra::{DMatrix, DVector};
+use petgraph::graph::NodeIndex;
 
 use crate::friction::{self, BearingResistance};
 use crate::geometry::Geometry;
 use crate::math::{Real, Vector, STANDARD_GRAVITY};
-use crate::model::Network;
 use crate::model::{square_to_gravity, BlockLoad, LineId, PartId, PartKind, Rig};
+use crate::model::{Link, Network};
 
 use super::bearing::{bearing_resistance, thrust_moment};
 use super::kinematics::{line_component, Kinematics};
 use super::selfweight::RopeWeight;
 use super::{Case, SolveError, SolveOptions};
 
+mod by_id;
 mod passage;
 mod result;
+mod system;
+
+use system::{dense_column_norms, sparse_column_norms};
+
+pub use by_id::ById;
 
 pub use passage::DrumFriction;
 pub use result::Losses;
@@ -89,26 +96,30 @@ pub struct CaseResult {
     pub value: Real,
     /// `tension[line][span]`, N, at the span's start (empty for lines of other
     /// sub-rigs).
-    pub tension: Vec<Vec<Real>>,
+    pub tension: ById<Vec<Real>>,
     /// `tension_end[line][span]`, N, at the span's end: the start tension plus the
-    /// rope's weight times the rise (equal to `tension` for a weightless rope).
-    pub tension_end: Vec<Vec<Real>>,
+    /// rope's weight times the rise (equal to `tension` for a weightless rope; empty
+    /// for lines of other sub-rigs).
+    pub tension_end: ById<Vec<Real>>,
     /// Power into the ropes' potential energy per unit drive speed, W (zero for
     /// weightless ropes); the energy audit counts it.
     pub rope_power: Real,
-    /// `ratio[line][entry]`: tight over slack tension at a middle passage.
-    pub ratio: Vec<Vec<Option<Real>>>,
-    /// Power lost at each part per unit drive speed, W (per m/s or rad/s of the drive).
-    pub loss: Vec<Real>,
+    /// `ratio[line][entry]`: tight over slack tension at a middle passage (empty for
+    /// lines of other sub-rigs).
+    pub ratio: ById<Vec<Option<Real>>>,
+    /// Power lost at each part per unit drive speed, W (per m/s or rad/s of the drive);
+    /// zero outside the sub-rig.
+    pub loss: ById<Real>,
     /// Power taken by each part's load per unit drive speed, W (negative where a load
-    /// gives power, and at the drive).
-    pub load_power: Vec<Real>,
+    /// gives power, and at the drive); zero outside the sub-rig.
+    pub load_power: ById<Real>,
     /// Power the drive puts in per unit drive speed.
     pub drive_power: Real,
-    /// Resultant force the lines (and own weight) put on each part, N.
-    pub pin_load: Vec<Option<Vector>>,
-    /// Drum torques, per part.
-    pub drums: Vec<Option<DrumTorques>>,
+    /// Resultant force the sub-rig's lines (and own weight) put on each part, N; None
+    /// at parts its lines do not reach.
+    pub pin_load: ById<Option<Vector>>,
+    /// Drum torques, per part (None but at the sub-rig's drums).
+    pub drums: ById<Option<DrumTorques>>,
     /// Sheaves that do not turn: (line, entry).
     pub stalled: Vec<(LineId, usize)>,
     /// Untied drum passages where the rope slips.
@@ -132,7 +143,7 @@ pub struct CaseResult {
 impl CaseResult {
     /// Total losses per unit drive speed, W.
     pub fn total_loss(&self) -> Real {
-        self.loss.iter().sum()
+        self.loss.entries().map(|(_, x)| x).sum()
     }
 
     /// Power put into the rig per unit drive speed, W: the drive's power where the
@@ -143,7 +154,8 @@ impl CaseResult {
             self.drive_power
         } else {
             self.load_power
-                .iter()
+                .entries()
+                .map(|(_, p)| p)
                 .filter(|p| **p < 0.0)
                 .map(|p| -p)
                 .sum()
@@ -152,18 +164,40 @@ impl CaseResult {
 }
 
 /// The statics problem of one sub-rig.
+///
+/// Every array it works on is the sub-rig's: its degrees of freedom, its lines
+/// (`local` line index = position in `lines`) and the parts they reach (`parts`); the
+/// results are keyed by the rig's ids only at the end ([`ById`]).
 pub struct Problem<'a> {
     rig: &'a Rig,
+    network: &'a Network,
     geometry: &'a Geometry,
     kin: &'a Kinematics,
     solve_for: PartId,
     drive: PartId,
-    /// Global dof indices of the sub-rig.
+    /// Global dof indices of the sub-rig, ascending.
     dofs: Vec<usize>,
     /// Global segment indices of the sub-rig.
     segs: Vec<usize>,
-    /// Lines of the sub-rig.
+    /// For each of `segs`, its line's local index.
+    seg_line: Vec<usize>,
+    /// Lines of the sub-rig, ascending.
     lines: Vec<LineId>,
+    /// Parts its lines reach and parts it moves, ascending.
+    parts: Vec<PartId>,
+    /// `path_part[local line][entry]`: the entry's part, as an index into `parts`.
+    path_part: Vec<Vec<usize>>,
+    /// For each of `dofs`, its part as an index into `parts`.
+    dof_part: Vec<usize>,
+    /// The spans touching each local part, `(local line, span, at its end)`, at
+    /// `touches[touch_start[lp]..touch_start[lp + 1]]`, in the order the lines and
+    /// their spans run (which fixes the order their forces add up in).
+    touches: Vec<(usize, usize, bool)>,
+    /// See `touches`.
+    touch_start: Vec<usize>,
+    /// `lines` and `parts` as the results' keys, shared by every case.
+    line_ids: std::sync::Arc<[usize]>,
+    part_ids: std::sync::Arc<[usize]>,
     /// Known generalized load forces (global dof index order of `dofs`).
     q_load: DVector<Real>,
     /// Unknown's generalized force per unit.
@@ -175,17 +209,27 @@ pub struct Problem<'a> {
     rope_load: DVector<Real>,
 }
 
-/// A block's own mass and that of the sheaves it carries, kg.
-fn block_mass(rig: &Rig, block: PartId) -> Real {
+/// A block's own mass and that of the sheaves it carries, kg (the carried parts from
+/// the network's `Carried` edges, each stored as carried part to block; file order).
+fn block_mass(rig: &Rig, network: &Network, block: PartId) -> Real {
     let own = match &rig.parts[block].kind {
         PartKind::Block(b) => b.mass.unwrap_or(0.0),
         _ => 0.0,
     };
-    own + rig
-        .parts
+    let graph = &network.graph;
+    let mut carried: Vec<PartId> = graph
+        .edges(NodeIndex::new(block))
+        .filter(|e| *petgraph::visit::EdgeRef::weight(e) == Link::Carried)
+        .filter_map(|e| graph.edge_endpoints(petgraph::visit::EdgeRef::id(&e)))
+        .filter(|&(_, b)| graph[b] == block)
+        .map(|(p, _)| graph[p])
+        .collect();
+    carried.sort_unstable();
+    carried.dedup();
+    own + carried
         .iter()
-        .filter_map(|p| match &p.kind {
-            PartKind::Sheave(s) if p.block == Some(block) => s.mass,
+        .filter_map(|&p| match &rig.parts[p].kind {
+            PartKind::Sheave(s) => s.mass,
             _ => None,
         })
         .sum::<Real>()
@@ -209,15 +253,71 @@ impl<'a> Problem<'a> {
         drive: PartId,
         solve_for: PartId,
     ) -> Result<Problem<'a>, SolveError> {
-        let dofs: Vec<usize> = (0..kin.dofs.len())
-            .filter(|&i| network.component_of[kin.dofs[i].part] == component)
+        // The sub-rig's members (ascending) and their dofs (dofs are in part order).
+        let dofs: Vec<usize> = network.components[component]
+            .iter()
+            .filter_map(|&p| kin.dof_of_part[p])
             .collect();
-        let lines: Vec<LineId> = (0..rig.lines.len())
-            .filter(|&l| line_component(rig, network, l) == Some(component))
+        // The lines at its moving or turning parts (as `Network::lines_of`, from the
+        // graph's span edges, in one list).
+        let mut lines: Vec<LineId> = network.components[component]
+            .iter()
+            .filter(|&&p| !rig.parts[p].is_fixed_anchor())
+            .flat_map(|&p| {
+                network.graph.edges(NodeIndex::new(p)).filter_map(|e| {
+                    match *petgraph::visit::EdgeRef::weight(&e) {
+                        Link::Span { line, .. } => Some(line),
+                        Link::Carried => None,
+                    }
+                })
+            })
             .collect();
-        let segs: Vec<usize> = (0..kin.segments.len())
-            .filter(|&g| lines.contains(&kin.segments[g].line))
+        lines.sort_unstable();
+        lines.dedup();
+        lines.retain(|&l| line_component(rig, network, l) == Some(component));
+        // Segments are stored line by line.
+        let mut segs = Vec::new();
+        let mut seg_line = Vec::new();
+        for (li, &l) in lines.iter().enumerate() {
+            let from = kin.segments.partition_point(|s| s.line < l);
+            let to = kin.segments.partition_point(|s| s.line <= l);
+            segs.extend(from..to);
+            seg_line.extend(std::iter::repeat(li).take(to - from));
+        }
+        let mut parts: Vec<PartId> = lines
+            .iter()
+            .flat_map(|&l| rig.lines[l].path.iter().map(|e| e.part))
+            .chain(dofs.iter().map(|&i| kin.dofs[i].part))
             .collect();
+        parts.sort_unstable();
+        parts.dedup();
+        let local = |p: PartId| parts.binary_search(&p).expect("a part of the sub-rig");
+        let path_part: Vec<Vec<usize>> = lines
+            .iter()
+            .map(|&l| rig.lines[l].path.iter().map(|e| local(e.part)).collect())
+            .collect();
+        let dof_part: Vec<usize> = dofs.iter().map(|&i| local(kin.dofs[i].part)).collect();
+        // Each span touches the part it leaves and the part it reaches.
+        let mut touch_start = vec![0; parts.len() + 1];
+        for path in &path_part {
+            for pair in path.windows(2) {
+                touch_start[pair[0] + 1] += 1;
+                touch_start[pair[1] + 1] += 1;
+            }
+        }
+        for lp in 0..parts.len() {
+            touch_start[lp + 1] += touch_start[lp];
+        }
+        let mut touches = vec![(0, 0, false); touch_start[parts.len()]];
+        let mut next = touch_start.clone();
+        for (li, path) in path_part.iter().enumerate() {
+            for (j, pair) in path.windows(2).enumerate() {
+                for (lp, at_end) in [(pair[0], false), (pair[1], true)] {
+                    touches[next[lp]] = (li, j, at_end);
+                    next[lp] += 1;
+                }
+            }
+        }
         let mut q_load = DVector::zeros(dofs.len());
         let mut x_coef = DVector::zeros(dofs.len());
         for (k, &i) in dofs.iter().enumerate() {
@@ -231,7 +331,7 @@ impl<'a> Problem<'a> {
             match &rig.parts[part].kind {
                 PartKind::Block(b) => {
                     let moves = b.moves.into_inner();
-                    let mass = block_mass(rig, part);
+                    let mass = block_mass(rig, network, part);
                     let mut q = gravity_force(rig, mass).dot(&moves);
                     if unknown {
                         x_coef[k] = if b.load.is_force() {
@@ -286,17 +386,27 @@ impl<'a> Problem<'a> {
                 _ => {}
             }
         }
-        let weight = RopeWeight::build(rig, geometry);
+        let weight = RopeWeight::build(rig, geometry, &lines);
         let rope_load = weight.generalized_load(rig, geometry, kin, &lines, &dofs);
+        let (line_ids, part_ids) = (lines.as_slice().into(), parts.as_slice().into());
         Ok(Problem {
             rig,
+            network,
             geometry,
             kin,
             solve_for,
             drive,
             dofs,
             segs,
+            seg_line,
             lines,
+            parts,
+            path_part,
+            dof_part,
+            touches,
+            touch_start,
+            line_ids,
+            part_ids,
             q_load,
             x_coef,
             weight,
@@ -324,7 +434,7 @@ impl<'a> Problem<'a> {
             }
             let size = match &self.rig.parts[part].kind {
                 PartKind::Block(b) => {
-                    let mass = block_mass(self.rig, part)
+                    let mass = block_mass(self.rig, self.network, part)
                         + match b.load {
                             BlockLoad::Mass(Some(m)) => m,
                             _ => 0.0,
@@ -377,33 +487,39 @@ impl<'a> Problem<'a> {
         let sign = case.sign();
         let n = self.dofs.len();
         let m = self.segs.len() + 1;
-        let velocity: DVector<Real> = self.kin.forward.clone() * sign;
+        // The sub-rig's dof speeds in this case (`velocity[k]` for `dofs[k]`).
+        let velocity: Vec<Real> = self
+            .dofs
+            .iter()
+            .map(|&i| self.kin.forward[i] * sign)
+            .collect();
+        // Tensions by local line.
         let mut previous: Option<Vec<Vec<Real>>> = None;
         let mut status = Status::Converged { iterations: 1 };
         let mut outcome = None;
         let needs_iteration = case != Case::Ideal && self.load_dependent();
         for iteration in 1..=options.max_iterations.max(1) {
             // Walk every segment: T_span = c τ + e.
-            let mut coef: Vec<Vec<(Real, Real)>> = rig
+            let mut coef: Vec<Vec<(Real, Real)>> = self
                 .lines
                 .iter()
-                .map(|l| vec![(0.0, 0.0); l.path.len().saturating_sub(1)])
+                .map(|&l| vec![(0.0, 0.0); rig.lines[l].path.len().saturating_sub(1)])
                 .collect();
             let mut stalled = Vec::new();
-            for &g in &self.segs {
+            for (&g, &li) in self.segs.iter().zip(&self.seg_line) {
                 let seg = self.kin.segments[g];
-                coef[seg.line][seg.first] = (1.0, 0.0);
+                coef[li][seg.first] = (1.0, 0.0);
                 for e in seg.first + 1..seg.last {
                     let (k, delta, stall) =
-                        self.passage(case, seg.line, e, previous.as_ref(), breakaway)?;
+                        self.passage(case, seg.line, li, e, previous.as_deref(), breakaway)?;
                     if stall {
                         stalled.push((seg.line, e));
                     }
                     // Into the passage at the previous span's end tension; out of it
                     // with the arc's rise (both zero for a weightless rope).
-                    let (c, c0) = coef[seg.line][e - 1];
-                    let c0 = c0 + self.weight.rise(seg.line, e - 1);
-                    let next = (k * c, k * c0 + delta + self.weight.arc(seg.line, e));
+                    let (c, c0) = coef[li][e - 1];
+                    let c0 = c0 + self.weight.rise(li, e - 1);
+                    let next = (k * c, k * c0 + delta + self.weight.arc(li, e));
                     if !(next.0.is_finite() && next.1.is_finite()) {
                         // Ratios in series that each hold but together overflow.
                         return Err(self.non_finite(
@@ -413,27 +529,28 @@ impl<'a> Problem<'a> {
                             e,
                         ));
                     }
-                    coef[seg.line][e] = next;
+                    coef[li][e] = next;
                 }
             }
             // Drum friction from the previous tensions.
-            let forces = previous.as_ref().map(|t| self.contact_forces(t));
             let mut q = self.q_load.clone();
             let mut drum_friction = vec![DrumFriction::default(); n];
             if case != Case::Ideal {
                 for (k, &i) in self.dofs.iter().enumerate() {
                     let part = self.kin.dofs[i].part;
                     if matches!(rig.parts[part].kind, PartKind::Drum(_)) {
-                        let empty = Vec::new();
-                        let f = forces.as_ref().map(|f| &f[part]).unwrap_or(&empty);
-                        let friction = self.drum_friction(part, f, breakaway);
+                        let lp = self.dof_part[k];
+                        let friction = match previous.as_deref() {
+                            Some(t) => self.drum_friction(part, self.contacts(lp, t), breakaway),
+                            None => self.drum_friction(part, std::iter::empty(), breakaway),
+                        };
                         // The rope's bending on and off the drum (DESIGN.md §7).
                         let friction = DrumFriction {
-                            bending: self.drum_bending(part, previous.as_ref()),
+                            bending: self.drum_bending(part, previous.as_deref()),
                             ..friction
                         };
                         drum_friction[k] = friction;
-                        let v = velocity[i];
+                        let v = velocity[k];
                         let s = if v > 1e-15 {
                             1.0
                         } else if v < -1e-15 {
@@ -445,25 +562,33 @@ impl<'a> Problem<'a> {
                     }
                 }
             }
-            // Assemble.
-            let mut mat = DMatrix::zeros(n, m);
+            // Assemble, sparse: `rows[k]` holds the nonzero pattern of dof k's
+            // equation, `(column, value)` in column order (the entries a dense matrix
+            // would hold, summed in the same order).
+            let mut rows: Vec<Vec<(usize, Real)>> = vec![Vec::new(); n];
             let mut rhs = q.clone() + &self.rope_load;
-            for (col, &g) in self.segs.iter().enumerate() {
+            for (col, (&g, &li)) in self.segs.iter().zip(&self.seg_line).enumerate() {
                 let seg = self.kin.segments[g];
-                let rows = &self.kin.span_rows[seg.line][seg.first..seg.last];
-                for (&(c, c0), row) in coef[seg.line][seg.first..seg.last].iter().zip(rows) {
-                    for (k, &i) in self.dofs.iter().enumerate() {
-                        mat[(k, col)] += c * row[i];
-                        rhs[k] -= c0 * row[i];
+                let spans = &self.kin.span_rows[seg.line][seg.first..seg.last];
+                for (&(c, c0), row) in coef[li][seg.first..seg.last].iter().zip(spans) {
+                    for (i, b) in row.iter() {
+                        let Ok(k) = self.dofs.binary_search(&i) else {
+                            continue;
+                        };
+                        match rows[k].last_mut() {
+                            Some(last) if last.0 == col => last.1 += c * b,
+                            _ => rows[k].push((col, 0.0 + c * b)),
+                        }
+                        rhs[k] -= c0 * b;
                     }
                 }
             }
-            for k in 0..n {
-                mat[(k, m - 1)] = -self.x_coef[k];
+            for (k, row) in rows.iter_mut().enumerate() {
+                row.push((m - 1, -self.x_coef[k]));
             }
             // Nothing that is not a finite number may reach the SVD (it panics on NaN).
             if let Some(k) =
-                (0..n).find(|&k| !rhs[k].is_finite() || mat.row(k).iter().any(|v| !v.is_finite()))
+                (0..n).find(|&k| !rhs[k].is_finite() || rows[k].iter().any(|e| !e.1.is_finite()))
             {
                 let part = self.kin.dofs[self.dofs[k]].part;
                 return Err(SolveError::NonFinite {
@@ -476,52 +601,73 @@ impl<'a> Problem<'a> {
             // Equilibrate the columns first: a long chain of friction passages makes
             // some tension coefficients many orders of magnitude larger than others,
             // and a rank decision on the raw matrix would drop the small ones.
-            let column_norms: Vec<Real> = (0..m)
-                .map(|j| {
-                    let n = mat.column(j).norm();
-                    if n > 0.0 && n.is_finite() {
-                        n
-                    } else {
-                        1.0
-                    }
-                })
-                .collect();
+            let column_norms = sparse_column_norms(&rows, n, m);
             // A determinate system is walked, unknown by unknown, to full precision
             // (super::walk); a pivot must pass the rank threshold of the dense solve on
             // the equilibrated matrix, so the walk answers only where that solve would
             // find full rank too.
-            let row_max: Vec<Real> = (0..n)
-                .map(|k| {
-                    (0..m)
-                        .map(|j| mat[(k, j)].abs() / column_norms[j])
+            let row_max: Vec<Real> = rows
+                .iter()
+                .map(|row| {
+                    row.iter()
+                        .map(|&(j, v)| v.abs() / column_norms[j])
                         .fold(0.0, Real::max)
                 })
                 .collect();
-            let walked = super::walk::substitute(&mat, rhs.as_slice(), &vec![None; m], |k, j| {
-                mat[(k, j)].abs() / column_norms[j] > options.rank_tolerance * row_max[k]
-            })
-            .map_err(|e| {
-                let part = self.kin.dofs[self.dofs[e.row]].part;
-                SolveError::BeyondPrecision {
-                    stage: stage_name(case, breakaway),
-                    what: "a tension",
-                    part: rig.parts[part].name.clone(),
+            let entry = |k: usize, j: usize| {
+                rows[k]
+                    .binary_search_by_key(&j, |e| e.0)
+                    .map_or(0.0, |p| rows[k][p].1)
+            };
+            let walked =
+                super::walk::substitute_rows(&rows, m, rhs.as_slice(), &vec![None; m], |k, j| {
+                    entry(k, j).abs() / column_norms[j] > options.rank_tolerance * row_max[k]
+                })
+                .map_err(|e| {
+                    let part = self.kin.dofs[self.dofs[e.row]].part;
+                    SolveError::BeyondPrecision {
+                        stage: stage_name(case, breakaway),
+                        what: "a tension",
+                        part: rig.parts[part].name.clone(),
+                    }
+                })?;
+            let (solution, rank, residual, terms_max, by_stiffness) = match walked {
+                Some(x) => {
+                    // The misfit and the size of the terms, over the pattern.
+                    let misfit: DVector<Real> = DVector::from_iterator(
+                        n,
+                        rows.iter()
+                            .zip(rhs.iter())
+                            .map(|(row, b)| row.iter().map(|&(j, v)| v * x[j]).sum::<Real>() - b),
+                    );
+                    let terms = rows
+                        .iter()
+                        .map(|row| row.iter().map(|&(j, v)| v.abs() * x[j].abs()).sum::<Real>())
+                        .fold(0.0, Real::max);
+                    (DVector::from_vec(x), m, misfit.norm(), terms, false)
                 }
-            })?;
-            let (solution, rank) = match walked {
-                Some(x) => (DVector::from_vec(x), m),
-                None => self.dense_solve(&mat, &rhs, &column_norms, options),
+                None => {
+                    let mut mat = DMatrix::zeros(n, m);
+                    for (k, row) in rows.iter().enumerate() {
+                        for &(j, v) in row {
+                            mat[(k, j)] = v;
+                        }
+                    }
+                    let column_norms = dense_column_norms(&mat);
+                    let (solution, rank) = self.dense_solve(&mat, &rhs, &column_norms, options);
+                    // Lines sharing a block: the split by stiffness where ropes give one.
+                    let (solution, by_stiffness) = if rank < m {
+                        self.stiffness_split(&mat, &column_norms, &coef, solution, options)
+                    } else {
+                        (solution, false)
+                    };
+                    let residual = (&mat * &solution - &rhs).norm();
+                    let terms = (mat.abs() * solution.abs()).amax();
+                    (solution, rank, residual, terms, by_stiffness)
+                }
             };
-            // Lines sharing a block: the split by stiffness where ropes give one.
-            let (solution, by_stiffness) = if rank < m {
-                self.stiffness_split(&mat, &column_norms, &coef, solution, options)
-            } else {
-                (solution, false)
-            };
-            let residual = (&mat * &solution - &rhs).norm();
             // Compare the misfit with the size of the terms that should cancel.
-            let terms = mat.abs() * solution.abs();
-            let rhs_scale = rhs.norm().max(terms.amax()).max(1e-300);
+            let rhs_scale = rhs.norm().max(terms_max).max(1e-300);
             if !solution.iter().all(|v| v.is_finite()) || !residual.is_finite() {
                 return Err(SolveError::NonFinite {
                     stage: stage_name(case, breakaway),
@@ -533,9 +679,14 @@ impl<'a> Problem<'a> {
             if residual > 1e-7 * rhs_scale {
                 // Name the cause: a moving part whose equation no tension reaches (its
                 // lines pull only sideways to its motion), else friction itself.
-                let tension_scale = mat.amax().max(1e-300);
+                let tension_scale = rows
+                    .iter()
+                    .flatten()
+                    .map(|e| e.1.abs())
+                    .fold(0.0, Real::max)
+                    .max(1e-300);
                 let sideways = (0..n).find(|&k| {
-                    (0..m).all(|j| mat[(k, j)].abs() <= 1e-12 * tension_scale)
+                    rows[k].iter().all(|e| e.1.abs() <= 1e-12 * tension_scale)
                         && rhs[k].abs() > 1e-7 * rhs_scale
                 });
                 let (part, hint) = match sideways {
@@ -555,24 +706,26 @@ impl<'a> Problem<'a> {
                     hint,
                 });
             }
-            let mut tension: Vec<Vec<Real>> = rig
+            let mut tension: Vec<Vec<Real>> = self
                 .lines
                 .iter()
-                .map(|l| vec![0.0; l.path.len().saturating_sub(1)])
+                .map(|&l| vec![0.0; rig.lines[l].path.len().saturating_sub(1)])
                 .collect();
-            for (col, &g) in self.segs.iter().enumerate() {
+            for (col, (&g, &li)) in self.segs.iter().zip(&self.seg_line).enumerate() {
                 let seg = self.kin.segments[g];
                 for j in seg.first..seg.last {
-                    let (c, c0) = coef[seg.line][j];
-                    tension[seg.line][j] = c * solution[col] + c0;
+                    let (c, c0) = coef[li][j];
+                    tension[li][j] = c * solution[col] + c0;
                 }
             }
-            let change = previous
-                .as_ref()
-                .map(|p| relative_change(p, &tension, &self.lines));
+            let change = previous.as_ref().map(|p| relative_change(p, &tension));
             let converged = !needs_iteration || change.is_some_and(|c| c <= options.tolerance);
+            let last = options.max_iterations.max(1) == iteration;
+            // The tensions go to the answer, and are kept for the next iteration only
+            // where there is one.
+            let kept = (!converged && !last).then(|| tension.clone());
             outcome = Some((
-                tension.clone(),
+                tension,
                 solution[m - 1],
                 stalled,
                 drum_friction,
@@ -589,7 +742,7 @@ impl<'a> Problem<'a> {
                 iterations: iteration,
                 change: change.unwrap_or(Real::INFINITY),
             };
-            previous = Some(tension);
+            previous = kept;
         }
         let Some((tension, value, stalled, drum_friction, indeterminate, by_stiffness)) = outcome
         else {
@@ -630,6 +783,7 @@ impl<'a> Problem<'a> {
             geometry: self.geometry,
             kin: self.kin,
             segs: &self.segs,
+            seg_line: &self.seg_line,
             dofs: &self.dofs,
             coef,
             rise: &|l, j| self.weight.rise(l, j),
@@ -673,43 +827,6 @@ impl<'a> Problem<'a> {
         &self.lines
     }
 
-    /// The equilibrated least-squares solve of `mat x = rhs` by SVD, and the rank it
-    /// finds: for systems the walk cannot order (lines sharing a block, coupled
-    /// drums).
-    fn dense_solve(
-        &self,
-        mat: &DMatrix<Real>,
-        rhs: &DVector<Real>,
-        column_norms: &[Real],
-        options: &SolveOptions,
-    ) -> (DVector<Real>, usize) {
-        let (n, m) = mat.shape();
-        let mut scaled = mat.clone();
-        for (j, n) in column_norms.iter().enumerate() {
-            scaled.column_mut(j).unscale_mut(*n);
-        }
-        // Then the rows (equations), which leaves the solutions of a consistent
-        // system unchanged.
-        let mut scaled_rhs = rhs.clone();
-        for i in 0..n {
-            let r = scaled.row(i).amax();
-            if r > 0.0 && r.is_finite() {
-                scaled.row_mut(i).unscale_mut(r);
-                scaled_rhs[i] /= r;
-            }
-        }
-        let scale = scaled.amax().max(1e-300);
-        let svd = scaled.svd(true, true);
-        let rank = svd.rank(options.rank_tolerance * scale);
-        let mut solution = svd
-            .solve(&scaled_rhs, options.rank_tolerance * scale)
-            .unwrap_or_else(|_| DVector::zeros(m));
-        for (j, n) in column_norms.iter().enumerate() {
-            solution[j] /= n;
-        }
-        (solution, rank)
-    }
-
     /// The error for a tension coefficient that overflowed at entry `e` of `line`.
     fn non_finite(
         &self,
@@ -730,9 +847,9 @@ impl<'a> Problem<'a> {
         }
     }
 
-    /// Whether any friction depends on the tensions themselves.
+    /// Whether any friction of the sub-rig depends on the tensions themselves.
     fn load_dependent(&self) -> bool {
-        self.rig.parts.iter().any(|p| match &p.kind {
+        self.parts.iter().any(|&p| match &self.rig.parts[p].kind {
             PartKind::Sheave(s) => Problem::sheave_load_dependent(s),
             PartKind::Drum(d) => {
                 d.shaft.as_ref().is_some_and(|s| {
@@ -757,11 +874,12 @@ fn stage_name(case: Case, breakaway: bool) -> &'static str {
     }
 }
 
-fn relative_change(a: &[Vec<Real>], b: &[Vec<Real>], lines: &[LineId]) -> Real {
+/// Largest change between two sets of the sub-rig's tensions over the largest tension.
+fn relative_change(a: &[Vec<Real>], b: &[Vec<Real>]) -> Real {
     let mut worst: Real = 0.0;
     let mut scale: Real = 0.0;
-    for &l in lines {
-        for (x, y) in a[l].iter().zip(&b[l]) {
+    for (a, b) in a.iter().zip(b) {
+        for (x, y) in a.iter().zip(b) {
             worst = worst.max((x - y).abs());
             scale = scale.max(y.abs());
         }

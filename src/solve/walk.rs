@@ -53,6 +53,34 @@ pub fn substitute(
     significant: impl Fn(usize, usize) -> bool,
 ) -> Result<Option<Vec<Real>>, BeyondPrecision> {
     let (n, m) = a.shape();
+    let rows: Vec<Vec<(usize, Real)>> = (0..n)
+        .map(|r| {
+            (0..m)
+                .filter(|&j| a[(r, j)] != 0.0)
+                .map(|j| (j, a[(r, j)]))
+                .collect()
+        })
+        .collect();
+    substitute_rows(&rows, m, b, known, significant)
+}
+
+/// [`substitute`] on a sparse matrix of `m` columns given by its rows: `rows[r]` holds
+/// the nonzero entries `(column, value)` of equation `r`, in column order. The cost is
+/// one pass over the nonzero entries, however large the system.
+///
+/// # Returns
+/// As [`substitute`], to the bit.
+///
+/// # Errors
+/// As [`substitute`].
+pub fn substitute_rows(
+    rows: &[Vec<(usize, Real)>],
+    m: usize,
+    b: &[Real],
+    known: &[Option<Real>],
+    significant: impl Fn(usize, usize) -> bool,
+) -> Result<Option<Vec<Real>>, BeyondPrecision> {
+    let n = rows.len();
     debug_assert_eq!(b.len(), n);
     debug_assert_eq!(known.len(), m);
     let mut x: Vec<Real> = known.iter().map(|k| k.unwrap_or(0.0)).collect();
@@ -65,9 +93,9 @@ pub fn substitute(
     }
     let mut rows_of: Vec<Vec<usize>> = vec![Vec::new(); m];
     let mut unknowns = vec![0usize; n];
-    for r in 0..n {
-        for j in 0..m {
-            if a[(r, j)] != 0.0 {
+    for (r, row) in rows.iter().enumerate() {
+        for &(j, v) in row {
+            if v != 0.0 {
                 rows_of[j].push(r);
                 if !found[j] {
                     unknowns[r] += 1;
@@ -82,15 +110,15 @@ pub fn substitute(
         if used[r] || unknowns[r] != 1 {
             continue;
         }
-        let Some(p) = (0..m).find(|&j| !found[j] && a[(r, j)] != 0.0) else {
+        let Some(&(p, pivot)) = rows[r].iter().find(|&&(j, v)| !found[j] && v != 0.0) else {
             continue;
         };
         if !significant(r, p) {
             return Ok(None);
         }
         let mut rest = b[r];
-        for j in 0..m {
-            let (coef, value) = (a[(r, j)], x[j]);
+        for &(j, coef) in &rows[r] {
+            let value = x[j];
             if j == p || coef == 0.0 || value == 0.0 {
                 continue;
             }
@@ -100,7 +128,7 @@ pub fn substitute(
             }
             rest -= term;
         }
-        let value = rest / a[(r, p)];
+        let value = rest / pivot;
         if rest != 0.0 && !value.is_normal() {
             return Err(BeyondPrecision { row: r, col: p });
         }

@@ -5,8 +5,11 @@
 //!
 //! Every study works on a [`RigSource`]: the rig file's text and the `--set` overrides
 //! every run applies. A study changes a rig only through more overrides on the parsed
-//! tree (so a changed value gets the loader's checks) or, for the stroke, by moving the
-//! resolved parts; none has physics of its own. Results are plain structs that
+//! tree (so a changed value gets the loader's checks), by setting model values where
+//! that gives the very rig the overrides give ([`ModelSampler`], [`local`]), or, for
+//! the stroke, by moving the resolved parts; none has physics of its own. A change of
+//! friction or load moves no part, so such a run keeps the rig's geometry and motion and
+//! solves only the sub-rigs it reaches ([`local`]). Results are plain structs that
 //! serialize to JSON with units in the keys; [`crate::report::study`] writes them out
 //! as text, Markdown, CSV or JSON, and [`crate::report::chart`] draws their charts.
 //!
@@ -15,6 +18,7 @@
 //! checks and fails (exit 1) where `check` would fail any of its rigs.
 
 pub mod compare;
+pub mod local;
 pub mod rank;
 pub mod rng;
 pub mod spread;
@@ -128,15 +132,18 @@ impl RigSource {
     /// # Errors
     /// [`StudyError::Solve`].
     pub fn solve_rig(&self, rig: &Rig) -> Result<Solution, StudyError> {
-        solve::solve(rig, &SolveOptions::default()).map_err(|error| {
-            let source_name = match error.location(rig) {
-                Some((l, subject)) if l.line > 0 => {
-                    format!("{}:{}:{}: {subject}", self.source, l.line, l.column)
-                }
-                _ => self.source.clone(),
-            };
-            StudyError::Solve { source_name, error }
-        })
+        solve::solve(rig, &SolveOptions::default()).map_err(|error| self.solve_error(rig, error))
+    }
+
+    /// A solve error of `rig`, located in this source as `check` words it.
+    pub fn solve_error(&self, rig: &Rig, error: SolveError) -> StudyError {
+        let source_name = match error.location(rig) {
+            Some((l, subject)) if l.line > 0 => {
+                format!("{}:{}:{}: {subject}", self.source, l.line, l.column)
+            }
+            _ => self.source.clone(),
+        };
+        StudyError::Solve { source_name, error }
     }
 
     /// Whether the mapping at `path` (exact key names, e.g. `["parts", "hook.a",
@@ -209,7 +216,9 @@ impl RigSource {
 
 /// A loaded rig with a study's ranged keys resolved to model parameters
 /// ([`crate::model::param`]): a sample is the rig with its drawn values set, not a new
-/// read of the file.
+/// read of the file. Every such parameter is a coefficient of friction or a load:
+/// none moves a part, so a sample keeps the rig's geometry and motion
+/// ([`local::Local::solve_all`]).
 #[derive(Debug, Clone)]
 pub struct ModelSampler {
     base: Rig,
@@ -221,10 +230,18 @@ impl ModelSampler {
     /// one does not convert or fails its check (the caller takes the file path).
     pub fn rig(&self, values: &[Real]) -> Option<Rig> {
         let mut rig = self.base.clone();
-        for (p, &v) in self.params.iter().zip(values) {
-            p.param.set(&mut rig, p.si(&self.base, v)?)?;
-        }
+        self.set(&mut rig, values)?;
         Some(rig)
+    }
+
+    /// [`ModelSampler::rig`] written into `rig`, a rig this sampler made (every ranged
+    /// value is set again, so one rig serves every sample of a thread). None, and `rig`
+    /// possibly changed, as there.
+    pub fn set(&self, rig: &mut Rig, values: &[Real]) -> Option<()> {
+        for (p, &v) in self.params.iter().zip(values) {
+            p.param.set(rig, p.si(&self.base, v)?)?;
+        }
+        Some(())
     }
 }
 
@@ -303,9 +320,26 @@ pub struct Verdict {
 impl Verdict {
     /// The verdict of a built report.
     pub fn of(report: &Report) -> Verdict {
+        Verdict::from_warnings(
+            report.headline.margin,
+            report.headline.moves,
+            &report.warnings,
+        )
+    }
+
+    /// The verdict from the main sub-rig's margin and whether it moves, and the
+    /// warnings in the order `check` lists them (what [`Verdict::of`] reads of a
+    /// report).
+    pub fn from_warnings<'a>(
+        margin: Option<Real>,
+        moves: Option<bool>,
+        warnings: impl IntoIterator<Item = &'a checks::Warning>,
+    ) -> Verdict {
         let mut failing = Vec::new();
         let mut stalled = Vec::new();
-        for w in &report.warnings {
+        let mut fails = false;
+        for w in warnings {
+            fails |= w.fails;
             if w.fails && !failing.contains(&w.code) {
                 failing.push(w.code);
             }
@@ -316,9 +350,9 @@ impl Verdict {
             }
         }
         Verdict {
-            margin: report.headline.margin,
-            moves: report.headline.moves,
-            fails: report.fails(),
+            margin,
+            moves,
+            fails,
             failing,
             stalled,
         }
@@ -393,10 +427,15 @@ fn fold_min(values: impl Iterator<Item = Real>) -> Option<Real> {
 
 /// Largest tension of any span of the rig over the forward and back cases, N.
 pub fn largest_tension(solution: &Solution) -> Option<Real> {
-    fold_max(solution.subrigs.iter().flat_map(|s| {
+    largest_tension_of(&solution.subrigs)
+}
+
+/// [`largest_tension`] over the sub-rigs' answers `subrigs`.
+pub fn largest_tension_of(subrigs: &[solve::SubRigSolution]) -> Option<Real> {
+    fold_max(subrigs.iter().flat_map(|s| {
         [&s.forward, &s.back]
             .into_iter()
-            .flat_map(|c| c.tension.iter().flatten().copied())
+            .flat_map(|c| c.tension.entries().flat_map(|(_, t)| t).copied())
     }))
 }
 

@@ -6,8 +6,10 @@
 //!
 //! "Frictionless" means: a sheave's bearing set to `{kind: none}`; a guide's `mu` set
 //! to 0; a drum's shaft removed (frictionless journal and thrust) and its `drag` set
-//! to 0. Each is applied as an override on the parsed tree, so the result is exactly
-//! the forward value of the rig written that way.
+//! to 0. Each is the forward value of the rig written that way: made on the model where
+//! that gives the very rig the override on the parsed tree gives (checked once per kind
+//! of change), else through the file, and solved on the sub-rig the part belongs to
+//! ([`super::local`]; a rope's coefficient reaches every sub-rig its lines run in).
 //!
 //! `--to rolling` replaces a plain bearing by a rolling one with catalogue defaults:
 //! bore = the plain bearing's pin diameter and mu = [`ROLLING_MU`]. Sheaves rated by
@@ -24,6 +26,7 @@ use crate::report::Asked;
 use crate::report::{finite, CAUTION};
 use crate::units::UnitSystem;
 
+use super::local::{self, Edit, Local, Subject};
 use super::{RigSource, StudyError, Verdict};
 
 /// Friction coefficient of the `--to rolling` default: a deep-groove ball bearing's
@@ -250,16 +253,26 @@ pub fn alternative_settings(
 /// Every friction coefficient of the rig that acts on the forward value, under the key
 /// the file (with its `--set` overrides) writes it by.
 pub fn coefficients(rig: &Rig, source: &RigSource) -> Vec<Coefficient> {
+    coefficients_of(rig, source)
+        .into_iter()
+        .map(|(c, _)| c)
+        .collect()
+}
+
+/// [`coefficients`], each with the part or rope it belongs to.
+fn coefficients_of(rig: &Rig, source: &RigSource) -> Vec<(Coefficient, Subject)> {
+    let mut tagged = Vec::new();
     let mut out = Vec::new();
     let mu = |key: String, value: Real| Coefficient {
         key,
         value,
         measure: Measure::Mu,
     };
-    for r in &rig.ropes {
+    for (id, r) in rig.ropes.iter().enumerate() {
         out.push(mu(format!("ropes.{}.mu", r.name), r.mu));
+        tagged.extend(out.drain(..).map(|c| (c, Subject::Rope(id))));
     }
-    for p in &rig.parts {
+    for (id, p) in rig.parts.iter().enumerate() {
         let n = &p.name;
         let bearing = |path: &[&str], b: &Bearing, out: &mut Vec<Coefficient>| {
             let prefix = path.join(".");
@@ -309,8 +322,9 @@ pub fn coefficients(rig: &Rig, source: &RigSource) -> Vec<Coefficient> {
             }
             _ => {}
         }
+        tagged.extend(out.drain(..).map(|c| (c, Subject::Part(id))));
     }
-    out
+    tagged
 }
 
 /// Differences of the forward value within this of zero are round-off: a relative
@@ -376,12 +390,100 @@ pub fn derivative(source: &RigSource, c: &Coefficient) -> Result<Real, StudyErro
     }
 }
 
+/// The runs of a ranking: on the sub-rigs a change reaches ([`super::local`]) where
+/// the rig allows, else each on the whole rig as the file gives it.
+struct Runs<'a> {
+    source: &'a RigSource,
+    local: Option<Local<'a>>,
+}
+
+impl Runs<'_> {
+    /// The forward value and verdict with `part` made frictionless by `settings`.
+    fn frictionless(
+        &self,
+        rig: &Rig,
+        part: usize,
+        settings: &[(String, String)],
+    ) -> Result<(Real, Verdict), StudyError> {
+        let Some(l) = &self.local else {
+            return judged_with(self.source, settings);
+        };
+        let apply = |r: &mut Rig| local::frictionless(r, part);
+        let edit = Edit {
+            kind: local::frictionless_kind(rig, part),
+            apply: &apply,
+        };
+        let o = l.run(Subject::Part(part), Some(edit), settings, true)?;
+        Ok((o.forward, o.verdict.unwrap_or_default()))
+    }
+
+    /// The forward value and verdict with `part`'s bearing set by `settings`.
+    fn alternative(
+        &self,
+        part: usize,
+        settings: &[(String, String)],
+    ) -> Result<(Real, Verdict), StudyError> {
+        let Some(l) = &self.local else {
+            return judged_with(self.source, settings);
+        };
+        let o = l.run(Subject::Part(part), None, settings, true)?;
+        Ok((o.forward, o.verdict.unwrap_or_default()))
+    }
+
+    /// The forward value with coefficient `key` (of `subject`) at `value`.
+    fn forward(
+        &self,
+        rig: &Rig,
+        subject: Subject,
+        key: &str,
+        value: Real,
+    ) -> Result<Real, StudyError> {
+        let settings = [(key.to_string(), format!("{value}"))];
+        let Some(l) = &self.local else {
+            return forward_with(self.source, &settings);
+        };
+        let o = match local::set_key(rig, key, value) {
+            Some((kind, apply)) => {
+                let edit = Edit {
+                    kind,
+                    apply: &apply,
+                };
+                l.run(subject, Some(edit), &settings, false)?
+            }
+            None => l.run(subject, None, &settings, false)?,
+        };
+        Ok(o.forward)
+    }
+
+    /// [`derivative`] through these runs.
+    fn derivative(&self, rig: &Rig, subject: Subject, c: &Coefficient) -> Result<Real, StudyError> {
+        let (lower, upper) = c.bounds();
+        let value = c.value;
+        let h = (value.abs() * 1e-4).max(1e-6);
+        let at = |v: Real| self.forward(rig, subject, &c.key, v);
+        if value - h < lower {
+            Ok((at(value + h)? - at(value)?) / h)
+        } else if value + h > upper {
+            Ok((at(value)? - at(value - h)?) / h)
+        } else {
+            Ok((at(value + h)? - at(value - h)?) / (2.0 * h))
+        }
+    }
+}
+
 /// Ranks the parts and computes the sensitivities.
+///
+/// Each run changes one part's or one rope's friction, and is solved on the sub-rigs
+/// the change reaches ([`super::local`]): the figures are the whole rig's, to the bit.
 ///
 /// # Errors
 /// When the rig as written does not load or solve.
 pub fn rank(source: &RigSource, alt: Option<&Alternative>) -> Result<Ranking, StudyError> {
     let (rig, solution) = source.solve(&[])?;
+    let runs = Runs {
+        source,
+        local: Local::new(source, &rig, &solution),
+    };
     let main = solution.main();
     let f0 = main.forward.value;
     let sign = if main.drive_unknown() { -1.0 } else { 1.0 };
@@ -394,7 +496,7 @@ pub fn rank(source: &RigSource, alt: Option<&Alternative>) -> Result<Ranking, St
             continue;
         };
         let mut notes = Vec::new();
-        let (frictionless, frictionless_verdict) = match judged_with(source, &settings) {
+        let (frictionless, frictionless_verdict) = match runs.frictionless(&rig, id, &settings) {
             Ok((v, verdict)) => (Some(v), Some(verdict)),
             Err(e) => {
                 notes.push(format!("frictionless: {}", e.chain()));
@@ -408,7 +510,7 @@ pub fn rank(source: &RigSource, alt: Option<&Alternative>) -> Result<Ranking, St
                     notes.push(why);
                     (None, None)
                 }
-                Some(Ok(s)) => match judged_with(source, &s) {
+                Some(Ok(s)) => match runs.alternative(id, &s) {
                     Ok((v, verdict)) => (Some(v), Some(verdict)),
                     Err(e) => {
                         notes.push(format!("alternative: {}", e.chain()));
@@ -452,13 +554,10 @@ pub fn rank(source: &RigSource, alt: Option<&Alternative>) -> Result<Ranking, St
     let parts = largest_first(parts, order);
     let mut sensitivities = Vec::new();
     let mut order = Vec::new();
-    for c in coefficients(&rig, source) {
-        let d = derivative(source, &c).ok().and_then(finite);
-        let less = (
-            c.key.clone(),
-            format!("{}", c.with_less_friction(SENSITIVITY_CUT)),
-        );
-        let cut = signed(forward_with(source, &[less]).ok());
+    for (c, subject) in coefficients_of(&rig, source) {
+        let d = runs.derivative(&rig, subject, &c).ok().and_then(finite);
+        let less = c.with_less_friction(SENSITIVITY_CUT);
+        let cut = signed(runs.forward(&rig, subject, &c.key, less).ok());
         let (saved, worse) = split_saving(cut, noise);
         order.push((
             saved.or(worse.map(|w| -w)).unwrap_or(Real::NEG_INFINITY),

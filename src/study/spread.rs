@@ -1,7 +1,8 @@
 //! `spread`: Monte Carlo over every value the rig file gives as a range
 //! (`{min, max}` uniform, `{mean, sd}` normal truncated at zero). Each sample draws all
-//! of them together, applies them as overrides on the parsed tree and solves; the
-//! solver is untouched. Sample `i` always uses random stream `i` of the seed
+//! of them together, sets them on the resolved model where every ranged key is a model
+//! value (keeping the rig's geometry and motion, [`super::local`]) or else applies them
+//! as overrides on the parsed tree, and solves; the solver is untouched. Sample `i` always uses random stream `i` of the seed
 //! ([`Rng::stream`]), so the numbers do not depend on the number of threads.
 
 use std::collections::BTreeMap;
@@ -16,8 +17,11 @@ use crate::report::{finite, CAUTION};
 use crate::rig::overrides::{Distribution, Uncertain};
 use crate::units::UnitSystem;
 
+use super::local::Local;
 use super::rng::Rng;
-use super::{assess, largest_tension, ModelSampler, RigSource, StudyError, Verdict};
+use super::{
+    assess, largest_tension, largest_tension_of, ModelSampler, RigSource, StudyError, Verdict,
+};
 use crate::report::text::not_moving_words;
 
 /// Draws one value of a distribution.
@@ -81,21 +85,44 @@ pub fn settings_of(ranges: &[Uncertain], seed: u64, i: u64) -> Vec<(String, Stri
 
 /// Solves sample `i`; None when that rig cannot be solved.
 pub fn run_sample(source: &RigSource, ranges: &[Uncertain], seed: u64, i: u64) -> Option<Sample> {
-    run_sample_on(source, None, ranges, seed, i)
+    run_sample_on(source, None, None, &mut None, ranges, seed, i)
 }
 
 /// Solves sample `i`, on the resolved model when `model` gives every ranged key as a
 /// model parameter and the drawn values pass their checks, else on the file.
+/// `work` is the thread's rig for the model path (made on first use, and again after
+/// a draw the model refuses).
 fn run_sample_on(
     source: &RigSource,
     model: Option<&ModelSampler>,
+    local: Option<&Local>,
+    work: &mut Option<crate::model::Rig>,
     ranges: &[Uncertain],
     seed: u64,
     i: u64,
 ) -> Option<Sample> {
-    let (rig, s) = source
-        .solve_values(model, &keys_of(ranges), &draws_of(ranges, seed, i))
-        .ok()?;
+    let values = draws_of(ranges, seed, i);
+    // On the model, the rig's geometry and motion kept: only the statics and the
+    // sub-rigs' checks run again.
+    if let (Some(model), Some(local)) = (model, local) {
+        let rig = match work.take() {
+            Some(mut rig) => model.set(&mut rig, &values).map(|()| rig),
+            None => model.rig(&values),
+        };
+        if let Some(rig) = rig {
+            let answer = local.solve_all(&rig);
+            *work = Some(rig);
+            let (subs, verdict) = answer.ok()?;
+            let main = &subs[0];
+            return Some(Sample {
+                forward: finite(main.forward.value)?,
+                back: finite(main.back.value)?,
+                largest_tension: largest_tension_of(&subs)?,
+                verdict,
+            });
+        }
+    }
+    let (rig, s) = source.solve_values(model, &keys_of(ranges), &values).ok()?;
     let main = s.main();
     Some(Sample {
         forward: finite(main.forward.value)?,
@@ -231,6 +258,9 @@ pub fn spread(
     // of the file per sample); any other key, or a draw the model path refuses, takes
     // the file path, which gives the loader's checks and messages.
     let model = source.sampler(&rig, &keys_of(&ranges), &draws_of(&ranges, seed, 0));
+    let local = model
+        .as_ref()
+        .and_then(|_| Local::new(source, &rig, &nominal));
     let threads = if threads == 0 {
         std::thread::available_parallelism().map_or(1, |n| n.get())
     } else {
@@ -255,12 +285,15 @@ pub fn spread(
         // Thread t takes samples t, t + threads, ...; each sample uses its own stream.
         let chunks: Vec<Vec<(usize, Option<Sample>)>> = (0..threads)
             .map(|t| {
-                let (ranges, done, model) = (&ranges, &done, model.as_ref());
+                let (ranges, done, model, local) = (&ranges, &done, model.as_ref(), local.as_ref());
                 scope.spawn(move || {
+                    let mut work = None;
                     (t..samples)
                         .step_by(threads)
                         .map(|i| {
-                            let r = run_sample_on(source, model, ranges, seed, i as u64);
+                            let r = run_sample_on(
+                                source, model, local, &mut work, ranges, seed, i as u64,
+                            );
                             done.fetch_add(1, Ordering::Relaxed);
                             (i, r)
                         })

@@ -192,6 +192,29 @@ fn a_haul_pulled_off_its_rope_says_what_the_rope_carries() {
 }
 
 #[test]
+fn a_haul_pulled_off_its_rope_in_another_sub_rig_names_its_own_rope_tension() {
+    // Guards the tension `pull-off-rope` quotes: that of the haul's own line, found in
+    // the sub-rig that owns it (it read 0 N from the main sub-rig before results were
+    // kept per sub-rig). tests/rigs/review/two-subrigs.yaml, `hand.a` (not the drive)
+    // pulled 30° off its rope: line a's first span carries 10 g e^{0.25π} = 215.09 N
+    // forward (the file's own hand calculation), shown to four digits.
+    let json = check_json(&[
+        "tests/rigs/review/two-subrigs.yaml",
+        "--set",
+        "parts.hand.a.pull=[0.5, 0, -0.8660254]",
+    ]);
+    let message = json["warnings"]
+        .as_array()
+        .unwrap()
+        .iter()
+        .find(|w| w["code"] == "pull-off-rope")
+        .and_then(|w| w["message"].as_str())
+        .unwrap_or_else(|| panic!("no pull-off-rope: {json}"))
+        .to_string();
+    assert!(message.contains("carries 215.1 N forward"), "{message}");
+}
+
+#[test]
 fn a_block_cannot_drive_against_its_own_load() {
     // A block driving upward against its own mass load would do negative work; refuse
     // it with a located message instead of showing an efficiency above 100 %.

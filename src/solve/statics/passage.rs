@@ -29,8 +29,9 @@ impl Problem<'_> {
         own.unwrap_or(self.rig.rope_of(line).mu)
     }
 
-    /// `T_after = k T_before + delta` for middle entry `e` of `line`; also whether the
-    /// sheave stalls there.
+    /// `T_after = k T_before + delta` for middle entry `e` of `line` (local index `li`,
+    /// by which `previous` holds the last tensions); also whether the sheave stalls
+    /// there.
     ///
     /// # Errors
     /// [`SolveError::ImplausibleCapstan`] or [`SolveError::ImplausibleBearing`] when the
@@ -39,11 +40,12 @@ impl Problem<'_> {
         &self,
         case: Case,
         line: LineId,
+        li: usize,
         e: usize,
-        previous: Option<&Vec<Vec<Real>>>,
+        previous: Option<&[Vec<Real>]>,
         breakaway: bool,
     ) -> Result<(Real, Real, bool), SolveError> {
-        let (k, delta, stall) = self.passage_ratio(case, line, e, previous, breakaway);
+        let (k, delta, stall) = self.passage_ratio(case, line, li, e, previous, breakaway);
         let ratio = k.max(1.0 / k);
         if ratio.is_finite() && ratio <= friction::PHYSICAL_RATIO_LIMIT {
             return Ok((k, delta, stall));
@@ -75,8 +77,9 @@ impl Problem<'_> {
         &self,
         case: Case,
         line: LineId,
+        li: usize,
         e: usize,
-        previous: Option<&Vec<Vec<Real>>>,
+        previous: Option<&[Vec<Real>]>,
         breakaway: bool,
     ) -> (Real, Real, bool) {
         if case == Case::Ideal {
@@ -105,7 +108,7 @@ impl Problem<'_> {
                 // The last tension estimate of the span before the passage, if any, at
                 // that span's end (the rope's weight makes its ends differ).
                 let before =
-                    previous.map(|p| (p[line][e - 1] + self.weight.rise(line, e - 1)).max(0.0));
+                    previous.map(|p| (p[li][e - 1] + self.weight.rise(li, e - 1)).max(0.0));
                 if let Some(turning) =
                     self.sheave_3d(sheave, (line, e), s, capstan, before, breakaway)
                 {
@@ -291,22 +294,27 @@ impl Problem<'_> {
             || sheave.thrust.is_some_and(|t| t.load > 0.0)
     }
 
-    /// Force each span puts on each part it touches, for the pin loads and drums.
-    pub(super) fn contact_forces(
-        &self,
-        tension: &[Vec<Real>],
-    ) -> Vec<Vec<(Vector, crate::math::Point)>> {
-        let mut forces = vec![Vec::new(); self.rig.parts.len()];
-        for &l in &self.lines {
-            let path = &self.rig.lines[l].path;
-            for (j, span) in self.geometry.lines[l].spans.iter().enumerate() {
+    /// The force each span touching local part `lp` (an index into `parts`) puts on
+    /// it, and where, from the tensions by local line: for the pin loads and drums. A
+    /// span with rope weight is tighter at its higher end and hangs half its weight
+    /// square to the chord on each end ([`RopeWeight::end_forces`]).
+    pub(super) fn contacts<'b>(
+        &'b self,
+        lp: usize,
+        tension: &'b [Vec<Real>],
+    ) -> impl Iterator<Item = (Vector, crate::math::Point)> + 'b {
+        self.touches[self.touch_start[lp]..self.touch_start[lp + 1]]
+            .iter()
+            .map(move |&(li, j, at_end)| {
+                let span = &self.geometry.lines[self.lines[li]].spans[j];
                 let u = span.direction.into_inner();
-                let (at_start, at_end) = self.weight.end_forces(l, j, &u, tension[l][j]);
-                forces[path[j].part].push((at_start, span.start));
-                forces[path[j + 1].part].push((at_end, span.end));
-            }
-        }
-        forces
+                let (on_start, on_end) = self.weight.end_forces(li, j, &u, tension[li][j]);
+                if at_end {
+                    (on_end, span.end)
+                } else {
+                    (on_start, span.start)
+                }
+            })
     }
 
     /// Power lost to the rope's bending at middle entry `e` of `line`, with the tensions
@@ -339,12 +347,12 @@ impl Problem<'_> {
     /// the smaller of its two spans' tensions ([`friction::bending`]); the power it
     /// takes is `β/(1 − β) T_slack |s|` with `s = R ω`, as over a sheave. Zero without
     /// tensions yet (the first pass of the fixed-point iteration).
-    pub(super) fn drum_bending(&self, part: PartId, tension: Option<&Vec<Vec<Real>>>) -> Real {
+    pub(super) fn drum_bending(&self, part: PartId, tension: Option<&[Vec<Real>]>) -> Real {
         let Some(tension) = tension else {
             return 0.0;
         };
         let mut torque = 0.0;
-        for &l in &self.lines {
+        for (li, &l) in self.lines.iter().enumerate() {
             let beta = self.rig.rope_of(l).bend_loss;
             let path = &self.rig.lines[l].path;
             if beta == 0.0 || path.len() < 3 {
@@ -354,7 +362,7 @@ impl Problem<'_> {
                 if path[e].part != part {
                     continue;
                 }
-                let slack = tension[l][e - 1].min(tension[l][e]);
+                let slack = tension[li][e - 1].min(tension[li][e]);
                 let r = self.geometry.lines[l].entries[e].pitch_radius;
                 torque += friction::bending::bending_power(beta, slack) * r;
             }
@@ -380,7 +388,7 @@ impl Problem<'_> {
     pub(super) fn drum_friction(
         &self,
         part: PartId,
-        forces: &[(Vector, crate::math::Point)],
+        forces: impl Iterator<Item = (Vector, crate::math::Point)>,
         breakaway: bool,
     ) -> DrumFriction {
         let PartKind::Drum(d) = &self.rig.parts[part].kind else {
@@ -390,7 +398,7 @@ impl Problem<'_> {
         let mut thrust = 0.0;
         if let Some(shaft) = &d.shaft {
             let axle = d.axle.into_inner();
-            let total = forces.iter().fold(
+            let total = forces.fold(
                 gravity_force(self.rig, d.mass.unwrap_or(0.0)),
                 |a, (f, _)| a + f,
             );

@@ -5,23 +5,23 @@ use super::*;
 
 /// The energy audit's losses by kind, per part, W per unit drive speed (as
 /// [`CaseResult::loss`], which is their sum part by part).
-#[derive(Debug, Clone, PartialEq, Default)]
+#[derive(Debug, Clone, PartialEq)]
 pub struct Losses {
     /// A turning sheave's bearing: journal (friction circle, rolling or rated) and
     /// thrust face.
-    pub bearing: Vec<Real>,
+    pub bearing: ById<Real>,
     /// The rope's own bending over a turning sheave (the rope's `bend_loss`).
-    pub bending: Vec<Real>,
+    pub bending: ById<Real>,
     /// Rope sliding on a fixed surface: a guide, a stalled sheave (capstan).
-    pub surface: Vec<Real>,
+    pub surface: ById<Real>,
     /// A drum's drag, journal and thrust.
-    pub drum: Vec<Real>,
+    pub drum: ById<Real>,
 }
 
 impl Losses {
     /// Each kind summed over the parts: (bearing, bending, surface, drum).
     pub fn totals(&self) -> (Real, Real, Real, Real) {
-        let sum = |v: &[Real]| v.iter().sum::<Real>();
+        let sum = |v: &ById<Real>| v.entries().map(|(_, x)| x).sum::<Real>();
         (
             sum(&self.bearing),
             sum(&self.bending),
@@ -32,6 +32,7 @@ impl Losses {
 }
 
 impl Problem<'_> {
+    /// `tension` by local line; `velocity[k]` is the case's speed of `dofs[k]`.
     #[allow(clippy::too_many_arguments)]
     pub(super) fn finish(
         &self,
@@ -42,34 +43,35 @@ impl Problem<'_> {
         drum_friction: Vec<DrumFriction>,
         indeterminate: bool,
         status: Status,
-        velocity: &DVector<Real>,
+        velocity: &[Real],
     ) -> CaseResult {
         let rig = self.rig;
-        let nparts = rig.parts.len();
-        let mut loss = vec![0.0; nparts];
-        let mut losses = Losses {
-            bearing: vec![0.0; nparts],
-            bending: vec![0.0; nparts],
-            surface: vec![0.0; nparts],
-            drum: vec![0.0; nparts],
-        };
-        let mut ratio: Vec<Vec<Option<Real>>> =
-            rig.lines.iter().map(|l| vec![None; l.path.len()]).collect();
+        // By local part (`parts`) and local line (`lines`), keyed by the rig's ids at
+        // the end.
+        let nlocal = self.parts.len();
+        let mut loss = vec![0.0; nlocal];
+        let mut losses = [(); 4].map(|_| vec![0.0; nlocal]);
+        let [bearing, bending_by_part, surface, drum] = &mut losses;
+        let mut ratio: Vec<Vec<Option<Real>>> = self
+            .lines
+            .iter()
+            .map(|&l| vec![None; rig.lines[l].path.len()])
+            .collect();
         let mut slack = Vec::new();
         let mut slipping = Vec::new();
         let tension_end = self.end_tensions(&tension);
-        for &l in &self.lines {
+        for (li, &l) in self.lines.iter().enumerate() {
             let path = &rig.lines[l].path;
-            for (j, &t) in tension[l].iter().enumerate() {
-                if t.min(tension_end[l][j]) < -1e-9 * (1.0 + value.abs()) {
+            for (j, &t) in tension[li].iter().enumerate() {
+                if t.min(tension_end[li][j]) < -1e-9 * (1.0 + value.abs()) {
                     slack.push((l, j));
                 }
             }
             for e in 1..path.len() - 1 {
-                let (a, b) = (tension_end[l][e - 1], tension[l][e]);
+                let (a, b) = (tension_end[li][e - 1], tension[li][e]);
                 let (hi, lo) = if a.abs() >= b.abs() { (a, b) } else { (b, a) };
                 if lo.abs() > 0.0 {
-                    ratio[l][e] = Some(hi / lo);
+                    ratio[li][e] = Some(hi / lo);
                 }
                 let part = path[e].part;
                 if matches!(rig.parts[part].kind, PartKind::Drum(_)) {
@@ -93,39 +95,41 @@ impl Problem<'_> {
                     let s = case.sign() * self.kin.rope_speed[l][e];
                     // The arc's rise is the rope's weight, not friction; what is left of
                     // it at round-off (a frictionless passage) is no loss.
-                    let friction = b - a - self.weight.arc(l, e);
+                    let friction = b - a - self.weight.arc(li, e);
                     let lost = if friction.abs() > 1e-13 * (a.abs() + b.abs()) {
                         friction * s
                     } else {
                         0.0
                     };
-                    loss[part] += lost;
+                    let lp = self.path_part[li][e];
+                    loss[lp] += lost;
                     let stall = stalled.contains(&(l, e));
                     if matches!(rig.parts[part].kind, PartKind::Sheave(_)) && !stall {
                         let bending = self.bending_loss(case, (l, e), (a, b), stall);
-                        losses.bending[part] += bending;
-                        losses.bearing[part] += lost - bending;
+                        bending_by_part[lp] += bending;
+                        bearing[lp] += lost - bending;
                     } else {
-                        losses.surface[part] += lost;
+                        surface[lp] += lost;
                     }
                 }
             }
         }
         // Drum friction losses, per-dof powers.
-        let mut load_power = vec![0.0; nparts];
+        let mut load_power = vec![0.0; self.parts.len()];
         let mut drive_power = 0.0;
         for (k, &i) in self.dofs.iter().enumerate() {
             let part = self.kin.dofs[i].part;
-            let v = velocity[i];
+            let v = velocity[k];
             let friction = drum_friction[k];
-            loss[part] += friction.total() * v.abs();
-            losses.drum[part] += (friction.total() - friction.bending) * v.abs();
-            losses.bending[part] += friction.bending * v.abs();
+            let lp = self.dof_part[k];
+            loss[lp] += friction.total() * v.abs();
+            drum[lp] += (friction.total() - friction.bending) * v.abs();
+            bending_by_part[lp] += friction.bending * v.abs();
             let p = (self.q_load[k] + value * self.x_coef[k]) * v;
             if part == self.drive {
                 drive_power += p;
             } else {
-                load_power[part] -= p;
+                load_power[self.dof_part[k]] -= p;
             }
         }
         let total_loss: Real = loss.iter().sum();
@@ -143,11 +147,11 @@ impl Problem<'_> {
             (drive_power - total_load - total_loss - rope_power - stretch_power).abs() / scale;
 
         // Pin loads and drum torques.
-        let forces = self.contact_forces(&tension);
-        let mut pin_load = vec![None; nparts];
-        let mut drums = vec![None; nparts];
-        for (id, part) in rig.parts.iter().enumerate() {
-            if forces[id].is_empty() {
+        let mut pin_load = vec![None; self.parts.len()];
+        let mut drums = vec![None; self.parts.len()];
+        for (lp, &id) in self.parts.iter().enumerate() {
+            let part = &rig.parts[id];
+            if self.touch_start[lp] == self.touch_start[lp + 1] {
                 continue;
             }
             let own = match &part.kind {
@@ -155,18 +159,18 @@ impl Problem<'_> {
                 PartKind::Drum(d) => d.mass.unwrap_or(0.0),
                 _ => 0.0,
             };
-            let total = forces[id]
-                .iter()
+            let total = self
+                .contacts(lp, &tension)
                 .fold(gravity_force(rig, own), |a, (f, _)| a + f);
-            pin_load[id] = Some(total);
+            pin_load[lp] = Some(total);
             if let PartKind::Drum(d) = &part.kind {
                 let axle = d.axle.into_inner();
-                let torque: Real = forces[id]
-                    .iter()
-                    .map(|(f, at)| (at - part.at).cross(f).dot(&axle))
+                let torque: Real = self
+                    .contacts(lp, &tension)
+                    .map(|(f, at)| (at - part.at).cross(&f).dot(&axle))
                     .sum();
                 let k = self.dofs.iter().position(|&i| self.kin.dofs[i].part == id);
-                let speed = self.kin.dof_of_part[id].map(|i| velocity[i]).unwrap_or(0.0);
+                let speed = k.map(|k| velocity[k]).unwrap_or(0.0);
                 let dir = if speed < 0.0 { -1.0 } else { 1.0 };
                 let friction = k.map(|k| drum_friction[k]).unwrap_or_default();
                 let load = if id == self.solve_for && id != self.drive {
@@ -179,7 +183,7 @@ impl Problem<'_> {
                 let fwd = self.kin.dof_of_part[id]
                     .map(|i| self.kin.forward[i])
                     .unwrap_or(0.0);
-                drums[id] = Some(DrumTorques {
+                drums[lp] = Some(DrumTorques {
                     rope: torque * dir,
                     load: load * if fwd * speed >= 0.0 { 1.0 } else { -1.0 },
                     drag: friction.drag,
@@ -190,18 +194,19 @@ impl Problem<'_> {
                 });
             }
         }
+        let (nparts, nlines) = (rig.parts.len(), rig.lines.len());
         CaseResult {
             case,
             value,
-            tension,
-            tension_end,
+            tension: ById::new(nlines, self.line_ids.clone(), tension, Vec::new()),
+            tension_end: ById::new(nlines, self.line_ids.clone(), tension_end, Vec::new()),
             rope_power,
-            ratio,
-            loss,
-            load_power,
+            ratio: ById::new(nlines, self.line_ids.clone(), ratio, Vec::new()),
+            loss: ById::new(nparts, self.part_ids.clone(), loss, 0.0),
+            load_power: ById::new(nparts, self.part_ids.clone(), load_power, 0.0),
             drive_power,
-            pin_load,
-            drums,
+            pin_load: ById::new(nparts, self.part_ids.clone(), pin_load, None),
+            drums: ById::new(nparts, self.part_ids.clone(), drums, None),
             stalled,
             slipping,
             slack,
@@ -209,7 +214,16 @@ impl Problem<'_> {
             split_by_stiffness: false,
             status,
             audit_residual,
-            losses,
+            losses: {
+                let [bearing, bending, surface, drum] =
+                    losses.map(|v| ById::new(nparts, self.part_ids.clone(), v, 0.0));
+                Losses {
+                    bearing,
+                    bending,
+                    surface,
+                    drum,
+                }
+            },
         }
     }
 }
@@ -218,6 +232,7 @@ impl Problem<'_> {
     /// Every span's tension at its end, from the tension at its start (they differ by
     /// the rope's weight, DESIGN.md §7).
     fn end_tensions(&self, tension: &[Vec<Real>]) -> Vec<Vec<Real>> {
+        // By local line, as `tension`.
         tension
             .iter()
             .enumerate()
@@ -242,26 +257,34 @@ impl Problem<'_> {
     /// each segment's rate of lengthening times its tension where the walk of rope
     /// speeds leaves the misfit, its last span's end. Zero, to round-off, for a rig
     /// whose motion is exact.
-    fn misfit_power(&self, tension_end: &[Vec<Real>], velocity: &DVector<Real>) -> Real {
+    fn misfit_power(&self, tension_end: &[Vec<Real>], velocity: &[Real]) -> Real {
+        let speed = |i: usize| self.dofs.binary_search(&i).map_or(0.0, |k| velocity[k]);
         self.segs
             .iter()
-            .map(|&g| {
+            .zip(&self.seg_line)
+            .map(|(&g, &li)| {
                 let seg = self.kin.segments[g];
                 let rate: Real = self.kin.span_rows[seg.line][seg.first..seg.last]
                     .iter()
-                    .map(|row| row.dot(velocity))
+                    .map(|row| row.iter().map(|(i, b)| b * speed(i)).sum::<Real>())
                     .sum();
-                tension_end[seg.line][seg.last - 1] * rate
+                tension_end[li][seg.last - 1] * rate
             })
             .sum()
     }
 
     /// Power into the ropes' potential energy per unit drive speed in this case, W.
-    fn rope_power(&self, velocity: &DVector<Real>) -> Real {
+    fn rope_power(&self, velocity: &[Real]) -> Real {
         if !self.weight.any() {
             return 0.0;
         }
-        self.weight
-            .potential_rate(self.rig, self.geometry, self.kin, &self.lines, velocity)
+        self.weight.potential_rate(
+            self.rig,
+            self.geometry,
+            self.kin,
+            &self.lines,
+            &self.dofs,
+            velocity,
+        )
     }
 }

@@ -1,0 +1,373 @@
+//! Runs that change one part's or one rope's friction, solved where the change reaches:
+//! the sub-rigs holding the part or the rope's lines, not the whole rig.
+//!
+//! Friction changes no geometry, graph or motion, so the rig as written keeps its
+//! [`Solution`] for everything but the sub-rigs the change reaches
+//! ([`solve::solve_again`]); the others' answers, and their checks, are the rig's as
+//! written. A run's verdict is read from `check`'s warnings in `check`'s order: the rig's
+//! own (geometry, drum sides, plumb, pulls, bearings: none of them fails or names a
+//! stalled sheave, and none depends on a tension that friction changes but a pull's
+//! wording), then each sub-rig's, the reached ones checked again.
+//!
+//! A change is made on the model ([`crate::model::param`], or the part's friction
+//! removed) where the model path gives the very rig the file path loads with the same
+//! overrides; that is checked, compared whole, the first time each kind of change is
+//! made, and a kind that does not match (and any other change) takes the file path.
+
+use std::collections::HashMap;
+use std::sync::Mutex;
+
+use crate::checks::{self, Warning};
+use crate::math::Real;
+use crate::model::{Bearing, PartKind, Rig};
+use crate::rig::params;
+use crate::solve::{self, given_quantity, Outcome, Solution, SolveOptions, SubRigSolution};
+
+use super::{RigSource, StudyError, Verdict};
+
+/// The part or rope a run changes the friction of.
+#[derive(Debug, Clone, Copy, PartialEq, Eq)]
+pub enum Subject {
+    /// One part (its bearing, its surface, a drum's shaft and drag).
+    Part(usize),
+    /// One rope, wherever it runs.
+    Rope(usize),
+}
+
+/// A change on the model: a name for its kind (each kind is checked once against the
+/// file path) and the edit (None when the model cannot take it; then the file path).
+pub struct Edit<'a> {
+    /// The kind of change, e.g. `frictionless sheave` or `ropes mu`.
+    pub kind: &'static str,
+    /// Makes the change on a copy of the rig as written.
+    pub apply: &'a dyn Fn(&mut Rig) -> Option<()>,
+}
+
+/// What one run gives: the main sub-rig's forward value and, when asked, `check`'s
+/// verdict of the changed rig.
+pub struct Outcomes {
+    /// Forward value of the main sub-rig, SI.
+    pub forward: Real,
+    /// The verdict, when asked for.
+    pub verdict: Option<Verdict>,
+}
+
+/// The rig as written, solved, and what the runs need of it.
+pub struct Local<'a> {
+    source: &'a RigSource,
+    rig: &'a Rig,
+    solution: &'a Solution,
+    /// Of each part: its sub-rig's index in `solution.subrigs`.
+    subrig_of_part: Vec<Option<usize>>,
+    /// Of each rope: the sub-rigs (indices in `solution.subrigs`) whose lines it makes.
+    subrigs_of_rope: Vec<Vec<usize>>,
+    /// `check`'s warnings of the rig before the sub-rigs' own.
+    rig_warnings: Vec<Warning>,
+    /// Each sub-rig's warnings.
+    subrig_warnings: Vec<Vec<Warning>>,
+    /// The rig as written, changed in place by a run and put back after it.
+    work: Mutex<Rig>,
+    /// Whether each kind of model change gives the file path's rig (absent: not yet
+    /// checked).
+    trusted: Mutex<HashMap<&'static str, bool>>,
+    /// How many parts of the rig as written give a static coefficient.
+    static_parts: usize,
+}
+
+impl<'a> Local<'a> {
+    /// Sets up the runs on `rig` as `source` loads it, solved as `solution`. None when
+    /// `check`'s warnings do not end with the sub-rigs' own in order (then every run
+    /// takes the whole rig).
+    pub fn new(source: &'a RigSource, rig: &'a Rig, solution: &'a Solution) -> Option<Local<'a>> {
+        let network = &solution.network;
+        let mut of_component = vec![None; network.components.len()];
+        for (k, s) in solution.subrigs.iter().enumerate().rev() {
+            of_component[s.component] = Some(k);
+        }
+        let subrig_of_part = (0..rig.parts.len())
+            .map(|p| of_component[network.component_of[p]])
+            .collect();
+        let mut subrigs_of_rope: Vec<Vec<usize>> = vec![Vec::new(); rig.ropes.len()];
+        for (l, line) in rig.lines.iter().enumerate() {
+            let owner =
+                solve::kinematics::line_component(rig, network, l).and_then(|c| of_component[c]);
+            if let Some(k) = owner {
+                subrigs_of_rope[line.rope.index()].push(k);
+            }
+        }
+        for r in &mut subrigs_of_rope {
+            r.sort_unstable();
+            r.dedup();
+        }
+        let all = checks::run(rig, solution);
+        let subrig_warnings: Vec<Vec<Warning>> = solution
+            .subrigs
+            .iter()
+            .map(|s| checks::subrig_checks(rig, s))
+            .collect();
+        let tail: usize = subrig_warnings.iter().map(Vec::len).sum();
+        let split = all.len().checked_sub(tail)?;
+        let (own, rest) = all.split_at(split);
+        if !rest.iter().eq(subrig_warnings.iter().flatten()) {
+            return None;
+        }
+        Some(Local {
+            source,
+            rig,
+            solution,
+            subrig_of_part,
+            subrigs_of_rope,
+            rig_warnings: own.to_vec(),
+            subrig_warnings,
+            work: Mutex::new(rig.clone()),
+            trusted: Mutex::new(HashMap::new()),
+            static_parts: (0..rig.parts.len())
+                .filter(|&p| solve::static_friction_at(rig, p))
+                .count(),
+        })
+    }
+
+    fn trusted(&self) -> std::sync::MutexGuard<'_, HashMap<&'static str, bool>> {
+        self.trusted.lock().unwrap_or_else(|e| e.into_inner())
+    }
+
+    /// The sub-rigs (indices in `solution.subrigs`) a change of `subject` reaches.
+    fn reached(&self, subject: Subject) -> Vec<usize> {
+        match subject {
+            Subject::Part(p) => self.subrig_of_part[p].into_iter().collect(),
+            Subject::Rope(r) => self.subrigs_of_rope[r].clone(),
+        }
+    }
+
+    /// The run with `settings` (the same change as `edit`, as file overrides) on
+    /// `subject`: the main forward value and, with `judge`, the verdict.
+    ///
+    /// # Errors
+    /// [`StudyError`] as the whole rig's load and solve would give it.
+    pub fn run(
+        &self,
+        subject: Subject,
+        edit: Option<Edit>,
+        settings: &[(String, String)],
+        judge: bool,
+    ) -> Result<Outcomes, StudyError> {
+        let reached = self.reached(subject);
+        if let Some(edit) = edit.filter(|e| self.trusted().get(e.kind) != Some(&false)) {
+            let mut work = self.work.lock().unwrap_or_else(|e| e.into_inner());
+            let applied = (edit.apply)(&mut work).is_some();
+            let trusted = applied && self.check_kind(edit.kind, &work, settings);
+            // Only the changed part can have gained or lost a static coefficient.
+            let breakaway = match subject {
+                Subject::Part(p) => {
+                    self.static_parts - usize::from(solve::static_friction_at(self.rig, p))
+                        + usize::from(solve::static_friction_at(&work, p))
+                        > 0
+                }
+                Subject::Rope(_) => self.static_parts > 0,
+            };
+            let answer = trusted.then(|| self.outcomes(&work, &reached, breakaway, judge));
+            // Put the rig back as written.
+            match subject {
+                Subject::Part(p) => work.parts[p] = self.rig.parts[p].clone(),
+                Subject::Rope(r) => work.ropes[r] = self.rig.ropes[r].clone(),
+            }
+            if let Some(answer) = answer {
+                return answer;
+            }
+        }
+        let rig = self.source.load(settings)?;
+        self.outcomes(&rig, &reached, solve::has_static_friction(&rig), judge)
+    }
+
+    /// Whether the model change of `kind` gives the file path's rig: checked once.
+    fn check_kind(&self, kind: &'static str, changed: &Rig, settings: &[(String, String)]) -> bool {
+        if let Some(&known) = self.trusted().get(kind) {
+            return known;
+        }
+        let same = self
+            .source
+            .load(settings)
+            .is_ok_and(|slow| format!("{slow:?}") == format!("{changed:?}"));
+        self.trusted().insert(kind, same);
+        same
+    }
+
+    fn outcomes(
+        &self,
+        rig: &Rig,
+        reached: &[usize],
+        breakaway: bool,
+        judge: bool,
+    ) -> Result<Outcomes, StudyError> {
+        let options = SolveOptions::default();
+        // In the solution's order, so the first error is the one the whole solve meets.
+        let again: Vec<(usize, SubRigSolution)> = reached
+            .iter()
+            .map(|&k| {
+                solve::solve_again(rig, self.solution, k, breakaway, &options)
+                    .map(|s| (k, s))
+                    .map_err(|e| self.source.solve_error(rig, e))
+            })
+            .collect::<Result<_, _>>()?;
+        let sub = |k: usize| {
+            again
+                .iter()
+                .find(|(j, _)| *j == k)
+                .map_or(&self.solution.subrigs[k], |(_, s)| s)
+        };
+        let main = sub(0);
+        let forward = crate::report::finite(main.forward.value)
+            .ok_or_else(|| StudyError::Input("the forward value is not finite".to_string()))?;
+        let verdict = judge.then(|| {
+            let available = given_quantity(rig, main.solve_for);
+            let checked: Vec<(usize, Vec<Warning>)> = again
+                .iter()
+                .map(|(k, s)| (*k, checks::subrig_checks(rig, s)))
+                .collect();
+            let warnings =
+                self.rig_warnings
+                    .iter()
+                    .chain((0..self.solution.subrigs.len()).flat_map(|k| {
+                        checked
+                            .iter()
+                            .find(|(j, _)| *j == k)
+                            .map_or(&self.subrig_warnings[k], |(_, w)| w)
+                    }));
+            Verdict::from_warnings(
+                available.and_then(|a| main.margin(a)),
+                available.map(|a| main.outcome(a)).map(Outcome::succeeds),
+                warnings,
+            )
+        });
+        Ok(Outcomes { forward, verdict })
+    }
+}
+
+impl Local<'_> {
+    /// Every sub-rig of `rig` solved again, `rig` being the rig as written with other
+    /// coefficients of friction or loads (a sample of a spread: no part moves), and
+    /// `check`'s verdict of it.
+    ///
+    /// # Errors
+    /// [`StudyError::Solve`] as the whole rig's solve would give it.
+    pub fn solve_all(&self, rig: &Rig) -> Result<(Vec<SubRigSolution>, Verdict), StudyError> {
+        let options = SolveOptions::default();
+        let breakaway = solve::has_static_friction(rig);
+        let subs: Vec<SubRigSolution> = (0..self.solution.subrigs.len())
+            .map(|k| {
+                solve::solve_again(rig, self.solution, k, breakaway, &options)
+                    .map_err(|e| self.source.solve_error(rig, e))
+            })
+            .collect::<Result<_, _>>()?;
+        let main = &subs[0];
+        let available = given_quantity(rig, main.solve_for);
+        let checked: Vec<Vec<Warning>> =
+            subs.iter().map(|s| checks::subrig_checks(rig, s)).collect();
+        let verdict = Verdict::from_warnings(
+            available.and_then(|a| main.margin(a)),
+            available.map(|a| main.outcome(a)).map(Outcome::succeeds),
+            self.rig_warnings.iter().chain(checked.iter().flatten()),
+        );
+        Ok((subs, verdict))
+    }
+}
+
+/// The model change that makes `part` frictionless, as
+/// [`super::rank::frictionless_settings`] writes it to the file.
+pub fn frictionless(rig: &mut Rig, part: usize) -> Option<()> {
+    match &mut rig.parts.get_mut(part)?.kind {
+        PartKind::Sheave(s) => s.bearing = Bearing::None,
+        PartKind::Guide(g) => g.mu = Some(0.0),
+        PartKind::Drum(d) => {
+            d.shaft = None;
+            d.drag = 0.0;
+        }
+        _ => return None,
+    }
+    Some(())
+}
+
+/// The kind of the frictionless change of `part`, for [`Edit::kind`].
+pub fn frictionless_kind(rig: &Rig, part: usize) -> &'static str {
+    match &rig.parts[part].kind {
+        PartKind::Sheave(_) => "frictionless sheave",
+        PartKind::Guide(_) => "frictionless guide",
+        _ => "frictionless drum",
+    }
+}
+
+/// The model change that sets `key` (a bare number) to `value`, if the model has it,
+/// and its kind.
+pub fn set_key(
+    rig: &Rig,
+    key: &str,
+    value: Real,
+) -> Option<(&'static str, impl Fn(&mut Rig) -> Option<()>)> {
+    let resolved = params::resolve(rig, key, "")?;
+    let si = resolved.si(rig, value)?;
+    let kind = match resolved.param {
+        crate::model::param::Param::RatedFactor(_) => "bearing factor",
+        crate::model::param::Param::BearingMu(_) => "bearing mu",
+        crate::model::param::Param::RopeMu(_) => "rope mu",
+        crate::model::param::Param::LoadMass(_) => "load mass",
+        crate::model::param::Param::LoadForce(_) => "load force",
+    };
+    let param = resolved.param;
+    Some((kind, move |rig: &mut Rig| param.set(rig, si)))
+}
+
+#[cfg(test)]
+mod tests {
+    use super::*;
+    use crate::study::Verdict;
+
+    /// Guards the local runs against the whole rig: each part of a rig of two
+    /// sub-rigs made frictionless, and a rope's and a bearing's coefficient changed,
+    /// give the forward value and verdict that loading the file with the same overrides
+    /// and solving and checking the whole rig give, to the bit.
+    #[test]
+    fn local_runs_are_the_whole_rigs_runs() {
+        for file in ["two-subrigs.yaml", "load-unknown-capstan.yaml"] {
+            let text =
+                std::fs::read_to_string(format!("tests/rigs/review/{file}")).expect("test rig");
+            let source = RigSource::from_text(&text, file, &[]);
+            let (rig, solution) = source.solve(&[]).unwrap();
+            let local = Local::new(&source, &rig, &solution).expect("check's order splits");
+            let whole = |settings: &[(String, String)]| {
+                let (r, s) = source.solve(settings).unwrap();
+                (s.main().forward.value, Verdict::assess(&r, &s))
+            };
+            for part in 0..rig.parts.len() {
+                let Some(settings) = super::super::rank::frictionless_settings(&rig, part) else {
+                    continue;
+                };
+                let apply = |r: &mut Rig| frictionless(r, part);
+                let edit = Edit {
+                    kind: frictionless_kind(&rig, part),
+                    apply: &apply,
+                };
+                let o = local
+                    .run(Subject::Part(part), Some(edit), &settings, true)
+                    .unwrap();
+                let (forward, verdict) = whole(&settings);
+                assert_eq!(o.forward.to_bits(), forward.to_bits(), "{file} {part}");
+                assert_eq!(o.verdict, Some(verdict), "{file} {part}");
+            }
+            for (r, rope) in rig.ropes.iter().enumerate() {
+                let key = format!("ropes.{}.mu", rope.name);
+                let settings = [(key.clone(), "0.3".to_string())];
+                let (kind, apply) = set_key(&rig, &key, 0.3).unwrap();
+                let edit = Edit {
+                    kind,
+                    apply: &apply,
+                };
+                let o = local
+                    .run(Subject::Rope(r), Some(edit), &settings, true)
+                    .unwrap();
+                let (forward, verdict) = whole(&settings);
+                assert_eq!(o.forward.to_bits(), forward.to_bits(), "{file} {key}");
+                assert_eq!(o.verdict, Some(verdict), "{file} {key}");
+            }
+        }
+    }
+}
