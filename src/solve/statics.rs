@@ -26,6 +26,7 @@ use super::selfweight::RopeWeight;
 use super::{Case, SolveError, SolveOptions};
 
 mod by_id;
+mod material;
 mod passage;
 mod result;
 mod system;
@@ -35,7 +36,7 @@ use system::{dense_column_norms, sparse_column_norms};
 pub use by_id::ById;
 
 pub use passage::DrumFriction;
-pub use result::Losses;
+pub use result::{CaseResult, Losses};
 
 /// How the fixed-point iteration ended.
 #[derive(Debug, Clone, Copy, PartialEq)]
@@ -85,82 +86,6 @@ pub struct Slip {
     pub ratio: Real,
     /// Capstan ratio available.
     pub limit: Real,
-}
-
-/// The answer for one case of one sub-rig.
-#[derive(Debug, Clone)]
-pub struct CaseResult {
-    /// Which case.
-    pub case: Case,
-    /// The asked quantity, SI.
-    pub value: Real,
-    /// `tension[line][span]`, N, at the span's start (empty for lines of other
-    /// sub-rigs).
-    pub tension: ById<Vec<Real>>,
-    /// `tension_end[line][span]`, N, at the span's end: the start tension plus the
-    /// rope's weight times the rise (equal to `tension` for a weightless rope; empty
-    /// for lines of other sub-rigs).
-    pub tension_end: ById<Vec<Real>>,
-    /// Power into the ropes' potential energy per unit drive speed, W (zero for
-    /// weightless ropes); the energy audit counts it.
-    pub rope_power: Real,
-    /// `ratio[line][entry]`: tight over slack tension at a middle passage (empty for
-    /// lines of other sub-rigs).
-    pub ratio: ById<Vec<Option<Real>>>,
-    /// Power lost at each part per unit drive speed, W (per m/s or rad/s of the drive);
-    /// zero outside the sub-rig.
-    pub loss: ById<Real>,
-    /// Power taken by each part's load per unit drive speed, W (negative where a load
-    /// gives power, and at the drive); zero outside the sub-rig.
-    pub load_power: ById<Real>,
-    /// Power the drive puts in per unit drive speed.
-    pub drive_power: Real,
-    /// Resultant force the sub-rig's lines (and own weight) put on each part, N; None
-    /// at parts its lines do not reach.
-    pub pin_load: ById<Option<Vector>>,
-    /// Drum torques, per part (None but at the sub-rig's drums).
-    pub drums: ById<Option<DrumTorques>>,
-    /// Sheaves that do not turn: (line, entry).
-    pub stalled: Vec<(LineId, usize)>,
-    /// Untied drum passages where the rope slips.
-    pub slipping: Vec<Slip>,
-    /// Spans with negative tension (slack): (line, span).
-    pub slack: Vec<(LineId, usize)>,
-    /// Whether statics alone could not fix every tension (the split among parallel
-    /// lines is then the least-squares one, or the stiffness one).
-    pub indeterminate: bool,
-    /// Whether the split among lines sharing a block follows the ropes' stiffness
-    /// (compatibility of stretch; DESIGN.md §7) rather than least squares.
-    pub split_by_stiffness: bool,
-    /// Fixed-point status.
-    pub status: Status,
-    /// Energy audit misfit: |drive − loads − losses| over the drive power.
-    pub audit_residual: Real,
-    /// `loss` by kind (bearing, bending, surface, drum), per part.
-    pub losses: Losses,
-}
-
-impl CaseResult {
-    /// Total losses per unit drive speed, W.
-    pub fn total_loss(&self) -> Real {
-        self.loss.entries().map(|(_, x)| x).sum()
-    }
-
-    /// Power put into the rig per unit drive speed, W: the drive's power where the
-    /// drive gives power, else (the loads drive the rig, the drive holds them back) the
-    /// power the loads give.
-    pub fn input_power(&self) -> Real {
-        if self.drive_power >= 0.0 {
-            self.drive_power
-        } else {
-            self.load_power
-                .entries()
-                .map(|(_, p)| p)
-                .filter(|p| **p < 0.0)
-                .map(|p| -p)
-                .sum()
-        }
-    }
 }
 
 /// The statics problem of one sub-rig.
@@ -765,66 +690,6 @@ impl<'a> Problem<'a> {
         );
         result.split_by_stiffness = by_stiffness;
         Ok(result)
-    }
-
-    /// The load split by compatibility of stretch ([`super::elastic::compatible_split`])
-    /// when every rope of the sub-rig has a `stiffness`; else the least-squares
-    /// `solution` as it is. Also whether the stiffness fixed the split.
-    fn stiffness_split(
-        &self,
-        mat: &DMatrix<Real>,
-        column_norms: &[Real],
-        coef: &[Vec<(Real, Real)>],
-        solution: DVector<Real>,
-        options: &SolveOptions,
-    ) -> (DVector<Real>, bool) {
-        let input = super::elastic::SplitInput {
-            rig: self.rig,
-            geometry: self.geometry,
-            kin: self.kin,
-            segs: &self.segs,
-            seg_line: &self.seg_line,
-            dofs: &self.dofs,
-            coef,
-            rise: &|l, j| self.weight.rise(l, j),
-        };
-        match super::elastic::compatible_split(
-            &input,
-            mat,
-            column_norms,
-            &solution,
-            options.rank_tolerance,
-            options.motion_tolerance,
-        ) {
-            Some((x, fixed)) => (x, fixed),
-            None => (solution, false),
-        }
-    }
-
-    /// The rig's spring rate at the drive ([`super::elastic::drive_stiffness`]): every
-    /// part with a load (or the asked quantity) held, the others free.
-    pub fn drive_stiffness(&self) -> Option<Real> {
-        let drive = self
-            .dofs
-            .iter()
-            .position(|&i| self.kin.dofs[i].part == self.drive)?;
-        let held: Vec<bool> = (0..self.dofs.len())
-            .map(|k| self.q_load[k] != 0.0 || self.x_coef[k] != 0.0 || self.rope_load[k] != 0.0)
-            .collect();
-        super::elastic::drive_stiffness(&super::elastic::SpringInput {
-            rig: self.rig,
-            geometry: self.geometry,
-            kin: self.kin,
-            segs: &self.segs,
-            dofs: &self.dofs,
-            drive,
-            held: &held,
-        })
-    }
-
-    /// The lines of the sub-rig.
-    pub fn lines(&self) -> &[LineId] {
-        &self.lines
     }
 
     /// The error for a tension coefficient that overflowed at entry `e` of `line`.

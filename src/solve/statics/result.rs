@@ -3,6 +3,82 @@
 
 use super::*;
 
+/// The answer for one case of one sub-rig.
+#[derive(Debug, Clone)]
+pub struct CaseResult {
+    /// Which case.
+    pub case: Case,
+    /// The asked quantity, SI.
+    pub value: Real,
+    /// `tension[line][span]`, N, at the span's start (empty for lines of other
+    /// sub-rigs).
+    pub tension: ById<Vec<Real>>,
+    /// `tension_end[line][span]`, N, at the span's end: the start tension plus the
+    /// rope's weight times the rise (equal to `tension` for a weightless rope; empty
+    /// for lines of other sub-rigs).
+    pub tension_end: ById<Vec<Real>>,
+    /// Power into the ropes' potential energy per unit drive speed, W (zero for
+    /// weightless ropes); the energy audit counts it.
+    pub rope_power: Real,
+    /// `ratio[line][entry]`: tight over slack tension at a middle passage (empty for
+    /// lines of other sub-rigs).
+    pub ratio: ById<Vec<Option<Real>>>,
+    /// Power lost at each part per unit drive speed, W (per m/s or rad/s of the drive);
+    /// zero outside the sub-rig.
+    pub loss: ById<Real>,
+    /// Power taken by each part's load per unit drive speed, W (negative where a load
+    /// gives power, and at the drive); zero outside the sub-rig.
+    pub load_power: ById<Real>,
+    /// Power the drive puts in per unit drive speed.
+    pub drive_power: Real,
+    /// Resultant force the sub-rig's lines (and own weight) put on each part, N; None
+    /// at parts its lines do not reach.
+    pub pin_load: ById<Option<Vector>>,
+    /// Drum torques, per part (None but at the sub-rig's drums).
+    pub drums: ById<Option<DrumTorques>>,
+    /// Sheaves that do not turn: (line, entry).
+    pub stalled: Vec<(LineId, usize)>,
+    /// Untied drum passages where the rope slips.
+    pub slipping: Vec<Slip>,
+    /// Spans with negative tension (slack): (line, span).
+    pub slack: Vec<(LineId, usize)>,
+    /// Whether statics alone could not fix every tension (the split among parallel
+    /// lines is then the least-squares one, or the stiffness one).
+    pub indeterminate: bool,
+    /// Whether the split among lines sharing a block follows the ropes' stiffness
+    /// (compatibility of stretch; DESIGN.md §7) rather than least squares.
+    pub split_by_stiffness: bool,
+    /// Fixed-point status.
+    pub status: Status,
+    /// Energy audit misfit: |drive − loads − losses| over the drive power.
+    pub audit_residual: Real,
+    /// `loss` by kind (bearing, bending, surface, drum), per part.
+    pub losses: Losses,
+}
+
+impl CaseResult {
+    /// Total losses per unit drive speed, W.
+    pub fn total_loss(&self) -> Real {
+        self.loss.entries().map(|(_, x)| x).sum()
+    }
+
+    /// Power put into the rig per unit drive speed, W: the drive's power where the
+    /// drive gives power, else (the loads drive the rig, the drive holds them back) the
+    /// power the loads give.
+    pub fn input_power(&self) -> Real {
+        if self.drive_power >= 0.0 {
+            self.drive_power
+        } else {
+            self.load_power
+                .entries()
+                .map(|(_, p)| p)
+                .filter(|p| **p < 0.0)
+                .map(|p| -p)
+                .sum()
+        }
+    }
+}
+
 /// The energy audit's losses by kind, per part, W per unit drive speed (as
 /// [`CaseResult::loss`], which is their sum part by part).
 #[derive(Debug, Clone, PartialEq)]

@@ -1,0 +1,68 @@
+//! The rope as a material in one sub-rig's statics (DESIGN.md §7): the load split by
+//! compatibility of stretch where lines share a block, and the spring rate at the
+//! drive; the mechanics are [`super::super::elastic`]'s, on the sub-rig's own arrays
+//! (segments with their local lines, coefficients by local line).
+
+use super::*;
+
+impl Problem<'_> {
+    /// The load split by compatibility of stretch ([`crate::solve::elastic::compatible_split`])
+    /// when every rope of the sub-rig has a `stiffness`; else the least-squares
+    /// `solution` as it is. Also whether the stiffness fixed the split.
+    pub(super) fn stiffness_split(
+        &self,
+        mat: &DMatrix<Real>,
+        column_norms: &[Real],
+        coef: &[Vec<(Real, Real)>],
+        solution: DVector<Real>,
+        options: &SolveOptions,
+    ) -> (DVector<Real>, bool) {
+        let input = crate::solve::elastic::SplitInput {
+            rig: self.rig,
+            geometry: self.geometry,
+            kin: self.kin,
+            segs: &self.segs,
+            seg_line: &self.seg_line,
+            dofs: &self.dofs,
+            coef,
+            rise: &|l, j| self.weight.rise(l, j),
+        };
+        match crate::solve::elastic::compatible_split(
+            &input,
+            mat,
+            column_norms,
+            &solution,
+            options.rank_tolerance,
+            options.motion_tolerance,
+        ) {
+            Some((x, fixed)) => (x, fixed),
+            None => (solution, false),
+        }
+    }
+
+    /// The rig's spring rate at the drive ([`crate::solve::elastic::drive_stiffness`]): every
+    /// part with a load (or the asked quantity) held, the others free.
+    pub fn drive_stiffness(&self) -> Option<Real> {
+        let drive = self
+            .dofs
+            .iter()
+            .position(|&i| self.kin.dofs[i].part == self.drive)?;
+        let held: Vec<bool> = (0..self.dofs.len())
+            .map(|k| self.q_load[k] != 0.0 || self.x_coef[k] != 0.0 || self.rope_load[k] != 0.0)
+            .collect();
+        crate::solve::elastic::drive_stiffness(&crate::solve::elastic::SpringInput {
+            rig: self.rig,
+            geometry: self.geometry,
+            kin: self.kin,
+            segs: &self.segs,
+            dofs: &self.dofs,
+            drive,
+            held: &held,
+        })
+    }
+
+    /// The lines of the sub-rig.
+    pub fn lines(&self) -> &[LineId] {
+        &self.lines
+    }
+}
