@@ -327,9 +327,58 @@ mod tests {
     /// and solving and checking the whole rig give, to the bit.
     #[test]
     fn local_runs_are_the_whole_rigs_runs() {
-        for file in ["two-subrigs.yaml", "load-unknown-capstan.yaml"] {
-            let text =
-                std::fs::read_to_string(format!("tests/rigs/review/{file}")).expect("test rig");
+        local_runs_match(&[
+            "tests/rigs/review/two-subrigs.yaml",
+            "tests/rigs/review/load-unknown-capstan.yaml",
+        ]);
+    }
+
+    /// The same guard on rigs whose ropes have stiffness, weight and a bend loss and
+    /// whose sheaves have thrust faces (main's rope as a material and 3-D pin loads):
+    /// a sub-rig solved again builds its rope weight, split by stiffness and spring
+    /// rate from the changed rig, and gives the whole solve's figures to the bit.
+    #[test]
+    fn local_runs_with_rope_material_and_bend_loss_are_the_whole_rigs_runs() {
+        let files = [
+            "rigs/line-set.yaml",
+            "rigs/gallery-panel.yaml",
+            "rigs/cliff-raise.yaml",
+            "rigs/ramp-winch.yaml",
+            "tests/rigs/material/two-lift-lines.yaml",
+            "tests/rigs/material/head-sheave-weight.yaml",
+        ];
+        local_runs_match(&files);
+        for file in files {
+            let text = std::fs::read_to_string(file).expect("example rig");
+            let source = RigSource::from_text(&text, file, &[]);
+            let (rig, solution) = source.solve(&[]).unwrap();
+            for k in 0..solution.subrigs.len() {
+                let breakaway = solve::has_static_friction(&rig);
+                let again =
+                    solve::solve_again(&rig, &solution, k, breakaway, &SolveOptions::default())
+                        .unwrap();
+                let whole = &solution.subrigs[k];
+                let bits = |x: Option<Real>| x.map(Real::to_bits);
+                assert_eq!(bits(again.drive_stiffness), bits(whole.drive_stiffness));
+                assert_eq!(bits(again.lost_travel), bits(whole.lost_travel));
+                for (a, b) in [
+                    (&again.ideal, &whole.ideal),
+                    (&again.forward, &whole.forward),
+                    (&again.back, &whole.back),
+                ] {
+                    assert_eq!(a.value.to_bits(), b.value.to_bits(), "{file} {k}");
+                    assert_eq!(a.tension_end, b.tension_end, "{file} {k}");
+                    assert_eq!(a.losses, b.losses, "{file} {k}");
+                    assert_eq!(a.split_by_stiffness, b.split_by_stiffness, "{file} {k}");
+                }
+            }
+        }
+    }
+
+    fn local_runs_match(files: &[&str]) {
+        for &path in files {
+            let file = path.rsplit('/').next().unwrap_or(path);
+            let text = std::fs::read_to_string(path).expect("test rig");
             let source = RigSource::from_text(&text, file, &[]);
             let (rig, solution) = source.solve(&[]).unwrap();
             let local = Local::new(&source, &rig, &solution).expect("check's order splits");
