@@ -34,6 +34,14 @@ pub enum Dimension {
     Torque,
     /// Kilograms per metre inside (a rope's `mass_per_length`; DESIGN.md §7).
     MassPerLength,
+    /// Seconds inside (schedules; DESIGN.md §7).
+    Time,
+    /// Newtons per metre inside (a block spring's `rate`).
+    SpringRate,
+    /// Newton-metres per radian inside (a drum spring's `rate`).
+    TorsionRate,
+    /// Kilogram square metres inside (rotational `inertia`).
+    Inertia,
 }
 
 impl Dimension {
@@ -45,6 +53,10 @@ impl Dimension {
             Dimension::Mass => "mass",
             Dimension::Torque => "torque",
             Dimension::MassPerLength => "mass per length",
+            Dimension::Time => "time",
+            Dimension::SpringRate => "spring rate",
+            Dimension::TorsionRate => "torsion rate",
+            Dimension::Inertia => "rotational inertia",
         }
     }
 
@@ -56,6 +68,10 @@ impl Dimension {
             Dimension::Mass => &["kg", "g", "lb"],
             Dimension::Torque => &["N*m", "N*mm", "lbf*in", "lbf*ft"],
             Dimension::MassPerLength => &["kg/m", "g/m", "lb/ft"],
+            Dimension::Time => &["s", "min", "h"],
+            Dimension::SpringRate => &["N/m", "N/mm", "kN/m", "lbf/in"],
+            Dimension::TorsionRate => &["N*m/rad", "N*m/deg"],
+            Dimension::Inertia => &["kg*m^2"],
         }
     }
 }
@@ -174,6 +190,56 @@ const UNITS: &[Unit] = &[
         symbol: "lb/ft",
         si: POUND / FOOT,
     },
+    Unit {
+        dimension: Dimension::Time,
+        symbol: "s",
+        si: 1.0,
+    },
+    Unit {
+        dimension: Dimension::Time,
+        symbol: "min",
+        si: 60.0,
+    },
+    Unit {
+        dimension: Dimension::Time,
+        symbol: "h",
+        si: 3600.0,
+    },
+    Unit {
+        dimension: Dimension::SpringRate,
+        symbol: "N/m",
+        si: 1.0,
+    },
+    Unit {
+        dimension: Dimension::SpringRate,
+        symbol: "N/mm",
+        si: 1e3,
+    },
+    Unit {
+        dimension: Dimension::SpringRate,
+        symbol: "kN/m",
+        si: 1e3,
+    },
+    Unit {
+        dimension: Dimension::SpringRate,
+        symbol: "lbf/in",
+        si: POUND_FORCE / INCH,
+    },
+    Unit {
+        dimension: Dimension::TorsionRate,
+        symbol: "N*m/rad",
+        si: 1.0,
+    },
+    Unit {
+        dimension: Dimension::TorsionRate,
+        symbol: "N*m/deg",
+        si: 180.0 / std::f64::consts::PI,
+    },
+    Unit {
+        dimension: Dimension::Inertia,
+        symbol: "kg*m^2",
+        si: 1.0,
+    },
 ];
 
 /// Looks a unit up by spelling. Accepts the canonical spellings plus the usual
@@ -276,6 +342,10 @@ pub fn parse_quantity(text: &str, dimension: Dimension, default: Unit) -> Result
         Dimension::Mass => "40 kg",
         Dimension::Torque => "1.2 N*m",
         Dimension::MassPerLength => "0.25 kg/m",
+        Dimension::Time => "5 min",
+        Dimension::SpringRate => "2 N/mm",
+        Dimension::TorsionRate => "0.5 N*m/rad",
+        Dimension::Inertia => "0.02 kg*m^2",
     };
     let value: Real = number.trim().parse().map_err(|_| UnitError::NotAQuantity {
         text: t.to_string(),
@@ -300,6 +370,15 @@ const KILOGRAM_PER_METRE: Unit = Unit {
     symbol: "kg/m",
     si: 1.0,
 };
+
+/// The first (SI) unit of `dimension` in the table.
+fn si_unit(dimension: Dimension) -> Unit {
+    UNITS
+        .iter()
+        .copied()
+        .find(|u| u.dimension == dimension && u.si == 1.0)
+        .unwrap_or(KILOGRAM_PER_METRE)
+}
 
 /// The units a rig file uses for bare numbers, and the units its reports show.
 #[derive(Debug, Clone, Copy, PartialEq)]
@@ -336,6 +415,17 @@ impl UnitSystem {
             Dimension::Torque => self.torque,
             // No `units` key names it: bare numbers and reports are in kg/m.
             Dimension::MassPerLength => KILOGRAM_PER_METRE,
+            // Bare spring rates are in the file's force per the file's length (N/mm for
+            // the default units) where the table spells that unit, else N/m.
+            Dimension::SpringRate => {
+                let si = self.force.si / self.length.si;
+                UNITS
+                    .iter()
+                    .copied()
+                    .find(|u| u.dimension == dimension && (u.si - si).abs() <= 1e-12 * si)
+                    .unwrap_or_else(|| si_unit(dimension))
+            }
+            Dimension::Time | Dimension::TorsionRate | Dimension::Inertia => si_unit(dimension),
         }
     }
 

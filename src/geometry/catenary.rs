@@ -36,7 +36,12 @@ use crate::math::Real;
 /// let f = sag(10.0, 0.0, 1000.0, 9.80665).unwrap();
 /// assert!((f - 0.122583).abs() < 3e-5, "{f}");
 /// ```
-pub fn sag(run: Real, rise: Real, horizontal_tension: Real, weight_per_length: Real) -> Option<Real> {
+pub fn sag(
+    run: Real,
+    rise: Real,
+    horizontal_tension: Real,
+    weight_per_length: Real,
+) -> Option<Real> {
     let (a, b, h, q) = (run, rise, horizontal_tension, weight_per_length);
     if !(a > 0.0 && h > 0.0 && q > 0.0 && b.is_finite()) {
         return None;
@@ -54,7 +59,12 @@ pub fn sag(run: Real, rise: Real, horizontal_tension: Real, weight_per_length: R
 /// shallow spans (Meriam & Kraige §5/9, parabolic cable, a load uniform per horizontal
 /// length, here `q·L/a` with `L = √(a² + b²)` the chord): `q·L·a/(8H)`, which is
 /// `q·a²/(8H)` for a level span.
-pub fn parabolic_sag(run: Real, rise: Real, horizontal_tension: Real, weight_per_length: Real) -> Real {
+pub fn parabolic_sag(
+    run: Real,
+    rise: Real,
+    horizontal_tension: Real,
+    weight_per_length: Real,
+) -> Real {
     weight_per_length * run.hypot(rise) * run / (8.0 * horizontal_tension)
 }
 

@@ -8,6 +8,7 @@ pub mod escape;
 pub mod file;
 pub mod format;
 pub mod html;
+pub mod motion;
 pub mod study;
 pub mod svg;
 pub mod table;
@@ -685,7 +686,10 @@ fn span_material(
     let weighs = rope.mass_per_length.is_some_and(|w| w > 0.0);
     let ends = |c: Case| -> Option<(Real, Real)> {
         let case = sub?.case(c);
-        Some((*case.tension[line].get(span)?, *case.tension_end[line].get(span)?))
+        Some((
+            *case.tension[line].get(span)?,
+            *case.tension_end[line].get(span)?,
+        ))
     };
     let cases = [Case::Ideal, Case::Forward, Case::Back];
     let per_case = |f: &dyn Fn(Case) -> Option<Real>| PerCase {
@@ -700,7 +704,12 @@ fn span_material(
     let stretch = rope.stiffness.map(|ea| {
         per_case(&|c| {
             let (a, b) = ends(c)?;
-            finite(crate::solve::elastic::span_stretch(a, b, geometry.length, ea))
+            finite(crate::solve::elastic::span_stretch(
+                a,
+                b,
+                geometry.length,
+                ea,
+            ))
         })
     });
     let sag = if weighs {
@@ -754,7 +763,11 @@ impl Report {
                 let material = span_material(rig, solution, sub, l, j);
                 let worst = [ti, tf, tb]
                     .into_iter()
-                    .chain([material.ends.ideal, material.ends.forward, material.ends.back])
+                    .chain([
+                        material.ends.ideal,
+                        material.ends.forward,
+                        material.ends.back,
+                    ])
                     .flatten()
                     .fold(0.0, Real::max);
                 spans.push(SpanReport {

@@ -301,9 +301,7 @@ fn write_material(w: &mut dyn Write, report: &Report, units: &UnitSystem) -> io:
     let spans: Vec<_> = report
         .spans
         .iter()
-        .filter(|s| {
-            s.stretch_m.is_some() || s.tension_n.forward_end.is_some() || s.sag_m.is_some()
-        })
+        .filter(|s| s.stretch_m.is_some() || s.tension_n.forward_end.is_some() || s.sag_m.is_some())
         .collect();
     let spring = drive_spring_words(&report.headline, units);
     if spans.is_empty() && spring.is_none() {

@@ -83,7 +83,12 @@ impl RopeWeight {
                     .collect(),
             );
             let mut a = vec![0.0; line.path.len()];
-            for (e, arc) in a.iter_mut().enumerate().take(line.path.len().saturating_sub(1)).skip(1) {
+            for (e, arc) in a
+                .iter_mut()
+                .enumerate()
+                .take(line.path.len().saturating_sub(1))
+                .skip(1)
+            {
                 *arc = wg * (height(rig, &g.spans[e].start) - height(rig, &g.spans[e - 1].end));
             }
             arcs.push(a);
@@ -113,7 +118,13 @@ impl RopeWeight {
 
     /// The forces a span with start tension `t_start` puts on the part at its start and
     /// the part at its end, N.
-    pub fn end_forces(&self, line: LineId, span: usize, u: &Vector, t_start: Real) -> (Vector, Vector) {
+    pub fn end_forces(
+        &self,
+        line: LineId,
+        span: usize,
+        u: &Vector,
+        t_start: Real,
+    ) -> (Vector, Vector) {
         let w = &self.spans[line][span];
         let half = w.normal * 0.5;
         (u * t_start + half, -u * (t_start + w.rise) + half)
@@ -141,7 +152,10 @@ impl RopeWeight {
             for (j, span) in geometry.lines[l].spans.iter().enumerate() {
                 let u = span.direction.into_inner();
                 let w = &self.spans[l][j];
-                for (part, at, is_end) in [(path[j].part, &span.start, false), (path[j + 1].part, &span.end, true)] {
+                for (part, at, is_end) in [
+                    (path[j].part, &span.start, false),
+                    (path[j + 1].part, &span.end, true),
+                ] {
                     let Some((i, v)) = contact_velocity(rig, kin, part, at) else {
                         continue;
                     };
@@ -180,7 +194,8 @@ impl RopeWeight {
             for (j, span) in geometry.lines[l].spans.iter().enumerate() {
                 let u = span.direction.into_inner();
                 let speed = |part: PartId, at: &Point| {
-                    contact_velocity(rig, kin, part, at).map_or(Vector::zeros(), |(i, v)| v * velocity[i])
+                    contact_velocity(rig, kin, part, at)
+                        .map_or(Vector::zeros(), |(i, v)| v * velocity[i])
                 };
                 let vp = speed(path[j].part, &span.start);
                 let vq = speed(path[j + 1].part, &span.end);

@@ -25,10 +25,24 @@ fn two_lift_lines_share_a_translating_batten_as_one_over_length() {
     for case in [&m.ideal, &m.forward, &m.back] {
         assert_rel("9 m line", case.tension[a][0], 300.0 * 8.0 / 17.0, 1e-9);
         assert_rel("8 m line", case.tension[b][0], 300.0 * 9.0 / 17.0, 1e-9);
-        assert!(case.indeterminate && case.split_by_stiffness, "{:?}", case.case);
+        assert!(
+            case.indeterminate && case.split_by_stiffness,
+            "{:?}",
+            case.case
+        );
     }
-    assert_rel("9 m line, to two decimals", m.ideal.tension[a][0], 141.18, 5e-5);
-    assert_rel("8 m line, to two decimals", m.ideal.tension[b][0], 158.82, 5e-5);
+    assert_rel(
+        "9 m line, to two decimals",
+        m.ideal.tension[a][0],
+        141.18,
+        5e-5,
+    );
+    assert_rel(
+        "8 m line, to two decimals",
+        m.ideal.tension[b][0],
+        158.82,
+        5e-5,
+    );
     audit_ok(&s);
     // The warning says the split follows the stiffness.
     let warnings = reeve::checks::run(&rig, &s);
@@ -92,7 +106,12 @@ fn heavy_rope_over_a_frictionless_head_sheave() {
     // Energy, by hand: hauling 1 m moves 1 m of rope from 10 m below the sheave to 2 m
     // below it, raising it 8 m: the rope's potential energy grows at 8·9.80665 W per
     // m/s of haul, and the weight's at 100 W.
-    assert_rel("rope power", m.ideal.rope_power, 8.0 * STANDARD_GRAVITY, 1e-9);
+    assert_rel(
+        "rope power",
+        m.ideal.rope_power,
+        8.0 * STANDARD_GRAVITY,
+        1e-9,
+    );
     audit_ok(&s);
 }
 
@@ -110,7 +129,12 @@ fn lost_travel_two_ways_on_a_four_part_tackle() {
     let (rig, s) = solve_text(&text);
     let m = s.main();
     assert_rel("spring rate", m.drive_stiffness.unwrap(), 1e6 / 5.5, 1e-9);
-    assert_rel("lost travel", m.lost_travel.unwrap(), 250.0 * 5.5 / 1e6, 1e-9);
+    assert_rel(
+        "lost travel",
+        m.lost_travel.unwrap(),
+        250.0 * 5.5 / 1e6,
+        1e-9,
+    );
     let lines: Vec<usize> = (0..rig.lines.len()).collect();
     let castigliano =
         castigliano_lost_travel(&rig, &s.geometry, &lines, &m.ideal.tension, m.ideal.value)
@@ -159,7 +183,9 @@ fn a_level_span_sags_like_the_parabola() {
     // 0.196 13 m; the catenary is within 0.1 % of it (sag/span ≈ 1 %).
     let (rig, s) = solve_text(LEVEL_SPAN);
     let report = Report::build(&rig, &s, Vec::new());
-    let sag = report.spans[0].sag_m.expect("a level span with weight sags");
+    let sag = report.spans[0]
+        .sag_m
+        .expect("a level span with weight sags");
     let parabola = 0.2 * STANDARD_GRAVITY * 400.0 / (8.0 * 500.0);
     assert_rel("sag", sag, parabola, 1e-3);
     // Level: both ends at one tension, so no `_end` figures; the pull is the load.
@@ -167,7 +193,12 @@ fn a_level_span_sags_like_the_parabola() {
     assert_rel("pull", s.main().forward.value, 500.0, 1e-12);
     // The weight hangs half on each end: the cart's pin load has 0.2·g·20/2 down.
     let pin = s.main().ideal.pin_load[0].unwrap();
-    assert_rel("cart carries half the rope", -pin.z, 0.2 * STANDARD_GRAVITY * 10.0, 1e-9);
+    assert_rel(
+        "cart carries half the rope",
+        -pin.z,
+        0.2 * STANDARD_GRAVITY * 10.0,
+        1e-9,
+    );
 }
 
 #[test]
@@ -178,15 +209,23 @@ fn json_keys_of_the_contract() {
     let span = &j["spans"][0];
     for case in ["ideal", "forward", "back"] {
         assert!(span["stretch_m"][case].as_f64().is_some(), "{span}");
-        assert!(span["tension_n"][format!("{case}_end")].as_f64().is_some(), "{span}");
+        assert!(
+            span["tension_n"][format!("{case}_end")].as_f64().is_some(),
+            "{span}"
+        );
     }
     assert!(j["lost_travel"].as_f64().is_some() && j["drive_stiffness"].as_f64().is_some());
     let j = json_of(&["check", &test_rig("one-sheave.yaml"), "--json"]);
     for key in ["lost_travel", "drive_stiffness"] {
-        assert!(j.get(key).is_none(), "a rig without the keys gains no {key}");
+        assert!(
+            j.get(key).is_none(),
+            "a rig without the keys gains no {key}"
+        );
     }
     assert!(j["spans"][0].get("stretch_m").is_none() && j["spans"][0].get("sag_m").is_none());
-    let out = reeve_on(LEVEL_SPAN, &["check", "--json"]).expect_code(0).json();
+    let out = reeve_on(LEVEL_SPAN, &["check", "--json"])
+        .expect_code(0)
+        .json();
     assert!(out["spans"][0]["sag_m"].as_f64().is_some());
 }
 

@@ -760,7 +760,10 @@ fn every_review_rig_balances_its_energy() {
 fn with_material(text: &str, keys: &str) -> String {
     let plain = "wire: {diameter: 0.01, mu: 0.15}";
     assert!(text.contains(plain), "the random rig's rope is `{plain}`");
-    text.replace(plain, &format!("wire: {{diameter: 0.01, mu: 0.15, {keys}}}"))
+    text.replace(
+        plain,
+        &format!("wire: {{diameter: 0.01, mu: 0.15, {keys}}}"),
+    )
 }
 
 /// Every span's stretch per case, m, as the report gives it.
@@ -771,7 +774,10 @@ fn stretches(text: &str) -> Vec<[Option<f64>; 3]> {
         .spans
         .iter()
         .map(|span| {
-            let p = span.stretch_m.as_ref().expect("a rope with stiffness has stretch");
+            let p = span
+                .stretch_m
+                .as_ref()
+                .expect("a rope with stiffness has stretch");
             [p.ideal, p.forward, p.back]
         })
         .collect()

@@ -397,7 +397,10 @@ impl MaterialColumns {
                 t.column(format!("stretch {} ({len})", c.name()), Align::Right);
             }
             if self.weight {
-                t.column(format!("tension {} at end ({force})", c.name()), Align::Right);
+                t.column(
+                    format!("tension {} at end ({force})", c.name()),
+                    Align::Right,
+                );
             }
         }
         if self.weight {

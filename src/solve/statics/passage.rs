@@ -111,8 +111,7 @@ impl Problem<'_> {
                         let spans = &self.geometry.lines[line].spans;
                         let u_in = spans[e - 1].direction.into_inner();
                         let u_out = spans[e].direction.into_inner();
-                        let before =
-                            (prev[line][e - 1] + self.weight.rise(line, e - 1)).max(0.0);
+                        let before = (prev[line][e - 1] + self.weight.rise(line, e - 1)).max(0.0);
                         let after = if s > 0.0 {
                             friction::tight_tension(before, &u_out, &(-u_in), &weight, radius, r)
                         } else {

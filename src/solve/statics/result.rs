@@ -174,7 +174,13 @@ impl Problem<'_> {
             .map(|(l, t)| {
                 t.iter()
                     .enumerate()
-                    .map(|(j, t)| if self.weight.per_length[l] > 0.0 { t + self.weight.rise(l, j) } else { *t })
+                    .map(|(j, t)| {
+                        if self.weight.per_length[l] > 0.0 {
+                            t + self.weight.rise(l, j)
+                        } else {
+                            *t
+                        }
+                    })
                     .collect()
             })
             .collect()
