@@ -368,6 +368,18 @@ pub fn write_html(
         w,
         "<p class=\"meta\">Pin load: the resultant of the rope pulls and the part's own weight; direction as a unit vector (x, y, z) in the rig's frame. Loss share: this part's part of all friction losses, forward case.</p>\n</section>"
     )?;
+    if let Some(t) = table::material_table(report, units, table::CaseFilter::Forward, Style::Human)
+    {
+        writeln!(
+            w,
+            "<section id=\"material-table\">\n<h2>Rope as a material</h2>"
+        )?;
+        write_table(w, &t, "material")?;
+        writeln!(
+            w,
+            "<p class=\"meta\">Forward case. Stretch: mean tension × length / EA. Tension at end: where the rope's weight makes the span's ends differ (the span table shows the tension at its start). Sag: the catenary's largest vertical distance below the chord, for spans within 45° of level.</p>\n</section>"
+        )?;
+    }
 
     // Loss breakdown, forward.
     writeln!(

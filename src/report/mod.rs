@@ -4,11 +4,13 @@
 
 pub mod asked;
 pub mod chart;
+mod drive;
 pub mod escape;
 pub mod file;
 pub mod format;
 pub mod html;
 pub mod motion;
+pub mod material;
 pub mod study;
 pub mod svg;
 pub mod table;
@@ -19,12 +21,15 @@ use serde::Serialize;
 use crate::checks::Warning;
 use crate::math::{Real, Vector};
 use crate::model::{PartKind, Rig};
-use crate::solve::kinematics::Motion;
 use crate::solve::{given_quantity, Case, Outcome, Solution, SubRigSolution};
 use crate::units::UnitSystem;
 
 pub use asked::{Asked, Role};
+use drive::travel;
+pub use drive::{DriveKind, Travel};
 pub use format::Format;
+use material::span_material;
+pub use material::SpanTension;
 
 /// The caution every human-readable report ends with (DESIGN.md §6).
 pub const CAUTION: &str =
@@ -110,40 +115,6 @@ pub struct SpanReport {
     pub direction: [Real; 3],
 }
 
-/// A span's tension per case: at its start (`ideal`, `forward`, `back`) and, where the
-/// rope's weight makes the two ends differ, at its end (`ideal_end`, ...; DESIGN.md §7).
-#[derive(Debug, Clone, Serialize, PartialEq)]
-pub struct SpanTension {
-    /// No friction, N.
-    pub ideal: Option<Real>,
-    /// Driving forward, N.
-    pub forward: Option<Real>,
-    /// Running back, N.
-    pub back: Option<Real>,
-    /// No friction, at the span's end, N.
-    #[serde(skip_serializing_if = "Option::is_none")]
-    pub ideal_end: Option<Real>,
-    /// Driving forward, at the span's end, N.
-    #[serde(skip_serializing_if = "Option::is_none")]
-    pub forward_end: Option<Real>,
-    /// Running back, at the span's end, N.
-    #[serde(skip_serializing_if = "Option::is_none")]
-    pub back_end: Option<Real>,
-}
-
-impl SpanTension {
-    /// The start and end tensions of a case: (start, end), the end the start where
-    /// they do not differ.
-    pub fn ends(&self, case: Case) -> (Option<Real>, Option<Real>) {
-        let (a, b) = match case {
-            Case::Ideal => (self.ideal, self.ideal_end),
-            Case::Forward => (self.forward, self.forward_end),
-            Case::Back => (self.back, self.back_end),
-        };
-        (a, b.or(a))
-    }
-}
-
 /// A passage of a line over a round part.
 #[derive(Debug, Clone, Serialize, PartialEq)]
 pub struct PassageReport {
@@ -214,89 +185,6 @@ pub struct DrumReport {
     pub thrust_nm: Option<Real>,
     /// Forward rope torque minus (load + drag), N·m: what journal and thrust take.
     pub margin_nm: Option<Real>,
-}
-
-/// What drives a sub-rig, for wording its outcome.
-#[derive(Debug, Clone, Copy, PartialEq, Eq)]
-pub enum DriveKind {
-    /// A haul end: a person, a hand or a powered pull; it can pull less than it has.
-    Pull,
-    /// A hanging weight (a counterweight): its value is what it is, and it moves the
-    /// rig by itself or not at all.
-    Counterweight,
-    /// A drum (a winch or crank); it can turn with less torque than it has.
-    Drum,
-    /// A block whose load drives it forward (a falling block), fixed like a weight.
-    FallingBlock,
-}
-
-impl DriveKind {
-    /// The drive kind of a part.
-    pub fn of(kind: &PartKind) -> DriveKind {
-        match kind {
-            PartKind::Weight(_) => DriveKind::Counterweight,
-            PartKind::Drum(_) => DriveKind::Drum,
-            PartKind::Block(_) => DriveKind::FallingBlock,
-            _ => DriveKind::Pull,
-        }
-    }
-
-    /// Whether its value is fixed (a weight's mass, a block's load): then it moves the
-    /// rig by itself above the forward value, friction holds it inside the holding band,
-    /// and the rig runs back by itself below the back value.
-    pub fn fixed(self) -> bool {
-        matches!(self, DriveKind::Counterweight | DriveKind::FallingBlock)
-    }
-}
-
-/// Which way a part goes when the rig moves forward.
-#[derive(Debug, Clone, Copy, PartialEq, Eq)]
-pub enum Travel {
-    /// More than 10° above the horizontal (against gravity).
-    Up,
-    /// More than 10° below the horizontal.
-    Down,
-    /// Within 10° of the horizontal.
-    Across,
-    /// It turns (a drum).
-    Turns,
-}
-
-impl Travel {
-    /// What the part does going forward and running back: `rises` / `drops back`.
-    pub fn words(travel: Option<Travel>) -> (&'static str, &'static str) {
-        match travel {
-            Some(Travel::Up) => ("rises", "drops back"),
-            Some(Travel::Down) => ("lowers", "rises back"),
-            Some(Travel::Turns) => ("turns forward", "turns back"),
-            Some(Travel::Across) | None => ("moves forward", "runs back"),
-        }
-    }
-}
-
-/// The way `part` travels in the forward motion, if it moves.
-fn travel(rig: &Rig, solution: &Solution, part: usize) -> Option<Travel> {
-    let k = &solution.kinematics;
-    let i = (*k.dof_of_part.get(part)?)?;
-    match k.dofs[i].motion {
-        Motion::Rotate(_) => Some(Travel::Turns),
-        Motion::Translate(d) => {
-            let v = d.into_inner() * k.forward[i];
-            let n = v.norm();
-            if !(n > 0.0 && n.is_finite()) {
-                return None;
-            }
-            // sin 10° ≈ 0.17: steeper than that reads as going up or down.
-            let up = v.dot(&-rig.gravity.into_inner()) / n;
-            Some(if up > 0.17 {
-                Travel::Up
-            } else if up < -0.17 {
-                Travel::Down
-            } else {
-                Travel::Across
-            })
-        }
-    }
 }
 
 /// The headline of one sub-rig.
@@ -663,80 +551,6 @@ fn passage_wrap(
         std::f64::consts::TAU * Real::from(g.turns)
     } else {
         g.wrap
-    }
-}
-
-/// The rope-as-material figures of one span (DESIGN.md §7): end tensions where they
-/// differ from the start, stretch per case, sag.
-struct SpanMaterial {
-    ends: PerCase,
-    stretch: Option<PerCase>,
-    sag: Option<Real>,
-}
-
-fn span_material(
-    rig: &Rig,
-    solution: &Solution,
-    sub: Option<&SubRigSolution>,
-    line: usize,
-    span: usize,
-) -> SpanMaterial {
-    let rope = rig.rope_of(line);
-    let geometry = &solution.geometry.lines[line].spans[span];
-    let weighs = rope.mass_per_length.is_some_and(|w| w > 0.0);
-    let ends = |c: Case| -> Option<(Real, Real)> {
-        let case = sub?.case(c);
-        Some((
-            *case.tension[line].get(span)?,
-            *case.tension_end[line].get(span)?,
-        ))
-    };
-    let cases = [Case::Ideal, Case::Forward, Case::Back];
-    let per_case = |f: &dyn Fn(Case) -> Option<Real>| PerCase {
-        ideal: f(Case::Ideal),
-        forward: f(Case::Forward),
-        back: f(Case::Back),
-    };
-    let end = |c: Case| {
-        let (a, b) = ends(c)?;
-        (weighs && b != a).then_some(b).and_then(finite)
-    };
-    let stretch = rope.stiffness.map(|ea| {
-        per_case(&|c| {
-            let (a, b) = ends(c)?;
-            finite(crate::solve::elastic::span_stretch(
-                a,
-                b,
-                geometry.length,
-                ea,
-            ))
-        })
-    });
-    let sag = if weighs {
-        let up = -rig.gravity.into_inner();
-        let chord = geometry.end - geometry.start;
-        let rise = chord.dot(&up);
-        let run = (chord - up * rise).norm();
-        let q = rope.mass_per_length.unwrap_or(0.0) * crate::math::STANDARD_GRAVITY;
-        cases
-            .iter()
-            .filter_map(|&c| {
-                let (a, b) = ends(c)?;
-                let horizontal = 0.5 * (a + b) * run / geometry.length;
-                // Near-horizontal spans only (within 45° of level): on a steep span
-                // the vertical distance from the chord says nothing useful.
-                (run > 1e-6 * geometry.length && rise.abs() <= run)
-                    .then(|| crate::geometry::catenary::sag(run, rise, horizontal, q))
-                    .flatten()
-            })
-            .reduce(Real::max)
-    } else {
-        None
-    };
-    SpanMaterial {
-        ends: per_case(&end),
-        stretch,
-        sag,
     }
 }
 

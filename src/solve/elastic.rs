@@ -169,6 +169,9 @@ pub fn compatible_split(
     for (j, n) in column_norms.iter().enumerate() {
         scaled.column_mut(j).unscale_mut(*n);
     }
+    if !scaled.iter().all(|v| v.is_finite()) {
+        return None;
+    }
     let mut null = null_space(&scaled, rank_tolerance);
     for (j, n) in column_norms.iter().enumerate() {
         null.row_mut(j).unscale_mut(*n);
@@ -188,6 +191,11 @@ pub fn compatible_split(
     let lhs = &wt * &s_null;
     let stretch_p = a.component_mul(particular) + &b;
     let rhs = -(&wt * stretch_p);
+    // Nothing that is not a finite number may reach the SVD (an absurdly small EA
+    // overflows the compliances): the least-squares split stands then.
+    if !(lhs.iter().all(|v| v.is_finite()) && rhs.iter().all(|v| v.is_finite())) {
+        return None;
+    }
     let scale = lhs.amax().max(1e-300);
     let svd = lhs.svd(true, true);
     let rank = svd.rank(1e-9 * scale);
@@ -270,6 +278,9 @@ pub fn drive_stiffness(input: &SpringInput) -> Option<Real> {
             mat[(ns + c, g)] = rows[(g, f)];
         }
         rhs[g] = rows[(g, *drive)];
+    }
+    if !(mat.iter().all(|v| v.is_finite()) && rhs.iter().all(|v| v.is_finite())) {
+        return None;
     }
     let scale = mat.amax().max(1e-300);
     let svd = mat.svd(true, true);

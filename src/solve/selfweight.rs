@@ -234,11 +234,29 @@ pub fn contact_velocity(
 mod tests {
     use super::*;
 
-    /// T_top = T_bottom + w·g·L for a vertical span (Meriam & Kraige, Statics §5/9).
+    /// The span's forces on its two ends carry its whole weight: with the end tension
+    /// `T_start + w·g·Δh` along the chord and `W⊥/2` on each end, the rope is in
+    /// balance (Meriam & Kraige, *Statics*, §5/9).
     #[test]
-    fn vertical_span_rises_by_its_weight() {
-        let wg = 1.0 * STANDARD_GRAVITY;
-        let rise = wg * 100.0;
-        assert!((10_000.0 + rise - 10_980.665).abs() < 1e-9);
+    fn a_span_hangs_its_weight_on_its_ends() {
+        let wg = 0.5 * STANDARD_GRAVITY;
+        let (run, rise) = (8.0_f64, 6.0_f64);
+        let length = run.hypot(rise);
+        let u = Vector::new(run, 0.0, rise) / length;
+        let w = Vector::new(0.0, 0.0, -wg * length);
+        let weight = RopeWeight {
+            spans: vec![vec![SpanWeight {
+                rise: wg * rise,
+                normal: w - u * w.dot(&u),
+                weight: wg * length,
+            }]],
+            arcs: vec![vec![0.0, 0.0]],
+            per_length: vec![wg],
+        };
+        let (at_start, at_end) = weight.end_forces(0, 0, &u, 100.0);
+        // Forces on the rope are the reactions: −(on the parts); with its weight, zero.
+        let balance = -(at_start + at_end) + w;
+        assert!(balance.norm() < 1e-12, "{balance}");
+        assert!(((at_end + u * (100.0 + wg * rise)) - (w - u * w.dot(&u)) * 0.5).norm() < 1e-12);
     }
 }

@@ -243,3 +243,35 @@ fn bad_material_values_are_located_errors() {
         assert!(err.contains(":6:") && err.contains(says), "{value}: {err}");
     }
 }
+
+#[test]
+fn a_line_sets_balance_changes_with_trim_height() {
+    // `sweep --stroke` re-solves with the rope's weight at each step: as the batten
+    // flies out (forward), each lift line's rope moves from the batten side to the arbor
+    // side. Hand calculation by potential energy (Beer & Johnston, *Statics*, ch. 10,
+    // virtual work and potential energy): a vertical span from height z up to a fixed
+    // block at H holds w·g·(H² − z²)/2; with the batten at z_b = 3 + x and the arbor at
+    // z_a = 4 − x, each line's d²PE/dx² = −2·w·g, so the ideal drive force falls by
+    // 6·w·g per metre for three lines: w = 0.26 lb/ft = 0.386 93 kg/m, 22.77 N/m, 45.53 N
+    // over 2 m. Weightless lift lines keep it constant.
+    let rig = crate::support::example_rig("line-set");
+    let steps = |set: &str| {
+        let j = json_of(&[
+            "sweep", &rig, "--stroke", "2m", "--steps", "3", "--set", set, "--json",
+        ]);
+        let s = j["steps"].as_array().unwrap().clone();
+        let ideal = |k: usize| s[k]["ideal"].as_f64().unwrap();
+        assert_eq!(s.last().unwrap()["travel"].as_f64(), Some(2.0));
+        (ideal(0), ideal(s.len() - 1))
+    };
+    let w = 0.26 * 0.453_592_37 / 0.3048;
+    let (low, high) = steps("ropes.lift.stiffness=3.6 MN");
+    assert_rel(
+        "fall of the ideal force over 2 m",
+        low - high,
+        2.0 * 6.0 * w * STANDARD_GRAVITY,
+        1e-3,
+    );
+    let (low, high) = steps("ropes.lift.mass_per_length=0");
+    assert_rel("weightless: no change", high, low, 1e-4);
+}

@@ -626,13 +626,14 @@ fn table_writes_to_a_file_with_o() {
 #[test]
 fn the_html_summary_shows_the_friction_at_the_drive() {
     // Guards: the report's summary table has the friction row of `check` (line set:
-    // 149.7 − 98.06 = 51.64 N forward, 98.06 − 49.49 = 48.57 N back).
+    // 165.4 − 109.4 = 55.95 N forward, 109.4 − 56.83 = 52.62 N back, with the lift
+    // lines' stiffness and weight of issue 11).
     let html = stdout_of(&["report", &example_rig("line-set"), "-o", "-"]);
     let row = html
         .lines()
         .find(|l| l.contains("<th scope=\"row\">friction</th>"))
         .unwrap_or_else(|| panic!("no friction row"));
-    assert!(row.contains("51.64 N") && row.contains("48.57 N"), "{row}");
+    assert!(row.contains("55.95 N") && row.contains("52.62 N"), "{row}");
 }
 
 #[test]

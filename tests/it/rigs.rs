@@ -155,7 +155,8 @@ struct Exercised {
 /// report one. Each span pulls its two ends towards each other with its one tension,
 /// so the forces the (massless) lines put on the parts cancel, whatever the friction;
 /// a part's pin load is that force plus its own weight (sheaves and drums with a
-/// `mass`). Returns whether any such weight took part.
+/// `mass`). A rope with a `mass_per_length` hangs its spans' weight on the parts too
+/// (DESIGN.md §7), so that is added. Returns whether any such weight took part.
 fn pin_loads_balance(rel: &str, path: &Path, value: &serde_json::Value) -> bool {
     use reeve::math::Vector;
     use reeve::model::PartKind;
@@ -171,7 +172,20 @@ fn pin_loads_balance(rel: &str, path: &Path, value: &serde_json::Value) -> bool 
     };
     let gravity = rig.gravity.into_inner() * reeve::math::STANDARD_GRAVITY;
     let parts = value["parts"].as_array().expect("parts");
-    let mut weighed = false;
+    let rope_mass: f64 = value["spans"]
+        .as_array()
+        .expect("spans")
+        .iter()
+        .map(|s| {
+            let line = rig
+                .lines
+                .iter()
+                .position(|l| Some(l.name.as_str()) == s["line"].as_str())
+                .expect("span of a line");
+            rig.rope_of(line).mass_per_length.unwrap_or(0.0) * s["length_m"].as_f64().unwrap()
+        })
+        .sum();
+    let mut weighed = rope_mass > 0.0;
     for (case, load, direction) in [
         (
             "ideal",
@@ -191,7 +205,7 @@ fn pin_loads_balance(rel: &str, path: &Path, value: &serde_json::Value) -> bool 
     ] {
         let at =
             |p: &serde_json::Value, keys: &[&str]| keys.iter().fold(p.clone(), |v, k| v[k].clone());
-        let (mut sum, mut weight) = (Vector::zeros(), Vector::zeros());
+        let (mut sum, mut weight) = (Vector::zeros(), rope_mass * gravity);
         let (mut scale, mut count) = (0.0, 0);
         for p in parts {
             let name = p["name"].as_str().expect("part name");
@@ -220,7 +234,7 @@ fn pin_loads_balance(rel: &str, path: &Path, value: &serde_json::Value) -> bool 
         }
         assert!(count > 0, "{rel}: no part reports a {case} pin load");
         assert_abs(
-            &format!("{rel}: {case} pin loads summed less the parts' own weight, N"),
+            &format!("{rel}: {case} pin loads summed less the parts' and ropes' own weight, N"),
             (sum - weight).norm(),
             0.0,
             1e-9 * scale,

@@ -21,8 +21,10 @@ use crate::units::{Dimension, UnitSystem};
 
 use super::escape::{csv_field, markdown_cell, text_line};
 use super::text::number;
-use super::{Report, SpanReport, CAUTION};
-use crate::solve::Case;
+use super::{Report, CAUTION};
+
+mod material;
+pub use material::material_table;
 
 pub mod json;
 
@@ -330,8 +332,6 @@ pub fn span_table(report: &Report, units: &UnitSystem, cases: CaseFilter, style:
         t.column(format!("tension back ({force})"), Align::Right);
     }
     t.column("safety factor", Align::Right);
-    let material = MaterialColumns::of(report);
-    material.headers(&mut t, units, cases);
     for s in &report.spans {
         let mut row = vec![Cell::Text(s.line.clone()), Cell::Text(s.index.to_string())];
         match style {
@@ -352,83 +352,9 @@ pub fn span_table(report: &Report, units: &UnitSystem, cases: CaseFilter, style:
             row.push(in_units(s.tension_n.back, Dimension::Force, units));
         }
         row.push(Cell::Number(s.safety_factor, 3));
-        material.cells(&mut row, s, units, cases);
         t.rows.push(row);
     }
     t
-}
-
-/// The span table's columns for the rope as a material (DESIGN.md §7), shown only where
-/// a rope gives `stiffness` (stretch per case) or `mass_per_length` (tension at the
-/// span's end per case, sag): a rig without them keeps today's table.
-struct MaterialColumns {
-    stretch: bool,
-    weight: bool,
-}
-
-impl MaterialColumns {
-    fn of(report: &Report) -> MaterialColumns {
-        MaterialColumns {
-            stretch: report.spans.iter().any(|s| s.stretch_m.is_some()),
-            weight: report.spans.iter().any(|s| {
-                s.sag_m.is_some()
-                    || s.tension_n.ideal_end.is_some()
-                    || s.tension_n.forward_end.is_some()
-                    || s.tension_n.back_end.is_some()
-            }),
-        }
-    }
-
-    fn cases(cases: CaseFilter) -> Vec<Case> {
-        [
-            (cases.ideal(), Case::Ideal),
-            (cases.forward(), Case::Forward),
-            (cases.back(), Case::Back),
-        ]
-        .into_iter()
-        .filter_map(|(shown, c)| shown.then_some(c))
-        .collect()
-    }
-
-    fn headers(&self, t: &mut Table, units: &UnitSystem, cases: CaseFilter) {
-        let (len, force) = (units.length.symbol, units.force.symbol);
-        for c in Self::cases(cases) {
-            if self.stretch {
-                t.column(format!("stretch {} ({len})", c.name()), Align::Right);
-            }
-            if self.weight {
-                t.column(
-                    format!("tension {} at end ({force})", c.name()),
-                    Align::Right,
-                );
-            }
-        }
-        if self.weight {
-            t.column(format!("sag ({len})"), Align::Right);
-        }
-    }
-
-    fn cells(&self, row: &mut Vec<Cell>, s: &SpanReport, units: &UnitSystem, cases: CaseFilter) {
-        for c in Self::cases(cases) {
-            if self.stretch {
-                let stretch = s.stretch_m.as_ref().and_then(|p| match c {
-                    Case::Ideal => p.ideal,
-                    Case::Forward => p.forward,
-                    Case::Back => p.back,
-                });
-                row.push(Cell::Number(
-                    stretch.map(|v| units.from_si(v, Dimension::Length)),
-                    FIGURES,
-                ));
-            }
-            if self.weight {
-                row.push(in_units(s.tension_n.ends(c).1, Dimension::Force, units));
-            }
-        }
-        if self.weight {
-            row.push(in_units(s.sag_m, Dimension::Length, units));
-        }
-    }
 }
 
 /// The pin-load direction: one `(x, y, z)` column for a person, three numeric columns
@@ -567,6 +493,9 @@ pub fn tables(
     }
     if choice != TableChoice::Spans {
         out.push(part_table(report, units, cases, style));
+    }
+    if choice != TableChoice::Parts {
+        out.extend(material_table(report, units, cases, style));
     }
     out
 }

@@ -85,13 +85,15 @@ impl Problem<'_> {
         let total_load: Real = load_power.iter().sum();
         // The ropes' own weight: its potential energy counts (DESIGN.md §7).
         let rope_power = self.rope_power(velocity);
+        let stretch_power = self.misfit_power(&tension_end, velocity);
         let scale = drive_power
             .abs()
             .max(total_load.abs())
             .max(total_loss.abs())
             .max(rope_power.abs())
             .max(1e-300);
-        let audit_residual = (drive_power - total_load - total_loss - rope_power).abs() / scale;
+        let audit_residual =
+            (drive_power - total_load - total_loss - rope_power - stretch_power).abs() / scale;
 
         // Pin loads and drum torques.
         let forces = self.contact_forces(&tension);
@@ -184,6 +186,26 @@ impl Problem<'_> {
                     .collect()
             })
             .collect()
+    }
+
+    /// Power into the ropes' stretch where the rig's motion is not exactly rigid
+    /// (nearly parallel lines sharing a block move within the motion tolerance, the
+    /// misfit taken up by stretch, see [`super::super::SolveOptions::motion_tolerance`]):
+    /// each segment's rate of lengthening times its tension where the walk of rope
+    /// speeds leaves the misfit, its last span's end. Zero, to round-off, for a rig
+    /// whose motion is exact.
+    fn misfit_power(&self, tension_end: &[Vec<Real>], velocity: &DVector<Real>) -> Real {
+        self.segs
+            .iter()
+            .map(|&g| {
+                let seg = self.kin.segments[g];
+                let rate: Real = self.kin.span_rows[seg.line][seg.first..seg.last]
+                    .iter()
+                    .map(|row| row.dot(velocity))
+                    .sum();
+                tension_end[seg.line][seg.last - 1] * rate
+            })
+            .sum()
     }
 
     /// Power into the ropes' potential energy per unit drive speed in this case, W.
