@@ -10,6 +10,7 @@ mod generators;
 mod geometry;
 mod load_errors;
 mod material;
+mod motion;
 mod numerics;
 mod outputs;
 mod properties;
