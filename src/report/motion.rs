@@ -414,3 +414,80 @@ pub fn chart(m: &Motion, units: &UnitSystem) -> String {
         },
     ])
 }
+
+/// The HTML report's motion section, for a rig that gives a `travel` or a schedule
+/// (nothing otherwise): the events and strokes, and the chart.
+///
+/// # Errors
+/// Only those of `w`.
+pub fn write_html_section(w: &mut dyn Write, rig: &crate::model::Rig) -> io::Result<()> {
+    use super::escape::xml as esc;
+    if rig.changing.travel.is_none() && !rig.changing.has_schedule() {
+        return Ok(());
+    }
+    writeln!(w, "<section id=\"motion\">\n<h2>Motion from rest</h2>")?;
+    let m = match crate::solve::motion::motion(rig, &Default::default()) {
+        Ok(m) => m,
+        Err(e) => {
+            writeln!(
+                w,
+                "<p>No motion run: {}.</p>\n</section>",
+                esc(&crate::text::error_chain(&e))
+            )?;
+            return Ok(());
+        }
+    };
+    let ((ps, pu), (ds, du)) = shown(&m, &rig.units);
+    let n = |x: Real| esc(&number(Some(x), 4));
+    writeln!(w, "<div class=\"table-scroll\"><table class=\"data\"><thead><tr><th scope=\"col\" class=\"num\">t (s)</th><th scope=\"col\">event</th><th scope=\"col\" class=\"num\">at ({})</th><th scope=\"col\" class=\"num\">drive ({})</th></tr></thead><tbody>", esc(&pu), esc(&du))?;
+    for e in &m.run.events {
+        writeln!(
+            w,
+            "<tr><td class=\"num\">{}</td><td>{}</td><td class=\"num\">{}</td><td class=\"num\">{}</td></tr>",
+            n(e.t),
+            e.kind.name(),
+            n(e.position * ps),
+            n(e.drive_value * ds)
+        )?;
+    }
+    writeln!(w, "</tbody></table></div>")?;
+    if m.run.events.is_empty() {
+        writeln!(w, "<p>The rig stays at rest over the run.</p>")?;
+    }
+    for s in &m.strokes {
+        writeln!(
+            w,
+            "<p>Stroke {} from {} s to {} s ({} s): peak speed {}, peak span tension {} N, {} stick-slip cycle(s).</p>",
+            if s.direction > 0.0 { "forward" } else { "back" },
+            n(s.start),
+            n(s.end),
+            n(s.end - s.start),
+            n(s.peak_speed),
+            n(s.peak_tension),
+            s.stick_slip_cycles
+        )?;
+    }
+    if !m.warnings.is_empty() {
+        writeln!(w, "<ul class=\"warnings\">")?;
+        for wn in &m.warnings {
+            writeln!(
+                w,
+                "<li><span class=\"tag warn\">warn</span><code>{}</code>: {}</li>",
+                esc(wn.code),
+                esc(&wn.message)
+            )?;
+        }
+        writeln!(w, "</ul>")?;
+    }
+    // The chart scales to the page.
+    let svg = chart(&m, &rig.units);
+    let svg = svg.replacen(" width=\"720\"", " width=\"100%\"", 1);
+    let svg = match (svg.find(" height=\""), svg.find('>')) {
+        (Some(h), Some(end)) if h < end => {
+            let close = svg[h + 9..].find('"').map_or(h, |c| h + 9 + c + 1);
+            format!("{}{}", &svg[..h], &svg[close..])
+        }
+        _ => svg,
+    };
+    writeln!(w, "<figure>{svg}</figure>\n</section>")
+}
