@@ -51,6 +51,9 @@ pub struct StrokeJson {
     /// Speed at the end stop, where it ends at one.
     #[serde(skip_serializing_if = "Option::is_none")]
     pub stop_speed: Option<Real>,
+    /// From the drive value's last turn to the start (a scheduled drive), s.
+    #[serde(skip_serializing_if = "Option::is_none")]
+    pub lag_s: Option<Real>,
 }
 
 /// A time sample in the JSON.
@@ -145,6 +148,7 @@ fn stroke_json(s: &Stroke) -> StrokeJson {
         peak_tension_n: s.peak_tension,
         stick_slip_cycles: s.stick_slip_cycles,
         stop_speed: s.stop_speed,
+        lag_s: s.lag,
     }
 }
 
@@ -301,8 +305,9 @@ pub fn write_text(
     writeln!(w, "Strokes:")?;
     writeln!(
         w,
-        "  {:<8} {:>10} {:>10} {:>10} {:>12} {:>12} {:>6}",
+        "  {:<8} {:>10} {:>10} {:>10} {:>10} {:>12} {:>12} {:>6}",
         "way",
+        "lag (s)",
         "start (s)",
         "end (s)",
         "time (s)",
@@ -313,8 +318,9 @@ pub fn write_text(
     for s in &m.strokes {
         writeln!(
             w,
-            "  {:<8} {:>10} {:>10} {:>10} {:>12} {:>12} {:>6}",
+            "  {:<8} {:>10} {:>10} {:>10} {:>10} {:>12} {:>12} {:>6}",
             if s.direction > 0.0 { "forward" } else { "back" },
+            s.lag.map_or("—".to_string(), n),
             n(s.start),
             n(s.end),
             n(s.end - s.start),

@@ -511,7 +511,8 @@ pub fn run(profile: &Profile, drive: &DriveValue, settings: &Settings) -> Run {
                             kind,
                             position: y[0],
                             drive_value: d,
-                            speed,
+                            // Coming to rest in the open: no impact.
+                            speed: if kind == EventKind::Stops { 0.0 } else { speed },
                         });
                     }
                     mode = Mode::Rest;

@@ -5,7 +5,7 @@
 //! forward and back values, the holding band with static coefficients, the inertia of
 //! every moving part as the drive feels it through the friction of each case. The
 //! [`integrate`] module moves it in time under the drive's value (constant, or its
-//! schedule). [`summarize`] turns the run into strokes and warnings.
+//! schedule). [`strokes`] and the warnings turn the run into strokes and warnings.
 //!
 //! Not yet here: the second degree of freedom of a stretchy rope (drive side and rig
 //! side joined by the drive spring rate, where stick-slip between them appears), and
@@ -90,6 +90,10 @@ pub struct Stroke {
     pub stick_slip_cycles: usize,
     /// Whether it ended at an end stop, and the speed it hit it with.
     pub stop_speed: Option<Real>,
+    /// The lag: from the drive value's last turn before the start (its latest least
+    /// value for a forward stroke, greatest for a back stroke, since the previous
+    /// stroke ended) to the start, s; None for a constant drive.
+    pub lag: Option<Real>,
 }
 
 /// A warning of the motion run.
@@ -169,7 +173,14 @@ pub fn motion(rig: &Rig, options: &MotionOptions) -> Result<Motion, MotionError>
         tolerance_scale: options.tolerance_scale,
     };
     let run = integrate::run(&profile, &drive_value, &settings);
-    let strokes = strokes(&run);
+    let mut strokes = strokes(&run);
+    if let DriveValue::Scheduled(s) = &drive_value {
+        let mut since = 0.0;
+        for stroke in &mut strokes {
+            stroke.lag = lag(s, since, stroke.start, stroke.direction);
+            since = stroke.end;
+        }
+    }
     let mut warnings = warnings(&rig, &profile, &run, &strokes);
     for (p, part) in rig.parts.iter().enumerate() {
         if p != drive && rig.changing.of(p).schedule.is_some() {
@@ -198,6 +209,31 @@ pub fn motion(rig: &Rig, options: &MotionOptions) -> Result<Motion, MotionError>
         warnings,
         drive_value,
     })
+}
+
+/// From the schedule's latest extreme in `[since, start]` (least for a forward stroke,
+/// greatest for a back one; a schedule's extremes lie at its points) to `start`.
+fn lag(
+    schedule: &crate::model::changing::Schedule,
+    since: Real,
+    start: Real,
+    direction: Real,
+) -> Option<Real> {
+    let mut best: Option<(Real, Real)> = None;
+    let candidates = schedule
+        .times()
+        .filter(|&t| t >= since && t <= start)
+        .chain([since]);
+    for t in candidates {
+        let q = schedule.at(t) * -direction;
+        // The latest of the greatest `-direction·q`: ties go to the later time.
+        if best.is_none_or(|(bq, bt)| {
+            q > bq + 1e-12 * bq.abs() || (q >= bq - 1e-12 * bq.abs() && t > bt)
+        }) {
+            best = Some((q, t));
+        }
+    }
+    best.map(|(_, t)| start - t)
 }
 
 /// The strokes of a run: from each start until the rig stays at rest (a stop, or a stop
@@ -233,6 +269,7 @@ pub fn strokes(run: &Run) -> Vec<Stroke> {
                             peak_tension: 0.0,
                             stick_slip_cycles: 0,
                             stop_speed: None,
+                            lag: None,
                         });
                     }
                 }
