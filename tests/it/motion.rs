@@ -257,13 +257,13 @@ fn the_stick_slip_oscillator_jumps_2_mu_difference_mg_over_k_and_sticks_for_jump
         .run
         .events
         .iter()
-        .filter(|e| e.kind == EventKind::StartsForward)
+        .filter(|e| matches!(e.kind, EventKind::StartsForward | EventKind::Slips))
         .collect();
     let stops: Vec<_> = m
         .run
         .events
         .iter()
-        .filter(|e| e.kind == EventKind::Stops)
+        .filter(|e| matches!(e.kind, EventKind::Sticks | EventKind::Stops))
         .collect();
     assert!(starts.len() >= 4 && stops.len() >= 3, "{:?}", m.run.events);
     let (v, omega) = (0.01, 10.0);
@@ -287,6 +287,13 @@ fn the_stick_slip_oscillator_jumps_2_mu_difference_mg_over_k_and_sticks_for_jump
             2e-5,
         );
     }
+    assert_eq!(
+        m.run.events[1].kind,
+        EventKind::Sticks,
+        "{:?}",
+        m.run.events
+    );
+    assert_eq!(m.run.events[2].kind, EventKind::Slips, "{:?}", m.run.events);
     assert!(m.strokes[0].stick_slip_cycles >= 3, "{:?}", m.strokes);
     assert!(
         m.warnings.iter().any(|w| w.code == "jerky-motion"),

@@ -43,6 +43,10 @@ pub enum EventKind {
     ReachesForwardStop,
     /// Reaches the back end stop.
     ReachesBackStop,
+    /// Comes to rest in the open and sets off again the same way later (stick-slip).
+    Sticks,
+    /// Sets off again the way it was moving before it stuck.
+    Slips,
 }
 
 impl EventKind {
@@ -54,6 +58,8 @@ impl EventKind {
             EventKind::Stops => "stops",
             EventKind::ReachesForwardStop => "reaches-forward-stop",
             EventKind::ReachesBackStop => "reaches-back-stop",
+            EventKind::Sticks => "sticks",
+            EventKind::Slips => "slips",
         }
     }
 }
@@ -528,6 +534,7 @@ pub fn run(profile: &Profile, drive: &DriveValue, settings: &Settings) -> Run {
             }
         }
     }
+    relabel_stick_slip(&mut out.events);
     out.energy.drive = y[2];
     out.energy.loads = y[3];
     out.energy.friction = y[4];
@@ -538,6 +545,26 @@ pub fn run(profile: &Profile, drive: &DriveValue, settings: &Settings) -> Run {
         0.0
     };
     out
+}
+
+/// A stop in the open followed by a start the same way it was moving is stick-slip:
+/// `sticks` and `slips` instead of `stops` and `starts-…`.
+fn relabel_stick_slip(events: &mut [Event]) {
+    let mut moving: Option<EventKind> = None;
+    for i in 0..events.len() {
+        match events[i].kind {
+            EventKind::StartsForward | EventKind::StartsBack => moving = Some(events[i].kind),
+            EventKind::Stops => {
+                if let (Some(way), Some(next)) = (moving, events.get(i + 1).map(|e| e.kind)) {
+                    if next == way {
+                        events[i].kind = EventKind::Sticks;
+                        events[i + 1].kind = EventKind::Slips;
+                    }
+                }
+            }
+            _ => {}
+        }
+    }
 }
 
 /// The frictionless effective mass at the drive, generalized (kg or kg·m²).

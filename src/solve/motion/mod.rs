@@ -227,7 +227,7 @@ fn lag(
     for t in candidates {
         let q = schedule.at(t) * -direction;
         // The latest of the greatest `-direction·q`: ties go to the later time.
-        if best.is_none_or(|(bq, bt)| {
+        if best.map_or(true, |(bq, bt)| {
             q > bq + 1e-12 * bq.abs() || (q >= bq - 1e-12 * bq.abs() && t > bt)
         }) {
             best = Some((q, t));
@@ -241,52 +241,42 @@ fn lag(
 pub fn strokes(run: &Run) -> Vec<Stroke> {
     let mut out: Vec<Stroke> = Vec::new();
     let mut current: Option<Stroke> = None;
-    let mut last_rest: Option<Real> = None;
     for e in &run.events {
         match e.kind {
             EventKind::StartsForward | EventKind::StartsBack => {
-                let dir = if e.kind == EventKind::StartsForward {
-                    1.0
-                } else {
-                    -1.0
-                };
-                match current.as_mut() {
-                    // Set off again the same way after a stop in the open: one cycle.
-                    Some(s)
-                        if s.direction == dir && last_rest.is_some() && s.stop_speed.is_none() =>
-                    {
-                        s.stick_slip_cycles += 1;
-                    }
-                    _ => {
-                        if let Some(s) = current.take() {
-                            out.push(s);
-                        }
-                        current = Some(Stroke {
-                            direction: dir,
-                            start: e.t,
-                            end: e.t,
-                            peak_speed: 0.0,
-                            peak_tension: 0.0,
-                            stick_slip_cycles: 0,
-                            stop_speed: None,
-                            lag: None,
-                        });
-                    }
+                if let Some(s) = current.take() {
+                    out.push(s);
                 }
-                last_rest = None;
+                current = Some(Stroke {
+                    direction: if e.kind == EventKind::StartsForward {
+                        1.0
+                    } else {
+                        -1.0
+                    },
+                    start: e.t,
+                    end: e.t,
+                    peak_speed: 0.0,
+                    peak_tension: 0.0,
+                    stick_slip_cycles: 0,
+                    stop_speed: None,
+                    lag: None,
+                });
             }
-            EventKind::Stops => {
+            EventKind::Slips => {
+                if let Some(s) = current.as_mut() {
+                    s.stick_slip_cycles += 1;
+                }
+            }
+            EventKind::Stops | EventKind::Sticks => {
                 if let Some(s) = current.as_mut() {
                     s.end = e.t;
                 }
-                last_rest = Some(e.t);
             }
             EventKind::ReachesForwardStop | EventKind::ReachesBackStop => {
                 if let Some(s) = current.as_mut() {
                     s.end = e.t;
                     s.stop_speed = Some(e.speed.abs());
                 }
-                last_rest = Some(e.t);
             }
         }
     }
@@ -297,7 +287,10 @@ pub fn strokes(run: &Run) -> Vec<Stroke> {
     let t_end = run.points.last().map_or(0.0, |p| p.t);
     for s in &mut out {
         let still = run.events.iter().filter(|e| e.t >= s.start).all(|e| {
-            matches!(e.kind, EventKind::StartsForward | EventKind::StartsBack) && e.t == s.start
+            matches!(
+                e.kind,
+                EventKind::StartsForward | EventKind::StartsBack | EventKind::Slips
+            ) && (e.t == s.start || e.kind == EventKind::Slips)
         });
         if still {
             s.end = t_end;
