@@ -95,6 +95,8 @@ pub struct EnergyJson {
     pub kinetic_j: Real,
     /// Given to mass added while moving (a filling tank), `−∫ ½·(dM/dt)·v² dt`.
     pub added_mass_j: Real,
+    /// Change of the rope's strain energy (two degrees of freedom).
+    pub spring_j: Real,
     /// Drive work minus the rest.
     pub residual_j: Real,
 }
@@ -128,6 +130,11 @@ pub struct MotionJson {
     pub energy: EnergyJson,
     /// The integrator's tolerance.
     pub tolerance: String,
+    /// 1, or 2 where a stretchy rope joins the drive weight to the rig side.
+    pub degrees_of_freedom: u32,
+    /// The spring rate joining them, N/m (two degrees of freedom).
+    #[serde(skip_serializing_if = "Option::is_none")]
+    pub drive_stiffness: Option<Real>,
     /// Warnings.
     pub warnings: Vec<WarningJson>,
     /// The caution.
@@ -208,9 +215,12 @@ pub fn json(m: &Motion) -> MotionJson {
             impacts_j: e.impacts,
             kinetic_j: e.kinetic,
             added_mass_j: e.added_mass,
+            spring_j: e.spring,
             residual_j: e.residual(),
         },
         tolerance: tolerance(),
+        degrees_of_freedom: if m.two_dof.is_some() { 2 } else { 1 },
+        drive_stiffness: m.two_dof,
         warnings: m
             .warnings
             .iter()
@@ -336,16 +346,21 @@ pub fn write_text(
     writeln!(w)?;
     writeln!(
         w,
-        "Energy: drive {} J = loads {} J + friction {} J + at the stops {} J + kinetic {} J + given to mass added in motion {} J (residual {} J)",
+        "Energy: drive {} J = loads {} J + friction {} J + at the stops {} J + kinetic {} J + rope strain {} J + given to mass added in motion {} J (residual {} J)",
         n(e.drive),
         n(e.loads),
         n(e.friction),
         n(e.impacts),
         n(e.kinetic),
+        n(e.spring),
         n(e.added_mass),
         number(Some(e.residual()), 2)
     )?;
     writeln!(w, "Integrator: {}; {} steps.", tolerance(), m.run.steps)?;
+    match m.two_dof {
+        Some(k) => writeln!(w, "Two degrees of freedom: the drive weight and the rig joined by the rope's spring rate at the drive, {} N/m (no rope damping: the weight keeps swinging).", n(k))?,
+        None => writeln!(w, "One degree of freedom along the drive's motion.")?,
+    }
     writeln!(w, "Inertia passes through the friction as linearised at constant speed; a varying velocity ratio's ½·(dM/dx)·v² is left out.")?;
     if !m.warnings.is_empty() {
         writeln!(w)?;

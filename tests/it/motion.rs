@@ -483,3 +483,52 @@ fn a_stroke_over_the_travel_marks_the_dead_spots() {
 fn json_of_code(args: &[&str], code: i32) -> serde_json::Value {
     reeve(args).expect_code(code).json()
 }
+
+#[test]
+fn a_stretchy_rope_joins_the_drive_weight_to_the_rig_by_its_spring_rate() {
+    // The ballast panel with a rope of EA = 40 kN: the rig's spring rate at the drive is
+    // 10 N/mm (`check`). Drive side and rig side are two degrees of freedom; at rest the
+    // tank hangs in equilibrium, so the rig breaks away when the one-degree run does, to
+    // within the tank's swing on the rope as it fills (started at rest, the pull follows
+    // the filling rate ṁ·g with a swing of ṁ·g/ω in force, ω = √(k/m): a few
+    // hundredths of a second of the fill here); after the first jump the tank bounces on the rope and the panel creeps on in
+    // jerks. The energy (now with the rope's strain energy) still balances.
+    let text = std::fs::read_to_string(example_rig("ballast-panel")).unwrap();
+    let stretchy = text.replace("mu: 0.15}", "mu: 0.15, stiffness: 40 kN}");
+    assert_ne!(stretchy, text);
+    let options = MotionOptions {
+        duration: Some(600.0),
+        ..MotionOptions::default()
+    };
+    let one = run(&text, &options);
+    let two = run(&stretchy, &options);
+    assert_eq!(one.two_dof, None);
+    assert_rel(
+        "spring rate, N/m",
+        two.two_dof.expect("two degrees"),
+        10_000.0,
+        1e-9,
+    );
+    let (a, b) = (
+        first(&one, EventKind::StartsForward),
+        first(&two, EventKind::StartsForward),
+    );
+    assert_abs("breakaway time, s", b.t, a.t, 0.1);
+    let e = two.run.energy;
+    assert!(
+        e.residual().abs() <= 1e-6 * e.drive.abs(),
+        "energy residual {} J of {} J: {e:?}",
+        e.residual(),
+        e.drive
+    );
+    assert!(e.spring.abs() > 0.0);
+    let cycles = |m: &Motion| m.strokes.iter().map(|s| s.stick_slip_cycles).sum::<usize>();
+    assert!(
+        cycles(&two) > cycles(&one),
+        "{:?} vs {:?}",
+        two.strokes,
+        one.strokes
+    );
+    let json = reeve::report::motion::json(&two);
+    assert_eq!(json.degrees_of_freedom, 2);
+}

@@ -107,6 +107,8 @@ pub struct Energy {
     pub impacts: Real,
     /// Kinetic energy at the end, `½·M·v²`.
     pub kinetic: Real,
+    /// Change of the rope's strain energy (two degrees of freedom), `½·k·(u² − u₀²)`.
+    pub spring: Real,
     /// Kinetic energy given to mass added while moving, `−∫ ½·(dM/dt)·v² dt` (`M` the
     /// frictionless effective mass, changing as a drive weight fills or drains or the
     /// velocity ratio changes): `M·a·v = d(½·M·v²)/dt − ½·(dM/dt)·v²`.
@@ -116,7 +118,13 @@ pub struct Energy {
 impl Energy {
     /// Drive work minus everything it went to: zero to the integrator's tolerance.
     pub fn residual(&self) -> Real {
-        self.drive - self.loads - self.friction - self.impacts - self.kinetic - self.added_mass
+        self.drive
+            - self.loads
+            - self.friction
+            - self.impacts
+            - self.kinetic
+            - self.spring
+            - self.added_mass
     }
 }
 
@@ -163,7 +171,7 @@ impl DriveValue {
     }
 
     /// Schedule times after `t` (strictly).
-    fn next_break(&self, t: Real) -> Option<Real> {
+    pub(super) fn next_break(&self, t: Real) -> Option<Real> {
         match self {
             DriveValue::Constant(_) => None,
             DriveValue::Scheduled(s) => s.times().find(|&b| b > t + 1e-12 * b.abs().max(1.0)),
@@ -172,7 +180,7 @@ impl DriveValue {
 
     /// The first time ≥ `t` (≤ `end`) at which the value leaves `[lo, hi]`, exact on
     /// the piecewise-linear schedule.
-    fn leaves(&self, t: Real, end: Real, lo: Real, hi: Real) -> Option<Real> {
+    pub(super) fn leaves(&self, t: Real, end: Real, lo: Real, hi: Real) -> Option<Real> {
         let outside = |v: Real| v > hi || v < lo;
         if outside(self.at(t)) {
             return Some(t);
@@ -331,19 +339,31 @@ const B4: [Real; 7] = [
 /// One Dormand–Prince step: the fifth-order result and the error estimate's norm
 /// (scaled by the tolerances; ≤ 1 accepts).
 fn dp_step(d: &Dynamics, t: Real, y: &State, h: Real, scale: Real) -> (State, Real) {
-    let mut k = [[0.0; 6]; 7];
+    dp_step_n(&|t, y| d.rhs(t, y), t, y, h, scale)
+}
+
+/// One Dormand–Prince 5(4) step of `y' = rhs(t, y)` with `N` states: the fifth-order
+/// result and the scaled error norm (≤ 1 accepts).
+pub(super) fn dp_step_n<const N: usize>(
+    rhs: &dyn Fn(Real, &[Real; N]) -> [Real; N],
+    t: Real,
+    y: &[Real; N],
+    h: Real,
+    scale: Real,
+) -> ([Real; N], Real) {
+    let mut k = [[0.0; N]; 7];
     for i in 0..7 {
         let mut yi = *y;
         for (j, kj) in k.iter().enumerate().take(i) {
-            for n in 0..6 {
+            for n in 0..N {
                 yi[n] += h * A[i][j] * kj[n];
             }
         }
-        k[i] = d.rhs(t + C[i] * h, &yi);
+        k[i] = rhs(t + C[i] * h, &yi);
     }
     let mut y5 = *y;
     let mut err: Real = 0.0;
-    for n in 0..6 {
+    for n in 0..N {
         let mut s5 = 0.0;
         let mut s4 = 0.0;
         for i in 0..7 {
@@ -549,7 +569,7 @@ pub fn run(profile: &Profile, drive: &DriveValue, settings: &Settings) -> Run {
 
 /// A stop in the open followed by a start the same way it was moving is stick-slip:
 /// `sticks` and `slips` instead of `stops` and `starts-…`.
-fn relabel_stick_slip(events: &mut [Event]) {
+pub(super) fn relabel_stick_slip(events: &mut [Event]) {
     let mut moving: Option<EventKind> = None;
     for i in 0..events.len() {
         match events[i].kind {
@@ -568,7 +588,7 @@ fn relabel_stick_slip(events: &mut [Event]) {
 }
 
 /// The frictionless effective mass at the drive, generalized (kg or kg·m²).
-fn profile_mass_ideal(profile: &Profile, drive: &DriveValue, t: Real, x: Real) -> Real {
+pub(super) fn profile_mass_ideal(profile: &Profile, drive: &DriveValue, t: Real, x: Real) -> Real {
     let s = profile.at(x);
     let own = if profile.drive_is_weight {
         drive.at(t)

@@ -7,12 +7,14 @@
 //! [`integrate`] module moves it in time under the drive's value (constant, or its
 //! schedule). [`strokes`] and the warnings turn the run into strokes and warnings.
 //!
-//! Not yet here: the second degree of freedom of a stretchy rope (drive side and rig
-//! side joined by the drive spring rate, where stick-slip between them appears), and
-//! schedules on parts other than the drive (held at their first value, with a warning).
+//! Where the ropes give `stiffness` and the drive is a weight, [`two`] adds the second
+//! degree of freedom: the drive weight on the rope's spring rate at the drive. Not yet
+//! here: the second degree of freedom for a drum drive, and schedules on parts other
+//! than the drive (held at their first value, with a warning).
 
 pub mod integrate;
 pub mod profile;
+pub mod two;
 
 use crate::math::Real;
 use crate::model::{PartKind, Rig};
@@ -124,6 +126,9 @@ pub struct Motion {
     pub warnings: Vec<Warning>,
     /// The drive value over time.
     pub drive_value: DriveValue,
+    /// The spring rate joining drive side and rig side, where the run has two degrees of
+    /// freedom (a stretchy rope and a drive weight).
+    pub two_dof: Option<Real>,
 }
 
 /// Runs `rig` in time.
@@ -172,7 +177,12 @@ pub fn motion(rig: &Rig, options: &MotionOptions) -> Result<Motion, MotionError>
         max_step: options.max_step.unwrap_or(duration / 2000.0).max(1e-6),
         tolerance_scale: options.tolerance_scale,
     };
-    let run = integrate::run(&profile, &drive_value, &settings);
+    // A stretchy rope and a drive weight: drive side and rig side joined by the spring.
+    let two_dof = profile.drive_stiffness.filter(|_| profile.drive_is_weight);
+    let run = match two_dof {
+        Some(k) => two::run(&profile, &drive_value, &settings, k, None),
+        None => integrate::run(&profile, &drive_value, &settings),
+    };
     let mut strokes = strokes(&run);
     if let DriveValue::Scheduled(s) = &drive_value {
         let mut since = 0.0;
@@ -208,6 +218,7 @@ pub fn motion(rig: &Rig, options: &MotionOptions) -> Result<Motion, MotionError>
         strokes,
         warnings,
         drive_value,
+        two_dof,
     })
 }
 

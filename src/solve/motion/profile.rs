@@ -75,6 +75,9 @@ pub struct Profile {
     pub drive_is_weight: bool,
     /// The least breaking strength over design factor of the ropes, N (for the warning).
     pub allowed_tension: Option<Real>,
+    /// The rig's spring rate at the drive at the drawn position (N/m or N·m/rad), where
+    /// the ropes give `stiffness`.
+    pub drive_stiffness: Option<Real>,
 }
 
 impl Profile {
@@ -316,6 +319,7 @@ pub fn build(
         stops: None,
         drive_is_weight: matches!(rig.parts[rig.drive].kind, PartKind::Weight(_)),
         allowed_tension,
+        drive_stiffness: main.drive_stiffness.filter(|k| k.is_finite() && *k > 0.0),
     };
     let Some(t) = rig.changing.travel else {
         return Ok(profile);
