@@ -448,8 +448,15 @@ fn motion_writes_the_json_of_design_section_7_csv_text_and_a_chart() {
     let svg = std::fs::read_to_string(&plot).unwrap();
     roxmltree::Document::parse(&svg).expect("the chart parses as XML");
     assert!(svg.contains("starts forward above") && svg.contains("drive value"));
-    // Never over the input.
+    // Never over the input; a duration that is not a time is bad input.
     reeve(&["motion", &rig, "--plot", &rig]).expect_code(2);
+    for bad in ["abc", "0 s", "5 kg", "-3 s"] {
+        let ran = reeve(&["motion", &rig, "--duration", bad]).expect_code(2);
+        assert!(ran.stderr.contains("--duration"), "{bad}: {}", ran.stderr);
+    }
+    // A drive without a value cannot be run.
+    let ran = reeve(&["motion", &example_rig("line-set")]).expect_code(2);
+    assert!(ran.stderr.contains("has no force"), "{}", ran.stderr);
 }
 
 #[test]

@@ -203,6 +203,15 @@ pub fn motion(rig: &Rig, options: &MotionOptions) -> Result<Motion, MotionError>
             });
         }
     }
+    let reached = run.points.last().map_or(0.0, |p| p.t);
+    if reached < duration * (1.0 - 1e-9) {
+        warnings.push(Warning {
+            code: "step-limit",
+            message: format!(
+                "the run stopped at {reached:.3} s of {duration:.3} s: it took more steps than the integrator allows (a very stiff rope on a light drive swings fast); shorten --duration"
+            ),
+        });
+    }
     if profile.stops.is_none() {
         warnings.push(Warning {
             code: "no-travel",
