@@ -597,3 +597,37 @@ pub(super) fn profile_mass_ideal(profile: &Profile, drive: &DriveValue, t: Real,
     };
     profile.scale() * s.inertia_ideal + s.own_inertia + own
 }
+
+#[cfg(test)]
+mod tests {
+    use super::*;
+
+    fn ramp() -> DriveValue {
+        DriveValue::Scheduled(Schedule {
+            points: vec![(0.0, 0.0), (10.0, 10.0), (20.0, 10.0), (30.0, 0.0)],
+        })
+    }
+
+    #[test]
+    fn the_band_exit_is_found_on_the_schedule_itself() {
+        let d = ramp();
+        // Up through 4 at t = 4 (just past it), down through 2 at t = 28.
+        let up = d.leaves(0.0, 100.0, -1.0, 4.0).unwrap();
+        assert!((up - 4.0).abs() < 1e-7 && d.at(up) > 4.0, "{up}");
+        let down = d.leaves(12.0, 100.0, 2.0, 11.0).unwrap();
+        assert!((down - 28.0).abs() < 1e-7 && d.at(down) < 2.0, "{down}");
+        // Never leaves a band it stays in; already outside: now.
+        assert_eq!(d.leaves(0.0, 100.0, -1.0, 11.0), None);
+        assert_eq!(d.leaves(15.0, 100.0, 0.0, 5.0), Some(15.0));
+        assert_eq!(DriveValue::Constant(3.0).leaves(0.0, 9.0, 0.0, 5.0), None);
+        assert_eq!(d.next_break(10.0), Some(20.0));
+    }
+
+    #[test]
+    fn a_dormand_prince_step_integrates_a_cubic_exactly() {
+        // y' = 3t² from 0: y = t³, within a fifth-order method's exactness.
+        let f = |t: Real, _: &[Real; 1]| [3.0 * t * t];
+        let (y, err) = dp_step_n(&f, 0.0, &[0.0], 2.0, 1.0);
+        assert!((y[0] - 8.0).abs() < 1e-12 && err < 1.0, "{y:?} {err}");
+    }
+}

@@ -319,6 +319,8 @@ pub fn strokes(run: &Run) -> Vec<Stroke> {
             s.peak_speed = s.peak_speed.max(p.v.abs());
             s.peak_tension = s.peak_tension.max(p.tension);
         }
+        // The output points are sparser than the steps: the impact speed is exact.
+        s.peak_speed = s.peak_speed.max(s.stop_speed.unwrap_or(0.0));
     }
     out
 }
