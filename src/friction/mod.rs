@@ -9,11 +9,13 @@
 //! - [`journal`]: plain bearings, friction circle `r_f = r sin(atan μ)`;
 //! - [`rolling`]: rolling bearings, catalogue model `r_f = μ d / 2`;
 //! - [`rated`]: a maker's per-sheave factor `K` turned into `ρ = r_f / R`;
+//! - [`bending`]: the rope's own bending loss at a turning sheave, `T_s = (1 − β) T_b`;
 //! - [`capstan`]: rope sliding over a fixed surface, `exp(μ' φ)`;
 //! - [`thrust`]: pivot and collar bearings, `μ W r_eff / sin α`;
 //! - [`sheave`]: the moment balance of a turning sheave, the closed-form ratio of a
 //!   weightless one ([`sheave_ratio`]) and the root solve where its weight joins the
-//!   pin load ([`tight_tension`] / [`slack_tension`]).
+//!   pin load ([`tight_tension`] / [`slack_tension`]), and in 3-D with the pin load
+//!   split by the axle and a thrust face ([`tight_tension_3d`] / [`slack_tension_3d`]).
 //!
 //! Here: [`BearingResistance`], what any bearing reduces to (a friction radius or a
 //! load-independent ratio), the ratio limit, and the dissipation of a passage.
@@ -22,6 +24,7 @@
 //! `debug_assert!` them and count NaN or out-of-range inputs as the nearest valid value
 //! in release builds, so no NaN escapes. Functions returning `Option` answer `None`.
 
+pub mod bending;
 pub mod capstan;
 pub mod journal;
 pub mod rated;
@@ -29,7 +32,9 @@ pub mod rolling;
 pub mod sheave;
 pub mod thrust;
 
-pub use sheave::{sheave_ratio, slack_tension, tight_tension};
+pub use sheave::{
+    sheave_ratio, slack_tension, slack_tension_3d, tight_tension, tight_tension_3d, SheaveFriction,
+};
 
 use crate::math::Real;
 

@@ -1,8 +1,11 @@
 //! Turning sheaves: the moment balance about the axle, `(T_t − T_s) R = r_f |F_pin|`,
 //! in closed form for a weightless sheave ([`sheave_ratio`]) and by a safeguarded root
 //! solve where a constant force (the sheave's own weight) joins the pin load
-//! ([`tight_tension`], [`slack_tension`]). Plain numbers in SI: tensions in N, radii
-//! in m, directions as unit vectors.
+//! ([`tight_tension`], [`slack_tension`]); in 3-D, where spans leave the groove plane,
+//! the journal takes only the pin load's part normal to the axle and a thrust face its
+//! axial part ([`tight_tension_3d`], [`slack_tension_3d`], [`SheaveFriction`];
+//! DESIGN.md §7). Plain numbers in SI: tensions in N, radii in m, directions as unit
+//! vectors.
 //!
 //! # Sign conventions
 //! Span directions `u` point *away from* the sheave along each span, so the rope pulls
@@ -118,34 +121,13 @@ pub fn tight_tension(
     friction_radius: Real,
     pitch_radius: Real,
 ) -> Option<Real> {
-    let balance = Balance::new(u_tight, u_slack, weight, friction_radius, pitch_radius)?;
-    if !(slack.is_finite() && slack >= 0.0) {
-        return None;
-    }
-    if balance.r_f == 0.0 {
-        return Some(slack);
-    }
-    let c = slack * balance.u_slack + balance.weight;
-    let (r, r_f, u) = (balance.r, balance.r_f, balance.u_tight);
-    // g(T) = (T − T_s) R − r_f |T u_t + c|, increasing and concave.
-    let g = |t: Real| -> (Real, Real) {
-        let pin = t * u + c;
-        let norm = pin.norm();
-        // Where the pin load passes through zero the derivative jumps; any value in
-        // [R − r_f, R + r_f] is a valid slope for the safeguarded step.
-        let slope = if norm > 0.0 {
-            r - r_f * u.dot(&pin) / norm
-        } else {
-            r
-        };
-        ((t - slack) * r - r_f * norm, slope)
-    };
-    let upper = (slack * r + r_f * c.norm()) / (r - r_f);
-    if !upper.is_finite() {
-        return None;
-    }
-    let root = solve_increasing(g, slack, upper.max(slack))?;
-    Some(root.max(slack))
+    tight_tension_3d(
+        slack,
+        u_tight,
+        u_slack,
+        weight,
+        &SheaveFriction::journal(friction_radius, pitch_radius),
+    )
 }
 
 /// Slack-side tension given the tight side, the inverse of [`tight_tension`].
@@ -188,31 +170,168 @@ pub fn slack_tension(
     friction_radius: Real,
     pitch_radius: Real,
 ) -> Option<Real> {
-    let balance = Balance::new(u_tight, u_slack, weight, friction_radius, pitch_radius)?;
+    slack_tension_3d(
+        tight,
+        u_tight,
+        u_slack,
+        weight,
+        &SheaveFriction::journal(friction_radius, pitch_radius),
+    )
+}
+
+/// What resists a sheave's turning, for [`tight_tension_3d`] and [`slack_tension_3d`]:
+/// its journal, the axle that splits the pin load into a radial and an axial part, and
+/// an optional thrust face that carries the axial part.
+#[derive(Debug, Clone, Copy, PartialEq)]
+pub struct SheaveFriction {
+    /// Journal friction-circle radius `r_f`, m, `≥ 0`.
+    pub friction_radius: Real,
+    /// Pitch radius `R`, m, `> 0`.
+    pub pitch_radius: Real,
+    /// Unit axle direction `n`; `None` takes the whole pin load as radial (the planar
+    /// model of DESIGN.md §1).
+    pub axle: Option<Vector>,
+    /// Thrust-face lever `μ_t r_eff / sin α`, m, `≥ 0`: the thrust friction moment is
+    /// this times the axial load `|P·n| + W_0` ([`crate::friction::thrust::moment`]
+    /// per newton of axial load).
+    pub thrust_arm: Real,
+    /// Axial preload `W_0` on the thrust face, N, `≥ 0` (a spring or a set collar).
+    pub thrust_preload: Real,
+}
+
+impl SheaveFriction {
+    /// A journal alone, the whole pin load radial: the planar model.
+    pub fn journal(friction_radius: Real, pitch_radius: Real) -> SheaveFriction {
+        SheaveFriction {
+            friction_radius,
+            pitch_radius,
+            axle: None,
+            thrust_arm: 0.0,
+            thrust_preload: 0.0,
+        }
+    }
+}
+
+/// Tight-side tension of a turning sheave in 3-D: the journal takes only the pin
+/// load's part normal to the axle, a thrust face (if any) its axial part.
+///
+/// # Formula
+/// `P = T_t u_t + T_s u_s + W`, `P_r = P − (P·n) n`, `P_a = P·n`;
+/// `(T_t − T_s) R = r_f |P_r| + a_t (|P_a| + W_0)` with `a_t = μ_t r_eff / sin α`
+/// (DESIGN.md §7 "3-D pin loads"). The right side is convex in `T_t` and grows by at
+/// most `r_f + a_t` per newton, so for `r_f + a_t < R` the left minus the right is
+/// increasing and concave, with one root in the bracket of [`tight_tension`]; it is
+/// solved by the same safeguarded Newton iteration. Without an axle (`n` None) and
+/// without a thrust face this is [`tight_tension`]; with spans in the groove plane
+/// (fleet angles zero) and a weight in that plane the two agree.
+///
+/// # Arguments
+/// As [`tight_tension`], with the resistances in `friction` ([`SheaveFriction`]).
+///
+/// # Returns
+/// `Some(T_t ≥ T_s)`; `None` when `r_f + a_t ≥ R` (cannot turn) or an input is invalid.
+///
+/// # Example
+/// Spans 10° out of the groove plane on both sides, parallel (180° in the plane),
+/// `ρ = r_f/R = 0.1`, no thrust face: the radial pin load is `(T_t + T_s) cos 10°`, so
+/// `T_t/T_s = (1 + ρ cos 10°)/(1 − ρ cos 10°) = 1.218 48`.
+/// ```
+/// use reeve::friction::sheave::{tight_tension_3d, SheaveFriction};
+/// use reeve::math::Vector;
+/// let a = 10f64.to_radians();
+/// let u = Vector::new(0.0, a.sin(), -a.cos()); // both spans hang down, 10° off plane
+/// let f = SheaveFriction { axle: Some(Vector::y()), ..SheaveFriction::journal(0.005, 0.05) };
+/// let t = tight_tension_3d(100.0, &u, &u, &Vector::zeros(), &f).unwrap();
+/// let c = 0.1 * a.cos();
+/// assert!((t / 100.0 - (1.0 + c) / (1.0 - c)).abs() < 1e-12);
+/// ```
+///
+/// # Source
+/// Friction circle as [`tight_tension`]; thrust face as
+/// [`crate::friction::thrust::moment`] (Hibbeler, *Statics*, §8.6); the split of the
+/// pin load by the axle is the bearing's geometry (a journal carries only loads normal
+/// to its axis, the axial part goes to a thrust face: DESIGN.md §7; as in the journal
+/// bearing chapter of Shigley's *Mechanical Engineering Design*, from memory).
+pub fn tight_tension_3d(
+    slack: Real,
+    u_tight: &Vector,
+    u_slack: &Vector,
+    weight: &Vector,
+    friction: &SheaveFriction,
+) -> Option<Real> {
+    let balance = Balance::new(u_tight, u_slack, weight, friction)?;
+    if !(slack.is_finite() && slack >= 0.0) {
+        return None;
+    }
+    if balance.r_f == 0.0 && balance.a_t == 0.0 {
+        return Some(slack);
+    }
+    let c = slack * balance.u_slack + balance.weight;
+    let (r, u) = (balance.r, balance.u_tight);
+    // g(T) = (T − T_s) R − resist(T u_t + c), increasing and concave.
+    let g = |t: Real| -> (Real, Real) {
+        let (resist, slope) = balance.resist(&(t * u + c), &u);
+        ((t - slack) * r - resist, r - slope)
+    };
+    let upper = (slack * r + balance.resist(&c, &u).0) / (r - balance.r_f - balance.a_t);
+    if !upper.is_finite() {
+        return None;
+    }
+    let root = solve_increasing(g, slack, upper.max(slack))?;
+    Some(root.max(slack))
+}
+
+/// Slack-side tension given the tight side in 3-D, the inverse of
+/// [`tight_tension_3d`] (as [`slack_tension`] is of [`tight_tension`]).
+///
+/// # Formula
+/// Solves `(T_t − S) R = r_f |P_r| + a_t (|P_a| + W_0)` for `0 ≤ S ≤ T_t`, with `P` as
+/// in [`tight_tension_3d`]; the same safeguarded solve as [`slack_tension`].
+///
+/// # Returns
+/// `Some(T_s)` with `0 ≤ T_s ≤ T_t`; `None` when the sheave cannot turn, an input is
+/// invalid, or the slack side would need a negative tension.
+///
+/// # Example
+/// The inverse of the [`tight_tension_3d`] example.
+/// ```
+/// use reeve::friction::sheave::{slack_tension_3d, SheaveFriction};
+/// use reeve::math::Vector;
+/// let a = 10f64.to_radians();
+/// let u = Vector::new(0.0, a.sin(), -a.cos());
+/// let f = SheaveFriction { axle: Some(Vector::y()), ..SheaveFriction::journal(0.005, 0.05) };
+/// let s = slack_tension_3d(121.848, &u, &u, &Vector::zeros(), &f).unwrap();
+/// assert!((s - 100.0).abs() < 1e-3, "{s}");
+/// ```
+///
+/// # Source
+/// As [`tight_tension_3d`].
+pub fn slack_tension_3d(
+    tight: Real,
+    u_tight: &Vector,
+    u_slack: &Vector,
+    weight: &Vector,
+    friction: &SheaveFriction,
+) -> Option<Real> {
+    let balance = Balance::new(u_tight, u_slack, weight, friction)?;
     if !(tight.is_finite() && tight >= 0.0) {
         return None;
     }
-    if balance.r_f == 0.0 {
+    if balance.r_f == 0.0 && balance.a_t == 0.0 {
         return Some(tight);
     }
     let c = tight * balance.u_tight + balance.weight;
-    let (r, r_f, u) = (balance.r, balance.r_f, balance.u_slack);
-    // −q(S) = r_f |c + S u_s| − (T_t − S) R is increasing in S (and convex); solve it
+    let (r, u) = (balance.r, balance.u_slack);
+    // −q(S) = resist(c + S u_s) − (T_t − S) R is increasing in S (and convex); solve it
     // with the same increasing-function solver.
     let minus_q = |s: Real| -> (Real, Real) {
-        let pin = s * u + c;
-        let norm = pin.norm();
-        let slope = if norm > 0.0 {
-            r + r_f * u.dot(&pin) / norm
-        } else {
-            r
-        };
-        (r_f * norm - (tight - s) * r, slope)
+        let (resist, slope) = balance.resist(&(s * u + c), &u);
+        (resist - (tight - s) * r, r + slope)
     };
     let at_zero = minus_q(0.0).0;
     // Round-off allowance: a tight side computed by `tight_tension` from zero slack
     // must come back as zero, not as "no solution".
-    let allowance = 8.0 * Real::EPSILON * (tight * r + r_f * c.norm());
+    let allowance = 8.0 * Real::EPSILON * (tight * r + balance.resist(&c, &u).0);
     if at_zero > allowance {
         // Even zero slack tension leaves more friction moment than T_t R can turn.
         return None;
@@ -231,6 +350,9 @@ struct Balance {
     weight: Vector,
     r_f: Real,
     r: Real,
+    axle: Option<Vector>,
+    a_t: Real,
+    preload: Real,
 }
 
 impl Balance {
@@ -238,19 +360,33 @@ impl Balance {
         u_tight: &Vector,
         u_slack: &Vector,
         weight: &Vector,
-        friction_radius: Real,
-        pitch_radius: Real,
+        friction: &SheaveFriction,
     ) -> Option<Balance> {
         let finite = |v: &Vector| v.iter().all(|x| x.is_finite());
         if !(finite(u_tight) && finite(u_slack) && finite(weight)) {
             return None;
         }
-        if !(friction_radius.is_finite() && friction_radius >= 0.0) {
+        let SheaveFriction {
+            friction_radius,
+            pitch_radius,
+            axle,
+            thrust_arm,
+            thrust_preload,
+        } = *friction;
+        let valid = |x: Real| x.is_finite() && x >= 0.0;
+        if !(valid(friction_radius) && valid(thrust_arm) && valid(thrust_preload)) {
             return None;
         }
-        if !(pitch_radius.is_finite() && pitch_radius > 0.0) || friction_radius >= pitch_radius {
+        if !(pitch_radius.is_finite() && pitch_radius > 0.0)
+            || friction_radius + thrust_arm >= pitch_radius
+        {
             return None;
         }
+        let axle = match axle {
+            Some(n) if finite(&n) => Some(n.try_normalize(0.0)?),
+            Some(_) => return None,
+            None => None,
+        };
         let u_tight = u_tight.try_normalize(0.0)?;
         let u_slack = u_slack.try_normalize(0.0)?;
         Some(Balance {
@@ -259,7 +395,39 @@ impl Balance {
             weight: *weight,
             r_f: friction_radius,
             r: pitch_radius,
+            axle,
+            a_t: thrust_arm,
+            preload: thrust_preload,
         })
+    }
+
+    /// Friction moment `r_f |P_r| + a_t (|P_a| + W_0)` of pin load `pin`, and its rate
+    /// of change as the pin load grows along `u`. Where a part of the pin load passes
+    /// through zero its derivative jumps; any value in range is a valid slope for the
+    /// safeguarded step.
+    fn resist(&self, pin: &Vector, u: &Vector) -> (Real, Real) {
+        let Some(n) = self.axle else {
+            let norm = pin.norm();
+            let slope = if norm > 0.0 {
+                self.r_f * u.dot(pin) / norm
+            } else {
+                0.0
+            };
+            return (self.r_f * norm, slope);
+        };
+        let axial = pin.dot(&n);
+        let radial = pin - axial * n;
+        let norm = radial.norm();
+        let slope_r = if norm > 0.0 {
+            self.r_f * u.dot(&radial) / norm
+        } else {
+            0.0
+        };
+        let slope_a = self.a_t * u.dot(&n) * axial.signum();
+        (
+            self.r_f * norm + self.a_t * (axial.abs() + self.preload),
+            slope_r + slope_a,
+        )
     }
 }
 
@@ -481,6 +649,44 @@ mod tests {
     }
 
     proptest::proptest! {
+        /// The 3-D balance with a thrust face and a preload, any directions and axle:
+        /// the solved tension satisfies `(T_t − T_s) R = r_f |P_r| + a_t (|P·n| + W_0)`
+        /// and `slack_tension_3d` undoes it; with the spans in the plane and no thrust
+        /// it is the planar answer.
+        #[test]
+        fn balance_3d_holds_and_inverts(
+            a in -3.2f64..3.2, b in -1.5f64..1.5, c in -3.2f64..3.2, d in -1.5f64..1.5,
+            e in -3.2f64..3.2, f in -1.5f64..1.5, slack in 0f64..2000.0,
+            rho in 0f64..0.5, arm in 0f64..0.4, preload in 0f64..100.0,
+        ) {
+            let dir = |az: f64, el: f64| Vector::new(el.cos() * az.cos(), el.cos() * az.sin(), el.sin());
+            let (u_t, u_s, n) = (dir(a, b), dir(c, d), dir(e, f));
+            let r = 0.05;
+            let friction = SheaveFriction {
+                friction_radius: rho * r,
+                pitch_radius: r,
+                axle: Some(n),
+                thrust_arm: arm * r,
+                thrust_preload: preload,
+            };
+            let w = Vector::new(1.0, -2.0, 3.0);
+            let t = tight_tension_3d(slack, &u_t, &u_s, &w, &friction).unwrap();
+            let p = t * u_t + slack * u_s + w;
+            let axial = p.dot(&n);
+            let resist = rho * r * (p - axial * n).norm() + arm * r * (axial.abs() + preload);
+            let scale = 1.0 + t + preload;
+            proptest::prop_assert!(((t - slack) * r - resist).abs() <= 1e-11 * scale * r);
+            let back = slack_tension_3d(t, &u_t, &u_s, &w, &friction).unwrap();
+            proptest::prop_assert!((back - slack).abs() <= 1e-8 * scale, "{} vs {}", back, slack);
+            // In the plane normal to the axle, without thrust: the planar balance.
+            let flat = |u: Vector| (u - u.dot(&n) * n).normalize();
+            let (p_t, p_s) = (flat(u_t), flat(u_s));
+            let journal = SheaveFriction { thrust_arm: 0.0, thrust_preload: 0.0, ..friction };
+            let t3 = tight_tension_3d(slack, &p_t, &p_s, &Vector::zeros(), &journal).unwrap();
+            let t2 = tight_tension(slack, &p_t, &p_s, &Vector::zeros(), rho * r, r).unwrap();
+            proptest::prop_assert!((t3 - t2).abs() <= 1e-9 * (1.0 + t2));
+        }
+
         /// Any span directions, any constant pin force, any ρ < 1: the solved tension
         /// satisfies the moment balance, lies in its bracket, and slack_tension undoes
         /// it.

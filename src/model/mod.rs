@@ -141,6 +141,10 @@ pub struct Rope {
     /// Mass per length, kg/m, when given (key `mass_per_length`). None or zero:
     /// weightless, as before DESIGN.md §7.
     pub mass_per_length: Option<Real>,
+    /// Fraction of tension lost to the rope's own bending at each passage over a
+    /// turning sheave or drum, `0 ≤ β < 1` (DESIGN.md §7; default 0):
+    /// [`crate::friction::bending`].
+    pub bend_loss: Real,
     /// Where the rope is defined in the file.
     pub location: Location,
 }
@@ -248,6 +252,9 @@ pub struct Sheave {
     pub groove_angle: Option<Real>,
     /// Rope-on-groove friction (default: the rope's), for the stalled-sheave check.
     pub mu: Option<Real>,
+    /// Thrust face carrying the pin load's axial part (DESIGN.md §7); its `load` is an
+    /// axial preload added to that part (0 when not written).
+    pub thrust: Option<Thrust>,
 }
 
 /// A fixed round surface.

@@ -134,6 +134,25 @@ rig. See e.g. the Wire Rope Users Manual (Wire Rope Technical Board) and rope ma
 handbooks on reeving efficiency.",
     ),
     (
+        "Rope bending loss",
+        "The rope's own stiffness costs a fraction β (the rope's bend_loss, default 0) of \
+tension at each passage over a turning sheave, whatever the wrap: the rope bends on and \
+off once. With the rope running from the tight side to the slack side, T_slack = (1 − β) \
+times the tension the bearing model alone would leave. Basis: K. Feyrer, Wire Ropes: \
+Tension, Endurance, Reliability (Springer), on the efficiency of rope sheaves (bending at \
+the run-on and run-off points plus bearing friction); rope-rescue measurements comparing \
+one 180° deflection with two 90° deflections over the same pulleys (T. Pöysti, \
+\"Line deviation and pulley efficiency\", 2020).",
+    ),
+    (
+        "Sheaves at fleet angles: 3-D pin loads",
+        "Where spans leave a sheave's plane, the pin load P = T_t u_t + T_s u_s (+ the \
+sheave's weight) splits by the axle n into a radial part |P − (P·n) n|, which loads the \
+journal: (T_t − T_s) R = r_f |P_radial|, and an axial part P·n (the axial load), carried \
+by the sheave's cheeks or a thrust face, whose friction μ r_eff |P·n| joins the moment \
+balance where the sheave has one.",
+    ),
+    (
         "Drum shafts: thrust (pivot and collar) friction",
         "M_thrust = μ W r_eff with r_eff = (2/3)(Ro³ − Ri³)/(Ro² − Ri²) for uniform pressure \
 (new surfaces) and r_eff = (Ro + Ri)/2 for uniform wear (run-in surfaces); a conical \
@@ -362,11 +381,12 @@ pub fn write_html(
     }
     writeln!(w, "</section>\n<section id=\"part-table\">\n<h2>Parts</h2>")?;
     if let Some(t) = tables.get(1) {
-        write_table(w, t, "parts")?;
+        // The axial loads are listed under the losses: the part table fits a page.
+        write_table(w, &t.without_columns("axial load"), "parts")?;
     }
     writeln!(
         w,
-        "<p class=\"meta\">Pin load: the resultant of the rope pulls and the part's own weight; direction as a unit vector (x, y, z) in the rig's frame. Loss share: this part's part of all friction losses, forward case.</p>\n</section>"
+        "<p class=\"meta\">Pin load: the resultant of the rope pulls and the part's own weight; direction as a unit vector (x, y, z) in the rig's frame. Loss share: this part's part of all friction losses, forward case. Where shown, bend loss share: the part of all losses that the rope's bending takes there; axial loads, the pin loads along the parts' axles, are listed under the losses.</p>\n</section>"
     )?;
     if let Some(t) = table::material_table(report, units, table::CaseFilter::Forward, Style::Human)
     {
@@ -413,6 +433,16 @@ pub fn write_html(
             )?;
         }
         writeln!(w, "</div>")?;
+    }
+    if let Some(kinds) = report.headline.loss.words(units) {
+        writeln!(w, "<p>By kind, at the drive: {}.</p>", esc(&kinds))?;
+    }
+    if let Some(axial) = super::loss::axial_words(report, units) {
+        writeln!(
+            w,
+            "<p>Axial pin loads (forward, along each axle): {}.</p>",
+            esc(&axial)
+        )?;
     }
     writeln!(w, "</section>")?;
 

@@ -9,6 +9,7 @@ pub mod escape;
 pub mod file;
 pub mod format;
 pub mod html;
+pub mod loss;
 pub mod material;
 pub mod motion;
 pub mod study;
@@ -42,11 +43,10 @@ pub fn finite(x: Real) -> Option<Real> {
     x.is_finite().then_some(x)
 }
 
-/// An efficiency fit to show: a share of the power between 0 and 1 (round-off within
-/// 1e-9 of either end is clamped). Anything else (a back value of the opposite sign
-/// to the ideal value, as in a self-locking rig, gives `back/ideal < 0`) is not an
-/// efficiency and is `None`: JSON leaves it out, and the text says why
-/// ([`Headline::efficiency_notes`]).
+/// An efficiency fit to show: a share of the power between 0 and 1 (round-off within 1e-9
+/// of either end is clamped). Anything else (a back value of the opposite sign to the ideal
+/// value, as in a self-locking rig, gives `back/ideal < 0`) is not an efficiency and is
+/// `None`: JSON leaves it out, and the text says why ([`Headline::efficiency_notes`]).
 pub fn efficiency(x: Option<Real>) -> Option<Real> {
     const ROUND_OFF: Real = 1e-9;
     match x? {
@@ -139,8 +139,8 @@ pub struct PassageReport {
 pub struct PartReport {
     /// Name.
     pub name: String,
-    /// Whether the part belongs to the main sub-rig (the one the drive moves); text
-    /// reports list the main sub-rig's losses. Not in the JSON.
+    /// Whether the part is in the main sub-rig (the drive's), whose losses text reports
+    /// list. Not in the JSON.
     #[serde(skip_serializing)]
     pub in_main: bool,
     /// Kind as written.
@@ -164,6 +164,9 @@ pub struct PartReport {
     /// Power lost here over the power put in (the drive's, or the loads' where they
     /// drive the rig), forward case (0 to 1).
     pub loss_of_input: Option<Real>,
+    /// Axial pin load and bending share (DESIGN.md §7), flattened into the part.
+    #[serde(flatten)]
+    pub material: loss::PartLoads,
     /// The part's passages.
     pub passages: Vec<PassageReport>,
 }
@@ -183,7 +186,7 @@ pub struct DrumReport {
     pub journal_nm: ForwardBack<Option<Real>>,
     /// Thrust friction torque, N·m.
     pub thrust_nm: Option<Real>,
-    /// Forward rope torque minus (load + drag), N·m: what journal and thrust take.
+    /// Forward rope torque minus (load + drag), N·m: what journal, thrust and bending take.
     pub margin_nm: Option<Real>,
 }
 
@@ -248,6 +251,8 @@ pub struct Headline {
     /// `stiffness` ([`SubRigSolution::drive_stiffness`]).
     #[serde(skip_serializing_if = "Option::is_none")]
     pub drive_stiffness: Option<Real>,
+    /// The audit's losses by kind (`loss.bearing`, `loss.bending`, ...; DESIGN.md §7).
+    pub loss: loss::LossReport,
     /// What drives the rig, for the outcome's wording. Not in the JSON.
     #[serde(skip_serializing)]
     pub drive_kind: DriveKind,
@@ -528,6 +533,7 @@ fn headline(rig: &Rig, solution: &Solution, sub: &SubRigSolution) -> Headline {
         },
         lost_travel: sub.lost_travel.and_then(finite),
         drive_stiffness: sub.drive_stiffness.and_then(finite),
+        loss: loss::LossReport::of(rig, solution, sub),
         drive_kind: DriveKind::of(&rig.parts[sub.drive].kind),
         subject: (if sub.drive_unknown() {
             sub.load_part
@@ -695,6 +701,7 @@ impl Report {
                 pin_load_direction_ideal: pin(Case::Ideal).and_then(|v| dir(&v)),
                 loss_share,
                 loss_of_input,
+                material: loss::PartLoads::of(rig, sub, id),
                 passages,
             });
             if let (PartKind::Drum(d), Some(s)) = (&part.kind, sub) {

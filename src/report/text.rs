@@ -377,24 +377,50 @@ fn write_check_raw(w: &mut dyn Write, rig: &Rig, report: &Report, source: &str) 
     if !losses.is_empty() {
         writeln!(w)?;
         writeln!(w, "Largest losses (forward):")?;
+        // Where the rope's bending costs anything, the part of each share it takes.
+        let bending = report.headline.loss.has_bending();
+        let bend = |x: Option<Real>| {
+            if bending {
+                format!(" {:>12}", percent(x))
+            } else {
+                String::new()
+            }
+        };
         writeln!(
             w,
-            "  {:<16} {:<8} {:>12} {:>12}",
-            "part", "kind", "of losses", "of input"
+            "  {:<16} {:<8} {:>12} {:>12}{}",
+            "part",
+            "kind",
+            "of losses",
+            "of input",
+            if bending {
+                format!(" {:>12}", "bending")
+            } else {
+                String::new()
+            }
         )?;
         for p in losses.iter().take(8) {
             writeln!(
                 w,
-                "  {:<16} {:<8} {:>12} {:>12}",
+                "  {:<16} {:<8} {:>12} {:>12}{}",
                 p.name,
                 p.kind,
                 percent(p.loss_share),
-                percent(p.loss_of_input)
+                percent(p.loss_of_input),
+                bend(p.material.bend_loss_share)
             )?;
         }
         if losses.len() > 8 {
             writeln!(w, "  ... and {} more (see `reeve table`)", losses.len() - 8)?;
         }
+    }
+    // The rope-as-material lines (DESIGN.md §7), only where the rig has them.
+    if let Some(kinds) = report.headline.loss.words(units) {
+        writeln!(w, "Losses by kind (forward, at the drive): {kinds}")?;
+    }
+    if let Some(axial) = super::loss::axial_words(report, units) {
+        writeln!(w)?;
+        writeln!(w, "Axial pin loads (forward, along each axle): {axial}")?;
     }
     if !report.drums.is_empty() {
         let t = |x| quantity(x, Dimension::Torque, units);

@@ -206,7 +206,10 @@ pub struct SubRigSolution {
     pub drive_stiffness: Option<Real>,
     /// The lost travel at the drive, m or rad: how far the drive moves from the
     /// unloaded rig (ropes just taut) until it holds its ideal value with every loaded
-    /// part still where it stands, `|F_ideal| / drive_stiffness` (DESIGN.md §7).
+    /// part still where it stands, `|F_ideal| / drive_stiffness` (DESIGN.md §7). The
+    /// ropes' own weight, where given, counts as load taken up (the unloaded rig's rope
+    /// is just taut and weightless), so a long hanging rope's lost travel includes the
+    /// stretch of its own weight.
     pub lost_travel: Option<Real>,
 }
 

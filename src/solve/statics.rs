@@ -27,6 +27,9 @@ use super::{Case, SolveError, SolveOptions};
 mod passage;
 mod result;
 
+pub use passage::DrumFriction;
+pub use result::Losses;
+
 /// How the fixed-point iteration ended.
 #[derive(Debug, Clone, Copy, PartialEq)]
 pub enum Status {
@@ -58,6 +61,8 @@ pub struct DrumTorques {
     pub journal: Real,
     /// Thrust friction torque.
     pub thrust: Real,
+    /// The rope's bending on and off the drum (DESIGN.md §7).
+    pub bending: Real,
     /// Angular speed in this case per unit drive speed, rad/s (signed about the axle).
     pub speed: Real,
 }
@@ -120,6 +125,8 @@ pub struct CaseResult {
     pub status: Status,
     /// Energy audit misfit: |drive − loads − losses| over the drive power.
     pub audit_residual: Real,
+    /// `loss` by kind (bearing, bending, surface, drum), per part.
+    pub losses: Losses,
 }
 
 impl CaseResult {
@@ -427,15 +434,20 @@ impl<'a> Problem<'a> {
             // Drum friction from the previous tensions.
             let forces = previous.as_ref().map(|t| self.contact_forces(t));
             let mut q = self.q_load.clone();
-            let mut drum_friction = vec![(0.0, 0.0, 0.0); n];
+            let mut drum_friction = vec![DrumFriction::default(); n];
             if case != Case::Ideal {
                 for (k, &i) in self.dofs.iter().enumerate() {
                     let part = self.kin.dofs[i].part;
                     if matches!(rig.parts[part].kind, PartKind::Drum(_)) {
                         let empty = Vec::new();
                         let f = forces.as_ref().map(|f| &f[part]).unwrap_or(&empty);
-                        let (drag, journal, thrust) = self.drum_friction(part, f, breakaway);
-                        drum_friction[k] = (drag, journal, thrust);
+                        let friction = self.drum_friction(part, f, breakaway);
+                        // The rope's bending on and off the drum (DESIGN.md §7).
+                        let friction = DrumFriction {
+                            bending: self.drum_bending(part, previous.as_ref()),
+                            ..friction
+                        };
+                        drum_friction[k] = friction;
                         let v = velocity[i];
                         let s = if v > 1e-15 {
                             1.0
@@ -444,7 +456,7 @@ impl<'a> Problem<'a> {
                         } else {
                             0.0
                         };
-                        q[k] -= s * (drag + journal + thrust);
+                        q[k] -= s * friction.total();
                     }
                 }
             }
@@ -736,19 +748,15 @@ impl<'a> Problem<'a> {
     /// Whether any friction depends on the tensions themselves.
     fn load_dependent(&self) -> bool {
         self.rig.parts.iter().any(|p| match &p.kind {
-            PartKind::Sheave(s) => {
-                s.mass.unwrap_or(0.0) > 0.0
-                    && matches!(
+            PartKind::Sheave(s) => Problem::sheave_load_dependent(s),
+            PartKind::Drum(d) => {
+                d.shaft.as_ref().is_some_and(|s| {
+                    !matches!(
                         bearing_resistance(&s.bearing, false),
-                        BearingResistance::FrictionCircle { .. }
+                        BearingResistance::Free
                     )
+                }) || self.rope_bends_on_drums()
             }
-            PartKind::Drum(d) => d.shaft.as_ref().is_some_and(|s| {
-                !matches!(
-                    bearing_resistance(&s.bearing, false),
-                    BearingResistance::Free
-                )
-            }),
             _ => false,
         })
     }

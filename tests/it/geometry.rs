@@ -85,6 +85,7 @@ fn carried_sheave(
             mass: None,
             groove_angle: None,
             mu: None,
+            thrust: None,
         }),
     );
     sheave.block = block;
@@ -160,6 +161,7 @@ fn rig(rope_diameter: Real, parts: Vec<Part>, paths: Vec<Vec<PathEntry>>) -> Rig
             min_bend_ratio: 8.0,
             stiffness: None,
             mass_per_length: None,
+            bend_loss: 0.0,
             location: Location::default(),
         }],
         parts,

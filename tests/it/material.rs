@@ -275,3 +275,51 @@ fn a_line_sets_balance_changes_with_trim_height() {
     let (low, high) = steps("ropes.lift.mass_per_length=0");
     assert_rel("weightless: no change", high, low, 1e-4);
 }
+
+#[test]
+fn the_tables_show_the_rope_as_a_material() {
+    // Text: a table of its own after the spans; CSV (one table): further span columns;
+    // a rig without the keys keeps today's tables (the goldens guard that).
+    let rig = test_rig("material/hanging-rope.yaml");
+    let text = crate::support::stdout_of(&["table", &rig]);
+    assert!(
+        text.contains("Rope as a material") && text.contains("stretch forward (m)"),
+        "{text}"
+    );
+    let csv = crate::support::stdout_of(&["table", &rig, "--format", "csv"]);
+    let lines: Vec<&str> = csv.lines().collect();
+    assert_eq!(lines.len(), 2, "one table, one span: {csv}");
+    assert!(lines[0].contains("stretch ideal (m)") && lines[0].contains("tension back at end (N)"));
+    assert!(lines[1].contains("0.106972"), "{csv}");
+    let html = crate::support::stdout_of(&["report", &rig, "-o", "-"]);
+    assert!(html.contains("id=\"material\"") && html.contains("Lost travel at the drive"));
+}
+
+#[test]
+fn the_split_by_stiffness_depends_on_stiffness_ratios_only() {
+    // Scaling every EA leaves the split (compatibility: T_i·L_i/EA equal) and halves
+    // every stretch when EA doubles (δ = T·L/EA, Gere & Goodno §2.3), where lines share a
+    // block as where they do not. A very stiff rope is not the least-squares split: the
+    // split follows EA/L however stiff (issue 11 item 2).
+    let text = std::fs::read_to_string(test_rig("material/two-lift-lines.yaml")).unwrap();
+    let run = |ea: &str| {
+        let (rig, s) = solve_text(&text.replace("stiffness: 1 MN", &format!("stiffness: {ea}")));
+        let report = Report::build(&rig, &s, Vec::new());
+        let stretch: Vec<f64> = report
+            .spans
+            .iter()
+            .map(|s| s.stretch_m.as_ref().unwrap().forward.unwrap())
+            .collect();
+        (s.main().forward.tension.clone(), stretch)
+    };
+    let (t1, d1) = run("1 MN");
+    let (t2, d2) = run("2 MN");
+    let (t3, _) = run("1e11 N");
+    for (l, (a, b)) in t1.iter().zip(&t2).enumerate() {
+        assert_rel(&format!("line {l}, EA doubled"), b[0], a[0], 1e-9);
+        assert_rel(&format!("line {l}, EA 1e11 N"), t3[l][0], a[0], 1e-9);
+    }
+    for (a, b) in d1.iter().zip(&d2) {
+        assert_rel("stretch halves", *b, a / 2.0, 1e-9);
+    }
+}

@@ -100,6 +100,8 @@ struct PartIn {
     pin_load_n: CasesIn<f64>,
     pin_load_direction: CasesIn<[f64; 3]>,
     loss_share: Option<Option<f64>>,
+    bend_loss_share: Option<Option<f64>>,
+    axial_load_n: CasesIn<f64>,
 }
 
 #[test]
@@ -152,6 +154,17 @@ fn json_tables_parse_back_in_si() {
     assert_abs("pin load direction, length", norm, 1.0, 1e-9);
     assert!(sheave.pin_load_n.back.flatten().unwrap() > 0.0);
     assert!(sheave.loss_share.flatten().unwrap() > 0.0);
+    // DESIGN.md §7: the axial pin load, zero on `upper.b`, whose spans lie in its plane,
+    // not on `upper.a`, where the span crossing to the other sheave of the block leaves
+    // it at 1.15°; the bend loss share is zero (no `bend_loss` here).
+    assert_eq!(sheave.axial_load_n.forward.flatten(), Some(0.0));
+    assert_eq!(sheave.bend_loss_share.flatten(), Some(0.0));
+    let crossing = parts.iter().find(|p| p.part == "upper.a").unwrap();
+    let axial = crossing.axial_load_n.forward.flatten().unwrap();
+    let pin = crossing.pin_load_n.forward.flatten().unwrap();
+    // Hand check: the crossing span upper.a → lower.b carries 2.061 kN forward, and
+    // 2061 N × sin 1.15° = 41.4 N.
+    assert!(axial > 30.0 && axial < 50.0, "{axial} N of {pin} N");
 
     // --case back narrows every per-case field to `back`.
     let back: TablesIn = serde_json::from_str(&stdout_of(&[
@@ -1075,7 +1088,12 @@ fn html_tables_fit_a_printed_a4_page() {
         return;
     };
     let dir = Scratch::new("a4");
-    for name in ["line-set", "rescue-haul", "greenhouse-vents"] {
+    for name in [
+        "line-set",
+        "rescue-haul",
+        "greenhouse-vents",
+        "gallery-panel",
+    ] {
         let html = stdout_of(&["report", &example_rig(name), "-o", "-"]);
         assert!(html.contains("@media print"));
         let script = "<pre id=\"measure\"></pre><script>\

@@ -14,6 +14,8 @@ use crate::support::{assert_abs, reeve, Scratch, ROOT};
 const EXPECTED: &[(&str, &[&str], i32)] = &[
     // "built to fail that check": the follower's spring cannot lift the bird.
     ("automaton-cord.yaml", &["cannot-move"], 1),
+    // "The tool warns that both sheaves are below the wire rope's usual D/d."
+    ("gallery-panel.yaml", &["bend-ratio", "bend-ratio"], 0),
     // Must run back by itself (`runs_back: true`) and must not slip on the drums: clean.
     ("greenhouse-vents.yaml", &[], 0),
     // A 1:1 raise on a long static rope, rope stretch and weight given: clean.
@@ -267,6 +269,24 @@ fn check_rig(path: &Path, exercised: &mut Exercised) {
             "{rel}: energy audit {case} misfit {misfit:?}"
         );
     }
+    // The audit's losses by kind (DESIGN.md §7: `loss.bearing`, `loss.bending`, ...)
+    // add up to its total, which is the friction at the drive for unit drive speed.
+    for case in ["forward", "back"] {
+        let loss = &value["loss"];
+        let kind = |k: &str| {
+            loss[k][case]
+                .as_f64()
+                .unwrap_or_else(|| panic!("{rel}: loss.{k}"))
+        };
+        let sum = kind("bearing") + kind("bending") + kind("surface") + kind("drum");
+        let total = kind("total");
+        assert_abs(
+            &format!("{rel}: losses by kind, {case}"),
+            sum,
+            total,
+            1e-9 * (1.0 + total.abs()),
+        );
+    }
     // Drum torques, one entry per drum part. The margin of a drum that is not the
     // drive is "forward rope torque minus (load + drag): what journal and thrust take"
     // (src/report), which the drum's moment balance makes equal to journal + thrust;
@@ -435,4 +455,41 @@ fn a_bad_file_exits_2() {
         assert_eq!(out.code, 2, "{args:?}: stderr {}", out.stderr);
         assert!(!out.stderr.is_empty(), "{args:?}: says why on stderr");
     }
+}
+
+#[test]
+fn the_gallery_panel_loses_its_effort_to_the_wire_rope_bending() {
+    // Guards what rigs/gallery-panel.yaml is for: on ball-bearing sheaves the rope's
+    // bend_loss of 2 % per passage is nearly all the friction. Hand calculation:
+    // 25 kg × 9.806 65 = 245.17 N, two passages at 1/0.98 each plus a little bearing:
+    // 245.17 / 0.98² = 255.28 N, the solver 255.4 N.
+    let value = reeve(&["check", "--json", "rigs/gallery-panel.yaml"])
+        .expect_code(0)
+        .json();
+    let forward = value["forward"]["value"].as_f64().unwrap();
+    assert!(
+        forward > 245.166_25 / 0.98 / 0.98 && forward < 256.0,
+        "{forward} N"
+    );
+    let loss = &value["loss"];
+    let bending = loss["bending"]["forward"].as_f64().unwrap();
+    let total = loss["total"]["forward"].as_f64().unwrap();
+    assert!(bending / total > 0.95, "bending {bending} of {total}");
+    // The corner sheave sits 60 mm off the head sheave's plane: equal and opposite
+    // axial loads on the two sheaves (the crossing span's tension × sin 1.15°).
+    let parts = value["parts"].as_array().unwrap();
+    let axial = |name: &str| {
+        parts.iter().find(|p| p["name"] == name).unwrap()["axial_load_n"]["forward"]
+            .as_f64()
+            .unwrap()
+    };
+    let span = value["spans"][1]["tension_n"]["forward"].as_f64().unwrap();
+    let sin = (60.0f64 / 3000.0).atan().sin();
+    assert_abs("axial load on head", axial("head"), span * sin, 0.01);
+    assert_abs(
+        "axial loads cancel",
+        axial("head") + axial("corner"),
+        0.0,
+        1e-9,
+    );
 }

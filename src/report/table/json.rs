@@ -88,6 +88,11 @@ pub struct PartJson {
     /// Share of all losses at this part, forward case (0 to 1).
     #[serde(skip_serializing_if = "Option::is_none")]
     pub loss_share: Option<Option<Real>>,
+    /// Share of all losses that the rope's bending takes at this part, forward case.
+    #[serde(skip_serializing_if = "Option::is_none")]
+    pub bend_loss_share: Option<Option<Real>>,
+    /// The pin load's part along the axle, N (DESIGN.md §7).
+    pub axial_load_n: CasesJson<Real>,
 }
 
 /// The JSON document of `reeve table --format json`.
@@ -161,6 +166,9 @@ pub fn tables_json(report: &Report, cases: CaseFilter, choice: TableChoice) -> T
                 p.pin_load_direction.back,
             );
             let loss = cases.forward().then_some(p.loss_share);
+            let bend = cases.forward().then_some(p.material.bend_loss_share);
+            let a = &p.material.axial_load_n;
+            let axial = CasesJson::new(cases, a.ideal, a.forward, a.back);
             if p.passages.is_empty() {
                 rows.push(PartJson {
                     part: p.name.clone(),
@@ -174,6 +182,8 @@ pub fn tables_json(report: &Report, cases: CaseFilter, choice: TableChoice) -> T
                     pin_load_n: pins.clone(),
                     pin_load_direction: dirs.clone(),
                     loss_share: loss,
+                    bend_loss_share: bend,
+                    axial_load_n: axial.clone(),
                 });
             }
             for pass in &p.passages {
@@ -194,6 +204,8 @@ pub fn tables_json(report: &Report, cases: CaseFilter, choice: TableChoice) -> T
                     pin_load_n: pins.clone(),
                     pin_load_direction: dirs.clone(),
                     loss_share: loss,
+                    bend_loss_share: bend,
+                    axial_load_n: axial.clone(),
                 });
             }
         }

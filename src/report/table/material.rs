@@ -47,6 +47,25 @@ pub fn material_table(
     Some(t)
 }
 
+/// The material columns appended to the span table `t` (rows in the report's span
+/// order), for a spreadsheet: a CSV file holds one table, so there they are columns of
+/// the span table rather than a table of their own.
+pub fn append_material_columns(
+    t: &mut Table,
+    report: &Report,
+    units: &UnitSystem,
+    cases: CaseFilter,
+) {
+    let material = MaterialColumns::of(report);
+    if !(material.stretch || material.weight) {
+        return;
+    }
+    material.headers(t, units, cases);
+    for (row, s) in t.rows.iter_mut().zip(&report.spans) {
+        material.cells(row, s, units, cases);
+    }
+}
+
 /// Which columns of the material table apply.
 struct MaterialColumns {
     stretch: bool,

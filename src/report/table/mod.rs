@@ -299,6 +299,35 @@ impl Table {
     pub fn text_row(&mut self, cells: Vec<String>) {
         self.rows.push(cells.into_iter().map(Cell::Text).collect());
     }
+
+    /// The table without the columns whose header starts with `prefix` (the HTML
+    /// report lists the axial loads apart, so its part table still fits a page).
+    pub fn without_columns(&self, prefix: &str) -> Table {
+        let keep: Vec<bool> = self
+            .columns
+            .iter()
+            .map(|c| !c.header.starts_with(prefix))
+            .collect();
+        let pick = |cells: &[Cell]| -> Vec<Cell> {
+            cells
+                .iter()
+                .zip(&keep)
+                .filter(|(_, k)| **k)
+                .map(|(c, _)| c.clone())
+                .collect()
+        };
+        Table {
+            title: self.title.clone(),
+            layout: self.layout,
+            columns: self
+                .columns
+                .iter()
+                .filter(|c| !c.header.starts_with(prefix))
+                .cloned()
+                .collect(),
+            rows: self.rows.iter().map(|r| pick(r)).collect(),
+        }
+    }
 }
 
 /// Significant figures shown for lengths, forces and ratios.
@@ -386,7 +415,8 @@ fn direction_cells(row: &mut Vec<Cell>, direction: Option<[Real; 3]>, style: Sty
 }
 
 /// The part table: one row per passage of a line over a round part, one row for every
-/// other part; pin load magnitude and direction per case, loss share (forward case).
+/// other part; pin load magnitude and direction per case, loss share (forward case),
+/// and where the rig has them the bend loss share and the axial load (DESIGN.md §7).
 pub fn part_table(report: &Report, units: &UnitSystem, cases: CaseFilter, style: Style) -> Table {
     let deg = style.degrees();
     let force = units.force.symbol;
@@ -419,6 +449,25 @@ pub fn part_table(report: &Report, units: &UnitSystem, cases: CaseFilter, style:
     if cases.forward() {
         t.column("loss share (%)", Align::Right);
     }
+    // The rope-as-material columns (DESIGN.md §7) only where they say something, so a
+    // rig without them prints the tables it always printed.
+    let bending = cases.forward()
+        && report
+            .parts
+            .iter()
+            .any(|p| p.material.bend_loss_share.is_some_and(|s| s > 0.0));
+    if bending {
+        t.column("bend loss share (%)", Align::Right);
+    }
+    let axial = report
+        .parts
+        .iter()
+        .any(|p| p.material.has_axial(&p.pin_load_n));
+    for (case, shown) in [("forward", cases.forward()), ("back", cases.back())] {
+        if axial && shown {
+            t.column(format!("axial load {case} ({force})"), Align::Right);
+        }
+    }
     for p in &report.parts {
         let part_cells = |row: &mut Vec<Cell>| {
             if cases.ideal() {
@@ -435,6 +484,16 @@ pub fn part_table(report: &Report, units: &UnitSystem, cases: CaseFilter, style:
             }
             if cases.forward() {
                 row.push(Cell::Number(p.loss_share.map(|s| s * 100.0), 3));
+            }
+            if bending {
+                let share = p.material.bend_loss_share.map(|s| s * 100.0);
+                row.push(Cell::Number(share, 3));
+            }
+            let a = &p.material.axial_load_n;
+            for (value, shown) in [(a.forward, cases.forward()), (a.back, cases.back())] {
+                if axial && shown {
+                    row.push(in_units(value, Dimension::Force, units));
+                }
             }
         };
         if p.passages.is_empty() {
@@ -495,7 +554,14 @@ pub fn tables(
         out.push(part_table(report, units, cases, style));
     }
     if choice != TableChoice::Parts {
-        out.extend(material_table(report, units, cases, style));
+        match style {
+            Style::Human => out.extend(material_table(report, units, cases, style)),
+            Style::Data => {
+                if let Some(spans) = out.first_mut() {
+                    material::append_material_columns(spans, report, units, cases);
+                }
+            }
+        }
     }
     out
 }

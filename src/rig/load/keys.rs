@@ -44,6 +44,7 @@ pub(super) const ROPE_KEYS: &[&str] = &[
     "breaking_strength",
     "mu",
     "min_bend_ratio",
+    "bend_loss",
     "kind",
     "stiffness",
     "mass_per_length",
@@ -111,7 +112,8 @@ impl Kind {
         match self {
             Kind::Anchor => &["block"],
             Kind::Sheave => &[
-                "axle", "diameter", "bearing", "mass", "groove", "mu", "block", "inertia",
+                "axle", "diameter", "bearing", "mass", "groove", "mu", "block", "thrust",
+                "inertia",
             ],
             Kind::Guide => &["axle", "diameter", "mu", "groove"],
             Kind::Block => &["moves", "load", "mass", "spring"],

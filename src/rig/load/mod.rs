@@ -14,7 +14,10 @@
 //! - A sheave's `axle`, `diameter` and `bearing` are required (the design table lists
 //!   them without "optional"); write `bearing: {kind: none}` for an ideal sheave. A drum
 //!   without `shaft` turns on frictionless bearings; a `shaft` without `bearing` has a
-//!   frictionless journal. A thrust's `contact` is required.
+//!   frictionless journal. A thrust's `contact` is required; a drum shaft's thrust
+//!   needs its `load`, while a sheave's `thrust` takes its axial load from the spans
+//!   (DESIGN.md §7) and reads `load` as an optional preload (default 0).
+//! - A rope's `bend_loss` (DESIGN.md §7) defaults to 0 and lies in `[0, 1)`.
 //! - The natural quantity (block `load`, weight `mass`, haul `force`) of every part that
 //!   is not `solve_for` must be given. A drum that is not `solve_for` and has no `torque`
 //!   has no load torque (0 N·m): a drum that only stores or leads rope. For the

@@ -108,6 +108,10 @@ pub(super) fn part(
             let mass = own_mass(r);
             let groove_angle = r.groove(entries, &path);
             let mu = r.opt_mu(entries, "mu", &path);
+            let thrust = match get(entries, "thrust") {
+                Some(n) => Some(r.thrust(n, &join(&path, "thrust"), false)?),
+                None => None,
+            };
             Some(PartKind::Sheave(Sheave {
                 axle: axle?,
                 tread_diameter: tread_diameter?,
@@ -115,6 +119,7 @@ pub(super) fn part(
                 mass,
                 groove_angle,
                 mu,
+                thrust,
             }))
         }
         Kind::Guide => {
@@ -358,7 +363,7 @@ pub(super) fn shaft(r: &mut Resolver, node: &Node, path: &str) -> Option<Shaft> 
         None => Some(Bearing::None),
     };
     let thrust = match get(entries, "thrust") {
-        Some(n) => Some(r.thrust(n, &join(path, "thrust"))?),
+        Some(n) => Some(r.thrust(n, &join(path, "thrust"), true)?),
         None => None,
     };
     Some(Shaft {

@@ -571,23 +571,41 @@ impl Resolver {
         }
     }
 
-    pub(super) fn thrust(&mut self, node: &Node, path: &str) -> Option<Thrust> {
+    /// A thrust face. `load_required`: a drum shaft's axial load is given (`load`); a
+    /// sheave's comes from its spans, and `load` is an optional preload (default 0).
+    pub(super) fn thrust(
+        &mut self,
+        node: &Node,
+        path: &str,
+        load_required: bool,
+    ) -> Option<Thrust> {
         let entries = self.mapping(
             node,
             path,
-            "a thrust bearing `{load, diameter, mu, contact: new|worn}`",
+            if load_required {
+                "a thrust bearing `{load, diameter, mu, contact: new|worn}`"
+            } else {
+                "a thrust bearing `{diameter, mu, contact: new|worn, load?}`"
+            },
         )?;
         self.keys(entries, path, THRUST_KEYS, "a thrust bearing");
         let at = node.location;
-        let load = match self.require(
-            entries,
-            "load",
-            path,
-            at,
-            "the axial load, a force such as `200 N`",
-        ) {
-            Some(_) => self.opt_non_negative(entries, "load", path, Dimension::Force),
-            None => None,
+        let load = if !load_required {
+            Some(
+                self.opt_non_negative(entries, "load", path, Dimension::Force)
+                    .unwrap_or(0.0),
+            )
+        } else {
+            match self.require(
+                entries,
+                "load",
+                path,
+                at,
+                "the axial load, a force such as `200 N`",
+            ) {
+                Some(_) => self.opt_non_negative(entries, "load", path, Dimension::Force),
+                None => None,
+            }
         };
         let diameter = self.size(entries, "diameter", path, at);
         let inner = self.opt_non_negative(entries, "inner_diameter", path, Dimension::Length);

@@ -353,7 +353,7 @@ pub(super) fn rope(r: &mut Resolver, e: &Entry) -> Option<Rope> {
     let entries = r.mapping(
         node,
         &path,
-        "a rope `{diameter, mu, breaking_strength?, min_bend_ratio?, kind?, stiffness?, mass_per_length?}`",
+        "a rope `{diameter, mu, breaking_strength?, min_bend_ratio?, bend_loss?, kind?, stiffness?, mass_per_length?}`",
     )?;
     r.keys(entries, &path, ROPE_KEYS, "a rope");
     let at = node.location;
@@ -385,6 +385,24 @@ pub(super) fn rope(r: &mut Resolver, e: &Entry) -> Option<Rope> {
         None => default_min_bend_ratio(kind),
     };
     let (stiffness, mass_per_length) = rope_material(r, entries, &path)?;
+    let bend_loss = match get(entries, "bend_loss") {
+        Some(n) => {
+            let p = join(&path, "bend_loss");
+            let v = r.number(
+                n,
+                &p,
+                "a fraction of tension lost per passage, such as 0.02",
+            );
+            r.check(
+                v,
+                n,
+                &p,
+                |v| (0.0..1.0).contains(&v),
+                "a fraction from 0 up to (not including) 1",
+            )?
+        }
+        None => 0.0,
+    };
     Some(Rope {
         name: e.key.clone(),
         kind,
@@ -394,6 +412,7 @@ pub(super) fn rope(r: &mut Resolver, e: &Entry) -> Option<Rope> {
         min_bend_ratio,
         stiffness,
         mass_per_length,
+        bend_loss,
         location: e.key_location,
     })
 }

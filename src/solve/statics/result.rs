@@ -3,6 +3,34 @@
 
 use super::*;
 
+/// The energy audit's losses by kind, per part, W per unit drive speed (as
+/// [`CaseResult::loss`], which is their sum part by part).
+#[derive(Debug, Clone, PartialEq, Default)]
+pub struct Losses {
+    /// A turning sheave's bearing: journal (friction circle, rolling or rated) and
+    /// thrust face.
+    pub bearing: Vec<Real>,
+    /// The rope's own bending over a turning sheave (the rope's `bend_loss`).
+    pub bending: Vec<Real>,
+    /// Rope sliding on a fixed surface: a guide, a stalled sheave (capstan).
+    pub surface: Vec<Real>,
+    /// A drum's drag, journal and thrust.
+    pub drum: Vec<Real>,
+}
+
+impl Losses {
+    /// Each kind summed over the parts: (bearing, bending, surface, drum).
+    pub fn totals(&self) -> (Real, Real, Real, Real) {
+        let sum = |v: &[Real]| v.iter().sum::<Real>();
+        (
+            sum(&self.bearing),
+            sum(&self.bending),
+            sum(&self.surface),
+            sum(&self.drum),
+        )
+    }
+}
+
 impl Problem<'_> {
     #[allow(clippy::too_many_arguments)]
     pub(super) fn finish(
@@ -11,7 +39,7 @@ impl Problem<'_> {
         value: Real,
         tension: Vec<Vec<Real>>,
         stalled: Vec<(LineId, usize)>,
-        drum_friction: Vec<(Real, Real, Real)>,
+        drum_friction: Vec<DrumFriction>,
         indeterminate: bool,
         status: Status,
         velocity: &DVector<Real>,
@@ -19,6 +47,12 @@ impl Problem<'_> {
         let rig = self.rig;
         let nparts = rig.parts.len();
         let mut loss = vec![0.0; nparts];
+        let mut losses = Losses {
+            bearing: vec![0.0; nparts],
+            bending: vec![0.0; nparts],
+            surface: vec![0.0; nparts],
+            drum: vec![0.0; nparts],
+        };
         let mut ratio: Vec<Vec<Option<Real>>> =
             rig.lines.iter().map(|l| vec![None; l.path.len()]).collect();
         let mut slack = Vec::new();
@@ -60,8 +94,19 @@ impl Problem<'_> {
                     // The arc's rise is the rope's weight, not friction; what is left of
                     // it at round-off (a frictionless passage) is no loss.
                     let friction = b - a - self.weight.arc(l, e);
-                    if friction.abs() > 1e-13 * (a.abs() + b.abs()) {
-                        loss[part] += friction * s;
+                    let lost = if friction.abs() > 1e-13 * (a.abs() + b.abs()) {
+                        friction * s
+                    } else {
+                        0.0
+                    };
+                    loss[part] += lost;
+                    let stall = stalled.contains(&(l, e));
+                    if matches!(rig.parts[part].kind, PartKind::Sheave(_)) && !stall {
+                        let bending = self.bending_loss(case, (l, e), (a, b), stall);
+                        losses.bending[part] += bending;
+                        losses.bearing[part] += lost - bending;
+                    } else {
+                        losses.surface[part] += lost;
                     }
                 }
             }
@@ -72,8 +117,10 @@ impl Problem<'_> {
         for (k, &i) in self.dofs.iter().enumerate() {
             let part = self.kin.dofs[i].part;
             let v = velocity[i];
-            let (drag, journal, thrust) = drum_friction[k];
-            loss[part] += (drag + journal + thrust) * v.abs();
+            let friction = drum_friction[k];
+            loss[part] += friction.total() * v.abs();
+            losses.drum[part] += (friction.total() - friction.bending) * v.abs();
+            losses.bending[part] += friction.bending * v.abs();
             let p = (self.q_load[k] + value * self.x_coef[k]) * v;
             if part == self.drive {
                 drive_power += p;
@@ -121,8 +168,7 @@ impl Problem<'_> {
                 let k = self.dofs.iter().position(|&i| self.kin.dofs[i].part == id);
                 let speed = self.kin.dof_of_part[id].map(|i| velocity[i]).unwrap_or(0.0);
                 let dir = if speed < 0.0 { -1.0 } else { 1.0 };
-                let (drag, journal, thrust) =
-                    k.map(|k| drum_friction[k]).unwrap_or((0.0, 0.0, 0.0));
+                let friction = k.map(|k| drum_friction[k]).unwrap_or_default();
                 let load = if id == self.solve_for && id != self.drive {
                     value
                 } else if id == self.drive {
@@ -142,9 +188,10 @@ impl Problem<'_> {
                 drums[id] = Some(DrumTorques {
                     rope: torque * dir,
                     load: load * if fwd * speed >= 0.0 { 1.0 } else { -1.0 },
-                    drag,
-                    journal,
-                    thrust,
+                    drag: friction.drag,
+                    journal: friction.journal,
+                    thrust: friction.thrust,
+                    bending: friction.bending,
                     speed,
                 });
             }
@@ -168,6 +215,7 @@ impl Problem<'_> {
             split_by_stiffness: false,
             status,
             audit_residual,
+            losses,
         }
     }
 }
