@@ -112,8 +112,7 @@ impl Kind {
         match self {
             Kind::Anchor => &["block"],
             Kind::Sheave => &[
-                "axle", "diameter", "bearing", "mass", "groove", "mu", "block", "thrust",
-                "inertia",
+                "axle", "diameter", "bearing", "mass", "groove", "mu", "block", "thrust", "inertia",
             ],
             Kind::Guide => &["axle", "diameter", "mu", "groove"],
             Kind::Block => &["moves", "load", "mass", "spring"],
