@@ -441,7 +441,15 @@ pub fn run(profile: &Profile, drive: &DriveValue, settings: &Settings) -> Run {
                 } else {
                     s.start_back
                 };
-                let Some(tl) = drive.leaves(t, end, band_lo, band_hi) else {
+                let tl = drive.leaves(t, end, band_lo, band_hi);
+                // The schedule's points while it waits, so the drive value is drawn true.
+                let until = tl.unwrap_or(end);
+                let mut b = t;
+                while let Some(next) = drive.next_break(b).filter(|&n| n < until) {
+                    push(&mut out, next, &y, 0.0);
+                    b = next;
+                }
+                let Some(tl) = tl else {
                     t = end;
                     push(&mut out, t, &y, 0.0);
                     break;

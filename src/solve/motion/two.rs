@@ -209,7 +209,8 @@ pub fn run(
             });
             sigma = 0.0;
         }
-        let event = out.events.last().is_some_and(|e| e.t == t_new);
+        let event = out.events.last().is_some_and(|e| e.t == t_new)
+            || drive.next_break(t).is_some_and(|b| b <= t_new);
         t = t_new;
         y = y_new;
         // Output at most every quarter of the largest step, and at every event.
