@@ -10,6 +10,7 @@ use clap::{Parser, Subcommand};
 
 pub mod args;
 pub mod destination;
+pub mod motion;
 pub mod outputs;
 pub mod snippet;
 pub mod studies;
@@ -70,6 +71,8 @@ pub enum Command {
     Rank(studies::RankArgs),
     /// Monte Carlo spread over the values the rig gives as ranges.
     Spread(studies::SpreadArgs),
+    /// Run the rig in time from rest: events, strokes, time series (DESIGN.md §7).
+    Motion(motion::MotionArgs),
     /// Print a shell completion script (bash, zsh, fish, powershell).
     Completions(tools::CompletionsArgs),
     /// Print the manual page (roff), or write it with -o.
@@ -253,6 +256,7 @@ pub fn run(cli: Cli) -> Result<i32, Failure> {
         Command::Sweep(args) => studies::run_sweep(args),
         Command::Rank(args) => studies::run_rank(args),
         Command::Spread(args) => studies::run_spread(args),
+        Command::Motion(args) => motion::run_motion(args),
         Command::Completions(args) => tools::run_completions(args),
         Command::Manual(args) => tools::run_manual(args),
     }

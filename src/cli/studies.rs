@@ -48,8 +48,9 @@ pub struct SweepArgs {
     )]
     pub vary: Option<String>,
     /// Move the drive forward through this travel instead (a length such as `500 mm`,
-    /// or an angle such as `90 deg` for a drum drive).
-    #[arg(long, value_name = "DISTANCE")]
+    /// or an angle such as `90 deg` for a drum drive); without a distance, over the
+    /// rig's `travel` from its back stop to its forward stop.
+    #[arg(long, value_name = "DISTANCE", num_args = 0..=1, default_missing_value = "")]
     pub stroke: Option<String>,
     /// Number of steps, both ends included for `--vary` (default 11; 10 for `--stroke`).
     #[arg(long)]

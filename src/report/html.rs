@@ -497,6 +497,8 @@ pub fn write_html(
     }
     writeln!(w, "</section>")?;
 
+    super::motion::write_html_section(w, rig)?;
+
     writeln!(
         w,
         "<section id=\"methods\">\n<h2>Methods and sources</h2>\n<dl class=\"methods\">"

@@ -11,6 +11,7 @@ mod generators;
 mod geometry;
 mod load_errors;
 mod material;
+mod motion;
 mod numerics;
 mod outputs;
 mod pin_loads_3d;

@@ -35,9 +35,10 @@ pub(super) const TOP_KEYS: &[&str] = &[
     "solve_for",
     "runs_back",
     "variants",
+    "travel",
 ];
 pub(super) const UNIT_KEYS: &[&str] = &["length", "force", "mass", "torque"];
-pub(super) const LIMIT_KEYS: &[&str] = &["fleet_angle", "design_factor"];
+pub(super) const LIMIT_KEYS: &[&str] = &["fleet_angle", "design_factor", "stop_speed"];
 pub(super) const ROPE_KEYS: &[&str] = &[
     "diameter",
     "breaking_strength",
@@ -111,12 +112,15 @@ impl Kind {
         match self {
             Kind::Anchor => &["block"],
             Kind::Sheave => &[
-                "axle", "diameter", "bearing", "mass", "groove", "mu", "block", "thrust",
+                "axle", "diameter", "bearing", "mass", "groove", "mu", "block", "thrust", "inertia",
             ],
             Kind::Guide => &["axle", "diameter", "mu", "groove"],
-            Kind::Block => &["moves", "load", "mass"],
+            Kind::Block => &["moves", "load", "mass", "spring"],
             Kind::Weight => &["mass"],
-            Kind::Drum => &["axle", "diameter", "shaft", "torque", "drag", "mu", "mass"],
+            Kind::Drum => &[
+                "axle", "diameter", "shaft", "torque", "drag", "mu", "mass", "lever", "spring",
+                "inertia",
+            ],
             Kind::Haul => &["pull", "force"],
         }
     }

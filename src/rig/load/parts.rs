@@ -82,6 +82,14 @@ pub(super) fn part(
         }
         None => None,
     };
+    r.part_changing(entries, &path, kind, &e.key);
+    // Only the natural quantity may be a `{schedule: ...}` (DESIGN.md §7).
+    let natural = |r: &mut Resolver, n: &Node, p: &str, d: Dimension| {
+        r.schedule_for = Some(e.key.clone());
+        let v = r.quantity(n, p, d);
+        r.schedule_for = None;
+        v
+    };
     let part_kind = match kind {
         Kind::Anchor => Some(PartKind::Anchor),
         Kind::Sheave => {
@@ -132,7 +140,9 @@ pub(super) fn part(
                 None => Some(-r.gravity),
             };
             let mass = own_mass(r);
+            r.schedule_for = Some(e.key.clone());
             let (load, load_is_force) = block_load(r, entries, &path, at, is_unknown);
+            r.schedule_for = None;
             let moves = moves?;
             let load_stated = get(entries, "load").is_some();
             // An unknown block that states no load: a mass where one would do work
@@ -155,7 +165,7 @@ pub(super) fn part(
             let mass = match get(entries, "mass") {
                 Some(n) => {
                     let p = join(&path, "mass");
-                    let v = r.quantity(n, &p, Dimension::Mass);
+                    let v = natural(r, n, &p, Dimension::Mass);
                     r.check(v, n, &p, |v| v > 0.0, "a positive mass").map(Some)
                 }
                 None if is_unknown => Some(None),
@@ -179,9 +189,7 @@ pub(super) fn part(
             // problem in the part is reported.
             let shaft = get(entries, "shaft").map(|n| shaft(r, n, &join(&path, "shaft")));
             let torque = match get(entries, "torque") {
-                Some(n) => r
-                    .quantity(n, &join(&path, "torque"), Dimension::Torque)
-                    .map(Some),
+                Some(n) => natural(r, n, &join(&path, "torque"), Dimension::Torque).map(Some),
                 None if is_unknown => Some(None),
                 None => Some(Some(0.0)),
             };
@@ -219,7 +227,7 @@ pub(super) fn part(
             let force = match get(entries, "force") {
                 Some(n) => {
                     let p = join(&path, "force");
-                    let v = r.quantity(n, &p, Dimension::Force);
+                    let v = natural(r, n, &p, Dimension::Force);
                     r.check(
                         v,
                         n,

@@ -24,6 +24,11 @@ pub(super) struct Resolver {
     pub(super) gravity: Direction,
     pub(super) problems: Vec<Problem>,
     pub(super) dropped: usize,
+    /// The part whose natural quantity is being read: only there may a quantity be a
+    /// `{schedule: ...}` (DESIGN.md §7).
+    pub(super) schedule_for: Option<String>,
+    /// DESIGN.md §7 data per part name (levers, springs, inertia, schedules).
+    pub(super) changing: HashMap<String, crate::model::changing::PartChanging>,
 }
 
 impl Resolver {
@@ -128,6 +133,11 @@ impl Resolver {
         path: &str,
         dimension: Dimension,
     ) -> Option<Real> {
+        if node.entries().is_some() {
+            if let Some(part) = self.schedule_for.clone() {
+                return self.schedule(node, path, dimension, &part);
+            }
+        }
         let unit = self.units.unit(dimension);
         let example = example(dimension);
         let value = match (&node.value, node.plain_number()) {
@@ -744,5 +754,9 @@ pub(super) fn example(dimension: Dimension) -> &'static str {
         Dimension::Mass => "40 kg",
         Dimension::Torque => "1.2 N*m",
         Dimension::MassPerLength => "0.25 kg/m",
+        Dimension::Time => "5 min",
+        Dimension::SpringRate => "2 N/mm",
+        Dimension::TorsionRate => "0.5 N*m/rad",
+        Dimension::Inertia => "0.02 kg*m^2",
     }
 }

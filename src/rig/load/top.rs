@@ -25,6 +25,8 @@ pub(super) fn resolve(root: &Node, source: &str) -> Result<Rig, Vec<Problem>> {
         gravity: -Vector::z_axis(),
         problems: Vec::new(),
         dropped: 0,
+        schedule_for: None,
+        changing: HashMap::new(),
     };
     let Some(top) = r.mapping(
         root,
@@ -106,7 +108,7 @@ pub(super) fn resolve(root: &Node, source: &str) -> Result<Rig, Vec<Problem>> {
                         Dimension::Force => r.units.force = unit,
                         Dimension::Mass => r.units.mass = unit,
                         Dimension::Torque => r.units.torque = unit,
-                        Dimension::MassPerLength => {}
+                        _ => {}
                     },
                     Err(e) => r.report(u.location, p, e.to_string()),
                 }
@@ -134,6 +136,7 @@ pub(super) fn resolve(root: &Node, source: &str) -> Result<Rig, Vec<Problem>> {
 
     // limits
     let mut limits = Limits::default();
+    let mut stop_speed = None;
     if let Some(n) = get(top, "limits") {
         if let Some(entries) = r.mapping(n, "limits", "a mapping `{fleet_angle, design_factor}`") {
             r.keys(entries, "limits", LIMIT_KEYS, "limits");
@@ -148,6 +151,9 @@ pub(super) fn resolve(root: &Node, source: &str) -> Result<Rig, Vec<Problem>> {
                 ) {
                     limits.fleet_angle = v;
                 }
+            }
+            if let Some(n) = get(entries, "stop_speed") {
+                stop_speed = r.stop_speed(n);
             }
             if let Some(d) = get(entries, "design_factor") {
                 let v = r.number(d, "limits.design_factor", "a design factor (1 or more)");
@@ -277,6 +283,22 @@ pub(super) fn resolve(root: &Node, source: &str) -> Result<Rig, Vec<Problem>> {
         }
     }
 
+    // travel (DESIGN.md §7): an angle for a drum drive, else a length.
+    let travel = get(top, "travel").and_then(|n| {
+        let turns = drive.is_some_and(|d| names.kinds[d] == Some(Kind::Drum));
+        r.travel(n, turns)
+    });
+    let mut changing = crate::model::changing::Changing {
+        travel,
+        stop_speed,
+        parts: Vec::new(),
+    };
+    for (i, name) in names.names.iter().enumerate() {
+        if let Some(data) = r.changing.remove(name) {
+            *changing.of_mut(i) = data;
+        }
+    }
+
     if r.dropped > 0 {
         r.problems.push(more_problems(r.dropped));
     }
@@ -295,6 +317,7 @@ pub(super) fn resolve(root: &Node, source: &str) -> Result<Rig, Vec<Problem>> {
             drive: drive?,
             solve_for: solve_for?,
             runs_back,
+            changing,
         })
     })();
     assembled.ok_or_else(|| {
