@@ -1,7 +1,8 @@
 //! `reeve completions` and `reeve manual`: generated from the clap definitions, each
 //! names every subcommand.
 
-use crate::support::{reeve, stdout_of, Scratch};
+use crate::support::golden::diff;
+use crate::support::{reeve, stdout_of, Scratch, EXAMPLE, ROOT};
 
 /// Every subcommand, as `reeve --help` lists it (the list is read from the binary, so a
 /// new command is checked without editing this test).
@@ -78,4 +79,180 @@ fn the_manual_is_written_to_a_file() {
     assert!(ran.parts().1.is_empty());
     let page = std::fs::read_to_string(&path).unwrap();
     assert_eq!(page, stdout_of(&["manual"]));
+}
+
+// ---- `reeve schema` (issue 13 item 1) ----
+
+/// The shipped schema file, `schema/rig-1.json`.
+fn shipped_schema_path() -> std::path::PathBuf {
+    std::path::Path::new(ROOT).join("schema/rig-1.json")
+}
+
+/// The schema the project ships is the one `reeve schema` writes today (regenerate it
+/// with `REEVE_BLESS=1 cargo test --test it tools::`, then read the diff).
+#[test]
+fn the_shipped_schema_is_what_reeve_schema_prints() {
+    let printed = stdout_of(&["schema"]);
+    let path = shipped_schema_path();
+    if std::env::var("REEVE_BLESS").as_deref() == Ok("1") {
+        std::fs::write(&path, &printed).unwrap();
+        return;
+    }
+    let shipped = std::fs::read_to_string(&path).unwrap_or_default();
+    assert!(
+        shipped == printed,
+        "schema/rig-1.json differs from `reeve schema` (- shipped, + now); rerun with \
+         REEVE_BLESS=1 and read the diff:\n{}",
+        diff(&shipped, &printed)
+    );
+    let dir = Scratch::new("schema");
+    let out = dir.join("rig.json");
+    reeve(&["schema", "-o", out.to_str().unwrap()]).expect_code(0);
+    assert_eq!(std::fs::read_to_string(out).unwrap(), printed);
+}
+
+/// The validator, from the shipped file, by an independent JSON Schema implementation.
+fn validator() -> jsonschema::Validator {
+    let text = std::fs::read_to_string(shipped_schema_path()).unwrap();
+    let schema: serde_json::Value = serde_json::from_str(&text).unwrap();
+    assert!(
+        jsonschema::meta::is_valid(&schema),
+        "the schema is not a valid draft 2020-12 schema"
+    );
+    jsonschema::draft202012::new(&schema).unwrap_or_else(|e| panic!("schema: {e}"))
+}
+
+/// A rig's text as the JSON an editor's YAML plug-in checks.
+fn as_json(text: &str) -> serde_json::Value {
+    serde_yaml::from_str(text).unwrap_or_else(|e| panic!("not YAML ({e}):\n{text}"))
+}
+
+/// Every `.yaml` file under `dir`, recursively, sorted.
+fn yaml_files(dir: &std::path::Path) -> Vec<std::path::PathBuf> {
+    let mut out = Vec::new();
+    for entry in std::fs::read_dir(dir).unwrap() {
+        let path = entry.unwrap().path();
+        if path.is_dir() {
+            out.extend(yaml_files(&path));
+        } else if path.extension().is_some_and(|e| e == "yaml") {
+            out.push(path);
+        }
+    }
+    out.sort();
+    out
+}
+
+#[test]
+fn every_example_rig_names_the_schema_and_validates() {
+    let validator = validator();
+    let rigs = yaml_files(&std::path::Path::new(ROOT).join("rigs"));
+    assert!(rigs.len() >= 7);
+    for path in rigs {
+        let text = std::fs::read_to_string(&path).unwrap();
+        assert_eq!(
+            text.lines().next(),
+            Some("# yaml-language-server: $schema=../schema/rig-1.json"),
+            "{} does not start with the schema modeline",
+            path.display()
+        );
+        let errors: Vec<String> = validator
+            .iter_errors(&as_json(&text))
+            .map(|e| format!("{} at {}", e, e.instance_path()))
+            .collect();
+        assert!(errors.is_empty(), "{}: {errors:#?}", path.display());
+    }
+}
+
+/// The test rigs the loader accepts validate too (those it refuses are error tests).
+#[test]
+fn every_test_rig_the_loader_accepts_validates() {
+    let validator = validator();
+    let mut checked = 0;
+    for path in yaml_files(&std::path::Path::new(ROOT).join("tests/rigs")) {
+        if reeve::rig::load_file(&path).is_err() {
+            continue;
+        }
+        let text = std::fs::read_to_string(&path).unwrap();
+        let errors: Vec<String> = validator
+            .iter_errors(&as_json(&text))
+            .map(|e| format!("{} at {}", e, e.instance_path()))
+            .collect();
+        assert!(errors.is_empty(), "{}: {errors:#?}", path.display());
+        checked += 1;
+    }
+    assert!(checked >= 10, "{checked}");
+}
+
+/// Edits of the example of DESIGN.md §4 that the load error tests refuse; the schema
+/// refuses each of them too.
+#[test]
+fn invalid_rigs_from_the_error_tests_fail_the_schema() {
+    let validator = validator();
+    assert!(validator.is_valid(&as_json(EXAMPLE)));
+    let edits: &[(&str, &str)] = &[
+        ("limits:", "limit:"),
+        (
+            "diameter: 60,\n           bearing: {kind: plain",
+            "diamter: 60,\n           bearing: {kind: plain",
+        ),
+        (
+            "{kind: anchor, at: [0, 0, 2400]}",
+            "{kind: anchor, at: [0, 0, 2400], bearing: {kind: none}}",
+        ),
+        ("{kind: anchor,", "{kind: ancor,"),
+        (
+            "axle: [0, 1, 0], diameter: 60,",
+            "axle: [0, 1, 0], diameter: [60],",
+        ),
+        ("at: [0, 0, 2400]", "at: [0, 0]"),
+        (
+            "bearing: {kind: rolling, bore: 10, mu: 0.0015}",
+            "bearing: rolling",
+        ),
+        ("mu: 0.12", "mu: high"),
+        ("load: {mass: 40}", "load: {mass: heavy}"),
+        ("breaking_strength: 7.5 kN", "breaking_strength: 7.5 kips"),
+        ("breaking_strength: 7.5 kN", "breaking_strength: 7.5 kg"),
+        ("length: mm", "length: furlong"),
+        ("diameter: 6,", "diameter: -6,"),
+        ("pin_diameter: 10", "pin_diameter: 0"),
+        ("mu: 0.12", "mu: -0.12"),
+        (
+            "{kind: rolling, bore: 10, mu: 0.0015}",
+            "{kind: rated, efficiency: 1.2}",
+        ),
+        (
+            "{kind: rolling, bore: 10, mu: 0.0015}",
+            "{kind: rated, factor: 0.9}",
+        ),
+        (
+            "{kind: rolling, bore: 10, mu: 0.0015}",
+            "{kind: rated, factor: 1.1, efficiency: 0.9}",
+        ),
+        ("fleet_angle: 1.5", "fleet_angle: 0"),
+        (
+            "axle: [0, 1, 0], diameter: 60,",
+            "axle: [0, 0, 0], diameter: 60,",
+        ),
+        ("load: {mass: 40}", "load: {mass: 40, force: 10}"),
+        ("format: 1", "format: 2"),
+        ("path: [eye, hook.a, head, hand]", "path: [eye]"),
+        (
+            "path: [eye, hook.a, head, hand]",
+            "path: [eye, {part: hook.a, turns: 1.5}, head, hand]",
+        ),
+    ];
+    assert!(edits.len() >= 12);
+    for (from, to) in edits {
+        assert!(EXAMPLE.contains(from), "`{from}` not in the example");
+        let text = EXAMPLE.replacen(from, to, 1);
+        assert!(
+            reeve::rig::load_str(&text, "rig.yaml").is_err(),
+            "the loader accepts `{to}`"
+        );
+        assert!(
+            !validator.is_valid(&as_json(&text)),
+            "the schema accepts `{to}`"
+        );
+    }
 }

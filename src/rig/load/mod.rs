@@ -44,10 +44,12 @@ mod keys;
 mod lines;
 mod parts;
 mod read;
+pub mod schema;
 mod top;
 
 pub use keys::default_min_bend_ratio;
 use keys::get;
+pub use schema::schema;
 use top::resolve;
 
 /// Reads and resolves the rig file at `path`.
