@@ -2,7 +2,7 @@
 //! names every subcommand.
 
 use crate::support::golden::diff;
-use crate::support::{reeve, stdout_of, Scratch, EXAMPLE, ROOT};
+use crate::support::{reeve, reeve_in, stdout_of, Scratch, EXAMPLE, ROOT};
 
 /// Every subcommand, as `reeve --help` lists it (the list is read from the binary, so a
 /// new command is checked without editing this test).
@@ -255,4 +255,104 @@ fn invalid_rigs_from_the_error_tests_fail_the_schema() {
             "the schema accepts `{to}`"
         );
     }
+}
+
+// ---- `reeve new` (issue 13 item 2) ----
+
+/// The kinds `reeve new` lists.
+fn starter_kinds() -> Vec<String> {
+    let list = stdout_of(&["new"]);
+    let kinds: Vec<String> = list
+        .lines()
+        .skip(1)
+        .filter_map(|l| l.split_whitespace().next().map(str::to_string))
+        .collect();
+    for kind in [
+        "tackle",
+        "counterweight",
+        "hinge",
+        "rescue",
+        "line-set",
+        "winch",
+    ] {
+        assert!(kinds.iter().any(|k| k == kind), "no `{kind}` in:\n{list}");
+    }
+    kinds
+}
+
+/// Every starter is written with the schema beside it, names the schema, validates, and
+/// solves with every check passing.
+#[test]
+fn every_starter_rig_is_written_validates_and_solves() {
+    let validator = validator();
+    let dir = Scratch::new("new");
+    for kind in starter_kinds() {
+        let name = format!("my-{kind}.yaml");
+        let ran = reeve_in(&dir, &["new", &kind, &name]).expect_code(0);
+        assert!(ran.stdout.contains(&name), "{}", ran.stdout);
+        let text = std::fs::read_to_string(dir.join(&name)).unwrap();
+        assert_eq!(
+            text.lines().next(),
+            Some("# yaml-language-server: $schema=rig-1.json")
+        );
+        assert!(
+            text.lines().filter(|l| l.starts_with('#')).count() >= 3,
+            "{kind}: few comments"
+        );
+        assert!(
+            validator.is_valid(&as_json(&text)),
+            "{kind} fails the schema"
+        );
+        let check = reeve_in(&dir, &["check", &name]).expect_code(0);
+        assert!(check.stdout.contains("Caution"), "{}", check.stdout);
+        // The same text on stdout with `-`.
+        assert_eq!(stdout_of(&["new", &kind, "-"]), text);
+    }
+    // The schema beside them is the shipped one.
+    assert_eq!(
+        std::fs::read_to_string(dir.join("rig-1.json")).unwrap(),
+        std::fs::read_to_string(shipped_schema_path()).unwrap()
+    );
+}
+
+#[test]
+fn the_rescue_starter_carries_the_life_safety_cautions() {
+    let text = stdout_of(&["new", "rescue", "-"]);
+    for needle in [
+        "LIFE SAFETY",
+        "local codes",
+        "training",
+        "competent person",
+        "belay",
+    ] {
+        assert!(text.contains(needle), "no `{needle}` in the rescue starter");
+    }
+}
+
+/// `new` never writes over a file (nor a folder or a link), says so, and exits 2; a
+/// schema file already there is kept as it is.
+#[test]
+fn new_never_writes_over_an_existing_file() {
+    let dir = Scratch::new("new-exists");
+    let rig = dir.write("hoist.yaml", "mine\n");
+    dir.write("rig-1.json", "my schema\n");
+    let (code, out, err) = reeve_in(&dir, &["new", "tackle", "hoist.yaml"]).parts();
+    assert_eq!(code, 2, "{out}{err}");
+    assert!(err.contains("`hoist.yaml` already exists"), "{err}");
+    assert_eq!(std::fs::read_to_string(&rig).unwrap(), "mine\n");
+    reeve_in(&dir, &["new", "tackle", "other.yaml"]).expect_code(0);
+    assert_eq!(
+        std::fs::read_to_string(dir.join("rig-1.json")).unwrap(),
+        "my schema\n"
+    );
+    std::fs::create_dir(dir.join("folder.yaml")).unwrap();
+    assert_eq!(reeve_in(&dir, &["new", "winch", "folder.yaml"]).code, 2);
+    // The default name is KIND.yaml.
+    reeve_in(&dir, &["new", "winch", "--no-schema"]).expect_code(0);
+    assert!(dir.join("winch.yaml").is_file());
+    let (code, _, err) = reeve_in(&dir, &["new", "winch"]).parts();
+    assert_eq!(code, 2, "{err}");
+    let (code, _, err) = reeve(&["new", "gantry"]).parts();
+    assert_eq!(code, 2);
+    assert!(err.contains("tackle"), "{err}");
 }
