@@ -356,3 +356,222 @@ fn new_never_writes_over_an_existing_file() {
     assert_eq!(code, 2);
     assert!(err.contains("tackle"), "{err}");
 }
+
+// ---- `reeve watch` (issue 13 item 6) ----
+
+/// A running `reeve watch`, its stdout read line by line on a thread.
+struct Watching {
+    child: std::process::Child,
+    lines: std::sync::mpsc::Receiver<String>,
+    stderr: std::thread::JoinHandle<String>,
+    seen: String,
+}
+
+impl Watching {
+    fn start(dir: &std::path::Path, args: &[&str]) -> Watching {
+        use std::io::BufRead;
+        let mut child = std::process::Command::new(env!("CARGO_BIN_EXE_reeve"))
+            .args(args)
+            .current_dir(dir)
+            .env("SOURCE_DATE_EPOCH", "1767225600")
+            .stdin(std::process::Stdio::null())
+            .stdout(std::process::Stdio::piped())
+            .stderr(std::process::Stdio::piped())
+            .spawn()
+            .expect("start reeve watch");
+        let stdout = child.stdout.take().unwrap();
+        let (tx, lines) = std::sync::mpsc::channel();
+        std::thread::spawn(move || {
+            for line in std::io::BufReader::new(stdout)
+                .lines()
+                .map_while(Result::ok)
+            {
+                if tx.send(line).is_err() {
+                    break;
+                }
+            }
+        });
+        let mut err = child.stderr.take().unwrap();
+        let stderr = std::thread::spawn(move || {
+            let mut s = String::new();
+            let _ = std::io::Read::read_to_string(&mut err, &mut s);
+            s
+        });
+        Watching {
+            child,
+            lines,
+            stderr,
+            seen: String::new(),
+        }
+    }
+
+    /// The output up to and including the next line containing `needle` (a generous
+    /// deadline against a hang, not a timing assertion).
+    #[track_caller]
+    fn until(&mut self, needle: &str) -> String {
+        let deadline = std::time::Instant::now() + std::time::Duration::from_secs(90);
+        let mut round = String::new();
+        loop {
+            let left = deadline.saturating_duration_since(std::time::Instant::now());
+            match self.lines.recv_timeout(left) {
+                Ok(line) => {
+                    round.push_str(&line);
+                    round.push('\n');
+                    self.seen.push_str(&line);
+                    self.seen.push('\n');
+                    if line.contains(needle) {
+                        return round;
+                    }
+                }
+                Err(_) => {
+                    let _ = self.child.kill();
+                    panic!("no `{needle}` from reeve watch; its output:\n{}", self.seen);
+                }
+            }
+        }
+    }
+
+    /// Sends SIGINT (Ctrl-C) and waits for the exit; (exit code, stderr).
+    fn interrupt(mut self) -> (i32, String, String) {
+        // SAFETY: a plain kill(2) on our own child's id.
+        unsafe {
+            libc::kill(self.child.id() as libc::pid_t, libc::SIGINT);
+        }
+        let deadline = std::time::Instant::now() + std::time::Duration::from_secs(60);
+        let status = loop {
+            if let Some(status) = self.child.try_wait().unwrap() {
+                break status;
+            }
+            if std::time::Instant::now() > deadline {
+                let _ = self.child.kill();
+                panic!("reeve watch did not stop on SIGINT:\n{}", self.seen);
+            }
+            std::thread::sleep(std::time::Duration::from_millis(50));
+        };
+        let rest: Vec<String> = self.lines.iter().collect();
+        self.seen.push_str(&rest.join("\n"));
+        let stderr = self.stderr.join().unwrap();
+        (status.code().unwrap_or(-1), self.seen, stderr)
+    }
+}
+
+/// Whether the report reloads itself: a page that frames it reads how many times the
+/// framed report has loaded, after four seconds of the browser's virtual time (the
+/// report reloads every two).
+fn report_loads_in_a_browser(dir: &std::path::Path, report: &str) -> Option<u32> {
+    let browser = crate::outputs::browser_or_skip("; the reload was checked as text only")?;
+    let frame = dir.join("frame.html");
+    std::fs::write(
+        &frame,
+        format!(
+            "<!DOCTYPE html><html><body><iframe id=\"f\" src=\"{report}\"></iframe><p id=\"out\">none</p>\
+             <script>setTimeout(function () {{ var d = document.getElementById('f').contentDocument;\
+             document.getElementById('out').textContent = 'loads=' + (d ? d.documentElement.getAttribute('data-reeve-loads') : 'blocked'); }}, 4500);</script></body></html>"
+        ),
+    )
+    .unwrap();
+    let profile = dir.join("profile");
+    std::fs::create_dir_all(&profile).unwrap();
+    let mut cmd = crate::outputs::headless(&browser, &profile);
+    cmd.args([
+        "--allow-file-access-from-files",
+        "--virtual-time-budget=6000",
+        "--dump-dom",
+    ])
+    .arg(format!(
+        "file://{}",
+        frame.canonicalize().unwrap().display()
+    ));
+    let dom = crate::outputs::run_with_deadline(cmd, std::time::Duration::from_secs(120));
+    let loads = dom
+        .split("loads=")
+        .nth(1)
+        .and_then(|s| s.split('<').next())
+        .unwrap_or_else(|| panic!("no load count in:\n{dom:.800}"));
+    Some(
+        loads
+            .trim()
+            .parse()
+            .unwrap_or_else(|_| panic!("loads={loads}")),
+    )
+}
+
+/// A real watch in a temporary folder: a save in place, a save by rename (as many
+/// editors do), a save with an error, each answered by one round; the report carries its
+/// reload while watching and reloads in a browser; SIGINT stops it cleanly (exit 0, the
+/// report rewritten without the reload, no temporary file left).
+#[test]
+fn watch_re_solves_on_every_save_and_stops_cleanly() {
+    let dir = Scratch::new("watch");
+    reeve_in(&dir, &["new", "tackle", "rig.yaml", "--no-schema"]).expect_code(0);
+    let rig = dir.join("rig.yaml");
+    let text = std::fs::read_to_string(&rig).unwrap();
+    assert!(text.contains("load: {mass: 120}"));
+    let mut watch = Watching::start(&dir, &["watch", "rig.yaml", "-o", "report.html"]);
+    let first = watch.until("watching rig.yaml");
+    // 120 kg on four parts: 120 × 9.80665 / 4 = 294.1995 N ideal.
+    assert!(first.contains("294.2 N"), "{first}");
+    assert!(first.contains("report: report.html rewritten"), "{first}");
+    let live = std::fs::read_to_string(dir.join("report.html")).unwrap();
+    assert!(
+        live.contains("id=\"reeve-watch\""),
+        "no reload script while watching"
+    );
+
+    // Saved in place: 150 kg, 150 × 9.80665 / 4 = 367.749 N.
+    std::fs::write(&rig, text.replace("mass: 120}", "mass: 150}")).unwrap();
+    let second = watch.until("watching rig.yaml");
+    assert!(second.contains("367.7 N"), "{second}");
+
+    // Saved by writing another file and renaming it over the rig: 90 kg, 220.650 N.
+    let temp = dir.join(".rig.yaml.swp");
+    std::fs::write(&temp, text.replace("mass: 120}", "mass: 90}")).unwrap();
+    std::fs::rename(&temp, &rig).unwrap();
+    let third = watch.until("watching rig.yaml");
+    assert!(third.contains("220.6 N"), "{third}");
+
+    if let Some(loads) = report_loads_in_a_browser(&dir, "report.html") {
+        assert!(
+            loads >= 2,
+            "the report did not reload itself (loads={loads})"
+        );
+    }
+
+    // Saved with a mistake: one round, the problem on stderr, the watch goes on.
+    std::fs::write(&rig, text.replace("mass: 120}", "mass: heavy}")).unwrap();
+    watch.until("watching rig.yaml");
+    let (code, out, err) = watch.interrupt();
+    assert_eq!(code, 0, "{out}\n{err}");
+    assert!(out.contains("stopped watching rig.yaml"), "{out}");
+    assert!(err.contains("parts.hook.load.mass"), "{err}");
+    assert!(
+        err.contains("^"),
+        "the problem shows its line and caret: {err}"
+    );
+    let kept = std::fs::read_to_string(dir.join("report.html")).unwrap();
+    assert!(
+        !kept.contains("reeve-watch"),
+        "the reload outlived the watch"
+    );
+    assert!(kept.contains("220.6"), "the last good report is kept");
+    let leftovers: Vec<String> = std::fs::read_dir(&*dir)
+        .unwrap()
+        .map(|e| e.unwrap().file_name().to_string_lossy().into_owned())
+        .filter(|n| n.ends_with(".tmp"))
+        .collect();
+    assert!(leftovers.is_empty(), "{leftovers:?}");
+}
+
+#[test]
+fn watch_refuses_a_report_over_its_rig_or_on_stdout() {
+    let dir = Scratch::new("watch-refuse");
+    reeve_in(&dir, &["new", "winch", "rig.yaml", "--no-schema"]).expect_code(0);
+    let (code, _, err) = reeve_in(&dir, &["watch", "rig.yaml", "-o", "-"]).parts();
+    assert_eq!(code, 2, "{err}");
+    let (code, _, err) = reeve_in(&dir, &["watch", "rig.yaml", "-o", "rig.yaml"]).parts();
+    assert_eq!(code, 2, "{err}");
+    assert!(
+        err.contains("refusing to write over the input rig"),
+        "{err}"
+    );
+}
