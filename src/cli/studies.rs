@@ -9,6 +9,8 @@ use reeve::model::PartKind;
 use reeve::report::study as writers;
 use reeve::study::{compare, rank, spread, sweep, RigSource};
 
+use super::progress::Bar;
+
 use super::args::{FormatArgs, RigArgs, SetArgs};
 use super::destination::{emit, Destination};
 use super::{parse_sets, write_out, Failure, EXIT_CHECK_FAILED, EXIT_OK};
@@ -166,7 +168,7 @@ pub fn run_sweep(args: SweepArgs) -> Result<i32, Failure> {
     let steps = checked_steps(args.steps, if args.stroke.is_some() { 10 } else { 11 })?;
     let s = source(&args.rig)?;
     let (chart, write, fails): (String, Writer, bool) = if let Some(distance) = &args.stroke {
-        let st = sweep::stroke(&s, distance, steps, 8)?;
+        let st = sweep::stroke(&s, distance, steps, 8, &Bar::new("stroke"))?;
         let fails = st.fails();
         (
             writers::sweep::stroke_chart(&st),
@@ -176,7 +178,7 @@ pub fn run_sweep(args: SweepArgs) -> Result<i32, Failure> {
     } else {
         let text = args.vary.as_deref().unwrap_or_default();
         let vary = sweep::parse_vary(text)?;
-        let sw = sweep::sweep(&s, &vary, steps)?;
+        let sw = sweep::sweep(&s, &vary, steps, &Bar::new("sweep"))?;
         // A key that no step can take (no such part, a value in the wrong unit) is bad
         // input, not a table of dashes.
         if sw.steps.iter().all(|st| st.error.is_some()) {
@@ -225,7 +227,7 @@ pub fn run_rank(args: RankArgs) -> Result<i32, Failure> {
                 })?;
         }
     }
-    let r = rank::rank(&s, alt.as_ref())?;
+    let r = rank::rank(&s, alt.as_ref(), &Bar::new("rank"))?;
     write_out(|w| writers::rank::write(w, &r, format))?;
     Ok(exit_code(r.fails()))
 }
@@ -243,7 +245,13 @@ pub fn run_spread(args: SpreadArgs) -> Result<i32, Failure> {
         )));
     }
     let s = source(&args.rig)?;
-    let r = spread::spread(&s, args.samples, args.seed, args.threads, true)?;
+    let r = spread::spread(
+        &s,
+        args.samples,
+        args.seed,
+        args.threads,
+        &Bar::new("spread"),
+    )?;
     write_out(|w| writers::spread::write(w, &r, format))?;
     Ok(exit_code(r.fails()))
 }

@@ -575,3 +575,91 @@ fn watch_refuses_a_report_over_its_rig_or_on_stdout() {
         "{err}"
     );
 }
+
+// ---- progress of long studies (issue 13 item 8) ----
+
+/// The studies that show progress, each on a rig it suits.
+fn long_studies() -> Vec<Vec<String>> {
+    let spread = crate::support::test_rig("spread-hoist.yaml");
+    let hoist = crate::support::example_rig("workshop-hoist");
+    vec![
+        vec!["spread".into(), spread, "--samples".into(), "200".into()],
+        vec![
+            "sweep".into(),
+            hoist.clone(),
+            "--vary".into(),
+            "parts.hook.load.mass=100..900 kg".into(),
+            "--steps".into(),
+            "30".into(),
+        ],
+        vec!["rank".into(), hoist],
+    ]
+}
+
+/// Piped (as here: the test reads both streams), no study writes progress text.
+#[test]
+fn piped_studies_show_no_progress() {
+    for args in long_studies() {
+        let args: Vec<&str> = args.iter().map(String::as_str).collect();
+        let ran = reeve(&args);
+        assert!(ran.code <= 1, "{args:?}: {}", ran.stderr);
+        for (stream, text) in [("stdout", &ran.stdout), ("stderr", &ran.stderr)] {
+            assert!(
+                !text.contains('\r'),
+                "{args:?}: carriage return on {stream}"
+            );
+            assert!(
+                !text.contains("runs,"),
+                "{args:?}: progress on {stream}:\n{text}"
+            );
+            assert!(
+                !text.contains("\u{1b}["),
+                "{args:?}: terminal codes on {stream}"
+            );
+        }
+    }
+}
+
+/// On a terminal (a pseudo-terminal made by util-linux `script`, where installed) the
+/// bar is drawn on stderr, and stdout redirected to a file still gets none of it.
+#[test]
+fn a_terminal_shows_the_progress_bar() {
+    let Some(script) = std::env::var_os("PATH").and_then(|paths| {
+        std::env::split_paths(&paths)
+            .map(|d| d.join("script"))
+            .find(|p| p.is_file())
+    }) else {
+        eprintln!("skipped: no `script` on PATH to make a terminal");
+        return;
+    };
+    let dir = Scratch::new("progress");
+    let out = dir.join("out.txt");
+    let log = dir.join("tty.log");
+    let command = format!(
+        "'{}' spread '{}' --samples 200 > '{}'",
+        env!("CARGO_BIN_EXE_reeve"),
+        crate::support::test_rig("spread-hoist.yaml"),
+        out.display()
+    );
+    let status = std::process::Command::new(script)
+        .args(["-q", "-e", "-c", &command])
+        .arg(&log)
+        .stdin(std::process::Stdio::null())
+        .stdout(std::process::Stdio::null())
+        .stderr(std::process::Stdio::null())
+        .status()
+        .unwrap();
+    assert!(status.success(), "{status}");
+    let terminal = std::fs::read_to_string(&log).unwrap_or_default();
+    assert!(
+        terminal.contains("spread ["),
+        "no bar on the terminal:\n{terminal:.400}"
+    );
+    assert!(terminal.contains("/200 runs"), "{terminal:.400}");
+    let printed = std::fs::read_to_string(&out).unwrap();
+    assert!(
+        !printed.contains("runs,") && !printed.contains('\r'),
+        "{printed}"
+    );
+    assert!(printed.contains("Caution"), "{printed}");
+}
