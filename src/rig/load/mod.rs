@@ -40,6 +40,7 @@ use crate::rig::error::{LoadError, Problem};
 use crate::rig::file::{parse_tree, Node, MAX_INPUT_BYTES};
 use crate::rig::overrides::{apply_overrides, read_variants, take_ranges, Uncertain, Variant};
 
+mod key;
 mod keys;
 mod lines;
 mod parts;
