@@ -1,5 +1,5 @@
 //! The JSON Schema (draft 2020-12) of rig format 1, generated from the loader's own key
-//! definitions ([`super::keys`]): every key, part kind and bearing kind, which keys are
+//! definitions (`src/rig/load/keys.rs`): every key, part kind and bearing kind, which keys are
 //! required, each default, and the patterns of the unit-bearing strings, built from the
 //! unit spellings the loader accepts ([`Dimension::spellings`], [`UNIT_ALIASES`]). A key
 //! added to `keys.rs` appears here with no edit to this file.
@@ -332,7 +332,7 @@ fn range_words(range: Range) -> String {
     let show = |v: f64| crate::units::significant(v, 6);
     let words = match (range.min, range.max) {
         (None, None) => return String::new(),
-        (Some((min, false)), None) if min == 0.0 => "positive".to_string(),
+        (Some((0.0, false)), None) => "positive".to_string(),
         (Some((min, true)), None) => format!("{} or more", show(min)),
         (Some((min, false)), None) => format!("greater than {}", show(min)),
         (None, Some((max, true))) => format!("at most {}", show(max)),
