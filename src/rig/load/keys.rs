@@ -104,7 +104,7 @@ pub(super) const TOP_KEYS: &[Key] = &[
     Key::new(
         "runs_back",
         Shape::Flag,
-        "whether the rig is meant to run back by itself (a lowering or a counterweight that returns)",
+        "whether the rig must run back by itself (a lid or vent that closes when let go); a self-locking rig is then warned about",
     )
     .default("false"),
     Key::new(
@@ -521,7 +521,7 @@ impl Kind {
             Kind::Guide => "a fixed round surface the rope slides over (pin, bar, fairlead)",
             Kind::Block => "a moving frame carrying sheaves and a load",
             Kind::Weight => "a hanging mass at a line end, moving along gravity",
-            Kind::Drum => "a drum turning on a shaft (hinge drum, winch barrel, capstan head)",
+            Kind::Drum => "turns on a shaft (a hinge drum, a winch barrel, a capstan head)",
             Kind::Haul => "a free line end where the effort is applied",
         }
     }

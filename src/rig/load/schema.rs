@@ -205,7 +205,7 @@ fn shape(of: &Shape) -> (Value, String) {
         }
         Shape::Number(range) => (
             bounded(json!({"type": "number"}), range),
-            range_words(range).trim_start_matches("; ").to_string(),
+            capitalized(range_words(range).trim_start_matches("; ")),
         ),
         Shape::Whole(range) => (bounded(json!({"type": "integer"}), range), String::new()),
         Shape::Angle(range) => (
@@ -329,7 +329,7 @@ fn bounded(mut value: Value, range: Range) -> Value {
 
 /// `; greater than 0`, `; from 0 to 1000`, or nothing.
 fn range_words(range: Range) -> String {
-    let show = |v: f64| crate::units::significant(v, 6);
+    let show = |v: f64| format!("{v}");
     let words = match (range.min, range.max) {
         (None, None) => return String::new(),
         (Some((0.0, false)), None) => "positive".to_string(),
@@ -346,6 +346,14 @@ fn range_words(range: Range) -> String {
         ),
     };
     format!("; {words}")
+}
+
+/// The text with its first letter in upper case.
+fn capitalized(text: &str) -> String {
+    let mut chars = text.chars();
+    chars
+        .next()
+        .map_or(String::new(), |c| c.to_uppercase().chain(chars).collect())
 }
 
 /// The alternatives of a dimension's unit spellings as the loader reads them: each
