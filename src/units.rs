@@ -219,22 +219,29 @@ pub fn parse_unit(text: &str) -> Option<Unit> {
         .trim()
         .replace(['·', '.', '-', ' '], "*")
         .replace("**", "*");
-    let canonical = match cleaned.as_str() {
-        "Nm" => "N*m",
-        "Nmm" => "N*mm",
-        "in*lbf" => "lbf*in",
-        "ft*lbf" => "lbf*ft",
-        "m*N" => "N*m",
-        "mm*N" => "N*mm",
-        "kNm" => "kN*m",
-        "m*kN" => "kN*m",
-        "inch" | "inches" => "in",
-        "feet" | "foot" => "ft",
-        "lbs" => "lb",
-        other => other,
-    };
+    let canonical = UNIT_ALIASES
+        .iter()
+        .find(|(alias, _)| *alias == cleaned)
+        .map_or(cleaned.as_str(), |(_, symbol)| symbol);
     UNITS.iter().copied().find(|u| u.symbol == canonical)
 }
+
+/// Other spellings of a unit, after [`parse_unit`]'s cleaning (`·`, `.`, `-` and spaces
+/// between factors become `*`), each with the canonical symbol it means. The rig
+/// schema's unit patterns are made from these and [`Dimension::spellings`].
+pub const UNIT_ALIASES: &[(&str, &str)] = &[
+    ("Nm", "N*m"),
+    ("Nmm", "N*mm"),
+    ("in*lbf", "lbf*in"),
+    ("ft*lbf", "lbf*ft"),
+    ("m*N", "N*m"),
+    ("mm*N", "N*mm"),
+    ("inch", "in"),
+    ("inches", "in"),
+    ("feet", "ft"),
+    ("foot", "ft"),
+    ("lbs", "lb"),
+];
 
 /// Looks a unit up and checks that it measures `dimension`.
 pub fn parse_unit_of(text: &str, dimension: Dimension) -> Result<Unit, UnitError> {

@@ -24,7 +24,7 @@ use crate::report::Asked;
 use crate::report::{finite, CAUTION};
 use crate::units::UnitSystem;
 
-use super::{RigSource, StudyError, Verdict};
+use super::{Progress, RigSource, StudyError, Verdict};
 
 /// Friction coefficient of the `--to rolling` default: a deep-groove ball bearing's
 /// constant coefficient referred to the bore (from memory of rolling-bearing
@@ -380,8 +380,14 @@ pub fn derivative(source: &RigSource, c: &Coefficient) -> Result<Real, StudyErro
 ///
 /// # Errors
 /// When the rig as written does not load or solve.
-pub fn rank(source: &RigSource, alt: Option<&Alternative>) -> Result<Ranking, StudyError> {
+pub fn rank(
+    source: &RigSource,
+    alt: Option<&Alternative>,
+    progress: &dyn Progress,
+) -> Result<Ranking, StudyError> {
     let (rig, solution) = source.solve(&[])?;
+    let coefficients = coefficients(&rig, source);
+    progress.start(rig.parts.len() + coefficients.len());
     let main = solution.main();
     let f0 = main.forward.value;
     let sign = if main.drive_unknown() { -1.0 } else { 1.0 };
@@ -390,6 +396,7 @@ pub fn rank(source: &RigSource, alt: Option<&Alternative>) -> Result<Ranking, St
     let mut order = Vec::new();
     let mut parts = Vec::new();
     for (id, part) in rig.parts.iter().enumerate() {
+        progress.step();
         let Some(settings) = frictionless_settings(&rig, id) else {
             continue;
         };
@@ -452,7 +459,8 @@ pub fn rank(source: &RigSource, alt: Option<&Alternative>) -> Result<Ranking, St
     let parts = largest_first(parts, order);
     let mut sensitivities = Vec::new();
     let mut order = Vec::new();
-    for c in coefficients(&rig, source) {
+    for c in coefficients {
+        progress.step();
         let d = derivative(source, &c).ok().and_then(finite);
         let less = (
             c.key.clone(),
@@ -476,6 +484,7 @@ pub fn rank(source: &RigSource, alt: Option<&Alternative>) -> Result<Ranking, St
     }
     // Largest saving first, as the ranking.
     let sensitivities = largest_first(sensitivities, order);
+    progress.finish();
     Ok(Ranking {
         solve_for: Asked::of(&rig, main),
         forward: finite(f0),

@@ -5,8 +5,6 @@
 //! ([`Rng::stream`]), so the numbers do not depend on the number of threads.
 
 use std::collections::BTreeMap;
-use std::io::{self, IsTerminal};
-use std::sync::atomic::{AtomicBool, AtomicUsize, Ordering};
 
 use serde::Serialize;
 
@@ -17,7 +15,7 @@ use crate::rig::overrides::{Distribution, Uncertain};
 use crate::units::UnitSystem;
 
 use super::rng::Rng;
-use super::{assess, largest_tension, ModelSampler, RigSource, StudyError, Verdict};
+use super::{assess, largest_tension, ModelSampler, Progress, RigSource, StudyError, Verdict};
 use crate::report::text::not_moving_words;
 
 /// Draws one value of a distribution.
@@ -207,7 +205,7 @@ impl Spread {
 }
 
 /// Runs `samples` samples on `threads` threads (0: as many as the machine has),
-/// showing a progress bar on stderr when `progress` and stderr is a terminal.
+/// telling `progress` of each sample done.
 ///
 /// # Errors
 /// When the rig as written does not load or solve.
@@ -216,7 +214,7 @@ pub fn spread(
     samples: usize,
     seed: u64,
     threads: usize,
-    progress: bool,
+    progress: &dyn Progress,
 ) -> Result<Spread, StudyError> {
     let ranges = source.ranges()?;
     let (rig, nominal) = source.solve(&[])?;
@@ -237,31 +235,19 @@ pub fn spread(
         threads
     }
     .clamp(1, samples.max(1));
-    let done = AtomicUsize::new(0);
-    let finished = AtomicBool::new(false);
-    let show = progress && io::stderr().is_terminal() && samples >= 50;
     let mut results: Vec<Option<Sample>> = vec![None; samples];
+    progress.start(samples);
     std::thread::scope(|scope| {
-        let bar = show.then(|| {
-            scope.spawn(|| {
-                while !finished.load(Ordering::Relaxed) {
-                    draw_bar(done.load(Ordering::Relaxed), samples);
-                    std::thread::sleep(std::time::Duration::from_millis(100));
-                }
-                draw_bar(samples, samples);
-                eprintln!();
-            })
-        });
         // Thread t takes samples t, t + threads, ...; each sample uses its own stream.
         let chunks: Vec<Vec<(usize, Option<Sample>)>> = (0..threads)
             .map(|t| {
-                let (ranges, done, model) = (&ranges, &done, model.as_ref());
+                let (ranges, model) = (&ranges, model.as_ref());
                 scope.spawn(move || {
                     (t..samples)
                         .step_by(threads)
                         .map(|i| {
                             let r = run_sample_on(source, model, ranges, seed, i as u64);
-                            done.fetch_add(1, Ordering::Relaxed);
+                            progress.step();
                             (i, r)
                         })
                         .collect::<Vec<_>>()
@@ -271,14 +257,11 @@ pub fn spread(
             .into_iter()
             .map(|h| h.join().unwrap_or_default())
             .collect();
-        finished.store(true, Ordering::Relaxed);
-        if let Some(b) = bar {
-            let _ = b.join();
-        }
         for (i, r) in chunks.into_iter().flatten() {
             results[i] = r;
         }
     });
+    progress.finish();
     let nominal_report = assess(&rig, &nominal);
     let ok: Vec<Sample> = results.into_iter().flatten().collect();
     let judged: Vec<bool> = ok.iter().filter_map(|s| s.verdict.moves).collect();
@@ -329,16 +312,6 @@ pub fn spread(
         units: rig.units,
         csv_units: None,
     })
-}
-
-fn draw_bar(done: usize, total: usize) {
-    let width = 40;
-    let filled = (done * width).checked_div(total).unwrap_or(width);
-    eprint!(
-        "\r[{}{}] {done}/{total}",
-        "#".repeat(filled),
-        " ".repeat(width - filled.min(width))
-    );
 }
 
 #[cfg(test)]

@@ -20,7 +20,8 @@ use crate::solve::Solution;
 use crate::units::{parse_quantity, Dimension, UnitSystem};
 
 use super::{
-    largest_fleet_deg, largest_tension, number_and_unit, with_unit, RigSource, StudyError, Verdict,
+    largest_fleet_deg, largest_tension, number_and_unit, with_unit, Progress, RigSource,
+    StudyError, Verdict,
 };
 
 /// A value to vary: `KEY=FROM..TO`, the bounds in the unit written (or the file's).
@@ -149,7 +150,12 @@ impl Stroke {
 /// # Errors
 /// When the rig does not load as written, or both ends are equal over more than one
 /// step. Steps that fail carry their error.
-pub fn sweep(source: &RigSource, vary: &Vary, steps: usize) -> Result<Sweep, StudyError> {
+pub fn sweep(
+    source: &RigSource,
+    vary: &Vary,
+    steps: usize,
+    progress: &dyn Progress,
+) -> Result<Sweep, StudyError> {
     if vary.from == vary.to && steps > 1 {
         return Err(StudyError::Input(format!(
             "--vary `{}`: both ends are {}, so every step would be the same rig: nothing to sweep (give two different ends, or --steps 1)",
@@ -168,7 +174,9 @@ pub fn sweep(source: &RigSource, vary: &Vary, steps: usize) -> Result<Sweep, Stu
         .and_then(|&first| source.sampler(&base, &keys, &[first]));
     let mut solve_for = None;
     let mut out = Vec::new();
+    progress.start(values.len());
     for value in values {
+        progress.step();
         match source.solve_values(model.as_ref(), &keys, &[value]) {
             Ok((rig, solution)) => {
                 let main = solution.main();
@@ -194,6 +202,7 @@ pub fn sweep(source: &RigSource, vary: &Vary, steps: usize) -> Result<Sweep, Stu
             }),
         }
     }
+    progress.finish();
     Ok(Sweep {
         key: vary.key.clone(),
         unit: vary.unit.clone(),
@@ -325,6 +334,7 @@ pub fn stroke(
     distance: &str,
     steps: usize,
     substeps: usize,
+    progress: &dyn Progress,
 ) -> Result<Stroke, StudyError> {
     let (mut rig, mut first) = source.solve(&[])?;
     let drive = rig.drive;
@@ -399,7 +409,9 @@ pub fn stroke(
     };
     out.push(record(0.0, &rig, &first));
     let mut current = first;
+    progress.start(steps);
     'outer: for step in 1..=steps {
+        progress.step();
         if out.last().is_some_and(|s: &StrokeStep| s.error.is_some()) {
             break;
         }
@@ -426,6 +438,7 @@ pub fn stroke(
         }
         out.push(record(step as Real * total / steps as Real, &rig, &current));
     }
+    progress.finish();
     Ok(Stroke {
         drive: rig.parts[drive].name.clone(),
         travel_unit: if rotates { "rad" } else { "m" },

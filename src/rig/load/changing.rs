@@ -4,21 +4,15 @@
 //! reader records located problems as the others do; the results go to
 //! [`crate::model::changing`].
 
-use super::keys::{get, join, Kind};
+use super::keys::{
+    get, join, key_names, Kind, BLOCK_SPRING_KEYS, DRUM_SPRING_KEYS, LEVER_KEYS, TRAVEL_KEYS,
+};
 use super::read::Resolver;
 use crate::math::{Real, Vector};
 use crate::model::changing::{Lever, PartChanging, Schedule, Spring, Travel};
 use crate::rig::file::{Entry, Node, Value};
 use crate::units::Dimension;
 
-/// Keys of a lever.
-const LEVER_KEYS: &[&str] = &["mass", "arm"];
-/// Keys of a block spring.
-const BLOCK_SPRING_KEYS: &[&str] = &["rate", "force"];
-/// Keys of a drum spring.
-const DRUM_SPRING_KEYS: &[&str] = &["rate", "torque"];
-/// Keys of `travel`.
-pub(super) const TRAVEL_KEYS: &[&str] = &["back", "forward"];
 /// The most points a schedule may have.
 const MOST_POINTS: usize = 10_000;
 
@@ -148,7 +142,7 @@ impl Resolver {
     fn lever(&mut self, node: &Node, path: &str) -> Option<Lever> {
         let expected = "a lever `{mass: 12 kg, arm: [300, 0, 0]}`";
         let entries = self.mapping(node, path, expected)?;
-        self.keys(entries, path, LEVER_KEYS, "a lever");
+        self.keys(entries, path, &key_names(LEVER_KEYS), "a lever");
         let mass = self
             .require(
                 entries,
@@ -192,7 +186,7 @@ impl Resolver {
             )
         };
         let entries = self.mapping(node, path, expected)?;
-        self.keys(entries, path, keys, "a spring");
+        self.keys(entries, path, &key_names(keys), "a spring");
         let rate = match get(entries, "rate") {
             Some(n) => {
                 let p = join(path, "rate");
@@ -234,7 +228,7 @@ impl Resolver {
             "the drive's travel `{back: 0 mm, forward: 800 mm}`"
         };
         let entries = self.mapping(node, "travel", expected)?;
-        self.keys(entries, "travel", TRAVEL_KEYS, "travel");
+        self.keys(entries, "travel", &key_names(TRAVEL_KEYS), "travel");
         let read = |r: &mut Resolver, key: &str| -> Option<Real> {
             let Some(n) = get(entries, key) else {
                 return Some(0.0);

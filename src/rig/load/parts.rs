@@ -1,6 +1,6 @@
 //! Resolution of one part: its kind's keys, sizes, bearings, shaft and load.
 
-use super::keys::{get, join, Kind, KINDS, LOAD_KEYS, SHAFT_KEYS};
+use super::keys::{get, join, key_names, Kind, KINDS, LOAD_KEYS, PART_KEYS, SHAFT_KEYS};
 use super::read::{Names, Resolver};
 use crate::math::Point;
 use crate::model::{
@@ -22,8 +22,8 @@ pub(super) fn part(
     let node = &e.value;
     let entries = r.mapping(node, &path, "a part `{kind, at, ...}`")?;
     let kind = kind?;
-    let mut allowed = vec!["kind", "at"];
-    allowed.extend_from_slice(kind.keys());
+    let mut allowed = key_names(PART_KEYS);
+    allowed.extend(key_names(kind.keys()));
     let context = format!("{} part", kind.a());
     for entry in entries
         .iter()
@@ -32,7 +32,7 @@ pub(super) fn part(
         // A key of another kind says so; otherwise suggest a close key.
         let owner = KINDS
             .iter()
-            .find(|(_, k)| k.keys().contains(&entry.key.as_str()));
+            .find(|(_, k)| k.keys().iter().any(|key| key.name == entry.key));
         let hint = did_you_mean(&entry.key, allowed.iter().copied());
         let message = match (owner, hint.is_empty()) {
             (Some((owner, _)), true) => format!(
@@ -299,7 +299,7 @@ pub(super) fn block_load(
     let Some(load) = r.mapping(node, &p, "a load `{mass: m}` or `{force: f}`") else {
         return (None, false);
     };
-    r.keys(load, &p, LOAD_KEYS, "a block load");
+    r.keys(load, &p, &key_names(LOAD_KEYS), "a block load");
     let mass = load.iter().find(|x| x.key == "mass");
     let force = load.iter().find(|x| x.key == "force");
     let (key, entry, is_force) = match (mass, force) {
@@ -349,7 +349,7 @@ pub(super) fn block_load(
 
 pub(super) fn shaft(r: &mut Resolver, node: &Node, path: &str) -> Option<Shaft> {
     let entries = r.mapping(node, path, "a shaft `{bearing, thrust}`")?;
-    r.keys(entries, path, SHAFT_KEYS, "a shaft");
+    r.keys(entries, path, &key_names(SHAFT_KEYS), "a shaft");
     if get(entries, "bearing").is_none() && get(entries, "thrust").is_none() {
         r.report(
             node.location,

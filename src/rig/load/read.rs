@@ -3,7 +3,10 @@
 
 use std::collections::HashMap;
 
-use super::keys::{get, join, Kind, BEARING_KINDS, GROOVE_KEYS, LARGEST, THRUST_KEYS};
+use super::keys::{
+    get, join, key_names, names_with_kind, Kind, BEARINGS, CONTACTS, GROOVE_KEYS, LARGEST,
+    THRUST_KEYS,
+};
 use crate::math::{Direction, Real, Vector};
 use crate::model::{Bearing, Contact, Location, Thrust};
 use crate::rig::error::Problem;
@@ -461,7 +464,7 @@ impl Resolver {
         let node = get(entries, "groove")?;
         let p = join(path, "groove");
         let g = self.mapping(node, &p, "a groove `{angle: degrees}`")?;
-        self.keys(g, &p, GROOVE_KEYS, "a groove");
+        self.keys(g, &p, &key_names(GROOVE_KEYS), "a groove");
         let a = self.require(
             g,
             "angle",
@@ -491,20 +494,17 @@ impl Resolver {
             node.location,
             "a bearing kind: plain, rolling, rated or none",
         )?;
-        let kind = self.choice(
-            kind_node,
-            &join(path, "kind"),
-            BEARING_KINDS,
-            "bearing kind",
-        )?;
-        match BEARING_KINDS[kind] {
+        let kinds: Vec<&str> = BEARINGS.iter().map(|b| b.name).collect();
+        let kind = self.choice(kind_node, &join(path, "kind"), &kinds, "bearing kind")?;
+        let bearing = &BEARINGS[kind];
+        let allowed = names_with_kind(bearing.object.keys);
+        let context = match bearing.name {
+            "none" => "a bearing of kind none".to_string(),
+            name => format!("a {name} bearing"),
+        };
+        match bearing.name {
             "plain" => {
-                self.keys(
-                    entries,
-                    path,
-                    &["kind", "pin_diameter", "mu", "mu_static"],
-                    "a plain bearing",
-                );
+                self.keys(entries, path, &allowed, &context);
                 let pin_diameter = self.size(entries, "pin_diameter", path, node.location);
                 let mu = self.mu(entries, "mu", path, node.location);
                 let mu_static = self.opt_mu(entries, "mu_static", path);
@@ -515,7 +515,7 @@ impl Resolver {
                 })
             }
             "rolling" => {
-                self.keys(entries, path, &["kind", "bore", "mu"], "a rolling bearing");
+                self.keys(entries, path, &allowed, &context);
                 let bore = self.size(entries, "bore", path, node.location);
                 let mu = self.mu(entries, "mu", path, node.location);
                 Some(Bearing::Rolling {
@@ -524,12 +524,7 @@ impl Resolver {
                 })
             }
             "rated" => {
-                self.keys(
-                    entries,
-                    path,
-                    &["kind", "factor", "efficiency"],
-                    "a rated bearing",
-                );
+                self.keys(entries, path, &allowed, &context);
                 match (get(entries, "factor"), get(entries, "efficiency")) {
                     (Some(f), None) => {
                         let p = join(path, "factor");
@@ -565,7 +560,7 @@ impl Resolver {
                 }
             }
             _ => {
-                self.keys(entries, path, &["kind"], "a bearing of kind none");
+                self.keys(entries, path, &allowed, &context);
                 Some(Bearing::None)
             }
         }
@@ -588,7 +583,7 @@ impl Resolver {
                 "a thrust bearing `{diameter, mu, contact: new|worn, load?}`"
             },
         )?;
-        self.keys(entries, path, THRUST_KEYS, "a thrust bearing");
+        self.keys(entries, path, &key_names(THRUST_KEYS), "a thrust bearing");
         let at = node.location;
         let load = if !load_required {
             Some(
@@ -627,7 +622,7 @@ impl Resolver {
                 at,
                 "`new` (uniform pressure) or `worn` (uniform wear)",
             )
-            .and_then(|n| self.choice(n, &join(path, "contact"), &["new", "worn"], "contact"))
+            .and_then(|n| self.choice(n, &join(path, "contact"), CONTACTS, "contact"))
             .map(|i| if i == 0 { Contact::New } else { Contact::Worn });
         let cone_angle = match get(entries, "cone_angle") {
             Some(n) => {

@@ -5,8 +5,8 @@ use std::collections::HashMap;
 use std::path::Path;
 
 use super::keys::{
-    default_min_bend_ratio, get, join, Kind, KINDS, LIMIT_KEYS, ROPE_KEYS, ROPE_KINDS, TOP_KEYS,
-    UNIT_KEYS,
+    default_min_bend_ratio, get, join, key_names, Kind, KINDS, LIMIT_KEYS, ROPE_KEYS, ROPE_KINDS,
+    TOP_KEYS, UNIT_KEYS,
 };
 use super::lines::line;
 use super::parts::{default_torque, part};
@@ -35,7 +35,7 @@ pub(super) fn resolve(root: &Node, source: &str) -> Result<Rig, Vec<Problem>> {
     ) else {
         return Err(r.problems);
     };
-    r.keys(top, "", TOP_KEYS, "a rig file");
+    r.keys(top, "", &key_names(TOP_KEYS), "a rig file");
     let here = root.location;
     if let Some(n) = get(top, "variants") {
         r.problems.extend(read_variants(n).1);
@@ -82,7 +82,7 @@ pub(super) fn resolve(root: &Node, source: &str) -> Result<Rig, Vec<Problem>> {
     let mut torque_stated = false;
     if let Some(n) = get(top, "units") {
         if let Some(entries) = r.mapping(n, "units", "a mapping `{length, force, mass, torque}`") {
-            r.keys(entries, "units", UNIT_KEYS, "units");
+            r.keys(entries, "units", &key_names(UNIT_KEYS), "units");
             for (key, dim) in [
                 ("length", Dimension::Length),
                 ("force", Dimension::Force),
@@ -139,7 +139,7 @@ pub(super) fn resolve(root: &Node, source: &str) -> Result<Rig, Vec<Problem>> {
     let mut stop_speed = None;
     if let Some(n) = get(top, "limits") {
         if let Some(entries) = r.mapping(n, "limits", "a mapping `{fleet_angle, design_factor}`") {
-            r.keys(entries, "limits", LIMIT_KEYS, "limits");
+            r.keys(entries, "limits", &key_names(LIMIT_KEYS), "limits");
             if let Some(f) = get(entries, "fleet_angle") {
                 let v = r.angle(f, "limits.fleet_angle");
                 if let Some(v) = r.check(
@@ -358,7 +358,7 @@ pub(super) fn rope(r: &mut Resolver, e: &Entry) -> Option<Rope> {
         &path,
         "a rope `{diameter, mu, breaking_strength?, min_bend_ratio?, bend_loss?, kind?, stiffness?, mass_per_length?}`",
     )?;
-    r.keys(entries, &path, ROPE_KEYS, "a rope");
+    r.keys(entries, &path, &key_names(ROPE_KEYS), "a rope");
     let at = node.location;
     let diameter = r.size(entries, "diameter", &path, at);
     let breaking_strength = match get(entries, "breaking_strength") {
