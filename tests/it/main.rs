@@ -10,6 +10,7 @@ mod generators;
 mod geometry;
 mod load_errors;
 mod material;
+mod material_warnings;
 mod numerics;
 mod outputs;
 mod pin_loads_3d;

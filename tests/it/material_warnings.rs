@@ -1,0 +1,81 @@
+//! Guards that rope-as-material values which load fine but mean nothing (a stretch
+//! longer than the span, a bend loss of half the tension, a rope denser or stiffer than
+//! solid steel) are flagged by a warning instead of printed clean (issue 11, "never
+//! silently wrong"), and that ordinary values stay quiet.
+
+use reeve::checks::Warning;
+
+use crate::support::solve_text;
+
+/// A 10 kg weight on a 10 mm rope over one head sheave 10 m up (our own probe rig);
+/// `ROPE_KEYS` is replaced by the rope's material keys under test.
+const HOIST: &str = r#"format: 1
+title: probe hoist
+units: {length: m, force: N, mass: kg}
+ropes:
+  r: {diameter: "10 mm", breaking_strength: "20 kN", mu: 0.2, ROPE_KEYS}
+parts:
+  head: {kind: sheave, at: [0, 0, 10], axle: [0, 1, 0], diameter: "200 mm",
+         bearing: {kind: plain, pin_diameter: "20 mm", mu: 0.1}}
+  w: {kind: weight, at: [-0.1, 0, 0], mass: 10}
+  hand: {kind: haul, at: [0.1, 0, 8]}
+lines:
+  fall: {rope: r, path: [w, head, hand]}
+"#;
+
+fn warnings(keys: &str) -> Vec<Warning> {
+    let (rig, s) = solve_text(&HOIST.replace("ROPE_KEYS", keys));
+    reeve::checks::run(&rig, &s)
+}
+
+fn codes(keys: &str) -> Vec<&'static str> {
+    warnings(keys).iter().map(|w| w.code).collect()
+}
+
+#[test]
+fn ordinary_material_values_give_no_warning() {
+    // 10 mm fibre rope: EA 500 kN (strain 0.02 % at 100 N), 60 g/m, 3 % bend loss:
+    // working figures of the kind the README gives (common practice).
+    let c = codes("stiffness: 500 kN, mass_per_length: 60 g/m, bend_loss: 0.03");
+    assert!(c.is_empty(), "{c:?}");
+    // 10 mm steel wire rope: 0.4 kg/m, EA 3 MN (README: metallic area × 100 kN/mm²).
+    let c = codes("stiffness: 3 MN, mass_per_length: 0.4 kg/m");
+    assert!(c.is_empty(), "{c:?}");
+}
+
+#[test]
+fn a_stretch_beyond_any_rope_is_flagged() {
+    // Strain = T/EA with T about 100 N: EA 200 N is a strain of 50 %, EA 1 N a strain
+    // of 100 (the stretch is 100 times the span). No rope stretches like that.
+    for keys in ["stiffness: 1 N", "stiffness: 200 N"] {
+        let w = warnings(keys);
+        let s = w.iter().find(|w| w.code == "large-stretch");
+        let s = s.unwrap_or_else(|| panic!("{keys}: {w:?}"));
+        assert!(!s.fails, "a warning, the figures stand: {s:?}");
+        assert!(s.message.contains("fall") && s.message.contains("stiffness"), "{s:?}");
+    }
+    // 5 kN under about 100 N: 2 % strain, within a fibre rope's working range.
+    assert!(!codes("stiffness: 5 kN").contains(&"large-stretch"));
+}
+
+#[test]
+fn a_bend_loss_far_above_published_figures_is_flagged() {
+    for keys in ["bend_loss: 0.5", "bend_loss: 0.3"] {
+        let w = warnings(keys);
+        let b = w.iter().find(|w| w.code == "bend-loss");
+        let b = b.unwrap_or_else(|| panic!("{keys}: {w:?}"));
+        assert!(b.message.contains("`r`"), "{b:?}");
+    }
+    assert!(!codes("bend_loss: 0.1").contains(&"bend-loss"));
+}
+
+#[test]
+fn a_rope_heavier_or_stiffer_than_solid_steel_is_flagged() {
+    // A solid steel bar of 10 mm: 7850 kg/m³ × π·(0.01 m)²/4 = 0.617 kg/m, and
+    // EA = 210 GPa × 78.5 mm² = 16.5 MN (steel's density and modulus, handbook values
+    // from memory). 100 kg/m and 1 GN are beyond any rope of that diameter.
+    let w = warnings("mass_per_length: 100 kg/m");
+    assert!(w.iter().any(|w| w.code == "rope-weight"), "{w:?}");
+    let w = warnings("stiffness: 1000 MN");
+    assert!(w.iter().any(|w| w.code == "rope-stiffness"), "{w:?}");
+}
