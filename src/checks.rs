@@ -7,6 +7,8 @@ use crate::model::{PartKind, Rig};
 use crate::solve::{Outcome, Solution, Status, SubRigSolution};
 use crate::units::Dimension;
 
+pub mod material;
+
 /// Wraps below this are reported as the rope not touching the part (0.1°).
 pub const NO_WRAP: Real = 0.1 * std::f64::consts::PI / 180.0;
 
@@ -389,6 +391,8 @@ pub fn bearing_checks(rig: &Rig) -> Vec<Warning> {
 pub fn run(rig: &Rig, solution: &Solution) -> Vec<Warning> {
     let mut out = geometry_checks(rig, &solution.geometry);
     out.extend(bearing_checks(rig));
+    out.extend(material::rope_checks(rig));
+    out.extend(material::stretch_checks(rig, solution));
     out.extend(drum_side_checks(rig, &solution.geometry));
     out.extend(plumb_checks(rig, solution));
     out.extend(pull_checks(rig, solution));
