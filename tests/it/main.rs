@@ -7,6 +7,7 @@ mod support;
 mod cli;
 mod friction_published;
 mod generators;
+mod figures;
 mod geometry;
 mod load_errors;
 mod material;
