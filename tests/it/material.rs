@@ -8,7 +8,9 @@ use reeve::report::Report;
 use reeve::solve::elastic::castigliano_lost_travel;
 
 use crate::support::run::reeve_on;
-use crate::support::{assert_rel, audit_ok, json_of, solve_test_rig, solve_text, test_rig};
+use crate::support::{
+    assert_rel, audit_ok, example_rig, json_of, solve_test_rig, solve_text, test_rig,
+};
 
 #[test]
 fn two_lift_lines_share_a_translating_batten_as_one_over_length() {
@@ -322,4 +324,19 @@ fn the_split_by_stiffness_depends_on_stiffness_ratios_only() {
     for (a, b) in d1.iter().zip(&d2) {
         assert_rel("stretch halves", *b, a / 2.0, 1e-9);
     }
+}
+
+#[test]
+fn the_sag_shown_beside_the_forward_case_says_it_is_the_largest_over_the_cases() {
+    // Guards a figure that contradicted its label: `sag_m` is the largest sag over the
+    // cases (the slackest case, back on a line set: 0.1037 m on lift.sl's level span,
+    // where the forward tension 569 N gives w·L²/(8H) = 3.795·11²/(8·569) = 0.1009 m),
+    // but the text and HTML showed it under "forward" with no word of that.
+    let rig = example_rig("line-set");
+    let text = crate::support::stdout_of(&["check", &rig]);
+    assert!(text.contains("largest sag"), "{text}");
+    let html = crate::support::stdout_of(&["report", &rig, "-o", "-"]);
+    assert!(html.contains("the largest over the cases"), "{html}");
+    let table = crate::support::stdout_of(&["table", &rig, "--format", "csv"]);
+    assert!(table.lines().next().unwrap().contains("largest sag (m)"), "{table}");
 }
