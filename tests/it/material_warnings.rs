@@ -79,3 +79,38 @@ fn a_rope_heavier_or_stiffer_than_solid_steel_is_flagged() {
     let w = warnings("stiffness: 1000 MN");
     assert!(w.iter().any(|w| w.code == "rope-stiffness"), "{w:?}");
 }
+
+/// A 1 kg weight over a head sheave, hauled level across 10 m of rope weighing 1 kg/m
+/// (our own probe rig): the level span weighs 98 N against a tension of about 21 N.
+const HEAVY_LEVEL_SPAN: &str = r#"format: 1
+title: level span heavier than its tension
+units: {length: m, force: N, mass: kg}
+ropes:
+  r: {diameter: "20 mm", breaking_strength: "50 kN", mu: 0.2, mass_per_length: MASS}
+parts:
+  hand: {kind: haul, at: [0, 0, 0.1]}
+  head: {kind: sheave, at: [10, 0, 0], axle: [0, 1, 0], diameter: "200 mm",
+         bearing: {kind: plain, pin_diameter: "20 mm", mu: 0.1}}
+  w: {kind: weight, at: [10.1, 0, -1], mass: 1}
+lines:
+  fall: {rope: r, path: [w, head, hand]}
+"#;
+
+#[test]
+fn a_span_that_sags_far_off_its_chord_is_flagged() {
+    // The statics keeps every span a straight chord. A span of run a and weight q per
+    // length under tension T leaves its ends about q·a/(2T) (radians) off the chord (the
+    // parabolic cable's end slope, Meriam & Kraige, *Engineering Mechanics: Statics*
+    // §5/9; sag = q·a²/(8T), so this is 4·sag/a). Here q·a/(2T) = 9.807·10/(2·21) ≈ 2.3:
+    // the tension shown cannot even carry half the span's weight (49 N), so the haul
+    // force of 21 N means nothing.
+    let (rig, s) = solve_text(&HEAVY_LEVEL_SPAN.replace("MASS", "1"));
+    let w = reeve::checks::run(&rig, &s);
+    let sag = w.iter().find(|w| w.code == "large-sag");
+    let sag = sag.unwrap_or_else(|| panic!("{w:?}"));
+    assert!(sag.message.contains("fall") && sag.message.contains("span 1"), "{sag:?}");
+    // 10 g/m: q·a/(2T) = 0.0981·10/(2·10) ≈ 0.05, about 3° off the chord: quiet.
+    let (rig, s) = solve_text(&HEAVY_LEVEL_SPAN.replace("MASS", "0.01"));
+    let w = reeve::checks::run(&rig, &s);
+    assert!(!w.iter().any(|w| w.code == "large-sag"), "{w:?}");
+}
