@@ -393,6 +393,7 @@ pub fn run(rig: &Rig, solution: &Solution) -> Vec<Warning> {
     out.extend(bearing_checks(rig));
     out.extend(material::rope_checks(rig));
     out.extend(material::stretch_checks(rig, solution));
+    out.extend(material::sag_checks(rig, solution));
     out.extend(drum_side_checks(rig, &solution.geometry));
     out.extend(plumb_checks(rig, solution));
     out.extend(pull_checks(rig, solution));

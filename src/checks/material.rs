@@ -19,6 +19,13 @@
 //!   is well below its circle's (about 0.4 d² against 0.785 d² for 6x19 wire rope,
 //!   common practice), so the limits keep a 25 % margin for a measured diameter above
 //!   nominal.
+//! - A span whose own weight pulls its ends more than [`SAG_SLOPE_LIMIT`] (0.2 rad,
+//!   about 11°) off the straight chord the statics keeps: with run `a`, weight `q` per
+//!   length and tension `T`, the parabolic cable leaves each end at `q·a/(2T)` to its
+//!   chord (J. L. Meriam and L. G. Kraige, *Engineering Mechanics: Statics*, §5/9,
+//!   "Flexible cables": sag `q·a²/(8T)`, end slope `4·sag/a`), so wraps, pin load
+//!   directions and end tensions are off by that much; beyond 1 the tension shown cannot
+//!   even carry half the span's weight.
 
 use super::{warn, Warning};
 use crate::math::Real;
@@ -30,6 +37,8 @@ use crate::units::significant;
 pub const STRAIN_LIMIT: Real = 0.10;
 /// Bend loss per passage above which a rope's `bend_loss` is flagged.
 pub const BEND_LOSS_LIMIT: Real = 0.2;
+/// End slope to the chord (rad) above which a span's sag is flagged.
+pub const SAG_SLOPE_LIMIT: Real = 0.2;
 /// Density of steel, kg/m³ (handbook value, from memory).
 const STEEL_DENSITY: Real = 7850.0;
 /// Young's modulus of steel, Pa (handbook value, from memory).
@@ -125,10 +134,78 @@ pub fn stretch_checks(rig: &Rig, solution: &Solution) -> Vec<Warning> {
                 Some(&line.name),
                 false,
                 format!(
-                    "line `{}`: the rope stretches {} % of its length in span {span} ({case}) at its `stiffness` {} N; the stretch model holds for small strains (spans at their drawn lengths), and ropes stretch at most about 10 % at working load, so the stretch, lost travel and split shown mean nothing (check that `stiffness` is EA, a force)",
+                    "line `{}`: the rope stretches {} % of its length in span {span} ({case}) at its `stiffness` {}; the stretch model holds for small strains (spans at their drawn lengths), and ropes stretch at most about 10 % at working load, so the stretch, lost travel and split shown mean nothing (check that `stiffness` is EA, a force)",
                     line.name,
                     significant(100.0 * strain, 3),
-                    significant(ea, 4)
+                    rig.units.show(ea, crate::units::Dimension::Force)
+                ),
+            ));
+        }
+    }
+    out
+}
+
+/// Spans whose own weight pulls them far off the straight chord the statics keeps
+/// ([`SAG_SLOPE_LIMIT`]), in their slackest case.
+pub fn sag_checks(rig: &Rig, solution: &Solution) -> Vec<Warning> {
+    let mut out = Vec::new();
+    let up = -rig.gravity.into_inner();
+    for (l, line) in rig.lines.iter().enumerate() {
+        let q = rig.rope_of(l).mass_per_length.unwrap_or(0.0) * crate::math::STANDARD_GRAVITY;
+        let Some(spans) = solution.geometry.lines.get(l).map(|g| &g.spans) else {
+            continue;
+        };
+        if !(q > 0.0) {
+            continue;
+        }
+        // The largest end slope over the spans, cases and sub-rigs: (slope, span, T).
+        let mut worst: Option<(Real, usize, Real)> = None;
+        for sub in &solution.subrigs {
+            for case in [&sub.ideal, &sub.forward, &sub.back] {
+                let (Some(start), Some(end)) = (case.tension.get(l), case.tension_end.get(l))
+                else {
+                    continue;
+                };
+                for (j, ((&a, &b), span)) in start.iter().zip(end).zip(spans).enumerate() {
+                    let chord = span.end - span.start;
+                    let run = (chord - up * chord.dot(&up)).norm();
+                    let tension = 0.5 * (a + b);
+                    // A slack span is the `slack-span` check's.
+                    if !(tension > 0.0) {
+                        continue;
+                    }
+                    let slope = q * run / (2.0 * tension);
+                    if slope.is_finite() && worst.is_none_or(|(w, _, _)| slope > w) {
+                        worst = Some((slope, j, tension));
+                    }
+                }
+            }
+        }
+        if let Some((slope, j, tension)) = worst.filter(|w| w.0 > SAG_SLOPE_LIMIT) {
+            let span = &spans[j];
+            let chord = span.end - span.start;
+            let run = (chord - up * chord.dot(&up)).norm();
+            let force = |x| rig.units.show(x, crate::units::Dimension::Force);
+            let tail = if slope >= 1.0 {
+                format!(
+                    "the tension shown ({}) cannot even carry half the span's weight ({}), so the figures of this line mean nothing",
+                    force(tension),
+                    force(0.5 * q * run)
+                )
+            } else {
+                "so its wraps, pin load directions and end tensions are off by that much"
+                    .to_string()
+            };
+            out.push(warn(
+                "large-sag",
+                Some(&line.name),
+                false,
+                format!(
+                    "line `{}`: span {j} sags so far under the rope's own weight that its ends leave the straight chord the statics assumes by about {}° (rope weight across the span {} against a tension of {}); {tail}",
+                    line.name,
+                    significant(slope.atan().to_degrees(), 3),
+                    force(q * run),
+                    force(tension)
                 ),
             ));
         }

@@ -5,9 +5,9 @@
 mod support;
 
 mod cli;
+mod figures;
 mod friction_published;
 mod generators;
-mod figures;
 mod geometry;
 mod load_errors;
 mod material;

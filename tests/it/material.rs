@@ -338,5 +338,8 @@ fn the_sag_shown_beside_the_forward_case_says_it_is_the_largest_over_the_cases()
     let html = crate::support::stdout_of(&["report", &rig, "-o", "-"]);
     assert!(html.contains("the largest over the cases"), "{html}");
     let table = crate::support::stdout_of(&["table", &rig, "--format", "csv"]);
-    assert!(table.lines().next().unwrap().contains("largest sag (m)"), "{table}");
+    assert!(
+        table.lines().next().unwrap().contains("largest sag (m)"),
+        "{table}"
+    );
 }

@@ -52,7 +52,10 @@ fn a_stretch_beyond_any_rope_is_flagged() {
         let s = w.iter().find(|w| w.code == "large-stretch");
         let s = s.unwrap_or_else(|| panic!("{keys}: {w:?}"));
         assert!(!s.fails, "a warning, the figures stand: {s:?}");
-        assert!(s.message.contains("fall") && s.message.contains("stiffness"), "{s:?}");
+        assert!(
+            s.message.contains("fall") && s.message.contains("stiffness"),
+            "{s:?}"
+        );
     }
     // 5 kN under about 100 N: 2 % strain, within a fibre rope's working range.
     assert!(!codes("stiffness: 5 kN").contains(&"large-stretch"));
@@ -108,7 +111,10 @@ fn a_span_that_sags_far_off_its_chord_is_flagged() {
     let w = reeve::checks::run(&rig, &s);
     let sag = w.iter().find(|w| w.code == "large-sag");
     let sag = sag.unwrap_or_else(|| panic!("{w:?}"));
-    assert!(sag.message.contains("fall") && sag.message.contains("span 1"), "{sag:?}");
+    assert!(
+        sag.message.contains("fall") && sag.message.contains("span 1"),
+        "{sag:?}"
+    );
     // 10 g/m: q·a/(2T) = 0.0981·10/(2·10) ≈ 0.05, about 3° off the chord: quiet.
     let (rig, s) = solve_text(&HEAVY_LEVEL_SPAN.replace("MASS", "0.01"));
     let w = reeve::checks::run(&rig, &s);
