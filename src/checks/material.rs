@@ -65,7 +65,7 @@ pub fn rope_checks(rig: &Rig) -> Vec<Warning> {
             ));
         }
         let area = std::f64::consts::PI * rope.diameter * rope.diameter / 4.0;
-        if !(area > 0.0) {
+        if area.is_nan() || area <= 0.0 {
             continue;
         }
         if let Some(m) = rope.mass_per_length {
@@ -122,7 +122,7 @@ pub fn stretch_checks(rig: &Rig, solution: &Solution) -> Vec<Warning> {
                 };
                 for (j, (&a, &b)) in start.iter().zip(end).enumerate() {
                     let strain = a.max(b) / ea;
-                    if strain.is_finite() && worst.is_none_or(|(w, _, _)| strain > w) {
+                    if strain.is_finite() && !matches!(worst, Some((w, _, _)) if w >= strain) {
                         worst = Some((strain, j, case.case.name()));
                     }
                 }
@@ -155,7 +155,7 @@ pub fn sag_checks(rig: &Rig, solution: &Solution) -> Vec<Warning> {
         let Some(spans) = solution.geometry.lines.get(l).map(|g| &g.spans) else {
             continue;
         };
-        if !(q > 0.0) {
+        if q.is_nan() || q <= 0.0 {
             continue;
         }
         // The largest end slope over the spans, cases and sub-rigs: (slope, span, T).
@@ -171,11 +171,11 @@ pub fn sag_checks(rig: &Rig, solution: &Solution) -> Vec<Warning> {
                     let run = (chord - up * chord.dot(&up)).norm();
                     let tension = 0.5 * (a + b);
                     // A slack span is the `slack-span` check's.
-                    if !(tension > 0.0) {
+                    if tension.is_nan() || tension <= 0.0 {
                         continue;
                     }
                     let slope = q * run / (2.0 * tension);
-                    if slope.is_finite() && worst.is_none_or(|(w, _, _)| slope > w) {
+                    if slope.is_finite() && !matches!(worst, Some((w, _, _)) if w >= slope) {
                         worst = Some((slope, j, tension));
                     }
                 }
