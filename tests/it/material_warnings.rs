@@ -120,3 +120,24 @@ fn a_span_that_sags_far_off_its_chord_is_flagged() {
     let w = reeve::checks::run(&rig, &s);
     assert!(!w.iter().any(|w| w.code == "large-sag"), "{w:?}");
 }
+
+#[test]
+fn a_span_slack_at_its_lower_end_names_the_negative_tension() {
+    // Guards the slack-span message where the rope's weight makes a span's ends differ:
+    // it said "would need a negative tension (149.9 N)", the start's positive tension,
+    // while the span's lower end needed −46 N. The haul hangs 30 m below the head with
+    // 0.5 kg/m of rope, more rope weight than the 10 kg weight on the other side.
+    let text = HOIST
+        .replace("ROPE_KEYS", "mass_per_length: 0.5")
+        .replace(
+            "hand: {kind: haul, at: [0.1, 0, 8]}",
+            "hand: {kind: haul, at: [0.1, 0, -30], pull: [0, 0, -1]}",
+        );
+    let (rig, s) = solve_text(&text);
+    let w = reeve::checks::run(&rig, &s);
+    let slack: Vec<_> = w.iter().filter(|w| w.code == "slack-span").collect();
+    assert!(!slack.is_empty(), "{w:?}");
+    for s in slack {
+        assert!(s.message.contains("(-"), "the negative tension is shown: {s:?}");
+    }
+}
