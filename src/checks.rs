@@ -602,14 +602,20 @@ fn subrig_checks(rig: &Rig, sub: &SubRigSolution) -> Vec<Warning> {
         }
         for &(l, j) in &case.slack {
             let line = &rig.lines[l];
+            // With rope weight the span's ends differ: show the lower (negative) one.
+            let start = case.tension[l][j];
+            let end = case.tension_end.get(l).and_then(|t| t.get(j)).copied();
+            let shown = match end {
+                Some(end) if end < start => format!("{} at its end", force(end)),
+                _ => force(start),
+            };
             out.push(warn(
                 "slack-span",
                 Some(&line.name),
                 true,
                 format!(
-                    "{name}: span {j} of line `{}` would need a negative tension ({}); the rope goes slack there and the figures do not hold",
-                    line.name,
-                    force(case.tension[l][j])
+                    "{name}: span {j} of line `{}` would need a negative tension ({shown}); the rope goes slack there and the figures do not hold",
+                    line.name
                 ),
             ));
         }

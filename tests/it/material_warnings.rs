@@ -127,17 +127,18 @@ fn a_span_slack_at_its_lower_end_names_the_negative_tension() {
     // it said "would need a negative tension (149.9 N)", the start's positive tension,
     // while the span's lower end needed −46 N. The haul hangs 30 m below the head with
     // 0.5 kg/m of rope, more rope weight than the 10 kg weight on the other side.
-    let text = HOIST
-        .replace("ROPE_KEYS", "mass_per_length: 0.5")
-        .replace(
-            "hand: {kind: haul, at: [0.1, 0, 8]}",
-            "hand: {kind: haul, at: [0.1, 0, -30], pull: [0, 0, -1]}",
-        );
+    let text = HOIST.replace("ROPE_KEYS", "mass_per_length: 0.5").replace(
+        "hand: {kind: haul, at: [0.1, 0, 8]}",
+        "hand: {kind: haul, at: [0.1, 0, -30], pull: [0, 0, -1]}",
+    );
     let (rig, s) = solve_text(&text);
     let w = reeve::checks::run(&rig, &s);
     let slack: Vec<_> = w.iter().filter(|w| w.code == "slack-span").collect();
     assert!(!slack.is_empty(), "{w:?}");
     for s in slack {
-        assert!(s.message.contains("(-"), "the negative tension is shown: {s:?}");
+        assert!(
+            s.message.contains("(-"),
+            "the negative tension is shown: {s:?}"
+        );
     }
 }
