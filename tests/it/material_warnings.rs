@@ -142,3 +142,21 @@ fn a_span_slack_at_its_lower_end_names_the_negative_tension() {
         );
     }
 }
+
+#[test]
+fn the_safety_factor_check_counts_the_tension_at_a_spans_tighter_end() {
+    // Guards the design-factor check against the rope's own weight: the 100 m vertical
+    // rope of tests/rigs/material/hanging-rope.yaml carries 10 kN at its foot and
+    // 10 kN + 1 kg/m · g · 100 m = 10.981 kN at its head (Meriam & Kraige §5/9,
+    // T = T₀ + μy). With a breaking strength of 52 kN the factor is 52/10.981 = 4.74,
+    // below the design factor 5 (the span table showed 4.74), but the check read only
+    // the foot's 10 kN (5.2) and passed.
+    let rig = crate::support::edited_rig("material/hanging-rope.yaml", |t| {
+        t.replace("long: {diameter: 16 mm,", "long: {diameter: 16 mm, breaking_strength: 52 kN,")
+    });
+    let s = reeve::solve::solve(&rig, &reeve::solve::SolveOptions::default()).unwrap();
+    let w = reeve::checks::run(&rig, &s);
+    let sf = w.iter().find(|w| w.code == "safety-factor");
+    let sf = sf.unwrap_or_else(|| panic!("{w:?}"));
+    assert!(sf.fails && sf.message.contains("4.74"), "{sf:?}");
+}
