@@ -554,9 +554,15 @@ fn subrig_checks(rig: &Rig, sub: &SubRigSolution) -> Vec<Warning> {
         let Some(strength) = rope.breaking_strength else {
             continue;
         };
+        // Both ends of every span: with rope weight the higher end is the tighter.
         let worst = [&sub.forward, &sub.back, &sub.ideal]
             .iter()
-            .flat_map(|c| c.tension.get(l).into_iter().flatten().copied())
+            .flat_map(|c| {
+                let start = c.tension.get(l).into_iter().flatten();
+                start
+                    .chain(c.tension_end.get(l).into_iter().flatten())
+                    .copied()
+            })
             .fold(0.0, Real::max);
         if worst > 0.0 && strength / worst < rig.limits.design_factor {
             out.push(warn(

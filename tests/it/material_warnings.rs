@@ -152,7 +152,10 @@ fn the_safety_factor_check_counts_the_tension_at_a_spans_tighter_end() {
     // below the design factor 5 (the span table showed 4.74), but the check read only
     // the foot's 10 kN (5.2) and passed.
     let rig = crate::support::edited_rig("material/hanging-rope.yaml", |t| {
-        t.replace("long: {diameter: 16 mm,", "long: {diameter: 16 mm, breaking_strength: 52 kN,")
+        t.replace(
+            "long: {diameter: 16 mm,",
+            "long: {diameter: 16 mm, breaking_strength: 52 kN,",
+        )
     });
     let s = reeve::solve::solve(&rig, &reeve::solve::SolveOptions::default()).unwrap();
     let w = reeve::checks::run(&rig, &s);
