@@ -359,3 +359,15 @@ fn the_lost_travel_of_a_single_hanging_rope_is_its_stretch() {
     let stretch = (10_000.0 * 100.0 + 1.0 * g * 100.0 * 100.0 / 2.0) / 9.80665e6;
     assert_rel("lost travel", m.lost_travel.unwrap(), stretch, 1e-6);
 }
+
+#[test]
+fn the_studies_largest_tension_counts_a_spans_tighter_end() {
+    // Guards `largest tension` of compare, sweep and spread against the rope's weight:
+    // the 100 m hanging rope is hauled at its head with 10 kN + 1 kg/m · g · 100 m =
+    // 10 980.665 N (Meriam & Kraige §5/9, T = T₀ + μy), which is also the drive's force,
+    // but the studies showed the foot's 10 000 N.
+    let rig = test_rig("material/hanging-rope.yaml");
+    let j = json_of(&["compare", &rig, "--json"]);
+    let largest = j["columns"][0]["largest_tension_n"].as_f64().unwrap();
+    assert_rel("largest tension", largest, 10_000.0 + STANDARD_GRAVITY * 100.0, 1e-9);
+}
