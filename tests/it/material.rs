@@ -369,5 +369,10 @@ fn the_studies_largest_tension_counts_a_spans_tighter_end() {
     let rig = test_rig("material/hanging-rope.yaml");
     let j = json_of(&["compare", &rig, "--json"]);
     let largest = j["columns"][0]["largest_tension_n"].as_f64().unwrap();
-    assert_rel("largest tension", largest, 10_000.0 + STANDARD_GRAVITY * 100.0, 1e-9);
+    assert_rel(
+        "largest tension",
+        largest,
+        10_000.0 + STANDARD_GRAVITY * 100.0,
+        1e-9,
+    );
 }
