@@ -521,7 +521,14 @@ pub fn significant(x: Real, sig: usize) -> String {
         return format!("{:.*e}", sig.saturating_sub(1), x);
     }
     let decimals = (sig as i32 - 1 - mag).max(0) as usize;
-    format!("{:.*}", decimals, x)
+    let shown = format!("{:.*}", decimals, x);
+    // Rounding may carry into the next decade (0.99996 → 1.0000): one digit fewer then.
+    match shown.trim_start_matches('-').parse::<Real>() {
+        Ok(rounded) if decimals > 0 && rounded >= 10.0_f64.powi(mag + 1) => {
+            format!("{:.*}", decimals - 1, x)
+        }
+        _ => shown,
+    }
 }
 
 #[cfg(test)]

@@ -411,7 +411,8 @@ pub fn largest_tension(solution: &Solution) -> Option<Real> {
     fold_max(solution.subrigs.iter().flat_map(|s| {
         [&s.forward, &s.back]
             .into_iter()
-            .flat_map(|c| c.tension.iter().flatten().copied())
+            // Both ends of every span: with rope weight the higher end is the tighter.
+            .flat_map(|c| c.tension.iter().chain(&c.tension_end).flatten().copied())
     }))
 }
 
