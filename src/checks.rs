@@ -7,6 +7,8 @@ use crate::model::{PartKind, Rig};
 use crate::solve::{Outcome, Solution, Status, SubRigSolution};
 use crate::units::Dimension;
 
+pub mod material;
+
 /// Wraps below this are reported as the rope not touching the part (0.1°).
 pub const NO_WRAP: Real = 0.1 * std::f64::consts::PI / 180.0;
 
@@ -398,6 +400,9 @@ pub fn bearing_checks(rig: &Rig) -> Vec<Warning> {
 pub fn run(rig: &Rig, solution: &Solution) -> Vec<Warning> {
     let mut out = geometry_checks(rig, &solution.geometry);
     out.extend(bearing_checks(rig));
+    out.extend(material::rope_checks(rig));
+    out.extend(material::stretch_checks(rig, solution));
+    out.extend(material::sag_checks(rig, solution));
     out.extend(drum_side_checks(rig, &solution.geometry));
     out.extend(plumb_checks(rig, solution));
     out.extend(pull_checks(rig, solution));
@@ -564,9 +569,15 @@ pub fn subrig_checks(rig: &Rig, sub: &SubRigSolution) -> Vec<Warning> {
         let Some(strength) = rope.breaking_strength else {
             continue;
         };
+        // Both ends of every span: with rope weight the higher end is the tighter.
         let worst = [&sub.forward, &sub.back, &sub.ideal]
             .iter()
-            .flat_map(|c| c.tension.get(l).into_iter().flatten().copied())
+            .flat_map(|c| {
+                let start = c.tension.get(l).into_iter().flatten();
+                start
+                    .chain(c.tension_end.get(l).into_iter().flatten())
+                    .copied()
+            })
             .fold(0.0, Real::max);
         if worst > 0.0 && strength / worst < rig.limits.design_factor {
             out.push(warn(
@@ -612,14 +623,20 @@ pub fn subrig_checks(rig: &Rig, sub: &SubRigSolution) -> Vec<Warning> {
         }
         for &(l, j) in &case.slack {
             let line = &rig.lines[l];
+            // With rope weight the span's ends differ: show the lower (negative) one.
+            let start = case.tension[l][j];
+            let end = case.tension_end.get(l).and_then(|t| t.get(j)).copied();
+            let shown = match end {
+                Some(end) if end < start => format!("{} at its end", force(end)),
+                _ => force(start),
+            };
             out.push(warn(
                 "slack-span",
                 Some(&line.name),
                 true,
                 format!(
-                    "{name}: span {j} of line `{}` would need a negative tension ({}); the rope goes slack there and the figures do not hold",
-                    line.name,
-                    force(case.tension[l][j])
+                    "{name}: span {j} of line `{}` would need a negative tension ({shown}); the rope goes slack there and the figures do not hold",
+                    line.name
                 ),
             ));
         }

@@ -38,6 +38,14 @@ pub enum Dimension {
     Torque,
     /// Kilograms per metre inside (a rope's `mass_per_length`; DESIGN.md §7).
     MassPerLength,
+    /// Seconds inside (schedules; DESIGN.md §7).
+    Time,
+    /// Newtons per metre inside (a block spring's `rate`).
+    SpringRate,
+    /// Newton-metres per radian inside (a drum spring's `rate`).
+    TorsionRate,
+    /// Kilogram square metres inside (rotational `inertia`).
+    Inertia,
 }
 
 impl Dimension {
@@ -49,6 +57,10 @@ impl Dimension {
             Dimension::Mass => "mass",
             Dimension::Torque => "torque",
             Dimension::MassPerLength => "mass per length",
+            Dimension::Time => "time",
+            Dimension::SpringRate => "spring rate",
+            Dimension::TorsionRate => "torsion rate",
+            Dimension::Inertia => "rotational inertia",
         }
     }
 
@@ -60,6 +72,10 @@ impl Dimension {
             Dimension::Mass => &["kg", "g", "lb"],
             Dimension::Torque => &["N*m", "N*mm", "kN*m", "lbf*in", "lbf*ft"],
             Dimension::MassPerLength => &["kg/m", "g/m", "lb/ft"],
+            Dimension::Time => &["s", "min", "h"],
+            Dimension::SpringRate => &["N/m", "N/mm", "kN/m", "lbf/in"],
+            Dimension::TorsionRate => &["N*m/rad", "N*m/deg"],
+            Dimension::Inertia => &["kg*m^2"],
         }
     }
 }
@@ -134,11 +150,63 @@ pub mod unit {
     pub const G_PER_M: Unit = unit(Dimension::MassPerLength, "g/m", 1e-3);
     /// Pound per foot.
     pub const LB_PER_FT: Unit = unit(Dimension::MassPerLength, "lb/ft", POUND / FOOT);
+    /// Second (DESIGN.md §7).
+    pub const S: Unit = unit(Dimension::Time, "s", 1.0);
+    /// Minute.
+    pub const MIN: Unit = unit(Dimension::Time, "min", 60.0);
+    /// Hour.
+    pub const H: Unit = unit(Dimension::Time, "h", 3600.0);
+    /// Newton per metre (DESIGN.md §7).
+    pub const N_PER_M: Unit = unit(Dimension::SpringRate, "N/m", 1.0);
+    /// Newton per millimetre.
+    pub const N_PER_MM: Unit = unit(Dimension::SpringRate, "N/mm", 1e3);
+    /// Kilonewton per metre.
+    pub const KN_PER_M: Unit = unit(Dimension::SpringRate, "kN/m", 1e3);
+    /// Pound-force per inch.
+    pub const LBF_PER_IN: Unit = unit(Dimension::SpringRate, "lbf/in", POUND_FORCE / INCH);
+    /// Newton-metre per radian (DESIGN.md §7).
+    pub const N_M_PER_RAD: Unit = unit(Dimension::TorsionRate, "N*m/rad", 1.0);
+    /// Newton-metre per degree.
+    pub const N_M_PER_DEG: Unit = unit(
+        Dimension::TorsionRate,
+        "N*m/deg",
+        180.0 / std::f64::consts::PI,
+    );
+    /// Kilogram square metre (DESIGN.md §7).
+    pub const KG_M2: Unit = unit(Dimension::Inertia, "kg*m^2", 1.0);
 
     /// All of them.
     pub(super) const ALL: &[Unit] = &[
-        MM, CM, M, IN, FT, N, KN, MN, LBF, KG, G, LB, N_M, N_MM, KN_M, LBF_IN, LBF_FT, KG_PER_M,
-        G_PER_M, LB_PER_FT,
+        MM,
+        CM,
+        M,
+        IN,
+        FT,
+        N,
+        KN,
+        MN,
+        LBF,
+        KG,
+        G,
+        LB,
+        N_M,
+        N_MM,
+        KN_M,
+        LBF_IN,
+        LBF_FT,
+        KG_PER_M,
+        G_PER_M,
+        LB_PER_FT,
+        S,
+        MIN,
+        H,
+        N_PER_M,
+        N_PER_MM,
+        KN_PER_M,
+        LBF_PER_IN,
+        N_M_PER_RAD,
+        N_M_PER_DEG,
+        KG_M2,
     ];
 }
 
@@ -151,22 +219,29 @@ pub fn parse_unit(text: &str) -> Option<Unit> {
         .trim()
         .replace(['·', '.', '-', ' '], "*")
         .replace("**", "*");
-    let canonical = match cleaned.as_str() {
-        "Nm" => "N*m",
-        "Nmm" => "N*mm",
-        "in*lbf" => "lbf*in",
-        "ft*lbf" => "lbf*ft",
-        "m*N" => "N*m",
-        "mm*N" => "N*mm",
-        "kNm" => "kN*m",
-        "m*kN" => "kN*m",
-        "inch" | "inches" => "in",
-        "feet" | "foot" => "ft",
-        "lbs" => "lb",
-        other => other,
-    };
+    let canonical = UNIT_ALIASES
+        .iter()
+        .find(|(alias, _)| *alias == cleaned)
+        .map_or(cleaned.as_str(), |(_, symbol)| symbol);
     UNITS.iter().copied().find(|u| u.symbol == canonical)
 }
+
+/// Other spellings of a unit, after [`parse_unit`]'s cleaning (`·`, `.`, `-` and spaces
+/// between factors become `*`), each with the canonical symbol it means. The rig
+/// schema's unit patterns are made from these and [`Dimension::spellings`].
+pub const UNIT_ALIASES: &[(&str, &str)] = &[
+    ("Nm", "N*m"),
+    ("Nmm", "N*mm"),
+    ("in*lbf", "lbf*in"),
+    ("ft*lbf", "lbf*ft"),
+    ("m*N", "N*m"),
+    ("mm*N", "N*mm"),
+    ("inch", "in"),
+    ("inches", "in"),
+    ("feet", "ft"),
+    ("foot", "ft"),
+    ("lbs", "lb"),
+];
 
 /// Looks a unit up and checks that it measures `dimension`.
 pub fn parse_unit_of(text: &str, dimension: Dimension) -> Result<Unit, UnitError> {
@@ -246,6 +321,10 @@ pub fn parse_quantity(text: &str, dimension: Dimension, default: Unit) -> Result
         Dimension::Mass => "40 kg",
         Dimension::Torque => "1.2 N*m",
         Dimension::MassPerLength => "0.25 kg/m",
+        Dimension::Time => "5 min",
+        Dimension::SpringRate => "2 N/mm",
+        Dimension::TorsionRate => "0.5 N*m/rad",
+        Dimension::Inertia => "0.02 kg*m^2",
     };
     let value: Real = number.trim().parse().map_err(|_| UnitError::NotAQuantity {
         text: t.to_string(),
@@ -281,6 +360,15 @@ pub struct UnitSystem {
     pub torque: Unit,
 }
 
+/// The unit of `dimension` whose SI factor is 1 (every dimension has one).
+fn si_unit(dimension: Dimension) -> Unit {
+    UNITS
+        .iter()
+        .copied()
+        .find(|u| u.dimension == dimension && u.si == 1.0)
+        .unwrap_or(unit::KG_PER_M)
+}
+
 impl Default for UnitSystem {
     fn default() -> Self {
         UnitSystem {
@@ -303,6 +391,17 @@ impl UnitSystem {
             Dimension::Torque => self.torque,
             // No `units` key names it: bare numbers and reports are in kg/m.
             Dimension::MassPerLength => unit::KG_PER_M,
+            // Bare spring rates are in the file's force per the file's length (N/mm for
+            // the default units) where the table spells that unit, else N/m.
+            Dimension::SpringRate => {
+                let si = self.force.si / self.length.si;
+                UNITS
+                    .iter()
+                    .copied()
+                    .find(|u| u.dimension == dimension && (u.si - si).abs() <= 1e-12 * si)
+                    .unwrap_or_else(|| si_unit(dimension))
+            }
+            Dimension::Time | Dimension::TorsionRate | Dimension::Inertia => si_unit(dimension),
         }
     }
 
@@ -422,7 +521,14 @@ pub fn significant(x: Real, sig: usize) -> String {
         return format!("{:.*e}", sig.saturating_sub(1), x);
     }
     let decimals = (sig as i32 - 1 - mag).max(0) as usize;
-    format!("{:.*}", decimals, x)
+    let shown = format!("{:.*}", decimals, x);
+    // Rounding may carry into the next decade (0.99996 → 1.0000): one digit fewer then.
+    match shown.trim_start_matches('-').parse::<Real>() {
+        Ok(rounded) if decimals > 0 && rounded >= 10.0_f64.powi(mag + 1) => {
+            format!("{:.*}", decimals - 1, x)
+        }
+        _ => shown,
+    }
 }
 
 #[cfg(test)]
@@ -502,8 +608,13 @@ mod tests {
                 let text = format!("{x} {}", u.symbol);
                 let si = parse_quantity(&text, u.dimension, u).unwrap();
                 let back = match u.dimension {
-                    // No system field holds it (always kg/m): the unit's own factor.
-                    Dimension::MassPerLength => si / u.si,
+                    // No system field holds these (a fixed unit each): the unit's own
+                    // factor.
+                    Dimension::MassPerLength
+                    | Dimension::Time
+                    | Dimension::SpringRate
+                    | Dimension::TorsionRate
+                    | Dimension::Inertia => si / u.si,
                     d => UnitSystem {
                         length: u,
                         span_length: u,

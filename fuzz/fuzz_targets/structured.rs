@@ -228,7 +228,7 @@ fuzz_target!(|data: &[u8]| {
                         continue;
                     }
                 };
-                match sweep::sweep(&source, &vary, steps) {
+                match sweep::sweep(&source, &vary, steps, &()) {
                     Ok(s) => {
                         ctx.values(&s, "sweep");
                         ctx.formats(arg(2), "sweep", |w, f| {
@@ -254,7 +254,7 @@ fuzz_target!(|data: &[u8]| {
                     ),
                 };
                 let steps = steps.clamp(1, MAX_STROKE_STEPS);
-                match sweep::stroke(&source, &distance, steps, 2) {
+                match sweep::stroke(&source, &distance, steps, 2, &()) {
                     Ok(s) => {
                         ctx.values(&s, "stroke");
                         ctx.formats(format, "stroke", |w, f| {
@@ -302,7 +302,7 @@ fuzz_target!(|data: &[u8]| {
                         }
                     }
                 }
-                match rank::rank(&source, alt.as_ref()) {
+                match rank::rank(&source, alt.as_ref(), &()) {
                     Ok(r) => {
                         ctx.values(&r, "rank");
                         ctx.formats(arg(0), "rank", |w, f| {
@@ -315,7 +315,7 @@ fuzz_target!(|data: &[u8]| {
             "spread" => {
                 let samples = arg(0).parse::<usize>().unwrap_or(4).clamp(1, MAX_SAMPLES);
                 let seed = arg(1).parse::<u64>().unwrap_or(1);
-                match spread::spread(&source, samples, seed, 1, false) {
+                match spread::spread(&source, samples, seed, 1, &()) {
                     Ok(s) => {
                         ctx.values(&s, "spread");
                         ctx.formats(arg(2), "spread", |w, f| {

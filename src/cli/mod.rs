@@ -10,10 +10,17 @@ use clap::{Parser, Subcommand};
 
 pub mod args;
 pub mod destination;
+pub mod motion;
 pub mod outputs;
 pub mod snippet;
 pub mod studies;
 pub mod tools;
+
+// The designer's tools of issue 13: schema, starter rigs, live re-solve, progress.
+pub mod progress;
+pub mod schema;
+pub mod starter;
+pub mod watch;
 
 use reeve::checks;
 use reeve::model::Rig;
@@ -70,10 +77,20 @@ pub enum Command {
     Rank(studies::RankArgs),
     /// Monte Carlo spread over the values the rig gives as ranges.
     Spread(studies::SpreadArgs),
+    /// Run the rig in time from rest: events, strokes, time series (DESIGN.md §7).
+    Motion(motion::MotionArgs),
     /// Print a shell completion script (bash, zsh, fish, powershell).
     Completions(tools::CompletionsArgs),
     /// Print the manual page (roff), or write it with -o.
     Manual(tools::ManualArgs),
+
+    // The designer's tools of issue 13.
+    /// Print the JSON Schema of the rig format (for editors), or write it with -o.
+    Schema(schema::SchemaArgs),
+    /// Write a starter rig for a common job; without KIND, list the kinds.
+    New(starter::NewArgs),
+    /// Re-solve a rig on every save: print the summary or the first error, rewrite -o.
+    Watch(watch::WatchArgs),
 }
 
 /// Why a command could not do its work (exit 2). The library's error stays the
@@ -253,7 +270,11 @@ pub fn run(cli: Cli) -> Result<i32, Failure> {
         Command::Sweep(args) => studies::run_sweep(args),
         Command::Rank(args) => studies::run_rank(args),
         Command::Spread(args) => studies::run_spread(args),
+        Command::Motion(args) => motion::run_motion(args),
         Command::Completions(args) => tools::run_completions(args),
         Command::Manual(args) => tools::run_manual(args),
+        Command::Schema(args) => schema::run_schema(args),
+        Command::New(args) => starter::run_new(args),
+        Command::Watch(args) => watch::run_watch(args),
     }
 }

@@ -9,6 +9,8 @@ use reeve::model::PartKind;
 use reeve::report::study as writers;
 use reeve::study::{compare, rank, spread, sweep, RigSource};
 
+use super::progress::Bar;
+
 use super::args::{FormatArgs, RigArgs, SetArgs, UnitsArg};
 use super::destination::{emit, Destination};
 use super::{parse_sets, write_out, Failure, EXIT_CHECK_FAILED, EXIT_OK};
@@ -48,8 +50,9 @@ pub struct SweepArgs {
     )]
     pub vary: Option<String>,
     /// Move the drive forward through this travel instead (a length such as `500 mm`,
-    /// or an angle such as `90 deg` for a drum drive).
-    #[arg(long, value_name = "DISTANCE")]
+    /// or an angle such as `90 deg` for a drum drive); without a distance, over the
+    /// rig's `travel` from its back stop to its forward stop.
+    #[arg(long, value_name = "DISTANCE", num_args = 0..=1, default_missing_value = "")]
     pub stroke: Option<String>,
     /// Number of steps, both ends included for `--vary` (default 11; 10 for `--stroke`).
     #[arg(long)]
@@ -179,7 +182,7 @@ pub fn run_sweep(args: SweepArgs) -> Result<i32, Failure> {
     let steps = checked_steps(args.steps, if args.stroke.is_some() { 10 } else { 11 })?;
     let s = source(&args.rig)?;
     let (chart, write, fails): (String, Writer, bool) = if let Some(distance) = &args.stroke {
-        let mut st = sweep::stroke(&s, distance, steps, 8)?;
+        let mut st = sweep::stroke(&s, distance, steps, 8, &Bar::new("stroke"))?;
         (st.units, st.csv_units) = args.units.shown_in_csv(st.units);
         let fails = st.fails();
         (
@@ -190,7 +193,7 @@ pub fn run_sweep(args: SweepArgs) -> Result<i32, Failure> {
     } else {
         let text = args.vary.as_deref().unwrap_or_default();
         let vary = sweep::parse_vary(text)?;
-        let mut sw = sweep::sweep(&s, &vary, steps)?;
+        let mut sw = sweep::sweep(&s, &vary, steps, &Bar::new("sweep"))?;
         (sw.units, sw.csv_units) = args.units.shown_in_csv(sw.units);
         // A key that no step can take (no such part, a value in the wrong unit) is bad
         // input, not a table of dashes.
@@ -240,7 +243,7 @@ pub fn run_rank(args: RankArgs) -> Result<i32, Failure> {
                 })?;
         }
     }
-    let mut r = rank::rank(&s, alt.as_ref())?;
+    let mut r = rank::rank(&s, alt.as_ref(), &Bar::new("rank"))?;
     (r.units, r.csv_units) = args.units.shown_in_csv(r.units);
     write_out(|w| writers::rank::write(w, &r, format))?;
     Ok(exit_code(r.fails()))
@@ -259,7 +262,13 @@ pub fn run_spread(args: SpreadArgs) -> Result<i32, Failure> {
         )));
     }
     let s = source(&args.rig)?;
-    let mut r = spread::spread(&s, args.samples, args.seed, args.threads, true)?;
+    let mut r = spread::spread(
+        &s,
+        args.samples,
+        args.seed,
+        args.threads,
+        &Bar::new("spread"),
+    )?;
     (r.units, r.csv_units) = args.units.shown_in_csv(r.units);
     write_out(|w| writers::spread::write(w, &r, format))?;
     Ok(exit_code(r.fails()))

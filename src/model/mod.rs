@@ -4,6 +4,7 @@
 //! turned into ids, every quantity is in SI and radians; [`network`] holds the
 //! line-and-sheave graph and the independent sub-rigs.
 
+pub mod changing;
 pub mod network;
 pub mod param;
 
@@ -83,6 +84,9 @@ pub struct Rig {
     /// Whether the rig is meant to run back by itself (a lid that closes under its own
     /// weight); a self-locking result is then warned about. Key `runs_back`, default false.
     pub runs_back: bool,
+    /// What changes over the travel and over time: levers, springs, end stops, inertia,
+    /// schedules (DESIGN.md §7); empty for a rig without those keys.
+    pub changing: changing::Changing,
 }
 
 /// Good-practice limits.

@@ -397,7 +397,7 @@ pub fn write_html(
         write_table(w, &t, "material")?;
         writeln!(
             w,
-            "<p class=\"meta\">Forward case. Stretch: mean tension × length / EA. Tension at end: where the rope's weight makes the span's ends differ (the span table shows the tension at its start). Sag: the catenary's largest vertical distance below the chord, for spans within 45° of level.</p>\n</section>"
+            "<p class=\"meta\">Forward case. Stretch: mean tension × length / EA. Tension at end: where the rope's weight makes the span's ends differ (the span table shows the tension at its start). Sag: the catenary's largest vertical distance below the chord, the largest over the cases (the slackest case), for spans within 45° of level.</p>\n</section>"
         )?;
     }
 
@@ -496,6 +496,8 @@ pub fn write_html(
         writeln!(w, "</ul>")?;
     }
     writeln!(w, "</section>")?;
+
+    super::motion::write_html_section(w, rig)?;
 
     writeln!(
         w,

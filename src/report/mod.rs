@@ -12,6 +12,7 @@ pub mod format;
 pub mod html;
 pub mod loss;
 pub mod material;
+pub mod motion;
 pub mod study;
 pub mod svg;
 pub mod table;

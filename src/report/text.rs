@@ -296,7 +296,8 @@ pub fn drive_spring_words(h: &Headline, units: &UnitSystem) -> Option<(String, S
 
 /// The rope as a material (DESIGN.md §7), where a rope has `stiffness` or
 /// `mass_per_length`: lost travel and spring rate at the drive, then each span's
-/// stretch, end tensions and sag in the forward case.
+/// stretch and end tensions in the forward case, and its sag (the largest over the
+/// cases, as `sag_m`).
 fn write_material(w: &mut dyn Write, report: &Report, units: &UnitSystem) -> io::Result<()> {
     let spans: Vec<_> = report
         .spans
@@ -321,7 +322,7 @@ fn write_material(w: &mut dyn Write, report: &Report, units: &UnitSystem) -> io:
         writeln!(
             w,
             "  {:<10} {:>3}  {:<26} {:>12} {:>12} {:>12} {:>12}",
-            "line", "#", "from → to", "stretch", "T at start", "T at end", "sag"
+            "line", "#", "from → to", "stretch", "T at start", "T at end", "largest sag"
         )?;
         for s in spans {
             let (start, end) = s.tension_n.ends(crate::solve::Case::Forward);

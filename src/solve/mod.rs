@@ -6,9 +6,11 @@
 //! moving sub-rig needs exactly one haul end, which is then its drive and its unknown.
 
 pub mod bearing;
+pub mod changing;
 pub mod elastic;
 mod error;
 pub mod kinematics;
+pub mod motion;
 pub mod selfweight;
 pub mod statics;
 pub mod travel;

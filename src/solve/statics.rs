@@ -310,6 +310,8 @@ impl<'a> Problem<'a> {
                 }
                 _ => {}
             }
+            // Levers, springs and d'Alembert loads where the rig stands (DESIGN.md §7).
+            q_load[k] += super::changing::dof_load(rig, part, fwd);
         }
         let weight = RopeWeight::build(rig, geometry, &lines);
         let rope_load = weight.generalized_load(rig, geometry, kin, &lines, &dofs);
@@ -400,6 +402,19 @@ impl<'a> Problem<'a> {
     /// As [`Problem::solve`].
     pub fn solve_breakaway(&self, options: &SolveOptions) -> Result<CaseResult, SolveError> {
         self.solve_with(Case::Forward, options, true)
+    }
+
+    /// Solves the forward or back case with static coefficients (`mu_static`) where
+    /// given: the value at which the rig leaves rest that way (`motion`'s holding band).
+    ///
+    /// # Errors
+    /// As [`Problem::solve`].
+    pub fn solve_static(
+        &self,
+        case: Case,
+        options: &SolveOptions,
+    ) -> Result<CaseResult, SolveError> {
+        self.solve_with(case, options, true)
     }
 
     fn solve_with(

@@ -62,6 +62,20 @@ pub fn moved(rig: &Rig, velocities: &[(PartId, Vector)], dt: Real) -> Rig {
     r
 }
 
+/// Advances each moving part's offset from its drawn position
+/// ([`crate::model::changing::PartChanging::offset`]: m along its motion, rad of a
+/// drum's turn) by its speed in `rates` times `dt`: what the levers and springs read.
+/// Parts of `rig` keep their offsets; only the main sub-rig moves.
+pub fn advance_offsets(rig: &mut Rig, rates: &Solution, dt: Real) {
+    let main = rates.main().component;
+    let k = &rates.kinematics;
+    for (i, dof) in k.dofs.iter().enumerate() {
+        if rates.network.component_of[dof.part] == main {
+            rig.changing.of_mut(dof.part).offset += k.forward[i] * dt;
+        }
+    }
+}
+
 /// One step of the drive's travel by `dt` (m, or rad for a drum) from `rig`, whose
 /// solution is `current`, by the midpoint rule: the parts move half a step with the
 /// velocities at the start, the rig is solved there, and the velocities of that
@@ -77,10 +91,12 @@ pub fn midpoint_step<E>(
     mut solve: impl FnMut(&Rig) -> Result<Solution, E>,
 ) -> Result<(Rig, Solution), E> {
     let start = part_velocities(rig, current);
-    let half = moved(rig, &start, 0.5 * dt);
+    let mut half = moved(rig, &start, 0.5 * dt);
+    advance_offsets(&mut half, current, 0.5 * dt);
     let mid = solve(&half)?;
     let carry = part_velocities(&half, &mid);
-    let next = moved(rig, &carry, dt);
+    let mut next = moved(rig, &carry, dt);
+    advance_offsets(&mut next, &mid, dt);
     let solution = solve(&next)?;
     Ok((next, solution))
 }

@@ -24,6 +24,21 @@ pub mod rng;
 pub mod spread;
 pub mod sweep;
 
+/// Told how far a long study has got, for a progress bar: the library draws nothing
+/// itself (the command line shows a bar on a terminal only). Steps may be reported
+/// from several threads at once.
+pub trait Progress: Sync {
+    /// The study is about to make `total` runs.
+    fn start(&self, _total: usize) {}
+    /// One more run is done.
+    fn step(&self) {}
+    /// The study is done (also after an error).
+    fn finish(&self) {}
+}
+
+/// No progress shown.
+impl Progress for () {}
+
 use std::path::Path;
 
 use serde::Serialize;
@@ -435,7 +450,14 @@ pub fn largest_tension_of(subrigs: &[solve::SubRigSolution]) -> Option<Real> {
     fold_max(subrigs.iter().flat_map(|s| {
         [&s.forward, &s.back]
             .into_iter()
-            .flat_map(|c| c.tension.entries().flat_map(|(_, t)| t).copied())
+            // Both ends of every span: with rope weight the higher end is the tighter.
+            .flat_map(|c| {
+                c.tension
+                    .entries()
+                    .chain(c.tension_end.entries())
+                    .flat_map(|(_, t)| t)
+                    .copied()
+            })
     }))
 }
 

@@ -27,7 +27,7 @@ use crate::report::{finite, CAUTION};
 use crate::units::UnitSystem;
 
 use super::local::{self, Edit, Local, Subject};
-use super::{RigSource, StudyError, Verdict};
+use super::{Progress, RigSource, StudyError, Verdict};
 
 /// Friction coefficient of the `--to rolling` default: a deep-groove ball bearing's
 /// constant coefficient referred to the bore (from memory of rolling-bearing
@@ -478,12 +478,18 @@ impl Runs<'_> {
 ///
 /// # Errors
 /// When the rig as written does not load or solve.
-pub fn rank(source: &RigSource, alt: Option<&Alternative>) -> Result<Ranking, StudyError> {
+pub fn rank(
+    source: &RigSource,
+    alt: Option<&Alternative>,
+    progress: &dyn Progress,
+) -> Result<Ranking, StudyError> {
     let (rig, solution) = source.solve(&[])?;
     let runs = Runs {
         source,
         local: Local::new(source, &rig, &solution),
     };
+    let coefficients = coefficients_of(&rig, source);
+    progress.start(rig.parts.len() + coefficients.len());
     let main = solution.main();
     let f0 = main.forward.value;
     let sign = if main.drive_unknown() { -1.0 } else { 1.0 };
@@ -492,6 +498,7 @@ pub fn rank(source: &RigSource, alt: Option<&Alternative>) -> Result<Ranking, St
     let mut order = Vec::new();
     let mut parts = Vec::new();
     for (id, part) in rig.parts.iter().enumerate() {
+        progress.step();
         let Some(settings) = frictionless_settings(&rig, id) else {
             continue;
         };
@@ -554,7 +561,8 @@ pub fn rank(source: &RigSource, alt: Option<&Alternative>) -> Result<Ranking, St
     let parts = largest_first(parts, order);
     let mut sensitivities = Vec::new();
     let mut order = Vec::new();
-    for (c, subject) in coefficients_of(&rig, source) {
+    for (c, subject) in coefficients {
+        progress.step();
         let d = runs.derivative(&rig, subject, &c).ok().and_then(finite);
         let less = c.with_less_friction(SENSITIVITY_CUT);
         let cut = signed(runs.forward(&rig, subject, &c.key, less).ok());
@@ -575,6 +583,7 @@ pub fn rank(source: &RigSource, alt: Option<&Alternative>) -> Result<Ranking, St
     }
     // Largest saving first, as the ranking.
     let sensitivities = largest_first(sensitivities, order);
+    progress.finish();
     Ok(Ranking {
         solve_for: Asked::of(&rig, main),
         forward: finite(f0),

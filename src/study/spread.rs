@@ -6,8 +6,6 @@
 //! ([`Rng::stream`]), so the numbers do not depend on the number of threads.
 
 use std::collections::BTreeMap;
-use std::io::{self, IsTerminal};
-use std::sync::atomic::{AtomicBool, AtomicUsize, Ordering};
 
 use serde::Serialize;
 
@@ -20,7 +18,8 @@ use crate::units::UnitSystem;
 use super::local::Local;
 use super::rng::Rng;
 use super::{
-    assess, largest_tension, largest_tension_of, ModelSampler, RigSource, StudyError, Verdict,
+    assess, largest_tension, largest_tension_of, ModelSampler, Progress, RigSource, StudyError,
+    Verdict,
 };
 use crate::report::text::not_moving_words;
 
@@ -234,7 +233,7 @@ impl Spread {
 }
 
 /// Runs `samples` samples on `threads` threads (0: as many as the machine has),
-/// showing a progress bar on stderr when `progress` and stderr is a terminal.
+/// telling `progress` of each sample done.
 ///
 /// # Errors
 /// When the rig as written does not load or solve.
@@ -243,7 +242,7 @@ pub fn spread(
     samples: usize,
     seed: u64,
     threads: usize,
-    progress: bool,
+    progress: &dyn Progress,
 ) -> Result<Spread, StudyError> {
     let ranges = source.ranges()?;
     let (rig, nominal) = source.solve(&[])?;
@@ -267,25 +266,13 @@ pub fn spread(
         threads
     }
     .clamp(1, samples.max(1));
-    let done = AtomicUsize::new(0);
-    let finished = AtomicBool::new(false);
-    let show = progress && io::stderr().is_terminal() && samples >= 50;
     let mut results: Vec<Option<Sample>> = vec![None; samples];
+    progress.start(samples);
     std::thread::scope(|scope| {
-        let bar = show.then(|| {
-            scope.spawn(|| {
-                while !finished.load(Ordering::Relaxed) {
-                    draw_bar(done.load(Ordering::Relaxed), samples);
-                    std::thread::sleep(std::time::Duration::from_millis(100));
-                }
-                draw_bar(samples, samples);
-                eprintln!();
-            })
-        });
         // Thread t takes samples t, t + threads, ...; each sample uses its own stream.
         let chunks: Vec<Vec<(usize, Option<Sample>)>> = (0..threads)
             .map(|t| {
-                let (ranges, done, model, local) = (&ranges, &done, model.as_ref(), local.as_ref());
+                let (ranges, model, local) = (&ranges, model.as_ref(), local.as_ref());
                 scope.spawn(move || {
                     let mut work = None;
                     (t..samples)
@@ -294,7 +281,7 @@ pub fn spread(
                             let r = run_sample_on(
                                 source, model, local, &mut work, ranges, seed, i as u64,
                             );
-                            done.fetch_add(1, Ordering::Relaxed);
+                            progress.step();
                             (i, r)
                         })
                         .collect::<Vec<_>>()
@@ -304,14 +291,11 @@ pub fn spread(
             .into_iter()
             .map(|h| h.join().unwrap_or_default())
             .collect();
-        finished.store(true, Ordering::Relaxed);
-        if let Some(b) = bar {
-            let _ = b.join();
-        }
         for (i, r) in chunks.into_iter().flatten() {
             results[i] = r;
         }
     });
+    progress.finish();
     let nominal_report = assess(&rig, &nominal);
     let ok: Vec<Sample> = results.into_iter().flatten().collect();
     let judged: Vec<bool> = ok.iter().filter_map(|s| s.verdict.moves).collect();
@@ -362,16 +346,6 @@ pub fn spread(
         units: rig.units,
         csv_units: None,
     })
-}
-
-fn draw_bar(done: usize, total: usize) {
-    let width = 40;
-    let filled = (done * width).checked_div(total).unwrap_or(width);
-    eprint!(
-        "\r[{}{}] {done}/{total}",
-        "#".repeat(filled),
-        " ".repeat(width - filled.min(width))
-    );
 }
 
 #[cfg(test)]

@@ -20,7 +20,8 @@ use crate::solve::Solution;
 use crate::units::{parse_quantity, Dimension, UnitSystem};
 
 use super::{
-    largest_fleet_deg, largest_tension, number_and_unit, with_unit, RigSource, StudyError, Verdict,
+    largest_fleet_deg, largest_tension, number_and_unit, with_unit, Progress, RigSource,
+    StudyError, Verdict,
 };
 
 /// A value to vary: `KEY=FROM..TO`, the bounds in the unit written (or the file's).
@@ -149,7 +150,12 @@ impl Stroke {
 /// # Errors
 /// When the rig does not load as written, or both ends are equal over more than one
 /// step. Steps that fail carry their error.
-pub fn sweep(source: &RigSource, vary: &Vary, steps: usize) -> Result<Sweep, StudyError> {
+pub fn sweep(
+    source: &RigSource,
+    vary: &Vary,
+    steps: usize,
+    progress: &dyn Progress,
+) -> Result<Sweep, StudyError> {
     if vary.from == vary.to && steps > 1 {
         return Err(StudyError::Input(format!(
             "--vary `{}`: both ends are {}, so every step would be the same rig: nothing to sweep (give two different ends, or --steps 1)",
@@ -168,7 +174,9 @@ pub fn sweep(source: &RigSource, vary: &Vary, steps: usize) -> Result<Sweep, Stu
         .and_then(|&first| source.sampler(&base, &keys, &[first]));
     let mut solve_for = None;
     let mut out = Vec::new();
+    progress.start(values.len());
     for value in values {
+        progress.step();
         match source.solve_values(model.as_ref(), &keys, &[value]) {
             Ok((rig, solution)) => {
                 let main = solution.main();
@@ -194,6 +202,7 @@ pub fn sweep(source: &RigSource, vary: &Vary, steps: usize) -> Result<Sweep, Stu
             }),
         }
     }
+    progress.finish();
     Ok(Sweep {
         key: vary.key.clone(),
         unit: vary.unit.clone(),
@@ -224,9 +233,35 @@ pub struct StrokeStep {
     pub largest_tension_n: Option<Real>,
     /// Why the stroke ends here.
     pub error: Option<String>,
+    /// The drive's available value here (its given quantity), where the drive is the
+    /// asked part and its value is given.
+    #[serde(skip_serializing_if = "Option::is_none")]
+    pub available: Option<Real>,
+    /// A dead spot: `held` where the available drive no longer moves the rig forward
+    /// (friction holds it), `runs-back` where the load runs it back by itself.
+    #[serde(skip_serializing_if = "Option::is_none")]
+    pub dead_spot: Option<&'static str>,
     /// What `check` concludes at this position (empty where it could not be solved).
     #[serde(flatten)]
     pub verdict: Verdict,
+}
+
+/// Where the available drive leaves the rig at a position: held by friction, run back by
+/// its load, or (None) moving (or nothing to compare: no available value).
+fn dead_spot(rig: &Rig, s: &Solution) -> (Option<Real>, Option<&'static str>) {
+    let main = s.main();
+    if !main.drive_unknown() {
+        return (None, None);
+    }
+    let Some(given) = crate::solve::given_quantity(rig, main.drive) else {
+        return (None, None);
+    };
+    let spot = match main.outcome(given) {
+        crate::solve::Outcome::HeldStill => Some("held"),
+        crate::solve::Outcome::RunsBack => Some("runs-back"),
+        _ => None,
+    };
+    (Some(given), spot)
 }
 
 /// A stroke: the drive moved forward through its travel.
@@ -285,21 +320,53 @@ fn parse_travel(text: &str, rig: &Rig, rotates: bool) -> Result<Real, StudyError
 }
 
 /// Moves the drive forward through `distance` in `steps` equal steps, each split into
-/// `substeps` midpoint-rule sub-steps, solving at every step.
+/// `substeps` midpoint-rule sub-steps, solving at every step. An empty `distance` runs
+/// over the rig's `travel` (DESIGN.md §7): the rig is first moved back to its back stop,
+/// then through the whole travel to its forward stop; travel is still counted from the
+/// drawn position (negative before it).
 ///
 /// # Errors
 /// When the rig does not load or solve at its starting position, or the travel is not
-/// a length (an angle for a drum drive).
+/// a length (an angle for a drum drive), or no distance is given and the rig has no
+/// `travel`.
 pub fn stroke(
     source: &RigSource,
     distance: &str,
     steps: usize,
     substeps: usize,
+    progress: &dyn Progress,
 ) -> Result<Stroke, StudyError> {
-    let (mut rig, first) = source.solve(&[])?;
+    let (mut rig, mut first) = source.solve(&[])?;
     let drive = rig.drive;
     let rotates = travel::drive_rotates(&rig, &first);
-    let total = parse_travel(distance, &rig, rotates)?;
+    let mut start = 0.0;
+    let total = if distance.trim().is_empty() {
+        let Some(t) = rig.changing.travel else {
+            return Err(StudyError::Input(
+                "--stroke without a distance runs over the rig's `travel`, which this rig does not give: add `travel: {back: .., forward: ..}` or give a distance".to_string(),
+            ));
+        };
+        if t.back > 0.0 {
+            // To the back stop first, in the same small steps, unrecorded.
+            let n = (steps.max(1) * substeps.max(1)).max(8);
+            let dt = -t.back / n as Real;
+            for _ in 0..n {
+                let (r, s) = travel::midpoint_step(&rig, &first, dt, |r| source.solve_rig(r))
+                    .map_err(|e| {
+                        StudyError::Input(format!(
+                            "the rig cannot be moved back to its back stop: {}",
+                            e.chain()
+                        ))
+                    })?;
+                rig = r;
+                first = s;
+            }
+            start = -t.back;
+        }
+        t.back + t.forward
+    } else {
+        parse_travel(distance, &rig, rotates)?
+    };
     if total == 0.0 || !total.is_finite() {
         return Err(StudyError::Input(format!(
             "--stroke `{distance}`: expected a travel other than zero (negative moves the drive back)"
@@ -313,8 +380,11 @@ pub fn stroke(
     let record = |travel: Real, rig: &Rig, s: &Solution| {
         let main = s.main();
         let slack = !main.forward.slack.is_empty() || !main.back.slack.is_empty();
+        let (available, dead_spot) = dead_spot(rig, s);
         StrokeStep {
-            travel,
+            available,
+            dead_spot,
+            travel: start + travel,
             ideal: finite(main.ideal.value),
             forward: finite(main.forward.value),
             back: finite(main.back.value),
@@ -339,7 +409,9 @@ pub fn stroke(
     };
     out.push(record(0.0, &rig, &first));
     let mut current = first;
+    progress.start(steps);
     'outer: for step in 1..=steps {
+        progress.step();
         if out.last().is_some_and(|s: &StrokeStep| s.error.is_some()) {
             break;
         }
@@ -349,14 +421,14 @@ pub fn stroke(
                 match travel::midpoint_step(&rig, &current, dt, |r| source.solve_rig(r)) {
                     Ok(moved) => moved,
                     Err(e) => {
-                        out.push(failed(step as Real * total / steps as Real, e));
+                        out.push(failed(start + step as Real * total / steps as Real, e));
                         break 'outer;
                     }
                 };
             if let Some(closed) = travel::closed_span(&next_rig, &current, &next) {
                 // The figures past that point describe a rope through a part: none.
                 out.push(stopped(
-                    step as Real * total / steps as Real,
+                    start + step as Real * total / steps as Real,
                     closed_words(&next_rig, closed),
                 ));
                 break 'outer;
@@ -366,6 +438,7 @@ pub fn stroke(
         }
         out.push(record(step as Real * total / steps as Real, &rig, &current));
     }
+    progress.finish();
     Ok(Stroke {
         drive: rig.parts[drive].name.clone(),
         travel_unit: if rotates { "rad" } else { "m" },
@@ -394,6 +467,8 @@ fn stopped(travel: Real, why: String) -> StrokeStep {
         velocity_ratio: None,
         largest_fleet_deg: None,
         largest_tension_n: None,
+        available: None,
+        dead_spot: None,
         error: Some(why),
         verdict: Verdict::default(),
     }

@@ -178,6 +178,7 @@ fn rig(rope_diameter: Real, parts: Vec<Part>, paths: Vec<Vec<PathEntry>>) -> Rig
         drive: 0,
         solve_for: 0,
         runs_back: false,
+        changing: Default::default(),
     }
 }
 

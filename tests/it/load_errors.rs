@@ -864,3 +864,65 @@ fn cone_angle_errors_say_it_is_the_half_angle() {
     let e = fails(&text);
     assert_problem(&e, 16, &["cone_angle", "half-angle", "included angle"]);
 }
+
+#[test]
+fn travel_and_time_keys_are_checked_where_they_are_written() {
+    // DESIGN.md §7's keys: each bad value names its line, key and what was expected.
+    let e = fails(&with(
+        "load: {mass: 40}}",
+        "load: {mass: {schedule: [[0 s, 40 kg], [1 kg, 50 kg]]}}}",
+    ));
+    assert_problem(&e, 12, &["parts.hook.load.mass.schedule.1.0", "time"]);
+    let e = fails(&with(
+        "load: {mass: 40}}",
+        "load: {mass: {schedule: [[5 s, 40 kg], [1 s, 50 kg]]}}}",
+    ));
+    assert_problem(&e, 12, &["times must not decrease"]);
+    let e = fails(&with(
+        "load: {mass: 40}}",
+        "load: {mass: 40}, spring: {rate: 2 kg}}",
+    ));
+    assert_problem(&e, 12, &["parts.hook.spring.rate", "spring rate"]);
+    // A schedule only where a natural quantity is written; a lever only on a drum.
+    let e = fails(&with(
+        "diameter: 60,\n           bearing: {kind: plain",
+        "diameter: {schedule: [[0, 60]]},\n           bearing: {kind: plain",
+    ));
+    assert_problem(&e, 10, &["parts.head.diameter", "length"]);
+    let e = fails(&with(
+        "load: {mass: 40}}",
+        "load: {mass: 40}, lever: {mass: 2, arm: [1, 0, 0]}}",
+    ));
+    assert_problem(&e, 12, &["lever", "drum"]);
+    let e = fails(&format!("{EXAMPLE}travel: {{back: -5, forward: 100}}\n"));
+    assert_problem(&e, 20, &["travel.back", "0 or more"]);
+    let e = fails(&with(
+        "limits: {fleet_angle: 1.5, design_factor: 5}",
+        "limits: {fleet_angle: 1.5, design_factor: 5, stop_speed: fast}",
+    ));
+    assert_problem(&e, 5, &["limits.stop_speed", "speed"]);
+    // And the good spellings load: units of time, spring rate, inertia; an angle travel.
+    let rig = load_str(
+        &format!(
+            "{}travel: {{back: 0 mm, forward: 0.8 m}}\n",
+            with(
+                "load: {mass: 40}}",
+                "load: {mass: {schedule: [[0 s, 40 kg], [2 min, 45 kg], [1 h, 50 kg]]}}, spring: {rate: 2 N/mm, force: 3 N}}",
+            )
+            .replace("diameter: 60,\n           bearing: {kind: plain", "diameter: 60, inertia: 0.001 kg*m^2,\n           bearing: {kind: plain")
+        ),
+        "rig.yaml",
+    )
+    .unwrap_or_else(|e| panic!("{e}"));
+    let hook = rig.part_named("hook").unwrap();
+    let c = rig.changing.of(hook);
+    let s = c.schedule.as_ref().expect("schedule");
+    assert_eq!(s.points, vec![(0.0, 40.0), (120.0, 45.0), (3600.0, 50.0)]);
+    assert_eq!(c.spring.map(|s| (s.rate, s.preload)), Some((2000.0, 3.0)));
+    let t = rig.changing.travel.expect("travel");
+    assert_abs("travel forward, m", t.forward, 0.8, 1e-12);
+    let head = rig.part_named("head").unwrap();
+    assert_eq!(rig.changing.of(head).inertia, Some(0.001));
+    // Every other command takes the schedule's first value.
+    assert_eq!(reeve::solve::given_quantity(&rig, hook), Some(40.0));
+}

@@ -6,11 +6,14 @@ mod support;
 
 mod cli;
 mod dxf;
+mod figures;
 mod friction_published;
 mod generators;
 mod geometry;
 mod load_errors;
 mod material;
+mod material_warnings;
+mod motion;
 mod numerics;
 mod outputs;
 mod pin_loads_3d;

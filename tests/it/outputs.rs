@@ -382,7 +382,7 @@ fn browser() -> Option<PathBuf> {
 
 /// The headless browser; where none is installed, `None` (the caller skips its browser
 /// checks, saying so), unless `REEVE_REQUIRE_BROWSER=1` demands one (CI).
-fn browser_or_skip(skipped: &str) -> Option<PathBuf> {
+pub(crate) fn browser_or_skip(skipped: &str) -> Option<PathBuf> {
     let found = browser();
     if found.is_none() {
         if std::env::var("REEVE_REQUIRE_BROWSER").as_deref() == Ok("1") {
@@ -395,7 +395,7 @@ fn browser_or_skip(skipped: &str) -> Option<PathBuf> {
 
 /// A headless browser command with its own profile and the flags that keep it from
 /// reaching for the network (NOTES.md).
-fn headless(browser: &Path, profile: &Path) -> Command {
+pub(crate) fn headless(browser: &Path, profile: &Path) -> Command {
     let mut cmd = Command::new(browser);
     cmd.args([
         "--headless",
@@ -412,7 +412,7 @@ fn headless(browser: &Path, profile: &Path) -> Command {
 }
 
 /// Runs a command with a deadline; returns its stdout.
-fn run_with_deadline(mut cmd: Command, deadline: Duration) -> String {
+pub(crate) fn run_with_deadline(mut cmd: Command, deadline: Duration) -> String {
     let mut child = cmd
         .stdout(Stdio::piped())
         .stderr(Stdio::null())

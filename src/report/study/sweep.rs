@@ -225,6 +225,10 @@ pub fn write_stroke(w: &mut dyn Write, s: &Stroke, format: Format) -> io::Result
             format!("largest_tension_{}", force.symbol),
             "error".into(),
         ]);
+        let spots = s.steps.iter().any(|st| st.available.is_some());
+        if spots {
+            t.headers(vec![format!("available_{}", u.symbol), "dead_spot".into()]);
+        }
         t.headers(verdict_headers());
         for st in &s.steps {
             let mut row = vec![
@@ -240,6 +244,10 @@ pub fn write_stroke(w: &mut dyn Write, s: &Stroke, format: Format) -> io::Result
                 force.number(st.largest_tension_n),
                 st.error.clone().unwrap_or_default(),
             ];
+            if spots {
+                row.push(u.number(st.available));
+                row.push(st.dead_spot.unwrap_or_default().to_string());
+            }
             row.extend(verdict_csv(&st.verdict));
             t.text_row(row);
         }
@@ -256,6 +264,13 @@ pub fn write_stroke(w: &mut dyn Write, s: &Stroke, format: Format) -> io::Result
     ]);
     let verdicts: Vec<&Verdict> = s.steps.iter().map(|st| &st.verdict).collect();
     let margins = any_margin(&verdicts);
+    // The available drive and the dead spots, where the drive's value is given and
+    // something changes over the travel (DESIGN.md §7).
+    let spots = s.steps.iter().any(|st| st.dead_spot.is_some());
+    if spots {
+        t.header("available");
+        t.header("dead spot");
+    }
     if margins {
         t.header("margin");
     }
@@ -273,6 +288,14 @@ pub fn write_stroke(w: &mut dyn Write, s: &Stroke, format: Format) -> io::Result
                 .map_or("—".into(), |f| format!("{}°", number(Some(f), 3))),
             quantity(st.largest_tension_n, Dimension::Force, &s.units),
         ];
+        if spots {
+            row.push(quantity(st.available, d, &s.units));
+            row.push(match st.dead_spot {
+                Some("held") => "held: stops".to_string(),
+                Some(other) => other.to_string(),
+                None => String::new(),
+            });
+        }
         row.extend(verdict_cells(&st.verdict, margins, unsolved));
         t.text_row(row);
         if let Some(e) = &st.error {
@@ -322,10 +345,27 @@ pub fn stroke_chart(s: &Stroke) -> String {
             title: format!("The {qname} at {part} through the stroke"),
             x_label: x_label.clone(),
             y_label: format!("{qname} ({})", unit.symbol),
-            series: vec![
-                series("forward", &|st| st.forward.map(|v| v / unit.si)),
-                series("back", &|st| st.back.map(|v| v / unit.si)),
-            ],
+            series: {
+                let mut lines = vec![
+                    series("forward", &|st| st.forward.map(|v| v / unit.si)),
+                    series("back", &|st| st.back.map(|v| v / unit.si)),
+                ];
+                // The available drive, and its dead spots as marks on it.
+                if s.steps.iter().any(|st| st.available.is_some()) {
+                    lines.push(series("available", &|st| st.available.map(|v| v / unit.si)));
+                    lines.push(series("dead spot: held", &|st| {
+                        st.available
+                            .filter(|_| st.dead_spot == Some("held"))
+                            .map(|v| v / unit.si)
+                    }));
+                    lines.push(series("dead spot: runs back", &|st| {
+                        st.available
+                            .filter(|_| st.dead_spot == Some("runs-back"))
+                            .map(|v| v / unit.si)
+                    }));
+                }
+                lines
+            },
         },
         Panel {
             title: "Largest fleet angle".into(),

@@ -110,7 +110,7 @@ impl MaterialColumns {
             }
         }
         if self.weight {
-            t.column(format!("sag ({len})"), Align::Right);
+            t.column(format!("largest sag ({len})"), Align::Right);
         }
     }
 

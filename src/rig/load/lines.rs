@@ -1,6 +1,6 @@
 //! Resolution of one line: its rope and its path of part references.
 
-use super::keys::{get, join, Kind, ENTRY_KEYS, LINE_KEYS, MOST_TURNS};
+use super::keys::{get, join, key_names, Kind, ENTRY_KEYS, LINE_KEYS, MOST_TURNS, SIDES};
 use super::read::{hint_or_list, Names, Resolver};
 use crate::model::{Line, PathEntry, RopeId, Side};
 use crate::rig::file::{Entry, Node, Value};
@@ -14,7 +14,7 @@ pub(super) fn line(
     let path = join("lines", &e.key);
     let node = &e.value;
     let entries = r.mapping(node, &path, "a line `{rope, path: [...]}`")?;
-    r.keys(entries, &path, LINE_KEYS, "a line");
+    r.keys(entries, &path, &key_names(LINE_KEYS), "a line");
     let rope = r
         .require(
             entries,
@@ -100,7 +100,7 @@ pub(super) fn path_entry(
 ) -> Option<PathEntry> {
     let (name_node, fields) = match &item.value {
         Value::Map(fields) => {
-            r.keys(fields, path, ENTRY_KEYS, "a path entry");
+            r.keys(fields, path, &key_names(ENTRY_KEYS), "a path entry");
             (
                 r.require(fields, "part", path, item.location, "the part's name")?,
                 Some(fields.as_slice()),
@@ -149,7 +149,7 @@ pub(super) fn path_entry(
             }
         }
         if let Some(s) = get(fields, "side") {
-            match r.choice(s, &join(path, "side"), &["left", "right"], "side") {
+            match r.choice(s, &join(path, "side"), SIDES, "side") {
                 Some(0) => side = Some(Side::Left),
                 Some(_) => side = Some(Side::Right),
                 None => ok = false,

@@ -43,14 +43,18 @@ use crate::rig::error::{LoadError, Problem};
 use crate::rig::file::{parse_tree, Node, MAX_INPUT_BYTES};
 use crate::rig::overrides::{apply_overrides, read_variants, take_ranges, Uncertain, Variant};
 
+mod changing;
+mod key;
 mod keys;
 mod lines;
 mod parts;
 mod read;
+pub mod schema;
 mod top;
 
 pub use keys::default_min_bend_ratio;
 use keys::get;
+pub use schema::schema;
 use top::resolve;
 
 /// Reads and resolves the rig file at `path`.

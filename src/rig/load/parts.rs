@@ -1,6 +1,6 @@
 //! Resolution of one part: its kind's keys, sizes, bearings, shaft and load.
 
-use super::keys::{get, join, Kind, KINDS, LOAD_KEYS, SHAFT_KEYS};
+use super::keys::{get, join, key_names, Kind, KINDS, LOAD_KEYS, PART_KEYS, SHAFT_KEYS};
 use super::read::{Names, Resolver};
 use crate::math::Point;
 use crate::model::{
@@ -22,8 +22,8 @@ pub(super) fn part(
     let node = &e.value;
     let entries = r.mapping(node, &path, "a part `{kind, at, ...}`")?;
     let kind = kind?;
-    let mut allowed = vec!["kind", "at"];
-    allowed.extend_from_slice(kind.keys());
+    let mut allowed = key_names(PART_KEYS);
+    allowed.extend(key_names(kind.keys()));
     let context = format!("{} part", kind.a());
     for entry in entries
         .iter()
@@ -32,7 +32,7 @@ pub(super) fn part(
         // A key of another kind says so; otherwise suggest a close key.
         let owner = KINDS
             .iter()
-            .find(|(_, k)| k.keys().contains(&entry.key.as_str()));
+            .find(|(_, k)| k.keys().iter().any(|key| key.name == entry.key));
         let hint = did_you_mean(&entry.key, allowed.iter().copied());
         let message = match (owner, hint.is_empty()) {
             (Some((owner, _)), true) => format!(
@@ -81,6 +81,14 @@ pub(super) fn part(
             Some(b)
         }
         None => None,
+    };
+    r.part_changing(entries, &path, kind, &e.key);
+    // Only the natural quantity may be a `{schedule: ...}` (DESIGN.md §7).
+    let natural = |r: &mut Resolver, n: &Node, p: &str, d: Dimension| {
+        r.schedule_for = Some(e.key.clone());
+        let v = r.quantity(n, p, d);
+        r.schedule_for = None;
+        v
     };
     let part_kind = match kind {
         Kind::Anchor => Some(PartKind::Anchor),
@@ -132,7 +140,9 @@ pub(super) fn part(
                 None => Some(-r.gravity),
             };
             let mass = own_mass(r);
+            r.schedule_for = Some(e.key.clone());
             let (load, load_is_force) = block_load(r, entries, &path, at, is_unknown);
+            r.schedule_for = None;
             let moves = moves?;
             let load_stated = get(entries, "load").is_some();
             // An unknown block that states no load: a mass where one would do work
@@ -155,7 +165,7 @@ pub(super) fn part(
             let mass = match get(entries, "mass") {
                 Some(n) => {
                     let p = join(&path, "mass");
-                    let v = r.quantity(n, &p, Dimension::Mass);
+                    let v = natural(r, n, &p, Dimension::Mass);
                     r.check(v, n, &p, |v| v > 0.0, "a positive mass").map(Some)
                 }
                 None if is_unknown => Some(None),
@@ -179,9 +189,7 @@ pub(super) fn part(
             // problem in the part is reported.
             let shaft = get(entries, "shaft").map(|n| shaft(r, n, &join(&path, "shaft")));
             let torque = match get(entries, "torque") {
-                Some(n) => r
-                    .quantity(n, &join(&path, "torque"), Dimension::Torque)
-                    .map(Some),
+                Some(n) => natural(r, n, &join(&path, "torque"), Dimension::Torque).map(Some),
                 None if is_unknown => Some(None),
                 None => Some(Some(0.0)),
             };
@@ -219,7 +227,7 @@ pub(super) fn part(
             let force = match get(entries, "force") {
                 Some(n) => {
                     let p = join(&path, "force");
-                    let v = r.quantity(n, &p, Dimension::Force);
+                    let v = natural(r, n, &p, Dimension::Force);
                     r.check(
                         v,
                         n,
@@ -291,7 +299,7 @@ pub(super) fn block_load(
     let Some(load) = r.mapping(node, &p, "a load `{mass: m}` or `{force: f}`") else {
         return (None, false);
     };
-    r.keys(load, &p, LOAD_KEYS, "a block load");
+    r.keys(load, &p, &key_names(LOAD_KEYS), "a block load");
     let mass = load.iter().find(|x| x.key == "mass");
     let force = load.iter().find(|x| x.key == "force");
     let (key, entry, is_force) = match (mass, force) {
@@ -341,7 +349,7 @@ pub(super) fn block_load(
 
 pub(super) fn shaft(r: &mut Resolver, node: &Node, path: &str) -> Option<Shaft> {
     let entries = r.mapping(node, path, "a shaft `{bearing, thrust}`")?;
-    r.keys(entries, path, SHAFT_KEYS, "a shaft");
+    r.keys(entries, path, &key_names(SHAFT_KEYS), "a shaft");
     if get(entries, "bearing").is_none() && get(entries, "thrust").is_none() {
         r.report(
             node.location,

@@ -3,7 +3,10 @@
 
 use std::collections::HashMap;
 
-use super::keys::{get, join, Kind, BEARING_KINDS, GROOVE_KEYS, LARGEST, THRUST_KEYS};
+use super::keys::{
+    get, join, key_names, names_with_kind, Kind, BEARINGS, CONTACTS, GROOVE_KEYS, LARGEST,
+    THRUST_KEYS,
+};
 use crate::math::{Direction, Real, Vector};
 use crate::model::{Bearing, Contact, Location, Thrust};
 use crate::rig::error::Problem;
@@ -24,6 +27,11 @@ pub(super) struct Resolver {
     pub(super) gravity: Direction,
     pub(super) problems: Vec<Problem>,
     pub(super) dropped: usize,
+    /// The part whose natural quantity is being read: only there may a quantity be a
+    /// `{schedule: ...}` (DESIGN.md §7).
+    pub(super) schedule_for: Option<String>,
+    /// DESIGN.md §7 data per part name (levers, springs, inertia, schedules).
+    pub(super) changing: HashMap<String, crate::model::changing::PartChanging>,
 }
 
 impl Resolver {
@@ -128,6 +136,11 @@ impl Resolver {
         path: &str,
         dimension: Dimension,
     ) -> Option<Real> {
+        if node.entries().is_some() {
+            if let Some(part) = self.schedule_for.clone() {
+                return self.schedule(node, path, dimension, &part);
+            }
+        }
         let unit = self.units.unit(dimension);
         let example = example(dimension);
         let value = match (&node.value, node.plain_number()) {
@@ -451,7 +464,7 @@ impl Resolver {
         let node = get(entries, "groove")?;
         let p = join(path, "groove");
         let g = self.mapping(node, &p, "a groove `{angle: degrees}`")?;
-        self.keys(g, &p, GROOVE_KEYS, "a groove");
+        self.keys(g, &p, &key_names(GROOVE_KEYS), "a groove");
         let a = self.require(
             g,
             "angle",
@@ -481,20 +494,17 @@ impl Resolver {
             node.location,
             "a bearing kind: plain, rolling, rated or none",
         )?;
-        let kind = self.choice(
-            kind_node,
-            &join(path, "kind"),
-            BEARING_KINDS,
-            "bearing kind",
-        )?;
-        match BEARING_KINDS[kind] {
+        let kinds: Vec<&str> = BEARINGS.iter().map(|b| b.name).collect();
+        let kind = self.choice(kind_node, &join(path, "kind"), &kinds, "bearing kind")?;
+        let bearing = &BEARINGS[kind];
+        let allowed = names_with_kind(bearing.object.keys);
+        let context = match bearing.name {
+            "none" => "a bearing of kind none".to_string(),
+            name => format!("a {name} bearing"),
+        };
+        match bearing.name {
             "plain" => {
-                self.keys(
-                    entries,
-                    path,
-                    &["kind", "pin_diameter", "mu", "mu_static"],
-                    "a plain bearing",
-                );
+                self.keys(entries, path, &allowed, &context);
                 let pin_diameter = self.size(entries, "pin_diameter", path, node.location);
                 let mu = self.mu(entries, "mu", path, node.location);
                 let mu_static = self.opt_mu(entries, "mu_static", path);
@@ -505,7 +515,7 @@ impl Resolver {
                 })
             }
             "rolling" => {
-                self.keys(entries, path, &["kind", "bore", "mu"], "a rolling bearing");
+                self.keys(entries, path, &allowed, &context);
                 let bore = self.size(entries, "bore", path, node.location);
                 let mu = self.mu(entries, "mu", path, node.location);
                 Some(Bearing::Rolling {
@@ -514,12 +524,7 @@ impl Resolver {
                 })
             }
             "rated" => {
-                self.keys(
-                    entries,
-                    path,
-                    &["kind", "factor", "efficiency"],
-                    "a rated bearing",
-                );
+                self.keys(entries, path, &allowed, &context);
                 match (get(entries, "factor"), get(entries, "efficiency")) {
                     (Some(f), None) => {
                         let p = join(path, "factor");
@@ -555,7 +560,7 @@ impl Resolver {
                 }
             }
             _ => {
-                self.keys(entries, path, &["kind"], "a bearing of kind none");
+                self.keys(entries, path, &allowed, &context);
                 Some(Bearing::None)
             }
         }
@@ -578,7 +583,7 @@ impl Resolver {
                 "a thrust bearing `{diameter, mu, contact: new|worn, load?}`"
             },
         )?;
-        self.keys(entries, path, THRUST_KEYS, "a thrust bearing");
+        self.keys(entries, path, &key_names(THRUST_KEYS), "a thrust bearing");
         let at = node.location;
         let load = if !load_required {
             Some(
@@ -617,7 +622,7 @@ impl Resolver {
                 at,
                 "`new` (uniform pressure) or `worn` (uniform wear)",
             )
-            .and_then(|n| self.choice(n, &join(path, "contact"), &["new", "worn"], "contact"))
+            .and_then(|n| self.choice(n, &join(path, "contact"), CONTACTS, "contact"))
             .map(|i| if i == 0 { Contact::New } else { Contact::Worn });
         let cone_angle = match get(entries, "cone_angle") {
             Some(n) => {
@@ -744,5 +749,9 @@ pub(super) fn example(dimension: Dimension) -> &'static str {
         Dimension::Mass => "40 kg",
         Dimension::Torque => "1.2 N*m",
         Dimension::MassPerLength => "0.25 kg/m",
+        Dimension::Time => "5 min",
+        Dimension::SpringRate => "2 N/mm",
+        Dimension::TorsionRate => "0.5 N*m/rad",
+        Dimension::Inertia => "0.02 kg*m^2",
     }
 }

@@ -5,8 +5,8 @@ use std::collections::HashMap;
 use std::path::Path;
 
 use super::keys::{
-    default_min_bend_ratio, get, join, Kind, KINDS, LIMIT_KEYS, ROPE_KEYS, ROPE_KINDS, TOP_KEYS,
-    UNIT_KEYS,
+    default_min_bend_ratio, get, join, key_names, Kind, KINDS, LIMIT_KEYS, ROPE_KEYS, ROPE_KINDS,
+    TOP_KEYS, UNIT_KEYS,
 };
 use super::lines::line;
 use super::parts::{default_torque, part};
@@ -25,6 +25,8 @@ pub(super) fn resolve(root: &Node, source: &str) -> Result<Rig, Vec<Problem>> {
         gravity: -Vector::z_axis(),
         problems: Vec::new(),
         dropped: 0,
+        schedule_for: None,
+        changing: HashMap::new(),
     };
     let Some(top) = r.mapping(
         root,
@@ -33,7 +35,7 @@ pub(super) fn resolve(root: &Node, source: &str) -> Result<Rig, Vec<Problem>> {
     ) else {
         return Err(r.problems);
     };
-    r.keys(top, "", TOP_KEYS, "a rig file");
+    r.keys(top, "", &key_names(TOP_KEYS), "a rig file");
     let here = root.location;
     if let Some(n) = get(top, "variants") {
         r.problems.extend(read_variants(n).1);
@@ -80,7 +82,7 @@ pub(super) fn resolve(root: &Node, source: &str) -> Result<Rig, Vec<Problem>> {
     let mut torque_stated = false;
     if let Some(n) = get(top, "units") {
         if let Some(entries) = r.mapping(n, "units", "a mapping `{length, force, mass, torque}`") {
-            r.keys(entries, "units", UNIT_KEYS, "units");
+            r.keys(entries, "units", &key_names(UNIT_KEYS), "units");
             for (key, dim) in [
                 ("length", Dimension::Length),
                 ("force", Dimension::Force),
@@ -106,7 +108,7 @@ pub(super) fn resolve(root: &Node, source: &str) -> Result<Rig, Vec<Problem>> {
                         Dimension::Force => r.units.force = unit,
                         Dimension::Mass => r.units.mass = unit,
                         Dimension::Torque => r.units.torque = unit,
-                        Dimension::MassPerLength => {}
+                        _ => {}
                     },
                     Err(e) => r.report(u.location, p, e.to_string()),
                 }
@@ -134,9 +136,10 @@ pub(super) fn resolve(root: &Node, source: &str) -> Result<Rig, Vec<Problem>> {
 
     // limits
     let mut limits = Limits::default();
+    let mut stop_speed = None;
     if let Some(n) = get(top, "limits") {
         if let Some(entries) = r.mapping(n, "limits", "a mapping `{fleet_angle, design_factor}`") {
-            r.keys(entries, "limits", LIMIT_KEYS, "limits");
+            r.keys(entries, "limits", &key_names(LIMIT_KEYS), "limits");
             if let Some(f) = get(entries, "fleet_angle") {
                 let v = r.angle(f, "limits.fleet_angle");
                 if let Some(v) = r.check(
@@ -148,6 +151,9 @@ pub(super) fn resolve(root: &Node, source: &str) -> Result<Rig, Vec<Problem>> {
                 ) {
                     limits.fleet_angle = v;
                 }
+            }
+            if let Some(n) = get(entries, "stop_speed") {
+                stop_speed = r.stop_speed(n);
             }
             if let Some(d) = get(entries, "design_factor") {
                 let v = r.number(d, "limits.design_factor", "a design factor (1 or more)");
@@ -277,6 +283,22 @@ pub(super) fn resolve(root: &Node, source: &str) -> Result<Rig, Vec<Problem>> {
         }
     }
 
+    // travel (DESIGN.md §7): an angle for a drum drive, else a length.
+    let travel = get(top, "travel").and_then(|n| {
+        let turns = drive.is_some_and(|d| names.kinds[d] == Some(Kind::Drum));
+        r.travel(n, turns)
+    });
+    let mut changing = crate::model::changing::Changing {
+        travel,
+        stop_speed,
+        parts: Vec::new(),
+    };
+    for (i, name) in names.names.iter().enumerate() {
+        if let Some(data) = r.changing.remove(name) {
+            *changing.of_mut(i) = data;
+        }
+    }
+
     if r.dropped > 0 {
         r.problems.push(more_problems(r.dropped));
     }
@@ -295,6 +317,7 @@ pub(super) fn resolve(root: &Node, source: &str) -> Result<Rig, Vec<Problem>> {
             drive: drive?,
             solve_for: solve_for?,
             runs_back,
+            changing,
         })
     })();
     assembled.ok_or_else(|| {
@@ -335,7 +358,7 @@ pub(super) fn rope(r: &mut Resolver, e: &Entry) -> Option<Rope> {
         &path,
         "a rope `{diameter, mu, breaking_strength?, min_bend_ratio?, bend_loss?, kind?, stiffness?, mass_per_length?}`",
     )?;
-    r.keys(entries, &path, ROPE_KEYS, "a rope");
+    r.keys(entries, &path, &key_names(ROPE_KEYS), "a rope");
     let at = node.location;
     let diameter = r.size(entries, "diameter", &path, at);
     let breaking_strength = match get(entries, "breaking_strength") {

@@ -259,6 +259,12 @@ impl Problem<'_> {
                 let fwd = self.kin.dof_of_part[id]
                     .map(|i| self.kin.forward[i])
                     .unwrap_or(0.0);
+                // A lever's and a spring's torque against forward turning (DESIGN.md §7).
+                let load = if id == self.drive {
+                    load
+                } else {
+                    load - fwd.signum() * crate::solve::changing::dof_load(rig, id, fwd)
+                };
                 drums[lp] = Some(DrumTorques {
                     rope: torque * dir,
                     load: load * if fwd * speed >= 0.0 { 1.0 } else { -1.0 },

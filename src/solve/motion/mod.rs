@@ -1,0 +1,370 @@
+//! `motion`: the rig in time, from rest at its drawn position (DESIGN.md §7).
+//!
+//! The rig is taken as a one-degree-of-freedom mechanism along the drive's motion. Its
+//! figures over the travel come from the quasi-static solver ([`profile`]): the running
+//! forward and back values, the holding band with static coefficients, the inertia of
+//! every moving part as the drive feels it through the friction of each case. The
+//! [`integrate`] module moves it in time under the drive's value (constant, or its
+//! schedule). [`strokes`] and the warnings turn the run into strokes and warnings.
+//!
+//! Where the ropes give `stiffness` and the drive is a weight, [`two`] adds the second
+//! degree of freedom: the drive weight on the rope's spring rate at the drive. Not yet
+//! here: the second degree of freedom for a drum drive, and schedules on parts other
+//! than the drive (held at their first value, with a warning).
+
+pub mod integrate;
+pub mod profile;
+pub mod two;
+
+use crate::math::Real;
+use crate::model::{PartKind, Rig};
+use crate::solve::{given_quantity, Quantity, SolveError, SolveOptions};
+
+pub use integrate::{DriveValue, Energy, Event, EventKind, Point, Run, Settings};
+pub use profile::Profile;
+
+/// Settings of a motion run, with defaults.
+#[derive(Debug, Clone, Copy, PartialEq)]
+pub struct MotionOptions {
+    /// Run length, s; None: the schedule's last time × 1.5 + 10 s (60 s without one).
+    pub duration: Option<Real>,
+    /// Sampled intervals over the travel (default 200).
+    pub intervals: usize,
+    /// Largest time step in motion, s; None: duration / 2000.
+    pub max_step: Option<Real>,
+    /// Scale of the integrator's tolerances (default 1).
+    pub tolerance_scale: Real,
+    /// The solver's settings.
+    pub solve: SolveOptions,
+}
+
+impl Default for MotionOptions {
+    fn default() -> Self {
+        MotionOptions {
+            duration: None,
+            intervals: 200,
+            max_step: None,
+            tolerance_scale: 1.0,
+            solve: SolveOptions::default(),
+        }
+    }
+}
+
+/// Why there is no run.
+#[derive(Debug, Clone, thiserror::Error)]
+pub enum MotionError {
+    /// The drive has no value to move the rig with.
+    #[error("the drive `{part}` has no {quantity} to move the rig with: give it one (or a `{{schedule: [[t, q], ...]}}`) for `motion`")]
+    NoDriveValue {
+        /// The drive.
+        part: String,
+        /// Its quantity's name.
+        quantity: &'static str,
+    },
+    /// The rig cannot be solved somewhere on its travel.
+    #[error(
+        "at drive position {position} (m or rad from the drawn position) the rig cannot be solved"
+    )]
+    Solve {
+        /// Where.
+        position: Real,
+        /// Why.
+        #[source]
+        source: SolveError,
+    },
+}
+
+/// One stroke: a run in one direction from leaving rest until it stays at rest or turns
+/// round; it may stop and set off again the same way (stick-slip) in between.
+#[derive(Debug, Clone, Copy, PartialEq)]
+pub struct Stroke {
+    /// +1 forward, −1 back.
+    pub direction: Real,
+    /// Start time, s.
+    pub start: Real,
+    /// End time, s.
+    pub end: Real,
+    /// Largest speed, m/s or rad/s.
+    pub peak_speed: Real,
+    /// Largest span tension, N.
+    pub peak_tension: Real,
+    /// Times it stopped and set off again the same way within the stroke.
+    pub stick_slip_cycles: usize,
+    /// Whether it ended at an end stop, and the speed it hit it with.
+    pub stop_speed: Option<Real>,
+    /// The lag: from the drive value's last turn before the start (its latest least
+    /// value for a forward stroke, greatest for a back stroke, since the previous
+    /// stroke ended) to the start, s; None for a constant drive.
+    pub lag: Option<Real>,
+}
+
+/// A warning of the motion run.
+#[derive(Debug, Clone, PartialEq)]
+pub struct Warning {
+    /// Stable code.
+    pub code: &'static str,
+    /// Text.
+    pub message: String,
+}
+
+/// The motion of a rig.
+#[derive(Debug, Clone, PartialEq)]
+pub struct Motion {
+    /// The drive's name.
+    pub drive: String,
+    /// The drive's quantity.
+    pub quantity: Quantity,
+    /// The profile over the travel.
+    pub profile: Profile,
+    /// The run.
+    pub run: Run,
+    /// Run length, s.
+    pub duration: Real,
+    /// The strokes.
+    pub strokes: Vec<Stroke>,
+    /// Warnings.
+    pub warnings: Vec<Warning>,
+    /// The drive value over time.
+    pub drive_value: DriveValue,
+    /// The spring rate joining drive side and rig side, where the run has two degrees of
+    /// freedom (a stretchy rope and a drive weight).
+    pub two_dof: Option<Real>,
+}
+
+/// Runs `rig` in time.
+///
+/// # Errors
+/// [`MotionError`] when the drive has no value or the rig cannot be solved on its travel.
+pub fn motion(rig: &Rig, options: &MotionOptions) -> Result<Motion, MotionError> {
+    let mut rig = rig.clone();
+    rig.solve_for = rig.drive;
+    let drive = rig.drive;
+    let name = rig.parts[drive].name.clone();
+    let schedule = rig.changing.of(drive).schedule.clone();
+    let drive_value = match (schedule, given_quantity(&rig, drive)) {
+        (Some(s), _) => DriveValue::Scheduled(s),
+        (None, Some(v)) => DriveValue::Constant(v),
+        (None, None) => {
+            let quantity =
+                crate::solve::natural_quantity(&rig, drive).map_or("value", |q| q.name());
+            return Err(MotionError::NoDriveValue {
+                part: name,
+                quantity,
+            });
+        }
+    };
+    // The statics needs the drive's value unknown: it asks what value moves it.
+    match &mut rig.parts[drive].kind {
+        PartKind::Haul(h) => h.force = None,
+        PartKind::Weight(w) => w.mass = None,
+        PartKind::Drum(d) => d.torque = None,
+        PartKind::Block(b) => {
+            b.load = match b.load {
+                crate::model::BlockLoad::Mass(_) => crate::model::BlockLoad::Mass(None),
+                crate::model::BlockLoad::Force(_) => crate::model::BlockLoad::Force(None),
+            }
+        }
+        _ => {}
+    }
+    let profile = profile::build(&rig, options.intervals, &options.solve)
+        .map_err(|(position, source)| MotionError::Solve { position, source })?;
+    let duration = options.duration.unwrap_or(match &drive_value {
+        DriveValue::Scheduled(s) => s.end() * 1.5 + 10.0,
+        DriveValue::Constant(_) => 60.0,
+    });
+    let settings = Settings {
+        duration,
+        max_step: options.max_step.unwrap_or(duration / 2000.0).max(1e-6),
+        tolerance_scale: options.tolerance_scale,
+    };
+    // A stretchy rope and a drive weight: drive side and rig side joined by the spring.
+    let two_dof = profile.drive_stiffness.filter(|_| profile.drive_is_weight);
+    let run = match two_dof {
+        Some(k) => two::run(&profile, &drive_value, &settings, k, None),
+        None => integrate::run(&profile, &drive_value, &settings),
+    };
+    let mut strokes = strokes(&run);
+    if let DriveValue::Scheduled(s) = &drive_value {
+        let mut since = 0.0;
+        for stroke in &mut strokes {
+            stroke.lag = lag(s, since, stroke.start, stroke.direction);
+            since = stroke.end;
+        }
+    }
+    let mut warnings = warnings(&rig, &profile, &run, &strokes);
+    for (p, part) in rig.parts.iter().enumerate() {
+        if p != drive && rig.changing.of(p).schedule.is_some() {
+            warnings.push(Warning {
+                code: "schedule-held",
+                message: format!(
+                    "`{}` has a schedule, but motion follows only the drive's (`{name}`): `{}` is held at its first value",
+                    part.name, part.name
+                ),
+            });
+        }
+    }
+    let reached = run.points.last().map_or(0.0, |p| p.t);
+    if reached < duration * (1.0 - 1e-9) {
+        warnings.push(Warning {
+            code: "step-limit",
+            message: format!(
+                "the run stopped at {reached:.3} s of {duration:.3} s: it took more steps than the integrator allows (a very stiff rope on a light drive swings fast); shorten --duration"
+            ),
+        });
+    }
+    if profile.stops.is_none() {
+        warnings.push(Warning {
+            code: "no-travel",
+            message: "the rig gives no `travel`: its loads are held as at the drawn position and it has no end stops".to_string(),
+        });
+    }
+    Ok(Motion {
+        drive: name,
+        quantity: profile.quantity,
+        profile,
+        run,
+        duration,
+        strokes,
+        warnings,
+        drive_value,
+        two_dof,
+    })
+}
+
+/// From the schedule's latest extreme in `[since, start]` (least for a forward stroke,
+/// greatest for a back one; a schedule's extremes lie at its points) to `start`.
+fn lag(
+    schedule: &crate::model::changing::Schedule,
+    since: Real,
+    start: Real,
+    direction: Real,
+) -> Option<Real> {
+    let mut best: Option<(Real, Real)> = None;
+    let candidates = schedule
+        .times()
+        .filter(|&t| t >= since && t <= start)
+        .chain([since]);
+    for t in candidates {
+        let q = schedule.at(t) * -direction;
+        // The latest of the greatest `-direction·q`: ties go to the later time.
+        if best.map_or(true, |(bq, bt)| {
+            q > bq + 1e-12 * bq.abs() || (q >= bq - 1e-12 * bq.abs() && t > bt)
+        }) {
+            best = Some((q, t));
+        }
+    }
+    best.map(|(_, t)| start - t)
+}
+
+/// The strokes of a run: from each start until the rig stays at rest (a stop, or a stop
+/// in the open not followed by a start the same way) or turns round.
+pub fn strokes(run: &Run) -> Vec<Stroke> {
+    let mut out: Vec<Stroke> = Vec::new();
+    let mut current: Option<Stroke> = None;
+    for e in &run.events {
+        match e.kind {
+            EventKind::StartsForward | EventKind::StartsBack => {
+                if let Some(s) = current.take() {
+                    out.push(s);
+                }
+                current = Some(Stroke {
+                    direction: if e.kind == EventKind::StartsForward {
+                        1.0
+                    } else {
+                        -1.0
+                    },
+                    start: e.t,
+                    end: e.t,
+                    peak_speed: 0.0,
+                    peak_tension: 0.0,
+                    stick_slip_cycles: 0,
+                    stop_speed: None,
+                    lag: None,
+                });
+            }
+            EventKind::Slips => {
+                if let Some(s) = current.as_mut() {
+                    s.stick_slip_cycles += 1;
+                }
+            }
+            EventKind::Stops | EventKind::Sticks => {
+                if let Some(s) = current.as_mut() {
+                    s.end = e.t;
+                }
+            }
+            EventKind::ReachesForwardStop | EventKind::ReachesBackStop => {
+                if let Some(s) = current.as_mut() {
+                    s.end = e.t;
+                    s.stop_speed = Some(e.speed.abs());
+                }
+            }
+        }
+    }
+    if let Some(s) = current.take() {
+        out.push(s);
+    }
+    // A stroke still moving at the end of the run ends there.
+    let t_end = run.points.last().map_or(0.0, |p| p.t);
+    for s in &mut out {
+        let still = run.events.iter().filter(|e| e.t >= s.start).all(|e| {
+            matches!(
+                e.kind,
+                EventKind::StartsForward | EventKind::StartsBack | EventKind::Slips
+            ) && (e.t == s.start || e.kind == EventKind::Slips)
+        });
+        if still {
+            s.end = t_end;
+        }
+        for p in run.points.iter().filter(|p| p.t >= s.start && p.t <= s.end) {
+            s.peak_speed = s.peak_speed.max(p.v.abs());
+            s.peak_tension = s.peak_tension.max(p.tension);
+        }
+        // The output points are sparser than the steps: the impact speed is exact.
+        s.peak_speed = s.peak_speed.max(s.stop_speed.unwrap_or(0.0));
+    }
+    out
+}
+
+fn warnings(rig: &Rig, profile: &Profile, run: &Run, strokes: &[Stroke]) -> Vec<Warning> {
+    let mut out = Vec::new();
+    let unit = if profile.rotates { "rad/s" } else { "m/s" };
+    if let Some(s) = strokes.iter().find(|s| s.stick_slip_cycles > 0) {
+        out.push(Warning {
+            code: "jerky-motion",
+            message: format!(
+                "the stroke starting at {:.3} s stops and sets off again {} time(s): the motion is jerky (stick-slip)",
+                s.start, s.stick_slip_cycles
+            ),
+        });
+    }
+    if let Some(limit) = rig.changing.stop_speed {
+        for s in strokes {
+            if let Some(v) = s.stop_speed.filter(|v| *v > limit) {
+                out.push(Warning {
+                    code: "stop-speed",
+                    message: format!(
+                        "the stroke starting at {:.3} s hits its end stop at {v:.4} {unit}, faster than limits.stop_speed {limit:.4} {unit}",
+                        s.start
+                    ),
+                });
+            }
+        }
+    }
+    if let Some(allowed) = profile.allowed_tension {
+        let peak = run.points.iter().map(|p| p.tension).fold(0.0, Real::max);
+        let static_peak = profile
+            .samples
+            .iter()
+            .map(|s| s.static_tension)
+            .fold(0.0, Real::max);
+        if peak > allowed {
+            out.push(Warning {
+                code: "dynamic-tension",
+                message: format!(
+                    "a span tension reaches {peak:.1} N in motion (the static check's largest is {static_peak:.1} N), beyond the breaking strength over the design factor ({allowed:.1} N)"
+                ),
+            });
+        }
+    }
+    out
+}
