@@ -665,6 +665,23 @@ impl<'a> Problem<'a> {
     /// The rig's spring rate at the drive ([`super::elastic::drive_stiffness`]): every
     /// part with a load (or the asked quantity) held, the others free.
     pub fn drive_stiffness(&self) -> Option<Real> {
+        super::elastic::drive_stiffness(&self.spring_input()?)
+    }
+
+    /// The lost travel at the drive from the just-taut to the loaded rig, by the
+    /// unit-load method over the stretches of `case` ([`super::elastic::lost_travel`]).
+    pub fn lost_travel(&self, case: &CaseResult) -> Option<Real> {
+        let ea = |l: LineId| self.rig.rope_of(l).stiffness;
+        super::elastic::lost_travel(&self.spring_input()?, |l, j| {
+            let (a, b) = (case.tension[l].get(j)?, case.tension_end[l].get(j)?);
+            let s = &self.geometry.lines[l].spans[j];
+            Some(super::elastic::span_stretch(*a, *b, s.length, ea(l)?))
+        })
+    }
+
+    /// What the spring solve needs: the sub-rig's segments and motions, the drive's
+    /// motion, and which motions are held (a part with a load, or the asked quantity).
+    fn spring_input(&self) -> Option<super::elastic::SpringInput<'_>> {
         let drive = self
             .dofs
             .iter()
@@ -672,14 +689,14 @@ impl<'a> Problem<'a> {
         let held: Vec<bool> = (0..self.dofs.len())
             .map(|k| self.q_load[k] != 0.0 || self.x_coef[k] != 0.0 || self.rope_load[k] != 0.0)
             .collect();
-        super::elastic::drive_stiffness(&super::elastic::SpringInput {
+        Some(super::elastic::SpringInput {
             rig: self.rig,
             geometry: self.geometry,
             kin: self.kin,
             segs: &self.segs,
             dofs: &self.dofs,
             drive,
-            held: &held,
+            held,
         })
     }
 
