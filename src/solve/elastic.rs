@@ -230,7 +230,7 @@ pub struct SpringInput<'a> {
     /// Position of the drive in `dofs`.
     pub drive: usize,
     /// Per position in `dofs`: whether the part is held (it carries a load).
-    pub held: &'a [bool],
+    pub held: Vec<bool>,
 }
 
 /// The rig's spring rate at the drive, N/m (or N·m/rad for a drum), frictionless:
@@ -248,6 +248,12 @@ pub struct SpringInput<'a> {
 /// Returns None when no rope of the sub-rig has a stiffness, or the system is singular
 /// (a free part that nothing holds).
 pub fn drive_stiffness(input: &SpringInput) -> Option<Real> {
+    drive_spring(input).map(|(k, _)| k)
+}
+
+/// [`drive_stiffness`] and, beside it, each segment's tension per unit of drive travel
+/// `τ_g` (in the order of `input.segs`): the solve's own unknowns.
+fn drive_spring(input: &SpringInput) -> Option<(Real, Vec<Real>)> {
     let SpringInput {
         rig,
         geometry,
@@ -298,7 +304,33 @@ pub fn drive_stiffness(input: &SpringInput) -> Option<Real> {
     }
     let x = svd.solve(&rhs, 1e-10 * scale).ok()?;
     let k: Real = (0..ns).map(|g| rows[(g, *drive)] * x[g]).sum();
-    (k.is_finite() && k > 0.0).then_some(k)
+    (k.is_finite() && k > 0.0).then(|| (k, x.iter().take(ns).copied().collect()))
+}
+
+/// The lost travel at the drive, m (or rad), by the unit-load method: a unit force at
+/// the drive, every loaded part held, puts `n_g = τ_g / k` in segment `g`
+/// ([`drive_spring`]), and the drive moves by `δ = Σ_g n_g·e_g`, `e_g` the segment's
+/// stretch in the loaded rig (`stretch(line, span)` summed over its spans: the mean
+/// tension times `L/EA`, so a rope's own weight counts as it hangs, half a span's weight
+/// at each end). For one rope from the drive to a held load, `n = 1` and `δ` is the
+/// rope's stretch `(T_b·L + w·g·L²/2)/EA` (Gere & Goodno, *Mechanics of Materials*,
+/// §2.3 and §2.8, the unit-load method). Where every tension is in proportion to the
+/// drive's value and the ropes are weightless it equals `F/k` and Castigliano's
+/// [`castigliano_lost_travel`]. None where [`drive_stiffness`] is.
+pub fn lost_travel(
+    input: &SpringInput,
+    stretch: impl Fn(LineId, usize) -> Option<Real>,
+) -> Option<Real> {
+    let (k, tau) = drive_spring(input)?;
+    let mut travel = 0.0;
+    for (c, &g) in input.segs.iter().enumerate() {
+        let seg = input.kin.segments[g];
+        let e: Real = (seg.first..seg.last)
+            .map(|j| stretch(seg.line, j).unwrap_or(0.0))
+            .sum();
+        travel += tau[c] / k * e;
+    }
+    (travel.is_finite()).then_some(travel.abs())
 }
 
 /// The lost travel by Castigliano's theorem over a case's tensions, for a rig whose

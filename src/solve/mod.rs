@@ -206,10 +206,10 @@ pub struct SubRigSolution {
     pub drive_stiffness: Option<Real>,
     /// The lost travel at the drive, m or rad: how far the drive moves from the
     /// unloaded rig (ropes just taut) until it holds its ideal value with every loaded
-    /// part still where it stands, `|F_ideal| / drive_stiffness` (DESIGN.md §7). The
-    /// ropes' own weight, where given, counts as load taken up (the unloaded rig's rope
-    /// is just taut and weightless), so a long hanging rope's lost travel includes the
-    /// stretch of its own weight.
+    /// part still where it stands (DESIGN.md §7), by the unit-load method over the ideal
+    /// case's stretches ([`elastic::lost_travel`]): `|F_ideal| / drive_stiffness` where
+    /// the ropes are weightless and the tensions in proportion to the drive's value; a
+    /// rope's own weight counts as it hangs (half a span's weight at each end).
     pub lost_travel: Option<Real>,
 }
 
@@ -534,9 +534,7 @@ fn solve_subrig(
         r.is_finite().then_some(r)
     });
     let drive_stiffness = problem.drive_stiffness();
-    let lost_travel = drive_stiffness
-        .map(|k| ideal.drive_power.abs() / k)
-        .filter(|d| d.is_finite());
+    let lost_travel = problem.lost_travel(&ideal);
     Ok(SubRigSolution {
         drive_stiffness,
         lost_travel,

@@ -345,7 +345,6 @@ fn the_sag_shown_beside_the_forward_case_says_it_is_the_largest_over_the_cases()
 }
 
 #[test]
-#[ignore = "open defect (review of issue 11): lost_travel is F_ideal/k, which counts a rope's own weight as if it hung at the load; see the review report"]
 fn the_lost_travel_of_a_single_hanging_rope_is_its_stretch() {
     // Guards that the lost travel agrees with the stretch shown beside it. One vertical
     // rope, hauled from its head, loaded part held: the drive takes in exactly the

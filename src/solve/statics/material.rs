@@ -40,9 +40,32 @@ impl Problem<'_> {
         }
     }
 
-    /// The rig's spring rate at the drive ([`crate::solve::elastic::drive_stiffness`]): every
-    /// part with a load (or the asked quantity) held, the others free.
+    /// The rig's spring rate at the drive ([`crate::solve::elastic::drive_stiffness`]):
+    /// every part with a load (or the asked quantity) held, the others free.
     pub fn drive_stiffness(&self) -> Option<Real> {
+        crate::solve::elastic::drive_stiffness(&self.spring_input()?)
+    }
+
+    /// The lost travel at the drive from the just-taut to the loaded rig, by the
+    /// unit-load method over the stretches of `case`
+    /// ([`crate::solve::elastic::lost_travel`]).
+    pub fn lost_travel(&self, case: &CaseResult) -> Option<Real> {
+        let ea = |l: LineId| self.rig.rope_of(l).stiffness;
+        crate::solve::elastic::lost_travel(&self.spring_input()?, |l, j| {
+            let (a, b) = (case.tension[l].get(j)?, case.tension_end[l].get(j)?);
+            let s = &self.geometry.lines[l].spans[j];
+            Some(crate::solve::elastic::span_stretch(
+                *a,
+                *b,
+                s.length,
+                ea(l)?,
+            ))
+        })
+    }
+
+    /// What the spring solve needs: the sub-rig's segments and motions, the drive's
+    /// motion, and which motions are held (a part with a load, or the asked quantity).
+    fn spring_input(&self) -> Option<crate::solve::elastic::SpringInput<'_>> {
         let drive = self
             .dofs
             .iter()
@@ -50,14 +73,14 @@ impl Problem<'_> {
         let held: Vec<bool> = (0..self.dofs.len())
             .map(|k| self.q_load[k] != 0.0 || self.x_coef[k] != 0.0 || self.rope_load[k] != 0.0)
             .collect();
-        crate::solve::elastic::drive_stiffness(&crate::solve::elastic::SpringInput {
+        Some(crate::solve::elastic::SpringInput {
             rig: self.rig,
             geometry: self.geometry,
             kin: self.kin,
             segs: &self.segs,
             dofs: &self.dofs,
             drive,
-            held: &held,
+            held,
         })
     }
 
