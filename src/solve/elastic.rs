@@ -309,7 +309,7 @@ fn drive_spring(input: &SpringInput) -> Option<(Real, Vec<Real>)> {
 
 /// The lost travel at the drive, m (or rad), by the unit-load method: a unit force at
 /// the drive, every loaded part held, puts `n_g = τ_g / k` in segment `g`
-/// ([`drive_spring`]), and the drive moves by `δ = Σ_g n_g·e_g`, `e_g` the segment's
+/// (`drive_spring`), and the drive moves by `δ = Σ_g n_g·e_g`, `e_g` the segment's
 /// stretch in the loaded rig (`stretch(line, span)` summed over its spans: the mean
 /// tension times `L/EA`, so a rope's own weight counts as it hangs, half a span's weight
 /// at each end). For one rope from the drive to a held load, `n = 1` and `δ` is the
