@@ -428,9 +428,9 @@ pub fn chart(m: &Motion, units: &UnitSystem) -> String {
             series: vec![
                 series("drive value", &|p| p.drive * ds),
                 series("starts forward above", &|p| {
-                    m.profile.at(p.x).start_forward * ds
+                    m.profile.at_t(p.t, p.x).start_forward * ds
                 }),
-                series("starts back below", &|p| m.profile.at(p.x).start_back * ds),
+                series("starts back below", &|p| m.profile.at_t(p.t, p.x).start_back * ds),
             ],
         },
     ])

@@ -539,3 +539,49 @@ fn a_stretchy_rope_joins_the_drive_weight_to_the_rig_by_its_spring_rate() {
     let json = reeve::report::motion::json(&two);
     assert_eq!(json.degrees_of_freedom, 2);
 }
+
+#[test]
+fn a_scheduled_load_starts_the_rig_when_it_falls_below_what_the_drive_holds() {
+    // The drive is a constant 25 N; the load drains from 3 kg to 1 kg over a minute.
+    // The forward value is proportional to the load (friction of a plain bearing grows
+    // with its pin load, which grows with the tensions: the statics is homogeneous in
+    // the loads, DESIGN.md §3), so with `check`'s forward value `F₃` at 3 kg the rig
+    // starts when `m = 3 kg · 25 N / F₃`, at `t = 60 s · (3 kg − m) / 2 kg` (derived).
+    let text = RAMP.replace("STATIC", "").replace(
+        "force: {schedule: [[0 s, 1 N], [1 min, 60 N], [70 s, 60 N], [130 s, 1 N]]}",
+        "force: 25 N",
+    );
+    let held = text.replace(
+        "load: {mass: 3}",
+        "load: {mass: {schedule: [[0 s, 3 kg], [1 min, 1 kg]]}}",
+    );
+    let check = reeve_on(&text, &["check", "--json"]).json();
+    let f3 = check["forward"]["value"].as_f64().unwrap();
+    assert!(f3 > 25.0, "the 3 kg load must hold against 25 N: {f3}");
+    let m_start = 3.0 * 25.0 / f3;
+    let t_start = 60.0 * (3.0 - m_start) / 2.0;
+    let m = run(&held, &MotionOptions::default());
+    assert!(
+        m.warnings.iter().all(|w| w.code != "schedule-held"),
+        "{:?}",
+        m.warnings
+    );
+    let start = first(&m, EventKind::StartsForward);
+    assert_rel("start time of a draining load, s", start.t, t_start, 1e-7);
+    assert_rel("drive value at the start, N", start.drive_value, 25.0, 1e-12);
+    // The holding band moved with the load: at the start it is the drive's value.
+    assert_rel(
+        "forward value at the start, N",
+        m.profile.at_t(start.t, 0.0).start_forward,
+        25.0,
+        1e-7,
+    );
+    first(&m, EventKind::ReachesForwardStop);
+    // Energy balances with the load changing in time (the rig ran 0.3 m up).
+    let e = m.run.energy;
+    assert!(e.drive > 7.0, "{e:?}");
+    assert!(e.residual().abs() < 1e-6 * e.drive.abs(), "{e:?}");
+    // The same rig with the load held at 3 kg never moves.
+    let m = run(&text, &MotionOptions::default());
+    assert!(m.run.events.is_empty(), "{:?}", m.run.events);
+}

@@ -226,6 +226,73 @@ impl DriveValue {
     }
 }
 
+/// The next time after `t` at which the drive's schedule or the profile's figures
+/// change slope.
+pub(super) fn next_break(drive: &DriveValue, profile: &Profile, t: Real) -> Option<Real> {
+    match (drive.next_break(t), profile.next_time(t)) {
+        (Some(a), Some(b)) => Some(a.min(b)),
+        (a, b) => a.or(b),
+    }
+}
+
+/// The first time ≥ `t` (≤ `end`) at which the drive value leaves the holding band
+/// `band(t) = (lo, hi)`: both are piecewise linear in time with their slopes changing
+/// only at the schedule's and the profile's times, so each piece is solved exactly.
+pub(super) fn leaves_band(
+    drive: &DriveValue,
+    profile: &Profile,
+    t: Real,
+    end: Real,
+    band: &dyn Fn(Real) -> (Real, Real),
+) -> Option<Real> {
+    if profile.later.is_empty() {
+        let (lo, hi) = band(t);
+        return drive.leaves(t, end, lo, hi);
+    }
+    let outside = |t: Real| {
+        let (lo, hi) = band(t);
+        let v = drive.at(t);
+        v > hi || v < lo
+    };
+    if outside(t) {
+        return Some(t);
+    }
+    let mut t0 = t;
+    loop {
+        let t1 = next_break(drive, profile, t0).unwrap_or(end).min(end);
+        if t1 > t0 {
+            let (lo0, hi0) = band(t0);
+            let (lo1, hi1) = band(t1);
+            let (q0, q1) = (drive.at(t0), drive.at(t1));
+            let mut first: Option<Real> = None;
+            for (g0, g1) in [(q0 - hi0, q1 - hi1), (lo0 - q0, lo1 - q1)] {
+                // Each of `v − hi` and `lo − v` is linear on the piece; outside once > 0.
+                if g0.is_finite() && g1.is_finite() && g1 > 0.0 && g0 <= 0.0 {
+                    let tc = t0 + (-g0) / (g1 - g0) * (t1 - t0);
+                    first = Some(first.map_or(tc, |f: Real| f.min(tc)));
+                }
+            }
+            if let Some(tc) = first {
+                let nudge = 1e-9 * (t1 - t0);
+                let mut tx = tc;
+                for _ in 0..60 {
+                    if outside(tx) {
+                        return Some(tx);
+                    }
+                    tx += nudge;
+                    if tx > t1 {
+                        break;
+                    }
+                }
+            }
+        }
+        if t1 >= end {
+            return None;
+        }
+        t0 = t1;
+    }
+}
+
 /// The state integrated in motion: position, speed, and the energy integrals.
 type State = [Real; 6];
 
@@ -238,7 +305,7 @@ struct Dynamics<'a> {
 
 impl Dynamics<'_> {
     fn mass(&self, t: Real, x: Real) -> Real {
-        let s = self.profile.at(x);
+        let s = self.profile.at_t(t, x);
         let mu = if self.sign > 0.0 {
             s.inertia_forward
         } else {
@@ -253,14 +320,14 @@ impl Dynamics<'_> {
     }
 
     fn accel(&self, t: Real, x: Real) -> Real {
-        let s = self.profile.at(x);
+        let s = self.profile.at_t(t, x);
         let f = if self.sign > 0.0 { s.forward } else { s.back };
         self.c * (self.drive.at(t) - f) / self.mass(t, x)
     }
 
     fn rhs(&self, t: Real, y: &State) -> State {
         let (x, v) = (y[0], y[1]);
-        let s = self.profile.at(x);
+        let s = self.profile.at_t(t, x);
         let a = self.accel(t, x);
         let (f, mu) = if self.sign > 0.0 {
             (s.forward, s.inertia_forward)
@@ -402,8 +469,8 @@ pub fn run(profile: &Profile, drive: &DriveValue, settings: &Settings) -> Run {
         energy: Energy::default(),
         steps: 0,
     };
-    let tension_at = |x: Real, v: Real, a: Real| {
-        let s = profile.at(x);
+    let tension_at = |t: Real, x: Real, v: Real, a: Real| {
+        let s = profile.at_t(t, x);
         let (t0, dt) = if v < 0.0 {
             s.tension_back
         } else {
@@ -417,7 +484,7 @@ pub fn run(profile: &Profile, drive: &DriveValue, settings: &Settings) -> Run {
             x: y[0],
             v: y[1],
             drive: drive.at(t),
-            tension: tension_at(y[0], y[1], a),
+            tension: tension_at(t, y[0], y[1], a),
         });
     };
     push(&mut out, 0.0, &y, 0.0);
@@ -427,25 +494,22 @@ pub fn run(profile: &Profile, drive: &DriveValue, settings: &Settings) -> Run {
         guard += 1;
         match mode {
             Mode::Rest => {
-                let s = profile.at(y[0]);
-                let at_hi = y[0] >= hi;
-                let at_lo = y[0] <= lo;
+                let x = y[0];
+                let at_hi = x >= hi;
+                let at_lo = x <= lo;
                 // Against a stop, the stop holds the rig on that side.
-                let band_hi = if at_hi {
-                    Real::INFINITY
-                } else {
-                    s.start_forward
+                let band = |t: Real| {
+                    let s = profile.at_t(t, x);
+                    (
+                        if at_lo { Real::NEG_INFINITY } else { s.start_back },
+                        if at_hi { Real::INFINITY } else { s.start_forward },
+                    )
                 };
-                let band_lo = if at_lo {
-                    Real::NEG_INFINITY
-                } else {
-                    s.start_back
-                };
-                let tl = drive.leaves(t, end, band_lo, band_hi);
+                let tl = leaves_band(drive, profile, t, end, &band);
                 // The schedule's points while it waits, so the drive value is drawn true.
                 let until = tl.unwrap_or(end);
                 let mut b = t;
-                while let Some(next) = drive.next_break(b).filter(|&n| n < until) {
+                while let Some(next) = next_break(drive, profile, b).filter(|&n| n < until) {
                     push(&mut out, next, &y, 0.0);
                     b = next;
                 }
@@ -459,7 +523,7 @@ pub fn run(profile: &Profile, drive: &DriveValue, settings: &Settings) -> Run {
                     push(&mut out, t, &y, 0.0);
                 }
                 let d = drive.at(t);
-                let sign = if d > band_hi { 1.0 } else { -1.0 };
+                let sign = if d > band(t).1 { 1.0 } else { -1.0 };
                 out.events.push(Event {
                     t,
                     kind: if sign > 0.0 {
@@ -482,7 +546,7 @@ pub fn run(profile: &Profile, drive: &DriveValue, settings: &Settings) -> Run {
                     c,
                 };
                 let mut step = h.min(settings.max_step).min(end - t);
-                if let Some(b) = drive.next_break(t) {
+                if let Some(b) = next_break(drive, profile, t) {
                     step = step.min(b - t);
                 }
                 let (y1, err) = dp_step(&dyn_, t, &y, step, settings.tolerance_scale);
@@ -533,7 +597,7 @@ pub fn run(profile: &Profile, drive: &DriveValue, settings: &Settings) -> Run {
                     push(&mut out, t, &y, a_new);
                     // A stop always records the impact; coming to rest in the open
                     // records `stops` unless it sets off again at once (the rest step).
-                    let s = profile.at(y[0]);
+                    let s = profile.at_t(t, y[0]);
                     let d = drive.at(t);
                     let kind = kind.unwrap_or(EventKind::Stops);
                     let reverses = kind == EventKind::Stops
@@ -597,7 +661,7 @@ pub(super) fn relabel_stick_slip(events: &mut [Event]) {
 
 /// The frictionless effective mass at the drive, generalized (kg or kg·m²).
 pub(super) fn profile_mass_ideal(profile: &Profile, drive: &DriveValue, t: Real, x: Real) -> Real {
-    let s = profile.at(x);
+    let s = profile.at_t(t, x);
     let own = if profile.drive_is_weight {
         drive.at(t)
     } else {

@@ -9,8 +9,11 @@
 //!
 //! Where the ropes give `stiffness` and the drive is a weight, [`two`] adds the second
 //! degree of freedom: the drive weight on the rope's spring rate at the drive. Not yet
-//! here: the second degree of freedom for a drum drive, and schedules on parts other
-//! than the drive (held at their first value, with a warning).
+//! here: the second degree of freedom for a drum drive.
+//!
+//! Schedules on parts other than the drive (a load, a weight that is not the drive) are
+//! followed: the profile is solved again at each of their times ([`Profile::at_t`]),
+//! so the holding band and the running values move with time.
 
 pub mod integrate;
 pub mod profile;
@@ -154,20 +157,34 @@ pub fn motion(rig: &Rig, options: &MotionOptions) -> Result<Motion, MotionError>
         }
     };
     // The statics needs the drive's value unknown: it asks what value moves it.
-    match &mut rig.parts[drive].kind {
-        PartKind::Haul(h) => h.force = None,
-        PartKind::Weight(w) => w.mass = None,
-        PartKind::Drum(d) => d.torque = None,
-        PartKind::Block(b) => {
-            b.load = match b.load {
-                crate::model::BlockLoad::Mass(_) => crate::model::BlockLoad::Mass(None),
-                crate::model::BlockLoad::Force(_) => crate::model::BlockLoad::Force(None),
-            }
+    set_natural(&mut rig, drive, None);
+    // The other parts' schedules: the statics solved again at each of their times.
+    let others: Vec<(usize, crate::model::changing::Schedule)> = (0..rig.parts.len())
+        .filter(|&p| p != drive)
+        .filter_map(|p| rig.changing.of(p).schedule.clone().map(|s| (p, s)))
+        .collect();
+    let at_time = |t: Real| {
+        let mut r = rig.clone();
+        for (p, s) in &others {
+            set_natural(&mut r, *p, Some(s.at(t)));
         }
-        _ => {}
+        r
+    };
+    let build = |r: &Rig| {
+        profile::build(r, options.intervals, &options.solve)
+            .map_err(|(position, source)| MotionError::Solve { position, source })
+    };
+    let mut profile = build(&at_time(0.0))?;
+    let mut times: Vec<Real> = others
+        .iter()
+        .flat_map(|(_, s)| s.times().collect::<Vec<_>>())
+        .filter(|&t| t > 0.0)
+        .collect();
+    times.sort_by(Real::total_cmp);
+    times.dedup_by(|a, b| (*a - *b).abs() <= 1e-12 * a.abs().max(1.0));
+    for t in times {
+        profile.later.push((t, build(&at_time(t))?.samples));
     }
-    let profile = profile::build(&rig, options.intervals, &options.solve)
-        .map_err(|(position, source)| MotionError::Solve { position, source })?;
     let duration = options.duration.unwrap_or(match &drive_value {
         DriveValue::Scheduled(s) => s.end() * 1.5 + 10.0,
         DriveValue::Constant(_) => 60.0,
@@ -192,17 +209,6 @@ pub fn motion(rig: &Rig, options: &MotionOptions) -> Result<Motion, MotionError>
         }
     }
     let mut warnings = warnings(&rig, &profile, &run, &strokes);
-    for (p, part) in rig.parts.iter().enumerate() {
-        if p != drive && rig.changing.of(p).schedule.is_some() {
-            warnings.push(Warning {
-                code: "schedule-held",
-                message: format!(
-                    "`{}` has a schedule, but motion follows only the drive's (`{name}`): `{}` is held at its first value",
-                    part.name, part.name
-                ),
-            });
-        }
-    }
     let reached = run.points.last().map_or(0.0, |p| p.t);
     if reached < duration * (1.0 - 1e-9) {
         warnings.push(Warning {
@@ -229,6 +235,23 @@ pub fn motion(rig: &Rig, options: &MotionOptions) -> Result<Motion, MotionError>
         drive_value,
         two_dof,
     })
+}
+
+/// Sets part `p`'s natural quantity (a haul's force, a weight's mass, a block's load, a
+/// drum's torque) to `value`, or unknown with None.
+fn set_natural(rig: &mut Rig, p: usize, value: Option<Real>) {
+    match &mut rig.parts[p].kind {
+        PartKind::Haul(h) => h.force = value,
+        PartKind::Weight(w) => w.mass = value,
+        PartKind::Drum(d) => d.torque = value,
+        PartKind::Block(b) => {
+            b.load = match b.load {
+                crate::model::BlockLoad::Mass(_) => crate::model::BlockLoad::Mass(value),
+                crate::model::BlockLoad::Force(_) => crate::model::BlockLoad::Force(value),
+            }
+        }
+        _ => {}
+    }
 }
 
 /// From the schedule's latest extreme in `[since, start]` (least for a forward stroke,
