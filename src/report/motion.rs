@@ -358,7 +358,9 @@ pub fn write_text(
     )?;
     writeln!(w, "Integrator: {}; {} steps.", tolerance(), m.run.steps)?;
     match m.two_dof {
-        Some(k) => writeln!(w, "Two degrees of freedom: the drive weight and the rig joined by the rope's spring rate at the drive, {} N/m (no rope damping: the weight keeps swinging).", n(k))?,
+        Some(k) if m.profile.drive_is_weight => writeln!(w, "Two degrees of freedom: the drive weight and the rig joined by the rope's spring rate at the drive, {} N/m (no rope damping: the weight keeps swinging).", n(k))?,
+        Some(k) if m.profile.drive_inertia > 0.0 => writeln!(w, "Two degrees of freedom: the drive drum's own inertia and the rig joined by the rope's spring rate at the drive, {} N*m/rad (no rope damping: the drum keeps swinging).", n(k))?,
+        Some(k) => writeln!(w, "Rope spring rate at the drive {} N/m: the haul's end has no mass, so its stretch follows its force and the rig moves as with one degree of freedom; the strain energy joins the balance.", n(k))?,
         None => writeln!(w, "One degree of freedom along the drive's motion.")?,
     }
     writeln!(w, "Inertia passes through the friction as linearised at constant speed; a varying velocity ratio's ½·(dM/dx)·v² is left out.")?;
@@ -430,7 +432,9 @@ pub fn chart(m: &Motion, units: &UnitSystem) -> String {
                 series("starts forward above", &|p| {
                     m.profile.at_t(p.t, p.x).start_forward * ds
                 }),
-                series("starts back below", &|p| m.profile.at_t(p.t, p.x).start_back * ds),
+                series("starts back below", &|p| {
+                    m.profile.at_t(p.t, p.x).start_back * ds
+                }),
             ],
         },
     ])

@@ -248,11 +248,45 @@ fn the_stick_slip_oscillator_jumps_2_mu_difference_mg_over_k_and_sticks_for_jump
     let text = STICK_SLIP
         .replace("MUK", &format!("{}", mu(0.3)))
         .replace("MUS", &format!("{}", mu(0.5)));
+    stick_slip_figures(&text);
+}
+
+#[test]
+fn the_stick_slip_oscillator_keeps_its_figures_through_a_stretchy_rope_on_a_haul() {
+    // The same oscillator with a rope of EA = 200 kN between the hand and the sled: the
+    // haul's end has no mass, so the stretch follows the pull (u = D/k) and the sled
+    // moves as before; the rope's strain energy D²/(2k) joins the energy balance
+    // (the hand's end moves x + D/k: its work is ∫D·dx + [D²/(2k)], derived).
+    let mu = |m: f64| m / (1.0 - m * m).sqrt();
+    let text = STICK_SLIP
+        .replace("MUK", &format!("{}", mu(0.3)))
+        .replace("MUS", &format!("{}", mu(0.5)))
+        .replace("mu: 0.1}}", "mu: 0.1, stiffness: 200 kN}}");
+    let m = stick_slip_figures(&text);
+    let k = m.two_dof.expect("the rope's spring rate at the haul");
+    assert!(k > 0.0 && k.is_finite(), "{k}");
+    let e = m.run.energy;
+    let (d0, d1) = (0.5, 0.5 + 20.0); // the hand's pull at 0 s and at 20 s, N
+    assert_rel(
+        "rope strain energy, J",
+        e.spring,
+        (d1 * d1 - d0 * d0) / (2.0 * k),
+        1e-12,
+    );
+    assert!(
+        e.residual().abs() <= 1e-6 * e.drive.abs(),
+        "energy residual {} J of {} J: {e:?}",
+        e.residual(),
+        e.drive
+    );
+}
+
+fn stick_slip_figures(text: &str) -> Motion {
     let options = MotionOptions {
         duration: Some(20.0),
         ..MotionOptions::default()
     };
-    let m = run(&text, &options);
+    let m = run(text, &options);
     let starts: Vec<_> = m
         .run
         .events
@@ -300,6 +334,7 @@ fn the_stick_slip_oscillator_jumps_2_mu_difference_mg_over_k_and_sticks_for_jump
         "{:?}",
         m.warnings
     );
+    m
 }
 
 /// A lid on a drum (axle −y, so that turning forward lifts it), its centre of mass
@@ -568,7 +603,12 @@ fn a_scheduled_load_starts_the_rig_when_it_falls_below_what_the_drive_holds() {
     );
     let start = first(&m, EventKind::StartsForward);
     assert_rel("start time of a draining load, s", start.t, t_start, 1e-7);
-    assert_rel("drive value at the start, N", start.drive_value, 25.0, 1e-12);
+    assert_rel(
+        "drive value at the start, N",
+        start.drive_value,
+        25.0,
+        1e-12,
+    );
     // The holding band moved with the load: at the start it is the drive's value.
     assert_rel(
         "forward value at the start, N",
@@ -584,4 +624,50 @@ fn a_scheduled_load_starts_the_rig_when_it_falls_below_what_the_drive_holds() {
     // The same rig with the load held at 3 kg never moves.
     let m = run(&text, &MotionOptions::default());
     assert!(m.run.events.is_empty(), "{:?}", m.run.events);
+}
+
+/// A winch drum (0.02 kg·m²) lifting a 10 kg block at about 50 mm pitch radius with a
+/// constant 8 N·m; `STIFF` is where the test gives the rope a stiffness.
+const WINCH: &str = "format: 1
+units: {length: mm, force: N, mass: kg, torque: N*m}
+ropes: {cord: {diameter: 4, breaking_strength: 5 kN, mu: 0.1STIFF}}
+parts:
+  winch: {kind: drum, at: [0, 0, 0], axle: [0, -1, 0], diameter: 96, inertia: 0.02, torque: 8}
+  lift: {kind: block, at: [50, 0, -1000], moves: [0, 0, 1], load: {mass: 10}}
+lines: {l: {rope: cord, path: [{part: winch, side: right}, lift]}}
+drive: winch
+travel: {back: 0, forward: 360 deg}
+";
+
+#[test]
+fn a_stretchy_rope_joins_a_drive_drum_to_the_rig_by_its_spring_rate() {
+    // The drum's own inertia on the drive side, the block on the rig side, joined by
+    // the rope's spring rate at the drum (N·m/rad). Without rope damping the block
+    // bounces on the rope, but on average it keeps pace with the rigid run: the time to
+    // the forward stop agrees to within a swing period 2π·√(I_d/k) or so (derived), and
+    // the energy balances with the rope's strain energy.
+    let options = MotionOptions {
+        duration: Some(5.0),
+        ..MotionOptions::default()
+    };
+    let one = run(&WINCH.replace("STIFF", ""), &options);
+    let two = run(&WINCH.replace("STIFF", ", stiffness: 20 kN"), &options);
+    assert_eq!(one.two_dof, None);
+    let k = two.two_dof.expect("two degrees of freedom");
+    let json = reeve::report::motion::json(&two);
+    assert_eq!(json.degrees_of_freedom, 2);
+    let (a, b) = (
+        first(&one, EventKind::ReachesForwardStop),
+        first(&two, EventKind::ReachesForwardStop),
+    );
+    let period = 2.0 * std::f64::consts::PI * (0.02 / k).sqrt();
+    assert_abs("time to the forward stop, s", b.t, a.t, 2.0 * period);
+    let e = two.run.energy;
+    assert!(e.spring.abs() > 0.0, "{e:?}");
+    assert!(
+        e.residual().abs() <= 1e-6 * e.drive.abs(),
+        "energy residual {} J of {} J: {e:?}",
+        e.residual(),
+        e.drive
+    );
 }

@@ -501,8 +501,16 @@ pub fn run(profile: &Profile, drive: &DriveValue, settings: &Settings) -> Run {
                 let band = |t: Real| {
                     let s = profile.at_t(t, x);
                     (
-                        if at_lo { Real::NEG_INFINITY } else { s.start_back },
-                        if at_hi { Real::INFINITY } else { s.start_forward },
+                        if at_lo {
+                            Real::NEG_INFINITY
+                        } else {
+                            s.start_back
+                        },
+                        if at_hi {
+                            Real::INFINITY
+                        } else {
+                            s.start_forward
+                        },
                     )
                 };
                 let tl = leaves_band(drive, profile, t, end, &band);

@@ -7,9 +7,10 @@
 //! [`integrate`] module moves it in time under the drive's value (constant, or its
 //! schedule). [`strokes`] and the warnings turn the run into strokes and warnings.
 //!
-//! Where the ropes give `stiffness` and the drive is a weight, [`two`] adds the second
-//! degree of freedom: the drive weight on the rope's spring rate at the drive. Not yet
-//! here: the second degree of freedom for a drum drive.
+//! Where the ropes give `stiffness`, [`two`] adds the second degree of freedom: the drive
+//! weight, or a drive drum's own inertia, on the rope's spring rate at the drive. A haul's
+//! end has no inertia: its stretch follows its force, so the rig side moves as with one
+//! degree and the rope's strain energy `D²/(2k)` joins the balance.
 //!
 //! Schedules on parts other than the drive (a load, a weight that is not the drive) are
 //! followed: the profile is solved again at each of their times ([`Profile::at_t`]),
@@ -130,7 +131,7 @@ pub struct Motion {
     /// The drive value over time.
     pub drive_value: DriveValue,
     /// The spring rate joining drive side and rig side, where the run has two degrees of
-    /// freedom (a stretchy rope and a drive weight).
+    /// freedom (a stretchy rope and a drive weight, a drum with inertia, or a haul).
     pub two_dof: Option<Real>,
 }
 
@@ -194,11 +195,41 @@ pub fn motion(rig: &Rig, options: &MotionOptions) -> Result<Motion, MotionError>
         max_step: options.max_step.unwrap_or(duration / 2000.0).max(1e-6),
         tolerance_scale: options.tolerance_scale,
     };
-    // A stretchy rope and a drive weight: drive side and rig side joined by the spring.
-    let two_dof = profile.drive_stiffness.filter(|_| profile.drive_is_weight);
-    let run = match two_dof {
-        Some(k) => two::run(&profile, &drive_value, &settings, k, None),
-        None => integrate::run(&profile, &drive_value, &settings),
+    // A stretchy rope: drive side and rig side joined by the spring. A drive weight or
+    // drum carries its own inertia on the drive side; a haul's end has none, so its
+    // stretch follows its force at once (`u = D/k`): the rig moves as with one degree of
+    // freedom, and the rope's strain energy joins the balance.
+    let kind = &rig.parts[drive].kind;
+    let two_dof = profile.drive_stiffness.filter(|_| match kind {
+        PartKind::Weight(_) | PartKind::Haul(_) => true,
+        // A lever or spring on the drive drum acts on the drive side, which the
+        // profile does not split off: those stay one degree of freedom.
+        PartKind::Drum(_) => {
+            let c = rig.changing.of(drive);
+            profile.drive_inertia > 0.0 && c.lever.is_none() && c.spring.is_none()
+        }
+        _ => false,
+    });
+    let run = match (two_dof, kind) {
+        (Some(k), PartKind::Weight(_)) => two::run(&profile, &drive_value, &settings, k, None),
+        (Some(k), PartKind::Drum(_)) => two::run(
+            &profile,
+            &drive_value,
+            &settings,
+            k,
+            Some(profile.drive_inertia),
+        ),
+        (Some(k), _) => {
+            let mut run = integrate::run(&profile, &drive_value, &settings);
+            // The haul's end moves `x + D/k`: its work `∫D·dx + [D²/(2k)]`.
+            let end = run.points.last().map_or(0.0, |p| p.t);
+            let (d0, d1) = (drive_value.at(0.0).max(0.0), drive_value.at(end).max(0.0));
+            let strain = (d1 * d1 - d0 * d0) / (2.0 * k);
+            run.energy.spring += strain;
+            run.energy.drive += strain;
+            run
+        }
+        (None, _) => integrate::run(&profile, &drive_value, &settings),
     };
     let mut strokes = strokes(&run);
     if let DriveValue::Scheduled(s) = &drive_value {

@@ -73,6 +73,9 @@ pub struct Profile {
     pub stops: Option<(Real, Real)>,
     /// Whether the drive is a weight (its own mass is the drive value).
     pub drive_is_weight: bool,
+    /// The drive's own inertia when it is a drum (kg·m², its own and its lever's, part
+    /// of every sample's `own_inertia`), else 0: the drive side of two degrees of freedom.
+    pub drive_inertia: Real,
     /// The least breaking strength over design factor of the ropes, N (for the warning).
     pub allowed_tension: Option<Real>,
     /// The rig's spring rate at the drive at the drawn position (N/m or N·m/rad), where
@@ -358,6 +361,7 @@ pub fn build(
     let k = &first.kinematics;
     let rotates =
         k.dof_of_part[rig.drive].is_some_and(|i| matches!(k.dofs[i].motion, Motion::Rotate(_)));
+    let rope_d = rig.ropes.first().map_or(0.0, |r| r.diameter);
     let allowed_tension = rig
         .ropes
         .iter()
@@ -370,6 +374,10 @@ pub fn build(
         rotates,
         stops: None,
         drive_is_weight: matches!(rig.parts[rig.drive].kind, PartKind::Weight(_)),
+        drive_inertia: match rig.parts[rig.drive].kind {
+            PartKind::Drum(_) => dof_inertia(rig, rig.drive, rope_d),
+            _ => 0.0,
+        },
         allowed_tension,
         drive_stiffness: main.drive_stiffness.filter(|k| k.is_finite() && *k > 0.0),
         later: Vec::new(),

@@ -37,6 +37,12 @@ pub fn run(
         .stops
         .unwrap_or((Real::NEG_INFINITY, Real::INFINITY));
     let m_d = |t: Real| own.unwrap_or_else(|| drive.at(t)).max(1e-9);
+    // A drum drive's own inertia is on the drive side, not the rig side.
+    let own_rig = if own.is_some() {
+        profile.drive_inertia
+    } else {
+        0.0
+    };
     let pull = |u: Real| (k * u).max(0.0);
     let mut t = 0.0;
     let u0 = c * drive.at(0.0) / k;
@@ -64,7 +70,7 @@ pub fn run(
                 } else {
                     (s.back, s.inertia_back)
                 };
-                let m = (c * mu + s.own_inertia).max(1e-12);
+                let m = (c * mu + s.own_inertia - own_rig).max(1e-12);
                 let a = (p - c * f) / m;
                 (a, c * ((f - s.ideal) + (mu - s.inertia_ideal) * a))
             };
@@ -193,7 +199,7 @@ pub fn run(
             };
             let speed = y_new[1];
             let s = profile.at_t(t_new, y_new[0]);
-            let m_rig = c * s.inertia_ideal + s.own_inertia;
+            let m_rig = c * s.inertia_ideal + s.own_inertia - own_rig;
             if kind != EventKind::Stops {
                 impacts += 0.5 * m_rig * speed * speed;
             }
@@ -242,7 +248,7 @@ pub fn run(
     }
     relabel_stick_slip(&mut out.events);
     let s = profile.at_t(t, y[0]);
-    let m_rig = c * s.inertia_ideal + s.own_inertia;
+    let m_rig = c * s.inertia_ideal + s.own_inertia - own_rig;
     let ydot = y[1] + y[3];
     out.energy = Energy {
         drive: y[4],
