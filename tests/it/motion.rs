@@ -671,3 +671,26 @@ fn a_stretchy_rope_joins_a_drive_drum_to_the_rig_by_its_spring_rate() {
         e.drive
     );
 }
+
+#[test]
+fn piped_motion_shows_no_progress() {
+    // Issue 13 item 8: the bar is drawn on a terminal only; piped (as here: the test
+    // reads both streams) neither stream carries it, whatever the format.
+    let rig = example_rig("ballast-panel");
+    for format in ["text", "csv", "json"] {
+        let ran = reeve(&["motion", &rig, "--format", format]);
+        assert_eq!(ran.code, 0, "{}", ran.stderr);
+        for (stream, text) in [("stdout", &ran.stdout), ("stderr", &ran.stderr)] {
+            assert!(
+                !text.contains('\r'),
+                "{format}: carriage return on {stream}"
+            );
+            assert!(!text.contains("runs,"), "{format}: progress on {stream}");
+            assert!(!text.contains("motion ["), "{format}: a bar on {stream}");
+            assert!(
+                !text.contains("\u{1b}["),
+                "{format}: terminal codes on {stream}"
+            );
+        }
+    }
+}

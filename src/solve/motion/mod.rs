@@ -107,8 +107,34 @@ pub struct Stroke {
 pub struct Warning {
     /// Stable code.
     pub code: &'static str,
-    /// Text.
+    /// Text (SI units).
     pub message: String,
+    /// The figures of the message, so that a report can show them in other units.
+    pub figures: Option<WarningFigures>,
+}
+
+/// The figures of a warning that carries units.
+#[derive(Debug, Clone, Copy, PartialEq)]
+pub enum WarningFigures {
+    /// `stop-speed`: the stroke's start (s), its impact speed and the limit (m/s or rad/s).
+    StopSpeed {
+        /// Start of the stroke, s.
+        start: Real,
+        /// Impact speed.
+        speed: Real,
+        /// `limits.stop_speed`.
+        limit: Real,
+    },
+    /// `dynamic-tension`: the peak in motion, the static check's largest and the
+    /// allowed tension, N.
+    DynamicTension {
+        /// Peak span tension in motion, N.
+        peak: Real,
+        /// Largest static tension, N.
+        static_peak: Real,
+        /// Breaking strength over design factor, N.
+        allowed: Real,
+    },
 }
 
 /// The motion of a rig.
@@ -140,6 +166,29 @@ pub struct Motion {
 /// # Errors
 /// [`MotionError`] when the drive has no value or the rig cannot be solved on its travel.
 pub fn motion(rig: &Rig, options: &MotionOptions) -> Result<Motion, MotionError> {
+    motion_told(rig, options, &())
+}
+
+/// [`motion`], telling `progress` how far it has got: one step per sampled position of
+/// each solved time (the statics, the long part), and one for the run itself.
+///
+/// # Errors
+/// As [`motion`].
+pub fn motion_told(
+    rig: &Rig,
+    options: &MotionOptions,
+    progress: &dyn crate::study::Progress,
+) -> Result<Motion, MotionError> {
+    let result = motion_inner(rig, options, progress);
+    progress.finish();
+    result
+}
+
+fn motion_inner(
+    rig: &Rig,
+    options: &MotionOptions,
+    progress: &dyn crate::study::Progress,
+) -> Result<Motion, MotionError> {
     let mut rig = rig.clone();
     rig.solve_for = rig.drive;
     let drive = rig.drive;
@@ -171,11 +220,11 @@ pub fn motion(rig: &Rig, options: &MotionOptions) -> Result<Motion, MotionError>
         }
         r
     };
+    let tick = || progress.step();
     let build = |r: &Rig| {
-        profile::build(r, options.intervals, &options.solve)
+        profile::build_told(r, options.intervals, &options.solve, &tick)
             .map_err(|(position, source)| MotionError::Solve { position, source })
     };
-    let mut profile = build(&at_time(0.0))?;
     let mut times: Vec<Real> = others
         .iter()
         .flat_map(|(_, s)| s.times().collect::<Vec<_>>())
@@ -183,6 +232,8 @@ pub fn motion(rig: &Rig, options: &MotionOptions) -> Result<Motion, MotionError>
         .collect();
     times.sort_by(Real::total_cmp);
     times.dedup_by(|a, b| (*a - *b).abs() <= 1e-12 * a.abs().max(1.0));
+    progress.start((times.len() + 1) * profile::sample_count(&rig, options.intervals) + 1);
+    let mut profile = build(&at_time(0.0))?;
     for t in times {
         profile.later.push((t, build(&at_time(t))?.samples));
     }
@@ -231,6 +282,7 @@ pub fn motion(rig: &Rig, options: &MotionOptions) -> Result<Motion, MotionError>
         }
         (None, _) => integrate::run(&profile, &drive_value, &settings),
     };
+    progress.step();
     let mut strokes = strokes(&run);
     if let DriveValue::Scheduled(s) = &drive_value {
         let mut since = 0.0;
@@ -247,13 +299,15 @@ pub fn motion(rig: &Rig, options: &MotionOptions) -> Result<Motion, MotionError>
             message: format!(
                 "the run stopped at {reached:.3} s of {duration:.3} s: it took more steps than the integrator allows (a very stiff rope on a light drive swings fast); shorten --duration"
             ),
-        });
+                    figures: None,
+});
     }
     if profile.stops.is_none() {
         warnings.push(Warning {
             code: "no-travel",
             message: "the rig gives no `travel`: its loads are held as at the drawn position and it has no end stops".to_string(),
-        });
+                    figures: None,
+});
     }
     Ok(Motion {
         drive: name,
@@ -389,7 +443,8 @@ fn warnings(rig: &Rig, profile: &Profile, run: &Run, strokes: &[Stroke]) -> Vec<
                 "the stroke starting at {:.3} s stops and sets off again {} time(s): the motion is jerky (stick-slip)",
                 s.start, s.stick_slip_cycles
             ),
-        });
+                    figures: None,
+});
     }
     if let Some(limit) = rig.changing.stop_speed {
         for s in strokes {
@@ -400,6 +455,11 @@ fn warnings(rig: &Rig, profile: &Profile, run: &Run, strokes: &[Stroke]) -> Vec<
                         "the stroke starting at {:.3} s hits its end stop at {v:.4} {unit}, faster than limits.stop_speed {limit:.4} {unit}",
                         s.start
                     ),
+                    figures: Some(WarningFigures::StopSpeed {
+                        start: s.start,
+                        speed: v,
+                        limit,
+                    }),
                 });
             }
         }
@@ -417,6 +477,11 @@ fn warnings(rig: &Rig, profile: &Profile, run: &Run, strokes: &[Stroke]) -> Vec<
                 message: format!(
                     "a span tension reaches {peak:.1} N in motion (the static check's largest is {static_peak:.1} N), beyond the breaking strength over the design factor ({allowed:.1} N)"
                 ),
+                figures: Some(WarningFigures::DynamicTension {
+                    peak,
+                    static_peak,
+                    allowed,
+                }),
             });
         }
     }

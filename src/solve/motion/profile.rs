@@ -355,6 +355,36 @@ pub fn build(
     intervals: usize,
     options: &SolveOptions,
 ) -> Result<Profile, (Real, SolveError)> {
+    build_told(rig, intervals, options, &|| {})
+}
+
+/// How many positions [`build`] samples: one without `travel`, else the drawn position
+/// and each interval's end on both sides.
+pub fn sample_count(rig: &Rig, intervals: usize) -> usize {
+    let Some(t) = rig.changing.travel else {
+        return 1;
+    };
+    let h = (t.back + t.forward) / intervals.max(1) as Real;
+    let n = |length: Real| {
+        if length > 0.0 && h > 0.0 {
+            (length / h).ceil() as usize
+        } else {
+            0
+        }
+    };
+    1 + n(t.forward) + n(t.back)
+}
+
+/// [`build`], calling `tick` after each sampled position (for a progress bar).
+///
+/// # Errors
+/// As [`build`].
+pub fn build_told(
+    rig: &Rig,
+    intervals: usize,
+    options: &SolveOptions,
+    tick: &dyn Fn(),
+) -> Result<Profile, (Real, SolveError)> {
     let solve = |r: &Rig| crate::solve::solve(r, options);
     let first = solve(rig).map_err(|e| (0.0, e))?;
     let main = first.main();
@@ -382,6 +412,7 @@ pub fn build(
         drive_stiffness: main.drive_stiffness.filter(|k| k.is_finite() && *k > 0.0),
         later: Vec::new(),
     };
+    tick();
     let Some(t) = rig.changing.travel else {
         return Ok(profile);
     };
@@ -406,6 +437,7 @@ pub fn build(
             profile
                 .samples
                 .push(sample(&r, &s, x, options).map_err(|e| (x, e))?);
+            tick();
         }
     }
     profile.samples.sort_by(|a, b| a.x.total_cmp(&b.x));
