@@ -442,7 +442,7 @@ pub fn write_text(
         Some(k) => writeln!(w, "Rope spring rate at the drive {} {ku}: the haul's end has no mass, so its stretch follows its force and the rig moves as with one degree of freedom; the strain energy joins the balance.", n(k * ks))?,
         None => writeln!(w, "One degree of freedom along the drive's motion.")?,
     }
-    writeln!(w, "Inertia passes through the friction as linearised at constant speed; a varying velocity ratio's ½·(dM/dx)·v² is left out.")?;
+    writeln!(w, "Inertia passes through the friction as linearised at constant speed; a varying velocity ratio's ½·(dM/dx)·v² is in the motion (frictionless, not passed through the friction; on a two-degree run it is left out).")?;
     if !m.warnings.is_empty() {
         writeln!(w)?;
         writeln!(w, "Warnings:")?;

@@ -5,9 +5,10 @@
 //! `M·a = c·(D(t) − F_σ(x))` with `M = c·μ_σ(x) + I_own(x) + m_w(t)`: `c` the
 //! generalized scale (g for a mass drive, else 1), `F_σ` the running value of that case,
 //! `μ_σ` the inertia through the friction of that case, `I_own` the sheaves' and the
-//! drive's own inertia, `m_w` the drive weight's own mass (its scheduled value). The
-//! terms `½·(dM/dx)·v²` of a varying velocity ratio are left out (quasi-static
-//! kinematics over each step).
+//! drive's own inertia, `m_w` the drive weight's own mass (its scheduled value). Where
+//! the velocity ratio changes over the travel the frictionless effective mass `M(x)`
+//! changes, and Lagrange's equation adds `−½·(∂M/∂x)·v²` to the right-hand side
+//! (`d/dt(M·v) − ½·(∂M/∂x)·v² = Q`); it is not passed through the friction.
 //!
 //! Steps: Dormand–Prince 5(4) (Hairer, Nørsett & Wanner, *Solving ODEs I*, §II.5) with
 //! step-size control on the state (position, speed and the energy integrals), relative
@@ -319,7 +320,18 @@ impl Dynamics<'_> {
         (self.c * mu + s.own_inertia + own).max(1e-12)
     }
 
-    fn accel(&self, t: Real, x: Real) -> Real {
+    /// `a = (c·(D − F_σ) − ½·(∂M/∂x)·v²) / M_σ`: the Lagrange term of a velocity ratio
+    /// that changes along the travel, with `M` the frictionless effective mass (the
+    /// term is not passed through the friction).
+    fn accel(&self, t: Real, x: Real, v: Real) -> Real {
+        let m_x = mass_slope(self.profile, self.drive, t, x);
+        self.accel_of_loads(t, x) - 0.5 * m_x * v * v / self.mass(t, x)
+    }
+
+    /// `c·(D − F_σ) / M_σ`: the acceleration whose d'Alembert loads the parts carry
+    /// (their own accelerations include the ratio's change, `a + (∂ratio/∂x)·v²`,
+    /// which together with `a` makes up this), for the span tension.
+    fn accel_of_loads(&self, t: Real, x: Real) -> Real {
         let s = self.profile.at_t(t, x);
         let f = if self.sign > 0.0 { s.forward } else { s.back };
         self.c * (self.drive.at(t) - f) / self.mass(t, x)
@@ -328,7 +340,7 @@ impl Dynamics<'_> {
     fn rhs(&self, t: Real, y: &State) -> State {
         let (x, v) = (y[0], y[1]);
         let s = self.profile.at_t(t, x);
-        let a = self.accel(t, x);
+        let a = self.accel(t, x, v);
         let (f, mu) = if self.sign > 0.0 {
             (s.forward, s.inertia_forward)
         } else {
@@ -336,10 +348,12 @@ impl Dynamics<'_> {
         };
         let d = self.drive.at(t);
         let friction = self.c * ((f - s.ideal) + (mu - s.inertia_ideal) * a);
-        // dM/dt of the frictionless effective mass along the motion.
+        // ∂M/∂t of the frictionless effective mass where the rig is (a drive weight
+        // filling, a scheduled load): the kinetic energy given to mass added in motion.
+        // The change along the travel is in the equation of motion itself.
         let delta = 1e-6;
-        let m_dot = (profile_mass_ideal(self.profile, self.drive, t + delta, x + v * delta)
-            - profile_mass_ideal(self.profile, self.drive, t - delta, x - v * delta))
+        let m_dot = (profile_mass_ideal(self.profile, self.drive, t + delta, x)
+            - profile_mass_ideal(self.profile, self.drive, t - delta, x))
             / (2.0 * delta);
         [
             v,
@@ -583,7 +597,7 @@ pub fn run(profile: &Profile, drive: &DriveValue, settings: &Settings) -> Run {
                 } else {
                     (t + step, y1)
                 };
-                let a_new = dyn_.accel(t_new, y_new[0]);
+                let a_new = dyn_.accel_of_loads(t_new, y_new[0]);
                 t = t_new;
                 y = y_new;
                 if crossed(&y) {
@@ -665,6 +679,30 @@ pub(super) fn relabel_stick_slip(events: &mut [Event]) {
             _ => {}
         }
     }
+}
+
+/// `∂M/∂x` of the frictionless effective mass at `x` (kg/m or kg·m²/rad). The samples
+/// give `M` at their positions; its slope there is the central difference of the
+/// neighbours (one-sided at the ends), interpolated linearly between samples, so that
+/// the acceleration has no jumps at the samples for the steps to cross (a jump there
+/// cost the energy balance 1e-5 of the work on a rig whose ratio changes steeply).
+pub(super) fn mass_slope(profile: &Profile, drive: &DriveValue, t: Real, x: Real) -> Real {
+    let s = &profile.samples;
+    let n = s.len();
+    if n < 2 {
+        return 0.0;
+    }
+    let mass = |j: usize| profile_mass_ideal(profile, drive, t, s[j].x);
+    let node = |j: usize| {
+        let (a, b) = (j.saturating_sub(1), (j + 1).min(n - 1));
+        (mass(b) - mass(a)) / (s[b].x - s[a].x)
+    };
+    if x <= s[0].x || x >= s[n - 1].x {
+        return 0.0;
+    }
+    let i = s.partition_point(|p| p.x <= x).clamp(1, n - 1);
+    let w = (x - s[i - 1].x) / (s[i].x - s[i - 1].x);
+    node(i - 1) * (1.0 - w) + node(i) * w
 }
 
 /// The frictionless effective mass at the drive, generalized (kg or kg·m²).
