@@ -20,7 +20,8 @@ pub struct MotionArgs {
     #[command(flatten)]
     pub rig: RigArgs,
     /// How long to run (`90 s`, `20 min`, `2 h`; bare numbers are seconds). Default:
-    /// the drive's schedule and half as long again, plus 10 s (60 s without a schedule).
+    /// the latest schedule (the drive's or another part's) and half as long again, plus
+    /// 10 s (60 s without a schedule).
     #[arg(long, value_name = "T", allow_hyphen_values = true)]
     pub duration: Option<String>,
     /// Also write the chart (position, speed, drive value and holding band) to this SVG.

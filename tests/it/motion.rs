@@ -743,3 +743,34 @@ fn a_changing_velocity_ratio_keeps_the_work_energy_balance() {
         1e-6,
     );
 }
+
+#[test]
+fn a_long_load_schedule_is_solved_at_some_of_its_times_and_says_so() {
+    // 250 times: each costs a whole profile, so at most 100 are solved (every third
+    // and the last), with a warning; the run still starts as the load drains.
+    let points: Vec<String> = (0..250)
+        .map(|i| format!("[{} s, {} kg]", i, 3.0 - 2.0 * i as f64 / 249.0))
+        .collect();
+    let text = RAMP
+        .replace("STATIC", "")
+        .replace(
+            "force: {schedule: [[0 s, 1 N], [1 min, 60 N], [70 s, 60 N], [130 s, 1 N]]}",
+            "force: 25 N",
+        )
+        .replace(
+            "load: {mass: 3}",
+            &format!("load: {{mass: {{schedule: [{}]}}}}", points.join(", ")),
+        );
+    let options = MotionOptions {
+        intervals: 4,
+        ..MotionOptions::default()
+    };
+    let m = run(&text, &options);
+    assert!(
+        m.warnings.iter().any(|w| w.code == "schedule-thinned"),
+        "{:?}",
+        m.warnings
+    );
+    assert!(m.profile.later.len() <= reeve::solve::motion::MOST_SOLVED_TIMES + 1);
+    first(&m, EventKind::StartsForward);
+}

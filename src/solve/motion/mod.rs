@@ -27,10 +27,14 @@ use crate::solve::{given_quantity, Quantity, SolveError, SolveOptions};
 pub use integrate::{DriveValue, Energy, Event, EventKind, Point, Run, Settings};
 pub use profile::Profile;
 
+/// The most times of the other parts' schedules at which the statics is solved again.
+pub const MOST_SOLVED_TIMES: usize = 100;
+
 /// Settings of a motion run, with defaults.
 #[derive(Debug, Clone, Copy, PartialEq)]
 pub struct MotionOptions {
-    /// Run length, s; None: the schedule's last time × 1.5 + 10 s (60 s without one).
+    /// Run length, s; None: the latest schedule time (the drive's or another part's)
+    /// × 1.5 + 10 s (60 s without a schedule).
     pub duration: Option<Real>,
     /// Sampled intervals over the travel (default 200).
     pub intervals: usize,
@@ -232,15 +236,34 @@ fn motion_inner(
         .collect();
     times.sort_by(Real::total_cmp);
     times.dedup_by(|a, b| (*a - *b).abs() <= 1e-12 * a.abs().max(1.0));
+    // Each time costs a whole profile: a long schedule is solved at every k-th of its
+    // times (and its last) and interpolated between, with a warning.
+    let all_times = times.len();
+    if all_times > MOST_SOLVED_TIMES {
+        let k = all_times.div_ceil(MOST_SOLVED_TIMES);
+        let last = times[all_times - 1];
+        times = times.into_iter().step_by(k).collect();
+        if times.last() != Some(&last) {
+            times.push(last);
+        }
+    }
     progress.start((times.len() + 1) * profile::sample_count(&rig, options.intervals) + 1);
     let mut profile = build(&at_time(0.0))?;
-    for t in times {
+    for &t in &times {
         profile.later.push((t, build(&at_time(t))?.samples));
     }
-    let duration = options.duration.unwrap_or(match &drive_value {
-        DriveValue::Scheduled(s) => s.end() * 1.5 + 10.0,
-        DriveValue::Constant(_) => 60.0,
-    });
+    // The latest schedule end, the drive's or another part's.
+    let last_end = others
+        .iter()
+        .map(|(_, s)| s.end())
+        .chain(match &drive_value {
+            DriveValue::Scheduled(s) => Some(s.end()),
+            DriveValue::Constant(_) => None,
+        })
+        .reduce(Real::max);
+    let duration = options
+        .duration
+        .unwrap_or(last_end.map_or(60.0, |e| e * 1.5 + 10.0));
     let settings = Settings {
         duration,
         max_step: options.max_step.unwrap_or(duration / 2000.0).max(1e-6),
@@ -292,6 +315,16 @@ fn motion_inner(
         }
     }
     let mut warnings = warnings(&rig, &profile, &run, &strokes);
+    if all_times > times.len() {
+        warnings.push(Warning {
+            code: "schedule-thinned",
+            message: format!(
+                "the other parts' schedules have {all_times} times; the statics is solved at {} of them and interpolated linearly between",
+                times.len()
+            ),
+            figures: None,
+        });
+    }
     let reached = run.points.last().map_or(0.0, |p| p.t);
     if reached < duration * (1.0 - 1e-9) {
         warnings.push(Warning {
