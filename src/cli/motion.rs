@@ -5,11 +5,12 @@ use std::path::PathBuf;
 
 use reeve::report::format::Format;
 use reeve::report::motion as writer;
-use reeve::solve::motion::{motion, MotionOptions};
+use reeve::solve::motion::{motion_told, MotionOptions};
 use reeve::units::{parse_quantity, parse_unit_of, Dimension};
 
-use super::args::{FormatArgs, RigArgs};
+use super::args::{FormatArgs, RigArgs, UnitsArg};
 use super::destination::{emit, Destination};
+use super::progress::Bar;
 use super::{load, write_out, Failure, EXIT_OK};
 
 /// Arguments of `motion`.
@@ -19,7 +20,8 @@ pub struct MotionArgs {
     #[command(flatten)]
     pub rig: RigArgs,
     /// How long to run (`90 s`, `20 min`, `2 h`; bare numbers are seconds). Default:
-    /// the drive's schedule and half as long again, plus 10 s (60 s without a schedule).
+    /// the latest schedule (the drive's or another part's) and half as long again, plus
+    /// 10 s (60 s without a schedule).
     #[arg(long, value_name = "T", allow_hyphen_values = true)]
     pub duration: Option<String>,
     /// Also write the chart (position, speed, drive value and holding band) to this SVG.
@@ -28,6 +30,9 @@ pub struct MotionArgs {
     /// Output format: text, csv (the time series) or json.
     #[command(flatten)]
     pub format: FormatArgs,
+    /// Units of the text, CSV and chart (JSON stays SI).
+    #[command(flatten)]
+    pub units: UnitsArg,
 }
 
 /// `reeve motion`.
@@ -52,20 +57,23 @@ pub fn run_motion(args: MotionArgs) -> Result<i32, Failure> {
         duration,
         ..MotionOptions::default()
     };
-    let m = motion(&rig, &options).map_err(|e| {
+    // A bar on a terminal only (stderr), never in piped output.
+    let m = motion_told(&rig, &options, &Bar::new("motion")).map_err(|e| {
         Failure::Input(format!(
             "{}: {}",
             args.rig.rig.display(),
             reeve::text::error_chain(&e)
         ))
     })?;
+    let title = rig.title.clone();
+    // The CSV stays SI unless `--units` names a system.
+    let (units, csv_units) = args.units.shown_in_csv(rig.units);
     if let Some(path) = &args.plot {
-        let svg = writer::chart(&m, &rig.units);
+        let svg = writer::chart(&m, &units);
         emit(&Destination::File(path.clone()), &args.rig.rig, |w| {
             w.write_all(svg.as_bytes())
         })?;
     }
-    let title = rig.title.clone();
     match format {
         Format::Json => {
             let json = serde_json::to_string_pretty(&writer::json(&m)).map_err(|source| {
@@ -76,8 +84,8 @@ pub fn run_motion(args: MotionArgs) -> Result<i32, Failure> {
             })?;
             write_out(|w| writeln!(w, "{json}"))?;
         }
-        Format::Csv => write_out(|w| writer::write_csv(w, &m))?,
-        _ => write_out(|w| writer::write_text(w, &m, &rig.units, &title))?,
+        Format::Csv => write_out(|w| writer::write_csv(w, &m, csv_units.as_ref()))?,
+        _ => write_out(|w| writer::write_text(w, &m, &units, &title))?,
     }
     Ok(EXIT_OK)
 }

@@ -245,6 +245,86 @@ fn shown(m: &Motion, units: &UnitSystem) -> ((Real, String), (Real, String)) {
     (pos, (1.0 / u.si, u.symbol.to_string()))
 }
 
+/// How the other figures are shown: (scale from SI, unit) of speed, force (span
+/// tension), energy, effective mass and the rope's spring rate at the drive. Metric
+/// systems keep m/s, the force unit, J, kg (or kg*m^2) and N/m (or N*m/rad); a system
+/// in lbf (US customary) shows ft/s, lbf, lbf*ft, lb (or lb*ft^2) and lbf/in (or
+/// lbf*ft/rad).
+struct Others {
+    speed: (Real, &'static str),
+    force: (Real, String),
+    energy: (Real, &'static str),
+    mass: (Real, &'static str),
+    spring: (Real, &'static str),
+}
+
+/// A warning's text in the shown units (its message is SI).
+fn warning_text(wn: &crate::solve::motion::Warning, o: &Others) -> String {
+    use crate::solve::motion::WarningFigures;
+    let n = |x: Real| number(Some(x), 4);
+    match wn.figures {
+        Some(WarningFigures::StopSpeed {
+            start,
+            speed,
+            limit,
+        }) => {
+            let (sv, su) = o.speed;
+            format!(
+                "the stroke starting at {start:.3} s hits its end stop at {} {su}, faster than limits.stop_speed {} {su}",
+                n(speed * sv),
+                n(limit * sv)
+            )
+        }
+        Some(WarningFigures::DynamicTension {
+            peak,
+            static_peak,
+            allowed,
+        }) => {
+            let (fs, fu) = (o.force.0, &o.force.1);
+            format!(
+                "a span tension reaches {} {fu} in motion (the static check's largest is {} {fu}), beyond the breaking strength over the design factor ({} {fu})",
+                n(peak * fs),
+                n(static_peak * fs),
+                n(allowed * fs)
+            )
+        }
+        None => wn.message.clone(),
+    }
+}
+
+fn others(m: &Motion, units: &UnitSystem) -> Others {
+    use crate::units::unit;
+    let imperial = units.force.symbol == unit::LBF.symbol;
+    let force = units.unit(Dimension::Force);
+    let lbf_ft = unit::LBF_FT.si;
+    let lb_ft2 = unit::LB.si * unit::FT.si * unit::FT.si;
+    Others {
+        speed: match (m.profile.rotates, imperial) {
+            (true, _) => (1f64.to_degrees(), "deg/s"),
+            (false, false) => (1.0, "m/s"),
+            (false, true) => (1.0 / unit::FT.si, "ft/s"),
+        },
+        force: (1.0 / force.si, force.symbol.to_string()),
+        energy: if imperial {
+            (1.0 / lbf_ft, "lbf*ft")
+        } else {
+            (1.0, "J")
+        },
+        mass: match (m.profile.rotates, imperial) {
+            (true, false) => (1.0, "kg*m^2"),
+            (true, true) => (1.0 / lb_ft2, "lb*ft^2"),
+            (false, false) => (1.0, "kg"),
+            (false, true) => (1.0 / unit::LB.si, "lb"),
+        },
+        spring: match (m.profile.rotates, imperial) {
+            (true, false) => (1.0, "N*m/rad"),
+            (true, true) => (1.0 / lbf_ft, "lbf*ft/rad"),
+            (false, false) => (1.0, "N/m"),
+            (false, true) => (1.0 / unit::LBF_PER_IN.si, "lbf/in"),
+        },
+    }
+}
+
 /// Writes the text summary.
 ///
 /// # Errors
@@ -256,12 +336,10 @@ pub fn write_text(
     title: &str,
 ) -> io::Result<()> {
     let ((ps, pu), (ds, du)) = shown(m, units);
-    let su = if m.profile.rotates { "deg/s" } else { "m/s" };
-    let sv = if m.profile.rotates {
-        1f64.to_degrees()
-    } else {
-        1.0
-    };
+    let o = others(m, units);
+    let (sv, su) = o.speed;
+    let (fs, fu) = (o.force.0, o.force.1.as_str());
+    let (es, eu) = o.energy;
     let n = |x: Real| number(Some(x), 4);
     writeln!(
         w,
@@ -280,11 +358,11 @@ pub fn write_text(
         n(s0.back * ds),
         n(s0.forward * ds)
     )?;
-    let mass_unit = if m.profile.rotates { "kg*m^2" } else { "kg" };
     writeln!(
         w,
-        "Effective mass at the drive: {} {mass_unit}",
-        n(effective_mass(m))
+        "Effective mass at the drive: {} {}",
+        n(effective_mass(m) * o.mass.0),
+        o.mass.1
     )?;
     writeln!(w)?;
     writeln!(w, "Events:")?;
@@ -322,7 +400,7 @@ pub fn write_text(
         "end (s)",
         "time (s)",
         format!("peak ({su})"),
-        "peak T (N)",
+        format!("peak T ({fu})"),
         "jerks"
     )?;
     for s in &m.strokes {
@@ -335,7 +413,7 @@ pub fn write_text(
             n(s.end),
             n(s.end - s.start),
             n(s.peak_speed * sv),
-            n(s.peak_tension),
+            n(s.peak_tension * fs),
             s.stick_slip_cycles
         )?;
     }
@@ -346,46 +424,82 @@ pub fn write_text(
     writeln!(w)?;
     writeln!(
         w,
-        "Energy: drive {} J = loads {} J + friction {} J + at the stops {} J + kinetic {} J + rope strain {} J + given to mass added in motion {} J (residual {} J)",
-        n(e.drive),
-        n(e.loads),
-        n(e.friction),
-        n(e.impacts),
-        n(e.kinetic),
-        n(e.spring),
-        n(e.added_mass),
-        number(Some(e.residual()), 2)
+        "Energy: drive {} {eu} = loads {} {eu} + friction {} {eu} + at the stops {} {eu} + kinetic {} {eu} + rope strain {} {eu} + given to mass added in motion {} {eu} (residual {} {eu})",
+        n(e.drive * es),
+        n(e.loads * es),
+        n(e.friction * es),
+        n(e.impacts * es),
+        n(e.kinetic * es),
+        n(e.spring * es),
+        n(e.added_mass * es),
+        number(Some(e.residual() * es), 2)
     )?;
     writeln!(w, "Integrator: {}; {} steps.", tolerance(), m.run.steps)?;
+    let (ks, ku) = o.spring;
     match m.two_dof {
-        Some(k) => writeln!(w, "Two degrees of freedom: the drive weight and the rig joined by the rope's spring rate at the drive, {} N/m (no rope damping: the weight keeps swinging).", n(k))?,
+        Some(k) if m.profile.drive_is_weight => writeln!(w, "Two degrees of freedom: the drive weight and the rig joined by the rope's spring rate at the drive, {} {ku} (no rope damping: the weight keeps swinging).", n(k * ks))?,
+        Some(k) if m.profile.drive_inertia > 0.0 => writeln!(w, "Two degrees of freedom: the drive drum's own inertia and the rig joined by the rope's spring rate at the drive, {} {ku} (no rope damping: the drum keeps swinging).", n(k * ks))?,
+        Some(k) => writeln!(w, "Rope spring rate at the drive {} {ku}: the haul's end has no mass, so its stretch follows its force and the rig moves as with one degree of freedom; the strain energy joins the balance.", n(k * ks))?,
         None => writeln!(w, "One degree of freedom along the drive's motion.")?,
     }
-    writeln!(w, "Inertia passes through the friction as linearised at constant speed; a varying velocity ratio's ½·(dM/dx)·v² is left out.")?;
+    writeln!(w, "Inertia passes through the friction as linearised at constant speed; a varying velocity ratio's ½·(dM/dx)·v² is in the motion (frictionless, not passed through the friction; on a two-degree run it is left out).")?;
     if !m.warnings.is_empty() {
         writeln!(w)?;
         writeln!(w, "Warnings:")?;
         for wn in &m.warnings {
-            writeln!(w, "  warn [{}] {}", wn.code, escape::text_line(&wn.message))?;
+            writeln!(
+                w,
+                "  warn [{}] {}",
+                wn.code,
+                escape::text_line(&warning_text(wn, &o))
+            )?;
         }
     }
     writeln!(w)?;
     writeln!(w, "{CAUTION}")
 }
 
-/// Writes the time series as CSV (SI).
+/// Writes the time series as CSV: SI, or in `units` where `--units` names a system
+/// (the unit in every header).
 ///
 /// # Errors
 /// I/O errors of the writer.
-pub fn write_csv(w: &mut dyn Write, m: &Motion) -> io::Result<()> {
-    let pu = if m.profile.rotates { "rad" } else { "m" };
-    let du = m.quantity.si_unit();
+pub fn write_csv(w: &mut dyn Write, m: &Motion, units: Option<&UnitSystem>) -> io::Result<()> {
+    let Some(units) = units else {
+        let pu = if m.profile.rotates { "rad" } else { "m" };
+        let du = m.quantity.si_unit();
+        writeln!(
+            w,
+            "t_s,position_{pu},speed_{pu}_per_s,drive_value_{du},tension_n"
+        )?;
+        for p in &m.run.points {
+            writeln!(w, "{},{},{},{},{}", p.t, p.x, p.v, p.drive, p.tension)?;
+        }
+        return Ok(());
+    };
+    let ((ps, pu), (ds, du)) = shown(m, units);
+    let o = others(m, units);
+    let (sv, su) = o.speed;
+    let (fs, fu) = (o.force.0, o.force.1);
+    let csv_unit = |u: &str| u.replace('/', "_per_").replace('*', "_");
     writeln!(
         w,
-        "t_s,position_{pu},speed_{pu}_per_s,drive_value_{du},tension_n"
+        "t_s,position_{},speed_{},drive_value_{},tension_{}",
+        csv_unit(&pu),
+        csv_unit(su),
+        csv_unit(&du),
+        csv_unit(&fu)
     )?;
     for p in &m.run.points {
-        writeln!(w, "{},{},{},{},{}", p.t, p.x, p.v, p.drive, p.tension)?;
+        writeln!(
+            w,
+            "{},{},{},{},{}",
+            p.t,
+            p.x * ps,
+            p.v * sv,
+            p.drive * ds,
+            p.tension * fs
+        )?;
     }
     Ok(())
 }
@@ -394,12 +508,7 @@ pub fn write_csv(w: &mut dyn Write, m: &Motion) -> io::Result<()> {
 /// where the rig stands, against time.
 pub fn chart(m: &Motion, units: &UnitSystem) -> String {
     let ((ps, pu), (ds, du)) = shown(m, units);
-    let su = if m.profile.rotates { "deg/s" } else { "m/s" };
-    let sv = if m.profile.rotates {
-        1f64.to_degrees()
-    } else {
-        1.0
-    };
+    let (sv, su) = others(m, units).speed;
     let pts = &m.run.points;
     let series = |name: &str, f: &dyn Fn(&crate::solve::motion::Point) -> Real| Series {
         name: name.to_string(),
@@ -428,9 +537,11 @@ pub fn chart(m: &Motion, units: &UnitSystem) -> String {
             series: vec![
                 series("drive value", &|p| p.drive * ds),
                 series("starts forward above", &|p| {
-                    m.profile.at(p.x).start_forward * ds
+                    m.profile.at_t(p.t, p.x).start_forward * ds
                 }),
-                series("starts back below", &|p| m.profile.at(p.x).start_back * ds),
+                series("starts back below", &|p| {
+                    m.profile.at_t(p.t, p.x).start_back * ds
+                }),
             ],
         },
     ])
@@ -459,6 +570,7 @@ pub fn write_html_section(w: &mut dyn Write, rig: &crate::model::Rig) -> io::Res
         }
     };
     let ((ps, pu), (ds, du)) = shown(&m, &rig.units);
+    let o = others(&m, &rig.units);
     let n = |x: Real| esc(&number(Some(x), 4));
     writeln!(w, "<div class=\"table-scroll\"><table class=\"data\"><thead><tr><th scope=\"col\" class=\"num\">t (s)</th><th scope=\"col\">event</th><th scope=\"col\" class=\"num\">at ({})</th><th scope=\"col\" class=\"num\">drive ({})</th></tr></thead><tbody>", esc(&pu), esc(&du))?;
     for e in &m.run.events {
@@ -478,13 +590,15 @@ pub fn write_html_section(w: &mut dyn Write, rig: &crate::model::Rig) -> io::Res
     for s in &m.strokes {
         writeln!(
             w,
-            "<p>Stroke {} from {} s to {} s ({} s): peak speed {}, peak span tension {} N, {} stick-slip cycle(s).</p>",
+            "<p>Stroke {} from {} s to {} s ({} s): peak speed {} {}, peak span tension {} {}, {} stick-slip cycle(s).</p>",
             if s.direction > 0.0 { "forward" } else { "back" },
             n(s.start),
             n(s.end),
             n(s.end - s.start),
-            n(s.peak_speed),
-            n(s.peak_tension),
+            n(s.peak_speed * o.speed.0),
+            o.speed.1,
+            n(s.peak_tension * o.force.0),
+            esc(&o.force.1),
             s.stick_slip_cycles
         )?;
     }
@@ -495,7 +609,7 @@ pub fn write_html_section(w: &mut dyn Write, rig: &crate::model::Rig) -> io::Res
                 w,
                 "<li><span class=\"tag warn\">warn</span><code>{}</code>: {}</li>",
                 esc(wn.code),
-                esc(&wn.message)
+                esc(&warning_text(wn, &o))
             )?;
         }
         writeln!(w, "</ul>")?;

@@ -14,6 +14,7 @@ mod load_errors;
 mod material;
 mod material_warnings;
 mod motion;
+mod motion_progress;
 mod numerics;
 mod outputs;
 mod pin_loads_3d;

@@ -315,3 +315,69 @@ fn units_refuses_an_unknown_system() {
     assert_eq!(ran.code, 2, "{}", ran.stderr);
     assert!(ran.stderr.contains("imperial"), "{}", ran.stderr);
 }
+
+#[test]
+fn motion_with_units_imperial_has_no_metric_unit_and_its_csv_follows() {
+    // The ballast panel (a metric rig) moves, jerks and hits its stops, so the text has
+    // events, strokes, the energy line and `stop-speed` warnings with figures.
+    let rig = example_rig("ballast-panel");
+    let scratch = Scratch::new("motion-units");
+    let chart = scratch.join("motion.svg");
+    let chart_arg = chart.display().to_string();
+    let text = stdout_of(&["motion", &rig, "--units", "imperial", "--plot", &chart_arg]);
+    assert!(
+        text.contains("stop-speed") && text.contains("ft/s"),
+        "{text}"
+    );
+    assert_only_imperial("motion text", &text);
+    let svg = std::fs::read_to_string(&chart).expect("chart written");
+    assert_only_imperial("motion chart", &svg);
+    let csv = stdout_of(&["motion", &rig, "--units", "imperial", "--format", "csv"]);
+    assert_only_imperial("motion csv", &csv);
+    let (headers, rows) = csv_of(&["motion", &rig, "--units", "imperial", "--format", "csv"]);
+    let (si_headers, si_rows) = csv_of(&["motion", &rig, "--format", "csv"]);
+    assert_eq!(
+        headers,
+        [
+            "t_s",
+            "position_in",
+            "speed_ft_per_s",
+            "drive_value_lb",
+            "tension_lbf"
+        ]
+    );
+    // Without --units the CSV stays SI, as it was.
+    assert_eq!(
+        si_headers,
+        [
+            "t_s",
+            "position_m",
+            "speed_m_per_s",
+            "drive_value_kg",
+            "tension_n"
+        ]
+    );
+    let last = rows.len() - 1;
+    let value = |r: &[Vec<String>], row: usize, col: usize| r[row][col].parse::<f64>().unwrap();
+    assert_rel(
+        "position, in",
+        value(&rows, last, 1) * 0.0254,
+        value(&si_rows, last, 1),
+        1e-12,
+    );
+    assert_rel(
+        "drive, lb",
+        value(&rows, last, 3) * 0.45359237,
+        value(&si_rows, last, 3),
+        1e-12,
+    );
+    assert_rel(
+        "tension, lbf",
+        value(&rows, last, 4) * 4.4482216152605,
+        value(&si_rows, last, 4),
+        1e-12,
+    );
+    // JSON stays SI.
+    let json = stdout_of(&["motion", &rig, "--units", "imperial", "--format", "json"]);
+    assert!(json.contains("\"position_unit\": \"m\""), "{json:.300}");
+}

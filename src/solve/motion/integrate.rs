@@ -5,9 +5,10 @@
 //! `M·a = c·(D(t) − F_σ(x))` with `M = c·μ_σ(x) + I_own(x) + m_w(t)`: `c` the
 //! generalized scale (g for a mass drive, else 1), `F_σ` the running value of that case,
 //! `μ_σ` the inertia through the friction of that case, `I_own` the sheaves' and the
-//! drive's own inertia, `m_w` the drive weight's own mass (its scheduled value). The
-//! terms `½·(dM/dx)·v²` of a varying velocity ratio are left out (quasi-static
-//! kinematics over each step).
+//! drive's own inertia, `m_w` the drive weight's own mass (its scheduled value). Where
+//! the velocity ratio changes over the travel the frictionless effective mass `M(x)`
+//! changes, and Lagrange's equation adds `−½·(∂M/∂x)·v²` to the right-hand side
+//! (`d/dt(M·v) − ½·(∂M/∂x)·v² = Q`); it is not passed through the friction.
 //!
 //! Steps: Dormand–Prince 5(4) (Hairer, Nørsett & Wanner, *Solving ODEs I*, §II.5) with
 //! step-size control on the state (position, speed and the energy integrals), relative
@@ -226,6 +227,73 @@ impl DriveValue {
     }
 }
 
+/// The next time after `t` at which the drive's schedule or the profile's figures
+/// change slope.
+pub(super) fn next_break(drive: &DriveValue, profile: &Profile, t: Real) -> Option<Real> {
+    match (drive.next_break(t), profile.next_time(t)) {
+        (Some(a), Some(b)) => Some(a.min(b)),
+        (a, b) => a.or(b),
+    }
+}
+
+/// The first time ≥ `t` (≤ `end`) at which the drive value leaves the holding band
+/// `band(t) = (lo, hi)`: both are piecewise linear in time with their slopes changing
+/// only at the schedule's and the profile's times, so each piece is solved exactly.
+pub(super) fn leaves_band(
+    drive: &DriveValue,
+    profile: &Profile,
+    t: Real,
+    end: Real,
+    band: &dyn Fn(Real) -> (Real, Real),
+) -> Option<Real> {
+    if profile.later.is_empty() {
+        let (lo, hi) = band(t);
+        return drive.leaves(t, end, lo, hi);
+    }
+    let outside = |t: Real| {
+        let (lo, hi) = band(t);
+        let v = drive.at(t);
+        v > hi || v < lo
+    };
+    if outside(t) {
+        return Some(t);
+    }
+    let mut t0 = t;
+    loop {
+        let t1 = next_break(drive, profile, t0).unwrap_or(end).min(end);
+        if t1 > t0 {
+            let (lo0, hi0) = band(t0);
+            let (lo1, hi1) = band(t1);
+            let (q0, q1) = (drive.at(t0), drive.at(t1));
+            let mut first: Option<Real> = None;
+            for (g0, g1) in [(q0 - hi0, q1 - hi1), (lo0 - q0, lo1 - q1)] {
+                // Each of `v − hi` and `lo − v` is linear on the piece; outside once > 0.
+                if g0.is_finite() && g1.is_finite() && g1 > 0.0 && g0 <= 0.0 {
+                    let tc = t0 + (-g0) / (g1 - g0) * (t1 - t0);
+                    first = Some(first.map_or(tc, |f: Real| f.min(tc)));
+                }
+            }
+            if let Some(tc) = first {
+                let nudge = 1e-9 * (t1 - t0);
+                let mut tx = tc;
+                for _ in 0..60 {
+                    if outside(tx) {
+                        return Some(tx);
+                    }
+                    tx += nudge;
+                    if tx > t1 {
+                        break;
+                    }
+                }
+            }
+        }
+        if t1 >= end {
+            return None;
+        }
+        t0 = t1;
+    }
+}
+
 /// The state integrated in motion: position, speed, and the energy integrals.
 type State = [Real; 6];
 
@@ -238,7 +306,7 @@ struct Dynamics<'a> {
 
 impl Dynamics<'_> {
     fn mass(&self, t: Real, x: Real) -> Real {
-        let s = self.profile.at(x);
+        let s = self.profile.at_t(t, x);
         let mu = if self.sign > 0.0 {
             s.inertia_forward
         } else {
@@ -252,16 +320,27 @@ impl Dynamics<'_> {
         (self.c * mu + s.own_inertia + own).max(1e-12)
     }
 
-    fn accel(&self, t: Real, x: Real) -> Real {
-        let s = self.profile.at(x);
+    /// `a = (c·(D − F_σ) − ½·(∂M/∂x)·v²) / M_σ`: the Lagrange term of a velocity ratio
+    /// that changes along the travel, with `M` the frictionless effective mass (the
+    /// term is not passed through the friction).
+    fn accel(&self, t: Real, x: Real, v: Real) -> Real {
+        let m_x = mass_slope(self.profile, self.drive, t, x);
+        self.accel_of_loads(t, x) - 0.5 * m_x * v * v / self.mass(t, x)
+    }
+
+    /// `c·(D − F_σ) / M_σ`: the acceleration whose d'Alembert loads the parts carry
+    /// (their own accelerations include the ratio's change, `a + (∂ratio/∂x)·v²`,
+    /// which together with `a` makes up this), for the span tension.
+    fn accel_of_loads(&self, t: Real, x: Real) -> Real {
+        let s = self.profile.at_t(t, x);
         let f = if self.sign > 0.0 { s.forward } else { s.back };
         self.c * (self.drive.at(t) - f) / self.mass(t, x)
     }
 
     fn rhs(&self, t: Real, y: &State) -> State {
         let (x, v) = (y[0], y[1]);
-        let s = self.profile.at(x);
-        let a = self.accel(t, x);
+        let s = self.profile.at_t(t, x);
+        let a = self.accel(t, x, v);
         let (f, mu) = if self.sign > 0.0 {
             (s.forward, s.inertia_forward)
         } else {
@@ -269,10 +348,12 @@ impl Dynamics<'_> {
         };
         let d = self.drive.at(t);
         let friction = self.c * ((f - s.ideal) + (mu - s.inertia_ideal) * a);
-        // dM/dt of the frictionless effective mass along the motion.
+        // ∂M/∂t of the frictionless effective mass where the rig is (a drive weight
+        // filling, a scheduled load): the kinetic energy given to mass added in motion.
+        // The change along the travel is in the equation of motion itself.
         let delta = 1e-6;
-        let m_dot = (profile_mass_ideal(self.profile, self.drive, t + delta, x + v * delta)
-            - profile_mass_ideal(self.profile, self.drive, t - delta, x - v * delta))
+        let m_dot = (profile_mass_ideal(self.profile, self.drive, t + delta, x)
+            - profile_mass_ideal(self.profile, self.drive, t - delta, x))
             / (2.0 * delta);
         [
             v,
@@ -402,8 +483,8 @@ pub fn run(profile: &Profile, drive: &DriveValue, settings: &Settings) -> Run {
         energy: Energy::default(),
         steps: 0,
     };
-    let tension_at = |x: Real, v: Real, a: Real| {
-        let s = profile.at(x);
+    let tension_at = |t: Real, x: Real, v: Real, a: Real| {
+        let s = profile.at_t(t, x);
         let (t0, dt) = if v < 0.0 {
             s.tension_back
         } else {
@@ -417,7 +498,7 @@ pub fn run(profile: &Profile, drive: &DriveValue, settings: &Settings) -> Run {
             x: y[0],
             v: y[1],
             drive: drive.at(t),
-            tension: tension_at(y[0], y[1], a),
+            tension: tension_at(t, y[0], y[1], a),
         });
     };
     push(&mut out, 0.0, &y, 0.0);
@@ -427,25 +508,30 @@ pub fn run(profile: &Profile, drive: &DriveValue, settings: &Settings) -> Run {
         guard += 1;
         match mode {
             Mode::Rest => {
-                let s = profile.at(y[0]);
-                let at_hi = y[0] >= hi;
-                let at_lo = y[0] <= lo;
+                let x = y[0];
+                let at_hi = x >= hi;
+                let at_lo = x <= lo;
                 // Against a stop, the stop holds the rig on that side.
-                let band_hi = if at_hi {
-                    Real::INFINITY
-                } else {
-                    s.start_forward
+                let band = |t: Real| {
+                    let s = profile.at_t(t, x);
+                    (
+                        if at_lo {
+                            Real::NEG_INFINITY
+                        } else {
+                            s.start_back
+                        },
+                        if at_hi {
+                            Real::INFINITY
+                        } else {
+                            s.start_forward
+                        },
+                    )
                 };
-                let band_lo = if at_lo {
-                    Real::NEG_INFINITY
-                } else {
-                    s.start_back
-                };
-                let tl = drive.leaves(t, end, band_lo, band_hi);
+                let tl = leaves_band(drive, profile, t, end, &band);
                 // The schedule's points while it waits, so the drive value is drawn true.
                 let until = tl.unwrap_or(end);
                 let mut b = t;
-                while let Some(next) = drive.next_break(b).filter(|&n| n < until) {
+                while let Some(next) = next_break(drive, profile, b).filter(|&n| n < until) {
                     push(&mut out, next, &y, 0.0);
                     b = next;
                 }
@@ -459,7 +545,7 @@ pub fn run(profile: &Profile, drive: &DriveValue, settings: &Settings) -> Run {
                     push(&mut out, t, &y, 0.0);
                 }
                 let d = drive.at(t);
-                let sign = if d > band_hi { 1.0 } else { -1.0 };
+                let sign = if d > band(t).1 { 1.0 } else { -1.0 };
                 out.events.push(Event {
                     t,
                     kind: if sign > 0.0 {
@@ -482,7 +568,7 @@ pub fn run(profile: &Profile, drive: &DriveValue, settings: &Settings) -> Run {
                     c,
                 };
                 let mut step = h.min(settings.max_step).min(end - t);
-                if let Some(b) = drive.next_break(t) {
+                if let Some(b) = next_break(drive, profile, t) {
                     step = step.min(b - t);
                 }
                 let (y1, err) = dp_step(&dyn_, t, &y, step, settings.tolerance_scale);
@@ -511,7 +597,7 @@ pub fn run(profile: &Profile, drive: &DriveValue, settings: &Settings) -> Run {
                 } else {
                     (t + step, y1)
                 };
-                let a_new = dyn_.accel(t_new, y_new[0]);
+                let a_new = dyn_.accel_of_loads(t_new, y_new[0]);
                 t = t_new;
                 y = y_new;
                 if crossed(&y) {
@@ -533,7 +619,7 @@ pub fn run(profile: &Profile, drive: &DriveValue, settings: &Settings) -> Run {
                     push(&mut out, t, &y, a_new);
                     // A stop always records the impact; coming to rest in the open
                     // records `stops` unless it sets off again at once (the rest step).
-                    let s = profile.at(y[0]);
+                    let s = profile.at_t(t, y[0]);
                     let d = drive.at(t);
                     let kind = kind.unwrap_or(EventKind::Stops);
                     let reverses = kind == EventKind::Stops
@@ -595,9 +681,33 @@ pub(super) fn relabel_stick_slip(events: &mut [Event]) {
     }
 }
 
+/// `∂M/∂x` of the frictionless effective mass at `x` (kg/m or kg·m²/rad). The samples
+/// give `M` at their positions; its slope there is the central difference of the
+/// neighbours (one-sided at the ends), interpolated linearly between samples, so that
+/// the acceleration has no jumps at the samples for the steps to cross (a jump there
+/// cost the energy balance 1e-5 of the work on a rig whose ratio changes steeply).
+pub(super) fn mass_slope(profile: &Profile, drive: &DriveValue, t: Real, x: Real) -> Real {
+    let s = &profile.samples;
+    let n = s.len();
+    if n < 2 {
+        return 0.0;
+    }
+    let mass = |j: usize| profile_mass_ideal(profile, drive, t, s[j].x);
+    let node = |j: usize| {
+        let (a, b) = (j.saturating_sub(1), (j + 1).min(n - 1));
+        (mass(b) - mass(a)) / (s[b].x - s[a].x)
+    };
+    if x <= s[0].x || x >= s[n - 1].x {
+        return 0.0;
+    }
+    let i = s.partition_point(|p| p.x <= x).clamp(1, n - 1);
+    let w = (x - s[i - 1].x) / (s[i].x - s[i - 1].x);
+    node(i - 1) * (1.0 - w) + node(i) * w
+}
+
 /// The frictionless effective mass at the drive, generalized (kg or kg·m²).
 pub(super) fn profile_mass_ideal(profile: &Profile, drive: &DriveValue, t: Real, x: Real) -> Real {
-    let s = profile.at(x);
+    let s = profile.at_t(t, x);
     let own = if profile.drive_is_weight {
         drive.at(t)
     } else {

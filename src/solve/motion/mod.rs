@@ -7,10 +7,14 @@
 //! [`integrate`] module moves it in time under the drive's value (constant, or its
 //! schedule). [`strokes`] and the warnings turn the run into strokes and warnings.
 //!
-//! Where the ropes give `stiffness` and the drive is a weight, [`two`] adds the second
-//! degree of freedom: the drive weight on the rope's spring rate at the drive. Not yet
-//! here: the second degree of freedom for a drum drive, and schedules on parts other
-//! than the drive (held at their first value, with a warning).
+//! Where the ropes give `stiffness`, [`two`] adds the second degree of freedom: the drive
+//! weight, or a drive drum's own inertia, on the rope's spring rate at the drive. A haul's
+//! end has no inertia: its stretch follows its force, so the rig side moves as with one
+//! degree and the rope's strain energy `D²/(2k)` joins the balance.
+//!
+//! Schedules on parts other than the drive (a load, a weight that is not the drive) are
+//! followed: the profile is solved again at each of their times ([`Profile::at_t`]),
+//! so the holding band and the running values move with time.
 
 pub mod integrate;
 pub mod profile;
@@ -23,10 +27,14 @@ use crate::solve::{given_quantity, Quantity, SolveError, SolveOptions};
 pub use integrate::{DriveValue, Energy, Event, EventKind, Point, Run, Settings};
 pub use profile::Profile;
 
+/// The most times of the other parts' schedules at which the statics is solved again.
+pub const MOST_SOLVED_TIMES: usize = 100;
+
 /// Settings of a motion run, with defaults.
 #[derive(Debug, Clone, Copy, PartialEq)]
 pub struct MotionOptions {
-    /// Run length, s; None: the schedule's last time × 1.5 + 10 s (60 s without one).
+    /// Run length, s; None: the latest schedule time (the drive's or another part's)
+    /// × 1.5 + 10 s (60 s without a schedule).
     pub duration: Option<Real>,
     /// Sampled intervals over the travel (default 200).
     pub intervals: usize,
@@ -103,8 +111,34 @@ pub struct Stroke {
 pub struct Warning {
     /// Stable code.
     pub code: &'static str,
-    /// Text.
+    /// Text (SI units).
     pub message: String,
+    /// The figures of the message, so that a report can show them in other units.
+    pub figures: Option<WarningFigures>,
+}
+
+/// The figures of a warning that carries units.
+#[derive(Debug, Clone, Copy, PartialEq)]
+pub enum WarningFigures {
+    /// `stop-speed`: the stroke's start (s), its impact speed and the limit (m/s or rad/s).
+    StopSpeed {
+        /// Start of the stroke, s.
+        start: Real,
+        /// Impact speed.
+        speed: Real,
+        /// `limits.stop_speed`.
+        limit: Real,
+    },
+    /// `dynamic-tension`: the peak in motion, the static check's largest and the
+    /// allowed tension, N.
+    DynamicTension {
+        /// Peak span tension in motion, N.
+        peak: Real,
+        /// Largest static tension, N.
+        static_peak: Real,
+        /// Breaking strength over design factor, N.
+        allowed: Real,
+    },
 }
 
 /// The motion of a rig.
@@ -127,7 +161,7 @@ pub struct Motion {
     /// The drive value over time.
     pub drive_value: DriveValue,
     /// The spring rate joining drive side and rig side, where the run has two degrees of
-    /// freedom (a stretchy rope and a drive weight).
+    /// freedom (a stretchy rope and a drive weight, a drum with inertia, or a haul).
     pub two_dof: Option<Real>,
 }
 
@@ -136,6 +170,29 @@ pub struct Motion {
 /// # Errors
 /// [`MotionError`] when the drive has no value or the rig cannot be solved on its travel.
 pub fn motion(rig: &Rig, options: &MotionOptions) -> Result<Motion, MotionError> {
+    motion_told(rig, options, &())
+}
+
+/// [`motion`], telling `progress` how far it has got: one step per sampled position of
+/// each solved time (the statics, the long part), and one for the run itself.
+///
+/// # Errors
+/// As [`motion`].
+pub fn motion_told(
+    rig: &Rig,
+    options: &MotionOptions,
+    progress: &dyn crate::study::Progress,
+) -> Result<Motion, MotionError> {
+    let result = motion_inner(rig, options, progress);
+    progress.finish();
+    result
+}
+
+fn motion_inner(
+    rig: &Rig,
+    options: &MotionOptions,
+    progress: &dyn crate::study::Progress,
+) -> Result<Motion, MotionError> {
     let mut rig = rig.clone();
     rig.solve_for = rig.drive;
     let drive = rig.drive;
@@ -154,35 +211,101 @@ pub fn motion(rig: &Rig, options: &MotionOptions) -> Result<Motion, MotionError>
         }
     };
     // The statics needs the drive's value unknown: it asks what value moves it.
-    match &mut rig.parts[drive].kind {
-        PartKind::Haul(h) => h.force = None,
-        PartKind::Weight(w) => w.mass = None,
-        PartKind::Drum(d) => d.torque = None,
-        PartKind::Block(b) => {
-            b.load = match b.load {
-                crate::model::BlockLoad::Mass(_) => crate::model::BlockLoad::Mass(None),
-                crate::model::BlockLoad::Force(_) => crate::model::BlockLoad::Force(None),
-            }
+    set_natural(&mut rig, drive, None);
+    // The other parts' schedules: the statics solved again at each of their times.
+    let others: Vec<(usize, crate::model::changing::Schedule)> = (0..rig.parts.len())
+        .filter(|&p| p != drive)
+        .filter_map(|p| rig.changing.of(p).schedule.clone().map(|s| (p, s)))
+        .collect();
+    let at_time = |t: Real| {
+        let mut r = rig.clone();
+        for (p, s) in &others {
+            set_natural(&mut r, *p, Some(s.at(t)));
         }
-        _ => {}
+        r
+    };
+    let tick = || progress.step();
+    let build = |r: &Rig| {
+        profile::build_told(r, options.intervals, &options.solve, &tick)
+            .map_err(|(position, source)| MotionError::Solve { position, source })
+    };
+    let mut times: Vec<Real> = others
+        .iter()
+        .flat_map(|(_, s)| s.times().collect::<Vec<_>>())
+        .filter(|&t| t > 0.0)
+        .collect();
+    times.sort_by(Real::total_cmp);
+    times.dedup_by(|a, b| (*a - *b).abs() <= 1e-12 * a.abs().max(1.0));
+    // Each time costs a whole profile: a long schedule is solved at every k-th of its
+    // times (and its last) and interpolated between, with a warning.
+    let all_times = times.len();
+    if all_times > MOST_SOLVED_TIMES {
+        let k = all_times.div_ceil(MOST_SOLVED_TIMES);
+        let last = times[all_times - 1];
+        times = times.into_iter().step_by(k).collect();
+        if times.last() != Some(&last) {
+            times.push(last);
+        }
     }
-    let profile = profile::build(&rig, options.intervals, &options.solve)
-        .map_err(|(position, source)| MotionError::Solve { position, source })?;
-    let duration = options.duration.unwrap_or(match &drive_value {
-        DriveValue::Scheduled(s) => s.end() * 1.5 + 10.0,
-        DriveValue::Constant(_) => 60.0,
-    });
+    progress.start((times.len() + 1) * profile::sample_count(&rig, options.intervals) + 1);
+    let mut profile = build(&at_time(0.0))?;
+    for &t in &times {
+        profile.later.push((t, build(&at_time(t))?.samples));
+    }
+    // The latest schedule end, the drive's or another part's.
+    let last_end = others
+        .iter()
+        .map(|(_, s)| s.end())
+        .chain(match &drive_value {
+            DriveValue::Scheduled(s) => Some(s.end()),
+            DriveValue::Constant(_) => None,
+        })
+        .reduce(Real::max);
+    let duration = options
+        .duration
+        .unwrap_or(last_end.map_or(60.0, |e| e * 1.5 + 10.0));
     let settings = Settings {
         duration,
         max_step: options.max_step.unwrap_or(duration / 2000.0).max(1e-6),
         tolerance_scale: options.tolerance_scale,
     };
-    // A stretchy rope and a drive weight: drive side and rig side joined by the spring.
-    let two_dof = profile.drive_stiffness.filter(|_| profile.drive_is_weight);
-    let run = match two_dof {
-        Some(k) => two::run(&profile, &drive_value, &settings, k, None),
-        None => integrate::run(&profile, &drive_value, &settings),
+    // A stretchy rope: drive side and rig side joined by the spring. A drive weight or
+    // drum carries its own inertia on the drive side; a haul's end has none, so its
+    // stretch follows its force at once (`u = D/k`): the rig moves as with one degree of
+    // freedom, and the rope's strain energy joins the balance.
+    let kind = &rig.parts[drive].kind;
+    let two_dof = profile.drive_stiffness.filter(|_| match kind {
+        PartKind::Weight(_) | PartKind::Haul(_) => true,
+        // A lever or spring on the drive drum acts on the drive side, which the
+        // profile does not split off: those stay one degree of freedom.
+        PartKind::Drum(_) => {
+            let c = rig.changing.of(drive);
+            profile.drive_inertia > 0.0 && c.lever.is_none() && c.spring.is_none()
+        }
+        _ => false,
+    });
+    let run = match (two_dof, kind) {
+        (Some(k), PartKind::Weight(_)) => two::run(&profile, &drive_value, &settings, k, None),
+        (Some(k), PartKind::Drum(_)) => two::run(
+            &profile,
+            &drive_value,
+            &settings,
+            k,
+            Some(profile.drive_inertia),
+        ),
+        (Some(k), _) => {
+            let mut run = integrate::run(&profile, &drive_value, &settings);
+            // The haul's end moves `x + D/k`: its work `∫D·dx + [D²/(2k)]`.
+            let end = run.points.last().map_or(0.0, |p| p.t);
+            let (d0, d1) = (drive_value.at(0.0).max(0.0), drive_value.at(end).max(0.0));
+            let strain = (d1 * d1 - d0 * d0) / (2.0 * k);
+            run.energy.spring += strain;
+            run.energy.drive += strain;
+            run
+        }
+        (None, _) => integrate::run(&profile, &drive_value, &settings),
     };
+    progress.step();
     let mut strokes = strokes(&run);
     if let DriveValue::Scheduled(s) = &drive_value {
         let mut since = 0.0;
@@ -192,16 +315,15 @@ pub fn motion(rig: &Rig, options: &MotionOptions) -> Result<Motion, MotionError>
         }
     }
     let mut warnings = warnings(&rig, &profile, &run, &strokes);
-    for (p, part) in rig.parts.iter().enumerate() {
-        if p != drive && rig.changing.of(p).schedule.is_some() {
-            warnings.push(Warning {
-                code: "schedule-held",
-                message: format!(
-                    "`{}` has a schedule, but motion follows only the drive's (`{name}`): `{}` is held at its first value",
-                    part.name, part.name
-                ),
-            });
-        }
+    if all_times > times.len() {
+        warnings.push(Warning {
+            code: "schedule-thinned",
+            message: format!(
+                "the other parts' schedules have {all_times} times; the statics is solved at {} of them and interpolated linearly between",
+                times.len()
+            ),
+            figures: None,
+        });
     }
     let reached = run.points.last().map_or(0.0, |p| p.t);
     if reached < duration * (1.0 - 1e-9) {
@@ -210,13 +332,15 @@ pub fn motion(rig: &Rig, options: &MotionOptions) -> Result<Motion, MotionError>
             message: format!(
                 "the run stopped at {reached:.3} s of {duration:.3} s: it took more steps than the integrator allows (a very stiff rope on a light drive swings fast); shorten --duration"
             ),
-        });
+                    figures: None,
+});
     }
     if profile.stops.is_none() {
         warnings.push(Warning {
             code: "no-travel",
             message: "the rig gives no `travel`: its loads are held as at the drawn position and it has no end stops".to_string(),
-        });
+                    figures: None,
+});
     }
     Ok(Motion {
         drive: name,
@@ -229,6 +353,23 @@ pub fn motion(rig: &Rig, options: &MotionOptions) -> Result<Motion, MotionError>
         drive_value,
         two_dof,
     })
+}
+
+/// Sets part `p`'s natural quantity (a haul's force, a weight's mass, a block's load, a
+/// drum's torque) to `value`, or unknown with None.
+fn set_natural(rig: &mut Rig, p: usize, value: Option<Real>) {
+    match &mut rig.parts[p].kind {
+        PartKind::Haul(h) => h.force = value,
+        PartKind::Weight(w) => w.mass = value,
+        PartKind::Drum(d) => d.torque = value,
+        PartKind::Block(b) => {
+            b.load = match b.load {
+                crate::model::BlockLoad::Mass(_) => crate::model::BlockLoad::Mass(value),
+                crate::model::BlockLoad::Force(_) => crate::model::BlockLoad::Force(value),
+            }
+        }
+        _ => {}
+    }
 }
 
 /// From the schedule's latest extreme in `[since, start]` (least for a forward stroke,
@@ -335,7 +476,8 @@ fn warnings(rig: &Rig, profile: &Profile, run: &Run, strokes: &[Stroke]) -> Vec<
                 "the stroke starting at {:.3} s stops and sets off again {} time(s): the motion is jerky (stick-slip)",
                 s.start, s.stick_slip_cycles
             ),
-        });
+                    figures: None,
+});
     }
     if let Some(limit) = rig.changing.stop_speed {
         for s in strokes {
@@ -346,6 +488,11 @@ fn warnings(rig: &Rig, profile: &Profile, run: &Run, strokes: &[Stroke]) -> Vec<
                         "the stroke starting at {:.3} s hits its end stop at {v:.4} {unit}, faster than limits.stop_speed {limit:.4} {unit}",
                         s.start
                     ),
+                    figures: Some(WarningFigures::StopSpeed {
+                        start: s.start,
+                        speed: v,
+                        limit,
+                    }),
                 });
             }
         }
@@ -363,6 +510,11 @@ fn warnings(rig: &Rig, profile: &Profile, run: &Run, strokes: &[Stroke]) -> Vec<
                 message: format!(
                     "a span tension reaches {peak:.1} N in motion (the static check's largest is {static_peak:.1} N), beyond the breaking strength over the design factor ({allowed:.1} N)"
                 ),
+                figures: Some(WarningFigures::DynamicTension {
+                    peak,
+                    static_peak,
+                    allowed,
+                }),
             });
         }
     }

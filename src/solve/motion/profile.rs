@@ -73,11 +73,20 @@ pub struct Profile {
     pub stops: Option<(Real, Real)>,
     /// Whether the drive is a weight (its own mass is the drive value).
     pub drive_is_weight: bool,
+    /// The drive's own inertia when it is a drum (kg·m², its own and its lever's, part
+    /// of every sample's `own_inertia`), else 0: the drive side of two degrees of freedom.
+    pub drive_inertia: Real,
     /// The least breaking strength over design factor of the ropes, N (for the warning).
     pub allowed_tension: Option<Real>,
     /// The rig's spring rate at the drive at the drawn position (N/m or N·m/rad), where
     /// the ropes give `stiffness`.
     pub drive_stiffness: Option<Real>,
+    /// Where parts other than the drive follow a schedule: the samples solved again at
+    /// the values of each later schedule time `(t, samples)`, in increasing `t` (> 0);
+    /// `samples` are those at time 0. Between two times the figures are interpolated
+    /// linearly in time (the scheduled values are linear there, and the statics is
+    /// linear in the loads for fixed pin loads). Empty without such schedules.
+    pub later: Vec<(Real, Vec<Sample>)>,
 }
 
 impl Profile {
@@ -90,42 +99,88 @@ impl Profile {
         }
     }
 
-    /// The figures at `x`, interpolated linearly (held beyond the ends).
+    /// The figures at `x` at time 0, interpolated linearly (held beyond the ends).
     pub fn at(&self, x: Real) -> Sample {
-        let s = &self.samples;
-        if s.len() == 1 || x <= s[0].x {
-            return Sample { x, ..s[0] };
-        }
-        let last = s[s.len() - 1];
-        if x >= last.x {
-            return Sample { x, ..last };
-        }
-        let i = s.partition_point(|p| p.x <= x).clamp(1, s.len() - 1);
-        let (a, b) = (&s[i - 1], &s[i]);
-        let w = (x - a.x) / (b.x - a.x);
-        let l = |p: Real, q: Real| p + (q - p) * w;
-        Sample {
-            x,
-            ideal: l(a.ideal, b.ideal),
-            forward: l(a.forward, b.forward),
-            back: l(a.back, b.back),
-            start_forward: l(a.start_forward, b.start_forward),
-            start_back: l(a.start_back, b.start_back),
-            inertia_forward: l(a.inertia_forward, b.inertia_forward),
-            inertia_back: l(a.inertia_back, b.inertia_back),
-            inertia_ideal: l(a.inertia_ideal, b.inertia_ideal),
-            effective_mass: l(a.effective_mass, b.effective_mass),
-            own_inertia: l(a.own_inertia, b.own_inertia),
-            tension_forward: (
-                l(a.tension_forward.0, b.tension_forward.0),
-                l(a.tension_forward.1, b.tension_forward.1),
-            ),
-            tension_back: (
-                l(a.tension_back.0, b.tension_back.0),
-                l(a.tension_back.1, b.tension_back.1),
-            ),
-            static_tension: l(a.static_tension, b.static_tension),
-        }
+        interpolate(&self.samples, x)
+    }
+
+    /// The figures at `x` at time `t`: where other parts follow a schedule, interpolated
+    /// linearly in time between the solved times (held beyond the last).
+    pub fn at_t(&self, t: Real, x: Real) -> Sample {
+        let Some(i) = self.later.iter().position(|(tl, _)| *tl > t) else {
+            return match self.later.last() {
+                Some((_, s)) => interpolate(s, x),
+                None => self.at(x),
+            };
+        };
+        let (t0, a) = if i == 0 {
+            if t <= 0.0 {
+                return self.at(x);
+            }
+            (0.0, self.at(x))
+        } else {
+            (self.later[i - 1].0, interpolate(&self.later[i - 1].1, x))
+        };
+        let (t1, b) = (self.later[i].0, interpolate(&self.later[i].1, x));
+        blend(&a, &b, (t - t0) / (t1 - t0))
+    }
+
+    /// The solved times after `t` (strictly): the figures' slope in time changes there.
+    pub fn next_time(&self, t: Real) -> Option<Real> {
+        self.later
+            .iter()
+            .map(|(tl, _)| *tl)
+            .find(|&b| b > t + 1e-12 * b.abs().max(1.0))
+    }
+
+    /// The solved times, for root-finding on the holding band at rest.
+    pub fn times(&self) -> impl Iterator<Item = Real> + '_ {
+        self.later.iter().map(|(t, _)| *t)
+    }
+}
+
+/// `a + (b − a)·w` for every figure (the position is `a`'s).
+fn blend(a: &Sample, b: &Sample, w: Real) -> Sample {
+    let l = |p: Real, q: Real| p + (q - p) * w;
+    Sample {
+        x: a.x,
+        ideal: l(a.ideal, b.ideal),
+        forward: l(a.forward, b.forward),
+        back: l(a.back, b.back),
+        start_forward: l(a.start_forward, b.start_forward),
+        start_back: l(a.start_back, b.start_back),
+        inertia_forward: l(a.inertia_forward, b.inertia_forward),
+        inertia_back: l(a.inertia_back, b.inertia_back),
+        inertia_ideal: l(a.inertia_ideal, b.inertia_ideal),
+        effective_mass: l(a.effective_mass, b.effective_mass),
+        own_inertia: l(a.own_inertia, b.own_inertia),
+        tension_forward: (
+            l(a.tension_forward.0, b.tension_forward.0),
+            l(a.tension_forward.1, b.tension_forward.1),
+        ),
+        tension_back: (
+            l(a.tension_back.0, b.tension_back.0),
+            l(a.tension_back.1, b.tension_back.1),
+        ),
+        static_tension: l(a.static_tension, b.static_tension),
+    }
+}
+
+/// The figures of `s` (increasing `x`) at `x`, interpolated linearly (held beyond the
+/// ends).
+fn interpolate(s: &[Sample], x: Real) -> Sample {
+    if s.len() == 1 || x <= s[0].x {
+        return Sample { x, ..s[0] };
+    }
+    let last = s[s.len() - 1];
+    if x >= last.x {
+        return Sample { x, ..last };
+    }
+    let i = s.partition_point(|p| p.x <= x).clamp(1, s.len() - 1);
+    let (a, b) = (&s[i - 1], &s[i]);
+    Sample {
+        x,
+        ..blend(a, b, (x - a.x) / (b.x - a.x))
     }
 }
 
@@ -300,12 +355,43 @@ pub fn build(
     intervals: usize,
     options: &SolveOptions,
 ) -> Result<Profile, (Real, SolveError)> {
+    build_told(rig, intervals, options, &|| {})
+}
+
+/// How many positions [`build`] samples: one without `travel`, else the drawn position
+/// and each interval's end on both sides.
+pub fn sample_count(rig: &Rig, intervals: usize) -> usize {
+    let Some(t) = rig.changing.travel else {
+        return 1;
+    };
+    let h = (t.back + t.forward) / intervals.max(1) as Real;
+    let n = |length: Real| {
+        if length > 0.0 && h > 0.0 {
+            (length / h).ceil() as usize
+        } else {
+            0
+        }
+    };
+    1 + n(t.forward) + n(t.back)
+}
+
+/// [`build`], calling `tick` after each sampled position (for a progress bar).
+///
+/// # Errors
+/// As [`build`].
+pub fn build_told(
+    rig: &Rig,
+    intervals: usize,
+    options: &SolveOptions,
+    tick: &dyn Fn(),
+) -> Result<Profile, (Real, SolveError)> {
     let solve = |r: &Rig| crate::solve::solve(r, options);
     let first = solve(rig).map_err(|e| (0.0, e))?;
     let main = first.main();
     let k = &first.kinematics;
     let rotates =
         k.dof_of_part[rig.drive].is_some_and(|i| matches!(k.dofs[i].motion, Motion::Rotate(_)));
+    let rope_d = rig.ropes.first().map_or(0.0, |r| r.diameter);
     let allowed_tension = rig
         .ropes
         .iter()
@@ -318,9 +404,15 @@ pub fn build(
         rotates,
         stops: None,
         drive_is_weight: matches!(rig.parts[rig.drive].kind, PartKind::Weight(_)),
+        drive_inertia: match rig.parts[rig.drive].kind {
+            PartKind::Drum(_) => dof_inertia(rig, rig.drive, rope_d),
+            _ => 0.0,
+        },
         allowed_tension,
         drive_stiffness: main.drive_stiffness.filter(|k| k.is_finite() && *k > 0.0),
+        later: Vec::new(),
     };
+    tick();
     let Some(t) = rig.changing.travel else {
         return Ok(profile);
     };
@@ -345,6 +437,7 @@ pub fn build(
             profile
                 .samples
                 .push(sample(&r, &s, x, options).map_err(|e| (x, e))?);
+            tick();
         }
     }
     profile.samples.sort_by(|a, b| a.x.total_cmp(&b.x));

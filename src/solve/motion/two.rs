@@ -37,6 +37,12 @@ pub fn run(
         .stops
         .unwrap_or((Real::NEG_INFINITY, Real::INFINITY));
     let m_d = |t: Real| own.unwrap_or_else(|| drive.at(t)).max(1e-9);
+    // A drum drive's own inertia is on the drive side, not the rig side.
+    let own_rig = if own.is_some() {
+        profile.drive_inertia
+    } else {
+        0.0
+    };
     let pull = |u: Real| (k * u).max(0.0);
     let mut t = 0.0;
     let u0 = c * drive.at(0.0) / k;
@@ -52,7 +58,7 @@ pub fn run(
     let rhs = |sigma: Real| {
         move |t: Real, z: &State| -> State {
             let (x, v, u, du) = (z[0], z[1], z[2], z[3]);
-            let s = profile.at(x);
+            let s = profile.at_t(t, x);
             let p = pull(u);
             let d = drive.at(t);
             let ydd = (c * d - p) / m_d(t);
@@ -64,7 +70,7 @@ pub fn run(
                 } else {
                     (s.back, s.inertia_back)
                 };
-                let m = (c * mu + s.own_inertia).max(1e-12);
+                let m = (c * mu + s.own_inertia - own_rig).max(1e-12);
                 let a = (p - c * f) / m;
                 (a, c * ((f - s.ideal) + (mu - s.inertia_ideal) * a))
             };
@@ -91,7 +97,7 @@ pub fn run(
         tension: {
             // The rope's pull at the drive over the drive value at constant speed scales
             // the largest span tension of that case.
-            let s = profile.at(z[0]);
+            let s = profile.at_t(t, z[0]);
             let (t0, f) = if z[1] < 0.0 {
                 (s.tension_back.0, s.back)
             } else {
@@ -111,8 +117,8 @@ pub fn run(
     while t < end && guard < 4_000_000 {
         guard += 1;
         // Leaving rest: the rope's pull outside the band (a stop holds its own side).
-        let band = |x: Real| {
-            let s = profile.at(x);
+        let band = |t: Real, x: Real| {
+            let s = profile.at_t(t, x);
             (
                 if x <= lo {
                     Real::NEG_INFINITY
@@ -127,7 +133,7 @@ pub fn run(
             )
         };
         if sigma == 0.0 {
-            let (b, f) = band(y[0]);
+            let (b, f) = band(t, y[0]);
             let p = pull(y[2]) / c;
             if p > f || p < b {
                 sigma = if p > f { 1.0 } else { -1.0 };
@@ -146,7 +152,7 @@ pub fn run(
         }
         let f = rhs(sigma);
         let mut step = h.min(settings.max_step).min(end - t);
-        if let Some(b) = drive.next_break(t) {
+        if let Some(b) = super::integrate::next_break(drive, profile, t) {
             step = step.min(b - t);
         }
         let (y1, err) = dp_step_n(&f, t, &y, step, settings.tolerance_scale);
@@ -155,22 +161,22 @@ pub fn run(
             continue;
         }
         out.steps += 1;
-        let crossed = |z: &State| {
+        let crossed = |tz: Real, z: &State| {
             if sigma == 0.0 {
-                let (b, f) = band(z[0]);
+                let (b, f) = band(tz, z[0]);
                 let p = pull(z[2]) / c;
                 p > f || p < b
             } else {
                 sigma * z[1] <= 0.0 || z[0] >= hi || z[0] <= lo
             }
         };
-        let (t_new, mut y_new) = if crossed(&y1) {
+        let (t_new, mut y_new) = if crossed(t + step, &y1) {
             let (mut a, mut b) = (0.0, step);
             let mut yb = y1;
             while b - a > EVENT_TOL * step.max(1e-12) {
                 let m = 0.5 * (a + b);
                 let (ym, _) = dp_step_n(&f, t, &y, m, settings.tolerance_scale);
-                if crossed(&ym) {
+                if crossed(t + m, &ym) {
                     b = m;
                     yb = ym;
                 } else {
@@ -181,7 +187,7 @@ pub fn run(
         } else {
             (t + step, y1)
         };
-        if sigma != 0.0 && crossed(&y_new) {
+        if sigma != 0.0 && crossed(t_new, &y_new) {
             let kind = if y_new[0] >= hi {
                 y_new[0] = hi;
                 EventKind::ReachesForwardStop
@@ -192,8 +198,8 @@ pub fn run(
                 EventKind::Stops
             };
             let speed = y_new[1];
-            let s = profile.at(y_new[0]);
-            let m_rig = c * s.inertia_ideal + s.own_inertia;
+            let s = profile.at_t(t_new, y_new[0]);
+            let m_rig = c * s.inertia_ideal + s.own_inertia - own_rig;
             if kind != EventKind::Stops {
                 impacts += 0.5 * m_rig * speed * speed;
             }
@@ -241,8 +247,8 @@ pub fn run(
         }
     }
     relabel_stick_slip(&mut out.events);
-    let s = profile.at(y[0]);
-    let m_rig = c * s.inertia_ideal + s.own_inertia;
+    let s = profile.at_t(t, y[0]);
+    let m_rig = c * s.inertia_ideal + s.own_inertia - own_rig;
     let ydot = y[1] + y[3];
     out.energy = Energy {
         drive: y[4],
