@@ -901,6 +901,15 @@ fn travel_and_time_keys_are_checked_where_they_are_written() {
         "limits: {fleet_angle: 1.5, design_factor: 5, stop_speed: fast}",
     ));
     assert_problem(&e, 5, &["limits.stop_speed", "speed"]);
+    // Guards: an angular stop speed on a drive that moves along (a haul here) is refused,
+    // not read as m/s (`30 deg/s` became 0.52 m/s and `rad/s` passed as m/s).
+    for speed in ["30 deg/s", "0.5 rad/s"] {
+        let e = fails(&with(
+            "limits: {fleet_angle: 1.5, design_factor: 5}",
+            &format!("limits: {{fleet_angle: 1.5, design_factor: 5, stop_speed: {speed}}}"),
+        ));
+        assert_problem(&e, 5, &["limits.stop_speed", "m/s"]);
+    }
     // And the good spellings load: units of time, spring rate, inertia; an angle travel.
     let rig = load_str(
         &format!(
