@@ -279,19 +279,22 @@ impl Resolver {
         self.angle(node, path)
     }
 
-    /// `limits.stop_speed`: m/s (bare, `m/s`, `mm/s`) or, for a drum drive, rad/s
-    /// (`rad/s`, `deg/s`).
-    pub(super) fn stop_speed(&mut self, node: &Node) -> Option<Real> {
+    /// `limits.stop_speed`: m/s (bare, `m/s`, `mm/s`, `in/s`, `ft/s`) for a drive that
+    /// moves along, or rad/s (bare, `rad/s`, `deg/s`) for a drum drive; the other kind
+    /// is refused rather than read as this one.
+    pub(super) fn stop_speed(&mut self, node: &Node, drive_turns: bool) -> Option<Real> {
         let path = "limits.stop_speed";
         let text = node.scalar().unwrap_or("").trim().to_string();
         let split = text
             .find(|c: char| c.is_ascii_alphabetic())
             .unwrap_or(text.len());
         let (number, unit) = text.split_at(split);
-        let scale = match unit.trim() {
-            "" | "m/s" | "rad/s" => Some(1.0),
-            "mm/s" => Some(1e-3),
-            "deg/s" => Some(std::f64::consts::PI / 180.0),
+        let scale = match (unit.trim(), drive_turns) {
+            ("", _) | ("m/s", false) | ("rad/s", true) => Some(1.0),
+            ("mm/s", false) => Some(1e-3),
+            ("in/s", false) => Some(0.0254),
+            ("ft/s", false) => Some(0.3048),
+            ("deg/s", true) => Some(std::f64::consts::PI / 180.0),
             _ => None,
         };
         let value =
@@ -299,7 +302,16 @@ impl Resolver {
         match (value, scale) {
             (Some(v), Some(s)) => Some(v * s),
             _ => {
-                self.report(node.location, path, format!("expected a positive speed such as `0.2 m/s`, `150 mm/s` or `30 deg/s`, found {}", node.describe()));
+                let expected = if drive_turns {
+                    "a positive turning speed of the drum drive such as `0.5 rad/s` or `30 deg/s`"
+                } else {
+                    "a positive speed of the drive such as `0.2 m/s`, `150 mm/s` or `6 in/s`"
+                };
+                self.report(
+                    node.location,
+                    path,
+                    format!("expected {expected}, found {}", node.describe()),
+                );
                 None
             }
         }
