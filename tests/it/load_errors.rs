@@ -940,8 +940,8 @@ fn travel_and_time_keys_are_checked_where_they_are_written() {
 /// inertia; it is refused where written instead of silently weighing nothing.
 #[test]
 fn a_lever_arm_along_the_axle_is_refused() {
-    let trapdoor = std::fs::read_to_string(crate::support::example_rig("cellar-trapdoor"))
-        .expect("rig");
+    let trapdoor =
+        std::fs::read_to_string(crate::support::example_rig("cellar-trapdoor")).expect("rig");
     let line = trapdoor
         .lines()
         .position(|l| l.contains("arm: [450, 0, 0]"))

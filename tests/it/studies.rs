@@ -1383,6 +1383,9 @@ fn a_huge_stroke_stops_where_a_span_closes_up() {
             stopped["error"].as_str().unwrap().contains("closes up"),
             "{distance}: {stopped}"
         );
-        assert!(steps.len() <= 2, "{distance}: figures past the closed span: {s}");
+        assert!(
+            steps.len() <= 2,
+            "{distance}: figures past the closed span: {s}"
+        );
     }
 }

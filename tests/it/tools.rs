@@ -672,7 +672,11 @@ fn schema_and_manual_never_write_over_a_rig_file() {
     let rig = dir.write("hoist.yaml", EXAMPLE);
     for command in ["schema", "manual"] {
         let ran = reeve_in(&dir, &[command, "-o", "hoist.yaml"]).expect_code(2);
-        assert!(ran.stderr.contains("hoist.yaml"), "{command}: {}", ran.stderr);
+        assert!(
+            ran.stderr.contains("hoist.yaml"),
+            "{command}: {}",
+            ran.stderr
+        );
         assert_eq!(
             std::fs::read_to_string(&rig).expect("rig"),
             EXAMPLE,
