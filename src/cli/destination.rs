@@ -48,6 +48,14 @@ pub fn emit(
                     path.display()
                 )));
             }
+            // A command that read no rig (`schema`, `manual`) still never replaces a rig
+            // file named by mistake: its output is never YAML.
+            if input.as_os_str().is_empty() && is_rig_file(path) {
+                return Err(Failure::Input(format!(
+                    "refusing to write over `{}`: it is a rig file (.yaml); choose another output file",
+                    path.display()
+                )));
+            }
             // Said plainly: renaming over a folder fails with the system's words, and
             // with a trailing slash those are "not a directory".
             if std::fs::metadata(path).is_ok_and(|m| m.is_dir()) {
@@ -62,4 +70,13 @@ pub fn emit(
             })
         }
     }
+}
+
+/// An existing file named like a rig (`.yaml`, `.yml`).
+fn is_rig_file(path: &Path) -> bool {
+    let yaml = path
+        .extension()
+        .and_then(|e| e.to_str())
+        .is_some_and(|e| e.eq_ignore_ascii_case("yaml") || e.eq_ignore_ascii_case("yml"));
+    yaml && std::fs::metadata(path).is_ok_and(|m| m.is_file())
 }

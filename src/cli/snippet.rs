@@ -10,6 +10,9 @@ use std::fs;
 /// At most this many snippets under one error (a file with many problems stays short).
 const MAX_SNIPPETS: usize = 10;
 
+/// Lines longer than this many characters show only this many around the column.
+const WINDOW: usize = 120;
+
 /// `message` (the error as printed, one problem a line) with, under every line that
 /// starts with `file:line:column:` of a file that can be read, that line of the file and
 /// a caret under the column. Lines are returned as they came; only lines are added.
@@ -77,9 +80,21 @@ fn snippet(text: &str, row: usize, column: usize) -> Option<String> {
         return None;
     }
     let source = text.split('\n').nth(row - 1)?.trim_end_matches('\r');
+    // A long line (a schedule written on one line) shows a window around the column.
+    let count = source.chars().count();
+    let (first, last) = if count > WINDOW {
+        let first = column.saturating_sub(1 + WINDOW / 2).min(count - WINDOW);
+        (first, first + WINDOW)
+    } else {
+        (0, count)
+    };
     let mut shown = String::new();
     let mut pad = String::new();
-    for (i, c) in source.chars().enumerate() {
+    if first > 0 {
+        shown.push('…');
+        pad.push(' ');
+    }
+    for (i, c) in source.chars().enumerate().take(last).skip(first) {
         let rendered: String = if c == '\t' {
             "\t".into()
         } else {
@@ -93,6 +108,9 @@ fn snippet(text: &str, row: usize, column: usize) -> Option<String> {
             }
         }
         shown.push_str(&rendered);
+    }
+    if last < count {
+        shown.push('…');
     }
     let number = row.to_string();
     let gutter = " ".repeat(number.len());

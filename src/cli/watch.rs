@@ -67,6 +67,28 @@ pub fn run_watch(args: WatchArgs) -> Result<i32, Failure> {
             rig_path.display()
         )));
     };
+    // A mistyped name or a folder is refused at once (exit 2) rather than watched
+    // forever; a rig that goes missing later (an editor's rename) is waited for.
+    match std::fs::metadata(&rig_path) {
+        Ok(m) if m.is_file() => {}
+        Ok(_) => {
+            return Err(Failure::Input(format!(
+                "`{}` is a folder; watch names a rig file",
+                rig_path.display()
+            )))
+        }
+        Err(e) => {
+            return Err(Failure::Input(format!(
+                "cannot watch `{}`: {}",
+                rig_path.display(),
+                if e.kind() == std::io::ErrorKind::NotFound {
+                    "no such file".to_string()
+                } else {
+                    e.to_string()
+                }
+            )))
+        }
+    }
     let (tx, rx) = mpsc::channel();
     let mut watcher = notify::recommended_watcher(tx).map_err(|e| watch_failure(&folder, e))?;
     watcher

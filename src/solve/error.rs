@@ -159,6 +159,19 @@ pub enum SolveError {
         /// What to look at, for that cause.
         hint: &'static str,
     },
+    /// Following the travel, a span closes up: a moving part reaches (or passes
+    /// through) the part at the span's other end before the end stop.
+    #[error("span {span} of line `{line}` closes up: `{from}` and `{to}` meet before the end of the travel; shorten `travel` to where the rig can go")]
+    SpanClosesUp {
+        /// The line.
+        line: String,
+        /// The span's index on the line.
+        span: usize,
+        /// The part at the span's start.
+        from: String,
+        /// The part at the span's end.
+        to: String,
+    },
 }
 
 impl SolveError {
@@ -187,6 +200,7 @@ impl SolveError {
             SolveError::LoadsDoNoWork { parts, .. } => (None, parts.first().map(String::as_str)),
             SolveError::NoEquilibrium { part, .. } => (None, part.as_deref()),
             SolveError::BeyondPrecision { part, .. } => (None, Some(part)),
+            SolveError::SpanClosesUp { line, to, .. } => (Some(line), Some(to)),
         }
     }
 

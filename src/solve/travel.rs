@@ -88,8 +88,24 @@ pub fn midpoint_step<E>(
     rig: &Rig,
     current: &Solution,
     dt: Real,
-    mut solve: impl FnMut(&Rig) -> Result<Solution, E>,
+    solve: impl FnMut(&Rig) -> Result<Solution, E>,
 ) -> Result<(Rig, Solution), E> {
+    midpoint_step_closing(rig, current, dt, solve).map(|(next, solution, _)| (next, solution))
+}
+
+/// [`midpoint_step`], also telling the first span that closed up (or turned round) on
+/// the way: between the start and the midpoint, or the midpoint and the end. A step
+/// long against the rig can pass a part at its midpoint, whose reversed velocities then
+/// carry the end back to the near side, where comparing the ends alone sees nothing.
+///
+/// # Errors
+/// As [`midpoint_step`].
+pub fn midpoint_step_closing<E>(
+    rig: &Rig,
+    current: &Solution,
+    dt: Real,
+    mut solve: impl FnMut(&Rig) -> Result<Solution, E>,
+) -> Result<(Rig, Solution, Option<ClosedSpan>), E> {
     let start = part_velocities(rig, current);
     let mut half = moved(rig, &start, 0.5 * dt);
     advance_offsets(&mut half, current, 0.5 * dt);
@@ -98,7 +114,8 @@ pub fn midpoint_step<E>(
     let mut next = moved(rig, &carry, dt);
     advance_offsets(&mut next, &mid, dt);
     let solution = solve(&next)?;
-    Ok((next, solution))
+    let closed = closed_span(&half, current, &mid).or_else(|| closed_span(&next, &mid, &solution));
+    Ok((next, solution, closed))
 }
 
 /// A span that closed up or turned round between two positions of the same rig: a

@@ -417,15 +417,16 @@ pub fn stroke(
         }
         // Translating parts move (also when a drum drives: then per radian of the drum).
         for _ in 0..substeps {
-            let (next_rig, next) =
-                match travel::midpoint_step(&rig, &current, dt, |r| source.solve_rig(r)) {
+            let (next_rig, next, closed) =
+                match travel::midpoint_step_closing(&rig, &current, dt, |r| source.solve_rig(r)) {
                     Ok(moved) => moved,
                     Err(e) => {
                         out.push(failed(start + step as Real * total / steps as Real, e));
                         break 'outer;
                     }
                 };
-            if let Some(closed) = travel::closed_span(&next_rig, &current, &next) {
+            let closed = closed.or_else(|| travel::closed_span(&next_rig, &current, &next));
+            if let Some(closed) = closed {
                 // The figures past that point describe a rope through a part: none.
                 out.push(stopped(
                     start + step as Real * total / steps as Real,

@@ -1020,3 +1020,46 @@ fn a_located_error_shows_the_line_with_a_caret_under_the_column() {
     assert_eq!(code, 2, "{err}");
     assert!(!err.contains('^') && !err.contains(" | "), "{err}");
 }
+
+/// Guards: a located error on a very long line (a long schedule written on one line)
+/// shows a window of the line around the caret, not the whole line under each problem
+/// (a 10 001-point schedule printed 190 KB of error).
+#[test]
+fn a_long_line_shows_a_window_around_the_caret() {
+    let points: Vec<String> = (0..2000).map(|i| format!("[{i} s, 40 kg]")).collect();
+    let rig = crate::support::EXAMPLE.replacen(
+        "load: {mass: 40}}",
+        &format!(
+            "load: {{mass: {{schedule: [{}, [1 s, bad]]}}}}}}",
+            points.join(", ")
+        ),
+        1,
+    );
+    assert_ne!(rig, crate::support::EXAMPLE, "the example has the load");
+    let (code, _, err) = reeve_on(&rig, &["check"]).parts();
+    assert_eq!(code, 2, "{err}");
+    let lines: Vec<&str> = err.lines().collect();
+    assert!(
+        err.len() < 1500,
+        "{} bytes of error:\n{}",
+        err.len(),
+        &err[..300]
+    );
+    let source = lines[1];
+    let caret = lines[2].find('^').expect("a caret");
+    assert!(source.contains('…') && source.contains("bad"), "{source}");
+    // The caret still stands under the offending value (characters, as displayed).
+    let before: String = source
+        .chars()
+        .take(lines[2][..caret].chars().count())
+        .collect();
+    assert!(
+        source
+            .chars()
+            .skip(before.chars().count())
+            .collect::<String>()
+            .starts_with("bad"),
+        "caret not under `bad`:\n{source}\n{}",
+        lines[2]
+    );
+}

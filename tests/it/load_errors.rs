@@ -901,6 +901,15 @@ fn travel_and_time_keys_are_checked_where_they_are_written() {
         "limits: {fleet_angle: 1.5, design_factor: 5, stop_speed: fast}",
     ));
     assert_problem(&e, 5, &["limits.stop_speed", "speed"]);
+    // Guards: an angular stop speed on a drive that moves along (a haul here) is refused,
+    // not read as m/s (`30 deg/s` became 0.52 m/s and `rad/s` passed as m/s).
+    for speed in ["30 deg/s", "0.5 rad/s"] {
+        let e = fails(&with(
+            "limits: {fleet_angle: 1.5, design_factor: 5}",
+            &format!("limits: {{fleet_angle: 1.5, design_factor: 5, stop_speed: {speed}}}"),
+        ));
+        assert_problem(&e, 5, &["limits.stop_speed", "m/s"]);
+    }
     // And the good spellings load: units of time, spring rate, inertia; an angle travel.
     let rig = load_str(
         &format!(
@@ -925,4 +934,25 @@ fn travel_and_time_keys_are_checked_where_they_are_written() {
     assert_eq!(rig.changing.of(head).inertia, Some(0.001));
     // Every other command takes the schedule's first value.
     assert_eq!(reeve::solve::given_quantity(&rig, hook), Some(40.0));
+}
+
+/// Guards: a drum lever whose arm is zero or lies along the axle gives no torque and no
+/// inertia; it is refused where written instead of silently weighing nothing.
+#[test]
+fn a_lever_arm_along_the_axle_is_refused() {
+    let trapdoor =
+        std::fs::read_to_string(crate::support::example_rig("cellar-trapdoor")).expect("rig");
+    let line = trapdoor
+        .lines()
+        .position(|l| l.contains("arm: [450, 0, 0]"))
+        .expect("lever line")
+        + 1;
+    for arm in ["[0, 0, 0]", "[0, 450, 0]", "[0, -2, 0]"] {
+        let text = trapdoor.replacen("arm: [450, 0, 0]", &format!("arm: {arm}"), 1);
+        let e = fails(&text);
+        assert_problem(&e, line, &["parts.hinge.lever.arm", "axle"]);
+    }
+    // Out of the axle's line, even tilted along it, the lever stays fine.
+    let text = trapdoor.replacen("arm: [450, 0, 0]", "arm: [450, 30, 0]", 1);
+    load_str(&text, "rig.yaml").expect("a tilted arm loads");
 }

@@ -15,6 +15,7 @@ mod material;
 mod material_warnings;
 mod motion;
 mod motion_progress;
+mod motion_travel;
 mod numerics;
 mod outputs;
 mod pin_loads_3d;

@@ -774,3 +774,22 @@ fn a_long_load_schedule_is_solved_at_some_of_its_times_and_says_so() {
     assert!(m.profile.later.len() <= reeve::solve::motion::MOST_SOLVED_TIMES + 1);
     first(&m, EventKind::StartsForward);
 }
+
+/// Guards: a step in a schedule (two points at one time, which the loader accepts) is
+/// found where it is while the rig is held: the sash's counterweight drops from 7 kg to
+/// 5 kg at 5 s, below the back value (about 5.7 kg), so it starts back at 5 s, not when
+/// a straight line from the step's upper value to the end would cross the band (13 s).
+/// (`DriveValue::leaves` took the value before a step as the next piece's start.)
+#[test]
+fn a_step_in_the_schedule_starts_the_rig_back_at_the_step() {
+    let text = std::fs::read_to_string(example_rig("sash-window"))
+        .expect("rig")
+        .replacen(
+            "mass: 6.4}",
+            "mass: {schedule: [[0 s, 7 kg], [5 s, 7 kg], [5 s, 5 kg]]}}",
+            1,
+        );
+    let m = run(&text, &MotionOptions::default());
+    let back = first(&m, EventKind::StartsBack);
+    assert_abs("starts back at the step, s", back.t, 5.0, 0.01);
+}

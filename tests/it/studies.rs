@@ -1364,3 +1364,28 @@ fn spread_samples_on_the_model_are_the_rigs_the_file_gives() {
     bad.iter_mut().for_each(|v| *v = -1.0);
     assert!(sampler.rig(&bad).is_none());
 }
+
+/// Guards: a stroke far longer than the rig never jumps over a span that closes up. The
+/// sash's span to its pulley closes after about 650 mm of travel; with a 1 km stroke the
+/// midpoint of the first sub-step already lies past the pulley, whose reversed velocity
+/// carried the sash back below it, so every row read "ok" at the drawn figures.
+#[test]
+fn a_huge_stroke_stops_where_a_span_closes_up() {
+    let sash = crate::support::example_rig("sash-window");
+    for distance in ["1e6 mm", "1e9 mm"] {
+        let s = json_of(&["sweep", &sash, "--stroke", distance, "--json"]);
+        let steps = s["steps"].as_array().unwrap();
+        let stopped = steps.iter().find(|st| !st["error"].is_null());
+        let Some(stopped) = stopped else {
+            panic!("{distance}: no step stops, all rows are figures:\n{s}");
+        };
+        assert!(
+            stopped["error"].as_str().unwrap().contains("closes up"),
+            "{distance}: {stopped}"
+        );
+        assert!(
+            steps.len() <= 2,
+            "{distance}: figures past the closed span: {s}"
+        );
+    }
+}

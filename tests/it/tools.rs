@@ -663,3 +663,67 @@ fn a_terminal_shows_the_progress_bar() {
     );
     assert!(printed.contains("Caution"), "{printed}");
 }
+
+/// Guards: `schema -o` and `manual -o`, which read no rig, never replace a rig file the
+/// user named by mistake (they wrote over it silently).
+#[test]
+fn schema_and_manual_never_write_over_a_rig_file() {
+    let dir = Scratch::new("no-over-rig");
+    let rig = dir.write("hoist.yaml", EXAMPLE);
+    for command in ["schema", "manual"] {
+        let ran = reeve_in(&dir, &[command, "-o", "hoist.yaml"]).expect_code(2);
+        assert!(
+            ran.stderr.contains("hoist.yaml"),
+            "{command}: {}",
+            ran.stderr
+        );
+        assert_eq!(
+            std::fs::read_to_string(&rig).expect("rig"),
+            EXAMPLE,
+            "{command} -o wrote over the rig"
+        );
+    }
+    // A schema file of its own is still replaced (the shipped schema is regenerated so).
+    reeve_in(&dir, &["schema", "-o", "rig-1.json"]).expect_code(0);
+    reeve_in(&dir, &["schema", "-o", "rig-1.json"]).expect_code(0);
+}
+
+/// Guards: `watch` on a folder or a missing file stops at once with exit 2 instead of
+/// watching forever with the error printed once.
+#[test]
+fn watch_refuses_a_folder_or_a_missing_file() {
+    use std::process::{Command, Stdio};
+    use std::time::{Duration, Instant};
+    let dir = Scratch::new("watch-bad");
+    std::fs::create_dir_all(dir.join("sub")).expect("folder");
+    for target in ["sub", "missing.yaml"] {
+        let mut child = Command::new(env!("CARGO_BIN_EXE_reeve"))
+            .args(["watch", target])
+            .current_dir(&*dir)
+            .stdout(Stdio::null())
+            .stderr(Stdio::piped())
+            .spawn()
+            .expect("start reeve watch");
+        let started = Instant::now();
+        let status = loop {
+            if let Some(status) = child.try_wait().expect("wait") {
+                break Some(status);
+            }
+            if started.elapsed() > Duration::from_secs(20) {
+                child.kill().expect("kill");
+                child.wait().expect("reap");
+                break None;
+            }
+            std::thread::sleep(Duration::from_millis(50));
+        };
+        let mut stderr = String::new();
+        std::io::Read::read_to_string(&mut child.stderr.take().expect("stderr"), &mut stderr)
+            .expect("stderr");
+        assert_eq!(
+            status.and_then(|s| s.code()),
+            Some(2),
+            "watch {target} did not exit 2 at once: {stderr}"
+        );
+        assert!(stderr.contains(target), "{target}: {stderr}");
+    }
+}

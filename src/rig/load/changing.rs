@@ -123,7 +123,7 @@ impl Resolver {
     pub(super) fn part_changing(&mut self, entries: &[Entry], path: &str, kind: Kind, name: &str) {
         let mut data = PartChanging::default();
         if let Some(n) = get(entries, "lever") {
-            data.lever = self.lever(n, &join(path, "lever"));
+            data.lever = self.lever(n, &join(path, "lever"), get(entries, "axle"));
         }
         if let Some(n) = get(entries, "spring") {
             data.spring = self.spring(n, &join(path, "spring"), kind);
@@ -139,7 +139,9 @@ impl Resolver {
         }
     }
 
-    fn lever(&mut self, node: &Node, path: &str) -> Option<Lever> {
+    /// A drum's lever; `axle` (the drum's, reported by the part's own reading) refuses an
+    /// arm along it, whose weight would give no torque.
+    fn lever(&mut self, node: &Node, path: &str, axle: Option<&Node>) -> Option<Lever> {
         let expected = "a lever `{mass: 12 kg, arm: [300, 0, 0]}`";
         let entries = self.mapping(node, path, expected)?;
         self.keys(entries, path, &key_names(LEVER_KEYS), "a lever");
@@ -161,10 +163,24 @@ impl Resolver {
                 "the arm `[x, y, z]` from the drum's centre to the lever's centre of mass",
             )
             .and_then(|n| self.triple(n, &join(path, "arm"), Some(Dimension::Length)));
-        Some(Lever {
-            mass: mass?,
-            arm: arm?,
-        })
+        let arm = arm?;
+        if let Some(axle) = axle {
+            // Read quietly: the part reports its own axle's problems once.
+            let before = self.problems.len();
+            let axis = self.direction(axle, path);
+            self.problems.truncate(before);
+            let off_axle = axis.map_or(arm.norm(), |n| (arm - n.into_inner() * arm.dot(&n)).norm());
+            if off_axle <= 1e-9 * arm.norm() || arm.norm() == 0.0 {
+                let arm_node = get(entries, "arm").unwrap_or(node);
+                self.report(
+                    arm_node.location,
+                    join(path, "arm"),
+                    "the arm is zero or lies along the drum's axle, so the lever's weight gives no torque; give the arm from the axle to the lever's centre of mass, across the axle",
+                );
+                return None;
+            }
+        }
+        Some(Lever { mass: mass?, arm })
     }
 
     fn spring(&mut self, node: &Node, path: &str, kind: Kind) -> Option<Spring> {
@@ -279,19 +295,22 @@ impl Resolver {
         self.angle(node, path)
     }
 
-    /// `limits.stop_speed`: m/s (bare, `m/s`, `mm/s`) or, for a drum drive, rad/s
-    /// (`rad/s`, `deg/s`).
-    pub(super) fn stop_speed(&mut self, node: &Node) -> Option<Real> {
+    /// `limits.stop_speed`: m/s (bare, `m/s`, `mm/s`, `in/s`, `ft/s`) for a drive that
+    /// moves along, or rad/s (bare, `rad/s`, `deg/s`) for a drum drive; the other kind
+    /// is refused rather than read as this one.
+    pub(super) fn stop_speed(&mut self, node: &Node, drive_turns: bool) -> Option<Real> {
         let path = "limits.stop_speed";
         let text = node.scalar().unwrap_or("").trim().to_string();
         let split = text
             .find(|c: char| c.is_ascii_alphabetic())
             .unwrap_or(text.len());
         let (number, unit) = text.split_at(split);
-        let scale = match unit.trim() {
-            "" | "m/s" | "rad/s" => Some(1.0),
-            "mm/s" => Some(1e-3),
-            "deg/s" => Some(std::f64::consts::PI / 180.0),
+        let scale = match (unit.trim(), drive_turns) {
+            ("", _) | ("m/s", false) | ("rad/s", true) => Some(1.0),
+            ("mm/s", false) => Some(1e-3),
+            ("in/s", false) => Some(0.0254),
+            ("ft/s", false) => Some(0.3048),
+            ("deg/s", true) => Some(std::f64::consts::PI / 180.0),
             _ => None,
         };
         let value =
@@ -299,7 +318,16 @@ impl Resolver {
         match (value, scale) {
             (Some(v), Some(s)) => Some(v * s),
             _ => {
-                self.report(node.location, path, format!("expected a positive speed such as `0.2 m/s`, `150 mm/s` or `30 deg/s`, found {}", node.describe()));
+                let expected = if drive_turns {
+                    "a positive turning speed of the drum drive such as `0.5 rad/s` or `30 deg/s`"
+                } else {
+                    "a positive speed of the drive such as `0.2 m/s`, `150 mm/s` or `6 in/s`"
+                };
+                self.report(
+                    node.location,
+                    path,
+                    format!("expected {expected}, found {}", node.describe()),
+                );
                 None
             }
         }

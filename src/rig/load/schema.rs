@@ -234,10 +234,10 @@ fn shape(of: &Shape) -> (Value, String) {
         Shape::Speed => (
             json!({"anyOf": [
                 bounded(json!({"type": "number"}), Range::POSITIVE),
-                {"type": "string", "pattern": format!(r"^\s*{UNSIGNED}\s*(m/s|mm/s|rad/s|deg/s)?\s*$")}
+                {"type": "string", "pattern": format!(r"^\s*{UNSIGNED}\s*(m/s|mm/s|in/s|ft/s|rad/s|deg/s)?\s*$")}
             ]}),
             "A positive speed: a bare number in m/s (rad/s for a drum) or text such as \
-             `0.2 m/s`, `150 mm/s`, `30 deg/s`"
+             `0.2 m/s`, `150 mm/s`, `6 in/s`, `30 deg/s`"
                 .to_string(),
         ),
         Shape::Travel => {

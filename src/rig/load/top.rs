@@ -136,7 +136,7 @@ pub(super) fn resolve(root: &Node, source: &str) -> Result<Rig, Vec<Problem>> {
 
     // limits
     let mut limits = Limits::default();
-    let mut stop_speed = None;
+    let mut stop_speed_node = None;
     if let Some(n) = get(top, "limits") {
         if let Some(entries) = r.mapping(n, "limits", "a mapping `{fleet_angle, design_factor}`") {
             r.keys(entries, "limits", &key_names(LIMIT_KEYS), "limits");
@@ -152,9 +152,8 @@ pub(super) fn resolve(root: &Node, source: &str) -> Result<Rig, Vec<Problem>> {
                     limits.fleet_angle = v;
                 }
             }
-            if let Some(n) = get(entries, "stop_speed") {
-                stop_speed = r.stop_speed(n);
-            }
+            // Read below, once the drive's kind tells a linear speed from a turning one.
+            stop_speed_node = get(entries, "stop_speed");
             if let Some(d) = get(entries, "design_factor") {
                 let v = r.number(d, "limits.design_factor", "a design factor (1 or more)");
                 if let Some(v) = r.check(
@@ -287,6 +286,10 @@ pub(super) fn resolve(root: &Node, source: &str) -> Result<Rig, Vec<Problem>> {
     let travel = get(top, "travel").and_then(|n| {
         let turns = drive.is_some_and(|d| names.kinds[d] == Some(Kind::Drum));
         r.travel(n, turns)
+    });
+    let stop_speed = stop_speed_node.and_then(|n| {
+        let turns = drive.is_some_and(|d| names.kinds[d] == Some(Kind::Drum));
+        r.stop_speed(n, turns)
     });
     let mut changing = crate::model::changing::Changing {
         travel,

@@ -220,8 +220,14 @@ impl DriveValue {
             if t1 >= end {
                 break;
             }
+            // A step in the schedule (two points at one time) jumps at `t1`: the next
+            // piece starts from the value just after it, which may already be outside.
+            let after = just_after(t1);
             t0 = t1;
-            q0 = q1;
+            q0 = self.at(after);
+            if outside(q0) {
+                return Some(after);
+            }
         }
         None
     }
@@ -290,8 +296,19 @@ pub(super) fn leaves_band(
         if t1 >= end {
             return None;
         }
+        // A step in a schedule jumps at `t1`: outside just after it is outside there.
+        let after = just_after(t1);
+        if outside(after) {
+            return Some(after);
+        }
         t0 = t1;
     }
+}
+
+/// A time just after `t` (by 1e-12 relative, at least 1e-12 s): the value of a
+/// schedule after a step at `t`.
+fn just_after(t: Real) -> Real {
+    t + 1e-12 * t.abs().max(1.0)
 }
 
 /// The state integrated in motion: position, speed, and the energy integrals.

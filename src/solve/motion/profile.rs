@@ -428,8 +428,21 @@ pub fn build_told(
         let (mut r, mut s) = (rig.clone(), first.clone());
         for step in 1..=n {
             for _ in 0..2 {
-                let (r2, s2) = travel::midpoint_step(&r, &s, 0.5 * dx, solve)
+                let (r2, s2, closed) = travel::midpoint_step_closing(&r, &s, 0.5 * dx, solve)
                     .map_err(|e| (step as Real * dx, e))?;
+                // Past a closed span the figures describe a rope through a part.
+                if let Some(c) = closed.or_else(|| travel::closed_span(&r2, &s, &s2)) {
+                    let line = &r2.lines[c.line];
+                    return Err((
+                        step as Real * dx,
+                        SolveError::SpanClosesUp {
+                            line: line.name.clone(),
+                            span: c.span,
+                            from: r2.parts[line.path[c.span].part].name.clone(),
+                            to: r2.parts[line.path[c.span + 1].part].name.clone(),
+                        },
+                    ));
+                }
                 r = r2;
                 s = s2;
             }
