@@ -2,6 +2,7 @@
 //! names every subcommand.
 
 use crate::support::golden::diff;
+use crate::support::terminal::{assert_no_progress, on_terminal};
 use crate::support::{reeve, reeve_in, stdout_of, Scratch, EXAMPLE, ROOT};
 
 /// Every subcommand, as `reeve --help` lists it (the list is read from the binary, so a
@@ -604,18 +605,7 @@ fn piped_studies_show_no_progress() {
         let ran = reeve(&args);
         assert!(ran.code <= 1, "{args:?}: {}", ran.stderr);
         for (stream, text) in [("stdout", &ran.stdout), ("stderr", &ran.stderr)] {
-            assert!(
-                !text.contains('\r'),
-                "{args:?}: carriage return on {stream}"
-            );
-            assert!(
-                !text.contains("runs,"),
-                "{args:?}: progress on {stream}:\n{text}"
-            );
-            assert!(
-                !text.contains("\u{1b}["),
-                "{args:?}: terminal codes on {stream}"
-            );
+            assert_no_progress(&format!("{args:?}"), stream, text);
         }
     }
 }
@@ -624,43 +614,18 @@ fn piped_studies_show_no_progress() {
 /// bar is drawn on stderr, and stdout redirected to a file still gets none of it.
 #[test]
 fn a_terminal_shows_the_progress_bar() {
-    let Some(script) = std::env::var_os("PATH").and_then(|paths| {
-        std::env::split_paths(&paths)
-            .map(|d| d.join("script"))
-            .find(|p| p.is_file())
-    }) else {
+    let rig = crate::support::test_rig("spread-hoist.yaml");
+    let Some((terminal, printed)) = on_terminal("progress", &["spread", &rig, "--samples", "200"])
+    else {
         eprintln!("skipped: no `script` on PATH to make a terminal");
         return;
     };
-    let dir = Scratch::new("progress");
-    let out = dir.join("out.txt");
-    let log = dir.join("tty.log");
-    let command = format!(
-        "'{}' spread '{}' --samples 200 > '{}'",
-        env!("CARGO_BIN_EXE_reeve"),
-        crate::support::test_rig("spread-hoist.yaml"),
-        out.display()
-    );
-    let status = std::process::Command::new(script)
-        .args(["-q", "-e", "-c", &command])
-        .arg(&log)
-        .stdin(std::process::Stdio::null())
-        .stdout(std::process::Stdio::null())
-        .stderr(std::process::Stdio::null())
-        .status()
-        .unwrap();
-    assert!(status.success(), "{status}");
-    let terminal = std::fs::read_to_string(&log).unwrap_or_default();
     assert!(
         terminal.contains("spread ["),
         "no bar on the terminal:\n{terminal:.400}"
     );
     assert!(terminal.contains("/200 runs"), "{terminal:.400}");
-    let printed = std::fs::read_to_string(&out).unwrap();
-    assert!(
-        !printed.contains("runs,") && !printed.contains('\r'),
-        "{printed}"
-    );
+    assert_no_progress("spread", "the redirected stdout", &printed);
     assert!(printed.contains("Caution"), "{printed}");
 }
 

@@ -6,6 +6,7 @@ pub mod close;
 pub mod generators;
 pub mod golden;
 pub mod run;
+pub mod terminal;
 
 use std::path::{Path, PathBuf};
 use std::sync::atomic::{AtomicU32, Ordering};
