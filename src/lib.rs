@@ -68,6 +68,7 @@ pub mod friction;
 pub mod geometry;
 pub mod math;
 pub mod model;
+pub mod progress;
 pub mod report;
 pub mod rig;
 pub mod solve;

@@ -1,7 +1,7 @@
 //! Progress bars for the long studies (`spread`, `sweep`, `rank`) through indicatif,
 //! drawn on stderr only when stderr is a terminal: piped or redirected output never
 //! carries progress text. The library only reports its steps
-//! ([`reeve::study::Progress`]); this is the one place a bar is drawn.
+//! ([`reeve::progress::Progress`]); this is the one place a bar is drawn.
 
 use std::io::IsTerminal;
 
@@ -29,7 +29,7 @@ impl Bar {
     }
 }
 
-impl reeve::study::Progress for Bar {
+impl reeve::progress::Progress for Bar {
     fn start(&self, total: usize) {
         self.bar.set_length(total as u64);
         self.bar.set_position(0);

@@ -24,20 +24,9 @@ pub mod rng;
 pub mod spread;
 pub mod sweep;
 
-/// Told how far a long study has got, for a progress bar: the library draws nothing
-/// itself (the command line shows a bar on a terminal only). Steps may be reported
-/// from several threads at once.
-pub trait Progress: Sync {
-    /// The study is about to make `total` runs.
-    fn start(&self, _total: usize) {}
-    /// One more run is done.
-    fn step(&self) {}
-    /// The study is done (also after an error).
-    fn finish(&self) {}
-}
-
-/// No progress shown.
-impl Progress for () {}
+/// Told how far a long study has got (the trait lives in [`crate::progress`], which the
+/// solver's motion shares).
+pub use crate::progress::Progress;
 
 use std::path::Path;
 

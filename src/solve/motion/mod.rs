@@ -181,7 +181,7 @@ pub fn motion(rig: &Rig, options: &MotionOptions) -> Result<Motion, MotionError>
 pub fn motion_told(
     rig: &Rig,
     options: &MotionOptions,
-    progress: &dyn crate::study::Progress,
+    progress: &dyn crate::progress::Progress,
 ) -> Result<Motion, MotionError> {
     let result = motion_inner(rig, options, progress);
     progress.finish();
@@ -191,7 +191,7 @@ pub fn motion_told(
 fn motion_inner(
     rig: &Rig,
     options: &MotionOptions,
-    progress: &dyn crate::study::Progress,
+    progress: &dyn crate::progress::Progress,
 ) -> Result<Motion, MotionError> {
     let mut rig = rig.clone();
     rig.solve_for = rig.drive;
