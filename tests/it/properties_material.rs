@@ -86,6 +86,15 @@ proptest! {
     fn energy_audit_balances_with_rope_weight(p in params_strategy(true), w in 0.05..3.0f64) {
         let text = with_material(&build(&p).0.plain(), &format!("mass_per_length: {w:?} kg/m"));
         let (_, s) = solve_text(&text);
+        // A rope heavy against its load can need a negative tension somewhere (a span
+        // hanging slack): `check` fails that rig (`slack-span`) and its figures do not
+        // hold, so the balance is asked of the rigs whose ropes stay taut.
+        let taut = s.subrigs.iter().all(|sub| {
+            [&sub.ideal, &sub.forward, &sub.back].iter().all(|c| {
+                c.tension.iter().flatten().chain(c.tension_end.iter().flatten()).all(|t| *t >= 0.0)
+            })
+        });
+        prop_assume!(taut);
         for sub in &s.subrigs {
             for case in [&sub.ideal, &sub.forward, &sub.back] {
                 let loss: f64 = case.loss.iter().sum();
