@@ -163,3 +163,30 @@ fn the_safety_factor_check_counts_the_tension_at_a_spans_tighter_end() {
     let sf = sf.unwrap_or_else(|| panic!("{w:?}"));
     assert!(sf.fails && sf.message.contains("4.74"), "{sf:?}");
 }
+
+#[test]
+fn a_table_of_a_rig_that_fails_its_checks_says_so() {
+    // Guards `table` against printing a slack rig clean: the haul hanging 30 m below the
+    // head on 0.5 kg/m of rope needs a negative tension in a span, which `check` fails
+    // (`slack-span`), but the table printed the negative figure with no word of it. The
+    // text and Markdown tables now name the failing checks before the caution; the CSV
+    // (one table of data) cannot, and the JSON carries the warnings already.
+    let text = HOIST.replace("ROPE_KEYS", "mass_per_length: 0.5").replace(
+        "hand: {kind: haul, at: [0.1, 0, 8]}",
+        "hand: {kind: haul, at: [0.1, 0, -30], pull: [0, 0, -1]}",
+    );
+    for format in ["text", "markdown"] {
+        let ran = crate::support::run::reeve_on(&text, &["table", "--format", format]);
+        assert_eq!(ran.code, 0, "{}", ran.stderr);
+        assert!(
+            ran.stdout
+                .contains("Checks that fail on this rig: slack-span"),
+            "{format}:\n{}",
+            ran.stdout
+        );
+    }
+    // A rig that passes its checks says nothing of them.
+    let ok = HOIST.replace("ROPE_KEYS", "mass_per_length: 0.05");
+    let ran = crate::support::run::reeve_on(&ok, &["table"]);
+    assert!(!ran.stdout.contains("Checks that fail"), "{}", ran.stdout);
+}

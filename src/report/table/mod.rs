@@ -24,6 +24,7 @@ use super::text::number;
 use super::{Report, CAUTION};
 
 mod material;
+mod verdict;
 pub use material::material_table;
 
 pub mod json;
@@ -672,6 +673,10 @@ pub fn write_text(
         writeln!(w)?;
         write_text_table(w, t)?;
     }
+    if let Some(line) = verdict::failing_checks(report) {
+        writeln!(w)?;
+        writeln!(w, "{}", text_line(&line))?;
+    }
     writeln!(w)?;
     writeln!(w, "{CAUTION}")
 }
@@ -705,6 +710,10 @@ pub fn write_markdown(
         writeln!(w, "## {}", markdown_cell(&t.title))?;
         writeln!(w)?;
         write_markdown_table(w, t)?;
+    }
+    if let Some(line) = verdict::failing_checks(report) {
+        writeln!(w)?;
+        writeln!(w, "**{}**", markdown_cell(&line))?;
     }
     writeln!(w)?;
     writeln!(w, "_{CAUTION}_")
