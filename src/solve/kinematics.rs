@@ -117,22 +117,7 @@ pub struct Kinematics {
 
 /// The direction a haul end is pulled: given, or along its span away from the line.
 pub fn haul_direction(rig: &Rig, geometry: &Geometry, part: PartId) -> Option<Direction> {
-    if let PartKind::Haul(h) = &rig.parts[part].kind {
-        if let Some(p) = h.pull {
-            return Some(p);
-        }
-        for (l, line) in rig.lines.iter().enumerate() {
-            let g = &geometry.lines[l];
-            let n = line.path.len();
-            if line.path[n - 1].part == part {
-                return g.spans.last().map(|s| s.direction);
-            }
-            if line.path[0].part == part {
-                return g.spans.first().map(|s| -s.direction);
-            }
-        }
-    }
-    None
+    haul_direction_over(rig, geometry, part, 0..rig.lines.len())
 }
 
 /// [`haul_direction`], asking the network which lines reach the part (the lines in
@@ -143,20 +128,30 @@ fn haul_direction_in(
     geometry: &Geometry,
     part: PartId,
 ) -> Option<Direction> {
-    if let PartKind::Haul(h) = &rig.parts[part].kind {
-        if let Some(p) = h.pull {
-            return Some(p);
+    haul_direction_over(rig, geometry, part, network.lines_at(part))
+}
+
+/// [`haul_direction`] over the lines `lines` (in order): the first that ends at the
+/// haul gives its direction.
+fn haul_direction_over(
+    rig: &Rig,
+    geometry: &Geometry,
+    part: PartId,
+    lines: impl IntoIterator<Item = LineId>,
+) -> Option<Direction> {
+    let PartKind::Haul(h) = &rig.parts[part].kind else {
+        return None;
+    };
+    if let Some(p) = h.pull {
+        return Some(p);
+    }
+    for l in lines {
+        let (path, g) = (&rig.lines[l].path, &geometry.lines[l]);
+        if path[path.len() - 1].part == part {
+            return g.spans.last().map(|s| s.direction);
         }
-        for l in network.lines_at(part) {
-            let line = &rig.lines[l];
-            let g = &geometry.lines[l];
-            let n = line.path.len();
-            if line.path[n - 1].part == part {
-                return g.spans.last().map(|s| s.direction);
-            }
-            if line.path[0].part == part {
-                return g.spans.first().map(|s| -s.direction);
-            }
+        if path[0].part == part {
+            return g.spans.first().map(|s| -s.direction);
         }
     }
     None

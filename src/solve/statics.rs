@@ -216,6 +216,8 @@ impl<'a> Problem<'a> {
             .collect();
         parts.sort_unstable();
         parts.dedup();
+        // `parts` holds every path part of these lines and every motion's part, the
+        // only parts looked up below, so the search always finds them.
         let local = |p: PartId| parts.binary_search(&p).expect("a part of the sub-rig");
         let path_part: Vec<Vec<usize>> = lines
             .iter()

@@ -22,15 +22,7 @@ pub fn material_table(
         return None;
     }
     let mut t = Table::new("Rope as a material");
-    t.column("line", Align::Left);
-    t.column("span", Align::Right);
-    match style {
-        Style::Human => t.column("from → to", Align::Left),
-        Style::Data => {
-            t.column("from", Align::Left);
-            t.column("to", Align::Left);
-        }
-    }
+    super::span_columns(&mut t, style);
     material.headers(&mut t, units, cases);
     for s in &report.spans {
         let mut row = vec![Cell::Text(s.line.clone()), Cell::Text(s.index.to_string())];

@@ -345,10 +345,9 @@ pub fn in_unit(x: Option<Real>, unit: Unit) -> Cell {
     Cell::Number(x.map(|v| v / unit.si), FIGURES)
 }
 
-/// The span table: line, span index, from → to, length, tension per case, safety factor.
-pub fn span_table(report: &Report, units: &UnitSystem, cases: CaseFilter, style: Style) -> Table {
-    let (len, force) = (units.span_length.symbol, units.force.symbol);
-    let mut t = Table::new("Spans");
+/// The columns that name a span, at the start of every table of spans: line, span
+/// index, and its ends (`from → to` for people, `from` and `to` apart as data).
+pub(super) fn span_columns(t: &mut Table, style: Style) {
     t.column("line", Align::Left);
     t.column("span", Align::Right);
     match style {
@@ -358,6 +357,13 @@ pub fn span_table(report: &Report, units: &UnitSystem, cases: CaseFilter, style:
             t.column("to", Align::Left);
         }
     }
+}
+
+/// The span table: line, span index, from → to, length, tension per case, safety factor.
+pub fn span_table(report: &Report, units: &UnitSystem, cases: CaseFilter, style: Style) -> Table {
+    let (len, force) = (units.span_length.symbol, units.force.symbol);
+    let mut t = Table::new("Spans");
+    span_columns(&mut t, style);
     t.column(format!("length ({len})"), Align::Right);
     if cases.ideal() {
         t.column(format!("tension ideal ({force})"), Align::Right);
