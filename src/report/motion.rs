@@ -251,6 +251,8 @@ fn shown(m: &Motion, units: &UnitSystem) -> ((Real, String), (Real, String)) {
 /// in lbf (US customary) shows ft/s, lbf, lbf*ft, lb (or lb*ft^2) and lbf/in (or
 /// lbf*ft/rad).
 struct Others {
+    position: (Real, String),
+    span_length: (Real, String),
     speed: (Real, &'static str),
     force: (Real, String),
     energy: (Real, &'static str),
@@ -262,7 +264,31 @@ struct Others {
 fn warning_text(wn: &crate::solve::motion::Warning, o: &Others) -> String {
     use crate::solve::motion::WarningFigures;
     let n = |x: Real| number(Some(x), 4);
-    match wn.figures {
+    match &wn.figures {
+        Some(WarningFigures::GeometryEnd {
+            t,
+            position,
+            speed,
+            reason,
+            rope_drawn,
+        }) => {
+            let (sv, su) = o.speed;
+            let (ps, pu) = &o.position;
+            let (ls, lu) = &o.span_length;
+            match reason {
+                Some(words) => format!(
+                    "at {t:.3} s the drive reaches {} {pu} from the drawn position, where the rig's geometry ends ({words}), at {} {su}: the run ends there; give `travel` for the real end stops",
+                    n(position * ps),
+                    n(speed * sv)
+                ),
+                None => format!(
+                    "at {t:.3} s the drive has moved {} {pu} and its geometry sets no limit that way: the run ends there, where its fastest part has moved as far as the rope drawn ({} {lu}), at {} {su}; give `travel` for the real end stops",
+                    n(position * ps),
+                    n(rope_drawn * ls),
+                    n(speed * sv)
+                ),
+            }
+        }
         Some(WarningFigures::StopSpeed {
             start,
             speed,
@@ -298,7 +324,11 @@ fn others(m: &Motion, units: &UnitSystem) -> Others {
     let force = units.unit(Dimension::Force);
     let lbf_ft = unit::LBF_FT.si;
     let lb_ft2 = unit::LB.si * unit::FT.si * unit::FT.si;
+    let ((ps, pu), _) = shown(m, units);
+    let span = units.span_length;
     Others {
+        position: (ps, pu),
+        span_length: (1.0 / span.si, span.symbol.to_string()),
         speed: match (m.profile.rotates, imperial) {
             (true, _) => (1f64.to_degrees(), "deg/s"),
             (false, false) => (1.0, "m/s"),

@@ -25,7 +25,7 @@ use crate::model::{PartKind, Rig};
 use crate::solve::{given_quantity, Quantity, SolveError, SolveOptions};
 
 pub use integrate::{DriveValue, Energy, Event, EventKind, Point, Run, Settings};
-pub use profile::Profile;
+pub use profile::{GeometryEnd, GeometryEnds, Profile};
 
 /// The most times of the other parts' schedules at which the statics is solved again.
 pub const MOST_SOLVED_TIMES: usize = 100;
@@ -118,8 +118,23 @@ pub struct Warning {
 }
 
 /// The figures of a warning that carries units.
-#[derive(Debug, Clone, Copy, PartialEq)]
+#[derive(Debug, Clone, PartialEq)]
 pub enum WarningFigures {
+    /// `geometry-end` or `open-end`: the run ended where the geometry of a rig without
+    /// `travel` ends.
+    GeometryEnd {
+        /// When, s.
+        t: Real,
+        /// The drive's position, m or rad.
+        position: Real,
+        /// The speed it arrived at, m/s or rad/s.
+        speed: Real,
+        /// What closes up there (or why the rig cannot be followed); None: the geometry
+        /// sets no limit that way, and the run went as far as the rope drawn.
+        reason: Option<String>,
+        /// The rope drawn, m.
+        rope_drawn: Real,
+    },
     /// `stop-speed`: the stroke's start (s), its impact speed and the limit (m/s or rad/s).
     StopSpeed {
         /// Start of the stroke, s.
@@ -326,7 +341,9 @@ fn motion_inner(
         });
     }
     let reached = run.points.last().map_or(0.0, |p| p.t);
-    if reached < duration * (1.0 - 1e-9) {
+    if run.at_geometry_end {
+        warnings.push(geometry_end_warning(&profile, &run));
+    } else if reached < duration * (1.0 - 1e-9) {
         warnings.push(Warning {
             code: "step-limit",
             message: format!(
@@ -338,7 +355,7 @@ fn motion_inner(
     if profile.stops.is_none() {
         warnings.push(Warning {
             code: "no-travel",
-            message: "the rig gives no `travel`: its loads are held as at the drawn position and it has no end stops".to_string(),
+            message: "the rig gives no `travel`: it has no end stops, and the run follows its geometry until a span closes up (or, where the geometry sets no limit, until its fastest part has moved as far as the rope drawn) and ends there".to_string(),
                     figures: None,
 });
     }
@@ -431,6 +448,10 @@ pub fn strokes(run: &Run) -> Vec<Stroke> {
             EventKind::Stops | EventKind::Sticks => {
                 if let Some(s) = current.as_mut() {
                     s.end = e.t;
+                    // A `stops` with a speed ends the run where the geometry ends.
+                    if e.speed != 0.0 {
+                        s.stop_speed = Some(e.speed.abs());
+                    }
                 }
             }
             EventKind::ReachesForwardStop | EventKind::ReachesBackStop => {
@@ -519,4 +540,48 @@ fn warnings(rig: &Rig, profile: &Profile, run: &Run, strokes: &[Stroke]) -> Vec<
         }
     }
     out
+}
+
+/// The warning of a run that ended where the geometry of a rig without `travel` ends
+/// (`run.at_geometry_end`): `geometry-end` where parts meet (or the rig cannot be
+/// solved past there), `open-end` where the geometry sets no limit.
+fn geometry_end_warning(profile: &Profile, run: &Run) -> Warning {
+    let last = run.events.last().copied();
+    let (t, position, speed) = last.map_or((0.0, 0.0, 0.0), |e| (e.t, e.position, e.speed));
+    let ends = profile.ends.as_ref();
+    let end = ends.map(|e| if position < 0.0 { &e.back } else { &e.forward });
+    let reason = end.and_then(|e| e.reason.clone());
+    let rope_drawn = ends.map_or(0.0, |e| e.rope_drawn);
+    let (pu, su) = if profile.rotates {
+        ("rad", "rad/s")
+    } else {
+        ("m", "m/s")
+    };
+    let (code, message) = match &reason {
+        Some(words) => (
+            "geometry-end",
+            format!(
+                "at {t:.3} s the drive reaches {position:.4} {pu} from the drawn position, where the rig's geometry ends ({words}), at {:.4} {su}: the run ends there; give `travel` for the real end stops",
+                speed.abs()
+            ),
+        ),
+        None => (
+            "open-end",
+            format!(
+                "at {t:.3} s the drive has moved {position:.4} {pu} and its geometry sets no limit that way: the run ends there, where its fastest part has moved as far as the rope drawn ({rope_drawn:.3} m), at {:.4} {su}; give `travel` for the real end stops",
+                speed.abs()
+            ),
+        ),
+    };
+    Warning {
+        code,
+        message,
+        figures: Some(WarningFigures::GeometryEnd {
+            t,
+            position,
+            speed: speed.abs(),
+            reason,
+            rope_drawn,
+        }),
+    }
 }
