@@ -301,6 +301,20 @@ fn warning_text(wn: &crate::solve::motion::Warning, o: &Others) -> String {
                 n(limit * sv)
             )
         }
+        Some(WarningFigures::Slack {
+            position,
+            tension,
+            line,
+            span,
+        }) => {
+            let (ps, pu) = &o.position;
+            let (fs, fu) = (o.force.0, &o.force.1);
+            format!(
+                "at drive position {} {pu} (or later in a schedule) span {span} of line `{line}` would need a negative tension ({} {fu}): the rope goes slack there and the figures there do not hold",
+                n(position * ps),
+                n(tension * fs)
+            )
+        }
         Some(WarningFigures::DynamicTension {
             peak,
             static_peak,

@@ -69,6 +69,17 @@ pub enum MotionError {
         /// Its quantity's name.
         quantity: &'static str,
     },
+    /// A rope would have to push at the drawn position: the statics needs a negative
+    /// tension there, which `check` fails as `slack-span`.
+    #[error("at the drawn position span {span} of line `{line}` would need a negative tension ({tension:.4} N): the rope goes slack there (as `check` says, `slack-span`), so the rig cannot be run from rest; make the ropes carry the loads")]
+    Slack {
+        /// The line.
+        line: String,
+        /// The span's index on the line.
+        span: usize,
+        /// Its tension, N (negative).
+        tension: Real,
+    },
     /// The rig cannot be solved somewhere on its travel.
     #[error(
         "at drive position {position} (m or rad from the drawn position) the rig cannot be solved"
@@ -143,6 +154,17 @@ pub enum WarningFigures {
         speed: Real,
         /// `limits.stop_speed`.
         limit: Real,
+    },
+    /// `slack-span`: where along the travel a span's tension goes negative.
+    Slack {
+        /// The drive's position, m or rad.
+        position: Real,
+        /// The tension, N (negative).
+        tension: Real,
+        /// The line.
+        line: String,
+        /// The span's index on the line.
+        span: usize,
     },
     /// `dynamic-tension`: the peak in motion, the static check's largest and the
     /// allowed tension, N.
@@ -267,6 +289,25 @@ fn motion_inner(
     for &t in &times {
         profile.later.push((t, build(&at_time(t))?.samples));
     }
+    // A rope that would have to push: its figures are those of a slack rope (the band
+    // comes out reversed, the friction negative). At rest at the drawn position nothing
+    // can be run; further along the travel, or later in a schedule, it is warned.
+    let at_rest = profile.at(0.0).least_tension;
+    if at_rest.0 < 0.0 {
+        let (l, j) = at_rest.1;
+        return Err(MotionError::Slack {
+            line: rig.lines[l].name.clone(),
+            span: j,
+            tension: at_rest.0,
+        });
+    }
+    let slack = profile
+        .samples
+        .iter()
+        .chain(profile.later.iter().flat_map(|(_, s)| s.iter()))
+        .filter(|s| s.least_tension.0 < 0.0)
+        .min_by(|a, b| a.x.abs().total_cmp(&b.x.abs()))
+        .map(|s| (s.x, s.least_tension));
     // The latest schedule end, the drive's or another part's.
     let last_end = others
         .iter()
@@ -330,6 +371,22 @@ fn motion_inner(
         }
     }
     let mut warnings = warnings(&rig, &profile, &run, &strokes);
+    if let Some((x, (tension, (l, j)))) = slack {
+        let line = rig.lines[l].name.clone();
+        let unit = if profile.rotates { "rad" } else { "m" };
+        warnings.push(Warning {
+            code: "slack-span",
+            message: format!(
+                "at drive position {x:.4} {unit} (or later in a schedule) span {j} of line `{line}` would need a negative tension ({tension:.4} N): the rope goes slack there and the figures there do not hold"
+            ),
+            figures: Some(WarningFigures::Slack {
+                position: x,
+                tension,
+                line,
+                span: j,
+            }),
+        });
+    }
     if all_times > times.len() {
         warnings.push(Warning {
             code: "schedule-thinned",
