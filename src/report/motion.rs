@@ -310,9 +310,30 @@ fn warning_text(wn: &crate::solve::motion::Warning, o: &Others) -> String {
             let (ps, pu) = &o.position;
             let (fs, fu) = (o.force.0, &o.force.1);
             format!(
-                "at drive position {} {pu} (or later in a schedule) span {span} of line `{line}` would need a negative tension ({} {fu}): the rope goes slack there and the figures there do not hold",
+                "at drive position {} {pu} a stroke runs where span {span} of line `{line}` would need a negative tension ({} {fu}): the rope goes slack there and the figures there do not hold",
                 n(position * ps),
                 n(tension * fs)
+            )
+        }
+        Some(WarningFigures::StiffRope { rate, period }) => {
+            let (ks, ku) = o.spring;
+            format!(
+                "the rope's spring rate at the drive ({} {ku}) swings the drive on it with a period of {} s, more than {:e} times over the run: too fast to follow, and a real rope damps it; the run takes the rope as inextensible (one degree of freedom)",
+                n(rate * ks),
+                number(Some(*period), 3),
+                crate::solve::motion::MOST_ROPE_SWINGS
+            )
+        }
+        Some(WarningFigures::Unresolved {
+            dropped,
+            largest,
+            resolution,
+        }) => {
+            let (ps, pu) = &o.position;
+            format!(
+                "the rig moves by at most {} {pu} between stops ({dropped} stop(s) and restart(s) of less than {} {pu} left out of the events and stick-slip counts): below what the integrator resolves, as a very stiff rope or spring gives; the rig creeps or stays put there, and those stops are not stick-slip",
+                number(Some(largest * ps), 3),
+                number(Some(resolution * ps), 3)
             )
         }
         Some(WarningFigures::DynamicTension {

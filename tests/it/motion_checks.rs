@@ -73,3 +73,80 @@ fn a_negative_spring_force_that_keeps_the_rope_taut_gives_check_s_band_in_order(
     // (`travel.back` 0): it stays.
     assert_eq!(m["events"].as_array().unwrap().len(), 0, "{}", m["events"]);
 }
+
+fn warning_codes(json: &serde_json::Value) -> Vec<&str> {
+    json["warnings"]
+        .as_array()
+        .unwrap()
+        .iter()
+        .map(|w| w["code"].as_str().unwrap())
+        .collect()
+}
+
+fn motion_json(text: &str, extra: &[&str]) -> serde_json::Value {
+    let mut args = vec!["motion", "--format", "json"];
+    args.extend(extra);
+    let ran = reeve_on(text, &args);
+    assert_eq!(ran.code, 0, "{}", ran.stderr);
+    serde_json::from_str(&ran.stdout).expect("motion JSON")
+}
+
+#[test]
+fn a_spring_of_1e12_n_per_m_gives_no_phantom_stick_slip() {
+    // Guards the stick-slip count against jumps far below what a run resolves: the
+    // oscillator of motion.rs (1 kg, μs 0.5, μk 0.3) on a spring of 10¹² N/m jumps
+    // 2·(μs − μk)·m·g/k = 3.9e-12 m a cycle (the classic stick-slip oscillator). Those
+    // "cycles" were reported as jerky motion with 3 stick-slip cycles; they are below
+    // the run's resolution (`RESOLVED_MOTION`, 1 µm) and must not read as stick-slip.
+    let mu = |m: f64| m / (1.0 - m * m).sqrt(); // tan(asin μ'), as in motion.rs
+    let text = crate::motion::STICK_SLIP
+        .replace("MUK", &format!("{}", mu(0.3)))
+        .replace("MUS", &format!("{}", mu(0.5)))
+        .replace("rate: 100 N/m", "rate: 1e12 N/m");
+    let json = motion_json(&text, &["--duration", "20"]);
+    let codes = warning_codes(&json);
+    assert!(codes.contains(&"unresolved-motion"), "{codes:?}");
+    assert!(!codes.contains(&"jerky-motion"), "{codes:?}");
+    for e in json["events"].as_array().unwrap() {
+        assert!(
+            e["event"] != "sticks" && e["event"] != "slips",
+            "{}",
+            json["events"]
+        );
+    }
+    for s in json["strokes"].as_array().unwrap() {
+        assert_eq!(s["stick_slip_cycles"], 0, "{s}");
+    }
+    // The real oscillator (100 N/m) keeps its cycles: motion.rs checks their figures.
+    let real = motion_json(
+        &crate::motion::STICK_SLIP
+            .replace("MUK", &format!("{}", mu(0.3)))
+            .replace("MUS", &format!("{}", mu(0.5))),
+        &["--duration", "20"],
+    );
+    assert!(!warning_codes(&real).contains(&"unresolved-motion"));
+}
+
+#[test]
+fn a_rope_of_1e12_n_on_a_drive_weight_runs_as_inextensible_with_a_warning() {
+    // Guards the two-degree run against a rope too stiff to follow: the cellar trapdoor's
+    // box (24 kg) on a rope of EA 10¹² N swings with a period 2π·√(m/k) of about 48 µs
+    // (k = 4.2e11 N/m at the drive). The run chattered at its end stop (6,555 strokes,
+    // span tensions of 1.5 MN) and stopped at the step limit. A real rope damps those
+    // swings: the run takes the rope as inextensible, says so, and gives the rigid run.
+    let text = std::fs::read_to_string(crate::support::example_rig("cellar-trapdoor"))
+        .expect("rig");
+    let stiff = text.replace("mu: 0.15}", "mu: 0.15, stiffness: 1e12 N}");
+    assert_ne!(stiff, text);
+    let rigid = motion_json(&text, &[]);
+    let json = motion_json(&stiff, &[]);
+    let codes = warning_codes(&json);
+    assert!(codes.contains(&"stiff-rope"), "{codes:?}");
+    assert!(!codes.contains(&"step-limit"), "{codes:?}");
+    assert_eq!(json["degrees_of_freedom"], 1);
+    assert_eq!(json["events"], rigid["events"]);
+    assert_eq!(
+        json["strokes"].as_array().unwrap().len(),
+        rigid["strokes"].as_array().unwrap().len()
+    );
+}

@@ -27,6 +27,17 @@ use crate::solve::{given_quantity, Quantity, SolveError, SolveOptions};
 pub use integrate::{DriveValue, Energy, Event, EventKind, Point, Run, Settings};
 pub use profile::{GeometryEnd, GeometryEnds, Profile};
 
+/// The least movement between two stops (m or rad) that a run reports as motion: 10⁵
+/// times the integrator's absolute tolerance ([`integrate::ATOL`]), and below anything a
+/// rope rig can show. A stick-slip cycle that moves less (a rope or spring of 10¹² N/m
+/// on a kilogram, whose true jump of picometres the steps cannot resolve) is numerical.
+pub const RESOLVED_MOTION: Real = 1e-6;
+
+/// The most swings of the drive on a stretchy rope that a two-degree run follows (each
+/// takes tens of steps): a stiffer rope, whose swings a real rope's damping would end,
+/// is taken as inextensible.
+pub const MOST_ROPE_SWINGS: Real = 2e4;
+
 /// The most times of the other parts' schedules at which the statics is solved again.
 pub const MOST_SOLVED_TIMES: usize = 100;
 
@@ -166,6 +177,23 @@ pub enum WarningFigures {
         /// The span's index on the line.
         span: usize,
     },
+    /// `stiff-rope`: the rope's spring rate at the drive and the drive's swing period on
+    /// it, s, where the run took the rope as inextensible.
+    StiffRope {
+        /// N/m or N·m/rad.
+        rate: Real,
+        /// s.
+        period: Real,
+    },
+    /// `unresolved-motion`: stops and restarts that moved less than [`RESOLVED_MOTION`].
+    Unresolved {
+        /// How many stick-slip pairs were left out.
+        dropped: usize,
+        /// The largest movement between stops, m or rad.
+        largest: Real,
+        /// [`RESOLVED_MOTION`].
+        resolution: Real,
+    },
     /// `dynamic-tension`: the peak in motion, the static check's largest and the
     /// allowed tension, N.
     DynamicTension {
@@ -290,24 +318,21 @@ fn motion_inner(
         profile.later.push((t, build(&at_time(t))?.samples));
     }
     // A rope that would have to push: its figures are those of a slack rope (the band
-    // comes out reversed, the friction negative). At rest at the drawn position nothing
-    // can be run; further along the travel, or later in a schedule, it is warned.
-    let at_rest = profile.at(0.0).least_tension;
-    if at_rest.0 < 0.0 {
-        let (l, j) = at_rest.1;
+    // comes out reversed, the friction negative). Where both ways need it at the drawn
+    // position nothing can be run; a stroke through such figures is warned below.
+    let at_rest = profile.at(0.0);
+    if at_rest.least_forward.0 < 0.0 && at_rest.least_back.0 < 0.0 {
+        let (tension, (l, j)) = if at_rest.least_forward.0 < at_rest.least_back.0 {
+            at_rest.least_forward
+        } else {
+            at_rest.least_back
+        };
         return Err(MotionError::Slack {
             line: rig.lines[l].name.clone(),
             span: j,
-            tension: at_rest.0,
+            tension,
         });
     }
-    let slack = profile
-        .samples
-        .iter()
-        .chain(profile.later.iter().flat_map(|(_, s)| s.iter()))
-        .filter(|s| s.least_tension.0 < 0.0)
-        .min_by(|a, b| a.x.abs().total_cmp(&b.x.abs()))
-        .map(|s| (s.x, s.least_tension));
     // The latest schedule end, the drive's or another part's.
     let last_end = others
         .iter()
@@ -340,6 +365,25 @@ fn motion_inner(
         }
         _ => false,
     });
+    // A rope so stiff that the drive swings on it faster than the run can follow (and a
+    // real rope damps it) is taken as inextensible: one degree of freedom, warned.
+    let mut too_stiff = None;
+    let two_dof = two_dof.filter(|&k| {
+        let drive_mass = match (kind, &drive_value) {
+            (PartKind::Weight(_), DriveValue::Constant(m)) => *m,
+            (PartKind::Weight(_), DriveValue::Scheduled(s)) => {
+                s.points.iter().map(|p| p.1).fold(Real::INFINITY, Real::min)
+            }
+            (PartKind::Drum(_), _) => profile.drive_inertia,
+            _ => return true,
+        };
+        let period = 2.0 * std::f64::consts::PI * (drive_mass.max(0.0) / k).sqrt();
+        let follows = period * MOST_ROPE_SWINGS >= duration;
+        if !follows {
+            too_stiff = Some((k, period));
+        }
+        follows
+    });
     let run = match (two_dof, kind) {
         (Some(k), PartKind::Weight(_)) => two::run(&profile, &drive_value, &settings, k, None),
         (Some(k), PartKind::Drum(_)) => two::run(
@@ -362,6 +406,8 @@ fn motion_inner(
         (None, _) => integrate::run(&profile, &drive_value, &settings),
     };
     progress.step();
+    let mut run = run;
+    let unresolved = drop_unresolved_slips(&mut run.events);
     let mut strokes = strokes(&run);
     if let DriveValue::Scheduled(s) = &drive_value {
         let mut since = 0.0;
@@ -371,13 +417,13 @@ fn motion_inner(
         }
     }
     let mut warnings = warnings(&rig, &profile, &run, &strokes);
-    if let Some((x, (tension, (l, j)))) = slack {
+    if let Some((x, (tension, (l, j)))) = slack_stroke(&profile, &run, &strokes) {
         let line = rig.lines[l].name.clone();
         let unit = if profile.rotates { "rad" } else { "m" };
         warnings.push(Warning {
             code: "slack-span",
             message: format!(
-                "at drive position {x:.4} {unit} (or later in a schedule) span {j} of line `{line}` would need a negative tension ({tension:.4} N): the rope goes slack there and the figures there do not hold"
+                "at drive position {x:.4} {unit} a stroke runs where span {j} of line `{line}` would need a negative tension ({tension:.4} N): the rope goes slack there and the figures there do not hold"
             ),
             figures: Some(WarningFigures::Slack {
                 position: x,
@@ -385,6 +431,32 @@ fn motion_inner(
                 line,
                 span: j,
             }),
+        });
+    }
+    if let Some((rate, period)) = too_stiff {
+        let unit = if profile.rotates { "N*m/rad" } else { "N/m" };
+        warnings.push(Warning {
+            code: "stiff-rope",
+            message: format!(
+                "the rope's spring rate at the drive ({rate:.4e} {unit}) swings the drive on it with a period of {period:.3e} s, more than {MOST_ROPE_SWINGS:e} times over the run: too fast to follow, and a real rope damps it; the run takes the rope as inextensible (one degree of freedom)"
+            ),
+            figures: Some(WarningFigures::StiffRope { rate, period }),
+        });
+    }
+    if let Some(figures) = unresolved_motion(&run, &strokes, unresolved) {
+        let WarningFigures::Unresolved {
+            dropped, largest, ..
+        } = figures
+        else {
+            unreachable!("unresolved_motion gives Unresolved")
+        };
+        let unit = if profile.rotates { "rad" } else { "m" };
+        warnings.push(Warning {
+            code: "unresolved-motion",
+            message: format!(
+                "the rig moves by at most {largest:.3e} {unit} between stops ({dropped} stop(s) and restart(s) of less than {RESOLVED_MOTION:e} {unit} left out of the events and stick-slip counts): below what the integrator resolves, as a very stiff rope or spring gives; the rig creeps or stays put there, and those stops are not stick-slip"
+            ),
+            figures: Some(figures),
         });
     }
     if all_times > times.len() {
@@ -476,12 +548,19 @@ fn lag(
 pub fn strokes(run: &Run) -> Vec<Stroke> {
     let mut out: Vec<Stroke> = Vec::new();
     let mut current: Option<Stroke> = None;
+    // Whether the current stroke has had its end (a stop, a stick or an end stop).
+    let mut ended = false;
     for e in &run.events {
         match e.kind {
             EventKind::StartsForward | EventKind::StartsBack => {
-                if let Some(s) = current.take() {
+                if let Some(mut s) = current.take() {
+                    // Turned round without coming to rest: it ends where the next starts.
+                    if !ended {
+                        s.end = e.t;
+                    }
                     out.push(s);
                 }
+                ended = false;
                 current = Some(Stroke {
                     direction: if e.kind == EventKind::StartsForward {
                         1.0
@@ -503,6 +582,7 @@ pub fn strokes(run: &Run) -> Vec<Stroke> {
                 }
             }
             EventKind::Stops | EventKind::Sticks => {
+                ended = true;
                 if let Some(s) = current.as_mut() {
                     s.end = e.t;
                     // A `stops` with a speed ends the run where the geometry ends.
@@ -512,6 +592,7 @@ pub fn strokes(run: &Run) -> Vec<Stroke> {
                 }
             }
             EventKind::ReachesForwardStop | EventKind::ReachesBackStop => {
+                ended = true;
                 if let Some(s) = current.as_mut() {
                     s.end = e.t;
                     s.stop_speed = Some(e.speed.abs());
@@ -641,4 +722,93 @@ fn geometry_end_warning(profile: &Profile, run: &Run) -> Warning {
             rope_drawn,
         }),
     }
+}
+
+/// The first stroke that runs through a position where its way's figures need a rope
+/// that pushes (a negative span tension, at that time's figures where other parts
+/// follow a schedule): the position and `(tension, (line, span))`.
+fn slack_stroke(
+    profile: &Profile,
+    run: &Run,
+    strokes: &[Stroke],
+) -> Option<(Real, (Real, (usize, usize)))> {
+    for s in strokes {
+        let on = run.points.iter().filter(|p| p.t >= s.start && p.t <= s.end);
+        let (lo, hi) = on.fold((Real::INFINITY, Real::NEG_INFINITY), |(lo, hi), p| {
+            (lo.min(p.x), hi.max(p.x))
+        });
+        if lo > hi {
+            continue;
+        }
+        let case = |t: Real, x: Real| {
+            let at = profile.at_t(t, x);
+            if s.direction > 0.0 {
+                at.least_forward
+            } else {
+                at.least_back
+            }
+        };
+        // The ends of the stroke and every sampled position in between, at its start
+        // and its end time.
+        let xs = profile
+            .samples
+            .iter()
+            .map(|p| p.x)
+            .filter(|&x| x > lo && x < hi)
+            .chain([lo, hi]);
+        for x in xs {
+            for t in [s.start, s.end] {
+                let least = case(t, x);
+                if least.0 < 0.0 {
+                    return Some((x, least));
+                }
+            }
+        }
+    }
+    None
+}
+
+/// Leaves out each `sticks` / `slips` pair whose slip (from the start or slip before it)
+/// moved less than [`RESOLVED_MOTION`]: numerical, not stick-slip. Returns how many.
+fn drop_unresolved_slips(events: &mut Vec<Event>) -> usize {
+    let mut dropped = 0;
+    let mut from: Option<Real> = None;
+    let mut i = 0;
+    while i < events.len() {
+        match events[i].kind {
+            EventKind::StartsForward | EventKind::StartsBack | EventKind::Slips => {
+                from = Some(events[i].position);
+            }
+            EventKind::Sticks => {
+                let small = from.is_some_and(|x| (events[i].position - x).abs() < RESOLVED_MOTION);
+                if small && events.get(i + 1).is_some_and(|e| e.kind == EventKind::Slips) {
+                    events.drain(i..i + 2);
+                    dropped += 1;
+                    continue;
+                }
+            }
+            _ => {}
+        }
+        i += 1;
+    }
+    dropped
+}
+
+/// The figures of `unresolved-motion`, where pairs were dropped or every stroke moved
+/// less than [`RESOLVED_MOTION`] in all.
+fn unresolved_motion(run: &Run, strokes: &[Stroke], dropped: usize) -> Option<WarningFigures> {
+    let moved = |s: &Stroke| {
+        let on = run.points.iter().filter(|p| p.t >= s.start && p.t <= s.end);
+        let (lo, hi) = on.fold((Real::INFINITY, Real::NEG_INFINITY), |(lo, hi), p| {
+            (lo.min(p.x), hi.max(p.x))
+        });
+        (hi - lo).max(0.0)
+    };
+    let largest = strokes.iter().map(moved).fold(0.0, Real::max);
+    let tiny = !strokes.is_empty() && largest < RESOLVED_MOTION;
+    (dropped > 0 || tiny).then_some(WarningFigures::Unresolved {
+        dropped,
+        largest,
+        resolution: RESOLVED_MOTION,
+    })
 }

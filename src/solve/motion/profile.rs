@@ -58,10 +58,13 @@ pub struct Sample {
     pub tension_back: (Real, Real),
     /// Largest static safety-check tension (the larger of forward and back), N.
     pub static_tension: Real,
-    /// The least span tension moving forward or back at constant speed, N, and its span
+    /// The least span tension moving forward at constant speed, N, and its span
     /// `(line, index)`: below zero the rope would have to push (slack), and the figures
-    /// there mean nothing (the band comes out reversed, the friction negative).
-    pub least_tension: (Real, (usize, usize)),
+    /// of that case mean nothing (a negative tension times the friction ratio: negative
+    /// friction, a reversed band).
+    pub least_forward: (Real, (usize, usize)),
+    /// The same moving back.
+    pub least_back: (Real, (usize, usize)),
 }
 
 /// The sampled travel.
@@ -211,7 +214,8 @@ fn blend(a: &Sample, b: &Sample, w: Real) -> Sample {
             l(a.tension_back.1, b.tension_back.1),
         ),
         static_tension: l(a.static_tension, b.static_tension),
-        least_tension: (l(a.least_tension.0, b.least_tension.0), a.least_tension.1),
+        least_forward: (l(a.least_forward.0, b.least_forward.0), a.least_forward.1),
+        least_back: (l(a.least_back.0, b.least_back.0), a.least_back.1),
     }
 }
 
@@ -317,10 +321,12 @@ fn largest(t: &ById<Vec<Real>>) -> (usize, usize, Real) {
     best
 }
 
-/// Each span's tension with its `(line, index)`.
-fn least(t: &ById<Vec<Real>>) -> impl Iterator<Item = (Real, (usize, usize))> + '_ {
+/// The least span tension with its `(line, index)`.
+fn least(t: &ById<Vec<Real>>) -> (Real, (usize, usize)) {
     t.entries()
         .flat_map(|(l, spans)| spans.iter().enumerate().map(move |(j, &v)| (v, (l, j))))
+        .min_by(|a, b| a.0.total_cmp(&b.0))
+        .unwrap_or((0.0, (0, 0)))
 }
 
 /// The figures of `rig` (whose `solve_for` is its drive) solved as `solution`, at `x`.
@@ -396,10 +402,8 @@ pub fn sample(
         tension_forward: (tf, response(&f1.tension, lf, jf, tf)),
         tension_back: (tb, response(&b1.tension, lb, jb, tb)),
         static_tension: tf.max(tb),
-        least_tension: least(&main.forward.tension)
-            .chain(least(&main.back.tension))
-            .min_by(|a, b| a.0.total_cmp(&b.0))
-            .unwrap_or((0.0, (0, 0))),
+        least_forward: least(&main.forward.tension),
+        least_back: least(&main.back.tension),
     })
 }
 
