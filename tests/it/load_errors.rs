@@ -888,7 +888,10 @@ fn schedule_times_before_the_start_or_three_at_one_time_are_refused() {
     assert_problem(
         &e,
         12,
-        &["parts.hook.load.mass.schedule.3.0", "two points at one time"],
+        &[
+            "parts.hook.load.mass.schedule.3.0",
+            "two points at one time",
+        ],
     );
     // A step (two points at one time) still loads.
     let text = with(

@@ -68,7 +68,10 @@ fn a_negative_spring_force_that_keeps_the_rope_taut_gives_check_s_band_in_order(
     let band = m["holding_band"].as_array().unwrap();
     let (lo, hi) = (band[0].as_f64().unwrap(), band[1].as_f64().unwrap());
     assert!((lo - back).abs() < 1e-9 * back.abs(), "{lo} vs {back}");
-    assert!((hi - forward).abs() < 1e-9 * forward.abs(), "{hi} vs {forward}");
+    assert!(
+        (hi - forward).abs() < 1e-9 * forward.abs(),
+        "{hi} vs {forward}"
+    );
     // 20 N is below back, so the lid would run down, but it stands on its back stop
     // (`travel.back` 0): it stays.
     assert_eq!(m["events"].as_array().unwrap().len(), 0, "{}", m["events"]);
@@ -134,8 +137,8 @@ fn a_rope_of_1e12_n_on_a_drive_weight_runs_as_inextensible_with_a_warning() {
     // (k = 4.2e11 N/m at the drive). The run chattered at its end stop (6,555 strokes,
     // span tensions of 1.5 MN) and stopped at the step limit. A real rope damps those
     // swings: the run takes the rope as inextensible, says so, and gives the rigid run.
-    let text = std::fs::read_to_string(crate::support::example_rig("cellar-trapdoor"))
-        .expect("rig");
+    let text =
+        std::fs::read_to_string(crate::support::example_rig("cellar-trapdoor")).expect("rig");
     let stiff = text.replace("mu: 0.15}", "mu: 0.15, stiffness: 1e12 N}");
     assert_ne!(stiff, text);
     let rigid = motion_json(&text, &[]);

@@ -1442,5 +1442,9 @@ fn a_sweep_with_unsolved_steps_exits_1_and_says_how_many() {
         "3",
     ]);
     assert_eq!(clean.code, 0, "{}\n{}", clean.stdout, clean.stderr);
-    assert!(!clean.stdout.contains("could not be solved"), "{}", clean.stdout);
+    assert!(
+        !clean.stdout.contains("could not be solved"),
+        "{}",
+        clean.stdout
+    );
 }

@@ -389,7 +389,9 @@ fn the_html_report_s_motion_section_follows_units() {
     // text tables do not: the ballast panel moves, jerks and hits its stops.
     let rig = example_rig("ballast-panel");
     let html = stdout_of(&["report", &rig, "--units", "imperial", "-o", "-"]);
-    let start = html.find("<section id=\"motion\">").expect("a motion section");
+    let start = html
+        .find("<section id=\"motion\">")
+        .expect("a motion section");
     let end = start + html[start..].find("</section>").expect("its end");
     let section = &html[start..end];
     assert!(
@@ -409,13 +411,23 @@ fn watch_writes_its_check_and_report_in_the_units_asked() {
     std::fs::copy(example_rig("ballast-panel"), dir.join("rig.yaml")).expect("copy rig");
     let mut watch = crate::tools::Watching::start(
         &dir,
-        &["watch", "rig.yaml", "-o", "report.html", "--units", "imperial"],
+        &[
+            "watch",
+            "rig.yaml",
+            "-o",
+            "report.html",
+            "--units",
+            "imperial",
+        ],
     );
     let first = watch.until("watching rig.yaml");
     let html = std::fs::read_to_string(dir.join("report.html")).expect("report written");
     let (code, out, err) = watch.interrupt();
     assert_eq!(code, 0, "{out}\n{err}");
-    assert!(html.contains("<section id=\"motion\">"), "no motion section");
+    assert!(
+        html.contains("<section id=\"motion\">"),
+        "no motion section"
+    );
     assert!(html.contains("ft/s"), "{html:.300}");
     assert_only_imperial("watch report", &html);
     assert_only_imperial("watch check text", &first);

@@ -21,6 +21,9 @@ use crate::solve::kinematics::Motion;
 use crate::solve::statics::{ById, Problem};
 use crate::solve::{travel, Case, Quantity, Solution, SolveError, SolveOptions};
 
+/// A span's tension, N, with the span: `(tension, (line, index on the line))`.
+pub type SpanTension = (Real, (usize, usize));
+
 /// The figures at one position. Drive values in the drive's natural SI unit (N, kg or
 /// N·m); inertias in that unit per unit drive acceleration (m/s² or rad/s²).
 #[derive(Debug, Clone, Copy, PartialEq)]
@@ -62,9 +65,9 @@ pub struct Sample {
     /// `(line, index)`: below zero the rope would have to push (slack), and the figures
     /// of that case mean nothing (a negative tension times the friction ratio: negative
     /// friction, a reversed band).
-    pub least_forward: (Real, (usize, usize)),
+    pub least_forward: SpanTension,
     /// The same moving back.
-    pub least_back: (Real, (usize, usize)),
+    pub least_back: SpanTension,
 }
 
 /// The sampled travel.
@@ -322,7 +325,7 @@ fn largest(t: &ById<Vec<Real>>) -> (usize, usize, Real) {
 }
 
 /// The least span tension with its `(line, index)`.
-fn least(t: &ById<Vec<Real>>) -> (Real, (usize, usize)) {
+fn least(t: &ById<Vec<Real>>) -> SpanTension {
     t.entries()
         .flat_map(|(l, spans)| spans.iter().enumerate().map(move |(j, &v)| (v, (l, j))))
         .min_by(|a, b| a.0.total_cmp(&b.0))
@@ -489,7 +492,14 @@ pub fn build_told(
         let fastest = travel::part_velocities(rig, &first)
             .iter()
             .map(|(_, v)| v.norm())
-            .chain(first.kinematics.rope_speed.iter().flatten().map(|v| v.abs()))
+            .chain(
+                first
+                    .kinematics
+                    .rope_speed
+                    .iter()
+                    .flatten()
+                    .map(|v| v.abs()),
+            )
             .fold(0.0, Real::max);
         let reach = if fastest > 1e-12 {
             rope_drawn / fastest
