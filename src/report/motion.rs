@@ -331,7 +331,7 @@ fn warning_text(wn: &crate::solve::motion::Warning, o: &Others) -> String {
         }) => {
             let (ps, pu) = &o.position;
             format!(
-                "the rig moves by at most {} {pu} between stops ({dropped} stop(s) and restart(s) of less than {} {pu} left out of the events and stick-slip counts): below what the integrator resolves, as a very stiff rope or spring gives; the rig creeps or stays put there, and those stops are not stick-slip",
+                "the rig moves by at most {} {pu} between stops ({dropped} stop(s) and restart(s) of less than {} {pu} left out of the events and stick-slip counts): below the run's resolution, as a very stiff rope or spring gives; the rig creeps or stays put there, and those stops are not stick-slip",
                 number(Some(largest * ps), 3),
                 number(Some(resolution * ps), 3)
             )

@@ -432,3 +432,24 @@ fn watch_writes_its_check_and_report_in_the_units_asked() {
     assert_only_imperial("watch report", &html);
     assert_only_imperial("watch check text", &first);
 }
+
+#[test]
+fn motion_s_geometry_end_warnings_follow_units() {
+    // Guards the warnings of a run without `travel` (`geometry-end`, `open-end`): their
+    // positions, speeds and the rope drawn are figures, shown in the units asked.
+    let rig = example_rig("ramp-winch");
+    let text = stdout_of(&["motion", &rig, "--units", "imperial"]);
+    assert!(text.contains("[geometry-end]"), "{text}");
+    assert_only_imperial("motion geometry-end", &text);
+    let back = std::fs::read_to_string(&rig)
+        .expect("rig")
+        .replace("torque: 30,", "torque: 10,");
+    let ran = crate::support::run::reeve_on(&back, &["motion", "--units", "imperial"]);
+    assert!(ran.stdout.contains("[open-end]"), "{}", ran.stdout);
+    assert!(
+        ran.stdout.contains(" ft)"),
+        "the rope drawn in ft: {}",
+        ran.stdout
+    );
+    assert_only_imperial("motion open-end", &ran.stdout);
+}

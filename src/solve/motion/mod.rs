@@ -375,7 +375,7 @@ fn motion_inner(
         warnings.push(Warning {
             code: "unresolved-motion",
             message: format!(
-                "the rig moves by at most {largest:.3e} {unit} between stops ({dropped} stop(s) and restart(s) of less than {RESOLVED_MOTION:e} {unit} left out of the events and stick-slip counts): below what the integrator resolves, as a very stiff rope or spring gives; the rig creeps or stays put there, and those stops are not stick-slip"
+                "the rig moves by at most {largest:.3e} {unit} between stops ({dropped} stop(s) and restart(s) of less than {RESOLVED_MOTION:e} {unit} left out of the events and stick-slip counts): below the run's resolution, as a very stiff rope or spring gives; the rig creeps or stays put there, and those stops are not stick-slip"
             ),
             figures: Some(figures),
         });
