@@ -7,8 +7,11 @@
 pub mod changing;
 pub mod network;
 pub mod param;
+pub mod source;
+pub mod vary;
 
 pub use network::{Link, Network};
+pub use source::{LoadError, Problem, RigFile};
 
 use crate::math::{Direction, Point, Real};
 use crate::units::UnitSystem;
