@@ -3,14 +3,15 @@
 //! bearing upgrades and friction sensitivities ([`rank`]), and spread uncertain inputs
 //! by Monte Carlo ([`spread`]).
 //!
-//! Every study works on a [`RigSource`]: the rig file, behind the model's
-//! [`RigFile`] (implemented by `rig::RigText`, so that no study imports the file
-//! layer), and the `--set` overrides every run applies. A study changes a rig only through more overrides on the parsed
-//! tree (so a changed value gets the loader's checks), by setting model values where
-//! that gives the very rig the overrides give ([`ModelSampler`], [`local`]), or, for
-//! the stroke, by moving the resolved parts; none has physics of its own. A change of
-//! friction or load moves no part, so such a run keeps the rig's geometry and motion and
-//! solves only the sub-rigs it reaches ([`local`]). Results are plain structs that
+//! Every study works on a [`RigSource`]: the rig file, behind the model's [`RigFile`]
+//! (implemented by `rig::RigText`, so that no study imports the file layer), and the
+//! `--set` overrides every run applies. A study changes a rig only through more
+//! overrides on the parsed tree (so a changed value gets the loader's checks), by
+//! setting model values where that gives the very rig the overrides give
+//! ([`ModelSampler`], [`local`]), or, for the stroke, by moving the resolved parts; none
+//! has physics of its own. A change of friction or load moves no part, so such a run
+//! keeps the rig's geometry and motion and solves only the sub-rigs it reaches
+//! ([`local`]). Results are plain structs that
 //! serialize to JSON with units in the keys; [`crate::report::study`] writes them out
 //! as text, Markdown, CSV or JSON, and [`crate::report::chart`] draws their charts.
 //!
