@@ -72,6 +72,13 @@ impl Param {
     }
 }
 
+fn bearing(rig: &mut Rig, part: PartId) -> Option<&mut Bearing> {
+    match &mut rig.parts.get_mut(part)?.kind {
+        PartKind::Sheave(s) => Some(&mut s.bearing),
+        _ => None,
+    }
+}
+
 /// A file key resolved against a rig: the parameter and how a written value becomes SI.
 #[derive(Debug, Clone, PartialEq)]
 pub struct Resolved {
@@ -102,12 +109,5 @@ impl Resolved {
             Some(d) if self.unit.is_empty() => Some(value * rig.units.unit(d).si),
             Some(d) => parse_quantity(&format!("{value} {}", self.unit), d, rig.units.unit(d)).ok(),
         }
-    }
-}
-
-fn bearing(rig: &mut Rig, part: PartId) -> Option<&mut Bearing> {
-    match &mut rig.parts.get_mut(part)?.kind {
-        PartKind::Sheave(s) => Some(&mut s.bearing),
-        _ => None,
     }
 }
