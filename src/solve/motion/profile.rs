@@ -580,8 +580,8 @@ fn follow(
     let advance = |r: &Rig, s: &Solution, dx: Real| -> Result<(Rig, Solution), String> {
         let (mut r, mut s) = (r.clone(), s.clone());
         for _ in 0..2 {
-            let (r2, s2, closed) = travel::midpoint_step_closing(&r, &s, 0.5 * dx, solve)
-                .map_err(|e| crate::text::error_chain(&e))?;
+            let (r2, s2, closed) =
+                travel::midpoint_step_closing(&r, &s, 0.5 * dx, solve).map_err(|e| chain(&e))?;
             if let Some(c) = closed.or_else(|| travel::closed_span(&r2, &s, &s2)) {
                 let line = &r2.lines[c.line];
                 return Err(format!(
@@ -598,7 +598,7 @@ fn follow(
     };
     let at = |r: &Rig, s: &Solution, dx: Real, x: Real| {
         let (r2, s2) = advance(r, s, dx)?;
-        let sample = sample(&r2, &s2, x, options).map_err(|e| crate::text::error_chain(&e))?;
+        let sample = sample(&r2, &s2, x, options).map_err(|e| chain(&e))?;
         Ok::<_, String>((r2, s2, sample))
     };
     let n = intervals.max(1);
@@ -647,4 +647,19 @@ fn follow(
             reason: None,
         },
     )
+}
+
+/// An error and its sources, joined by `: ` (the words of a geometry end).
+fn chain(error: &dyn std::error::Error) -> String {
+    let mut words = error.to_string();
+    let mut source = error.source();
+    while let Some(e) = source {
+        let more = e.to_string();
+        if !words.ends_with(&more) {
+            words.push_str(": ");
+            words.push_str(&more);
+        }
+        source = e.source();
+    }
+    words
 }
