@@ -163,7 +163,7 @@ fn stroke_json(s: &Stroke) -> StrokeJson {
 /// included).
 fn effective_mass(m: &Motion) -> Real {
     let s = m.profile.at(0.0);
-    let own = if m.profile.drive_is_weight {
+    let own = if m.profile.drive_value_is_mass {
         m.drive_value.at(0.0)
     } else {
         0.0
@@ -502,7 +502,7 @@ pub fn write_text(
     writeln!(w, "Integrator: {}; {} steps.", tolerance(), m.run.steps)?;
     let (ks, ku) = o.spring;
     match m.two_dof {
-        Some(k) if m.profile.drive_is_weight => writeln!(w, "Two degrees of freedom: the drive weight and the rig joined by the rope's spring rate at the drive, {} {ku} (no rope damping: the weight keeps swinging).", n(k * ks))?,
+        Some(k) if m.profile.drive_value_is_mass => writeln!(w, "Two degrees of freedom: the drive weight and the rig joined by the rope's spring rate at the drive, {} {ku} (no rope damping: the weight keeps swinging).", n(k * ks))?,
         Some(k) if m.profile.drive_inertia > 0.0 => writeln!(w, "Two degrees of freedom: the drive drum's own inertia and the rig joined by the rope's spring rate at the drive, {} {ku} (no rope damping: the drum keeps swinging).", n(k * ks))?,
         Some(k) => writeln!(w, "Rope spring rate at the drive {} {ku}: the haul's end has no mass, so its stretch follows its force and the rig moves as with one degree of freedom; the strain energy joins the balance.", n(k * ks))?,
         None => writeln!(w, "One degree of freedom along the drive's motion.")?,

@@ -17,6 +17,7 @@ mod material_warnings;
 mod motion;
 mod motion_checks;
 mod motion_progress;
+mod motion_review;
 mod motion_travel;
 mod numerics;
 mod outputs;

@@ -332,7 +332,7 @@ impl Dynamics<'_> {
         } else {
             s.inertia_back
         };
-        let own = if self.profile.drive_is_weight {
+        let own = if self.profile.drive_value_is_mass {
             self.drive.at(t)
         } else {
             0.0
@@ -741,7 +741,7 @@ pub(super) fn mass_slope(profile: &Profile, drive: &DriveValue, t: Real, x: Real
 /// The frictionless effective mass at the drive, generalized (kg or kg·m²).
 pub(super) fn profile_mass_ideal(profile: &Profile, drive: &DriveValue, t: Real, x: Real) -> Real {
     let s = profile.at_t(t, x);
-    let own = if profile.drive_is_weight {
+    let own = if profile.drive_value_is_mass {
         drive.at(t)
     } else {
         0.0

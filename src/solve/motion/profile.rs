@@ -81,8 +81,10 @@ pub struct Profile {
     pub rotates: bool,
     /// The end stops `(back, forward)` as positions, when the rig gives `travel`.
     pub stops: Option<(Real, Real)>,
-    /// Whether the drive is a weight (its own mass is the drive value).
-    pub drive_is_weight: bool,
+    /// Whether the drive value is a mass that moves with the drive (a weight's mass, a
+    /// block's load mass): the integrator adds it, at its scheduled value, to the mass
+    /// the drive accelerates.
+    pub drive_value_is_mass: bool,
     /// The drive's own inertia when it is a drum (kg·m², its own and its lever's, part
     /// of every sample's `own_inertia`), else 0: the drive side of two degrees of freedom.
     pub drive_inertia: Real,
@@ -469,7 +471,7 @@ pub fn build_told(
         quantity: main.quantity,
         rotates,
         stops: None,
-        drive_is_weight: matches!(rig.parts[rig.drive].kind, PartKind::Weight(_)),
+        drive_value_is_mass: main.quantity == Quantity::Mass,
         drive_inertia: match rig.parts[rig.drive].kind {
             PartKind::Drum(_) => dof_inertia(rig, rig.drive, rope_d),
             _ => 0.0,
