@@ -54,3 +54,50 @@ fn a_drive_blocks_load_mass_is_part_of_the_mass_it_accelerates() {
     );
     assert!(m.run.energy.residual().abs() < 1e-9 * m.run.energy.drive);
 }
+
+/// A 3 kg block lifted over one plain-bearing sheave by a constant 25 N haul (less than
+/// the 3 kg needs); `LOAD` is the block's load.
+const HELD: &str = "format: 1
+units: {length: mm, force: N, mass: kg, torque: N*m}
+ropes: {cord: {diameter: 6, breaking_strength: 5 kN, mu: 0.1}}
+parts:
+  head: {kind: sheave, at: [0, 0, 2000], axle: [0, 1, 0], diameter: 60,
+         bearing: {kind: plain, pin_diameter: 20, mu: 0.2}}
+  lift: {kind: block, at: [-33, 0, 1000], moves: [0, 0, 1], load: {mass: LOAD}}
+  hand: {kind: haul, at: [33, 0, 800], force: 25 N}
+lines: {l: {rope: cord, path: [lift, head, hand]}}
+travel: {back: 0, forward: 300}
+";
+
+#[test]
+fn a_step_in_a_load_schedule_starts_the_rig_at_the_step() {
+    // Guards the schedules of parts other than the drive: a step (two points at one
+    // time) drops the load from 3 kg to 1 kg at 30 s, and 25 N lifts 1 kg (about 10 N
+    // and its friction). The statics was solved at 30 s with the value before the step
+    // and held after it, so the rig never moved; blending towards it would start it
+    // early. It must start at the step.
+    let m = run(&HELD.replace(
+        "LOAD",
+        "{schedule: [[0 s, 3 kg], [30 s, 3 kg], [30 s, 1 kg]]}",
+    ));
+    let start = m
+        .run
+        .events
+        .iter()
+        .find(|e| e.kind == EventKind::StartsForward)
+        .unwrap_or_else(|| panic!("never starts: {:?}", m.run.events));
+    assert!(
+        (start.t - 30.0).abs() < 1e-6,
+        "starts at {} s, not at the step at 30 s",
+        start.t
+    );
+    // A step at the schedule's first time: the value after it holds from just after 0 s
+    // (`check` takes the first point's).
+    let m = run(&HELD.replace("LOAD", "{schedule: [[0 s, 3 kg], [0 s, 1 kg]]}"));
+    let start = m.run.events.first().copied();
+    assert!(
+        start.is_some_and(|e| e.kind == EventKind::StartsForward && e.t < 1e-6),
+        "{:?}",
+        m.run.events
+    );
+}

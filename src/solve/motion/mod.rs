@@ -40,6 +40,10 @@ pub const MOST_ROPE_SWINGS: Real = 2e4;
 /// The most times of the other parts' schedules at which the statics is solved again.
 pub const MOST_SOLVED_TIMES: usize = 100;
 
+/// How long a step in another part's schedule takes in the solved figures, relative to
+/// its time (at least 1 s): the statics is solved at the step and this much after it.
+pub const STEP_WIDTH: Real = 1e-9;
+
 /// Settings of a motion run, with defaults.
 #[derive(Debug, Clone, Copy, PartialEq)]
 pub struct MotionOptions {
@@ -233,6 +237,29 @@ fn motion_inner(
             times.push(last);
         }
     }
+    let solved_times = times.len();
+    // A step (two points at one time) jumps there: the statics is solved at the value
+    // before it and again just after it, at whatever thinning, so that the figures
+    // jump at the step instead of being held at the value before (or blended towards
+    // the value after over the piece before).
+    let steps: Vec<Real> = others
+        .iter()
+        .flat_map(|(_, s)| {
+            s.points
+                .windows(2)
+                .filter(|w| w[0].0 == w[1].0)
+                .map(|w| w[0].0)
+                .collect::<Vec<_>>()
+        })
+        .collect();
+    for t in steps {
+        if t > 0.0 {
+            times.push(t);
+        }
+        times.push(t + STEP_WIDTH * t.abs().max(1.0));
+    }
+    times.sort_by(Real::total_cmp);
+    times.dedup_by(|a, b| (*a - *b).abs() <= 1e-12 * a.abs().max(1.0));
     progress.start((times.len() + 1) * profile::sample_count(&rig, options.intervals) + 1);
     let mut profile = build(&at_time(0.0))?;
     for &t in &times {
@@ -380,12 +407,11 @@ fn motion_inner(
             figures: Some(figures),
         });
     }
-    if all_times > times.len() {
+    if all_times > solved_times {
         warnings.push(Warning {
             code: "schedule-thinned",
             message: format!(
-                "the other parts' schedules have {all_times} times; the statics is solved at {} of them and interpolated linearly between",
-                times.len()
+                "the other parts' schedules have {all_times} times; the statics is solved at {solved_times} of them (and at each step) and interpolated linearly between"
             ),
             figures: None,
         });
