@@ -101,3 +101,21 @@ fn a_step_in_a_load_schedule_starts_the_rig_at_the_step() {
         m.run.events
     );
 }
+
+#[test]
+fn a_rig_with_no_moving_mass_is_refused() {
+    // Guards `motion` against a rig nothing of which has mass (a haul lifting a block's
+    // load force over a massless sheave): the mass at the drive was taken as 1e-12 kg,
+    // the run reached its sheave in 0.4 us at 5.6e6 m/s, and the energy balance missed
+    // 15.7 J of 26.3 J, all with exit 0. The equation of motion has no answer there.
+    let text = HELD.replace("load: {mass: LOAD}", "load: {force: 10 N}");
+    let out = crate::support::run::reeve_on(&text, &["motion"]);
+    assert_eq!(out.code, 2, "{}{}", out.stdout, out.stderr);
+    assert!(out.stderr.contains("no moving mass"), "{}", out.stderr);
+    // A mass anywhere that moves is enough: the block's own.
+    let out = crate::support::run::reeve_on(
+        &text.replace("load: {force: 10 N}", "mass: 0.5, load: {force: 10 N}"),
+        &["motion"],
+    );
+    assert_eq!(out.code, 0, "{}{}", out.stdout, out.stderr);
+}

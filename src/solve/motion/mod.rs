@@ -94,6 +94,10 @@ pub enum MotionError {
         /// Its tension, N (negative).
         tension: Real,
     },
+    /// Nothing that moves has mass: the equation of motion has no answer (any drive
+    /// outside the band would move the rig at once at any speed).
+    #[error("the rig has no moving mass: `motion` needs the mass of what moves (a block's or weight's `mass`, a load `mass`, a sheave's or drum's `mass` or `inertia`, a lever); give the parts their masses")]
+    NoMass,
     /// The rig cannot be solved somewhere on its travel.
     #[error(
         "at drive position {position} (m or rad from the drawn position) the rig cannot be solved"
@@ -280,6 +284,14 @@ fn motion_inner(
             span: j,
             tension,
         });
+    }
+    // Without mass the motion has no answer: refused, never run at a tiny stand-in mass.
+    let massless = |s: &profile::Sample| s.effective_mass + s.own_inertia <= 0.0;
+    if !profile.drive_value_is_mass
+        && profile.samples.iter().all(massless)
+        && profile.later.iter().all(|(_, s)| s.iter().all(massless))
+    {
+        return Err(MotionError::NoMass);
     }
     // The latest schedule end, the drive's or another part's.
     let last_end = others
