@@ -129,15 +129,23 @@ pub struct ClosedSpan {
 }
 
 /// The first span of the rig that closed up (length below 1e-9 of its length before)
-/// or turned round (its direction reversed) between `before` and `after`.
+/// or turned round (its direction reversed) between `before` and `after`, or whose
+/// parts moved by more than its length towards each other (a block rising through its
+/// sheave's tangent point: the new tangent lies on another branch, not short).
 pub fn closed_span(rig: &Rig, before: &Solution, after: &Solution) -> Option<ClosedSpan> {
     for l in 0..rig.lines.len() {
-        let (a, b) = (
-            &before.geometry.lines[l].spans,
-            &after.geometry.lines[l].spans,
-        );
-        for (j, (x, y)) in a.iter().zip(b).enumerate() {
-            if x.direction.dot(&y.direction) < 0.0 || y.length <= 1e-9 * x.length.max(1e-9) {
+        let (a, b) = (&before.geometry.lines[l], &after.geometry.lines[l]);
+        for (j, (x, y)) in a.spans.iter().zip(&b.spans).enumerate() {
+            // The length the parts' displacement leaves the span, to first order
+            // (`u · (Δc_end − Δc_start)`, exact for translating circles, DESIGN.md §2):
+            // at or below zero the span closed within the step, even where the tangent
+            // went over to another branch past the part and the new length is not small.
+            let moved = |e: usize| b.entries[e].centre - a.entries[e].centre;
+            let predicted = x.length + x.direction.dot(&(moved(j + 1) - moved(j)));
+            if x.direction.dot(&y.direction) < 0.0
+                || y.length <= 1e-9 * x.length.max(1e-9)
+                || predicted <= 0.0
+            {
                 return Some(ClosedSpan { line: l, span: j });
             }
         }

@@ -119,3 +119,40 @@ fn a_rig_with_no_moving_mass_is_refused() {
     );
     assert_eq!(out.code, 0, "{}{}", out.stdout, out.stderr);
 }
+
+#[test]
+fn a_block_rising_past_its_sheaves_side_ends_the_geometry_there() {
+    // Guards the end of the geometry where a rope flips to the other side of a part:
+    // the test winch's tray hangs plumb under the lead sheave's left edge, so it rises
+    // through the tangent point (no span closes to zero length between two steps, the
+    // tangent jumps to the other side). The run went on past it: the ratio reversed,
+    // the tray "ran back" at 46 rad under a constant 54 N*m, swung to -80 rad and ended
+    // with 2,615 J of 4,332 J missing from the energy balance, exit 0. The tray meets
+    // the sheave after rising 120 - 24 = 96 in on a drum of pitch radius 2.125 in:
+    // 45.2 rad (by hand, the drum's own span angle neglected).
+    let rig = reeve::rig::load_str(
+        &std::fs::read_to_string(crate::support::test_rig("imperial-winch.yaml")).expect("rig"),
+        "imperial-winch.yaml",
+    )
+    .expect("loads");
+    let m = motion(&rig, &MotionOptions::default()).expect("runs");
+    let kinds: Vec<_> = m.run.events.iter().map(|e| e.kind).collect();
+    assert_eq!(
+        kinds,
+        [EventKind::StartsForward, EventKind::Stops],
+        "{:?}",
+        m.run.events
+    );
+    let end = m.run.events[1].position;
+    assert!(
+        (end - 96.0 / 2.125).abs() < 0.02 * 96.0 / 2.125,
+        "ends at {end} rad"
+    );
+    assert!(
+        m.warnings.iter().any(|w| w.code == "geometry-end"),
+        "{:?}",
+        m.warnings
+    );
+    let e = m.run.energy;
+    assert!(e.residual().abs() < 1e-6 * e.drive.abs(), "{e:?}");
+}
