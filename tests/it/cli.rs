@@ -762,7 +762,7 @@ fn the_friction_at_the_drive_is_shown_beside_the_efficiency() {
     );
     assert_abs("friction back = ideal − back", fb, ideal - back, 1e-9);
     assert!(ff > 0.0 && fb > 0.0, "{v}");
-    // 165.4 − 109.4 = 55.95 N and 109.4 − 56.83 = 52.62 N (figures of the summary; the
+    // 165.4 − 109.4 = 55.98 N and 109.4 − 56.79 = 52.65 N (figures of the summary; the
     // line set's ropes have stiffness and weight since issue 11).
     let text = check_text(&["rigs/line-set.yaml"]);
     let row = text
