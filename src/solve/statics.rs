@@ -741,26 +741,29 @@ impl<'a> Problem<'a> {
 
     /// Whether any friction of the sub-rig depends on the tensions themselves.
     fn load_dependent(&self) -> bool {
-        self.parts.iter().enumerate().any(|(lp, &p)| match &self.rig.parts[p].kind {
-            PartKind::Sheave(s) => {
-                // The rope on its arc weighs on a journal as the sheave's own weight does.
-                Problem::sheave_load_dependent(s)
-                    || (self.arc_load[lp].norm() > 0.0
-                        && matches!(
+        self.parts
+            .iter()
+            .enumerate()
+            .any(|(lp, &p)| match &self.rig.parts[p].kind {
+                PartKind::Sheave(s) => {
+                    // The rope on its arc weighs on a journal as the sheave's own weight does.
+                    Problem::sheave_load_dependent(s)
+                        || (self.arc_load[lp].norm() > 0.0
+                            && matches!(
+                                bearing_resistance(&s.bearing, false),
+                                BearingResistance::FrictionCircle { .. }
+                            ))
+                }
+                PartKind::Drum(d) => {
+                    d.shaft.as_ref().is_some_and(|s| {
+                        !matches!(
                             bearing_resistance(&s.bearing, false),
-                            BearingResistance::FrictionCircle { .. }
-                        ))
-            }
-            PartKind::Drum(d) => {
-                d.shaft.as_ref().is_some_and(|s| {
-                    !matches!(
-                        bearing_resistance(&s.bearing, false),
-                        BearingResistance::Free
-                    )
-                }) || self.rope_bends_on_drums()
-            }
-            _ => false,
-        })
+                            BearingResistance::Free
+                        )
+                    }) || self.rope_bends_on_drums()
+                }
+                _ => false,
+            })
     }
 }
 

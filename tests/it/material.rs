@@ -403,7 +403,12 @@ fn the_rope_on_a_sheaves_arc_loads_its_pin() {
         assert!(pin.x.abs() < 1e-9 && pin.y.abs() < 1e-9, "{pin}");
     }
     // The arc's weight is carried by the pin, not by the spans: the haul is unchanged.
-    assert_rel("haul force", m.ideal.value, 100.0 + 8.0 * STANDARD_GRAVITY, 1e-9);
+    assert_rel(
+        "haul force",
+        m.ideal.value,
+        100.0 + 8.0 * STANDARD_GRAVITY,
+        1e-9,
+    );
     audit_ok(&s);
 
     // With a plain bearing the arc's weight is in the journal's load: with the weight's
@@ -412,7 +417,10 @@ fn the_rope_on_a_sheaves_arc_loads_its_pin() {
     // `T_t = (T_s·(R + r_f) + r_f·W_arc)/(R − r_f)`, r_f = 0.01 m·sin(atan 0.2).
     let text = std::fs::read_to_string(test_rig("material/head-sheave-weight.yaml"))
         .unwrap()
-        .replace("{kind: none}", "{kind: plain, pin_diameter: 20 mm, mu: 0.2}");
+        .replace(
+            "{kind: none}",
+            "{kind: plain, pin_diameter: 20 mm, mu: 0.2}",
+        );
     let (_, s) = solve_text(&text);
     let (r, r_f) = (0.053, 0.01 * 0.2_f64.atan().sin());
     let tight = (at_head * (r + r_f) + r_f * arc) / (r - r_f);

@@ -129,8 +129,7 @@ impl Problem<'_> {
                     }
                     BearingResistance::FrictionCircle { radius } => {
                         let k0 = friction::sheave_ratio(radius / r, wrap);
-                        let weight =
-                            gravity_force(self.rig, sheave.mass.unwrap_or(0.0)) + on_arc;
+                        let weight = gravity_force(self.rig, sheave.mass.unwrap_or(0.0)) + on_arc;
                         // The weightless ratio decides the stall only while there is no
                         // weight or no tension estimate yet: the sheave's own weight can
                         // lower the pin load (a sheave hanging in its falls), and then
