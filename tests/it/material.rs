@@ -467,3 +467,29 @@ lines:
     assert_rel("block sheave's pin load, up", pin.z, 2.0 * low - arc, 1e-9);
     audit_ok(&s);
 }
+
+/// Guards one name for one figure: `table --json` gave a span's end tension only as
+/// `tension_end_n.{case}`, while DESIGN.md §7 names it `tension_n.{case}_end` (as
+/// `check --json` writes it), so a script written against the contract found nothing
+/// in the table. Both are there now, with the same numbers; `tension_end_n` stays.
+#[test]
+fn table_json_gives_the_end_tension_under_the_contracts_name_too() {
+    let rig = test_rig("material/hanging-rope.yaml");
+    let check = json_of(&["check", &rig, "--json"]);
+    let table = json_of(&["table", &rig, "--json"]);
+    let (c, t) = (&check["spans"][0], &table["spans"][0]);
+    for case in ["ideal", "forward", "back"] {
+        let end = format!("{case}_end");
+        assert_eq!(t["tension_n"][&end], c["tension_n"][&end], "{t}");
+        assert_eq!(t["tension_n"][&end], t["tension_end_n"][case], "{t}");
+        assert!(t["tension_n"][&end].as_f64().is_some(), "{t}");
+    }
+    // The cases asked for, only.
+    let table = json_of(&["table", &rig, "--json", "--case", "forward"]);
+    let t = &table["spans"][0]["tension_n"];
+    assert!(t["forward_end"].as_f64().is_some() && t.get("ideal_end").is_none(), "{t}");
+    // A weightless rope's ends are one: no `_end` keys.
+    let table = json_of(&["table", &test_rig("one-sheave.yaml"), "--json"]);
+    let t = &table["spans"][0]["tension_n"];
+    assert!(t.get("forward_end").is_none() && t["forward"].as_f64().is_some(), "{t}");
+}
