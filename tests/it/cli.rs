@@ -1063,3 +1063,42 @@ fn a_long_line_shows_a_window_around_the_caret() {
         lines[2]
     );
 }
+
+/// Guards a clean verdict on a rope of unknown strength: a 6 mm rope holding a
+/// thousand tonnes read `Checks: no warnings.` and exited 0, because without a
+/// `breaking_strength` the safety factor is never checked and nothing said so.
+#[test]
+fn a_rope_without_a_breaking_strength_says_its_safety_factor_is_not_checked() {
+    let text = ONE_SHEAVE.replace("mass: 5}", "mass: 1000000}");
+    let out = reeve_on(&text, &["check"]).expect_code(0);
+    let (_, text_out, _) = out.parts();
+    assert!(
+        text_out.contains("[strength-unknown]")
+            && text_out.contains("rope `r`")
+            && text_out.contains("breaking_strength")
+            && text_out.contains("not checked")
+            && !text_out.contains("Checks: no warnings"),
+        "{text_out}"
+    );
+    // The largest tension it must hold is named, so the figure can be checked by hand
+    // (1000 t over the sheave: 10 089 514 N forward, in the file's newtons).
+    assert!(
+        text_out.contains("(largest tension 10089514 N)"),
+        "{text_out}"
+    );
+    let json = reeve_on(&text, &["check", "--json"]).expect_code(0).json();
+    let w: Vec<&serde_json::Value> = json["warnings"]
+        .as_array()
+        .unwrap()
+        .iter()
+        .filter(|w| w["code"] == "strength-unknown")
+        .collect();
+    assert_eq!(w.len(), 1, "one per rope: {json}");
+    // A rope that gives its strength has no such warning.
+    let text = ONE_SHEAVE.replace(
+        "{diameter: 6, mu: 0.2}",
+        "{diameter: 6, mu: 0.2, breaking_strength: 7 kN}",
+    );
+    let json = reeve_on(&text, &["check", "--json"]).expect_code(0).json();
+    assert!(json["warnings"].as_array().unwrap().is_empty(), "{json}");
+}

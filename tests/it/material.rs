@@ -487,9 +487,15 @@ fn table_json_gives_the_end_tension_under_the_contracts_name_too() {
     // The cases asked for, only.
     let table = json_of(&["table", &rig, "--json", "--case", "forward"]);
     let t = &table["spans"][0]["tension_n"];
-    assert!(t["forward_end"].as_f64().is_some() && t.get("ideal_end").is_none(), "{t}");
+    assert!(
+        t["forward_end"].as_f64().is_some() && t.get("ideal_end").is_none(),
+        "{t}"
+    );
     // A weightless rope's ends are one: no `_end` keys.
     let table = json_of(&["table", &test_rig("one-sheave.yaml"), "--json"]);
     let t = &table["spans"][0]["tension_n"];
-    assert!(t.get("forward_end").is_none() && t["forward"].as_f64().is_some(), "{t}");
+    assert!(
+        t.get("forward_end").is_none() && t["forward"].as_f64().is_some(),
+        "{t}"
+    );
 }
