@@ -437,15 +437,23 @@ fn strength_unknown_checks(rig: &Rig, sub: &SubRigSolution) -> Vec<Warning> {
     let mut out = Vec::new();
     for (rope, worst) in largest.into_iter().enumerate() {
         let Some(worst) = worst else { continue };
+        // A slack rope (every tension negative) has no largest tension to name.
+        let largest = if worst > 0.0 {
+            format!(
+                " (largest tension {})",
+                rig.units.show(worst, Dimension::Force)
+            )
+        } else {
+            String::new()
+        };
         out.push(warn(
             "strength-unknown",
             None,
             false,
             format!(
-                "rope `{}` gives no `breaking_strength`, so the safety factor of its spans is not checked against the design factor {} (largest tension {}); add the rope's rated strength",
+                "rope `{}` gives no `breaking_strength`, so the safety factor of its spans is not checked against the design factor {}{largest}; add the rope's rated strength",
                 rig.ropes[rope].name,
                 rig.limits.design_factor,
-                rig.units.show(worst, Dimension::Force)
             ),
         ));
     }

@@ -1102,3 +1102,24 @@ fn a_rope_without_a_breaking_strength_says_its_safety_factor_is_not_checked() {
     let json = reeve_on(&text, &["check", "--json"]).expect_code(0).json();
     assert!(json["warnings"].as_array().unwrap().is_empty(), "{json}");
 }
+
+/// Guards the wording of a slack rig's summary: with gravity pointing up the weight
+/// pushes its rope slack, `check` fails it (slack-span), but the efficiency lines said
+/// "please report this rig", as if the tool had erred, and the strength warning gave
+/// the "largest tension" as 0 N.
+#[test]
+fn a_slack_rig_says_why_it_has_no_efficiency() {
+    let (code, out, err) = reeve_on(ONE_SHEAVE, &["check", "--set", "gravity=[0, 0, 1]"]).parts();
+    assert_eq!(code, 1, "{out}{err}");
+    assert!(out.contains("[slack-span]"), "{out}");
+    assert!(
+        out.contains("No forward efficiency: the rope goes slack")
+            && !out.contains("please report"),
+        "{out}"
+    );
+    let strength = out
+        .lines()
+        .find(|l| l.contains("[strength-unknown]"))
+        .unwrap_or_else(|| panic!("{out}"));
+    assert!(!strength.contains("largest tension"), "{strength}");
+}
