@@ -1123,3 +1123,44 @@ fn a_slack_rig_says_why_it_has_no_efficiency() {
         .unwrap_or_else(|| panic!("{out}"));
     assert!(!strength.contains("largest tension"), "{strength}");
 }
+
+/// Guards `--set parts=~` typed at a shell: the shell turns `~` after `=` into the home
+/// folder, and the rig was told `parts` is `/home/...`, with an error about a mapping
+/// "found `/home/rigger`" that never named the shell. The override is refused with the
+/// fix: quote it.
+#[test]
+fn an_override_the_shell_turned_into_the_home_folder_says_to_quote_it() {
+    let out = std::process::Command::new(env!("CARGO_BIN_EXE_reeve"))
+        .args([
+            "check",
+            &test_rig("one-sheave.yaml"),
+            "--set",
+            "parts.s.mass=/home/rigger",
+        ])
+        .env("HOME", "/home/rigger")
+        .output()
+        .unwrap();
+    let err = String::from_utf8_lossy(&out.stderr);
+    assert_eq!(out.status.code(), Some(2), "{err}");
+    assert!(
+        err.contains("home folder") && err.contains("--set 'parts.s.mass=~'"),
+        "{err}"
+    );
+    // Another value is read as before.
+    let out = std::process::Command::new(env!("CARGO_BIN_EXE_reeve"))
+        .args([
+            "check",
+            &test_rig("one-sheave.yaml"),
+            "--set",
+            "parts.s.mass=1",
+        ])
+        .env("HOME", "/home/rigger")
+        .output()
+        .unwrap();
+    assert_eq!(
+        out.status.code(),
+        Some(0),
+        "{}",
+        String::from_utf8_lossy(&out.stderr)
+    );
+}
