@@ -65,9 +65,11 @@ pub fn rope_checks(rig: &Rig) -> Vec<Warning> {
                 None,
                 false,
                 format!(
-                    "rope `{name}`: `diameter` {} is {} than any rope (about 0.05 mm to 0.25 m); check the value and its unit (bare numbers are in the file's length unit, {})",
+                    "rope `{name}`: `diameter` {} is {} than any rope (about {} to {}); check the value and its unit (bare numbers are in the file's length unit, {})",
                     rig.units.show(rope.diameter, crate::units::Dimension::Length),
                     if rope.diameter > thickest { "thicker" } else { "thinner" },
+                    rig.units.show(thinnest, crate::units::Dimension::Length),
+                    rig.units.show(thickest, crate::units::Dimension::Length),
                     rig.units.length.symbol
                 ),
             ));
