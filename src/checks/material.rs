@@ -19,6 +19,10 @@
 //!   is well below its circle's (about 0.4 d² against 0.785 d² for 6x19 wire rope,
 //!   common practice), so the limits keep a 25 % margin for a measured diameter above
 //!   nominal.
+//! - A rope diameter outside [`ROPE_DIAMETER_RANGE`] (0.05 mm to 0.25 m): the finest
+//!   monofilament line is about 0.08 mm and the largest mooring hawsers about 0.2 m
+//!   (common practice); outside that the value is almost always written in the wrong
+//!   unit (`diameter: 6` in a metre file), and every figure that follows reads clean.
 //! - A span whose own weight pulls its ends more than [`SAG_SLOPE_LIMIT`] (0.2 rad,
 //!   about 11°) off the straight chord the statics keeps: with run `a`, weight `q` per
 //!   length and tension `T`, the parabolic cable leaves each end at `q·a/(2T)` to its
@@ -39,6 +43,8 @@ pub const STRAIN_LIMIT: Real = 0.10;
 pub const BEND_LOSS_LIMIT: Real = 0.2;
 /// End slope to the chord (rad) above which a span's sag is flagged.
 pub const SAG_SLOPE_LIMIT: Real = 0.2;
+/// Rope diameters, m, outside which no rope exists (see the module notes).
+pub const ROPE_DIAMETER_RANGE: (Real, Real) = (0.05e-3, 0.25);
 /// Density of steel, kg/m³ (handbook value, from memory).
 const STEEL_DENSITY: Real = 7850.0;
 /// Young's modulus of steel, Pa (handbook value, from memory).
@@ -46,12 +52,28 @@ const STEEL_MODULUS: Real = 210e9;
 /// Margin over a solid steel bar of the nominal diameter.
 const SOLID_MARGIN: Real = 1.25;
 
-/// Rope keys that describe no rope: a bend loss far above published figures, a rope
-/// heavier or stiffer than solid steel of its diameter.
+/// Rope keys that describe no rope: a diameter no rope has, a bend loss far above
+/// published figures, a rope heavier or stiffer than solid steel of its diameter.
 pub fn rope_checks(rig: &Rig) -> Vec<Warning> {
     let mut out = Vec::new();
     for rope in &rig.ropes {
         let name = &rope.name;
+        let (thinnest, thickest) = ROPE_DIAMETER_RANGE;
+        if rope.diameter < thinnest || rope.diameter > thickest {
+            out.push(warn(
+                "rope-diameter",
+                None,
+                false,
+                format!(
+                    "rope `{name}`: `diameter` {} is {} than any rope (about {} to {}); check the value and its unit (bare numbers are in the file's length unit, {})",
+                    rig.units.show(rope.diameter, crate::units::Dimension::Length),
+                    if rope.diameter > thickest { "thicker" } else { "thinner" },
+                    rig.units.show(thinnest, crate::units::Dimension::Length),
+                    rig.units.show(thickest, crate::units::Dimension::Length),
+                    rig.units.length.symbol
+                ),
+            ));
+        }
         if rope.bend_loss > BEND_LOSS_LIMIT {
             out.push(warn(
                 "bend-loss",

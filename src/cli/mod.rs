@@ -174,16 +174,31 @@ impl Failure {
 }
 
 /// `KEY=VALUE` pairs of `--set`.
+///
+/// A value that is the user's home folder (or a path in it) is refused: no rig key takes
+/// a path, and a shell turns an unquoted `KEY=~` (remove the key) into `KEY=$HOME`.
 pub fn parse_sets(sets: &[String]) -> Result<Vec<(String, String)>, Failure> {
+    let home = std::env::var("HOME")
+        .ok()
+        .filter(|h| h.starts_with('/') && h.len() > 1);
     sets.iter()
         .map(|s| {
-            s.split_once('=')
+            let (k, v) = s
+                .split_once('=')
                 .map(|(k, v)| (k.trim().to_string(), v.trim().to_string()))
                 .ok_or_else(|| {
                     Failure::Input(format!(
                         "--set `{s}`: expected KEY=VALUE, e.g. parts.head.bearing.mu=0.08"
                     ))
-                })
+                })?;
+            if let Some(home) = home.as_deref() {
+                if let Some(rest) = v.strip_prefix(home).filter(|r| r.is_empty() || r.starts_with('/')) {
+                    return Err(Failure::Input(format!(
+                        "--set `{s}`: the value is your home folder; the shell turns an unquoted `~` after `=` into it, so quote the override: --set '{k}=~{rest}'"
+                    )));
+                }
+            }
+            Ok((k, v))
         })
         .collect()
 }
