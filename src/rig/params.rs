@@ -4,6 +4,8 @@
 //! exactly as the loader converts it. Any other key (or one whose part does not hold
 //! that value) resolves to None: the study then applies it on the parsed file.
 
+use std::collections::HashMap;
+
 use crate::math::Real;
 use crate::model::param::Param;
 use crate::model::{Rig, RopeId};
@@ -33,9 +35,61 @@ impl Resolved {
 
 /// Resolves `key` (written with `unit`, empty for a bare number) against `rig`.
 pub fn resolve(rig: &Rig, key: &str, unit: &str) -> Option<Resolved> {
+    resolve_by(
+        key,
+        unit,
+        |name| rig.parts.iter().position(|p| p.name == name),
+        |name| rig.ropes.iter().position(|r| r.name == name),
+    )
+}
+
+/// The parts and ropes of a rig by name, for resolving many keys against it: one hash
+/// look-up a key where [`resolve`] scans every part (a `rank` of many parts resolves
+/// a key for each of their coefficients).
+#[derive(Debug, Clone)]
+pub struct Names<'a> {
+    parts: HashMap<&'a str, usize>,
+    ropes: HashMap<&'a str, usize>,
+}
+
+impl<'a> Names<'a> {
+    /// The names of `rig`'s parts and ropes (the first of a name where two share one,
+    /// as [`resolve`] finds it).
+    pub fn of(rig: &'a Rig) -> Names<'a> {
+        let index = |names: Vec<&'a str>| {
+            let mut map = HashMap::with_capacity(names.len());
+            for (i, name) in names.into_iter().enumerate() {
+                map.entry(name).or_insert(i);
+            }
+            map
+        };
+        Names {
+            parts: index(rig.parts.iter().map(|p| p.name.as_str()).collect()),
+            ropes: index(rig.ropes.iter().map(|r| r.name.as_str()).collect()),
+        }
+    }
+
+    /// [`resolve`] of `key` against the rig these names are of.
+    pub fn resolve(&self, key: &str, unit: &str) -> Option<Resolved> {
+        resolve_by(
+            key,
+            unit,
+            |name| self.parts.get(name).copied(),
+            |name| self.ropes.get(name).copied(),
+        )
+    }
+}
+
+/// [`resolve`] with the parts and ropes found by name through `part` and `rope`.
+fn resolve_by(
+    key: &str,
+    unit: &str,
+    part_named: impl Fn(&str) -> Option<usize>,
+    rope_named: impl Fn(&str) -> Option<usize>,
+) -> Option<Resolved> {
     let part = |suffix: &str| {
         let name = key.strip_prefix("parts.")?.strip_suffix(suffix)?;
-        rig.parts.iter().position(|p| p.name == name)
+        part_named(name)
     };
     let (param, dimension) = if let Some(p) = part(".bearing.factor") {
         (Param::RatedFactor(p), None)
@@ -47,7 +101,7 @@ pub fn resolve(rig: &Rig, key: &str, unit: &str) -> Option<Resolved> {
         (Param::LoadForce(p), Some(Dimension::Force))
     } else {
         let name = key.strip_prefix("ropes.")?.strip_suffix(".mu")?;
-        let r = rig.ropes.iter().position(|r| r.name == name)?;
+        let r = rope_named(name)?;
         (Param::RopeMu(RopeId::new(r)), None)
     };
     Some(Resolved {

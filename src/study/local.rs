@@ -65,6 +65,10 @@ pub struct Local<'a> {
     rig_warnings: Vec<Warning>,
     /// Each sub-rig's warnings.
     subrig_warnings: Vec<Vec<Warning>>,
+    /// The sub-rigs with any warning, in order: a run's verdict reads these and the
+    /// ones it solved again, not every sub-rig (which made a `rank` of many sub-rigs
+    /// quadratic).
+    warned: Vec<usize>,
     /// The rig as written, changed in place by a run and put back after it.
     work: Mutex<Rig>,
     /// Whether each kind of model change gives the file path's rig (absent: not yet
@@ -118,6 +122,9 @@ impl<'a> Local<'a> {
             subrig_of_part,
             subrigs_of_rope,
             rig_warnings: own.to_vec(),
+            warned: (0..subrig_warnings.len())
+                .filter(|&k| !subrig_warnings[k].is_empty())
+                .collect(),
             subrig_warnings,
             work: Mutex::new(rig.clone()),
             trusted: Mutex::new(HashMap::new()),
@@ -220,19 +227,15 @@ impl<'a> Local<'a> {
             .ok_or_else(|| StudyError::Input("the forward value is not finite".to_string()))?;
         let verdict = judge.then(|| {
             let available = given_quantity(rig, main.solve_for);
-            let checked: Vec<(usize, Vec<Warning>)> = again
+            let mut checked: Vec<(usize, Vec<Warning>)> = again
                 .iter()
                 .map(|(k, s)| (*k, checks::subrig_checks(rig, s)))
                 .collect();
-            let warnings =
-                self.rig_warnings
-                    .iter()
-                    .chain((0..self.solution.subrigs.len()).flat_map(|k| {
-                        checked
-                            .iter()
-                            .find(|(j, _)| *j == k)
-                            .map_or(&self.subrig_warnings[k], |(_, w)| w)
-                    }));
+            checked.sort_by_key(|(k, _)| *k);
+            let warnings = self
+                .rig_warnings
+                .iter()
+                .chain(self.in_order(&checked).into_iter().flatten());
             Verdict::from_warnings(
                 available.and_then(|a| main.margin(a)),
                 available.map(|a| main.outcome(a)).map(Outcome::succeeds),
@@ -244,6 +247,32 @@ impl<'a> Local<'a> {
 }
 
 impl Local<'_> {
+    /// Each sub-rig's warnings in the solution's order, `again` (sorted by sub-rig)
+    /// standing for the sub-rigs it holds, leaving out the sub-rigs without any: the
+    /// verdict reads the sub-rigs with a warning as written and the ones solved again,
+    /// not every sub-rig (which made a `rank` of many sub-rigs quadratic).
+    fn in_order<'s>(&'s self, again: &'s [(usize, Vec<Warning>)]) -> Vec<&'s [Warning]> {
+        let mut out = Vec::with_capacity(self.warned.len() + again.len());
+        let mut warned = self.warned.iter().copied().peekable();
+        let mut again = again.iter().peekable();
+        loop {
+            match (warned.peek().copied(), again.peek().map(|(k, _)| *k)) {
+                (Some(k), Some(j)) if j <= k => {
+                    out.extend(again.next().map(|(_, w)| w.as_slice()));
+                    if j == k {
+                        warned.next();
+                    }
+                }
+                (Some(k), _) => {
+                    out.push(self.subrig_warnings[k].as_slice());
+                    warned.next();
+                }
+                (None, Some(_)) => out.extend(again.next().map(|(_, w)| w.as_slice())),
+                (None, None) => return out,
+            }
+        }
+    }
+
     /// Every sub-rig of `rig` solved again, `rig` being the rig as written with other
     /// coefficients of friction or loads (a sample of a spread: no part moves), and
     /// `check`'s verdict of it.
@@ -303,7 +332,16 @@ pub fn set_key(
     key: &str,
     value: Real,
 ) -> Option<(&'static str, impl Fn(&mut Rig) -> Option<()>)> {
-    let resolved = params::resolve(rig, key, "")?;
+    set_resolved(rig, &params::resolve(rig, key, "")?, value)
+}
+
+/// [`set_key`] of a key already resolved against `rig` (by [`params::Names`], which
+/// finds a part without scanning them all).
+pub fn set_resolved(
+    rig: &Rig,
+    resolved: &params::Resolved,
+    value: Real,
+) -> Option<(&'static str, impl Fn(&mut Rig) -> Option<()>)> {
     let si = resolved.si(rig, value)?;
     let kind = match resolved.param {
         crate::model::param::Param::RatedFactor(_) => "bearing factor",

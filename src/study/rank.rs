@@ -24,6 +24,7 @@ use crate::model::Rig;
 use crate::model::{Bearing, PartKind};
 use crate::report::Asked;
 use crate::report::{finite, CAUTION};
+use crate::rig::params;
 use crate::units::UnitSystem;
 
 use super::local::{self, Edit, Local, Subject};
@@ -395,6 +396,8 @@ pub fn derivative(source: &RigSource, c: &Coefficient) -> Result<Real, StudyErro
 struct Runs<'a> {
     source: &'a RigSource,
     local: Option<Local<'a>>,
+    /// The rig's parts and ropes by name, for the coefficients' keys.
+    names: params::Names<'a>,
 }
 
 impl Runs<'_> {
@@ -442,7 +445,11 @@ impl Runs<'_> {
         let Some(l) = &self.local else {
             return forward_with(self.source, &settings);
         };
-        let o = match local::set_key(rig, key, value) {
+        let change = self
+            .names
+            .resolve(key, "")
+            .and_then(|resolved| local::set_resolved(rig, &resolved, value));
+        let o = match change {
             Some((kind, apply)) => {
                 let edit = Edit {
                     kind,
@@ -487,6 +494,7 @@ pub fn rank(
     let runs = Runs {
         source,
         local: Local::new(source, &rig, &solution),
+        names: params::Names::of(&rig),
     };
     let coefficients = coefficients_of(&rig, source);
     progress.start(rig.parts.len() + coefficients.len());
