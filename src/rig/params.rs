@@ -110,3 +110,44 @@ fn resolve_by(
         unit: unit.to_string(),
     })
 }
+
+#[cfg(test)]
+mod tests {
+    use super::*;
+    use crate::rig::load_str;
+
+    /// Guards the name index that `rank` resolves its keys through: for every part
+    /// and rope of a rig, each key form (and keys naming nothing) resolves as the
+    /// scanning [`resolve`] resolves it.
+    #[test]
+    fn names_resolve_as_the_scan_does() {
+        let text = include_str!("../../rigs/line-set.yaml");
+        let rig = load_str(text, "line-set.yaml").unwrap();
+        let names = Names::of(&rig);
+        let mut keys = vec![
+            "ropes.nobody.mu".to_string(),
+            "parts.nobody.bearing.mu".to_string(),
+            "parts..bearing.mu".to_string(),
+            "bearing.mu".to_string(),
+        ];
+        for p in &rig.parts {
+            for suffix in ["bearing.factor", "bearing.mu", "load.mass", "load.force", "mu"] {
+                keys.push(format!("parts.{}.{suffix}", p.name));
+            }
+        }
+        for r in &rig.ropes {
+            keys.push(format!("ropes.{}.mu", r.name));
+        }
+        let mut found = 0;
+        for key in &keys {
+            for unit in ["", "kg"] {
+                let scan = resolve(&rig, key, unit);
+                found += usize::from(scan.is_some());
+                assert_eq!(names.resolve(key, unit), scan, "{key} {unit}");
+            }
+        }
+        // Every part gives four key forms and every rope one (the part's own `mu` is
+        // not a model parameter): the check is not vacuous.
+        assert_eq!(found, 2 * (4 * rig.parts.len() + rig.ropes.len()));
+    }
+}
