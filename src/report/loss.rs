@@ -80,12 +80,7 @@ impl PartLoads {
     /// `forward_loss` that sub-rig's forward [`CaseResult::total_loss`], summed once per
     /// sub-rig by the caller (summing it here, once per part, made the report quadratic
     /// in the parts of a long chain).
-    pub fn of(
-        rig: &Rig,
-        sub: Option<&SubRigSolution>,
-        forward_loss: Real,
-        id: usize,
-    ) -> PartLoads {
+    pub fn of(rig: &Rig, sub: Option<&SubRigSolution>, forward_loss: Real, id: usize) -> PartLoads {
         let axle = match &rig.parts[id].kind {
             PartKind::Sheave(s) => Some(s.axle),
             PartKind::Guide(g) => Some(g.axle),

@@ -131,7 +131,13 @@ mod tests {
             "bearing.mu".to_string(),
         ];
         for p in &rig.parts {
-            for suffix in ["bearing.factor", "bearing.mu", "load.mass", "load.force", "mu"] {
+            for suffix in [
+                "bearing.factor",
+                "bearing.mu",
+                "load.mass",
+                "load.force",
+                "mu",
+            ] {
                 keys.push(format!("parts.{}.{suffix}", p.name));
             }
         }

@@ -413,11 +413,57 @@ mod tests {
         }
     }
 
+    /// Guards the verdict read from the sub-rigs with warnings and the ones solved
+    /// again (not every sub-rig): four tackles, the second and fourth with a sheave
+    /// that stalls (the fourth then cannot move: a failing check), so a run reaches a
+    /// sub-rig before, between, after or at the warned ones.
+    #[test]
+    fn local_verdicts_keep_the_other_sub_rigs_warnings_in_order() {
+        let tackle = |i: usize, lower_mu: &str, upper_mu: &str| {
+            let y = 500 * i;
+            format!(
+                "  t{i}.hook: {{kind: block, at: [0, {y}, 0], load: {{mass: 500}}}}\n  \
+                 t{i}.dead: {{kind: anchor, at: [-50, {y}, 3000]}}\n  \
+                 t{i}.lower: {{kind: sheave, block: t{i}.hook, at: [0, {y}, 0], axle: [0, 1, 0], \
+                 diameter: 92, bearing: {{kind: plain, {lower_mu}}}}}\n  \
+                 t{i}.upper: {{kind: sheave, at: [100, {y}, 3000], axle: [0, 1, 0], \
+                 diameter: 92, bearing: {{kind: plain, {upper_mu}}}}}\n  \
+                 t{i}.hand: {{kind: haul, at: [150, {y}, -500], force: 3000}}\n"
+            )
+        };
+        let (plain, stiff) = ("pin_diameter: 10, mu: 0.1", "pin_diameter: 80, mu: 0.9");
+        let mut text = "format: 1\nropes:\n  w: {diameter: 8, mu: 0.12}\nparts:\n".to_string();
+        text += &tackle(0, plain, plain);
+        text += &tackle(1, stiff, plain);
+        text += &tackle(2, plain, plain);
+        text += &tackle(3, plain, stiff);
+        text += "lines:\n";
+        for i in 0..4 {
+            text += &format!(
+                "  t{i}.fall: {{rope: w, path: [t{i}.dead, {{part: t{i}.lower, side: right}}, \
+                 {{part: t{i}.upper, side: left}}, t{i}.hand]}}\n"
+            );
+        }
+        text += "drive: t0.hand\n";
+        let source = RigSource::from_text(&text, "tackles.yaml", &[]);
+        let (rig, solution) = source.solve(&[]).unwrap();
+        let verdict = Verdict::assess(&rig, &solution);
+        assert_eq!(verdict.failing, ["cannot-move"]);
+        assert_eq!(verdict.stalled, ["t1.lower", "t3.upper"]);
+        local_runs_match_on("tackles.yaml", &text);
+    }
+
     fn local_runs_match(files: &[&str]) {
         for &path in files {
             let file = path.rsplit('/').next().unwrap_or(path);
             let text = std::fs::read_to_string(path).expect("test rig");
-            let source = RigSource::from_text(&text, file, &[]);
+            local_runs_match_on(file, &text);
+        }
+    }
+
+    fn local_runs_match_on(file: &str, text: &str) {
+        {
+            let source = RigSource::from_text(text, file, &[]);
             let (rig, solution) = source.solve(&[]).unwrap();
             let local = Local::new(&source, &rig, &solution).expect("check's order splits");
             let whole = |settings: &[(String, String)]| {
