@@ -4,34 +4,10 @@
 //! exactly as the loader converts it. Any other key (or one whose part does not hold
 //! that value) resolves to None: the study then applies it on the parsed file.
 
-use std::collections::HashMap;
-
-use crate::math::Real;
-use crate::model::param::Param;
-use crate::model::{Rig, RopeId};
-use crate::units::{parse_quantity, Dimension};
-
-/// A file key resolved against a rig: the parameter and how a written value becomes SI.
-#[derive(Debug, Clone, PartialEq)]
-pub struct Resolved {
-    /// The model value the key sets.
-    pub param: Param,
-    dimension: Option<Dimension>,
-    unit: String,
-}
-
-impl Resolved {
-    /// The SI value of `value` written in this key's unit (None when it does not read
-    /// as the loader would read it: the caller takes the file path).
-    pub fn si(&self, rig: &Rig, value: Real) -> Option<Real> {
-        match self.dimension {
-            None if self.unit.is_empty() => Some(value),
-            None => None,
-            Some(d) if self.unit.is_empty() => Some(value * rig.units.unit(d).si),
-            Some(d) => parse_quantity(&format!("{value} {}", self.unit), d, rig.units.unit(d)).ok(),
-        }
-    }
-}
+pub use crate::model::param::Resolved;
+use crate::model::param::{Names, Param};
+use crate::model::{PartId, Rig, RopeId};
+use crate::units::Dimension;
 
 /// Resolves `key` (written with `unit`, empty for a bare number) against `rig`.
 pub fn resolve(rig: &Rig, key: &str, unit: &str) -> Option<Resolved> {
@@ -39,53 +15,27 @@ pub fn resolve(rig: &Rig, key: &str, unit: &str) -> Option<Resolved> {
         key,
         unit,
         |name| rig.parts.iter().position(|p| p.name == name),
-        |name| rig.ropes.iter().position(|r| r.name == name),
+        |name| {
+            rig.ropes
+                .iter()
+                .position(|r| r.name == name)
+                .map(RopeId::new)
+        },
     )
 }
 
-/// The parts and ropes of a rig by name, for resolving many keys against it: one hash
-/// look-up a key where [`resolve`] scans every part (a `rank` of many parts resolves
-/// a key for each of their coefficients).
-#[derive(Debug, Clone)]
-pub struct Names<'a> {
-    parts: HashMap<&'a str, usize>,
-    ropes: HashMap<&'a str, usize>,
+/// [`resolve`] against the rig `names` are of, each name found by a hash look-up.
+pub fn resolve_in(names: &Names, key: &str, unit: &str) -> Option<Resolved> {
+    resolve_by(key, unit, |name| names.part(name), |name| names.rope(name))
 }
 
-impl<'a> Names<'a> {
-    /// The names of `rig`'s parts and ropes (the first of a name where two share one,
-    /// as [`resolve`] finds it).
-    pub fn of(rig: &'a Rig) -> Names<'a> {
-        let index = |names: Vec<&'a str>| {
-            let mut map = HashMap::with_capacity(names.len());
-            for (i, name) in names.into_iter().enumerate() {
-                map.entry(name).or_insert(i);
-            }
-            map
-        };
-        Names {
-            parts: index(rig.parts.iter().map(|p| p.name.as_str()).collect()),
-            ropes: index(rig.ropes.iter().map(|r| r.name.as_str()).collect()),
-        }
-    }
-
-    /// [`resolve`] of `key` against the rig these names are of.
-    pub fn resolve(&self, key: &str, unit: &str) -> Option<Resolved> {
-        resolve_by(
-            key,
-            unit,
-            |name| self.parts.get(name).copied(),
-            |name| self.ropes.get(name).copied(),
-        )
-    }
-}
-
-/// [`resolve`] with the parts and ropes found by name through `part` and `rope`.
+/// [`resolve`] with the parts and ropes found by name through `part_named` and
+/// `rope_named`.
 fn resolve_by(
     key: &str,
     unit: &str,
-    part_named: impl Fn(&str) -> Option<usize>,
-    rope_named: impl Fn(&str) -> Option<usize>,
+    part_named: impl Fn(&str) -> Option<PartId>,
+    rope_named: impl Fn(&str) -> Option<RopeId>,
 ) -> Option<Resolved> {
     let part = |suffix: &str| {
         let name = key.strip_prefix("parts.")?.strip_suffix(suffix)?;
@@ -101,14 +51,9 @@ fn resolve_by(
         (Param::LoadForce(p), Some(Dimension::Force))
     } else {
         let name = key.strip_prefix("ropes.")?.strip_suffix(".mu")?;
-        let r = rope_named(name)?;
-        (Param::RopeMu(RopeId::new(r)), None)
+        (Param::RopeMu(rope_named(name)?), None)
     };
-    Some(Resolved {
-        param,
-        dimension,
-        unit: unit.to_string(),
-    })
+    Some(Resolved::new(param, dimension, unit))
 }
 
 #[cfg(test)]
@@ -149,7 +94,7 @@ mod tests {
             for unit in ["", "kg"] {
                 let scan = resolve(&rig, key, unit);
                 found += usize::from(scan.is_some());
-                assert_eq!(names.resolve(key, unit), scan, "{key} {unit}");
+                assert_eq!(resolve_in(&names, key, unit), scan, "{key} {unit}");
             }
         }
         // Every part gives four key forms and every rope one (the part's own `mu` is

@@ -19,8 +19,8 @@ use std::sync::Mutex;
 
 use crate::checks::{self, Warning};
 use crate::math::Real;
+use crate::model::param::Resolved;
 use crate::model::{Bearing, PartKind, Rig};
-use crate::rig::params;
 use crate::solve::{self, given_quantity, Outcome, Solution, SolveOptions, SubRigSolution};
 
 use super::{RigSource, StudyError, Verdict};
@@ -325,21 +325,22 @@ pub fn frictionless_kind(rig: &Rig, part: usize) -> &'static str {
     }
 }
 
-/// The model change that sets `key` (a bare number) to `value`, if the model has it,
-/// and its kind.
+/// The model change that sets `key` (a bare number) to `value`, if the model has it
+/// (`source` resolves the key), and its kind.
 pub fn set_key(
+    source: &RigSource,
     rig: &Rig,
     key: &str,
     value: Real,
 ) -> Option<(&'static str, impl Fn(&mut Rig) -> Option<()>)> {
-    set_resolved(rig, &params::resolve(rig, key, "")?, value)
+    set_resolved(rig, &source.resolve(rig, key, "")?, value)
 }
 
-/// [`set_key`] of a key already resolved against `rig` (by [`params::Names`], which
-/// finds a part without scanning them all).
+/// [`set_key`] of a key already resolved against `rig` (by
+/// [`RigSource::resolve_in`], which finds a part without scanning them all).
 pub fn set_resolved(
     rig: &Rig,
-    resolved: &params::Resolved,
+    resolved: &Resolved,
     value: Real,
 ) -> Option<(&'static str, impl Fn(&mut Rig) -> Option<()>)> {
     let si = resolved.si(rig, value)?;
@@ -489,7 +490,7 @@ mod tests {
             for (r, rope) in rig.ropes.iter().enumerate() {
                 let key = format!("ropes.{}.mu", rope.name);
                 let settings = [(key.clone(), "0.3".to_string())];
-                let (kind, apply) = set_key(&rig, &key, 0.3).unwrap();
+                let (kind, apply) = set_key(&source, &rig, &key, 0.3).unwrap();
                 let edit = Edit {
                     kind,
                     apply: &apply,

@@ -20,11 +20,11 @@
 use serde::Serialize;
 
 use crate::math::Real;
+use crate::model::param::Names;
 use crate::model::Rig;
 use crate::model::{Bearing, PartKind};
 use crate::report::Asked;
 use crate::report::{finite, CAUTION};
-use crate::rig::params;
 use crate::units::UnitSystem;
 
 use super::local::{self, Edit, Local, Subject};
@@ -397,7 +397,7 @@ struct Runs<'a> {
     source: &'a RigSource,
     local: Option<Local<'a>>,
     /// The rig's parts and ropes by name, for the coefficients' keys.
-    names: params::Names<'a>,
+    names: Names<'a>,
 }
 
 impl Runs<'_> {
@@ -446,8 +446,8 @@ impl Runs<'_> {
             return forward_with(self.source, &settings);
         };
         let change = self
-            .names
-            .resolve(key, "")
+            .source
+            .resolve_in(&self.names, key, "")
             .and_then(|resolved| local::set_resolved(rig, &resolved, value));
         let o = match change {
             Some((kind, apply)) => {
@@ -494,7 +494,7 @@ pub fn rank(
     let runs = Runs {
         source,
         local: Local::new(source, &rig, &solution),
-        names: params::Names::of(&rig),
+        names: Names::of(&rig),
     };
     let coefficients = coefficients_of(&rig, source);
     progress.start(rig.parts.len() + coefficients.len());
