@@ -711,7 +711,12 @@ impl Report {
                 pin_load_direction_ideal: pin(Case::Ideal).and_then(|v| dir(&v)),
                 loss_share,
                 loss_of_input,
-                material: loss::PartLoads::of(rig, sub, id),
+                material: loss::PartLoads::of(
+                    rig,
+                    sub,
+                    owners.part[id].map_or(0.0, |k| forward_power[k].0),
+                    id,
+                ),
                 passages,
             });
             if let (PartKind::Drum(d), Some(s)) = (&part.kind, sub) {

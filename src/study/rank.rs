@@ -20,6 +20,7 @@
 use serde::Serialize;
 
 use crate::math::Real;
+use crate::model::param::Names;
 use crate::model::Rig;
 use crate::model::{Bearing, PartKind};
 use crate::report::Asked;
@@ -410,6 +411,8 @@ pub fn derivative(source: &RigSource, c: &Coefficient) -> Result<Real, StudyErro
 struct Runs<'a> {
     source: &'a RigSource,
     local: Option<Local<'a>>,
+    /// The rig's parts and ropes by name, for the coefficients' keys.
+    names: Names<'a>,
 }
 
 impl Runs<'_> {
@@ -457,7 +460,11 @@ impl Runs<'_> {
         let Some(l) = &self.local else {
             return forward_with(self.source, &settings);
         };
-        let o = match local::set_key(self.source, rig, key, value) {
+        let change = self
+            .source
+            .resolve_in(&self.names, key, "")
+            .and_then(|resolved| local::set_resolved(rig, &resolved, value));
+        let o = match change {
             Some((kind, apply)) => {
                 let edit = Edit {
                     kind,
@@ -502,6 +509,7 @@ pub fn rank(
     let runs = Runs {
         source,
         local: Local::new(source, &rig, &solution),
+        names: Names::of(&rig),
     };
     let coefficients = coefficients_of(&rig, source);
     progress.start(rig.parts.len() + coefficients.len());
