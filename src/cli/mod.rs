@@ -77,7 +77,7 @@ pub enum Command {
     Rank(studies::RankArgs),
     /// Monte Carlo spread over the values the rig gives as ranges.
     Spread(studies::SpreadArgs),
-    /// Run the rig in time from rest: events, strokes, time series (DESIGN.md §7).
+    /// Run the rig in time from rest: events, strokes, time series.
     Motion(motion::MotionArgs),
     /// Print a shell completion script (bash, zsh, fish, powershell).
     Completions(tools::CompletionsArgs),

@@ -73,6 +73,22 @@ fn the_manual_is_roff_and_names_every_subcommand() {
 }
 
 #[test]
+fn the_manual_cites_no_page_or_document_that_is_not_shipped() {
+    // Guards the one page against pointing at pages `reeve manual` never writes
+    // (`reeve-check(1)`, ...) and at design notes outside the package: each command
+    // is listed by its own name and described in its own section of this page.
+    let page = stdout_of(&["manual"]);
+    for command in subcommands() {
+        let cited = format!("reeve\\-{command}(1)");
+        assert!(!page.contains(&cited), "the manual cites {cited}");
+        let listed = format!("\\fBreeve {command}\\fR");
+        assert!(page.contains(&listed), "the command list lacks {listed}");
+    }
+    assert!(!page.contains("(1)"), "a page reference left in the manual");
+    assert!(!page.contains("DESIGN.md"), "the manual cites DESIGN.md");
+}
+
+#[test]
 fn the_manual_is_written_to_a_file() {
     let dir = Scratch::new("manual");
     let path = dir.join("reeve.1");
