@@ -374,6 +374,46 @@ fn new_never_writes_over_an_existing_file() {
     assert!(err.contains("tackle"), "{err}");
 }
 
+/// Guards `reeve new`'s write against a check-then-rename window: a file another
+/// process creates at the name while the template is being written is kept, the write
+/// fails with `AlreadyExists`, and no temporary file is left. (A rename, as
+/// `write_atomically` does for outputs, would replace it: the contrast is checked too.)
+#[test]
+fn a_new_file_is_never_written_over_one_that_appears_meanwhile() {
+    use reeve::report::file::{write_atomically, write_new};
+    use std::io::Write;
+    let dir = Scratch::new("new-race");
+    let path = dir.join("hoist.yaml");
+    let theirs = |w: &mut dyn Write| {
+        std::fs::write(&path, "theirs\n")?;
+        w.write_all(b"ours\n")
+    };
+    let e = write_new(&path, theirs).expect_err("a file appeared at the name");
+    assert_eq!(e.kind(), std::io::ErrorKind::AlreadyExists, "{e}");
+    assert_eq!(std::fs::read_to_string(&path).unwrap(), "theirs\n");
+    let left: Vec<_> = std::fs::read_dir(&*dir)
+        .unwrap()
+        .map(|e| e.unwrap().file_name().to_string_lossy().into_owned())
+        .collect();
+    assert_eq!(left, ["hoist.yaml"], "a temporary file is left");
+    // A dangling link is something at the name too.
+    #[cfg(unix)]
+    {
+        let link = dir.join("link.yaml");
+        std::os::unix::fs::symlink(dir.join("nowhere.yaml"), &link).unwrap();
+        let e = write_new(&link, |w| w.write_all(b"ours\n")).unwrap_err();
+        assert_eq!(e.kind(), std::io::ErrorKind::AlreadyExists, "{e}");
+        assert!(!dir.join("nowhere.yaml").exists());
+    }
+    // With nothing there it writes the whole text.
+    let fresh = dir.join("fresh.yaml");
+    write_new(&fresh, |w| w.write_all(b"ours\n")).unwrap();
+    assert_eq!(std::fs::read_to_string(&fresh).unwrap(), "ours\n");
+    // The rename of an ordinary output would have replaced the file that appeared.
+    write_atomically(&path, theirs).unwrap();
+    assert_eq!(std::fs::read_to_string(&path).unwrap(), "ours\n");
+}
+
 // ---- `reeve watch` (issue 13 item 6) ----
 
 /// A running `reeve watch`, its stdout read line by line on a thread.
