@@ -232,6 +232,10 @@ fn invalid_rigs_from_the_error_tests_fail_the_schema() {
         ("breaking_strength: 7.5 kN", "breaking_strength: 7.5 kg"),
         ("length: mm", "length: furlong"),
         ("diameter: 6,", "diameter: -6,"),
+        // A positive quantity written with its unit: zero is refused as the bare 0 is.
+        ("diameter: 6,", "diameter: \"0 mm\","),
+        ("breaking_strength: 7.5 kN", "breaking_strength: 0.0 kN"),
+        ("diameter: 6,", "diameter: -6 mm,"),
         ("pin_diameter: 10", "pin_diameter: 0"),
         ("mu: 0.12", "mu: -0.12"),
         (
