@@ -140,7 +140,7 @@ pub enum GeometryError {
         part: String,
     },
     /// The tangent iteration for a non-coplanar pair did not settle.
-    #[error("line `{line}`: the span from `{a}` to `{b}` did not converge ({iterations} iterations, last change {residual_shown})")]
+    #[error("line `{line}`: the span from `{a}` to `{b}` did not converge ({iterations} iterations, last change {residual:.3e} m)")]
     NotConverged {
         /// Line name.
         line: String,
@@ -150,11 +150,8 @@ pub enum GeometryError {
         b: String,
         /// Iterations used.
         iterations: usize,
-        /// Last change, m.
+        /// Last change.
         residual: Real,
-        /// `residual` as the message shows it, in the rig's length unit when the geometry
-        /// was computed (the shown units, under `--units`).
-        residual_shown: String,
     },
 }
 
@@ -450,7 +447,7 @@ fn line_geometry(
     let mut spans = Vec::with_capacity(count.saturating_sub(1));
     for i in 1..count {
         let tangent = common_tangent(&circles[i - 1], &circles[i], &tangent_options)
-            .map_err(|error| span_error(error, rig, &line.name, name(i - 1), name(i)))?;
+            .map_err(|error| span_error(error, &line.name, name(i - 1), name(i)))?;
         let offset = tangent.end - tangent.start;
         let length = offset.norm();
         if !exceeds(length, DEGENERATE * size) {
@@ -515,7 +512,7 @@ fn line_geometry(
 }
 
 /// Names a tangent failure with the rig's names.
-fn span_error(error: TangentError, rig: &Rig, line: &str, a: String, b: String) -> GeometryError {
+fn span_error(error: TangentError, line: &str, a: String, b: String) -> GeometryError {
     match error {
         TangentError::Coincident => GeometryError::Coincident {
             line: line.to_string(),
@@ -541,11 +538,6 @@ fn span_error(error: TangentError, rig: &Rig, line: &str, a: String, b: String) 
             b,
             iterations,
             residual,
-            residual_shown: format!(
-                "{:.3e} {}",
-                residual / rig.units.length.si,
-                rig.units.length.symbol
-            ),
         },
     }
 }
