@@ -421,7 +421,7 @@ fn a_new_file_is_never_written_over_one_that_appears_meanwhile() {
 // ---- `reeve watch` (issue 13 item 6) ----
 
 /// A running `reeve watch`, its stdout read line by line on a thread.
-struct Watching {
+pub(crate) struct Watching {
     child: std::process::Child,
     lines: std::sync::mpsc::Receiver<String>,
     stderr: std::thread::JoinHandle<String>,
@@ -429,7 +429,7 @@ struct Watching {
 }
 
 impl Watching {
-    fn start(dir: &std::path::Path, args: &[&str]) -> Watching {
+    pub(crate) fn start(dir: &std::path::Path, args: &[&str]) -> Watching {
         use std::io::BufRead;
         let mut child = std::process::Command::new(env!("CARGO_BIN_EXE_reeve"))
             .args(args)
@@ -469,7 +469,7 @@ impl Watching {
     /// The output up to and including the next line containing `needle` (a generous
     /// deadline against a hang, not a timing assertion).
     #[track_caller]
-    fn until(&mut self, needle: &str) -> String {
+    pub(crate) fn until(&mut self, needle: &str) -> String {
         let deadline = std::time::Instant::now() + std::time::Duration::from_secs(90);
         let mut round = String::new();
         loop {
@@ -493,7 +493,7 @@ impl Watching {
     }
 
     /// Sends SIGINT (Ctrl-C) and waits for the exit; (exit code, stderr).
-    fn interrupt(mut self) -> (i32, String, String) {
+    pub(crate) fn interrupt(mut self) -> (i32, String, String) {
         // SAFETY: a plain kill(2) on our own child's id.
         unsafe {
             libc::kill(self.child.id() as libc::pid_t, libc::SIGINT);
