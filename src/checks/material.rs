@@ -35,7 +35,7 @@ use super::{warn, Warning};
 use crate::math::Real;
 use crate::model::Rig;
 use crate::solve::Solution;
-use crate::units::significant;
+use crate::units::{show_in, significant, unit, Dimension};
 
 /// Strain (tension over EA) above which a span's stretch is flagged.
 pub const STRAIN_LIMIT: Real = 0.10;
@@ -92,16 +92,23 @@ pub fn rope_checks(rig: &Rig) -> Vec<Warning> {
         }
         if let Some(m) = rope.mass_per_length {
             let solid = STEEL_DENSITY * area;
+            // No `units` key names a mass per length (bare numbers are kg/m); shown in
+            // lb/ft where the masses are shown in pounds.
+            let per_length = if rig.units.mass.symbol == unit::LB.symbol {
+                unit::LB_PER_FT
+            } else {
+                unit::KG_PER_M
+            };
             if m > SOLID_MARGIN * solid {
                 out.push(warn(
                     "rope-weight",
                     None,
                     false,
                     format!(
-                        "rope `{name}`: `mass_per_length` {} kg/m is {} times a solid steel bar of its diameter ({} kg/m); no rope weighs that, so check the value and its unit",
-                        significant(m, 4),
+                        "rope `{name}`: `mass_per_length` {} is {} times a solid steel bar of its diameter ({}); no rope weighs that, so check the value and its unit",
+                        show_in(m, per_length),
                         significant(m / solid, 3),
-                        significant(solid, 3)
+                        show_in(solid, per_length)
                     ),
                 ));
             }
@@ -114,10 +121,10 @@ pub fn rope_checks(rig: &Rig) -> Vec<Warning> {
                     None,
                     false,
                     format!(
-                        "rope `{name}`: `stiffness` {} N is {} times the EA of a solid steel bar of its diameter ({} N); no rope is that stiff, so check the value and its unit (EA is a force: the tension that would double the length)",
-                        significant(ea, 4),
+                        "rope `{name}`: `stiffness` {} is {} times the EA of a solid steel bar of its diameter ({}); no rope is that stiff, so check the value and its unit (EA is a force: the tension that would double the length)",
+                        rig.units.show(ea, Dimension::Force),
                         significant(ea / solid, 3),
-                        significant(solid, 3)
+                        rig.units.show(solid, Dimension::Force)
                     ),
                 ));
             }

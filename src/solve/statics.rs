@@ -653,7 +653,7 @@ impl<'a> Problem<'a> {
                 };
                 return Err(SolveError::NoEquilibrium {
                     case: case.name(),
-                    residual,
+                    residual: residual / rhs_scale,
                     part,
                     hint,
                 });
