@@ -15,12 +15,13 @@
 //! made, and a kind that does not match (and any other change) takes the file path.
 
 use std::collections::HashMap;
-use std::sync::Mutex;
+use std::sync::{Arc, Mutex};
 
 use crate::checks::{self, Warning};
 use crate::math::Real;
 use crate::model::{Bearing, PartKind, Rig};
 use crate::rig::params;
+use crate::solve::statics::Layout;
 use crate::solve::{self, given_quantity, Outcome, Solution, SolveOptions, SubRigSolution};
 
 use super::{RigSource, StudyError, Verdict};
@@ -65,6 +66,9 @@ pub struct Local<'a> {
     rig_warnings: Vec<Warning>,
     /// Each sub-rig's warnings.
     subrig_warnings: Vec<Vec<Warning>>,
+    /// Each sub-rig's statics layout, shared by every run (friction and loads change
+    /// none of it).
+    layouts: Vec<Arc<Layout>>,
     /// The rig as written, changed in place by a run and put back after it.
     work: Mutex<Rig>,
     /// Whether each kind of model change gives the file path's rig (absent: not yet
@@ -119,6 +123,9 @@ impl<'a> Local<'a> {
             subrigs_of_rope,
             rig_warnings: own.to_vec(),
             subrig_warnings,
+            layouts: (0..solution.subrigs.len())
+                .map(|k| solve::layout_of(rig, solution, k))
+                .collect(),
             work: Mutex::new(rig.clone()),
             trusted: Mutex::new(HashMap::new()),
             static_parts: (0..rig.parts.len())
@@ -204,8 +211,15 @@ impl<'a> Local<'a> {
         let again: Vec<(usize, SubRigSolution)> = reached
             .iter()
             .map(|&k| {
-                solve::solve_again(rig, self.solution, k, breakaway, &options)
-                    .map(|s| (k, s))
+                solve::solve_again_on(
+                    rig,
+                    self.solution,
+                    k,
+                    breakaway,
+                    &options,
+                    Some(&self.layouts[k]),
+                )
+                .map(|s| (k, s))
                     .map_err(|e| self.source.solve_error(rig, e))
             })
             .collect::<Result<_, _>>()?;
@@ -255,8 +269,15 @@ impl Local<'_> {
         let breakaway = solve::has_static_friction(rig);
         let subs: Vec<SubRigSolution> = (0..self.solution.subrigs.len())
             .map(|k| {
-                solve::solve_again(rig, self.solution, k, breakaway, &options)
-                    .map_err(|e| self.source.solve_error(rig, e))
+                solve::solve_again_on(
+                    rig,
+                    self.solution,
+                    k,
+                    breakaway,
+                    &options,
+                    Some(&self.layouts[k]),
+                )
+                .map_err(|e| self.source.solve_error(rig, e))
             })
             .collect::<Result<_, _>>()?;
         let main = &subs[0];

@@ -303,10 +303,10 @@ impl Problem<'_> {
         lp: usize,
         tension: &'b [Vec<Real>],
     ) -> impl Iterator<Item = (Vector, crate::math::Point)> + 'b {
-        self.touches[self.touch_start[lp]..self.touch_start[lp + 1]]
+        self.layout.touches[self.layout.touch_start[lp]..self.layout.touch_start[lp + 1]]
             .iter()
             .map(move |&(li, j, at_end)| {
-                let span = &self.geometry.lines[self.lines[li]].spans[j];
+                let span = &self.geometry.lines[self.layout.lines[li]].spans[j];
                 let u = span.direction.into_inner();
                 let (on_start, on_end) = self.weight.end_forces(li, j, &u, tension[li][j]);
                 if at_end {
@@ -352,7 +352,7 @@ impl Problem<'_> {
             return 0.0;
         };
         let mut torque = 0.0;
-        for (li, &l) in self.lines.iter().enumerate() {
+        for (li, &l) in self.layout.lines.iter().enumerate() {
             let beta = self.rig.rope_of(l).bend_loss;
             let path = &self.rig.lines[l].path;
             if beta == 0.0 || path.len() < 3 {
@@ -373,7 +373,7 @@ impl Problem<'_> {
     /// Whether a rope with a bend loss passes round a drum of the sub-rig (then drum
     /// friction depends on the tensions and the statics iterate).
     pub(super) fn rope_bends_on_drums(&self) -> bool {
-        self.lines.iter().any(|&l| {
+        self.layout.lines.iter().any(|&l| {
             let path = &self.rig.lines[l].path;
             self.rig.rope_of(l).bend_loss > 0.0
                 && path.len() > 2
