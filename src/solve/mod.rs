@@ -16,7 +16,7 @@ pub mod statics;
 pub mod travel;
 pub mod walk;
 
-use std::sync::Arc;
+use std::borrow::Cow;
 
 use crate::geometry::{self, Geometry, GeometryOptions};
 use crate::math::{Real, Vector};
@@ -481,7 +481,7 @@ fn solve_subrig(
     solve_for: PartId,
     breakaway_case: bool,
     options: &SolveOptions,
-    layout: Option<&Arc<statics::Layout>>,
+    layout: Option<&statics::Layout>,
 ) -> Result<SubRigSolution, SolveError> {
     let Parts {
         network,
@@ -501,8 +501,8 @@ fn solve_subrig(
         });
     }
     let layout = match layout {
-        Some(layout) => Arc::clone(layout),
-        None => Arc::new(statics::Layout::new(rig, network, kinematics, c)),
+        Some(layout) => Cow::Borrowed(layout),
+        None => Cow::Owned(statics::Layout::new(rig, network, geometry, kinematics, c)),
     };
     let problem =
         statics::Problem::with_layout(rig, geometry, kinematics, layout, drive, solve_for)?;
@@ -586,13 +586,14 @@ pub fn solve_again(
 
 /// The statics layout of sub-rig `subrigs[k]` of `base` (`rig` the rig it solved):
 /// what [`solve_again_on`] shares between the rigs it solves.
-pub fn layout_of(rig: &Rig, base: &Solution, k: usize) -> Arc<statics::Layout> {
-    Arc::new(statics::Layout::new(
+pub fn layout_of(rig: &Rig, base: &Solution, k: usize) -> statics::Layout {
+    statics::Layout::new(
         rig,
         &base.network,
+        &base.geometry,
         &base.kinematics,
         base.subrigs[k].component,
-    ))
+    )
 }
 
 /// [`solve_again`] on the sub-rig's [`layout_of`] made once (None: made here): a study
@@ -607,7 +608,7 @@ pub fn solve_again_on(
     k: usize,
     breakaway_case: bool,
     options: &SolveOptions,
-    layout: Option<&Arc<statics::Layout>>,
+    layout: Option<&statics::Layout>,
 ) -> Result<SubRigSolution, SolveError> {
     let sub = &base.subrigs[k];
     let parts = Parts {

@@ -12,6 +12,7 @@
 //! weight in the pin load, drum journals) is settled by fixed-point iteration.
 
 use nalgebra::{DMatrix, DVector};
+use std::borrow::Cow;
 use std::sync::Arc;
 
 use petgraph::graph::NodeIndex;
@@ -103,23 +104,23 @@ pub struct Problem<'a> {
     drive: PartId,
     /// The sub-rig's dofs, lines, parts and how they meet: shared by every rig that
     /// differs from the one it was made for only in friction and loads.
-    layout: Arc<Layout>,
+    layout: Cow<'a, Layout>,
     /// Known generalized load forces (global dof index order of `dofs`).
     q_load: DVector<Real>,
     /// Unknown's generalized force per unit.
     x_coef: DVector<Real>,
-    /// The ropes' own weight on each span (zero for weightless ropes; DESIGN.md §7).
-    weight: RopeWeight,
-    /// The generalized load of the ropes' weight beyond the start tensions, per dof
-    /// (order of `dofs`).
-    rope_load: DVector<Real>,
 }
 
-/// What the statics of one sub-rig take from its graph, kinematics and reeving alone:
-/// its degrees of freedom, lines, segments and parts, and which spans touch which part.
+/// What the statics of one sub-rig take from its graph, kinematics, reeving and the
+/// ropes' own weight: its degrees of freedom, lines, segments and parts, which spans
+/// touch which part, and the ropes' weight on its spans.
 /// None of it depends on friction or loads, so a study that changes only those (a
 /// spread's sample) builds it once ([`Layout::new`]) and hands it to every
 /// [`Problem::with_layout`].
+///
+/// A clone copies the results' key slices too (`line_ids`, `part_ids`): each thread
+/// of a study works on its own clone, so the threads never touch one reference count
+/// (every case's results hold these keys).
 #[derive(Debug)]
 pub struct Layout {
     /// Global dof indices of the sub-rig, ascending.
@@ -147,6 +148,12 @@ pub struct Layout {
     /// `lines` and `parts` as the results' keys, shared by every case.
     line_ids: Arc<[usize]>,
     part_ids: Arc<[usize]>,
+    /// The ropes' own weight on each span (zero for weightless ropes; DESIGN.md §7):
+    /// the ropes' mass and the geometry fix it, not friction or loads.
+    weight: RopeWeight,
+    /// The generalized load of the ropes' weight beyond the start tensions, per dof
+    /// (order of `dofs`).
+    rope_load: DVector<Real>,
 }
 
 /// The parts a block carries, from the network's `Carried` edges (each stored as
@@ -185,10 +192,37 @@ fn gravity_force(rig: &Rig, mass: Real) -> Vector {
     rig.gravity.into_inner() * (mass * STANDARD_GRAVITY)
 }
 
+impl Clone for Layout {
+    fn clone(&self) -> Layout {
+        Layout {
+            dofs: self.dofs.clone(),
+            segs: self.segs.clone(),
+            seg_line: self.seg_line.clone(),
+            lines: self.lines.clone(),
+            parts: self.parts.clone(),
+            path_part: self.path_part.clone(),
+            dof_part: self.dof_part.clone(),
+            carried: self.carried.clone(),
+            touches: self.touches.clone(),
+            touch_start: self.touch_start.clone(),
+            line_ids: self.line_ids.as_ref().into(),
+            part_ids: self.part_ids.as_ref().into(),
+            weight: self.weight.clone(),
+            rope_load: self.rope_load.clone(),
+        }
+    }
+}
+
 impl Layout {
-    /// The layout of sub-rig `component` of `rig` (its graph `network`, its motion
-    /// `kin`).
-    pub fn new(rig: &Rig, network: &Network, kin: &Kinematics, component: usize) -> Layout {
+    /// The layout of sub-rig `component` of `rig` (its graph `network`, its geometry
+    /// and its motion `kin`).
+    pub fn new(
+        rig: &Rig,
+        network: &Network,
+        geometry: &Geometry,
+        kin: &Kinematics,
+        component: usize,
+    ) -> Layout {
         // The sub-rig's members (ascending) and their dofs (dofs are in part order).
         let dofs: Vec<usize> = network.components[component]
             .iter()
@@ -267,6 +301,8 @@ impl Layout {
             })
             .collect();
         let (line_ids, part_ids) = (lines.as_slice().into(), parts.as_slice().into());
+        let weight = RopeWeight::build(rig, geometry, &lines);
+        let rope_load = weight.generalized_load(rig, geometry, kin, &lines, &dofs);
         Layout {
             dofs,
             segs,
@@ -280,6 +316,8 @@ impl Layout {
             touch_start,
             line_ids,
             part_ids,
+            weight,
+            rope_load,
         }
     }
 }
@@ -298,13 +336,14 @@ impl<'a> Problem<'a> {
         drive: PartId,
         solve_for: PartId,
     ) -> Result<Problem<'a>, SolveError> {
-        let layout = Arc::new(Layout::new(rig, network, kin, component));
+        let layout = Cow::Owned(Layout::new(rig, network, geometry, kin, component));
         Problem::with_layout(rig, geometry, kin, layout, drive, solve_for)
     }
 
     /// [`Problem::new`] on a layout made for this sub-rig of `rig` or of a rig that
-    /// differs from `rig` only in friction and loads (the same parts, reeving, graph
-    /// and motion): the same problem, to the bit, without building the layout again.
+    /// differs from `rig` only in friction and loads (the same parts, reeving, graph,
+    /// motion and ropes): the same problem, to the bit, without building the layout
+    /// again.
     ///
     /// # Errors
     /// As [`Problem::new`].
@@ -312,16 +351,11 @@ impl<'a> Problem<'a> {
         rig: &'a Rig,
         geometry: &'a Geometry,
         kin: &'a Kinematics,
-        layout: Arc<Layout>,
+        layout: Cow<'a, Layout>,
         drive: PartId,
         solve_for: PartId,
     ) -> Result<Problem<'a>, SolveError> {
-        let Layout {
-            dofs,
-            lines,
-            carried,
-            ..
-        } = &*layout;
+        let Layout { dofs, carried, .. } = &*layout;
         let mut q_load = DVector::zeros(dofs.len());
         let mut x_coef = DVector::zeros(dofs.len());
         for (k, &i) in dofs.iter().enumerate() {
@@ -392,8 +426,6 @@ impl<'a> Problem<'a> {
             // Levers, springs and d'Alembert loads where the rig stands (DESIGN.md §7).
             q_load[k] += super::changing::dof_load(rig, part, fwd);
         }
-        let weight = RopeWeight::build(rig, geometry, lines);
-        let rope_load = weight.generalized_load(rig, geometry, kin, lines, dofs);
         Ok(Problem {
             rig,
             geometry,
@@ -403,8 +435,6 @@ impl<'a> Problem<'a> {
             layout,
             q_load,
             x_coef,
-            weight,
-            rope_load,
         })
     }
 
@@ -527,8 +557,8 @@ impl<'a> Problem<'a> {
                     // Into the passage at the previous span's end tension; out of it
                     // with the arc's rise (both zero for a weightless rope).
                     let (c, c0) = coef[li][e - 1];
-                    let c0 = c0 + self.weight.rise(li, e - 1);
-                    let next = (k * c, k * c0 + delta + self.weight.arc(li, e));
+                    let c0 = c0 + self.layout.weight.rise(li, e - 1);
+                    let next = (k * c, k * c0 + delta + self.layout.weight.arc(li, e));
                     if !(next.0.is_finite() && next.1.is_finite()) {
                         // Ratios in series that each hold but together overflow.
                         return Err(self.non_finite(
@@ -575,8 +605,14 @@ impl<'a> Problem<'a> {
             // equation, `(column, value)` in column order (the entries a dense matrix
             // would hold, summed in the same order).
             let mut rows: Vec<Vec<(usize, Real)>> = vec![Vec::new(); n];
-            let mut rhs = q.clone() + &self.rope_load;
-            for (col, (&g, &li)) in self.layout.segs.iter().zip(&self.layout.seg_line).enumerate() {
+            let mut rhs = q.clone() + &self.layout.rope_load;
+            for (col, (&g, &li)) in self
+                .layout
+                .segs
+                .iter()
+                .zip(&self.layout.seg_line)
+                .enumerate()
+            {
                 let seg = self.kin.segments[g];
                 let spans = &self.kin.span_rows[seg.line][seg.first..seg.last];
                 for (&(c, c0), row) in coef[li][seg.first..seg.last].iter().zip(spans) {
@@ -721,7 +757,13 @@ impl<'a> Problem<'a> {
                 .iter()
                 .map(|&l| vec![0.0; rig.lines[l].path.len().saturating_sub(1)])
                 .collect();
-            for (col, (&g, &li)) in self.layout.segs.iter().zip(&self.layout.seg_line).enumerate() {
+            for (col, (&g, &li)) in self
+                .layout
+                .segs
+                .iter()
+                .zip(&self.layout.seg_line)
+                .enumerate()
+            {
                 let seg = self.kin.segments[g];
                 for j in seg.first..seg.last {
                     let (c, c0) = coef[li][j];
@@ -799,18 +841,21 @@ impl<'a> Problem<'a> {
 
     /// Whether any friction of the sub-rig depends on the tensions themselves.
     fn load_dependent(&self) -> bool {
-        self.layout.parts.iter().any(|&p| match &self.rig.parts[p].kind {
-            PartKind::Sheave(s) => Problem::sheave_load_dependent(s),
-            PartKind::Drum(d) => {
-                d.shaft.as_ref().is_some_and(|s| {
-                    !matches!(
-                        bearing_resistance(&s.bearing, false),
-                        BearingResistance::Free
-                    )
-                }) || self.rope_bends_on_drums()
-            }
-            _ => false,
-        })
+        self.layout
+            .parts
+            .iter()
+            .any(|&p| match &self.rig.parts[p].kind {
+                PartKind::Sheave(s) => Problem::sheave_load_dependent(s),
+                PartKind::Drum(d) => {
+                    d.shaft.as_ref().is_some_and(|s| {
+                        !matches!(
+                            bearing_resistance(&s.bearing, false),
+                            BearingResistance::Free
+                        )
+                    }) || self.rope_bends_on_drums()
+                }
+                _ => false,
+            })
     }
 }
 

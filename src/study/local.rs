@@ -15,7 +15,7 @@
 //! made, and a kind that does not match (and any other change) takes the file path.
 
 use std::collections::HashMap;
-use std::sync::{Arc, Mutex};
+use std::sync::Mutex;
 
 use crate::checks::{self, Warning};
 use crate::math::Real;
@@ -68,7 +68,7 @@ pub struct Local<'a> {
     subrig_warnings: Vec<Vec<Warning>>,
     /// Each sub-rig's statics layout, shared by every run (friction and loads change
     /// none of it).
-    layouts: Vec<Arc<Layout>>,
+    layouts: Vec<Layout>,
     /// The rig as written, changed in place by a run and put back after it.
     work: Mutex<Rig>,
     /// Whether each kind of model change gives the file path's rig (absent: not yet
@@ -220,7 +220,7 @@ impl<'a> Local<'a> {
                     Some(&self.layouts[k]),
                 )
                 .map(|s| (k, s))
-                    .map_err(|e| self.source.solve_error(rig, e))
+                .map_err(|e| self.source.solve_error(rig, e))
             })
             .collect::<Result<_, _>>()?;
         let sub = |k: usize| {
@@ -265,6 +265,24 @@ impl Local<'_> {
     /// # Errors
     /// [`StudyError::Solve`] as the whole rig's solve would give it.
     pub fn solve_all(&self, rig: &Rig) -> Result<(Vec<SubRigSolution>, Verdict), StudyError> {
+        self.solve_all_on(rig, &self.layouts)
+    }
+
+    /// A copy of every sub-rig's statics layout for one thread of runs
+    /// ([`Local::solve_all_on`]): threads that share none write to no common memory.
+    pub fn layouts(&self) -> Vec<Layout> {
+        self.layouts.clone()
+    }
+
+    /// [`Local::solve_all`] on the sub-rigs' layouts `layouts` (from [`Local::layouts`]).
+    ///
+    /// # Errors
+    /// As [`Local::solve_all`].
+    pub fn solve_all_on(
+        &self,
+        rig: &Rig,
+        layouts: &[Layout],
+    ) -> Result<(Vec<SubRigSolution>, Verdict), StudyError> {
         let options = SolveOptions::default();
         let breakaway = solve::has_static_friction(rig);
         let subs: Vec<SubRigSolution> = (0..self.solution.subrigs.len())
@@ -275,7 +293,7 @@ impl Local<'_> {
                     k,
                     breakaway,
                     &options,
-                    Some(&self.layouts[k]),
+                    Some(&layouts[k]),
                 )
                 .map_err(|e| self.source.solve_error(rig, e))
             })

@@ -25,7 +25,7 @@ impl Problem<'_> {
             seg_line: &self.layout.seg_line,
             dofs: &self.layout.dofs,
             coef,
-            rise: &|l, j| self.weight.rise(l, j),
+            rise: &|l, j| self.layout.weight.rise(l, j),
         };
         match crate::solve::elastic::compatible_split(
             &input,
@@ -72,7 +72,9 @@ impl Problem<'_> {
             .iter()
             .position(|&i| self.kin.dofs[i].part == self.drive)?;
         let held: Vec<bool> = (0..self.layout.dofs.len())
-            .map(|k| self.q_load[k] != 0.0 || self.x_coef[k] != 0.0 || self.rope_load[k] != 0.0)
+            .map(|k| {
+                self.q_load[k] != 0.0 || self.x_coef[k] != 0.0 || self.layout.rope_load[k] != 0.0
+            })
             .collect();
         Some(crate::solve::elastic::SpringInput {
             rig: self.rig,

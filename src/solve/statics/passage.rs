@@ -108,7 +108,7 @@ impl Problem<'_> {
                 // The last tension estimate of the span before the passage, if any, at
                 // that span's end (the rope's weight makes its ends differ).
                 let before =
-                    previous.map(|p| (p[li][e - 1] + self.weight.rise(li, e - 1)).max(0.0));
+                    previous.map(|p| (p[li][e - 1] + self.layout.weight.rise(li, e - 1)).max(0.0));
                 if let Some(turning) =
                     self.sheave_3d(sheave, (line, e), s, capstan, before, breakaway)
                 {
@@ -308,7 +308,7 @@ impl Problem<'_> {
             .map(move |&(li, j, at_end)| {
                 let span = &self.geometry.lines[self.layout.lines[li]].spans[j];
                 let u = span.direction.into_inner();
-                let (on_start, on_end) = self.weight.end_forces(li, j, &u, tension[li][j]);
+                let (on_start, on_end) = self.layout.weight.end_forces(li, j, &u, tension[li][j]);
                 if at_end {
                     (on_end, span.end)
                 } else {

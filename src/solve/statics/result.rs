@@ -172,7 +172,7 @@ impl Problem<'_> {
                     let s = case.sign() * self.kin.rope_speed[l][e];
                     // The arc's rise is the rope's weight, not friction; what is left of
                     // it at round-off (a frictionless passage) is no loss.
-                    let friction = b - a - self.weight.arc(li, e);
+                    let friction = b - a - self.layout.weight.arc(li, e);
                     let lost = if friction.abs() > 1e-13 * (a.abs() + b.abs()) {
                         friction * s
                     } else {
@@ -246,7 +246,11 @@ impl Problem<'_> {
                     .contacts(lp, &tension)
                     .map(|(f, at)| (at - part.at).cross(&f).dot(&axle))
                     .sum();
-                let k = self.layout.dofs.iter().position(|&i| self.kin.dofs[i].part == id);
+                let k = self
+                    .layout
+                    .dofs
+                    .iter()
+                    .position(|&i| self.kin.dofs[i].part == id);
                 let speed = k.map(|k| velocity[k]).unwrap_or(0.0);
                 let dir = if speed < 0.0 { -1.0 } else { 1.0 };
                 let friction = k.map(|k| drum_friction[k]).unwrap_or_default();
@@ -282,7 +286,12 @@ impl Problem<'_> {
             case,
             value,
             tension: ById::new(nlines, self.layout.line_ids.clone(), tension, Vec::new()),
-            tension_end: ById::new(nlines, self.layout.line_ids.clone(), tension_end, Vec::new()),
+            tension_end: ById::new(
+                nlines,
+                self.layout.line_ids.clone(),
+                tension_end,
+                Vec::new(),
+            ),
             rope_power,
             ratio: ById::new(nlines, self.layout.line_ids.clone(), ratio, Vec::new()),
             loss: ById::new(nparts, self.layout.part_ids.clone(), loss, 0.0),
@@ -323,8 +332,8 @@ impl Problem<'_> {
                 t.iter()
                     .enumerate()
                     .map(|(j, t)| {
-                        if self.weight.per_length[l] > 0.0 {
-                            t + self.weight.rise(l, j)
+                        if self.layout.weight.per_length[l] > 0.0 {
+                            t + self.layout.weight.rise(l, j)
                         } else {
                             *t
                         }
@@ -341,8 +350,14 @@ impl Problem<'_> {
     /// speeds leaves the misfit, its last span's end. Zero, to round-off, for a rig
     /// whose motion is exact.
     fn misfit_power(&self, tension_end: &[Vec<Real>], velocity: &[Real]) -> Real {
-        let speed = |i: usize| self.layout.dofs.binary_search(&i).map_or(0.0, |k| velocity[k]);
-        self.layout.segs
+        let speed = |i: usize| {
+            self.layout
+                .dofs
+                .binary_search(&i)
+                .map_or(0.0, |k| velocity[k])
+        };
+        self.layout
+            .segs
             .iter()
             .zip(&self.layout.seg_line)
             .map(|(&g, &li)| {
@@ -358,10 +373,10 @@ impl Problem<'_> {
 
     /// Power into the ropes' potential energy per unit drive speed in this case, W.
     fn rope_power(&self, velocity: &[Real]) -> Real {
-        if !self.weight.any() {
+        if !self.layout.weight.any() {
             return 0.0;
         }
-        self.weight.potential_rate(
+        self.layout.weight.potential_rate(
             self.rig,
             self.geometry,
             self.kin,
