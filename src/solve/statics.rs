@@ -300,6 +300,12 @@ impl Layout {
                 }
             })
             .collect();
+        // The results' keys (`ById::keyed`), checked here once: ascending, each once,
+        // ids of the rig.
+        let keys_hold = |ids: &[usize], len: usize| {
+            ids.windows(2).all(|w| w[0] < w[1]) && ids.last().map_or(true, |&i| i < len)
+        };
+        assert!(keys_hold(&lines, rig.lines.len()) && keys_hold(&parts, rig.parts.len()));
         let (line_ids, part_ids) = (lines.as_slice().into(), parts.as_slice().into());
         let weight = RopeWeight::build(rig, geometry, &lines);
         let rope_load = weight.generalized_load(rig, geometry, kin, &lines, &dofs);
@@ -605,7 +611,7 @@ impl<'a> Problem<'a> {
             // equation, `(column, value)` in column order (the entries a dense matrix
             // would hold, summed in the same order).
             let mut rows: Vec<Vec<(usize, Real)>> = vec![Vec::new(); n];
-            let mut rhs = q.clone() + &self.layout.rope_load;
+            let mut rhs = q + &self.layout.rope_load;
             for (col, (&g, &li)) in self
                 .layout
                 .segs

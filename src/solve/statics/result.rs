@@ -285,20 +285,20 @@ impl Problem<'_> {
         CaseResult {
             case,
             value,
-            tension: ById::new(nlines, self.layout.line_ids.clone(), tension, Vec::new()),
-            tension_end: ById::new(
+            tension: ById::keyed(nlines, self.layout.line_ids.clone(), tension, Vec::new()),
+            tension_end: ById::keyed(
                 nlines,
                 self.layout.line_ids.clone(),
                 tension_end,
                 Vec::new(),
             ),
             rope_power,
-            ratio: ById::new(nlines, self.layout.line_ids.clone(), ratio, Vec::new()),
-            loss: ById::new(nparts, self.layout.part_ids.clone(), loss, 0.0),
-            load_power: ById::new(nparts, self.layout.part_ids.clone(), load_power, 0.0),
+            ratio: ById::keyed(nlines, self.layout.line_ids.clone(), ratio, Vec::new()),
+            loss: ById::keyed(nparts, self.layout.part_ids.clone(), loss, 0.0),
+            load_power: ById::keyed(nparts, self.layout.part_ids.clone(), load_power, 0.0),
             drive_power,
-            pin_load: ById::new(nparts, self.layout.part_ids.clone(), pin_load, None),
-            drums: ById::new(nparts, self.layout.part_ids.clone(), drums, None),
+            pin_load: ById::keyed(nparts, self.layout.part_ids.clone(), pin_load, None),
+            drums: ById::keyed(nparts, self.layout.part_ids.clone(), drums, None),
             stalled,
             slipping,
             slack,
@@ -308,7 +308,7 @@ impl Problem<'_> {
             audit_residual,
             losses: {
                 let [bearing, bending, surface, drum] =
-                    losses.map(|v| ById::new(nparts, self.layout.part_ids.clone(), v, 0.0));
+                    losses.map(|v| ById::keyed(nparts, self.layout.part_ids.clone(), v, 0.0));
                 Losses {
                     bearing,
                     bending,
