@@ -4,6 +4,7 @@
 
 mod support;
 
+mod architecture;
 mod cli;
 mod dxf;
 mod figures;
@@ -14,6 +15,7 @@ mod load_errors;
 mod material;
 mod material_warnings;
 mod motion;
+mod motion_checks;
 mod motion_progress;
 mod motion_travel;
 mod numerics;
