@@ -6,7 +6,7 @@
 use crate::math::Real;
 use crate::model::Rig;
 
-use super::integrate::{Event, EventKind, Run};
+use super::integrate::{Energy, Event, EventKind, Run};
 use super::profile::{Profile, SpanTension};
 use super::Stroke;
 
@@ -151,7 +151,43 @@ pub(super) fn warnings(
             });
         }
     }
+    if let Some(w) = energy_residual(&run.energy) {
+        out.push(w);
+    }
     out
+}
+
+/// The largest share of a run's energy that its audit may leave unaccounted for before
+/// the run is flagged: the integrator holds a run to about 1e-6 of the drive's work
+/// (the motion tests), so 1e-4 is far beyond round-off and step error.
+pub const ENERGY_RESIDUAL: Real = 1e-4;
+
+/// `energy-residual`: the run's energy audit (DESIGN.md §7) does not balance, so the
+/// run is not the motion of the rig as modelled (a review found parts that meet where
+/// the geometry does not see it, two sheaves' rims touching before their span closes).
+/// The residual is measured against the largest term of the audit, so a run whose drive
+/// does little work is judged by the energy that does move.
+fn energy_residual(e: &Energy) -> Option<Warning> {
+    let scale = [
+        e.drive,
+        e.loads,
+        e.friction,
+        e.impacts,
+        e.kinetic,
+        e.spring,
+        e.added_mass,
+    ]
+    .iter()
+    .fold(0.0, |m: Real, x| m.max(x.abs()));
+    let share = e.residual().abs() / scale;
+    (scale > 0.0 && share > ENERGY_RESIDUAL).then(|| Warning {
+        code: "energy-residual",
+        message: format!(
+            "the run's energy does not balance: {:.2} % of its largest energy term is unaccounted for (the integrator holds a run to about 1e-4 %); its figures are not the motion of the rig as modelled (parts may meet where the geometry does not see it, such as two sheaves' rims touching before their span closes): give `travel` inside the real end stops",
+            share * 100.0
+        ),
+        figures: None,
+    })
 }
 
 /// The warning of a run that ended where the geometry of a rig without `travel` ends
