@@ -25,6 +25,7 @@ mod properties;
 mod properties_bending;
 mod properties_material;
 mod published;
+mod ranges;
 mod rigs;
 mod rope_bending;
 mod studies;

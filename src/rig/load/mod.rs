@@ -35,13 +35,19 @@
 //!   1000. Magnitudes above 1e12 in SI are refused as certainly mistaken. A plain
 //!   bearing's pin or a rolling bearing's bore must be smaller than the sheave's tread
 //!   diameter or the drum's diameter it carries.
+//! - A value written as a range (`{min, max}`, `{mean, sd}`) must pass those checks at
+//!   both ends (a normal range at its mean; its `sd` is 0 or more), each problem located
+//!   where the range is written: other commands use its middle, and `spread` draws
+//!   across the whole of it.
 
 use std::path::Path;
 
 use crate::model::Rig;
 use crate::rig::error::{LoadError, Problem};
 use crate::rig::file::{parse_tree, Node, MAX_INPUT_BYTES};
-use crate::rig::overrides::{apply_overrides, read_variants, take_ranges, Uncertain, Variant};
+use crate::rig::overrides::{
+    apply_overrides, range_ends, read_variants, take_ranges, RangeEnd, Uncertain, Variant,
+};
 
 mod changing;
 mod key;
@@ -214,10 +220,18 @@ fn load_parsed_with(
         }]));
     };
     problems.extend(apply_overrides(&mut root, overrides));
+    let written = root.clone();
     // Ranges resolve to their nominal value here (see `overrides::take_ranges`).
-    problems.extend(take_ranges(&mut root).1);
+    let (ranged, range_problems) = take_ranges(&mut root);
+    problems.extend(range_problems);
     match resolve(&root, source) {
-        Ok(rig) if problems.is_empty() => Ok(rig),
+        Ok(rig) if problems.is_empty() => match range_end_problems(&written, &ranged, source) {
+            more if more.is_empty() => Ok(rig),
+            mut more => {
+                mark_override_problems(&mut more, overrides);
+                Err(fail(sorted(more)))
+            }
+        },
         Ok(_) => Err(fail(sorted(problems))),
         Err(more) => {
             let mut more = more;
@@ -226,6 +240,41 @@ fn load_parsed_with(
             Err(fail(sorted(problems)))
         }
     }
+}
+
+/// What the ends of the ranges break: the tree with every range at its low end, then at
+/// its high end (see [`RangeEnd`]), resolved with the checks of plain values, each
+/// problem saying which end it is about. Empty where there are no ranges, so that a
+/// rig without them (and every spread sample, which sets each ranged key to a number)
+/// is resolved once.
+fn range_end_problems(written: &Node, ranged: &[Uncertain], source: &str) -> Vec<Problem> {
+    if ranged.is_empty() {
+        return Vec::new();
+    }
+    let mut problems: Vec<Problem> = Vec::new();
+    for end in [RangeEnd::Low, RangeEnd::High] {
+        let mut tree = written.clone();
+        range_ends(&mut tree, end);
+        for mut p in resolve(&tree, source).err().unwrap_or_default() {
+            let range = ranged
+                .iter()
+                .find(|u| p.subject == u.key || p.subject.starts_with(&format!("{}.", u.key)));
+            p.message.push_str(&match range {
+                Some(u) => format!(
+                    " (at the range's `{}`: every value a range spans must be valid)",
+                    end.of(&u.distribution).1
+                ),
+                None => " (with every range at its ends)".to_string(),
+            });
+            if !problems
+                .iter()
+                .any(|q| q.subject == p.subject && q.message == p.message)
+            {
+                problems.push(p);
+            }
+        }
+    }
+    problems
 }
 
 /// The named variants of rig text (its `variants:` key), each a list of overrides.
