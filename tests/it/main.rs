@@ -18,6 +18,7 @@ mod motion;
 mod motion_checks;
 mod motion_progress;
 mod motion_travel;
+mod negative_values;
 mod numerics;
 mod outputs;
 mod pin_loads_3d;
