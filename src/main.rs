@@ -5,6 +5,12 @@ use clap::Parser;
 
 mod cli;
 
+/// mimalloc: the studies' solves allocate many small, short-lived vectors, which it
+/// serves several times faster than the system's allocator (benches/BASELINE.md, "After
+/// the lean sample path").
+#[global_allocator]
+static ALLOCATOR: mimalloc::MiMalloc = mimalloc::MiMalloc;
+
 fn main() {
     // A value starting with a minus (`--stroke "-500 mm"`) is joined to its option first.
     let argv = cli::args::join_negative_values(std::env::args_os());
