@@ -48,6 +48,23 @@ fn a_range_reaching_below_zero_friction_is_refused_where_it_is_written() {
             );
             assert!(out.stdout.is_empty(), "{command} {mu}: printed a report");
         }
+        // A study's runs (the parsed rig resolved again per step, the ends' verdict
+        // kept between runs that leave the ranges alone) refuse it too.
+        let out = Reeve::new([
+            "sweep",
+            "--vary",
+            "parts.counterweight.mass=6..7 kg",
+            "--steps",
+            "2",
+        ])
+        .rig_text(&text)
+        .run()
+        .expect_code(2);
+        assert!(
+            out.stderr.contains("parts.pulley.bearing.mu") && out.stdout.is_empty(),
+            "sweep {mu}: {}",
+            out.stderr
+        );
     }
 }
 

@@ -167,7 +167,7 @@ pub fn load_str_with(
     source: &str,
     overrides: &[(String, String)],
 ) -> Result<Rig, LoadError> {
-    load_parsed_with(&parse_tree(text), source, overrides)
+    load_parsed_with(&parse_tree(text), source, overrides, None)
 }
 
 /// Rig text parsed once into its tree, to be resolved many times with different
@@ -178,7 +178,13 @@ pub fn load_str_with(
 pub struct ParsedRig {
     tree: Result<(Option<Node>, Vec<Problem>), Vec<Problem>>,
     source: String,
+    /// What the ends of each set of ranges break (see [`range_end_problems`]), by the
+    /// ranges: a study's runs that leave the ranges alone check their ends once.
+    range_ends: RangeEndCache,
 }
+
+/// Range-end problems by the ranges they were found for (their `Debug` text).
+type RangeEndCache = std::sync::Arc<std::sync::Mutex<Vec<(String, Vec<Problem>)>>>;
 
 impl ParsedRig {
     /// Parses `text`; `source` names it in messages. Parse errors are kept and given
@@ -187,6 +193,7 @@ impl ParsedRig {
         ParsedRig {
             tree: parse_tree(text),
             source: source.to_string(),
+            range_ends: RangeEndCache::default(),
         }
     }
 
@@ -196,7 +203,7 @@ impl ParsedRig {
     /// # Errors
     /// A [`LoadError`] naming every problem found in the file and the overrides.
     pub fn load_with(&self, overrides: &[(String, String)]) -> Result<Rig, LoadError> {
-        load_parsed_with(&self.tree, &self.source, overrides)
+        load_parsed_with(&self.tree, &self.source, overrides, Some(&self.range_ends))
     }
 }
 
@@ -205,6 +212,7 @@ fn load_parsed_with(
     parsed: &Result<(Option<Node>, Vec<Problem>), Vec<Problem>>,
     source: &str,
     overrides: &[(String, String)],
+    cache: Option<&RangeEndCache>,
 ) -> Result<Rig, LoadError> {
     let fail = |problems: Vec<Problem>| LoadError {
         file: source.to_string(),
@@ -225,13 +233,15 @@ fn load_parsed_with(
     let (ranged, range_problems) = take_ranges(&mut root);
     problems.extend(range_problems);
     match resolve(&root, source) {
-        Ok(rig) if problems.is_empty() => match range_end_problems(&written, &ranged, source) {
-            more if more.is_empty() => Ok(rig),
-            mut more => {
-                mark_override_problems(&mut more, overrides);
-                Err(fail(sorted(more)))
+        Ok(rig) if problems.is_empty() => {
+            match cached_range_end_problems(&written, &ranged, source, cache) {
+                more if more.is_empty() => Ok(rig),
+                mut more => {
+                    mark_override_problems(&mut more, overrides);
+                    Err(fail(sorted(more)))
+                }
             }
-        },
+        }
         Ok(_) => Err(fail(sorted(problems))),
         Err(more) => {
             let mut more = more;
@@ -275,6 +285,35 @@ fn range_end_problems(written: &Node, ranged: &[Uncertain], source: &str) -> Vec
         }
     }
     problems
+}
+
+/// [`range_end_problems`], kept in `cache` by the ranges found: whether a range's ends
+/// pass depends only on the key, the numbers and the unit (the checks of a ranged key
+/// are its own domain), so runs whose overrides leave the ranges alone reuse it.
+fn cached_range_end_problems(
+    written: &Node,
+    ranged: &[Uncertain],
+    source: &str,
+    cache: Option<&RangeEndCache>,
+) -> Vec<Problem> {
+    let (Some(cache), false) = (cache, ranged.is_empty()) else {
+        return range_end_problems(written, ranged, source);
+    };
+    let key = format!("{ranged:?}");
+    let known = cache
+        .lock()
+        .ok()
+        .and_then(|c| c.iter().find(|(k, _)| *k == key).map(|(_, p)| p.clone()));
+    known.unwrap_or_else(|| {
+        let found = range_end_problems(written, ranged, source);
+        if let Ok(mut c) = cache.lock() {
+            // A handful of distinct range sets at most (the rig's, and those --set gives).
+            if c.len() < 16 {
+                c.push((key, found.clone()));
+            }
+        }
+        found
+    })
 }
 
 /// The named variants of rig text (its `variants:` key), each a list of overrides.
