@@ -7,6 +7,7 @@ use crate::model::{PartKind, Rig};
 use crate::solve::{Outcome, Solution, Status, SubRigSolution};
 use crate::units::Dimension;
 
+pub mod friction;
 pub mod material;
 
 /// Wraps below this are reported as the rope not touching the part (0.1°).
@@ -400,6 +401,7 @@ pub fn bearing_checks(rig: &Rig) -> Vec<Warning> {
 pub fn run(rig: &Rig, solution: &Solution) -> Vec<Warning> {
     let mut out = geometry_checks(rig, &solution.geometry);
     out.extend(bearing_checks(rig));
+    out.extend(friction::friction_checks(rig));
     out.extend(material::rope_checks(rig));
     out.extend(material::stretch_checks(rig, solution));
     out.extend(material::sag_checks(rig, solution));

@@ -12,7 +12,9 @@ mod cli;
 static ALLOCATOR: mimalloc::MiMalloc = mimalloc::MiMalloc;
 
 fn main() {
-    let args = match cli::Cli::try_parse() {
+    // A value starting with a minus (`--stroke "-500 mm"`) is joined to its option first.
+    let argv = cli::args::join_negative_values(std::env::args_os());
+    let args = match cli::Cli::try_parse_from(argv) {
         Ok(args) => args,
         Err(e) => {
             if !e.use_stderr() {

@@ -183,3 +183,85 @@ impl UnitsArg {
         (shown, (self.units != UnitChoice::File).then_some(shown))
     }
 }
+
+/// Options whose value may start with a minus sign: a stroke backward (`--stroke "-500
+/// mm"`), and the settings whose values may be negative (`--set`, `--vary`). Clap reads
+/// `-5…` after an option as a short flag unless the value is joined (`--stroke=-500
+/// mm`); [`join_negative_values`] joins it. `--stroke` takes an optional value, so
+/// clap's `allow_hyphen_values` would swallow the next flag (`--stroke --steps 4`).
+pub const NEGATIVE_VALUE_OPTIONS: &[&str] = &["--stroke", "--set", "--vary"];
+
+/// The command line with each option of [`NEGATIVE_VALUE_OPTIONS`] that is followed by
+/// a value starting with a minus and a digit or a point (`-500 mm`, `-.5`) joined to it
+/// (`--stroke=-500 mm`), so that clap takes the value as the option's. Flags (`-o`,
+/// `--steps`) are left alone, and so is everything after `--`.
+pub fn join_negative_values(
+    args: impl IntoIterator<Item = std::ffi::OsString>,
+) -> Vec<std::ffi::OsString> {
+    let negative = |a: &std::ffi::OsString| {
+        a.to_str().is_some_and(|s| {
+            let mut c = s.chars();
+            c.next() == Some('-') && c.next().is_some_and(|d| d.is_ascii_digit() || d == '.')
+        })
+    };
+    let mut out: Vec<std::ffi::OsString> = Vec::new();
+    let mut args = args.into_iter().peekable();
+    while let Some(a) = args.next() {
+        if a == "--" {
+            out.push(a);
+            out.extend(args);
+            break;
+        }
+        let option = a.to_str().filter(|s| NEGATIVE_VALUE_OPTIONS.contains(s));
+        match (option, args.peek()) {
+            (Some(option), Some(next)) if negative(next) => {
+                let mut joined = std::ffi::OsString::from(format!("{option}="));
+                joined.push(args.next().unwrap_or_default());
+                out.push(joined);
+            }
+            _ => out.push(a),
+        }
+    }
+    out
+}
+
+#[cfg(test)]
+mod tests {
+    use super::*;
+
+    fn joined(args: &[&str]) -> Vec<String> {
+        join_negative_values(args.iter().map(std::ffi::OsString::from))
+            .into_iter()
+            .map(|a| a.into_string().unwrap())
+            .collect()
+    }
+
+    #[test]
+    fn negative_values_are_joined_to_their_option_and_flags_are_not() {
+        assert_eq!(
+            joined(&["reeve", "sweep", "r.yaml", "--stroke", "-500 mm", "--steps", "3"]),
+            [
+                "reeve",
+                "sweep",
+                "r.yaml",
+                "--stroke=-500 mm",
+                "--steps",
+                "3"
+            ]
+        );
+        assert_eq!(joined(&["--stroke", "-.5"]), ["--stroke=-.5"]);
+        // An optional value left out: the next flag stays a flag.
+        assert_eq!(
+            joined(&["--stroke", "--steps", "3"]),
+            ["--stroke", "--steps", "3"]
+        );
+        assert_eq!(joined(&["--stroke", "-o", "x"]), ["--stroke", "-o", "x"]);
+        // Other options, and anything after `--`, are left as typed.
+        assert_eq!(joined(&["--steps", "-3"]), ["--steps", "-3"]);
+        assert_eq!(joined(&["--", "--stroke", "-5"]), ["--", "--stroke", "-5"]);
+        assert_eq!(
+            joined(&["--stroke", "-5", "--set", "-1"]),
+            ["--stroke=-5", "--set=-1"]
+        );
+    }
+}

@@ -269,12 +269,47 @@ fn number_and_unit(node: &Node) -> Option<(f64, String)> {
 /// records it, and replaces it in the tree by its nominal value, so that the rest of
 /// loading sees one number. The `variants` subtree is left alone.
 pub fn take_ranges(root: &mut Node) -> (Vec<Uncertain>, Vec<Problem>) {
+    take_ranges_at(root, Distribution::nominal)
+}
+
+/// Which end of every range [`range_ends`] puts in the tree.
+#[derive(Debug, Clone, Copy, PartialEq, Eq)]
+pub enum RangeEnd {
+    /// A uniform range's `min`, a normal one's `mean` (not clamped at zero).
+    Low,
+    /// A uniform range's `max`, a normal one's `mean`.
+    High,
+}
+
+impl RangeEnd {
+    /// The value of `d` at this end, and the range key it comes from.
+    pub fn of(self, d: &Distribution) -> (f64, &'static str) {
+        match (*d, self) {
+            (Distribution::Uniform { min, .. }, RangeEnd::Low) => (min, "min"),
+            (Distribution::Uniform { max, .. }, RangeEnd::High) => (max, "max"),
+            (Distribution::Normal { mean, .. }, _) => (mean, "mean"),
+        }
+    }
+}
+
+/// As [`take_ranges`], but replaces every range by its value at `end`, at the range's
+/// own location: resolving that tree checks the ends with exactly the checks a plain
+/// value of the key gets (a `{min: -0.1, max: 0.2}` friction coefficient is refused as
+/// `-0.1` would be), where the nominal value alone would hide them.
+pub fn range_ends(root: &mut Node, end: RangeEnd) -> Vec<Uncertain> {
+    take_ranges_at(root, |d| end.of(d).0).0
+}
+
+fn take_ranges_at(
+    root: &mut Node,
+    pick: impl Fn(&Distribution) -> f64 + Copy,
+) -> (Vec<Uncertain>, Vec<Problem>) {
     let mut found = Vec::new();
     let mut problems = Vec::new();
     if let Value::Map(entries) = &mut root.value {
         for e in entries.iter_mut().filter(|e| e.key != "variants") {
             let key = e.key.clone();
-            walk_ranges(&mut e.value, &key, &mut found, &mut problems);
+            walk_ranges(&mut e.value, &key, &mut found, &mut problems, pick);
         }
     }
     (found, problems)
@@ -285,6 +320,7 @@ fn walk_ranges(
     path: &str,
     found: &mut Vec<Uncertain>,
     problems: &mut Vec<Problem>,
+    pick: impl Fn(&Distribution) -> f64 + Copy,
 ) {
     match &mut node.value {
         Value::Map(entries) => {
@@ -298,7 +334,7 @@ fn walk_ranges(
                                     key: p.clone(),
                                     ..u.clone()
                                 }
-                                .setting(u.distribution.nominal());
+                                .setting(pick(&u.distribution));
                                 let location = e.value.location;
                                 e.value = Node {
                                     value: Value::Scalar { text, plain: true },
@@ -315,12 +351,12 @@ fn walk_ranges(
                         continue;
                     }
                 }
-                walk_ranges(&mut e.value, &p, found, problems);
+                walk_ranges(&mut e.value, &p, found, problems, pick);
             }
         }
         Value::Seq(items) => {
             for (i, item) in items.iter_mut().enumerate() {
-                walk_ranges(item, &format!("{path}.{i}"), found, problems);
+                walk_ranges(item, &format!("{path}.{i}"), found, problems, pick);
             }
         }
         Value::Scalar { .. } => {}

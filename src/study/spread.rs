@@ -250,9 +250,10 @@ pub struct Spread {
 }
 
 impl Spread {
-    /// Whether the nominal rig or any solved sample fails a check (exit 1).
+    /// Whether the nominal rig or any solved sample fails a check, or some sample could
+    /// not be solved (exit 1, as `check` would: the spread is incomplete).
     pub fn fails(&self) -> bool {
-        self.nominal_verdict.fails || self.share_failing.is_some_and(|x| x > 0.0)
+        self.nominal_verdict.fails || self.share_failing.is_some_and(|x| x > 0.0) || self.failed > 0
     }
 }
 

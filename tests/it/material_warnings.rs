@@ -1,7 +1,8 @@
 //! Guards that rope-as-material values which load fine but mean nothing (a stretch
 //! longer than the span, a bend loss of half the tension, a rope denser or stiffer than
 //! solid steel) are flagged by a warning instead of printed clean (issue 11, "never
-//! silently wrong"), and that ordinary values stay quiet.
+//! silently wrong"), as are friction coefficients far above any bearing's or rope's,
+//! and that ordinary values stay quiet.
 
 use reeve::checks::Warning;
 
@@ -230,5 +231,54 @@ fn a_rope_diameter_no_rope_has_is_flagged() {
         let (rig, s) = solve_text(&text(d));
         let w = reeve::checks::run(&rig, &s);
         assert!(w.iter().all(|w| w.code != "rope-diameter"), "{d}: {w:?}");
+    }
+}
+
+#[test]
+fn a_friction_coefficient_far_above_any_bearing_is_flagged_not_failed() {
+    // `mu: 50` for 0.5 on the head's plain bearing: it loads (it is 0 or more) and
+    // solves, so only a warning stands between it and a clean report. The bound (1 for
+    // sliding, 0.05 for rolling) and its basis are in `reeve::checks::friction`.
+    let text = HOIST.replace(", ROPE_KEYS", "").replace(
+        "pin_diameter: \"20 mm\", mu: 0.1",
+        "pin_diameter: \"20 mm\", mu: 50",
+    );
+    let out = crate::support::run::Reeve::new(["check", "--json"])
+        .rig_text(&text)
+        .run()
+        .expect_code(0);
+    let json = out.json();
+    let warnings = json["warnings"].as_array().expect("warnings");
+    let w = warnings
+        .iter()
+        .find(|w| w["code"] == "implausible-mu")
+        .unwrap_or_else(|| panic!("no implausible-mu warning: {json}"));
+    assert_eq!(w["part"], "head", "{w}");
+    assert!(
+        w["message"]
+            .as_str()
+            .is_some_and(|m| m.contains("`parts.head.bearing.mu` 50.0")),
+        "{w}"
+    );
+    // The probe rig as written (mu 0.1, rope 0.2) stays quiet.
+    let (rig, s) = solve_text(&HOIST.replace(", ROPE_KEYS", ""));
+    let codes: Vec<_> = reeve::checks::run(&rig, &s)
+        .iter()
+        .map(|w| w.code)
+        .collect();
+    assert!(!codes.contains(&"implausible-mu"), "{codes:?}");
+}
+
+#[test]
+fn no_bundled_rig_has_an_implausible_friction_coefficient() {
+    // The bound must not trip on the rigs shipped to users (their goldens stay as they
+    // are).
+    for entry in std::fs::read_dir(format!("{}/rigs", crate::support::ROOT)).expect("rigs/") {
+        let path = entry.expect("entry").path();
+        if path.extension().is_some_and(|e| e == "yaml") {
+            let rig = reeve::rig::load_file(&path).unwrap_or_else(|e| panic!("{e}"));
+            let flagged = reeve::checks::friction::friction_checks(&rig);
+            assert!(flagged.is_empty(), "{}: {flagged:?}", path.display());
+        }
     }
 }

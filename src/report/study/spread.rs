@@ -90,6 +90,12 @@ pub fn write(w: &mut dyn Write, s: &Spread, format: Format) -> io::Result<()> {
         "{} samples, seed {}; {} could not be solved.",
         s.samples, s.seed, s.failed
     )];
+    if s.failed > 0 {
+        notes.push(format!(
+            "{} of {} samples could not be solved: the spread is incomplete, and exits 1 as a failing check does.",
+            s.failed, s.samples
+        ));
+    }
     for i in &s.inputs {
         let u = if i.unit.is_empty() {
             String::new()

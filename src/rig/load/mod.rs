@@ -35,13 +35,19 @@
 //!   1000. Magnitudes above 1e12 in SI are refused as certainly mistaken. A plain
 //!   bearing's pin or a rolling bearing's bore must be smaller than the sheave's tread
 //!   diameter or the drum's diameter it carries.
+//! - A value written as a range (`{min, max}`, `{mean, sd}`) must pass those checks at
+//!   both ends (a normal range at its mean; its `sd` is 0 or more), each problem located
+//!   where the range is written: other commands use its middle, and `spread` draws
+//!   across the whole of it.
 
 use std::path::Path;
 
 use crate::model::Rig;
 use crate::rig::error::{LoadError, Problem};
 use crate::rig::file::{parse_tree, Node, MAX_INPUT_BYTES};
-use crate::rig::overrides::{apply_overrides, read_variants, take_ranges, Uncertain, Variant};
+use crate::rig::overrides::{
+    apply_overrides, range_ends, read_variants, take_ranges, RangeEnd, Uncertain, Variant,
+};
 
 mod changing;
 mod key;
@@ -161,7 +167,7 @@ pub fn load_str_with(
     source: &str,
     overrides: &[(String, String)],
 ) -> Result<Rig, LoadError> {
-    load_parsed_with(&parse_tree(text), source, overrides)
+    load_parsed_with(&parse_tree(text), source, overrides, None)
 }
 
 /// Rig text parsed once into its tree, to be resolved many times with different
@@ -172,7 +178,13 @@ pub fn load_str_with(
 pub struct ParsedRig {
     tree: Result<(Option<Node>, Vec<Problem>), Vec<Problem>>,
     source: String,
+    /// What the ends of each set of ranges break (see [`range_end_problems`]), by the
+    /// ranges: a study's runs that leave the ranges alone check their ends once.
+    range_ends: RangeEndCache,
 }
+
+/// Range-end problems by the ranges they were found for (their `Debug` text).
+type RangeEndCache = std::sync::Arc<std::sync::Mutex<Vec<(String, Vec<Problem>)>>>;
 
 impl ParsedRig {
     /// Parses `text`; `source` names it in messages. Parse errors are kept and given
@@ -181,6 +193,7 @@ impl ParsedRig {
         ParsedRig {
             tree: parse_tree(text),
             source: source.to_string(),
+            range_ends: RangeEndCache::default(),
         }
     }
 
@@ -190,7 +203,7 @@ impl ParsedRig {
     /// # Errors
     /// A [`LoadError`] naming every problem found in the file and the overrides.
     pub fn load_with(&self, overrides: &[(String, String)]) -> Result<Rig, LoadError> {
-        load_parsed_with(&self.tree, &self.source, overrides)
+        load_parsed_with(&self.tree, &self.source, overrides, Some(&self.range_ends))
     }
 }
 
@@ -199,6 +212,7 @@ fn load_parsed_with(
     parsed: &Result<(Option<Node>, Vec<Problem>), Vec<Problem>>,
     source: &str,
     overrides: &[(String, String)],
+    cache: Option<&RangeEndCache>,
 ) -> Result<Rig, LoadError> {
     let fail = |problems: Vec<Problem>| LoadError {
         file: source.to_string(),
@@ -214,10 +228,20 @@ fn load_parsed_with(
         }]));
     };
     problems.extend(apply_overrides(&mut root, overrides));
+    let written = root.clone();
     // Ranges resolve to their nominal value here (see `overrides::take_ranges`).
-    problems.extend(take_ranges(&mut root).1);
+    let (ranged, range_problems) = take_ranges(&mut root);
+    problems.extend(range_problems);
     match resolve(&root, source) {
-        Ok(rig) if problems.is_empty() => Ok(rig),
+        Ok(rig) if problems.is_empty() => {
+            match cached_range_end_problems(&written, &ranged, source, cache) {
+                more if more.is_empty() => Ok(rig),
+                mut more => {
+                    mark_override_problems(&mut more, overrides);
+                    Err(fail(sorted(more)))
+                }
+            }
+        }
         Ok(_) => Err(fail(sorted(problems))),
         Err(more) => {
             let mut more = more;
@@ -226,6 +250,70 @@ fn load_parsed_with(
             Err(fail(sorted(problems)))
         }
     }
+}
+
+/// What the ends of the ranges break: the tree with every range at its low end, then at
+/// its high end (see [`RangeEnd`]), resolved with the checks of plain values, each
+/// problem saying which end it is about. Empty where there are no ranges, so that a
+/// rig without them (and every spread sample, which sets each ranged key to a number)
+/// is resolved once.
+fn range_end_problems(written: &Node, ranged: &[Uncertain], source: &str) -> Vec<Problem> {
+    if ranged.is_empty() {
+        return Vec::new();
+    }
+    let mut problems: Vec<Problem> = Vec::new();
+    for end in [RangeEnd::Low, RangeEnd::High] {
+        let mut tree = written.clone();
+        range_ends(&mut tree, end);
+        for mut p in resolve(&tree, source).err().unwrap_or_default() {
+            let range = ranged
+                .iter()
+                .find(|u| p.subject == u.key || p.subject.starts_with(&format!("{}.", u.key)));
+            p.message.push_str(&match range {
+                Some(u) => format!(
+                    " (at the range's `{}`: every value a range spans must be valid)",
+                    end.of(&u.distribution).1
+                ),
+                None => " (with every range at its ends)".to_string(),
+            });
+            if !problems
+                .iter()
+                .any(|q| q.subject == p.subject && q.message == p.message)
+            {
+                problems.push(p);
+            }
+        }
+    }
+    problems
+}
+
+/// [`range_end_problems`], kept in `cache` by the ranges found: whether a range's ends
+/// pass depends only on the key, the numbers and the unit (the checks of a ranged key
+/// are its own domain), so runs whose overrides leave the ranges alone reuse it.
+fn cached_range_end_problems(
+    written: &Node,
+    ranged: &[Uncertain],
+    source: &str,
+    cache: Option<&RangeEndCache>,
+) -> Vec<Problem> {
+    let (Some(cache), false) = (cache, ranged.is_empty()) else {
+        return range_end_problems(written, ranged, source);
+    };
+    let key = format!("{ranged:?}");
+    let known = cache
+        .lock()
+        .ok()
+        .and_then(|c| c.iter().find(|(k, _)| *k == key).map(|(_, p)| p.clone()));
+    known.unwrap_or_else(|| {
+        let found = range_end_problems(written, ranged, source);
+        if let Ok(mut c) = cache.lock() {
+            // A handful of distinct range sets at most (the rig's, and those --set gives).
+            if c.len() < 16 {
+                c.push((key, found.clone()));
+            }
+        }
+        found
+    })
 }
 
 /// The named variants of rig text (its `variants:` key), each a list of overrides.
