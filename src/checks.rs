@@ -119,7 +119,7 @@ fn and_list(items: &[String]) -> String {
 pub fn geometry_checks(rig: &Rig, geometry: &crate::geometry::Geometry) -> Vec<Warning> {
     let mut out = Vec::new();
     let limit = rig.limits.fleet_angle;
-    for (l, line) in rig.lines.iter().enumerate() {
+    for (l, line) in rig.lines.enumerate() {
         let rope = rig.rope_of(l);
         let n = line.path.len();
         for (e, entry) in geometry.lines[l].entries.iter().enumerate() {
@@ -208,7 +208,7 @@ pub fn geometry_checks(rig: &Rig, geometry: &crate::geometry::Geometry) -> Vec<W
 /// drawn hanging from the drum's other edge does. A stated `side` is never questioned.
 pub fn drum_side_checks(rig: &Rig, geometry: &crate::geometry::Geometry) -> Vec<Warning> {
     let mut out = Vec::new();
-    for (l, line) in rig.lines.iter().enumerate() {
+    for (l, line) in rig.lines.enumerate() {
         let g = &geometry.lines[l];
         let n = line.path.len();
         if g.spans.is_empty() {
@@ -316,7 +316,7 @@ pub const PULL_OFF_ROPE: Real = 5.0 * std::f64::consts::PI / 180.0;
 /// on a rope), so say so and give the rope's tension.
 pub fn pull_checks(rig: &Rig, solution: &Solution) -> Vec<Warning> {
     let mut out = Vec::new();
-    for (l, line) in rig.lines.iter().enumerate() {
+    for (l, line) in rig.lines.enumerate() {
         let spans = &solution.geometry.lines[l].spans;
         let n = line.path.len();
         let ends = [

@@ -8,6 +8,7 @@
 //! drum, right-handed about its axle); `solve::travel` advances them as it moves the rig.
 
 use crate::math::{Real, Vector, STANDARD_GRAVITY};
+use crate::model::PartId;
 
 /// The end stops: how far the drive may move back and forward from the drawn position
 /// (m for a translating drive, rad for a drum). Both non-negative.
@@ -133,7 +134,7 @@ pub struct Changing {
 
 impl Changing {
     /// The part's data, or the empty default.
-    pub fn of(&self, part: usize) -> &PartChanging {
+    pub fn of(&self, part: PartId) -> &PartChanging {
         const NONE: PartChanging = PartChanging {
             lever: None,
             spring: None,
@@ -142,15 +143,16 @@ impl Changing {
             offset: 0.0,
             extra_load: 0.0,
         };
-        self.parts.get(part).unwrap_or(&NONE)
+        self.parts.get(part.index()).unwrap_or(&NONE)
     }
 
     /// The part's data for changing it (grows the list as needed).
-    pub fn of_mut(&mut self, part: usize) -> &mut PartChanging {
-        if self.parts.len() <= part {
-            self.parts.resize(part + 1, PartChanging::default());
+    pub fn of_mut(&mut self, part: PartId) -> &mut PartChanging {
+        let k = part.index();
+        if self.parts.len() <= k {
+            self.parts.resize(k + 1, PartChanging::default());
         }
-        &mut self.parts[part]
+        &mut self.parts[k]
     }
 
     /// Whether any quantity is given as a schedule.

@@ -53,7 +53,7 @@ impl Param {
                 Bearing::Plain { mu, .. } | Bearing::Rolling { mu, .. } => *mu = value,
                 _ => return None,
             },
-            Param::RopeMu(r) => rig.ropes.get_mut(r.index())?.mu = value,
+            Param::RopeMu(r) => rig.ropes.get_mut(r)?.mu = value,
             Param::LoadMass(p) | Param::LoadForce(p) => {
                 let PartKind::Block(block) = &mut rig.parts.get_mut(p)?.kind else {
                     return None;

@@ -7,7 +7,7 @@ use serde::Serialize;
 
 use super::{finite, ForwardBack, PerCase, Report};
 use crate::math::{Real, Vector};
-use crate::model::{PartKind, Rig};
+use crate::model::{PartId, PartKind, Rig};
 use crate::solve::kinematics::Motion;
 use crate::solve::statics::CaseResult;
 use crate::solve::{Case, Solution, SubRigSolution};
@@ -77,7 +77,7 @@ pub struct PartLoads {
 
 impl PartLoads {
     /// The figures of part `id`; `sub` is the sub-rig it belongs to.
-    pub fn of(rig: &Rig, sub: Option<&SubRigSolution>, id: usize) -> PartLoads {
+    pub fn of(rig: &Rig, sub: Option<&SubRigSolution>, id: PartId) -> PartLoads {
         let axle = match &rig.parts[id].kind {
             PartKind::Sheave(s) => Some(s.axle),
             PartKind::Guide(g) => Some(g.axle),

@@ -6,7 +6,7 @@
 
 use crate::math::Real;
 use crate::model::param::Param;
-use crate::model::{Rig, RopeId};
+use crate::model::Rig;
 use crate::units::{parse_quantity, Dimension};
 
 /// A file key resolved against a rig: the parameter and how a written value becomes SI.
@@ -35,7 +35,7 @@ impl Resolved {
 pub fn resolve(rig: &Rig, key: &str, unit: &str) -> Option<Resolved> {
     let part = |suffix: &str| {
         let name = key.strip_prefix("parts.")?.strip_suffix(suffix)?;
-        rig.parts.iter().position(|p| p.name == name)
+        rig.part_named(name)
     };
     let (param, dimension) = if let Some(p) = part(".bearing.factor") {
         (Param::RatedFactor(p), None)
@@ -47,8 +47,8 @@ pub fn resolve(rig: &Rig, key: &str, unit: &str) -> Option<Resolved> {
         (Param::LoadForce(p), Some(Dimension::Force))
     } else {
         let name = key.strip_prefix("ropes.")?.strip_suffix(".mu")?;
-        let r = rig.ropes.iter().position(|r| r.name == name)?;
-        (Param::RopeMu(RopeId::new(r)), None)
+        let r = rig.ropes.position(|r| r.name == name)?;
+        (Param::RopeMu(r), None)
     };
     Some(Resolved {
         param,

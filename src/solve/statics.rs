@@ -12,7 +12,6 @@
 //! weight in the pin load, drum journals) is settled by fixed-point iteration.
 
 use nalgebra::{DMatrix, DVector};
-use petgraph::graph::NodeIndex;
 
 use crate::friction::{self, BearingResistance};
 use crate::geometry::Geometry;
@@ -121,8 +120,8 @@ pub struct Problem<'a> {
     /// See `touches`.
     touch_start: Vec<usize>,
     /// `lines` and `parts` as the results' keys, shared by every case.
-    line_ids: std::sync::Arc<[usize]>,
-    part_ids: std::sync::Arc<[usize]>,
+    line_ids: std::sync::Arc<[LineId]>,
+    part_ids: std::sync::Arc<[PartId]>,
     /// Known generalized load forces (global dof index order of `dofs`).
     q_load: DVector<Real>,
     /// Unknown's generalized force per unit.
@@ -143,7 +142,7 @@ fn block_mass(rig: &Rig, network: &Network, block: PartId) -> Real {
     };
     let graph = &network.graph;
     let mut carried: Vec<PartId> = graph
-        .edges(NodeIndex::new(block))
+        .edges(Network::node(block))
         .filter(|e| *petgraph::visit::EdgeRef::weight(e) == Link::Carried)
         .filter_map(|e| graph.edge_endpoints(petgraph::visit::EdgeRef::id(&e)))
         .filter(|&(_, b)| graph[b] == block)
@@ -189,7 +188,7 @@ impl<'a> Problem<'a> {
             .iter()
             .filter(|&&p| !rig.parts[p].is_fixed_anchor())
             .flat_map(|&p| {
-                network.graph.edges(NodeIndex::new(p)).filter_map(|e| {
+                network.graph.edges(Network::node(p)).filter_map(|e| {
                     match *petgraph::visit::EdgeRef::weight(&e) {
                         Link::Span { line, .. } => Some(line),
                         Link::Carried => None,

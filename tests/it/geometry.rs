@@ -1,6 +1,7 @@
 //! Geometry of whole rigs built directly in Rust (no rig files): tangents, wraps, fleet
 //! angles, bend ratios, errors, and invariance under a rigid motion of the whole rig.
 
+use reeve::model::LineId;
 use std::f64::consts::{FRAC_PI_2, PI, TAU};
 
 use approx::relative_eq;
@@ -163,8 +164,9 @@ fn rig(rope_diameter: Real, parts: Vec<Part>, paths: Vec<Vec<PathEntry>>) -> Rig
             mass_per_length: None,
             bend_loss: 0.0,
             location: Location::default(),
-        }],
-        parts,
+        }]
+        .into(),
+        parts: parts.into(),
         lines: paths
             .into_iter()
             .enumerate()
@@ -175,8 +177,8 @@ fn rig(rope_diameter: Real, parts: Vec<Part>, paths: Vec<Vec<PathEntry>>) -> Rig
                 location: Location::default(),
             })
             .collect(),
-        drive: 0,
-        solve_for: 0,
+        drive: PartId::new(0),
+        solve_for: PartId::new(0),
         runs_back: false,
         changing: Default::default(),
     }
@@ -248,10 +250,14 @@ fn half_wrap_over_a_sheave_with_parallel_spans() {
             sheave("head", [0.0, 0.0, 1.0], dir(0.0, 1.0, 0.0), 0.054),
             weight("w", [0.03, 0.0, 0.0]),
         ],
-        vec![vec![entry(0), entry(1), entry(2)]],
+        vec![vec![
+            entry(PartId::new(0)),
+            entry(PartId::new(1)),
+            entry(PartId::new(2)),
+        ]],
     );
     let g = geometry(&r);
-    let line = &g.lines[0];
+    let line = &g.lines[LineId::new(0)];
     let head = &line.entries[1];
     assert_abs("pitch radius", head.pitch_radius, 0.03, 1e-15);
     assert_abs("wrap", head.wrap, PI, 1e-12);
@@ -285,10 +291,14 @@ fn quarter_wrap_from_horizontal_to_vertical() {
             sheave("head", [0.0, 0.0, 0.0], dir(0.0, 1.0, 0.0), 0.054),
             weight("w", [0.03, 0.0, -1.0]),
         ],
-        vec![vec![entry(0), entry(1), entry(2)]],
+        vec![vec![
+            entry(PartId::new(0)),
+            entry(PartId::new(1)),
+            entry(PartId::new(2)),
+        ]],
     );
     let g = geometry(&r);
-    let line = &g.lines[0];
+    let line = &g.lines[LineId::new(0)];
     assert_abs("wrap", line.entries[1].wrap, FRAC_PI_2, 1e-12);
     assert_eq!(line.entries[1].sense, Some(1.0));
     assert_abs("level span", line.spans[0].length, 1.0, 1e-12);
@@ -309,12 +319,31 @@ fn three_quarter_wrap_when_the_rope_crosses_itself() {
             sheave("s", [0.0, 0.0, 0.0], dir(0.0, 1.0, 0.0), 0.054),
             haul("hand", [-0.03, 0.0, -1.0]),
         ],
-        vec![vec![entry(0), sided(1, Side::Right), entry(2)]],
+        vec![vec![
+            entry(PartId::new(0)),
+            sided(PartId::new(1), Side::Right),
+            entry(PartId::new(2)),
+        ]],
     );
     let g = geometry(&r);
-    assert_abs("wrap", g.lines[0].entries[1].wrap, 1.5 * PI, 1e-12);
-    assert_abs("level span", g.lines[0].spans[0].length, 1.0, 1e-12);
-    assert_abs("falling span", g.lines[0].spans[1].length, 1.0, 1e-12);
+    assert_abs(
+        "wrap",
+        g.lines[LineId::new(0)].entries[1].wrap,
+        1.5 * PI,
+        1e-12,
+    );
+    assert_abs(
+        "level span",
+        g.lines[LineId::new(0)].spans[0].length,
+        1.0,
+        1e-12,
+    );
+    assert_abs(
+        "falling span",
+        g.lines[LineId::new(0)].spans[1].length,
+        1.0,
+        1e-12,
+    );
 }
 
 #[test]
@@ -333,33 +362,46 @@ fn external_and_crossed_spans_between_two_sheaves() {
     let over = rig(
         0.006,
         parts(-2.0),
-        vec![vec![entry(0), entry(1), entry(2), entry(3)]],
+        vec![vec![
+            entry(PartId::new(0)),
+            entry(PartId::new(1)),
+            entry(PartId::new(2)),
+            entry(PartId::new(3)),
+        ]],
     );
     let g = geometry(&over);
     assert_abs(
         "external",
-        g.lines[0].spans[1].length,
+        g.lines[LineId::new(0)].spans[1].length,
         (1.0 - 0.02f64.powi(2)).sqrt(),
         1e-12,
     );
-    assert_eq!(g.lines[0].entries[1].sense, g.lines[0].entries[2].sense);
+    assert_eq!(
+        g.lines[LineId::new(0)].entries[1].sense,
+        g.lines[LineId::new(0)].entries[2].sense
+    );
     // Over `a`, then under `b` and up: opposite senses, crossed tangent
     // √(D² − (R₁ + R₂)²) = √(1 − 0.08²) (hand calculation).
     let crossed = rig(
         0.006,
         parts(2.0),
-        vec![vec![entry(0), entry(1), entry(2), entry(3)]],
+        vec![vec![
+            entry(PartId::new(0)),
+            entry(PartId::new(1)),
+            entry(PartId::new(2)),
+            entry(PartId::new(3)),
+        ]],
     );
     let g = geometry(&crossed);
     assert_abs(
         "crossed",
-        g.lines[0].spans[1].length,
+        g.lines[LineId::new(0)].spans[1].length,
         (1.0 - 0.08f64.powi(2)).sqrt(),
         1e-12,
     );
     assert_eq!(
-        g.lines[0].entries[1].sense,
-        Some(-g.lines[0].entries[2].sense.unwrap())
+        g.lines[LineId::new(0)].entries[1].sense,
+        Some(-g.lines[LineId::new(0)].entries[2].sense.unwrap())
     );
 }
 
@@ -375,10 +417,14 @@ fn fleet_angle_of_a_lead_offset_along_the_axle() {
             sheave("head", [0.0, 0.0, 0.0], dir(0.0, 1.0, 0.0), 0.054),
             weight("w", [0.03, 0.0, -1.0]),
         ],
-        vec![vec![entry(0), entry(1), entry(2)]],
+        vec![vec![
+            entry(PartId::new(0)),
+            entry(PartId::new(1)),
+            entry(PartId::new(2)),
+        ]],
     );
     let g = geometry(&r);
-    let head = &g.lines[0].entries[1];
+    let head = &g.lines[LineId::new(0)].entries[1];
     assert_abs("fleet in", head.fleet_in.unwrap(), 0.05f64.atan(), 1e-12);
     assert_abs("fleet out", head.fleet_out.unwrap(), 0.0, 1e-12);
     // The offset moves neither tangent point: the wrap stays 90° (hand calculation).
@@ -397,16 +443,27 @@ fn drum_at_a_line_end_and_turns_on_a_guide() {
     let left = rig(
         0.006,
         parts.clone(),
-        vec![vec![turned(0, 3), turned(1, 2), entry(2)]],
+        vec![vec![
+            turned(PartId::new(0), 3),
+            turned(PartId::new(1), 2),
+            entry(PartId::new(2)),
+        ]],
     );
     let right = rig(
         0.006,
         parts,
-        vec![vec![sided(0, Side::Right), turned(1, 2), entry(2)]],
+        vec![vec![
+            sided(PartId::new(0), Side::Right),
+            turned(PartId::new(1), 2),
+            entry(PartId::new(2)),
+        ]],
     );
     let gl = geometry(&left);
     let gr = geometry(&right);
-    let (winch_l, winch_r) = (&gl.lines[0].entries[0], &gr.lines[0].entries[0]);
+    let (winch_l, winch_r) = (
+        &gl.lines[LineId::new(0)].entries[0],
+        &gr.lines[LineId::new(0)].entries[0],
+    );
     assert_eq!(winch_l.sense, Some(1.0));
     assert_eq!(winch_r.sense, Some(-1.0));
     assert_eq!(winch_l.wrap, 0.0);
@@ -422,21 +479,21 @@ fn drum_at_a_line_end_and_turns_on_a_guide() {
     // to the guide (R₁ = 0.05, R₂ = 0.03, D = √2; hand calculation).
     assert_abs(
         "left lead",
-        gl.lines[0].spans[0].length,
+        gl.lines[LineId::new(0)].spans[0].length,
         (2.0 - 0.02f64.powi(2)).sqrt(),
         1e-12,
     );
     assert_abs(
         "right lead",
-        gr.lines[0].spans[0].length,
+        gr.lines[LineId::new(0)].spans[0].length,
         (2.0 - 0.08f64.powi(2)).sqrt(),
         1e-12,
     );
     // Two extra turns on the guide add 4π to the wrap measured between tangent points.
-    let bar = &gl.lines[0].entries[1];
+    let bar = &gl.lines[LineId::new(0)].entries[1];
     assert_eq!(bar.turns, 2);
     assert!(bar.wrap > 2.0 * TAU && bar.wrap < 3.0 * TAU);
-    let w = gl.lines[0].entries[2].fleet_in;
+    let w = gl.lines[LineId::new(0)].entries[2].fleet_in;
     assert!(w.is_none());
 }
 
@@ -454,28 +511,40 @@ fn block_end_is_its_point_and_carried_sheave_its_own_centre() {
                 [0.0, 0.0, 0.9],
                 dir(0.0, 1.0, 0.0),
                 0.054,
-                Some(1),
+                Some(PartId::new(1)),
             ),
             anchor("top", [0.03, 0.0, 2.0]),
             anchor("stay", [0.0, 0.0, 3.0]),
         ],
-        vec![vec![entry(0), entry(2), entry(3)], vec![entry(1), entry(4)]],
+        vec![
+            vec![
+                entry(PartId::new(0)),
+                entry(PartId::new(2)),
+                entry(PartId::new(3)),
+            ],
+            vec![entry(PartId::new(1)), entry(PartId::new(4))],
+        ],
     );
     let g = geometry(&r);
     assert_abs(
         "wrap under the carried sheave",
-        g.lines[0].entries[1].wrap,
+        g.lines[LineId::new(0)].entries[1].wrap,
         PI,
         1e-12,
     );
     assert_abs(
         "to the carried sheave",
-        g.lines[0].spans[0].length,
+        g.lines[LineId::new(0)].spans[0].length,
         1.1,
         1e-12,
     );
-    assert!((g.lines[1].spans[0].start - Point::new(0.0, 0.0, 1.0)).norm() < 1e-15);
-    assert_abs("block to stay", g.lines[1].spans[0].length, 2.0, 1e-15);
+    assert!((g.lines[LineId::new(1)].spans[0].start - Point::new(0.0, 0.0, 1.0)).norm() < 1e-15);
+    assert_abs(
+        "block to stay",
+        g.lines[LineId::new(1)].spans[0].length,
+        2.0,
+        1e-15,
+    );
 }
 
 #[test]
@@ -490,16 +559,20 @@ fn explicit_side_settles_a_straight_path() {
             guide("g", [0.0, 0.0, 0.0], dir(0.0, 1.0, 0.0), 0.054),
             haul("b", [1.0, 0.0, 0.0]),
         ],
-        vec![vec![entry(0), sided(1, Side::Right), entry(2)]],
+        vec![vec![
+            entry(PartId::new(0)),
+            sided(PartId::new(1), Side::Right),
+            entry(PartId::new(2)),
+        ]],
     );
     let g = geometry(&r);
-    let entry = &g.lines[0].entries[1];
+    let entry = &g.lines[LineId::new(0)].entries[1];
     assert_eq!(entry.sense, Some(-1.0));
     assert_abs("wrap", entry.wrap, 2.0 * 0.03f64.asin(), 1e-12);
     // Tangent length from a point 1 m off: √(1 − R²) (hand calculation).
     assert_abs(
         "lead",
-        g.lines[0].spans[0].length,
+        g.lines[LineId::new(0)].spans[0].length,
         (1.0 - 0.03f64.powi(2)).sqrt(),
         1e-12,
     );
@@ -589,10 +662,15 @@ fn skew_pair_matches_an_independent_newton_solve() {
             guide("b", [1.2, 0.4, 1.0], axle_b, 0.054),
             weight("w", [1.5, -0.3, -0.2]),
         ],
-        vec![vec![entry(0), entry(1), entry(2), entry(3)]],
+        vec![vec![
+            entry(PartId::new(0)),
+            entry(PartId::new(1)),
+            entry(PartId::new(2)),
+            entry(PartId::new(3)),
+        ]],
     );
     let g = geometry(&r);
-    let line = &g.lines[0];
+    let line = &g.lines[LineId::new(0)];
     let (sa, sb) = (
         line.entries[1].sense.unwrap(),
         line.entries[2].sense.unwrap(),
@@ -624,7 +702,14 @@ fn straight(positions: [[Real; 3]; 3], tread: Real, side: Option<Side>) -> Rig {
             sheave("s", positions[1], dir(0.0, 1.0, 0.0), tread),
             haul("b", positions[2]),
         ],
-        vec![vec![entry(0), PathEntry { side, ..entry(1) }, entry(2)]],
+        vec![vec![
+            entry(PartId::new(0)),
+            PathEntry {
+                side,
+                ..entry(PartId::new(1))
+            },
+            entry(PartId::new(2)),
+        ]],
     )
 }
 
@@ -662,8 +747,12 @@ fn point_inside_the_pitch_circle() {
     );
     let r = rig(
         0.006,
-        r.parts,
-        vec![vec![entry(0), sided(1, Side::Left), entry(2)]],
+        r.parts.into_vec(),
+        vec![vec![
+            entry(PartId::new(0)),
+            sided(PartId::new(1), Side::Left),
+            entry(PartId::new(2)),
+        ]],
     );
     assert!(
         matches!(error_of(&r), GeometryError::InsideCircle { part, point, .. }
@@ -684,10 +773,10 @@ fn overlapping_sheaves_have_no_crossed_tangent() {
             weight("w", [0.09, 0.0, 2.0]),
         ],
         vec![vec![
-            entry(0),
-            sided(1, Side::Right),
-            sided(2, Side::Left),
-            entry(3),
+            entry(PartId::new(0)),
+            sided(PartId::new(1), Side::Right),
+            sided(PartId::new(2), Side::Left),
+            entry(PartId::new(3)),
         ]],
     );
     assert!(matches!(error_of(&r), GeometryError::InsideCircle { .. }));
@@ -712,7 +801,7 @@ fn coincident_entries() {
     let r = rig(
         0.006,
         vec![anchor("a", [1.0, 2.0, 3.0]), haul("b", [1.0, 2.0, 3.0])],
-        vec![vec![entry(0), entry(1)]],
+        vec![vec![entry(PartId::new(0)), entry(PartId::new(1))]],
     );
     assert!(matches!(error_of(&r), GeometryError::Coincident { .. }));
 }
@@ -761,7 +850,12 @@ fn skew_iteration_out_of_iterations() {
             guide("b", [1.2, 0.4, 1.0], dir(0.3, 1.0, 0.4), 0.054),
             weight("w", [1.5, -0.3, -0.2]),
         ],
-        vec![vec![entry(0), entry(1), entry(2), entry(3)]],
+        vec![vec![
+            entry(PartId::new(0)),
+            entry(PartId::new(1)),
+            entry(PartId::new(2)),
+            entry(PartId::new(3)),
+        ]],
     );
     let options = GeometryOptions {
         tolerance: 0.0,
@@ -812,7 +906,7 @@ fn showcase() -> Rig {
                 [0.05, 0.0, 0.95],
                 dir(0.0, 1.0, 0.0),
                 0.08,
-                Some(3),
+                Some(PartId::new(3)),
             ),
             anchor("eye", [0.12, 0.02, 2.2]),
             haul("hand", [1.2, 0.3, 0.8]),
@@ -820,8 +914,18 @@ fn showcase() -> Rig {
             weight("w", [1.2, -0.4, 0.5]),
         ],
         vec![
-            vec![turned(0, 2), turned(1, 1), entry(2), entry(4), entry(5)],
-            vec![entry(6), entry(7), entry(8)],
+            vec![
+                turned(PartId::new(0), 2),
+                turned(PartId::new(1), 1),
+                entry(PartId::new(2)),
+                entry(PartId::new(4)),
+                entry(PartId::new(5)),
+            ],
+            vec![
+                entry(PartId::new(6)),
+                entry(PartId::new(7)),
+                entry(PartId::new(8)),
+            ],
         ],
     )
 }
@@ -856,7 +960,7 @@ fn same(what: &str, a: Real, b: Real) {
 #[test]
 fn showcase_rig_is_well_formed() {
     let g = geometry(&showcase());
-    let first = &g.lines[0];
+    let first = &g.lines[LineId::new(0)];
     assert!(
         first.entries[1].fleet_in.unwrap() > 0.01,
         "the skew guide is really skew"

@@ -186,7 +186,6 @@ fn pin_loads_balance(rel: &str, path: &Path, value: &serde_json::Value) -> bool 
         .map(|s| {
             let line = rig
                 .lines
-                .iter()
                 .position(|l| Some(l.name.as_str()) == s["line"].as_str())
                 .expect("span of a line");
             rig.rope_of(line).mass_per_length.unwrap_or(0.0) * s["length_m"].as_f64().unwrap()
