@@ -65,7 +65,7 @@ impl Network {
         // anchor is a sub-rig of its own. Components are numbered by their first part
         // in file order.
         let moving = NodeFiltered::from_fn(&graph, |n: NodeIndex| {
-            !rig.parts[PartId::new(n.index())].is_fixed_anchor()
+            !rig.parts[graph[n]].is_fixed_anchor()
         });
         let mut component_of = IdVec::filled(usize::MAX, rig.parts.len());
         let mut components: Vec<Vec<PartId>> = Vec::new();
