@@ -29,7 +29,7 @@
 use libfuzzer_sys::fuzz_target;
 use reeve::model::PartKind;
 use reeve::model::Rig;
-use reeve::rig::LoadError;
+use reeve::rig::{LoadError, RigText};
 use reeve::study::rank::{self, Alternative};
 use reeve::study::{sweep, RigSource, StudyError};
 
@@ -70,7 +70,7 @@ fuzz_target!(|data: &[u8]| {
             }
         }
     }
-    let source = RigSource::from_text(text, SOURCE, &sets);
+    let source = RigSource::new(RigText::from_text(text, SOURCE), &sets);
     if let Some(v) = vary {
         match sweep::parse_vary(&v) {
             Ok(v) => {

@@ -41,7 +41,7 @@ use reeve::report::html;
 use reeve::report::svg::{self, DrawOptions, View};
 use reeve::report::table::{self, CaseFilter, Style, TableChoice};
 use reeve::report::Format;
-use reeve::rig::LoadError;
+use reeve::rig::{LoadError, RigText};
 use reeve::study::{compare, rank, spread, sweep, RigSource, StudyError};
 
 /// Commands run per input, at most.
@@ -85,7 +85,7 @@ fuzz_target!(|data: &[u8]| {
         nan_word: has_word(text, "nan"),
         inf_word: has_word(text, "inf"),
     };
-    let source = RigSource::from_text(text, SOURCE, &sets);
+    let source = RigSource::new(RigText::from_text(text, SOURCE), &sets);
     // Every command starts as the CLI does: the rig with its overrides must load and solve.
     let rig = match source.load(&[]) {
         Ok(rig) => rig,
@@ -208,7 +208,7 @@ fuzz_target!(|data: &[u8]| {
                 Err(e) => ctx.study_error(&e),
             },
             "compare" => {
-                let plain = RigSource::from_text(text, "plain.yaml", &[]);
+                let plain = RigSource::new(RigText::from_text(text, "plain.yaml"), &[]);
                 match compare::compare_rigs(&[plain, source.clone()]) {
                     Ok(c) => {
                         ctx.values(&c, "compare");

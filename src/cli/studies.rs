@@ -3,11 +3,12 @@
 //! the study's writer in [`reeve::report::study`].
 
 use std::io::{self, Write};
-use std::path::PathBuf;
+use std::path::{Path, PathBuf};
 
 use reeve::model::PartKind;
 use reeve::report::study as writers;
-use reeve::study::{compare, rank, spread, sweep, RigSource};
+use reeve::rig::RigText;
+use reeve::study::{compare, rank, spread, sweep, RigSource, StudyError};
 
 use super::progress::Bar;
 
@@ -140,9 +141,14 @@ fn exit_code(fails: bool) -> i32 {
     }
 }
 
+/// Reads the rig file at `path` for a study, with the `--set` overrides `sets`.
+fn read_source(path: &Path, sets: &[(String, String)]) -> Result<RigSource, StudyError> {
+    Ok(RigSource::new(RigText::read(path)?, sets))
+}
+
 fn source(args: &RigArgs) -> Result<RigSource, Failure> {
     let sets = parse_sets(&args.sets.set)?;
-    let s = RigSource::read(&args.rig, &sets)?;
+    let s = read_source(&args.rig, &sets)?;
     // Load once so that a bad file or override is reported before any study runs.
     s.load(&[])?;
     Ok(s)
@@ -158,13 +164,13 @@ pub fn run_compare(args: CompareArgs) -> Result<i32, Failure> {
                 "--variants compares the variants of one rig; give exactly one rig file".into(),
             ));
         }
-        let s = RigSource::read(&args.rigs[0], &sets)?;
+        let s = read_source(&args.rigs[0], &sets)?;
         compare::compare_variants(&s)?
     } else {
         let sources = args
             .rigs
             .iter()
-            .map(|p| RigSource::read(p, &sets))
+            .map(|p| read_source(p, &sets))
             .collect::<Result<Vec<_>, _>>()?;
         compare::compare_rigs(&sources)?
     };

@@ -2,15 +2,21 @@
 //! which builds it) and every later stage (geometry, friction, solve, checks, report,
 //! studies), which read only this and never see YAML. Names are checked, references
 //! turned into ids, every quantity is in SI and radians; [`network`] holds the
-//! line-and-sheave graph and the independent sub-rigs.
+//! line-and-sheave graph and the independent sub-rigs. [`source`] names what is wrong
+//! with a rig file ([`LoadError`], located) and what a study asks of the file
+//! ([`RigFile`], implemented by `rig/`); [`vary`] holds what a study varies (named
+//! variants, ranged values) and [`param`] the model values it sets.
 
 pub mod changing;
 pub mod id;
 pub mod network;
 pub mod param;
+pub mod source;
+pub mod vary;
 
 pub use id::{Id, IdVec, LineId, PartId, RopeId};
 pub use network::{Link, Network};
+pub use source::{LoadError, Problem, RigFile};
 
 use crate::math::{Direction, Point, Real};
 use crate::units::UnitSystem;

@@ -1,15 +1,18 @@
 //! Model-level parameters: one numeric value of a resolved [`Rig`], in SI, that a study
 //! changes without re-reading the rig file (a spread sample's bearing factor, load or
 //! friction coefficient). A file key is mapped to a [`Param`] once, by
-//! `rig::params::resolve`; [`Param::set`] then writes a value into the model with the
-//! same range check the loader gives that key, and refuses (None) where it does not
-//! apply, so the caller falls back to the file path and its located error.
+//! `rig::params::resolve` (a study asks through [`super::RigFile::resolve`]), as a
+//! [`Resolved`] that also converts a written value to SI; [`Param::set`] then writes a
+//! value into the model with the same range check the loader gives that key, and
+//! refuses (None) where it does not apply, so the caller falls back to the file path
+//! and its located error.
 //!
 //! A parameter never changes the rig's structure or geometry: which parts, lines and
 //! positions there are stays as loaded.
 
 use super::{Bearing, BlockLoad, PartId, PartKind, Rig, RopeId};
 use crate::math::Real;
+use crate::units::{parse_quantity, Dimension};
 
 /// One numeric value of the model.
 #[derive(Debug, Clone, Copy, PartialEq, Eq)]
@@ -73,5 +76,38 @@ fn bearing(rig: &mut Rig, part: PartId) -> Option<&mut Bearing> {
     match &mut rig.parts.get_mut(part)?.kind {
         PartKind::Sheave(s) => Some(&mut s.bearing),
         _ => None,
+    }
+}
+
+/// A file key resolved against a rig: the parameter and how a written value becomes SI.
+#[derive(Debug, Clone, PartialEq)]
+pub struct Resolved {
+    /// The model value the key sets.
+    pub param: Param,
+    dimension: Option<Dimension>,
+    unit: String,
+}
+
+impl Resolved {
+    /// `param`, whose values are written with `unit` (empty for a bare number) and, when
+    /// `dimension` is given, converted to SI as the loader converts that quantity (a bare
+    /// number in the rig's own unit of it).
+    pub fn new(param: Param, dimension: Option<Dimension>, unit: &str) -> Resolved {
+        Resolved {
+            param,
+            dimension,
+            unit: unit.to_string(),
+        }
+    }
+
+    /// The SI value of `value` written in this key's unit (None when it does not read
+    /// as the loader would read it: the caller takes the file path).
+    pub fn si(&self, rig: &Rig, value: Real) -> Option<Real> {
+        match self.dimension {
+            None if self.unit.is_empty() => Some(value),
+            None => None,
+            Some(d) if self.unit.is_empty() => Some(value * rig.units.unit(d).si),
+            Some(d) => parse_quantity(&format!("{value} {}", self.unit), d, rig.units.unit(d)).ok(),
+        }
     }
 }

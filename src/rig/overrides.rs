@@ -10,6 +10,8 @@
 //! existing one. Setting one of a pair that excludes the other (`mass`/`force` of a
 //! block load, `factor`/`efficiency` of a rated bearing) removes the other.
 
+/// The study inputs the file gives, read here; the types are the model's.
+pub use crate::model::vary::{Distribution, Uncertain, Variant};
 use crate::model::Location;
 use crate::rig::error::Problem;
 use crate::rig::file::{parse_value, Entry, Node, Value};
@@ -143,16 +145,8 @@ fn exclude_partner(entries: &mut Vec<Entry>, parent: Option<&str>, key: &str) {
 }
 
 // ---------------------------------------------------------------------------------------
-// Named variants and uncertain values (ranges), read from the parsed tree.
-
-/// A named set of overrides from the rig file's `variants:` key.
-#[derive(Debug, Clone, PartialEq)]
-pub struct Variant {
-    /// The variant's name as written.
-    pub name: String,
-    /// Its settings, `KEY=VALUE` pairs in written order.
-    pub settings: Vec<(String, String)>,
-}
+// Named variants and uncertain values (ranges), read from the parsed tree (their types
+// are the model's, `crate::model::vary`: a study runs them without the file layer).
 
 /// Reads `variants:`: a mapping of variant name to either a list of `"KEY=VALUE"`
 /// strings or a mapping `KEY: VALUE` (a value may be any YAML: a number, `"600 kg"`,
@@ -241,59 +235,6 @@ pub fn flow_text(node: &Node) -> String {
                 .collect();
             format!("{{{}}}", inner.join(", "))
         }
-    }
-}
-
-/// How an uncertain value is spread.
-#[derive(Debug, Clone, Copy, PartialEq)]
-pub enum Distribution {
-    /// Uniform between the bounds (`{min: a, max: b}`).
-    Uniform {
-        /// Lower bound.
-        min: f64,
-        /// Upper bound.
-        max: f64,
-    },
-    /// Normal, truncated at zero (`{mean: m, sd: s}`).
-    Normal {
-        /// Mean.
-        mean: f64,
-        /// Standard deviation, 0 or more.
-        sd: f64,
-    },
-}
-
-impl Distribution {
-    /// The value deterministic commands use: the middle of a uniform range, the mean of
-    /// a normal one (never below zero).
-    pub fn nominal(&self) -> f64 {
-        match *self {
-            Distribution::Uniform { min, max } => 0.5 * (min + max),
-            Distribution::Normal { mean, .. } => mean.max(0.0),
-        }
-    }
-}
-
-/// A value written as a range in the rig file, in the file's own numbers.
-#[derive(Debug, Clone, PartialEq)]
-pub struct Uncertain {
-    /// Key path, as an override addresses it (`parts.head.bearing.mu`).
-    pub key: String,
-    /// The spread, in the written unit.
-    pub distribution: Distribution,
-    /// The unit written after the numbers (`kg`), empty for bare numbers.
-    pub unit: String,
-}
-
-impl Uncertain {
-    /// The override that sets this key to `value` (in the written unit).
-    pub fn setting(&self, value: f64) -> (String, String) {
-        let text = if self.unit.is_empty() {
-            format!("{value}")
-        } else {
-            format!("{value} {}", self.unit)
-        };
-        (self.key.clone(), text)
     }
 }
 

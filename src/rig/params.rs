@@ -4,32 +4,10 @@
 //! exactly as the loader converts it. Any other key (or one whose part does not hold
 //! that value) resolves to None: the study then applies it on the parsed file.
 
-use crate::math::Real;
 use crate::model::param::Param;
+pub use crate::model::param::Resolved;
 use crate::model::Rig;
-use crate::units::{parse_quantity, Dimension};
-
-/// A file key resolved against a rig: the parameter and how a written value becomes SI.
-#[derive(Debug, Clone, PartialEq)]
-pub struct Resolved {
-    /// The model value the key sets.
-    pub param: Param,
-    dimension: Option<Dimension>,
-    unit: String,
-}
-
-impl Resolved {
-    /// The SI value of `value` written in this key's unit (None when it does not read
-    /// as the loader would read it: the caller takes the file path).
-    pub fn si(&self, rig: &Rig, value: Real) -> Option<Real> {
-        match self.dimension {
-            None if self.unit.is_empty() => Some(value),
-            None => None,
-            Some(d) if self.unit.is_empty() => Some(value * rig.units.unit(d).si),
-            Some(d) => parse_quantity(&format!("{value} {}", self.unit), d, rig.units.unit(d)).ok(),
-        }
-    }
-}
+use crate::units::Dimension;
 
 /// Resolves `key` (written with `unit`, empty for a bare number) against `rig`.
 pub fn resolve(rig: &Rig, key: &str, unit: &str) -> Option<Resolved> {
@@ -50,9 +28,5 @@ pub fn resolve(rig: &Rig, key: &str, unit: &str) -> Option<Resolved> {
         let r = rig.ropes.position(|r| r.name == name)?;
         (Param::RopeMu(r), None)
     };
-    Some(Resolved {
-        param,
-        dimension,
-        unit: unit.to_string(),
-    })
+    Some(Resolved::new(param, dimension, unit))
 }

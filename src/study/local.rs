@@ -20,7 +20,6 @@ use std::sync::Mutex;
 use crate::checks::{self, Warning};
 use crate::math::Real;
 use crate::model::{Bearing, IdVec, PartId, PartKind, Rig, RopeId};
-use crate::rig::params;
 use crate::solve::{self, given_quantity, Outcome, Solution, SolveOptions, SubRigSolution};
 
 use super::{RigSource, StudyError, Verdict};
@@ -301,14 +300,15 @@ pub fn frictionless_kind(rig: &Rig, part: PartId) -> &'static str {
     }
 }
 
-/// The model change that sets `key` (a bare number) to `value`, if the model has it,
-/// and its kind.
+/// The model change that sets `key` (a bare number) to `value`, if the model has it
+/// (`source` resolves the key), and its kind.
 pub fn set_key(
+    source: &RigSource,
     rig: &Rig,
     key: &str,
     value: Real,
 ) -> Option<(&'static str, impl Fn(&mut Rig) -> Option<()>)> {
-    let resolved = params::resolve(rig, key, "")?;
+    let resolved = source.resolve(rig, key, "")?;
     let si = resolved.si(rig, value)?;
     let kind = match resolved.param {
         crate::model::param::Param::RatedFactor(_) => "bearing factor",
@@ -410,7 +410,7 @@ mod tests {
             for (r, rope) in rig.ropes.enumerate() {
                 let key = format!("ropes.{}.mu", rope.name);
                 let settings = [(key.clone(), "0.3".to_string())];
-                let (kind, apply) = set_key(&rig, &key, 0.3).unwrap();
+                let (kind, apply) = set_key(&source, &rig, &key, 0.3).unwrap();
                 let edit = Edit {
                     kind,
                     apply: &apply,

@@ -3,13 +3,15 @@
 //! bearing upgrades and friction sensitivities ([`rank`]), and spread uncertain inputs
 //! by Monte Carlo ([`spread`]).
 //!
-//! Every study works on a [`RigSource`]: the rig file's text and the `--set` overrides
-//! every run applies. A study changes a rig only through more overrides on the parsed
-//! tree (so a changed value gets the loader's checks), by setting model values where
-//! that gives the very rig the overrides give ([`ModelSampler`], [`local`]), or, for
-//! the stroke, by moving the resolved parts; none has physics of its own. A change of
-//! friction or load moves no part, so such a run keeps the rig's geometry and motion and
-//! solves only the sub-rigs it reaches ([`local`]). Results are plain structs that
+//! Every study works on a [`RigSource`]: the rig file, behind the model's [`RigFile`]
+//! (implemented by `rig::RigText`, so that no study imports the file layer), and the
+//! `--set` overrides every run applies. A study changes a rig only through more
+//! overrides on the parsed tree (so a changed value gets the loader's checks), by
+//! setting model values where that gives the very rig the overrides give
+//! ([`ModelSampler`], [`local`]), or, for the stroke, by moving the resolved parts; none
+//! has physics of its own. A change of friction or load moves no part, so such a run
+//! keeps the rig's geometry and motion and solves only the sub-rigs it reaches
+//! ([`local`]). Results are plain structs that
 //! serialize to JSON with units in the keys; [`crate::report::study`] writes them out
 //! as text, Markdown, CSV or JSON, and [`crate::report::chart`] draws their charts.
 //!
@@ -28,19 +30,16 @@ pub mod sweep;
 /// solver's motion shares).
 pub use crate::progress::Progress;
 
-use std::path::Path;
+use std::sync::Arc;
 
 use serde::Serialize;
 
 use crate::checks;
 use crate::math::Real;
-use crate::model::Rig;
+use crate::model::param::Resolved;
+use crate::model::vary::{Uncertain, Variant};
+use crate::model::{LoadError, Rig, RigFile};
 use crate::report::{Asked, Report};
-use crate::rig::file::{parse_tree, strip_bom};
-use crate::rig::load::{ranges_str, read_text, variants_str, ParsedRig};
-use crate::rig::overrides::{apply_overrides, read_variants, Uncertain, Variant};
-use crate::rig::params::{self, Resolved};
-use crate::rig::{LoadError, Problem};
 use crate::solve::{self, Solution, SolveError, SolveOptions};
 
 /// Why a study cannot run (exit 2).
@@ -72,43 +71,32 @@ impl StudyError {
     }
 }
 
-/// A rig's text with the overrides every run of a study applies.
+/// A rig file with the overrides every run of a study applies.
 #[derive(Debug, Clone)]
 pub struct RigSource {
-    /// The rig file's text.
-    pub text: String,
     /// Its name in messages (the path as given).
     pub source: String,
     /// `KEY=VALUE` overrides applied before a study's own.
     pub overrides: Vec<(String, String)>,
-    /// The text parsed once, resolved again for every run (no re-parse per sample).
-    parsed: ParsedRig,
+    /// The file, loaded again for every run (parsed once: `rig::RigText`).
+    file: Arc<dyn RigFile>,
 }
 
 impl RigSource {
-    /// Reads a rig file with the one reader every command uses
-    /// ([`crate::rig::load::read_text`]).
-    ///
-    /// # Errors
-    /// [`StudyError::Load`] naming the file when it cannot be read, is not UTF-8 or is
-    /// too large.
-    pub fn read(path: &Path, overrides: &[(String, String)]) -> Result<RigSource, StudyError> {
-        let text = read_text(path)?;
-        Ok(RigSource::from_text(
-            strip_bom(&text),
-            &path.display().to_string(),
-            overrides,
-        ))
+    /// The rig `file` with the base `overrides` (`--set`) of every run.
+    pub fn new(file: impl RigFile + 'static, overrides: &[(String, String)]) -> RigSource {
+        RigSource {
+            source: file.name().to_string(),
+            overrides: overrides.to_vec(),
+            file: Arc::new(file),
+        }
     }
 
-    /// Rig text held in memory (tests, generated rigs).
-    pub fn from_text(text: &str, source: &str, overrides: &[(String, String)]) -> RigSource {
-        RigSource {
-            text: text.to_string(),
-            source: source.to_string(),
-            overrides: overrides.to_vec(),
-            parsed: ParsedRig::parse(text, source),
-        }
+    /// Rig text held in memory, for the unit tests (the library's callers build a
+    /// `rig::RigText` and give it to [`RigSource::new`]).
+    #[cfg(test)]
+    pub(crate) fn from_text(text: &str, source: &str, overrides: &[(String, String)]) -> Self {
+        RigSource::new(crate::rig::RigText::from_text(text, source), overrides)
     }
 
     /// Loads the rig with the base overrides and then `extra`.
@@ -118,7 +106,7 @@ impl RigSource {
     pub fn load(&self, extra: &[(String, String)]) -> Result<Rig, StudyError> {
         let mut all = self.overrides.clone();
         all.extend_from_slice(extra);
-        Ok(self.parsed.load_with(&all)?)
+        Ok(self.file.load(&all)?)
     }
 
     /// Loads and solves with `extra` overrides.
@@ -154,24 +142,7 @@ impl RigSource {
     /// "bearing"]`) holds `key` in the file as written with the base overrides: which
     /// of two spellings of one value (`factor` or `efficiency`) the file uses.
     pub fn has_key(&self, path: &[&str], key: &str) -> bool {
-        let Ok((Some(mut root), _)) = parse_tree(&self.text) else {
-            return false;
-        };
-        if !apply_overrides(&mut root, &self.overrides).is_empty() {
-            return false;
-        }
-        let mut node = &root;
-        for step in path {
-            let Some(next) = node
-                .entries()
-                .and_then(|e| e.iter().find(|e| e.key == *step))
-            else {
-                return false;
-            };
-            node = &next.value;
-        }
-        node.entries()
-            .is_some_and(|e| e.iter().any(|e| e.key == key))
+        self.file.has_key(&self.overrides, path, key)
     }
 
     /// The file's named variants, after the base overrides (`--set variants.NAME=...`
@@ -181,32 +152,7 @@ impl RigSource {
     /// # Errors
     /// [`StudyError::Load`] when `variants` is malformed or an override does not apply.
     pub fn variants(&self) -> Result<Vec<Variant>, StudyError> {
-        if self.overrides.is_empty() {
-            return Ok(variants_str(&self.text, &self.source)?);
-        }
-        let fail = |problems: Vec<Problem>| {
-            StudyError::Load(LoadError {
-                file: self.source.clone(),
-                problems,
-            })
-        };
-        let Some(mut root) = parse_tree(&self.text).map_err(fail)?.0 else {
-            return Ok(Vec::new());
-        };
-        let problems = apply_overrides(&mut root, &self.overrides);
-        if !problems.is_empty() {
-            return Err(fail(problems));
-        }
-        let node = root
-            .entries()
-            .and_then(|top| top.iter().find(|e| e.key == "variants"))
-            .map(|e| &e.value)
-            .filter(|v| !v.is_null());
-        match node.map(read_variants) {
-            None => Ok(Vec::new()),
-            Some((variants, problems)) if problems.is_empty() => Ok(variants),
-            Some((_, problems)) => Err(fail(problems)),
-        }
+        Ok(self.file.variants(&self.overrides)?)
     }
 
     /// The file's ranged values (after the base overrides).
@@ -214,7 +160,13 @@ impl RigSource {
     /// # Errors
     /// [`StudyError::Load`] when a range is malformed.
     pub fn ranges(&self) -> Result<Vec<Uncertain>, StudyError> {
-        Ok(ranges_str(&self.text, &self.source, &self.overrides)?)
+        Ok(self.file.ranges(&self.overrides)?)
+    }
+
+    /// The model value that the file key `key` (written with `unit`, empty for a bare
+    /// number) sets on `rig`, a rig this source loaded ([`RigFile::resolve`]).
+    pub fn resolve(&self, rig: &Rig, key: &str, unit: &str) -> Option<Resolved> {
+        self.file.resolve(rig, key, unit)
     }
 }
 
@@ -262,7 +214,7 @@ impl RigSource {
     ) -> Option<ModelSampler> {
         let params = keys
             .iter()
-            .map(|(key, unit)| params::resolve(rig, key, unit))
+            .map(|(key, unit)| self.resolve(rig, key, unit))
             .collect::<Option<Vec<_>>>()?;
         let sampler = ModelSampler {
             base: rig.clone(),

@@ -442,7 +442,7 @@ impl Runs<'_> {
         let Some(l) = &self.local else {
             return forward_with(self.source, &settings);
         };
-        let o = match local::set_key(rig, key, value) {
+        let o = match local::set_key(self.source, rig, key, value) {
             Some((kind, apply)) => {
                 let edit = Edit {
                     kind,

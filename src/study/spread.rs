@@ -10,9 +10,9 @@ use std::collections::BTreeMap;
 use serde::Serialize;
 
 use crate::math::Real;
+use crate::model::vary::{Distribution, Uncertain};
 use crate::report::Asked;
 use crate::report::{finite, CAUTION};
-use crate::rig::overrides::{Distribution, Uncertain};
 use crate::units::UnitSystem;
 
 use super::local::Local;

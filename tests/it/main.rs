@@ -4,6 +4,7 @@
 
 mod support;
 
+mod architecture;
 mod cli;
 mod dxf;
 mod figures;

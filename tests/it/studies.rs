@@ -1345,10 +1345,12 @@ fn studies_locate_solve_errors_like_check() {
 /// the file path loads with the same draws as overrides (compared whole).
 #[test]
 fn spread_samples_on_the_model_are_the_rigs_the_file_gives() {
+    use reeve::rig::RigText;
     use reeve::study::spread::{draws_of, keys_of, settings_of};
     use reeve::study::RigSource;
     let path = test_rig("spread-hoist.yaml");
-    let source = RigSource::read(std::path::Path::new(&path), &[]).unwrap();
+    let file = RigText::read(std::path::Path::new(&path)).unwrap();
+    let source = RigSource::new(file, &[]);
     let ranges = source.ranges().unwrap();
     let rig = source.load(&[]).unwrap();
     let sampler = source
