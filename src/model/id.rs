@@ -32,8 +32,9 @@ macro_rules! id_type {
             ///
             /// # Panics
             /// Beyond 2³² of them, which no rig file reaches (files are capped in size).
-            pub fn new(index: usize) -> Self {
-                Self(u32::try_from(index).expect(concat!("fewer than 2^32 ", $items)))
+            pub const fn new(index: usize) -> Self {
+                assert!(index <= u32::MAX as usize, concat!("fewer than 2^32 ", $items));
+                Self(index as u32)
             }
 
             #[doc = concat!("The position in the rig's ", $items, ".")]

@@ -1,7 +1,6 @@
 //! Geometry of whole rigs built directly in Rust (no rig files): tangents, wraps, fleet
 //! angles, bend ratios, errors, and invariance under a rigid motion of the whole rig.
 
-use reeve::model::LineId;
 use std::f64::consts::{FRAC_PI_2, PI, TAU};
 
 use approx::relative_eq;
@@ -9,12 +8,16 @@ use proptest::prelude::*;
 use reeve::geometry::{compute, Geometry, GeometryError, GeometryOptions, LineGeometry};
 use reeve::math::{Direction, Point, Real, Vector};
 use reeve::model::{
-    Bearing, Block, BlockLoad, Drum, Guide, Haul, Limits, Line, Location, Part, PartId, PartKind,
-    PathEntry, Rig, Rope, RopeId, RopeKind, Sheave, Side, Weight,
+    Bearing, Block, BlockLoad, Drum, Guide, Haul, Limits, Line, LineId, Location, Part, PartId,
+    PartKind, PathEntry, Rig, Rope, RopeId, RopeKind, Sheave, Side, Weight,
 };
 use reeve::units::UnitSystem;
 
 use crate::support::assert_abs;
+
+/// The first and the second line of a test rig.
+const L0: LineId = LineId::new(0);
+const L1: LineId = LineId::new(1);
 
 // ---------------------------------------------------------------------------------------
 // Building rigs
@@ -123,23 +126,24 @@ fn drum(name: &str, at: [Real; 3], axle: Direction, diameter: Real) -> Part {
 }
 
 /// One path entry: part index, extra turns, explicit side.
-fn entry(part: PartId) -> PathEntry {
+/// The path entry of part `part` (its position in the parts given to [`rig`]).
+fn entry(part: usize) -> PathEntry {
     PathEntry {
-        part,
+        part: PartId::new(part),
         turns: 0,
         side: None,
         location: Location::default(),
     }
 }
 
-fn sided(part: PartId, side: Side) -> PathEntry {
+fn sided(part: usize, side: Side) -> PathEntry {
     PathEntry {
         side: Some(side),
         ..entry(part)
     }
 }
 
-fn turned(part: PartId, turns: u32) -> PathEntry {
+fn turned(part: usize, turns: u32) -> PathEntry {
     PathEntry {
         turns,
         ..entry(part)
@@ -250,14 +254,10 @@ fn half_wrap_over_a_sheave_with_parallel_spans() {
             sheave("head", [0.0, 0.0, 1.0], dir(0.0, 1.0, 0.0), 0.054),
             weight("w", [0.03, 0.0, 0.0]),
         ],
-        vec![vec![
-            entry(PartId::new(0)),
-            entry(PartId::new(1)),
-            entry(PartId::new(2)),
-        ]],
+        vec![vec![entry(0), entry(1), entry(2)]],
     );
     let g = geometry(&r);
-    let line = &g.lines[LineId::new(0)];
+    let line = &g.lines[L0];
     let head = &line.entries[1];
     assert_abs("pitch radius", head.pitch_radius, 0.03, 1e-15);
     assert_abs("wrap", head.wrap, PI, 1e-12);
@@ -291,14 +291,10 @@ fn quarter_wrap_from_horizontal_to_vertical() {
             sheave("head", [0.0, 0.0, 0.0], dir(0.0, 1.0, 0.0), 0.054),
             weight("w", [0.03, 0.0, -1.0]),
         ],
-        vec![vec![
-            entry(PartId::new(0)),
-            entry(PartId::new(1)),
-            entry(PartId::new(2)),
-        ]],
+        vec![vec![entry(0), entry(1), entry(2)]],
     );
     let g = geometry(&r);
-    let line = &g.lines[LineId::new(0)];
+    let line = &g.lines[L0];
     assert_abs("wrap", line.entries[1].wrap, FRAC_PI_2, 1e-12);
     assert_eq!(line.entries[1].sense, Some(1.0));
     assert_abs("level span", line.spans[0].length, 1.0, 1e-12);
@@ -319,31 +315,12 @@ fn three_quarter_wrap_when_the_rope_crosses_itself() {
             sheave("s", [0.0, 0.0, 0.0], dir(0.0, 1.0, 0.0), 0.054),
             haul("hand", [-0.03, 0.0, -1.0]),
         ],
-        vec![vec![
-            entry(PartId::new(0)),
-            sided(PartId::new(1), Side::Right),
-            entry(PartId::new(2)),
-        ]],
+        vec![vec![entry(0), sided(1, Side::Right), entry(2)]],
     );
     let g = geometry(&r);
-    assert_abs(
-        "wrap",
-        g.lines[LineId::new(0)].entries[1].wrap,
-        1.5 * PI,
-        1e-12,
-    );
-    assert_abs(
-        "level span",
-        g.lines[LineId::new(0)].spans[0].length,
-        1.0,
-        1e-12,
-    );
-    assert_abs(
-        "falling span",
-        g.lines[LineId::new(0)].spans[1].length,
-        1.0,
-        1e-12,
-    );
+    assert_abs("wrap", g.lines[L0].entries[1].wrap, 1.5 * PI, 1e-12);
+    assert_abs("level span", g.lines[L0].spans[0].length, 1.0, 1e-12);
+    assert_abs("falling span", g.lines[L0].spans[1].length, 1.0, 1e-12);
 }
 
 #[test]
@@ -362,46 +339,33 @@ fn external_and_crossed_spans_between_two_sheaves() {
     let over = rig(
         0.006,
         parts(-2.0),
-        vec![vec![
-            entry(PartId::new(0)),
-            entry(PartId::new(1)),
-            entry(PartId::new(2)),
-            entry(PartId::new(3)),
-        ]],
+        vec![vec![entry(0), entry(1), entry(2), entry(3)]],
     );
     let g = geometry(&over);
     assert_abs(
         "external",
-        g.lines[LineId::new(0)].spans[1].length,
+        g.lines[L0].spans[1].length,
         (1.0 - 0.02f64.powi(2)).sqrt(),
         1e-12,
     );
-    assert_eq!(
-        g.lines[LineId::new(0)].entries[1].sense,
-        g.lines[LineId::new(0)].entries[2].sense
-    );
+    assert_eq!(g.lines[L0].entries[1].sense, g.lines[L0].entries[2].sense);
     // Over `a`, then under `b` and up: opposite senses, crossed tangent
     // √(D² − (R₁ + R₂)²) = √(1 − 0.08²) (hand calculation).
     let crossed = rig(
         0.006,
         parts(2.0),
-        vec![vec![
-            entry(PartId::new(0)),
-            entry(PartId::new(1)),
-            entry(PartId::new(2)),
-            entry(PartId::new(3)),
-        ]],
+        vec![vec![entry(0), entry(1), entry(2), entry(3)]],
     );
     let g = geometry(&crossed);
     assert_abs(
         "crossed",
-        g.lines[LineId::new(0)].spans[1].length,
+        g.lines[L0].spans[1].length,
         (1.0 - 0.08f64.powi(2)).sqrt(),
         1e-12,
     );
     assert_eq!(
-        g.lines[LineId::new(0)].entries[1].sense,
-        Some(-g.lines[LineId::new(0)].entries[2].sense.unwrap())
+        g.lines[L0].entries[1].sense,
+        Some(-g.lines[L0].entries[2].sense.unwrap())
     );
 }
 
@@ -417,14 +381,10 @@ fn fleet_angle_of_a_lead_offset_along_the_axle() {
             sheave("head", [0.0, 0.0, 0.0], dir(0.0, 1.0, 0.0), 0.054),
             weight("w", [0.03, 0.0, -1.0]),
         ],
-        vec![vec![
-            entry(PartId::new(0)),
-            entry(PartId::new(1)),
-            entry(PartId::new(2)),
-        ]],
+        vec![vec![entry(0), entry(1), entry(2)]],
     );
     let g = geometry(&r);
-    let head = &g.lines[LineId::new(0)].entries[1];
+    let head = &g.lines[L0].entries[1];
     assert_abs("fleet in", head.fleet_in.unwrap(), 0.05f64.atan(), 1e-12);
     assert_abs("fleet out", head.fleet_out.unwrap(), 0.0, 1e-12);
     // The offset moves neither tangent point: the wrap stays 90° (hand calculation).
@@ -443,27 +403,16 @@ fn drum_at_a_line_end_and_turns_on_a_guide() {
     let left = rig(
         0.006,
         parts.clone(),
-        vec![vec![
-            turned(PartId::new(0), 3),
-            turned(PartId::new(1), 2),
-            entry(PartId::new(2)),
-        ]],
+        vec![vec![turned(0, 3), turned(1, 2), entry(2)]],
     );
     let right = rig(
         0.006,
         parts,
-        vec![vec![
-            sided(PartId::new(0), Side::Right),
-            turned(PartId::new(1), 2),
-            entry(PartId::new(2)),
-        ]],
+        vec![vec![sided(0, Side::Right), turned(1, 2), entry(2)]],
     );
     let gl = geometry(&left);
     let gr = geometry(&right);
-    let (winch_l, winch_r) = (
-        &gl.lines[LineId::new(0)].entries[0],
-        &gr.lines[LineId::new(0)].entries[0],
-    );
+    let (winch_l, winch_r) = (&gl.lines[L0].entries[0], &gr.lines[L0].entries[0]);
     assert_eq!(winch_l.sense, Some(1.0));
     assert_eq!(winch_r.sense, Some(-1.0));
     assert_eq!(winch_l.wrap, 0.0);
@@ -479,21 +428,21 @@ fn drum_at_a_line_end_and_turns_on_a_guide() {
     // to the guide (R₁ = 0.05, R₂ = 0.03, D = √2; hand calculation).
     assert_abs(
         "left lead",
-        gl.lines[LineId::new(0)].spans[0].length,
+        gl.lines[L0].spans[0].length,
         (2.0 - 0.02f64.powi(2)).sqrt(),
         1e-12,
     );
     assert_abs(
         "right lead",
-        gr.lines[LineId::new(0)].spans[0].length,
+        gr.lines[L0].spans[0].length,
         (2.0 - 0.08f64.powi(2)).sqrt(),
         1e-12,
     );
     // Two extra turns on the guide add 4π to the wrap measured between tangent points.
-    let bar = &gl.lines[LineId::new(0)].entries[1];
+    let bar = &gl.lines[L0].entries[1];
     assert_eq!(bar.turns, 2);
     assert!(bar.wrap > 2.0 * TAU && bar.wrap < 3.0 * TAU);
-    let w = gl.lines[LineId::new(0)].entries[2].fleet_in;
+    let w = gl.lines[L0].entries[2].fleet_in;
     assert!(w.is_none());
 }
 
@@ -516,35 +465,23 @@ fn block_end_is_its_point_and_carried_sheave_its_own_centre() {
             anchor("top", [0.03, 0.0, 2.0]),
             anchor("stay", [0.0, 0.0, 3.0]),
         ],
-        vec![
-            vec![
-                entry(PartId::new(0)),
-                entry(PartId::new(2)),
-                entry(PartId::new(3)),
-            ],
-            vec![entry(PartId::new(1)), entry(PartId::new(4))],
-        ],
+        vec![vec![entry(0), entry(2), entry(3)], vec![entry(1), entry(4)]],
     );
     let g = geometry(&r);
     assert_abs(
         "wrap under the carried sheave",
-        g.lines[LineId::new(0)].entries[1].wrap,
+        g.lines[L0].entries[1].wrap,
         PI,
         1e-12,
     );
     assert_abs(
         "to the carried sheave",
-        g.lines[LineId::new(0)].spans[0].length,
+        g.lines[L0].spans[0].length,
         1.1,
         1e-12,
     );
-    assert!((g.lines[LineId::new(1)].spans[0].start - Point::new(0.0, 0.0, 1.0)).norm() < 1e-15);
-    assert_abs(
-        "block to stay",
-        g.lines[LineId::new(1)].spans[0].length,
-        2.0,
-        1e-15,
-    );
+    assert!((g.lines[L1].spans[0].start - Point::new(0.0, 0.0, 1.0)).norm() < 1e-15);
+    assert_abs("block to stay", g.lines[L1].spans[0].length, 2.0, 1e-15);
 }
 
 #[test]
@@ -559,20 +496,16 @@ fn explicit_side_settles_a_straight_path() {
             guide("g", [0.0, 0.0, 0.0], dir(0.0, 1.0, 0.0), 0.054),
             haul("b", [1.0, 0.0, 0.0]),
         ],
-        vec![vec![
-            entry(PartId::new(0)),
-            sided(PartId::new(1), Side::Right),
-            entry(PartId::new(2)),
-        ]],
+        vec![vec![entry(0), sided(1, Side::Right), entry(2)]],
     );
     let g = geometry(&r);
-    let entry = &g.lines[LineId::new(0)].entries[1];
+    let entry = &g.lines[L0].entries[1];
     assert_eq!(entry.sense, Some(-1.0));
     assert_abs("wrap", entry.wrap, 2.0 * 0.03f64.asin(), 1e-12);
     // Tangent length from a point 1 m off: √(1 − R²) (hand calculation).
     assert_abs(
         "lead",
-        g.lines[LineId::new(0)].spans[0].length,
+        g.lines[L0].spans[0].length,
         (1.0 - 0.03f64.powi(2)).sqrt(),
         1e-12,
     );
@@ -662,15 +595,10 @@ fn skew_pair_matches_an_independent_newton_solve() {
             guide("b", [1.2, 0.4, 1.0], axle_b, 0.054),
             weight("w", [1.5, -0.3, -0.2]),
         ],
-        vec![vec![
-            entry(PartId::new(0)),
-            entry(PartId::new(1)),
-            entry(PartId::new(2)),
-            entry(PartId::new(3)),
-        ]],
+        vec![vec![entry(0), entry(1), entry(2), entry(3)]],
     );
     let g = geometry(&r);
-    let line = &g.lines[LineId::new(0)];
+    let line = &g.lines[L0];
     let (sa, sb) = (
         line.entries[1].sense.unwrap(),
         line.entries[2].sense.unwrap(),
@@ -702,14 +630,7 @@ fn straight(positions: [[Real; 3]; 3], tread: Real, side: Option<Side>) -> Rig {
             sheave("s", positions[1], dir(0.0, 1.0, 0.0), tread),
             haul("b", positions[2]),
         ],
-        vec![vec![
-            entry(PartId::new(0)),
-            PathEntry {
-                side,
-                ..entry(PartId::new(1))
-            },
-            entry(PartId::new(2)),
-        ]],
+        vec![vec![entry(0), PathEntry { side, ..entry(1) }, entry(2)]],
     )
 }
 
@@ -748,11 +669,7 @@ fn point_inside_the_pitch_circle() {
     let r = rig(
         0.006,
         r.parts.into_vec(),
-        vec![vec![
-            entry(PartId::new(0)),
-            sided(PartId::new(1), Side::Left),
-            entry(PartId::new(2)),
-        ]],
+        vec![vec![entry(0), sided(1, Side::Left), entry(2)]],
     );
     assert!(
         matches!(error_of(&r), GeometryError::InsideCircle { part, point, .. }
@@ -773,10 +690,10 @@ fn overlapping_sheaves_have_no_crossed_tangent() {
             weight("w", [0.09, 0.0, 2.0]),
         ],
         vec![vec![
-            entry(PartId::new(0)),
-            sided(PartId::new(1), Side::Right),
-            sided(PartId::new(2), Side::Left),
-            entry(PartId::new(3)),
+            entry(0),
+            sided(1, Side::Right),
+            sided(2, Side::Left),
+            entry(3),
         ]],
     );
     assert!(matches!(error_of(&r), GeometryError::InsideCircle { .. }));
@@ -801,7 +718,7 @@ fn coincident_entries() {
     let r = rig(
         0.006,
         vec![anchor("a", [1.0, 2.0, 3.0]), haul("b", [1.0, 2.0, 3.0])],
-        vec![vec![entry(PartId::new(0)), entry(PartId::new(1))]],
+        vec![vec![entry(0), entry(1)]],
     );
     assert!(matches!(error_of(&r), GeometryError::Coincident { .. }));
 }
@@ -850,12 +767,7 @@ fn skew_iteration_out_of_iterations() {
             guide("b", [1.2, 0.4, 1.0], dir(0.3, 1.0, 0.4), 0.054),
             weight("w", [1.5, -0.3, -0.2]),
         ],
-        vec![vec![
-            entry(PartId::new(0)),
-            entry(PartId::new(1)),
-            entry(PartId::new(2)),
-            entry(PartId::new(3)),
-        ]],
+        vec![vec![entry(0), entry(1), entry(2), entry(3)]],
     );
     let options = GeometryOptions {
         tolerance: 0.0,
@@ -914,18 +826,8 @@ fn showcase() -> Rig {
             weight("w", [1.2, -0.4, 0.5]),
         ],
         vec![
-            vec![
-                turned(PartId::new(0), 2),
-                turned(PartId::new(1), 1),
-                entry(PartId::new(2)),
-                entry(PartId::new(4)),
-                entry(PartId::new(5)),
-            ],
-            vec![
-                entry(PartId::new(6)),
-                entry(PartId::new(7)),
-                entry(PartId::new(8)),
-            ],
+            vec![turned(0, 2), turned(1, 1), entry(2), entry(4), entry(5)],
+            vec![entry(6), entry(7), entry(8)],
         ],
     )
 }
@@ -960,7 +862,7 @@ fn same(what: &str, a: Real, b: Real) {
 #[test]
 fn showcase_rig_is_well_formed() {
     let g = geometry(&showcase());
-    let first = &g.lines[LineId::new(0)];
+    let first = &g.lines[L0];
     assert!(
         first.entries[1].fleet_in.unwrap() > 0.01,
         "the skew guide is really skew"
