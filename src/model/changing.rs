@@ -8,7 +8,7 @@
 //! drum, right-handed about its axle); `solve::travel` advances them as it moves the rig.
 
 use crate::math::{Real, Vector, STANDARD_GRAVITY};
-use crate::model::PartId;
+use crate::model::{IdVec, PartId};
 
 /// The end stops: how far the drive may move back and forward from the drawn position
 /// (m for a translating drive, rad for a drum). Both non-negative.
@@ -129,7 +129,7 @@ pub struct Changing {
     pub stop_speed: Option<Real>,
     /// Per part, file order (may be empty for a rig built in code: every part then has
     /// nothing that changes).
-    pub parts: Vec<PartChanging>,
+    pub parts: IdVec<PartId, PartChanging>,
 }
 
 impl Changing {
@@ -143,16 +143,15 @@ impl Changing {
             offset: 0.0,
             extra_load: 0.0,
         };
-        self.parts.get(part.index()).unwrap_or(&NONE)
+        self.parts.get(part).unwrap_or(&NONE)
     }
 
     /// The part's data for changing it (grows the list as needed).
     pub fn of_mut(&mut self, part: PartId) -> &mut PartChanging {
-        let k = part.index();
-        if self.parts.len() <= k {
-            self.parts.resize(k + 1, PartChanging::default());
+        while self.parts.len() <= part.index() {
+            self.parts.push(PartChanging::default());
         }
-        &mut self.parts[k]
+        &mut self.parts[part]
     }
 
     /// Whether any quantity is given as a schedule.

@@ -294,7 +294,7 @@ pub(super) fn resolve(root: &Node, source: &str) -> Result<Rig, Vec<Problem>> {
     let mut changing = crate::model::changing::Changing {
         travel,
         stop_speed,
-        parts: Vec::new(),
+        parts: IdVec::new(),
     };
     for (i, name) in names.names.iter().enumerate() {
         if let Some(data) = r.changing.remove(name) {
