@@ -21,7 +21,7 @@ use reeve::report::svg::DrawOptions;
 use reeve::report::{html, text, Report};
 use reeve::rig::{self, LoadError};
 
-use super::args::{OutputArg, RigArgs, ViewArg};
+use super::args::{OutputArg, RigArgs, UnitsArg, ViewArg};
 use super::destination::{emit, Destination};
 use super::outputs::today;
 use super::{load_and_solve, write_out, Failure, EXIT_OK};
@@ -41,6 +41,9 @@ pub struct WatchArgs {
     /// Projection of the report's drawing.
     #[command(flatten)]
     pub view: ViewArg,
+    /// Units of the check text and the report, as `report --units`.
+    #[command(flatten)]
+    pub units: UnitsArg,
 }
 
 /// How long the folder must be quiet after an event before the rig is read again.
@@ -187,7 +190,9 @@ fn round(
         )
     })?;
     match load_and_solve(&args.rig) {
-        Ok((rig, solution)) => {
+        Ok((mut rig, solution)) => {
+            // Every value is SI by now: only what the outputs show changes.
+            rig.units = args.units.shown(rig.units);
             let report = Report::build(&rig, &solution, checks::run(&rig, &solution));
             let source = path.display().to_string();
             write_out(|w| text::write_check(w, &rig, &report, &source))?;

@@ -251,6 +251,8 @@ fn shown(m: &Motion, units: &UnitSystem) -> ((Real, String), (Real, String)) {
 /// in lbf (US customary) shows ft/s, lbf, lbf*ft, lb (or lb*ft^2) and lbf/in (or
 /// lbf*ft/rad).
 struct Others {
+    position: (Real, String),
+    span_length: (Real, String),
     speed: (Real, &'static str),
     force: (Real, String),
     energy: (Real, &'static str),
@@ -262,7 +264,31 @@ struct Others {
 fn warning_text(wn: &crate::solve::motion::Warning, o: &Others) -> String {
     use crate::solve::motion::WarningFigures;
     let n = |x: Real| number(Some(x), 4);
-    match wn.figures {
+    match &wn.figures {
+        Some(WarningFigures::GeometryEnd {
+            t,
+            position,
+            speed,
+            reason,
+            rope_drawn,
+        }) => {
+            let (sv, su) = o.speed;
+            let (ps, pu) = &o.position;
+            let (ls, lu) = &o.span_length;
+            match reason {
+                Some(words) => format!(
+                    "at {t:.3} s the drive reaches {} {pu} from the drawn position, where the rig's geometry ends ({words}), at {} {su}: the run ends there; give `travel` for the real end stops",
+                    n(position * ps),
+                    n(speed * sv)
+                ),
+                None => format!(
+                    "at {t:.3} s the drive has moved {} {pu} and its geometry sets no limit that way: the run ends there, where its fastest part has moved as far as the rope drawn ({} {lu}), at {} {su}; give `travel` for the real end stops",
+                    n(position * ps),
+                    n(rope_drawn * ls),
+                    n(speed * sv)
+                ),
+            }
+        }
         Some(WarningFigures::StopSpeed {
             start,
             speed,
@@ -273,6 +299,41 @@ fn warning_text(wn: &crate::solve::motion::Warning, o: &Others) -> String {
                 "the stroke starting at {start:.3} s hits its end stop at {} {su}, faster than limits.stop_speed {} {su}",
                 n(speed * sv),
                 n(limit * sv)
+            )
+        }
+        Some(WarningFigures::Slack {
+            position,
+            tension,
+            line,
+            span,
+        }) => {
+            let (ps, pu) = &o.position;
+            let (fs, fu) = (o.force.0, &o.force.1);
+            format!(
+                "at drive position {} {pu} a stroke runs where span {span} of line `{line}` would need a negative tension ({} {fu}): the rope goes slack there and the figures there do not hold",
+                n(position * ps),
+                n(tension * fs)
+            )
+        }
+        Some(WarningFigures::StiffRope { rate, period }) => {
+            let (ks, ku) = o.spring;
+            format!(
+                "the rope's spring rate at the drive ({} {ku}) swings the drive on it with a period of {} s, more than {:e} times over the run: too fast to follow, and a real rope damps it; the run takes the rope as inextensible (one degree of freedom)",
+                n(rate * ks),
+                number(Some(*period), 3),
+                crate::solve::motion::MOST_ROPE_SWINGS
+            )
+        }
+        Some(WarningFigures::Unresolved {
+            dropped,
+            largest,
+            resolution,
+        }) => {
+            let (ps, pu) = &o.position;
+            format!(
+                "the rig moves by at most {} {pu} between stops ({dropped} stop(s) and restart(s) of less than {} {pu} left out of the events and stick-slip counts): below the run's resolution, as a very stiff rope or spring gives; the rig creeps or stays put there, and those stops are not stick-slip",
+                number(Some(largest * ps), 3),
+                number(Some(resolution * ps), 3)
             )
         }
         Some(WarningFigures::DynamicTension {
@@ -298,7 +359,11 @@ fn others(m: &Motion, units: &UnitSystem) -> Others {
     let force = units.unit(Dimension::Force);
     let lbf_ft = unit::LBF_FT.si;
     let lb_ft2 = unit::LB.si * unit::FT.si * unit::FT.si;
+    let ((ps, pu), _) = shown(m, units);
+    let span = units.span_length;
     Others {
+        position: (ps, pu),
+        span_length: (1.0 / span.si, span.symbol.to_string()),
         speed: match (m.profile.rotates, imperial) {
             (true, _) => (1f64.to_degrees(), "deg/s"),
             (false, false) => (1.0, "m/s"),

@@ -132,16 +132,28 @@ pub struct Sweep {
 }
 
 impl Sweep {
-    /// Whether any step fails a check (the sweep exits 1, as `check` would).
+    /// Whether any step fails a check or could not be solved (the sweep exits 1, as
+    /// `check` would: the study is incomplete).
     pub fn fails(&self) -> bool {
-        self.steps.iter().any(|s| s.verdict.fails)
+        self.steps.iter().any(|s| s.verdict.fails) || self.unsolved() > 0
+    }
+
+    /// How many steps could not be solved (they carry their error).
+    pub fn unsolved(&self) -> usize {
+        self.steps.iter().filter(|s| s.error.is_some()).count()
     }
 }
 
 impl Stroke {
-    /// Whether any step fails a check (the stroke exits 1, as `check` would).
+    /// Whether any step fails a check or could not be solved (the stroke exits 1, as
+    /// `check` would: the study is incomplete).
     pub fn fails(&self) -> bool {
-        self.steps.iter().any(|s| s.verdict.fails)
+        self.steps.iter().any(|s| s.verdict.fails) || self.unsolved() > 0
+    }
+
+    /// How many steps could not be solved (the stroke stops at the first).
+    pub fn unsolved(&self) -> usize {
+        self.steps.iter().filter(|s| s.error.is_some()).count()
     }
 }
 

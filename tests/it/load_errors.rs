@@ -867,6 +867,54 @@ fn cone_angle_errors_say_it_is_the_half_angle() {
 }
 
 #[test]
+fn schedule_times_before_the_start_or_three_at_one_time_are_refused() {
+    // Guards the schedule's times: a run starts at rest at 0 s, and every command but
+    // `motion` takes the value at the first time, so a point before 0 s made `check` use
+    // one value (the first point's) and `motion` another (interpolated at 0 s): it is
+    // refused where it is written. Two points at one time are a step; a third there means
+    // nothing (its value is never used) and is refused too.
+    let e = fails(&with(
+        "load: {mass: 40}}",
+        "load: {mass: {schedule: [[-5 s, 40 kg], [5 s, 50 kg]]}}}",
+    ));
+    assert_problem(
+        &e,
+        12,
+        &["parts.hook.load.mass.schedule.0.0", "0 s or later"],
+    );
+    let e = fails(&with(
+        "load: {mass: 40}}",
+        "load: {mass: {schedule: [[0 s, 40 kg], [5 s, 50 kg], [5 s, 45 kg], [5 s, 30 kg]]}}}",
+    ));
+    assert_problem(
+        &e,
+        12,
+        &[
+            "parts.hook.load.mass.schedule.3.0",
+            "two points at one time",
+        ],
+    );
+    // A step (two points at one time) still loads.
+    let text = with(
+        "load: {mass: 40}}",
+        "load: {mass: {schedule: [[0 s, 40 kg], [5 s, 50 kg], [5 s, 45 kg]]}}}",
+    );
+    assert!(load_str(&text, "rig.yaml").is_ok());
+    // The binary: exit 2, the file, line and column, and the key.
+    let bad = with(
+        "load: {mass: 40}}",
+        "load: {mass: {schedule: [[-5 s, 40 kg], [5 s, 50 kg]]}}}",
+    );
+    let ran = crate::support::run::reeve_on(&bad, &["motion"]);
+    assert_eq!(ran.code, 2, "{}", ran.stderr);
+    assert!(
+        ran.stderr.contains(".yaml:12:") && ran.stderr.contains("schedule.0.0"),
+        "{}",
+        ran.stderr
+    );
+}
+
+#[test]
 fn travel_and_time_keys_are_checked_where_they_are_written() {
     // DESIGN.md §7's keys: each bad value names its line, key and what was expected.
     let e = fails(&with(

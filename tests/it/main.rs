@@ -15,6 +15,7 @@ mod load_errors;
 mod material;
 mod material_warnings;
 mod motion;
+mod motion_checks;
 mod motion_progress;
 mod motion_travel;
 mod numerics;

@@ -220,7 +220,7 @@ fn coulomb_friction_takes_4f_over_k_off_the_amplitude_each_cycle() {
 /// `μ'·m_d·g·r/R = μ'·(1 kg)·g` at the rope, with `μ' = sin(atan μ)` of the friction
 /// circle (DESIGN.md §1); the bearing coefficients are chosen so that μ' is 0.5 at rest
 /// and 0.3 running.
-const STICK_SLIP: &str = "format: 1
+pub(crate) const STICK_SLIP: &str = "format: 1
 units: {length: mm, force: N, mass: kg, torque: N*m}
 ropes: {cord: {diameter: 4, breaking_strength: 5 kN, mu: 0.1}}
 parts:

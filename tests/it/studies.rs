@@ -314,8 +314,9 @@ fn a_stroke_of_a_tackle_keeps_the_velocity_ratio() {
 #[test]
 fn a_stroke_that_lifts_the_block_into_the_head_reports_where_it_fails() {
     // The hook starts 1000 mm below the upper sheaves and rises 1 mm per 4 mm of pull:
-    // 4400 mm of pull would lift it 1100 mm, into the upper block.
-    let s = json_of(&[
+    // 4400 mm of pull would lift it 1100 mm, into the upper block. The stroke is then
+    // incomplete: exit 1.
+    let s = reeve(&[
         "sweep",
         &test_rig("tackle-rated.yaml"),
         "--stroke",
@@ -323,7 +324,9 @@ fn a_stroke_that_lifts_the_block_into_the_head_reports_where_it_fails() {
         "--steps",
         "11",
         "--json",
-    ]);
+    ])
+    .expect_code(1)
+    .json();
     let steps = s["steps"].as_array().unwrap();
     let last = steps.last().unwrap();
     assert!(last["error"].is_string(), "{last}");
@@ -1294,7 +1297,8 @@ fn sweep_of_a_key_that_never_solves_is_bad_input() {
         assert!(out.stderr.contains("rig.yaml"), "{}", out.stderr);
         assert!(out.stdout.is_empty(), "{vary}: a table was printed");
     }
-    // A range that is valid only in part still sweeps, showing where it fails.
+    // A range that is valid only in part still sweeps, showing where it fails; the
+    // study is incomplete, so it exits 1 (some runs fail), not 2 (it could not run).
     let out = reeve_in(
         &dir,
         &[
@@ -1306,7 +1310,8 @@ fn sweep_of_a_key_that_never_solves_is_bad_input() {
             "3",
         ],
     );
-    assert_eq!(out.code, 0, "{}", out.stderr);
+    assert_eq!(out.code, 1, "{}", out.stderr);
+    assert!(out.stdout.contains("could not be solved"), "{}", out.stdout);
 }
 
 #[test]
@@ -1375,7 +1380,10 @@ fn spread_samples_on_the_model_are_the_rigs_the_file_gives() {
 fn a_huge_stroke_stops_where_a_span_closes_up() {
     let sash = crate::support::example_rig("sash-window");
     for distance in ["1e6 mm", "1e9 mm"] {
-        let s = json_of(&["sweep", &sash, "--stroke", distance, "--json"]);
+        // A stroke that stops short is incomplete: exit 1.
+        let s = reeve(&["sweep", &sash, "--stroke", distance, "--json"])
+            .expect_code(1)
+            .json();
         let steps = s["steps"].as_array().unwrap();
         let stopped = steps.iter().find(|st| !st["error"].is_null());
         let Some(stopped) = stopped else {
@@ -1390,4 +1398,55 @@ fn a_huge_stroke_stops_where_a_span_closes_up() {
             "{distance}: figures past the closed span: {s}"
         );
     }
+}
+
+/// Guards the sweeps' exit code: a sweep or stroke where some steps cannot be solved
+/// (a value the loader refuses, a stroke past where a span closes up) exited 0 like a
+/// clean study, while a slack span exits 1. Such a study is incomplete: exit 1 (some
+/// runs fail; 2 stays for a study that cannot run at all), with a note saying how many.
+#[test]
+fn a_sweep_with_unsolved_steps_exits_1_and_says_how_many() {
+    let vary = reeve(&[
+        "sweep",
+        "rigs/workshop-hoist.yaml",
+        "--vary",
+        "parts.hook.load.mass=-400..800 kg",
+        "--steps",
+        "3",
+    ]);
+    assert_eq!(vary.code, 1, "{}\n{}", vary.stdout, vary.stderr);
+    assert!(
+        vary.stdout.contains("1 of 3 steps could not be solved"),
+        "{}",
+        vary.stdout
+    );
+    let stroke = reeve(&[
+        "sweep",
+        "rigs/ramp-winch.yaml",
+        "--stroke",
+        "3400 deg",
+        "--steps",
+        "4",
+    ]);
+    assert_eq!(stroke.code, 1, "{}\n{}", stroke.stdout, stroke.stderr);
+    assert!(
+        stroke.stdout.contains("1 of 5 steps could not be solved"),
+        "{}",
+        stroke.stdout
+    );
+    // Every step solved and passing: still 0.
+    let clean = reeve(&[
+        "sweep",
+        "rigs/ramp-winch.yaml",
+        "--stroke",
+        "3000 deg",
+        "--steps",
+        "3",
+    ]);
+    assert_eq!(clean.code, 0, "{}\n{}", clean.stdout, clean.stderr);
+    assert!(
+        !clean.stdout.contains("could not be solved"),
+        "{}",
+        clean.stdout
+    );
 }

@@ -361,7 +361,7 @@ fn new_never_writes_over_an_existing_file() {
 // ---- `reeve watch` (issue 13 item 6) ----
 
 /// A running `reeve watch`, its stdout read line by line on a thread.
-struct Watching {
+pub(crate) struct Watching {
     child: std::process::Child,
     lines: std::sync::mpsc::Receiver<String>,
     stderr: std::thread::JoinHandle<String>,
@@ -369,7 +369,7 @@ struct Watching {
 }
 
 impl Watching {
-    fn start(dir: &std::path::Path, args: &[&str]) -> Watching {
+    pub(crate) fn start(dir: &std::path::Path, args: &[&str]) -> Watching {
         use std::io::BufRead;
         let mut child = std::process::Command::new(env!("CARGO_BIN_EXE_reeve"))
             .args(args)
@@ -409,7 +409,7 @@ impl Watching {
     /// The output up to and including the next line containing `needle` (a generous
     /// deadline against a hang, not a timing assertion).
     #[track_caller]
-    fn until(&mut self, needle: &str) -> String {
+    pub(crate) fn until(&mut self, needle: &str) -> String {
         let deadline = std::time::Instant::now() + std::time::Duration::from_secs(90);
         let mut round = String::new();
         loop {
@@ -433,7 +433,7 @@ impl Watching {
     }
 
     /// Sends SIGINT (Ctrl-C) and waits for the exit; (exit code, stderr).
-    fn interrupt(mut self) -> (i32, String, String) {
+    pub(crate) fn interrupt(mut self) -> (i32, String, String) {
         // SAFETY: a plain kill(2) on our own child's id.
         unsafe {
             libc::kill(self.child.id() as libc::pid_t, libc::SIGINT);

@@ -381,3 +381,75 @@ fn motion_with_units_imperial_has_no_metric_unit_and_its_csv_follows() {
     let json = stdout_of(&["motion", &rig, "--units", "imperial", "--format", "json"]);
     assert!(json.contains("\"position_unit\": \"m\""), "{json:.300}");
 }
+
+#[test]
+fn the_html_report_s_motion_section_follows_units() {
+    // Guards the HTML report's motion section (events, strokes, warnings with figures,
+    // the chart) against showing the file's metric units under `--units imperial`, as the
+    // text tables do not: the ballast panel moves, jerks and hits its stops.
+    let rig = example_rig("ballast-panel");
+    let html = stdout_of(&["report", &rig, "--units", "imperial", "-o", "-"]);
+    let start = html
+        .find("<section id=\"motion\">")
+        .expect("a motion section");
+    let end = start + html[start..].find("</section>").expect("its end");
+    let section = &html[start..end];
+    assert!(
+        section.contains("ft/s") && section.contains("(in)") && section.contains("(lb)"),
+        "{section:.600}"
+    );
+    assert_only_imperial("report motion section", section);
+    assert_only_imperial("report", &html);
+}
+
+#[test]
+fn watch_writes_its_check_and_report_in_the_units_asked() {
+    // Guards `watch`, the other command that writes the HTML report (with its motion
+    // section): it took no `--units`, so its page and check text kept the file's metric
+    // units whatever a user of `report --units` expected.
+    let dir = Scratch::new("watch-units");
+    std::fs::copy(example_rig("ballast-panel"), dir.join("rig.yaml")).expect("copy rig");
+    let mut watch = crate::tools::Watching::start(
+        &dir,
+        &[
+            "watch",
+            "rig.yaml",
+            "-o",
+            "report.html",
+            "--units",
+            "imperial",
+        ],
+    );
+    let first = watch.until("watching rig.yaml");
+    let html = std::fs::read_to_string(dir.join("report.html")).expect("report written");
+    let (code, out, err) = watch.interrupt();
+    assert_eq!(code, 0, "{out}\n{err}");
+    assert!(
+        html.contains("<section id=\"motion\">"),
+        "no motion section"
+    );
+    assert!(html.contains("ft/s"), "{html:.300}");
+    assert_only_imperial("watch report", &html);
+    assert_only_imperial("watch check text", &first);
+}
+
+#[test]
+fn motion_s_geometry_end_warnings_follow_units() {
+    // Guards the warnings of a run without `travel` (`geometry-end`, `open-end`): their
+    // positions, speeds and the rope drawn are figures, shown in the units asked.
+    let rig = example_rig("ramp-winch");
+    let text = stdout_of(&["motion", &rig, "--units", "imperial"]);
+    assert!(text.contains("[geometry-end]"), "{text}");
+    assert_only_imperial("motion geometry-end", &text);
+    let back = std::fs::read_to_string(&rig)
+        .expect("rig")
+        .replace("torque: 30,", "torque: 10,");
+    let ran = crate::support::run::reeve_on(&back, &["motion", "--units", "imperial"]);
+    assert!(ran.stdout.contains("[open-end]"), "{}", ran.stdout);
+    assert!(
+        ran.stdout.contains(" ft)"),
+        "the rope drawn in ft: {}",
+        ran.stdout
+    );
+    assert_only_imperial("motion open-end", &ran.stdout);
+}

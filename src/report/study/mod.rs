@@ -164,6 +164,15 @@ pub fn stalled_note(stalled_rows: usize, rows: usize) -> Option<String> {
     })
 }
 
+/// The note of a study some of whose runs could not be solved (it then exits 1).
+pub fn unsolved_note(unsolved_rows: usize, rows: usize, what: &str) -> Option<String> {
+    (unsolved_rows > 0).then(|| {
+        format!(
+            "{unsolved_rows} of {rows} steps could not be solved (their rows read `—`): the {what} is incomplete, and exits 1 as a failing check does."
+        )
+    })
+}
+
 /// A margin as a table cell (`12.5 %`, `—`).
 pub fn margin_cell(margin: Option<Real>) -> String {
     margin.map_or("—".into(), |m| format!("{:.1} %", m * 100.0))

@@ -13,7 +13,7 @@ use super::super::chart::{self, Panel, Series};
 use super::super::table::{csv_number, write_csv, Table};
 use super::super::text::{number, quantity};
 use super::super::Format;
-use super::{margin_cell, stalled_note, verdict_cell, write_human, CsvUnit};
+use super::{margin_cell, stalled_note, unsolved_note, verdict_cell, write_human, CsvUnit};
 
 /// Whether any row has a margin (something given to compare with).
 fn any_margin(verdicts: &[&Verdict]) -> bool {
@@ -135,6 +135,7 @@ pub fn write_sweep(w: &mut dyn Write, s: &Sweep, format: Format) -> io::Result<(
         verdicts.iter().filter(|v| !v.stalled.is_empty()).count(),
         verdicts.len(),
     ));
+    notes.extend(unsolved_note(s.unsolved(), s.steps.len(), "sweep"));
     let title = match &s.solve_for {
         Some(a) => format!(
             "Sweep of `{}`: the {} at `{}`",
@@ -309,6 +310,7 @@ pub fn write_stroke(w: &mut dyn Write, s: &Stroke, format: Format) -> io::Result
         verdicts.iter().filter(|v| !v.stalled.is_empty()).count(),
         verdicts.len(),
     ));
+    notes.extend(unsolved_note(s.unsolved(), s.steps.len(), "stroke"));
     write_human(
         w,
         format,

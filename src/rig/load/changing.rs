@@ -55,7 +55,7 @@ impl Resolver {
             return None;
         }
         let saved = self.schedule_for.take();
-        let mut points = Vec::with_capacity(items.len());
+        let mut points: Vec<(Real, Real)> = Vec::with_capacity(items.len());
         let mut ok = true;
         for (i, item) in items.iter().enumerate() {
             let ip = format!("{sp}.{i}");
@@ -91,6 +91,32 @@ impl Resolver {
             );
             match (t, q) {
                 (Some(t), Some(q)) => {
+                    // A run starts at rest at 0 s, and the other commands take the first
+                    // point's value: a point before 0 s would make them disagree.
+                    if t < 0.0 {
+                        self.report(
+                            pair[0].location,
+                            format!("{ip}.0"),
+                            format!(
+                                "expected a time of 0 s or later (a run starts at 0 s), found {}",
+                                pair[0].describe()
+                            ),
+                        );
+                        ok = false;
+                    }
+                    // Two points at one time are a step; a third's value is never used.
+                    let n = points.len();
+                    if n >= 2 && points[n - 1].0 == t && points[n - 2].0 == t {
+                        self.report(
+                            pair[0].location,
+                            format!("{ip}.0"),
+                            format!(
+                                "at most two points at one time (a step), found a third at {}",
+                                pair[0].describe()
+                            ),
+                        );
+                        ok = false;
+                    }
                     if let Some(&(before, _)) = points.last() {
                         if t < before {
                             self.report(

@@ -140,6 +140,9 @@ pub struct Run {
     pub energy: Energy,
     /// Accepted steps.
     pub steps: usize,
+    /// Whether the run ended where the geometry of a rig without `travel` ends (its
+    /// last event, a `stops` with the speed it arrived at), before the duration.
+    pub at_geometry_end: bool,
 }
 
 /// Settings.
@@ -488,9 +491,7 @@ enum Mode {
 pub fn run(profile: &Profile, drive: &DriveValue, settings: &Settings) -> Run {
     let c = profile.scale();
     let end = settings.duration.max(0.0);
-    let (lo, hi) = profile
-        .stops
-        .unwrap_or((Real::NEG_INFINITY, Real::INFINITY));
+    let (lo, hi) = profile.limits();
     let mut t = 0.0;
     let mut y: State = [0.0; 6];
     let mut mode = Mode::Rest;
@@ -499,6 +500,7 @@ pub fn run(profile: &Profile, drive: &DriveValue, settings: &Settings) -> Run {
         points: Vec::new(),
         energy: Energy::default(),
         steps: 0,
+        at_geometry_end: false,
     };
     let tension_at = |t: Real, x: Real, v: Real, a: Real| {
         let s = profile.at_t(t, x);
@@ -634,6 +636,20 @@ pub fn run(profile: &Profile, drive: &DriveValue, settings: &Settings) -> Run {
                     }
                     y[1] = 0.0;
                     push(&mut out, t, &y, a_new);
+                    if kind.is_some() && profile.limits_end_run() {
+                        // The geometry ends here (parts meet, or nothing is known past
+                        // it): the run ends, with the speed it arrived at.
+                        out.events.push(Event {
+                            t,
+                            kind: EventKind::Stops,
+                            position: y[0],
+                            drive_value: drive.at(t),
+                            speed,
+                        });
+                        out.at_geometry_end = true;
+                        mode = Mode::Rest;
+                        break;
+                    }
                     // A stop always records the impact; coming to rest in the open
                     // records `stops` unless it sets off again at once (the rest step).
                     let s = profile.at_t(t, y[0]);

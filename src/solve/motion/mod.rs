@@ -19,13 +19,23 @@
 pub mod integrate;
 pub mod profile;
 pub mod two;
+pub mod warnings;
 
 use crate::math::Real;
 use crate::model::{PartId, PartKind, Rig};
 use crate::solve::{given_quantity, Quantity, SolveError, SolveOptions};
 
 pub use integrate::{DriveValue, Energy, Event, EventKind, Point, Run, Settings};
-pub use profile::Profile;
+pub use profile::{GeometryEnd, GeometryEnds, Profile};
+use warnings::{
+    drop_unresolved_slips, geometry_end_warning, slack_stroke, unresolved_motion, warnings,
+};
+pub use warnings::{Warning, WarningFigures, RESOLVED_MOTION};
+
+/// The most swings of the drive on a stretchy rope that a two-degree run follows (each
+/// takes tens of steps): a stiffer rope, whose swings a real rope's damping would end,
+/// is taken as inextensible.
+pub const MOST_ROPE_SWINGS: Real = 2e4;
 
 /// The most times of the other parts' schedules at which the statics is solved again.
 pub const MOST_SOLVED_TIMES: usize = 100;
@@ -69,6 +79,17 @@ pub enum MotionError {
         /// Its quantity's name.
         quantity: &'static str,
     },
+    /// A rope would have to push at the drawn position: the statics needs a negative
+    /// tension there, which `check` fails as `slack-span`.
+    #[error("at the drawn position span {span} of line `{line}` would need a negative tension ({tension:.4} N): the rope goes slack there (as `check` says, `slack-span`), so the rig cannot be run from rest; make the ropes carry the loads")]
+    Slack {
+        /// The line.
+        line: String,
+        /// The span's index on the line.
+        span: usize,
+        /// Its tension, N (negative).
+        tension: Real,
+    },
     /// The rig cannot be solved somewhere on its travel.
     #[error(
         "at drive position {position} (m or rad from the drawn position) the rig cannot be solved"
@@ -104,41 +125,6 @@ pub struct Stroke {
     /// value for a forward stroke, greatest for a back stroke, since the previous
     /// stroke ended) to the start, s; None for a constant drive.
     pub lag: Option<Real>,
-}
-
-/// A warning of the motion run.
-#[derive(Debug, Clone, PartialEq)]
-pub struct Warning {
-    /// Stable code.
-    pub code: &'static str,
-    /// Text (SI units).
-    pub message: String,
-    /// The figures of the message, so that a report can show them in other units.
-    pub figures: Option<WarningFigures>,
-}
-
-/// The figures of a warning that carries units.
-#[derive(Debug, Clone, Copy, PartialEq)]
-pub enum WarningFigures {
-    /// `stop-speed`: the stroke's start (s), its impact speed and the limit (m/s or rad/s).
-    StopSpeed {
-        /// Start of the stroke, s.
-        start: Real,
-        /// Impact speed.
-        speed: Real,
-        /// `limits.stop_speed`.
-        limit: Real,
-    },
-    /// `dynamic-tension`: the peak in motion, the static check's largest and the
-    /// allowed tension, N.
-    DynamicTension {
-        /// Peak span tension in motion, N.
-        peak: Real,
-        /// Largest static tension, N.
-        static_peak: Real,
-        /// Breaking strength over design factor, N.
-        allowed: Real,
-    },
 }
 
 /// The motion of a rig.
@@ -254,6 +240,22 @@ fn motion_inner(
     for &t in &times {
         profile.later.push((t, build(&at_time(t))?.samples));
     }
+    // A rope that would have to push: its figures are those of a slack rope (the band
+    // comes out reversed, the friction negative). Where both ways need it at the drawn
+    // position nothing can be run; a stroke through such figures is warned below.
+    let at_rest = profile.at(0.0);
+    if at_rest.least_forward.0 < 0.0 && at_rest.least_back.0 < 0.0 {
+        let (tension, (l, j)) = if at_rest.least_forward.0 < at_rest.least_back.0 {
+            at_rest.least_forward
+        } else {
+            at_rest.least_back
+        };
+        return Err(MotionError::Slack {
+            line: rig.lines[l].name.clone(),
+            span: j,
+            tension,
+        });
+    }
     // The latest schedule end, the drive's or another part's.
     let last_end = others
         .iter()
@@ -286,6 +288,25 @@ fn motion_inner(
         }
         _ => false,
     });
+    // A rope so stiff that the drive swings on it faster than the run can follow (and a
+    // real rope damps it) is taken as inextensible: one degree of freedom, warned.
+    let mut too_stiff = None;
+    let two_dof = two_dof.filter(|&k| {
+        let drive_mass = match (kind, &drive_value) {
+            (PartKind::Weight(_), DriveValue::Constant(m)) => *m,
+            (PartKind::Weight(_), DriveValue::Scheduled(s)) => {
+                s.points.iter().map(|p| p.1).fold(Real::INFINITY, Real::min)
+            }
+            (PartKind::Drum(_), _) => profile.drive_inertia,
+            _ => return true,
+        };
+        let period = 2.0 * std::f64::consts::PI * (drive_mass.max(0.0) / k).sqrt();
+        let follows = period * MOST_ROPE_SWINGS >= duration;
+        if !follows {
+            too_stiff = Some((k, period));
+        }
+        follows
+    });
     let run = match (two_dof, kind) {
         (Some(k), PartKind::Weight(_)) => two::run(&profile, &drive_value, &settings, k, None),
         (Some(k), PartKind::Drum(_)) => two::run(
@@ -308,6 +329,8 @@ fn motion_inner(
         (None, _) => integrate::run(&profile, &drive_value, &settings),
     };
     progress.step();
+    let mut run = run;
+    let unresolved = drop_unresolved_slips(&mut run.events);
     let mut strokes = strokes(&run);
     if let DriveValue::Scheduled(s) = &drive_value {
         let mut since = 0.0;
@@ -317,6 +340,48 @@ fn motion_inner(
         }
     }
     let mut warnings = warnings(&rig, &profile, &run, &strokes);
+    if let Some((x, (tension, (l, j)))) = slack_stroke(&profile, &run, &strokes) {
+        let line = rig.lines[l].name.clone();
+        let unit = if profile.rotates { "rad" } else { "m" };
+        warnings.push(Warning {
+            code: "slack-span",
+            message: format!(
+                "at drive position {x:.4} {unit} a stroke runs where span {j} of line `{line}` would need a negative tension ({tension:.4} N): the rope goes slack there and the figures there do not hold"
+            ),
+            figures: Some(WarningFigures::Slack {
+                position: x,
+                tension,
+                line,
+                span: j,
+            }),
+        });
+    }
+    if let Some((rate, period)) = too_stiff {
+        let unit = if profile.rotates { "N*m/rad" } else { "N/m" };
+        warnings.push(Warning {
+            code: "stiff-rope",
+            message: format!(
+                "the rope's spring rate at the drive ({rate:.4e} {unit}) swings the drive on it with a period of {period:.3e} s, more than {MOST_ROPE_SWINGS:e} times over the run: too fast to follow, and a real rope damps it; the run takes the rope as inextensible (one degree of freedom)"
+            ),
+            figures: Some(WarningFigures::StiffRope { rate, period }),
+        });
+    }
+    if let Some(figures) = unresolved_motion(&run, &strokes, unresolved) {
+        let WarningFigures::Unresolved {
+            dropped, largest, ..
+        } = figures
+        else {
+            unreachable!("unresolved_motion gives Unresolved")
+        };
+        let unit = if profile.rotates { "rad" } else { "m" };
+        warnings.push(Warning {
+            code: "unresolved-motion",
+            message: format!(
+                "the rig moves by at most {largest:.3e} {unit} between stops ({dropped} stop(s) and restart(s) of less than {RESOLVED_MOTION:e} {unit} left out of the events and stick-slip counts): below the run's resolution, as a very stiff rope or spring gives; the rig creeps or stays put there, and those stops are not stick-slip"
+            ),
+            figures: Some(figures),
+        });
+    }
     if all_times > times.len() {
         warnings.push(Warning {
             code: "schedule-thinned",
@@ -328,7 +393,9 @@ fn motion_inner(
         });
     }
     let reached = run.points.last().map_or(0.0, |p| p.t);
-    if reached < duration * (1.0 - 1e-9) {
+    if run.at_geometry_end {
+        warnings.push(geometry_end_warning(&profile, &run));
+    } else if reached < duration * (1.0 - 1e-9) {
         warnings.push(Warning {
             code: "step-limit",
             message: format!(
@@ -340,7 +407,7 @@ fn motion_inner(
     if profile.stops.is_none() {
         warnings.push(Warning {
             code: "no-travel",
-            message: "the rig gives no `travel`: its loads are held as at the drawn position and it has no end stops".to_string(),
+            message: "the rig gives no `travel`: it has no end stops, and the run follows its geometry until a span closes up (or, where the geometry sets no limit, until its fastest part has moved as far as the rope drawn) and ends there".to_string(),
                     figures: None,
 });
     }
@@ -404,12 +471,19 @@ fn lag(
 pub fn strokes(run: &Run) -> Vec<Stroke> {
     let mut out: Vec<Stroke> = Vec::new();
     let mut current: Option<Stroke> = None;
+    // Whether the current stroke has had its end (a stop, a stick or an end stop).
+    let mut ended = false;
     for e in &run.events {
         match e.kind {
             EventKind::StartsForward | EventKind::StartsBack => {
-                if let Some(s) = current.take() {
+                if let Some(mut s) = current.take() {
+                    // Turned round without coming to rest: it ends where the next starts.
+                    if !ended {
+                        s.end = e.t;
+                    }
                     out.push(s);
                 }
+                ended = false;
                 current = Some(Stroke {
                     direction: if e.kind == EventKind::StartsForward {
                         1.0
@@ -431,11 +505,17 @@ pub fn strokes(run: &Run) -> Vec<Stroke> {
                 }
             }
             EventKind::Stops | EventKind::Sticks => {
+                ended = true;
                 if let Some(s) = current.as_mut() {
                     s.end = e.t;
+                    // A `stops` with a speed ends the run where the geometry ends.
+                    if e.speed != 0.0 {
+                        s.stop_speed = Some(e.speed.abs());
+                    }
                 }
             }
             EventKind::ReachesForwardStop | EventKind::ReachesBackStop => {
+                ended = true;
                 if let Some(s) = current.as_mut() {
                     s.end = e.t;
                     s.stop_speed = Some(e.speed.abs());
@@ -464,61 +544,6 @@ pub fn strokes(run: &Run) -> Vec<Stroke> {
         }
         // The output points are sparser than the steps: the impact speed is exact.
         s.peak_speed = s.peak_speed.max(s.stop_speed.unwrap_or(0.0));
-    }
-    out
-}
-
-fn warnings(rig: &Rig, profile: &Profile, run: &Run, strokes: &[Stroke]) -> Vec<Warning> {
-    let mut out = Vec::new();
-    let unit = if profile.rotates { "rad/s" } else { "m/s" };
-    if let Some(s) = strokes.iter().find(|s| s.stick_slip_cycles > 0) {
-        out.push(Warning {
-            code: "jerky-motion",
-            message: format!(
-                "the stroke starting at {:.3} s stops and sets off again {} time(s): the motion is jerky (stick-slip)",
-                s.start, s.stick_slip_cycles
-            ),
-                    figures: None,
-});
-    }
-    if let Some(limit) = rig.changing.stop_speed {
-        for s in strokes {
-            if let Some(v) = s.stop_speed.filter(|v| *v > limit) {
-                out.push(Warning {
-                    code: "stop-speed",
-                    message: format!(
-                        "the stroke starting at {:.3} s hits its end stop at {v:.4} {unit}, faster than limits.stop_speed {limit:.4} {unit}",
-                        s.start
-                    ),
-                    figures: Some(WarningFigures::StopSpeed {
-                        start: s.start,
-                        speed: v,
-                        limit,
-                    }),
-                });
-            }
-        }
-    }
-    if let Some(allowed) = profile.allowed_tension {
-        let peak = run.points.iter().map(|p| p.tension).fold(0.0, Real::max);
-        let static_peak = profile
-            .samples
-            .iter()
-            .map(|s| s.static_tension)
-            .fold(0.0, Real::max);
-        if peak > allowed {
-            out.push(Warning {
-                code: "dynamic-tension",
-                message: format!(
-                    "a span tension reaches {peak:.1} N in motion (the static check's largest is {static_peak:.1} N), beyond the breaking strength over the design factor ({allowed:.1} N)"
-                ),
-                figures: Some(WarningFigures::DynamicTension {
-                    peak,
-                    static_peak,
-                    allowed,
-                }),
-            });
-        }
     }
     out
 }

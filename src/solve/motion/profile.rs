@@ -21,6 +21,9 @@ use crate::solve::kinematics::Motion;
 use crate::solve::statics::{ById, Problem};
 use crate::solve::{travel, Case, Quantity, Solution, SolveError, SolveOptions};
 
+/// A span's tension, N, with the span: `(tension, (line, index on the line))`.
+pub type SpanTension = (Real, (LineId, usize));
+
 /// The figures at one position. Drive values in the drive's natural SI unit (N, kg or
 /// N·m); inertias in that unit per unit drive acceleration (m/s² or rad/s²).
 #[derive(Debug, Clone, Copy, PartialEq)]
@@ -58,6 +61,13 @@ pub struct Sample {
     pub tension_back: (Real, Real),
     /// Largest static safety-check tension (the larger of forward and back), N.
     pub static_tension: Real,
+    /// The least span tension moving forward at constant speed, N, and its span
+    /// `(line, index)`: below zero the rope would have to push (slack), and the figures
+    /// of that case mean nothing (a negative tension times the friction ratio: negative
+    /// friction, a reversed band).
+    pub least_forward: SpanTension,
+    /// The same moving back.
+    pub least_back: SpanTension,
 }
 
 /// The sampled travel.
@@ -87,6 +97,34 @@ pub struct Profile {
     /// linearly in time (the scheduled values are linear there, and the statics is
     /// linear in the loads for fixed pin loads). Empty without such schedules.
     pub later: Vec<(Real, Vec<Sample>)>,
+    /// Where a rig without `travel` is followed: the ends of its geometry, at which the
+    /// run ends (None where the rig gives `travel`: its stops).
+    pub ends: Option<GeometryEnds>,
+}
+
+/// Where a rig without `travel` can be followed on one side of its drawn position.
+#[derive(Debug, Clone, PartialEq)]
+pub struct GeometryEnd {
+    /// The drive's position there, m or rad from the drawn position.
+    pub position: Real,
+    /// Why the rig cannot be followed past it (a span closes up: its words; or the
+    /// solver's refusal there); None where the geometry sets no limit that way within
+    /// the reach of the rope drawn.
+    pub reason: Option<String>,
+}
+
+/// The two ends of a rig without `travel` ([`GeometryEnd`]), found by following its
+/// geometry from the drawn position.
+#[derive(Debug, Clone, PartialEq)]
+pub struct GeometryEnds {
+    /// The back end (position ≤ 0).
+    pub back: GeometryEnd,
+    /// The forward end (position ≥ 0).
+    pub forward: GeometryEnd,
+    /// The rope drawn, m: the spans' lengths at the drawn position added up. Where the
+    /// geometry sets no limit, the rig is followed until its fastest-moving part (or
+    /// rope) has moved this far.
+    pub rope_drawn: Real,
 }
 
 impl Profile {
@@ -133,6 +171,22 @@ impl Profile {
             .find(|&b| b > t + 1e-12 * b.abs().max(1.0))
     }
 
+    /// The positions at which the run stops: the end stops of `travel`, else the ends of
+    /// the geometry (unbounded where neither is known).
+    pub fn limits(&self) -> (Real, Real) {
+        match (self.stops, &self.ends) {
+            (Some(s), _) => s,
+            (None, Some(e)) => (e.back.position, e.forward.position),
+            (None, None) => (Real::NEG_INFINITY, Real::INFINITY),
+        }
+    }
+
+    /// Whether reaching [`Profile::limits`] ends the run (the geometry's ends of a rig
+    /// without `travel`) rather than holding the rig at an end stop.
+    pub fn limits_end_run(&self) -> bool {
+        self.stops.is_none() && self.ends.is_some()
+    }
+
     /// The solved times, for root-finding on the holding band at rest.
     pub fn times(&self) -> impl Iterator<Item = Real> + '_ {
         self.later.iter().map(|(t, _)| *t)
@@ -163,6 +217,8 @@ fn blend(a: &Sample, b: &Sample, w: Real) -> Sample {
             l(a.tension_back.1, b.tension_back.1),
         ),
         static_tension: l(a.static_tension, b.static_tension),
+        least_forward: (l(a.least_forward.0, b.least_forward.0), a.least_forward.1),
+        least_back: (l(a.least_back.0, b.least_back.0), a.least_back.1),
     }
 }
 
@@ -268,6 +324,14 @@ fn largest(t: &ById<LineId, Vec<Real>>) -> (LineId, usize, Real) {
     best
 }
 
+/// The least span tension with its `(line, index)`.
+fn least(t: &ById<LineId, Vec<Real>>) -> SpanTension {
+    t.entries()
+        .flat_map(|(l, spans)| spans.iter().enumerate().map(move |(j, &v)| (v, (l, j))))
+        .min_by(|a, b| a.0.total_cmp(&b.0))
+        .unwrap_or((0.0, (LineId::new(0), 0)))
+}
+
 /// The figures of `rig` (whose `solve_for` is its drive) solved as `solution`, at `x`.
 ///
 /// # Errors
@@ -341,6 +405,8 @@ pub fn sample(
         tension_forward: (tf, response(&f1.tension, lf, jf, tf)),
         tension_back: (tb, response(&b1.tension, lb, jb, tb)),
         static_tension: tf.max(tb),
+        least_forward: least(&main.forward.tension),
+        least_back: least(&main.back.tension),
     })
 }
 
@@ -358,11 +424,11 @@ pub fn build(
     build_told(rig, intervals, options, &|| {})
 }
 
-/// How many positions [`build`] samples: one without `travel`, else the drawn position
-/// and each interval's end on both sides.
+/// How many positions [`build`] samples: the drawn position and each interval's end on
+/// both sides (without `travel`, at most that many: the geometry may end sooner).
 pub fn sample_count(rig: &Rig, intervals: usize) -> usize {
     let Some(t) = rig.changing.travel else {
-        return 1;
+        return 1 + 2 * intervals.max(1);
     };
     let h = (t.back + t.forward) / intervals.max(1) as Real;
     let n = |length: Real| {
@@ -411,9 +477,48 @@ pub fn build_told(
         allowed_tension,
         drive_stiffness: main.drive_stiffness.filter(|k| k.is_finite() && *k > 0.0),
         later: Vec::new(),
+        ends: None,
     };
     tick();
     let Some(t) = rig.changing.travel else {
+        // No end stops: the rig is followed until its geometry ends on each side.
+        let rope_drawn: Real = first
+            .geometry
+            .lines
+            .iter()
+            .flat_map(|l| l.spans.iter())
+            .map(|s| s.length)
+            .sum();
+        let fastest = travel::part_velocities(rig, &first)
+            .iter()
+            .map(|(_, v)| v.norm())
+            .chain(
+                first
+                    .kinematics
+                    .rope_speed
+                    .iter()
+                    .flatten()
+                    .map(|v| v.abs()),
+            )
+            .fold(0.0, Real::max);
+        let reach = if fastest > 1e-12 {
+            rope_drawn / fastest
+        } else {
+            rope_drawn
+        };
+        let mut side = |sign: Real| {
+            let (samples, end) = follow(rig, &first, sign * reach, intervals, options, tick);
+            profile.samples.extend(samples);
+            end
+        };
+        let forward = side(1.0);
+        let back = side(-1.0);
+        profile.samples.sort_by(|a, b| a.x.total_cmp(&b.x));
+        profile.ends = Some(GeometryEnds {
+            back,
+            forward,
+            rope_drawn,
+        });
         return Ok(profile);
     };
     profile.stops = Some((-t.back, t.forward));
@@ -455,4 +560,106 @@ pub fn build_told(
     }
     profile.samples.sort_by(|a, b| a.x.total_cmp(&b.x));
     Ok(profile)
+}
+
+/// Follows `rig` (solved as `first`) from its drawn position towards `reach` (m or rad,
+/// signed) in `intervals` steps, each two midpoint sub-steps as [`build`] takes them,
+/// until a span closes up or the rig cannot be solved: that last step is bisected
+/// (twelve halvings) for the farthest position that still solves, where the geometry
+/// ends. Returns the samples past the drawn position and the end.
+fn follow(
+    rig: &Rig,
+    first: &Solution,
+    reach: Real,
+    intervals: usize,
+    options: &SolveOptions,
+    tick: &dyn Fn(),
+) -> (Vec<Sample>, GeometryEnd) {
+    let solve = |r: &Rig| crate::solve::solve(r, options);
+    // Two half steps of `dx`, or why the rig cannot be followed there.
+    let advance = |r: &Rig, s: &Solution, dx: Real| -> Result<(Rig, Solution), String> {
+        let (mut r, mut s) = (r.clone(), s.clone());
+        for _ in 0..2 {
+            let (r2, s2, closed) =
+                travel::midpoint_step_closing(&r, &s, 0.5 * dx, solve).map_err(|e| chain(&e))?;
+            if let Some(c) = closed.or_else(|| travel::closed_span(&r2, &s, &s2)) {
+                let line = &r2.lines[c.line];
+                return Err(format!(
+                    "span {} of line `{}` closes up: `{}` meets `{}`",
+                    c.span,
+                    line.name,
+                    r2.parts[line.path[c.span].part].name,
+                    r2.parts[line.path[c.span + 1].part].name
+                ));
+            }
+            (r, s) = (r2, s2);
+        }
+        Ok((r, s))
+    };
+    let at = |r: &Rig, s: &Solution, dx: Real, x: Real| {
+        let (r2, s2) = advance(r, s, dx)?;
+        let sample = sample(&r2, &s2, x, options).map_err(|e| chain(&e))?;
+        Ok::<_, String>((r2, s2, sample))
+    };
+    let n = intervals.max(1);
+    let dx = reach / n as Real;
+    let (mut r, mut s) = (rig.clone(), first.clone());
+    let mut x = 0.0;
+    let mut out = Vec::new();
+    for _ in 0..n {
+        match at(&r, &s, dx, x + dx) {
+            Ok((r2, s2, sample)) => {
+                (r, s, x) = (r2, s2, x + dx);
+                out.push(sample);
+                tick();
+            }
+            Err(reason) => {
+                let (mut lo, mut hi) = (0.0, 1.0);
+                let mut best = None;
+                for _ in 0..12 {
+                    let f = 0.5 * (lo + hi);
+                    match at(&r, &s, f * dx, x + f * dx) {
+                        Ok((_, _, sample)) => {
+                            lo = f;
+                            best = Some(sample);
+                        }
+                        Err(_) => hi = f,
+                    }
+                }
+                if let Some(sample) = best {
+                    x = sample.x;
+                    out.push(sample);
+                }
+                return (
+                    out,
+                    GeometryEnd {
+                        position: x,
+                        reason: Some(reason),
+                    },
+                );
+            }
+        }
+    }
+    (
+        out,
+        GeometryEnd {
+            position: x,
+            reason: None,
+        },
+    )
+}
+
+/// An error and its sources, joined by `: ` (the words of a geometry end).
+fn chain(error: &dyn std::error::Error) -> String {
+    let mut words = error.to_string();
+    let mut source = error.source();
+    while let Some(e) = source {
+        let more = e.to_string();
+        if !words.ends_with(&more) {
+            words.push_str(": ");
+            words.push_str(&more);
+        }
+        source = e.source();
+    }
+    words
 }

@@ -33,9 +33,7 @@ pub fn run(
 ) -> Run {
     let c = profile.scale();
     let end = settings.duration.max(0.0);
-    let (lo, hi) = profile
-        .stops
-        .unwrap_or((Real::NEG_INFINITY, Real::INFINITY));
+    let (lo, hi) = profile.limits();
     let m_d = |t: Real| own.unwrap_or_else(|| drive.at(t)).max(1e-9);
     // A drum drive's own inertia is on the drive side, not the rig side.
     let own_rig = if own.is_some() {
@@ -54,6 +52,7 @@ pub fn run(
         points: Vec::new(),
         energy: Energy::default(),
         steps: 0,
+        at_geometry_end: false,
     };
     let rhs = |sigma: Real| {
         move |t: Real, z: &State| -> State {
@@ -214,6 +213,17 @@ pub fn run(
                 speed: if kind == EventKind::Stops { 0.0 } else { speed },
             });
             sigma = 0.0;
+            if kind != EventKind::Stops && profile.limits_end_run() {
+                // The geometry ends here: the run ends, the arrival speed its event's.
+                let last = out.events.len() - 1;
+                out.events[last].kind = EventKind::Stops;
+                out.events[last].speed = speed;
+                out.at_geometry_end = true;
+                t = t_new;
+                y = y_new;
+                out.points.push(point(t, &y));
+                break;
+            }
         }
         let event = out.events.last().is_some_and(|e| e.t == t_new)
             || drive.next_break(t).is_some_and(|b| b <= t_new);
