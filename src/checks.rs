@@ -3,7 +3,7 @@
 //! load, and the solver's own health. Each warning has a stable `code`.
 
 use crate::math::Real;
-use crate::model::{PartKind, Rig};
+use crate::model::{IdVec, PartKind, Rig, RopeId};
 use crate::solve::{Outcome, Solution, Status, SubRigSolution};
 use crate::units::Dimension;
 
@@ -412,6 +412,54 @@ pub fn run(rig: &Rig, solution: &Solution) -> Vec<Warning> {
     out
 }
 
+/// Ropes that give no `breaking_strength`: their spans' safety factor cannot be
+/// checked, and without a word a rig of any load would read clean. One warning per
+/// rope the sub-rig's lines use, naming the largest tension it carries there in any
+/// case (either end of a span); not a failure, since the strength is optional.
+fn strength_unknown_checks(rig: &Rig, sub: &SubRigSolution) -> Vec<Warning> {
+    let mut largest: IdVec<RopeId, Option<Real>> = IdVec::filled(None, rig.ropes.len());
+    for (l, _) in sub.forward.tension.entries() {
+        let rope = rig.lines[l].rope;
+        if rig.ropes[rope].breaking_strength.is_some() {
+            continue;
+        }
+        let worst = [&sub.ideal, &sub.forward, &sub.back]
+            .iter()
+            .flat_map(|c| {
+                let start = c.tension.get(l).into_iter().flatten();
+                start.chain(c.tension_end.get(l).into_iter().flatten())
+            })
+            .copied()
+            .filter(|t| t.is_finite())
+            .fold(0.0, Real::max);
+        largest[rope] = Some(largest[rope].map_or(worst, |w| w.max(worst)));
+    }
+    let mut out = Vec::new();
+    for (rope, worst) in largest.enumerate() {
+        let Some(worst) = *worst else { continue };
+        // A slack rope (every tension negative) has no largest tension to name.
+        let largest = if worst > 0.0 {
+            format!(
+                " (largest tension {})",
+                rig.units.show(worst, Dimension::Force)
+            )
+        } else {
+            String::new()
+        };
+        out.push(warn(
+            "strength-unknown",
+            None,
+            false,
+            format!(
+                "rope `{}` gives no `breaking_strength`, so the safety factor of its spans is not checked against the design factor {}{largest}; add the rope's rated strength",
+                rig.ropes[rope].name,
+                rig.limits.design_factor,
+            ),
+        ));
+    }
+    out
+}
+
 /// Lines along which friction multiplies the tension beyond any rope's range
 /// ([`crate::friction::PHYSICAL_RATIO_LIMIT`]), passage ratios in series between the
 /// line's ends and drums (a drum's ratio is its load torque's, not friction's). Every
@@ -595,6 +643,7 @@ pub fn subrig_checks(rig: &Rig, sub: &SubRigSolution) -> Vec<Warning> {
             ));
         }
     }
+    out.extend(strength_unknown_checks(rig, sub));
     out.extend(friction_lock_checks(rig, sub));
     for case in [&sub.forward, &sub.back] {
         let name = case.case.name();

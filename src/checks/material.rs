@@ -19,6 +19,10 @@
 //!   is well below its circle's (about 0.4 d² against 0.785 d² for 6x19 wire rope,
 //!   common practice), so the limits keep a 25 % margin for a measured diameter above
 //!   nominal.
+//! - A rope diameter outside [`ROPE_DIAMETER_RANGE`] (0.05 mm to 0.25 m): the finest
+//!   monofilament line is about 0.08 mm and the largest mooring hawsers about 0.2 m
+//!   (common practice); outside that the value is almost always written in the wrong
+//!   unit (`diameter: 6` in a metre file), and every figure that follows reads clean.
 //! - A span whose own weight pulls its ends more than [`SAG_SLOPE_LIMIT`] (0.2 rad,
 //!   about 11°) off the straight chord the statics keeps: with run `a`, weight `q` per
 //!   length and tension `T`, the parabolic cable leaves each end at `q·a/(2T)` to its
@@ -31,7 +35,7 @@ use super::{warn, Warning};
 use crate::math::Real;
 use crate::model::Rig;
 use crate::solve::Solution;
-use crate::units::significant;
+use crate::units::{show_in, significant, unit, Dimension};
 
 /// Strain (tension over EA) above which a span's stretch is flagged.
 pub const STRAIN_LIMIT: Real = 0.10;
@@ -39,6 +43,8 @@ pub const STRAIN_LIMIT: Real = 0.10;
 pub const BEND_LOSS_LIMIT: Real = 0.2;
 /// End slope to the chord (rad) above which a span's sag is flagged.
 pub const SAG_SLOPE_LIMIT: Real = 0.2;
+/// Rope diameters, m, outside which no rope exists (see the module notes).
+pub const ROPE_DIAMETER_RANGE: (Real, Real) = (0.05e-3, 0.25);
 /// Density of steel, kg/m³ (handbook value, from memory).
 const STEEL_DENSITY: Real = 7850.0;
 /// Young's modulus of steel, Pa (handbook value, from memory).
@@ -46,12 +52,28 @@ const STEEL_MODULUS: Real = 210e9;
 /// Margin over a solid steel bar of the nominal diameter.
 const SOLID_MARGIN: Real = 1.25;
 
-/// Rope keys that describe no rope: a bend loss far above published figures, a rope
-/// heavier or stiffer than solid steel of its diameter.
+/// Rope keys that describe no rope: a diameter no rope has, a bend loss far above
+/// published figures, a rope heavier or stiffer than solid steel of its diameter.
 pub fn rope_checks(rig: &Rig) -> Vec<Warning> {
     let mut out = Vec::new();
     for rope in &rig.ropes {
         let name = &rope.name;
+        let (thinnest, thickest) = ROPE_DIAMETER_RANGE;
+        if rope.diameter < thinnest || rope.diameter > thickest {
+            out.push(warn(
+                "rope-diameter",
+                None,
+                false,
+                format!(
+                    "rope `{name}`: `diameter` {} is {} than any rope (about {} to {}); check the value and its unit (bare numbers are in the file's length unit, {})",
+                    rig.units.show(rope.diameter, crate::units::Dimension::Length),
+                    if rope.diameter > thickest { "thicker" } else { "thinner" },
+                    rig.units.show(thinnest, crate::units::Dimension::Length),
+                    rig.units.show(thickest, crate::units::Dimension::Length),
+                    rig.units.length.symbol
+                ),
+            ));
+        }
         if rope.bend_loss > BEND_LOSS_LIMIT {
             out.push(warn(
                 "bend-loss",
@@ -70,16 +92,23 @@ pub fn rope_checks(rig: &Rig) -> Vec<Warning> {
         }
         if let Some(m) = rope.mass_per_length {
             let solid = STEEL_DENSITY * area;
+            // No `units` key names a mass per length (bare numbers are kg/m); shown in
+            // lb/ft where the masses are shown in pounds.
+            let per_length = if rig.units.mass.symbol == unit::LB.symbol {
+                unit::LB_PER_FT
+            } else {
+                unit::KG_PER_M
+            };
             if m > SOLID_MARGIN * solid {
                 out.push(warn(
                     "rope-weight",
                     None,
                     false,
                     format!(
-                        "rope `{name}`: `mass_per_length` {} kg/m is {} times a solid steel bar of its diameter ({} kg/m); no rope weighs that, so check the value and its unit",
-                        significant(m, 4),
+                        "rope `{name}`: `mass_per_length` {} is {} times a solid steel bar of its diameter ({}); no rope weighs that, so check the value and its unit",
+                        show_in(m, per_length),
                         significant(m / solid, 3),
-                        significant(solid, 3)
+                        show_in(solid, per_length)
                     ),
                 ));
             }
@@ -92,10 +121,10 @@ pub fn rope_checks(rig: &Rig) -> Vec<Warning> {
                     None,
                     false,
                     format!(
-                        "rope `{name}`: `stiffness` {} N is {} times the EA of a solid steel bar of its diameter ({} N); no rope is that stiff, so check the value and its unit (EA is a force: the tension that would double the length)",
-                        significant(ea, 4),
+                        "rope `{name}`: `stiffness` {} is {} times the EA of a solid steel bar of its diameter ({}); no rope is that stiff, so check the value and its unit (EA is a force: the tension that would double the length)",
+                        rig.units.show(ea, Dimension::Force),
                         significant(ea / solid, 3),
-                        significant(solid, 3)
+                        rig.units.show(solid, Dimension::Force)
                     ),
                 ));
             }

@@ -77,7 +77,7 @@ pub enum Command {
     Rank(studies::RankArgs),
     /// Monte Carlo spread over the values the rig gives as ranges.
     Spread(studies::SpreadArgs),
-    /// Run the rig in time from rest: events, strokes, time series (DESIGN.md §7).
+    /// Run the rig in time from rest: events, strokes, time series.
     Motion(motion::MotionArgs),
     /// Print a shell completion script (bash, zsh, fish, powershell).
     Completions(tools::CompletionsArgs),
@@ -174,16 +174,31 @@ impl Failure {
 }
 
 /// `KEY=VALUE` pairs of `--set`.
+///
+/// A value that is the user's home folder (or a path in it) is refused: no rig key takes
+/// a path, and a shell turns an unquoted `KEY=~` (remove the key) into `KEY=$HOME`.
 pub fn parse_sets(sets: &[String]) -> Result<Vec<(String, String)>, Failure> {
+    let home = std::env::var("HOME")
+        .ok()
+        .filter(|h| h.starts_with('/') && h.len() > 1);
     sets.iter()
         .map(|s| {
-            s.split_once('=')
+            let (k, v) = s
+                .split_once('=')
                 .map(|(k, v)| (k.trim().to_string(), v.trim().to_string()))
                 .ok_or_else(|| {
                     Failure::Input(format!(
                         "--set `{s}`: expected KEY=VALUE, e.g. parts.head.bearing.mu=0.08"
                     ))
-                })
+                })?;
+            if let Some(home) = home.as_deref() {
+                if let Some(rest) = v.strip_prefix(home).filter(|r| r.is_empty() || r.starts_with('/')) {
+                    return Err(Failure::Input(format!(
+                        "--set `{s}`: the value is your home folder; the shell turns an unquoted `~` after `=` into it, so quote the override: --set '{k}=~{rest}'"
+                    )));
+                }
+            }
+            Ok((k, v))
         })
         .collect()
 }
@@ -201,7 +216,20 @@ pub fn load(args: &RigArgs) -> Result<Rig, Failure> {
 
 /// Loads and solves.
 pub fn load_and_solve(args: &RigArgs) -> Result<(Rig, solve::Solution), Failure> {
-    let rig = load(args)?;
+    load_and_solve_in(args, None)
+}
+
+/// Loads and solves, showing the rig in `units` (the file's own when `None`) from the
+/// moment every value is SI, so that a solve error's figures read in them as the
+/// report's do.
+pub fn load_and_solve_in(
+    args: &RigArgs,
+    units: Option<UnitsArg>,
+) -> Result<(Rig, solve::Solution), Failure> {
+    let mut rig = load(args)?;
+    if let Some(units) = units {
+        rig.units = units.shown(rig.units);
+    }
     let solution =
         solve::solve(&rig, &SolveOptions::default()).map_err(|source| Failure::Solve {
             location: locate(&args.rig, &rig, &source),
@@ -239,11 +267,8 @@ pub fn run(cli: Cli) -> Result<i32, Failure> {
             json,
             units,
         } => {
-            let (mut rig, solution) = load_and_solve(&args)?;
-            if !json.json {
-                // Every value is SI by now: only what the text shows changes.
-                rig.units = units.shown(rig.units);
-            }
+            // Every value is SI once loaded: only what the text shows changes.
+            let (rig, solution) = load_and_solve_in(&args, (!json.json).then_some(units))?;
             let warnings = checks::run(&rig, &solution);
             let report = Report::build(&rig, &solution, warnings);
             if json.json {

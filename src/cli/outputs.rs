@@ -16,7 +16,7 @@ use super::args::{
     ViewArg,
 };
 use super::destination::{emit, Destination};
-use super::{load_and_solve, Failure, EXIT_OK};
+use super::{load_and_solve_in, Failure, EXIT_OK};
 
 /// Arguments of `reeve table`.
 #[derive(Debug, Args)]
@@ -146,11 +146,8 @@ fn solved_report(
     args: &RigArgs,
     units: Option<UnitsArg>,
 ) -> Result<(Rig, Solution, Report), Failure> {
-    let (mut rig, solution) = load_and_solve(args)?;
-    if let Some(units) = units {
-        // Every value is SI by now: only what the outputs show changes.
-        rig.units = units.shown(rig.units);
-    }
+    // Every value is SI once loaded: only what the outputs show changes.
+    let (rig, solution) = load_and_solve_in(args, units)?;
     let report = Report::build(&rig, &solution, checks::run(&rig, &solution));
     Ok((rig, solution, report))
 }

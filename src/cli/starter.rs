@@ -9,7 +9,7 @@ use std::path::{Path, PathBuf};
 
 use clap::Args;
 
-use reeve::report::file::write_atomically;
+use reeve::report::file::write_new;
 
 use super::args::one_of;
 use super::destination::{emit, Destination};
@@ -103,30 +103,38 @@ pub fn run_new(args: NewArgs) -> Result<i32, Failure> {
         })?;
         return Ok(EXIT_OK);
     }
-    refuse_existing(&path)?;
-    write_atomically(&path, |w| w.write_all(starter.text.as_bytes())).map_err(|source| {
-        Failure::File {
-            path: path.clone(),
-            source,
+    // Linked into place only if nothing is there by then: no check-then-write window.
+    write_new(&path, |w| w.write_all(starter.text.as_bytes())).map_err(|source| {
+        if source.kind() == std::io::ErrorKind::AlreadyExists {
+            exists(&path)
+        } else {
+            Failure::File {
+                path: path.clone(),
+                source,
+            }
         }
     })?;
     let mut wrote = format!("wrote {}: {}", path.display(), starter.describe);
     if !args.no_schema {
         let folder = path.parent().unwrap_or(Path::new(""));
         let schema = folder.join(SCHEMA_FILE);
-        // An existing schema file is the user's (perhaps from an older reeve): kept.
-        if std::fs::symlink_metadata(&schema).is_err() {
-            let text = schema_text()?;
-            write_atomically(&schema, |w| w.write_all(text.as_bytes())).map_err(|source| {
-                Failure::File {
+        // An existing schema file is the user's (perhaps from an older reeve): kept,
+        // even one that appears while this one is written.
+        let text = schema_text()?;
+        match write_new(&schema, |w| w.write_all(text.as_bytes())) {
+            Ok(()) => {
+                wrote += &format!(
+                    "\nwrote {}: the rig schema its first line names, for editor help",
+                    schema.display()
+                );
+            }
+            Err(e) if e.kind() == std::io::ErrorKind::AlreadyExists => {}
+            Err(source) => {
+                return Err(Failure::File {
                     path: schema.clone(),
                     source,
-                }
-            })?;
-            wrote += &format!(
-                "\nwrote {}: the rig schema its first line names, for editor help",
-                schema.display()
-            );
+                })
+            }
         }
     }
     write_out(|w| {
@@ -136,15 +144,12 @@ pub fn run_new(args: NewArgs) -> Result<i32, Failure> {
     Ok(EXIT_OK)
 }
 
-/// Exit 2, with a clear message, when `path` exists (a file, a folder, even a dangling
-/// link): `new` never writes over anything.
-fn refuse_existing(path: &Path) -> Result<(), Failure> {
-    if std::fs::symlink_metadata(path).is_ok() {
-        return Err(Failure::Input(format!(
-            "`{}` already exists; `reeve new` never writes over a file: give another NAME \
-             or remove it first",
-            path.display()
-        )));
-    }
-    Ok(())
+/// Exit 2, with a clear message, for a `path` that exists (a file, a folder, even a
+/// dangling link): `new` never writes over anything.
+fn exists(path: &Path) -> Failure {
+    Failure::Input(format!(
+        "`{}` already exists; `reeve new` never writes over a file: give another NAME \
+         or remove it first",
+        path.display()
+    ))
 }

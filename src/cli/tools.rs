@@ -81,7 +81,24 @@ fn manual_page() -> std::io::Result<Vec<u8>> {
     man.render_synopsis_section(&mut page)?;
     man.render_description_section(&mut page)?;
     man.render_options_section(&mut page)?;
-    man.render_subcommands_section(&mut page)?;
+    // The command list, by the commands' own names: clap_mangen's list cites a page per
+    // command (`reeve-check(1)`), which this one page replaces.
+    writeln!(page, ".SH COMMANDS")?;
+    for sub in command.get_subcommands() {
+        let name = sub.get_name();
+        let about = sub.get_about().map(|a| a.to_string()).unwrap_or_default();
+        let section = if name == "help" {
+            "".to_string()
+        } else {
+            format!(" (section REEVE {} below)", name.to_uppercase())
+        };
+        writeln!(
+            page,
+            ".TP\n\\fBreeve {name}\\fR\n{}{}",
+            roff_text(&about),
+            roff_text(&section)
+        )?;
+    }
     // Each subcommand's own synopsis and flags, under its own heading.
     for sub in command.get_subcommands().filter(|s| s.get_name() != "help") {
         let name = sub.get_name();
@@ -100,4 +117,15 @@ fn manual_page() -> std::io::Result<Vec<u8>> {
     }
     man.render_version_section(&mut page)?;
     Ok(page)
+}
+
+/// `text` as a line of roff body text: backslashes and hyphens escaped, and a leading
+/// `.` or `'` (a request to roff) guarded.
+fn roff_text(text: &str) -> String {
+    let escaped = text.replace('\\', "\\\\").replace('-', "\\-");
+    if escaped.starts_with(['.', '\'']) {
+        format!("\\&{escaped}")
+    } else {
+        escaped
+    }
 }

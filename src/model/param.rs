@@ -10,6 +10,8 @@
 //! A parameter never changes the rig's structure or geometry: which parts, lines and
 //! positions there are stays as loaded.
 
+use std::collections::HashMap;
+
 use super::{Bearing, BlockLoad, PartId, PartKind, Rig, RopeId};
 use crate::math::Real;
 use crate::units::{parse_quantity, Dimension};
@@ -109,5 +111,40 @@ impl Resolved {
             Some(d) if self.unit.is_empty() => Some(value * rig.units.unit(d).si),
             Some(d) => parse_quantity(&format!("{value} {}", self.unit), d, rig.units.unit(d)).ok(),
         }
+    }
+}
+
+/// A rig's parts and ropes by name, for resolving many file keys against it
+/// ([`super::RigFile::resolve_in`]): one hash look-up a key where a scan reads every
+/// part (a `rank` of many parts resolves a key for each of their coefficients).
+#[derive(Debug, Clone)]
+pub struct Names<'a> {
+    parts: HashMap<&'a str, PartId>,
+    ropes: HashMap<&'a str, RopeId>,
+}
+
+impl<'a> Names<'a> {
+    /// The names of `rig`'s parts and ropes (the first of a name where two share one,
+    /// as a scan in file order finds it).
+    pub fn of(rig: &'a Rig) -> Names<'a> {
+        let mut parts = HashMap::with_capacity(rig.parts.len());
+        for (id, p) in rig.parts.enumerate() {
+            parts.entry(p.name.as_str()).or_insert(id);
+        }
+        let mut ropes = HashMap::with_capacity(rig.ropes.len());
+        for (id, r) in rig.ropes.enumerate() {
+            ropes.entry(r.name.as_str()).or_insert(id);
+        }
+        Names { parts, ropes }
+    }
+
+    /// The part named `name`.
+    pub fn part(&self, name: &str) -> Option<PartId> {
+        self.parts.get(name).copied()
+    }
+
+    /// The rope named `name`.
+    pub fn rope(&self, name: &str) -> Option<RopeId> {
+        self.ropes.get(name).copied()
     }
 }

@@ -9,7 +9,7 @@
 
 use std::fmt;
 
-use super::param::Resolved;
+use super::param::{Names, Resolved};
 use super::vary::{Uncertain, Variant};
 use super::{Location, Rig};
 
@@ -99,4 +99,9 @@ pub trait RigFile: fmt::Debug + Send + Sync {
     /// conversion; None when the key is not a model parameter ([`super::param`]) or
     /// names nothing in `rig`: the caller then applies it as an override.
     fn resolve(&self, rig: &Rig, key: &str, unit: &str) -> Option<Resolved>;
+
+    /// [`RigFile::resolve`] against the rig `names` index ([`Names::of`] a rig this
+    /// file loaded): the same answer, each name found by a hash look-up, for a caller
+    /// that resolves many keys (`rank`).
+    fn resolve_in(&self, names: &Names, key: &str, unit: &str) -> Option<Resolved>;
 }

@@ -140,6 +140,50 @@ pub fn write_atomically(
         return out.flush();
     }
     let path = &through_links(path);
+    write_through_temp(path, write, |temp, path| fs::rename(temp, path))
+}
+
+/// Writes a new file at `path` atomically, never over anything: as
+/// [`write_atomically`], but the complete temporary file is hard-linked into place,
+/// which fails with [`io::ErrorKind::AlreadyExists`] when anything is at `path` (a file,
+/// a folder, a link, even a dangling one, or a file another process created meanwhile):
+/// no check-then-rename window. Where the file system has no hard links the complete
+/// text is copied into a file opened with `create_new`, which fails the same way.
+///
+/// # Errors
+/// [`io::ErrorKind::AlreadyExists`] when `path` exists; else the first I/O error.
+pub fn write_new(
+    path: &Path,
+    write: impl FnOnce(&mut dyn Write) -> io::Result<()>,
+) -> io::Result<()> {
+    write_through_temp(path, write, |temp, path| {
+        let linked = match fs::hard_link(temp, path) {
+            Err(e) if e.kind() != io::ErrorKind::AlreadyExists => {
+                // No hard links here (some network or FAT file systems): copy.
+                let mut out = fs::OpenOptions::new()
+                    .write(true)
+                    .create_new(true)
+                    .open(path)?;
+                let copied =
+                    io::copy(&mut fs::File::open(temp)?, &mut out).and_then(|_| out.sync_all());
+                if copied.is_err() {
+                    let _ = fs::remove_file(path);
+                }
+                copied
+            }
+            other => other,
+        };
+        linked.and_then(|()| fs::remove_file(temp))
+    })
+}
+
+/// Fills a temporary file beside `path` and hands it to `finish` (a rename or a link),
+/// removing it on any error.
+fn write_through_temp(
+    path: &Path,
+    write: impl FnOnce(&mut dyn Write) -> io::Result<()>,
+    finish: impl FnOnce(&Path, &Path) -> io::Result<()>,
+) -> io::Result<()> {
     let folder = match path.parent() {
         Some(p) if !p.as_os_str().is_empty() => p.to_path_buf(),
         _ => PathBuf::from("."),
@@ -182,7 +226,7 @@ pub fn write_atomically(
         }
         file.sync_all()?;
         drop(file);
-        fs::rename(&temp, path)
+        finish(&temp, path)
     })();
     if result.is_err() {
         // Best effort: the temporary file may not exist any more.

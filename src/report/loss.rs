@@ -76,8 +76,16 @@ pub struct PartLoads {
 }
 
 impl PartLoads {
-    /// The figures of part `id`; `sub` is the sub-rig it belongs to.
-    pub fn of(rig: &Rig, sub: Option<&SubRigSolution>, id: PartId) -> PartLoads {
+    /// The figures of part `id`; `sub` is the sub-rig it belongs to and
+    /// `forward_loss` that sub-rig's forward [`CaseResult::total_loss`], summed once per
+    /// sub-rig by the caller (summing it here, once per part, made the report quadratic
+    /// in the parts of a long chain).
+    pub fn of(
+        rig: &Rig,
+        sub: Option<&SubRigSolution>,
+        forward_loss: Real,
+        id: PartId,
+    ) -> PartLoads {
         let axle = match &rig.parts[id].kind {
             PartKind::Sheave(s) => Some(s.axle),
             PartKind::Guide(g) => Some(g.axle),
@@ -96,7 +104,7 @@ impl PartLoads {
             })
         };
         let share = |case: &CaseResult| {
-            let total = case.total_loss();
+            let total = forward_loss;
             let here = case.losses.bending.get(id).copied().unwrap_or(0.0);
             if total > 0.0 {
                 finite(here / total)

@@ -264,6 +264,10 @@ pub struct Headline {
     /// load otherwise) and which way it goes forward. Not in the JSON.
     #[serde(skip_serializing)]
     pub subject: Option<(String, Option<Travel>)>,
+    /// Whether a span would need a negative tension forward or back (the slack-span
+    /// check fails): the efficiency notes say so. Not in the JSON.
+    #[serde(skip_serializing)]
+    pub slack: bool,
 }
 
 impl Headline {
@@ -405,6 +409,10 @@ impl Headline {
                             "the {name} value has the opposite sign to the ideal value, so the rig does not run {runs} by itself and no share of the power passes through"
                         )
                     }
+                    // A rope that would have to push: the figures are no running rig's.
+                    _ if self.slack => {
+                        "the rope goes slack (see slack-span below), so no share of the power passes through it".to_string()
+                    }
                     _ => "the figure would fall outside 0–100 %, which friction cannot give; please report this rig".to_string(),
                 };
                 format!("No {name} efficiency: {why}.")
@@ -483,6 +491,7 @@ fn headline(rig: &Rig, solution: &Solution, sub: &SubRigSolution) -> Headline {
     Headline {
         solve_for: Asked::of(rig, sub),
         drive: rig.parts[sub.drive].name.clone(),
+        slack: !sub.forward.slack.is_empty() || !sub.back.slack.is_empty(),
         ideal: CaseHeadline {
             value: finite(sub.ideal.value),
             efficiency: None,
@@ -702,7 +711,12 @@ impl Report {
                 pin_load_direction_ideal: pin(Case::Ideal).and_then(|v| dir(&v)),
                 loss_share,
                 loss_of_input,
-                material: loss::PartLoads::of(rig, sub, id),
+                material: loss::PartLoads::of(
+                    rig,
+                    sub,
+                    owners.part[id].map_or(0.0, |k| forward_power[k].0),
+                    id,
+                ),
                 passages,
             });
             if let (PartKind::Drum(d), Some(s)) = (&part.kind, sub) {

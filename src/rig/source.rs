@@ -4,7 +4,7 @@
 
 use std::path::Path;
 
-use crate::model::param::Resolved;
+use crate::model::param::{Names, Resolved};
 use crate::model::source::RigFile;
 use crate::model::vary::{Uncertain, Variant};
 use crate::model::Rig;
@@ -117,5 +117,9 @@ impl RigFile for RigText {
 
     fn resolve(&self, rig: &Rig, key: &str, unit: &str) -> Option<Resolved> {
         params::resolve(rig, key, unit)
+    }
+
+    fn resolve_in(&self, names: &Names, key: &str, unit: &str) -> Option<Resolved> {
+        params::resolve_in(names, key, unit)
     }
 }

@@ -148,11 +148,13 @@ pub enum SolveError {
         fix: &'static str,
     },
     /// The equilibrium equations have no solution.
-    #[error("no equilibrium exists for {case}: the equations are inconsistent (residual {residual:.3e}){}; {hint}", at_part(part.as_deref()))]
+    #[error("no equilibrium exists for {case}: the equations are inconsistent{}{}; {hint}", misfit_words(*residual), at_part(part.as_deref()))]
     NoEquilibrium {
         /// Which case.
         case: &'static str,
-        /// Size of the misfit.
+        /// Size of the misfit relative to the largest term of the balance (a ratio: the
+        /// balance mixes forces and torques, so it has no one unit); NaN where no
+        /// system was solved.
         residual: Real,
         /// The part whose equation fails, where one can be named.
         part: Option<String>,
@@ -309,6 +311,18 @@ fn wrap_words(wrap: Real) -> String {
 }
 
 /// ` at `part``, or nothing.
+/// The misfit of an inconsistent balance, in words, where there is one.
+fn misfit_words(relative: Real) -> String {
+    if relative.is_finite() {
+        format!(
+            " (the misfit is {} of the largest term)",
+            crate::units::significant(relative, 2)
+        )
+    } else {
+        String::new()
+    }
+}
+
 fn at_part(part: Option<&str>) -> String {
     part.map_or(String::new(), |p| format!(" at `{p}`"))
 }

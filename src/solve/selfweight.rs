@@ -11,10 +11,13 @@
 //!
 //! The span's forces on its parts are then `T_start·u + W⊥/2` at its start and
 //! `−T_end·u + W⊥/2` at its end; with the weight they are in balance
-//! (`(T_end − T_start)·u = −(W·u)u`). Over a turning or fixed round part the rope's arc
-//! is weightless but its tension changes by `w·g·Δh` between the two tangent points, as
-//! a frictionless rope's does on a sheave (its weight on the arc goes to the pin, which
-//! is not counted: the arc is short).
+//! (`(T_end − T_start)·u = −(W·u)u`). Over a turning or fixed round part the rope's
+//! tension changes by `w·g·Δh` between the two tangent points, as a frictionless rope's
+//! does on a sheave, and the rope lying on the arc, `w·g·R·φ` along gravity (its length
+//! `R·φ`, wrap `φ` with any extra turns), bears on the part: the rope on the arc, pulled
+//! by the spans at the tangent points and held by the part, puts
+//! `T_a·u_a + T_b·u_b + w·g·R·φ·ĝ` on the pin. A part that moves (a block's sheave)
+//! carries that weight with it.
 //!
 //! # Source
 //! Statics of a flexible cable under its own weight: the tension grows by the weight per
@@ -52,6 +55,10 @@ pub struct RopeWeight {
     pub arcs: Vec<Vec<Real>>,
     /// Weight per length `w·g` of each line's rope, N/m.
     pub per_length: Vec<Real>,
+    /// `arc_weights[local line][entry]`: the weight of the rope lying on the arc of a
+    /// middle entry round a round part, `w·g·R·φ` along gravity, N (zero at a point
+    /// part and at the line's ends).
+    pub arc_weights: Vec<Vec<Vector>>,
 }
 
 /// Height against gravity of a point, m.
@@ -66,6 +73,7 @@ impl RopeWeight {
         let mut spans = Vec::with_capacity(lines.len());
         let mut arcs = Vec::with_capacity(lines.len());
         let mut per_length = Vec::with_capacity(lines.len());
+        let mut arc_weights = Vec::with_capacity(lines.len());
         let down = rig.gravity.into_inner();
         for &l in lines {
             let line = &rig.lines[l];
@@ -95,12 +103,24 @@ impl RopeWeight {
                 *arc = wg * (height(rig, &g.spans[e].start) - height(rig, &g.spans[e - 1].end));
             }
             arcs.push(a);
+            let mut on_arc = vec![Vector::zeros(); line.path.len()];
+            for (e, w) in on_arc
+                .iter_mut()
+                .enumerate()
+                .take(line.path.len().saturating_sub(1))
+                .skip(1)
+            {
+                let entry = &g.entries[e];
+                *w = down * (wg * entry.pitch_radius * entry.wrap);
+            }
+            arc_weights.push(on_arc);
             per_length.push(wg);
         }
         RopeWeight {
             spans,
             arcs,
             per_length,
+            arc_weights,
         }
     }
 
@@ -117,6 +137,12 @@ impl RopeWeight {
     /// The tension change over the arc of middle entry `entry` of local line `line`, N.
     pub fn arc(&self, line: usize, entry: usize) -> Real {
         self.arcs[line][entry]
+    }
+
+    /// The weight of the rope on the arc of middle entry `entry` of local line `line`,
+    /// along gravity, N: it loads the part's pin.
+    pub fn arc_weight(&self, line: usize, entry: usize) -> Vector {
+        self.arc_weights[line][entry]
     }
 
     /// The forces a span with start tension `t_start` puts on the part at its start and
@@ -172,6 +198,17 @@ impl RopeWeight {
                     }
                 }
             }
+            // The rope on each arc moves with its part's centre (a block's sheave; a
+            // drum's centre stands, the rope running over it).
+            for (e, entry) in geometry.lines[l].entries.iter().enumerate() {
+                let weight = self.arc_weights[li][e];
+                let Some((i, v)) = contact_velocity(rig, kin, entry.part, &entry.centre) else {
+                    continue;
+                };
+                if let Ok(k) = dofs.binary_search(&i) {
+                    g[k] += weight.dot(&v);
+                }
+            }
         }
         g
     }
@@ -179,7 +216,8 @@ impl RopeWeight {
     /// Power into the rope's potential energy per unit drive speed, W, for the dof
     /// speeds `velocity[k]` of dofs `dofs[k]` (global dof indices, ascending; `lines`
     /// the ones it was built for): the rate of `Σ_spans w·g·L·h_mid`,
-    /// `w·g·[u·(V_Q − V_P)·(h_P + h_Q)/2 + L·ĥ·(V_P + V_Q)/2]` per span (`ĥ` up).
+    /// `w·g·[u·(V_Q − V_P)·(h_P + h_Q)/2 + L·ĥ·(V_P + V_Q)/2]` per span (`ĥ` up), plus
+    /// `−W_arc·V_c` for the rope on each arc, moving with its part's centre `V_c`.
     pub fn potential_rate(
         &self,
         rig: &Rig,
@@ -197,17 +235,21 @@ impl RopeWeight {
                 continue;
             }
             let path = &rig.lines[l].path;
+            let speed = |part: PartId, at: &Point| {
+                contact_velocity(rig, kin, part, at)
+                    .and_then(|(i, v)| Some(v * velocity[dofs.binary_search(&i).ok()?]))
+                    .unwrap_or_else(Vector::zeros)
+            };
             for (j, span) in geometry.lines[l].spans.iter().enumerate() {
                 let u = span.direction.into_inner();
-                let speed = |part: PartId, at: &Point| {
-                    contact_velocity(rig, kin, part, at)
-                        .and_then(|(i, v)| Some(v * velocity[dofs.binary_search(&i).ok()?]))
-                        .unwrap_or_else(Vector::zeros)
-                };
                 let vp = speed(path[j].part, &span.start);
                 let vq = speed(path[j + 1].part, &span.end);
                 let mid = 0.5 * (height(rig, &span.start) + height(rig, &span.end));
                 rate += wg * (u.dot(&(vq - vp)) * mid + span.length * up.dot(&(vp + vq)) * 0.5);
+            }
+            // The rope on each arc rises with its part's centre.
+            for (e, entry) in geometry.lines[l].entries.iter().enumerate() {
+                rate -= self.arc_weights[li][e].dot(&speed(entry.part, &entry.centre));
             }
         }
         rate
@@ -259,6 +301,7 @@ mod tests {
             }]],
             arcs: vec![vec![0.0, 0.0]],
             per_length: vec![wg],
+            arc_weights: vec![vec![Vector::zeros(); 2]],
         };
         let (at_start, at_end) = weight.end_forces(0, 0, &u, 100.0);
         // Forces on the rope are the reactions: −(on the parts); with its weight, zero.

@@ -131,6 +131,9 @@ pub struct Problem<'a> {
     /// The generalized load of the ropes' weight beyond the start tensions, per dof
     /// (order of `dofs`).
     rope_load: DVector<Real>,
+    /// The weight of the rope lying on each local part's arcs, N (along gravity; zero
+    /// for weightless ropes and point parts): it loads the part's pin.
+    arc_load: Vec<Vector>,
 }
 
 /// A block's own mass and that of the sheaves it carries, kg (the carried parts from
@@ -316,6 +319,12 @@ impl<'a> Problem<'a> {
         }
         let weight = RopeWeight::build(rig, geometry, &lines);
         let rope_load = weight.generalized_load(rig, geometry, kin, &lines, &dofs);
+        let mut arc_load = vec![Vector::zeros(); parts.len()];
+        for (li, path) in path_part.iter().enumerate() {
+            for (e, &lp) in path.iter().enumerate() {
+                arc_load[lp] += weight.arc_weight(li, e);
+            }
+        }
         let (line_ids, part_ids) = (lines.as_slice().into(), parts.as_slice().into());
         Ok(Problem {
             rig,
@@ -339,6 +348,7 @@ impl<'a> Problem<'a> {
             x_coef,
             weight,
             rope_load,
+            arc_load,
         })
     }
 
@@ -642,7 +652,7 @@ impl<'a> Problem<'a> {
                 };
                 return Err(SolveError::NoEquilibrium {
                     case: case.name(),
-                    residual,
+                    residual: residual / rhs_scale,
                     part,
                     hint,
                 });
@@ -730,18 +740,29 @@ impl<'a> Problem<'a> {
 
     /// Whether any friction of the sub-rig depends on the tensions themselves.
     fn load_dependent(&self) -> bool {
-        self.parts.iter().any(|&p| match &self.rig.parts[p].kind {
-            PartKind::Sheave(s) => Problem::sheave_load_dependent(s),
-            PartKind::Drum(d) => {
-                d.shaft.as_ref().is_some_and(|s| {
-                    !matches!(
-                        bearing_resistance(&s.bearing, false),
-                        BearingResistance::Free
-                    )
-                }) || self.rope_bends_on_drums()
-            }
-            _ => false,
-        })
+        self.parts
+            .iter()
+            .enumerate()
+            .any(|(lp, &p)| match &self.rig.parts[p].kind {
+                PartKind::Sheave(s) => {
+                    // The rope on its arc weighs on a journal as the sheave's own weight does.
+                    Problem::sheave_load_dependent(s)
+                        || (self.arc_load[lp].norm() > 0.0
+                            && matches!(
+                                bearing_resistance(&s.bearing, false),
+                                BearingResistance::FrictionCircle { .. }
+                            ))
+                }
+                PartKind::Drum(d) => {
+                    d.shaft.as_ref().is_some_and(|s| {
+                        !matches!(
+                            bearing_resistance(&s.bearing, false),
+                            BearingResistance::Free
+                        )
+                    }) || self.rope_bends_on_drums()
+                }
+                _ => false,
+            })
     }
 }
 

@@ -19,6 +19,7 @@ use std::sync::Mutex;
 
 use crate::checks::{self, Warning};
 use crate::math::Real;
+use crate::model::param::Resolved;
 use crate::model::{Bearing, IdVec, PartId, PartKind, Rig, RopeId};
 use crate::solve::{self, given_quantity, Outcome, Solution, SolveOptions, SubRigSolution};
 
@@ -64,6 +65,10 @@ pub struct Local<'a> {
     rig_warnings: Vec<Warning>,
     /// Each sub-rig's warnings.
     subrig_warnings: Vec<Vec<Warning>>,
+    /// The sub-rigs with any warning, in order: a run's verdict reads these and the
+    /// ones it solved again, not every sub-rig (which made a `rank` of many sub-rigs
+    /// quadratic).
+    warned: Vec<usize>,
     /// The rig as written, changed in place by a run and put back after it.
     work: Mutex<Rig>,
     /// Whether each kind of model change gives the file path's rig (absent: not yet
@@ -120,6 +125,9 @@ impl<'a> Local<'a> {
             subrig_of_part,
             subrigs_of_rope,
             rig_warnings: own.to_vec(),
+            warned: (0..subrig_warnings.len())
+                .filter(|&k| !subrig_warnings[k].is_empty())
+                .collect(),
             subrig_warnings,
             work: Mutex::new(rig.clone()),
             trusted: Mutex::new(HashMap::new()),
@@ -224,19 +232,15 @@ impl<'a> Local<'a> {
             .ok_or_else(|| StudyError::Input("the forward value is not finite".to_string()))?;
         let verdict = judge.then(|| {
             let available = given_quantity(rig, main.solve_for);
-            let checked: Vec<(usize, Vec<Warning>)> = again
+            let mut checked: Vec<(usize, Vec<Warning>)> = again
                 .iter()
                 .map(|(k, s)| (*k, checks::subrig_checks(rig, s)))
                 .collect();
-            let warnings =
-                self.rig_warnings
-                    .iter()
-                    .chain((0..self.solution.subrigs.len()).flat_map(|k| {
-                        checked
-                            .iter()
-                            .find(|(j, _)| *j == k)
-                            .map_or(&self.subrig_warnings[k], |(_, w)| w)
-                    }));
+            checked.sort_by_key(|(k, _)| *k);
+            let warnings = self
+                .rig_warnings
+                .iter()
+                .chain(self.in_order(&checked).into_iter().flatten());
             Verdict::from_warnings(
                 available.and_then(|a| main.margin(a)),
                 available.map(|a| main.outcome(a)).map(Outcome::succeeds),
@@ -248,6 +252,32 @@ impl<'a> Local<'a> {
 }
 
 impl Local<'_> {
+    /// Each sub-rig's warnings in the solution's order, `again` (sorted by sub-rig)
+    /// standing for the sub-rigs it holds, leaving out the sub-rigs without any: the
+    /// verdict reads the sub-rigs with a warning as written and the ones solved again,
+    /// not every sub-rig (which made a `rank` of many sub-rigs quadratic).
+    fn in_order<'s>(&'s self, again: &'s [(usize, Vec<Warning>)]) -> Vec<&'s [Warning]> {
+        let mut out = Vec::with_capacity(self.warned.len() + again.len());
+        let mut warned = self.warned.iter().copied().peekable();
+        let mut again = again.iter().peekable();
+        loop {
+            match (warned.peek().copied(), again.peek().map(|(k, _)| *k)) {
+                (Some(k), Some(j)) if j <= k => {
+                    out.extend(again.next().map(|(_, w)| w.as_slice()));
+                    if j == k {
+                        warned.next();
+                    }
+                }
+                (Some(k), _) => {
+                    out.push(self.subrig_warnings[k].as_slice());
+                    warned.next();
+                }
+                (None, Some(_)) => out.extend(again.next().map(|(_, w)| w.as_slice())),
+                (None, None) => return out,
+            }
+        }
+    }
+
     /// Every sub-rig of `rig` solved again, `rig` being the rig as written with other
     /// coefficients of friction or loads (a sample of a spread: no part moves), and
     /// `check`'s verdict of it.
@@ -308,7 +338,16 @@ pub fn set_key(
     key: &str,
     value: Real,
 ) -> Option<(&'static str, impl Fn(&mut Rig) -> Option<()>)> {
-    let resolved = source.resolve(rig, key, "")?;
+    set_resolved(rig, &source.resolve(rig, key, "")?, value)
+}
+
+/// [`set_key`] of a key already resolved against `rig` (by
+/// [`RigSource::resolve_in`], which finds a part without scanning them all).
+pub fn set_resolved(
+    rig: &Rig,
+    resolved: &Resolved,
+    value: Real,
+) -> Option<(&'static str, impl Fn(&mut Rig) -> Option<()>)> {
     let si = resolved.si(rig, value)?;
     let kind = match resolved.param {
         crate::model::param::Param::RatedFactor(_) => "bearing factor",
@@ -380,11 +419,57 @@ mod tests {
         }
     }
 
+    /// Guards the verdict read from the sub-rigs with warnings and the ones solved
+    /// again (not every sub-rig): four tackles, the second and fourth with a sheave
+    /// that stalls (the fourth then cannot move: a failing check), so a run reaches a
+    /// sub-rig before, between, after or at the warned ones.
+    #[test]
+    fn local_verdicts_keep_the_other_sub_rigs_warnings_in_order() {
+        let tackle = |i: usize, lower_mu: &str, upper_mu: &str| {
+            let y = 500 * i;
+            format!(
+                "  t{i}.hook: {{kind: block, at: [0, {y}, 0], load: {{mass: 500}}}}\n  \
+                 t{i}.dead: {{kind: anchor, at: [-50, {y}, 3000]}}\n  \
+                 t{i}.lower: {{kind: sheave, block: t{i}.hook, at: [0, {y}, 0], axle: [0, 1, 0], \
+                 diameter: 92, bearing: {{kind: plain, {lower_mu}}}}}\n  \
+                 t{i}.upper: {{kind: sheave, at: [100, {y}, 3000], axle: [0, 1, 0], \
+                 diameter: 92, bearing: {{kind: plain, {upper_mu}}}}}\n  \
+                 t{i}.hand: {{kind: haul, at: [150, {y}, -500], force: 3000}}\n"
+            )
+        };
+        let (plain, stiff) = ("pin_diameter: 10, mu: 0.1", "pin_diameter: 80, mu: 0.9");
+        let mut text = "format: 1\nropes:\n  w: {diameter: 8, mu: 0.12}\nparts:\n".to_string();
+        text += &tackle(0, plain, plain);
+        text += &tackle(1, stiff, plain);
+        text += &tackle(2, plain, plain);
+        text += &tackle(3, plain, stiff);
+        text += "lines:\n";
+        for i in 0..4 {
+            text += &format!(
+                "  t{i}.fall: {{rope: w, path: [t{i}.dead, {{part: t{i}.lower, side: right}}, \
+                 {{part: t{i}.upper, side: left}}, t{i}.hand]}}\n"
+            );
+        }
+        text += "drive: t0.hand\n";
+        let source = RigSource::from_text(&text, "tackles.yaml", &[]);
+        let (rig, solution) = source.solve(&[]).unwrap();
+        let verdict = Verdict::assess(&rig, &solution);
+        assert_eq!(verdict.failing, ["cannot-move"]);
+        assert_eq!(verdict.stalled, ["t1.lower", "t3.upper"]);
+        local_runs_match_on("tackles.yaml", &text);
+    }
+
     fn local_runs_match(files: &[&str]) {
         for &path in files {
             let file = path.rsplit('/').next().unwrap_or(path);
             let text = std::fs::read_to_string(path).expect("test rig");
-            let source = RigSource::from_text(&text, file, &[]);
+            local_runs_match_on(file, &text);
+        }
+    }
+
+    fn local_runs_match_on(file: &str, text: &str) {
+        {
+            let source = RigSource::from_text(text, file, &[]);
             let (rig, solution) = source.solve(&[]).unwrap();
             let local = Local::new(&source, &rig, &solution).expect("check's order splits");
             let whole = |settings: &[(String, String)]| {

@@ -36,7 +36,7 @@ use serde::Serialize;
 
 use crate::checks;
 use crate::math::Real;
-use crate::model::param::Resolved;
+use crate::model::param::{Names, Resolved};
 use crate::model::vary::{Uncertain, Variant};
 use crate::model::{LoadError, Rig, RigFile};
 use crate::report::{Asked, Report};
@@ -167,6 +167,11 @@ impl RigSource {
     /// number) sets on `rig`, a rig this source loaded ([`RigFile::resolve`]).
     pub fn resolve(&self, rig: &Rig, key: &str, unit: &str) -> Option<Resolved> {
         self.file.resolve(rig, key, unit)
+    }
+
+    /// [`RigSource::resolve`] against the rig `names` index ([`RigFile::resolve_in`]).
+    pub fn resolve_in(&self, names: &Names, key: &str, unit: &str) -> Option<Resolved> {
+        self.file.resolve_in(names, key, unit)
     }
 }
 

@@ -20,6 +20,7 @@
 use serde::Serialize;
 
 use crate::math::Real;
+use crate::model::param::Names;
 use crate::model::{Bearing, PartKind};
 use crate::model::{PartId, Rig};
 use crate::report::Asked;
@@ -105,8 +106,9 @@ pub struct Sensitivity {
     /// Its value as written (after `--set`).
     pub value: Real,
     /// What 10 % less friction at this coefficient saves, in the asked quantity's SI
-    /// unit (less effort, or more load moved; the ranking's measure): μ × 0.9, or a
-    /// rated sheave's loss K − 1 × 0.9 (for an efficiency η, K = 1/η). Never negative:
+    /// unit (less effort, or more load moved; the ranking's measure): μ × 0.9, a
+    /// rated sheave's loss K − 1 × 0.9 (for an efficiency η, K = 1/η), or a rope's bend
+    /// loss β × 0.9. Never negative:
     /// round-off is zero, a change for the worse is `worse_with_10pct_less_friction`.
     pub saved_with_10pct_less_friction: Option<Real>,
     /// How much worse the rig is with 10 % less friction here, where it is worse
@@ -135,6 +137,9 @@ pub enum Measure {
     Factor,
     /// A rated sheave's efficiency η: the friction is 1/η − 1.
     Efficiency,
+    /// A rope's bend loss β, the share of tension lost to bending at each passage over
+    /// a turning sheave or drum (DESIGN.md §7): the loss is β itself, below 1.
+    Share,
 }
 
 /// A friction coefficient of the rig that acts on the forward value.
@@ -155,6 +160,8 @@ impl Coefficient {
             Measure::Mu => (0.0, Real::INFINITY),
             Measure::Factor => (1.0, Real::INFINITY),
             Measure::Efficiency => (0.0, 1.0),
+            // The loader takes a bend loss in [0, 1).
+            Measure::Share => (0.0, 1.0),
         }
     }
 
@@ -162,7 +169,7 @@ impl Coefficient {
     pub fn with_less_friction(&self, share: Real) -> Real {
         let keep = 1.0 - share;
         match self.measure {
-            Measure::Mu => self.value * keep,
+            Measure::Mu | Measure::Share => self.value * keep,
             Measure::Factor => 1.0 + (self.value - 1.0) * keep,
             Measure::Efficiency => 1.0 / (1.0 + (1.0 / self.value - 1.0) * keep),
         }
@@ -270,6 +277,15 @@ fn coefficients_of(rig: &Rig, source: &RigSource) -> Vec<(Coefficient, Subject)>
     };
     for (id, r) in rig.ropes.enumerate() {
         out.push(mu(format!("ropes.{}.mu", r.name), r.mu));
+        // Bending is a loss like friction (a share of the tension at each turning
+        // passage); where the rope has none, a 10 % cut of it saves nothing.
+        if r.bend_loss > 0.0 {
+            out.push(Coefficient {
+                key: format!("ropes.{}.bend_loss", r.name),
+                value: r.bend_loss,
+                measure: Measure::Share,
+            });
+        }
         tagged.extend(out.drain(..).map(|c| (c, Subject::Rope(id))));
     }
     for (id, p) in rig.parts.enumerate() {
@@ -395,6 +411,8 @@ pub fn derivative(source: &RigSource, c: &Coefficient) -> Result<Real, StudyErro
 struct Runs<'a> {
     source: &'a RigSource,
     local: Option<Local<'a>>,
+    /// The rig's parts and ropes by name, for the coefficients' keys.
+    names: Names<'a>,
 }
 
 impl Runs<'_> {
@@ -442,7 +460,11 @@ impl Runs<'_> {
         let Some(l) = &self.local else {
             return forward_with(self.source, &settings);
         };
-        let o = match local::set_key(self.source, rig, key, value) {
+        let change = self
+            .source
+            .resolve_in(&self.names, key, "")
+            .and_then(|resolved| local::set_resolved(rig, &resolved, value));
+        let o = match change {
             Some((kind, apply)) => {
                 let edit = Edit {
                     kind,
@@ -487,6 +509,7 @@ pub fn rank(
     let runs = Runs {
         source,
         local: Local::new(source, &rig, &solution),
+        names: Names::of(&rig),
     };
     let coefficients = coefficients_of(&rig, source);
     progress.start(rig.parts.len() + coefficients.len());

@@ -762,7 +762,7 @@ fn the_friction_at_the_drive_is_shown_beside_the_efficiency() {
     );
     assert_abs("friction back = ideal − back", fb, ideal - back, 1e-9);
     assert!(ff > 0.0 && fb > 0.0, "{v}");
-    // 165.4 − 109.4 = 55.95 N and 109.4 − 56.83 = 52.62 N (figures of the summary; the
+    // 165.4 − 109.4 = 55.98 N and 109.4 − 56.79 = 52.65 N (figures of the summary; the
     // line set's ropes have stiffness and weight since issue 11).
     let text = check_text(&["rigs/line-set.yaml"]);
     let row = text
@@ -1061,5 +1061,106 @@ fn a_long_line_shows_a_window_around_the_caret() {
             .starts_with("bad"),
         "caret not under `bad`:\n{source}\n{}",
         lines[2]
+    );
+}
+
+/// Guards a clean verdict on a rope of unknown strength: a 6 mm rope holding a
+/// thousand tonnes read `Checks: no warnings.` and exited 0, because without a
+/// `breaking_strength` the safety factor is never checked and nothing said so.
+#[test]
+fn a_rope_without_a_breaking_strength_says_its_safety_factor_is_not_checked() {
+    let text = ONE_SHEAVE.replace("mass: 5}", "mass: 1000000}");
+    let out = reeve_on(&text, &["check"]).expect_code(0);
+    let (_, text_out, _) = out.parts();
+    assert!(
+        text_out.contains("[strength-unknown]")
+            && text_out.contains("rope `r`")
+            && text_out.contains("breaking_strength")
+            && text_out.contains("not checked")
+            && !text_out.contains("Checks: no warnings"),
+        "{text_out}"
+    );
+    // The largest tension it must hold is named, so the figure can be checked by hand
+    // (1000 t over the sheave: 10 089 514 N forward, in the file's newtons).
+    assert!(
+        text_out.contains("(largest tension 10089514 N)"),
+        "{text_out}"
+    );
+    let json = reeve_on(&text, &["check", "--json"]).expect_code(0).json();
+    let w: Vec<&serde_json::Value> = json["warnings"]
+        .as_array()
+        .unwrap()
+        .iter()
+        .filter(|w| w["code"] == "strength-unknown")
+        .collect();
+    assert_eq!(w.len(), 1, "one per rope: {json}");
+    // A rope that gives its strength has no such warning.
+    let text = ONE_SHEAVE.replace(
+        "{diameter: 6, mu: 0.2}",
+        "{diameter: 6, mu: 0.2, breaking_strength: 7 kN}",
+    );
+    let json = reeve_on(&text, &["check", "--json"]).expect_code(0).json();
+    assert!(json["warnings"].as_array().unwrap().is_empty(), "{json}");
+}
+
+/// Guards the wording of a slack rig's summary: with gravity pointing up the weight
+/// pushes its rope slack, `check` fails it (slack-span), but the efficiency lines said
+/// "please report this rig", as if the tool had erred, and the strength warning gave
+/// the "largest tension" as 0 N.
+#[test]
+fn a_slack_rig_says_why_it_has_no_efficiency() {
+    let (code, out, err) = reeve_on(ONE_SHEAVE, &["check", "--set", "gravity=[0, 0, 1]"]).parts();
+    assert_eq!(code, 1, "{out}{err}");
+    assert!(out.contains("[slack-span]"), "{out}");
+    assert!(
+        out.contains("No forward efficiency: the rope goes slack")
+            && !out.contains("please report"),
+        "{out}"
+    );
+    let strength = out
+        .lines()
+        .find(|l| l.contains("[strength-unknown]"))
+        .unwrap_or_else(|| panic!("{out}"));
+    assert!(!strength.contains("largest tension"), "{strength}");
+}
+
+/// Guards `--set parts=~` typed at a shell: the shell turns `~` after `=` into the home
+/// folder, and the rig was told `parts` is `/home/...`, with an error about a mapping
+/// "found `/home/rigger`" that never named the shell. The override is refused with the
+/// fix: quote it.
+#[test]
+fn an_override_the_shell_turned_into_the_home_folder_says_to_quote_it() {
+    let out = std::process::Command::new(env!("CARGO_BIN_EXE_reeve"))
+        .args([
+            "check",
+            &test_rig("one-sheave.yaml"),
+            "--set",
+            "parts.s.mass=/home/rigger",
+        ])
+        .env("HOME", "/home/rigger")
+        .output()
+        .unwrap();
+    let err = String::from_utf8_lossy(&out.stderr);
+    assert_eq!(out.status.code(), Some(2), "{err}");
+    assert!(
+        err.contains("home folder") && err.contains("--set 'parts.s.mass=~'"),
+        "{err}"
+    );
+    // Another value is read as before.
+    let out = std::process::Command::new(env!("CARGO_BIN_EXE_reeve"))
+        .args([
+            "check",
+            &test_rig("one-sheave.yaml"),
+            "--set",
+            "parts.s.mass=1",
+        ])
+        .env("HOME", "/home/rigger")
+        .output()
+        .unwrap();
+    assert_eq!(
+        out.status.code(),
+        Some(0),
+        "{}",
+        String::from_utf8_lossy(&out.stderr)
     );
 }

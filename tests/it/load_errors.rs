@@ -696,6 +696,38 @@ fn overrides_may_add_a_missing_key_and_remove_an_optional_one() {
     assert_eq!(rig.ropes[RopeId::new(0)].breaking_strength, None);
 }
 
+/// Guards the override note on removals: a required key removed by `--set KEY=~` (or a
+/// whole section) was reported as missing at its line in the file, with no word that an
+/// override removed it, so the user looked for a fault in a file that has none.
+#[test]
+fn a_required_key_removed_by_an_override_names_the_override() {
+    for (key, subject) in [
+        ("parts.head.bearing.mu", "parts.head.bearing.mu"),
+        ("parts.head.bearing", "parts.head.bearing"),
+        ("parts", "parts"),
+        ("lines.fall.path", "lines.fall.path"),
+    ] {
+        let e = load_str_with(EXAMPLE, "rig.yaml", &set(&[(key, "~")])).unwrap_err();
+        let p = e
+            .problems
+            .iter()
+            .find(|p| p.subject == subject)
+            .unwrap_or_else(|| panic!("`{key}=~`: no problem about `{subject}`: {e}"));
+        assert!(
+            p.message.contains(&format!("(set by override `{key}=~`)")),
+            "`{key}=~`: {}",
+            p.message
+        );
+    }
+    // A problem the file has of its own, beside the override, carries no such note.
+    let text = EXAMPLE.replace("mu: 0.12}", "mu: -0.12}");
+    let e = load_str_with(&text, "rig.yaml", &set(&[("parts.hook.load.mass", "41")])).unwrap_err();
+    assert!(
+        e.problems.iter().all(|p| !p.message.contains("override")),
+        "{e}"
+    );
+}
+
 /// Guards the file check: a NUL in a comment once ended the YAML reader there and the
 /// rest of the file (here its `limits`) was silently ignored.
 #[test]

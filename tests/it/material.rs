@@ -391,3 +391,127 @@ fn the_studies_largest_tension_counts_a_spans_tighter_end() {
         1e-9,
     );
 }
+
+/// Guards the rope's weight on a sheave's wrap arc: it was left out of the pin load (and
+/// so of the journal friction and of a running block's load), though the rope lying on
+/// the arc bears on the sheave like any other load.
+#[test]
+fn the_rope_on_a_sheaves_arc_loads_its_pin() {
+    // Derived (statics of the rope on the arc as a free body, Meriam & Kraige, *Statics*,
+    // §5/9 "Flexible cables", and the friction circle of Beer & Johnston, *Statics*,
+    // journal bearings): the rope lying on the arc is pulled by the two spans at the
+    // tangent points, weighs `w·g·R·φ` (its length `R·φ`, along gravity) and is held by
+    // the sheave; so the force on the pin is `T_a·u_a + T_b·u_b + w·g·R·φ·ĝ`. The rig of
+    // `heavy_rope_over_a_frictionless_head_sheave`: both spans vertical, wrap π, pitch
+    // radius R = (100 + 6)/2 mm = 0.053 m, 1 kg/m; both spans pull 198.0665 N down at
+    // the tangent points (100 N + 10 m of rope on the weight's side; the haul's side is
+    // that less 2 m of rope, by the head: a frictionless sheave passes the tension on and
+    // the tangent points are level). Arc: 9.80665·0.053·π = 1.63285 N.
+    let arc = STANDARD_GRAVITY * 0.053 * std::f64::consts::PI;
+    assert_rel("arc weight, to five figures", arc, 1.63285, 5e-6);
+    let at_head = 100.0 + 10.0 * STANDARD_GRAVITY;
+    let (rig, s) = solve_test_rig("material/head-sheave-weight.yaml");
+    let head = rig.parts.position(|p| p.name == "head").unwrap();
+    let m = s.main();
+    for case in [&m.ideal, &m.forward] {
+        let pin = case.pin_load[head].expect("pin load");
+        assert_rel("pin load, down", -pin.z, 2.0 * at_head + arc, 1e-9);
+        assert!(pin.x.abs() < 1e-9 && pin.y.abs() < 1e-9, "{pin}");
+    }
+    // The arc's weight is carried by the pin, not by the spans: the haul is unchanged.
+    assert_rel(
+        "haul force",
+        m.ideal.value,
+        100.0 + 8.0 * STANDARD_GRAVITY,
+        1e-9,
+    );
+    audit_ok(&s);
+
+    // With a plain bearing the arc's weight is in the journal's load: with the weight's
+    // side slack (it rises) at T_s = 198.0665 N and both spans down, the moment balance
+    // `(T_t − T_s)·R = r_f·(T_t + T_s + W_arc)` gives
+    // `T_t = (T_s·(R + r_f) + r_f·W_arc)/(R − r_f)`, r_f = 0.01 m·sin(atan 0.2).
+    let text = std::fs::read_to_string(test_rig("material/head-sheave-weight.yaml"))
+        .unwrap()
+        .replace(
+            "{kind: none}",
+            "{kind: plain, pin_diameter: 20 mm, mu: 0.2}",
+        );
+    let (_, s) = solve_text(&text);
+    let (r, r_f) = (0.053, 0.01 * 0.2_f64.atan().sin());
+    let tight = (at_head * (r + r_f) + r_f * arc) / (r - r_f);
+    let m = s.main();
+    assert_rel(
+        "forward haul force",
+        m.forward.value,
+        tight - 2.0 * STANDARD_GRAVITY,
+        1e-9,
+    );
+    let pin = m.forward.pin_load[head].expect("pin load");
+    assert_rel("forward pin load", -pin.z, tight + at_head + arc, 1e-9);
+    audit_ok(&s);
+
+    // A running block carries the rope on its sheave's arc too: two vertical falls of
+    // 5 m from level ends, the lower half of the block's sheave wrapped; with a
+    // frictionless sheave the block's equilibrium gives `2·T_low = M·g + W_arc` at the
+    // tangent points, and the haul holds `T_low + 5 m·w·g`.
+    let block = "format: 1
+title: running block in a heavy rope
+units: {length: m, force: N, mass: kg}
+ropes:
+  heavy: {diameter: 6 mm, mu: 0.2, mass_per_length: 1 kg/m}
+parts:
+  eye: {kind: anchor, at: [-0.053, 0, 0]}
+  hook: {kind: block, at: [0, 0, -5], load: {mass: 20}}
+  hook.s: {kind: sheave, block: hook, at: [0, 0, -5], axle: [0, 1, 0], diameter: 100 mm,
+           bearing: {kind: none}}
+  hand: {kind: haul, at: [0.053, 0, 0], pull: [0, 0, 1]}
+lines:
+  fall: {rope: heavy, path: [eye, hook.s, hand]}
+";
+    let (rig, s) = solve_text(block);
+    let m = s.main();
+    let low = (20.0 * STANDARD_GRAVITY + arc) / 2.0;
+    assert_rel(
+        "haul force",
+        m.ideal.value,
+        low + 5.0 * STANDARD_GRAVITY,
+        1e-9,
+    );
+    let sheave = rig.parts.position(|p| p.name == "hook.s").unwrap();
+    let pin = m.ideal.pin_load[sheave].expect("pin load");
+    assert_rel("block sheave's pin load, up", pin.z, 2.0 * low - arc, 1e-9);
+    audit_ok(&s);
+}
+
+/// Guards one name for one figure: `table --json` gave a span's end tension only as
+/// `tension_end_n.{case}`, while DESIGN.md §7 names it `tension_n.{case}_end` (as
+/// `check --json` writes it), so a script written against the contract found nothing
+/// in the table. Both are there now, with the same numbers; `tension_end_n` stays.
+#[test]
+fn table_json_gives_the_end_tension_under_the_contracts_name_too() {
+    let rig = test_rig("material/hanging-rope.yaml");
+    let check = json_of(&["check", &rig, "--json"]);
+    let table = json_of(&["table", &rig, "--json"]);
+    let (c, t) = (&check["spans"][0], &table["spans"][0]);
+    for case in ["ideal", "forward", "back"] {
+        let end = format!("{case}_end");
+        assert_eq!(t["tension_n"][&end], c["tension_n"][&end], "{t}");
+        assert_eq!(t["tension_n"][&end], t["tension_end_n"][case], "{t}");
+        assert!(t["tension_n"][&end].as_f64().is_some(), "{t}");
+    }
+    // The cases asked for, only.
+    let table = json_of(&["table", &rig, "--json", "--case", "forward"]);
+    let t = &table["spans"][0]["tension_n"];
+    assert!(
+        t["forward_end"].as_f64().is_some() && t.get("ideal_end").is_none(),
+        "{t}"
+    );
+    // A weightless rope's ends are one: no `_end` keys.
+    let table = json_of(&["table", &test_rig("one-sheave.yaml"), "--json"]);
+    let t = &table["spans"][0]["tension_n"];
+    assert!(
+        t.get("forward_end").is_none() && t["forward"].as_f64().is_some(),
+        "{t}"
+    );
+}

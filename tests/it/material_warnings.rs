@@ -190,3 +190,45 @@ fn a_table_of_a_rig_that_fails_its_checks_says_so() {
     let ran = crate::support::run::reeve_on(&ok, &["table"]);
     assert!(!ran.stdout.contains("Checks that fail"), "{}", ran.stdout);
 }
+
+/// Guards a rope diameter written in the wrong unit: in a metre file `diameter: 6`
+/// (meant as millimetres) is a rope 6 m thick, and every figure came out clean. No rope
+/// is thicker than the largest mooring hawsers, about 0.2 m, nor thinner than the
+/// finest monofilament line, about 0.05 mm (common practice); the warning says which.
+#[test]
+fn a_rope_diameter_no_rope_has_is_flagged() {
+    let text = |d: &str| {
+        HOIST
+            .replace("diameter: \"10 mm\"", &format!("diameter: {d}"))
+            .replace(", ROPE_KEYS", "")
+            .replace("diameter: \"200 mm\"", "diameter: 20")
+            .replace("pin_diameter: \"20 mm\"", "pin_diameter: 0.5")
+            .replace("[-0.1, 0, 0]", "[-13, 0, 0]")
+            .replace("[0.1, 0, 8]", "[13, 0, 8]")
+    };
+    let (rig, s) = solve_text(&text("6"));
+    let w = reeve::checks::run(&rig, &s);
+    let d = w.iter().find(|w| w.code == "rope-diameter");
+    let d = d.unwrap_or_else(|| panic!("a 6 m rope: {w:?}"));
+    assert!(!d.fails, "a warning, the figures stand: {d:?}");
+    assert!(
+        d.message.contains("rope `r`")
+            && d.message.contains("6.000 m")
+            && d.message.contains("unit"),
+        "{d:?}"
+    );
+    // 0.01 mm (a metre value written in a millimetre file's way): too thin.
+    let (rig, s) = solve_text(
+        &HOIST
+            .replace("diameter: \"10 mm\"", "diameter: \"0.01 mm\"")
+            .replace(", ROPE_KEYS", ""),
+    );
+    let w = reeve::checks::run(&rig, &s);
+    assert!(w.iter().any(|w| w.code == "rope-diameter"), "{w:?}");
+    // A 10 mm rope, a 0.1 mm cord and a 150 mm hawser are ropes.
+    for d in ["\"10 mm\"", "\"0.1 mm\"", "\"150 mm\""] {
+        let (rig, s) = solve_text(&text(d));
+        let w = reeve::checks::run(&rig, &s);
+        assert!(w.iter().all(|w| w.code != "rope-diameter"), "{d}: {w:?}");
+    }
+}

@@ -158,12 +158,29 @@ struct Exercised {
     own_weights: usize,
 }
 
+/// The mass of the rope lying on the arcs round the rig's round parts, kg: `R·φ` of rope
+/// (wrap with any extra turns) at each middle passage, which bears on the part's pin.
+fn arc_rope_mass(rig: &reeve::model::Rig) -> f64 {
+    let geometry = reeve::geometry::compute(rig, &Default::default()).expect("geometry");
+    rig.lines
+        .ids()
+        .map(|l| {
+            let w = rig.rope_of(l).mass_per_length.unwrap_or(0.0);
+            let entries = &geometry.lines[l].entries;
+            entries[1..entries.len() - 1]
+                .iter()
+                .map(|e| w * e.pitch_radius * e.wrap)
+                .sum::<f64>()
+        })
+        .sum()
+}
+
 /// The pin loads of every part, in every case, sum to the weight of the parts that
 /// report one. Each span pulls its two ends towards each other with its one tension,
 /// so the forces the (massless) lines put on the parts cancel, whatever the friction;
 /// a part's pin load is that force plus its own weight (sheaves and drums with a
 /// `mass`). A rope with a `mass_per_length` hangs its spans' weight on the parts too
-/// (DESIGN.md §7), so that is added. Returns whether any such weight took part.
+/// (DESIGN.md §7), and the weight of the rope on each part's arc, so that is added. Returns whether any such weight took part.
 fn pin_loads_balance(rel: &str, path: &Path, value: &serde_json::Value) -> bool {
     use reeve::math::Vector;
     use reeve::model::PartKind;
@@ -190,7 +207,8 @@ fn pin_loads_balance(rel: &str, path: &Path, value: &serde_json::Value) -> bool 
                 .expect("span of a line");
             rig.rope_of(line).mass_per_length.unwrap_or(0.0) * s["length_m"].as_f64().unwrap()
         })
-        .sum();
+        .sum::<f64>()
+        + arc_rope_mass(&rig);
     let mut weighed = rope_mass > 0.0;
     for (case, load, direction) in [
         (

@@ -7,7 +7,8 @@ use serde_json::Value;
 use crate::support::generators::tackle;
 use crate::support::golden::golden;
 use crate::support::{
-    assert_abs, assert_rel, json_of, reeve, reeve_in, stdout_of, test_rig, Scratch, ONE_SHEAVE,
+    assert_abs, assert_rel, example_rig, json_of, reeve, reeve_in, stdout_of, test_rig, Scratch,
+    ONE_SHEAVE,
 };
 
 fn num(v: &Value) -> f64 {
@@ -1448,5 +1449,70 @@ fn a_sweep_with_unsolved_steps_exits_1_and_says_how_many() {
         !clean.stdout.contains("could not be solved"),
         "{}",
         clean.stdout
+    );
+}
+
+/// Guards the rope's bend loss among the sensitivities: `rank` listed every friction
+/// coefficient but the rope's `bend_loss`, so on a rig whose losses are nearly all
+/// bending (the gallery panel: 98.7 % of them) nothing in it pointed at the rope.
+#[test]
+fn rank_lists_a_ropes_bend_loss_with_the_friction_sensitivities() {
+    let path = example_rig("gallery-panel");
+    let r = json_of(&["rank", &path, "--json"]);
+    let sens = r["sensitivities"].as_array().unwrap();
+    let bend = sens
+        .iter()
+        .find(|s| s["key"] == "ropes.wire4.bend_loss")
+        .unwrap_or_else(|| panic!("no bend-loss row: {sens:?}"));
+    assert_eq!(num(&bend["value"]), 0.02);
+    // It costs the most here: first in the list.
+    assert_eq!(sens[0]["key"], "ropes.wire4.bend_loss", "{sens:?}");
+    // 10 % less bend loss is 0.018. By hand (DESIGN.md §7, `T_slack = (1 − β)·T_b`): the
+    // two sheaves' rolling bearings keep a ratio k whatever the load, so each passage
+    // multiplies the tension by k/(1 − β) and the haul's force goes as 1/(1 − β)²:
+    // saved = F·(1 − (0.98/0.982)²).
+    let f0 = num(&r["forward"]);
+    let saved = num(&bend["saved_with_10pct_less_friction"]);
+    assert_rel(
+        "saved, by hand",
+        saved,
+        f0 * (1.0 - (0.98_f64 / 0.982).powi(2)),
+        1e-9,
+    );
+    let out = reeve(&[
+        "check",
+        &path,
+        "--json",
+        "--set",
+        "ropes.wire4.bend_loss=0.018",
+    ]);
+    assert_rel(
+        "saved, against check",
+        saved,
+        f0 - num(&out.json()["forward"]["value"]),
+        1e-9,
+    );
+    // d F/dβ = 2·F/(1 − β).
+    assert_rel(
+        "derivative",
+        num(&bend["derivative"]),
+        2.0 * f0 / 0.98,
+        1e-6,
+    );
+    // The text names it and says what its 10 % is.
+    let text = stdout_of(&["rank", &path]);
+    assert!(
+        text.contains("ropes.wire4.bend_loss") && text.contains("bend loss β times 0.9"),
+        "{text}"
+    );
+    // A rope without a bend loss has no such row (a 10 % cut of nothing saves nothing).
+    let r = json_of(&["rank", &example_rig("workshop-hoist"), "--json"]);
+    assert!(
+        r["sensitivities"]
+            .as_array()
+            .unwrap()
+            .iter()
+            .all(|s| !s["key"].as_str().unwrap().ends_with(".bend_loss")),
+        "{r}"
     );
 }

@@ -73,6 +73,22 @@ fn the_manual_is_roff_and_names_every_subcommand() {
 }
 
 #[test]
+fn the_manual_cites_no_page_or_document_that_is_not_shipped() {
+    // Guards the one page against pointing at pages `reeve manual` never writes
+    // (`reeve-check(1)`, ...) and at design notes outside the package: each command
+    // is listed by its own name and described in its own section of this page.
+    let page = stdout_of(&["manual"]);
+    for command in subcommands() {
+        let cited = format!("reeve\\-{command}(1)");
+        assert!(!page.contains(&cited), "the manual cites {cited}");
+        let listed = format!("\\fBreeve {command}\\fR");
+        assert!(page.contains(&listed), "the command list lacks {listed}");
+    }
+    assert!(!page.contains("(1)"), "a page reference left in the manual");
+    assert!(!page.contains("DESIGN.md"), "the manual cites DESIGN.md");
+}
+
+#[test]
 fn the_manual_is_written_to_a_file() {
     let dir = Scratch::new("manual");
     let path = dir.join("reeve.1");
@@ -216,6 +232,10 @@ fn invalid_rigs_from_the_error_tests_fail_the_schema() {
         ("breaking_strength: 7.5 kN", "breaking_strength: 7.5 kg"),
         ("length: mm", "length: furlong"),
         ("diameter: 6,", "diameter: -6,"),
+        // A positive quantity written with its unit: zero is refused as the bare 0 is.
+        ("diameter: 6,", "diameter: \"0 mm\","),
+        ("breaking_strength: 7.5 kN", "breaking_strength: 0.0 kN"),
+        ("diameter: 6,", "diameter: -6 mm,"),
         ("pin_diameter: 10", "pin_diameter: 0"),
         ("mu: 0.12", "mu: -0.12"),
         (
@@ -356,6 +376,46 @@ fn new_never_writes_over_an_existing_file() {
     let (code, _, err) = reeve(&["new", "gantry"]).parts();
     assert_eq!(code, 2);
     assert!(err.contains("tackle"), "{err}");
+}
+
+/// Guards `reeve new`'s write against a check-then-rename window: a file another
+/// process creates at the name while the template is being written is kept, the write
+/// fails with `AlreadyExists`, and no temporary file is left. (A rename, as
+/// `write_atomically` does for outputs, would replace it: the contrast is checked too.)
+#[test]
+fn a_new_file_is_never_written_over_one_that_appears_meanwhile() {
+    use reeve::report::file::{write_atomically, write_new};
+    use std::io::Write;
+    let dir = Scratch::new("new-race");
+    let path = dir.join("hoist.yaml");
+    let theirs = |w: &mut dyn Write| {
+        std::fs::write(&path, "theirs\n")?;
+        w.write_all(b"ours\n")
+    };
+    let e = write_new(&path, theirs).expect_err("a file appeared at the name");
+    assert_eq!(e.kind(), std::io::ErrorKind::AlreadyExists, "{e}");
+    assert_eq!(std::fs::read_to_string(&path).unwrap(), "theirs\n");
+    let left: Vec<_> = std::fs::read_dir(&*dir)
+        .unwrap()
+        .map(|e| e.unwrap().file_name().to_string_lossy().into_owned())
+        .collect();
+    assert_eq!(left, ["hoist.yaml"], "a temporary file is left");
+    // A dangling link is something at the name too.
+    #[cfg(unix)]
+    {
+        let link = dir.join("link.yaml");
+        std::os::unix::fs::symlink(dir.join("nowhere.yaml"), &link).unwrap();
+        let e = write_new(&link, |w| w.write_all(b"ours\n")).unwrap_err();
+        assert_eq!(e.kind(), std::io::ErrorKind::AlreadyExists, "{e}");
+        assert!(!dir.join("nowhere.yaml").exists());
+    }
+    // With nothing there it writes the whole text.
+    let fresh = dir.join("fresh.yaml");
+    write_new(&fresh, |w| w.write_all(b"ours\n")).unwrap();
+    assert_eq!(std::fs::read_to_string(&fresh).unwrap(), "ours\n");
+    // The rename of an ordinary output would have replaced the file that appeared.
+    write_atomically(&path, theirs).unwrap();
+    assert_eq!(std::fs::read_to_string(&path).unwrap(), "ours\n");
 }
 
 // ---- `reeve watch` (issue 13 item 6) ----

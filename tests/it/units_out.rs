@@ -2,6 +2,7 @@
 //! in lbf, in, ft, lb and lbf*ft everywhere, `--units si` gives the SI figures of the
 //! JSON, `file` (the default) changes nothing, and JSON stays SI whatever is asked.
 
+use super::support::run::reeve_on;
 use super::support::{assert_rel, example_rig, reeve, stdout_of, test_rig, Scratch};
 
 /// Unit symbols that are not US customary, as the reports write them.
@@ -100,10 +101,11 @@ fn imperial_outputs(rig: &str, stroke: &str, vary: &str) -> Vec<(String, String)
     let run = |args: &[&str]| {
         let mut all: Vec<&str> = args.to_vec();
         all.extend(u);
-        // A check that fails (exit 1) still writes its text.
+        // A check that fails (exit 1) still writes its text; its diagnostics on stderr
+        // are scanned with it.
         let ran = reeve(&all);
         assert!(ran.code == 0 || ran.code == 1, "{args:?}: {}", ran.stderr);
-        (args.join(" "), ran.stdout)
+        (args.join(" "), format!("{}\n{}", ran.stdout, ran.stderr))
     };
     let mut out = vec![
         run(&["check", rig]),
@@ -380,6 +382,48 @@ fn motion_with_units_imperial_has_no_metric_unit_and_its_csv_follows() {
     // JSON stays SI.
     let json = stdout_of(&["motion", &rig, "--units", "imperial", "--format", "json"]);
     assert!(json.contains("\"position_unit\": \"m\""), "{json:.300}");
+}
+
+#[test]
+fn warnings_quoting_a_figure_read_in_the_units_shown() {
+    // Guards the messages that quote a figure (the rope checks' "heavier than solid
+    // steel") against printing it in SI whatever `--units` asks: they go
+    // through the units layer as the tables do. Our own probe rig, written in metric: a
+    // 10 mm rope given 100 kg/m and an EA of 1000 MN (beyond a solid steel bar).
+    let rig = r#"format: 1
+title: probe hoist with an impossible rope
+units: {length: mm, force: N, mass: kg}
+ropes:
+  r: {diameter: 10, breaking_strength: 20 kN, mu: 0.2, mass_per_length: 100 kg/m,
+      stiffness: 1000 MN}
+parts:
+  head: {kind: sheave, at: [0, 0, 10000], axle: [0, 1, 0], diameter: 200,
+         bearing: {kind: plain, pin_diameter: 20, mu: 0.1}}
+  w: {kind: weight, at: [-100, 0, 0], mass: 10}
+  hand: {kind: haul, at: [100, 0, 8000]}
+lines:
+  fall: {rope: r, path: [w, head, hand]}
+"#;
+    for args in [
+        &["check", "--units", "imperial"][..],
+        &["table", "--units", "imperial"],
+        &["report", "-o", "-", "--units", "imperial"],
+    ] {
+        let ran = reeve_on(rig, args);
+        assert!(ran.code == 0 || ran.code == 1, "{args:?}: {}", ran.stderr);
+        let text = format!("{}\n{}", ran.stdout, ran.stderr);
+        if args[0] == "check" {
+            assert!(
+                text.contains("rope-weight") || text.contains("solid steel bar"),
+                "{text}"
+            );
+            assert!(
+                text.contains(" lb/ft"),
+                "the rope's weight in lb/ft:\n{text}"
+            );
+        }
+        assert_only_imperial(&args.join(" "), &text);
+    }
 }
 
 #[test]

@@ -211,7 +211,7 @@ pub fn write(w: &mut dyn Write, r: &Ranking, format: Format) -> io::Result<()> {
     }
     notes.push(String::from_utf8_lossy(&buf).trim_end().to_string());
     notes.push(
-        "10 % less friction: a coefficient μ times 0.9; a rated sheave's loss K − 1 times 0.9 (for an efficiency η, K = 1/η). Derivatives and elasticities are in the JSON."
+        "10 % less friction: a coefficient μ times 0.9; a rated sheave's loss K − 1 times 0.9 (for an efficiency η, K = 1/η); a rope's bend loss β times 0.9. Derivatives and elasticities are in the JSON."
             .into(),
     );
     write_human(

@@ -32,6 +32,25 @@ impl<T> CasesJson<T> {
     }
 }
 
+/// A span's tension per case (at its start), N, and, where the rope's weight makes its
+/// ends differ, at its end as `{case}_end`: the name DESIGN.md §7 gives it, as in
+/// `check --json`.
+#[derive(Debug, Clone, Serialize, PartialEq)]
+pub struct TensionJson {
+    /// At the span's start, per case asked for.
+    #[serde(flatten)]
+    pub start: CasesJson<Real>,
+    /// At the span's end, no friction.
+    #[serde(skip_serializing_if = "Option::is_none")]
+    pub ideal_end: Option<Real>,
+    /// At the span's end, driving forward.
+    #[serde(skip_serializing_if = "Option::is_none")]
+    pub forward_end: Option<Real>,
+    /// At the span's end, running back.
+    #[serde(skip_serializing_if = "Option::is_none")]
+    pub back_end: Option<Real>,
+}
+
 /// A span row of the JSON table (SI).
 #[derive(Debug, Clone, Serialize, PartialEq)]
 pub struct SpanJson {
@@ -46,10 +65,11 @@ pub struct SpanJson {
     /// Length, m.
     pub length_m: Option<Real>,
     /// Tension per case, N (at the span's start where the rope's weight makes the ends
-    /// differ).
-    pub tension_n: CasesJson<Real>,
+    /// differ, and then at its end as `{case}_end`, DESIGN.md §7).
+    pub tension_n: TensionJson,
     /// Tension per case at the span's end, N, where the rope's weight makes the ends
-    /// differ (DESIGN.md §7).
+    /// differ: the same figures as `tension_n.{case}_end` (this table's first name for
+    /// them, kept).
     #[serde(skip_serializing_if = "Option::is_none")]
     pub tension_end_n: Option<CasesJson<Real>>,
     /// Stretch per case, m, where the rope has a `stiffness`.
@@ -124,12 +144,17 @@ pub fn tables_json(report: &Report, cases: CaseFilter, choice: TableChoice) -> T
                 from: s.from.clone(),
                 to: s.to.clone(),
                 length_m: s.length_m,
-                tension_n: CasesJson::new(
-                    cases,
-                    s.tension_n.ideal,
-                    s.tension_n.forward,
-                    s.tension_n.back,
-                ),
+                tension_n: TensionJson {
+                    start: CasesJson::new(
+                        cases,
+                        s.tension_n.ideal,
+                        s.tension_n.forward,
+                        s.tension_n.back,
+                    ),
+                    ideal_end: s.tension_n.ideal_end.filter(|_| cases.ideal()),
+                    forward_end: s.tension_n.forward_end.filter(|_| cases.forward()),
+                    back_end: s.tension_n.back_end.filter(|_| cases.back()),
+                },
                 tension_end_n: (s.tension_n.ideal_end.is_some()
                     || s.tension_n.forward_end.is_some()
                     || s.tension_n.back_end.is_some())

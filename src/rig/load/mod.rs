@@ -279,16 +279,19 @@ pub fn ranges_str(
     }
 }
 
-/// Notes on problems without a location (values set by an override) which override set
-/// them.
+/// Notes on problems which override caused them: those without a location (values an
+/// override set carry none) that concern an overridden key, its parent or its children,
+/// and located ones at or under an overridden key: a key an override removed (`KEY=~`)
+/// is reported as missing where the file wrote it, which without the note sends the user
+/// looking for a fault in the file.
 fn mark_override_problems(problems: &mut [Problem], overrides: &[(String, String)]) {
-    for p in problems.iter_mut().filter(|p| p.location.is_none()) {
+    for p in problems.iter_mut() {
+        let at_or_under = |k: &str| p.subject == k || p.subject.starts_with(&format!("{k}."));
+        let located = p.location.is_some();
         if let Some((k, v)) = overrides
             .iter()
             .filter(|(k, _)| {
-                p.subject == *k
-                    || p.subject.starts_with(&format!("{k}."))
-                    || k.starts_with(&format!("{}.", p.subject))
+                at_or_under(k) || (!located && k.starts_with(&format!("{}.", p.subject)))
             })
             .max_by_key(|(k, _)| k.len())
         {

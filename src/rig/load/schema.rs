@@ -25,6 +25,9 @@ const SCHEMA_DIALECT: &str = "https://json-schema.org/draft/2020-12/schema";
 const NUMBER: &str = r"[+-]?(\d+\.?\d*|\.\d+)([eE][+-]?\d+)?";
 /// The same without a minus sign, for quantities that may not be negative.
 const UNSIGNED: &str = r"\+?(\d+\.?\d*|\.\d+)([eE][+-]?\d+)?";
+/// The same with a nonzero digit, for quantities that must be positive (`0 mm` is
+/// refused as the bare `0` is).
+const POSITIVE: &str = r"\+?(\d*[1-9]\d*\.?\d*|\d*\.\d*[1-9]\d*)([eE][+-]?\d+)?";
 
 /// The schema of rig format 1, keys sorted so the text is stable.
 pub fn schema() -> Value {
@@ -186,7 +189,12 @@ fn shape(of: &Shape) -> (Value, String) {
             String::new(),
         ),
         Shape::Quantity(dimension, range) => {
-            let sign = if range.min.is_some_and(|(m, _)| m >= 0.0) {
+            let sign = if range
+                .min
+                .is_some_and(|(m, inclusive)| m > 0.0 || m == 0.0 && !inclusive)
+            {
+                POSITIVE
+            } else if range.min.is_some_and(|(m, _)| m >= 0.0) {
                 UNSIGNED
             } else {
                 NUMBER
@@ -234,7 +242,7 @@ fn shape(of: &Shape) -> (Value, String) {
         Shape::Speed => (
             json!({"anyOf": [
                 bounded(json!({"type": "number"}), Range::POSITIVE),
-                {"type": "string", "pattern": format!(r"^\s*{UNSIGNED}\s*(m/s|mm/s|in/s|ft/s|rad/s|deg/s)?\s*$")}
+                {"type": "string", "pattern": format!(r"^\s*{POSITIVE}\s*(m/s|mm/s|in/s|ft/s|rad/s|deg/s)?\s*$")}
             ]}),
             "A positive speed: a bare number in m/s (rad/s for a drum) or text such as \
              `0.2 m/s`, `150 mm/s`, `6 in/s`, `30 deg/s`"

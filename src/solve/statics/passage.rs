@@ -109,8 +109,10 @@ impl Problem<'_> {
                 // that span's end (the rope's weight makes its ends differ).
                 let before =
                     previous.map(|p| (p[li][e - 1] + self.weight.rise(li, e - 1)).max(0.0));
+                // The rope on the arc weighs on the pin beside the sheave's own weight.
+                let on_arc = self.weight.arc_weight(li, e);
                 if let Some(turning) =
-                    self.sheave_3d(sheave, (line, e), s, capstan, before, breakaway)
+                    self.sheave_3d(sheave, (line, e), on_arc, s, capstan, before, breakaway)
                 {
                     return with_bending(turning, keep, s);
                 }
@@ -127,7 +129,7 @@ impl Problem<'_> {
                     }
                     BearingResistance::FrictionCircle { radius } => {
                         let k0 = friction::sheave_ratio(radius / r, wrap);
-                        let weight = gravity_force(self.rig, sheave.mass.unwrap_or(0.0));
+                        let weight = gravity_force(self.rig, sheave.mass.unwrap_or(0.0)) + on_arc;
                         // The weightless ratio decides the stall only while there is no
                         // weight or no tension estimate yet: the sheave's own weight can
                         // lower the pin load (a sheave hanging in its falls), and then
@@ -192,10 +194,12 @@ impl Problem<'_> {
     /// ([`friction::tight_tension_3d`]). `None` for a planar passage without thrust,
     /// which keeps the planar formulas (and their figures) exactly. The result is the
     /// bearing's alone, before [`with_bending`].
+    #[allow(clippy::too_many_arguments)]
     fn sheave_3d(
         &self,
         sheave: &crate::model::Sheave,
         (line, e): (LineId, usize),
+        on_arc: Vector,
         s: Real,
         capstan: Real,
         before: Option<Real>,
@@ -213,7 +217,7 @@ impl Problem<'_> {
             // A rating fixes the ratio whatever the load: the planar model ignores the
             // sheave's weight there, and so does this one.
             BearingResistance::Rated { .. } => Vector::zeros(),
-            _ => gravity_force(self.rig, sheave.mass.unwrap_or(0.0)),
+            _ => gravity_force(self.rig, sheave.mass.unwrap_or(0.0)) + on_arc,
         };
         let skew = u_in.dot(&n).abs() > IN_PLANE
             || u_out.dot(&n).abs() > IN_PLANE
@@ -297,12 +301,16 @@ impl Problem<'_> {
     /// The force each span touching local part `lp` (an index into `parts`) puts on
     /// it, and where, from the tensions by local line: for the pin loads and drums. A
     /// span with rope weight is tighter at its higher end and hangs half its weight
-    /// square to the chord on each end ([`RopeWeight::end_forces`]).
+    /// square to the chord on each end ([`RopeWeight::end_forces`]); the rope lying on
+    /// the part's arcs adds its weight, at the part's centre: it loads the pin, and a
+    /// drum's torque stays that of its spans.
     pub(super) fn contacts<'b>(
         &'b self,
         lp: usize,
         tension: &'b [Vec<Real>],
     ) -> impl Iterator<Item = (Vector, crate::math::Point)> + 'b {
+        let on_arcs = self.arc_load[lp];
+        let centre = self.rig.parts[self.parts[lp]].at;
         self.touches[self.touch_start[lp]..self.touch_start[lp + 1]]
             .iter()
             .map(move |&(li, j, at_end)| {
@@ -315,6 +323,7 @@ impl Problem<'_> {
                     (on_start, span.start)
                 }
             })
+            .chain((on_arcs.norm() > 0.0).then_some((on_arcs, centre)))
     }
 
     /// Power lost to the rope's bending at middle entry `e` of `line`, with the tensions
