@@ -446,6 +446,31 @@ struct Settings {
     rigs: Option<PathBuf>,
 }
 
+/// What `cargo bench --bench scale -- --help` prints.
+const HELP: &str = "\
+Speed at scale: every generated rig family at several sizes, run by a `reeve` binary.
+
+Usage: cargo bench --bench scale -- [OPTIONS] [BINARY]
+
+Arguments:
+  [BINARY]        the `reeve` binary to time (default: $REEVE_BIN, else the one cargo
+                  just built, target/release/reeve)
+
+Options:
+  --family F      only family F; may be repeated (line-sets, which includes the
+                  line-sets-load row, cascade, chain, serpentine, spread, rank, stroke)
+  --size N        only size N; may be repeated
+  --timeout S     kill a run after S seconds and skip the family's larger sizes
+                  (default 60)
+  --runs N        runs per measurement: N below 2 s, at most 3 above (default 5)
+  --rigs DIR      write the generated rigs to DIR/FAMILY-SIZE.yaml and keep them
+  -h, --help      print this and exit
+
+Prints a Markdown table: median wall and CPU time, time per passage, growth
+t(10n)/t(n), peak memory, and the error against the closed form where there is one.
+Figures and how they were taken: benches/BASELINE.md.
+";
+
 fn settings() -> Settings {
     let mut binary = std::env::var_os("REEVE_BIN").map(PathBuf::from);
     let mut families = Vec::new();
@@ -467,11 +492,15 @@ fn settings() -> Settings {
             }
             "--runs" => runs = value("--runs").parse().expect("--runs N"),
             "--rigs" => rigs = Some(PathBuf::from(value("--rigs"))),
+            "--help" | "-h" => {
+                print!("{HELP}");
+                std::process::exit(0);
+            }
             // `cargo bench` passes `--bench` to every bench binary.
             "--bench" => {}
             flag if flag.starts_with("--") => {
                 panic!(
-                    "unknown flag {flag}: expected --family F, --size N, --timeout S, --runs N, --rigs DIR, or a binary"
+                    "unknown flag {flag}: expected --family F, --size N, --timeout S, --runs N, --rigs DIR, --help, or a binary"
                 )
             }
             path => binary = Some(PathBuf::from(path)),

@@ -5,6 +5,12 @@ use clap::Parser;
 
 mod cli;
 
+/// mimalloc: the studies' solves allocate many small, short-lived vectors, which it
+/// serves several times faster than the system's allocator (benches/BASELINE.md, "After
+/// the lean sample path").
+#[global_allocator]
+static ALLOCATOR: mimalloc::MiMalloc = mimalloc::MiMalloc;
+
 fn main() {
     let args = match cli::Cli::try_parse() {
         Ok(args) => args,

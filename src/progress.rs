@@ -9,6 +9,13 @@ pub trait Progress: Sync {
     fn start(&self, _total: usize) {}
     /// One more step is done.
     fn step(&self) {}
+    /// `n` more steps are done (a thread that reports its steps in batches, so that
+    /// threads do not contend for the bar on every step).
+    fn steps(&self, n: usize) {
+        for _ in 0..n {
+            self.step();
+        }
+    }
     /// The run is done (also after an error).
     fn finish(&self) {}
 }

@@ -42,6 +42,10 @@ impl reeve::progress::Progress for Bar {
         self.bar.inc(1);
     }
 
+    fn steps(&self, n: usize) {
+        self.bar.inc(n as u64);
+    }
+
     fn finish(&self) {
         self.bar.finish_and_clear();
     }

@@ -16,6 +16,8 @@ pub mod statics;
 pub mod travel;
 pub mod walk;
 
+use std::borrow::Cow;
+
 use crate::geometry::{self, Geometry, GeometryOptions};
 use crate::math::{Real, Vector};
 use crate::model::Network;
@@ -449,6 +451,7 @@ pub fn solve(rig: &Rig, options: &SolveOptions) -> Result<Solution, SolveError> 
             solve_for,
             breakaway_case,
             options,
+            None,
         )?);
     }
     Ok(Solution {
@@ -467,7 +470,9 @@ struct Parts<'a> {
 }
 
 /// Solves sub-rig `c` of `rig` with its drive and unknown: its statics for the three
-/// cases (and breakaway when `breakaway_case`), its velocity ratio and load part.
+/// cases (and breakaway when `breakaway_case`), its velocity ratio and load part; on
+/// `layout` where the caller has the sub-rig's statics layout already.
+#[allow(clippy::too_many_arguments)]
 fn solve_subrig(
     rig: &Rig,
     parts: &Parts,
@@ -476,6 +481,7 @@ fn solve_subrig(
     solve_for: PartId,
     breakaway_case: bool,
     options: &SolveOptions,
+    layout: Option<&statics::Layout>,
 ) -> Result<SubRigSolution, SolveError> {
     let Parts {
         network,
@@ -494,7 +500,12 @@ fn solve_subrig(
             fix,
         });
     }
-    let problem = statics::Problem::new(rig, network, geometry, kinematics, c, drive, solve_for)?;
+    let layout = match layout {
+        Some(layout) => Cow::Borrowed(layout),
+        None => Cow::Owned(statics::Layout::new(rig, network, geometry, kinematics, c)),
+    };
+    let problem =
+        statics::Problem::with_layout(rig, geometry, kinematics, layout, drive, solve_for)?;
     if drive == solve_for {
         let square = problem.square_loads();
         if let Some(&first) = square.first() {
@@ -570,6 +581,35 @@ pub fn solve_again(
     breakaway_case: bool,
     options: &SolveOptions,
 ) -> Result<SubRigSolution, SolveError> {
+    solve_again_on(rig, base, k, breakaway_case, options, None)
+}
+
+/// The statics layout of sub-rig `subrigs[k]` of `base` (`rig` the rig it solved):
+/// what [`solve_again_on`] shares between the rigs it solves.
+pub fn layout_of(rig: &Rig, base: &Solution, k: usize) -> statics::Layout {
+    statics::Layout::new(
+        rig,
+        &base.network,
+        &base.geometry,
+        &base.kinematics,
+        base.subrigs[k].component,
+    )
+}
+
+/// [`solve_again`] on the sub-rig's [`layout_of`] made once (None: made here): a study
+/// that solves the same sub-rig for many rigs that differ only in friction and loads
+/// (a spread's samples) builds it once. The same answer, to the bit.
+///
+/// # Errors
+/// As [`solve_again`].
+pub fn solve_again_on(
+    rig: &Rig,
+    base: &Solution,
+    k: usize,
+    breakaway_case: bool,
+    options: &SolveOptions,
+    layout: Option<&statics::Layout>,
+) -> Result<SubRigSolution, SolveError> {
     let sub = &base.subrigs[k];
     let parts = Parts {
         network: &base.network,
@@ -584,6 +624,7 @@ pub fn solve_again(
         sub.solve_for,
         breakaway_case,
         options,
+        layout,
     )
 }
 

@@ -12,11 +12,13 @@
 //! weight in the pin load, drum journals) is settled by fixed-point iteration.
 
 use nalgebra::{DMatrix, DVector};
+use std::borrow::Cow;
+use std::sync::Arc;
 
 use crate::friction::{self, BearingResistance};
 use crate::geometry::Geometry;
 use crate::math::{Real, Vector, STANDARD_GRAVITY};
-use crate::model::{square_to_gravity, BlockLoad, LineId, PartId, PartKind, Rig};
+use crate::model::{square_to_gravity, BlockLoad, Id, LineId, PartId, PartKind, Rig};
 use crate::model::{Link, Network};
 
 use super::bearing::{bearing_resistance, thrust_moment};
@@ -94,11 +96,31 @@ pub struct Slip {
 /// results are keyed by the rig's ids only at the end ([`ById`]).
 pub struct Problem<'a> {
     rig: &'a Rig,
-    network: &'a Network,
     geometry: &'a Geometry,
     kin: &'a Kinematics,
     solve_for: PartId,
     drive: PartId,
+    /// The sub-rig's dofs, lines, parts and how they meet: shared by every rig that
+    /// differs from the one it was made for only in friction and loads.
+    layout: Cow<'a, Layout>,
+    /// Known generalized load forces (global dof index order of `dofs`).
+    q_load: DVector<Real>,
+    /// Unknown's generalized force per unit.
+    x_coef: DVector<Real>,
+}
+
+/// What the statics of one sub-rig take from its graph, kinematics, reeving and the
+/// ropes' own weight: its degrees of freedom, lines, segments and parts, which spans
+/// touch which part, and the ropes' weight on its spans.
+/// None of it depends on friction or loads, so a study that changes only those (a
+/// spread's sample) builds it once ([`Layout::new`]) and hands it to every
+/// [`Problem::with_layout`].
+///
+/// A clone copies the results' key slices too (`line_ids`, `part_ids`): each thread
+/// of a study works on its own clone, so the threads never touch one reference count
+/// (every case's results hold these keys).
+#[derive(Debug)]
+pub struct Layout {
     /// Global dof indices of the sub-rig, ascending.
     dofs: Vec<usize>,
     /// Global segment indices of the sub-rig.
@@ -113,6 +135,8 @@ pub struct Problem<'a> {
     path_part: Vec<Vec<usize>>,
     /// For each of `dofs`, its part as an index into `parts`.
     dof_part: Vec<usize>,
+    /// For each of `dofs` that is a block, the parts it carries ([`carried_by`]).
+    carried: Vec<Vec<PartId>>,
     /// The spans touching each local part, `(local line, span, at its end)`, at
     /// `touches[touch_start[lp]..touch_start[lp + 1]]`, in the order the lines and
     /// their spans run (which fixes the order their forces add up in).
@@ -120,13 +144,10 @@ pub struct Problem<'a> {
     /// See `touches`.
     touch_start: Vec<usize>,
     /// `lines` and `parts` as the results' keys, shared by every case.
-    line_ids: std::sync::Arc<[LineId]>,
-    part_ids: std::sync::Arc<[PartId]>,
-    /// Known generalized load forces (global dof index order of `dofs`).
-    q_load: DVector<Real>,
-    /// Unknown's generalized force per unit.
-    x_coef: DVector<Real>,
-    /// The ropes' own weight on each span (zero for weightless ropes; DESIGN.md §7).
+    line_ids: Arc<[LineId]>,
+    part_ids: Arc<[PartId]>,
+    /// The ropes' own weight on each span (zero for weightless ropes; DESIGN.md §7):
+    /// the ropes' mass and the geometry fix it, not friction or loads.
     weight: RopeWeight,
     /// The generalized load of the ropes' weight beyond the start tensions, per dof
     /// (order of `dofs`).
@@ -136,13 +157,9 @@ pub struct Problem<'a> {
     arc_load: Vec<Vector>,
 }
 
-/// A block's own mass and that of the sheaves it carries, kg (the carried parts from
-/// the network's `Carried` edges, each stored as carried part to block; file order).
-fn block_mass(rig: &Rig, network: &Network, block: PartId) -> Real {
-    let own = match &rig.parts[block].kind {
-        PartKind::Block(b) => b.mass.unwrap_or(0.0),
-        _ => 0.0,
-    };
+/// The parts a block carries, from the network's `Carried` edges (each stored as
+/// carried part to block), ascending, each once.
+fn carried_by(network: &Network, block: PartId) -> Vec<PartId> {
     let graph = &network.graph;
     let mut carried: Vec<PartId> = graph
         .edges(Network::node(block))
@@ -153,6 +170,16 @@ fn block_mass(rig: &Rig, network: &Network, block: PartId) -> Real {
         .collect();
     carried.sort_unstable();
     carried.dedup();
+    carried
+}
+
+/// A block's own mass and that of the sheaves it carries (`carried`, from
+/// [`carried_by`]), kg.
+fn block_mass(rig: &Rig, block: PartId, carried: &[PartId]) -> Real {
+    let own = match &rig.parts[block].kind {
+        PartKind::Block(b) => b.mass.unwrap_or(0.0),
+        _ => 0.0,
+    };
     own + carried
         .iter()
         .filter_map(|&p| match &rig.parts[p].kind {
@@ -166,20 +193,38 @@ fn gravity_force(rig: &Rig, mass: Real) -> Vector {
     rig.gravity.into_inner() * (mass * STANDARD_GRAVITY)
 }
 
-impl<'a> Problem<'a> {
-    /// Sets up the statics of sub-rig `component` driven by `drive`, with unknown `solve_for`.
-    ///
-    /// # Errors
-    /// [`SolveError::MissingQuantity`] when a load that is not the unknown is not given.
+impl Clone for Layout {
+    fn clone(&self) -> Layout {
+        Layout {
+            dofs: self.dofs.clone(),
+            segs: self.segs.clone(),
+            seg_line: self.seg_line.clone(),
+            lines: self.lines.clone(),
+            parts: self.parts.clone(),
+            path_part: self.path_part.clone(),
+            dof_part: self.dof_part.clone(),
+            carried: self.carried.clone(),
+            touches: self.touches.clone(),
+            touch_start: self.touch_start.clone(),
+            line_ids: self.line_ids.as_ref().into(),
+            part_ids: self.part_ids.as_ref().into(),
+            weight: self.weight.clone(),
+            rope_load: self.rope_load.clone(),
+            arc_load: self.arc_load.clone(),
+        }
+    }
+}
+
+impl Layout {
+    /// The layout of sub-rig `component` of `rig` (its graph `network`, its geometry
+    /// and its motion `kin`).
     pub fn new(
-        rig: &'a Rig,
-        network: &'a Network,
-        geometry: &'a Geometry,
-        kin: &'a Kinematics,
+        rig: &Rig,
+        network: &Network,
+        geometry: &Geometry,
+        kin: &Kinematics,
         component: usize,
-        drive: PartId,
-        solve_for: PartId,
-    ) -> Result<Problem<'a>, SolveError> {
+    ) -> Layout {
         // The sub-rig's members (ascending) and their dofs (dofs are in part order).
         let dofs: Vec<usize> = network.components[component]
             .iter()
@@ -247,6 +292,85 @@ impl<'a> Problem<'a> {
                 }
             }
         }
+        let carried = dofs
+            .iter()
+            .map(|&i| {
+                let part = kin.dofs[i].part;
+                match rig.parts[part].kind {
+                    PartKind::Block(_) => carried_by(network, part),
+                    _ => Vec::new(),
+                }
+            })
+            .collect();
+        // The results' keys (`ById::keyed`), checked here once: ascending, each once,
+        // ids of the rig.
+        fn keys_hold<I: Id>(ids: &[I], len: usize) -> bool {
+            ids.windows(2).all(|w| w[0] < w[1]) && ids.last().map_or(true, |&i| i.index() < len)
+        }
+        assert!(keys_hold(&lines, rig.lines.len()) && keys_hold(&parts, rig.parts.len()));
+        let (line_ids, part_ids) = (lines.as_slice().into(), parts.as_slice().into());
+        let weight = RopeWeight::build(rig, geometry, &lines);
+        let rope_load = weight.generalized_load(rig, geometry, kin, &lines, &dofs);
+        let mut arc_load = vec![Vector::zeros(); parts.len()];
+        for (li, path) in path_part.iter().enumerate() {
+            for (e, &lp) in path.iter().enumerate() {
+                arc_load[lp] += weight.arc_weight(li, e);
+            }
+        }
+        Layout {
+            dofs,
+            segs,
+            seg_line,
+            lines,
+            parts,
+            path_part,
+            dof_part,
+            carried,
+            touches,
+            touch_start,
+            line_ids,
+            part_ids,
+            weight,
+            rope_load,
+            arc_load,
+        }
+    }
+}
+
+impl<'a> Problem<'a> {
+    /// Sets up the statics of sub-rig `component` driven by `drive`, with unknown `solve_for`.
+    ///
+    /// # Errors
+    /// [`SolveError::MissingQuantity`] when a load that is not the unknown is not given.
+    pub fn new(
+        rig: &'a Rig,
+        network: &'a Network,
+        geometry: &'a Geometry,
+        kin: &'a Kinematics,
+        component: usize,
+        drive: PartId,
+        solve_for: PartId,
+    ) -> Result<Problem<'a>, SolveError> {
+        let layout = Cow::Owned(Layout::new(rig, network, geometry, kin, component));
+        Problem::with_layout(rig, geometry, kin, layout, drive, solve_for)
+    }
+
+    /// [`Problem::new`] on a layout made for this sub-rig of `rig` or of a rig that
+    /// differs from `rig` only in friction and loads (the same parts, reeving, graph,
+    /// motion and ropes): the same problem, to the bit, without building the layout
+    /// again.
+    ///
+    /// # Errors
+    /// As [`Problem::new`].
+    pub fn with_layout(
+        rig: &'a Rig,
+        geometry: &'a Geometry,
+        kin: &'a Kinematics,
+        layout: Cow<'a, Layout>,
+        drive: PartId,
+        solve_for: PartId,
+    ) -> Result<Problem<'a>, SolveError> {
+        let Layout { dofs, carried, .. } = &*layout;
         let mut q_load = DVector::zeros(dofs.len());
         let mut x_coef = DVector::zeros(dofs.len());
         for (k, &i) in dofs.iter().enumerate() {
@@ -260,7 +384,7 @@ impl<'a> Problem<'a> {
             match &rig.parts[part].kind {
                 PartKind::Block(b) => {
                     let moves = b.moves.into_inner();
-                    let mass = block_mass(rig, network, part);
+                    let mass = block_mass(rig, part, &carried[k]);
                     let mut q = gravity_force(rig, mass).dot(&moves);
                     if unknown {
                         x_coef[k] = if b.load.is_force() {
@@ -317,38 +441,15 @@ impl<'a> Problem<'a> {
             // Levers, springs and d'Alembert loads where the rig stands (DESIGN.md §7).
             q_load[k] += super::changing::dof_load(rig, part, fwd);
         }
-        let weight = RopeWeight::build(rig, geometry, &lines);
-        let rope_load = weight.generalized_load(rig, geometry, kin, &lines, &dofs);
-        let mut arc_load = vec![Vector::zeros(); parts.len()];
-        for (li, path) in path_part.iter().enumerate() {
-            for (e, &lp) in path.iter().enumerate() {
-                arc_load[lp] += weight.arc_weight(li, e);
-            }
-        }
-        let (line_ids, part_ids) = (lines.as_slice().into(), parts.as_slice().into());
         Ok(Problem {
             rig,
-            network,
             geometry,
             kin,
             solve_for,
             drive,
-            dofs,
-            segs,
-            seg_line,
-            lines,
-            parts,
-            path_part,
-            dof_part,
-            touches,
-            touch_start,
-            line_ids,
-            part_ids,
+            layout,
             q_load,
             x_coef,
-            weight,
-            rope_load,
-            arc_load,
         })
     }
 
@@ -364,7 +465,7 @@ impl<'a> Problem<'a> {
         let mut work = 0.0;
         let mut scale = 0.0;
         let mut square = Vec::new();
-        for (k, &i) in self.dofs.iter().enumerate() {
+        for (k, &i) in self.layout.dofs.iter().enumerate() {
             let part = self.kin.dofs[i].part;
             let speed = self.kin.forward[i].abs();
             if part == self.drive || speed == 0.0 {
@@ -372,7 +473,7 @@ impl<'a> Problem<'a> {
             }
             let size = match &self.rig.parts[part].kind {
                 PartKind::Block(b) => {
-                    let mass = block_mass(self.rig, self.network, part)
+                    let mass = block_mass(self.rig, part, &self.layout.carried[k])
                         + match b.load {
                             BlockLoad::Mass(Some(m)) => m,
                             _ => 0.0,
@@ -436,10 +537,11 @@ impl<'a> Problem<'a> {
     ) -> Result<CaseResult, SolveError> {
         let rig = self.rig;
         let sign = case.sign();
-        let n = self.dofs.len();
-        let m = self.segs.len() + 1;
+        let n = self.layout.dofs.len();
+        let m = self.layout.segs.len() + 1;
         // The sub-rig's dof speeds in this case (`velocity[k]` for `dofs[k]`).
         let velocity: Vec<Real> = self
+            .layout
             .dofs
             .iter()
             .map(|&i| self.kin.forward[i] * sign)
@@ -452,12 +554,13 @@ impl<'a> Problem<'a> {
         for iteration in 1..=options.max_iterations.max(1) {
             // Walk every segment: T_span = c τ + e.
             let mut coef: Vec<Vec<(Real, Real)>> = self
+                .layout
                 .lines
                 .iter()
                 .map(|&l| vec![(0.0, 0.0); rig.lines[l].path.len().saturating_sub(1)])
                 .collect();
             let mut stalled = Vec::new();
-            for (&g, &li) in self.segs.iter().zip(&self.seg_line) {
+            for (&g, &li) in self.layout.segs.iter().zip(&self.layout.seg_line) {
                 let seg = self.kin.segments[g];
                 coef[li][seg.first] = (1.0, 0.0);
                 for e in seg.first + 1..seg.last {
@@ -469,8 +572,8 @@ impl<'a> Problem<'a> {
                     // Into the passage at the previous span's end tension; out of it
                     // with the arc's rise (both zero for a weightless rope).
                     let (c, c0) = coef[li][e - 1];
-                    let c0 = c0 + self.weight.rise(li, e - 1);
-                    let next = (k * c, k * c0 + delta + self.weight.arc(li, e));
+                    let c0 = c0 + self.layout.weight.rise(li, e - 1);
+                    let next = (k * c, k * c0 + delta + self.layout.weight.arc(li, e));
                     if !(next.0.is_finite() && next.1.is_finite()) {
                         // Ratios in series that each hold but together overflow.
                         return Err(self.non_finite(
@@ -487,10 +590,10 @@ impl<'a> Problem<'a> {
             let mut q = self.q_load.clone();
             let mut drum_friction = vec![DrumFriction::default(); n];
             if case != Case::Ideal {
-                for (k, &i) in self.dofs.iter().enumerate() {
+                for (k, &i) in self.layout.dofs.iter().enumerate() {
                     let part = self.kin.dofs[i].part;
                     if matches!(rig.parts[part].kind, PartKind::Drum(_)) {
-                        let lp = self.dof_part[k];
+                        let lp = self.layout.dof_part[k];
                         let friction = match previous.as_deref() {
                             Some(t) => self.drum_friction(part, self.contacts(lp, t), breakaway),
                             None => self.drum_friction(part, std::iter::empty(), breakaway),
@@ -517,13 +620,19 @@ impl<'a> Problem<'a> {
             // equation, `(column, value)` in column order (the entries a dense matrix
             // would hold, summed in the same order).
             let mut rows: Vec<Vec<(usize, Real)>> = vec![Vec::new(); n];
-            let mut rhs = q.clone() + &self.rope_load;
-            for (col, (&g, &li)) in self.segs.iter().zip(&self.seg_line).enumerate() {
+            let mut rhs = q + &self.layout.rope_load;
+            for (col, (&g, &li)) in self
+                .layout
+                .segs
+                .iter()
+                .zip(&self.layout.seg_line)
+                .enumerate()
+            {
                 let seg = self.kin.segments[g];
                 let spans = &self.kin.span_rows[seg.line][seg.first..seg.last];
                 for (&(c, c0), row) in coef[li][seg.first..seg.last].iter().zip(spans) {
                     for (i, b) in row.iter() {
-                        let Ok(k) = self.dofs.binary_search(&i) else {
+                        let Ok(k) = self.layout.dofs.binary_search(&i) else {
                             continue;
                         };
                         match rows[k].last_mut() {
@@ -541,7 +650,7 @@ impl<'a> Problem<'a> {
             if let Some(k) =
                 (0..n).find(|&k| !rhs[k].is_finite() || rows[k].iter().any(|e| !e.1.is_finite()))
             {
-                let part = self.kin.dofs[self.dofs[k]].part;
+                let part = self.kin.dofs[self.layout.dofs[k]].part;
                 return Err(SolveError::NonFinite {
                     stage: stage_name(case, breakaway),
                     what: "the balance of forces",
@@ -575,7 +684,7 @@ impl<'a> Problem<'a> {
                     entry(k, j).abs() / column_norms[j] > options.rank_tolerance * row_max[k]
                 })
                 .map_err(|e| {
-                    let part = self.kin.dofs[self.dofs[e.row]].part;
+                    let part = self.kin.dofs[self.layout.dofs[e.row]].part;
                     SolveError::BeyondPrecision {
                         stage: stage_name(case, breakaway),
                         what: "a tension",
@@ -642,7 +751,7 @@ impl<'a> Problem<'a> {
                 });
                 let (part, hint) = match sideways {
                     Some(k) => (
-                        Some(rig.parts[self.kin.dofs[self.dofs[k]].part].name.clone()),
+                        Some(rig.parts[self.kin.dofs[self.layout.dofs[k]].part].name.clone()),
                         "that part is loaded along its motion, but its lines pull only sideways to it; check its `moves` and the lines that hold it",
                     ),
                     None => (
@@ -658,11 +767,18 @@ impl<'a> Problem<'a> {
                 });
             }
             let mut tension: Vec<Vec<Real>> = self
+                .layout
                 .lines
                 .iter()
                 .map(|&l| vec![0.0; rig.lines[l].path.len().saturating_sub(1)])
                 .collect();
-            for (col, (&g, &li)) in self.segs.iter().zip(&self.seg_line).enumerate() {
+            for (col, (&g, &li)) in self
+                .layout
+                .segs
+                .iter()
+                .zip(&self.layout.seg_line)
+                .enumerate()
+            {
                 let seg = self.kin.segments[g];
                 for j in seg.first..seg.last {
                     let (c, c0) = coef[li][j];
@@ -740,14 +856,15 @@ impl<'a> Problem<'a> {
 
     /// Whether any friction of the sub-rig depends on the tensions themselves.
     fn load_dependent(&self) -> bool {
-        self.parts
+        self.layout
+            .parts
             .iter()
             .enumerate()
             .any(|(lp, &p)| match &self.rig.parts[p].kind {
                 PartKind::Sheave(s) => {
                     // The rope on its arc weighs on a journal as the sheave's own weight does.
                     Problem::sheave_load_dependent(s)
-                        || (self.arc_load[lp].norm() > 0.0
+                        || (self.layout.arc_load[lp].norm() > 0.0
                             && matches!(
                                 bearing_resistance(&s.bearing, false),
                                 BearingResistance::FrictionCircle { .. }

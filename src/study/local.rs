@@ -21,6 +21,7 @@ use crate::checks::{self, Warning};
 use crate::math::Real;
 use crate::model::param::Resolved;
 use crate::model::{Bearing, IdVec, PartId, PartKind, Rig, RopeId};
+use crate::solve::statics::Layout;
 use crate::solve::{self, given_quantity, Outcome, Solution, SolveOptions, SubRigSolution};
 
 use super::{RigSource, StudyError, Verdict};
@@ -69,6 +70,9 @@ pub struct Local<'a> {
     /// ones it solved again, not every sub-rig (which made a `rank` of many sub-rigs
     /// quadratic).
     warned: Vec<usize>,
+    /// Each sub-rig's statics layout, shared by every run (friction and loads change
+    /// none of it).
+    layouts: Vec<Layout>,
     /// The rig as written, changed in place by a run and put back after it.
     work: Mutex<Rig>,
     /// Whether each kind of model change gives the file path's rig (absent: not yet
@@ -129,6 +133,9 @@ impl<'a> Local<'a> {
                 .filter(|&k| !subrig_warnings[k].is_empty())
                 .collect(),
             subrig_warnings,
+            layouts: (0..solution.subrigs.len())
+                .map(|k| solve::layout_of(rig, solution, k))
+                .collect(),
             work: Mutex::new(rig.clone()),
             trusted: Mutex::new(HashMap::new()),
             static_parts: rig
@@ -216,9 +223,16 @@ impl<'a> Local<'a> {
         let again: Vec<(usize, SubRigSolution)> = reached
             .iter()
             .map(|&k| {
-                solve::solve_again(rig, self.solution, k, breakaway, &options)
-                    .map(|s| (k, s))
-                    .map_err(|e| self.source.solve_error(rig, e))
+                solve::solve_again_on(
+                    rig,
+                    self.solution,
+                    k,
+                    breakaway,
+                    &options,
+                    Some(&self.layouts[k]),
+                )
+                .map(|s| (k, s))
+                .map_err(|e| self.source.solve_error(rig, e))
             })
             .collect::<Result<_, _>>()?;
         let sub = |k: usize| {
@@ -285,12 +299,37 @@ impl Local<'_> {
     /// # Errors
     /// [`StudyError::Solve`] as the whole rig's solve would give it.
     pub fn solve_all(&self, rig: &Rig) -> Result<(Vec<SubRigSolution>, Verdict), StudyError> {
+        self.solve_all_on(rig, &self.layouts)
+    }
+
+    /// A copy of every sub-rig's statics layout for one thread of runs
+    /// ([`Local::solve_all_on`]): threads that share none write to no common memory.
+    pub fn layouts(&self) -> Vec<Layout> {
+        self.layouts.clone()
+    }
+
+    /// [`Local::solve_all`] on the sub-rigs' layouts `layouts` (from [`Local::layouts`]).
+    ///
+    /// # Errors
+    /// As [`Local::solve_all`].
+    pub fn solve_all_on(
+        &self,
+        rig: &Rig,
+        layouts: &[Layout],
+    ) -> Result<(Vec<SubRigSolution>, Verdict), StudyError> {
         let options = SolveOptions::default();
         let breakaway = solve::has_static_friction(rig);
         let subs: Vec<SubRigSolution> = (0..self.solution.subrigs.len())
             .map(|k| {
-                solve::solve_again(rig, self.solution, k, breakaway, &options)
-                    .map_err(|e| self.source.solve_error(rig, e))
+                solve::solve_again_on(
+                    rig,
+                    self.solution,
+                    k,
+                    breakaway,
+                    &options,
+                    Some(&layouts[k]),
+                )
+                .map_err(|e| self.source.solve_error(rig, e))
             })
             .collect::<Result<_, _>>()?;
         let main = &subs[0];

@@ -22,6 +22,10 @@ use super::{
     Verdict,
 };
 use crate::report::text::not_moving_words;
+use crate::solve::statics::Layout;
+
+/// How many samples a thread solves between two reports to the progress bar.
+const PROGRESS_BATCH: usize = 64;
 
 /// Draws one value of a distribution.
 pub fn draw(d: &Distribution, rng: &mut Rng) -> Real {
@@ -58,11 +62,9 @@ pub struct Sample {
 
 /// The drawn values of sample `i`, one per uncertain value, in the written unit.
 pub fn draws_of(ranges: &[Uncertain], seed: u64, i: u64) -> Vec<Real> {
-    let mut rng = Rng::stream(seed, i);
-    ranges
-        .iter()
-        .map(|u| draw(&u.distribution, &mut rng))
-        .collect()
+    let mut values = Vec::with_capacity(ranges.len());
+    draw_into(&mut values, ranges, seed, i);
+    values
 }
 
 /// The ranged keys with their written units.
@@ -84,33 +86,55 @@ pub fn settings_of(ranges: &[Uncertain], seed: u64, i: u64) -> Vec<(String, Stri
 
 /// Solves sample `i`; None when that rig cannot be solved.
 pub fn run_sample(source: &RigSource, ranges: &[Uncertain], seed: u64, i: u64) -> Option<Sample> {
-    run_sample_on(source, None, None, &mut None, ranges, seed, i)
+    run_sample_on(source, None, None, &mut Worker::default(), ranges, seed, i)
+}
+
+/// What one thread keeps from sample to sample, so that a sample on the model path
+/// allocates nothing it does not return.
+#[derive(Default)]
+struct Worker {
+    /// The thread's rig for the model path (made on first use, and again after a draw
+    /// the model refuses).
+    work: Option<crate::model::Rig>,
+    /// The thread's own copy of the sub-rigs' statics layouts ([`Local::layouts`]).
+    layouts: Vec<Layout>,
+    /// The draws of the sample.
+    values: Vec<Real>,
+}
+
+/// Draws sample `i` into `values` (as [`draws_of`]).
+fn draw_into(values: &mut Vec<Real>, ranges: &[Uncertain], seed: u64, i: u64) {
+    let mut rng = Rng::stream(seed, i);
+    values.clear();
+    values.extend(ranges.iter().map(|u| draw(&u.distribution, &mut rng)));
 }
 
 /// Solves sample `i`, on the resolved model when `model` gives every ranged key as a
 /// model parameter and the drawn values pass their checks, else on the file.
-/// `work` is the thread's rig for the model path (made on first use, and again after
-/// a draw the model refuses).
 fn run_sample_on(
     source: &RigSource,
     model: Option<&ModelSampler>,
     local: Option<&Local>,
-    work: &mut Option<crate::model::Rig>,
+    worker: &mut Worker,
     ranges: &[Uncertain],
     seed: u64,
     i: u64,
 ) -> Option<Sample> {
-    let values = draws_of(ranges, seed, i);
+    draw_into(&mut worker.values, ranges, seed, i);
+    let values = &worker.values;
     // On the model, the rig's geometry and motion kept: only the statics and the
     // sub-rigs' checks run again.
     if let (Some(model), Some(local)) = (model, local) {
-        let rig = match work.take() {
-            Some(mut rig) => model.set(&mut rig, &values).map(|()| rig),
-            None => model.rig(&values),
+        let rig = match worker.work.take() {
+            Some(mut rig) => model.set(&mut rig, values).map(|()| rig),
+            None => model.rig(values),
         };
         if let Some(rig) = rig {
-            let answer = local.solve_all(&rig);
-            *work = Some(rig);
+            if worker.layouts.is_empty() {
+                worker.layouts = local.layouts();
+            }
+            let answer = local.solve_all_on(&rig, &worker.layouts);
+            worker.work = Some(rig);
             let (subs, verdict) = answer.ok()?;
             let main = &subs[0];
             return Some(Sample {
@@ -121,7 +145,7 @@ fn run_sample_on(
             });
         }
     }
-    let (rig, s) = source.solve_values(model, &keys_of(ranges), &values).ok()?;
+    let (rig, s) = source.solve_values(model, &keys_of(ranges), values).ok()?;
     let main = s.main();
     Some(Sample {
         forward: finite(main.forward.value)?,
@@ -270,21 +294,34 @@ pub fn spread(
     progress.start(samples);
     std::thread::scope(|scope| {
         // Thread t takes samples t, t + threads, ...; each sample uses its own stream.
+        // Each thread has its own rig, layouts and results, and tells `progress` of its
+        // samples in batches: the threads share nothing they write.
         let chunks: Vec<Vec<(usize, Option<Sample>)>> = (0..threads)
             .map(|t| {
                 let (ranges, model, local) = (&ranges, model.as_ref(), local.as_ref());
                 scope.spawn(move || {
-                    let mut work = None;
-                    (t..samples)
-                        .step_by(threads)
-                        .map(|i| {
-                            let r = run_sample_on(
-                                source, model, local, &mut work, ranges, seed, i as u64,
-                            );
-                            progress.step();
-                            (i, r)
-                        })
-                        .collect::<Vec<_>>()
+                    let mut worker = Worker::default();
+                    let mut out = Vec::with_capacity(samples.div_ceil(threads));
+                    let mut unreported = 0;
+                    for i in (t..samples).step_by(threads) {
+                        let r = run_sample_on(
+                            source,
+                            model,
+                            local,
+                            &mut worker,
+                            ranges,
+                            seed,
+                            i as u64,
+                        );
+                        out.push((i, r));
+                        unreported += 1;
+                        if unreported == PROGRESS_BATCH {
+                            progress.steps(unreported);
+                            unreported = 0;
+                        }
+                    }
+                    progress.steps(unreported);
+                    out
                 })
             })
             .collect::<Vec<_>>()

@@ -16,9 +16,10 @@ use crate::model::{LineId, Rig};
 use crate::report::Asked;
 use crate::report::{finite, CAUTION};
 use crate::solve::travel::{self, ClosedSpan};
-use crate::solve::Solution;
+use crate::solve::{Solution, SubRigSolution};
 use crate::units::{parse_quantity, Dimension, UnitSystem};
 
+use super::local::Local;
 use super::{
     largest_fleet_deg, largest_tension, number_and_unit, with_unit, Progress, RigSource,
     StudyError, Verdict,
@@ -157,6 +158,32 @@ impl Stroke {
     }
 }
 
+/// A step that solved: its main sub-rig's figures and `check`'s verdict.
+fn solved_step(value: Real, main: &SubRigSolution, verdict: Verdict) -> SweepStep {
+    SweepStep {
+        value,
+        ideal: finite(main.ideal.value),
+        forward: finite(main.forward.value),
+        back: finite(main.back.value),
+        efficiency: crate::report::efficiency(main.forward_efficiency()),
+        error: None,
+        verdict,
+    }
+}
+
+/// A step that could not be solved, with the reason.
+fn failed_step(value: Real, e: StudyError) -> SweepStep {
+    SweepStep {
+        value,
+        ideal: None,
+        forward: None,
+        back: None,
+        efficiency: None,
+        error: Some(e.chain()),
+        verdict: Verdict::default(),
+    }
+}
+
 /// Sweeps one value over `steps` evenly spaced steps.
 ///
 /// # Errors
@@ -184,35 +211,48 @@ pub fn sweep(
     let model = values
         .first()
         .and_then(|&first| source.sampler(&base, &keys, &[first]));
+    // On the model path a step changes only a coefficient of friction or a load: the
+    // rig as written keeps its geometry and motion, and only the statics and the
+    // sub-rigs' checks run again (`Local`, as `spread` does). Where the rig as written
+    // does not solve, or a step's value is refused on the model, the step is solved
+    // whole.
+    let nominal = model.as_ref().and_then(|_| source.solve(&[]).ok());
+    let local = nominal
+        .as_ref()
+        .and_then(|(rig, solution)| Local::new(source, rig, solution));
+    let mut work = None;
     let mut solve_for = None;
     let mut out = Vec::new();
     progress.start(values.len());
     for value in values {
         progress.step();
-        match source.solve_values(model.as_ref(), &keys, &[value]) {
+        if let (Some(model), Some(local)) = (model.as_ref(), local.as_ref()) {
+            let rig = match work.take() {
+                Some(mut rig) => model.set(&mut rig, &[value]).map(|()| rig),
+                None => model.rig(&[value]),
+            };
+            if let Some(rig) = rig {
+                let step = match local.solve_all(&rig) {
+                    Ok((subs, verdict)) => {
+                        let main = &subs[0];
+                        solve_for.get_or_insert_with(|| Asked::of(&rig, main));
+                        solved_step(value, main, verdict)
+                    }
+                    Err(e) => failed_step(value, e),
+                };
+                out.push(step);
+                work = Some(rig);
+                continue;
+            }
+        }
+        out.push(match source.solve_values(model.as_ref(), &keys, &[value]) {
             Ok((rig, solution)) => {
                 let main = solution.main();
                 solve_for.get_or_insert_with(|| Asked::of(&rig, main));
-                out.push(SweepStep {
-                    value,
-                    ideal: finite(main.ideal.value),
-                    forward: finite(main.forward.value),
-                    back: finite(main.back.value),
-                    efficiency: crate::report::efficiency(main.forward_efficiency()),
-                    error: None,
-                    verdict: Verdict::assess(&rig, &solution),
-                });
+                solved_step(value, main, Verdict::assess(&rig, &solution))
             }
-            Err(e) => out.push(SweepStep {
-                value,
-                ideal: None,
-                forward: None,
-                back: None,
-                efficiency: None,
-                error: Some(e.chain()),
-                verdict: Verdict::default(),
-            }),
-        }
+            Err(e) => failed_step(value, e),
+        });
     }
     progress.finish();
     Ok(Sweep {
@@ -499,6 +539,41 @@ mod tests {
         assert_eq!((v.from, v.to, v.unit.as_str()), (0.05, 0.2, ""));
         assert!(parse_vary("parts.head.bearing.mu=0.05").is_err());
         assert!(parse_vary("a=1 kg..2 N").is_err());
+    }
+
+    /// Guards the sweep's local path (the rig as written kept, only the statics and
+    /// sub-rigs' checks run again): every step gives the figures and verdict of the
+    /// rig loaded with the step's value as an override and solved and checked whole,
+    /// to the bit, on rigs of two sub-rigs and of ropes with weight and stiffness.
+    #[test]
+    fn local_steps_are_the_whole_rigs_steps() {
+        for (file, vary) in [
+            (
+                "tests/rigs/review/two-subrigs.yaml",
+                "ropes.cord4.mu=0.05..0.6",
+            ),
+            ("rigs/cliff-raise.yaml", "ropes.static11.mu=0.1..0.4"),
+            ("rigs/cliff-raise.yaml", "parts.litter.load.mass=50..250 kg"),
+        ] {
+            let text = std::fs::read_to_string(file).expect("example rig");
+            let source = RigSource::from_text(&text, file, &[]);
+            let vary = parse_vary(vary).unwrap();
+            let swept = sweep(&source, &vary, 7, &()).unwrap();
+            let keys = [(vary.key.clone(), vary.unit.clone())];
+            for step in &swept.steps {
+                let (rig, whole) = source.solve_values(None, &keys, &[step.value]).unwrap();
+                let main = whole.main();
+                let bits = |x: Option<Real>| x.map(Real::to_bits);
+                assert_eq!(
+                    bits(step.forward),
+                    bits(finite(main.forward.value)),
+                    "{file}"
+                );
+                assert_eq!(bits(step.back), bits(finite(main.back.value)), "{file}");
+                assert_eq!(bits(step.ideal), bits(finite(main.ideal.value)), "{file}");
+                assert_eq!(step.verdict, Verdict::assess(&rig, &whole), "{file}");
+            }
+        }
     }
 
     #[test]

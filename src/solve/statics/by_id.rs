@@ -46,6 +46,24 @@ impl<I: Id, T> ById<I, T> {
         }
     }
 
+    /// [`ById::new`] on ids already checked where they were made (a sub-rig's
+    /// [`super::Layout`] checks its keys once; every case of every run shares them):
+    /// only the count of values is checked here, the rest in debug builds.
+    ///
+    /// # Panics
+    /// When the length of `ids` is not that of `values`.
+    pub(super) fn keyed(len: usize, ids: Arc<[I]>, values: Vec<T>, absent: T) -> ById<I, T> {
+        assert_eq!(ids.len(), values.len(), "one value per id");
+        debug_assert!(ids.windows(2).all(|w| w[0] < w[1]));
+        debug_assert!(ids.last().map_or(true, |&i| i.index() < len));
+        ById {
+            len,
+            ids,
+            values,
+            absent,
+        }
+    }
+
     /// How many ids it stands for (every part or line of the rig).
     pub fn len(&self) -> usize {
         self.len

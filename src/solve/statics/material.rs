@@ -21,11 +21,11 @@ impl Problem<'_> {
             rig: self.rig,
             geometry: self.geometry,
             kin: self.kin,
-            segs: &self.segs,
-            seg_line: &self.seg_line,
-            dofs: &self.dofs,
+            segs: &self.layout.segs,
+            seg_line: &self.layout.seg_line,
+            dofs: &self.layout.dofs,
             coef,
-            rise: &|l, j| self.weight.rise(l, j),
+            rise: &|l, j| self.layout.weight.rise(l, j),
         };
         match crate::solve::elastic::compatible_split(
             &input,
@@ -67,18 +67,21 @@ impl Problem<'_> {
     /// motion, and which motions are held (a part with a load, or the asked quantity).
     fn spring_input(&self) -> Option<crate::solve::elastic::SpringInput<'_>> {
         let drive = self
+            .layout
             .dofs
             .iter()
             .position(|&i| self.kin.dofs[i].part == self.drive)?;
-        let held: Vec<bool> = (0..self.dofs.len())
-            .map(|k| self.q_load[k] != 0.0 || self.x_coef[k] != 0.0 || self.rope_load[k] != 0.0)
+        let held: Vec<bool> = (0..self.layout.dofs.len())
+            .map(|k| {
+                self.q_load[k] != 0.0 || self.x_coef[k] != 0.0 || self.layout.rope_load[k] != 0.0
+            })
             .collect();
         Some(crate::solve::elastic::SpringInput {
             rig: self.rig,
             geometry: self.geometry,
             kin: self.kin,
-            segs: &self.segs,
-            dofs: &self.dofs,
+            segs: &self.layout.segs,
+            dofs: &self.layout.dofs,
             drive,
             held,
         })
@@ -86,6 +89,6 @@ impl Problem<'_> {
 
     /// The lines of the sub-rig.
     pub fn lines(&self) -> &[LineId] {
-        &self.lines
+        &self.layout.lines
     }
 }

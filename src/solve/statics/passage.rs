@@ -108,9 +108,9 @@ impl Problem<'_> {
                 // The last tension estimate of the span before the passage, if any, at
                 // that span's end (the rope's weight makes its ends differ).
                 let before =
-                    previous.map(|p| (p[li][e - 1] + self.weight.rise(li, e - 1)).max(0.0));
+                    previous.map(|p| (p[li][e - 1] + self.layout.weight.rise(li, e - 1)).max(0.0));
                 // The rope on the arc weighs on the pin beside the sheave's own weight.
-                let on_arc = self.weight.arc_weight(li, e);
+                let on_arc = self.layout.weight.arc_weight(li, e);
                 if let Some(turning) =
                     self.sheave_3d(sheave, (line, e), on_arc, s, capstan, before, breakaway)
                 {
@@ -309,14 +309,14 @@ impl Problem<'_> {
         lp: usize,
         tension: &'b [Vec<Real>],
     ) -> impl Iterator<Item = (Vector, crate::math::Point)> + 'b {
-        let on_arcs = self.arc_load[lp];
-        let centre = self.rig.parts[self.parts[lp]].at;
-        self.touches[self.touch_start[lp]..self.touch_start[lp + 1]]
+        let on_arcs = self.layout.arc_load[lp];
+        let centre = self.rig.parts[self.layout.parts[lp]].at;
+        self.layout.touches[self.layout.touch_start[lp]..self.layout.touch_start[lp + 1]]
             .iter()
             .map(move |&(li, j, at_end)| {
-                let span = &self.geometry.lines[self.lines[li]].spans[j];
+                let span = &self.geometry.lines[self.layout.lines[li]].spans[j];
                 let u = span.direction.into_inner();
-                let (on_start, on_end) = self.weight.end_forces(li, j, &u, tension[li][j]);
+                let (on_start, on_end) = self.layout.weight.end_forces(li, j, &u, tension[li][j]);
                 if at_end {
                     (on_end, span.end)
                 } else {
@@ -361,7 +361,7 @@ impl Problem<'_> {
             return 0.0;
         };
         let mut torque = 0.0;
-        for (li, &l) in self.lines.iter().enumerate() {
+        for (li, &l) in self.layout.lines.iter().enumerate() {
             let beta = self.rig.rope_of(l).bend_loss;
             let path = &self.rig.lines[l].path;
             if beta == 0.0 || path.len() < 3 {
@@ -382,7 +382,7 @@ impl Problem<'_> {
     /// Whether a rope with a bend loss passes round a drum of the sub-rig (then drum
     /// friction depends on the tensions and the statics iterate).
     pub(super) fn rope_bends_on_drums(&self) -> bool {
-        self.lines.iter().any(|&l| {
+        self.layout.lines.iter().any(|&l| {
             let path = &self.rig.lines[l].path;
             self.rig.rope_of(l).bend_loss > 0.0
                 && path.len() > 2

@@ -124,11 +124,12 @@ impl Problem<'_> {
         let rig = self.rig;
         // By local part (`parts`) and local line (`lines`), keyed by the rig's ids at
         // the end.
-        let nlocal = self.parts.len();
+        let nlocal = self.layout.parts.len();
         let mut loss = vec![0.0; nlocal];
         let mut losses = [(); 4].map(|_| vec![0.0; nlocal]);
         let [bearing, bending_by_part, surface, drum] = &mut losses;
         let mut ratio: Vec<Vec<Option<Real>>> = self
+            .layout
             .lines
             .iter()
             .map(|&l| vec![None; rig.lines[l].path.len()])
@@ -136,7 +137,7 @@ impl Problem<'_> {
         let mut slack = Vec::new();
         let mut slipping = Vec::new();
         let tension_end = self.end_tensions(&tension);
-        for (li, &l) in self.lines.iter().enumerate() {
+        for (li, &l) in self.layout.lines.iter().enumerate() {
             let path = &rig.lines[l].path;
             for (j, &t) in tension[li].iter().enumerate() {
                 if t.min(tension_end[li][j]) < -1e-9 * (1.0 + value.abs()) {
@@ -171,13 +172,13 @@ impl Problem<'_> {
                     let s = case.sign() * self.kin.rope_speed[l][e];
                     // The arc's rise is the rope's weight, not friction; what is left of
                     // it at round-off (a frictionless passage) is no loss.
-                    let friction = b - a - self.weight.arc(li, e);
+                    let friction = b - a - self.layout.weight.arc(li, e);
                     let lost = if friction.abs() > 1e-13 * (a.abs() + b.abs()) {
                         friction * s
                     } else {
                         0.0
                     };
-                    let lp = self.path_part[li][e];
+                    let lp = self.layout.path_part[li][e];
                     loss[lp] += lost;
                     let stall = stalled.contains(&(l, e));
                     if matches!(rig.parts[part].kind, PartKind::Sheave(_)) && !stall {
@@ -191,13 +192,13 @@ impl Problem<'_> {
             }
         }
         // Drum friction losses, per-dof powers.
-        let mut load_power = vec![0.0; self.parts.len()];
+        let mut load_power = vec![0.0; self.layout.parts.len()];
         let mut drive_power = 0.0;
-        for (k, &i) in self.dofs.iter().enumerate() {
+        for (k, &i) in self.layout.dofs.iter().enumerate() {
             let part = self.kin.dofs[i].part;
             let v = velocity[k];
             let friction = drum_friction[k];
-            let lp = self.dof_part[k];
+            let lp = self.layout.dof_part[k];
             loss[lp] += friction.total() * v.abs();
             drum[lp] += (friction.total() - friction.bending) * v.abs();
             bending_by_part[lp] += friction.bending * v.abs();
@@ -205,7 +206,7 @@ impl Problem<'_> {
             if part == self.drive {
                 drive_power += p;
             } else {
-                load_power[self.dof_part[k]] -= p;
+                load_power[self.layout.dof_part[k]] -= p;
             }
         }
         let total_loss: Real = loss.iter().sum();
@@ -223,11 +224,11 @@ impl Problem<'_> {
             (drive_power - total_load - total_loss - rope_power - stretch_power).abs() / scale;
 
         // Pin loads and drum torques.
-        let mut pin_load = vec![None; self.parts.len()];
-        let mut drums = vec![None; self.parts.len()];
-        for (lp, &id) in self.parts.iter().enumerate() {
+        let mut pin_load = vec![None; self.layout.parts.len()];
+        let mut drums = vec![None; self.layout.parts.len()];
+        for (lp, &id) in self.layout.parts.iter().enumerate() {
             let part = &rig.parts[id];
-            if self.touch_start[lp] == self.touch_start[lp + 1] {
+            if self.layout.touch_start[lp] == self.layout.touch_start[lp + 1] {
                 continue;
             }
             let own = match &part.kind {
@@ -245,7 +246,11 @@ impl Problem<'_> {
                     .contacts(lp, &tension)
                     .map(|(f, at)| (at - part.at).cross(&f).dot(&axle))
                     .sum();
-                let k = self.dofs.iter().position(|&i| self.kin.dofs[i].part == id);
+                let k = self
+                    .layout
+                    .dofs
+                    .iter()
+                    .position(|&i| self.kin.dofs[i].part == id);
                 let speed = k.map(|k| velocity[k]).unwrap_or(0.0);
                 let dir = if speed < 0.0 { -1.0 } else { 1.0 };
                 let friction = k.map(|k| drum_friction[k]).unwrap_or_default();
@@ -280,15 +285,20 @@ impl Problem<'_> {
         CaseResult {
             case,
             value,
-            tension: ById::new(nlines, self.line_ids.clone(), tension, Vec::new()),
-            tension_end: ById::new(nlines, self.line_ids.clone(), tension_end, Vec::new()),
+            tension: ById::keyed(nlines, self.layout.line_ids.clone(), tension, Vec::new()),
+            tension_end: ById::keyed(
+                nlines,
+                self.layout.line_ids.clone(),
+                tension_end,
+                Vec::new(),
+            ),
             rope_power,
-            ratio: ById::new(nlines, self.line_ids.clone(), ratio, Vec::new()),
-            loss: ById::new(nparts, self.part_ids.clone(), loss, 0.0),
-            load_power: ById::new(nparts, self.part_ids.clone(), load_power, 0.0),
+            ratio: ById::keyed(nlines, self.layout.line_ids.clone(), ratio, Vec::new()),
+            loss: ById::keyed(nparts, self.layout.part_ids.clone(), loss, 0.0),
+            load_power: ById::keyed(nparts, self.layout.part_ids.clone(), load_power, 0.0),
             drive_power,
-            pin_load: ById::new(nparts, self.part_ids.clone(), pin_load, None),
-            drums: ById::new(nparts, self.part_ids.clone(), drums, None),
+            pin_load: ById::keyed(nparts, self.layout.part_ids.clone(), pin_load, None),
+            drums: ById::keyed(nparts, self.layout.part_ids.clone(), drums, None),
             stalled,
             slipping,
             slack,
@@ -298,7 +308,7 @@ impl Problem<'_> {
             audit_residual,
             losses: {
                 let [bearing, bending, surface, drum] =
-                    losses.map(|v| ById::new(nparts, self.part_ids.clone(), v, 0.0));
+                    losses.map(|v| ById::keyed(nparts, self.layout.part_ids.clone(), v, 0.0));
                 Losses {
                     bearing,
                     bending,
@@ -322,8 +332,8 @@ impl Problem<'_> {
                 t.iter()
                     .enumerate()
                     .map(|(j, t)| {
-                        if self.weight.per_length[l] > 0.0 {
-                            t + self.weight.rise(l, j)
+                        if self.layout.weight.per_length[l] > 0.0 {
+                            t + self.layout.weight.rise(l, j)
                         } else {
                             *t
                         }
@@ -340,10 +350,16 @@ impl Problem<'_> {
     /// speeds leaves the misfit, its last span's end. Zero, to round-off, for a rig
     /// whose motion is exact.
     fn misfit_power(&self, tension_end: &[Vec<Real>], velocity: &[Real]) -> Real {
-        let speed = |i: usize| self.dofs.binary_search(&i).map_or(0.0, |k| velocity[k]);
-        self.segs
+        let speed = |i: usize| {
+            self.layout
+                .dofs
+                .binary_search(&i)
+                .map_or(0.0, |k| velocity[k])
+        };
+        self.layout
+            .segs
             .iter()
-            .zip(&self.seg_line)
+            .zip(&self.layout.seg_line)
             .map(|(&g, &li)| {
                 let seg = self.kin.segments[g];
                 let rate: Real = self.kin.span_rows[seg.line][seg.first..seg.last]
@@ -357,15 +373,15 @@ impl Problem<'_> {
 
     /// Power into the ropes' potential energy per unit drive speed in this case, W.
     fn rope_power(&self, velocity: &[Real]) -> Real {
-        if !self.weight.any() {
+        if !self.layout.weight.any() {
             return 0.0;
         }
-        self.weight.potential_rate(
+        self.layout.weight.potential_rate(
             self.rig,
             self.geometry,
             self.kin,
-            &self.lines,
-            &self.dofs,
+            &self.layout.lines,
+            &self.layout.dofs,
             velocity,
         )
     }
