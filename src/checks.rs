@@ -3,7 +3,7 @@
 //! load, and the solver's own health. Each warning has a stable `code`.
 
 use crate::math::Real;
-use crate::model::{PartKind, Rig};
+use crate::model::{IdVec, PartKind, Rig, RopeId};
 use crate::solve::{Outcome, Solution, Status, SubRigSolution};
 use crate::units::Dimension;
 
@@ -120,7 +120,7 @@ fn and_list(items: &[String]) -> String {
 pub fn geometry_checks(rig: &Rig, geometry: &crate::geometry::Geometry) -> Vec<Warning> {
     let mut out = Vec::new();
     let limit = rig.limits.fleet_angle;
-    for (l, line) in rig.lines.iter().enumerate() {
+    for (l, line) in rig.lines.enumerate() {
         let rope = rig.rope_of(l);
         let n = line.path.len();
         for (e, entry) in geometry.lines[l].entries.iter().enumerate() {
@@ -209,7 +209,7 @@ pub fn geometry_checks(rig: &Rig, geometry: &crate::geometry::Geometry) -> Vec<W
 /// drawn hanging from the drum's other edge does. A stated `side` is never questioned.
 pub fn drum_side_checks(rig: &Rig, geometry: &crate::geometry::Geometry) -> Vec<Warning> {
     let mut out = Vec::new();
-    for (l, line) in rig.lines.iter().enumerate() {
+    for (l, line) in rig.lines.enumerate() {
         let g = &geometry.lines[l];
         let n = line.path.len();
         if g.spans.is_empty() {
@@ -317,7 +317,7 @@ pub const PULL_OFF_ROPE: Real = 5.0 * std::f64::consts::PI / 180.0;
 /// on a rope), so say so and give the rope's tension.
 pub fn pull_checks(rig: &Rig, solution: &Solution) -> Vec<Warning> {
     let mut out = Vec::new();
-    for (l, line) in rig.lines.iter().enumerate() {
+    for (l, line) in rig.lines.enumerate() {
         let spans = &solution.geometry.lines[l].spans;
         let n = line.path.len();
         let ends = [
@@ -419,9 +419,9 @@ pub fn run(rig: &Rig, solution: &Solution) -> Vec<Warning> {
 /// rope the sub-rig's lines use, naming the largest tension it carries there in any
 /// case (either end of a span); not a failure, since the strength is optional.
 fn strength_unknown_checks(rig: &Rig, sub: &SubRigSolution) -> Vec<Warning> {
-    let mut largest: Vec<Option<Real>> = vec![None; rig.ropes.len()];
+    let mut largest: IdVec<RopeId, Option<Real>> = IdVec::filled(None, rig.ropes.len());
     for (l, _) in sub.forward.tension.entries() {
-        let rope = rig.lines[l].rope.index();
+        let rope = rig.lines[l].rope;
         if rig.ropes[rope].breaking_strength.is_some() {
             continue;
         }
@@ -437,8 +437,8 @@ fn strength_unknown_checks(rig: &Rig, sub: &SubRigSolution) -> Vec<Warning> {
         largest[rope] = Some(largest[rope].map_or(worst, |w| w.max(worst)));
     }
     let mut out = Vec::new();
-    for (rope, worst) in largest.into_iter().enumerate() {
-        let Some(worst) = worst else { continue };
+    for (rope, worst) in largest.enumerate() {
+        let Some(worst) = *worst else { continue };
         // A slack rope (every tension negative) has no largest tension to name.
         let largest = if worst > 0.0 {
             format!(

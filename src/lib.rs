@@ -57,8 +57,9 @@
 //! let main = solution.main();
 //! assert!((main.ideal.value - 49.033_25).abs() < 1e-9);
 //! assert!((main.forward.value - 52.740_64).abs() < 1e-5);
-//! // Line 0 (`fall`), span 1: from `hook.a` to `head`.
-//! let between = main.forward.tension[0][1];
+//! // Line `fall`, span 1: from `hook.a` to `head`.
+//! let fall = rig.lines.position(|l| l.name == "fall").unwrap();
+//! let between = main.forward.tension[fall][1];
 //! assert!((between - 50.229_18).abs() < 1e-5, "{between}");
 //! ```
 #![warn(missing_docs)]

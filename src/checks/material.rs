@@ -137,7 +137,7 @@ pub fn rope_checks(rig: &Rig) -> Vec<Warning> {
 /// stretch, lost travel and spring rate shown are outside the model's range.
 pub fn stretch_checks(rig: &Rig, solution: &Solution) -> Vec<Warning> {
     let mut out = Vec::new();
-    for (l, line) in rig.lines.iter().enumerate() {
+    for (l, line) in rig.lines.enumerate() {
         let Some(ea) = rig.rope_of(l).stiffness else {
             continue;
         };
@@ -179,7 +179,7 @@ pub fn stretch_checks(rig: &Rig, solution: &Solution) -> Vec<Warning> {
 pub fn sag_checks(rig: &Rig, solution: &Solution) -> Vec<Warning> {
     let mut out = Vec::new();
     let up = -rig.gravity.into_inner();
-    for (l, line) in rig.lines.iter().enumerate() {
+    for (l, line) in rig.lines.enumerate() {
         let q = rig.rope_of(l).mass_per_length.unwrap_or(0.0) * crate::math::STANDARD_GRAVITY;
         let Some(spans) = solution.geometry.lines.get(l).map(|g| &g.spans) else {
             continue;

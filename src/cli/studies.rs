@@ -238,7 +238,6 @@ pub fn run_rank(args: RankArgs) -> Result<i32, Failure> {
         let rig = s.load(&[])?;
         if let Some(id) = rig
             .parts
-            .iter()
             .position(|p| matches!(p.kind, PartKind::Sheave(_)))
         {
             let key = format!("parts.{}.bearing", rig.parts[id].name);

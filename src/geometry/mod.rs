@@ -28,7 +28,7 @@ pub mod tangent;
 use std::f64::consts::TAU;
 
 use crate::math::{Direction, Point, Real};
-use crate::model::{LineId, PartId, Rig};
+use crate::model::{IdVec, LineId, PartId, Rig};
 use tangent::{common_tangent, exceeds, Circle, End, TangentError, TangentOptions, DEGENERATE};
 
 /// A straight length of rope between two parts of a line.
@@ -83,7 +83,7 @@ pub struct LineGeometry {
 #[derive(Debug, Clone, PartialEq)]
 pub struct Geometry {
     /// Per line.
-    pub lines: Vec<LineGeometry>,
+    pub lines: IdVec<LineId, LineGeometry>,
 }
 
 /// Options for the geometry solve.
@@ -173,9 +173,11 @@ pub enum GeometryError {
 /// never does (it resolves every name into an index of its own vectors).
 pub fn compute(rig: &Rig, options: &GeometryOptions) -> Result<Geometry, GeometryError> {
     let size = rig_size(rig);
-    let lines = (0..rig.lines.len())
+    let lines = rig
+        .lines
+        .ids()
         .map(|line| line_geometry(rig, line, options, size))
-        .collect::<Result<Vec<_>, _>>()?;
+        .collect::<Result<IdVec<_, _>, _>>()?;
     Ok(Geometry { lines })
 }
 

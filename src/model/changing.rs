@@ -8,6 +8,7 @@
 //! drum, right-handed about its axle); `solve::travel` advances them as it moves the rig.
 
 use crate::math::{Real, Vector, STANDARD_GRAVITY};
+use crate::model::{IdVec, PartId};
 
 /// The end stops: how far the drive may move back and forward from the drawn position
 /// (m for a translating drive, rad for a drum). Both non-negative.
@@ -128,12 +129,12 @@ pub struct Changing {
     pub stop_speed: Option<Real>,
     /// Per part, file order (may be empty for a rig built in code: every part then has
     /// nothing that changes).
-    pub parts: Vec<PartChanging>,
+    pub parts: IdVec<PartId, PartChanging>,
 }
 
 impl Changing {
     /// The part's data, or the empty default.
-    pub fn of(&self, part: usize) -> &PartChanging {
+    pub fn of(&self, part: PartId) -> &PartChanging {
         const NONE: PartChanging = PartChanging {
             lever: None,
             spring: None,
@@ -146,9 +147,9 @@ impl Changing {
     }
 
     /// The part's data for changing it (grows the list as needed).
-    pub fn of_mut(&mut self, part: usize) -> &mut PartChanging {
-        if self.parts.len() <= part {
-            self.parts.resize(part + 1, PartChanging::default());
+    pub fn of_mut(&mut self, part: PartId) -> &mut PartChanging {
+        while self.parts.len() <= part.index() {
+            self.parts.push(PartChanging::default());
         }
         &mut self.parts[part]
     }

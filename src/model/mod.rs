@@ -8,11 +8,13 @@
 //! variants, ranged values) and [`param`] the model values it sets.
 
 pub mod changing;
+pub mod id;
 pub mod network;
 pub mod param;
 pub mod source;
 pub mod vary;
 
+pub use id::{Id, IdVec, LineId, PartId, RopeId};
 pub use network::{Link, Network};
 pub use source::{LoadError, Problem, RigFile};
 
@@ -28,44 +30,6 @@ pub struct Location {
     pub column: usize,
 }
 
-/// Index of a part in [`Rig::parts`] (file order).
-pub type PartId = usize;
-/// A rope: its position in [`Rig::ropes`]. A type of its own, so that a rope cannot be
-/// taken for a part or a line; `rig.ropes[id]` indexes with it.
-#[derive(Debug, Clone, Copy, PartialEq, Eq, PartialOrd, Ord, Hash)]
-pub struct RopeId(u32);
-
-impl RopeId {
-    /// The id of position `index` in [`Rig::ropes`].
-    ///
-    /// # Panics
-    /// Beyond 2³² ropes, which no rig file reaches (files are capped in size).
-    pub fn new(index: usize) -> Self {
-        Self(u32::try_from(index).expect("fewer than 2^32 ropes"))
-    }
-
-    /// The position in [`Rig::ropes`].
-    pub fn index(self) -> usize {
-        self.0 as usize
-    }
-}
-
-impl std::ops::Index<RopeId> for [Rope] {
-    type Output = Rope;
-    fn index(&self, id: RopeId) -> &Rope {
-        &self[id.index()]
-    }
-}
-
-impl std::ops::Index<RopeId> for Vec<Rope> {
-    type Output = Rope;
-    fn index(&self, id: RopeId) -> &Rope {
-        &self[id.index()]
-    }
-}
-/// Index of a line in [`Rig::lines`].
-pub type LineId = usize;
-
 /// A whole rig, ready for geometry and solving.
 #[derive(Debug, Clone)]
 pub struct Rig {
@@ -78,11 +42,11 @@ pub struct Rig {
     /// Good-practice limits for the checks.
     pub limits: Limits,
     /// Rope kinds, file order.
-    pub ropes: Vec<Rope>,
+    pub ropes: IdVec<RopeId, Rope>,
     /// Parts, file order.
-    pub parts: Vec<Part>,
+    pub parts: IdVec<PartId, Part>,
     /// Lines, file order.
-    pub lines: Vec<Line>,
+    pub lines: IdVec<LineId, Line>,
     /// The part whose forward motion drives the rig.
     pub drive: PartId,
     /// The part whose natural quantity is the unknown.
@@ -490,7 +454,7 @@ impl Part {
 impl Rig {
     /// The part with this name.
     pub fn part_named(&self, name: &str) -> Option<PartId> {
-        self.parts.iter().position(|p| p.name == name)
+        self.parts.position(|p| p.name == name)
     }
 
     /// The rope a line is made of.

@@ -6,7 +6,7 @@
 use petgraph::graph::{NodeIndex, UnGraph};
 use petgraph::visit::{Dfs, NodeFiltered};
 
-use crate::model::{LineId, PartId, Rig};
+use crate::model::{IdVec, LineId, PartId, Rig};
 
 /// What a graph edge stands for.
 #[derive(Debug, Clone, Copy, PartialEq, Eq)]
@@ -28,7 +28,7 @@ pub struct Network {
     /// Node weight: the part; edge weight: the link.
     pub graph: UnGraph<PartId, Link>,
     /// For each part, its sub-rig index.
-    pub component_of: Vec<usize>,
+    pub component_of: IdVec<PartId, usize>,
     /// Parts of each sub-rig, in file order.
     pub components: Vec<Vec<PartId>>,
 }
@@ -39,8 +39,9 @@ impl Network {
     /// (a pick point carried by a block moves with it, and does join).
     pub fn build(rig: &Rig) -> Network {
         let mut graph = UnGraph::with_capacity(rig.parts.len(), 0);
-        let nodes: Vec<NodeIndex> = (0..rig.parts.len()).map(|p| graph.add_node(p)).collect();
-        for (line_id, line) in rig.lines.iter().enumerate() {
+        // Node `k` is part `k`: the graph's indices are the parts' positions.
+        let nodes: IdVec<PartId, NodeIndex> = rig.parts.ids().map(|p| graph.add_node(p)).collect();
+        for (line_id, line) in rig.lines.enumerate() {
             for (index, pair) in line.path.windows(2).enumerate() {
                 let (a, b) = (pair[0].part, pair[1].part);
                 graph.add_edge(
@@ -53,7 +54,7 @@ impl Network {
                 );
             }
         }
-        for (id, part) in rig.parts.iter().enumerate() {
+        for (id, part) in rig.parts.enumerate() {
             if let Some(block) = part.block {
                 graph.add_edge(nodes[id], nodes[block], Link::Carried);
             }
@@ -64,11 +65,11 @@ impl Network {
         // anchor is a sub-rig of its own. Components are numbered by their first part
         // in file order.
         let moving = NodeFiltered::from_fn(&graph, |n: NodeIndex| {
-            !rig.parts[n.index()].is_fixed_anchor()
+            !rig.parts[graph[n]].is_fixed_anchor()
         });
-        let mut component_of = vec![usize::MAX; rig.parts.len()];
+        let mut component_of = IdVec::filled(usize::MAX, rig.parts.len());
         let mut components: Vec<Vec<PartId>> = Vec::new();
-        for id in 0..rig.parts.len() {
+        for id in rig.parts.ids() {
             if component_of[id] != usize::MAX {
                 continue;
             }
@@ -94,6 +95,11 @@ impl Network {
         }
     }
 
+    /// The graph node of `part`: node `k` is part `k`, as [`Network::build`] adds them.
+    pub fn node(part: PartId) -> NodeIndex {
+        NodeIndex::new(part.index())
+    }
+
     /// The parts that block `block` carries (its sheaves and pick points), read from the
     /// graph's `Carried` edges (each joins the carried part to its block), file order.
     pub fn carried_by(&self, block: PartId) -> Vec<PartId> {
@@ -113,10 +119,10 @@ impl Network {
     /// `Carried` edge between them.
     pub fn carries(&self, a: PartId, b: PartId) -> bool {
         self.graph
-            .edges_connecting(NodeIndex::new(a), NodeIndex::new(b))
+            .edges_connecting(Network::node(a), Network::node(b))
             .chain(
                 self.graph
-                    .edges_connecting(NodeIndex::new(b), NodeIndex::new(a)),
+                    .edges_connecting(Network::node(b), Network::node(a)),
             )
             .any(|e| *e.weight() == Link::Carried)
     }
@@ -126,7 +132,7 @@ impl Network {
     pub fn lines_at(&self, part: PartId) -> Vec<LineId> {
         let mut lines: Vec<LineId> = self
             .graph
-            .edges(NodeIndex::new(part))
+            .edges(Network::node(part))
             .filter_map(|e| match *e.weight() {
                 Link::Span { line, .. } => Some(line),
                 Link::Carried => None,
@@ -167,8 +173,8 @@ mod tests {
         assert!(network.carries(id("hook"), id("hook.a")));
         assert!(network.carries(id("hook.a"), id("hook")));
         assert!(!network.carries(id("head"), id("hook.a")));
-        assert_eq!(network.lines_at(id("head")), [0]);
-        assert_eq!(network.lines_at(id("hook.a")), [0]);
+        assert_eq!(network.lines_at(id("head")), [LineId::new(0)]);
+        assert_eq!(network.lines_at(id("hook.a")), [LineId::new(0)]);
         // The block itself is carried-to, not on the line.
         assert!(network.lines_at(id("hook")).is_empty());
     }
@@ -204,8 +210,8 @@ drive: hand.b
         let b = network.component_of[id("bar.b")];
         assert_ne!(a, b);
         assert_eq!(network.components[a], [id("bar.a"), id("load.a")]);
-        assert_eq!(network.lines_of(&rig, a), [0]);
-        assert_eq!(network.lines_of(&rig, b), [1]);
+        assert_eq!(network.lines_of(&rig, a), [LineId::new(0)]);
+        assert_eq!(network.lines_of(&rig, b), [LineId::new(1)]);
         assert!(network
             .lines_of(&rig, network.component_of[id("eye")])
             .is_empty());

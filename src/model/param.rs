@@ -58,7 +58,7 @@ impl Param {
                 Bearing::Plain { mu, .. } | Bearing::Rolling { mu, .. } => *mu = value,
                 _ => return None,
             },
-            Param::RopeMu(r) => rig.ropes.get_mut(r.index())?.mu = value,
+            Param::RopeMu(r) => rig.ropes.get_mut(r)?.mu = value,
             Param::LoadMass(p) | Param::LoadForce(p) => {
                 let PartKind::Block(block) = &mut rig.parts.get_mut(p)?.kind else {
                     return None;
@@ -128,12 +128,12 @@ impl<'a> Names<'a> {
     /// as a scan in file order finds it).
     pub fn of(rig: &'a Rig) -> Names<'a> {
         let mut parts = HashMap::with_capacity(rig.parts.len());
-        for (id, p) in rig.parts.iter().enumerate() {
+        for (id, p) in rig.parts.enumerate() {
             parts.entry(p.name.as_str()).or_insert(id);
         }
         let mut ropes = HashMap::with_capacity(rig.ropes.len());
-        for (id, r) in rig.ropes.iter().enumerate() {
-            ropes.entry(r.name.as_str()).or_insert(RopeId::new(id));
+        for (id, r) in rig.ropes.enumerate() {
+            ropes.entry(r.name.as_str()).or_insert(id);
         }
         Names { parts, ropes }
     }

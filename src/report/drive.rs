@@ -1,6 +1,6 @@
 //! What drives a sub-rig and which way its parts travel, for wording its outcome.
 
-use crate::model::{PartKind, Rig};
+use crate::model::{PartId, PartKind, Rig};
 use crate::solve::kinematics::Motion;
 use crate::solve::Solution;
 
@@ -63,7 +63,7 @@ impl Travel {
 }
 
 /// The way `part` travels in the forward motion, if it moves.
-pub(super) fn travel(rig: &Rig, solution: &Solution, part: usize) -> Option<Travel> {
+pub(super) fn travel(rig: &Rig, solution: &Solution, part: PartId) -> Option<Travel> {
     let k = &solution.kinematics;
     let i = (*k.dof_of_part.get(part)?)?;
     match k.dofs[i].motion {

@@ -7,7 +7,7 @@ use serde::Serialize;
 
 use super::{finite, ForwardBack, PerCase, Report};
 use crate::math::{Real, Vector};
-use crate::model::{PartKind, Rig};
+use crate::model::{PartId, PartKind, Rig};
 use crate::solve::kinematics::Motion;
 use crate::solve::statics::CaseResult;
 use crate::solve::{Case, Solution, SubRigSolution};
@@ -80,7 +80,12 @@ impl PartLoads {
     /// `forward_loss` that sub-rig's forward [`CaseResult::total_loss`], summed once per
     /// sub-rig by the caller (summing it here, once per part, made the report quadratic
     /// in the parts of a long chain).
-    pub fn of(rig: &Rig, sub: Option<&SubRigSolution>, forward_loss: Real, id: usize) -> PartLoads {
+    pub fn of(
+        rig: &Rig,
+        sub: Option<&SubRigSolution>,
+        forward_loss: Real,
+        id: PartId,
+    ) -> PartLoads {
         let axle = match &rig.parts[id].kind {
             PartKind::Sheave(s) => Some(s.axle),
             PartKind::Guide(g) => Some(g.axle),

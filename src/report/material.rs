@@ -4,7 +4,7 @@
 use serde::Serialize;
 
 use crate::math::Real;
-use crate::model::Rig;
+use crate::model::{LineId, Rig};
 use crate::solve::{Case, Solution, SubRigSolution};
 
 use super::{finite, PerCase};
@@ -55,7 +55,7 @@ pub(super) fn span_material(
     rig: &Rig,
     solution: &Solution,
     sub: Option<&SubRigSolution>,
-    line: usize,
+    line: LineId,
     span: usize,
 ) -> SpanMaterial {
     let rope = rig.rope_of(line);

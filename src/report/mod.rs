@@ -25,7 +25,7 @@ use serde::Serialize;
 
 use crate::checks::Warning;
 use crate::math::{Real, Vector};
-use crate::model::{PartKind, Rig};
+use crate::model::{PartId, PartKind, Rig};
 use crate::solve::{given_quantity, Case, Outcome, Solution, SubRigSolution};
 use crate::units::UnitSystem;
 
@@ -525,7 +525,7 @@ fn headline(rig: &Rig, solution: &Solution, sub: &SubRigSolution) -> Headline {
         }),
         velocity_ratio: sub.velocity_ratio,
         velocity_ratio_unit: {
-            let turns = |p: usize| matches!(rig.parts[p].kind, PartKind::Drum(_));
+            let turns = |p: PartId| matches!(rig.parts[p].kind, PartKind::Drum(_));
             match (turns(sub.drive), sub.load_part.map(turns)) {
                 (true, Some(false)) => "rad/m",
                 (false, Some(true)) => "m/rad",
@@ -586,7 +586,7 @@ impl Report {
             .map(|s| (s.forward.total_loss(), s.forward.input_power()))
             .collect();
         let mut spans = Vec::new();
-        for (l, line) in rig.lines.iter().enumerate() {
+        for (l, line) in rig.lines.enumerate() {
             let sub = subrig(owners.line[l]);
             let rope = rig.rope_of(l);
             for (j, span) in solution.geometry.lines[l].spans.iter().enumerate() {
@@ -628,7 +628,7 @@ impl Report {
         }
         let mut parts = Vec::new();
         let mut drums = Vec::new();
-        for (id, part) in rig.parts.iter().enumerate() {
+        for (id, part) in rig.parts.enumerate() {
             let sub = subrig(owners.part[id]);
             let mut passages = Vec::new();
             if part.kind.round().is_some() {

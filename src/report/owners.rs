@@ -1,6 +1,6 @@
 //! Who owns what in a solved rig, found once for [`super::Report::build`].
 
-use crate::model::Rig;
+use crate::model::{IdVec, LineId, PartId, Rig};
 use crate::solve::Solution;
 
 /// Who owns what, found once per report: the sub-rig solution (its index in
@@ -9,13 +9,13 @@ use crate::solve::Solution;
 /// so building the report is linear in the rig, however many sub-rigs it has.
 pub(super) struct Owners {
     /// Of each part: the solution of its sub-rig.
-    pub(super) part: Vec<Option<usize>>,
+    pub(super) part: IdVec<PartId, Option<usize>>,
     /// Of each line: the solution of its sub-rig.
-    pub(super) line: Vec<Option<usize>>,
+    pub(super) line: IdVec<LineId, Option<usize>>,
     /// At each part: its path entries `(line, entry)`, in line then entry order.
-    pub(super) entries: Vec<Vec<(usize, usize)>>,
+    pub(super) entries: IdVec<PartId, Vec<(LineId, usize)>>,
     /// At each part: the solutions whose lines reach it, ascending, each once.
-    pub(super) reached_by: Vec<Vec<usize>>,
+    pub(super) reached_by: IdVec<PartId, Vec<usize>>,
 }
 
 impl Owners {
@@ -26,32 +26,36 @@ impl Owners {
             // The first solution of a component, as a search from the front finds it.
             of_component[s.component] = Some(k);
         }
-        let part: Vec<Option<usize>> = (0..rig.parts.len())
+        let part: IdVec<PartId, Option<usize>> = rig
+            .parts
+            .ids()
             .map(|p| of_component[network.component_of[p]])
             .collect();
-        let line: Vec<Option<usize>> = (0..rig.lines.len())
+        let line_owner: IdVec<LineId, Option<usize>> = rig
+            .lines
+            .ids()
             .map(|l| {
                 crate::solve::kinematics::line_component(rig, network, l)
                     .and_then(|c| of_component[c])
             })
             .collect();
-        let mut entries = vec![Vec::new(); rig.parts.len()];
-        let mut reached_by: Vec<Vec<usize>> = vec![Vec::new(); rig.parts.len()];
-        for (l, path) in rig.lines.iter().map(|l| &l.path).enumerate() {
-            for (e, entry) in path.iter().enumerate() {
+        let mut entries = IdVec::filled(Vec::new(), rig.parts.len());
+        let mut reached_by: IdVec<PartId, Vec<usize>> = IdVec::filled(Vec::new(), rig.parts.len());
+        for (l, line) in rig.lines.enumerate() {
+            for (e, entry) in line.path.iter().enumerate() {
                 entries[entry.part].push((l, e));
-                if let Some(k) = line[l] {
+                if let Some(k) = line_owner[l] {
                     reached_by[entry.part].push(k);
                 }
             }
         }
-        for r in &mut reached_by {
+        for r in reached_by.iter_mut() {
             r.sort_unstable();
             r.dedup();
         }
         Owners {
             part,
-            line,
+            line: line_owner,
             entries,
             reached_by,
         }

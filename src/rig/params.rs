@@ -14,13 +14,8 @@ pub fn resolve(rig: &Rig, key: &str, unit: &str) -> Option<Resolved> {
     resolve_by(
         key,
         unit,
-        |name| rig.parts.iter().position(|p| p.name == name),
-        |name| {
-            rig.ropes
-                .iter()
-                .position(|r| r.name == name)
-                .map(RopeId::new)
-        },
+        |name| rig.part_named(name),
+        |name| rig.ropes.position(|r| r.name == name),
     )
 }
 

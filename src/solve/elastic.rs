@@ -21,7 +21,7 @@ use nalgebra::{DMatrix, DVector};
 
 use crate::geometry::Geometry;
 use crate::math::Real;
-use crate::model::{LineId, Rig};
+use crate::model::{IdVec, LineId, Rig};
 
 use super::kinematics::{Kinematics, Segment};
 
@@ -57,8 +57,9 @@ pub fn stretches(
     geometry: &Geometry,
     tension: &impl Index<LineId, Output = Vec<Real>>,
     tension_end: &impl Index<LineId, Output = Vec<Real>>,
-) -> Vec<Vec<Option<Real>>> {
-    (0..rig.lines.len())
+) -> IdVec<LineId, Vec<Option<Real>>> {
+    rig.lines
+        .ids()
         .map(|l| {
             let ea = rig.rope_of(l).stiffness;
             geometry.lines[l]

@@ -24,7 +24,7 @@ use crate::geometry::Geometry;
 use crate::math::{Direction, Real, Vector};
 use crate::model::network::Link;
 use crate::model::Network;
-use crate::model::{LineId, PartId, PartKind, Rig};
+use crate::model::{IdVec, LineId, PartId, PartKind, Rig};
 use petgraph::visit::EdgeRef;
 
 use super::SolveError;
@@ -99,25 +99,25 @@ pub struct Kinematics {
     /// Degrees of freedom, in part order.
     pub dofs: Vec<Dof>,
     /// For each part, its degree of freedom, if it moves.
-    pub dof_of_part: Vec<Option<usize>>,
+    pub dof_of_part: IdVec<PartId, Option<usize>>,
     /// Segments, line by line.
     pub segments: Vec<Segment>,
     /// `span_rows[line][span]`: the span's rate of lengthening per unit speed of each
     /// degree of freedom (sparse: the dofs of the parts at its ends).
-    pub span_rows: Vec<Vec<SpanRow>>,
+    pub span_rows: IdVec<LineId, Vec<SpanRow>>,
     /// Forward speed of every degree of freedom, drive at +1 (0 outside moving sub-rigs).
     pub forward: DVector<Real>,
     /// The rope's speed over each path entry, relative to that part and along the path
     /// direction, in the forward motion (`rope_speed[line][entry]`).
-    pub rope_speed: Vec<Vec<Real>>,
+    pub rope_speed: IdVec<LineId, Vec<Real>>,
     /// Per line, the rope speed (per unit drive speed) below which the rope counts as
     /// standing still on a part: round-off, not motion.
-    pub rope_speed_floor: Vec<Real>,
+    pub rope_speed_floor: IdVec<LineId, Real>,
 }
 
 /// The direction a haul end is pulled: given, or along its span away from the line.
 pub fn haul_direction(rig: &Rig, geometry: &Geometry, part: PartId) -> Option<Direction> {
-    haul_direction_over(rig, geometry, part, 0..rig.lines.len())
+    haul_direction_over(rig, geometry, part, rig.lines.ids())
 }
 
 /// [`haul_direction`], asking the network which lines reach the part (the lines in
@@ -174,14 +174,16 @@ impl Kinematics {
         rank_tolerance: Real,
     ) -> Result<Kinematics, SolveError> {
         let mut dofs = Vec::new();
-        let mut dof_of_part = vec![None; rig.parts.len()];
+        let mut dof_of_part = IdVec::filled(None, rig.parts.len());
         // From the network's graph: which parts a line reaches, and which blocks carry
         // a part that a line reaches (each `Carried` edge joins a carried part to its
         // block; one pass over the edges).
-        let in_line: Vec<bool> = (0..rig.parts.len())
+        let in_line: IdVec<PartId, bool> = rig
+            .parts
+            .ids()
             .map(|p| !network.lines_at(p).is_empty())
             .collect();
-        let mut carries = vec![false; rig.parts.len()];
+        let mut carries = IdVec::filled(false, rig.parts.len());
         for e in network.graph.edge_references() {
             if *e.weight() == Link::Carried {
                 let (carried, block) = (network.graph[e.source()], network.graph[e.target()]);
@@ -190,7 +192,7 @@ impl Kinematics {
                 }
             }
         }
-        for (id, part) in rig.parts.iter().enumerate() {
+        for (id, part) in rig.parts.enumerate() {
             let motion = match &part.kind {
                 PartKind::Block(b) => Some(Motion::Translate(b.moves)),
                 PartKind::Weight(_) => Some(Motion::Translate(rig.gravity)),
@@ -208,8 +210,8 @@ impl Kinematics {
             }
         }
 
-        let mut span_rows = Vec::with_capacity(rig.lines.len());
-        for (l, line) in rig.lines.iter().enumerate() {
+        let mut span_rows = IdVec::new();
+        for (l, line) in rig.lines.enumerate() {
             let g = &geometry.lines[l];
             let mut rows = Vec::with_capacity(g.spans.len());
             for (j, span) in g.spans.iter().enumerate() {
@@ -263,7 +265,7 @@ impl Kinematics {
 
         // Segments: split each line at drum passages.
         let mut segments = Vec::new();
-        for (l, line) in rig.lines.iter().enumerate() {
+        for (l, line) in rig.lines.enumerate() {
             let mut first = 0;
             for (e, entry) in line.path.iter().enumerate().skip(1) {
                 let is_drum = matches!(rig.parts[entry.part].kind, PartKind::Drum(_));
@@ -314,7 +316,9 @@ impl Kinematics {
         }
 
         // Each line's sub-rig, once; each sub-rig's segments.
-        let line_comp: Vec<Option<usize>> = (0..rig.lines.len())
+        let line_comp: IdVec<LineId, Option<usize>> = rig
+            .lines
+            .ids()
             .map(|l| line_component(rig, network, l))
             .collect();
         let mut rows_of: Vec<Vec<usize>> = vec![Vec::new(); network.components.len()];
@@ -429,7 +433,7 @@ impl Kinematics {
         }
 
         // Rope speed over each entry: s_e = −Σ_{i<e in its segment} row_i · q̇.
-        let mut rope_speed: Vec<Vec<Real>> =
+        let mut rope_speed: IdVec<LineId, Vec<Real>> =
             rig.lines.iter().map(|l| vec![0.0; l.path.len()]).collect();
         for seg in &segments {
             let mut s = 0.0;
@@ -443,7 +447,9 @@ impl Kinematics {
         // speed where the motion came from the SVD (whose round-off is relative to the
         // drive), 1e-12 of the line's own speeds where it was walked (exact to its own
         // scale: a cascade's far lines run at 2^-N of the drive and still run).
-        let rope_speed_floor: Vec<Real> = (0..rig.lines.len())
+        let rope_speed_floor: IdVec<LineId, Real> = rig
+            .lines
+            .ids()
             .map(|l| {
                 let walked_line = line_comp[l].is_some_and(|c| walked[c]);
                 if !walked_line {
@@ -487,7 +493,7 @@ pub fn line_component(rig: &Rig, network: &Network, line: LineId) -> Option<usiz
 fn point_velocity_along(
     rig: &Rig,
     dofs: &[Dof],
-    dof_of_part: &[Option<usize>],
+    dof_of_part: &IdVec<PartId, Option<usize>>,
     part: PartId,
     at: &crate::math::Point,
     u: &Vector,

@@ -630,7 +630,7 @@ pub fn solve_again_on(
 
 /// Whether any bearing gives a static coefficient (then a breakaway case is solved).
 pub fn has_static_friction(rig: &Rig) -> bool {
-    (0..rig.parts.len()).any(|p| static_friction_at(rig, p))
+    rig.parts.ids().any(|p| static_friction_at(rig, p))
 }
 
 /// Whether part `part`'s bearing (a sheave's, or a drum's shaft's) gives a static

@@ -15,12 +15,10 @@ use nalgebra::{DMatrix, DVector};
 use std::borrow::Cow;
 use std::sync::Arc;
 
-use petgraph::graph::NodeIndex;
-
 use crate::friction::{self, BearingResistance};
 use crate::geometry::Geometry;
 use crate::math::{Real, Vector, STANDARD_GRAVITY};
-use crate::model::{square_to_gravity, BlockLoad, LineId, PartId, PartKind, Rig};
+use crate::model::{square_to_gravity, BlockLoad, Id, LineId, PartId, PartKind, Rig};
 use crate::model::{Link, Network};
 
 use super::bearing::{bearing_resistance, thrust_moment};
@@ -146,8 +144,8 @@ pub struct Layout {
     /// See `touches`.
     touch_start: Vec<usize>,
     /// `lines` and `parts` as the results' keys, shared by every case.
-    line_ids: Arc<[usize]>,
-    part_ids: Arc<[usize]>,
+    line_ids: Arc<[LineId]>,
+    part_ids: Arc<[PartId]>,
     /// The ropes' own weight on each span (zero for weightless ropes; DESIGN.md §7):
     /// the ropes' mass and the geometry fix it, not friction or loads.
     weight: RopeWeight,
@@ -164,7 +162,7 @@ pub struct Layout {
 fn carried_by(network: &Network, block: PartId) -> Vec<PartId> {
     let graph = &network.graph;
     let mut carried: Vec<PartId> = graph
-        .edges(NodeIndex::new(block))
+        .edges(Network::node(block))
         .filter(|e| *petgraph::visit::EdgeRef::weight(e) == Link::Carried)
         .filter_map(|e| graph.edge_endpoints(petgraph::visit::EdgeRef::id(&e)))
         .filter(|&(_, b)| graph[b] == block)
@@ -238,7 +236,7 @@ impl Layout {
             .iter()
             .filter(|&&p| !rig.parts[p].is_fixed_anchor())
             .flat_map(|&p| {
-                network.graph.edges(NodeIndex::new(p)).filter_map(|e| {
+                network.graph.edges(Network::node(p)).filter_map(|e| {
                     match *petgraph::visit::EdgeRef::weight(&e) {
                         Link::Span { line, .. } => Some(line),
                         Link::Carried => None,
@@ -306,9 +304,9 @@ impl Layout {
             .collect();
         // The results' keys (`ById::keyed`), checked here once: ascending, each once,
         // ids of the rig.
-        let keys_hold = |ids: &[usize], len: usize| {
-            ids.windows(2).all(|w| w[0] < w[1]) && ids.last().map_or(true, |&i| i < len)
-        };
+        fn keys_hold<I: Id>(ids: &[I], len: usize) -> bool {
+            ids.windows(2).all(|w| w[0] < w[1]) && ids.last().map_or(true, |&i| i.index() < len)
+        }
         assert!(keys_hold(&lines, rig.lines.len()) && keys_hold(&parts, rig.parts.len()));
         let (line_ids, part_ids) = (lines.as_slice().into(), parts.as_slice().into());
         let weight = RopeWeight::build(rig, geometry, &lines);

@@ -11,7 +11,7 @@
 //! carry the whole step, second-order accurate in `dt`.
 
 use crate::math::{Real, Vector};
-use crate::model::{LineId, PartId, Rig};
+use crate::model::{IdVec, LineId, PartId, Rig};
 
 use super::kinematics::Motion;
 use super::Solution;
@@ -33,7 +33,7 @@ pub fn drive_rotates(rig: &Rig, solution: &Solution) -> bool {
 pub fn part_velocities(rig: &Rig, solution: &Solution) -> Vec<(PartId, Vector)> {
     let main = solution.main().component;
     let k = &solution.kinematics;
-    let mut of_part: Vec<Option<Vector>> = vec![None; rig.parts.len()];
+    let mut of_part: IdVec<PartId, Option<Vector>> = IdVec::filled(None, rig.parts.len());
     let mut out = Vec::new();
     for (i, dof) in k.dofs.iter().enumerate() {
         if solution.network.component_of[dof.part] != main {
@@ -45,7 +45,7 @@ pub fn part_velocities(rig: &Rig, solution: &Solution) -> Vec<(PartId, Vector)> 
             out.push((dof.part, v));
         }
     }
-    for (p, part) in rig.parts.iter().enumerate() {
+    for (p, part) in rig.parts.enumerate() {
         if let Some(v) = part.block.and_then(|b| of_part[b]) {
             out.push((p, v));
         }
@@ -133,7 +133,7 @@ pub struct ClosedSpan {
 /// parts moved by more than its length towards each other (a block rising through its
 /// sheave's tangent point: the new tangent lies on another branch, not short).
 pub fn closed_span(rig: &Rig, before: &Solution, after: &Solution) -> Option<ClosedSpan> {
-    for l in 0..rig.lines.len() {
+    for l in rig.lines.ids() {
         let (a, b) = (&before.geometry.lines[l], &after.geometry.lines[l]);
         for (j, (x, y)) in a.spans.iter().zip(&b.spans).enumerate() {
             // The length the parts' displacement leaves the span, to first order

@@ -20,7 +20,7 @@ use std::sync::Mutex;
 use crate::checks::{self, Warning};
 use crate::math::Real;
 use crate::model::param::Resolved;
-use crate::model::{Bearing, PartKind, Rig};
+use crate::model::{Bearing, IdVec, PartId, PartKind, Rig, RopeId};
 use crate::solve::statics::Layout;
 use crate::solve::{self, given_quantity, Outcome, Solution, SolveOptions, SubRigSolution};
 
@@ -30,9 +30,9 @@ use super::{RigSource, StudyError, Verdict};
 #[derive(Debug, Clone, Copy, PartialEq, Eq)]
 pub enum Subject {
     /// One part (its bearing, its surface, a drum's shaft and drag).
-    Part(usize),
+    Part(PartId),
     /// One rope, wherever it runs.
-    Rope(usize),
+    Rope(RopeId),
 }
 
 /// A change on the model: a name for its kind (each kind is checked once against the
@@ -59,9 +59,9 @@ pub struct Local<'a> {
     rig: &'a Rig,
     solution: &'a Solution,
     /// Of each part: its sub-rig's index in `solution.subrigs`.
-    subrig_of_part: Vec<Option<usize>>,
+    subrig_of_part: IdVec<PartId, Option<usize>>,
     /// Of each rope: the sub-rigs (indices in `solution.subrigs`) whose lines it makes.
-    subrigs_of_rope: Vec<Vec<usize>>,
+    subrigs_of_rope: IdVec<RopeId, Vec<usize>>,
     /// `check`'s warnings of the rig before the sub-rigs' own.
     rig_warnings: Vec<Warning>,
     /// Each sub-rig's warnings.
@@ -92,18 +92,21 @@ impl<'a> Local<'a> {
         for (k, s) in solution.subrigs.iter().enumerate().rev() {
             of_component[s.component] = Some(k);
         }
-        let subrig_of_part = (0..rig.parts.len())
+        let subrig_of_part = rig
+            .parts
+            .ids()
             .map(|p| of_component[network.component_of[p]])
             .collect();
-        let mut subrigs_of_rope: Vec<Vec<usize>> = vec![Vec::new(); rig.ropes.len()];
-        for (l, line) in rig.lines.iter().enumerate() {
+        let mut subrigs_of_rope: IdVec<RopeId, Vec<usize>> =
+            IdVec::filled(Vec::new(), rig.ropes.len());
+        for (l, line) in rig.lines.enumerate() {
             let owner =
                 solve::kinematics::line_component(rig, network, l).and_then(|c| of_component[c]);
             if let Some(k) = owner {
-                subrigs_of_rope[line.rope.index()].push(k);
+                subrigs_of_rope[line.rope].push(k);
             }
         }
-        for r in &mut subrigs_of_rope {
+        for r in subrigs_of_rope.iter_mut() {
             r.sort_unstable();
             r.dedup();
         }
@@ -135,7 +138,9 @@ impl<'a> Local<'a> {
                 .collect(),
             work: Mutex::new(rig.clone()),
             trusted: Mutex::new(HashMap::new()),
-            static_parts: (0..rig.parts.len())
+            static_parts: rig
+                .parts
+                .ids()
                 .filter(|&p| solve::static_friction_at(rig, p))
                 .count(),
         })
@@ -342,7 +347,7 @@ impl Local<'_> {
 
 /// The model change that makes `part` frictionless, as
 /// [`super::rank::frictionless_settings`] writes it to the file.
-pub fn frictionless(rig: &mut Rig, part: usize) -> Option<()> {
+pub fn frictionless(rig: &mut Rig, part: PartId) -> Option<()> {
     match &mut rig.parts.get_mut(part)?.kind {
         PartKind::Sheave(s) => s.bearing = Bearing::None,
         PartKind::Guide(g) => g.mu = Some(0.0),
@@ -356,7 +361,7 @@ pub fn frictionless(rig: &mut Rig, part: usize) -> Option<()> {
 }
 
 /// The kind of the frictionless change of `part`, for [`Edit::kind`].
-pub fn frictionless_kind(rig: &Rig, part: usize) -> &'static str {
+pub fn frictionless_kind(rig: &Rig, part: PartId) -> &'static str {
     match &rig.parts[part].kind {
         PartKind::Sheave(_) => "frictionless sheave",
         PartKind::Guide(_) => "frictionless guide",
@@ -510,7 +515,7 @@ mod tests {
                 let (r, s) = source.solve(settings).unwrap();
                 (s.main().forward.value, Verdict::assess(&r, &s))
             };
-            for part in 0..rig.parts.len() {
+            for part in rig.parts.ids() {
                 let Some(settings) = super::super::rank::frictionless_settings(&rig, part) else {
                     continue;
                 };
@@ -523,10 +528,10 @@ mod tests {
                     .run(Subject::Part(part), Some(edit), &settings, true)
                     .unwrap();
                 let (forward, verdict) = whole(&settings);
-                assert_eq!(o.forward.to_bits(), forward.to_bits(), "{file} {part}");
-                assert_eq!(o.verdict, Some(verdict), "{file} {part}");
+                assert_eq!(o.forward.to_bits(), forward.to_bits(), "{file} {part:?}");
+                assert_eq!(o.verdict, Some(verdict), "{file} {part:?}");
             }
-            for (r, rope) in rig.ropes.iter().enumerate() {
+            for (r, rope) in rig.ropes.enumerate() {
                 let key = format!("ropes.{}.mu", rope.name);
                 let settings = [(key.clone(), "0.3".to_string())];
                 let (kind, apply) = set_key(&source, &rig, &key, 0.3).unwrap();

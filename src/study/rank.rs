@@ -21,8 +21,8 @@ use serde::Serialize;
 
 use crate::math::Real;
 use crate::model::param::Names;
-use crate::model::Rig;
 use crate::model::{Bearing, PartKind};
+use crate::model::{PartId, Rig};
 use crate::report::Asked;
 use crate::report::{finite, CAUTION};
 use crate::units::UnitSystem;
@@ -215,7 +215,7 @@ impl Ranking {
 }
 
 /// Overrides that make `part` frictionless (see the module doc), if it has friction.
-pub fn frictionless_settings(rig: &Rig, part: usize) -> Option<Vec<(String, String)>> {
+pub fn frictionless_settings(rig: &Rig, part: PartId) -> Option<Vec<(String, String)>> {
     let name = &rig.parts[part].name;
     let set = |k: &str, v: &str| (format!("parts.{name}.{k}"), v.to_string());
     match &rig.parts[part].kind {
@@ -229,7 +229,7 @@ pub fn frictionless_settings(rig: &Rig, part: usize) -> Option<Vec<(String, Stri
 /// Overrides that change `part`'s bearing to the alternative, or why there are none.
 pub fn alternative_settings(
     rig: &Rig,
-    part: usize,
+    part: PartId,
     alt: &Alternative,
 ) -> Result<Vec<(String, String)>, String> {
     let name = &rig.parts[part].name;
@@ -275,7 +275,7 @@ fn coefficients_of(rig: &Rig, source: &RigSource) -> Vec<(Coefficient, Subject)>
         value,
         measure: Measure::Mu,
     };
-    for (id, r) in rig.ropes.iter().enumerate() {
+    for (id, r) in rig.ropes.enumerate() {
         out.push(mu(format!("ropes.{}.mu", r.name), r.mu));
         // Bending is a loss like friction (a share of the tension at each turning
         // passage); where the rope has none, a 10 % cut of it saves nothing.
@@ -288,7 +288,7 @@ fn coefficients_of(rig: &Rig, source: &RigSource) -> Vec<(Coefficient, Subject)>
         }
         tagged.extend(out.drain(..).map(|c| (c, Subject::Rope(id))));
     }
-    for (id, p) in rig.parts.iter().enumerate() {
+    for (id, p) in rig.parts.enumerate() {
         let n = &p.name;
         let bearing = |path: &[&str], b: &Bearing, out: &mut Vec<Coefficient>| {
             let prefix = path.join(".");
@@ -420,7 +420,7 @@ impl Runs<'_> {
     fn frictionless(
         &self,
         rig: &Rig,
-        part: usize,
+        part: PartId,
         settings: &[(String, String)],
     ) -> Result<(Real, Verdict), StudyError> {
         let Some(l) = &self.local else {
@@ -438,7 +438,7 @@ impl Runs<'_> {
     /// The forward value and verdict with `part`'s bearing set by `settings`.
     fn alternative(
         &self,
-        part: usize,
+        part: PartId,
         settings: &[(String, String)],
     ) -> Result<(Real, Verdict), StudyError> {
         let Some(l) = &self.local else {
@@ -520,7 +520,7 @@ pub fn rank(
     let noise = round_off(f0, main.ideal.value);
     let mut order = Vec::new();
     let mut parts = Vec::new();
-    for (id, part) in rig.parts.iter().enumerate() {
+    for (id, part) in rig.parts.enumerate() {
         progress.step();
         let Some(settings) = frictionless_settings(&rig, id) else {
             continue;

@@ -12,7 +12,7 @@
 use serde::Serialize;
 
 use crate::math::Real;
-use crate::model::Rig;
+use crate::model::{LineId, Rig};
 use crate::report::Asked;
 use crate::report::{finite, CAUTION};
 use crate::solve::travel::{self, ClosedSpan};
@@ -451,7 +451,7 @@ pub fn stroke(
                     .first()
                     .or(main.back.slack.first())
                     .copied()
-                    .unwrap_or((0, 0));
+                    .unwrap_or((LineId::new(0), 0));
                 format!(
                     "span {j} of line `{}` turns slack",
                     rig.lines.get(l).map_or("?", |l| l.name.as_str())

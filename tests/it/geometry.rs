@@ -8,12 +8,16 @@ use proptest::prelude::*;
 use reeve::geometry::{compute, Geometry, GeometryError, GeometryOptions, LineGeometry};
 use reeve::math::{Direction, Point, Real, Vector};
 use reeve::model::{
-    Bearing, Block, BlockLoad, Drum, Guide, Haul, Limits, Line, Location, Part, PartId, PartKind,
-    PathEntry, Rig, Rope, RopeId, RopeKind, Sheave, Side, Weight,
+    Bearing, Block, BlockLoad, Drum, Guide, Haul, Limits, Line, LineId, Location, Part, PartId,
+    PartKind, PathEntry, Rig, Rope, RopeId, RopeKind, Sheave, Side, Weight,
 };
 use reeve::units::UnitSystem;
 
 use crate::support::assert_abs;
+
+/// The first and the second line of a test rig.
+const L0: LineId = LineId::new(0);
+const L1: LineId = LineId::new(1);
 
 // ---------------------------------------------------------------------------------------
 // Building rigs
@@ -122,23 +126,24 @@ fn drum(name: &str, at: [Real; 3], axle: Direction, diameter: Real) -> Part {
 }
 
 /// One path entry: part index, extra turns, explicit side.
-fn entry(part: PartId) -> PathEntry {
+/// The path entry of part `part` (its position in the parts given to [`rig`]).
+fn entry(part: usize) -> PathEntry {
     PathEntry {
-        part,
+        part: PartId::new(part),
         turns: 0,
         side: None,
         location: Location::default(),
     }
 }
 
-fn sided(part: PartId, side: Side) -> PathEntry {
+fn sided(part: usize, side: Side) -> PathEntry {
     PathEntry {
         side: Some(side),
         ..entry(part)
     }
 }
 
-fn turned(part: PartId, turns: u32) -> PathEntry {
+fn turned(part: usize, turns: u32) -> PathEntry {
     PathEntry {
         turns,
         ..entry(part)
@@ -163,8 +168,9 @@ fn rig(rope_diameter: Real, parts: Vec<Part>, paths: Vec<Vec<PathEntry>>) -> Rig
             mass_per_length: None,
             bend_loss: 0.0,
             location: Location::default(),
-        }],
-        parts,
+        }]
+        .into(),
+        parts: parts.into(),
         lines: paths
             .into_iter()
             .enumerate()
@@ -175,8 +181,8 @@ fn rig(rope_diameter: Real, parts: Vec<Part>, paths: Vec<Vec<PathEntry>>) -> Rig
                 location: Location::default(),
             })
             .collect(),
-        drive: 0,
-        solve_for: 0,
+        drive: PartId::new(0),
+        solve_for: PartId::new(0),
         runs_back: false,
         changing: Default::default(),
     }
@@ -251,7 +257,7 @@ fn half_wrap_over_a_sheave_with_parallel_spans() {
         vec![vec![entry(0), entry(1), entry(2)]],
     );
     let g = geometry(&r);
-    let line = &g.lines[0];
+    let line = &g.lines[L0];
     let head = &line.entries[1];
     assert_abs("pitch radius", head.pitch_radius, 0.03, 1e-15);
     assert_abs("wrap", head.wrap, PI, 1e-12);
@@ -288,7 +294,7 @@ fn quarter_wrap_from_horizontal_to_vertical() {
         vec![vec![entry(0), entry(1), entry(2)]],
     );
     let g = geometry(&r);
-    let line = &g.lines[0];
+    let line = &g.lines[L0];
     assert_abs("wrap", line.entries[1].wrap, FRAC_PI_2, 1e-12);
     assert_eq!(line.entries[1].sense, Some(1.0));
     assert_abs("level span", line.spans[0].length, 1.0, 1e-12);
@@ -312,9 +318,9 @@ fn three_quarter_wrap_when_the_rope_crosses_itself() {
         vec![vec![entry(0), sided(1, Side::Right), entry(2)]],
     );
     let g = geometry(&r);
-    assert_abs("wrap", g.lines[0].entries[1].wrap, 1.5 * PI, 1e-12);
-    assert_abs("level span", g.lines[0].spans[0].length, 1.0, 1e-12);
-    assert_abs("falling span", g.lines[0].spans[1].length, 1.0, 1e-12);
+    assert_abs("wrap", g.lines[L0].entries[1].wrap, 1.5 * PI, 1e-12);
+    assert_abs("level span", g.lines[L0].spans[0].length, 1.0, 1e-12);
+    assert_abs("falling span", g.lines[L0].spans[1].length, 1.0, 1e-12);
 }
 
 #[test]
@@ -338,11 +344,11 @@ fn external_and_crossed_spans_between_two_sheaves() {
     let g = geometry(&over);
     assert_abs(
         "external",
-        g.lines[0].spans[1].length,
+        g.lines[L0].spans[1].length,
         (1.0 - 0.02f64.powi(2)).sqrt(),
         1e-12,
     );
-    assert_eq!(g.lines[0].entries[1].sense, g.lines[0].entries[2].sense);
+    assert_eq!(g.lines[L0].entries[1].sense, g.lines[L0].entries[2].sense);
     // Over `a`, then under `b` and up: opposite senses, crossed tangent
     // √(D² − (R₁ + R₂)²) = √(1 − 0.08²) (hand calculation).
     let crossed = rig(
@@ -353,13 +359,13 @@ fn external_and_crossed_spans_between_two_sheaves() {
     let g = geometry(&crossed);
     assert_abs(
         "crossed",
-        g.lines[0].spans[1].length,
+        g.lines[L0].spans[1].length,
         (1.0 - 0.08f64.powi(2)).sqrt(),
         1e-12,
     );
     assert_eq!(
-        g.lines[0].entries[1].sense,
-        Some(-g.lines[0].entries[2].sense.unwrap())
+        g.lines[L0].entries[1].sense,
+        Some(-g.lines[L0].entries[2].sense.unwrap())
     );
 }
 
@@ -378,7 +384,7 @@ fn fleet_angle_of_a_lead_offset_along_the_axle() {
         vec![vec![entry(0), entry(1), entry(2)]],
     );
     let g = geometry(&r);
-    let head = &g.lines[0].entries[1];
+    let head = &g.lines[L0].entries[1];
     assert_abs("fleet in", head.fleet_in.unwrap(), 0.05f64.atan(), 1e-12);
     assert_abs("fleet out", head.fleet_out.unwrap(), 0.0, 1e-12);
     // The offset moves neither tangent point: the wrap stays 90° (hand calculation).
@@ -406,7 +412,7 @@ fn drum_at_a_line_end_and_turns_on_a_guide() {
     );
     let gl = geometry(&left);
     let gr = geometry(&right);
-    let (winch_l, winch_r) = (&gl.lines[0].entries[0], &gr.lines[0].entries[0]);
+    let (winch_l, winch_r) = (&gl.lines[L0].entries[0], &gr.lines[L0].entries[0]);
     assert_eq!(winch_l.sense, Some(1.0));
     assert_eq!(winch_r.sense, Some(-1.0));
     assert_eq!(winch_l.wrap, 0.0);
@@ -422,21 +428,21 @@ fn drum_at_a_line_end_and_turns_on_a_guide() {
     // to the guide (R₁ = 0.05, R₂ = 0.03, D = √2; hand calculation).
     assert_abs(
         "left lead",
-        gl.lines[0].spans[0].length,
+        gl.lines[L0].spans[0].length,
         (2.0 - 0.02f64.powi(2)).sqrt(),
         1e-12,
     );
     assert_abs(
         "right lead",
-        gr.lines[0].spans[0].length,
+        gr.lines[L0].spans[0].length,
         (2.0 - 0.08f64.powi(2)).sqrt(),
         1e-12,
     );
     // Two extra turns on the guide add 4π to the wrap measured between tangent points.
-    let bar = &gl.lines[0].entries[1];
+    let bar = &gl.lines[L0].entries[1];
     assert_eq!(bar.turns, 2);
     assert!(bar.wrap > 2.0 * TAU && bar.wrap < 3.0 * TAU);
-    let w = gl.lines[0].entries[2].fleet_in;
+    let w = gl.lines[L0].entries[2].fleet_in;
     assert!(w.is_none());
 }
 
@@ -454,7 +460,7 @@ fn block_end_is_its_point_and_carried_sheave_its_own_centre() {
                 [0.0, 0.0, 0.9],
                 dir(0.0, 1.0, 0.0),
                 0.054,
-                Some(1),
+                Some(PartId::new(1)),
             ),
             anchor("top", [0.03, 0.0, 2.0]),
             anchor("stay", [0.0, 0.0, 3.0]),
@@ -464,18 +470,18 @@ fn block_end_is_its_point_and_carried_sheave_its_own_centre() {
     let g = geometry(&r);
     assert_abs(
         "wrap under the carried sheave",
-        g.lines[0].entries[1].wrap,
+        g.lines[L0].entries[1].wrap,
         PI,
         1e-12,
     );
     assert_abs(
         "to the carried sheave",
-        g.lines[0].spans[0].length,
+        g.lines[L0].spans[0].length,
         1.1,
         1e-12,
     );
-    assert!((g.lines[1].spans[0].start - Point::new(0.0, 0.0, 1.0)).norm() < 1e-15);
-    assert_abs("block to stay", g.lines[1].spans[0].length, 2.0, 1e-15);
+    assert!((g.lines[L1].spans[0].start - Point::new(0.0, 0.0, 1.0)).norm() < 1e-15);
+    assert_abs("block to stay", g.lines[L1].spans[0].length, 2.0, 1e-15);
 }
 
 #[test]
@@ -493,13 +499,13 @@ fn explicit_side_settles_a_straight_path() {
         vec![vec![entry(0), sided(1, Side::Right), entry(2)]],
     );
     let g = geometry(&r);
-    let entry = &g.lines[0].entries[1];
+    let entry = &g.lines[L0].entries[1];
     assert_eq!(entry.sense, Some(-1.0));
     assert_abs("wrap", entry.wrap, 2.0 * 0.03f64.asin(), 1e-12);
     // Tangent length from a point 1 m off: √(1 − R²) (hand calculation).
     assert_abs(
         "lead",
-        g.lines[0].spans[0].length,
+        g.lines[L0].spans[0].length,
         (1.0 - 0.03f64.powi(2)).sqrt(),
         1e-12,
     );
@@ -592,7 +598,7 @@ fn skew_pair_matches_an_independent_newton_solve() {
         vec![vec![entry(0), entry(1), entry(2), entry(3)]],
     );
     let g = geometry(&r);
-    let line = &g.lines[0];
+    let line = &g.lines[L0];
     let (sa, sb) = (
         line.entries[1].sense.unwrap(),
         line.entries[2].sense.unwrap(),
@@ -662,7 +668,7 @@ fn point_inside_the_pitch_circle() {
     );
     let r = rig(
         0.006,
-        r.parts,
+        r.parts.into_vec(),
         vec![vec![entry(0), sided(1, Side::Left), entry(2)]],
     );
     assert!(
@@ -812,7 +818,7 @@ fn showcase() -> Rig {
                 [0.05, 0.0, 0.95],
                 dir(0.0, 1.0, 0.0),
                 0.08,
-                Some(3),
+                Some(PartId::new(3)),
             ),
             anchor("eye", [0.12, 0.02, 2.2]),
             haul("hand", [1.2, 0.3, 0.8]),
@@ -856,7 +862,7 @@ fn same(what: &str, a: Real, b: Real) {
 #[test]
 fn showcase_rig_is_well_formed() {
     let g = geometry(&showcase());
-    let first = &g.lines[0];
+    let first = &g.lines[L0];
     assert!(
         first.entries[1].fleet_in.unwrap() > 0.01,
         "the skew guide is really skew"

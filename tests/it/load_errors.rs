@@ -2,6 +2,7 @@
 //! expected, and never panics. The base rig is the example of DESIGN.md section 4
 //! ([`EXAMPLE`], `tests/rigs/design-example.yaml`).
 
+use reeve::model::{PartId, RopeId};
 use std::time::{Duration, Instant};
 
 use proptest::prelude::*;
@@ -454,26 +455,26 @@ fn overrides_apply_by_the_files_own_keys() {
         ]),
     )
     .unwrap();
-    let PartKind::Sheave(head) = &rig.parts[1].kind else {
+    let PartKind::Sheave(head) = &rig.parts[PartId::new(1)].kind else {
         panic!()
     };
     assert!(matches!(head.bearing, Bearing::Plain { mu, .. } if mu == 0.08));
-    let PartKind::Block(hook) = &rig.parts[2].kind else {
+    let PartKind::Block(hook) = &rig.parts[PartId::new(2)].kind else {
         panic!()
     };
     assert_eq!(hook.load, BlockLoad::Mass(Some(60.0)));
-    assert_eq!(rig.ropes[0].mu, 0.1);
+    assert_eq!(rig.ropes[RopeId::new(0)].mu, 0.1);
     assert_abs(
         "fleet angle limit, rad",
         rig.limits.fleet_angle,
         2f64.to_radians(),
         1e-15,
     );
-    let PartKind::Sheave(a) = &rig.parts[3].kind else {
+    let PartKind::Sheave(a) = &rig.parts[PartId::new(3)].kind else {
         panic!()
     };
     assert_abs("hook.a tread, m", a.tread_diameter, 0.08, 1e-15);
-    let PartKind::Haul(h) = &rig.parts[4].kind else {
+    let PartKind::Haul(h) = &rig.parts[PartId::new(4)].kind else {
         panic!()
     };
     assert_eq!(h.force, Some(300.0));
@@ -484,7 +485,7 @@ fn overrides_apply_by_the_files_own_keys() {
         &set(&[("parts.hook.load.force", "0.5 kN")]),
     )
     .unwrap();
-    let PartKind::Block(hook) = &rig.parts[2].kind else {
+    let PartKind::Block(hook) = &rig.parts[PartId::new(2)].kind else {
         panic!()
     };
     assert_eq!(
@@ -688,11 +689,11 @@ fn overrides_may_add_a_missing_key_and_remove_an_optional_one() {
         ]),
     )
     .unwrap();
-    let PartKind::Sheave(head) = &rig.parts[1].kind else {
+    let PartKind::Sheave(head) = &rig.parts[PartId::new(1)].kind else {
         panic!()
     };
     assert_eq!(head.mass, Some(2.0));
-    assert_eq!(rig.ropes[0].breaking_strength, None);
+    assert_eq!(rig.ropes[RopeId::new(0)].breaking_strength, None);
 }
 
 /// Guards the override note on removals: a required key removed by `--set KEY=~` (or a

@@ -4,6 +4,7 @@
 //! show their arithmetic. The rigs are in `tests/rigs/material/`.
 
 use reeve::math::STANDARD_GRAVITY;
+use reeve::model::{LineId, PartId};
 use reeve::report::Report;
 use reeve::solve::elastic::castigliano_lost_travel;
 
@@ -21,8 +22,8 @@ fn two_lift_lines_share_a_translating_batten_as_one_over_length() {
     let (rig, s) = solve_test_rig("material/two-lift-lines.yaml");
     let m = s.main();
     let (a, b) = (
-        rig.lines.iter().position(|l| l.name == "a").unwrap(),
-        rig.lines.iter().position(|l| l.name == "b").unwrap(),
+        rig.lines.position(|l| l.name == "a").unwrap(),
+        rig.lines.position(|l| l.name == "b").unwrap(),
     );
     for case in [&m.ideal, &m.forward, &m.back] {
         assert_rel("9 m line", case.tension[a][0], 300.0 * 8.0 / 17.0, 1e-9);
@@ -62,7 +63,12 @@ fn without_stiffness_the_split_stays_least_squares() {
     let text = std::fs::read_to_string(test_rig("material/two-lift-lines.yaml")).unwrap();
     let (rig, s) = solve_text(&text.replace(", stiffness: 1 MN", ""));
     let m = s.main();
-    assert_rel("least squares", m.ideal.tension[0][0], 150.0, 1e-9);
+    assert_rel(
+        "least squares",
+        m.ideal.tension[LineId::new(0)][0],
+        150.0,
+        1e-9,
+    );
     assert!(!m.ideal.split_by_stiffness);
     let warnings = reeve::checks::run(&rig, &s);
     let w = warnings.iter().find(|w| w.code == "indeterminate").unwrap();
@@ -80,8 +86,13 @@ fn vertical_rope_under_its_own_weight() {
     // EA = 9.80665 MN → δ = (10 000·100 + 9.80665·100²/2)/9.80665e6 = 0.106 97 m.
     let (rig, s) = solve_test_rig("material/hanging-rope.yaml");
     let m = s.main();
-    assert_rel("foot", m.ideal.tension[0][0], 10_000.0, 1e-12);
-    assert_rel("head", m.ideal.tension_end[0][0], 10_980.665, 1e-12);
+    assert_rel("foot", m.ideal.tension[LineId::new(0)][0], 10_000.0, 1e-12);
+    assert_rel(
+        "head",
+        m.ideal.tension_end[LineId::new(0)][0],
+        10_980.665,
+        1e-12,
+    );
     assert_rel("haul force", m.forward.value, 10_980.665, 1e-12);
     let report = Report::build(&rig, &s, Vec::new());
     let stretch = report.spans[0].stretch_m.as_ref().unwrap().ideal.unwrap();
@@ -137,7 +148,7 @@ fn lost_travel_two_ways_on_a_four_part_tackle() {
         250.0 * 5.5 / 1e6,
         1e-9,
     );
-    let lines: Vec<usize> = (0..rig.lines.len()).collect();
+    let lines: Vec<LineId> = rig.lines.ids().collect();
     let castigliano =
         castigliano_lost_travel(&rig, &s.geometry, &lines, &m.ideal.tension, m.ideal.value)
             .unwrap();
@@ -156,7 +167,7 @@ fn lost_travel_two_ways_where_lines_share_the_load() {
     let k = 1.0 / (1e-6 + 1.0 / (1e6 * (1.0 / 9.0 + 1.0 / 8.0)));
     assert_rel("spring rate", m.drive_stiffness.unwrap(), k, 1e-9);
     assert_rel("lost travel", m.lost_travel.unwrap(), 300.0 / k, 1e-9);
-    let lines: Vec<usize> = (0..rig.lines.len()).collect();
+    let lines: Vec<LineId> = rig.lines.ids().collect();
     let castigliano =
         castigliano_lost_travel(&rig, &s.geometry, &lines, &m.ideal.tension, m.ideal.value)
             .unwrap();
@@ -194,7 +205,7 @@ fn a_level_span_sags_like_the_parabola() {
     assert!(report.spans[0].tension_n.forward_end.is_none());
     assert_rel("pull", s.main().forward.value, 500.0, 1e-12);
     // The weight hangs half on each end: the cart's pin load has 0.2·g·20/2 down.
-    let pin = s.main().ideal.pin_load[0].unwrap();
+    let pin = s.main().ideal.pin_load[PartId::new(0)].unwrap();
     assert_rel(
         "cart carries half the rope",
         -pin.z,
@@ -319,7 +330,12 @@ fn the_split_by_stiffness_depends_on_stiffness_ratios_only() {
     let (t3, _) = run("1e11 N");
     for (l, (a, b)) in t1.iter().zip(&t2).enumerate() {
         assert_rel(&format!("line {l}, EA doubled"), b[0], a[0], 1e-9);
-        assert_rel(&format!("line {l}, EA 1e11 N"), t3[l][0], a[0], 1e-9);
+        assert_rel(
+            &format!("line {l}, EA 1e11 N"),
+            t3[LineId::new(l)][0],
+            a[0],
+            1e-9,
+        );
     }
     for (a, b) in d1.iter().zip(&d2) {
         assert_rel("stretch halves", *b, a / 2.0, 1e-9);
@@ -395,7 +411,7 @@ fn the_rope_on_a_sheaves_arc_loads_its_pin() {
     assert_rel("arc weight, to five figures", arc, 1.63285, 5e-6);
     let at_head = 100.0 + 10.0 * STANDARD_GRAVITY;
     let (rig, s) = solve_test_rig("material/head-sheave-weight.yaml");
-    let head = rig.parts.iter().position(|p| p.name == "head").unwrap();
+    let head = rig.parts.position(|p| p.name == "head").unwrap();
     let m = s.main();
     for case in [&m.ideal, &m.forward] {
         let pin = case.pin_load[head].expect("pin load");
@@ -462,7 +478,7 @@ lines:
         low + 5.0 * STANDARD_GRAVITY,
         1e-9,
     );
-    let sheave = rig.parts.iter().position(|p| p.name == "hook.s").unwrap();
+    let sheave = rig.parts.position(|p| p.name == "hook.s").unwrap();
     let pin = m.ideal.pin_load[sheave].expect("pin load");
     assert_rel("block sheave's pin load, up", pin.z, 2.0 * low - arc, 1e-9);
     audit_ok(&s);

@@ -1,6 +1,7 @@
 //! Numerical robustness of the statics: tension coefficients that span many orders of
 //! magnitude (a long chain of friction passages) must not lose the small equations.
 
+use reeve::model::LineId;
 use reeve::rig::load_str;
 use reeve::solve::{solve, SolveOptions};
 
@@ -15,7 +16,7 @@ fn a_long_capstan_chain_keeps_the_capstan_product() {
     for (n, mu) in [(10, 0.1), (60, 0.1), (200, 0.1), (200, 0.0)] {
         let rig = load_str(&chain(n, mu), "chain.yaml").unwrap();
         let solution = solve(&rig, &SolveOptions::default()).unwrap();
-        let total_wrap: f64 = solution.geometry.lines[0]
+        let total_wrap: f64 = solution.geometry.lines[LineId::new(0)]
             .entries
             .iter()
             .map(|e| e.wrap)
@@ -75,7 +76,7 @@ fn the_benchmark_tackles_match_the_handbook_reeving_formula() {
 
 /// Σφ over the middle passages of line 0 and the capstan product `exp(±μ Σφ)`.
 fn total_wrap(solution: &reeve::solve::Solution) -> f64 {
-    solution.geometry.lines[0]
+    solution.geometry.lines[LineId::new(0)]
         .entries
         .iter()
         .map(|e| e.wrap)

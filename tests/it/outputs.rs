@@ -7,6 +7,7 @@
 //! rewrites them. These are format tests, not physics tests: the numbers in the golden
 //! files are whatever the solver computes, checked elsewhere against their sources.
 
+use reeve::model::{LineId, PartId};
 use std::collections::BTreeSet;
 use std::fs;
 use std::path::{Path, PathBuf};
@@ -747,8 +748,8 @@ fn control_characters_in_names_built_in_code_are_escaped_by_the_writers() {
     use reeve::report::{html, svg, table, text, Report};
     let mut rig = reeve::rig::load_str(&named_rig("s", "l", "h"), "rig.yaml").unwrap();
     rig.title = "a \u{1b}[2J title".to_string();
-    rig.parts[0].name = "s\u{0}\u{1b}".to_string();
-    rig.lines[0].name = "l\u{85}".to_string();
+    rig.parts[PartId::new(0)].name = "s\u{0}\u{1b}".to_string();
+    rig.lines[LineId::new(0)].name = "l\u{85}".to_string();
     let solution = reeve::solve::solve(&rig, &Default::default()).unwrap();
     let report = Report::build(&rig, &solution, reeve::checks::run(&rig, &solution));
     let raw = |bytes: &[u8]| {

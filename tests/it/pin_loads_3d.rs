@@ -7,6 +7,7 @@
 
 use reeve::friction::sheave_ratio;
 use reeve::math::Vector;
+use reeve::model::LineId;
 
 use crate::support::run::reeve_on;
 use crate::support::{assert_rel, audit_ok, solve_text};
@@ -71,9 +72,9 @@ fn bisect(f: impl Fn(f64) -> f64, mut lo: f64, mut hi: f64) -> f64 {
 /// bisection above; `a_t` is the second sheave's thrust lever `μ_t r_eff`.
 fn independent(text: &str, a_t: f64) -> (f64, f64) {
     let (rig, solution) = solve_text(text);
-    let spans = &solution.geometry.lines[0].spans;
+    let spans = &solution.geometry.lines[LineId::new(0)].spans;
     let u: Vec<Vector> = spans.iter().map(|s| s.direction.into_inner()).collect();
-    let axle = |i: usize| match &rig.parts[rig.lines[0].path[i].part].kind {
+    let axle = |i: usize| match &rig.parts[rig.lines[LineId::new(0)].path[i].part].kind {
         reeve::model::PartKind::Sheave(s) => s.axle.into_inner(),
         _ => unreachable!(),
     };
@@ -116,7 +117,7 @@ fn skew_pair_matches_an_independent_solution_of_the_radial_journal_model() {
     assert_rel("haul forward", main.forward.value, forward, 1e-9);
     assert_rel("haul back", main.back.value, back, 1e-9);
     // The fleet angles are what the rig says (2° to 19° off the groove planes).
-    let fleets: Vec<f64> = solution.geometry.lines[0].entries[1..3]
+    let fleets: Vec<f64> = solution.geometry.lines[LineId::new(0)].entries[1..3]
         .iter()
         .flat_map(|e| [e.fleet_in.unwrap(), e.fleet_out.unwrap()])
         .map(f64::to_degrees)
@@ -130,7 +131,7 @@ fn skew_pair_matches_an_independent_solution_of_the_radial_journal_model() {
     let planar: f64 = [(1, 0.05, 0.012), (2, 0.03, 0.010)]
         .iter()
         .map(|&(e, r, pin)| {
-            let wrap = solution.geometry.lines[0].entries[e].wrap;
+            let wrap = solution.geometry.lines[LineId::new(0)].entries[e].wrap;
             sheave_ratio(friction_circle(pin, 0.15) / r, wrap)
         })
         .product::<f64>()
@@ -154,8 +155,8 @@ fn axial_load_is_reported_and_a_thrust_face_costs_its_friction() {
     assert_eq!(b["name"], "b");
     let axial = b["axial_load_n"]["forward"].as_f64().unwrap();
     let (_, solution) = solve_text(&text);
-    let g = &solution.geometry.lines[0];
-    let t = &solution.main().forward.tension[0];
+    let g = &solution.geometry.lines[LineId::new(0)];
+    let t = &solution.main().forward.tension[LineId::new(0)];
     let n = Vector::new(0.1, 1.0, 0.1).normalize();
     let expected = (-t[1] * g.spans[1].direction.into_inner()
         + t[2] * g.spans[2].direction.into_inner())

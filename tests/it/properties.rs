@@ -16,6 +16,7 @@ use std::collections::BTreeMap;
 use approx::relative_eq;
 use proptest::prelude::*;
 use reeve::math::STANDARD_GRAVITY;
+use reeve::model::LineId;
 use reeve::rig::load_str;
 use reeve::solve::{solve, Case, Solution, SolveOptions, Status};
 
@@ -447,7 +448,7 @@ pub(super) fn params_strategy(with_mass: bool) -> impl Strategy<Value = Params> 
 fn tensions(text: &str, s: &Solution) -> BTreeMap<(String, usize, &'static str), f64> {
     let rig = load_str(text, "random.yaml").expect("loads");
     let mut out = BTreeMap::new();
-    for (l, line) in rig.lines.iter().enumerate() {
+    for (l, line) in rig.lines.enumerate() {
         for case in [Case::Ideal, Case::Forward, Case::Back] {
             for (j, t) in s.main().case(case).tension[l].iter().enumerate() {
                 out.insert((line.name.clone(), j, case.name()), *t);
@@ -550,7 +551,7 @@ proptest! {
         let (_, s) = solve_text(&text);
         let m = s.main();
         let rig = load_str(&text, "random.yaml").expect("loads");
-        for (l, line) in rig.lines.iter().enumerate() {
+        for (l, line) in rig.lines.enumerate() {
             for e in 1..line.path.len() - 1 {
                 let along = |c: &reeve::solve::CaseResult| c.tension[l][e] / c.tension[l][e - 1];
                 let product = along(&m.forward) * along(&m.back);
@@ -737,7 +738,7 @@ fn every_review_rig_balances_its_energy() {
             for (l, entries) in sub.forward.ratio.iter().enumerate() {
                 for (e, r) in entries.iter().enumerate() {
                     // A passage has a ratio in both cases, a line end in neither.
-                    match (r, sub.back.ratio[l][e]) {
+                    match (r, sub.back.ratio[LineId::new(l)][e]) {
                         (Some(f), Some(b)) => {
                             assert_rel(&format!("{name} {l} {e}"), *f, b, 1e-12);
                             passages += 1;

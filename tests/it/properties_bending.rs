@@ -8,6 +8,7 @@
 
 use approx::relative_eq;
 use proptest::prelude::*;
+use reeve::model::PartId;
 use reeve::solve::{CaseResult, Status};
 
 use crate::properties::{build, params_strategy};
@@ -65,10 +66,10 @@ proptest! {
             prop_assert!(matches!(case.status, Status::Converged { .. }), "{:?}\n{}", case.status, text);
             let k = &case.losses;
             let scale = 1e-9 * case.drive_power.abs().max(1e-300);
-            for part in 0..case.loss.len() {
+            for part in (0..case.loss.len()).map(PartId::new) {
                 let sum = k.bearing[part] + k.bending[part] + k.surface[part] + k.drum[part];
-                prop_assert!((sum - case.loss[part]).abs() <= scale, "part {}: {} vs {}\n{}", part, sum, case.loss[part], text);
-                prop_assert!(k.bending[part] >= 0.0 && k.bearing[part] >= -scale, "part {}\n{}", part, text);
+                prop_assert!((sum - case.loss[part]).abs() <= scale, "part {}: {} vs {}\n{}", part.index(), sum, case.loss[part], text);
+                prop_assert!(k.bending[part] >= 0.0 && k.bearing[part] >= -scale, "part {}\n{}", part.index(), text);
             }
         }
         let m = s.main();

@@ -4,6 +4,7 @@
 //! The small rigs of `tests/rigs/review/` (signs, stalls, drums, load unknowns,
 //! sub-rigs) are checked here against hand calculations too.
 
+use reeve::model::{LineId, PartId};
 use std::f64::consts::PI;
 
 use reeve::math::STANDARD_GRAVITY;
@@ -169,7 +170,7 @@ fn sheave_weight_in_the_pin_load_parallel_spans() {
     );
     assert_abs("raise with weight, lb, vs 20.731 lb", raise, 20.731, 1e-3);
     // Pin load, forward: P + 20 + 4 lb straight down.
-    let pulley = 1;
+    let pulley = PartId::new(1);
     let pin = m.forward.pin_load[pulley].expect("pin load") / LBF;
     assert_rel("pin load, lb", pin.norm(), raise + 24.0, 1e-9);
     assert!(pin.z < 0.0, "pin load points down: {pin:?}");
@@ -745,7 +746,7 @@ solve_for: cylinder
     );
     let (_, s) = solve_text(&text);
     let m = s.main();
-    let wraps: Vec<f64> = s.geometry.lines[0].entries[1..3]
+    let wraps: Vec<f64> = s.geometry.lines[LineId::new(0)].entries[1..3]
         .iter()
         .map(|e| e.wrap.to_degrees())
         .collect();
@@ -763,7 +764,7 @@ solve_for: cylinder
     let book = 500.0 * (-0.25 * 1.5 * PI).exp() / 9.81;
     assert_abs("the book's figure, kg (g = 9.81)", book, 15.7, 0.05);
     assert_abs("largest mass, kg, vs the book", m.forward.value, 15.7, 0.05);
-    let t2 = m.forward.tension[0][1];
+    let t2 = m.forward.tension[LineId::new(0)][1];
     assert_abs("T2, N, vs the book", t2, 277.4, 0.1);
     audit_ok(&s);
 }
@@ -885,7 +886,7 @@ fn drum_with_thrust_and_journal() {
             w * r - m_thrust,
             1e-12,
         );
-        let drum = m.forward.drums[0].expect("drum torques");
+        let drum = m.forward.drums[PartId::new(0)].expect("drum torques");
         assert_rel(
             &format!("{thrust}: thrust torque"),
             drum.thrust,
@@ -909,7 +910,7 @@ fn drum_with_thrust_and_journal() {
         1e-9,
     );
     assert_rel("journal: back torque", m.back.value, w * r - m_j, 1e-9);
-    let drum = m.forward.drums[0].expect("drum torques");
+    let drum = m.forward.drums[PartId::new(0)].expect("drum torques");
     assert_rel("journal: journal torque", drum.journal, m_j, 1e-9);
     audit_ok(&s);
 }
@@ -1098,7 +1099,7 @@ lines:
         92.187,
         1e-3,
     );
-    let drum = m.forward.drums[1].expect("drum torques");
+    let drum = m.forward.drums[PartId::new(1)].expect("drum torques");
     assert_rel(
         "rope torque balances load + journal",
         drum.rope,
@@ -1254,7 +1255,7 @@ fn haul_pulled_off_its_rope_reports_the_component_along_pull() {
     assert_rel("effort", m.ideal.value, 10.0 * STANDARD_GRAVITY * 0.5, 1e-9);
     assert_rel(
         "tension",
-        m.ideal.tension[0][0],
+        m.ideal.tension[LineId::new(0)][0],
         10.0 * STANDARD_GRAVITY,
         1e-9,
     );

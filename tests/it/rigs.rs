@@ -162,7 +162,8 @@ struct Exercised {
 /// (wrap with any extra turns) at each middle passage, which bears on the part's pin.
 fn arc_rope_mass(rig: &reeve::model::Rig) -> f64 {
     let geometry = reeve::geometry::compute(rig, &Default::default()).expect("geometry");
-    (0..rig.lines.len())
+    rig.lines
+        .ids()
         .map(|l| {
             let w = rig.rope_of(l).mass_per_length.unwrap_or(0.0);
             let entries = &geometry.lines[l].entries;
@@ -202,7 +203,6 @@ fn pin_loads_balance(rel: &str, path: &Path, value: &serde_json::Value) -> bool 
         .map(|s| {
             let line = rig
                 .lines
-                .iter()
                 .position(|l| Some(l.name.as_str()) == s["line"].as_str())
                 .expect("span of a line");
             rig.rope_of(line).mass_per_length.unwrap_or(0.0) * s["length_m"].as_f64().unwrap()

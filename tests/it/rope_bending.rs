@@ -2,6 +2,7 @@
 //! values of the issue through the solver, the fit of rescue-pulley measurements with
 //! one bend loss and one bearing figure, the losses by kind in the JSON and the audit.
 
+use reeve::model::LineId;
 use std::f64::consts::PI;
 
 use reeve::friction::sheave_ratio;
@@ -63,13 +64,15 @@ fn frictionless_bearing_gives_one_over_one_minus_bend_loss_at_any_wrap() {
         let (rig, solution) = solve_text(&deflection_rig(two_90, "{kind: none}", 0.05));
         audit_ok(&solution);
         let main = solution.main();
-        let ratio = main.forward.ratio[0][1].expect("ratio over the first sheave");
+        let ratio = main.forward.ratio[LineId::new(0)][1].expect("ratio over the first sheave");
         assert_rel(&format!("ratio at {what}"), ratio, 1.0 / 0.95, 1e-12);
         // The wrap really is what it says.
-        let wrap = solution.geometry.lines[0].entries[1].wrap.to_degrees();
+        let wrap = solution.geometry.lines[LineId::new(0)].entries[1]
+            .wrap
+            .to_degrees();
         assert_abs("wrap", wrap, if two_90 { 90.0 } else { 180.0 }, 1e-6);
         // Back: the rope runs the other way; the ratio is the same.
-        let back = main.back.ratio[0][1].unwrap();
+        let back = main.back.ratio[LineId::new(0)][1].unwrap();
         assert_rel("back ratio", back, 1.0 / 0.95, 1e-12);
         let _ = rig;
     }

@@ -280,7 +280,7 @@ fn draw(
 
     // Rope lying on round parts (drawn first, under the parts' outlines).
     s.push_str("<g class=\"wraps\" fill=\"none\" stroke=\"#666\" stroke-width=\"2\">\n");
-    for (l, line) in solution.geometry.lines.iter().enumerate() {
+    for (l, line) in solution.geometry.lines.enumerate() {
         for (e, entry) in line.entries.iter().enumerate() {
             let (Some(sense), Some(round)) = (entry.sense, rig.parts[entry.part].kind.round())
             else {
@@ -321,7 +321,7 @@ fn draw(
     // Spans: one element each, coloured by forward tension.
     let mut span_labels = Vec::new();
     let mut k = 0;
-    for (l, line) in solution.geometry.lines.iter().enumerate() {
+    for (l, line) in solution.geometry.lines.enumerate() {
         for (j, span) in line.spans.iter().enumerate() {
             let row = report
                 .spans
@@ -360,7 +360,7 @@ fn draw(
 
     // Parts.
     let mut symbols: Vec<Symbol> = Vec::new();
-    for (id, part) in rig.parts.iter().enumerate() {
+    for (id, part) in rig.parts.enumerate() {
         let (cx, cy) = sheet.at(&part.at);
         let is_warned = warned.contains(&part.name.as_str());
         let _ = write!(
@@ -460,21 +460,16 @@ fn draw(
             PartKind::Haul(haul) => {
                 let pull = haul.pull.map(|p| p.into_inner()).or_else(|| {
                     // Default pull: along the last span, away from the previous part.
-                    solution
-                        .geometry
-                        .lines
-                        .iter()
-                        .enumerate()
-                        .find_map(|(l, g)| {
-                            let path = &rig.lines[l].path;
-                            if path.last().map(|e| e.part) == Some(id) {
-                                g.spans.last().map(|sp| sp.direction.into_inner())
-                            } else if path.first().map(|e| e.part) == Some(id) {
-                                g.spans.first().map(|sp| -sp.direction.into_inner())
-                            } else {
-                                None
-                            }
-                        })
+                    solution.geometry.lines.enumerate().find_map(|(l, g)| {
+                        let path = &rig.lines[l].path;
+                        if path.last().map(|e| e.part) == Some(id) {
+                            g.spans.last().map(|sp| sp.direction.into_inner())
+                        } else if path.first().map(|e| e.part) == Some(id) {
+                            g.spans.first().map(|sp| -sp.direction.into_inner())
+                        } else {
+                            None
+                        }
+                    })
                 });
                 let _ = write!(
                     s,

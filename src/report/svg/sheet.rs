@@ -5,7 +5,7 @@
 use std::fmt::Write as _;
 
 use crate::math::{Point, Real, Vector};
-use crate::model::Rig;
+use crate::model::{PartId, Rig};
 use crate::solve::Solution;
 
 use super::super::escape::xml as esc;
@@ -26,7 +26,7 @@ pub(super) fn plane_basis(axle: &Vector) -> (Vector, Vector) {
 
 /// The pitch radius a part is drawn with: from the first line that passes it, else
 /// half its tread.
-pub(super) fn pitch_radius_of(rig: &Rig, solution: &Solution, part: usize) -> Real {
+pub(super) fn pitch_radius_of(rig: &Rig, solution: &Solution, part: PartId) -> Real {
     solution
         .geometry
         .lines
@@ -185,7 +185,7 @@ impl Placer {
 #[derive(Debug, Clone, Copy)]
 pub(super) struct Symbol {
     /// The part.
-    pub(super) part: usize,
+    pub(super) part: PartId,
     /// Centre, px.
     pub(super) centre: SheetPoint,
     /// Half-width and half-height of the symbol, px.

@@ -3,7 +3,7 @@
 //! the fewest parts and spans on top of each other).
 
 use crate::math::{Point, Real, Vector};
-use crate::model::Rig;
+use crate::model::{PartId, Rig};
 use crate::solve::Solution;
 
 use super::sheet::{pitch_radius_of, plane_basis};
@@ -69,7 +69,7 @@ pub(super) fn key_points(rig: &Rig, solution: &Solution) -> Vec<Point> {
             points.push(s.end);
         }
     }
-    for (id, part) in rig.parts.iter().enumerate() {
+    for (id, part) in rig.parts.enumerate() {
         if let Some(round) = part.kind.round() {
             let r = pitch_radius_of(rig, solution, id);
             let (u, v) = plane_basis(&round.axle);
@@ -253,7 +253,7 @@ pub(super) fn groups(n: usize, close: impl Fn(usize, usize) -> bool) -> Vec<Vec<
 /// only end-on (as dots).
 pub(super) fn overlaps(rig: &Rig, solution: &Solution, points: &[Point], view: View) -> usize {
     let (parts, spans) = projected(rig, solution, view, view_scale(points, view).px_per_m());
-    let carried = |i: usize, j: usize| solution.network.carries(i, j);
+    let carried = |i: usize, j: usize| solution.network.carries(PartId::new(i), PartId::new(j));
     let mut n = 0;
     for i in 0..parts.len() {
         for j in i + 1..parts.len() {

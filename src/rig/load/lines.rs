@@ -2,7 +2,7 @@
 
 use super::keys::{get, join, key_names, Kind, ENTRY_KEYS, LINE_KEYS, MOST_TURNS, SIDES};
 use super::read::{hint_or_list, Names, Resolver};
-use crate::model::{Line, PathEntry, RopeId, Side};
+use crate::model::{Line, PartId, PathEntry, RopeId, Side};
 use crate::rig::file::{Entry, Node, Value};
 
 pub(super) fn line(
@@ -157,7 +157,7 @@ pub(super) fn path_entry(
         }
     }
     ok.then_some(PathEntry {
-        part,
+        part: PartId::new(part),
         turns,
         side,
         location: item.location,

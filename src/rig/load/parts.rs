@@ -4,8 +4,8 @@ use super::keys::{get, join, key_names, Kind, KINDS, LOAD_KEYS, PART_KEYS, SHAFT
 use super::read::{Names, Resolver};
 use crate::math::Point;
 use crate::model::{
-    square_to_gravity, Bearing, Block, BlockLoad, Drum, Guide, Haul, Location, Part, PartKind,
-    Shaft, Sheave, Weight,
+    square_to_gravity, Bearing, Block, BlockLoad, Drum, Guide, Haul, Location, Part, PartId,
+    PartKind, Shaft, Sheave, Weight,
 };
 use crate::rig::file::{Entry, Node};
 use crate::rig::suggest::did_you_mean;
@@ -261,7 +261,7 @@ pub(super) fn part(
         name: e.key.clone(),
         at: point?,
         kind: part_kind?,
-        block,
+        block: block.map(PartId::new),
         location: e.key_location,
     })
 }
@@ -378,6 +378,7 @@ mod tests {
     use crate::math::Vector;
     use crate::math::STANDARD_GRAVITY;
     use crate::model::{Contact, Side};
+    use crate::model::{LineId, RopeId};
     use crate::rig::load::load_str;
 
     fn close(a: f64, b: f64) -> bool {
@@ -405,16 +406,16 @@ lines:
         let rig = load_str(text, "dir/u.yaml").unwrap();
         assert_eq!(rig.title, "u.yaml");
         // 0.25 in = 0.25 * 0.0254 m = 0.00635 m (1959 agreement, exact).
-        assert!(close(rig.ropes[0].diameter, 0.00635));
+        assert!(close(rig.ropes[RopeId::new(0)].diameter, 0.00635));
         // Wire rope default D/d 26, the least for 6x25 filler-wire rope (wire-rope
         // handbook D/d table, from memory).
-        assert_eq!(rig.ropes[0].min_bend_ratio, 26.0);
-        let PartKind::Guide(g) = &rig.parts[1].kind else {
+        assert_eq!(rig.ropes[RopeId::new(0)].min_bend_ratio, 26.0);
+        let PartKind::Guide(g) = &rig.parts[PartId::new(1)].kind else {
             panic!()
         };
         assert!(close(g.groove_angle.unwrap(), 40f64.to_radians()));
         assert_eq!(g.axle.into_inner(), Vector::z());
-        let PartKind::Drum(d) = &rig.parts[2].kind else {
+        let PartKind::Drum(d) = &rig.parts[PartId::new(2)].kind else {
             panic!()
         };
         assert!(close(d.diameter, 0.15));
@@ -434,16 +435,16 @@ lines:
         assert!(close(t.inner_diameter, 0.0127));
         assert_eq!(t.contact, Contact::Worn);
         assert!(close(t.cone_angle.unwrap(), 30f64.to_radians()));
-        let PartKind::Weight(w) = &rig.parts[3].kind else {
+        let PartKind::Weight(w) = &rig.parts[PartId::new(3)].kind else {
             panic!()
         };
         // 20 lb = 20 * 0.45359237 kg = 9.0718474 kg (exact).
         assert!(close(w.mass.unwrap(), 9.071_847_4));
-        let PartKind::Haul(h) = &rig.parts[4].kind else {
+        let PartKind::Haul(h) = &rig.parts[PartId::new(4)].kind else {
             panic!()
         };
         assert!(close(h.force.unwrap(), 12.0 * 4.448_221_615_260_5));
-        let step = &rig.lines[0].path[2];
+        let step = &rig.lines[LineId::new(0)].path[2];
         assert_eq!((step.turns, step.side), (2, Some(Side::Left)));
         assert_eq!(rig.gravity.into_inner(), Vector::new(0.0, 0.0, -1.0));
         let _ = STANDARD_GRAVITY;
@@ -464,13 +465,13 @@ lines: {l: {rope: c, path: [top, s, h]}}
 solve_for: b
 ";
         let rig = load_str(text, "b.yaml").unwrap();
-        let PartKind::Block(b) = &rig.parts[1].kind else {
+        let PartKind::Block(b) = &rig.parts[PartId::new(1)].kind else {
             panic!()
         };
         assert_eq!((b.load.value(), b.load.is_force()), (None, true));
         // Default travel is against gravity: gravity -Y, so +Y.
         assert_eq!(b.moves.into_inner(), Vector::new(0.0, 1.0, 0.0));
-        assert_eq!((rig.drive, rig.solve_for), (3, 1));
-        assert_eq!(rig.ropes[0].min_bend_ratio, 4.0);
+        assert_eq!((rig.drive, rig.solve_for), (PartId::new(3), PartId::new(1)));
+        assert_eq!(rig.ropes[RopeId::new(0)].min_bend_ratio, 4.0);
     }
 }

@@ -469,6 +469,7 @@ fn sorted(value: Value) -> Value {
 #[cfg(test)]
 mod tests {
     use super::*;
+    use crate::model::{LineId, PartId, RopeId};
 
     /// Every default is JSON, and what the loader takes when the key is absent.
     #[test]
@@ -539,13 +540,19 @@ mod tests {
         assert_eq!(a.gravity, b.gravity);
         assert_eq!(a.limits, b.limits);
         assert_eq!(a.runs_back, b.runs_back);
-        assert_eq!(a.ropes[0].kind, b.ropes[0].kind);
-        assert_eq!(a.ropes[0].min_bend_ratio, b.ropes[0].min_bend_ratio);
+        assert_eq!(a.ropes[RopeId::new(0)].kind, b.ropes[RopeId::new(0)].kind);
         assert_eq!(
-            format!("{:?}", a.parts[3].kind),
-            format!("{:?}", b.parts[3].kind)
+            a.ropes[RopeId::new(0)].min_bend_ratio,
+            b.ropes[RopeId::new(0)].min_bend_ratio
         );
-        assert_eq!(a.lines[0].path[2].turns, b.lines[0].path[2].turns);
+        assert_eq!(
+            format!("{:?}", a.parts[PartId::new(3)].kind),
+            format!("{:?}", b.parts[PartId::new(3)].kind)
+        );
+        assert_eq!(
+            a.lines[LineId::new(0)].path[2].turns,
+            b.lines[LineId::new(0)].path[2].turns
+        );
     }
 
     #[test]

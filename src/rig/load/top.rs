@@ -12,7 +12,7 @@ use super::lines::line;
 use super::parts::{default_torque, part};
 use super::read::{Names, Resolver};
 use crate::math::{Real, Vector};
-use crate::model::{Limits, Rig, Rope, RopeKind};
+use crate::model::{IdVec, Limits, PartId, Rig, Rope, RopeKind};
 use crate::rig::error::Problem;
 use crate::rig::file::{more_problems, Entry, Node};
 use crate::rig::overrides::read_variants;
@@ -294,11 +294,11 @@ pub(super) fn resolve(root: &Node, source: &str) -> Result<Rig, Vec<Problem>> {
     let mut changing = crate::model::changing::Changing {
         travel,
         stop_speed,
-        parts: Vec::new(),
+        parts: IdVec::new(),
     };
     for (i, name) in names.names.iter().enumerate() {
         if let Some(data) = r.changing.remove(name) {
-            *changing.of_mut(i) = data;
+            *changing.of_mut(PartId::new(i)) = data;
         }
     }
 
@@ -314,11 +314,11 @@ pub(super) fn resolve(root: &Node, source: &str) -> Result<Rig, Vec<Problem>> {
             units: shown_units,
             gravity: r.gravity,
             limits,
-            ropes: ropes.into_iter().collect::<Option<Vec<_>>>()?,
-            parts: parts.into_iter().collect::<Option<Vec<_>>>()?,
-            lines: lines.into_iter().collect::<Option<Vec<_>>>()?,
-            drive: drive?,
-            solve_for: solve_for?,
+            ropes: ropes.into_iter().collect::<Option<IdVec<_, _>>>()?,
+            parts: parts.into_iter().collect::<Option<IdVec<_, _>>>()?,
+            lines: lines.into_iter().collect::<Option<IdVec<_, _>>>()?,
+            drive: PartId::new(drive?),
+            solve_for: PartId::new(solve_for?),
             runs_back,
             changing,
         })
@@ -458,7 +458,7 @@ fn rope_material(
 #[cfg(test)]
 mod tests {
     use crate::math::Vector;
-    use crate::model::{Bearing, BlockLoad, PartKind, RopeKind};
+    use crate::model::{Bearing, BlockLoad, LineId, PartId, PartKind, RopeId, RopeKind};
     use crate::rig::load::load_str;
 
     /// The example of DESIGN.md section 4.
@@ -476,7 +476,7 @@ mod tests {
         // 1.5 degrees = 1.5 * pi / 180 = 0.026179938779914945 rad (hand calculation).
         assert!(close(rig.limits.fleet_angle, 0.026_179_938_779_914_945));
         assert_eq!(rig.limits.design_factor, 5.0);
-        let rope = &rig.ropes[0];
+        let rope = &rig.ropes[RopeId::new(0)];
         assert_eq!((rope.name.as_str(), rope.kind), ("braid6", RopeKind::Fibre));
         assert!(close(rope.diameter, 0.006)); // 6 mm
         assert_eq!(rope.breaking_strength, Some(7500.0)); // 7.5 kN
@@ -484,8 +484,8 @@ mod tests {
         assert_eq!(rope.location.line, 7);
         let names: Vec<&str> = rig.parts.iter().map(|p| p.name.as_str()).collect();
         assert_eq!(names, ["eye", "head", "hook", "hook.a", "hand"]);
-        assert!(close(rig.parts[0].at.z, 2.4));
-        let PartKind::Sheave(head) = &rig.parts[1].kind else {
+        assert!(close(rig.parts[PartId::new(0)].at.z, 2.4));
+        let PartKind::Sheave(head) = &rig.parts[PartId::new(1)].kind else {
             panic!("head")
         };
         assert!(close(head.tread_diameter, 0.06));
@@ -500,17 +500,17 @@ mod tests {
         };
         assert!(close(pin_diameter, 0.010));
         assert_eq!((mu, mu_static), (0.12, None));
-        assert_eq!(rig.parts[1].block, None);
-        let PartKind::Block(hook) = &rig.parts[2].kind else {
+        assert_eq!(rig.parts[PartId::new(1)].block, None);
+        let PartKind::Block(hook) = &rig.parts[PartId::new(2)].kind else {
             panic!("hook")
         };
         assert_eq!(hook.load, BlockLoad::Mass(Some(40.0)));
         assert!(!hook.load.is_force());
         assert_eq!(hook.moves.into_inner(), Vector::new(0.0, 0.0, 1.0));
-        let PartKind::Sheave(a) = &rig.parts[3].kind else {
+        let PartKind::Sheave(a) = &rig.parts[PartId::new(3)].kind else {
             panic!("hook.a")
         };
-        assert_eq!(rig.parts[3].block, Some(2));
+        assert_eq!(rig.parts[PartId::new(3)].block, Some(PartId::new(2)));
         assert_eq!(
             a.bearing,
             Bearing::Rolling {
@@ -518,14 +518,14 @@ mod tests {
                 mu: 0.0015
             }
         );
-        let PartKind::Haul(hand) = &rig.parts[4].kind else {
+        let PartKind::Haul(hand) = &rig.parts[PartId::new(4)].kind else {
             panic!("hand")
         };
         assert_eq!((hand.pull, hand.force), (None, None));
-        assert_eq!(rig.parts[4].location.line, 15);
-        let fall = &rig.lines[0];
-        let path: Vec<usize> = fall.path.iter().map(|s| s.part).collect();
+        assert_eq!(rig.parts[PartId::new(4)].location.line, 15);
+        let fall = &rig.lines[LineId::new(0)];
+        let path: Vec<usize> = fall.path.iter().map(|s| s.part.index()).collect();
         assert_eq!(path, [0, 3, 1, 4]);
-        assert_eq!((rig.drive, rig.solve_for), (4, 4));
+        assert_eq!((rig.drive, rig.solve_for), (PartId::new(4), PartId::new(4)));
     }
 }

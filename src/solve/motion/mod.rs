@@ -22,7 +22,7 @@ pub mod two;
 pub mod warnings;
 
 use crate::math::Real;
-use crate::model::{PartKind, Rig};
+use crate::model::{PartId, PartKind, Rig};
 use crate::solve::{given_quantity, Quantity, SolveError, SolveOptions};
 
 pub use integrate::{DriveValue, Energy, Event, EventKind, Point, Run, Settings};
@@ -207,7 +207,9 @@ fn motion_inner(
     // The statics needs the drive's value unknown: it asks what value moves it.
     set_natural(&mut rig, drive, None);
     // The other parts' schedules: the statics solved again at each of their times.
-    let others: Vec<(usize, crate::model::changing::Schedule)> = (0..rig.parts.len())
+    let others: Vec<(PartId, crate::model::changing::Schedule)> = rig
+        .parts
+        .ids()
         .filter(|&p| p != drive)
         .filter_map(|p| rig.changing.of(p).schedule.clone().map(|s| (p, s)))
         .collect();
@@ -462,7 +464,7 @@ fn motion_inner(
 
 /// Sets part `p`'s natural quantity (a haul's force, a weight's mass, a block's load, a
 /// drum's torque) to `value`, or unknown with None.
-fn set_natural(rig: &mut Rig, p: usize, value: Option<Real>) {
+fn set_natural(rig: &mut Rig, p: PartId, value: Option<Real>) {
     match &mut rig.parts[p].kind {
         PartKind::Haul(h) => h.force = value,
         PartKind::Weight(w) => w.mass = value,

@@ -16,13 +16,13 @@
 
 use crate::geometry::pitch_radius;
 use crate::math::{Real, STANDARD_GRAVITY};
-use crate::model::{PartKind, Rig};
+use crate::model::{IdVec, LineId, PartId, PartKind, Rig};
 use crate::solve::kinematics::Motion;
 use crate::solve::statics::{ById, Problem};
 use crate::solve::{travel, Case, Quantity, Solution, SolveError, SolveOptions};
 
 /// A span's tension, N, with the span: `(tension, (line, index on the line))`.
-pub type SpanTension = (Real, (usize, usize));
+pub type SpanTension = (Real, (LineId, usize));
 
 /// The figures at one position. Drive values in the drive's natural SI unit (N, kg or
 /// N·m); inertias in that unit per unit drive acceleration (m/s² or rad/s²).
@@ -245,7 +245,7 @@ fn interpolate(s: &[Sample], x: Real) -> Sample {
 /// A part's inertia about its own motion: kg for a translating part, kg·m² for a drum
 /// (its own or a uniform disc of its mass at its pitch radius, plus its lever as a point
 /// mass at its arm's distance from the axle).
-fn dof_inertia(rig: &Rig, part: usize, rope_diameter: Real) -> Real {
+fn dof_inertia(rig: &Rig, part: PartId, rope_diameter: Real) -> Real {
     let c = rig.changing.of(part);
     match &rig.parts[part].kind {
         PartKind::Block(b) => {
@@ -283,9 +283,9 @@ fn dof_inertia(rig: &Rig, part: usize, rope_diameter: Real) -> Real {
 /// `Σ I·(s/R)²` of the rig's sheaves (rope speed `s` per unit drive speed), kg·m²/m² or
 /// kg·m², each sheave counted once (its first passage).
 fn sheave_inertia(rig: &Rig, s: &Solution) -> Real {
-    let mut seen = vec![false; rig.parts.len()];
+    let mut seen = IdVec::filled(false, rig.parts.len());
     let mut total = 0.0;
-    for (l, line) in rig.lines.iter().enumerate() {
+    for (l, line) in rig.lines.enumerate() {
         let rope_d = rig.rope_of(l).diameter;
         for (e, entry) in line.path.iter().enumerate() {
             let PartKind::Sheave(sh) = &rig.parts[entry.part].kind else {
@@ -314,8 +314,8 @@ fn sheave_inertia(rig: &Rig, s: &Solution) -> Real {
     total
 }
 
-fn largest(t: &ById<Vec<Real>>) -> (usize, usize, Real) {
-    let mut best = (0, 0, Real::NEG_INFINITY);
+fn largest(t: &ById<LineId, Vec<Real>>) -> (LineId, usize, Real) {
+    let mut best = (LineId::new(0), 0, Real::NEG_INFINITY);
     for (l, spans) in t.entries() {
         for (j, &v) in spans.iter().enumerate() {
             if v > best.2 {
@@ -327,11 +327,11 @@ fn largest(t: &ById<Vec<Real>>) -> (usize, usize, Real) {
 }
 
 /// The least span tension with its `(line, index)`.
-fn least(t: &ById<Vec<Real>>) -> SpanTension {
+fn least(t: &ById<LineId, Vec<Real>>) -> SpanTension {
     t.entries()
         .flat_map(|(l, spans)| spans.iter().enumerate().map(move |(j, &v)| (v, (l, j))))
         .min_by(|a, b| a.0.total_cmp(&b.0))
-        .unwrap_or((0.0, (0, 0)))
+        .unwrap_or((0.0, (LineId::new(0), 0)))
 }
 
 /// The figures of `rig` (whose `solve_for` is its drive) solved as `solution`, at `x`.
@@ -350,7 +350,7 @@ pub fn sample(
         r: &'a Rig,
         solution: &'a Solution,
         component: usize,
-        drive: usize,
+        drive: PartId,
     ) -> Result<Problem<'a>, SolveError> {
         Problem::new(
             r,
@@ -366,7 +366,7 @@ pub fn sample(
     let start_forward = base.solve_static(Case::Forward, options)?.value;
     let start_back = base.solve_static(Case::Back, options)?.value;
     // The d'Alembert loads of a unit drive acceleration on every moving part but the drive.
-    let rope_d = rig.ropes.first().map_or(0.0, |r| r.diameter);
+    let rope_d = rig.ropes.iter().next().map_or(0.0, |r| r.diameter);
     let mut loaded = rig.clone();
     let k = &solution.kinematics;
     let mut inertia_ideal = 0.0;
@@ -389,7 +389,7 @@ pub fn sample(
     } + sheave_inertia(rig, solution);
     let (lf, jf, tf) = largest(&main.forward.tension);
     let (lb, jb, tb) = largest(&main.back.tension);
-    let response = |t: &ById<Vec<Real>>, l: usize, j: usize, base: Real| {
+    let response = |t: &ById<LineId, Vec<Real>>, l: LineId, j: usize, base: Real| {
         t.get(l).and_then(|s| s.get(j)).map_or(0.0, |v| v - base)
     };
     Ok(Sample {
@@ -459,7 +459,7 @@ pub fn build_told(
     let k = &first.kinematics;
     let rotates =
         k.dof_of_part[rig.drive].is_some_and(|i| matches!(k.dofs[i].motion, Motion::Rotate(_)));
-    let rope_d = rig.ropes.first().map_or(0.0, |r| r.diameter);
+    let rope_d = rig.ropes.iter().next().map_or(0.0, |r| r.diameter);
     let allowed_tension = rig
         .ropes
         .iter()

@@ -6,33 +6,38 @@
 use std::ops::Index;
 use std::sync::Arc;
 
+use crate::model::Id;
+
 /// Values at some ids of a rig-wide index (parts or lines), `absent` at every other id
 /// below [`ById::len`]. Indexed like the `Vec` over every id it stands for: `x[id]`,
 /// `x.get(id)` (None only past the end), `x.iter()` over every id in order; the ids it
 /// stores are [`ById::entries`], which is what a loop over one sub-rig should walk.
 #[derive(Debug, Clone, PartialEq)]
-pub struct ById<T> {
+pub struct ById<I, T> {
     len: usize,
     /// Stored ids, ascending, each once (shared by a sub-rig's results).
-    ids: Arc<[usize]>,
+    ids: Arc<[I]>,
     values: Vec<T>,
     absent: T,
 }
 
-impl<T> ById<T> {
+impl<I: Id, T> ById<I, T> {
     /// `values[k]` at `ids[k]` among `len` ids, `absent` elsewhere.
     ///
     /// # Panics
     /// When `ids` is not strictly ascending, reaches `len`, or its length is not that of
     /// `values` (a bug in the solver, not bad input).
-    pub fn new(len: usize, ids: impl Into<Arc<[usize]>>, values: Vec<T>, absent: T) -> ById<T> {
+    pub fn new(len: usize, ids: impl Into<Arc<[I]>>, values: Vec<T>, absent: T) -> ById<I, T> {
         let ids = ids.into();
         assert_eq!(ids.len(), values.len(), "one value per id");
         assert!(
             ids.windows(2).all(|w| w[0] < w[1]),
             "ids ascending, each once"
         );
-        assert!(ids.last().map_or(true, |&i| i < len), "ids below len");
+        assert!(
+            ids.last().map_or(true, |&i| i.index() < len),
+            "ids below len"
+        );
         ById {
             len,
             ids,
@@ -47,10 +52,10 @@ impl<T> ById<T> {
     ///
     /// # Panics
     /// When the length of `ids` is not that of `values`.
-    pub(super) fn keyed(len: usize, ids: Arc<[usize]>, values: Vec<T>, absent: T) -> ById<T> {
+    pub(super) fn keyed(len: usize, ids: Arc<[I]>, values: Vec<T>, absent: T) -> ById<I, T> {
         assert_eq!(ids.len(), values.len(), "one value per id");
         debug_assert!(ids.windows(2).all(|w| w[0] < w[1]));
-        debug_assert!(ids.last().map_or(true, |&i| i < len));
+        debug_assert!(ids.last().map_or(true, |&i| i.index() < len));
         ById {
             len,
             ids,
@@ -70,8 +75,8 @@ impl<T> ById<T> {
     }
 
     /// The value at `id`, `absent` where none is stored; None past the end.
-    pub fn get(&self, id: usize) -> Option<&T> {
-        if id >= self.len {
+    pub fn get(&self, id: I) -> Option<&T> {
+        if id.index() >= self.len {
             return None;
         }
         Some(match self.position(id) {
@@ -81,7 +86,7 @@ impl<T> ById<T> {
     }
 
     /// Every id's value in id order, `absent` included: as the `Vec` over every id.
-    pub fn iter(&self) -> Iter<'_, T> {
+    pub fn iter(&self) -> Iter<'_, I, T> {
         Iter {
             of: self,
             id: 0,
@@ -90,11 +95,11 @@ impl<T> ById<T> {
     }
 
     /// The stored ids and their values, in id order.
-    pub fn entries(&self) -> impl Iterator<Item = (usize, &T)> + '_ {
+    pub fn entries(&self) -> impl Iterator<Item = (I, &T)> + '_ {
         self.ids.iter().copied().zip(&self.values)
     }
 
-    fn position(&self, id: usize) -> Option<usize> {
+    fn position(&self, id: I) -> Option<usize> {
         // Most lookups of another sub-rig's id fall outside the stored range.
         match (self.ids.first(), self.ids.last()) {
             (Some(&lo), Some(&hi)) if (lo..=hi).contains(&id) => self.ids.binary_search(&id).ok(),
@@ -105,15 +110,15 @@ impl<T> ById<T> {
 
 /// [`ById::iter`]: every id's value in id order.
 #[derive(Debug, Clone)]
-pub struct Iter<'a, T> {
-    of: &'a ById<T>,
+pub struct Iter<'a, I, T> {
+    of: &'a ById<I, T>,
     /// The next id.
     id: usize,
     /// The position in `ids` of the next stored id.
     next: usize,
 }
 
-impl<'a, T> Iterator for Iter<'a, T> {
+impl<'a, I: Id, T> Iterator for Iter<'a, I, T> {
     type Item = &'a T;
 
     fn next(&mut self) -> Option<&'a T> {
@@ -121,7 +126,7 @@ impl<'a, T> Iterator for Iter<'a, T> {
         if self.id >= of.len {
             return None;
         }
-        let value = if of.ids.get(self.next) == Some(&self.id) {
+        let value = if of.ids.get(self.next).map(|i| i.index()) == Some(self.id) {
             self.next += 1;
             &of.values[self.next - 1]
         } else {
@@ -137,28 +142,29 @@ impl<'a, T> Iterator for Iter<'a, T> {
     }
 }
 
-impl<T> ExactSizeIterator for Iter<'_, T> {}
+impl<I: Id, T> ExactSizeIterator for Iter<'_, I, T> {}
 
 /// `for x in &by_id` walks every id, as over the `Vec` it stands for.
-impl<'a, T> IntoIterator for &'a ById<T> {
+impl<'a, I: Id, T> IntoIterator for &'a ById<I, T> {
     type Item = &'a T;
-    type IntoIter = Iter<'a, T>;
+    type IntoIter = Iter<'a, I, T>;
 
-    fn into_iter(self) -> Iter<'a, T> {
+    fn into_iter(self) -> Iter<'a, I, T> {
         self.iter()
     }
 }
 
-impl<T> Index<usize> for ById<T> {
+impl<I: Id, T> Index<I> for ById<I, T> {
     type Output = T;
 
     /// # Panics
     /// Past the end, as a `Vec` would.
-    fn index(&self, id: usize) -> &T {
+    fn index(&self, id: I) -> &T {
         self.get(id).unwrap_or_else(|| {
             panic!(
-                "index out of bounds: the len is {} but the index is {id}",
-                self.len
+                "index out of bounds: the len is {} but the index is {}",
+                self.len,
+                id.index()
             )
         })
     }
@@ -167,26 +173,34 @@ impl<T> Index<usize> for ById<T> {
 #[cfg(test)]
 mod tests {
     use super::*;
+    use crate::model::PartId;
+
+    fn p(index: usize) -> PartId {
+        PartId::new(index)
+    }
 
     #[test]
     fn reads_as_the_vec_over_every_id() {
-        let x = ById::new(6, vec![1, 4], vec![2.5, -1.0], 0.0);
+        let x = ById::new(6, vec![p(1), p(4)], vec![2.5, -1.0], 0.0);
         assert_eq!(
             x.iter().copied().collect::<Vec<_>>(),
             [0.0, 2.5, 0.0, 0.0, -1.0, 0.0]
         );
-        assert_eq!((x[0], x[1], x[4], x[5]), (0.0, 2.5, -1.0, 0.0));
-        assert_eq!(x.get(6), None);
+        assert_eq!((x[p(0)], x[p(1)], x[p(4)], x[p(5)]), (0.0, 2.5, -1.0, 0.0));
+        assert_eq!(x.get(p(6)), None);
         assert_eq!(x.len(), 6);
-        assert_eq!(x.entries().collect::<Vec<_>>(), [(1, &2.5), (4, &-1.0)]);
-        let empty: ById<Vec<f64>> = ById::new(3, vec![], vec![], Vec::new());
-        assert!(empty[2].is_empty());
+        assert_eq!(
+            x.entries().collect::<Vec<_>>(),
+            [(p(1), &2.5), (p(4), &-1.0)]
+        );
+        let empty: ById<PartId, Vec<f64>> = ById::new(3, vec![], vec![], Vec::new());
+        assert!(empty[p(2)].is_empty());
     }
 
     #[test]
     #[should_panic(expected = "index out of bounds")]
     fn past_the_end_panics_as_a_vec() {
-        let x = ById::new(2, vec![0], vec![1], 0);
-        let _ = x[2];
+        let x = ById::new(2, vec![p(0)], vec![1], 0);
+        let _ = x[p(2)];
     }
 }

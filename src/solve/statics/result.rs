@@ -12,30 +12,30 @@ pub struct CaseResult {
     pub value: Real,
     /// `tension[line][span]`, N, at the span's start (empty for lines of other
     /// sub-rigs).
-    pub tension: ById<Vec<Real>>,
+    pub tension: ById<LineId, Vec<Real>>,
     /// `tension_end[line][span]`, N, at the span's end: the start tension plus the
     /// rope's weight times the rise (equal to `tension` for a weightless rope; empty
     /// for lines of other sub-rigs).
-    pub tension_end: ById<Vec<Real>>,
+    pub tension_end: ById<LineId, Vec<Real>>,
     /// Power into the ropes' potential energy per unit drive speed, W (zero for
     /// weightless ropes); the energy audit counts it.
     pub rope_power: Real,
     /// `ratio[line][entry]`: tight over slack tension at a middle passage (empty for
     /// lines of other sub-rigs).
-    pub ratio: ById<Vec<Option<Real>>>,
+    pub ratio: ById<LineId, Vec<Option<Real>>>,
     /// Power lost at each part per unit drive speed, W (per m/s or rad/s of the drive);
     /// zero outside the sub-rig.
-    pub loss: ById<Real>,
+    pub loss: ById<PartId, Real>,
     /// Power taken by each part's load per unit drive speed, W (negative where a load
     /// gives power, and at the drive); zero outside the sub-rig.
-    pub load_power: ById<Real>,
+    pub load_power: ById<PartId, Real>,
     /// Power the drive puts in per unit drive speed.
     pub drive_power: Real,
     /// Resultant force the sub-rig's lines (and own weight) put on each part, N; None
     /// at parts its lines do not reach.
-    pub pin_load: ById<Option<Vector>>,
+    pub pin_load: ById<PartId, Option<Vector>>,
     /// Drum torques, per part (None but at the sub-rig's drums).
-    pub drums: ById<Option<DrumTorques>>,
+    pub drums: ById<PartId, Option<DrumTorques>>,
     /// Sheaves that do not turn: (line, entry).
     pub stalled: Vec<(LineId, usize)>,
     /// Untied drum passages where the rope slips.
@@ -85,19 +85,19 @@ impl CaseResult {
 pub struct Losses {
     /// A turning sheave's bearing: journal (friction circle, rolling or rated) and
     /// thrust face.
-    pub bearing: ById<Real>,
+    pub bearing: ById<PartId, Real>,
     /// The rope's own bending over a turning sheave (the rope's `bend_loss`).
-    pub bending: ById<Real>,
+    pub bending: ById<PartId, Real>,
     /// Rope sliding on a fixed surface: a guide, a stalled sheave (capstan).
-    pub surface: ById<Real>,
+    pub surface: ById<PartId, Real>,
     /// A drum's drag, journal and thrust.
-    pub drum: ById<Real>,
+    pub drum: ById<PartId, Real>,
 }
 
 impl Losses {
     /// Each kind summed over the parts: (bearing, bending, surface, drum).
     pub fn totals(&self) -> (Real, Real, Real, Real) {
-        let sum = |v: &ById<Real>| v.entries().map(|(_, x)| x).sum::<Real>();
+        let sum = |v: &ById<PartId, Real>| v.entries().map(|(_, x)| x).sum::<Real>();
         (
             sum(&self.bearing),
             sum(&self.bending),
