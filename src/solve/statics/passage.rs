@@ -301,7 +301,7 @@ impl Problem<'_> {
     /// The force each span touching local part `lp` (an index into `parts`) puts on
     /// it, and where, from the tensions by local line: for the pin loads and drums. A
     /// span with rope weight is tighter at its higher end and hangs half its weight
-    /// square to the chord on each end ([`RopeWeight::end_forces`]); the rope lying on
+    /// square to the chord on each end ([`RopeWeight::end_forces`](crate::solve::selfweight::RopeWeight::end_forces)); the rope lying on
     /// the part's arcs adds its weight, at the part's centre: it loads the pin, and a
     /// drum's torque stays that of its spans.
     pub(super) fn contacts<'b>(
